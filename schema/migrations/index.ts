@@ -1,0 +1,22 @@
+import type { Knex } from 'knex';
+import * as usersProjectsAudit from './20261201000100_users_projects_audit.js';
+
+interface Migration {
+  up(knex: Knex): Promise<void>;
+  down(knex: Knex): Promise<void>;
+}
+
+/** Every migration in order. Add a new file here as well as in the folder. */
+const migrations: Record<string, Migration> = {
+  '20261201000100_users_projects_audit': usersProjectsAudit,
+};
+
+export const migrationSource: Knex.MigrationSource<string> = {
+  getMigrations: async () => Object.keys(migrations).sort(),
+  getMigrationName: (name) => name,
+  getMigration: async (name) => {
+    const migration = migrations[name];
+    if (!migration) throw new Error(`Unknown migration ${name}`);
+    return migration;
+  },
+};

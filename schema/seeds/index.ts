@@ -1,0 +1,20 @@
+import type { Knex } from 'knex';
+import * as demoUsers from './01_demo_users.js';
+
+interface Seed {
+  seed(knex: Knex): Promise<void>;
+}
+
+/** Every seed in the order it runs. Add a new file here as well as in the folder. */
+const seeds: Record<string, Seed> = {
+  '01_demo_users': demoUsers,
+};
+
+export const seedSource: Knex.SeedSource<string> = {
+  getSeeds: async () => Object.keys(seeds).sort(),
+  getSeed: async (name) => {
+    const seed = seeds[name];
+    if (!seed) throw new Error(`Unknown seed ${name}`);
+    return seed;
+  },
+};

@@ -1,0 +1,84 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pino, type Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import { authRouter } from './auth/auth.routes.js';
+import type { Config } from './config.js';
+import type { Database } from './db/database.js';
+import { healthRouter } from './health/health.routes.js';
+import { errorHandler, notFoundHandler } from './http/error-handler.js';
+import { readSession, requireSignIn } from './http/session.js';
+import { projectsRouter } from './projects/projects.routes.js';
+
+export interface AppDeps {
+  db: Database;
+  config: Config;
+  logger?: Logger;
+}
+
+export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL }) }: AppDeps): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: null,
+        },
+      },
+    }),
+  );
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(express.json({ limit: config.JSON_BODY_LIMIT }));
+  app.use(cookieParser());
+
+  const tokenSettings = { secret: config.JWT_SECRET, sessionHours: config.SESSION_HOURS };
+  const api = express.Router();
+  api.use(readSession(db, tokenSettings));
+  api.use('/health', healthRouter(db));
+  api.use(
+    '/auth',
+    authRouter(db, {
+      ...tokenSettings,
+      cookieSecure: config.COOKIE_SECURE,
+      loginRateLimit: config.LOGIN_RATE_LIMIT,
+      loginRateWindowMinutes: config.LOGIN_RATE_WINDOW_MINUTES,
+    }),
+  );
+  api.use(requireSignIn);
+  api.use('/projects', projectsRouter(db));
+  api.use(notFoundHandler);
+  app.use('/api', api);
+
+  if (config.WEB_DIST && existsSync(config.WEB_DIST)) {
+    const webDist = path.resolve(config.WEB_DIST);
+    app.use(express.static(webDist, { index: false, maxAge: '1h', setHeaders: noCacheForIndex }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(webDist, 'index.html'));
+    });
+  }
+
+  app.use(notFoundHandler);
+  app.use(errorHandler);
+  return app;
+}
+
+function noCacheForIndex(res: express.Response, filePath: string): void {
+  if (filePath.endsWith('index.html')) {
+    res.setHeader('Cache-Control', 'no-cache');
+  }
+}

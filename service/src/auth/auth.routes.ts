@@ -1,0 +1,75 @@
+import bcrypt from 'bcryptjs';
+import { Router, type CookieOptions } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { z } from 'zod';
+import { recordAudit } from '../audit/audit.repository.js';
+import type { Database } from '../db/database.js';
+import { AppError } from '../http/app-error.js';
+import { csrfHeader, currentSession, requireSignIn, sessionCookie } from '../http/session.js';
+import { parse } from '../http/validate.js';
+import { findUserByEmail, toPublicUser } from './auth.repository.js';
+import { signSession, type TokenSettings } from './tokens.js';
+
+export interface AuthSettings extends TokenSettings {
+  cookieSecure: boolean;
+  loginRateLimit: number;
+  loginRateWindowMinutes: number;
+}
+
+const loginSchema = z.object({
+  email: z.string().trim().email('Enter a valid e-mail address.').max(320),
+  password: z.string().min(1, 'Enter your password.').max(200),
+});
+
+/** Compared against when the e-mail is unknown, so both failures take the same time. */
+const unknownUserHash = bcrypt.hashSync('allowlight-unknown-user', 10);
+
+const wrongCredentials = () => new AppError(401, 'invalid_credentials', 'The e-mail or password is not correct.');
+
+export function authRouter(db: Database, settings: AuthSettings): Router {
+  const router = Router();
+  const cookieOptions: CookieOptions = {
+    httpOnly: true,
+    sameSite: 'lax',
+    secure: settings.cookieSecure,
+    path: '/',
+  };
+
+  const loginLimiter = rateLimit({
+    windowMs: settings.loginRateWindowMinutes * 60_000,
+    limit: settings.loginRateLimit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many sign-in attempts. Wait a few minutes and try again.' } });
+    },
+  });
+
+  router.post('/login', loginLimiter, async (req, res) => {
+    const { email, password } = parse(loginSchema, req.body);
+    const user = await findUserByEmail(db, email);
+    const matches = await bcrypt.compare(password, user?.password_hash ?? unknownUserHash);
+    if (!user || !matches) {
+      throw wrongCredentials();
+    }
+    const { token, csrf } = signSession(settings, user.id);
+    res.cookie(sessionCookie, token, { ...cookieOptions, maxAge: settings.sessionHours * 3_600_000 });
+    await recordAudit(db, { userId: user.id, action: 'sign-in', entity: 'user', entityId: user.id });
+    res.json({ user: await toPublicUser(db, user), csrfToken: csrf });
+  });
+
+  router.post('/logout', (req, res) => {
+    if (req.session && req.get(csrfHeader) !== req.session.csrf) {
+      throw new AppError(403, 'csrf_failed', 'The request is missing a valid X-CSRF-Token header.');
+    }
+    res.clearCookie(sessionCookie, cookieOptions);
+    res.status(204).end();
+  });
+
+  router.get('/me', requireSignIn, (req, res) => {
+    const session = currentSession(req);
+    res.json({ user: session.user, csrfToken: session.csrf });
+  });
+
+  return router;
+}

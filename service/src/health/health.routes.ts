@@ -1,0 +1,15 @@
+import { Router } from 'express';
+import type { Database } from '../db/database.js';
+
+export function healthRouter(db: Database): Router {
+  const router = Router();
+  router.get('/', async (_req, res) => {
+    try {
+      await db.raw('select 1');
+      res.json({ status: 'ok', db: 'up' });
+    } catch {
+      res.status(503).json({ status: 'degraded', db: 'down' });
+    }
+  });
+  return router;
+}

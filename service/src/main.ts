@@ -1,0 +1,24 @@
+import { pino } from 'pino';
+import { createApp } from './app.js';
+import { loadConfig } from './config.js';
+import { createDatabase } from './db/database.js';
+
+const config = loadConfig();
+const logger = pino({ level: config.LOG_LEVEL });
+const db = createDatabase(config.DATABASE_URL);
+const app = createApp({ db, config, logger });
+
+const server = app.listen(config.PORT, config.HOST, () => {
+  logger.info({ url: `http://${config.HOST}:${config.PORT}` }, 'Allowlight is listening');
+});
+
+function shutdown(signal: string): void {
+  logger.info({ signal }, 'shutting down');
+  server.close(() => {
+    void db.destroy().finally(() => process.exit(0));
+  });
+  setTimeout(() => process.exit(0), 5000).unref();
+}
+
+process.on('SIGINT', () => shutdown('SIGINT'));
+process.on('SIGTERM', () => shutdown('SIGTERM'));

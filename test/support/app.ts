@@ -1,0 +1,40 @@
+import { randomBytes } from 'node:crypto';
+import type { Express } from 'express';
+import { pino } from 'pino';
+import request from 'supertest';
+import { inject } from 'vitest';
+import { createApp } from '../../service/src/app.js';
+import { loadConfig, type Config } from '../../service/src/config.js';
+import type { Database } from '../../service/src/db/database.js';
+
+export function testConfig(url: string, overrides: Record<string, string> = {}): Config {
+  return loadConfig({
+    NODE_ENV: 'test',
+    DATABASE_URL: url,
+    JWT_SECRET: randomBytes(32).toString('hex'),
+    LOG_LEVEL: 'silent',
+    LOGIN_RATE_LIMIT: '1000',
+    ...overrides,
+  });
+}
+
+export function testApp(db: Database, url: string, overrides: Record<string, string> = {}): { app: Express; config: Config } {
+  const config = testConfig(url, overrides);
+  return { app: createApp({ db, config, logger: pino({ level: 'silent' }) }), config };
+}
+
+export interface SignedInAgent {
+  agent: ReturnType<typeof request.agent>;
+  csrfToken: string;
+  user: { id: string; email: string; name: string; isAdmin: boolean };
+}
+
+/** Signs in through the real route and keeps the cookie, as a script or integration would. */
+export async function signIn(app: Express, email: string, password = inject('demoPassword')): Promise<SignedInAgent> {
+  const agent = request.agent(app);
+  const response = await agent.post('/api/auth/login').send({ email, password });
+  if (response.status !== 200) {
+    throw new Error(`sign-in as ${email} failed: ${response.status} ${JSON.stringify(response.body)}`);
+  }
+  return { agent, csrfToken: response.body.csrfToken, user: response.body.user };
+}

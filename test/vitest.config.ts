@@ -1,0 +1,17 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const root = fileURLToPath(new URL('..', import.meta.url));
+
+/** Calculation, reference, schema, service and browser tests. The web unit tests run through `ng test`. */
+export default defineConfig({
+  root,
+  test: {
+    include: ['test/**/*.test.ts'],
+    globalSetup: ['test/support/global-setup.ts'],
+    testTimeout: 20_000,
+    hookTimeout: 60_000,
+    pool: 'forks',
+    reporters: ['default'],
+  },
+});

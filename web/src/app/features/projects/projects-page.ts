@@ -1,0 +1,43 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { MatCardModule } from '@angular/material/card';
+import { MatChipsModule } from '@angular/material/chips';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { catchError, map, of, startWith } from 'rxjs';
+import { ApiError } from '../../core/http/api-error';
+import { ProjectApi, type ProjectState, type ProjectSummary } from './project-api';
+
+type ListState = { status: 'loading' } | { status: 'ready'; projects: ProjectSummary[] } | { status: 'failed'; message: string };
+
+export const stateLabels: Record<ProjectState, string> = {
+  draft: 'Draft',
+  'in-review': 'In review',
+  returned: 'Returned',
+  accepted: 'Accepted',
+  issued: 'Issued',
+};
+
+@Component({
+  selector: 'al-projects-page',
+  imports: [DatePipe, MatCardModule, MatChipsModule, MatIconModule, MatProgressBarModule],
+  templateUrl: './projects-page.html',
+  styleUrl: './projects-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ProjectsPage {
+  protected readonly stateLabels = stateLabels;
+  protected readonly list = toSignal(
+    inject(ProjectApi)
+      .list()
+      .pipe(
+        map((projects): ListState => ({ status: 'ready', projects })),
+        catchError((error: unknown) =>
+          of<ListState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'The projects could not be loaded.' }),
+        ),
+        startWith<ListState>({ status: 'loading' }),
+      ),
+    { requireSync: true },
+  );
+}
