@@ -1,0 +1,189 @@
+/**
+ * The code tables of one edition, as the compliance engine reads them. The code-tables module
+ * loads this from PostgreSQL (seeded from `reference/<edition>/`); tests may build it by hand.
+ * Every number is an exact decimal string; nothing here is a JavaScript number.
+ */
+
+export type EditionId = 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2021';
+export type CodeFamily = 'ashrae-90.1' | 'iecc';
+
+/** Where a value came from and how far it can be trusted. `verified: false` shows a "verify" mark. */
+export interface Provenance {
+  source: string;
+  confidence: string;
+  verified: boolean;
+  note?: string;
+}
+
+/** Our own keys for the control strategies; each edition says which section covers each. */
+export type StrategyKey =
+  | 'local-control'
+  | 'restricted-manual-on'
+  | 'restricted-partial-auto-on'
+  | 'bilevel'
+  | 'daylight-sidelighting'
+  | 'daylight-toplighting'
+  | 'automatic-partial-off'
+  | 'automatic-full-off'
+  | 'scheduled-shutoff'
+  | 'occupant-sensor'
+  | 'time-switch'
+  | 'light-reduction'
+  | 'specific-application'
+  | 'exterior-daylight-off'
+  | 'exterior-setback'
+  | 'exterior-facade-landscape-off';
+
+export const strategyKeys: readonly StrategyKey[] = [
+  'local-control',
+  'restricted-manual-on',
+  'restricted-partial-auto-on',
+  'bilevel',
+  'daylight-sidelighting',
+  'daylight-toplighting',
+  'automatic-partial-off',
+  'automatic-full-off',
+  'scheduled-shutoff',
+  'occupant-sensor',
+  'time-switch',
+  'light-reduction',
+  'specific-application',
+  'exterior-daylight-off',
+  'exterior-setback',
+  'exterior-facade-landscape-off',
+];
+
+/**
+ * A table cell for one strategy in one space type: required, at least one of a group
+ * (90.1's ADD1/ADD2 become `one-of:ADD1`), not required, or not known from a public source.
+ */
+export type RequirementCode = 'required' | 'not-required' | 'to-verify' | `one-of:${string}`;
+
+export interface ControlStrategy {
+  key: StrategyKey;
+  label: string;
+  /** The section of this edition that states the strategy, e.g. "9.4.1.1(h)" or "C405.2.1". */
+  section: string;
+  /** Parameters the edition states; absent where it states none. Decimal strings. */
+  parameters: {
+    timeoutMinutes?: string;
+    reductionPercent?: string;
+    zoneSizeLimitFt2?: string;
+    [name: string]: string | undefined;
+  };
+  provenance: Provenance;
+}
+
+export interface BuildingAreaType {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  lpdWPerFt2: string;
+  provenance: Provenance;
+}
+
+export interface SpaceType {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  category: string;
+  lpdWPerFt2: string;
+  /** 90.1 only: the room cavity ratio at or above which the room-geometry increase applies. */
+  rcrThreshold: string | null;
+  /** A threshold the source states in words instead of a number (e.g. corridors "width < 8 ft"). */
+  rcrCondition?: string;
+  /** 90.1: the table's control columns. IECC: derived from the rule inputs below, for display. */
+  controls: Partial<Record<StrategyKey, RequirementCode>>;
+  /** IECC rule inputs, held as data (C405.2.1 list and its full automatic-on exception list). */
+  iecc?: {
+    occupantSensorListed: boolean;
+    fullAutoOnAllowed: boolean;
+    /** Which occupant-sensor function applies: the general one or a space-specific one. */
+    sensorFunction: 'general' | 'warehouse' | 'open-office' | 'corridor' | 'parking-garage';
+  };
+  provenance: Provenance;
+}
+
+export type ExteriorUnit = 'W' | 'W/ft2' | 'W/ft' | 'W/location' | 'W/door' | 'W/device' | 'W/window';
+
+export interface ExteriorApplication {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  unit: ExteriorUnit;
+  /** true: tradable surface (pooled); false: nontradable (each only for itself); base site allowance is neither. */
+  tradable: boolean;
+  isBaseSiteAllowance: boolean;
+  /** Allowance per unit for lighting zones "0".."4"; decimal strings. */
+  allowanceByZone: Record<string, string>;
+  controls: Partial<Record<StrategyKey, RequirementCode>>;
+  provenance: Provenance;
+}
+
+export interface LightingZone {
+  zone: number;
+  description: string;
+  provenance: Provenance;
+}
+
+export interface AdditionalAllowance {
+  key: string;
+  label: string;
+  kind: 'retail-display';
+  /** W/ft² of the qualifying area. */
+  lpdWPerFt2: string;
+  /** A fixed wattage added once per building where the edition states one. */
+  fixedW?: string;
+  provenance: Provenance;
+}
+
+/** Edition-wide numbers the rules use. Each carries its provenance; unverified ones show "verify". */
+export interface EditionRules {
+  daylight: {
+    /** Primary sidelit general lighting at which sidelighting control is required. */
+    primarySidelitThresholdW: string;
+    /** Primary + secondary sidelit lighting at which secondary sidelighting control is required; null where not a rule. */
+    combinedSidelitThresholdW: string | null;
+    toplitThresholdW: string;
+    /** 'at-least' (≥, 90.1) or 'more-than' (>, IECC). */
+    comparison: 'at-least' | 'more-than';
+    /** Sidelighting is not required when the space's total window area is below this (ft²); null where no such exception. */
+    minimumWindowAreaFt2: string | null;
+    /** How far a sidelit zone extends beyond each side of a window. */
+    sideExtension: { kind: 'head-height-fraction'; fraction: string } | { kind: 'fixed'; feet: string };
+    primaryDepthHeadHeights: string;
+    secondaryDepthHeadHeights: string;
+    /** Toplit zone extends this many ceiling heights beyond each skylight edge. */
+    toplitExtensionCeilingHeights: string;
+    provenance: Provenance;
+  };
+  /** 90.1 §9.6.3 room-geometry increase; null for IECC. */
+  roomGeometry: { increasePercent: string; provenance: Provenance } | null;
+  /** IECC: any other enclosed space at or below this area needs an occupant sensor (C405.2.1). */
+  smallEnclosedSpaceFt2: string | null;
+  /** Line-voltage track: at least this many watts per linear foot. */
+  trackMinimumWPerFt: string;
+  trackProvenance: Provenance;
+  /** Whether the base site allowance may cover nontradable excess. */
+  baseSiteCoversNontradable: boolean;
+  baseSiteProvenance: Provenance;
+}
+
+export interface EditionData {
+  id: EditionId;
+  family: CodeFamily;
+  title: string;
+  publisher: string;
+  year: number;
+  /** Changes whenever any value of the edition changes; stored with every result. */
+  dataVersion: string;
+  /** Sections cited in results, e.g. { interiorAllowanceBuildingArea: "9.5.1", ... }. */
+  sections: Record<string, string>;
+  buildingAreaTypes: BuildingAreaType[];
+  spaceTypes: SpaceType[];
+  controlStrategies: ControlStrategy[];
+  exteriorApplications: ExteriorApplication[];
+  lightingZones: LightingZone[];
+  additionalAllowances: AdditionalAllowance[];
+  rules: EditionRules;
+}
