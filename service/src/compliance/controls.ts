@@ -1,0 +1,191 @@
+import type { ProvidedControl } from './document.js';
+import type { ControlStrategy, EditionData, RequirementCode, SpaceType, StrategyKey } from './edition-data.js';
+import { strategyKeys } from './edition-data.js';
+import { type Dec, dec } from './numbers.js';
+import type { ControlLine } from './result.js';
+
+/** One requirement before it is compared with what the engineer provided. */
+export interface ControlRequirement {
+  strategy: StrategyKey;
+  requirement: RequirementCode;
+  why: string;
+}
+
+export interface SpaceControlFacts {
+  spaceType: SpaceType | undefined;
+  areaFt2: Dec;
+  enclosed: boolean | undefined;
+  sidelightingRequired: boolean;
+  secondarySidelightingRequired: boolean;
+  toplightingRequired: boolean;
+  daylightWhy: { sidelighting: string; toplighting: string };
+  decorativeW: Dec;
+  displayW: Dec;
+}
+
+const exceptionWords: Record<NonNullable<ProvidedControl['exceptionReason']>, string> = {
+  'security-or-emergency-continuous': 'security or emergency area that must stay lit continuously',
+  'exit-stairway-ramp-passageway': 'interior exit stairway, exit ramp or exit passageway',
+  'egress-normally-off': 'emergency egress lighting that is normally off',
+  other: 'another exception',
+};
+
+function ft2(value: Dec): string {
+  return `${value.toFixed()} ft²`;
+}
+
+/** 90.1: the space type's table columns; daylight columns apply only where the geometry and watts trigger them. */
+function tableRequirements(edition: EditionData, facts: SpaceControlFacts): ControlRequirement[] {
+  const type = facts.spaceType;
+  if (type === undefined) return [];
+  const requirements: ControlRequirement[] = [];
+  for (const strategy of strategyKeys) {
+    const code = type.controls[strategy];
+    if (code === undefined) continue;
+    const column = `${type.label}: ${code === 'required' ? 'required' : code.startsWith('one-of:') ? `at least one of group ${code.slice(7)}` : code}`;
+    if ((strategy === 'daylight-sidelighting' || strategy === 'daylight-toplighting') && code !== 'not-required' && code !== 'to-verify') {
+      const triggered = strategy === 'daylight-sidelighting' ? facts.sidelightingRequired : facts.toplightingRequired;
+      const why = strategy === 'daylight-sidelighting' ? facts.daylightWhy.sidelighting : facts.daylightWhy.toplighting;
+      requirements.push({ strategy, requirement: triggered ? code : 'not-required', why: `${column} where triggered; ${why}` });
+      continue;
+    }
+    requirements.push({ strategy, requirement: code, why: `${column} (${edition.title} space type controls)` });
+  }
+  return requirements;
+}
+
+/** IECC: occupant-sensor list and small-space rule, time switch otherwise, light reduction, daylight from geometry. */
+function ruleRequirements(edition: EditionData, facts: SpaceControlFacts): ControlRequirement[] {
+  const type = facts.spaceType;
+  const small = edition.rules.smallEnclosedSpaceFt2 === null ? null : dec(edition.rules.smallEnclosedSpaceFt2);
+  let occupant: ControlRequirement;
+  if (type?.iecc?.occupantSensorListed) {
+    occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `${type.label} is a space type listed for occupant sensors` };
+  } else if (small !== null && facts.enclosed === true && facts.areaFt2.lessThanOrEqualTo(small)) {
+    occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `enclosed space of ${ft2(facts.areaFt2)}, not more than ${ft2(small)}` };
+  } else if (type === undefined && facts.enclosed !== false) {
+    occupant = { strategy: 'occupant-sensor', requirement: 'to-verify', why: 'no control space type given, so the occupant-sensor list cannot be checked' };
+  } else {
+    const size =
+      small === null
+        ? ''
+        : facts.enclosed === true
+          ? `; enclosed but ${ft2(facts.areaFt2)} is more than ${ft2(small)}`
+          : facts.enclosed === false
+            ? '; not an enclosed space'
+            : '; not recorded as enclosed';
+    occupant = { strategy: 'occupant-sensor', requirement: 'not-required', why: `${type?.label ?? 'space'} is not on the occupant-sensor list${size}` };
+  }
+  const occupantRequired = occupant.requirement === 'required';
+  const timeSwitch: ControlRequirement = occupantRequired
+    ? { strategy: 'time-switch', requirement: 'not-required', why: 'occupant sensors are required here instead' }
+    : { strategy: 'time-switch', requirement: occupant.requirement === 'to-verify' ? 'to-verify' : 'required', why: 'spaces without required occupant sensors need time-switch control' };
+  return [
+    occupant,
+    timeSwitch,
+    { strategy: 'light-reduction', requirement: 'required', why: 'the occupant can reduce the connected lighting load in a reasonably uniform pattern' },
+    { strategy: 'daylight-sidelighting', requirement: facts.sidelightingRequired ? 'required' : 'not-required', why: facts.daylightWhy.sidelighting },
+    { strategy: 'daylight-toplighting', requirement: facts.toplightingRequired ? 'required' : 'not-required', why: facts.daylightWhy.toplighting },
+  ];
+}
+
+export function interiorRequirements(edition: EditionData, facts: SpaceControlFacts): ControlRequirement[] {
+  const requirements = edition.family === 'iecc' ? ruleRequirements(edition, facts) : tableRequirements(edition, facts);
+  const special = facts.decorativeW.plus(facts.displayW);
+  const catalogued = edition.controlStrategies.some((strategy) => strategy.key === 'specific-application');
+  if (special.greaterThan(0) && catalogued && !requirements.some((line) => line.strategy === 'specific-application')) {
+    requirements.push({
+      strategy: 'specific-application',
+      requirement: 'required',
+      why: `decorative ${facts.decorativeW.toFixed()} W and display ${facts.displayW.toFixed()} W are controlled apart from general lighting`,
+    });
+  }
+  if (facts.secondarySidelightingRequired) {
+    const sidelighting = requirements.find((line) => line.strategy === 'daylight-sidelighting');
+    if (sidelighting && sidelighting.requirement !== 'not-required') {
+      sidelighting.why += '; the secondary sidelit zone is controlled separately from the primary';
+    }
+  }
+  return requirements;
+}
+
+interface ProvisionCheck {
+  ok: boolean;
+  words: string;
+}
+
+function checkProvision(
+  strategy: StrategyKey,
+  provided: ProvidedControl[],
+  catalogue: ReadonlyMap<string, ControlStrategy>,
+  spaceType: SpaceType | undefined,
+): ProvisionCheck {
+  const own = provided.find((control) => control.strategy === strategy);
+  // A full-OFF control satisfies a partial-OFF requirement.
+  const entry =
+    own?.provided !== true && strategy === 'automatic-partial-off'
+      ? (provided.find((control) => control.strategy === 'automatic-full-off' && control.provided) ?? own)
+      : own;
+  if (entry === undefined || !entry.provided) return { ok: false, words: 'not provided' };
+  const by = entry.strategy === strategy ? 'provided' : 'provided by automatic full OFF, which satisfies partial OFF';
+  const device = entry.device ? ` (${entry.device})` : '';
+  const limit = catalogue.get(entry.strategy)?.parameters.timeoutMinutes;
+  if (limit !== undefined && entry.timeoutMinutes !== undefined && dec(entry.timeoutMinutes).greaterThan(dec(limit))) {
+    return { ok: false, words: `${by}${device}, but its time-out of ${entry.timeoutMinutes} min is longer than ${limit} min` };
+  }
+  if (strategy === 'occupant-sensor' && entry.autoOn === 'full' && spaceType?.iecc && !spaceType.iecc.fullAutoOnAllowed) {
+    return { ok: false, words: `${by}${device}, but full automatic-on is not allowed in ${spaceType.label}: manual-on or automatic-on to at most 50 %` };
+  }
+  const timeout =
+    limit === undefined ? '' : entry.timeoutMinutes === undefined ? `; time-out not recorded (at most ${limit} min)` : `; time-out ${entry.timeoutMinutes} min`;
+  return { ok: true, words: `${by}${device}${timeout}` };
+}
+
+/** Compares requirements with what the engineer recorded: all required met, at least one of each group. */
+export function resolveControls(
+  requirements: ControlRequirement[],
+  provided: ProvidedControl[],
+  edition: EditionData,
+  spaceType?: SpaceType,
+): ControlLine[] {
+  const catalogue: ReadonlyMap<string, ControlStrategy> = new Map(edition.controlStrategies.map((strategy) => [strategy.key, strategy]));
+  const checks = new Map(requirements.map((line) => [line.strategy, checkProvision(line.strategy, provided, catalogue, spaceType)]));
+  return requirements.map((line) => {
+    const strategy = catalogue.get(line.strategy);
+    const label = strategy?.label ?? line.strategy;
+    const section = strategy?.section ?? '';
+    const check = checks.get(line.strategy)!;
+    const exception = provided.find((control) => control.strategy === line.strategy)?.exceptionReason;
+    const claimed = exception === undefined ? '' : `exception claimed: ${exceptionWords[exception]}`;
+    const note = provided.find((control) => control.strategy === line.strategy)?.exceptionNote;
+    const claimedWords = note ? `${claimed} (${note})` : claimed;
+    const verified = (strategy?.provenance.verified ?? false) && line.requirement !== 'to-verify';
+    const base = { strategy: line.strategy, label, requirement: line.requirement, section, verified };
+    if (line.requirement === 'not-required') {
+      return { ...base, met: null, status: 'not-required', reason: `Not required: ${line.why}.` };
+    }
+    if (line.requirement === 'to-verify') {
+      return { ...base, met: null, status: 'to-verify', reason: `To verify: ${line.why}; ${check.words}.` };
+    }
+    if (line.requirement === 'required') {
+      if (check.ok) return { ...base, met: true, status: 'met', reason: `Required: ${line.why}; ${check.words}.` };
+      if (claimedWords) return { ...base, met: null, status: 'exception-claimed', reason: `Required: ${line.why}; ${claimedWords}.` };
+      return { ...base, met: false, status: 'not-met', reason: `Required: ${line.why}; ${check.words}.` };
+    }
+    const members = requirements.filter((other) => other.requirement === line.requirement);
+    const names = members.map((member) => catalogue.get(member.strategy)?.label ?? member.strategy).join(', ');
+    const chosen = members.filter((member) => checks.get(member.strategy)!.ok);
+    const group = `at least one of ${names}`;
+    if (chosen.length > 0) {
+      const which = chosen.map((member) => catalogue.get(member.strategy)?.label ?? member.strategy).join(', ');
+      return { ...base, met: true, status: 'met', reason: `${line.why}: ${group}; met by ${which}; this one ${check.words}.` };
+    }
+    const groupClaim = members.some((member) => provided.find((control) => control.strategy === member.strategy)?.exceptionReason !== undefined);
+    if (groupClaim) return { ...base, met: null, status: 'exception-claimed', reason: `${line.why}: ${group}; ${claimedWords || 'exception claimed for the group'}.` };
+    return { ...base, met: false, status: 'not-met', reason: `${line.why}: ${group}; none provided.` };
+  });
+}
+
+export function linesComply(lines: ControlLine[]): boolean {
+  return lines.every((line) => line.status !== 'not-met');
+}

@@ -1,0 +1,411 @@
+import { z } from 'zod';
+import type { EditionData } from './edition-data.js';
+import { dec } from './numbers.js';
+
+/**
+ * The project document an evaluation reads. Numbers arrive as decimal strings or JSON numbers and
+ * leave the parser as normalised decimal strings, so nothing is ever held as a binary float.
+ * Lengths are ft or m and areas ft² or m², as `units` says; watts are watts in both.
+ *
+ * Plan coordinates for daylight geometry: a rectangular room `length` (x, along the north and
+ * south walls) by `width` (y, along the east and west walls), origin at the south-west corner.
+ * A window's `offset` is measured along its wall from the wall's lower-coordinate end (the west
+ * end of the north and south walls, the south end of the east and west walls); a skylight's
+ * `x`/`y` is its south-west corner. Absent offsets and positions centre the opening.
+ */
+
+const decimalPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+type Bound = 'non-negative' | 'positive';
+
+function quantity(bound: Bound, integer = false) {
+  return z.union([z.string(), z.number()]).transform((value, ctx) => {
+    const raw = typeof value === 'number' ? String(value) : value.trim();
+    if (typeof value === 'number' && !Number.isFinite(value)) {
+      ctx.addIssue({ code: 'custom', message: 'Must be a finite number.' });
+      return z.NEVER;
+    }
+    if (!decimalPattern.test(raw)) {
+      ctx.addIssue({ code: 'custom', message: `"${raw}" is not a decimal number.` });
+      return z.NEVER;
+    }
+    const parsed = dec(raw);
+    if (parsed.isNegative() && !parsed.isZero()) {
+      ctx.addIssue({ code: 'custom', message: 'Must not be negative.' });
+      return z.NEVER;
+    }
+    if (bound === 'positive' && parsed.isZero()) {
+      ctx.addIssue({ code: 'custom', message: 'Must be greater than zero.' });
+      return z.NEVER;
+    }
+    if (integer && !parsed.isInteger()) {
+      ctx.addIssue({ code: 'custom', message: 'Must be a whole number.' });
+      return z.NEVER;
+    }
+    return parsed.toFixed();
+  });
+}
+
+const nonNegative = quantity('non-negative');
+const positive = quantity('positive');
+const wholeCount = quantity('non-negative', true);
+const key = z.string().trim().min(1, 'Required.');
+
+export const luminaireUses = ['general', 'decorative', 'display', 'exempt'] as const;
+export const wattageBases = ['rated', 'line-voltage-track', 'low-voltage-track', 'current-limited'] as const;
+export const daylightZoneKinds = ['primary-sidelit', 'secondary-sidelit', 'toplit'] as const;
+export const walls = ['north', 'east', 'south', 'west'] as const;
+
+/** The general exceptions to the interior control requirements (90.1 §9.4.1.1 / IECC C405.2). */
+export const controlExceptionReasons = [
+  'security-or-emergency-continuous',
+  'exit-stairway-ramp-passageway',
+  'egress-normally-off',
+  'other',
+] as const;
+
+export const luminaireTypeSchema = z.object({
+  tag: key,
+  description: z.string().default(''),
+  /** Rated input watts per luminaire (for track: the specified watts of the luminaires on one run). */
+  inputWatts: nonNegative,
+  use: z.enum(luminaireUses),
+  exemptReason: z.string().trim().min(1).optional(),
+  basis: z.enum(wattageBases).default('rated'),
+  /** Track or busway run length, ft or m. */
+  length: positive.optional(),
+  /** Rating of the current limiter, breaker or transformer, W. */
+  limitWatts: positive.optional(),
+});
+
+export const luminaireGroupSchema = z.object({
+  tag: key,
+  count: wholeCount,
+  zone: z.enum(daylightZoneKinds).optional(),
+});
+
+export const controlSchema = z.object({
+  strategy: key,
+  provided: z.boolean(),
+  timeoutMinutes: nonNegative.optional(),
+  /** For occupant sensors: how lighting turns on. 'partial' means automatic-on to at most 50 %. */
+  autoOn: z.enum(['manual', 'partial', 'full']).optional(),
+  exceptionReason: z.enum(controlExceptionReasons).optional(),
+  exceptionNote: z.string().trim().min(1).optional(),
+  device: z.string().optional(),
+});
+
+export const windowSchema = z.object({
+  width: positive,
+  headHeight: positive,
+  sillHeight: nonNegative.optional(),
+  offset: nonNegative.optional(),
+  wall: z.enum(walls).default('south'),
+});
+
+export const skylightSchema = z.object({
+  length: positive,
+  width: positive,
+  x: nonNegative.optional(),
+  y: nonNegative.optional(),
+});
+
+export const spaceSchema = z.object({
+  id: key,
+  name: key,
+  level: z.string().trim().min(1).optional(),
+  spaceType: key.optional(),
+  buildingAreaType: key.optional(),
+  /** Building area method only: the space type whose control requirements apply. */
+  controlSpaceType: key.optional(),
+  area: positive,
+  ceilingHeight: positive.optional(),
+  length: positive.optional(),
+  width: positive.optional(),
+  /** Luminaire height above the floor; the ceiling height when absent. */
+  luminaireHeight: nonNegative.optional(),
+  /** Work plane above the floor; 2.5 ft when absent (common practice). */
+  workPlaneHeight: nonNegative.optional(),
+  enclosed: z.boolean().optional(),
+  luminaires: z.array(luminaireGroupSchema).default([]),
+  controls: z.array(controlSchema).default([]),
+  windows: z.array(windowSchema).default([]),
+  skylights: z.array(skylightSchema).default([]),
+});
+
+export const exteriorApplicationEntrySchema = z.object({
+  key,
+  /** ft² (m²), linear ft (m) or a count, as the application's unit says. */
+  quantity: nonNegative,
+  installedWatts: nonNegative,
+  controls: z.array(controlSchema).default([]),
+});
+
+export const exteriorSchema = z.object({
+  lightingZone: z.union([z.string(), z.number()]).transform((zone) => String(zone).trim()),
+  applications: z.array(exteriorApplicationEntrySchema).default([]),
+});
+
+export const retailDisplaySchema = z.object({
+  claims: z
+    .array(
+      z.object({
+        /** An additional-allowance key of the edition (e.g. a retail area category). */
+        allowance: key,
+        spaceId: key,
+        /** Qualifying sales floor area, ft² or m². */
+        area: positive,
+      }),
+    )
+    .default([]),
+});
+
+export const evaluationDocumentSchema = z.object({
+  edition: key,
+  method: z.enum(['building-area', 'space-by-space']),
+  units: z.enum(['ip', 'si']),
+  luminaireTypes: z.array(luminaireTypeSchema).default([]),
+  spaces: z.array(spaceSchema).min(1, 'At least one space is needed.'),
+  exterior: exteriorSchema.optional(),
+  retailDisplay: retailDisplaySchema.optional(),
+});
+
+export type EvaluationDocumentInput = z.input<typeof evaluationDocumentSchema>;
+export type EvaluationDocument = z.output<typeof evaluationDocumentSchema>;
+export type LuminaireType = EvaluationDocument['luminaireTypes'][number];
+export type Space = EvaluationDocument['spaces'][number];
+export type ProvidedControl = Space['controls'][number];
+export type WindowOpening = Space['windows'][number];
+export type Skylight = Space['skylights'][number];
+
+export interface DocumentProblem {
+  path: string;
+  message: string;
+}
+
+export type ValidationOutcome =
+  | { valid: true; document: EvaluationDocument; problems: [] }
+  | { valid: false; problems: DocumentProblem[] };
+
+/**
+ * Checks a document against the schema and against one edition's tables. Every problem comes
+ * back with its path (`spaces.3.area`); a document is evaluated only when there are none.
+ */
+export function validateDocument(input: unknown, edition: EditionData): ValidationOutcome {
+  const parsed = evaluationDocumentSchema.safeParse(input);
+  const problems: DocumentProblem[] = parsed.success
+    ? []
+    : parsed.error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message }));
+  problems.push(...referenceProblems(input, edition));
+  if (parsed.success) {
+    problems.push(...geometryProblems(parsed.data));
+  }
+  const unique = dedupe(problems);
+  return parsed.success && unique.length === 0
+    ? { valid: true, document: parsed.data, problems: [] }
+    : { valid: false, problems: unique };
+}
+
+function dedupe(problems: DocumentProblem[]): DocumentProblem[] {
+  const seen = new Set<string>();
+  return problems.filter((problem) => {
+    const id = `${problem.path}\u0000${problem.message}`;
+    if (seen.has(id)) return false;
+    seen.add(id);
+    return true;
+  });
+}
+
+type Loose = Record<string, unknown>;
+
+function record(value: unknown): Loose {
+  return typeof value === 'object' && value !== null && !Array.isArray(value) ? (value as Loose) : {};
+}
+
+function list(value: unknown): Loose[] {
+  return Array.isArray(value) ? value.map(record) : [];
+}
+
+function word(value: unknown): string | undefined {
+  return typeof value === 'string' && value.trim() !== '' ? value.trim() : undefined;
+}
+
+function present(value: unknown): boolean {
+  return value !== undefined && value !== null && value !== '';
+}
+
+/**
+ * Problems that need the edition's tables or cross-references inside the document. They read the
+ * raw input tolerantly, so a document with schema problems still hears about these as well.
+ */
+function referenceProblems(input: unknown, edition: EditionData): DocumentProblem[] {
+  const problems: DocumentProblem[] = [];
+  const add = (path: string, message: string) => problems.push({ path, message });
+  const doc = record(input);
+  const method = doc['method'];
+
+  const editionId = word(doc['edition']);
+  if (editionId !== undefined && editionId !== edition.id) {
+    add('edition', `The document is for ${editionId}; these tables are ${edition.id}.`);
+  }
+
+  const spaceTypes = new Set(edition.spaceTypes.map((type) => type.key));
+  const buildingAreaTypes = new Set(edition.buildingAreaTypes.map((type) => type.key));
+  const strategies = new Set(edition.controlStrategies.map((strategy) => strategy.key));
+
+  const tags = new Map<string, Loose>();
+  list(doc['luminaireTypes']).forEach((type, index) => {
+    const path = `luminaireTypes.${index}`;
+    const tag = word(type['tag']);
+    if (tag !== undefined) {
+      if (tags.has(tag)) add(`${path}.tag`, `Tag "${tag}" is defined more than once.`);
+      tags.set(tag, type);
+    }
+    if (type['use'] === 'exempt' && word(type['exemptReason']) === undefined) {
+      add(`${path}.exemptReason`, 'Exempt lighting needs the reason it is exempt.');
+    }
+    const basis = type['basis'];
+    if (basis === 'line-voltage-track' && !present(type['length']) && !present(type['limitWatts'])) {
+      add(`${path}.length`, 'Line-voltage track needs its length (or the current limiter rating in limitWatts).');
+    }
+    if (basis === 'low-voltage-track' && !present(type['limitWatts'])) {
+      add(`${path}.limitWatts`, 'Low-voltage track counts at its transformer rating: give it in limitWatts.');
+    }
+    if (basis === 'current-limited' && !present(type['limitWatts'])) {
+      add(`${path}.limitWatts`, 'A current-limited circuit counts at the limiter rating: give it in limitWatts.');
+    }
+  });
+
+  const spaceIds = new Set<string>();
+  list(doc['spaces']).forEach((space, index) => {
+    const path = `spaces.${index}`;
+    const id = word(space['id']);
+    if (id !== undefined) {
+      if (spaceIds.has(id)) add(`${path}.id`, `Space id "${id}" is used more than once.`);
+      spaceIds.add(id);
+    }
+    const spaceType = word(space['spaceType']);
+    const areaType = word(space['buildingAreaType']);
+    const controlType = word(space['controlSpaceType']);
+    if (method === 'building-area') {
+      if (areaType === undefined) add(`${path}.buildingAreaType`, 'The building area method needs a building area type for every space.');
+      if (spaceType !== undefined) add(`${path}.spaceType`, 'A space type is not used by the building area method; give controlSpaceType for the control requirements.');
+    }
+    if (method === 'space-by-space') {
+      if (spaceType === undefined) add(`${path}.spaceType`, 'The space-by-space method needs a space type for every space.');
+      if (areaType !== undefined) add(`${path}.buildingAreaType`, 'A building area type is not used by the space-by-space method.');
+      if (controlType !== undefined) add(`${path}.controlSpaceType`, 'With the space-by-space method the control space type is the space type.');
+    }
+    if (spaceType !== undefined && !spaceTypes.has(spaceType)) add(`${path}.spaceType`, `${edition.id} has no space type "${spaceType}".`);
+    if (controlType !== undefined && !spaceTypes.has(controlType)) add(`${path}.controlSpaceType`, `${edition.id} has no space type "${controlType}".`);
+    if (areaType !== undefined && !buildingAreaTypes.has(areaType)) add(`${path}.buildingAreaType`, `${edition.id} has no building area type "${areaType}".`);
+
+    list(space['luminaires']).forEach((group, groupIndex) => {
+      const tag = word(group['tag']);
+      if (tag !== undefined && !tags.has(tag)) add(`${path}.luminaires.${groupIndex}.tag`, `No luminaire type has the tag "${tag}".`);
+      if (tag !== undefined && group['zone'] !== undefined && record(tags.get(tag))['use'] !== 'general' && tags.has(tag)) {
+        add(`${path}.luminaires.${groupIndex}.zone`, 'Only general lighting is assigned to a daylight zone.');
+      }
+    });
+    controlProblems(space['controls'], `${path}.controls`, strategies, edition, add);
+  });
+
+  const exterior = doc['exterior'];
+  if (exterior !== undefined) {
+    const ext = record(exterior);
+    const zone = ext['lightingZone'];
+    const zones = new Set(edition.lightingZones.map((lightingZone) => String(lightingZone.zone)));
+    if (present(zone) && !zones.has(String(zone).trim())) add('exterior.lightingZone', `${edition.id} has no lighting zone "${String(zone)}".`);
+    const applications = new Map(edition.exteriorApplications.map((application) => [application.key, application]));
+    const seen = new Set<string>();
+    list(ext['applications']).forEach((entry, index) => {
+      const path = `exterior.applications.${index}`;
+      const applicationKey = word(entry['key']);
+      if (applicationKey === undefined) return;
+      const application = applications.get(applicationKey);
+      if (application === undefined) add(`${path}.key`, `${edition.id} has no exterior application "${applicationKey}".`);
+      else if (application.isBaseSiteAllowance) add(`${path}.key`, 'The base site allowance is added by the lighting zone; do not list it.');
+      if (seen.has(applicationKey)) add(`${path}.key`, `Exterior application "${applicationKey}" is listed more than once.`);
+      seen.add(applicationKey);
+      controlProblems(entry['controls'], `${path}.controls`, strategies, edition, add);
+    });
+  }
+
+  const retail = doc['retailDisplay'];
+  if (retail !== undefined) {
+    const allowances = new Set(edition.additionalAllowances.map((allowance) => allowance.key));
+    list(record(retail)['claims']).forEach((claim, index) => {
+      const path = `retailDisplay.claims.${index}`;
+      if (method === 'building-area') add(path, 'Additional allowances are part of the space-by-space method.');
+      const allowance = word(claim['allowance']);
+      if (allowance !== undefined && !allowances.has(allowance)) add(`${path}.allowance`, `${edition.id} has no additional allowance "${allowance}".`);
+      const spaceId = word(claim['spaceId']);
+      if (spaceId !== undefined && !spaceIds.has(spaceId)) add(`${path}.spaceId`, `No space has the id "${spaceId}".`);
+    });
+  }
+  return problems;
+}
+
+function controlProblems(
+  controls: unknown,
+  path: string,
+  strategies: Set<string>,
+  edition: EditionData,
+  add: (path: string, message: string) => void,
+): void {
+  const seen = new Set<string>();
+  list(controls).forEach((control, index) => {
+    const strategy = word(control['strategy']);
+    if (strategy === undefined) return;
+    if (!strategies.has(strategy)) add(`${path}.${index}.strategy`, `"${strategy}" is not a control strategy of ${edition.id}.`);
+    if (seen.has(strategy)) add(`${path}.${index}.strategy`, `"${strategy}" is listed more than once.`);
+    seen.add(strategy);
+    if (control['exceptionReason'] === 'other' && word(control['exceptionNote']) === undefined) {
+      add(`${path}.${index}.exceptionNote`, 'Say which exception is claimed.');
+    }
+  });
+}
+
+/** Geometry that must fit the room: openings inside their walls and ceiling, heights in order. */
+function geometryProblems(doc: EvaluationDocument): DocumentProblem[] {
+  const problems: DocumentProblem[] = [];
+  doc.spaces.forEach((space, index) => {
+    const path = `spaces.${index}`;
+    const hasOpenings = space.windows.length > 0 || space.skylights.length > 0;
+    if (hasOpenings && (space.length === undefined || space.width === undefined)) {
+      if (space.length === undefined) problems.push({ path: `${path}.length`, message: 'Daylight zones need the room length.' });
+      if (space.width === undefined) problems.push({ path: `${path}.width`, message: 'Daylight zones need the room width.' });
+    }
+    if (space.skylights.length > 0 && space.ceilingHeight === undefined) {
+      problems.push({ path: `${path}.ceilingHeight`, message: 'Toplit zones need the ceiling height.' });
+    }
+    const length = space.length === undefined ? undefined : dec(space.length);
+    const width = space.width === undefined ? undefined : dec(space.width);
+    space.windows.forEach((window, windowIndex) => {
+      const windowPath = `${path}.windows.${windowIndex}`;
+      if (window.sillHeight !== undefined && dec(window.sillHeight).greaterThanOrEqualTo(dec(window.headHeight))) {
+        problems.push({ path: `${windowPath}.sillHeight`, message: 'The sill must be below the head of the window.' });
+      }
+      const wallLength = window.wall === 'north' || window.wall === 'south' ? length : width;
+      if (wallLength !== undefined) {
+        const end = dec(window.offset ?? '0').plus(dec(window.width));
+        if (end.greaterThan(wallLength)) {
+          problems.push({ path: `${windowPath}.${window.offset === undefined ? 'width' : 'offset'}`, message: 'The window runs past the end of its wall.' });
+        }
+      }
+    });
+    space.skylights.forEach((skylight, skylightIndex) => {
+      const skylightPath = `${path}.skylights.${skylightIndex}`;
+      if (length !== undefined && dec(skylight.x ?? '0').plus(dec(skylight.length)).greaterThan(length)) {
+        problems.push({ path: `${skylightPath}.x`, message: 'The skylight runs past the room along its length.' });
+      }
+      if (width !== undefined && dec(skylight.y ?? '0').plus(dec(skylight.width)).greaterThan(width)) {
+        problems.push({ path: `${skylightPath}.y`, message: 'The skylight runs past the room along its width.' });
+      }
+    });
+    if (space.luminaireHeight !== undefined && space.ceilingHeight !== undefined && dec(space.luminaireHeight).greaterThan(dec(space.ceilingHeight))) {
+      problems.push({ path: `${path}.luminaireHeight`, message: 'Luminaires cannot be above the ceiling.' });
+    }
+  });
+  return problems;
+}

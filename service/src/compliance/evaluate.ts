@@ -1,0 +1,452 @@
+import { type SpaceControlFacts, interiorRequirements, linesComply, resolveControls } from './controls.js';
+import type { EvaluationDocument, Space } from './document.js';
+import type { EditionData, Provenance, SpaceType } from './edition-data.js';
+import { evaluateExterior } from './exterior.js';
+import { type RoomPlan, daylightAreas, rectangularRoomCavityRatio } from './geometry.js';
+import { unitWattage } from './installed.js';
+import { type Dec, ZERO, dec, min, sum, text } from './numbers.js';
+import type {
+  AdditionalAllowanceResult,
+  ControlLine,
+  DaylightResult,
+  EvaluationResult,
+  ExemptLine,
+  LevelResult,
+  LuminaireLine,
+  SpaceResult,
+  UnverifiedValue,
+} from './result.js';
+import { type UnitSystem, areaFromSquareFeet, areaToSquareFeet, densityFromPerSquareFoot, lengthFromFeet, lengthToFeet } from './units.js';
+
+/** The edition section keys the engine cites from `EditionData.sections`. */
+export const sectionKeys = [
+  'interiorAllowanceBuildingArea',
+  'interiorAllowanceSpaceBySpace',
+  'installedPower',
+  'trackLighting',
+  'exemptLighting',
+  'roomGeometry',
+  'additionalAllowance',
+  'interiorControls',
+  'daylightZones',
+  'exteriorAllowance',
+] as const;
+
+/** Work plane above the floor where the document gives none: 2.5 ft (common practice). */
+export const defaultWorkPlaneFt = dec('2.5');
+
+export const standingCautions = [
+  'This evaluation covers energy-code compliance only: it does not check life safety, emergency or egress lighting.',
+  'Local amendments and the authority having jurisdiction govern; check the adopted edition and any amendments.',
+  'The engineer of record verifies every value flagged as unverified before relying on the result.',
+];
+
+class Unverified {
+  private readonly seen = new Map<string, UnverifiedValue>();
+  add(what: string, provenance: Provenance): void {
+    if (provenance.verified || this.seen.has(what)) return;
+    this.seen.set(what, { what, source: provenance.source, note: provenance.note ?? provenance.confidence });
+  }
+  note(what: string, source: string, note: string): void {
+    if (!this.seen.has(what)) this.seen.set(what, { what, source, note });
+  }
+  values(): UnverifiedValue[] {
+    return [...this.seen.values()];
+  }
+}
+
+function comparesAt(value: Dec, threshold: Dec, comparison: 'at-least' | 'more-than'): boolean {
+  return comparison === 'at-least' ? value.greaterThanOrEqualTo(threshold) : value.greaterThan(threshold);
+}
+
+function percent(part: Dec, whole: Dec): string | null {
+  return whole.isZero() ? null : text(part.dividedBy(whole).times(100));
+}
+
+interface SpaceWatts {
+  lines: LuminaireLine[];
+  exempt: ExemptLine[];
+  general: Dec;
+  decorative: Dec;
+  display: Dec;
+  exemptW: Dec;
+  zoneW: { 'primary-sidelit': Dec; 'secondary-sidelit': Dec; toplit: Dec };
+}
+
+function spaceWatts(space: Space, document: EvaluationDocument, edition: EditionData, unverified: Unverified): SpaceWatts {
+  const types = new Map(document.luminaireTypes.map((type) => [type.tag, type]));
+  const installedSection = edition.sections['installedPower'] ?? '';
+  const result: SpaceWatts = {
+    lines: [],
+    exempt: [],
+    general: ZERO,
+    decorative: ZERO,
+    display: ZERO,
+    exemptW: ZERO,
+    zoneW: { 'primary-sidelit': ZERO, 'secondary-sidelit': ZERO, toplit: ZERO },
+  };
+  for (const group of space.luminaires) {
+    const type = types.get(group.tag)!;
+    const wattage = unitWattage(type, edition.rules, document.units);
+    if (wattage.usesTrackRule && type.basis === 'line-voltage-track') unverified.add('Line-voltage track minimum W per linear foot', edition.rules.trackProvenance);
+    if (wattage.fromMemory) {
+      unverified.note('Low-voltage track counted at the transformer rating', 'from memory', 'No public source found for the low-voltage track rule; verify against the printed standard.');
+    }
+    const count = dec(group.count);
+    const watts = count.times(wattage.watts);
+    const section = wattage.usesTrackRule ? (edition.sections['trackLighting'] ?? installedSection) : installedSection;
+    const line: LuminaireLine = { tag: type.tag, use: type.use, count: text(count), unitWatts: text(wattage.watts), watts: text(watts), basis: wattage.basis, section };
+    if (group.zone !== undefined) line.zone = group.zone;
+    result.lines.push(line);
+    if (type.use === 'exempt') {
+      result.exemptW = result.exemptW.plus(watts);
+      result.exempt.push({ tag: type.tag, count: text(count), watts: text(watts), reason: type.exemptReason ?? '', section: edition.sections['exemptLighting'] ?? '' });
+    } else if (type.use === 'decorative') {
+      result.decorative = result.decorative.plus(watts);
+    } else if (type.use === 'display') {
+      result.display = result.display.plus(watts);
+    } else {
+      result.general = result.general.plus(watts);
+      if (group.zone !== undefined) result.zoneW[group.zone] = result.zoneW[group.zone].plus(watts);
+    }
+  }
+  return result;
+}
+
+interface DaylightOutcome {
+  result: DaylightResult;
+  why: { sidelighting: string; toplighting: string };
+}
+
+function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: UnitSystem, unverified: Unverified, cautions: string[]): DaylightOutcome {
+  const rules = edition.rules.daylight;
+  const feet = (value: string | undefined) => (value === undefined ? undefined : lengthToFeet(dec(value), units));
+  const length = feet(space.length);
+  const width = feet(space.width);
+  const hasOpenings = space.windows.length > 0 || space.skylights.length > 0;
+  if (hasOpenings) unverified.add('Daylight thresholds and zone geometry', rules.provenance);
+  const geometryEvaluated = length !== undefined && width !== undefined;
+  let areas = { primarySidelit: ZERO, secondarySidelit: ZERO, toplit: ZERO, rectangles: [] as ReturnType<typeof daylightAreas>['rectangles'] };
+  if (geometryEvaluated && hasOpenings) {
+    const plan: RoomPlan = {
+      length,
+      width,
+      windows: space.windows.map((window) => {
+        const opening: RoomPlan['windows'][number] = { width: feet(window.width)!, headHeight: feet(window.headHeight)!, wall: window.wall };
+        if (window.offset !== undefined) opening.offset = feet(window.offset)!;
+        return opening;
+      }),
+      skylights: space.skylights.map((skylight) => {
+        const opening: RoomPlan['skylights'][number] = { length: feet(skylight.length)!, width: feet(skylight.width)! };
+        if (skylight.x !== undefined) opening.x = feet(skylight.x)!;
+        if (skylight.y !== undefined) opening.y = feet(skylight.y)!;
+        return opening;
+      }),
+    };
+    if (space.ceilingHeight !== undefined) plan.ceilingHeight = feet(space.ceilingHeight)!;
+    areas = daylightAreas(plan, rules);
+  }
+  const windowArea = sum(
+    space.windows.map((window) => {
+      const height = dec(window.headHeight).minus(dec(window.sillHeight ?? '0'));
+      return areaToSquareFeet(dec(window.width).times(height), units);
+    }),
+  );
+  const primaryW = watts.zoneW['primary-sidelit'];
+  const secondaryW = watts.zoneW['secondary-sidelit'];
+  const toplitW = watts.zoneW.toplit;
+  const comparison = rules.comparison === 'at-least' ? 'at least' : 'more than';
+  const windowException = rules.minimumWindowAreaFt2 !== null && windowArea.lessThan(dec(rules.minimumWindowAreaFt2));
+  const primaryTriggers = comparesAt(primaryW, dec(rules.primarySidelitThresholdW), rules.comparison);
+  const sidelightingControlRequired = primaryTriggers && !windowException;
+  const combined = primaryW.plus(secondaryW);
+  const secondarySidelightingControlRequired =
+    rules.combinedSidelitThresholdW !== null && !windowException && comparesAt(combined, dec(rules.combinedSidelitThresholdW), rules.comparison);
+  const toplightingControlRequired = comparesAt(toplitW, dec(rules.toplitThresholdW), rules.comparison);
+  const reasons: string[] = [];
+  let sidelighting = `primary sidelit general lighting ${primaryW.toFixed()} W; required at ${comparison} ${rules.primarySidelitThresholdW} W`;
+  if (windowException && primaryTriggers) {
+    sidelighting += `, but the window area ${windowArea.toFixed()} ft² is below ${rules.minimumWindowAreaFt2} ft²`;
+  }
+  reasons.push(`Sidelighting: ${sidelighting}.`);
+  if (rules.combinedSidelitThresholdW !== null) {
+    reasons.push(`Secondary sidelighting: primary + secondary ${combined.toFixed()} W; required at ${comparison} ${rules.combinedSidelitThresholdW} W.`);
+  }
+  const toplighting = `toplit general lighting ${toplitW.toFixed()} W; required at ${comparison} ${rules.toplitThresholdW} W`;
+  reasons.push(`Toplighting: ${toplighting}.`);
+  const zoneAreas = { 'primary-sidelit': areas.primarySidelit, 'secondary-sidelit': areas.secondarySidelit, toplit: areas.toplit } as const;
+  for (const kind of ['primary-sidelit', 'secondary-sidelit', 'toplit'] as const) {
+    if (watts.zoneW[kind].greaterThan(0) && zoneAreas[kind].isZero()) {
+      cautions.push(`Space ${space.id}: luminaires are assigned to the ${kind} zone, but the room's openings give no such zone.`);
+    }
+  }
+  const out = (value: Dec) => text(lengthFromFeet(value, units));
+  const result: DaylightResult = {
+    geometryEvaluated: geometryEvaluated && hasOpenings,
+    windowArea: text(areaFromSquareFeet(windowArea, units)),
+    primarySidelitArea: text(areaFromSquareFeet(areas.primarySidelit, units)),
+    secondarySidelitArea: text(areaFromSquareFeet(areas.secondarySidelit, units)),
+    toplitArea: text(areaFromSquareFeet(areas.toplit, units)),
+    primarySidelitW: text(primaryW),
+    secondarySidelitW: text(secondaryW),
+    toplitW: text(toplitW),
+    sidelightingControlRequired,
+    secondarySidelightingControlRequired,
+    toplightingControlRequired,
+    reasons,
+    zones: areas.rectangles.map((rectangle) => ({
+      kind: rectangle.kind,
+      source: rectangle.source,
+      x: out(rectangle.x0),
+      y: out(rectangle.y0),
+      length: out(rectangle.x1.minus(rectangle.x0)),
+      width: out(rectangle.y1.minus(rectangle.y0)),
+    })),
+    section: edition.sections['daylightZones'] ?? '',
+  };
+  return { result, why: { sidelighting, toplighting } };
+}
+
+/** The room cavity ratio of a rectangular room, or null where the geometry is not given. */
+function spaceRcr(space: Space, units: UnitSystem, cautions: string[]): Dec | null {
+  if (space.length === undefined || space.width === undefined) return null;
+  const mounting = space.luminaireHeight ?? space.ceilingHeight;
+  if (mounting === undefined) return null;
+  const workPlane = space.workPlaneHeight === undefined ? defaultWorkPlaneFt : lengthToFeet(dec(space.workPlaneHeight), units);
+  const cavity = lengthToFeet(dec(mounting), units).minus(workPlane);
+  if (cavity.lessThanOrEqualTo(0)) {
+    cautions.push(`Space ${space.id}: luminaires are not above the work plane, so no room cavity ratio is computed.`);
+    return null;
+  }
+  return rectangularRoomCavityRatio(cavity, lengthToFeet(dec(space.length), units), lengthToFeet(dec(space.width), units));
+}
+
+/**
+ * Evaluates a document that `validateDocument` accepted against one edition's tables. Pure: it
+ * reads nothing but its arguments.
+ */
+export function evaluate(document: EvaluationDocument, edition: EditionData): EvaluationResult {
+  const units = document.units;
+  const unverified = new Unverified();
+  const cautions: string[] = [...standingCautions];
+  const spaceTypes = new Map(edition.spaceTypes.map((type) => [type.key, type]));
+  const areaTypes = new Map(edition.buildingAreaTypes.map((type) => [type.key, type]));
+  const spaceBySpace = document.method === 'space-by-space';
+  const allowanceSection = edition.sections[spaceBySpace ? 'interiorAllowanceSpaceBySpace' : 'interiorAllowanceBuildingArea'] ?? '';
+
+  // Additional allowances (space-by-space only): what each space claims, capped later by its display watts.
+  const additionalCatalogue = new Map(edition.additionalAllowances.map((allowance) => [allowance.key, allowance]));
+  const claims = document.retailDisplay?.claims ?? [];
+  const claimLines = claims.map((claim) => {
+    const allowance = additionalCatalogue.get(claim.allowance)!;
+    unverified.add(`Additional allowance: ${allowance.label}`, allowance.provenance);
+    const areaFt2 = areaToSquareFeet(dec(claim.area), units);
+    return { claim, allowance, claimed: dec(allowance.lpdWPerFt2).times(areaFt2) };
+  });
+
+  const spaces: (SpaceResult & { allowance: Dec; installed: Dec; areaFt2: Dec; uncoveredDisplay: Dec })[] = document.spaces.map((space) => {
+    const spaceUnverified = new Unverified();
+    const areaFt2 = areaToSquareFeet(dec(space.area), units);
+    const watts = spaceWatts(space, document, edition, spaceUnverified);
+    let baseLpd: Dec;
+    let lpdBasis: SpaceResult['lpdBasis'];
+    let controlType: SpaceType | undefined;
+    if (spaceBySpace) {
+      const type = spaceTypes.get(space.spaceType!)!;
+      spaceUnverified.add(`Space type LPD: ${type.label}`, type.provenance);
+      baseLpd = dec(type.lpdWPerFt2);
+      lpdBasis = { kind: 'space-type', key: type.key, label: type.label };
+      controlType = type;
+    } else {
+      const type = areaTypes.get(space.buildingAreaType!)!;
+      spaceUnverified.add(`Building area type LPD: ${type.label}`, type.provenance);
+      baseLpd = dec(type.lpdWPerFt2);
+      lpdBasis = { kind: 'building-area-type', key: type.key, label: type.label };
+      controlType = space.controlSpaceType === undefined ? undefined : spaceTypes.get(space.controlSpaceType);
+    }
+
+    const rcr = spaceRcr(space, units, cautions);
+    let allowedLpd = baseLpd;
+    let roomGeometryIncreaseApplied = false;
+    const geometryRule = edition.rules.roomGeometry;
+    if (spaceBySpace && geometryRule !== null && controlType !== undefined) {
+      if (controlType.rcrThreshold !== null && rcr !== null && rcr.greaterThanOrEqualTo(dec(controlType.rcrThreshold))) {
+        allowedLpd = baseLpd.times(dec(1).plus(dec(geometryRule.increasePercent).dividedBy(100)));
+        roomGeometryIncreaseApplied = true;
+        spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance);
+      } else if (controlType.rcrThreshold === null && controlType.rcrCondition !== undefined) {
+        cautions.push(`Space ${space.id}: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`);
+      }
+    }
+
+    const own = claimLines.filter((line) => line.claim.spaceId === space.id);
+    const claimed = sum(own.map((line) => line.claimed));
+    const additional = min(claimed, watts.display);
+    const allowance = allowedLpd.times(areaFt2).plus(additional);
+    const installed = watts.general.plus(watts.decorative).plus(watts.display);
+    const margin = allowance.minus(installed);
+
+    const { result: daylightOut, why: daylightWhy } = daylight(space, watts, edition, units, spaceUnverified, cautions);
+    const facts: SpaceControlFacts = {
+      spaceType: controlType,
+      areaFt2,
+      enclosed: space.enclosed,
+      sidelightingRequired: daylightOut.sidelightingControlRequired,
+      secondarySidelightingRequired: daylightOut.secondarySidelightingControlRequired,
+      toplightingRequired: daylightOut.toplightingControlRequired,
+      daylightWhy,
+      decorativeW: watts.decorative,
+      displayW: watts.display,
+    };
+    let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType);
+    if (controlType === undefined && edition.family === 'ashrae-90.1') {
+      controls = [
+        {
+          strategy: 'control-space-type',
+          label: 'Control space type',
+          requirement: 'to-verify',
+          met: null,
+          status: 'to-verify',
+          reason: 'No control space type is given, so the space type control requirements cannot be applied.',
+          section: edition.sections['interiorControls'] ?? '',
+          verified: false,
+        },
+        ...controls,
+      ];
+    }
+    for (const line of controls) {
+      const strategy = edition.controlStrategies.find((candidate) => candidate.key === line.strategy);
+      if (strategy && line.status !== 'not-required') spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance);
+      if (line.status === 'to-verify') spaceUnverified.note(`${space.id}: ${line.label}`, controlType?.provenance.source ?? 'not given', line.reason);
+    }
+    for (const value of spaceUnverified.values()) unverified.note(value.what, value.source, value.note);
+
+    return {
+      id: space.id,
+      name: space.name,
+      level: space.level ?? null,
+      area: space.area,
+      lpdBasis,
+      allowanceW: text(allowance),
+      additionalAllowanceW: text(additional),
+      installedW: text(installed),
+      generalW: text(watts.general),
+      decorativeW: text(watts.decorative),
+      displayW: text(watts.display),
+      exemptW: text(watts.exemptW),
+      allowedLpd: text(densityFromPerSquareFoot(allowedLpd, units)),
+      installedLpd: text(densityFromPerSquareFoot(installed.dividedBy(areaFt2), units)),
+      withinAllowance: installed.lessThanOrEqualTo(allowance),
+      marginW: text(margin),
+      marginPct: percent(margin, allowance),
+      rcr: rcr === null ? null : text(rcr),
+      roomGeometryIncreaseApplied,
+      luminaires: watts.lines,
+      daylight: daylightOut,
+      controls,
+      exempt: watts.exempt,
+      unverified: spaceUnverified.values(),
+      section: allowanceSection,
+      allowance,
+      installed,
+      areaFt2,
+      uncoveredDisplay: own.length > 0 ? watts.display.minus(additional) : ZERO,
+    };
+  });
+
+  let additional: AdditionalAllowanceResult | null = null;
+  let fixedUsable = ZERO;
+  if (claimLines.length > 0) {
+    const fixed = claimLines.reduce((largest, line) => {
+      const value = dec(line.allowance.fixedW ?? '0');
+      return value.greaterThan(largest) ? value : largest;
+    }, ZERO);
+    fixedUsable = min(fixed, sum(spaces.map((space) => space.uncoveredDisplay)));
+    const claimedSpaces = new Set(claims.map((claim) => claim.spaceId));
+    const claimed = sum(claimLines.map((line) => line.claimed)).plus(fixed);
+    additional = {
+      lines: claimLines.map((line) => ({
+        allowance: line.allowance.key,
+        label: line.allowance.label,
+        spaceId: line.claim.spaceId,
+        area: line.claim.area,
+        claimedW: text(line.claimed),
+        section: edition.sections['additionalAllowance'] ?? '',
+      })),
+      fixedW: text(fixed),
+      claimedW: text(claimed),
+      displayW: text(sum(spaces.filter((space) => claimedSpaces.has(space.id)).map((space) => dec(space.displayW)))),
+      usableW: text(sum(spaces.map((space) => dec(space.additionalAllowanceW))).plus(fixedUsable)),
+    };
+  }
+
+  const allowanceW = sum(spaces.map((space) => space.allowance)).plus(fixedUsable);
+  const installedW = sum(spaces.map((space) => space.installed));
+  const interiorMargin = allowanceW.minus(installedW);
+  const interiorComplies = installedW.lessThanOrEqualTo(allowanceW);
+
+  let levels: LevelResult[] | null = null;
+  if (spaces.some((space) => space.level !== null)) {
+    const byLevel = new Map<string, typeof spaces>();
+    for (const space of spaces) {
+      const level = space.level ?? '';
+      byLevel.set(level, [...(byLevel.get(level) ?? []), space]);
+    }
+    levels = [...byLevel.entries()].map(([level, members]) => {
+      const allowance = sum(members.map((space) => space.allowance));
+      const installed = sum(members.map((space) => space.installed));
+      return {
+        level,
+        area: text(sum(members.map((space) => dec(space.area)))),
+        allowanceW: text(allowance),
+        installedW: text(installed),
+        marginW: text(allowance.minus(installed)),
+      };
+    });
+  }
+
+  const exterior = document.exterior === undefined ? null : evaluateExterior(document.exterior, edition, units);
+  if (exterior !== null) {
+    unverified.add('Whether the base site allowance may cover nontradable applications', edition.rules.baseSiteProvenance);
+    for (const entry of document.exterior!.applications) {
+      const application = edition.exteriorApplications.find((candidate) => candidate.key === entry.key)!;
+      unverified.add(`Exterior allowance: ${application.label}`, application.provenance);
+    }
+    const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
+    if (base) unverified.add(`Exterior allowance: ${base.label}`, base.provenance);
+  }
+
+  const interiorLines = spaces.flatMap((space) => space.controls);
+  const exteriorLines = exterior?.applications.flatMap((application) => application.controls) ?? [];
+  const controlsComply = linesComply(interiorLines) && linesComply(exteriorLines);
+  if ([...interiorLines, ...exteriorLines].some((line) => line.status === 'to-verify')) {
+    cautions.push('Some control requirements could not be settled from public sources and are marked "to verify"; they do not fail the evaluation.');
+  }
+
+  return {
+    edition: edition.id,
+    dataVersion: edition.dataVersion,
+    method: document.method,
+    units,
+    complies: interiorComplies && controlsComply && (exterior?.complies ?? true),
+    interior: {
+      section: allowanceSection,
+      area: text(areaFromSquareFeet(sum(spaces.map((space) => space.areaFt2)), units)),
+      allowanceW: text(allowanceW),
+      installedW: text(installedW),
+      exemptW: text(sum(spaces.map((space) => dec(space.exemptW)))),
+      decorativeW: text(sum(spaces.map((space) => dec(space.decorativeW)))),
+      displayW: text(sum(spaces.map((space) => dec(space.displayW)))),
+      marginW: text(interiorMargin),
+      marginPct: percent(interiorMargin, allowanceW),
+      complies: interiorComplies,
+      additional,
+      spaces: spaces.map(({ allowance: _allowance, installed: _installed, areaFt2: _areaFt2, uncoveredDisplay: _uncovered, ...space }) => space),
+      levels,
+    },
+    exterior,
+    controlsComply,
+    unverifiedValues: unverified.values(),
+    cautions,
+  };
+}

@@ -1,0 +1,96 @@
+import { type ControlRequirement, resolveControls } from './controls.js';
+import type { EvaluationDocument } from './document.js';
+import type { EditionData, ExteriorApplication } from './edition-data.js';
+import { strategyKeys } from './edition-data.js';
+import { type Dec, ZERO, dec, min, sum, text } from './numbers.js';
+import type { ExteriorApplicationResult, ExteriorResult } from './result.js';
+import { type UnitSystem, areaToSquareFeet, densityFromPerSquareFoot, lengthToFeet, linearDensityFromPerFoot } from './units.js';
+
+function quantityInTableUnits(application: ExteriorApplication, quantity: Dec, units: UnitSystem): Dec {
+  if (application.unit === 'W/ft2') return areaToSquareFeet(quantity, units);
+  if (application.unit === 'W/ft') return lengthToFeet(quantity, units);
+  return quantity;
+}
+
+function rateInDocumentUnits(application: ExteriorApplication, rate: Dec, units: UnitSystem): { rate: Dec; unit: string } {
+  if (application.unit === 'W/ft2') return { rate: densityFromPerSquareFoot(rate, units), unit: units === 'ip' ? 'W/ft²' : 'W/m²' };
+  if (application.unit === 'W/ft') return { rate: linearDensityFromPerFoot(rate, units), unit: units === 'ip' ? 'W/ft' : 'W/m' };
+  return { rate, unit: application.unit };
+}
+
+/**
+ * Exterior allowance: the base site allowance, tradable applications pooled, nontradable ones
+ * each only for itself. The base site allowance covers tradable excess; it covers nontradable
+ * excess only where the edition's data says it may.
+ */
+export function evaluateExterior(exterior: NonNullable<EvaluationDocument['exterior']>, edition: EditionData, units: UnitSystem): ExteriorResult {
+  const zone = exterior.lightingZone;
+  const section = edition.sections['exteriorAllowance'] ?? '';
+  const catalogue = new Map(edition.exteriorApplications.map((application) => [application.key, application]));
+  const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
+  const baseSiteW = dec(base?.allowanceByZone[zone] ?? '0');
+
+  const priced = exterior.applications.map((entry) => {
+    const application = catalogue.get(entry.key)!;
+    const tableRate = dec(application.allowanceByZone[zone] ?? '0');
+    const quantity = dec(entry.quantity);
+    const allowance = tableRate.times(quantityInTableUnits(application, quantity, units));
+    return { entry, application, tableRate, quantity, allowance, installed: dec(entry.installedWatts) };
+  });
+
+  const tradable = priced.filter((line) => line.application.tradable);
+  const tradableAllowance = sum(tradable.map((line) => line.allowance));
+  const tradableInstalled = sum(tradable.map((line) => line.installed));
+  const tradableExcess = tradableInstalled.minus(tradableAllowance);
+  const tradableBaseUsed = tradableExcess.greaterThan(0) ? min(tradableExcess, baseSiteW) : ZERO;
+  const tradableComplies = tradableExcess.lessThanOrEqualTo(baseSiteW);
+  let baseRemaining = baseSiteW.minus(tradableBaseUsed);
+
+  const applications: ExteriorApplicationResult[] = priced.map((line) => {
+    let baseUsed = ZERO;
+    let within: boolean;
+    if (line.application.tradable) {
+      within = tradableComplies;
+    } else {
+      const excess = line.installed.minus(line.allowance);
+      if (excess.greaterThan(0) && edition.rules.baseSiteCoversNontradable) {
+        baseUsed = min(excess, baseRemaining);
+        baseRemaining = baseRemaining.minus(baseUsed);
+      }
+      within = excess.minus(baseUsed).lessThanOrEqualTo(0);
+    }
+    const requirements: ControlRequirement[] = strategyKeys
+      .filter((strategy) => line.application.controls[strategy] !== undefined)
+      .map((strategy) => ({ strategy, requirement: line.application.controls[strategy]!, why: `${line.application.label} exterior lighting` }));
+    const shown = rateInDocumentUnits(line.application, line.tableRate, units);
+    return {
+      key: line.application.key,
+      label: line.application.label,
+      tradable: line.application.tradable,
+      unit: shown.unit,
+      quantity: text(line.quantity),
+      rate: text(shown.rate),
+      allowanceW: text(line.allowance),
+      installedW: text(line.installed),
+      baseSiteUsedW: text(baseUsed),
+      withinAllowance: within,
+      controls: resolveControls(requirements, line.entry.controls, edition),
+      section,
+    };
+  });
+
+  const allowance = baseSiteW.plus(sum(priced.map((line) => line.allowance)));
+  const installed = sum(priced.map((line) => line.installed));
+  return {
+    lightingZone: zone,
+    section,
+    baseSiteAllowanceW: text(baseSiteW),
+    allowanceW: text(allowance),
+    installedW: text(installed),
+    complies: applications.every((application) => application.withinAllowance) && tradableComplies,
+    tradable: { allowanceW: text(tradableAllowance), installedW: text(tradableInstalled), baseSiteUsedW: text(tradableBaseUsed), complies: tradableComplies },
+    baseSiteRemainingW: text(baseRemaining),
+    baseSiteCoversNontradable: edition.rules.baseSiteCoversNontradable,
+    applications,
+  };
+}

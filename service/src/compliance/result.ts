@@ -1,0 +1,195 @@
+import type { EditionId, RequirementCode, StrategyKey } from './edition-data.js';
+import type { ZoneKind } from './geometry.js';
+import type { UnitSystem } from './units.js';
+
+/**
+ * What an evaluation returns. Every number is an exact decimal string; watts are W, areas and
+ * lengths are in the document's units (ft²/ft or m²/m), power densities W/ft² or W/m². Round only
+ * for display, with the format helpers.
+ */
+
+export type ControlStatus = 'met' | 'not-met' | 'exception-claimed' | 'to-verify' | 'not-required';
+
+export interface ControlLine {
+  /** The strategy, or 'control-space-type' where the space type that sets the controls is missing. */
+  strategy: StrategyKey | 'control-space-type';
+  label: string;
+  requirement: RequirementCode;
+  met: boolean | null;
+  status: ControlStatus;
+  /** Why it is required (space type, area, watts) and what the engineer recorded as provided. */
+  reason: string;
+  section: string;
+  verified: boolean;
+}
+
+export interface ZoneRectangleResult {
+  kind: ZoneKind;
+  source: string;
+  x: string;
+  y: string;
+  /** Extent along x (the room length). */
+  length: string;
+  /** Extent along y (the room width). */
+  width: string;
+}
+
+export interface DaylightResult {
+  /** false where the room has no rectangle (length × width) to build zones on. */
+  geometryEvaluated: boolean;
+  windowArea: string;
+  primarySidelitArea: string;
+  secondarySidelitArea: string;
+  toplitArea: string;
+  primarySidelitW: string;
+  secondarySidelitW: string;
+  toplitW: string;
+  sidelightingControlRequired: boolean;
+  secondarySidelightingControlRequired: boolean;
+  toplightingControlRequired: boolean;
+  reasons: string[];
+  /** Each opening's zone, clipped to the room; overlaps are resolved toplit > primary > secondary. */
+  zones: ZoneRectangleResult[];
+  section: string;
+}
+
+export interface ExemptLine {
+  tag: string;
+  count: string;
+  watts: string;
+  reason: string;
+  section: string;
+}
+
+export interface LuminaireLine {
+  tag: string;
+  use: 'general' | 'decorative' | 'display' | 'exempt';
+  count: string;
+  unitWatts: string;
+  watts: string;
+  basis: string;
+  zone?: ZoneKind;
+  section: string;
+}
+
+export interface UnverifiedValue {
+  what: string;
+  source: string;
+  note: string;
+}
+
+export interface SpaceResult {
+  id: string;
+  name: string;
+  level: string | null;
+  area: string;
+  /** Space type (space-by-space) or building area type (building area method) whose LPD applies. */
+  lpdBasis: { kind: 'space-type' | 'building-area-type'; key: string; label: string };
+  allowanceW: string;
+  /** The part of allowanceW that is an additional allowance actually used by display lighting. */
+  additionalAllowanceW: string;
+  installedW: string;
+  generalW: string;
+  decorativeW: string;
+  displayW: string;
+  exemptW: string;
+  allowedLpd: string;
+  installedLpd: string;
+  withinAllowance: boolean;
+  marginW: string;
+  marginPct: string | null;
+  rcr: string | null;
+  roomGeometryIncreaseApplied: boolean;
+  luminaires: LuminaireLine[];
+  daylight: DaylightResult;
+  controls: ControlLine[];
+  exempt: ExemptLine[];
+  unverified: UnverifiedValue[];
+  section: string;
+}
+
+export interface LevelResult {
+  level: string;
+  area: string;
+  allowanceW: string;
+  installedW: string;
+  marginW: string;
+}
+
+export interface AdditionalAllowanceLine {
+  allowance: string;
+  label: string;
+  spaceId: string;
+  area: string;
+  claimedW: string;
+  section: string;
+}
+
+export interface AdditionalAllowanceResult {
+  lines: AdditionalAllowanceLine[];
+  /** The edition's fixed adder (once per building), where one is stated. */
+  fixedW: string;
+  claimedW: string;
+  /** Display watts in the claimed spaces: the most the allowance may cover (use it or lose it). */
+  displayW: string;
+  usableW: string;
+}
+
+export interface InteriorResult {
+  section: string;
+  area: string;
+  allowanceW: string;
+  installedW: string;
+  exemptW: string;
+  decorativeW: string;
+  displayW: string;
+  marginW: string;
+  marginPct: string | null;
+  complies: boolean;
+  additional: AdditionalAllowanceResult | null;
+  spaces: SpaceResult[];
+  levels: LevelResult[] | null;
+}
+
+export interface ExteriorApplicationResult {
+  key: string;
+  label: string;
+  tradable: boolean;
+  /** Unit of the quantity and rate in the document's units, e.g. "W/m²" for W/ft² applications in SI. */
+  unit: string;
+  quantity: string;
+  rate: string;
+  allowanceW: string;
+  installedW: string;
+  /** Nontradable: base site allowance used to cover this application's excess. */
+  baseSiteUsedW: string;
+  withinAllowance: boolean;
+  controls: ControlLine[];
+  section: string;
+}
+
+export interface ExteriorResult {
+  lightingZone: string;
+  section: string;
+  baseSiteAllowanceW: string;
+  allowanceW: string;
+  installedW: string;
+  complies: boolean;
+  tradable: { allowanceW: string; installedW: string; baseSiteUsedW: string; complies: boolean };
+  baseSiteRemainingW: string;
+  baseSiteCoversNontradable: boolean;
+  applications: ExteriorApplicationResult[];
+}
+
+export interface EvaluationResult {
+  edition: EditionId;
+  dataVersion: string;
+  method: 'building-area' | 'space-by-space';
+  units: UnitSystem;
+  complies: boolean;
+  interior: InteriorResult;
+  exterior: ExteriorResult | null;
+  controlsComply: boolean;
+  unverifiedValues: UnverifiedValue[];
+  cautions: string[];
+}

@@ -1,0 +1,50 @@
+import { all, create } from 'mathjs';
+import { type Dec, dec } from './numbers.js';
+
+/** The document's unit system: IP (ft, ft², W/ft²) or SI (m, m², W/m²). The engine computes in IP. */
+export type UnitSystem = 'ip' | 'si';
+
+const math = create(all, { number: 'BigNumber', precision: 64 });
+
+/** Exact conversion factor taken from mathjs's unit definitions (1 ft = 0.3048 m). */
+function factor(from: string, to: string): Dec {
+  const value = math.unit(math.bignumber(1), from).toNumeric(to);
+  return dec(String(value));
+}
+
+export const metresPerFoot = factor('ft', 'm');
+export const squareMetresPerSquareFoot = factor('ft^2', 'm^2');
+
+/** A length in the document's units, in feet. */
+export function lengthToFeet(value: Dec, units: UnitSystem): Dec {
+  return units === 'ip' ? value : value.dividedBy(metresPerFoot);
+}
+
+/** An area in the document's units, in square feet. */
+export function areaToSquareFeet(value: Dec, units: UnitSystem): Dec {
+  return units === 'ip' ? value : value.dividedBy(squareMetresPerSquareFoot);
+}
+
+export function lengthFromFeet(feet: Dec, units: UnitSystem): Dec {
+  return units === 'ip' ? feet : feet.times(metresPerFoot);
+}
+
+export function areaFromSquareFeet(squareFeet: Dec, units: UnitSystem): Dec {
+  return units === 'ip' ? squareFeet : squareFeet.times(squareMetresPerSquareFoot);
+}
+
+/** A power density in W/ft², in the document's units (W/ft² or W/m²). */
+export function densityFromPerSquareFoot(wattsPerSquareFoot: Dec, units: UnitSystem): Dec {
+  return units === 'ip' ? wattsPerSquareFoot : wattsPerSquareFoot.dividedBy(squareMetresPerSquareFoot);
+}
+
+/** W per linear foot, in the document's units (W/ft or W/m). */
+export function linearDensityFromPerFoot(wattsPerFoot: Dec, units: UnitSystem): Dec {
+  return units === 'ip' ? wattsPerFoot : wattsPerFoot.dividedBy(metresPerFoot);
+}
+
+export function unitLabels(units: UnitSystem): { length: string; area: string; density: string } {
+  return units === 'ip'
+    ? { length: 'ft', area: 'ft²', density: 'W/ft²' }
+    : { length: 'm', area: 'm²', density: 'W/m²' };
+}
