@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import * as usersProjectsAudit from './20261201000100_users_projects_audit.js';
+import * as codeTables from './20261201000200_code_tables.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -9,6 +10,7 @@ interface Migration {
 /** Every migration in order. Add a new file here as well as in the folder. */
 const migrations: Record<string, Migration> = {
   '20261201000100_users_projects_audit': usersProjectsAudit,
+  '20261201000200_code_tables': codeTables,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import * as codeTables from './00_code_tables.js';
 import * as demoUsers from './01_demo_users.js';
 
 interface Seed {
@@ -7,6 +8,7 @@ interface Seed {
 
 /** Every seed in the order it runs. Add a new file here as well as in the folder. */
 const seeds: Record<string, Seed> = {
+  '00_code_tables': codeTables,
   '01_demo_users': demoUsers,
 };
 
