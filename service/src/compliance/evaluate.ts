@@ -18,17 +18,18 @@ import type {
 } from './result.js';
 import { type UnitSystem, areaFromSquareFeet, areaToSquareFeet, densityFromPerSquareFoot, lengthFromFeet, lengthToFeet } from './units.js';
 
-/** The edition section keys the engine cites from `EditionData.sections`. */
+/** The edition section keys the engine cites from `EditionData.sections` (as `reference/<edition>/rules.json` names them). */
 export const sectionKeys = [
-  'interiorAllowanceBuildingArea',
-  'interiorAllowanceSpaceBySpace',
+  'buildingAreaMethod',
+  'spaceBySpaceMethod',
   'installedPower',
   'trackLighting',
   'exemptLighting',
   'roomGeometry',
-  'additionalAllowance',
-  'interiorControls',
-  'daylightZones',
+  'additionalAllowances',
+  'controlsGeneral',
+  'daylightSidelighting',
+  'daylightToplighting',
   'exteriorAllowance',
 ] as const;
 
@@ -202,7 +203,7 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
       length: out(rectangle.x1.minus(rectangle.x0)),
       width: out(rectangle.y1.minus(rectangle.y0)),
     })),
-    section: edition.sections['daylightZones'] ?? '',
+    section: [...new Set([edition.sections['daylightSidelighting'], edition.sections['daylightToplighting']])].filter(Boolean).join('; '),
   };
   return { result, why: { sidelighting, toplighting } };
 }
@@ -232,7 +233,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
   const spaceTypes = new Map(edition.spaceTypes.map((type) => [type.key, type]));
   const areaTypes = new Map(edition.buildingAreaTypes.map((type) => [type.key, type]));
   const spaceBySpace = document.method === 'space-by-space';
-  const allowanceSection = edition.sections[spaceBySpace ? 'interiorAllowanceSpaceBySpace' : 'interiorAllowanceBuildingArea'] ?? '';
+  const allowanceSection = edition.sections[spaceBySpace ? 'spaceBySpaceMethod' : 'buildingAreaMethod'] ?? '';
 
   // Additional allowances (space-by-space only): what each space claims, capped later by its display watts.
   const additionalCatalogue = new Map(edition.additionalAllowances.map((allowance) => [allowance.key, allowance]));
@@ -308,7 +309,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
           met: null,
           status: 'to-verify',
           reason: 'No control space type is given, so the space type control requirements cannot be applied.',
-          section: edition.sections['interiorControls'] ?? '',
+          section: edition.sections['controlsGeneral'] ?? '',
           verified: false,
         },
         ...controls,
@@ -371,7 +372,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
         spaceId: line.claim.spaceId,
         area: line.claim.area,
         claimedW: text(line.claimed),
-        section: edition.sections['additionalAllowance'] ?? '',
+        section: edition.sections['additionalAllowances'] ?? '',
       })),
       fixedW: text(fixed),
       claimedW: text(claimed),
