@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import * as usersProjectsAudit from './20261201000100_users_projects_audit.js';
 import * as codeTables from './20261201000200_code_tables.js';
+import * as projectDesign from './20261201000300_project_design.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -11,6 +12,7 @@ interface Migration {
 const migrations: Record<string, Migration> = {
   '20261201000100_users_projects_audit': usersProjectsAudit,
   '20261201000200_code_tables': codeTables,
+  '20261201000300_project_design': projectDesign,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -20,7 +20,7 @@ export function testConfig(url: string, overrides: Record<string, string> = {}):
 
 export function testApp(db: Database, url: string, overrides: Record<string, string> = {}): { app: Express; config: Config } {
   const config = testConfig(url, overrides);
-  return { app: createApp({ db, config, logger: pino({ level: 'silent' }) }), config };
+  return { app: createApp({ db, config, logger: pino({ level: process.env['TEST_LOG_LEVEL'] ?? 'silent' }) }), config };
 }
 
 export interface SignedInAgent {

@@ -7,6 +7,8 @@
 export type EditionId = 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2021';
 export type CodeFamily = 'ashrae-90.1' | 'iecc';
 
+export const editionIds: readonly EditionId[] = ['ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2021'];
+
 /** Where a value came from and how far it can be trusted. `verified: false` shows a "verify" mark. */
 export interface Provenance {
   source: string;

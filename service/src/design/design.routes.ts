@@ -1,0 +1,113 @@
+import { Router } from 'express';
+import type { Database } from '../db/database.js';
+import { requireProjectAction } from '../http/project-access.js';
+import { currentSession } from '../http/session.js';
+import { parse } from '../http/validate.js';
+import {
+  createExteriorApplication,
+  createLuminaireType,
+  createSpaces,
+  deleteExteriorApplication,
+  deleteLuminaireType,
+  deleteSpace,
+  getSpace,
+  listExteriorApplications,
+  listLuminaireTypes,
+  listSpaces,
+  replaceExteriorApplication,
+  replaceLuminaireType,
+  replaceSpace,
+} from './design.repository.js';
+import {
+  bulkSpacesSchema,
+  exteriorApplicationInputSchema,
+  exteriorApplicationWriteSchema,
+  luminaireTypeInputSchema,
+  luminaireTypeWriteSchema,
+  spaceInputSchema,
+  spacePatchSchema,
+  spaceWriteSchema,
+  versionQuerySchema,
+} from './design.schema.js';
+import { projectDocument } from './project-document.js';
+
+/** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
+export function designRouter(db: Database): Router {
+  const router = Router({ mergeParams: true });
+  const read = requireProjectAction(db, 'read');
+  const edit = requireProjectAction(db, 'edit-design');
+  const projectId = (req: { projectAccess?: { projectId: string } }) => req.projectAccess!.projectId;
+  const userId = (req: Parameters<typeof currentSession>[0]) => currentSession(req).user.id;
+  const param = (value: string | string[] | undefined) => String(value ?? '');
+
+  router.get('/document', read, async (req, res) => {
+    res.json(await projectDocument(db, projectId(req)));
+  });
+
+  router.get('/luminaire-types', read, async (req, res) => {
+    res.json(await listLuminaireTypes(db, projectId(req)));
+  });
+  router.post('/luminaire-types', edit, async (req, res) => {
+    res.status(201).json(await createLuminaireType(db, projectId(req), parse(luminaireTypeInputSchema, req.body), userId(req)));
+  });
+  router.put('/luminaire-types/:typeId', edit, async (req, res) => {
+    const { version, ...input } = parse(luminaireTypeWriteSchema, req.body);
+    res.json(await replaceLuminaireType(db, projectId(req), param(req.params['typeId']), version, input, userId(req)));
+  });
+  router.delete('/luminaire-types/:typeId', edit, async (req, res) => {
+    const { version } = parse(versionQuerySchema, req.query);
+    await deleteLuminaireType(db, projectId(req), param(req.params['typeId']), version);
+    res.status(204).end();
+  });
+
+  router.get('/spaces', read, async (req, res) => {
+    res.json(await listSpaces(db, projectId(req)));
+  });
+  router.post('/spaces', edit, async (req, res) => {
+    const [space] = await createSpaces(db, projectId(req), [parse(spaceInputSchema, req.body)], userId(req));
+    res.status(201).json(space);
+  });
+  router.post('/spaces/bulk', edit, async (req, res) => {
+    const { spaces } = parse(bulkSpacesSchema, req.body);
+    res.status(201).json(await createSpaces(db, projectId(req), spaces, userId(req)));
+  });
+  router.get('/spaces/:spaceId', read, async (req, res) => {
+    res.json(await getSpace(db, projectId(req), param(req.params['spaceId'])));
+  });
+  router.put('/spaces/:spaceId', edit, async (req, res) => {
+    const { version, ...input } = parse(spaceWriteSchema, req.body);
+    res.json(await replaceSpace(db, projectId(req), param(req.params['spaceId']), version, input, userId(req)));
+  });
+  router.patch('/spaces/:spaceId', edit, async (req, res) => {
+    // Only the fields the body names change; the rest (children included) stay as stored.
+    const { version } = parse(spacePatchSchema, req.body);
+    const current = await getSpace(db, projectId(req), param(req.params['spaceId']));
+    const { id: _id, position: _position, version: _version, updatedAt: _at, updatedBy: _by, ...stored } = current;
+    const named = Object.fromEntries(Object.entries(req.body as Record<string, unknown>).filter(([field]) => field in spaceInputSchema.shape));
+    const merged = parse(spaceInputSchema, { ...stored, luminaires: stored.luminaires.map(({ luminaireTypeId: _type, ...group }) => group), ...named });
+    res.json(await replaceSpace(db, projectId(req), current.id, version, merged, userId(req)));
+  });
+  router.delete('/spaces/:spaceId', edit, async (req, res) => {
+    const { version } = parse(versionQuerySchema, req.query);
+    await deleteSpace(db, projectId(req), param(req.params['spaceId']), version);
+    res.status(204).end();
+  });
+
+  router.get('/exterior-applications', read, async (req, res) => {
+    res.json(await listExteriorApplications(db, projectId(req)));
+  });
+  router.post('/exterior-applications', edit, async (req, res) => {
+    res.status(201).json(await createExteriorApplication(db, projectId(req), parse(exteriorApplicationInputSchema, req.body), userId(req)));
+  });
+  router.put('/exterior-applications/:applicationId', edit, async (req, res) => {
+    const { version, ...input } = parse(exteriorApplicationWriteSchema, req.body);
+    res.json(await replaceExteriorApplication(db, projectId(req), param(req.params['applicationId']), version, input, userId(req)));
+  });
+  router.delete('/exterior-applications/:applicationId', edit, async (req, res) => {
+    const { version } = parse(versionQuerySchema, req.query);
+    await deleteExteriorApplication(db, projectId(req), param(req.params['applicationId']), version);
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,52 @@
+import type { Knex } from 'knex';
+import type { EvaluationDocumentInput } from '../compliance/document.js';
+import { AppError } from '../http/app-error.js';
+import { listExteriorApplications, listLuminaireTypes, listSpaces } from './design.repository.js';
+
+interface ProjectSetupRow {
+  edition_id: string | null;
+  method: 'building-area' | 'space-by-space' | null;
+  units: 'ip' | 'si';
+  lighting_zone: number | null;
+}
+
+/**
+ * The stored project as an evaluation document: the same document `POST /api/evaluate` takes,
+ * so evaluating it gives exactly the stored project's results.
+ */
+export async function projectDocument(db: Knex, projectId: string): Promise<EvaluationDocumentInput> {
+  const project = await db('projects').where({ id: projectId }).first<ProjectSetupRow | undefined>('edition_id', 'method', 'units', 'lighting_zone');
+  if (!project) throw AppError.notFound('No such project.');
+  if (!project.edition_id || !project.method) {
+    throw AppError.badRequest('Choose the code edition and compliance method in the set-up first.', [
+      ...(project.edition_id ? [] : [{ path: 'edition', message: 'Required.' }]),
+      ...(project.method ? [] : [{ path: 'method', message: 'Required.' }]),
+    ]);
+  }
+  const [types, spaces, exterior, claims] = await Promise.all([
+    listLuminaireTypes(db, projectId),
+    listSpaces(db, projectId),
+    listExteriorApplications(db, projectId),
+    db('retail_display_claims').where({ project_id: projectId }).orderBy('created_at').select<{ allowance_key: string; space_id: string; area: string }[]>('allowance_key', 'space_id', 'area'),
+  ]);
+  const document: EvaluationDocumentInput = {
+    edition: project.edition_id,
+    method: project.method,
+    units: project.units,
+    luminaireTypes: types.map(({ id: _id, version: _version, updatedAt: _updatedAt, updatedBy: _updatedBy, wattageSource: _source, ...type }) => type),
+    spaces: spaces.map(({ position: _position, version: _version, updatedAt: _updatedAt, updatedBy: _updatedBy, luminaires, ...space }) => ({
+      ...space,
+      luminaires: luminaires.map(({ luminaireTypeId: _typeId, ...group }) => group),
+    })),
+  };
+  if (project.lighting_zone !== null || exterior.length > 0) {
+    document.exterior = {
+      lightingZone: String(project.lighting_zone ?? ''),
+      applications: exterior.map((application) => ({ key: application.key, quantity: application.quantity, installedWatts: application.installedWatts, controls: application.controls })),
+    };
+  }
+  if (claims.length > 0) {
+    document.retailDisplay = { claims: claims.map((claim) => ({ allowance: claim.allowance_key, spaceId: claim.space_id, area: claim.area })) };
+  }
+  return document;
+}

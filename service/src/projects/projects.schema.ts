@@ -1,0 +1,44 @@
+import { z } from 'zod';
+
+function boundedDecimal(min: number, max: number, what: string) {
+  return z.union([z.string(), z.number()]).transform((value, ctx) => {
+    const raw = String(value).trim();
+    const parsed = Number(raw);
+    if (raw === '' || !/^[+-]?\d+(\.\d+)?$/.test(raw) || parsed < min || parsed > max) {
+      ctx.addIssue({ code: 'custom', message: `${what} must be a decimal number from ${min} to ${max}.` });
+      return z.NEVER;
+    }
+    return raw;
+  });
+}
+
+function isTimeZone(zone: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en-US', { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+export const projectMethods = ['building-area', 'space-by-space'] as const;
+export const unitSystems = ['ip', 'si'] as const;
+
+const setupFields = {
+  name: z.string().trim().min(1, 'Give the project a name.').max(200),
+  address: z.string().trim().max(500).nullable().optional(),
+  latitude: boundedDecimal(-90, 90, 'Latitude').nullable().optional(),
+  longitude: boundedDecimal(-180, 180, 'Longitude').nullable().optional(),
+  timeZone: z.string().trim().refine(isTimeZone, 'Use an IANA time zone such as America/Los_Angeles.').nullable().optional(),
+  jurisdiction: z.string().trim().max(200).nullable().optional(),
+  edition: z.string().trim().min(1, 'Choose a code edition.'),
+  method: z.enum(projectMethods),
+  units: z.enum(unitSystems),
+  lightingZone: z.number().int().min(0).max(4).nullable().optional(),
+};
+
+export const projectCreateSchema = z.object(setupFields);
+export const projectSetupPatchSchema = z.object(setupFields).partial().extend({ version: z.number().int().positive() });
+
+export type ProjectCreate = z.output<typeof projectCreateSchema>;
+export type ProjectSetupPatch = z.output<typeof projectSetupPatchSchema>;

@@ -1,0 +1,154 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { signIn, testApp, type SignedInAgent } from '../support/app.js';
+import { freshDatabase, type TestDatabase } from '../support/database.js';
+
+let database: TestDatabase;
+let engineer: SignedInAgent;
+let reviewer: SignedInAgent;
+let projectId: string;
+
+beforeAll(async () => {
+  database = await freshDatabase();
+  const { app } = testApp(database.db, database.url);
+  engineer = await signIn(app, 'engineer@alderbay.example');
+  reviewer = await signIn(app, 'reviewer@alderbay.example');
+  const created = await engineer.agent
+    .post('/api/projects')
+    .set('X-CSRF-Token', engineer.csrfToken)
+    .send({ name: 'Cedar Row Clinic', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2, timeZone: 'America/Los_Angeles', latitude: '47.04', longitude: '-122.9' });
+  expect(created.status).toBe(201);
+  projectId = created.body.id;
+  const reviewerId = reviewer.user.id;
+  await database.db('project_members').insert({ project_id: projectId, user_id: reviewerId, role: 'reviewer' });
+});
+
+afterAll(async () => {
+  await database.drop();
+});
+
+const write = (who: SignedInAgent, method: 'post' | 'put' | 'patch' | 'delete', url: string) => who.agent[method](url).set('X-CSRF-Token', who.csrfToken);
+
+describe('POST /api/projects', () => {
+  it('makes the creator the engineer and stores the set-up', async () => {
+    const detail = await engineer.agent.get(`/api/projects/${projectId}`);
+    expect(detail.body).toMatchObject({ name: 'Cedar Row Clinic', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2, latitude: '47.04', longitude: '-122.9', state: 'draft' });
+    expect(detail.body.members.map((member: { role: string }) => member.role).sort()).toEqual(['engineer', 'reviewer']);
+  });
+
+  it('rejects an unknown edition, a bad time zone and an out-of-range latitude with their paths', async () => {
+    const response = await write(engineer, 'post', '/api/projects').send({ name: 'x', edition: 'iecc-1999', method: 'space-by-space', units: 'ip', timeZone: 'Mars/Olympus', latitude: '91' });
+    expect(response.status).toBe(400);
+    const paths = response.body.error.details.map((detail: { path: string }) => detail.path).sort();
+    expect(paths).toEqual(['latitude', 'timeZone']);
+    const edition = await write(engineer, 'post', '/api/projects').send({ name: 'x', edition: 'iecc-1999', method: 'space-by-space', units: 'ip' });
+    expect(edition.body.error.details).toEqual([{ path: 'edition', message: expect.stringContaining('iecc-2021') }]);
+  });
+});
+
+describe('design data with optimistic locking', () => {
+  let spaceId: string;
+
+  it('lets the engineer add luminaire types and a space with counts, controls and a window', async () => {
+    const a = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'A', description: '2x4 troffer', inputWatts: '32.5', use: 'general' });
+    expect(a.status).toBe(201);
+    expect(a.body).toMatchObject({ tag: 'A', inputWatts: '32.5', version: 1, updatedBy: 'Ines Halvorsen' });
+    const duplicate = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'A', inputWatts: 10, use: 'general' });
+    expect(duplicate.status).toBe(409);
+
+    const space = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Exam 1',
+      level: 'Level 1',
+      spaceType: 'office-enclosed',
+      area: '120',
+      length: '12',
+      width: '10',
+      ceilingHeight: '9',
+      luminaires: [{ tag: 'A', count: 2, zone: 'primary-sidelit' }],
+      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial' }],
+      windows: [{ width: '4', headHeight: '7', wall: 'south', offset: '4' }],
+    });
+    expect(space.status).toBe(201);
+    expect(space.body).toMatchObject({ name: 'Exam 1', area: '120', version: 1, luminaires: [{ tag: 'A', count: '2', zone: 'primary-sidelit' }] });
+    expect(space.body.windows).toEqual([{ width: '4', headHeight: '7', wall: 'south', offset: '4' }]);
+    spaceId = space.body.id;
+  });
+
+  it('refuses a tag no luminaire type defines, with its path', async () => {
+    const response = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Exam 2', spaceType: 'office-enclosed', area: 100, luminaires: [{ tag: 'Z', count: 1 }] });
+    expect(response.status).toBe(400);
+    expect(response.body.error.details).toEqual([{ path: 'luminaires.0.tag', message: 'No luminaire type has the tag "Z".' }]);
+  });
+
+  it('answers a stale write with 409 naming who changed it, and loses nothing', async () => {
+    const first = await write(engineer, 'patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 1, area: '125' });
+    expect(first.status).toBe(200);
+    expect(first.body).toMatchObject({ area: '125', version: 2 });
+    expect(first.body.luminaires).toHaveLength(1);
+
+    const stale = await write(engineer, 'patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 1, area: '999' });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('conflict');
+    expect(stale.body.error.message).toContain('Ines Halvorsen');
+    const after = await engineer.agent.get(`/api/projects/${projectId}/spaces/${spaceId}`);
+    expect(after.body.area).toBe('125');
+
+    const staleDelete = await write(engineer, 'delete', `/api/projects/${projectId}/spaces/${spaceId}?version=1`);
+    expect(staleDelete.status).toBe(409);
+  });
+
+  it('keeps a luminaire type that spaces still count', async () => {
+    const types = await engineer.agent.get(`/api/projects/${projectId}/luminaire-types`);
+    const response = await write(engineer, 'delete', `/api/projects/${projectId}/luminaire-types/${types.body[0].id}?version=${types.body[0].version}`);
+    expect(response.status).toBe(409);
+    expect(response.body.error.message).toContain('Exam 1');
+  });
+
+  it('lets a reviewer read but not write', async () => {
+    expect((await reviewer.agent.get(`/api/projects/${projectId}/spaces`)).status).toBe(200);
+    const response = await write(reviewer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Sneaky', spaceType: 'office-enclosed', area: 10 });
+    expect(response.status).toBe(403);
+    const setup = await write(reviewer, 'patch', `/api/projects/${projectId}`).send({ version: 1, name: 'Renamed' });
+    expect(setup.status).toBe(403);
+  });
+
+  it('creates imported spaces all together or not at all', async () => {
+    const before = (await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.length;
+    const bad = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).send({
+      spaces: [
+        { name: 'Store 1', spaceType: 'storage', area: 80, luminaires: [{ tag: 'A', count: 1 }] },
+        { name: 'Store 2', spaceType: 'storage', area: -5 },
+      ],
+    });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.details[0].path).toBe('spaces.1.area');
+    expect((await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.length).toBe(before);
+
+    const good = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).send({
+      spaces: [
+        { name: 'Store 1', spaceType: 'storage', area: 80, luminaires: [{ tag: 'A', count: 1 }] },
+        { name: 'Store 2', spaceType: 'storage', area: 60 },
+      ],
+    });
+    expect(good.status).toBe(201);
+    expect((await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.length).toBe(before + 2);
+  });
+
+  it('returns the stored project as an evaluation document', async () => {
+    const document = await engineer.agent.get(`/api/projects/${projectId}/document`);
+    expect(document.status).toBe(200);
+    expect(document.body).toMatchObject({ edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
+    expect(document.body.luminaireTypes).toEqual([{ tag: 'A', description: '2x4 troffer', inputWatts: '32.5', use: 'general', basis: 'rated' }]);
+    const exam = document.body.spaces.find((space: { name: string }) => space.name === 'Exam 1');
+    expect(exam).toMatchObject({ id: spaceId, area: '125', luminaires: [{ tag: 'A', count: '2', zone: 'primary-sidelit' }] });
+    expect(exam).not.toHaveProperty('version');
+    expect(document.body.exterior).toEqual({ lightingZone: '2', applications: [] });
+  });
+
+  it('refuses a change of units once spaces exist', async () => {
+    const detail = await engineer.agent.get(`/api/projects/${projectId}`);
+    const response = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version, units: 'si' });
+    expect(response.status).toBe(409);
+    const rename = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version, name: 'Cedar Row Clinic, phase 1' });
+    expect(rename.body).toMatchObject({ name: 'Cedar Row Clinic, phase 1', version: detail.body.version + 1 });
+  });
+});
