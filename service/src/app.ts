@@ -6,6 +6,7 @@ import helmet from 'helmet';
 import { pino, type Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import { authRouter } from './auth/auth.routes.js';
+import { codeEditionsRouter } from './code-tables/code-tables.routes.js';
 import type { Config } from './config.js';
 import type { Database } from './db/database.js';
 import { healthRouter } from './health/health.routes.js';
@@ -59,6 +60,7 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
     }),
   );
   api.use(requireSignIn);
+  api.use('/code-editions', codeEditionsRouter(db));
   api.use('/projects', projectsRouter(db));
   api.use(notFoundHandler);
   app.use('/api', api);

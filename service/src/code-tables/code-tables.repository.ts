@@ -1,0 +1,437 @@
+import type { Database } from '../db/database.js';
+import type {
+  AdditionalAllowance,
+  BuildingAreaType,
+  CodeFamily,
+  ControlStrategy,
+  EditionData,
+  EditionId,
+  EditionRules,
+  ExteriorApplication,
+  ExteriorUnit,
+  LightingZone,
+  Provenance,
+  RequirementCode,
+  SpaceType,
+  StrategyKey,
+} from '../compliance/edition-data.js';
+
+/** The code tables as the API and the compliance engine read them. NUMERIC columns stay strings. */
+
+export interface RowProvenance {
+  source: string;
+  confidence: string;
+  verified: boolean;
+  note: string;
+  fromMemory?: string;
+}
+
+export interface EditionSummary {
+  id: EditionId;
+  family: CodeFamily;
+  title: string;
+  publisher: string;
+  year: number;
+  dataVersion: string;
+  methods: string[];
+}
+
+export interface BuildingAreaTypeView extends RowProvenance {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  lpdWPerFt2: string;
+}
+
+export interface IeccRuleView {
+  occupantSensorListed: boolean;
+  occupantSensorListItem: string | null;
+  fullAutoOnAllowed: boolean;
+  fullAutoOnItem: string | null;
+  sensorFunction: NonNullable<SpaceType['iecc']>['sensorFunction'];
+  note?: string;
+}
+
+export interface SpaceTypeView extends RowProvenance {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  category: string;
+  lpdWPerFt2: string;
+  rcrThreshold: string | null;
+  rcrCondition?: string;
+  controls: Partial<Record<StrategyKey, RequirementCode>>;
+  controlProvenance: Partial<Record<StrategyKey, RowProvenance>>;
+  iecc?: IeccRuleView;
+}
+
+export interface ControlStrategyView extends RowProvenance {
+  key: StrategyKey;
+  label: string;
+  section: string;
+  tag: string;
+  parameters: Record<string, string>;
+  parameterSources: Record<string, { tag: string; source: string; note?: string }>;
+}
+
+export interface ExteriorApplicationView extends RowProvenance {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  unit: string;
+  sourceUnit: string;
+  tradable: boolean;
+  isBaseSiteAllowance: boolean;
+  allowanceByZone: Record<string, string>;
+  unverifiedZones: string[];
+  controls: Partial<Record<StrategyKey, RequirementCode>>;
+  sourceControlFlags: Record<string, string>;
+}
+
+export interface LightingZoneView extends RowProvenance {
+  key: string;
+  zone: number;
+  label: string;
+  description: string;
+  sourceLabel: string;
+}
+
+export interface AdditionalAllowanceView extends RowProvenance {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  kind: 'retail-display';
+  lpdWPerFt2: string;
+  fixedW: string | null;
+}
+
+export interface SectionView {
+  section: string;
+  tag: string;
+  verified: boolean;
+  note: string;
+}
+
+export interface RulesView extends EditionRules {
+  smallEnclosedSpaceProvenance: Provenance | null;
+  sections: Record<string, SectionView>;
+}
+
+interface EditionRow {
+  id: EditionId;
+  family: CodeFamily;
+  title: string;
+  publisher: string;
+  year: number;
+  methods: string[];
+  current_data_version: string;
+}
+
+interface ProvenanceColumns {
+  source: string;
+  confidence: string;
+  verified: boolean;
+  note: string;
+  from_memory: string | null;
+}
+
+function provenanceOf(row: ProvenanceColumns): RowProvenance {
+  return { source: row.source, confidence: row.confidence, verified: row.verified, note: row.note, ...(row.from_memory ? { fromMemory: row.from_memory } : {}) };
+}
+
+/** Provenance as the contract holds it: a from-memory text is kept in the note. */
+function contractProvenance(row: RowProvenance): Provenance {
+  const note = [row.note, row.fromMemory ? `from memory: ${row.fromMemory}` : ''].filter(Boolean).join(' | ');
+  return { source: row.source, confidence: row.confidence, verified: row.verified, ...(note ? { note } : {}) };
+}
+
+/** An edition and the data version to read: the current one unless a stored result names another. */
+export interface EditionVersion {
+  edition: EditionRow;
+  dataVersion: string;
+}
+
+export async function listEditions(db: Database): Promise<EditionSummary[]> {
+  const rows: EditionRow[] = await db('code_editions').whereNotNull('current_data_version').orderBy([{ column: 'family' }, { column: 'year' }]);
+  return rows.map((row) => ({
+    id: row.id,
+    family: row.family,
+    title: row.title,
+    publisher: row.publisher,
+    year: row.year,
+    dataVersion: row.current_data_version,
+    methods: row.methods,
+  }));
+}
+
+export async function findEditionVersion(db: Database, editionId: string, dataVersion?: string): Promise<EditionVersion | undefined> {
+  const edition: EditionRow | undefined = await db('code_editions').where({ id: editionId }).first();
+  if (!edition) return undefined;
+  const version = dataVersion ?? edition.current_data_version;
+  const known = await db('code_edition_versions').where({ edition_id: editionId, data_version: version }).first();
+  return known ? { edition, dataVersion: version } : undefined;
+}
+
+function scope(version: EditionVersion) {
+  return { edition_id: version.edition.id, data_version: version.dataVersion };
+}
+
+export async function listBuildingAreaTypes(db: Database, version: EditionVersion): Promise<BuildingAreaTypeView[]> {
+  const rows = await db('building_area_types').where(scope(version)).orderBy('position');
+  return rows.map((row) => ({ key: row.key, label: row.label, sourceLabel: row.source_label, lpdWPerFt2: row.lpd_w_per_ft2, ...provenanceOf(row) }));
+}
+
+export async function listSpaceTypes(db: Database, version: EditionVersion): Promise<SpaceTypeView[]> {
+  const [rows, cells] = await Promise.all([
+    db('space_types').where(scope(version)).orderBy('position'),
+    db('space_type_controls')
+      .join('control_strategies', 'control_strategies.key', 'space_type_controls.strategy_key')
+      .where({ 'space_type_controls.edition_id': version.edition.id, 'space_type_controls.data_version': version.dataVersion })
+      .orderBy('control_strategies.position')
+      .select('space_type_controls.*'),
+  ]);
+  const cellsBySpace = new Map<string, typeof cells>();
+  for (const cell of cells) {
+    const list = cellsBySpace.get(cell.space_type_key) ?? [];
+    list.push(cell);
+    cellsBySpace.set(cell.space_type_key, list);
+  }
+  return rows.map((row) => {
+    const controls: Partial<Record<StrategyKey, RequirementCode>> = {};
+    const controlProvenance: Partial<Record<StrategyKey, RowProvenance>> = {};
+    for (const cell of cellsBySpace.get(row.key) ?? []) {
+      controls[cell.strategy_key as StrategyKey] = cell.requirement as RequirementCode;
+      controlProvenance[cell.strategy_key as StrategyKey] = provenanceOf(cell);
+    }
+    const view: SpaceTypeView = {
+      key: row.key,
+      label: row.label,
+      sourceLabel: row.source_label,
+      category: row.category,
+      lpdWPerFt2: row.lpd_w_per_ft2,
+      rcrThreshold: row.rcr_threshold,
+      ...(row.rcr_condition ? { rcrCondition: row.rcr_condition } : {}),
+      controls,
+      controlProvenance,
+      ...provenanceOf(row),
+    };
+    if (row.iecc_sensor_function) {
+      view.iecc = {
+        occupantSensorListed: row.iecc_occupant_sensor_listed,
+        occupantSensorListItem: row.iecc_occupant_sensor_list_item,
+        fullAutoOnAllowed: row.iecc_full_auto_on_allowed,
+        fullAutoOnItem: row.iecc_full_auto_on_item,
+        sensorFunction: row.iecc_sensor_function,
+        ...(row.iecc_note ? { note: row.iecc_note } : {}),
+      };
+    }
+    return view;
+  });
+}
+
+export async function listControlStrategies(db: Database, version: EditionVersion): Promise<ControlStrategyView[]> {
+  const [sections, parameters] = await Promise.all([
+    db('control_strategy_sections')
+      .join('control_strategies', 'control_strategies.key', 'control_strategy_sections.strategy_key')
+      .where({ 'control_strategy_sections.edition_id': version.edition.id, 'control_strategy_sections.data_version': version.dataVersion })
+      .orderBy('control_strategies.position')
+      .select('control_strategy_sections.*', 'control_strategies.label'),
+    db('control_strategy_parameters').where(scope(version)).orderBy([{ column: 'strategy_key' }, { column: 'position' }]),
+  ]);
+  return sections.map((row) => {
+    const own = parameters.filter((parameter) => parameter.strategy_key === row.strategy_key);
+    return {
+      key: row.strategy_key,
+      label: row.label,
+      section: row.section,
+      tag: row.tag,
+      parameters: Object.fromEntries(own.map((parameter) => [parameter.name, parameter.value])),
+      parameterSources: Object.fromEntries(
+        own.map((parameter) => [parameter.name, { tag: parameter.tag, source: parameter.source, ...(parameter.note ? { note: parameter.note } : {}) }]),
+      ),
+      ...provenanceOf(row),
+    };
+  });
+}
+
+export async function listExteriorApplications(db: Database, version: EditionVersion): Promise<ExteriorApplicationView[]> {
+  const rows = await db('code_exterior_applications').where(scope(version)).orderBy('position');
+  return rows.map((row) => ({
+    key: row.key,
+    label: row.label,
+    sourceLabel: row.source_label,
+    unit: row.unit,
+    sourceUnit: row.source_unit,
+    tradable: row.tradable,
+    isBaseSiteAllowance: row.is_base_site_allowance,
+    allowanceByZone: { '0': row.lz0, '1': row.lz1, '2': row.lz2, '3': row.lz3, '4': row.lz4 },
+    unverifiedZones: row.unverified_zones,
+    controls: row.controls,
+    sourceControlFlags: row.source_control_flags,
+    ...provenanceOf(row),
+  }));
+}
+
+export async function listLightingZones(db: Database, version: EditionVersion): Promise<LightingZoneView[]> {
+  const rows = await db('lighting_zones').where(scope(version)).orderBy('zone');
+  return rows.map((row) => ({
+    key: String(row.zone),
+    zone: row.zone,
+    label: `Lighting zone ${row.zone}`,
+    description: row.description,
+    sourceLabel: row.source_label,
+    ...provenanceOf(row),
+  }));
+}
+
+export async function listAdditionalAllowances(db: Database, version: EditionVersion): Promise<AdditionalAllowanceView[]> {
+  const rows = await db('additional_allowances').where(scope(version)).orderBy('position');
+  return rows.map((row) => ({
+    key: row.key,
+    label: row.label,
+    sourceLabel: row.source_label,
+    kind: row.kind,
+    lpdWPerFt2: row.lpd_w_per_ft2,
+    fixedW: row.fixed_w,
+    ...provenanceOf(row),
+  }));
+}
+
+function taggedProvenance(value: RowProvenance & { tag?: string }): Provenance {
+  return contractProvenance({ ...value, note: [value.tag, value.note].filter(Boolean).join(' ') });
+}
+
+export async function getRules(db: Database, version: EditionVersion): Promise<RulesView> {
+  const [row, sections] = await Promise.all([
+    db('edition_rules').where(scope(version)).first(),
+    db('edition_sections').where(scope(version)).orderBy('key'),
+  ]);
+  return {
+    daylight: {
+      primarySidelitThresholdW: row.daylight_primary_sidelit_threshold_w,
+      combinedSidelitThresholdW: row.daylight_combined_sidelit_threshold_w,
+      toplitThresholdW: row.daylight_toplit_threshold_w,
+      comparison: row.daylight_comparison,
+      minimumWindowAreaFt2: row.daylight_minimum_window_area_ft2,
+      sideExtension:
+        row.daylight_side_extension_kind === 'fixed'
+          ? { kind: 'fixed', feet: row.daylight_side_extension_value }
+          : { kind: 'head-height-fraction', fraction: row.daylight_side_extension_value },
+      primaryDepthHeadHeights: row.daylight_primary_depth_head_heights,
+      secondaryDepthHeadHeights: row.daylight_secondary_depth_head_heights,
+      toplitExtensionCeilingHeights: row.daylight_toplit_extension_ceiling_heights,
+      provenance: taggedProvenance(row.daylight_provenance),
+    },
+    roomGeometry:
+      row.room_geometry_increase_percent === null ? null : { increasePercent: row.room_geometry_increase_percent, provenance: taggedProvenance(row.room_geometry_provenance) },
+    smallEnclosedSpaceFt2: row.small_enclosed_space_ft2,
+    smallEnclosedSpaceProvenance: row.small_enclosed_space_provenance ? taggedProvenance(row.small_enclosed_space_provenance) : null,
+    trackMinimumWPerFt: row.track_minimum_w_per_ft,
+    trackProvenance: taggedProvenance(row.track_provenance),
+    baseSiteCoversNontradable: row.base_site_covers_nontradable,
+    baseSiteProvenance: taggedProvenance(row.base_site_provenance),
+    sections: Object.fromEntries(sections.map((section) => [section.key, { section: section.section, tag: section.tag, verified: section.verified, note: section.note }])),
+  };
+}
+
+const exteriorUnits: readonly ExteriorUnit[] = ['W', 'W/ft2', 'W/ft', 'W/location', 'W/door', 'W/device', 'W/window'];
+
+function isExteriorUnit(unit: string): unit is ExteriorUnit {
+  return (exteriorUnits as readonly string[]).includes(unit);
+}
+
+const editionDataCache = new Map<string, EditionData>();
+
+/**
+ * The whole edition as the compliance engine reads it, at its current data version unless one is
+ * named. Cached by edition and data version: a data version's rows never change.
+ */
+export async function loadEditionData(db: Database, editionId: string, dataVersion?: string): Promise<EditionData | undefined> {
+  const version = await findEditionVersion(db, editionId, dataVersion);
+  if (!version) return undefined;
+  const cacheKey = `${version.edition.id}@${version.dataVersion}`;
+  const cached = editionDataCache.get(cacheKey);
+  if (cached) return cached;
+
+  const [buildingAreaTypes, spaceTypes, strategies, exterior, zones, allowances, rules] = await Promise.all([
+    listBuildingAreaTypes(db, version),
+    listSpaceTypes(db, version),
+    listControlStrategies(db, version),
+    listExteriorApplications(db, version),
+    listLightingZones(db, version),
+    listAdditionalAllowances(db, version),
+    getRules(db, version),
+  ]);
+  const { sections, smallEnclosedSpaceProvenance: _small, ...editionRules } = rules;
+  const data: EditionData = {
+    id: version.edition.id,
+    family: version.edition.family,
+    title: version.edition.title,
+    publisher: version.edition.publisher,
+    year: version.edition.year,
+    dataVersion: version.dataVersion,
+    sections: Object.fromEntries(Object.entries(sections).map(([key, section]) => [key, section.section])),
+    buildingAreaTypes: buildingAreaTypes.map(
+      (row): BuildingAreaType => ({ key: row.key, label: row.label, sourceLabel: row.sourceLabel, lpdWPerFt2: row.lpdWPerFt2, provenance: contractProvenance(row) }),
+    ),
+    spaceTypes: spaceTypes.map(
+      (row): SpaceType => ({
+        key: row.key,
+        label: row.label,
+        sourceLabel: row.sourceLabel,
+        category: row.category,
+        lpdWPerFt2: row.lpdWPerFt2,
+        rcrThreshold: row.rcrThreshold,
+        ...(row.rcrCondition ? { rcrCondition: row.rcrCondition } : {}),
+        controls: row.controls,
+        ...(row.iecc
+          ? { iecc: { occupantSensorListed: row.iecc.occupantSensorListed, fullAutoOnAllowed: row.iecc.fullAutoOnAllowed, sensorFunction: row.iecc.sensorFunction } }
+          : {}),
+        provenance: contractProvenance(row),
+      }),
+    ),
+    controlStrategies: strategies.map(
+      (row): ControlStrategy => ({
+        key: row.key,
+        label: row.label,
+        section: row.section,
+        parameters: row.parameters,
+        provenance: contractProvenance({
+          ...row,
+          note: [row.note, ...Object.entries(row.parameterSources).map(([name, source]) => `${name} ${source.tag} ${source.source}`)].join(' | '),
+        }),
+      }),
+    ),
+    exteriorApplications: exterior.flatMap((row): ExteriorApplication[] => {
+      if (!isExteriorUnit(row.unit)) return [];
+      const zoneNote = row.unverifiedZones.length ? `allowances for zone ${row.unverifiedZones.join(', ')} to verify` : '';
+      return [
+        {
+          key: row.key,
+          label: row.label,
+          sourceLabel: row.sourceLabel,
+          unit: row.unit,
+          tradable: row.tradable,
+          isBaseSiteAllowance: row.isBaseSiteAllowance,
+          allowanceByZone: row.allowanceByZone,
+          controls: row.controls,
+          provenance: contractProvenance({ ...row, note: [row.note, zoneNote].filter(Boolean).join(' | ') }),
+        },
+      ];
+    }),
+    lightingZones: zones.map((row): LightingZone => ({ zone: row.zone, description: row.description, provenance: contractProvenance(row) })),
+    additionalAllowances: allowances.map(
+      (row): AdditionalAllowance => ({
+        key: row.key,
+        label: row.label,
+        kind: row.kind,
+        lpdWPerFt2: row.lpdWPerFt2,
+        ...(row.fixedW !== null ? { fixedW: row.fixedW } : {}),
+        provenance: contractProvenance(row),
+      }),
+    ),
+    rules: editionRules,
+  };
+  editionDataCache.set(cacheKey, data);
+  return data;
+}
