@@ -182,7 +182,7 @@ export function resolveControls(
     }
     const groupClaim = members.some((member) => provided.find((control) => control.strategy === member.strategy)?.exceptionReason !== undefined);
     if (groupClaim) return { ...base, met: null, status: 'exception-claimed', reason: `${line.why}: ${group}; ${claimedWords || 'exception claimed for the group'}.` };
-    return { ...base, met: false, status: 'not-met', reason: `${line.why}: ${group}; none provided.` };
+    return { ...base, met: false, status: 'not-met', reason: `${line.why}: ${group}; none met; this one ${check.words}.` };
   });
 }
 

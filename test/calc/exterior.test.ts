@@ -1,0 +1,100 @@
+import { describe, expect, it } from 'vitest';
+import type { EvaluationDocumentInput } from '../../service/src/compliance/index.js';
+import { squareMetresPerSquareFoot } from '../../service/src/compliance/index.js';
+import { ashrae2022, iecc2021, run } from './fixtures.js';
+
+const site = (applications: NonNullable<EvaluationDocumentInput['exterior']>['applications'], units: 'ip' | 'si' = 'ip', zone = '2'): EvaluationDocumentInput => ({
+  edition: 'iecc-2021',
+  method: 'building-area',
+  units,
+  spaces: [{ id: 'b', name: 'Building', buildingAreaType: 'library', area: 1000 }],
+  exterior: { lightingZone: zone, applications },
+});
+
+describe('exterior allowance', () => {
+  it('pools tradable applications and holds nontradable ones to their own allowance (IECC 2021, zone 2)', () => {
+    // IECC 2021 Table C405.5.2(2), via BESD, lighting zone 2:
+    // base site 400 W; parking 0.04 W/ft² × 20000 = 800 W; walkway < 10 ft 0.5 W/ft × 200 = 100 W (tradable pool 900 W);
+    // facade 0.075 W/ft² × 4000 = 300 W; drive-up window 200 W × 1.
+    // Installed: parking 1100 W + walkway 60 W = 1160 W → pool excess 260 W ≤ base 400 W → complies, 140 W base left.
+    // Facade 350 W: 50 W over its own 300 W, covered from the base site allowance (baseSiteCoversNontradable: from memory).
+    const result = run(
+      site([
+        { key: 'parking', quantity: 20000, installedWatts: 1100 },
+        { key: 'walkway-narrow', quantity: 200, installedWatts: 60 },
+        { key: 'facade', quantity: 4000, installedWatts: 350 },
+        { key: 'drive-up', quantity: 1, installedWatts: 150 },
+      ]),
+      iecc2021,
+    );
+    const exterior = result.exterior!;
+    expect(exterior.baseSiteAllowanceW).toBe('400');
+    expect(exterior.tradable).toEqual({ allowanceW: '900', installedW: '1160', baseSiteUsedW: '260', complies: true });
+    const facade = exterior.applications.find((application) => application.key === 'facade')!;
+    expect(facade.allowanceW).toBe('300');
+    expect(facade.baseSiteUsedW).toBe('50');
+    expect(facade.withinAllowance).toBe(true);
+    expect(exterior.baseSiteRemainingW).toBe('90');
+    // 400 + 800 + 100 + 300 + 200 = 1800 W allowed; 1100 + 60 + 350 + 150 = 1660 W installed.
+    expect(exterior.allowanceW).toBe('1800');
+    expect(exterior.installedW).toBe('1660');
+    expect(exterior.complies).toBe(true);
+    expect(exterior.section).toBe('C405.5.2');
+  });
+
+  it('does not let a nontradable application borrow from tradable margin, nor from the base site where the edition forbids it', () => {
+    // Facade 0.075 × 4000 = 300 W allowed (IECC 2021 Table C405.5.2(2), zone 2), 500 W installed: 200 W over.
+    // Parking margin (800 W allowed, 100 W installed) cannot cover it; the 400 W base site can, if permitted.
+    const document = site([
+      { key: 'parking', quantity: 20000, installedWatts: 100 },
+      { key: 'facade', quantity: 4000, installedWatts: 500 },
+    ]);
+    expect(run(document, iecc2021).exterior!.complies).toBe(true);
+    const strict = { ...iecc2021, rules: { ...iecc2021.rules, baseSiteCoversNontradable: false } };
+    const result = run(document, strict).exterior!;
+    expect(result.complies).toBe(false);
+    expect(result.applications.find((application) => application.key === 'facade')!.withinAllowance).toBe(false);
+  });
+
+  it('fails a tradable pool over allowance plus base site (90.1-2022, zone 3)', () => {
+    // ASHRAE 90.1-2022 Table 9.4.2-2, via BESD, zone 3: base site 400 W; parking 0.037 W/ft² × 10000 = 370 W;
+    // entry canopy 0.18 W/ft² × 500 = 90 W. Pool 460 W + base 400 W = 860 W; installed 861 W → over by 1 W.
+    const document: EvaluationDocumentInput = {
+      ...site([
+        { key: 'parking', quantity: 10000, installedWatts: 800 },
+        { key: 'entry-canopy', quantity: 500, installedWatts: 61 },
+      ], 'ip', '3'),
+      edition: 'ashrae-90.1-2022',
+    };
+    const result = run(document, ashrae2022);
+    expect(result.exterior!.tradable.allowanceW).toBe('460');
+    expect(result.exterior!.complies).toBe(false);
+    expect(result.complies).toBe(false);
+  });
+
+  it('converts SI quantities to the table units (mathjs units)', () => {
+    // 20000 ft² of parking = 1858.0608 m² (× 0.09290304); allowance still 0.04 × 20000 = 800 W,
+    // rate shown as 0.04 / 0.09290304 W/m².
+    const area = (20000 * 0.09290304).toFixed(4);
+    const result = run(site([{ key: 'parking', quantity: area, installedWatts: 500 }], 'si'), iecc2021);
+    const parking = result.exterior!.applications[0]!;
+    expect(parking.allowanceW).toBe('800');
+    expect(parking.unit).toBe('W/m²');
+    expect(Number(parking.rate) * Number(squareMetresPerSquareFoot.toFixed())).toBeCloseTo(0.04, 12);
+  });
+
+  it('lists each application’s control requirements from its controls map', () => {
+    // IECC 2021 exterior control flags, shared/reference-data/iecc2021-exterior.csv (the dataset's mapping):
+    // facades: daylight off and scheduled off.
+    const result = run(
+      site([{ key: 'facade', quantity: 1000, installedWatts: 50, controls: [{ strategy: 'exterior-daylight-off', provided: true }] }]),
+      iecc2021,
+    );
+    const controls = result.exterior!.applications[0]!.controls;
+    expect(controls.map((control) => [control.strategy, control.status])).toEqual([
+      ['exterior-daylight-off', 'met'],
+      ['exterior-facade-landscape-off', 'not-met'],
+    ]);
+    expect(result.controlsComply).toBe(false);
+  });
+});
