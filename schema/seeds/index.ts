@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import * as codeTables from './00_code_tables.js';
 import * as demoUsers from './01_demo_users.js';
+import * as demoProject from './02_demo_project.js';
 
 interface Seed {
   seed(knex: Knex): Promise<void>;
@@ -10,6 +11,7 @@ interface Seed {
 const seeds: Record<string, Seed> = {
   '00_code_tables': codeTables,
   '01_demo_users': demoUsers,
+  '02_demo_project': demoProject,
 };
 
 export const seedSource: Knex.SeedSource<string> = {

@@ -13,6 +13,8 @@ import { healthRouter } from './health/health.routes.js';
 import { errorHandler, notFoundHandler } from './http/error-handler.js';
 import { readSession, requireSignIn } from './http/session.js';
 import { projectsRouter } from './projects/projects.routes.js';
+import { designRouter } from './design/design.routes.js';
+import { evaluateRouter, projectResultsRouter } from './evaluation/evaluation.routes.js';
 
 export interface AppDeps {
   db: Database;
@@ -62,6 +64,9 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
   api.use(requireSignIn);
   api.use('/code-editions', codeEditionsRouter(db));
   api.use('/projects', projectsRouter(db));
+  api.use('/projects/:projectId', designRouter(db));
+  api.use('/projects/:projectId', projectResultsRouter(db));
+  api.use('/evaluate', evaluateRouter(db));
   api.use(notFoundHandler);
   app.use('/api', api);
 
