@@ -19,7 +19,11 @@ const decimalPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 type Bound = 'non-negative' | 'positive';
 
 function quantity(bound: Bound, integer = false) {
-  return z.union([z.string(), z.number()]).transform((value, ctx) => {
+  // z.custom rather than z.number(), so that NaN and Infinity reach the transform and get a message of their own.
+  const numberOrText = z.custom<string | number>((value) => typeof value === 'string' || typeof value === 'number', {
+    message: 'Must be a decimal number, as a string or a number.',
+  });
+  return numberOrText.transform((value, ctx) => {
     const raw = typeof value === 'number' ? String(value) : value.trim();
     if (typeof value === 'number' && !Number.isFinite(value)) {
       ctx.addIssue({ code: 'custom', message: 'Must be a finite number.' });
