@@ -195,3 +195,37 @@ describe('IECC 2021 occupant sensors and time switches', () => {
     expect(specific.reason).toContain('display 48 W');
   });
 });
+
+describe('result framing', () => {
+  it('carries the standing cautions and, without a control space type under the building area method, a line to verify', () => {
+    const result = run(
+      { edition: 'ashrae-90.1-2019', method: 'building-area', units: 'ip', spaces: [{ id: 'b', name: 'Building', buildingAreaType: 'office', area: 5000 }] },
+      ashrae2019,
+    );
+    expect(result.cautions.join(' ')).toMatch(/energy-code compliance only/);
+    expect(result.cautions.join(' ')).toMatch(/authority having jurisdiction/);
+    expect(result.cautions.join(' ')).toMatch(/engineer of record/);
+    const first = result.interior.spaces[0]!.controls[0]!;
+    expect(first.strategy).toBe('control-space-type');
+    expect(first.status).toBe('to-verify');
+    expect(first.section).toBe('9.4.1.1');
+    // A to-verify line does not fail the evaluation; it is listed among the unverified values.
+    expect(result.complies).toBe(true);
+    expect(result.unverifiedValues.some((value) => value.what.includes('Control space type'))).toBe(true);
+  });
+
+  it('applies the control space type’s columns under the building area method', () => {
+    // ASHRAE 90.1-2019 Table 9.6.1 via BESD: restroom (h) automatic full OFF REQ.
+    const result = run(
+      {
+        edition: 'ashrae-90.1-2019',
+        method: 'building-area',
+        units: 'ip',
+        spaces: [{ id: 'b', name: 'Restroom', buildingAreaType: 'office', controlSpaceType: 'restroom', area: 200 }],
+      },
+      ashrae2019,
+    );
+    expect(line(result.interior.spaces[0]!.controls, 'automatic-full-off').status).toBe('not-met');
+    expect(result.complies).toBe(false);
+  });
+});
