@@ -17,6 +17,11 @@ export const routes: Routes = [
         title: 'Projects · Allowlight',
         loadComponent: () => import('./features/projects/projects-page').then((m) => m.ProjectsPage),
       },
+      {
+        path: 'projects/:projectId',
+        loadComponent: () => import('./features/workspace/workspace-page').then((m) => m.WorkspacePage),
+        loadChildren: () => import('./features/workspace/workspace.routes').then((m) => m.workspaceRoutes),
+      },
     ],
   },
   { path: '**', redirectTo: '' },

@@ -7,17 +7,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { catchError, map, of, startWith } from 'rxjs';
 import { ApiError } from '../../core/http/api-error';
-import { ProjectApi, type ProjectState, type ProjectSummary } from './project-api';
+import { ProjectApi, type ProjectSummary } from './project-api';
+import { stateLabels } from './project-states';
 
 type ListState = { status: 'loading' } | { status: 'ready'; projects: ProjectSummary[] } | { status: 'failed'; message: string };
 
-export const stateLabels: Record<ProjectState, string> = {
-  draft: 'Draft',
-  'in-review': 'In review',
-  returned: 'Returned',
-  accepted: 'Accepted',
-  issued: 'Issued',
-};
 
 @Component({
   selector: 'al-projects-page',

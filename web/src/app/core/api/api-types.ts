@@ -1,0 +1,346 @@
+/**
+ * The service's wire types, as the web app reads them. Every number the calculation touches is an
+ * exact decimal string; the app formats for display and never does arithmetic on floats it sends back.
+ */
+
+export type EditionId = 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2021';
+export type ComplianceMethod = 'building-area' | 'space-by-space';
+export type UnitSystem = 'ip' | 'si';
+export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
+export type ProjectState = 'draft' | 'in-review' | 'returned' | 'accepted' | 'issued';
+export type RequirementCode = 'required' | 'not-required' | 'to-verify' | `one-of:${string}`;
+export type LuminaireUse = 'general' | 'decorative' | 'display' | 'exempt';
+export type WattageBasis = 'rated' | 'line-voltage-track' | 'low-voltage-track' | 'current-limited';
+export type DaylightZoneKind = 'primary-sidelit' | 'secondary-sidelit' | 'toplit';
+export type Wall = 'north' | 'east' | 'south' | 'west';
+export type ControlExceptionReason = 'security-or-emergency-continuous' | 'exit-stairway-ramp-passageway' | 'egress-normally-off' | 'other';
+
+/** Written with every design record; send `version` back on update, get 409 if someone else wrote first. */
+export interface Stamp {
+  version: number;
+  updatedAt: string;
+  updatedBy: string | null;
+}
+
+export interface ProjectSummary {
+  id: string;
+  name: string;
+  state: ProjectState;
+  role: ProjectRole | null;
+  edition: EditionId | null;
+  method: ComplianceMethod | null;
+  version: number;
+  updatedAt: string;
+}
+
+export interface ProjectMember {
+  userId: string;
+  name: string;
+  email: string;
+  role: ProjectRole;
+}
+
+export interface ProjectDetail extends ProjectSummary {
+  address: string | null;
+  latitude: string | null;
+  longitude: string | null;
+  timeZone: string | null;
+  jurisdiction: string | null;
+  units: UnitSystem;
+  lightingZone: number | null;
+  updatedBy: string | null;
+  members: ProjectMember[];
+}
+
+export interface ProjectSetup {
+  name: string;
+  address?: string | null;
+  latitude?: string | null;
+  longitude?: string | null;
+  timeZone?: string | null;
+  jurisdiction?: string | null;
+  edition: EditionId;
+  method: ComplianceMethod;
+  units: UnitSystem;
+  lightingZone?: number | null;
+}
+
+export interface LuminaireTypeInput {
+  tag: string;
+  description: string;
+  inputWatts: string;
+  use: LuminaireUse;
+  exemptReason?: string;
+  basis: WattageBasis;
+  length?: string;
+  limitWatts?: string;
+  wattageSource?: string;
+}
+
+export interface LuminaireTypeRecord extends LuminaireTypeInput, Stamp {
+  id: string;
+}
+
+export interface LuminaireGroup {
+  tag: string;
+  count: string;
+  zone?: DaylightZoneKind;
+}
+
+export interface ProvidedControl {
+  strategy: string;
+  provided: boolean;
+  timeoutMinutes?: string;
+  zoneSize?: string;
+  autoOn?: 'manual' | 'partial' | 'full';
+  device?: string;
+  exceptionReason?: ControlExceptionReason;
+  exceptionNote?: string;
+}
+
+export interface WindowOpening {
+  width: string;
+  headHeight: string;
+  sillHeight?: string;
+  wall: Wall;
+  offset?: string;
+}
+
+export interface Skylight {
+  length: string;
+  width: string;
+  x?: string;
+  y?: string;
+}
+
+export interface SpaceInput {
+  name: string;
+  level?: string;
+  spaceType?: string;
+  buildingAreaType?: string;
+  controlSpaceType?: string;
+  area: string;
+  ceilingHeight?: string;
+  length?: string;
+  width?: string;
+  luminaireHeight?: string;
+  workPlaneHeight?: string;
+  enclosed?: boolean;
+  luminaires: LuminaireGroup[];
+  controls: ProvidedControl[];
+  windows: WindowOpening[];
+  skylights: Skylight[];
+}
+
+export interface SpaceRecord extends SpaceInput, Stamp {
+  id: string;
+  position: number;
+  luminaires: (LuminaireGroup & { luminaireTypeId: string })[];
+}
+
+export interface ExteriorApplicationInput {
+  key: string;
+  description: string;
+  quantity: string;
+  installedWatts: string;
+  controls: ProvidedControl[];
+}
+
+export interface ExteriorApplicationRecord extends ExteriorApplicationInput, Stamp {
+  id: string;
+}
+
+// ---------------------------------------------------------------- code tables
+
+export interface EditionSummary {
+  id: EditionId;
+  title: string;
+  publisher: string;
+  year: number;
+  dataVersion: string;
+  methods: ComplianceMethod[];
+}
+
+export interface RowProvenance {
+  source: string;
+  confidence: string;
+  verified: boolean;
+  note?: string | null;
+}
+
+export interface BuildingAreaTypeView extends RowProvenance {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  lpdWPerFt2: string;
+}
+
+export interface SpaceTypeView extends RowProvenance {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  category: string;
+  lpdWPerFt2: string;
+  rcrThreshold: string | null;
+  controls: Record<string, RequirementCode>;
+}
+
+export interface ControlStrategyView extends RowProvenance {
+  key: string;
+  label: string;
+  section: string;
+  parameters: Record<string, string | undefined>;
+}
+
+export interface ExteriorApplicationView extends RowProvenance {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  unit: string;
+  tradable: boolean;
+  isBaseSiteAllowance: boolean;
+  allowanceByZone: Record<string, string>;
+}
+
+export interface LightingZoneView extends RowProvenance {
+  zone: string | number;
+  description: string;
+}
+
+// ---------------------------------------------------------------- evaluation result
+
+export type ControlStatus = 'met' | 'not-met' | 'exception-claimed' | 'to-verify' | 'not-required';
+
+export interface ControlLine {
+  strategy: string;
+  label: string;
+  requirement: RequirementCode;
+  met: boolean | null;
+  status: ControlStatus;
+  reason: string;
+  section: string;
+  verified: boolean;
+}
+
+export interface ZoneRectangleResult {
+  kind: DaylightZoneKind;
+  source: string;
+  x: string;
+  y: string;
+  length: string;
+  width: string;
+}
+
+export interface DaylightResult {
+  geometryEvaluated: boolean;
+  windowArea: string;
+  primarySidelitArea: string;
+  secondarySidelitArea: string;
+  toplitArea: string;
+  primarySidelitW: string;
+  secondarySidelitW: string;
+  toplitW: string;
+  sidelightingControlRequired: boolean;
+  secondarySidelightingControlRequired: boolean;
+  toplightingControlRequired: boolean;
+  reasons: string[];
+  zones: ZoneRectangleResult[];
+  section: string;
+}
+
+export interface UnverifiedValue {
+  what: string;
+  source: string;
+  note: string;
+}
+
+export interface SpaceResult {
+  id: string;
+  name: string;
+  level: string | null;
+  area: string;
+  lpdBasis: { kind: 'space-type' | 'building-area-type'; key: string; label: string };
+  allowanceW: string;
+  additionalAllowanceW: string;
+  installedW: string;
+  generalW: string;
+  decorativeW: string;
+  displayW: string;
+  exemptW: string;
+  allowedLpd: string;
+  installedLpd: string;
+  withinAllowance: boolean;
+  marginW: string;
+  marginPct: string | null;
+  rcr: string | null;
+  roomGeometryIncreaseApplied: boolean;
+  daylight: DaylightResult;
+  controls: ControlLine[];
+  exempt: { tag: string; count: string; watts: string; reason: string; section: string }[];
+  unverified: UnverifiedValue[];
+  section: string;
+}
+
+export interface LevelResult {
+  level: string;
+  area: string;
+  allowanceW: string;
+  installedW: string;
+  marginW: string;
+}
+
+export interface InteriorResult {
+  section: string;
+  area: string;
+  allowanceW: string;
+  installedW: string;
+  exemptW: string;
+  decorativeW: string;
+  displayW: string;
+  marginW: string;
+  marginPct: string | null;
+  complies: boolean;
+  spaces: SpaceResult[];
+  levels: LevelResult[] | null;
+}
+
+export interface ExteriorApplicationResult {
+  key: string;
+  label: string;
+  tradable: boolean;
+  unit: string;
+  quantity: string;
+  rate: string;
+  allowanceW: string;
+  installedW: string;
+  baseSiteUsedW: string;
+  withinAllowance: boolean;
+  controls: ControlLine[];
+  section: string;
+}
+
+export interface ExteriorResult {
+  lightingZone: string;
+  section: string;
+  baseSiteAllowanceW: string;
+  allowanceW: string;
+  installedW: string;
+  complies: boolean;
+  tradable: { allowanceW: string; installedW: string; baseSiteUsedW: string; complies: boolean };
+  baseSiteRemainingW: string;
+  baseSiteCoversNontradable: boolean;
+  applications: ExteriorApplicationResult[];
+}
+
+export interface EvaluationResult {
+  edition: EditionId;
+  dataVersion: string;
+  method: ComplianceMethod;
+  units: UnitSystem;
+  complies: boolean;
+  interior: InteriorResult;
+  exterior: ExteriorResult | null;
+  controlsComply: boolean;
+  unverifiedValues: UnverifiedValue[];
+  cautions: string[];
+}

@@ -1,0 +1,133 @@
+import { HttpClient } from '@angular/common/http';
+import { inject, Injectable } from '@angular/core';
+import { shareReplay, type Observable } from 'rxjs';
+import type {
+  BuildingAreaTypeView,
+  ControlStrategyView,
+  EditionSummary,
+  EvaluationResult,
+  ExteriorApplicationInput,
+  ExteriorApplicationRecord,
+  ExteriorApplicationView,
+  LightingZoneView,
+  LuminaireTypeInput,
+  LuminaireTypeRecord,
+  ProjectDetail,
+  ProjectSetup,
+  SpaceInput,
+  SpaceRecord,
+  SpaceTypeView,
+} from '../../core/api/api-types';
+
+/** The project workspace's calls: set-up, design data, results, and the code tables (cached per edition). */
+@Injectable({ providedIn: 'root' })
+export class WorkspaceApi {
+  private readonly http = inject(HttpClient);
+  private readonly tableCache = new Map<string, Observable<unknown>>();
+
+  project(projectId: string): Observable<ProjectDetail> {
+    return this.http.get<ProjectDetail>(`/api/projects/${projectId}`);
+  }
+
+  createProject(setup: ProjectSetup): Observable<ProjectDetail> {
+    return this.http.post<ProjectDetail>('/api/projects', setup);
+  }
+
+  updateSetup(projectId: string, version: number, changes: Partial<ProjectSetup>): Observable<ProjectDetail> {
+    return this.http.patch<ProjectDetail>(`/api/projects/${projectId}`, { ...changes, version });
+  }
+
+  spaces(projectId: string): Observable<SpaceRecord[]> {
+    return this.http.get<SpaceRecord[]>(`/api/projects/${projectId}/spaces`);
+  }
+
+  createSpace(projectId: string, space: SpaceInput): Observable<SpaceRecord> {
+    return this.http.post<SpaceRecord>(`/api/projects/${projectId}/spaces`, space);
+  }
+
+  createSpaces(projectId: string, spaces: SpaceInput[]): Observable<SpaceRecord[]> {
+    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, { spaces });
+  }
+
+  replaceSpace(projectId: string, spaceId: string, version: number, space: SpaceInput): Observable<SpaceRecord> {
+    return this.http.put<SpaceRecord>(`/api/projects/${projectId}/spaces/${spaceId}`, { ...space, version });
+  }
+
+  patchSpace(projectId: string, spaceId: string, version: number, changes: Partial<SpaceInput>): Observable<SpaceRecord> {
+    return this.http.patch<SpaceRecord>(`/api/projects/${projectId}/spaces/${spaceId}`, { ...changes, version });
+  }
+
+  deleteSpace(projectId: string, spaceId: string, version: number): Observable<void> {
+    return this.http.delete<void>(`/api/projects/${projectId}/spaces/${spaceId}`, { params: { version } });
+  }
+
+  luminaireTypes(projectId: string): Observable<LuminaireTypeRecord[]> {
+    return this.http.get<LuminaireTypeRecord[]>(`/api/projects/${projectId}/luminaire-types`);
+  }
+
+  createLuminaireType(projectId: string, type: LuminaireTypeInput): Observable<LuminaireTypeRecord> {
+    return this.http.post<LuminaireTypeRecord>(`/api/projects/${projectId}/luminaire-types`, type);
+  }
+
+  replaceLuminaireType(projectId: string, typeId: string, version: number, type: LuminaireTypeInput): Observable<LuminaireTypeRecord> {
+    return this.http.put<LuminaireTypeRecord>(`/api/projects/${projectId}/luminaire-types/${typeId}`, { ...type, version });
+  }
+
+  deleteLuminaireType(projectId: string, typeId: string, version: number): Observable<void> {
+    return this.http.delete<void>(`/api/projects/${projectId}/luminaire-types/${typeId}`, { params: { version } });
+  }
+
+  exteriorApplications(projectId: string): Observable<ExteriorApplicationRecord[]> {
+    return this.http.get<ExteriorApplicationRecord[]>(`/api/projects/${projectId}/exterior-applications`);
+  }
+
+  createExteriorApplication(projectId: string, application: ExteriorApplicationInput): Observable<ExteriorApplicationRecord> {
+    return this.http.post<ExteriorApplicationRecord>(`/api/projects/${projectId}/exterior-applications`, application);
+  }
+
+  replaceExteriorApplication(projectId: string, applicationId: string, version: number, application: ExteriorApplicationInput): Observable<ExteriorApplicationRecord> {
+    return this.http.put<ExteriorApplicationRecord>(`/api/projects/${projectId}/exterior-applications/${applicationId}`, { ...application, version });
+  }
+
+  deleteExteriorApplication(projectId: string, applicationId: string, version: number): Observable<void> {
+    return this.http.delete<void>(`/api/projects/${projectId}/exterior-applications/${applicationId}`, { params: { version } });
+  }
+
+  results(projectId: string): Observable<EvaluationResult> {
+    return this.http.get<EvaluationResult>(`/api/projects/${projectId}/results`);
+  }
+
+  editions(): Observable<EditionSummary[]> {
+    return this.cached('editions', '/api/code-editions');
+  }
+
+  spaceTypes(edition: string): Observable<SpaceTypeView[]> {
+    return this.cached(`${edition}/space-types`, `/api/code-editions/${edition}/space-types`);
+  }
+
+  buildingAreaTypes(edition: string): Observable<BuildingAreaTypeView[]> {
+    return this.cached(`${edition}/building-area-types`, `/api/code-editions/${edition}/building-area-types`);
+  }
+
+  controlStrategies(edition: string): Observable<ControlStrategyView[]> {
+    return this.cached(`${edition}/control-strategies`, `/api/code-editions/${edition}/control-strategies`);
+  }
+
+  exteriorApplicationTypes(edition: string): Observable<ExteriorApplicationView[]> {
+    return this.cached(`${edition}/exterior-applications`, `/api/code-editions/${edition}/exterior-applications`);
+  }
+
+  lightingZones(edition: string): Observable<LightingZoneView[]> {
+    return this.cached(`${edition}/lighting-zones`, `/api/code-editions/${edition}/lighting-zones`);
+  }
+
+  /** Code tables change only with a new data version, so one request per page load is enough. */
+  private cached<T>(key: string, url: string): Observable<T> {
+    let request = this.tableCache.get(key) as Observable<T> | undefined;
+    if (!request) {
+      request = this.http.get<T>(url).pipe(shareReplay({ bufferSize: 1, refCount: false }));
+      this.tableCache.set(key, request);
+    }
+    return request;
+  }
+}
