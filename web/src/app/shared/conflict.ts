@@ -1,0 +1,35 @@
+import { inject, Injectable } from '@angular/core';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { ApiError } from '../core/http/api-error';
+
+/**
+ * How the workspace answers a failed write. A 409 says who changed the record and offers to reload
+ * it (the caller's reload keeps nothing stale on screen); other errors show the service's message.
+ */
+@Injectable({ providedIn: 'root' })
+export class WriteFailure {
+  private readonly snackBar = inject(MatSnackBar);
+
+  report(error: unknown, reload: () => void): void {
+    if (error instanceof ApiError && error.status === 409) {
+      this.snackBar
+        .open(error.message, 'Reload', { duration: 20_000, politeness: 'assertive' })
+        .onAction()
+        .subscribe(() => reload());
+      return;
+    }
+    const message = error instanceof ApiError ? error.message : 'The change could not be saved.';
+    this.snackBar.open(message, 'Dismiss', { duration: 8000, politeness: 'assertive' });
+  }
+}
+
+/** Maps a 400's detail paths onto form fields: `{ area: 'Must be greater than zero.' }`. */
+export function fieldErrors(error: unknown, prefix = ''): Record<string, string> {
+  if (!(error instanceof ApiError) || error.status !== 400) return {};
+  const errors: Record<string, string> = {};
+  for (const detail of error.details) {
+    const path = prefix && detail.path.startsWith(prefix) ? detail.path.slice(prefix.length) : detail.path;
+    errors[path] ??= detail.message;
+  }
+  return errors;
+}
