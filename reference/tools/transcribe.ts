@@ -209,7 +209,16 @@ interface IeccInputs {
   fullAutoOnAllowed: boolean;
   fullAutoOnItem: string | null;
   sensorFunction: SensorFunction;
+  lightReductionExemptItem: string | null;
   note?: string;
+}
+
+/** C405.2.3's exception list (Washington 2021 text, [S-ed]): spaces that need no light-reduction control. */
+function lightReductionExempt(spaceType: string): string | null {
+  if (spaceType === 'Corridor') return 'corridors';
+  if (spaceType === 'Lobby') return 'lobbies';
+  if (spaceType === 'Electrical/Mechanical Room') return 'electrical and mechanical rooms';
+  return null;
 }
 
 /** C405.2.1's list items and C405.2.1.1's full automatic-on exceptions, matched to each row of Table C405.3.2(2). */
@@ -220,6 +229,7 @@ function ieccInputs(spaceType: string, subtype: string): IeccInputs {
     fullAutoOnAllowed: autoOn !== null,
     fullAutoOnItem: autoOn,
     sensorFunction: fn,
+    lightReductionExemptItem: lightReductionExempt(spaceType),
     ...(note ? { note } : {}),
   });
   const unlisted = (autoOn: string | null = null, fn: SensorFunction = 'general', note?: string): IeccInputs => ({
@@ -228,6 +238,7 @@ function ieccInputs(spaceType: string, subtype: string): IeccInputs {
     fullAutoOnAllowed: autoOn !== null,
     fullAutoOnItem: autoOn,
     sensorFunction: fn,
+    lightReductionExemptItem: lightReductionExempt(spaceType),
     ...(note ? { note } : {}),
   });
   switch (spaceType) {

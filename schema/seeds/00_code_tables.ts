@@ -80,6 +80,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
       iecc_full_auto_on_allowed: row.iecc?.fullAutoOnAllowed ?? null,
       iecc_full_auto_on_item: row.iecc?.fullAutoOnItem ?? null,
       iecc_sensor_function: row.iecc?.sensorFunction ?? null,
+      iecc_light_reduction_exempt_item: row.iecc?.lightReductionExemptItem ?? null,
       iecc_note: row.iecc?.note ?? null,
       ...provenanceColumns(row),
     })),

@@ -17,12 +17,12 @@ export const demoSetup = {
 };
 
 export const demoLuminaireTypes = [
-  { tag: 'A', description: '2×4 LED troffer, 4000 K', inputWatts: '29', use: 'general' },
-  { tag: 'B', description: '2×2 LED troffer, 3500 K', inputWatts: '22', use: 'general' },
-  { tag: 'C', description: 'Linear LED pendant, 8 ft, up/down', inputWatts: '52', use: 'general' },
+  { tag: 'A', description: '2×4 LED troffer, 4000 K', inputWatts: '33', use: 'general' },
+  { tag: 'B', description: '2×2 LED troffer, 3500 K', inputWatts: '26', use: 'general' },
+  { tag: 'C', description: 'Linear LED pendant, 8 ft, up/down', inputWatts: '58', use: 'general' },
   { tag: 'D', description: '6 in LED downlight', inputWatts: '13', use: 'general' },
   { tag: 'E', description: '4 ft LED strip, enclosed and gasketed', inputWatts: '24', use: 'general' },
-  { tag: 'F', description: 'Stack aisle linear LED, 8 ft', inputWatts: '38', use: 'general' },
+  { tag: 'F', description: 'Stack aisle linear LED, 8 ft', inputWatts: '42', use: 'general' },
   { tag: 'G', description: 'Decorative glass pendant over the café counter', inputWatts: '9', use: 'decorative' },
   { tag: 'T', description: 'Line-voltage track over the new-books wall, 8 ft with a current limiter', inputWatts: '180', use: 'general', basis: 'line-voltage-track', length: '8' },
   { tag: 'X', description: 'LED exit sign', inputWatts: '2', use: 'exempt', exemptReason: 'Exit sign' },
@@ -35,6 +35,7 @@ const sensor = (autoOn: 'manual' | 'partial' | 'full' = 'partial'): Control => (
 const timeSwitch: Control = { strategy: 'time-switch', provided: true, device: 'Lighting control panel schedule, astronomical clock' };
 const dimming: Control = { strategy: 'light-reduction', provided: true, device: '0–10 V dimming wall station' };
 const sidelighting: Control = { strategy: 'daylight-sidelighting', provided: true, device: 'Closed-loop photosensor, continuous dimming to 10 %' };
+const stepDimming: Control = { strategy: 'light-reduction', provided: true, device: 'Occupant sensor with a 50 % low-level step' };
 const partialOff: Control = { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', device: 'Corridor sensors, 50 % step when vacant' };
 const specific: Control = { strategy: 'specific-application', provided: true, device: 'Separate switch leg for display and decorative lighting' };
 
@@ -97,8 +98,8 @@ export const demoSpaces: DemoSpace[] = [
   { name: '106 Café', level: l1, spaceType: 'dining-area-in-cafeteria-or-fast-food-dining', area: '700', length: '35', width: '20', ceilingHeight: '11', luminaires: [{ tag: 'D', count: 16 }, { tag: 'G', count: 6 }], controls: [timeSwitch, dimming, specific] },
   { name: '107 Café kitchen', level: l1, spaceType: 'food-preparation-area', area: '250', length: '25', width: '10', ceilingHeight: '10', enclosed: true, luminaires: [{ tag: 'E', count: 10 }], controls: [sensor('manual'), dimming] },
   { name: '108 Circulation workroom', level: l1, spaceType: 'office-open-plan', area: '500', length: '25', width: '20', ceilingHeight: '10', luminaires: [{ tag: 'B', count: 12 }], controls: [sensor(), dimming] },
-  { name: '109 Restroom, women', level: l1, spaceType: 'restroom-otherwise', area: '280', length: '20', width: '14', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'D', count: 12 }], controls: [sensor('full')] },
-  { name: '110 Restroom, men', level: l1, spaceType: 'restroom-otherwise', area: '260', length: '20', width: '13', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'D', count: 11 }], controls: [sensor('full')] },
+  { name: '109 Restroom, women', level: l1, spaceType: 'restroom-otherwise', area: '280', length: '20', width: '14', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'D', count: 12 }], controls: [sensor('full'), stepDimming] },
+  { name: '110 Restroom, men', level: l1, spaceType: 'restroom-otherwise', area: '260', length: '20', width: '13', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'D', count: 11 }], controls: [sensor('full'), stepDimming] },
   { name: '111 Corridor', level: l1, spaceType: 'corridor-otherwise', area: '900', length: '120', width: '7.5', ceilingHeight: '9', luminaires: [{ tag: 'B', count: 16 }, { tag: 'X', count: 3 }, { tag: 'M', count: 4 }], controls: [sensor('full'), partialOff] },
   { name: '112 Stair A', level: l1, spaceType: 'stairwell', area: '220', ceilingHeight: '24', enclosed: true, luminaires: [{ tag: 'E', count: 4 }, { tag: 'X', count: 1 }], controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'exit-stairway-ramp-passageway' }] },
   { name: '113 Electrical room', level: l1, spaceType: 'electrical-mechanical-room', area: '180', ceilingHeight: '10', enclosed: true, luminaires: [{ tag: 'E', count: 3 }], controls: [sensor('manual')] },
@@ -173,7 +174,7 @@ export const demoSpaces: DemoSpace[] = [
   { name: '209 Copy and print', level: l2, spaceType: 'copy-print-room', area: '120', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'E', count: 1 }], controls: [sensor('manual')] },
   { name: '210 Computer training lab', level: l2, spaceType: 'classroom-lecture-hall-training-room-otherwise', area: '700', length: '35', width: '20', ceilingHeight: '10', luminaires: [{ tag: 'B', count: 18 }, { tag: 'X', count: 1 }], controls: [sensor(), dimming] },
   { name: '211 Corridor', level: l2, spaceType: 'corridor-otherwise', area: '800', length: '107', width: '7.5', ceilingHeight: '9', luminaires: [{ tag: 'B', count: 14 }, { tag: 'X', count: 3 }, { tag: 'M', count: 4 }], controls: [sensor('full'), partialOff] },
-  { name: '212 Restroom', level: l2, spaceType: 'restroom-otherwise', area: '240', length: '16', width: '15', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'D', count: 10 }], controls: [sensor('full')] },
+  { name: '212 Restroom', level: l2, spaceType: 'restroom-otherwise', area: '240', length: '16', width: '15', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'D', count: 10 }], controls: [sensor('full'), stepDimming] },
   { name: '213 Stair B', level: l2, spaceType: 'stairwell', area: '220', ceilingHeight: '24', enclosed: true, luminaires: [{ tag: 'E', count: 4 }, { tag: 'X', count: 1 }], controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'exit-stairway-ramp-passageway' }] },
   { name: '214 Mechanical room', level: l2, spaceType: 'electrical-mechanical-room', area: '400', ceilingHeight: '12', luminaires: [{ tag: 'E', count: 6 }], controls: [timeSwitch] },
 ];

@@ -178,6 +178,66 @@ describe('IECC 2021 occupant sensors and time switches', () => {
     expect(line(restroom, 'occupant-sensor').status).toBe('met');
   });
 
+  it('needs no time switch where occupant sensors are provided though not required', () => {
+    // IECC C405.2.2 (Washington text, WAC 51-11C-405022) [S-ed]: time switches in spaces without occupant sensor controls.
+    const sensed = space({ spaceType: 'library-reading', area: 2000, controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 20 }] });
+    expect(line(sensed, 'time-switch').requirement).toBe('not-required');
+    expect(line(sensed, 'time-switch').reason).toContain('occupant sensor controls are provided');
+    const unsensed = space({ spaceType: 'library-reading', area: 2000 });
+    expect(line(unsensed, 'time-switch').requirement).toBe('required');
+  });
+
+  it('applies the light-reduction exceptions held in the data', () => {
+    // IECC C405.2.3 exceptions as the Washington 2021 text states them (WAC 51-11C-405024) [S-ed]:
+    // corridors and lobbies; one luminaire under 60 W; an installed density under 0.45 W/ft².
+    const withLuminaires = (spaceType: string, area: number, watts: number, count: number) =>
+      run(
+        {
+          edition: 'iecc-2021',
+          method: 'space-by-space',
+          units: 'ip',
+          luminaireTypes: [{ tag: 'L', description: 'luminaire', inputWatts: watts, use: 'general' }],
+          spaces: [{ id: 'x', name: 'Room', area, spaceType, luminaires: [{ tag: 'L', count }] }],
+        },
+        iecc2021,
+      ).interior.spaces[0]!.controls;
+    expect(line(withLuminaires('corridor', 400, 30, 6), 'light-reduction').requirement).toBe('not-required');
+    expect(line(withLuminaires('lobby', 400, 30, 6), 'light-reduction').requirement).toBe('not-required');
+    // One 59 W luminaire in 100 ft² (0.59 W/ft²): excepted; one 60 W luminaire: not by that rule.
+    expect(line(withLuminaires('office-enclosed', 100, 59, 1), 'light-reduction').requirement).toBe('not-required');
+    expect(line(withLuminaires('office-enclosed', 100, 60, 1), 'light-reduction').requirement).toBe('required');
+    // 0.44 W/ft² installed (44 W in 100 ft²) is excepted; 0.45 W/ft² is not (two luminaires, so not the one-luminaire rule).
+    expect(line(withLuminaires('office-enclosed', 100, 22, 2), 'light-reduction').requirement).toBe('not-required');
+    expect(line(withLuminaires('office-enclosed', 100, 22.5, 2), 'light-reduction').requirement).toBe('required');
+  });
+
+  it('lets a general exception claimed on one control cover every control of the space', () => {
+    // IECC 2021 C405.2 exceptions [S]: interior exit stairways need no lighting controls at all.
+    const lines = run(
+      {
+        edition: 'iecc-2021',
+        method: 'space-by-space',
+        units: 'ip',
+        luminaireTypes: [{ tag: 'S', description: 'stair luminaire', inputWatts: 30, use: 'general' }],
+        spaces: [
+          {
+            id: 's',
+            name: 'Exit stair',
+            spaceType: 'office-enclosed',
+            area: 200,
+            enclosed: true,
+            luminaires: [{ tag: 'S', count: 4 }],
+            controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'exit-stairway-ramp-passageway' }],
+          },
+        ],
+      },
+      iecc2021,
+    ).interior.spaces[0]!.controls;
+    expect(line(lines, 'occupant-sensor').status).toBe('exception-claimed');
+    expect(line(lines, 'light-reduction').status).toBe('exception-claimed');
+    expect(line(lines, 'light-reduction').reason).toContain('exit stairway');
+  });
+
   it('requires specific application control where decorative or display lighting exists', () => {
     // IECC 2021 C405.2.5 (from memory): display and accent lighting controlled apart from general lighting.
     const result = run(

@@ -250,6 +250,7 @@ function ieccSpace(
   occupantSensorListed: boolean,
   fullAutoOnAllowed: boolean,
   sensorFunction: NonNullable<SpaceType['iecc']>['sensorFunction'] = 'general',
+  lightReductionExemptItem: string | null = null,
 ): SpaceType {
   return {
     key,
@@ -260,7 +261,8 @@ function ieccSpace(
     rcrThreshold: null,
     controls: {},
     // C405.2.1 list and C405.2.1.1 full automatic-on exceptions [S], zmVault transcription (control-rules.md §2.2, §2.3).
-    iecc: { occupantSensorListed, fullAutoOnAllowed, sensorFunction },
+    // C405.2.3 exception list: Washington 2021 WSEC (WAC 51-11C-405024) [S-ed].
+    iecc: { occupantSensorListed, fullAutoOnAllowed, sensorFunction, lightReductionExemptItem },
     provenance: sourced(`${TI_SBS}, via ${BESD}`),
   };
 }
@@ -293,17 +295,22 @@ export const iecc2021: EditionData = {
     ieccSpace('office-enclosed', 'Office, enclosed', '0.74', true, false),
     ieccSpace('office-open', 'Office, open plan', '0.61', true, false, 'open-office'),
     ieccSpace('conference', 'Conference/meeting/multipurpose room', '0.97', true, false),
-    ieccSpace('corridor', 'Corridor', '0.41', true, true, 'corridor'),
+    ieccSpace('corridor', 'Corridor', '0.41', true, true, 'corridor', 'corridors'),
     ieccSpace('restroom', 'Restroom', '0.63', true, true),
     ieccSpace('storage', 'Storage room', '0.38', true, false),
     ieccSpace('library-reading', 'Library reading area', '0.96', false, false),
-    ieccSpace('lobby', 'Lobby', '0.84', false, true),
+    ieccSpace('lobby', 'Lobby', '0.84', false, true, 'general', 'lobbies'),
   ],
   controlStrategies: [
     // C405.2.1.1 [S]: off within 20 minutes (zmVault transcription).
     strategy('occupant-sensor', 'Occupant sensor control', 'C405.2.1', sourced('IECC 2021 C405.2.1, zmVault transcription'), { timeoutMinutes: '20' }),
     strategy('time-switch', 'Time-switch control', 'C405.2.2', unverified('WAC 51-11C-405022', '[S-ed] state text')),
-    strategy('light-reduction', 'Light-reduction control', 'C405.2.3', unverified('WAC 51-11C-405024', '[S-ed] state text')),
+    // Exceptions: one luminaire under 60 W, installed density under 0.45 W/ft² — Washington 2021 WSEC (WAC 51-11C-405024) [S-ed].
+    strategy('light-reduction', 'Light-reduction control', 'C405.2.3', unverified('WAC 51-11C-405024', '[S-ed] state text'), {
+      reductionPercent: '50',
+      exemptSingleLuminaireBelowW: '60',
+      exemptLpdBelowWPerFt2: '0.45',
+    }),
     strategy('daylight-sidelighting', 'Daylight-responsive control, sidelit zones', 'C405.2.4', fromMemory('2021 model text not found')),
     strategy('daylight-toplighting', 'Daylight-responsive control, toplit zones', 'C405.2.4', fromMemory('2021 model text not found')),
     strategy('specific-application', 'Specific application control', 'C405.2.5', fromMemory('[M]')),

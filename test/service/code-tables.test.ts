@@ -226,7 +226,12 @@ describe('loadEditionData', () => {
   it('gives IECC space types their rule inputs and derived controls', async () => {
     const data = await loadEditionData(database.db, 'iecc-2021');
     const enclosed = data!.spaceTypes.find((space) => space.key === 'office-enclosed')!;
-    expect(enclosed.iecc).toEqual({ occupantSensorListed: true, fullAutoOnAllowed: false, sensorFunction: 'general' }); // IECC 2021 C405.2.1 item 5
+    expect(enclosed.iecc).toEqual({ occupantSensorListed: true, fullAutoOnAllowed: false, sensorFunction: 'general', lightReductionExemptItem: null }); // IECC 2021 C405.2.1 item 5
+    // C405.2.3 exceptions as Washington's 2021 text states them ([S-ed]): corridors, lobbies, electrical and mechanical rooms.
+    const corridor = data!.spaceTypes.find((space) => space.key === 'corridor-otherwise')!;
+    expect(corridor.iecc?.lightReductionExemptItem).toBe('corridors');
+    expect(corridor.controls['light-reduction']).toBe('not-required');
+    expect(enclosed.controls['light-reduction']).toBe('required');
     expect(enclosed.controls['occupant-sensor']).toBe('required');
     expect(data!.rules.smallEnclosedSpaceFt2).toBe('300'); // IECC 2021 C405.2.1 item 12
     expect(data!.rules.roomGeometry).toBeNull();

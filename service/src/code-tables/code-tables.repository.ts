@@ -49,6 +49,7 @@ export interface IeccRuleView {
   fullAutoOnAllowed: boolean;
   fullAutoOnItem: string | null;
   sensorFunction: NonNullable<SpaceType['iecc']>['sensorFunction'];
+  lightReductionExemptItem: string | null;
   note?: string;
 }
 
@@ -222,6 +223,7 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
         fullAutoOnAllowed: row.iecc_full_auto_on_allowed,
         fullAutoOnItem: row.iecc_full_auto_on_item,
         sensorFunction: row.iecc_sensor_function,
+        lightReductionExemptItem: row.iecc_light_reduction_exempt_item,
         ...(row.iecc_note ? { note: row.iecc_note } : {}),
       };
     }
@@ -385,7 +387,14 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
         ...(row.rcrCondition ? { rcrCondition: row.rcrCondition } : {}),
         controls: row.controls,
         ...(row.iecc
-          ? { iecc: { occupantSensorListed: row.iecc.occupantSensorListed, fullAutoOnAllowed: row.iecc.fullAutoOnAllowed, sensorFunction: row.iecc.sensorFunction } }
+          ? {
+              iecc: {
+                occupantSensorListed: row.iecc.occupantSensorListed,
+                fullAutoOnAllowed: row.iecc.fullAutoOnAllowed,
+                sensorFunction: row.iecc.sensorFunction,
+                lightReductionExemptItem: row.iecc.lightReductionExemptItem,
+              },
+            }
           : {}),
         provenance: contractProvenance(row),
       }),

@@ -5,6 +5,7 @@ export interface IeccRuleInputs {
   occupantSensorListed: boolean;
   fullAutoOnAllowed: boolean;
   sensorFunction: 'general' | 'warehouse' | 'open-office' | 'corridor' | 'parking-garage';
+  lightReductionExemptItem: string | null;
 }
 
 export interface DerivedCell {
@@ -38,6 +39,9 @@ export function deriveIeccControls(
     inputs.occupantSensorListed && !specificFunction
       ? { requirement: 'required', why: 'C405.2.1.1 item 1: off within the time-out after occupants leave' }
       : { requirement: 'not-required', why: specificFunction ? 'the space-specific function applies instead of C405.2.1.1' : 'not listed in C405.2.1' };
+  cells['light-reduction'] = inputs.lightReductionExemptItem
+    ? { requirement: 'not-required', why: `C405.2.3 exception: ${inputs.lightReductionExemptItem}` }
+    : { requirement: 'required', why: 'C405.2.3, unless the area has one small luminaire or a low installed density (checked by the engine)' };
   cells['daylight-sidelighting'] = { requirement: daylight.sidelighting, why: "the source dataset's mapping of C405.2.4" };
   cells['daylight-toplighting'] = { requirement: daylight.toplighting, why: "the source dataset's mapping of C405.2.4" };
   return cells;

@@ -53,6 +53,8 @@ export const ieccInputs = z.object({
   fullAutoOnAllowed: z.boolean(),
   fullAutoOnItem: z.string().nullable(),
   sensorFunction: z.enum(['general', 'warehouse', 'open-office', 'corridor', 'parking-garage']),
+  /** The C405.2.3 exception list item that frees this space type from light-reduction control, if any. */
+  lightReductionExemptItem: z.string().nullable().default(null),
   note: z.string().optional(),
 });
 

@@ -21,7 +21,14 @@ export interface SpaceControlFacts {
   daylightWhy: { sidelighting: string; toplighting: string };
   decorativeW: Dec;
   displayW: Dec;
+  /** General, decorative and display watts together (exempt lighting excluded). */
+  installedW: Dec;
+  nonExemptLuminaires: { count: Dec; unitWatts: Dec }[];
+  occupantSensorProvided: boolean;
 }
+
+/** The general exceptions free a space from every interior control requirement (90.1 §9.4.1.1, IECC C405.2). */
+const generalExceptions = new Set<string>(['security-or-emergency-continuous', 'exit-stairway-ramp-passageway', 'egress-normally-off']);
 
 const exceptionWords: Record<NonNullable<ProvidedControl['exceptionReason']>, string> = {
   'security-or-emergency-continuous': 'security or emergency area that must stay lit continuously',
@@ -77,16 +84,43 @@ function ruleRequirements(edition: EditionData, facts: SpaceControlFacts): Contr
     occupant = { strategy: 'occupant-sensor', requirement: 'not-required', why: `${type?.label ?? 'space'} is not on the occupant-sensor list${size}` };
   }
   const occupantRequired = occupant.requirement === 'required';
+  // C405.2.2 asks for time-switch control where a space has no occupant sensor controls.
   const timeSwitch: ControlRequirement = occupantRequired
     ? { strategy: 'time-switch', requirement: 'not-required', why: 'occupant sensors are required here instead' }
-    : { strategy: 'time-switch', requirement: occupant.requirement === 'to-verify' ? 'to-verify' : 'required', why: 'spaces without required occupant sensors need time-switch control' };
+    : facts.occupantSensorProvided
+      ? { strategy: 'time-switch', requirement: 'not-required', why: 'occupant sensor controls are provided, and time-switch control applies only where there are none' }
+      : { strategy: 'time-switch', requirement: occupant.requirement === 'to-verify' ? 'to-verify' : 'required', why: 'a space without occupant sensor controls needs time-switch control' };
   return [
     occupant,
     timeSwitch,
-    { strategy: 'light-reduction', requirement: 'required', why: 'the occupant can reduce the connected lighting load in a reasonably uniform pattern' },
+    lightReduction(edition, facts),
     { strategy: 'daylight-sidelighting', requirement: facts.sidelightingRequired ? 'required' : 'not-required', why: facts.daylightWhy.sidelighting },
     { strategy: 'daylight-toplighting', requirement: facts.toplightingRequired ? 'required' : 'not-required', why: facts.daylightWhy.toplighting },
   ];
+}
+
+/** C405.2.3 with its exceptions, read from the data: listed space types, one small luminaire, a low installed density. */
+function lightReduction(edition: EditionData, facts: SpaceControlFacts): ControlRequirement {
+  const strategy = 'light-reduction';
+  const exemptItem = facts.spaceType?.iecc?.lightReductionExemptItem;
+  if (exemptItem) return { strategy, requirement: 'not-required', why: `${exemptItem} are excepted from light-reduction control` };
+  const parameters = edition.controlStrategies.find((entry) => entry.key === strategy)?.parameters ?? {};
+  const singleBelow = parameters['exemptSingleLuminaireBelowW'];
+  const luminaires = facts.nonExemptLuminaires.reduce((total, group) => total.plus(group.count), dec(0));
+  if (singleBelow !== undefined && luminaires.equals(1)) {
+    const only = facts.nonExemptLuminaires.find((group) => group.count.equals(1))!;
+    if (only.unitWatts.lessThan(dec(singleBelow))) {
+      return { strategy, requirement: 'not-required', why: `the space has one luminaire of ${only.unitWatts.toFixed()} W, less than ${singleBelow} W` };
+    }
+  }
+  const lpdBelow = parameters['exemptLpdBelowWPerFt2'];
+  if (lpdBelow !== undefined && facts.areaFt2.greaterThan(0)) {
+    const density = facts.installedW.dividedBy(facts.areaFt2);
+    if (density.lessThan(dec(lpdBelow))) {
+      return { strategy, requirement: 'not-required', why: `the installed density of ${density.toDecimalPlaces(2).toFixed()} W/ft² is less than ${lpdBelow} W/ft²` };
+    }
+  }
+  return { strategy, requirement: 'required', why: 'the occupant can reduce the connected lighting load in a reasonably uniform pattern' };
 }
 
 export function interiorRequirements(edition: EditionData, facts: SpaceControlFacts): ControlRequirement[] {
@@ -150,6 +184,7 @@ export function resolveControls(
 ): ControlLine[] {
   const catalogue: ReadonlyMap<string, ControlStrategy> = new Map(edition.controlStrategies.map((strategy) => [strategy.key, strategy]));
   const checks = new Map(requirements.map((line) => [line.strategy, checkProvision(line.strategy, provided, catalogue, spaceType)]));
+  const general = provided.find((control) => control.exceptionReason !== undefined && generalExceptions.has(control.exceptionReason));
   return requirements.map((line) => {
     const strategy = catalogue.get(line.strategy);
     const label = strategy?.label ?? line.strategy;
@@ -166,6 +201,10 @@ export function resolveControls(
     }
     if (line.requirement === 'to-verify') {
       return { ...base, met: null, status: 'to-verify', reason: `To verify: ${line.why}; ${check.words}.` };
+    }
+    if (general?.exceptionReason !== undefined && !check.ok) {
+      const words = `exception claimed for every control of this space: ${exceptionWords[general.exceptionReason]}`;
+      return { ...base, met: null, status: 'exception-claimed', reason: `${line.requirement === 'required' ? 'Required' : line.why}: ${line.requirement === 'required' ? `${line.why}; ` : ''}${words}.` };
     }
     if (line.requirement === 'required') {
       if (check.ok) return { ...base, met: true, status: 'met', reason: `Required: ${line.why}; ${check.words}.` };

@@ -102,6 +102,8 @@ export interface SpaceType {
     fullAutoOnAllowed: boolean;
     /** Which occupant-sensor function applies: the general one or a space-specific one. */
     sensorFunction: 'general' | 'warehouse' | 'open-office' | 'corridor' | 'parking-garage';
+    /** The C405.2.3 exception list item (e.g. "corridors") that frees this space type from light-reduction control. */
+    lightReductionExemptItem?: string | null;
   };
   provenance: Provenance;
 }

@@ -298,6 +298,9 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       daylightWhy,
       decorativeW: watts.decorative,
       displayW: watts.display,
+      installedW: installed,
+      nonExemptLuminaires: watts.lines.filter((line) => line.use !== 'exempt').map((line) => ({ count: dec(line.count), unitWatts: dec(line.unitWatts) })),
+      occupantSensorProvided: space.controls.some((control) => control.strategy === 'occupant-sensor' && control.provided),
     };
     let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType);
     if (controlType === undefined && edition.family === 'ashrae-90.1') {
