@@ -1,5 +1,6 @@
 import type { Routes } from '@angular/router';
 import { authGuard } from './core/auth/auth-guard';
+import { unsavedChangesGuard } from './shared/unsaved-changes';
 
 export const routes: Routes = [
   {
@@ -16,6 +17,12 @@ export const routes: Routes = [
         path: '',
         title: 'Projects · Allowlight',
         loadComponent: () => import('./features/projects/projects-page').then((m) => m.ProjectsPage),
+      },
+      {
+        path: 'projects/new',
+        title: 'New project · Allowlight',
+        canDeactivate: [unsavedChangesGuard],
+        loadComponent: () => import('./features/setup/setup-wizard').then((m) => m.SetupWizard),
       },
       {
         path: 'projects/:projectId',

@@ -1,19 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { ProjectRole } from '../../core/auth/auth-store';
+import type { EvaluationResult, ProjectSummary } from '../../core/api/api-types';
 
-export type ProjectState = 'draft' | 'in-review' | 'returned' | 'accepted' | 'issued';
-
-export interface ProjectSummary {
-  id: string;
-  name: string;
-  state: ProjectState;
-  role: ProjectRole | null;
-  version: number;
-  updatedAt: string;
-}
-
+/** The projects list's calls: the user's projects, and one project's results for its verdict column. */
 @Injectable({ providedIn: 'root' })
 export class ProjectApi {
   private readonly http = inject(HttpClient);
@@ -22,7 +12,7 @@ export class ProjectApi {
     return this.http.get<ProjectSummary[]>('/api/projects');
   }
 
-  get(id: string): Observable<ProjectSummary> {
-    return this.http.get<ProjectSummary>(`/api/projects/${encodeURIComponent(id)}`);
+  results(id: string): Observable<EvaluationResult> {
+    return this.http.get<EvaluationResult>(`/api/projects/${encodeURIComponent(id)}/results`);
   }
 }

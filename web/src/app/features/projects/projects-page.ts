@@ -1,37 +1,136 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { MatCardModule } from '@angular/material/card';
+import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
+import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { catchError, map, of, startWith } from 'rxjs';
+import { MatSort, MatSortModule } from '@angular/material/sort';
+import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import { Router, RouterLink } from '@angular/router';
+import { catchError, from, map, mergeMap, of, startWith } from 'rxjs';
+import type { ProjectSummary } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { ProjectApi, type ProjectSummary } from './project-api';
+import { formatPercent } from '../../shared/format';
+import { ProjectApi } from './project-api';
 import { stateLabels } from './project-states';
+import { verdictOf, type ProjectVerdict } from './project-verdict';
 
 type ListState = { status: 'loading' } | { status: 'ready'; projects: ProjectSummary[] } | { status: 'failed'; message: string };
 
+export const editionLabels: Partial<Record<string, string>> = {
+  'iecc-2021': 'IECC 2021',
+  'ashrae-90.1-2019': '90.1-2019',
+  'ashrae-90.1-2022': '90.1-2022',
+};
+
+/** At most this many result requests in flight, so a long list stays cheap for the service. */
+const verdictConcurrency = 3;
 
 @Component({
   selector: 'al-projects-page',
-  imports: [DatePipe, MatCardModule, MatChipsModule, MatIconModule, MatProgressBarModule],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatProgressBarModule, MatSortModule, MatTableModule],
   templateUrl: './projects-page.html',
   styleUrl: './projects-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ProjectsPage {
-  protected readonly stateLabels = stateLabels;
+  private readonly api = inject(ProjectApi);
+  private readonly router = inject(Router);
+  protected readonly formatPercent = formatPercent;
+  protected readonly columns = ['name', 'state', 'edition', 'role', 'updatedAt', 'margin', 'verdict'];
+  protected readonly dataSource = new MatTableDataSource<ProjectSummary>([]);
+  protected readonly verdicts = signal<ReadonlyMap<string, ProjectVerdict>>(new Map());
+  protected readonly filter = signal('');
+
+  private readonly sort = viewChild(MatSort);
+  private readonly paginator = viewChild(MatPaginator);
+
   protected readonly list = toSignal(
-    inject(ProjectApi)
-      .list()
-      .pipe(
-        map((projects): ListState => ({ status: 'ready', projects })),
-        catchError((error: unknown) =>
-          of<ListState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'The projects could not be loaded.' }),
-        ),
-        startWith<ListState>({ status: 'loading' }),
-      ),
+    this.api.list().pipe(
+      map((projects): ListState => ({ status: 'ready', projects })),
+      catchError((error: unknown) => of<ListState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'The projects could not be loaded.' })),
+      startWith<ListState>({ status: 'loading' }),
+    ),
     { requireSync: true },
   );
+
+  protected readonly projectCount = computed(() => {
+    const state = this.list();
+    return state.status === 'ready' ? state.projects.length : 0;
+  });
+
+  constructor() {
+    this.dataSource.sortingDataAccessor = (project, column) => {
+      switch (column) {
+        case 'state':
+          return stateLabels[project.state];
+        case 'edition':
+          return this.editionLabel(project);
+        case 'updatedAt':
+          return project.updatedAt;
+        case 'margin': {
+          const verdict = this.verdicts().get(project.id);
+          return verdict && 'marginPct' in verdict && verdict.marginPct !== null ? Number(verdict.marginPct) : Number.NEGATIVE_INFINITY;
+        }
+        default:
+          return (project[column as keyof ProjectSummary] ?? '').toString().toLocaleLowerCase();
+      }
+    };
+    this.dataSource.filterPredicate = (project, filter) =>
+      [project.name, stateLabels[project.state], this.editionLabel(project), project.role ?? ''].join(' ').toLocaleLowerCase().includes(filter);
+
+    effect(() => {
+      const state = this.list();
+      if (state.status !== 'ready') return;
+      this.dataSource.data = state.projects;
+      this.loadVerdicts(state.projects);
+    });
+    effect(() => {
+      const sort = this.sort();
+      const paginator = this.paginator();
+      if (sort) this.dataSource.sort = sort;
+      if (paginator) this.dataSource.paginator = paginator;
+    });
+  }
+
+  protected applyFilter(value: string): void {
+    this.filter.set(value);
+    this.dataSource.filter = value.trim().toLocaleLowerCase();
+    this.dataSource.paginator?.firstPage();
+  }
+
+  protected open(project: ProjectSummary): void {
+    void this.router.navigate(['/projects', project.id]);
+  }
+
+  protected stateLabel(project: ProjectSummary): string {
+    return stateLabels[project.state];
+  }
+
+  protected editionLabel(project: ProjectSummary): string {
+    return project.edition ? (editionLabels[project.edition] ?? project.edition) : '—';
+  }
+
+  protected verdict(id: string): ProjectVerdict {
+    return this.verdicts().get(id) ?? { status: 'pending' };
+  }
+
+  private loadVerdicts(projects: ProjectSummary[]): void {
+    from(projects.filter((project) => project.edition))
+      .pipe(
+        mergeMap(
+          (project) =>
+            this.api.results(project.id).pipe(
+              map((result) => [project.id, verdictOf(result)] as const),
+              catchError(() => of([project.id, { status: 'incomplete' } as ProjectVerdict] as const)),
+            ),
+          verdictConcurrency,
+        ),
+      )
+      .subscribe(([id, verdict]) => this.verdicts.update((verdicts) => new Map(verdicts).set(id, verdict)));
+  }
 }

@@ -1,8 +1,91 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
+import { ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { ApiError } from '../../core/http/api-error';
+import { WriteFailure } from '../../shared/conflict';
+import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
+import { ProjectStore } from '../workspace/project-store';
+import { WorkspaceApi } from '../workspace/workspace-api';
+import { SetupFields } from './setup-fields';
+import { fillSetup, setupForm, setupValue, showServerErrors } from './setup-form';
 
+/** The project's set-up, editable after the wizard: the same fields, saved with the version read. */
 @Component({
   selector: 'al-setup-page',
-  template: '<h2>Set-up</h2>',
+  imports: [ReactiveFormsModule, MatButtonModule, MatIconModule, MatProgressBarModule, SetupFields],
+  templateUrl: './setup-page.html',
+  styleUrl: './setup-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class SetupPage {}
+export class SetupPage implements HasUnsavedChanges {
+  protected readonly store = inject(ProjectStore);
+  private readonly api = inject(WorkspaceApi);
+  private readonly writeFailure = inject(WriteFailure);
+  protected readonly form = setupForm();
+  protected readonly saving = signal(false);
+  protected readonly failure = signal<string | null>(null);
+  protected readonly unitsLocked = computed(() => this.store.spaces().length > 0);
+
+  constructor() {
+    effect(() => {
+      const project = this.store.project();
+      const canEdit = this.store.canEdit();
+      const locked = this.unitsLocked();
+      untracked(() => {
+        if (project && !this.form.dirty) fillSetup(this.form, project);
+        if (canEdit) this.form.enable({ emitEvent: false });
+        else this.form.disable({ emitEvent: false });
+        if (locked) this.form.controls.code.controls.units.disable({ emitEvent: false });
+      });
+    });
+  }
+
+  hasUnsavedChanges(): boolean {
+    return this.form.dirty;
+  }
+
+  protected save(): void {
+    const project = this.store.project();
+    if (!project) return;
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    this.saving.set(true);
+    this.failure.set(null);
+    this.api.updateSetup(project.id, project.version, setupValue(this.form)).subscribe({
+      next: (updated) => {
+        this.saving.set(false);
+        this.form.markAsPristine();
+        fillSetup(this.form, updated);
+        this.store.setProject(updated);
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        if (error instanceof ApiError && error.status === 400) {
+          const unplaced = showServerErrors(this.form, error.details);
+          if (unplaced.length) this.failure.set(unplaced.map((detail) => detail.message).join(' '));
+          return;
+        }
+        this.writeFailure.report(error, () => this.reload());
+      },
+    });
+  }
+
+  protected discard(): void {
+    const project = this.store.project();
+    if (project) fillSetup(this.form, project);
+  }
+
+  private reload(): void {
+    const project = this.store.project();
+    if (!project) return;
+    this.api.project(project.id).subscribe((fresh) => {
+      this.form.markAsPristine();
+      fillSetup(this.form, fresh);
+      this.store.setProject(fresh);
+    });
+  }
+}

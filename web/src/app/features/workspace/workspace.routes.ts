@@ -1,10 +1,11 @@
 import type { Routes } from '@angular/router';
+import { unsavedChangesGuard } from '../../shared/unsaved-changes';
 
 export const workspaceRoutes: Routes = [
   { path: '', pathMatch: 'full', redirectTo: 'spaces' },
-  { path: 'setup', title: 'Set-up · Allowlight', loadComponent: () => import('../setup/setup-page').then((m) => m.SetupPage) },
-  { path: 'spaces', title: 'Spaces · Allowlight', loadComponent: () => import('../spaces/spaces-page').then((m) => m.SpacesPage) },
-  { path: 'luminaires', title: 'Luminaires · Allowlight', loadComponent: () => import('../luminaires/luminaires-page').then((m) => m.LuminairesPage) },
+  { path: 'setup', canDeactivate: [unsavedChangesGuard], title: 'Set-up · Allowlight', loadComponent: () => import('../setup/setup-page').then((m) => m.SetupPage) },
+  { path: 'spaces', canDeactivate: [unsavedChangesGuard], title: 'Spaces · Allowlight', loadComponent: () => import('../spaces/spaces-page').then((m) => m.SpacesPage) },
+  { path: 'luminaires', canDeactivate: [unsavedChangesGuard], title: 'Luminaires · Allowlight', loadComponent: () => import('../luminaires/luminaires-page').then((m) => m.LuminairesPage) },
   { path: 'controls', title: 'Controls · Allowlight', loadComponent: () => import('../controls/controls-page').then((m) => m.ControlsPage) },
   { path: 'daylight', title: 'Daylight · Allowlight', loadComponent: () => import('../daylight/daylight-page').then((m) => m.DaylightPage) },
   { path: 'exterior', title: 'Exterior · Allowlight', loadComponent: () => import('../exterior/exterior-page').then((m) => m.ExteriorPage) },

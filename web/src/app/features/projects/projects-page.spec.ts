@@ -1,0 +1,73 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+import type { ProjectSummary } from '../../core/api/api-types';
+import { apiInterceptor } from '../../core/http/api-interceptor';
+import { ProjectsPage } from './projects-page';
+
+// Invented demo projects.
+const projects: ProjectSummary[] = [
+  { id: 'p1', name: 'Cedar Hall', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', version: 1, updatedAt: '2026-03-01T10:00:00Z' },
+  { id: 'p2', name: 'Alder Bay Library', state: 'in-review', role: 'reviewer', edition: 'iecc-2021', method: 'space-by-space', version: 3, updatedAt: '2026-03-02T10:00:00Z' },
+  { id: 'p3', name: 'Birch Annex', state: 'accepted', role: 'engineer', edition: 'ashrae-90.1-2019', method: 'building-area', version: 2, updatedAt: '2026-03-03T10:00:00Z' },
+];
+
+describe('ProjectsPage', () => {
+  let fixture: ComponentFixture<ProjectsPage>;
+  let http: HttpTestingController;
+  let element: HTMLElement;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      imports: [ProjectsPage],
+    });
+    fixture = TestBed.createComponent(ProjectsPage);
+    http = TestBed.inject(HttpTestingController);
+    element = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+    http.expectOne('/api/projects').flush(projects);
+    await fixture.whenStable();
+  });
+
+  const names = () => Array.from(element.querySelectorAll('.project-link')).map((link) => link.textContent?.trim());
+
+  it('lists projects sorted by name with their state, and fetches each verdict', async () => {
+    expect(names()).toEqual(['Alder Bay Library', 'Birch Annex', 'Cedar Hall']);
+    expect(element.textContent).toContain('In review');
+    const pending = http.match((request) => request.url.endsWith('/results'));
+    expect(pending.length).toBe(3);
+    pending.find((request) => request.request.url.includes('p1'))!.flush({ complies: true, interior: { marginPct: '12.345' } });
+    pending.find((request) => request.request.url.includes('p2'))!.flush({ complies: false, interior: { marginPct: '-4.2' } });
+    pending
+      .find((request) => request.request.url.includes('p3'))!
+      .flush({ error: { code: 'validation_failed', message: 'At least one space is needed.' } }, { status: 400, statusText: 'Bad Request' });
+    await fixture.whenStable();
+    const text = element.textContent ?? '';
+    expect(text).toContain('12.3 %');
+    expect(text).toContain('Complies');
+    expect(text).toContain('Does not comply');
+    expect(text).toContain('Design incomplete');
+    expect(element.querySelectorAll('.verdict mat-icon').length).toBe(3);
+  });
+
+  it('sorts by a column header and filters by text', async () => {
+    http.match(() => true).forEach((request) => request.flush({ complies: true, interior: { marginPct: '1' } }));
+    const nameHeader = Array.from(element.querySelectorAll<HTMLElement>('th')).find((th) => th.textContent?.includes('Project'))!;
+    nameHeader.querySelector<HTMLElement>('.mat-sort-header-container')!.click();
+    await fixture.whenStable();
+    expect(names()).toEqual(['Cedar Hall', 'Birch Annex', 'Alder Bay Library']);
+
+    const filter = element.querySelector<HTMLInputElement>('input[matInput]')!;
+    filter.value = '90.1';
+    filter.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(names()).toEqual(['Birch Annex']);
+
+    filter.value = 'nothing like this';
+    filter.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(element.textContent).toContain('No project matches');
+  });
+});
