@@ -1,0 +1,88 @@
+import { ChangeDetectionStrategy, Component, computed, effect, input, signal, viewChild } from '@angular/core';
+import { FormsModule } from '@angular/forms';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatSort, MatSortModule } from '@angular/material/sort';
+import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import type { SpaceResult, UnitSystem } from '../../core/api/api-types';
+import { allowanceStatus, type AllowanceStatus } from '../../shared/allowance-status';
+import { areaFigure, densityFigure, percentFigure, wattsFigure } from '../../shared/figures';
+import { unitLabels } from '../../shared/format';
+import { VerifyBadge } from '../../shared/verify-badge';
+
+export interface SpaceRow {
+  space: SpaceResult;
+  status: AllowanceStatus;
+  unverifiedNote: string | null;
+}
+
+export function spaceRows(spaces: readonly SpaceResult[]): SpaceRow[] {
+  return spaces.map((space) => ({
+    space,
+    status: allowanceStatus(space.withinAllowance, space.marginW, space.marginPct),
+    unverifiedNote: space.unverified.length === 0 ? null : space.unverified.map((value) => `${value.what}: ${value.note}`).join(' · '),
+  }));
+}
+
+const numericColumns: Record<string, (space: SpaceResult) => string | null> = {
+  area: (space) => space.area,
+  allowedLpd: (space) => space.allowedLpd,
+  installedLpd: (space) => space.installedLpd,
+  allowanceW: (space) => space.allowanceW,
+  installedW: (space) => space.installedW,
+  marginW: (space) => space.marginW,
+  marginPct: (space) => space.marginPct,
+};
+
+/** Each space's allowance, installed power, LPDs, margin and status; sortable, and filterable to the spaces over allowance. */
+@Component({
+  selector: 'al-space-results-table',
+  imports: [MatTableModule, MatSortModule, MatSlideToggleModule, MatFormFieldModule, MatInputModule, MatIconModule, FormsModule, VerifyBadge],
+  templateUrl: './space-results-table.html',
+  styleUrl: './space-results-table.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SpaceResultsTable {
+  readonly spaces = input.required<readonly SpaceResult[]>();
+  readonly units = input<UnitSystem>('ip');
+  readonly updating = input(false);
+
+  protected readonly overOnly = signal(false);
+  protected readonly search = signal('');
+  protected readonly labels = computed(() => unitLabels(this.units()));
+  protected readonly figures = { watts: wattsFigure, density: densityFigure, percent: percentFigure, area: areaFigure };
+  protected readonly columns = ['name', 'level', 'type', 'area', 'allowedLpd', 'installedLpd', 'allowanceW', 'installedW', 'marginW', 'marginPct', 'status'];
+  protected readonly basisHeader = computed(() => (this.spaces()[0]?.lpdBasis.kind === 'building-area-type' ? 'Building area type' : 'Space type'));
+  protected readonly overCount = computed(() => this.spaces().filter((space) => !space.withinAllowance).length);
+
+  protected readonly dataSource = new MatTableDataSource<SpaceRow>([]);
+  private readonly sort = viewChild(MatSort);
+
+  constructor() {
+    this.dataSource.sortingDataAccessor = (row, column) => {
+      const numeric = numericColumns[column];
+      if (numeric) return Number(numeric(row.space) ?? Number.NEGATIVE_INFINITY);
+      if (column === 'level') return row.space.level ?? '';
+      if (column === 'type') return row.space.lpdBasis.label;
+      if (column === 'status') return row.status.within ? 1 : 0;
+      return row.space.name;
+    };
+    this.dataSource.filterPredicate = (row, filter) => {
+      const { overOnly, text } = JSON.parse(filter) as { overOnly: boolean; text: string };
+      if (overOnly && row.status.within) return false;
+      return text === '' || `${row.space.name} ${row.space.level ?? ''} ${row.space.lpdBasis.label}`.toLowerCase().includes(text);
+    };
+    effect(() => {
+      this.dataSource.data = spaceRows(this.spaces());
+    });
+    effect(() => {
+      this.dataSource.filter = JSON.stringify({ overOnly: this.overOnly(), text: this.search().trim().toLowerCase() });
+    });
+    effect(() => {
+      const sort = this.sort();
+      if (sort) this.dataSource.sort = sort;
+    });
+  }
+}
