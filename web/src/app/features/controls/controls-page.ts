@@ -1,8 +1,85 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+import { MatListModule } from '@angular/material/list';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { RouterLink } from '@angular/router';
+import type { ProvidedControl, SpaceRecord } from '../../core/api/api-types';
+import { WriteFailure } from '../../shared/conflict';
+import { formatArea } from '../../shared/format';
+import { ProjectStore } from '../workspace/project-store';
+import { WorkspaceApi } from '../workspace/workspace-api';
+import { replaceControl } from './control-form';
+import { ControlLineCard } from './control-line-card';
+import { outstandingLines } from './control-status';
 
+/** Per space: the control requirements the evaluation derives, and what the engineer records as provided or excepted. */
 @Component({
   selector: 'al-controls-page',
-  template: '<h2>Controls</h2>',
+  imports: [MatIconModule, MatListModule, MatProgressBarModule, MatSlideToggleModule, RouterLink, ControlLineCard],
+  templateUrl: './controls-page.html',
+  styleUrl: './controls-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ControlsPage {}
+export class ControlsPage {
+  protected readonly store = inject(ProjectStore);
+  private readonly api = inject(WorkspaceApi);
+  private readonly failure = inject(WriteFailure);
+
+  /** The space to open, from `?space=` (links from the Results page). */
+  readonly space = input<string>();
+
+  protected readonly outstandingOnly = signal(false);
+  protected readonly saving = signal(false);
+  protected readonly updating = computed(() => this.store.results().status !== 'ready');
+  protected readonly formatArea = formatArea;
+
+  protected readonly rows = computed(() => {
+    const results = this.store.resultBySpace();
+    return this.store.spaces().map((space) => {
+      const result = results.get(space.id);
+      return { space, result, outstanding: result ? outstandingLines(result.controls).length : 0 };
+    });
+  });
+  protected readonly visibleRows = computed(() => (this.outstandingOnly() ? this.rows().filter((row) => row.outstanding > 0) : this.rows()));
+  protected readonly selectedId = linkedSignal(() => this.space() ?? this.rows()[0]?.space.id ?? null);
+  protected readonly selected = computed(() => this.rows().find((row) => row.space.id === this.selectedId()) ?? null);
+  protected readonly strategyByKey = computed(() => new Map((this.store.tables()?.controlStrategies ?? []).map((strategy) => [strategy.key, strategy])));
+  protected readonly lines = computed(() => {
+    const lines = this.selected()?.result?.controls ?? [];
+    return { applicable: lines.filter((line) => line.status !== 'not-required'), notRequired: lines.filter((line) => line.status === 'not-required') };
+  });
+
+  protected provided(space: SpaceRecord, strategy: string): ProvidedControl | undefined {
+    return space.controls.find((control) => control.strategy === strategy);
+  }
+
+  protected select(spaceId: string): void {
+    this.selectedId.set(spaceId);
+  }
+
+  protected save(space: SpaceRecord, strategy: string, next: ProvidedControl | null): void {
+    const projectId = this.store.projectId();
+    if (!projectId) return;
+    this.saving.set(true);
+    this.api.patchSpace(projectId, space.id, space.version, { controls: replaceControl(space.controls, strategy, next) }).subscribe({
+      next: (saved) => {
+        this.saving.set(false);
+        this.store.upsertSpace(saved);
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        this.failure.report(error, () => this.reload(space.id));
+      },
+    });
+  }
+
+  private reload(spaceId: string): void {
+    const projectId = this.store.projectId();
+    if (!projectId) return;
+    this.api.spaces(projectId).subscribe((spaces) => {
+      const fresh = spaces.find((space) => space.id === spaceId);
+      if (fresh) this.store.upsertSpace(fresh);
+    });
+  }
+}

@@ -1,0 +1,83 @@
+import { FormControl, FormGroup, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
+import type { ControlExceptionReason, ProvidedControl } from '../../core/api/api-types';
+
+export type ProvisionMode = 'provided' | 'exception' | 'none';
+export type AutoOn = '' | 'manual' | 'partial' | 'full';
+
+export type ControlForm = FormGroup<{
+  mode: FormControl<ProvisionMode>;
+  device: FormControl<string>;
+  timeoutMinutes: FormControl<string>;
+  autoOn: FormControl<AutoOn>;
+  zoneSize: FormControl<string>;
+  exceptionReason: FormControl<ControlExceptionReason | ''>;
+  exceptionNote: FormControl<string>;
+}>;
+
+/** The service's decimal syntax (document.ts), without a sign: these values must not be negative. */
+const decimalPattern = /^(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+export const nonNegativeDecimal: ValidatorFn = (control: AbstractControl<string>): ValidationErrors | null => {
+  const value = control.value.trim();
+  if (value === '') return null;
+  if (value.startsWith('-')) return { negative: true };
+  return decimalPattern.test(value) ? null : { decimal: true };
+};
+
+function whenMode(mode: ProvisionMode, check: (control: AbstractControl) => ValidationErrors | null): ValidatorFn {
+  return (control) => ((control.parent?.value as { mode?: ProvisionMode } | undefined)?.mode === mode ? check(control) : null);
+}
+
+const reasonRequired = whenMode('exception', (control) => (control.value === '' ? { required: true } : null));
+/** As the service says: an "other" exception must say which exception is claimed. */
+const noteRequired = whenMode('exception', (control) => {
+  const reason = (control.parent?.value as { exceptionReason?: string } | undefined)?.exceptionReason;
+  return reason === 'other' && String(control.value).trim() === '' ? { required: true } : null;
+});
+
+export function controlForm(current: ProvidedControl | undefined): ControlForm {
+  const mode: ProvisionMode = current?.provided ? 'provided' : current?.exceptionReason ? 'exception' : 'none';
+  const form: ControlForm = new FormGroup({
+    mode: new FormControl<ProvisionMode>(mode, { nonNullable: true }),
+    device: new FormControl(current?.device ?? '', { nonNullable: true }),
+    timeoutMinutes: new FormControl(current?.timeoutMinutes ?? '', { nonNullable: true, validators: [nonNegativeDecimal] }),
+    autoOn: new FormControl<AutoOn>(current?.autoOn ?? '', { nonNullable: true }),
+    zoneSize: new FormControl(current?.zoneSize ?? '', { nonNullable: true, validators: [nonNegativeDecimal] }),
+    exceptionReason: new FormControl<ControlExceptionReason | ''>(current?.exceptionReason ?? '', { nonNullable: true, validators: [reasonRequired] }),
+    exceptionNote: new FormControl(current?.exceptionNote ?? '', { nonNullable: true, validators: [noteRequired] }),
+  });
+  const revalidate = () => {
+    form.controls.exceptionReason.updateValueAndValidity({ emitEvent: false });
+    form.controls.exceptionNote.updateValueAndValidity({ emitEvent: false });
+  };
+  form.controls.mode.valueChanges.subscribe(revalidate);
+  form.controls.exceptionReason.valueChanges.subscribe(() => form.controls.exceptionNote.updateValueAndValidity({ emitEvent: false }));
+  revalidate();
+  return form;
+}
+
+/** What to send for one strategy; `null` removes the strategy's entry (nothing provided, nothing claimed). */
+export function providedControl(strategy: string, value: ReturnType<ControlForm['getRawValue']>): ProvidedControl | null {
+  const text = (field: string) => (field.trim() === '' ? undefined : field.trim());
+  if (value.mode === 'none') return null;
+  if (value.mode === 'exception') {
+    const control: ProvidedControl = { strategy, provided: false, exceptionReason: value.exceptionReason as ControlExceptionReason };
+    const note = text(value.exceptionNote);
+    return note === undefined ? control : { ...control, exceptionNote: note };
+  }
+  const control: ProvidedControl = { strategy, provided: true };
+  const device = text(value.device);
+  const timeout = text(value.timeoutMinutes);
+  const zoneSize = text(value.zoneSize);
+  if (device !== undefined) control.device = device;
+  if (timeout !== undefined) control.timeoutMinutes = timeout;
+  if (value.autoOn !== '') control.autoOn = value.autoOn;
+  if (zoneSize !== undefined) control.zoneSize = zoneSize;
+  return control;
+}
+
+/** The space's controls with one strategy's entry replaced (or removed), the others kept as they were. */
+export function replaceControl(controls: readonly ProvidedControl[], strategy: string, next: ProvidedControl | null): ProvidedControl[] {
+  const others = controls.filter((control) => control.strategy !== strategy);
+  return next === null ? others : [...others, next];
+}
