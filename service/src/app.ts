@@ -14,7 +14,7 @@ import { errorHandler, notFoundHandler } from './http/error-handler.js';
 import { readSession, requireSignIn } from './http/session.js';
 import { projectsRouter } from './projects/projects.routes.js';
 import { designRouter } from './design/design.routes.js';
-import { evaluateRouter, projectResultsRouter } from './evaluation/evaluation.routes.js';
+import { evaluateRouter, openApiRouter, projectResultsRouter } from './evaluation/evaluation.routes.js';
 
 export interface AppDeps {
   db: Database;
@@ -67,6 +67,7 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
   api.use('/projects/:projectId', designRouter(db));
   api.use('/projects/:projectId', projectResultsRouter(db));
   api.use('/evaluate', evaluateRouter(db));
+  api.use('/openapi.json', openApiRouter());
   api.use(notFoundHandler);
   app.use('/api', api);
 

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { EvaluationResult } from '../../service/src/compliance/index.js';
+import { evaluationResultSchema } from '../../service/src/evaluation/result.schema.js';
 import { signIn, testApp, type SignedInAgent } from '../support/app.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
 
@@ -51,6 +52,11 @@ describe('the seeded demo project', () => {
     const margin = Number(result.interior.marginPct);
     expect(margin).toBeGreaterThan(5);
     expect(margin).toBeLessThan(15);
+  });
+
+  it('matches the served result schema', () => {
+    const parsed = evaluationResultSchema.safeParse(result);
+    expect(parsed.success, JSON.stringify(parsed.error?.issues.slice(0, 3))).toBe(true);
   });
 
   it('gives the same result when its document is evaluated directly', async () => {

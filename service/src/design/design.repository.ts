@@ -202,12 +202,20 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
   if (rows.length === 0) return [];
   const ids = rows.map((row) => row.id);
   const inIds = (query: Knex.QueryBuilder) => (ids.length > 500 ? query.whereIn('space_id', db('spaces').select('id').where('project_id', rows[0]!.project_id)) : query.whereIn('space_id', ids));
-  const [luminaires, controls, windows, skylights] = await Promise.all([
-    inIds(db('space_luminaires as l').join('luminaire_types as t', 't.id', 'l.luminaire_type_id').select('l.*', 't.tag')).orderBy(['space_id', 'position']) as Promise<SpaceLuminaireRow[]>,
-    inIds(db('space_controls').select('*')).orderBy(['space_id', 'strategy']) as Promise<SpaceControlRow[]>,
-    inIds(db('space_windows').select('*')).orderBy(['space_id', 'position']) as Promise<SpaceWindowRow[]>,
-    inIds(db('space_skylights').select('*')).orderBy(['space_id', 'position']) as Promise<SpaceSkylightRow[]>,
-  ]);
+  const queries = [
+    () => inIds(db('space_luminaires as l').join('luminaire_types as t', 't.id', 'l.luminaire_type_id').select('l.*', 't.tag')).orderBy(['space_id', 'position']),
+    () => inIds(db('space_controls').select('*')).orderBy(['space_id', 'strategy']),
+    () => inIds(db('space_windows').select('*')).orderBy(['space_id', 'position']),
+    () => inIds(db('space_skylights').select('*')).orderBy(['space_id', 'position']),
+  ];
+  // A transaction has one connection, so its queries go one after another; otherwise in parallel.
+  const results: unknown[][] = [];
+  if (db.isTransaction) {
+    for (const query of queries) results.push(await query());
+  } else {
+    results.push(...(await Promise.all(queries.map((query) => query()))));
+  }
+  const [luminaires, controls, windows, skylights] = results as [SpaceLuminaireRow[], SpaceControlRow[], SpaceWindowRow[], SpaceSkylightRow[]];
   const luminairesBySpace = groupBy(luminaires);
   const controlsBySpace = groupBy(controls);
   const windowsBySpace = groupBy(windows);
@@ -296,7 +304,9 @@ async function resolveTags(trx: Knex, projectId: string, inputs: { luminaires: S
 }
 
 async function writeChildren(trx: Knex, spaceId: string, input: SpaceInput, typeIds: Map<string, string>): Promise<void> {
-  await Promise.all(['space_luminaires', 'space_controls', 'space_windows', 'space_skylights'].map((table) => trx(table).where({ space_id: spaceId }).delete()));
+  for (const table of ['space_luminaires', 'space_controls', 'space_windows', 'space_skylights']) {
+    await trx(table).where({ space_id: spaceId }).delete();
+  }
   const luminaires = input.luminaires.map((group, position) => ({ space_id: spaceId, position, luminaire_type_id: typeIds.get(group.tag), count: Number(group.count), zone: group.zone ?? null }));
   const controls = input.controls.map((control) => ({
     space_id: spaceId,
