@@ -1,0 +1,110 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import type { Observable } from 'rxjs';
+import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
+import { ApiError } from '../../core/http/api-error';
+import { fieldErrors, WriteFailure } from '../../shared/conflict';
+import { formatDensity, unitLabels } from '../../shared/format';
+import { VerifyBadge } from '../../shared/verify-badge';
+import { WorkspaceApi } from '../workspace/workspace-api';
+import { densityInUnits, spaceInput } from './space-rows';
+import { emptySpace, fieldMessage, fillSpace, requireGeometry, spaceForm, spaceFromForm } from './space-form';
+import { SpaceTypePicker } from './space-type-picker';
+
+export interface SpaceEditorData {
+  projectId: string;
+  space: SpaceRecord | null;
+  method: ComplianceMethod;
+  units: UnitSystem;
+  spaceTypes: readonly SpaceTypeView[];
+  buildingAreaTypes: readonly BuildingAreaTypeView[];
+  levels: readonly string[];
+  /** Called when a 409 asks for a fresh copy. */
+  reload: () => void;
+}
+
+/** Adds or edits one space; saves through the service and closes with the stored record. */
+@Component({
+  selector: 'al-space-editor',
+  imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, SpaceTypePicker, VerifyBadge],
+  templateUrl: './space-editor.html',
+  styleUrl: './space-editor.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SpaceEditor {
+  protected readonly data = inject<SpaceEditorData>(MAT_DIALOG_DATA);
+  private readonly dialog = inject<MatDialogRef<SpaceEditor, SpaceRecord>>(MatDialogRef);
+  private readonly api = inject(WorkspaceApi);
+  private readonly writeFailure = inject(WriteFailure);
+  protected readonly form = spaceForm(this.data.method);
+  protected readonly labels = unitLabels(this.data.units);
+  protected readonly saving = signal(false);
+  protected readonly failure = signal<string | null>(null);
+  protected readonly fieldMessage = fieldMessage;
+
+  constructor() {
+    if (this.data.space) fillSpace(this.form, this.data.space);
+    requireGeometry(this.form, this.data.space);
+    this.dialog.disableClose = true;
+    this.dialog.backdropClick().subscribe(() => this.cancel());
+    this.dialog.keydownEvents().subscribe((event) => {
+      if (event.key === 'Escape') this.cancel();
+    });
+  }
+
+  hasUnsavedChanges(): boolean {
+    return this.form.dirty;
+  }
+
+  protected density(type: BuildingAreaTypeView): string {
+    return formatDensity(densityInUnits(type.lpdWPerFt2, this.data.units), this.data.units);
+  }
+
+  protected cancel(): void {
+    if (!this.form.dirty || window.confirm('Discard the changes to this space?')) this.dialog.close();
+  }
+
+  protected save(): void {
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const { projectId, space, method } = this.data;
+    const body = spaceFromForm(this.form, method, space ? spaceInput(space) : emptySpace());
+    const request: Observable<SpaceRecord> = space ? this.api.replaceSpace(projectId, space.id, space.version, body) : this.api.createSpace(projectId, body);
+    this.saving.set(true);
+    this.failure.set(null);
+    request.subscribe({
+      next: (saved) => {
+        this.form.markAsPristine();
+        this.dialog.close(saved);
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        if (error instanceof ApiError && error.status === 400) {
+          const unplaced: string[] = [];
+          for (const [path, message] of Object.entries(fieldErrors(error))) {
+            const control = this.form.get(path);
+            if (control) {
+              control.setErrors({ server: message });
+              control.markAsTouched();
+            } else unplaced.push(message);
+          }
+          this.failure.set(unplaced.length ? unplaced.join(' ') : null);
+          return;
+        }
+        this.writeFailure.report(error, () => {
+          this.dialog.close();
+          this.data.reload();
+        });
+      },
+    });
+  }
+}

@@ -1,0 +1,63 @@
+import type { SpaceInput, SpaceRecord, SpaceResult, UnitSystem } from '../../core/api/api-types';
+import { formatPercent, formatWatts } from '../../shared/format';
+
+export const noLevel = 'No level';
+
+export type SpaceRow =
+  | { kind: 'level'; id: string; level: string; count: number; area: number }
+  | { kind: 'space'; id: string; space: SpaceRecord };
+
+/**
+ * Level headers and spaces in one flat list, so a single virtual scroll can carry thousands of rows.
+ * Levels keep the order in which their first space was entered; spaces keep their position.
+ */
+export function groupByLevel(spaces: readonly SpaceRecord[]): SpaceRow[] {
+  const levels = new Map<string, SpaceRecord[]>();
+  for (const space of [...spaces].sort((a, b) => a.position - b.position)) {
+    const level = space.level?.trim() || noLevel;
+    let members = levels.get(level);
+    if (!members) {
+      members = [];
+      levels.set(level, members);
+    }
+    members.push(space);
+  }
+  const rows: SpaceRow[] = [];
+  for (const [level, members] of levels) {
+    const area = members.reduce((sum, space) => sum + Number(space.area), 0);
+    rows.push({ kind: 'level', id: `level:${level}`, level, count: members.length, area });
+    for (const space of members) rows.push({ kind: 'space', id: space.id, space });
+  }
+  return rows;
+}
+
+export type SpaceStatus =
+  | { kind: 'updating' }
+  | { kind: 'not-evaluated' }
+  | { kind: 'within'; words: string }
+  | { kind: 'over'; words: string };
+
+/** A space's status in words; while results are updating no verdict is given. */
+export function spaceStatus(result: SpaceResult | undefined, resultsStatus: string): SpaceStatus {
+  if (resultsStatus === 'updating' || resultsStatus === 'idle') return { kind: 'updating' };
+  if (resultsStatus !== 'ready' || !result) return { kind: 'not-evaluated' };
+  if (result.withinAllowance) {
+    const pct = result.marginPct === null ? '' : ` (${formatPercent(result.marginPct)})`;
+    return { kind: 'within', words: `${formatWatts(result.marginW)}${pct} to spare` };
+  }
+  return { kind: 'over', words: `by ${formatWatts(String(-Number(result.marginW)))}` };
+}
+
+/** 1 ft = 0.3048 m exactly, so 1 m² = 1 / 0.09290304 ft² (NIST SP 811, exact definition). */
+const ft2PerM2 = 1 / 0.09290304;
+
+/** A table's W/ft² in the project's units (code tables hold IP densities). */
+export function densityInUnits(lpdWPerFt2: string, units: UnitSystem): string {
+  return units === 'ip' ? lpdWPerFt2 : String(Number(lpdWPerFt2) * ft2PerM2);
+}
+
+/** A stored space as the body of a write (what PUT and POST take back). */
+export function spaceInput(space: SpaceRecord): SpaceInput {
+  const { id: _id, position: _position, version: _version, updatedAt: _at, updatedBy: _by, luminaires, ...rest } = space;
+  return { ...rest, luminaires: luminaires.map(({ luminaireTypeId: _type, ...group }) => group) };
+}

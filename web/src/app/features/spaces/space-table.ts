@@ -1,0 +1,78 @@
+import { ScrollingModule } from '@angular/cdk/scrolling';
+import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceResult, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
+import { formatArea, formatLength, formatWatts, unitLabels } from '../../shared/format';
+import { groupByLevel, spaceStatus, type SpaceRow, type SpaceStatus } from './space-rows';
+
+/** Row height in px; the virtual scroll needs it fixed. */
+export const spaceRowHeight = 48;
+
+/** The project's spaces grouped by level, in one virtual-scrolled list that stays smooth at thousands of rows. */
+@Component({
+  selector: 'al-space-table',
+  imports: [ScrollingModule, MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule],
+  templateUrl: './space-table.html',
+  styleUrl: './space-table.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SpaceTable {
+  readonly spaces = input.required<readonly SpaceRecord[]>();
+  readonly results = input.required<ReadonlyMap<string, SpaceResult>>();
+  /** The project's results state: no verdict is shown unless it is `ready`. */
+  readonly resultsStatus = input.required<string>();
+  readonly method = input<ComplianceMethod>('space-by-space');
+  readonly units = input<UnitSystem>('ip');
+  readonly spaceTypes = input<readonly SpaceTypeView[]>([]);
+  readonly buildingAreaTypes = input<readonly BuildingAreaTypeView[]>([]);
+  readonly canEdit = input(false);
+
+  readonly edit = output<SpaceRecord>();
+  readonly duplicate = output<SpaceRecord>();
+  readonly remove = output<SpaceRecord>();
+
+  protected readonly rowHeight = spaceRowHeight;
+  protected readonly rows = computed(() => groupByLevel(this.spaces()));
+  protected readonly labels = computed(() => unitLabels(this.units()));
+  private readonly typeLabels = computed(() => {
+    const entries: [string, string][] =
+      this.method() === 'building-area' ? this.buildingAreaTypes().map((type) => [type.key, type.label]) : this.spaceTypes().map((type) => [type.key, type.label]);
+    return new Map(entries);
+  });
+
+  protected readonly trackRow = (_index: number, row: SpaceRow) => row.id;
+
+  protected typeLabel(space: SpaceRecord): string {
+    const key = this.method() === 'building-area' ? space.buildingAreaType : space.spaceType;
+    if (!key) return '—';
+    return this.typeLabels().get(key) ?? key;
+  }
+
+  protected area(value: string | number): string {
+    return formatArea(String(value), this.units()).replace(/ (ft²|m²)$/, '');
+  }
+
+  protected length(value: string | undefined): string {
+    return formatLength(value, this.units()).replace(/ (ft|m)$/, '');
+  }
+
+  protected dimensions(space: SpaceRecord): string {
+    if (!space.length || !space.width) return '—';
+    return `${this.length(space.length)} × ${this.length(space.width)}`;
+  }
+
+  protected watts(value: string | undefined): string {
+    return formatWatts(value).replace(/ W$/, '');
+  }
+
+  protected result(space: SpaceRecord): SpaceResult | undefined {
+    return this.results().get(space.id);
+  }
+
+  protected status(space: SpaceRecord): SpaceStatus {
+    return spaceStatus(this.results().get(space.id), this.resultsStatus());
+  }
+}
