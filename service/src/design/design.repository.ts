@@ -303,28 +303,40 @@ async function resolveTags(trx: Knex, projectId: string, inputs: { luminaires: S
   return byTag;
 }
 
-async function writeChildren(trx: Knex, spaceId: string, input: SpaceInput, typeIds: Map<string, string>): Promise<void> {
-  for (const table of ['space_luminaires', 'space_controls', 'space_windows', 'space_skylights']) {
+function childRows(spaceId: string, input: SpaceInput, typeIds: Map<string, string>) {
+  return {
+    luminaires: input.luminaires.map((group, position) => ({ space_id: spaceId, position, luminaire_type_id: typeIds.get(group.tag), count: Number(group.count), zone: group.zone ?? null })),
+    controls: input.controls.map((control) => ({
+      space_id: spaceId,
+      strategy: control.strategy,
+      provided: control.provided,
+      timeout_minutes: control.timeoutMinutes ?? null,
+      zone_size: (control as { zoneSize?: string }).zoneSize ?? null,
+      auto_on: control.autoOn ?? null,
+      device: control.device ?? null,
+      exception_reason: control.exceptionReason ?? null,
+      exception_note: control.exceptionNote ?? null,
+    })),
+    windows: input.windows.map((opening, position) => ({ space_id: spaceId, position, width: opening.width, head_height: opening.headHeight, sill_height: opening.sillHeight ?? null, wall: opening.wall, offset: opening.offset ?? null })),
+    skylights: input.skylights.map((skylight, position) => ({ space_id: spaceId, position, length: skylight.length, width: skylight.width, x: skylight.x ?? null, y: skylight.y ?? null })),
+  };
+}
+
+const childTables = { luminaires: 'space_luminaires', controls: 'space_controls', windows: 'space_windows', skylights: 'space_skylights' } as const;
+
+/** Inserts the children of many spaces in a few statements (the bulk import writes thousands). */
+async function insertChildren(trx: Knex.Transaction, rows: ReturnType<typeof childRows>[]): Promise<void> {
+  for (const [kind, table] of Object.entries(childTables) as [keyof typeof childTables, string][]) {
+    const all: Record<string, unknown>[] = rows.flatMap((row): Record<string, unknown>[] => row[kind]);
+    if (all.length > 0) await trx.batchInsert(table, all, 1000).transacting(trx);
+  }
+}
+
+async function writeChildren(trx: Knex.Transaction, spaceId: string, input: SpaceInput, typeIds: Map<string, string>): Promise<void> {
+  for (const table of Object.values(childTables)) {
     await trx(table).where({ space_id: spaceId }).delete();
   }
-  const luminaires = input.luminaires.map((group, position) => ({ space_id: spaceId, position, luminaire_type_id: typeIds.get(group.tag), count: Number(group.count), zone: group.zone ?? null }));
-  const controls = input.controls.map((control) => ({
-    space_id: spaceId,
-    strategy: control.strategy,
-    provided: control.provided,
-    timeout_minutes: control.timeoutMinutes ?? null,
-    zone_size: (control as { zoneSize?: string }).zoneSize ?? null,
-    auto_on: control.autoOn ?? null,
-    device: control.device ?? null,
-    exception_reason: control.exceptionReason ?? null,
-    exception_note: control.exceptionNote ?? null,
-  }));
-  const windows = input.windows.map((opening, position) => ({ space_id: spaceId, position, width: opening.width, head_height: opening.headHeight, sill_height: opening.sillHeight ?? null, wall: opening.wall, offset: opening.offset ?? null }));
-  const skylights = input.skylights.map((skylight, position) => ({ space_id: spaceId, position, length: skylight.length, width: skylight.width, x: skylight.x ?? null, y: skylight.y ?? null }));
-  if (luminaires.length) await trx('space_luminaires').insert(luminaires);
-  if (controls.length) await trx('space_controls').insert(controls);
-  if (windows.length) await trx('space_windows').insert(windows);
-  if (skylights.length) await trx('space_skylights').insert(skylights);
+  await insertChildren(trx, [childRows(spaceId, input, typeIds)]);
 }
 
 /** Creates spaces all together or not at all (the import's commit step uses this too). */
@@ -332,14 +344,18 @@ export async function createSpaces(db: Database, projectId: string, inputs: Spac
   return db.transaction(async (trx) => {
     const typeIds = await resolveTags(trx, projectId, inputs, (index) => (inputs.length === 1 ? '' : `spaces.${index}.`));
     const { max } = (await trx('spaces').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? { max: null };
-    let position = (max ?? -1) + 1;
+    const first = (max ?? -1) + 1;
     const ids: string[] = [];
-    for (const input of inputs) {
-      const [row] = await trx('spaces').insert({ project_id: projectId, position, ...spaceColumns(input), updated_by: userId }).returning<{ id: string }[]>('id');
-      position += 1;
-      await writeChildren(trx, row!.id, input, typeIds);
-      ids.push(row!.id);
+    const chunk = 500;
+    for (let start = 0; start < inputs.length; start += chunk) {
+      const batch = inputs.slice(start, start + chunk);
+      const inserted = await trx('spaces')
+        .insert(batch.map((input, offset) => ({ project_id: projectId, position: first + start + offset, ...spaceColumns(input), updated_by: userId })))
+        .returning<{ id: string; position: number }[]>(['id', 'position']);
+      inserted.sort((a, b) => a.position - b.position);
+      ids.push(...inserted.map((row) => row.id));
     }
+    await insertChildren(trx, inputs.map((input, index) => childRows(ids[index]!, input, typeIds)));
     await touchProject(trx, projectId);
     const rows: SpaceRow[] = await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position');
     return spaceRecords(trx, rows);

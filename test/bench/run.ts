@@ -1,0 +1,131 @@
+/**
+ * `npm run bench`: performance targets for the calculation and the design API, measured on a
+ * throwaway PostgreSQL cluster with a generated 5,000-space project. Prints each figure beside its
+ * target and exits non-zero when one is missed. Timings vary with the machine; targets are set
+ * for the 2-core machines the project runs on, with room to spare.
+ */
+import { randomBytes } from 'node:crypto';
+import { mkdtempSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { performance } from 'node:perf_hooks';
+import knex from 'knex';
+import { pino } from 'pino';
+import request from 'supertest';
+import { knexConfig } from '../../schema/knexfile.js';
+import { createApp } from '../../service/src/app.js';
+import { loadEditionData } from '../../service/src/code-tables/code-tables.repository.js';
+import { evaluate, validateDocument } from '../../service/src/compliance/index.js';
+import { loadConfig } from '../../service/src/config.js';
+import { createDatabase } from '../../service/src/db/database.js';
+import { createLuminaireType, createSpaces } from '../../service/src/design/design.repository.js';
+import { luminaireTypeInputSchema, spaceInputSchema } from '../../service/src/design/design.schema.js';
+import { projectDocument } from '../../service/src/design/project-document.js';
+import { freePort, startCluster } from '../../service/ops/postgres.mjs';
+
+interface Measure {
+  name: string;
+  targetMs: number;
+  run: () => Promise<unknown>;
+}
+
+const spaceCount = Number(process.env['BENCH_SPACES'] ?? 5000);
+const repeats = 5;
+
+const types = ['office-enclosed', 'office-open-plan', 'corridor-otherwise', 'storage-room', 'restroom-otherwise', 'library-in-a-reading-area', 'conference-meeting-multipurpose-room'];
+
+function generatedSpaces(count: number) {
+  return Array.from({ length: count }, (_, index) => {
+    const length = 10 + (index % 40);
+    const width = 10 + (index % 17);
+    return spaceInputSchema.parse({
+      name: `Room ${index + 1}`,
+      level: `Level ${1 + Math.floor(index / 250)}`,
+      spaceType: types[index % types.length],
+      area: String(length * width),
+      length: String(length),
+      width: String(width),
+      ceilingHeight: '9',
+      enclosed: index % 3 === 0,
+      luminaires: [{ tag: 'A', count: 1 + (index % 9), zone: index % 5 === 0 ? 'primary-sidelit' : undefined }, { tag: 'B', count: index % 4 }],
+      controls: [
+        { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial' },
+        { strategy: 'light-reduction', provided: true },
+      ],
+      windows: index % 5 === 0 ? [{ width: '6', headHeight: '8', sillHeight: '3', wall: 'south', offset: '2' }] : [],
+    });
+  });
+}
+
+async function median(measure: Measure): Promise<number> {
+  await measure.run();
+  const times: number[] = [];
+  for (let index = 0; index < repeats; index += 1) {
+    const start = performance.now();
+    await measure.run();
+    times.push(performance.now() - start);
+  }
+  times.sort((a, b) => a - b);
+  return times[Math.floor(times.length / 2)]!;
+}
+
+const baseDir = mkdtempSync(path.join(os.tmpdir(), 'allowlight-bench-pg-'));
+const cluster = startCluster({ baseDir, port: await freePort(), password: randomBytes(12).toString('base64url'), fsync: false });
+let failed = false;
+try {
+  const url = cluster.url('postgres');
+  process.env['DEMO_PASSWORD'] = 'bench-password';
+  const setup = knex(knexConfig(url));
+  await setup.migrate.latest();
+  await setup.seed.run();
+  await setup.destroy();
+
+  const db = createDatabase(url);
+  const config = loadConfig({ NODE_ENV: 'test', DATABASE_URL: url, JWT_SECRET: randomBytes(32).toString('hex'), LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '100' });
+  const app = createApp({ db, config, logger: pino({ level: 'silent' }) });
+  const engineer = await db('users').where({ email: 'engineer@alderbay.example' }).first<{ id: string }>('id');
+  const [project] = await db('projects')
+    .insert({ name: 'Generated campus', created_by: engineer.id, edition_id: 'iecc-2021', method: 'space-by-space', units: 'ip' })
+    .returning<{ id: string }[]>('id');
+  await db('project_members').insert({ project_id: project!.id, user_id: engineer.id, role: 'engineer' });
+  await createLuminaireType(db, project!.id, luminaireTypeInputSchema.parse({ tag: 'A', description: 'troffer', inputWatts: '30', use: 'general' }), engineer.id);
+  await createLuminaireType(db, project!.id, luminaireTypeInputSchema.parse({ tag: 'B', description: 'downlight', inputWatts: '12', use: 'general' }), engineer.id);
+  const created = performance.now();
+  await createSpaces(db, project!.id, generatedSpaces(spaceCount), engineer.id);
+  const importMs = performance.now() - created;
+
+  const agent = request.agent(app);
+  await agent.post('/api/auth/login').send({ email: 'engineer@alderbay.example', password: 'bench-password' });
+  const edition = (await loadEditionData(db, 'iecc-2021'))!;
+  const document = await projectDocument(db, project!.id);
+
+  const measures: Measure[] = [
+    { name: `validate + evaluate ${spaceCount} spaces (engine only)`, targetMs: 1500, run: async () => {
+      const outcome = validateDocument(document, edition);
+      if (!outcome.valid) throw new Error(JSON.stringify(outcome.problems.slice(0, 3)));
+      return evaluate(outcome.document, edition);
+    } },
+    { name: `GET /spaces with ${spaceCount} spaces`, targetMs: 1500, run: () => agent.get(`/api/projects/${project!.id}/spaces`).expect(200) },
+    { name: `GET /results with ${spaceCount} spaces`, targetMs: 3000, run: () => agent.get(`/api/projects/${project!.id}/results`).expect(200) },
+    { name: 'GET /results of the demo project', targetMs: 150, run: async () => {
+      const demo = await db('projects').where({ name: 'Alder Bay Library & Makerspace' }).first<{ id: string }>('id');
+      return agent.get(`/api/projects/${demo.id}/results`).expect(200);
+    } },
+  ];
+
+  const importOk = importMs <= 5000;
+  if (!importOk) failed = true;
+  const rows: string[] = [`${importOk ? 'ok  ' : 'MISS'} bulk import of ${spaceCount} spaces in one transaction: ${importMs.toFixed(0)} ms (target 5000 ms)`];
+  for (const measure of measures) {
+    const ms = await median(measure);
+    const ok = ms <= measure.targetMs;
+    if (!ok) failed = true;
+    rows.push(`${ok ? 'ok  ' : 'MISS'} ${measure.name}: median ${ms.toFixed(0)} ms of ${repeats} (target ${measure.targetMs} ms)`);
+  }
+  console.log(rows.join('\n'));
+  await db.destroy();
+} finally {
+  cluster.stop();
+  rmSync(baseDir, { recursive: true, force: true });
+}
+process.exit(failed ? 1 : 0);
