@@ -1,8 +1,194 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal, untracked } from '@angular/core';
+import { ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatListModule } from '@angular/material/list';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import { RouterLink } from '@angular/router';
+import type { Subscription } from 'rxjs';
+import type { DaylightResult, DaylightZoneKind, Skylight, SpaceRecord, WindowOpening } from '../../core/api/api-types';
+import { WriteFailure, fieldErrors } from '../../shared/conflict';
+import { areaFigure, wattsFigure } from '../../shared/figures';
+import { formatArea, formatLength, unitLabels } from '../../shared/format';
+import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
+import { ProjectStore } from '../workspace/project-store';
+import { WorkspaceApi } from '../workspace/workspace-api';
+import { DaylightPlan, zoneNames } from './daylight-plan';
+import { fieldMessage, openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
 
+/** Windows and skylights per space, the daylight zones they make, and whether daylight-responsive control is required. */
 @Component({
   selector: 'al-daylight-page',
-  template: '<h2>Daylight</h2>',
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatListModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSlideToggleModule,
+    MatTooltipModule,
+    RouterLink,
+    DaylightPlan,
+  ],
+  templateUrl: './daylight-page.html',
+  styleUrl: './daylight-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class DaylightPage {}
+export class DaylightPage implements HasUnsavedChanges {
+  protected readonly store = inject(ProjectStore);
+  private readonly api = inject(WorkspaceApi);
+  private readonly failure = inject(WriteFailure);
+
+  /** The space to open, from `?space=`. */
+  readonly space = input<string>();
+
+  protected readonly withOpeningsOnly = signal(false);
+  protected readonly saving = signal(false);
+  protected readonly serverErrors = signal<Record<string, string>>({});
+  protected readonly updating = computed(() => this.store.results().status !== 'ready');
+  protected readonly labels = computed(() => unitLabels(this.store.units()));
+  protected readonly figures = { watts: wattsFigure, area: areaFigure };
+  protected readonly format = { area: formatArea, length: formatLength };
+  protected readonly fieldMessage = fieldMessage;
+  protected readonly walls = ['north', 'east', 'south', 'west'] as const;
+
+  protected zoneCards(daylight: DaylightResult): { kind: DaylightZoneKind; name: string; area: string; watts: string; required: boolean; what: string }[] {
+    return [
+      { kind: 'primary-sidelit', name: zoneNames['primary-sidelit'], area: daylight.primarySidelitArea, watts: daylight.primarySidelitW, required: daylight.sidelightingControlRequired, what: 'Sidelighting control' },
+      { kind: 'secondary-sidelit', name: zoneNames['secondary-sidelit'], area: daylight.secondarySidelitArea, watts: daylight.secondarySidelitW, required: daylight.secondarySidelightingControlRequired, what: 'Separate secondary control' },
+      { kind: 'toplit', name: zoneNames.toplit, area: daylight.toplitArea, watts: daylight.toplitW, required: daylight.toplightingControlRequired, what: 'Toplighting control' },
+    ];
+  }
+
+  protected readonly rows = computed(() =>
+    this.store.spaces().map((space) => ({ space, openings: space.windows.length + space.skylights.length, result: this.store.resultBySpace().get(space.id) })),
+  );
+  protected readonly visibleRows = computed(() => (this.withOpeningsOnly() ? this.rows().filter((row) => row.openings > 0) : this.rows()));
+  protected readonly selectedId = linkedSignal(() => this.space() ?? (this.rows().find((row) => row.openings > 0) ?? this.rows()[0])?.space.id ?? null);
+  protected readonly selected = computed(() => this.rows().find((row) => row.space.id === this.selectedId()) ?? null);
+  /** The stored record only: changes when another space is chosen or this one is saved, not when results arrive. */
+  protected readonly selectedSpace = computed(() => this.store.spaces().find((space) => space.id === this.selectedId()) ?? null);
+  protected readonly room = computed<Room>(() => {
+    const space = this.selectedSpace();
+    const dimension = (text: string | undefined) => (text === undefined || text === '' ? null : Number(text));
+    return { length: dimension(space?.length), width: dimension(space?.width) };
+  });
+
+  protected form: OpeningsForm = openingsForm(() => this.room(), [], []);
+  /** Moves on every edit and every new form, so the plan and the buttons follow the form. */
+  private readonly formTick = signal(0);
+  private formChanges: Subscription | null = null;
+
+  /** What the plan draws: the openings being edited where they are valid, else the saved ones. */
+  protected readonly drawn = computed(() => {
+    this.formTick();
+    const space = this.selectedSpace();
+    if (!space) return { windows: [] as WindowOpening[], skylights: [] as Skylight[] };
+    if (!this.form.dirty) return { windows: space.windows, skylights: space.skylights };
+    const value = openingsValue(this.form);
+    return {
+      windows: value.windows.filter((_, index) => this.form.controls.windows.at(index).valid),
+      skylights: value.skylights.filter((_, index) => this.form.controls.skylights.at(index).valid),
+    };
+  });
+  protected readonly dirty = computed(() => {
+    this.formTick();
+    return this.form.dirty;
+  });
+
+  constructor() {
+    // A different space, or a fresh copy of this one from the service, starts the form again.
+    effect(() => {
+      const space = this.selectedSpace();
+      untracked(() => this.resetForm(space));
+    });
+  }
+
+  hasUnsavedChanges(): boolean {
+    return this.store.canEdit() && this.form.dirty;
+  }
+
+  protected select(spaceId: string): void {
+    if (this.form.dirty && !window.confirm('You have changes to the openings that are not saved. Discard them?')) return;
+    this.selectedId.set(spaceId);
+  }
+
+  protected addWindow(): void {
+    this.form.controls.windows.push(windowForm(() => this.room()));
+    this.form.markAsDirty();
+    this.formTick.update((tick) => tick + 1);
+  }
+
+  protected addSkylight(): void {
+    this.form.controls.skylights.push(skylightForm(() => this.room()));
+    this.form.markAsDirty();
+    this.formTick.update((tick) => tick + 1);
+  }
+
+  protected removeWindow(index: number): void {
+    this.form.controls.windows.removeAt(index);
+    this.form.markAsDirty();
+    this.formTick.update((tick) => tick + 1);
+  }
+
+  protected removeSkylight(index: number): void {
+    this.form.controls.skylights.removeAt(index);
+    this.form.markAsDirty();
+    this.formTick.update((tick) => tick + 1);
+  }
+
+  protected discard(): void {
+    this.resetForm(this.selectedSpace());
+  }
+
+  protected save(space: SpaceRecord): void {
+    this.form.markAllAsTouched();
+    if (this.form.invalid) return;
+    const projectId = this.store.projectId();
+    if (!projectId) return;
+    this.saving.set(true);
+    this.serverErrors.set({});
+    this.api.patchSpace(projectId, space.id, space.version, openingsValue(this.form)).subscribe({
+      next: (saved) => {
+        this.saving.set(false);
+        this.form.markAsPristine();
+        this.store.upsertSpace(saved);
+        this.formTick.update((tick) => tick + 1);
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        this.serverErrors.set(fieldErrors(error));
+        this.failure.report(error, () => this.reload(space.id));
+      },
+    });
+  }
+
+  private reload(spaceId: string): void {
+    const projectId = this.store.projectId();
+    if (!projectId) return;
+    this.api.spaces(projectId).subscribe((spaces) => {
+      const fresh = spaces.find((space) => space.id === spaceId);
+      if (fresh) {
+        this.form.markAsPristine();
+        this.store.upsertSpace(fresh);
+      }
+    });
+  }
+
+  private resetForm(space: SpaceRecord | null): void {
+    this.formChanges?.unsubscribe();
+    this.form = openingsForm(() => this.room(), space?.windows ?? [], space?.skylights ?? []);
+    this.formChanges = this.form.valueChanges.subscribe(() => this.formTick.update((tick) => tick + 1));
+    if (!this.store.canEdit()) this.form.disable();
+    this.serverErrors.set({});
+    this.formTick.update((tick) => tick + 1);
+  }
+}

@@ -1,0 +1,139 @@
+import { FormArray, FormControl, FormGroup, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
+import type { Skylight, Wall, WindowOpening } from '../../core/api/api-types';
+
+/** The service's decimal syntax (document.ts). */
+const decimalPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+export interface Room {
+  length: number | null;
+  width: number | null;
+}
+
+function decimal(bound: 'positive' | 'non-negative', optional: boolean): ValidatorFn {
+  return (control: AbstractControl<string>): ValidationErrors | null => {
+    const text = control.value.trim();
+    if (text === '') return optional ? null : { required: true };
+    if (!decimalPattern.test(text)) return { decimal: true };
+    const number = Number(text);
+    if (number < 0) return { negative: true };
+    if (bound === 'positive' && number === 0) return { positive: true };
+    return null;
+  };
+}
+
+const number = (text: string) => (text.trim() === '' ? null : Number(text));
+
+export type WindowForm = FormGroup<{
+  wall: FormControl<Wall>;
+  width: FormControl<string>;
+  headHeight: FormControl<string>;
+  sillHeight: FormControl<string>;
+  offset: FormControl<string>;
+}>;
+
+export type SkylightForm = FormGroup<{
+  length: FormControl<string>;
+  width: FormControl<string>;
+  x: FormControl<string>;
+  y: FormControl<string>;
+}>;
+
+export type OpeningsForm = FormGroup<{ windows: FormArray<WindowForm>; skylights: FormArray<SkylightForm> }>;
+
+/** The same geometry rules as the service: sill below head; each opening inside its wall or the ceiling. */
+function windowRules(room: () => Room): ValidatorFn {
+  return (group: AbstractControl): ValidationErrors | null => {
+    const value = (group as WindowForm).getRawValue();
+    const errors: ValidationErrors = {};
+    const head = number(value.headHeight);
+    const sill = number(value.sillHeight);
+    if (head !== null && sill !== null && sill >= head) errors['sillAboveHead'] = true;
+    const { length, width } = room();
+    const wallLength = value.wall === 'north' || value.wall === 'south' ? length : width;
+    const span = number(value.width);
+    if (wallLength !== null && span !== null) {
+      const end = (number(value.offset) ?? 0) + span;
+      if (end > wallLength) errors['pastWall'] = wallLength;
+    }
+    return Object.keys(errors).length ? errors : null;
+  };
+}
+
+function skylightRules(room: () => Room): ValidatorFn {
+  return (group: AbstractControl): ValidationErrors | null => {
+    const value = (group as SkylightForm).getRawValue();
+    const errors: ValidationErrors = {};
+    const { length, width } = room();
+    const along = number(value.length);
+    const across = number(value.width);
+    if (length !== null && along !== null && (number(value.x) ?? 0) + along > length) errors['pastLength'] = length;
+    if (width !== null && across !== null && (number(value.y) ?? 0) + across > width) errors['pastWidth'] = width;
+    return Object.keys(errors).length ? errors : null;
+  };
+}
+
+export function windowForm(room: () => Room, opening?: WindowOpening): WindowForm {
+  return new FormGroup(
+    {
+      wall: new FormControl<Wall>(opening?.wall ?? 'south', { nonNullable: true }),
+      width: new FormControl(opening?.width ?? '', { nonNullable: true, validators: [decimal('positive', false)] }),
+      headHeight: new FormControl(opening?.headHeight ?? '', { nonNullable: true, validators: [decimal('positive', false)] }),
+      sillHeight: new FormControl(opening?.sillHeight ?? '', { nonNullable: true, validators: [decimal('non-negative', true)] }),
+      offset: new FormControl(opening?.offset ?? '', { nonNullable: true, validators: [decimal('non-negative', true)] }),
+    },
+    { validators: [windowRules(room)] },
+  );
+}
+
+export function skylightForm(room: () => Room, skylight?: Skylight): SkylightForm {
+  return new FormGroup(
+    {
+      length: new FormControl(skylight?.length ?? '', { nonNullable: true, validators: [decimal('positive', false)] }),
+      width: new FormControl(skylight?.width ?? '', { nonNullable: true, validators: [decimal('positive', false)] }),
+      x: new FormControl(skylight?.x ?? '', { nonNullable: true, validators: [decimal('non-negative', true)] }),
+      y: new FormControl(skylight?.y ?? '', { nonNullable: true, validators: [decimal('non-negative', true)] }),
+    },
+    { validators: [skylightRules(room)] },
+  );
+}
+
+export function openingsForm(room: () => Room, windows: readonly WindowOpening[], skylights: readonly Skylight[]): OpeningsForm {
+  return new FormGroup({
+    windows: new FormArray(windows.map((opening) => windowForm(room, opening))),
+    skylights: new FormArray(skylights.map((skylight) => skylightForm(room, skylight))),
+  });
+}
+
+const optional = (text: string) => (text.trim() === '' ? undefined : text.trim());
+
+/** The wire shape, leaving out blank optional fields (the engine then centres the opening). */
+export function openingsValue(form: OpeningsForm): { windows: WindowOpening[]; skylights: Skylight[] } {
+  const { windows, skylights } = form.getRawValue();
+  return {
+    windows: windows.map((opening) => {
+      const entry: WindowOpening = { wall: opening.wall, width: opening.width.trim(), headHeight: opening.headHeight.trim() };
+      const sill = optional(opening.sillHeight);
+      const offset = optional(opening.offset);
+      if (sill !== undefined) entry.sillHeight = sill;
+      if (offset !== undefined) entry.offset = offset;
+      return entry;
+    }),
+    skylights: skylights.map((skylight) => {
+      const entry: Skylight = { length: skylight.length.trim(), width: skylight.width.trim() };
+      const x = optional(skylight.x);
+      const y = optional(skylight.y);
+      if (x !== undefined) entry.x = x;
+      if (y !== undefined) entry.y = y;
+      return entry;
+    }),
+  };
+}
+
+/** A field's message, beside it, in the service's words where the service has them. */
+export function fieldMessage(control: AbstractControl): string | null {
+  if (control.hasError('required')) return 'Required.';
+  if (control.hasError('decimal')) return 'Enter a number.';
+  if (control.hasError('negative')) return 'Must not be negative.';
+  if (control.hasError('positive')) return 'Must be greater than zero.';
+  return null;
+}
