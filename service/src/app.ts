@@ -15,6 +15,7 @@ import { readSession, requireSignIn } from './http/session.js';
 import { projectsRouter } from './projects/projects.routes.js';
 import { designRouter } from './design/design.routes.js';
 import { evaluateRouter, openApiRouter, projectResultsRouter } from './evaluation/evaluation.routes.js';
+import { teamRouter } from './team/team.routes.js';
 
 export interface AppDeps {
   db: Database;
@@ -66,6 +67,7 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
   api.use('/projects', projectsRouter(db));
   api.use('/projects/:projectId', designRouter(db));
   api.use('/projects/:projectId', projectResultsRouter(db));
+  api.use('/projects/:projectId', teamRouter(db));
   api.use('/evaluate', evaluateRouter(db));
   api.use('/openapi.json', openApiRouter());
   api.use(notFoundHandler);

@@ -14,7 +14,7 @@ const allowedRoles: Record<ProjectAction, readonly ProjectRole[]> = {
   review: ['reviewer'],
   export: ['engineer', 'reviewer', 'contractor'],
   'record-field-tests': ['contractor'],
-  'manage-team': [],
+  'manage-team': ['engineer'],
 };
 
 export function roleMay(role: ProjectRole | null, isAdmin: boolean, action: ProjectAction): boolean {

@@ -1,0 +1,31 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { Database } from '../db/database.js';
+import { requireProjectAction } from '../http/project-access.js';
+import { currentSession } from '../http/session.js';
+import { parse } from '../http/validate.js';
+import { listMembers, removeMember, setMember } from './team.repository.js';
+
+const memberSchema = z.object({
+  email: z.string().trim().email('Enter a valid e-mail address.'),
+  role: z.enum(['engineer', 'reviewer', 'contractor']),
+});
+
+/** A project's team, under /api/projects/:projectId/members. Members read; engineers and administrators change it. */
+export function teamRouter(db: Database): Router {
+  const router = Router({ mergeParams: true });
+  const read = requireProjectAction(db, 'read');
+  const manage = requireProjectAction(db, 'manage-team');
+
+  router.get('/members', read, async (req, res) => {
+    res.json(await listMembers(db, req.projectAccess!.projectId));
+  });
+  router.post('/members', manage, async (req, res) => {
+    const { email, role } = parse(memberSchema, req.body);
+    res.json(await setMember(db, req.projectAccess!.projectId, email, role, currentSession(req).user.id));
+  });
+  router.delete('/members/:userId', manage, async (req, res) => {
+    res.json(await removeMember(db, req.projectAccess!.projectId, String(req.params['userId']), currentSession(req).user.id));
+  });
+  return router;
+}
