@@ -56,6 +56,23 @@ interface DemoSpace {
 const l1 = 'Level 1';
 const l2 = 'Level 2';
 
+/** An enclosed staff office on level 2 with one east window; the luminaires nearest it are in the primary sidelit zone. */
+function office(name: string, length: string, width: string, sidelitLuminaires: number, windowWidth: string): DemoSpace {
+  return {
+    name,
+    level: l2,
+    spaceType: 'office-enclosed',
+    area: String(Number(length) * Number(width)),
+    length,
+    width,
+    ceilingHeight: '9',
+    enclosed: true,
+    luminaires: [{ tag: 'B', count: sidelitLuminaires, zone: 'primary-sidelit' }, { tag: 'B', count: 2 }],
+    controls: [sensor('manual'), dimming],
+    windows: [{ width: windowWidth, headHeight: '7.5', sillHeight: '3', wall: 'east', offset: '2' }],
+  };
+}
+
 export const demoSpaces: DemoSpace[] = [
   { name: '101 Entry lobby', level: l1, spaceType: 'lobby-otherwise', area: '600', length: '30', width: '20', ceilingHeight: '12', luminaires: [{ tag: 'D', count: 24 }, { tag: 'X', count: 2 }], controls: [timeSwitch, dimming] },
   {
@@ -118,45 +135,9 @@ export const demoSpaces: DemoSpace[] = [
     windows: [{ width: '16', headHeight: '9', sillHeight: '3', wall: 'north', offset: '8' }, { width: '16', headHeight: '9', sillHeight: '3', wall: 'north', offset: '28' }],
   },
   { name: '202 Tool storage', level: l2, spaceType: 'storage-room', area: '200', ceilingHeight: '10', enclosed: true, luminaires: [{ tag: 'E', count: 3 }], controls: [sensor('manual')] },
-  {
-    name: '203 Office',
-    level: l2,
-    spaceType: 'office-enclosed',
-    area: '150',
-    length: '15',
-    width: '10',
-    ceilingHeight: '9',
-    enclosed: true,
-    luminaires: [{ tag: 'B', count: 2, zone: 'primary-sidelit' }, { tag: 'B', count: 2 }],
-    controls: [sensor('manual'), dimming],
-    windows: [{ width: '6', headHeight: '7.5', sillHeight: '3', wall: 'east', offset: '2' }],
-  },
-  {
-    name: '204 Office',
-    level: l2,
-    spaceType: 'office-enclosed',
-    area: '150',
-    length: '15',
-    width: '10',
-    ceilingHeight: '9',
-    enclosed: true,
-    luminaires: [{ tag: 'B', count: 2, zone: 'primary-sidelit' }, { tag: 'B', count: 2 }],
-    controls: [sensor('manual'), dimming],
-    windows: [{ width: '6', headHeight: '7.5', sillHeight: '3', wall: 'east', offset: '2' }],
-  },
-  {
-    name: '205 Office, branch manager',
-    level: l2,
-    spaceType: 'office-enclosed',
-    area: '180',
-    length: '15',
-    width: '12',
-    ceilingHeight: '9',
-    enclosed: true,
-    luminaires: [{ tag: 'B', count: 3, zone: 'primary-sidelit' }, { tag: 'B', count: 2 }],
-    controls: [sensor('manual'), dimming],
-    windows: [{ width: '8', headHeight: '7.5', sillHeight: '3', wall: 'east', offset: '2' }],
-  },
+  office('203 Office', '15', '10', 2, '6'),
+  office('204 Office', '15', '10', 2, '6'),
+  office('205 Office, branch manager', '15', '12', 3, '8'),
   {
     name: '206 Staff workroom',
     level: l2,
