@@ -1,8 +1,146 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
+import { MatTableModule } from '@angular/material/table';
+import { MatTabsModule } from '@angular/material/tabs';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import { catchError, concatMap, EMPTY, groupBy, mergeMap, Subject, tap } from 'rxjs';
+import type { LuminaireGroup, LuminaireTypeRecord, SpaceRecord } from '../../core/api/api-types';
+import { WriteFailure } from '../../shared/conflict';
+import { formatLength, formatWatts } from '../../shared/format';
+import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
+import { ProjectStore } from '../workspace/project-store';
+import { WorkspaceApi } from '../workspace/workspace-api';
+import { CountGrid, type CountEdit } from './count-grid';
+import { groupsOf, withCount } from './luminaire-counts';
+import { LuminaireTypeEditor, type LuminaireTypeEditorData } from './luminaire-type-editor';
+import { basisLabels, useLabels } from './luminaire-type-form';
+import { SpaceCounts } from './space-counts';
+
+interface CountWrite {
+  spaceId: string;
+  groups: (space: SpaceRecord) => LuminaireGroup[];
+}
 
 @Component({
   selector: 'al-luminaires-page',
-  template: '<h2>Luminaires</h2>',
+  imports: [MatButtonModule, MatIconModule, MatTableModule, MatTabsModule, MatTooltipModule, CountGrid, SpaceCounts],
+  templateUrl: './luminaires-page.html',
+  styleUrl: './luminaires-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class LuminairesPage {}
+export class LuminairesPage implements HasUnsavedChanges {
+  protected readonly store = inject(ProjectStore);
+  private readonly api = inject(WorkspaceApi);
+  private readonly dialogs = inject(MatDialog);
+  private readonly writeFailure = inject(WriteFailure);
+  private readonly writes = new Subject<CountWrite>();
+
+  protected readonly columns = computed(() => ['tag', 'description', 'inputWatts', 'use', 'basis', 'wattageSource', 'cutSheet', ...(this.store.canEdit() ? ['actions'] : [])]);
+  protected readonly useLabels = useLabels;
+  protected readonly basisLabels = basisLabels;
+  protected readonly formatWatts = formatWatts;
+  protected readonly saving = signal<ReadonlySet<string>>(new Set());
+  protected readonly selectedId = signal<string | null>(null);
+  protected readonly selected = computed(() => this.store.spaces().find((space) => space.id === this.selectedId()) ?? null);
+  private readonly openPanel = viewChild(SpaceCounts);
+
+  constructor() {
+    // Writes to one space go one after another, each with the version the previous one returned.
+    this.writes
+      .pipe(
+        groupBy((write) => write.spaceId),
+        mergeMap((perSpace) => perSpace.pipe(concatMap((write) => this.write(write)))),
+        takeUntilDestroyed(),
+      )
+      .subscribe();
+  }
+
+  hasUnsavedChanges(): boolean {
+    return this.dialogs.openDialogs.some((dialog) => (dialog.componentInstance as Partial<HasUnsavedChanges>).hasUnsavedChanges?.() ?? false) || (this.openPanel()?.hasUnsavedChanges() ?? false);
+  }
+
+  protected basisText(type: LuminaireTypeRecord): string {
+    const parts: string[] = [basisLabels[type.basis].replace(/ \(.*\)$/, '')];
+    if (type.length) parts.push(formatLength(type.length, this.store.units()));
+    if (type.limitWatts) parts.push(`limit ${formatWatts(type.limitWatts)}`);
+    return parts.join(' · ');
+  }
+
+  protected useText(type: LuminaireTypeRecord): string {
+    return useLabels[type.use];
+  }
+
+  protected editType(type: LuminaireTypeRecord | null): void {
+    const projectId = this.store.projectId();
+    if (!projectId) return;
+    const data: LuminaireTypeEditorData = { projectId, type, units: this.store.units(), reload: () => this.reloadTypes() };
+    this.dialogs
+      .open<LuminaireTypeEditor, LuminaireTypeEditorData, LuminaireTypeRecord>(LuminaireTypeEditor, { data, width: '680px', maxWidth: '96vw' })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (!saved) return;
+        this.store.upsertLuminaireType(saved);
+        if (type && type.tag !== saved.tag) this.reloadSpaces();
+      });
+  }
+
+  protected deleteType(type: LuminaireTypeRecord): void {
+    const projectId = this.store.projectId();
+    if (!projectId || !window.confirm(`Delete luminaire type ${type.tag}?`)) return;
+    this.api.deleteLuminaireType(projectId, type.id, type.version).subscribe({
+      next: () => this.store.removeLuminaireType(type.id),
+      error: (error: unknown) => this.writeFailure.report(error, () => this.reloadTypes()),
+    });
+  }
+
+  protected changeCount(edit: CountEdit): void {
+    this.writes.next({ spaceId: edit.space.id, groups: (space) => withCount(groupsOf(space), edit.tag, edit.count) });
+  }
+
+  protected saveGroups(space: SpaceRecord, groups: LuminaireGroup[]): void {
+    this.writes.next({ spaceId: space.id, groups: () => groups });
+  }
+
+  private write(write: CountWrite) {
+    const projectId = this.store.projectId();
+    const space = this.store.spaces().find((candidate) => candidate.id === write.spaceId);
+    if (!projectId || !space) return EMPTY;
+    this.saving.update((ids) => new Set(ids).add(space.id));
+    const done = () =>
+      this.saving.update((ids) => {
+        const next = new Set(ids);
+        next.delete(space.id);
+        return next;
+      });
+    return this.api.patchSpace(projectId, space.id, space.version, { luminaires: write.groups(space) }).pipe(
+      tap((saved) => {
+        done();
+        this.store.upsertSpace(saved);
+      }),
+      catchError((error: unknown) => {
+        done();
+        this.writeFailure.report(error, () => this.reloadSpaces());
+        // The grid shows the stored counts again rather than the refused edit.
+        this.store.spaces.update((spaces) => [...spaces]);
+        return EMPTY;
+      }),
+    );
+  }
+
+  private reloadTypes(): void {
+    const projectId = this.store.projectId();
+    if (projectId) this.api.luminaireTypes(projectId).subscribe((types) => this.store.luminaireTypes.set(types));
+  }
+
+  private reloadSpaces(): void {
+    const projectId = this.store.projectId();
+    if (!projectId) return;
+    this.api.spaces(projectId).subscribe((spaces) => {
+      this.store.spaces.set(spaces);
+      this.store.refreshResults();
+    });
+  }
+}

@@ -1,0 +1,117 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import type { Observable } from 'rxjs';
+import type { LuminaireTypeRecord, UnitSystem } from '../../core/api/api-types';
+import { ApiError } from '../../core/http/api-error';
+import { fieldErrors, WriteFailure } from '../../shared/conflict';
+import { unitLabels } from '../../shared/format';
+import { fieldMessage } from '../spaces/space-form';
+import { WorkspaceApi } from '../workspace/workspace-api';
+import { basisLabels, fillLuminaireType, luminaireTypeForm, luminaireTypeFromForm, useLabels } from './luminaire-type-form';
+
+export interface LuminaireTypeEditorData {
+  projectId: string;
+  type: LuminaireTypeRecord | null;
+  units: UnitSystem;
+  reload: () => void;
+}
+
+@Component({
+  selector: 'al-luminaire-type-editor',
+  imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule],
+  templateUrl: './luminaire-type-editor.html',
+  styles: `
+    .fields { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 4px 16px; padding-top: 8px !important; }
+    .wide { grid-column: 1 / -1; }
+    .failure { display: flex; align-items: center; gap: 8px; color: var(--mat-sys-error); }
+    .note { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class LuminaireTypeEditor {
+  protected readonly data = inject<LuminaireTypeEditorData>(MAT_DIALOG_DATA);
+  private readonly dialog = inject<MatDialogRef<LuminaireTypeEditor, LuminaireTypeRecord>>(MatDialogRef);
+  private readonly api = inject(WorkspaceApi);
+  private readonly writeFailure = inject(WriteFailure);
+  protected readonly form = luminaireTypeForm();
+  protected readonly labels = unitLabels(this.data.units);
+  protected readonly useLabels = useLabels;
+  protected readonly basisLabels = basisLabels;
+  protected readonly uses = Object.keys(useLabels) as (keyof typeof useLabels)[];
+  protected readonly bases = Object.keys(basisLabels) as (keyof typeof basisLabels)[];
+  protected readonly fieldMessage = fieldMessage;
+  protected readonly saving = signal(false);
+  protected readonly failure = signal<string | null>(null);
+  protected readonly use = toSignal(this.form.controls.use.valueChanges, { initialValue: this.form.controls.use.value });
+  protected readonly basis = toSignal(this.form.controls.basis.valueChanges, { initialValue: this.form.controls.basis.value });
+
+  constructor() {
+    if (this.data.type) fillLuminaireType(this.form, this.data.type);
+    this.dialog.disableClose = true;
+    this.dialog.backdropClick().subscribe(() => this.cancel());
+    this.dialog.keydownEvents().subscribe((event) => {
+      if (event.key === 'Escape') this.cancel();
+    });
+  }
+
+  hasUnsavedChanges(): boolean {
+    return this.form.dirty;
+  }
+
+  protected cancel(): void {
+    if (!this.form.dirty || window.confirm('Discard the changes to this luminaire type?')) this.dialog.close();
+  }
+
+  protected save(): void {
+    this.form.updateValueAndValidity();
+    const invalid = Object.values(this.form.controls).some((control) => control.invalid);
+    if (invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const { projectId, type } = this.data;
+    const body = luminaireTypeFromForm(this.form);
+    const request: Observable<LuminaireTypeRecord> = type ? this.api.replaceLuminaireType(projectId, type.id, type.version, body) : this.api.createLuminaireType(projectId, body);
+    this.saving.set(true);
+    this.failure.set(null);
+    request.subscribe({
+      next: (saved) => {
+        this.form.markAsPristine();
+        this.dialog.close(saved);
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        if (error instanceof ApiError && error.status === 400) {
+          const unplaced: string[] = [];
+          for (const [path, message] of Object.entries(fieldErrors(error))) {
+            const control = this.form.get(path);
+            if (control) {
+              control.setErrors({ server: message });
+              control.markAsTouched();
+            } else unplaced.push(message);
+          }
+          this.failure.set(unplaced.length ? unplaced.join(' ') : null);
+          return;
+        }
+        // A duplicate tag is a 409 with the tag path: that belongs beside the field, not in a reload offer.
+        if (error instanceof ApiError && error.status === 409 && error.details.some((detail) => detail.path === 'tag')) {
+          this.form.controls.tag.setErrors({ server: error.message });
+          this.form.controls.tag.markAsTouched();
+          return;
+        }
+        this.writeFailure.report(error, () => {
+          this.dialog.close();
+          this.data.reload();
+        });
+      },
+    });
+  }
+}
