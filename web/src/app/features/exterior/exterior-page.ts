@@ -1,8 +1,127 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
+import { NgTemplateOutlet } from '@angular/common';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import type { ControlLine, ExteriorApplicationInput, ExteriorApplicationRecord } from '../../core/api/api-types';
+import { CautionsBanner, defaultCautions } from '../../shared/cautions-banner';
+import { WriteFailure } from '../../shared/conflict';
+import { quantityFigure, wattsFigure } from '../../shared/figures';
+import { VerifyBadge } from '../../shared/verify-badge';
+import { statusView } from '../controls/control-status';
+import { ProjectStore } from '../workspace/project-store';
+import { WorkspaceApi } from '../workspace/workspace-api';
+import { ExteriorApplicationForm } from './exterior-application-form';
+import { exteriorGroups, quantityUnit } from './exterior-groups';
 
+/** The site's lighting zone, its lighted applications, and the exterior allowance: tradable pooled, nontradable each alone. */
 @Component({
   selector: 'al-exterior-page',
-  template: '<h2>Exterior</h2>',
+  imports: [NgTemplateOutlet, FormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, MatTooltipModule, CautionsBanner, VerifyBadge, ExteriorApplicationForm],
+  templateUrl: './exterior-page.html',
+  styleUrl: './exterior-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ExteriorPage {}
+export class ExteriorPage {
+  protected readonly store = inject(ProjectStore);
+  private readonly api = inject(WorkspaceApi);
+  private readonly failure = inject(WriteFailure);
+
+  protected readonly figures = { watts: wattsFigure, quantity: quantityFigure };
+  protected readonly statusView = statusView;
+  protected readonly quantityUnit = quantityUnit;
+  protected readonly saving = signal(false);
+  /** 'new', an application's id, or null when no form is open. */
+  protected readonly editing = signal<string | null>(null);
+
+  protected readonly updating = computed(() => this.store.results().status !== 'ready');
+  protected readonly result = computed(() => {
+    const state = this.store.results();
+    return state.status === 'ready' ? state.result : state.status === 'updating' ? state.previous : null;
+  });
+  protected readonly cautions = computed(() => this.result()?.cautions ?? defaultCautions);
+  protected readonly groups = computed(() => {
+    const exterior = this.result()?.exterior;
+    return exterior ? exteriorGroups(exterior, this.store.exterior()) : null;
+  });
+  protected readonly zones = computed(() => this.store.tables()?.lightingZones ?? []);
+  protected readonly zone = linkedSignal(() => this.store.project()?.lightingZone ?? null);
+  protected readonly currentZone = computed(() => this.zones().find((zone) => Number(zone.zone) === this.store.project()?.lightingZone) ?? null);
+  protected readonly catalogue = computed(() => this.store.tables()?.exteriorApplications ?? []);
+  protected readonly usedKeys = computed(() => this.store.exterior().map((application) => application.key));
+  /** Applications saved but not in the result shown (a result is being recomputed). */
+  protected readonly pending = computed(() => {
+    const shown = new Set((this.result()?.exterior?.applications ?? []).map((application) => application.key));
+    return this.store.exterior().filter((application) => !shown.has(application.key));
+  });
+
+  protected controlSummary(lines: readonly ControlLine[]): ControlLine[] {
+    return lines.filter((line) => line.status !== 'not-required');
+  }
+
+  protected saveZone(): void {
+    const project = this.store.project();
+    const zone = this.zone();
+    if (!project || zone === null || zone === project.lightingZone) return;
+    this.saving.set(true);
+    this.api.updateSetup(project.id, project.version, { lightingZone: zone }).subscribe({
+      next: (saved) => {
+        this.saving.set(false);
+        this.store.setProject(saved);
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        this.failure.report(error, () => this.api.project(project.id).subscribe((fresh) => this.store.setProject(fresh)));
+      },
+    });
+  }
+
+  protected saveApplication(application: ExteriorApplicationInput, record: ExteriorApplicationRecord | null): void {
+    const projectId = this.store.projectId();
+    if (!projectId) return;
+    this.saving.set(true);
+    const request = record
+      ? this.api.replaceExteriorApplication(projectId, record.id, record.version, application)
+      : this.api.createExteriorApplication(projectId, application);
+    request.subscribe({
+      next: (saved) => {
+        this.saving.set(false);
+        this.editing.set(null);
+        this.store.upsertExterior(saved);
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        this.failure.report(error, () => this.reload());
+      },
+    });
+  }
+
+  protected remove(record: ExteriorApplicationRecord): void {
+    const projectId = this.store.projectId();
+    if (!projectId || !window.confirm(`Remove this exterior application${record.description ? ` (${record.description})` : ''}?`)) return;
+    this.saving.set(true);
+    this.api.deleteExteriorApplication(projectId, record.id, record.version).subscribe({
+      next: () => {
+        this.saving.set(false);
+        this.store.removeExterior(record.id);
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        this.failure.report(error, () => this.reload());
+      },
+    });
+  }
+
+  private reload(): void {
+    const projectId = this.store.projectId();
+    if (!projectId) return;
+    this.api.exteriorApplications(projectId).subscribe((applications) => {
+      this.store.exterior.set(applications);
+      this.store.refreshResults();
+    });
+  }
+}

@@ -1,0 +1,115 @@
+import { ChangeDetectionStrategy, Component, computed, input, output, type OnInit } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { startWith } from 'rxjs';
+import type { ExteriorApplicationInput, ExteriorApplicationRecord, ExteriorApplicationView, ProvidedControl, UnitSystem } from '../../core/api/api-types';
+import { quantityUnit } from './exterior-groups';
+
+export const exteriorControls = [
+  { strategy: 'exterior-daylight-off', label: 'Off in daylight', hint: 'Photosensor or astronomical time switch' },
+  { strategy: 'exterior-setback', label: 'Night setback', hint: 'Reduced late at night or after no activity' },
+  { strategy: 'exterior-facade-landscape-off', label: 'Facade and landscape off', hint: 'Off through the late-night hours' },
+] as const;
+
+const decimalPattern = /^(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+function nonNegative(control: AbstractControl<string>): ValidationErrors | null {
+  const text = control.value.trim();
+  if (text === '') return { required: true };
+  if (text.startsWith('-')) return { negative: true };
+  return decimalPattern.test(text) ? null : { decimal: true };
+}
+
+function controlGroup(current: ProvidedControl | undefined) {
+  return new FormGroup({
+    provided: new FormControl(current?.provided ?? false, { nonNullable: true }),
+    device: new FormControl(current?.device ?? '', { nonNullable: true }),
+  });
+}
+
+/** Add or change one lighted exterior application: which one (from the edition's catalogue), how much of it, its installed watts and controls. */
+@Component({
+  selector: 'al-exterior-application-form',
+  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule],
+  templateUrl: './exterior-application-form.html',
+  styleUrl: './exterior-application-form.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ExteriorApplicationForm implements OnInit {
+  readonly catalogue = input.required<readonly ExteriorApplicationView[]>();
+  readonly record = input<ExteriorApplicationRecord | null>(null);
+  /** Keys already used by other applications of the project (each is listed once). */
+  readonly usedKeys = input<readonly string[]>([]);
+  readonly units = input<UnitSystem>('ip');
+  readonly lightingZone = input<number | null>(null);
+  readonly saving = input(false);
+  readonly save = output<ExteriorApplicationInput>();
+  readonly cancelled = output<void>();
+
+  protected readonly form = new FormGroup({
+    key: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
+    description: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(500)] }),
+    quantity: new FormControl('', { nonNullable: true, validators: [nonNegative] }),
+    installedWatts: new FormControl('', { nonNullable: true, validators: [nonNegative] }),
+    controls: new FormGroup({
+      'exterior-daylight-off': controlGroup(undefined),
+      'exterior-setback': controlGroup(undefined),
+      'exterior-facade-landscape-off': controlGroup(undefined),
+    }),
+  });
+  protected readonly exteriorControls = exteriorControls;
+  private readonly key = toSignal(this.form.controls.key.valueChanges.pipe(startWith('')), { initialValue: '' });
+
+  protected readonly choices = computed(() => {
+    const used = new Set(this.usedKeys());
+    const own = this.record()?.key;
+    return this.catalogue().filter((entry) => !entry.isBaseSiteAllowance && (!used.has(entry.key) || entry.key === own));
+  });
+  protected readonly chosen = computed(() => this.catalogue().find((entry) => entry.key === (this.key() || this.record()?.key)) ?? null);
+  protected readonly unit = computed(() => {
+    const chosen = this.chosen();
+    return chosen ? quantityUnit(chosen.unit, this.units()) : 'quantity';
+  });
+  protected readonly rate = computed(() => {
+    const chosen = this.chosen();
+    const zone = this.lightingZone();
+    return chosen && zone !== null ? `${chosen.allowanceByZone[String(zone)] ?? '—'} ${chosen.unit.replace('ft2', 'ft²')} in zone ${zone}` : null;
+  });
+
+  ngOnInit(): void {
+    const record = this.record();
+    if (!record) return;
+    this.form.patchValue({ key: record.key, description: record.description, quantity: record.quantity, installedWatts: record.installedWatts });
+    for (const { strategy } of exteriorControls) {
+      const current = record.controls.find((control) => control.strategy === strategy);
+      this.form.controls.controls.controls[strategy].setValue({ provided: current?.provided ?? false, device: current?.device ?? '' });
+    }
+  }
+
+  protected submit(): void {
+    this.form.markAllAsTouched();
+    if (this.form.invalid) return;
+    const value = this.form.getRawValue();
+    const kept = (this.record()?.controls ?? []).filter((control) => !exteriorControls.some((known) => known.strategy === control.strategy));
+    const controls: ProvidedControl[] = [
+      ...kept,
+      ...exteriorControls
+        .map(({ strategy }) => ({ strategy, ...value.controls[strategy] }))
+        .filter((control) => control.provided)
+        .map((control) => (control.device.trim() ? { strategy: control.strategy, provided: true, device: control.device.trim() } : { strategy: control.strategy, provided: true })),
+    ];
+    this.save.emit({ key: value.key, description: value.description.trim(), quantity: value.quantity.trim(), installedWatts: value.installedWatts.trim(), controls });
+  }
+
+  protected message(control: AbstractControl): string {
+    if (control.hasError('required')) return 'Required.';
+    if (control.hasError('negative')) return 'Must not be negative.';
+    if (control.hasError('decimal')) return 'Enter a number.';
+    return '';
+  }
+}

@@ -1,0 +1,77 @@
+import type { ExteriorApplicationRecord, ExteriorApplicationResult, ExteriorResult } from '../../core/api/api-types';
+import { allowanceStatus, type AllowanceStatus } from '../../shared/allowance-status';
+
+export interface ExteriorLine {
+  record: ExteriorApplicationRecord | null;
+  result: ExteriorApplicationResult;
+  marginW: string;
+  /** Null for a tradable application: it has no status of its own, only the pool's. */
+  status: AllowanceStatus | null;
+}
+
+export interface ExteriorGroups {
+  /** Tradable applications share one pool, with the base site allowance behind it. */
+  tradable: { lines: ExteriorLine[]; allowanceW: string; installedW: string; marginW: string; baseSiteUsedW: string; status: AllowanceStatus };
+  /** Each nontradable application stands on its own allowance (and the base site allowance where the edition lets it). */
+  nontradable: ExteriorLine[];
+  baseSite: { allowanceW: string; remainingW: string; coversNontradable: boolean };
+  total: { allowanceW: string; installedW: string; marginW: string; status: AllowanceStatus };
+}
+
+/** Display arithmetic only, on the engine's exact strings; nothing computed here is sent back. */
+const minus = (a: string, b: string) => String(Number(a) - Number(b));
+
+export function exteriorGroups(exterior: ExteriorResult, records: readonly ExteriorApplicationRecord[]): ExteriorGroups {
+  const byKey = new Map(records.map((record) => [record.key, record]));
+  const line = (result: ExteriorApplicationResult): ExteriorLine => {
+    const covered = String(Number(result.allowanceW) + Number(result.baseSiteUsedW) - Number(result.installedW));
+    return {
+      record: byKey.get(result.key) ?? null,
+      result,
+      marginW: minus(result.allowanceW, result.installedW),
+      status: result.tradable ? null : allowanceStatus(result.withinAllowance, covered),
+    };
+  };
+  const tradableLines = exterior.applications.filter((application) => application.tradable).map(line);
+  const poolMargin = minus(exterior.tradable.allowanceW, exterior.tradable.installedW);
+  // The pool is within allowance when the base site allowance covers any excess, so its status margin counts the base used.
+  const poolStatusMargin = String(Number(poolMargin) + Number(exterior.tradable.baseSiteUsedW));
+  const totalMargin = minus(exterior.allowanceW, exterior.installedW);
+  return {
+    tradable: {
+      lines: tradableLines,
+      allowanceW: exterior.tradable.allowanceW,
+      installedW: exterior.tradable.installedW,
+      marginW: poolMargin,
+      baseSiteUsedW: exterior.tradable.baseSiteUsedW,
+      status: allowanceStatus(exterior.tradable.complies, poolStatusMargin),
+    },
+    nontradable: exterior.applications.filter((application) => !application.tradable).map(line),
+    baseSite: { allowanceW: exterior.baseSiteAllowanceW, remainingW: exterior.baseSiteRemainingW, coversNontradable: exterior.baseSiteCoversNontradable },
+    total: { allowanceW: exterior.allowanceW, installedW: exterior.installedW, marginW: totalMargin, status: allowanceStatus(exterior.complies, totalMargin) },
+  };
+}
+
+/** What a quantity counts, from the catalogue's rate unit. */
+export function quantityUnit(rateUnit: string, units: 'ip' | 'si'): string {
+  const ip = units === 'ip';
+  switch (rateUnit) {
+    case 'W/ft2':
+    case 'W/ft²':
+    case 'W/m²':
+      return ip ? 'ft²' : 'm²';
+    case 'W/ft':
+    case 'W/m':
+      return ip ? 'linear ft' : 'm';
+    case 'W/location':
+      return 'locations';
+    case 'W/door':
+      return 'doors';
+    case 'W/device':
+      return 'devices';
+    case 'W/window':
+      return 'windows';
+    default:
+      return 'count';
+  }
+}
