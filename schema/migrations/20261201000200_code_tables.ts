@@ -65,7 +65,6 @@ export async function up(knex: Knex): Promise<void> {
     table.boolean('iecc_full_auto_on_allowed');
     table.text('iecc_full_auto_on_item');
     table.text('iecc_sensor_function');
-    table.text('iecc_light_reduction_exempt_item');
     table.text('iecc_note');
     provenance(table);
     table.primary(['edition_id', 'data_version', 'key']);

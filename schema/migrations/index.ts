@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import * as usersProjectsAudit from './20261201000100_users_projects_audit.js';
 import * as codeTables from './20261201000200_code_tables.js';
 import * as projectDesign from './20261201000300_project_design.js';
+import * as lightReductionExemptions from './20261201000400_light_reduction_exemptions.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -13,6 +14,7 @@ const migrations: Record<string, Migration> = {
   '20261201000100_users_projects_audit': usersProjectsAudit,
   '20261201000200_code_tables': codeTables,
   '20261201000300_project_design': projectDesign,
+  '20261201000400_light_reduction_exemptions': lightReductionExemptions,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
