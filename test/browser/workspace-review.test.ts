@@ -52,8 +52,9 @@ describe('the engineer works through controls, daylight, exterior and results', 
     const { page } = browser;
     await page.goto(`${projectUrl}/controls`);
     await page.getByRole('heading', { name: 'Controls', level: 2 }).waitFor();
-    await page.getByRole('button', { name: /102 Main reading room/ }).click();
     await resultsSettled();
+    await page.getByRole('button', { name: /102 Main reading room/ }).click();
+    await page.getByRole('heading', { name: '102 Main reading room', level: 3 }).waitFor();
     const met = page.locator('.detail > .lines > al-control-line-card').filter({ has: page.locator('.status[data-status="met"]') }).first();
     await met.waitFor();
     strategy = (await met.locator('article').getAttribute('data-strategy'))!;
@@ -79,6 +80,7 @@ describe('the engineer works through controls, daylight, exterior and results', 
     expect(await card.textContent()).toContain('Demo device, entered by the browser test');
     await resultsSettled();
     expect(await page.getByTestId('workspace-verdict').textContent()).toContain('Complies');
+    expect(await page.getByRole('heading', { level: 3 }).first().textContent()).toContain('102 Main reading room');
   }, 40_000);
 
   it('shows the main reading room on the Daylight page as a plan with its sidelit zones', async () => {

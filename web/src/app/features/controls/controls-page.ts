@@ -42,7 +42,9 @@ export class ControlsPage {
     });
   });
   protected readonly visibleRows = computed(() => (this.outstandingOnly() ? this.rows().filter((row) => row.outstanding > 0) : this.rows()));
-  protected readonly selectedId = linkedSignal(() => this.space() ?? this.rows()[0]?.space.id ?? null);
+  /** The engineer's choice; follows `?space=` when the link changes, and survives results arriving. */
+  private readonly chosenId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
+  protected readonly selectedId = computed(() => this.chosenId() ?? this.rows()[0]?.space.id ?? null);
   protected readonly selected = computed(() => this.rows().find((row) => row.space.id === this.selectedId()) ?? null);
   protected readonly strategyByKey = computed(() => new Map((this.store.tables()?.controlStrategies ?? []).map((strategy) => [strategy.key, strategy])));
   protected readonly lines = computed(() => {
@@ -55,7 +57,7 @@ export class ControlsPage {
   }
 
   protected select(spaceId: string): void {
-    this.selectedId.set(spaceId);
+    this.chosenId.set(spaceId);
   }
 
   protected save(space: SpaceRecord, strategy: string, next: ProvidedControl | null): void {

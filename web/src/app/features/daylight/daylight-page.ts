@@ -72,7 +72,9 @@ export class DaylightPage implements HasUnsavedChanges {
     this.store.spaces().map((space) => ({ space, openings: space.windows.length + space.skylights.length, result: this.store.resultBySpace().get(space.id) })),
   );
   protected readonly visibleRows = computed(() => (this.withOpeningsOnly() ? this.rows().filter((row) => row.openings > 0) : this.rows()));
-  protected readonly selectedId = linkedSignal(() => this.space() ?? (this.rows().find((row) => row.openings > 0) ?? this.rows()[0])?.space.id ?? null);
+  /** The engineer's choice; follows `?space=` when the link changes, and survives results arriving. */
+  private readonly chosenId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
+  protected readonly selectedId = computed(() => this.chosenId() ?? (this.rows().find((row) => row.openings > 0) ?? this.rows()[0])?.space.id ?? null);
   protected readonly selected = computed(() => this.rows().find((row) => row.space.id === this.selectedId()) ?? null);
   /** The stored record only: changes when another space is chosen or this one is saved, not when results arrive. */
   protected readonly selectedSpace = computed(() => this.store.spaces().find((space) => space.id === this.selectedId()) ?? null);
@@ -118,7 +120,7 @@ export class DaylightPage implements HasUnsavedChanges {
 
   protected select(spaceId: string): void {
     if (this.form.dirty && !window.confirm('You have changes to the openings that are not saved. Discard them?')) return;
-    this.selectedId.set(spaceId);
+    this.chosenId.set(spaceId);
   }
 
   protected addWindow(): void {

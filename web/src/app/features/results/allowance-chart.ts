@@ -64,7 +64,7 @@ function themePalette(host: HTMLElement): ChartPalette {
     return colour && colour !== '' ? colour : fallback;
   };
   const palette: ChartPalette = {
-    allowance: read('--mat-sys-primary-fixed-dim', fallbackPalette.allowance),
+    allowance: read('--mat-sys-secondary-container', fallbackPalette.allowance),
     installed: read('--mat-sys-primary', fallbackPalette.installed),
     over: read('--mat-sys-error', fallbackPalette.over),
     text: read('--mat-sys-on-surface-variant', fallbackPalette.text),

@@ -53,8 +53,7 @@ export class SpaceResultsTable {
   protected readonly search = signal('');
   protected readonly labels = computed(() => unitLabels(this.units()));
   protected readonly figures = { watts: wattsFigure, density: densityFigure, percent: percentFigure, area: areaFigure };
-  protected readonly columns = ['name', 'level', 'type', 'area', 'allowedLpd', 'installedLpd', 'allowanceW', 'installedW', 'marginW', 'marginPct', 'status'];
-  protected readonly basisHeader = computed(() => (this.spaces()[0]?.lpdBasis.kind === 'building-area-type' ? 'Building area type' : 'Space type'));
+  protected readonly columns = ['name', 'level', 'area', 'allowedLpd', 'installedLpd', 'allowanceW', 'installedW', 'marginW', 'marginPct', 'status'];
   protected readonly overCount = computed(() => this.spaces().filter((space) => !space.withinAllowance).length);
 
   protected readonly dataSource = new MatTableDataSource<SpaceRow>([]);
@@ -65,7 +64,6 @@ export class SpaceResultsTable {
       const numeric = numericColumns[column];
       if (numeric) return Number(numeric(row.space) ?? Number.NEGATIVE_INFINITY);
       if (column === 'level') return row.space.level ?? '';
-      if (column === 'type') return row.space.lpdBasis.label;
       if (column === 'status') return row.status.within ? 1 : 0;
       return row.space.name;
     };
