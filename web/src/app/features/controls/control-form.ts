@@ -50,8 +50,8 @@ export function controlForm(current: ProvidedControl | undefined): ControlForm {
     form.controls.exceptionReason.updateValueAndValidity({ emitEvent: false });
     form.controls.exceptionNote.updateValueAndValidity({ emitEvent: false });
   };
-  form.controls.mode.valueChanges.subscribe(revalidate);
-  form.controls.exceptionReason.valueChanges.subscribe(() => form.controls.exceptionNote.updateValueAndValidity({ emitEvent: false }));
+  // The group's own valueChanges fires after its value holds the new mode and reason, which the rules read.
+  form.valueChanges.subscribe(revalidate);
   revalidate();
   return form;
 }

@@ -1,0 +1,94 @@
+import { provideZonelessChangeDetection } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import type { ProvidedControl } from '../../core/api/api-types';
+import { controlLine } from '../results/results-fixture';
+import { controlForm, providedControl, replaceControl } from './control-form';
+import { ControlLineCard } from './control-line-card';
+import { statusView } from './control-status';
+
+describe('ControlLineCard', () => {
+  let fixture: ComponentFixture<ControlLineCard>;
+  let element: HTMLElement;
+  let saved: (ProvidedControl | null)[];
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({ imports: [ControlLineCard], providers: [provideZonelessChangeDetection()] });
+    fixture = TestBed.createComponent(ControlLineCard);
+    element = fixture.nativeElement as HTMLElement;
+    saved = [];
+    fixture.componentInstance.save.subscribe((value) => saved.push(value));
+  });
+
+  async function show(status: 'met' | 'not-met' | 'exception-claimed' | 'to-verify', canEdit = false): Promise<void> {
+    fixture.componentRef.setInput('line', controlLine({ status, met: status === 'met' ? true : status === 'not-met' ? false : null, verified: status !== 'to-verify' }));
+    fixture.componentRef.setInput('canEdit', canEdit);
+    await fixture.whenStable();
+  }
+
+  it.each([
+    ['met', 'check_circle', 'Met'],
+    ['not-met', 'warning', 'Not met'],
+    ['exception-claimed', 'assignment_late', 'Exception claimed'],
+    ['to-verify', 'help', 'To verify'],
+  ] as const)('shows %s as an icon and words, never colour alone', async (status, icon, words) => {
+    await show(status);
+    expect(element.querySelector('.status mat-icon')?.textContent?.trim()).toBe(icon);
+    expect(element.querySelector('.status .words')?.textContent?.trim()).toBe(words);
+  });
+
+  it('highlights an outstanding requirement and carries the verify badge when the source is unverified', async () => {
+    await show('to-verify');
+    expect(element.querySelector('.line')?.classList).toContain('outstanding');
+    expect(element.querySelector('al-verify-badge')).not.toBeNull();
+    expect(statusView('not-met').outstanding).toBe(true);
+    expect(statusView('exception-claimed').outstanding).toBe(false);
+  });
+
+  it('offers no edit button to someone who only reads', async () => {
+    await show('not-met', false);
+    expect(element.querySelector('button')).toBeNull();
+  });
+
+  it('does not save an "other" exception without a note, and says why beside the field', async () => {
+    await show('not-met', true);
+    element.querySelector<HTMLButtonElement>('button')!.click();
+    await fixture.whenStable();
+    const form = (fixture.componentInstance as unknown as { form: ReturnType<typeof controlForm> }).form;
+    form.controls.mode.setValue('exception');
+    form.controls.exceptionReason.setValue('other');
+    await fixture.whenStable();
+    element.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+    await fixture.whenStable();
+    expect(saved).toEqual([]);
+    expect(Array.from(element.querySelectorAll('mat-error')).map((error) => error.textContent?.trim())).toContain('Say which exception is claimed.');
+
+    form.controls.exceptionNote.setValue('Invented note for the test');
+    element.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+    await fixture.whenStable();
+    expect(saved).toEqual([{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'other', exceptionNote: 'Invented note for the test' }]);
+  });
+});
+
+describe('control form rules', () => {
+  it('needs a reason for an exception, and rejects a negative time-out', () => {
+    const form = controlForm(undefined);
+    form.controls.mode.setValue('exception');
+    expect(form.controls.exceptionReason.hasError('required')).toBe(true);
+    form.controls.mode.setValue('provided');
+    expect(form.valid).toBe(true);
+    form.controls.timeoutMinutes.setValue('-5');
+    expect(form.controls.timeoutMinutes.hasError('negative')).toBe(true);
+    form.controls.timeoutMinutes.setValue('15');
+    expect(form.valid).toBe(true);
+  });
+
+  it('sends only what was recorded, and replaces just that strategy', () => {
+    const form = controlForm(undefined);
+    form.patchValue({ mode: 'provided', device: ' Invented sensor ', timeoutMinutes: '15', autoOn: 'partial' });
+    const next = providedControl('occupant-sensor', form.getRawValue());
+    expect(next).toEqual({ strategy: 'occupant-sensor', provided: true, device: 'Invented sensor', timeoutMinutes: '15', autoOn: 'partial' });
+    const others: ProvidedControl[] = [{ strategy: 'time-switch', provided: true }, { strategy: 'occupant-sensor', provided: false }];
+    expect(replaceControl(others, 'occupant-sensor', next)).toEqual([{ strategy: 'time-switch', provided: true }, next]);
+    expect(replaceControl(others, 'occupant-sensor', null)).toEqual([{ strategy: 'time-switch', provided: true }]);
+  });
+});
