@@ -133,17 +133,21 @@ describe('the reviewer reads the same pages without edit controls', () => {
     await page.goto(`${projectUrl}/controls`);
     await page.getByRole('heading', { name: 'Controls', level: 2 }).waitFor();
     await page.locator('al-control-line-card').first().waitFor();
+    await resultsSettled();
     expect(await page.getByRole('button', { name: /what is provided/ }).count()).toBe(0);
     await browser.screenshot('workspace-controls-reviewer');
 
     await page.goto(`${projectUrl}/daylight`);
     await page.getByTestId('daylight-plan').waitFor();
+    await resultsSettled();
+    await page.getByTestId('daylight-plan').locator('g.zone').first().waitFor();
     expect(await page.getByRole('button', { name: /Add a window|Add a skylight|Save openings/ }).count()).toBe(0);
     expect(await page.locator('form.openings input:not([disabled])').count()).toBe(0);
     await browser.screenshot('workspace-daylight-reviewer');
 
     await page.goto(`${projectUrl}/exterior`);
     await page.getByTestId('tradable-table').getByText('Parking lots and drives').waitFor();
+    await resultsSettled();
     expect(await page.getByRole('button', { name: /Save zone|Add an exterior application|Change |Remove / }).count()).toBe(0);
     await browser.screenshot('workspace-exterior-reviewer');
 

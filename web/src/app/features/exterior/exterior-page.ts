@@ -15,7 +15,7 @@ import { VerifyBadge } from '../../shared/verify-badge';
 import { statusView } from '../controls/control-status';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
-import { ExteriorApplicationForm } from './exterior-application-form';
+import { ExteriorApplicationForm, exteriorControls } from './exterior-application-form';
 import { exteriorGroups, quantityUnit } from './exterior-groups';
 
 /** The site's lighting zone, its lighted applications, and the exterior allowance: tradable pooled, nontradable each alone. */
@@ -33,6 +33,7 @@ export class ExteriorPage {
 
   protected readonly figures = { watts: wattsFigure, quantity: quantityFigure };
   protected readonly statusView = statusView;
+  protected readonly controlNames: Partial<Record<string, string>> = Object.fromEntries(exteriorControls.map((control) => [control.strategy, control.label]));
   protected readonly quantityUnit = quantityUnit;
   protected readonly saving = signal(false);
   /** 'new', an application's id, or null when no form is open. */
