@@ -62,6 +62,14 @@ function cellText(value: unknown): string {
   return String(value).trim();
 }
 
+type ExcelModule = typeof import('exceljs');
+
+/** exceljs ships a CommonJS bundle for browsers: its exports arrive as the default export there. Loaded on first use. */
+async function loadExcel(): Promise<ExcelModule> {
+  const loaded = (await import('exceljs')) as ExcelModule & { default?: ExcelModule };
+  return loaded.default?.Workbook ? loaded.default : loaded;
+}
+
 function dropEmptyRows(table: ImportTable): ImportTable {
   return table.filter((row) => row.some((cell) => cell.trim() !== ''));
 }
@@ -73,7 +81,7 @@ export function parseCsv(text: string): ImportTable {
 
 /** The first worksheet of an .xlsx, as text cells. */
 export async function parseXlsx(data: ArrayBuffer): Promise<ImportTable> {
-  const { Workbook } = await import('exceljs');
+  const { Workbook } = await loadExcel();
   const workbook = new Workbook();
   await workbook.xlsx.load(data);
   const sheet = workbook.worksheets[0];
@@ -187,7 +195,7 @@ export function templateCsv(): string {
 }
 
 export async function templateXlsx(): Promise<ArrayBuffer> {
-  const { Workbook } = await import('exceljs');
+  const { Workbook } = await loadExcel();
   const workbook = new Workbook();
   const sheet = workbook.addWorksheet('Spaces');
   sheet.addRow(templateHeader).font = { bold: true };
