@@ -187,6 +187,24 @@ describe('IECC 2021 occupant sensors and time switches', () => {
     expect(line(unsensed, 'time-switch').requirement).toBe('required');
   });
 
+  it('checks the area one time-switch override serves against the 5,000 ft² limit, in either unit system', () => {
+    // Time-switch override controls at most 5,000 ft²: Washington State Energy Code, WAC 51-11C-405022 [S-ed].
+    const withZone = (zoneSize: number, units: 'ip' | 'si' = 'ip') =>
+      run(
+        {
+          edition: 'iecc-2021',
+          method: 'space-by-space',
+          units,
+          spaces: [{ id: 'x', name: 'Reading room', area: 6000, spaceType: 'library-reading', controls: [{ strategy: 'time-switch', provided: true, zoneSize }] }],
+        },
+        iecc2021,
+      ).interior.spaces[0]!.controls;
+    expect(line(withZone(5000), 'time-switch').status).toBe('met');
+    expect(line(withZone(5001), 'time-switch').status).toBe('not-met');
+    // 500 m² = 5,381.96 ft² (1 ft² = 0.09290304 m², mathjs units): over the limit.
+    expect(line(withZone(500, 'si'), 'time-switch').reason).toContain('5382 ft²');
+  });
+
   it('applies the light-reduction exceptions held in the data', () => {
     // IECC C405.2.3 exceptions as the Washington 2021 text states them (WAC 51-11C-405024) [S-ed]:
     // corridors and lobbies; one luminaire under 60 W; an installed density under 0.45 W/ft².

@@ -304,7 +304,8 @@ export const iecc2021: EditionData = {
   controlStrategies: [
     // C405.2.1.1 [S]: off within 20 minutes (zmVault transcription).
     strategy('occupant-sensor', 'Occupant sensor control', 'C405.2.1', sourced('IECC 2021 C405.2.1, zmVault transcription'), { timeoutMinutes: '20' }),
-    strategy('time-switch', 'Time-switch control', 'C405.2.2', unverified('WAC 51-11C-405022', '[S-ed] state text')),
+    // Override controls at most 5,000 ft²: Washington State Energy Code, WAC 51-11C-405022 [S-ed].
+    strategy('time-switch', 'Time-switch control', 'C405.2.2', unverified('WAC 51-11C-405022', '[S-ed] state text'), { zoneSizeLimitFt2: '5000' }),
     // Exceptions: one luminaire under 60 W, installed density under 0.45 W/ft² — Washington 2021 WSEC (WAC 51-11C-405024) [S-ed].
     strategy('light-reduction', 'Light-reduction control', 'C405.2.3', unverified('WAC 51-11C-405024', '[S-ed] state text'), {
       reductionPercent: '50',

@@ -64,12 +64,13 @@ describe('design data with optimistic locking', () => {
       width: '10',
       ceilingHeight: '9',
       luminaires: [{ tag: 'A', count: 2, zone: 'primary-sidelit' }],
-      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial' }],
+      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial', zoneSize: '120', device: 'Ceiling sensor' }],
       windows: [{ width: '4', headHeight: '7', wall: 'south', offset: '4' }],
     });
     expect(space.status).toBe(201);
     expect(space.body).toMatchObject({ name: 'Exam 1', area: '120', version: 1, luminaires: [{ tag: 'A', count: '2', zone: 'primary-sidelit' }] });
     expect(space.body.windows).toEqual([{ width: '4', headHeight: '7', wall: 'south', offset: '4' }]);
+    expect(space.body.controls).toEqual([{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial', zoneSize: '120', device: 'Ceiling sensor' }]);
     spaceId = space.body.id;
   });
 

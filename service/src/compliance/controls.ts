@@ -2,6 +2,7 @@ import type { ProvidedControl } from './document.js';
 import type { ControlStrategy, EditionData, RequirementCode, SpaceType, StrategyKey } from './edition-data.js';
 import { strategyKeys } from './edition-data.js';
 import { type Dec, dec } from './numbers.js';
+import { type UnitSystem, areaToSquareFeet } from './units.js';
 import type { ControlLine } from './result.js';
 
 /** One requirement before it is compared with what the engineer provided. */
@@ -153,6 +154,7 @@ function checkProvision(
   provided: ProvidedControl[],
   catalogue: ReadonlyMap<string, ControlStrategy>,
   spaceType: SpaceType | undefined,
+  units: UnitSystem,
 ): ProvisionCheck {
   const own = provided.find((control) => control.strategy === strategy);
   // A full-OFF control satisfies a partial-OFF requirement.
@@ -170,6 +172,13 @@ function checkProvision(
   if (strategy === 'occupant-sensor' && entry.autoOn === 'full' && spaceType?.iecc && !spaceType.iecc.fullAutoOnAllowed) {
     return { ok: false, words: `${by}${device}, but full automatic-on is not allowed in ${spaceType.label}: manual-on or automatic-on to at most 50 %` };
   }
+  const zoneLimit = catalogue.get(entry.strategy)?.parameters['zoneSizeLimitFt2'];
+  if (zoneLimit !== undefined && entry.zoneSize !== undefined) {
+    const zoneFt2 = areaToSquareFeet(dec(entry.zoneSize), units);
+    if (zoneFt2.greaterThan(dec(zoneLimit))) {
+      return { ok: false, words: `${by}${device}, but one device serves ${zoneFt2.toDecimalPlaces(0).toFixed()} ft², more than ${zoneLimit} ft²` };
+    }
+  }
   const timeout =
     limit === undefined ? '' : entry.timeoutMinutes === undefined ? `; time-out not recorded (at most ${limit} min)` : `; time-out ${entry.timeoutMinutes} min`;
   return { ok: true, words: `${by}${device}${timeout}` };
@@ -181,9 +190,10 @@ export function resolveControls(
   provided: ProvidedControl[],
   edition: EditionData,
   spaceType?: SpaceType,
+  units: UnitSystem = 'ip',
 ): ControlLine[] {
   const catalogue: ReadonlyMap<string, ControlStrategy> = new Map(edition.controlStrategies.map((strategy) => [strategy.key, strategy]));
-  const checks = new Map(requirements.map((line) => [line.strategy, checkProvision(line.strategy, provided, catalogue, spaceType)]));
+  const checks = new Map(requirements.map((line) => [line.strategy, checkProvision(line.strategy, provided, catalogue, spaceType, units)]));
   const general = provided.find((control) => control.exceptionReason !== undefined && generalExceptions.has(control.exceptionReason));
   return requirements.map((line) => {
     const strategy = catalogue.get(line.strategy);

@@ -92,6 +92,8 @@ export const controlSchema = z.object({
   strategy: key,
   provided: z.boolean(),
   timeoutMinutes: nonNegative.optional(),
+  /** Floor area one device or zone of this control serves, ft² or m² (checked against the strategy's zone size limit where one is stated). */
+  zoneSize: positive.optional(),
   /** For occupant sensors: how lighting turns on. 'partial' means automatic-on to at most 50 %. */
   autoOn: z.enum(['manual', 'partial', 'full']).optional(),
   exceptionReason: z.enum(controlExceptionReasons).optional(),

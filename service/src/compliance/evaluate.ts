@@ -302,7 +302,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       nonExemptLuminaires: watts.lines.filter((line) => line.use !== 'exempt').map((line) => ({ count: dec(line.count), unitWatts: dec(line.unitWatts) })),
       occupantSensorProvided: space.controls.some((control) => control.strategy === 'occupant-sensor' && control.provided),
     };
-    let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType);
+    let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType, units);
     if (controlType === undefined && edition.family === 'ashrae-90.1') {
       controls = [
         {

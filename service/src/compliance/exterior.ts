@@ -74,7 +74,7 @@ export function evaluateExterior(exterior: NonNullable<EvaluationDocument['exter
       installedW: text(line.installed),
       baseSiteUsedW: text(baseUsed),
       withinAllowance: within,
-      controls: resolveControls(requirements, line.entry.controls, edition),
+      controls: resolveControls(requirements, line.entry.controls, edition, undefined, units),
       section,
     };
   });

@@ -311,7 +311,7 @@ function childRows(spaceId: string, input: SpaceInput, typeIds: Map<string, stri
       strategy: control.strategy,
       provided: control.provided,
       timeout_minutes: control.timeoutMinutes ?? null,
-      zone_size: (control as { zoneSize?: string }).zoneSize ?? null,
+      zone_size: control.zoneSize ?? null,
       auto_on: control.autoOn ?? null,
       device: control.device ?? null,
       exception_reason: control.exceptionReason ?? null,
