@@ -22,6 +22,7 @@ describe('ProjectsPage', () => {
   beforeEach(async () => {
     TestBed.configureTestingModule({
       imports: [ProjectsPage],
+      providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting()],
     });
     fixture = TestBed.createComponent(ProjectsPage);
     http = TestBed.inject(HttpTestingController);

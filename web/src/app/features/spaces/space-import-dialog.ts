@@ -6,7 +6,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import type { SpaceRecord } from '../../core/api/api-types';
+import type { SpaceRecord, UnitSystem } from '../../core/api/api-types';
+import { unitLabels } from '../../shared/format';
 import { ApiError } from '../../core/http/api-error';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import {
@@ -26,6 +27,7 @@ import {
 
 export interface SpaceImportData extends ImportContext {
   projectId: string;
+  units: UnitSystem;
 }
 
 type Stage = 'choose' | 'map' | 'preview';
@@ -44,6 +46,7 @@ export class SpaceImportDialog {
   private readonly api = inject(WorkspaceApi);
 
   protected readonly fields = importFields.filter(({ field }) => (this.data.method === 'building-area' ? true : field !== 'buildingAreaType'));
+  protected readonly areaUnit = unitLabels(this.data.units).area;
   protected readonly stage = signal<Stage>('choose');
   protected readonly fileName = signal('');
   protected readonly table = signal<ImportTable>([]);

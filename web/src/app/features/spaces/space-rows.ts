@@ -42,7 +42,7 @@ export function spaceStatus(result: SpaceResult | undefined, resultsStatus: stri
   if (resultsStatus === 'updating' || resultsStatus === 'idle') return { kind: 'updating' };
   if (resultsStatus !== 'ready' || !result) return { kind: 'not-evaluated' };
   if (result.withinAllowance) {
-    const pct = result.marginPct === null ? '' : ` (${formatPercent(result.marginPct)})`;
+    const pct = result.marginPct === null ? '' : `\u00a0(${formatPercent(result.marginPct).replace(' ', '\u00a0')})`;
     return { kind: 'within', words: `${formatWatts(result.marginW)}${pct} to spare` };
   }
   return { kind: 'over', words: `by ${formatWatts(String(-Number(result.marginW)))}` };

@@ -60,8 +60,7 @@ export class SpaceTable {
   }
 
   protected dimensions(space: SpaceRecord): string {
-    if (!space.length || !space.width) return '—';
-    return `${this.length(space.length)} × ${this.length(space.width)}`;
+    return `${this.length(space.length)} × ${this.length(space.width)} × ${this.length(space.ceilingHeight)}`;
   }
 
   protected watts(value: string | undefined): string {

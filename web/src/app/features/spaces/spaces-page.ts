@@ -81,7 +81,7 @@ export class SpacesPage implements HasUnsavedChanges {
     const projectId = this.store.projectId();
     const tables = this.store.tables();
     if (!projectId || !tables) return;
-    const data: SpaceImportData = { projectId, method: this.method(), spaceTypes: tables.spaceTypes, buildingAreaTypes: tables.buildingAreaTypes };
+    const data: SpaceImportData = { projectId, units: this.store.units(), method: this.method(), spaceTypes: tables.spaceTypes, buildingAreaTypes: tables.buildingAreaTypes };
     this.dialogs
       .open<SpaceImportDialog, SpaceImportData, SpaceRecord[]>(SpaceImportDialog, { data, width: '960px', maxWidth: '96vw' })
       .afterClosed()

@@ -1,0 +1,106 @@
+import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import type { EvaluationResult, ProjectDetail, SpaceRecord, SpaceResult, SpaceTypeView } from '../../core/api/api-types';
+import { ProjectStore } from '../workspace/project-store';
+import { groupByLevel, spaceStatus } from './space-rows';
+import { SpacesPage } from './spaces-page';
+
+// Invented demo project and spaces.
+const project = { id: 'p1', name: 'Harbour Pavilion', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', version: 1, members: [] } as unknown as ProjectDetail;
+
+function space(id: string, name: string, level: string | undefined, position: number, area: string, spaceType: string): SpaceRecord {
+  return { id, name, level, position, area, spaceType, luminaires: [], controls: [], windows: [], skylights: [], version: 1, updatedAt: '', updatedBy: null };
+}
+
+const spaces = [
+  space('s1', 'Reading room', 'Level 2', 1, '1200', 'library-in-a-reading-area'),
+  space('s2', 'Office 101', 'Level 1', 2, '200', 'office-enclosed'),
+  space('s3', 'Store 102', 'Level 1', 3, '100', 'storage-room'),
+];
+
+// IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data: library reading area 0.96 W/ft², office enclosed 0.74,
+// storage room 0.38. Installed watts are invented.
+const spaceTypes = [
+  { key: 'library-in-a-reading-area', label: 'Library — In a Reading area', category: 'building-specific', lpdWPerFt2: '0.96', verified: true },
+  { key: 'office-enclosed', label: 'Office — Enclosed', category: 'common', lpdWPerFt2: '0.74', verified: true },
+  { key: 'storage-room', label: 'Storage Room', category: 'common', lpdWPerFt2: '0.38', verified: true },
+] as SpaceTypeView[];
+
+function result(id: string, allowanceW: string, installedW: string, marginPct: string): SpaceResult {
+  const marginW = String(Number(allowanceW) - Number(installedW));
+  return { id, allowanceW, installedW, marginW, marginPct, withinAllowance: Number(marginW) >= 0 } as SpaceResult;
+}
+
+// 0.96 × 1200 = 1152 W; 0.74 × 200 = 148 W; 0.38 × 100 = 38 W.
+const evaluation = {
+  complies: false,
+  interior: { spaces: [result('s1', '1152', '1000', '13.19'), result('s2', '148', '240', '-62.16'), result('s3', '38', '20', '47.37')] },
+} as unknown as EvaluationResult;
+
+describe('the space table', () => {
+  let fixture: ComponentFixture<SpacesPage>;
+  let store: ProjectStore;
+  let element: HTMLElement;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      imports: [SpacesPage],
+      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting(), ProjectStore],
+    });
+    store = TestBed.inject(ProjectStore);
+    store.project.set(project);
+    store.spaces.set(spaces);
+    store.tables.set({ spaceTypes, buildingAreaTypes: [], controlStrategies: [], exteriorApplications: [], lightingZones: [] });
+    store.results.set({ status: 'ready', result: evaluation });
+    fixture = TestBed.createComponent(SpacesPage);
+    element = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+  });
+
+  const rowText = (name: string) => Array.from(element.querySelectorAll('[role="row"]')).find((row) => row.textContent?.includes(name))?.textContent?.replace(/\s+/g, ' ') ?? '';
+
+  it('flattens levels and spaces into one list, levels in the order first entered', () => {
+    expect(groupByLevel(spaces).map((row) => (row.kind === 'level' ? `# ${row.level} (${row.count})` : row.space.name))).toEqual([
+      '# Level 2 (1)',
+      'Reading room',
+      '# Level 1 (2)',
+      'Office 101',
+      'Store 102',
+    ]);
+  });
+
+  it('renders level headers and spaces with their type, watts and status in icon and words', () => {
+    const headers = Array.from(element.querySelectorAll('.row.level .level-name')).map((cell) => cell.textContent?.trim());
+    expect(headers).toEqual(['Level 2', 'Level 1']);
+    expect(rowText('Reading room')).toContain('Library — In a Reading area');
+    expect(rowText('Reading room')).toContain('Within allowance, 152 W (13.2 %) to spare');
+    expect(rowText('Office 101')).toContain('Over allowance by 92 W');
+    const over = Array.from(element.querySelectorAll('.status.over'));
+    expect(over.length).toBe(1);
+    expect(over[0]!.querySelector('mat-icon')?.textContent?.trim()).toBe('warning');
+    expect(element.querySelector('.status.within mat-icon')?.textContent?.trim()).toBe('check_circle');
+    expect(element.textContent).toContain('Installed (W)');
+    expect(element.textContent).toContain('Area (ft²)');
+  });
+
+  it('gives no verdict while the results are updating', async () => {
+    store.results.set({ status: 'updating', previous: evaluation });
+    await fixture.whenStable();
+    expect(element.querySelectorAll('.status.within, .status.over').length).toBe(0);
+    expect(rowText('Office 101')).toContain('Updating…');
+    expect(spaceStatus(evaluation.interior.spaces[1], 'updating')).toEqual({ kind: 'updating' });
+  });
+
+  it('shows edit actions to the engineer and none to a reader', async () => {
+    expect(element.querySelector('button[aria-label="Edit Office 101"]')).not.toBeNull();
+    expect(element.textContent).toContain('Add space');
+    store.project.set({ ...project, role: 'reviewer' });
+    await fixture.whenStable();
+    expect(element.querySelector('button[aria-label="Edit Office 101"]')).toBeNull();
+    expect(element.querySelector('button[aria-label="More for Office 101"]')).toBeNull();
+    expect(element.textContent).not.toContain('Add space');
+    expect(element.textContent).not.toContain('Import spreadsheet');
+  });
+});
