@@ -181,7 +181,7 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await expect.poll(() => verdict(page).textContent(), { timeout: 10_000 }).toContain('Complies');
     const office = page.locator('[data-space-id]', { hasText: 'Harbour office' });
     // 4 × 30 W = 120 W against 148 W: 28 W (18.9 %) to spare.
-    await expect.poll(() => office.textContent()).toContain('Within allowance, 28 W (18.9 %) to spare');
+    await expect.poll(() => office.textContent()).toContain('Within allowance, 28 W\u00a0(18.9\u00a0%) to spare');
     await browser.screenshot('spaces');
   });
 
@@ -222,6 +222,12 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await page.getByRole('button', { name: 'Import 50 spaces' }).click();
     await page.getByText('53 spaces').waitFor();
     await page.locator('[role="rowheader"]', { hasText: 'Level 2' }).waitFor();
+    await expect.poll(() => verdict(page).textContent(), { timeout: 10_000 }).toContain('Does not comply');
+
+    await page.setViewportSize({ width: 820, height: 1000 });
+    await page.locator('[data-space-id]', { hasText: 'Study room 1' }).first().waitFor();
+    await browser.screenshot('spaces-tablet');
+    await page.setViewportSize({ width: 1280, height: 800 });
   });
 });
 
@@ -238,6 +244,7 @@ describe('a reviewer reads the same project', { timeout: 60_000 }, () => {
     await page.goto(`${projectUrl}/spaces`);
     await page.getByText('You are reading this project').waitFor();
     await page.locator('[role="rowheader"]', { hasText: 'Harbour office' }).waitFor();
+    await expect.poll(() => verdict(page).textContent(), { timeout: 10_000 }).toContain('Does not comply');
     expect(await page.getByRole('button', { name: 'Add space' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: /^Edit / }).count()).toBe(0);
     await browser.screenshot('spaces-reviewer');

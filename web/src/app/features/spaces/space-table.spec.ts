@@ -93,6 +93,16 @@ describe('the space table', () => {
     expect(spaceStatus(evaluation.interior.spaces[1], 'updating')).toEqual({ kind: 'updating' });
   });
 
+  it('renders only the rows in view when the project has 5,000 spaces', async () => {
+    const many = Array.from({ length: 5000 }, (_, index) => space(`m${index}`, `Room ${index}`, `Level ${Math.floor(index / 500) + 1}`, index, '100', 'office-enclosed'));
+    store.spaces.set(many);
+    await fixture.whenStable();
+    const rendered = element.querySelectorAll('cdk-virtual-scroll-viewport [role="row"]').length;
+    expect(rendered).toBeGreaterThan(0);
+    expect(rendered).toBeLessThan(100);
+    expect(element.querySelector('[role="table"]')?.getAttribute('aria-rowcount')).toBe(String(5000 + 10 + 1));
+  });
+
   it('shows edit actions to the engineer and none to a reader', async () => {
     expect(element.querySelector('button[aria-label="Edit Office 101"]')).not.toBeNull();
     expect(element.textContent).toContain('Add space');

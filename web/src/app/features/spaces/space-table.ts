@@ -60,6 +60,7 @@ export class SpaceTable {
   }
 
   protected dimensions(space: SpaceRecord): string {
+    if (!space.length && !space.width && !space.ceilingHeight) return '—';
     return `${this.length(space.length)} × ${this.length(space.width)} × ${this.length(space.ceilingHeight)}`;
   }
 
