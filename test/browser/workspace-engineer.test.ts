@@ -181,7 +181,7 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await expect.poll(() => verdict(page).textContent(), { timeout: 10_000 }).toContain('Complies');
     const office = page.locator('[data-space-id]', { hasText: 'Harbour office' });
     // 4 × 30 W = 120 W against 148 W: 28 W (18.9 %) to spare.
-    await expect.poll(() => office.textContent()).toContain('Within allowance, 28 W\u00a0(18.9\u00a0%) to spare');
+    await expect.poll(() => office.textContent()).toContain('Within allowance, 28\u00a0W\u00a0(18.9\u00a0%) to spare');
     await browser.screenshot('spaces');
   });
 
@@ -198,7 +198,7 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
 
     await page.getByRole('link', { name: 'Spaces' }).click();
     // 4 × 60 W = 240 W against 148 W: 92 W over.
-    await expect.poll(() => page.locator('[data-space-id]', { hasText: 'Harbour office' }).textContent()).toContain('Over allowance by 92 W');
+    await expect.poll(() => page.locator('[data-space-id]', { hasText: 'Harbour office' }).textContent()).toContain('Over allowance by 92\u00a0W');
   });
 
   it('imports 50 spaces from a spreadsheet', async () => {

@@ -123,8 +123,6 @@ export class LuminairesPage implements HasUnsavedChanges {
       catchError((error: unknown) => {
         done();
         this.writeFailure.report(error, () => this.reloadSpaces());
-        // The grid shows the stored counts again rather than the refused edit.
-        this.store.spaces.update((spaces) => [...spaces]);
         return EMPTY;
       }),
     );

@@ -31,6 +31,11 @@ export function groupByLevel(spaces: readonly SpaceRecord[]): SpaceRow[] {
   return rows;
 }
 
+/** A number and its unit stay on one line. */
+function unbroken(text: string): string {
+  return text.replace(' ', '\u00a0');
+}
+
 export type SpaceStatus =
   | { kind: 'updating' }
   | { kind: 'not-evaluated' }
@@ -43,9 +48,9 @@ export function spaceStatus(result: SpaceResult | undefined, resultsStatus: stri
   if (resultsStatus !== 'ready' || !result) return { kind: 'not-evaluated' };
   if (result.withinAllowance) {
     const pct = result.marginPct === null ? '' : `\u00a0(${formatPercent(result.marginPct).replace(' ', '\u00a0')})`;
-    return { kind: 'within', words: `${formatWatts(result.marginW)}${pct} to spare` };
+    return { kind: 'within', words: `${unbroken(formatWatts(result.marginW))}${pct} to spare` };
   }
-  return { kind: 'over', words: `by ${formatWatts(String(-Number(result.marginW)))}` };
+  return { kind: 'over', words: `by ${unbroken(formatWatts(String(-Number(result.marginW))))}` };
 }
 
 /** 1 ft = 0.3048 m exactly, so 1 m² = 1 / 0.09290304 ft² (NIST SP 811, exact definition). */

@@ -1,5 +1,5 @@
 import { provideHttpClient } from '@angular/common/http';
-import { provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import type { EvaluationResult, ProjectDetail, SpaceRecord, SpaceResult, SpaceTypeView } from '../../core/api/api-types';
@@ -101,6 +101,28 @@ describe('the space table', () => {
     expect(rendered).toBeGreaterThan(0);
     expect(rendered).toBeLessThan(100);
     expect(element.querySelector('[role="table"]')?.getAttribute('aria-rowcount')).toBe(String(5000 + 10 + 1));
+  });
+
+  it('deletes a space and re-creates it on Undo', async () => {
+    const http = TestBed.inject(HttpTestingController);
+    element.querySelector<HTMLButtonElement>('button[aria-label="More for Store 102"]')!.click();
+    await fixture.whenStable();
+    const remove = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-item')).find((item) => item.textContent?.includes('Delete'))!;
+    remove.click();
+    const deletion = http.expectOne((request) => request.method === 'DELETE' && request.url === '/api/projects/p1/spaces/s3');
+    expect(deletion.request.params.get('version')).toBe('1');
+    deletion.flush(null, { status: 204, statusText: 'No Content' });
+    await fixture.whenStable();
+    expect(store.spaces().map((kept) => kept.id)).toEqual(['s1', 's2']);
+
+    const undo = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-snack-bar-container button')).find((button) => button.textContent?.includes('Undo'))!;
+    expect(document.querySelector('.mat-mdc-snack-bar-container')?.textContent).toContain('Space “Store 102” deleted');
+    undo.click();
+    const restore = http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/spaces');
+    expect(restore.request.body).toEqual({ name: 'Store 102', level: 'Level 1', area: '100', spaceType: 'storage-room', luminaires: [], controls: [], windows: [], skylights: [] });
+    restore.flush({ ...spaces[2], id: 's4', position: 4 });
+    await fixture.whenStable();
+    expect(store.spaces().map((kept) => kept.id)).toEqual(['s1', 's2', 's4']);
   });
 
   it('shows edit actions to the engineer and none to a reader', async () => {

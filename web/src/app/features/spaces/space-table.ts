@@ -72,6 +72,19 @@ export class SpaceTable {
     return this.results().get(space.id);
   }
 
+  protected statusText(status: SpaceStatus): string {
+    switch (status.kind) {
+      case 'within':
+        return `Within allowance, ${status.words}`;
+      case 'over':
+        return `Over allowance ${status.words}`;
+      case 'updating':
+        return 'Updating…';
+      default:
+        return 'Not evaluated';
+    }
+  }
+
   protected status(space: SpaceRecord): SpaceStatus {
     return spaceStatus(this.results().get(space.id), this.resultsStatus());
   }
