@@ -157,6 +157,9 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await setCount(page, 'B1', 'Net store', '1');
     await setCount(page, 'B1', 'Pier corridor', '5');
     await expect.poll(() => page.getByRole('gridcell').filter({ hasText: /^\s*5\s*$/ }).count()).toBeGreaterThan(0);
+    await page.getByRole('button', { name: 'Counts and daylight zones of Harbour office' }).click();
+    await page.getByRole('heading', { name: 'Harbour office' }).waitFor();
+    await browser.screenshot('luminaire-counts');
 
     // The mandatory controls are the Controls page's work; recorded here through the API (as the demo
     // project records them) so that the verdict turns on lighting power alone.

@@ -1,7 +1,7 @@
 import type { DaylightZoneKind, LuminaireGroup, SpaceRecord } from '../../core/api/api-types';
 
 export const zoneLabels: Record<DaylightZoneKind | 'none', string> = {
-  none: 'Not in a daylight zone',
+  none: 'None',
   'primary-sidelit': 'Primary sidelit',
   'secondary-sidelit': 'Secondary sidelit',
   toplit: 'Toplit',

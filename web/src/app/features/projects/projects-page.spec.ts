@@ -46,7 +46,8 @@ describe('ProjectsPage', () => {
       .flush({ error: { code: 'validation_failed', message: 'At least one space is needed.' } }, { status: 400, statusText: 'Bad Request' });
     await fixture.whenStable();
     const text = element.textContent ?? '';
-    expect(text).toContain('12.3 %');
+    expect(text).toContain('12.3');
+    expect(text).toContain('-4.2');
     expect(text).toContain('Complies');
     expect(text).toContain('Does not comply');
     expect(text).toContain('Design incomplete');

@@ -40,7 +40,6 @@ const verdictConcurrency = 3;
 export class ProjectsPage {
   private readonly api = inject(ProjectApi);
   private readonly router = inject(Router);
-  protected readonly formatPercent = formatPercent;
   protected readonly columns = ['name', 'state', 'edition', 'role', 'updatedAt', 'margin', 'verdict'];
   protected readonly dataSource = new MatTableDataSource<ProjectSummary>([]);
   protected readonly verdicts = signal<ReadonlyMap<string, ProjectVerdict>>(new Map());
@@ -113,6 +112,11 @@ export class ProjectsPage {
 
   protected editionLabel(project: ProjectSummary): string {
     return project.edition ? (editionLabels[project.edition] ?? project.edition) : '—';
+  }
+
+  /** The margin without its unit: the column header carries it. */
+  protected margin(verdict: ProjectVerdict): string {
+    return 'marginPct' in verdict ? formatPercent(verdict.marginPct).replace(' %', '') : '—';
   }
 
   protected verdict(id: string): ProjectVerdict {
