@@ -1,5 +1,7 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
+import { MatAutocompleteModule } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -33,7 +35,7 @@ export interface SpaceEditorData {
 /** Adds or edits one space; saves through the service and closes with the stored record. */
 @Component({
   selector: 'al-space-editor',
-  imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, SpaceTypePicker, VerifyBadge],
+  imports: [ReactiveFormsModule, MatAutocompleteModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, SpaceTypePicker, VerifyBadge],
   templateUrl: './space-editor.html',
   styleUrl: './space-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -48,6 +50,12 @@ export class SpaceEditor {
   protected readonly saving = signal(false);
   protected readonly failure = signal<string | null>(null);
   protected readonly fieldMessage = fieldMessage;
+  private readonly levelText = toSignal(this.form.controls.level.valueChanges, { initialValue: this.form.controls.level.value });
+  /** The project's levels that start like what is typed, so a new space joins an existing group. */
+  protected readonly levels = computed(() => {
+    const typed = this.levelText().trim().toLocaleLowerCase();
+    return this.data.levels.filter((level) => level.toLocaleLowerCase().startsWith(typed) && level.toLocaleLowerCase() !== typed);
+  });
 
   constructor() {
     if (this.data.space) fillSpace(this.form, this.data.space);
