@@ -1,3 +1,4 @@
+/// <reference lib="dom" />
 import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -121,6 +122,10 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await browser.screenshot('wizard');
     await page.getByRole('button', { name: 'Next' }).first().click();
     await page.getByText('Engineer (designer of record)').waitFor();
+    // The reviewer joins the team from the wizard; the contractor is added later on the Set-up page.
+    await page.getByLabel('E-mail of a person with an account').fill('reviewer@alderbay.example');
+    await page.getByRole('button', { name: 'Add to the team' }).click();
+    await page.getByText('Reviewer (plan reviewer or commissioning agent)').waitFor();
     await page.getByRole('button', { name: 'Create project' }).click();
     await page.waitForURL(/\/projects\/[0-9a-f-]{36}\/spaces/);
     projectUrl = page.url().replace(/\/spaces$/, '');
@@ -135,6 +140,11 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await page.getByLabel('Jurisdiction', { exact: true }).fill('Alder Bay Permit Office');
     await page.getByRole('button', { name: 'Save set-up' }).click();
     await expect.poll(() => page.getByRole('button', { name: 'Save set-up' }).isDisabled()).toBe(true);
+    await page.getByText('Dario Quint').waitFor();
+    await page.getByLabel('E-mail of a person with an account').fill('contractor@alderbay.example');
+    await choose(page, 'Role', 'Contractor');
+    await page.getByRole('button', { name: 'Add to the team' }).click();
+    await page.getByText('Noor Abernathy').waitFor();
     await browser.screenshot('setup');
   });
 
@@ -237,10 +247,6 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
 describe('a reviewer reads the same project', { timeout: 60_000 }, () => {
   it('sees the spaces and luminaires without edit controls', async () => {
     const { page } = browser;
-    const projectId = projectUrl.split('/').pop()!;
-    const reviewer = await database.db('users').where({ email: 'reviewer@alderbay.example' }).first<{ id: string }>('id');
-    await database.db('project_members').insert({ project_id: projectId, user_id: reviewer.id, role: 'reviewer' });
-
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL(/\/sign-in/);
     await signIn(page, 'reviewer@alderbay.example');

@@ -80,6 +80,20 @@ describe('design data with optimistic locking', () => {
     expect(response.body.error.details).toEqual([{ path: 'luminaires.0.tag', message: 'No luminaire type has the tag "Z".' }]);
   });
 
+  it('refuses a space type the project’s edition does not have, and one the method does not use', async () => {
+    const unknown = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Lab', spaceType: 'no-such-type', area: 100 });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.details).toEqual([{ path: 'spaceType', message: 'iecc-2021 has no space type "no-such-type".' }]);
+    const wrongMethod = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).send({
+      spaces: [
+        { name: 'Store', spaceType: 'storage-room', area: 80 },
+        { name: 'Whole floor', buildingAreaType: 'office', area: 5000 },
+      ],
+    });
+    expect(wrongMethod.status).toBe(400);
+    expect(wrongMethod.body.error.details.map((detail: { path: string }) => detail.path)).toEqual(expect.arrayContaining(['spaces.1.spaceType', 'spaces.1.buildingAreaType']));
+  });
+
   it('answers a stale write with 409 naming who changed it, and loses nothing', async () => {
     const first = await write(engineer, 'patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 1, area: '125' });
     expect(first.status).toBe(200);
@@ -116,8 +130,8 @@ describe('design data with optimistic locking', () => {
     const before = (await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.length;
     const bad = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).send({
       spaces: [
-        { name: 'Store 1', spaceType: 'storage', area: 80, luminaires: [{ tag: 'A', count: 1 }] },
-        { name: 'Store 2', spaceType: 'storage', area: -5 },
+        { name: 'Store 1', spaceType: 'storage-room', area: 80, luminaires: [{ tag: 'A', count: 1 }] },
+        { name: 'Store 2', spaceType: 'storage-room', area: -5 },
       ],
     });
     expect(bad.status).toBe(400);
@@ -126,8 +140,8 @@ describe('design data with optimistic locking', () => {
 
     const good = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).send({
       spaces: [
-        { name: 'Store 1', spaceType: 'storage', area: 80, luminaires: [{ tag: 'A', count: 1 }] },
-        { name: 'Store 2', spaceType: 'storage', area: 60 },
+        { name: 'Store 1', spaceType: 'storage-room', area: 80, luminaires: [{ tag: 'A', count: 1 }] },
+        { name: 'Store 2', spaceType: 'storage-room', area: 60 },
       ],
     });
     expect(good.status).toBe(201);

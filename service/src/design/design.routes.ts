@@ -30,6 +30,7 @@ import {
   versionQuerySchema,
 } from './design.schema.js';
 import { projectDocument } from './project-document.js';
+import { assertSpacesFitEdition } from './space-checks.js';
 
 /** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
 export function designRouter(db: Database): Router {
@@ -64,11 +65,14 @@ export function designRouter(db: Database): Router {
     res.json(await listSpaces(db, projectId(req)));
   });
   router.post('/spaces', edit, async (req, res) => {
-    const [space] = await createSpaces(db, projectId(req), [parse(spaceInputSchema, req.body)], userId(req));
+    const input = parse(spaceInputSchema, req.body);
+    await assertSpacesFitEdition(db, projectId(req), [input], true);
+    const [space] = await createSpaces(db, projectId(req), [input], userId(req));
     res.status(201).json(space);
   });
   router.post('/spaces/bulk', edit, async (req, res) => {
     const { spaces } = parse(bulkSpacesSchema, req.body);
+    await assertSpacesFitEdition(db, projectId(req), spaces, false);
     res.status(201).json(await createSpaces(db, projectId(req), spaces, userId(req)));
   });
   router.get('/spaces/:spaceId', read, async (req, res) => {
@@ -76,6 +80,7 @@ export function designRouter(db: Database): Router {
   });
   router.put('/spaces/:spaceId', edit, async (req, res) => {
     const { version, ...input } = parse(spaceWriteSchema, req.body);
+    await assertSpacesFitEdition(db, projectId(req), [input], true);
     res.json(await replaceSpace(db, projectId(req), param(req.params['spaceId']), version, input, userId(req)));
   });
   router.patch('/spaces/:spaceId', edit, async (req, res) => {
@@ -85,6 +90,7 @@ export function designRouter(db: Database): Router {
     const { id: _id, position: _position, version: _version, updatedAt: _at, updatedBy: _by, ...stored } = current;
     const named = Object.fromEntries(Object.entries(req.body as Record<string, unknown>).filter(([field]) => field in spaceInputSchema.shape));
     const merged = parse(spaceInputSchema, { ...stored, luminaires: stored.luminaires.map(({ luminaireTypeId: _type, ...group }) => group), ...named });
+    await assertSpacesFitEdition(db, projectId(req), [merged], true);
     res.json(await replaceSpace(db, projectId(req), current.id, version, merged, userId(req)));
   });
   router.delete('/spaces/:spaceId', edit, async (req, res) => {

@@ -203,8 +203,11 @@ export interface ExteriorApplicationView extends RowProvenance {
 }
 
 export interface LightingZoneView extends RowProvenance {
-  zone: string | number;
+  key: string;
+  zone: number;
+  label: string;
   description: string;
+  sourceLabel: string;
 }
 
 // ---------------------------------------------------------------- evaluation result
@@ -274,6 +277,7 @@ export interface SpaceResult {
   marginPct: string | null;
   rcr: string | null;
   roomGeometryIncreaseApplied: boolean;
+  luminaires: { tag: string; use: LuminaireUse; count: string; unitWatts: string; watts: string; basis: string; zone?: DaylightZoneKind; section: string }[];
   daylight: DaylightResult;
   controls: ControlLine[];
   exempt: { tag: string; count: string; watts: string; reason: string; section: string }[];
@@ -300,6 +304,13 @@ export interface InteriorResult {
   marginW: string;
   marginPct: string | null;
   complies: boolean;
+  additional: {
+    lines: { allowance: string; label: string; spaceId: string; area: string; claimedW: string; section: string }[];
+    fixedW: string;
+    claimedW: string;
+    displayW: string;
+    usableW: string;
+  } | null;
   spaces: SpaceResult[];
   levels: LevelResult[] | null;
 }

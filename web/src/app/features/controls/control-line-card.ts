@@ -46,6 +46,11 @@ export class ControlLineCard {
   });
   protected readonly areaUnit = computed(() => (this.units() === 'ip' ? 'ft²' : 'm²'));
 
+  /** An open form with edits not yet saved. */
+  hasUnsavedChanges(): boolean {
+    return this.editing() && this.form.dirty;
+  }
+
   open(): void {
     this.form = controlForm(this.provided());
     this.editing.set(true);

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal, viewChildren } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -7,6 +7,7 @@ import { RouterLink } from '@angular/router';
 import type { ProvidedControl, SpaceRecord } from '../../core/api/api-types';
 import { WriteFailure } from '../../shared/conflict';
 import { formatArea } from '../../shared/format';
+import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { replaceControl } from './control-form';
@@ -21,7 +22,7 @@ import { outstandingLines } from './control-status';
   styleUrl: './controls-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ControlsPage {
+export class ControlsPage implements HasUnsavedChanges {
   protected readonly store = inject(ProjectStore);
   private readonly api = inject(WorkspaceApi);
   private readonly failure = inject(WriteFailure);
@@ -29,6 +30,7 @@ export class ControlsPage {
   /** The space to open, from `?space=` (links from the Results page). */
   readonly space = input<string>();
 
+  private readonly cards = viewChildren(ControlLineCard);
   protected readonly outstandingOnly = signal(false);
   protected readonly saving = signal(false);
   protected readonly updating = computed(() => this.store.results().status !== 'ready');
@@ -51,6 +53,10 @@ export class ControlsPage {
     const lines = this.selected()?.result?.controls ?? [];
     return { applicable: lines.filter((line) => line.status !== 'not-required'), notRequired: lines.filter((line) => line.status === 'not-required') };
   });
+
+  hasUnsavedChanges(): boolean {
+    return this.cards().some((card) => card.hasUnsavedChanges());
+  }
 
   protected provided(space: SpaceRecord, strategy: string): ProvidedControl | undefined {
     return space.controls.find((control) => control.strategy === strategy);

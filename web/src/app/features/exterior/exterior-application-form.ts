@@ -63,6 +63,11 @@ export class ExteriorApplicationForm implements OnInit {
     }),
   });
   protected readonly exteriorControls = exteriorControls;
+  /** Edits typed but not yet saved. */
+  hasUnsavedChanges(): boolean {
+    return this.form.dirty;
+  }
+
   private readonly key = toSignal(this.form.controls.key.valueChanges.pipe(startWith('')), { initialValue: '' });
 
   protected readonly choices = computed(() => {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal, viewChildren } from '@angular/core';
 import { NgTemplateOutlet } from '@angular/common';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,6 +11,7 @@ import type { ControlLine, ExteriorApplicationInput, ExteriorApplicationRecord }
 import { CautionsBanner, defaultCautions } from '../../shared/cautions-banner';
 import { WriteFailure } from '../../shared/conflict';
 import { quantityFigure, wattsFigure } from '../../shared/figures';
+import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { statusView } from '../controls/control-status';
 import { ProjectStore } from '../workspace/project-store';
@@ -26,7 +27,7 @@ import { exteriorGroups, quantityUnit } from './exterior-groups';
   styleUrl: './exterior-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ExteriorPage {
+export class ExteriorPage implements HasUnsavedChanges {
   protected readonly store = inject(ProjectStore);
   private readonly api = inject(WorkspaceApi);
   private readonly failure = inject(WriteFailure);
@@ -35,9 +36,14 @@ export class ExteriorPage {
   protected readonly statusView = statusView;
   protected readonly controlNames: Partial<Record<string, string>> = Object.fromEntries(exteriorControls.map((control) => [control.strategy, control.label]));
   protected readonly quantityUnit = quantityUnit;
+  private readonly forms = viewChildren(ExteriorApplicationForm);
   protected readonly saving = signal(false);
   /** 'new', an application's id, or null when no form is open. */
   protected readonly editing = signal<string | null>(null);
+
+  hasUnsavedChanges(): boolean {
+    return this.forms().some((form) => form.hasUnsavedChanges());
+  }
 
   protected readonly updating = computed(() => this.store.results().status !== 'ready');
   protected readonly result = computed(() => {

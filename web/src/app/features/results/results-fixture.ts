@@ -39,6 +39,7 @@ export function spaceResult(overrides: Partial<SpaceResult>): SpaceResult {
     marginPct: '20',
     rcr: null,
     roomGeometryIncreaseApplied: false,
+    luminaires: [],
     daylight: {
       geometryEvaluated: false,
       windowArea: '0',
@@ -81,6 +82,7 @@ export function evaluation(): EvaluationResult {
       marginW: '170',
       marginPct: '11.333333',
       complies: true,
+      additional: null,
       spaces: [
         spaceResult({}),
         spaceResult({

@@ -3,18 +3,20 @@ import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import type { ProjectMember, ProjectRole } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
 import { WriteFailure } from '../../shared/conflict';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { SetupFields } from './setup-fields';
+import { TeamEditor, type TeamEntry } from './team-editor';
 import { fillSetup, setupForm, setupValue, showServerErrors } from './setup-form';
 
 /** The project's set-up, editable after the wizard: the same fields, saved with the version read. */
 @Component({
   selector: 'al-setup-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatIconModule, MatProgressBarModule, SetupFields],
+  imports: [ReactiveFormsModule, MatButtonModule, MatIconModule, MatProgressBarModule, SetupFields, TeamEditor],
   templateUrl: './setup-page.html',
   styleUrl: './setup-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -27,6 +29,8 @@ export class SetupPage implements HasUnsavedChanges {
   protected readonly saving = signal(false);
   protected readonly failure = signal<string | null>(null);
   protected readonly unitsLocked = computed(() => this.store.spaces().length > 0);
+  protected readonly teamBusy = signal(false);
+  protected readonly teamError = signal<string | null>(null);
 
   constructor() {
     effect(() => {
@@ -70,6 +74,32 @@ export class SetupPage implements HasUnsavedChanges {
           return;
         }
         this.writeFailure.report(error, () => this.reload());
+      },
+    });
+  }
+
+  protected addMember(entry: { email: string; role: ProjectRole }): void {
+    const project = this.store.project();
+    if (project) this.changeTeam(this.api.setMember(project.id, entry.email, entry.role));
+  }
+
+  protected removeMember(member: TeamEntry): void {
+    const project = this.store.project();
+    if (project && member.userId) this.changeTeam(this.api.removeMember(project.id, member.userId));
+  }
+
+  private changeTeam(request: ReturnType<WorkspaceApi['members']>): void {
+    this.teamBusy.set(true);
+    this.teamError.set(null);
+    request.subscribe({
+      next: (members: ProjectMember[]) => {
+        this.teamBusy.set(false);
+        const project = this.store.project();
+        if (project) this.store.project.set({ ...project, members });
+      },
+      error: (error: unknown) => {
+        this.teamBusy.set(false);
+        this.teamError.set(error instanceof ApiError ? (error.details[0]?.message ? `${error.message} ${error.details[0].message}` : error.message) : 'The team could not be changed.');
       },
     });
   }

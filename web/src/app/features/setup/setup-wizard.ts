@@ -1,4 +1,7 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { catchError, concatMap, from, map, of, toArray } from 'rxjs';
+import type { ProjectRole } from '../../core/api/api-types';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -10,12 +13,13 @@ import { ApiError } from '../../core/http/api-error';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { SetupFields } from './setup-fields';
+import { TeamEditor, type TeamEntry } from './team-editor';
 import { setupForm, setupValue, showServerErrors } from './setup-form';
 
 /** A new project, step by step; creating it makes the signed-in person its engineer. */
 @Component({
   selector: 'al-setup-wizard',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, MatStepperModule, SetupFields],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, MatStepperModule, SetupFields, TeamEditor],
   templateUrl: './setup-wizard.html',
   styleUrl: './setup-wizard.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -27,7 +31,25 @@ export class SetupWizard implements HasUnsavedChanges {
   protected readonly form = setupForm();
   protected readonly saving = signal(false);
   protected readonly failure = signal<string | null>(null);
+  private readonly snackBar = inject(MatSnackBar);
   private created = false;
+  /** People to add once the project exists. */
+  private readonly invited = signal<{ email: string; role: ProjectRole }[]>([]);
+  protected readonly team = computed<TeamEntry[]>(() => {
+    const user = this.auth.user();
+    const self: TeamEntry[] = user ? [{ userId: user.id, name: user.name, email: user.email, role: 'engineer' }] : [];
+    return [...self, ...this.invited()];
+  });
+
+  protected invite(entry: { email: string; role: ProjectRole }): void {
+    const email = entry.email.toLowerCase();
+    if (email === this.auth.user()?.email.toLowerCase()) return;
+    this.invited.update((list) => [...list.filter((other) => other.email.toLowerCase() !== email), entry]);
+  }
+
+  protected uninvite(entry: TeamEntry): void {
+    this.invited.update((list) => list.filter((other) => other.email !== entry.email));
+  }
 
   hasUnsavedChanges(): boolean {
     return !this.created && this.form.dirty;
@@ -43,7 +65,24 @@ export class SetupWizard implements HasUnsavedChanges {
     this.api.createProject(setupValue(this.form)).subscribe({
       next: (project) => {
         this.created = true;
-        void this.router.navigate(['/projects', project.id, 'spaces']);
+        // Each invitation is sent on its own, so one unknown e-mail does not stop the others.
+        from(this.invited())
+          .pipe(
+            concatMap((entry) =>
+              this.api.setMember(project.id, entry.email, entry.role).pipe(
+                map((): string | null => null),
+                catchError(() => of(entry.email)),
+              ),
+            ),
+            toArray(),
+          )
+          .subscribe((outcomes) => {
+            const refused = outcomes.filter((email): email is string => email !== null);
+            if (refused.length) {
+              this.snackBar.open(`Not added (no account): ${refused.join(', ')}. Add them on the Set-up page once they have one.`, 'Dismiss', { duration: 12_000 });
+            }
+            void this.router.navigate(['/projects', project.id, 'spaces']);
+          });
       },
       error: (error: unknown) => {
         this.saving.set(false);

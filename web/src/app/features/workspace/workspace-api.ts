@@ -13,6 +13,8 @@ import type {
   LuminaireTypeInput,
   LuminaireTypeRecord,
   ProjectDetail,
+  ProjectMember,
+  ProjectRole,
   ProjectSetup,
   SpaceInput,
   SpaceRecord,
@@ -35,6 +37,19 @@ export class WorkspaceApi {
 
   updateSetup(projectId: string, version: number, changes: Partial<ProjectSetup>): Observable<ProjectDetail> {
     return this.http.patch<ProjectDetail>(`/api/projects/${projectId}`, { ...changes, version });
+  }
+
+  members(projectId: string): Observable<ProjectMember[]> {
+    return this.http.get<ProjectMember[]>(`/api/projects/${projectId}/members`);
+  }
+
+  /** Adds a person with an account by e-mail, or changes their role; answers with the whole team. */
+  setMember(projectId: string, email: string, role: ProjectRole): Observable<ProjectMember[]> {
+    return this.http.post<ProjectMember[]>(`/api/projects/${projectId}/members`, { email, role });
+  }
+
+  removeMember(projectId: string, userId: string): Observable<ProjectMember[]> {
+    return this.http.delete<ProjectMember[]>(`/api/projects/${projectId}/members/${userId}`);
   }
 
   spaces(projectId: string): Observable<SpaceRecord[]> {
