@@ -1,0 +1,46 @@
+/// <reference lib="dom" />
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { testApp } from '../support/app.js';
+import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
+import { freshDatabase, type TestDatabase } from '../support/database.js';
+
+let database: TestDatabase;
+let served: Served;
+let browser: Browser;
+let projectUrl: string;
+
+beforeAll(async () => {
+  requireBuiltWebApp();
+  database = await freshDatabase();
+  served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist }).app);
+  browser = await launchBrowser();
+  const { page } = browser;
+  // A tablet held upright (common practice for the narrowest layout the workspace supports).
+  await page.setViewportSize({ width: 800, height: 1100 });
+  await page.goto(`${served.baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill('engineer@alderbay.example');
+  await page.getByLabel('Password', { exact: true }).fill(inject('demoPassword'));
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByTestId('signed-in-user').waitFor();
+  const projects = await page.evaluate(async () => (await fetch('/api/projects')).json() as Promise<{ id: string; name: string }[]>);
+  projectUrl = `${served.baseUrl}/projects/${projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id}`;
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await served?.close();
+  await database?.drop();
+});
+
+describe('the workspace at a tablet width (800 px)', () => {
+  for (const area of ['spaces', 'luminaires', 'controls', 'daylight', 'exterior', 'results']) {
+    it(`lays out ${area} without a sideways scroll of the page`, async () => {
+      const { page } = browser;
+      await page.goto(`${projectUrl}/${area}`);
+      await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
+      const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+      await browser.screenshot(`tablet-${area}`);
+      expect(overflow).toBeLessThanOrEqual(1);
+    });
+  }
+});
