@@ -22,6 +22,8 @@ import { createLuminaireType, createSpaces } from '../../service/src/design/desi
 import { luminaireTypeInputSchema, spaceInputSchema } from '../../service/src/design/design.schema.js';
 import { projectDocument } from '../../service/src/design/project-document.js';
 import { freePort, startCluster } from '../../service/ops/postgres.mjs';
+import { launchBrowser, serve, webDist } from '../support/browser.js';
+import { existsSync } from 'node:fs';
 
 interface Measure {
   name: string;
@@ -69,6 +71,52 @@ async function median(measure: Measure): Promise<number> {
   return times[Math.floor(times.length / 2)]!;
 }
 
+/**
+ * The Spaces page of the generated project in real Chromium: time until the first rows show, and
+ * the frame times while the table scrolls from top to bottom.
+ */
+async function browserFigures(app: Parameters<typeof serve>[0], projectId: string): Promise<string[]> {
+  const served = await serve(app);
+  const browser = await launchBrowser();
+  try {
+    const { page } = browser;
+    await page.goto(`${served.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill('engineer@alderbay.example');
+    await page.getByLabel('Password', { exact: true }).fill('bench-password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByTestId('signed-in-user').waitFor();
+    const opened = performance.now();
+    await page.goto(`${served.baseUrl}/projects/${projectId}/spaces`);
+    await page.locator('[role="rowheader"]', { hasText: 'Room 1' }).first().waitFor({ timeout: 30_000 });
+    const firstRowsMs = performance.now() - opened;
+    const frames = await page.evaluate(async () => {
+      const viewport = document.querySelector('cdk-virtual-scroll-viewport') as HTMLElement;
+      const intervals: number[] = [];
+      let last = performance.now();
+      const step = Math.max(200, viewport.scrollHeight / 300);
+      while (viewport.scrollTop + viewport.clientHeight < viewport.scrollHeight - 1) {
+        viewport.scrollTop += step;
+        await new Promise((resolve) => requestAnimationFrame(resolve));
+        const now = performance.now();
+        intervals.push(now - last);
+        last = now;
+      }
+      intervals.sort((a, b) => a - b);
+      return { count: intervals.length, p95: intervals[Math.floor(intervals.length * 0.95)] ?? 0, domRows: document.querySelectorAll('[role="row"]').length };
+    });
+    const firstOk = firstRowsMs <= 4000;
+    const frameOk = frames.p95 <= 50;
+    if (!firstOk || !frameOk) failed = true;
+    return [
+      `${firstOk ? 'ok  ' : 'MISS'} Spaces page, ${spaceCount} spaces: first rows after ${firstRowsMs.toFixed(0)} ms (target 4000 ms)`,
+      `${frameOk ? 'ok  ' : 'MISS'} scrolling the whole table: 95th-percentile frame ${frames.p95.toFixed(1)} ms over ${frames.count} frames, ${frames.domRows} rows in the page (target 50 ms)`,
+    ];
+  } finally {
+    await browser.close();
+    await served.close();
+  }
+}
+
 const baseDir = mkdtempSync(path.join(os.tmpdir(), 'allowlight-bench-pg-'));
 const cluster = startCluster({ baseDir, port: await freePort(), password: randomBytes(12).toString('base64url'), fsync: false });
 let failed = false;
@@ -81,7 +129,7 @@ try {
   await setup.destroy();
 
   const db = createDatabase(url);
-  const config = loadConfig({ NODE_ENV: 'test', DATABASE_URL: url, JWT_SECRET: randomBytes(32).toString('hex'), LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '100' });
+  const config = loadConfig({ NODE_ENV: 'test', DATABASE_URL: url, JWT_SECRET: randomBytes(32).toString('hex'), LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '100', WEB_DIST: webDist });
   const app = createApp({ db, config, logger: pino({ level: 'silent' }) });
   const engineer = await db('users').where({ email: 'engineer@alderbay.example' }).first<{ id: string }>('id');
   const [project] = await db('projects')
@@ -121,6 +169,11 @@ try {
     const ok = ms <= measure.targetMs;
     if (!ok) failed = true;
     rows.push(`${ok ? 'ok  ' : 'MISS'} ${measure.name}: median ${ms.toFixed(0)} ms of ${repeats} (target ${measure.targetMs} ms)`);
+  }
+  if (existsSync(path.join(webDist, 'index.html'))) {
+    rows.push(...(await browserFigures(app, project!.id)));
+  } else {
+    rows.push('skip browser figures: build the web app first (npx ng build)');
   }
   console.log(rows.join('\n'));
   await db.destroy();
