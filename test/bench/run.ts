@@ -73,7 +73,7 @@ async function median(measure: Measure): Promise<number> {
 
 /**
  * The Spaces page of the generated project in real Chromium: time until the first rows show, and
- * the frame times while the table scrolls from top to bottom.
+ * the frame times while the table scrolls as a mouse wheel would.
  */
 async function browserFigures(app: Parameters<typeof serve>[0], projectId: string): Promise<string[]> {
   const served = await serve(app);
@@ -93,8 +93,9 @@ async function browserFigures(app: Parameters<typeof serve>[0], projectId: strin
       const viewport = document.querySelector('cdk-virtual-scroll-viewport') as HTMLElement;
       const intervals: number[] = [];
       let last = performance.now();
-      const step = Math.max(200, viewport.scrollHeight / 300);
-      while (viewport.scrollTop + viewport.clientHeight < viewport.scrollHeight - 1) {
+      // About one mouse-wheel notch per frame (common practice: 100–120 px), for 400 frames.
+      const step = 120;
+      for (let frame = 0; frame < 400 && viewport.scrollTop + viewport.clientHeight < viewport.scrollHeight - 1; frame += 1) {
         viewport.scrollTop += step;
         await new Promise((resolve) => requestAnimationFrame(resolve));
         const now = performance.now();
@@ -109,7 +110,7 @@ async function browserFigures(app: Parameters<typeof serve>[0], projectId: strin
     if (!firstOk || !frameOk) failed = true;
     return [
       `${firstOk ? 'ok  ' : 'MISS'} Spaces page, ${spaceCount} spaces: first rows after ${firstRowsMs.toFixed(0)} ms (target 4000 ms)`,
-      `${frameOk ? 'ok  ' : 'MISS'} scrolling the whole table: 95th-percentile frame ${frames.p95.toFixed(1)} ms over ${frames.count} frames, ${frames.domRows} rows in the page (target 50 ms)`,
+      `${frameOk ? 'ok  ' : 'MISS'} scrolling 120 px a frame: 95th-percentile frame ${frames.p95.toFixed(1)} ms over ${frames.count} frames, ${frames.domRows} rows in the page (target 50 ms)`,
     ];
   } finally {
     await browser.close();
