@@ -1,0 +1,80 @@
+/// <reference lib="dom" />
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { testApp } from '../support/app.js';
+import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
+import { freshDatabase, type TestDatabase } from '../support/database.js';
+
+/** Evaluated through the browser's debugging protocol, so the app's own Content-Security-Policy stays in force. */
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+let database: TestDatabase;
+let served: Served;
+let browser: Browser;
+let projectUrl: string;
+
+interface Violation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: { target: string[] }[];
+}
+
+/** axe-core's WCAG 2.1 A/AA rules on the page as it stands; serious and critical findings fail. */
+async function seriousViolations(): Promise<string[]> {
+  const { page } = browser;
+  await page.evaluate(axeSource);
+  const violations = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Violation[]; passes: unknown[] }> } }).axe;
+    const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } });
+    return { violations: result.violations, passed: result.passes.length };
+  });
+  // The rules ran on real content (a blank page would pass every rule by having nothing to check).
+  expect(violations.passed).toBeGreaterThan(5);
+  return violations.violations
+    .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
+    .map((violation) => `${violation.id} (${violation.impact}): ${violation.help} — ${violation.nodes.slice(0, 3).map((node) => node.target.join(' ')).join('; ')}`);
+}
+
+beforeAll(async () => {
+  requireBuiltWebApp();
+  database = await freshDatabase();
+  served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist }).app);
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await served?.close();
+  await database?.drop();
+});
+
+describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
+  it('the sign-in page', async () => {
+    await browser.page.goto(`${served.baseUrl}/sign-in`);
+    await browser.page.getByLabel('E-mail').waitFor();
+    expect(await seriousViolations()).toEqual([]);
+  });
+
+  it('the projects list', async () => {
+    const { page } = browser;
+    await page.getByLabel('E-mail').fill('engineer@alderbay.example');
+    await page.getByLabel('Password', { exact: true }).fill(inject('demoPassword'));
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByTestId('signed-in-user').waitFor();
+    await page.getByText('Alder Bay Library & Makerspace').first().waitFor();
+    const projects = await page.evaluate(async () => (await fetch('/api/projects')).json() as Promise<{ id: string; name: string }[]>);
+    projectUrl = `${served.baseUrl}/projects/${projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id}`;
+    expect(await seriousViolations()).toEqual([]);
+  });
+
+  for (const area of ['setup', 'spaces', 'luminaires', 'controls', 'daylight', 'exterior', 'results']) {
+    it(`the ${area} page`, async () => {
+      const { page } = browser;
+      await page.goto(`${projectUrl}/${area}`);
+      await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
+      expect(await seriousViolations()).toEqual([]);
+    });
+  }
+});
