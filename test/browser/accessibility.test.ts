@@ -77,4 +77,16 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
       expect(await seriousViolations()).toEqual([]);
     });
   }
+
+  it('the workspace in the dark colour scheme', async () => {
+    const { page } = browser;
+    await page.emulateMedia({ colorScheme: 'dark' });
+    for (const area of ['spaces', 'daylight', 'results']) {
+      await page.goto(`${projectUrl}/${area}`);
+      await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
+      expect(await seriousViolations(), area).toEqual([]);
+    }
+    await browser.screenshot('dark-results');
+    await page.emulateMedia({ colorScheme: 'light' });
+  });
 });
