@@ -2,9 +2,9 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { testApp } from '../support/app.js';
-import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
-import { freshDatabase, type TestDatabase } from '../support/database.js';
+import type { Browser, Served } from '../support/browser.js';
+import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
+import type { TestDatabase } from '../support/database.js';
 
 /** Evaluated through the browser's debugging protocol, so the app's own Content-Security-Policy stays in force. */
 const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
@@ -38,17 +38,10 @@ async function seriousViolations(): Promise<string[]> {
 }
 
 beforeAll(async () => {
-  requireBuiltWebApp();
-  database = await freshDatabase();
-  served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist }).app);
-  browser = await launchBrowser();
+  ({ database, served, browser } = await openBrowserSuite());
 });
 
-afterAll(async () => {
-  await browser?.close();
-  await served?.close();
-  await database?.drop();
-});
+afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
   it('the sign-in page', async () => {

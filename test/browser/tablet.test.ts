@@ -1,8 +1,8 @@
 /// <reference lib="dom" />
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { testApp } from '../support/app.js';
-import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
-import { freshDatabase, type TestDatabase } from '../support/database.js';
+import type { Browser, Served } from '../support/browser.js';
+import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
+import type { TestDatabase } from '../support/database.js';
 
 let database: TestDatabase;
 let served: Served;
@@ -10,10 +10,7 @@ let browser: Browser;
 let projectUrl: string;
 
 beforeAll(async () => {
-  requireBuiltWebApp();
-  database = await freshDatabase();
-  served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist }).app);
-  browser = await launchBrowser();
+  ({ database, served, browser } = await openBrowserSuite());
   const { page } = browser;
   // A tablet held upright (common practice for the narrowest layout the workspace supports).
   await page.setViewportSize({ width: 800, height: 1100 });
@@ -26,11 +23,7 @@ beforeAll(async () => {
   projectUrl = `${served.baseUrl}/projects/${projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id}`;
 });
 
-afterAll(async () => {
-  await browser?.close();
-  await served?.close();
-  await database?.drop();
-});
+afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 describe('the workspace at a tablet width (800 px)', () => {
   for (const area of ['spaces', 'luminaires', 'controls', 'daylight', 'exterior', 'results']) {

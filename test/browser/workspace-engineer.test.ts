@@ -5,9 +5,9 @@ import path from 'node:path';
 import ExcelJS from 'exceljs';
 import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
-import { testApp } from '../support/app.js';
-import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
-import { freshDatabase, type TestDatabase } from '../support/database.js';
+import type { Browser, Served } from '../support/browser.js';
+import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
+import type { TestDatabase } from '../support/database.js';
 
 let database: TestDatabase;
 let served: Served;
@@ -16,10 +16,7 @@ let scratch: string;
 let projectUrl = '';
 
 beforeAll(async () => {
-  requireBuiltWebApp();
-  database = await freshDatabase();
-  served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist }).app);
-  browser = await launchBrowser();
+  ({ database, served, browser } = await openBrowserSuite());
   browser.page.setDefaultTimeout(8000);
   scratch = mkdtempSync(path.join(os.tmpdir(), 'allowlight-import-'));
 });
@@ -29,9 +26,7 @@ afterEach(async (context) => {
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await served?.close();
-  await database?.drop();
+  await closeBrowserSuite({ browser, served, database });
   if (scratch) rmSync(scratch, { recursive: true, force: true });
 });
 

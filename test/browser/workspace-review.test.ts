@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { testApp } from '../support/app.js';
-import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
-import { freshDatabase, type TestDatabase } from '../support/database.js';
+import type { Browser, Served } from '../support/browser.js';
+import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
+import type { TestDatabase } from '../support/database.js';
 
 let database: TestDatabase;
 let served: Served;
@@ -11,17 +11,10 @@ let projectUrl: string;
 let strategy: string;
 
 beforeAll(async () => {
-  requireBuiltWebApp();
-  database = await freshDatabase();
-  served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist }).app);
-  browser = await launchBrowser();
+  ({ database, served, browser } = await openBrowserSuite());
 });
 
-afterAll(async () => {
-  await browser?.close();
-  await served?.close();
-  await database?.drop();
-});
+afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 async function signIn(email: string): Promise<void> {
   const { page } = browser;

@@ -1,0 +1,24 @@
+import { testApp } from './app.js';
+import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from './browser.js';
+import { freshDatabase, type TestDatabase } from './database.js';
+
+export interface BrowserSuite {
+  database: TestDatabase;
+  served: Served;
+  browser: Browser;
+}
+
+/** For one browser test file: a copy of the seeded database, the app serving the built web app on it, and Chromium. */
+export async function openBrowserSuite(): Promise<BrowserSuite> {
+  requireBuiltWebApp();
+  const database = await freshDatabase();
+  const served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist }).app);
+  const browser = await launchBrowser();
+  return { database, served, browser };
+}
+
+export async function closeBrowserSuite(suite: Partial<BrowserSuite>): Promise<void> {
+  await suite.browser?.close();
+  await suite.served?.close();
+  await suite.database?.drop();
+}
