@@ -237,6 +237,20 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await browser.screenshot('spaces-tablet');
     await page.setViewportSize({ width: 1280, height: 800 });
   });
+
+  it('switches the project to SI units and sees the stored areas converted', async () => {
+    const { page } = browser;
+    await page.getByRole('link', { name: 'Set-up' }).click();
+    await page.getByText('Changing the units converts every stored length and area').waitFor();
+    await page.getByRole('radio', { name: /^SI/ }).check();
+    await page.getByRole('button', { name: 'Save set-up' }).click();
+    await expect.poll(() => page.getByRole('button', { name: 'Save set-up' }).isDisabled()).toBe(true);
+    await page.getByRole('link', { name: 'Spaces' }).click();
+    await page.getByText('Area (m²)').first().waitFor();
+    // 200 ft² × 0.09290304 m²/ft² = 18.580608 m² (mathjs units), shown to 0.1 m².
+    await expect.poll(() => page.locator('[data-space-id]', { hasText: 'Harbour office' }).textContent()).toContain('18.6');
+    await expect.poll(() => page.locator('[data-space-id]', { hasText: 'Harbour office' }).textContent()).toContain('Over allowance by 92\u00a0W');
+  });
 });
 
 describe('a reviewer reads the same project', { timeout: 60_000 }, () => {

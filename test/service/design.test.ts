@@ -159,10 +159,47 @@ describe('design data with optimistic locking', () => {
     expect(document.body.exterior).toEqual({ lightingZone: '2', applications: [] });
   });
 
-  it('refuses a change of units once spaces exist', async () => {
+  it('converts every stored length and area when the units change, and back again without loss', async () => {
+    await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'parking-lots-and-drives', quantity: '1000', installedWatts: '30' });
+    await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'pedestrian-and-vehicular-entrances-and-exits', quantity: '12', installedWatts: '100' });
+    const before = (await engineer.agent.get(`/api/projects/${projectId}/results`)).body;
     const detail = await engineer.agent.get(`/api/projects/${projectId}`);
-    const response = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version, units: 'si' });
-    expect(response.status).toBe(409);
+    const toSi = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version, units: 'si' });
+    expect(toSi.status).toBe(200);
+    expect(toSi.body.units).toBe('si');
+
+    // 1 ft = 0.3048 m and 1 ft² = 0.09290304 m² exactly (mathjs units).
+    const exam = (await engineer.agent.get(`/api/projects/${projectId}/spaces/${spaceId}`)).body;
+    expect(exam).toMatchObject({ area: '11.61288', length: '3.6576', width: '3.048', ceilingHeight: '2.7432' }); // 125 ft², 12 ft, 10 ft, 9 ft
+    expect(exam.windows[0]).toMatchObject({ width: '1.2192', headHeight: '2.1336', offset: '1.2192' }); // 4 ft, 7 ft, 4 ft
+    expect(exam.controls[0].zoneSize).toBe('11.1483648'); // 120 ft²
+    const exterior = (await engineer.agent.get(`/api/projects/${projectId}/exterior-applications`)).body;
+    expect(exterior.map((application: { key: string; quantity: string }) => [application.key, application.quantity])).toEqual([
+      ['parking-lots-and-drives', '92.90304'], // 1,000 ft² (priced per ft²)
+      ['pedestrian-and-vehicular-entrances-and-exits', '3.6576'], // 12 ft of door width (priced per linear ft)
+    ]);
+
+    const after = (await engineer.agent.get(`/api/projects/${projectId}/results`)).body;
+    expect(after.units).toBe('si');
+    expect(after.complies).toBe(before.complies);
+    expect(after.interior.allowanceW).toBe(before.interior.allowanceW);
+    expect(after.interior.installedW).toBe(before.interior.installedW);
+    expect(after.exterior.allowanceW).toBe(before.exterior.allowanceW);
+
+    const back = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: toSi.body.version, units: 'ip' });
+    expect(back.status).toBe(200);
+    const restored = (await engineer.agent.get(`/api/projects/${projectId}/spaces/${spaceId}`)).body;
+    expect(restored).toMatchObject({ area: '125', length: '12', width: '10', ceilingHeight: '9' });
+    expect(restored.controls[0].zoneSize).toBe('120');
+  });
+
+  it('keeps the units and every value when the set-up write is stale', async () => {
+    const detail = await engineer.agent.get(`/api/projects/${projectId}`);
+    const stale = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version - 1, units: 'si' });
+    expect(stale.status).toBe(409);
+    const exam = (await engineer.agent.get(`/api/projects/${projectId}/spaces/${spaceId}`)).body;
+    expect(exam.area).toBe('125');
+    expect((await engineer.agent.get(`/api/projects/${projectId}`)).body.units).toBe('ip');
     const rename = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version, name: 'Cedar Row Clinic, phase 1' });
     expect(rename.body).toMatchObject({ name: 'Cedar Row Clinic, phase 1', version: detail.body.version + 1 });
   });

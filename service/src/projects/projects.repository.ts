@@ -140,9 +140,17 @@ export async function createProject(db: Database, input: ProjectCreate, userId: 
   });
 }
 
-export async function updateProjectSetup(db: Database, projectId: string, patch: ProjectSetupPatch, userId: string): Promise<void> {
+/** Saves the set-up at the version read; `alongside` runs in the same transaction once the version has checked out. */
+export async function updateProjectSetup(
+  db: Database,
+  projectId: string,
+  patch: ProjectSetupPatch,
+  userId: string,
+  alongside?: (trx: Knex.Transaction) => Promise<void>,
+): Promise<void> {
   const { version, ...fields } = patch;
   await db.transaction(async (trx) => {
     await updateVersioned(trx, 'projects', { id: projectId }, version, setupColumns(fields), userId, 'The project set-up');
+    if (alongside) await alongside(trx);
   });
 }

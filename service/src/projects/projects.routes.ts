@@ -1,4 +1,6 @@
 import { Router } from 'express';
+import type { Knex } from 'knex';
+import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import { editionIds, type EditionId } from '../compliance/edition-data.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
@@ -7,6 +9,7 @@ import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
 import { createProject, getProjectDetail, listProjectsFor, updateProjectSetup } from './projects.repository.js';
 import { projectCreateSchema, projectSetupPatchSchema } from './projects.schema.js';
+import { convertProjectUnits } from './unit-conversion.js';
 
 function assertEdition(edition: string | undefined): void {
   if (edition !== undefined && !editionIds.includes(edition as EditionId)) {
@@ -40,16 +43,17 @@ export function projectsRouter(db: Database): Router {
     const access = req.projectAccess!;
     const patch = parse(projectSetupPatchSchema, req.body);
     assertEdition(patch.edition);
-    if (patch.units !== undefined) {
-      const current = await getProjectDetail(db, access.projectId, access.role);
-      const hasData = await db('spaces').where({ project_id: access.projectId }).first('id');
-      if (patch.units !== current.units && hasData) {
-        throw AppError.conflict('The units cannot change once spaces are entered: every stored length and area is in the units it was entered in.', [
-          { path: 'units', message: `This project is in ${current.units.toUpperCase()} units.` },
-        ]);
-      }
+    const current = await getProjectDetail(db, access.projectId, access.role);
+    const to = patch.units;
+    // A change of units converts every stored length and area with it, in the same transaction.
+    let convert: ((trx: Knex.Transaction) => Promise<void>) | undefined;
+    if (to !== undefined && to !== current.units) {
+      const editionId = patch.edition ?? current.edition;
+      const edition = editionId ? await loadEditionData(db, editionId) : undefined;
+      const exteriorUnits = new Map((edition?.exteriorApplications ?? []).map((application) => [application.key, application.unit]));
+      convert = (trx) => convertProjectUnits(trx, access.projectId, current.units, to, exteriorUnits);
     }
-    await updateProjectSetup(db, access.projectId, patch, currentSession(req).user.id);
+    await updateProjectSetup(db, access.projectId, patch, currentSession(req).user.id, convert);
     res.json(await getProjectDetail(db, access.projectId, access.role));
   });
 

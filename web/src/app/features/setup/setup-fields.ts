@@ -32,7 +32,8 @@ export class SetupFields {
   readonly form = input.required<SetupForm>();
   readonly section = input.required<SetupSection>();
   /** Units are fixed once spaces exist (the service refuses the change). */
-  readonly unitsLocked = input(false);
+  /** The project already holds lengths and areas, which a change of units converts. */
+  readonly convertsData = input(false);
 
   protected readonly methodLabels = methodLabels;
   protected readonly errorMessage = errorMessage;

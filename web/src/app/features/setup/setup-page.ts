@@ -28,7 +28,7 @@ export class SetupPage implements HasUnsavedChanges {
   protected readonly form = setupForm();
   protected readonly saving = signal(false);
   protected readonly failure = signal<string | null>(null);
-  protected readonly unitsLocked = computed(() => this.store.spaces().length > 0);
+  protected readonly hasDesignData = computed(() => this.store.spaces().length > 0 || this.store.exterior().length > 0);
   protected readonly teamBusy = signal(false);
   protected readonly teamError = signal<string | null>(null);
 
@@ -36,12 +36,10 @@ export class SetupPage implements HasUnsavedChanges {
     effect(() => {
       const project = this.store.project();
       const canEdit = this.store.canEdit();
-      const locked = this.unitsLocked();
       untracked(() => {
         if (project && !this.form.dirty) fillSetup(this.form, project);
         if (canEdit) this.form.enable({ emitEvent: false });
         else this.form.disable({ emitEvent: false });
-        if (locked) this.form.controls.code.controls.units.disable({ emitEvent: false });
       });
     });
   }
@@ -64,7 +62,9 @@ export class SetupPage implements HasUnsavedChanges {
         this.saving.set(false);
         this.form.markAsPristine();
         fillSetup(this.form, updated);
-        this.store.setProject(updated);
+        // New units come with every stored length and area converted: read the design again.
+        if (updated.units !== project.units) this.store.load(updated.id).subscribe();
+        else this.store.setProject(updated);
       },
       error: (error: unknown) => {
         this.saving.set(false);
