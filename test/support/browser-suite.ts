@@ -17,8 +17,12 @@ export async function openBrowserSuite(): Promise<BrowserSuite> {
   return { database, served, browser };
 }
 
+/** Closes everything; errors the page reported are thrown after the server and database are gone. */
 export async function closeBrowserSuite(suite: Partial<BrowserSuite>): Promise<void> {
-  await suite.browser?.close();
-  await suite.served?.close();
-  await suite.database?.drop();
+  try {
+    await suite.browser?.close();
+  } finally {
+    await suite.served?.close();
+    await suite.database?.drop();
+  }
 }

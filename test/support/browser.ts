@@ -61,6 +61,13 @@ export async function launchBrowser(): Promise<Browser> {
     viewport: { width: 1280, height: 800 },
   });
   const page = context.pages()[0] ?? (await context.newPage());
+  // Uncaught exceptions and console errors fail the file when the browser closes. Refused requests
+  // (a 401 on a wrong password, a 409 on a stale write) are expected, and are the page's to show.
+  const errors: string[] = [];
+  page.on('pageerror', (error) => errors.push(`uncaught: ${error.message}`));
+  page.on('console', (message) => {
+    if (message.type() === 'error' && !message.text().startsWith('Failed to load resource')) errors.push(`console: ${message.text()}`);
+  });
   mkdirSync(outputDir, { recursive: true });
   return {
     context,
@@ -73,6 +80,7 @@ export async function launchBrowser(): Promise<Browser> {
     async close() {
       await context.close();
       rmSync(profile, { recursive: true, force: true });
+      if (errors.length > 0) throw new Error(`The page reported errors:\n${errors.join('\n')}`);
     },
   };
 }
