@@ -3,6 +3,7 @@ import * as usersProjectsAudit from './20261201000100_users_projects_audit.js';
 import * as codeTables from './20261201000200_code_tables.js';
 import * as projectDesign from './20261201000300_project_design.js';
 import * as lightReductionExemptions from './20261201000400_light_reduction_exemptions.js';
+import * as projectResultSummary from './20261201000500_project_result_summary.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -15,6 +16,7 @@ const migrations: Record<string, Migration> = {
   '20261201000200_code_tables': codeTables,
   '20261201000300_project_design': projectDesign,
   '20261201000400_light_reduction_exemptions': lightReductionExemptions,
+  '20261201000500_project_result_summary': projectResultSummary,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -82,3 +82,24 @@ describe('unknown API routes', () => {
     expect(response.body.error.code).toBe('not_found');
   });
 });
+
+describe('the verdict kept for the project list', () => {
+  it('appears after an evaluation and is cleared by the next design change', async () => {
+    const engineer = await signIn(app, 'engineer@alderbay.example');
+    const demo = (await engineer.agent.get('/api/projects')).body.find((project: { name: string }) => project.name === 'Alder Bay Library & Makerspace');
+    expect(demo.resultSummary).toBeNull();
+
+    const results = await engineer.agent.get(`/api/projects/${demo.id}/results`);
+    const listed = (await engineer.agent.get('/api/projects')).body.find((project: { id: string }) => project.id === demo.id);
+    expect(listed.resultSummary).toEqual({ complies: results.body.complies, marginPct: results.body.interior.marginPct, dataVersion: results.body.dataVersion });
+
+    const types = (await engineer.agent.get(`/api/projects/${demo.id}/luminaire-types`)).body;
+    const type = types.find((candidate: { tag: string }) => candidate.tag === 'A');
+    await engineer.agent
+      .put(`/api/projects/${demo.id}/luminaire-types/${type.id}`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ ...type, inputWatts: '34' });
+    const afterChange = (await engineer.agent.get('/api/projects')).body.find((project: { id: string }) => project.id === demo.id);
+    expect(afterChange.resultSummary).toBeNull();
+  });
+});

@@ -451,5 +451,5 @@ export async function deleteExteriorApplication(db: Database, projectId: string,
 
 /** Any design write marks the project as changed, so lists sort by it. */
 async function touchProject(trx: Knex, projectId: string): Promise<void> {
-  await trx('projects').where({ id: projectId }).update({ updated_at: trx.fn.now() });
+  await trx('projects').where({ id: projectId }).update({ updated_at: trx.fn.now(), result_summary: null });
 }

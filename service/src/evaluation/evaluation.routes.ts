@@ -4,6 +4,7 @@ import { projectDocument } from '../design/project-document.js';
 import { requireProjectAction } from '../http/project-access.js';
 import { evaluateDocument } from './evaluation.service.js';
 import { openApiDocument } from './openapi.js';
+import { keepResultSummary } from '../projects/projects.repository.js';
 
 /** `POST /api/evaluate`: stateless, stores nothing. */
 export function evaluateRouter(db: Database): Router {
@@ -18,8 +19,12 @@ export function evaluateRouter(db: Database): Router {
 export function projectResultsRouter(db: Database): Router {
   const router = Router({ mergeParams: true });
   router.get('/results', requireProjectAction(db, 'read'), async (req, res) => {
-    const document = await projectDocument(db, req.projectAccess!.projectId);
-    res.json(await evaluateDocument(db, document));
+    const projectId = req.projectAccess!.projectId;
+    // Read as text: a JavaScript Date would drop the microseconds the comparison below needs.
+    const { design_at: designAt } = await db('projects').where({ id: projectId }).first<{ design_at: string }>(db.raw('updated_at::text as design_at'));
+    const result = await evaluateDocument(db, await projectDocument(db, projectId));
+    await keepResultSummary(db, projectId, designAt, { complies: result.complies, marginPct: result.interior.marginPct, dataVersion: result.dataVersion });
+    res.json(result);
   });
   return router;
 }

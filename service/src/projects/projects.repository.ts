@@ -6,6 +6,13 @@ import type { ProjectRole } from '../db/tables.js';
 import { AppError } from '../http/app-error.js';
 import type { ProjectCreate, ProjectSetupPatch } from './projects.schema.js';
 
+/** The last evaluation's verdict, kept for lists; null until the project is evaluated after its latest change. */
+export interface ResultSummary {
+  complies: boolean;
+  marginPct: string | null;
+  dataVersion: string;
+}
+
 export interface ProjectSummary {
   id: string;
   name: string;
@@ -15,6 +22,7 @@ export interface ProjectSummary {
   method: string | null;
   version: number;
   updatedAt: string;
+  resultSummary: ResultSummary | null;
 }
 
 export interface ProjectDetail extends ProjectSummary {
@@ -44,6 +52,7 @@ interface ProjectRow {
   method: string | null;
   units: 'ip' | 'si';
   lighting_zone: number | null;
+  result_summary: ResultSummary | null;
   updated_by_name: string | null;
 }
 
@@ -57,7 +66,7 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
     .leftJoin('project_members as m', function joinMembership() {
       this.on('m.project_id', '=', 'p.id').andOn('m.user_id', '=', db.raw('?', [userId]));
     })
-    .select<(Pick<ProjectRow, 'id' | 'name' | 'state' | 'version' | 'updated_at' | 'edition_id' | 'method'> & { role: ProjectRole | null })[]>(
+    .select<(Pick<ProjectRow, 'id' | 'name' | 'state' | 'version' | 'updated_at' | 'edition_id' | 'method' | 'result_summary'> & { role: ProjectRole | null })[]>(
       'p.id',
       'p.name',
       'p.state',
@@ -65,6 +74,7 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
       'p.updated_at',
       'p.edition_id',
       'p.method',
+      'p.result_summary',
       'm.role',
     )
     .orderBy('p.name');
@@ -80,6 +90,7 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
     method: row.method,
     version: row.version,
     updatedAt: row.updated_at.toISOString(),
+    resultSummary: row.result_summary,
   }));
 }
 
@@ -103,6 +114,7 @@ export async function getProjectDetail(db: Knex, projectId: string, role: Projec
     method: row.method,
     version: row.version,
     updatedAt: row.updated_at.toISOString(),
+    resultSummary: row.result_summary,
     address: row.address,
     latitude: plain(row.latitude),
     longitude: plain(row.longitude),
@@ -131,6 +143,14 @@ function setupColumns(input: Partial<ProjectCreate>): Record<string, unknown> {
   return Object.fromEntries(Object.entries(columns).filter(([, value]) => value !== undefined));
 }
 
+/**
+ * Keeps the verdict of an evaluation for the project list, unless the design changed while it was
+ * being computed (then the stored project no longer matches and nothing is kept).
+ */
+export async function keepResultSummary(db: Database, projectId: string, designAt: string, summary: ResultSummary): Promise<void> {
+  await db('projects').where({ id: projectId }).whereRaw('updated_at = ?::timestamptz', [designAt]).update({ result_summary: JSON.stringify(summary) });
+}
+
 /** A new project; its creator is its engineer. */
 export async function createProject(db: Database, input: ProjectCreate, userId: string): Promise<string> {
   return db.transaction(async (trx) => {
@@ -150,7 +170,7 @@ export async function updateProjectSetup(
 ): Promise<void> {
   const { version, ...fields } = patch;
   await db.transaction(async (trx) => {
-    await updateVersioned(trx, 'projects', { id: projectId }, version, setupColumns(fields), userId, 'The project set-up');
+    await updateVersioned(trx, 'projects', { id: projectId }, version, { ...setupColumns(fields), result_summary: null }, userId, 'The project set-up');
     if (alongside) await alongside(trx);
   });
 }

@@ -31,6 +31,8 @@ export interface ProjectSummary {
   method: ComplianceMethod | null;
   version: number;
   updatedAt: string;
+  /** The last evaluation's verdict; null until the project is evaluated after its latest change. */
+  resultSummary: { complies: boolean; marginPct: string | null; dataVersion: string } | null;
 }
 
 export interface ProjectMember {

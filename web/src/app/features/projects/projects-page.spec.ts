@@ -9,9 +9,9 @@ import { ProjectsPage } from './projects-page';
 
 // Invented demo projects.
 const projects: ProjectSummary[] = [
-  { id: 'p1', name: 'Cedar Hall', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', version: 1, updatedAt: '2026-03-01T10:00:00Z' },
-  { id: 'p2', name: 'Alder Bay Library', state: 'in-review', role: 'reviewer', edition: 'iecc-2021', method: 'space-by-space', version: 3, updatedAt: '2026-03-02T10:00:00Z' },
-  { id: 'p3', name: 'Birch Annex', state: 'accepted', role: 'engineer', edition: 'ashrae-90.1-2019', method: 'building-area', version: 2, updatedAt: '2026-03-03T10:00:00Z' },
+  { id: 'p1', name: 'Cedar Hall', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', version: 1, updatedAt: '2026-03-01T10:00:00Z', resultSummary: null },
+  { id: 'p2', name: 'Alder Bay Library', state: 'in-review', role: 'reviewer', edition: 'iecc-2021', method: 'space-by-space', version: 3, updatedAt: '2026-03-02T10:00:00Z', resultSummary: null },
+  { id: 'p3', name: 'Birch Annex', state: 'accepted', role: 'engineer', edition: 'ashrae-90.1-2019', method: 'building-area', version: 2, updatedAt: '2026-03-03T10:00:00Z', resultSummary: null },
 ];
 
 describe('ProjectsPage', () => {
@@ -19,7 +19,7 @@ describe('ProjectsPage', () => {
   let http: HttpTestingController;
   let element: HTMLElement;
 
-  beforeEach(async () => {
+  async function render(list: ProjectSummary[]): Promise<void> {
     TestBed.configureTestingModule({
       imports: [ProjectsPage],
       providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting()],
@@ -28,9 +28,11 @@ describe('ProjectsPage', () => {
     http = TestBed.inject(HttpTestingController);
     element = fixture.nativeElement as HTMLElement;
     await fixture.whenStable();
-    http.expectOne('/api/projects').flush(projects);
+    http.expectOne('/api/projects').flush(list);
     await fixture.whenStable();
-  });
+  }
+
+  beforeEach(() => render(projects));
 
   const names = () => Array.from(element.querySelectorAll('.project-link')).map((link) => link.textContent?.trim());
 
@@ -52,6 +54,15 @@ describe('ProjectsPage', () => {
     expect(text).toContain('Does not comply');
     expect(text).toContain('Design incomplete');
     expect(element.querySelectorAll('.verdict mat-icon').length).toBe(3);
+  });
+
+  it('shows a kept verdict without evaluating that project again', async () => {
+    TestBed.resetTestingModule();
+    await render([{ ...projects[0]!, resultSummary: { complies: true, marginPct: '7.25', dataVersion: 'v1' } }]);
+    const pending = http.match((request) => request.url.endsWith('/results'));
+    expect(pending.length).toBe(0);
+    expect(element.textContent).toContain('7.3');
+    expect(element.textContent).toContain('Complies');
   });
 
   it('sorts by a column header and filters by text', async () => {

@@ -123,8 +123,15 @@ export class ProjectsPage {
     return this.verdicts().get(id) ?? { status: 'pending' };
   }
 
+  /** Kept verdicts come with the list; only projects changed since their last evaluation are evaluated now. */
   private loadVerdicts(projects: ProjectSummary[]): void {
-    from(projects.filter((project) => project.edition))
+    const kept = new Map<string, ProjectVerdict>();
+    for (const project of projects) {
+      const summary = project.resultSummary;
+      if (summary) kept.set(project.id, { status: summary.complies ? 'complies' : 'does-not-comply', marginPct: summary.marginPct });
+    }
+    this.verdicts.set(kept);
+    from(projects.filter((project) => project.edition && !project.resultSummary))
       .pipe(
         mergeMap(
           (project) =>
