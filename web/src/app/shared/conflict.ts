@@ -1,6 +1,7 @@
 import { inject, Injectable } from '@angular/core';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { ApiError } from '../core/http/api-error';
+import type { AbstractControl } from '@angular/forms';
+import { ApiError, type ApiErrorDetail } from '../core/http/api-error';
 
 /**
  * How the workspace answers a failed write. A 409 says who changed the record and offers to reload
@@ -32,4 +33,25 @@ export function fieldErrors(error: unknown, prefix = ''): Record<string, string>
     errors[path] ??= detail.message;
   }
   return errors;
+}
+
+/**
+ * Puts each 400 detail beside its field (as a `server` error the field's message shows) and
+ * returns the messages no field of the form takes. `controlFor` maps a service path to a control.
+ */
+export function placeServerErrors(details: readonly ApiErrorDetail[], controlFor: (path: string) => AbstractControl | null): ApiErrorDetail[] {
+  const unplaced: ApiErrorDetail[] = [];
+  const placed = new Set<string>();
+  for (const detail of details) {
+    const control = controlFor(detail.path);
+    if (control && placed.has(detail.path)) continue; // the first message for a field is the one to fix first
+    if (control) {
+      placed.add(detail.path);
+      control.setErrors({ server: detail.message });
+      control.markAsTouched();
+    } else {
+      unplaced.push(detail);
+    }
+  }
+  return unplaced;
 }

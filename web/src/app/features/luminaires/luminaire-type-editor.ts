@@ -11,7 +11,7 @@ import { MatSelectModule } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import type { LuminaireTypeRecord, UnitSystem } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { fieldErrors, WriteFailure } from '../../shared/conflict';
+import { placeServerErrors, WriteFailure } from '../../shared/conflict';
 import { unitLabels } from '../../shared/format';
 import { fieldMessage } from '../spaces/space-form';
 import { WorkspaceApi } from '../workspace/workspace-api';
@@ -90,15 +90,8 @@ export class LuminaireTypeEditor {
       error: (error: unknown) => {
         this.saving.set(false);
         if (error instanceof ApiError && error.status === 400) {
-          const unplaced: string[] = [];
-          for (const [path, message] of Object.entries(fieldErrors(error))) {
-            const control = this.form.get(path);
-            if (control) {
-              control.setErrors({ server: message });
-              control.markAsTouched();
-            } else unplaced.push(message);
-          }
-          this.failure.set(unplaced.length ? unplaced.join(' ') : null);
+          const unplaced = placeServerErrors(error.details, (path) => this.form.get(path));
+          this.failure.set(unplaced.length ? unplaced.map((detail) => detail.message).join(' ') : null);
           return;
         }
         // A duplicate tag is a 409 with the tag path: that belongs beside the field, not in a reload offer.

@@ -1,6 +1,7 @@
 import { FormControl, FormGroup, Validators, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
 import type { ComplianceMethod, EditionId, ProjectDetail, ProjectSetup, UnitSystem } from '../../core/api/api-types';
 import type { ApiErrorDetail } from '../../core/http/api-error';
+import { placeServerErrors } from '../../shared/conflict';
 
 /** The same ranges the service checks (projects.schema.ts): a plain decimal between the bounds. */
 export function decimalBetween(min: number, max: number, what: string): ValidatorFn {
@@ -97,18 +98,10 @@ export function fillSetup(form: SetupForm, project: ProjectDetail): void {
 
 /** Puts the service's 400 messages beside the fields they name; returns those it could not place. */
 export function showServerErrors(form: SetupForm, details: readonly ApiErrorDetail[]): ApiErrorDetail[] {
-  const unplaced: ApiErrorDetail[] = [];
-  for (const detail of details) {
-    const group = fieldGroups[detail.path];
-    const control = group ? form.get([group, detail.path]) : null;
-    if (control) {
-      control.setErrors({ server: detail.message });
-      control.markAsTouched();
-    } else {
-      unplaced.push(detail);
-    }
-  }
-  return unplaced;
+  return placeServerErrors(details, (path) => {
+    const group = fieldGroups[path];
+    return group ? form.get([group, path]) : null;
+  });
 }
 
 /** The first message for a control, in the order a person would fix them. */

@@ -12,7 +12,7 @@ import { MatSelectModule } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { fieldErrors, WriteFailure } from '../../shared/conflict';
+import { placeServerErrors, WriteFailure } from '../../shared/conflict';
 import { formatDensity, unitLabels } from '../../shared/format';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { WorkspaceApi } from '../workspace/workspace-api';
@@ -97,15 +97,8 @@ export class SpaceEditor {
       error: (error: unknown) => {
         this.saving.set(false);
         if (error instanceof ApiError && error.status === 400) {
-          const unplaced: string[] = [];
-          for (const [path, message] of Object.entries(fieldErrors(error))) {
-            const control = this.form.get(path);
-            if (control) {
-              control.setErrors({ server: message });
-              control.markAsTouched();
-            } else unplaced.push(message);
-          }
-          this.failure.set(unplaced.length ? unplaced.join(' ') : null);
+          const unplaced = placeServerErrors(error.details, (path) => this.form.get(path));
+          this.failure.set(unplaced.length ? unplaced.map((detail) => detail.message).join(' ') : null);
           return;
         }
         this.writeFailure.report(error, () => {
