@@ -55,9 +55,9 @@ describe('validateDocument', () => {
     const outcome = validateDocument(document, ashrae2019);
     expect(outcome.problems).toEqual(
       expect.arrayContaining([
-        { path: 'spaces.0.area', message: '"twelve" is not a decimal number.' },
-        { path: 'spaces.0.ceilingHeight', message: 'Must not be negative.' },
-        { path: 'luminaireTypes.0.inputWatts', message: 'Must be a finite number.' },
+        { path: 'spaces.0.area', message: '“twelve” is not a number. Enter a number greater than 0 and at most 5,000,000.' },
+        { path: 'spaces.0.ceilingHeight', message: 'Must not be negative. Enter a number greater than 0 and at most 1,000.' },
+        { path: 'luminaireTypes.0.inputWatts', message: 'Must be a finite number. Enter a number from 0 to 100,000.' },
       ]),
     );
   });

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { EditionData } from './edition-data.js';
+import { decimalField, documentLimits, listLimit, ranges, textField, textLimits } from './bounds.js';
 import { dec } from './numbers.js';
 
 /**
@@ -14,46 +15,9 @@ import { dec } from './numbers.js';
  * `x`/`y` is its south-west corner. Absent offsets and positions centre the opening.
  */
 
-const decimalPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
-
-type Bound = 'non-negative' | 'positive';
-
-function quantity(bound: Bound, integer = false) {
-  // z.custom rather than z.number(), so that NaN and Infinity reach the transform and get a message of their own.
-  const numberOrText = z.custom<string | number>((value) => typeof value === 'string' || typeof value === 'number', {
-    message: 'Must be a decimal number, as a string or a number.',
-  });
-  return numberOrText.transform((value, ctx) => {
-    const raw = typeof value === 'number' ? String(value) : value.trim();
-    if (typeof value === 'number' && !Number.isFinite(value)) {
-      ctx.addIssue({ code: 'custom', message: 'Must be a finite number.' });
-      return z.NEVER;
-    }
-    if (!decimalPattern.test(raw)) {
-      ctx.addIssue({ code: 'custom', message: `"${raw}" is not a decimal number.` });
-      return z.NEVER;
-    }
-    const parsed = dec(raw);
-    if (parsed.isNegative() && !parsed.isZero()) {
-      ctx.addIssue({ code: 'custom', message: 'Must not be negative.' });
-      return z.NEVER;
-    }
-    if (bound === 'positive' && parsed.isZero()) {
-      ctx.addIssue({ code: 'custom', message: 'Must be greater than zero.' });
-      return z.NEVER;
-    }
-    if (integer && !parsed.isInteger()) {
-      ctx.addIssue({ code: 'custom', message: 'Must be a whole number.' });
-      return z.NEVER;
-    }
-    return parsed.toFixed();
-  });
-}
-
-const nonNegative = quantity('non-negative');
-const positive = quantity('positive');
-const wholeCount = quantity('non-negative', true);
-const key = z.string().trim().min(1, 'Required.');
+const key = textField(textLimits.key, { required: true });
+const tag = textField(textLimits.tag, { required: true });
+const note = textField(textLimits.note, { required: true, multiline: true });
 
 export const luminaireUses = ['general', 'decorative', 'display', 'exempt'] as const;
 export const wattageBases = ['rated', 'line-voltage-track', 'low-voltage-track', 'current-limited'] as const;
@@ -69,87 +33,87 @@ export const controlExceptionReasons = [
 ] as const;
 
 export const luminaireTypeSchema = z.object({
-  tag: key,
-  description: z.string().default(''),
+  tag,
+  description: textField(textLimits.description).default(''),
   /** Rated input watts per luminaire (for track: the specified watts of the luminaires on one run). */
-  inputWatts: nonNegative,
+  inputWatts: decimalField(ranges.luminaireWatts),
   use: z.enum(luminaireUses),
-  exemptReason: z.string().trim().min(1).optional(),
+  exemptReason: note.optional(),
   basis: z.enum(wattageBases).default('rated'),
   /** Track or busway run length, ft or m. */
-  length: positive.optional(),
+  length: decimalField(ranges.length).optional(),
   /** Rating of the current limiter, breaker or transformer, W. */
-  limitWatts: positive.optional(),
+  limitWatts: decimalField(ranges.limitWatts).optional(),
 });
 
 export const luminaireGroupSchema = z.object({
-  tag: key,
-  count: wholeCount,
+  tag,
+  count: decimalField(ranges.count),
   zone: z.enum(daylightZoneKinds).optional(),
 });
 
 export const controlSchema = z.object({
   strategy: key,
   provided: z.boolean(),
-  timeoutMinutes: nonNegative.optional(),
+  timeoutMinutes: decimalField(ranges.timeoutMinutes).optional(),
   /** Floor area one device or zone of this control serves, ft² or m² (checked against the strategy's zone size limit where one is stated). */
-  zoneSize: positive.optional(),
+  zoneSize: decimalField(ranges.area).optional(),
   /** For occupant sensors: how lighting turns on. 'partial' means automatic-on to at most 50 %. */
   autoOn: z.enum(['manual', 'partial', 'full']).optional(),
   exceptionReason: z.enum(controlExceptionReasons).optional(),
-  exceptionNote: z.string().trim().min(1).optional(),
-  device: z.string().optional(),
+  exceptionNote: note.optional(),
+  device: textField(textLimits.device).optional(),
 });
 
 export const windowSchema = z.object({
-  width: positive,
-  headHeight: positive,
-  sillHeight: nonNegative.optional(),
-  offset: nonNegative.optional(),
+  width: decimalField(ranges.length),
+  headHeight: decimalField(ranges.height),
+  sillHeight: decimalField(ranges.heightAboveFloor).optional(),
+  offset: decimalField(ranges.offset).optional(),
   wall: z.enum(walls).default('south'),
 });
 
 export const skylightSchema = z.object({
-  length: positive,
-  width: positive,
-  x: nonNegative.optional(),
-  y: nonNegative.optional(),
+  length: decimalField(ranges.length),
+  width: decimalField(ranges.length),
+  x: decimalField(ranges.offset).optional(),
+  y: decimalField(ranges.offset).optional(),
 });
 
 export const spaceSchema = z.object({
   id: key,
-  name: key,
-  level: z.string().trim().min(1).optional(),
+  name: textField(textLimits.name, { required: true }),
+  level: textField(textLimits.level, { required: true }).optional(),
   spaceType: key.optional(),
   buildingAreaType: key.optional(),
   /** Building area method only: the space type whose control requirements apply. */
   controlSpaceType: key.optional(),
-  area: positive,
-  ceilingHeight: positive.optional(),
-  length: positive.optional(),
-  width: positive.optional(),
+  area: decimalField(ranges.area),
+  ceilingHeight: decimalField(ranges.height).optional(),
+  length: decimalField(ranges.length).optional(),
+  width: decimalField(ranges.length).optional(),
   /** Luminaire height above the floor; the ceiling height when absent. */
-  luminaireHeight: nonNegative.optional(),
+  luminaireHeight: decimalField(ranges.heightAboveFloor).optional(),
   /** Work plane above the floor; 2.5 ft when absent (common practice). */
-  workPlaneHeight: nonNegative.optional(),
+  workPlaneHeight: decimalField(ranges.heightAboveFloor).optional(),
   enclosed: z.boolean().optional(),
-  luminaires: z.array(luminaireGroupSchema).default([]),
-  controls: z.array(controlSchema).default([]),
-  windows: z.array(windowSchema).default([]),
-  skylights: z.array(skylightSchema).default([]),
+  luminaires: z.array(luminaireGroupSchema).max(documentLimits.luminaireGroupsPerSpace, listLimit(documentLimits.luminaireGroupsPerSpace, 'luminaire types in one space')).default([]),
+  controls: z.array(controlSchema).max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls in one space')).default([]),
+  windows: z.array(windowSchema).max(documentLimits.windowsPerSpace, listLimit(documentLimits.windowsPerSpace, 'windows in one space')).default([]),
+  skylights: z.array(skylightSchema).max(documentLimits.skylightsPerSpace, listLimit(documentLimits.skylightsPerSpace, 'skylights in one space')).default([]),
 });
 
 export const exteriorApplicationEntrySchema = z.object({
   key,
   /** ft² (m²), linear ft (m) or a count, as the application's unit says. */
-  quantity: nonNegative,
-  installedWatts: nonNegative,
-  controls: z.array(controlSchema).default([]),
+  quantity: decimalField(ranges.exteriorQuantity),
+  installedWatts: decimalField(ranges.exteriorWatts),
+  controls: z.array(controlSchema).max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls on one application')).default([]),
 });
 
 export const exteriorSchema = z.object({
-  lightingZone: z.union([z.string(), z.number()]).transform((zone) => String(zone).trim()),
-  applications: z.array(exteriorApplicationEntrySchema).default([]),
+  lightingZone: z.union([z.string().max(10, 'Give the lighting zone as a number from 0 to 4.'), z.number()]).transform((zone) => String(zone).trim()),
+  applications: z.array(exteriorApplicationEntrySchema).max(documentLimits.exteriorApplications, listLimit(documentLimits.exteriorApplications, 'exterior applications')).default([]),
 });
 
 export const retailDisplaySchema = z.object({
@@ -160,9 +124,10 @@ export const retailDisplaySchema = z.object({
         allowance: key,
         spaceId: key,
         /** Qualifying sales floor area, ft² or m². */
-        area: positive,
+        area: decimalField(ranges.area),
       }),
     )
+    .max(documentLimits.retailClaims, listLimit(documentLimits.retailClaims, 'additional allowance claims'))
     .default([]),
 });
 
@@ -170,8 +135,8 @@ export const evaluationDocumentSchema = z.object({
   edition: key,
   method: z.enum(['building-area', 'space-by-space']),
   units: z.enum(['ip', 'si']),
-  luminaireTypes: z.array(luminaireTypeSchema).default([]),
-  spaces: z.array(spaceSchema).min(1, 'At least one space is needed.'),
+  luminaireTypes: z.array(luminaireTypeSchema).max(documentLimits.luminaireTypes, listLimit(documentLimits.luminaireTypes, 'luminaire types')).default([]),
+  spaces: z.array(spaceSchema).min(1, 'At least one space is needed.').max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
   exterior: exteriorSchema.optional(),
   retailDisplay: retailDisplaySchema.optional(),
 });
@@ -209,7 +174,14 @@ export function validateDocument(input: unknown, edition: EditionData): Validati
   const unique = dedupe(problems);
   return parsed.success && unique.length === 0
     ? { valid: true, document: parsed.data, problems: [] }
-    : { valid: false, problems: unique };
+    : { valid: false, problems: listed(unique) };
+}
+
+/** A long list of problems is cut, with the rest counted, so an answer stays small whatever was sent. */
+export function listed<Problem extends DocumentProblem>(problems: Problem[]): DocumentProblem[] {
+  const max = documentLimits.problemsListed;
+  if (problems.length <= max) return problems;
+  return [...problems.slice(0, max), { path: '', message: `And ${problems.length - max} more problems not listed; fix these first.` }];
 }
 
 function dedupe(problems: DocumentProblem[]): DocumentProblem[] {
@@ -228,8 +200,9 @@ function record(value: unknown): Loose {
   return typeof value === 'object' && value !== null && !Array.isArray(value) ? (value as Loose) : {};
 }
 
+/** The entries of a list, up to the most a document may hold (the schema reports a longer list). */
 function list(value: unknown): Loose[] {
-  return Array.isArray(value) ? value.map(record) : [];
+  return Array.isArray(value) ? value.slice(0, documentLimits.spaces).map(record) : [];
 }
 
 function word(value: unknown): string | undefined {

@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import { maxNumberLength, textField, textLimits, versionField } from '../compliance/bounds.js';
 
 function boundedDecimal(min: number, max: number, what: string) {
   return z.union([z.string(), z.number()]).transform((value, ctx) => {
     const raw = String(value).trim();
     const parsed = Number(raw);
-    if (raw === '' || !/^[+-]?\d+(\.\d+)?$/.test(raw) || parsed < min || parsed > max) {
+    if (raw === '' || raw.length > maxNumberLength || !/^[+-]?\d+(\.\d+)?$/.test(raw) || parsed < min || parsed > max) {
       ctx.addIssue({ code: 'custom', message: `${what} must be a decimal number from ${min} to ${max}.` });
       return z.NEVER;
     }
@@ -25,20 +26,20 @@ export const projectMethods = ['building-area', 'space-by-space'] as const;
 export const unitSystems = ['ip', 'si'] as const;
 
 const setupFields = {
-  name: z.string().trim().min(1, 'Give the project a name.').max(200),
-  address: z.string().trim().max(500).nullable().optional(),
+  name: textField(textLimits.name).pipe(z.string().min(1, 'Give the project a name.')),
+  address: textField(textLimits.address, { multiline: true }).nullable().optional(),
   latitude: boundedDecimal(-90, 90, 'Latitude').nullable().optional(),
   longitude: boundedDecimal(-180, 180, 'Longitude').nullable().optional(),
-  timeZone: z.string().trim().refine(isTimeZone, 'Use an IANA time zone such as America/Los_Angeles.').nullable().optional(),
-  jurisdiction: z.string().trim().max(200).nullable().optional(),
-  edition: z.string().trim().min(1, 'Choose a code edition.'),
+  timeZone: textField(textLimits.key).refine(isTimeZone, 'Use an IANA time zone such as America/Los_Angeles.').nullable().optional(),
+  jurisdiction: textField(textLimits.name).nullable().optional(),
+  edition: textField(textLimits.key).pipe(z.string().min(1, 'Choose a code edition.')),
   method: z.enum(projectMethods),
   units: z.enum(unitSystems),
   lightingZone: z.number().int().min(0).max(4).nullable().optional(),
 };
 
 export const projectCreateSchema = z.object(setupFields);
-export const projectSetupPatchSchema = z.object(setupFields).partial().extend({ version: z.number().int().positive() });
+export const projectSetupPatchSchema = z.object(setupFields).partial().extend({ version: versionField });
 
 export type ProjectCreate = z.output<typeof projectCreateSchema>;
 export type ProjectSetupPatch = z.output<typeof projectSetupPatchSchema>;
