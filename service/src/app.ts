@@ -10,6 +10,7 @@ import { codeEditionsRouter } from './code-tables/code-tables.routes.js';
 import type { Config } from './config.js';
 import type { Database } from './db/database.js';
 import { healthRouter } from './health/health.routes.js';
+import { historyRouter } from './history/history.routes.js';
 import { errorHandler, notFoundHandler } from './http/error-handler.js';
 import { readSession, requireSignIn } from './http/session.js';
 import { projectsRouter } from './projects/projects.routes.js';
@@ -68,6 +69,7 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
   api.use('/projects/:projectId', designRouter(db));
   api.use('/projects/:projectId', projectResultsRouter(db));
   api.use('/projects/:projectId', teamRouter(db));
+  api.use('/projects/:projectId', historyRouter(db));
   api.use('/evaluate', evaluateRouter(db));
   api.use('/openapi.json', openApiRouter());
   api.use(notFoundHandler);

@@ -50,7 +50,9 @@ export const maxDecimalPlaces = 20;
 /** The largest version a row can reach (PostgreSQL integer). */
 export const maxVersion = 2_147_483_647;
 
-const decimalShape = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d{1,4})?$/;
+const decimalShape = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?(\d+))?$/;
+/** An exponent of more than four digits is far outside every range, whichever its sign. */
+const maxExponentDigits = 4;
 
 function grouped(value: string): string {
   const [whole, fraction] = value.split('.');
@@ -73,7 +75,9 @@ export function boundedDecimal(input: string | number, range: NumberRange): Boun
   if (typeof input === 'number' && !Number.isFinite(input)) return { ok: false, message: `Must be a finite number. ${expected}` };
   const raw = typeof input === 'number' ? String(input) : input.trim();
   if (raw.length > maxNumberLength) return { ok: false, message: `Too many digits. ${expected}` };
-  if (!decimalShape.test(raw)) return { ok: false, message: `“${raw}” is not a number. ${expected}` };
+  const shape = decimalShape.exec(raw);
+  if (!shape) return { ok: false, message: `“${raw}” is not a number. ${expected}` };
+  if ((shape[4]?.replace(/^0+/, '').length ?? 0) > maxExponentDigits) return { ok: false, message: `Out of range. ${expected}` };
   const value = new Dec(raw);
   if (value.isNegative() && !value.isZero()) return { ok: false, message: `Must not be negative. ${expected}` };
   if (value.greaterThan(range.max) || (range.min === 'above-zero' && value.isZero())) return { ok: false, message: `Out of range. ${expected}` };

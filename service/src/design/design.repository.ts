@@ -1,9 +1,14 @@
+import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
+import { recordAudit } from '../audit/audit.repository.js';
+import { documentLimits } from '../compliance/bounds.js';
 import { dec, text } from '../compliance/numbers.js';
 import type { Database } from '../db/database.js';
 import { deleteVersioned, updateVersioned, type VersionedRow } from '../db/optimistic.js';
+import { lockProject } from '../db/project-lock.js';
+import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
 import { AppError, type ErrorDetail } from '../http/app-error.js';
-import type { ExteriorApplicationInput, LuminaireTypeInput, SpaceInput } from './design.schema.js';
+import { exteriorApplicationInputSchema, luminaireTypeInputSchema, spaceInputSchema, type ExteriorApplicationInput, type LuminaireTypeInput, type SpaceInput } from './design.schema.js';
 
 /** A NUMERIC column's string in plain form ("12.5000" → "12.5"); absent stays absent. */
 function decimal(value: string | null | undefined): string | undefined {
@@ -37,6 +42,7 @@ interface LuminaireTypeRow extends VersionedRow {
   length: string | null;
   limit_watts: string | null;
   wattage_source: string | null;
+  unit_origin: UnitOrigin | null;
   updated_by_name?: string | null;
 }
 
@@ -91,37 +97,62 @@ async function oneLuminaireType(db: Knex, id: string): Promise<LuminaireTypeReco
 async function assertTagFree(trx: Knex, projectId: string, tag: string, exceptId?: string): Promise<void> {
   const query = trx('luminaire_types').where({ project_id: projectId, tag });
   if (exceptId) query.whereNot({ id: exceptId });
-  if (await query.first('id')) {
-    throw AppError.conflict(`A luminaire type tagged "${tag}" already exists in this project.`, [{ path: 'tag', message: 'Tags are unique within a project.' }]);
-  }
+  if (await query.first('id')) throw tagTaken(tag);
+}
+
+function tagTaken(tag: string): AppError {
+  return AppError.conflict(`A luminaire type tagged "${tag}" already exists in this project.`, [{ path: 'tag', message: 'Tags are unique within a project.' }]);
+}
+
+async function storedLuminaireType(trx: Knex, projectId: string, id: string): Promise<LuminaireTypeRow> {
+  const row = await trx('luminaire_types').where({ id, project_id: projectId }).first<LuminaireTypeRow | undefined>();
+  if (!row) throw AppError.notFound('This luminaire type does not exist.');
+  return row;
 }
 
 export async function createLuminaireType(db: Database, projectId: string, input: LuminaireTypeInput, userId: string): Promise<LuminaireTypeRecord> {
   return db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
     await assertTagFree(trx, projectId, input.tag);
     const [row] = await trx('luminaire_types').insert({ project_id: projectId, ...luminaireTypeColumns(input), updated_by: userId }).returning<{ id: string }[]>('id');
+    const created = await oneLuminaireType(trx, row!.id);
+    await recordDesignChange(trx, { userId, projectId, action: 'create', entity: 'luminaire-type', entityId: created.id, name: created.tag, after: created });
     await touchProject(trx, projectId);
-    return oneLuminaireType(trx, row!.id);
+    return created;
   });
 }
 
 export async function replaceLuminaireType(db: Database, projectId: string, id: string, version: number, input: LuminaireTypeInput, userId: string): Promise<LuminaireTypeRecord> {
   return db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    const stored = await storedLuminaireType(trx, projectId, id);
+    const before = await oneLuminaireType(trx, id);
     await assertTagFree(trx, projectId, input.tag, id);
-    await updateVersioned(trx, 'luminaire_types', { id, project_id: projectId }, version, luminaireTypeColumns(input), userId, 'This luminaire type');
+    const columns = luminaireTypeColumns(input);
+    await updateVersioned(trx, 'luminaire_types', { id, project_id: projectId }, version, { ...columns, unit_origin: carriedOrigin(stored.unit_origin, { ...stored }, columns) }, userId, 'This luminaire type');
+    const after = await oneLuminaireType(trx, id);
+    await recordDesignChange(trx, { userId, projectId, action: 'update', entity: 'luminaire-type', entityId: id, name: after.tag, before, after });
     await touchProject(trx, projectId);
-    return oneLuminaireType(trx, id);
+    return after;
   });
 }
 
-export async function deleteLuminaireType(db: Database, projectId: string, id: string, version: number): Promise<void> {
+export async function deleteLuminaireType(db: Database, projectId: string, id: string, version: number, userId: string): Promise<void> {
   await db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    await storedLuminaireType(trx, projectId, id);
     const users = await trx('space_luminaires as l').join('spaces as s', 's.id', 'l.space_id').where('l.luminaire_type_id', id).distinct<{ name: string }[]>('s.name');
     if (users.length > 0) {
       const names = users.map((space) => space.name).sort();
-      throw AppError.conflict(`This luminaire type is still counted in ${names.length} space(s): ${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}. Remove those counts first.`);
+      throw new AppError(
+        409,
+        'in_use',
+        `This luminaire type is still counted in ${names.length} space(s): ${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}. Remove those counts first.`,
+      );
     }
+    const before = await oneLuminaireType(trx, id);
     await deleteVersioned(trx, 'luminaire_types', { id, project_id: projectId }, version, 'This luminaire type');
+    await recordDesignChange(trx, { userId, projectId, action: 'delete', entity: 'luminaire-type', entityId: id, name: before.tag, before });
     await touchProject(trx, projectId);
   });
 }
@@ -303,7 +334,12 @@ async function resolveTags(trx: Knex, projectId: string, inputs: { luminaires: S
   return byTag;
 }
 
-function childRows(spaceId: string, input: SpaceInput, typeIds: Map<string, string>) {
+const childTables = { luminaires: 'space_luminaires', controls: 'space_controls', windows: 'space_windows', skylights: 'space_skylights' } as const;
+
+/** A space's children as table rows, by kind. */
+type ChildRows = Record<keyof typeof childTables, Record<string, unknown>[]>;
+
+function childRows(spaceId: string, input: SpaceInput, typeIds: Map<string, string>): ChildRows {
   return {
     luminaires: input.luminaires.map((group, position) => ({ space_id: spaceId, position, luminaire_type_id: typeIds.get(group.tag), count: Number(group.count), zone: group.zone ?? null })),
     controls: input.controls.map((control) => ({
@@ -322,29 +358,88 @@ function childRows(spaceId: string, input: SpaceInput, typeIds: Map<string, stri
   };
 }
 
-const childTables = { luminaires: 'space_luminaires', controls: 'space_controls', windows: 'space_windows', skylights: 'space_skylights' } as const;
-
 /** Inserts the children of many spaces in a few statements (the bulk import writes thousands). */
-async function insertChildren(trx: Knex.Transaction, rows: ReturnType<typeof childRows>[]): Promise<void> {
+async function insertChildren(trx: Knex.Transaction, rows: ChildRows[]): Promise<void> {
   for (const [kind, table] of Object.entries(childTables) as [keyof typeof childTables, string][]) {
-    const all: Record<string, unknown>[] = rows.flatMap((row): Record<string, unknown>[] => row[kind]);
+    const all = rows.flatMap((row) => row[kind]);
     if (all.length > 0) await trx.batchInsert(table, all, 1000).transacting(trx);
   }
 }
 
-async function writeChildren(trx: Knex.Transaction, spaceId: string, input: SpaceInput, typeIds: Map<string, string>): Promise<void> {
+type StoredChild = Record<string, unknown> & { unit_origin: UnitOrigin | null };
+
+/**
+ * Replaces a space's children. A child that comes back with the values it had (same window at the
+ * same position, same strategy) keeps what it knew of its values before the last change of units.
+ */
+async function writeChildren(trx: Knex.Transaction, spaceId: string, rows: ChildRows): Promise<void> {
+  const keyOf: Record<'controls' | 'windows' | 'skylights', (row: Record<string, unknown>) => string> = {
+    controls: (row) => String(row['strategy']),
+    windows: (row) => String(row['position']),
+    skylights: (row) => String(row['position']),
+  };
+  const carried: ChildRows = { ...rows };
+  for (const kind of ['controls', 'windows', 'skylights'] as const) {
+    const stored = await trx(childTables[kind]).where({ space_id: spaceId }).whereNotNull('unit_origin').select<StoredChild[]>('*');
+    if (stored.length === 0) continue;
+    const byKey = new Map(stored.map((row) => [keyOf[kind](row), row]));
+    carried[kind] = rows[kind].map((row) => {
+      const old = byKey.get(keyOf[kind](row));
+      return old ? { ...row, unit_origin: carriedOrigin(old.unit_origin, old, row) } : row;
+    });
+  }
   for (const table of Object.values(childTables)) {
     await trx(table).where({ space_id: spaceId }).delete();
   }
-  await insertChildren(trx, [childRows(spaceId, input, typeIds)]);
+  await insertChildren(trx, [carried]);
 }
 
-/** Creates spaces all together or not at all (the import's commit step uses this too). */
-export async function createSpaces(db: Database, projectId: string, inputs: SpaceInput[], userId: string): Promise<SpaceRecord[]> {
+async function nextPosition(trx: Knex, projectId: string): Promise<number> {
+  const { max } = (await trx('spaces').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? { max: null };
+  return (max ?? -1) + 1;
+}
+
+export interface ImportKey {
+  key: string;
+  /** A digest of the request, so a key reused for a different import is refused rather than answered with the first. */
+  requestHash: string;
+}
+
+export function requestDigest(body: unknown): string {
+  return createHash('sha256').update(JSON.stringify(body)).digest('hex');
+}
+
+/** How long an import's idempotency key is remembered. */
+const importKeyHours = 24;
+
+/**
+ * Creates spaces all together or not at all (the import's commit step uses this too). With an
+ * import key, a retry of the same import returns the spaces the first one created instead of
+ * creating them again.
+ */
+export async function createSpaces(db: Database, projectId: string, inputs: SpaceInput[], userId: string, importKey?: ImportKey): Promise<SpaceRecord[]> {
   return db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    if (importKey) {
+      await trx('idempotency_keys').where({ project_id: projectId }).where('created_at', '<', trx.raw(`now() - interval '${importKeyHours} hours'`)).delete();
+      const earlier = await trx('idempotency_keys').where({ project_id: projectId, user_id: userId, key: importKey.key }).first<{ request_hash: string; space_ids: string[] } | undefined>();
+      if (earlier) {
+        if (earlier.request_hash !== importKey.requestHash) {
+          throw new AppError(422, 'idempotency_key_reused', 'This import key was already used for a different import. Start a new import.');
+        }
+        const rows: SpaceRow[] = await withUpdaterName(trx, 'spaces').whereIn('t.id', earlier.space_ids).orderBy('t.position');
+        return spaceRecords(trx, rows);
+      }
+    }
+    const { count } = (await trx('spaces').where({ project_id: projectId }).count<{ count: string }>('* as count').first()) ?? { count: '0' };
+    const room = documentLimits.spaces - Number(count);
+    if (inputs.length > room) {
+      throw AppError.badRequest(`A project holds at most ${documentLimits.spaces.toLocaleString('en-US')} spaces; this one has ${Number(count).toLocaleString('en-US')}, so at most ${Math.max(room, 0).toLocaleString('en-US')} more.`, [
+        { path: 'spaces', message: 'Too many spaces for one project.' },
+      ]);
+    }
     const typeIds = await resolveTags(trx, projectId, inputs, (index) => (inputs.length === 1 ? '' : `spaces.${index}.`));
-    const { max } = (await trx('spaces').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? { max: null };
-    const first = (max ?? -1) + 1;
+    const first = await nextPosition(trx, projectId);
     const ids: string[] = [];
     const chunk = 500;
     for (let start = 0; start < inputs.length; start += chunk) {
@@ -356,9 +451,17 @@ export async function createSpaces(db: Database, projectId: string, inputs: Spac
       ids.push(...inserted.map((row) => row.id));
     }
     await insertChildren(trx, inputs.map((input, index) => childRows(ids[index]!, input, typeIds)));
-    await touchProject(trx, projectId);
     const rows: SpaceRow[] = await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position');
-    return spaceRecords(trx, rows);
+    const created = await spaceRecords(trx, rows);
+    await recordDesignChanges(
+      trx,
+      created.map((space) => ({ userId, projectId, action: importKey || inputs.length > 1 ? 'import' : 'create', entity: 'space', entityId: space.id, name: space.name, after: space })),
+    );
+    if (importKey) {
+      await trx('idempotency_keys').insert({ project_id: projectId, user_id: userId, key: importKey.key, request_hash: importKey.requestHash, space_ids: ids });
+    }
+    await touchProject(trx, projectId);
+    return created;
   });
 }
 
@@ -370,17 +473,27 @@ export async function getSpace(db: Knex, projectId: string, spaceId: string): Pr
 
 export async function replaceSpace(db: Database, projectId: string, spaceId: string, version: number, input: SpaceInput, userId: string): Promise<SpaceRecord> {
   return db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    const stored = await trx('spaces').where({ id: spaceId, project_id: projectId }).first<(SpaceRow & { unit_origin: UnitOrigin | null }) | undefined>();
+    if (!stored) throw AppError.notFound('This space does not exist.');
+    const before = await oneSpace(trx, spaceId);
     const typeIds = await resolveTags(trx, projectId, [input], () => '');
-    await updateVersioned(trx, 'spaces', { id: spaceId, project_id: projectId }, version, spaceColumns(input), userId, 'This space');
-    await writeChildren(trx, spaceId, input, typeIds);
+    const columns = spaceColumns(input);
+    await updateVersioned(trx, 'spaces', { id: spaceId, project_id: projectId }, version, { ...columns, unit_origin: carriedOrigin(stored.unit_origin, { ...stored }, columns) }, userId, 'This space');
+    await writeChildren(trx, spaceId, childRows(spaceId, input, typeIds));
+    const after = await oneSpace(trx, spaceId);
+    await recordDesignChange(trx, { userId, projectId, action: 'update', entity: 'space', entityId: spaceId, name: after.name, before, after });
     await touchProject(trx, projectId);
-    return oneSpace(trx, spaceId);
+    return after;
   });
 }
 
-export async function deleteSpace(db: Database, projectId: string, spaceId: string, version: number): Promise<void> {
+export async function deleteSpace(db: Database, projectId: string, spaceId: string, version: number, userId: string): Promise<void> {
   await db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    const before = await getSpace(trx, projectId, spaceId);
     await deleteVersioned(trx, 'spaces', { id: spaceId, project_id: projectId }, version, 'This space');
+    await recordDesignChange(trx, { userId, projectId, action: 'delete', entity: 'space', entityId: spaceId, name: before.name, before });
     await touchProject(trx, projectId);
   });
 }
@@ -395,6 +508,7 @@ interface ExteriorRow extends VersionedRow {
   quantity: string;
   installed_watts: string;
   controls: ExteriorApplicationInput['controls'];
+  unit_origin: UnitOrigin | null;
   updated_by_name?: string | null;
 }
 
@@ -425,31 +539,169 @@ async function oneExterior(db: Knex, id: string): Promise<ExteriorApplicationRec
   return exteriorRecord(await withUpdaterName(db, 'exterior_applications').where('t.id', id).first());
 }
 
+/** Each exterior application of the edition appears once in a project; a second entry would be counted twice. */
+async function assertApplicationFree(trx: Knex, projectId: string, key: string, exceptId?: string): Promise<void> {
+  const query = trx('exterior_applications').where({ project_id: projectId, application_key: key });
+  if (exceptId) query.whereNot({ id: exceptId });
+  if (await query.first('id')) {
+    throw AppError.conflict('This exterior application is already on the project; change its quantity and watts there instead.', [{ path: 'key', message: 'Each application appears once.' }]);
+  }
+}
+
 export async function createExteriorApplication(db: Database, projectId: string, input: ExteriorApplicationInput, userId: string): Promise<ExteriorApplicationRecord> {
   return db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    await assertApplicationFree(trx, projectId, input.key);
     const { max } = (await trx('exterior_applications').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? { max: null };
     const [row] = await trx('exterior_applications').insert({ project_id: projectId, position: (max ?? -1) + 1, ...exteriorColumns(input), updated_by: userId }).returning<{ id: string }[]>('id');
+    const created = await oneExterior(trx, row!.id);
+    await recordDesignChange(trx, { userId, projectId, action: 'create', entity: 'exterior-application', entityId: created.id, name: created.description || created.key, after: created });
     await touchProject(trx, projectId);
-    return oneExterior(trx, row!.id);
+    return created;
   });
 }
 
 export async function replaceExteriorApplication(db: Database, projectId: string, id: string, version: number, input: ExteriorApplicationInput, userId: string): Promise<ExteriorApplicationRecord> {
   return db.transaction(async (trx) => {
-    await updateVersioned(trx, 'exterior_applications', { id, project_id: projectId }, version, exteriorColumns(input), userId, 'This exterior application');
+    await lockProject(trx, projectId);
+    const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first<ExteriorRow | undefined>();
+    if (!stored) throw AppError.notFound('This exterior application does not exist.');
+    const before = exteriorRecord(stored);
+    await assertApplicationFree(trx, projectId, input.key, id);
+    const columns = exteriorColumns(input);
+    const origin = stored.application_key === input.key ? carriedOrigin(stored.unit_origin, { ...stored }, columns) : null;
+    await updateVersioned(trx, 'exterior_applications', { id, project_id: projectId }, version, { ...columns, unit_origin: origin }, userId, 'This exterior application');
+    const after = await oneExterior(trx, id);
+    await recordDesignChange(trx, { userId, projectId, action: 'update', entity: 'exterior-application', entityId: id, name: after.description || after.key, before, after });
     await touchProject(trx, projectId);
-    return oneExterior(trx, id);
+    return after;
   });
 }
 
-export async function deleteExteriorApplication(db: Database, projectId: string, id: string, version: number): Promise<void> {
+export async function deleteExteriorApplication(db: Database, projectId: string, id: string, version: number, userId: string): Promise<void> {
   await db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first<ExteriorRow | undefined>();
+    if (!stored) throw AppError.notFound('This exterior application does not exist.');
+    const before = exteriorRecord(stored);
     await deleteVersioned(trx, 'exterior_applications', { id, project_id: projectId }, version, 'This exterior application');
+    await recordDesignChange(trx, { userId, projectId, action: 'delete', entity: 'exterior-application', entityId: id, name: before.description || before.key, before });
     await touchProject(trx, projectId);
   });
+}
+
+// ---------------------------------------------------------------- restoring what was deleted
+
+/** How long a deleted space, luminaire type or exterior application can be brought back from the history. */
+export const restoreDays = 30;
+
+interface DeleteEntry {
+  id: string;
+  at: Date;
+  detail: { name: string; before: Record<string, unknown> };
+}
+
+/** The stored fields of a record as the history kept it, without its stamp. */
+function withoutStamp(record: Record<string, unknown>): Record<string, unknown> {
+  const { id: _id, position: _position, version: _version, updatedAt: _at, updatedBy: _by, ...fields } = record;
+  return fields;
+}
+
+function notRestorable(message: string): AppError {
+  return new AppError(409, 'not_restorable', message);
+}
+
+/**
+ * Brings back a space, luminaire type or exterior application deleted in the last
+ * {@link restoreDays} days, with the id, values and (for a space) the position and children it
+ * had. It comes back at version 1 of its new life; the history records the restore.
+ */
+export async function restoreDeleted(db: Database, projectId: string, entity: DesignEntity, entityId: string, userId: string): Promise<SpaceRecord | LuminaireTypeRecord | ExteriorApplicationRecord> {
+  return db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    const entry = await trx('audit_log')
+      .where({ project_id: projectId, entity, entity_id: entityId, action: 'delete' })
+      .orderBy('id', 'desc')
+      .first<DeleteEntry | undefined>('id', 'at', 'detail');
+    const table = { space: 'spaces', 'luminaire-type': 'luminaire_types', 'exterior-application': 'exterior_applications' }[entity];
+    if (!entry || (await trx(table).where({ id: entityId }).first('id'))) {
+      throw AppError.notFound('There is nothing deleted here to restore.');
+    }
+    if (Date.now() - entry.at.getTime() > restoreDays * 86_400_000) {
+      throw notRestorable(`“${entry.detail.name}” was deleted more than ${restoreDays} days ago and can no longer be restored; add it again instead.`);
+    }
+    const fields = withoutStamp(entry.detail.before);
+    let restored: SpaceRecord | LuminaireTypeRecord | ExteriorApplicationRecord;
+    if (entity === 'space') {
+      const parsed = spaceInputSchema.safeParse({ ...fields, luminaires: ((fields['luminaires'] as Record<string, unknown>[] | undefined) ?? []).map(({ luminaireTypeId: _type, ...group }) => group) });
+      if (!parsed.success) throw notRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
+      const typeIds = await resolveTags(trx, projectId, [parsed.data], () => '').catch(() => {
+        throw notRestorable(`“${entry.detail.name}” counted luminaire types that no longer exist; restore or add them first.`);
+      });
+      const wanted = Number(entry.detail.before['position']);
+      const taken = Number.isInteger(wanted) ? await trx('spaces').where({ project_id: projectId, position: wanted }).first('id') : true;
+      const position = taken ? await nextPosition(trx, projectId) : wanted;
+      await trx('spaces').insert({ id: entityId, project_id: projectId, position, ...spaceColumns(parsed.data), updated_by: userId });
+      await insertChildren(trx, [childRows(entityId, parsed.data, typeIds)]);
+      restored = await oneSpace(trx, entityId);
+    } else if (entity === 'luminaire-type') {
+      const parsed = luminaireTypeInputSchema.safeParse(fields);
+      if (!parsed.success) throw notRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
+      await assertTagFree(trx, projectId, parsed.data.tag);
+      await trx('luminaire_types').insert({ id: entityId, project_id: projectId, ...luminaireTypeColumns(parsed.data), updated_by: userId });
+      restored = await oneLuminaireType(trx, entityId);
+    } else {
+      const parsed = exteriorApplicationInputSchema.safeParse(fields);
+      if (!parsed.success) throw notRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
+      await assertApplicationFree(trx, projectId, parsed.data.key);
+      const { max } = (await trx('exterior_applications').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? { max: null };
+      await trx('exterior_applications').insert({ id: entityId, project_id: projectId, position: (max ?? -1) + 1, ...exteriorColumns(parsed.data), updated_by: userId });
+      restored = await oneExterior(trx, entityId);
+    }
+    await recordDesignChange(trx, { userId, projectId, action: 'restore', entity, entityId, name: entry.detail.name, after: restored, restoredFrom: entry.id });
+    await touchProject(trx, projectId);
+    return restored;
+  });
+}
+
+// ---------------------------------------------------------------- audit
+
+export type DesignEntity = 'space' | 'luminaire-type' | 'exterior-application';
+
+interface DesignChange {
+  userId: string;
+  projectId: string;
+  action: 'create' | 'import' | 'update' | 'delete' | 'restore';
+  entity: DesignEntity;
+  entityId: string;
+  /** What a person calls the thing (its name or tag), kept so the history reads after it is gone. */
+  name: string;
+  before?: unknown;
+  after?: unknown;
+  restoredFrom?: string;
+}
+
+function auditEntry(change: DesignChange) {
+  const { before, after, name, restoredFrom } = change;
+  return {
+    userId: change.userId,
+    projectId: change.projectId,
+    action: change.action,
+    entity: change.entity,
+    entityId: change.entityId,
+    detail: { name, ...(before === undefined ? {} : { before }), ...(after === undefined ? {} : { after }), ...(restoredFrom ? { restoredFrom } : {}) },
+  };
+}
+
+async function recordDesignChange(trx: Knex.Transaction, change: DesignChange): Promise<void> {
+  await recordAudit(trx, auditEntry(change));
+}
+
+async function recordDesignChanges(trx: Knex.Transaction, changes: DesignChange[]): Promise<void> {
+  await recordAudit(trx, changes.map(auditEntry));
 }
 
 /** Any design write marks the project as changed, so lists sort by it. */
-async function touchProject(trx: Knex, projectId: string): Promise<void> {
+export async function touchProject(trx: Knex, projectId: string): Promise<void> {
   await trx('projects').where({ id: projectId }).update({ updated_at: trx.fn.now(), result_summary: null });
 }

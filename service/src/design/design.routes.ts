@@ -1,8 +1,9 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
+import { AppError } from '../http/app-error.js';
 import type { Database } from '../db/database.js';
 import { requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
-import { parse } from '../http/validate.js';
+import { idParam, parse } from '../http/validate.js';
 import {
   createExteriorApplication,
   createLuminaireType,
@@ -17,6 +18,9 @@ import {
   replaceExteriorApplication,
   replaceLuminaireType,
   replaceSpace,
+  requestDigest,
+  restoreDeleted,
+  type ImportKey,
 } from './design.repository.js';
 import {
   bulkSpacesSchema,
@@ -30,7 +34,7 @@ import {
   versionQuerySchema,
 } from './design.schema.js';
 import { projectDocument } from './project-document.js';
-import { assertSpacesFitEdition } from './space-checks.js';
+import { assertExteriorApplicationFitsEdition, assertSpacesFitEdition } from './edition-checks.js';
 
 /** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
 export function designRouter(db: Database): Router {
@@ -39,7 +43,6 @@ export function designRouter(db: Database): Router {
   const edit = requireProjectAction(db, 'edit-design');
   const projectId = (req: { projectAccess?: { projectId: string } }) => req.projectAccess!.projectId;
   const userId = (req: Parameters<typeof currentSession>[0]) => currentSession(req).user.id;
-  const param = (value: string | string[] | undefined) => String(value ?? '');
 
   router.get('/document', read, async (req, res) => {
     res.json(await projectDocument(db, projectId(req)));
@@ -53,11 +56,11 @@ export function designRouter(db: Database): Router {
   });
   router.put('/luminaire-types/:typeId', edit, async (req, res) => {
     const { version, ...input } = parse(luminaireTypeWriteSchema, req.body);
-    res.json(await replaceLuminaireType(db, projectId(req), param(req.params['typeId']), version, input, userId(req)));
+    res.json(await replaceLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, input, userId(req)));
   });
   router.delete('/luminaire-types/:typeId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await deleteLuminaireType(db, projectId(req), param(req.params['typeId']), version);
+    await deleteLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, userId(req));
     res.status(204).end();
   });
 
@@ -73,20 +76,20 @@ export function designRouter(db: Database): Router {
   router.post('/spaces/bulk', edit, async (req, res) => {
     const { spaces } = parse(bulkSpacesSchema, req.body);
     await assertSpacesFitEdition(db, projectId(req), spaces, false);
-    res.status(201).json(await createSpaces(db, projectId(req), spaces, userId(req)));
+    res.status(201).json(await createSpaces(db, projectId(req), spaces, userId(req), importKey(req)));
   });
   router.get('/spaces/:spaceId', read, async (req, res) => {
-    res.json(await getSpace(db, projectId(req), param(req.params['spaceId'])));
+    res.json(await getSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space')));
   });
   router.put('/spaces/:spaceId', edit, async (req, res) => {
     const { version, ...input } = parse(spaceWriteSchema, req.body);
     await assertSpacesFitEdition(db, projectId(req), [input], true);
-    res.json(await replaceSpace(db, projectId(req), param(req.params['spaceId']), version, input, userId(req)));
+    res.json(await replaceSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'), version, input, userId(req)));
   });
   router.patch('/spaces/:spaceId', edit, async (req, res) => {
     // Only the fields the body names change; the rest (children included) stay as stored.
     const { version } = parse(spacePatchSchema, req.body);
-    const current = await getSpace(db, projectId(req), param(req.params['spaceId']));
+    const current = await getSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'));
     const { id: _id, position: _position, version: _version, updatedAt: _at, updatedBy: _by, ...stored } = current;
     const named = Object.fromEntries(Object.entries(req.body as Record<string, unknown>).filter(([field]) => field in spaceInputSchema.shape));
     const merged = parse(spaceInputSchema, { ...stored, luminaires: stored.luminaires.map(({ luminaireTypeId: _type, ...group }) => group), ...named });
@@ -95,7 +98,7 @@ export function designRouter(db: Database): Router {
   });
   router.delete('/spaces/:spaceId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await deleteSpace(db, projectId(req), param(req.params['spaceId']), version);
+    await deleteSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'), version, userId(req));
     res.status(204).end();
   });
 
@@ -103,17 +106,43 @@ export function designRouter(db: Database): Router {
     res.json(await listExteriorApplications(db, projectId(req)));
   });
   router.post('/exterior-applications', edit, async (req, res) => {
-    res.status(201).json(await createExteriorApplication(db, projectId(req), parse(exteriorApplicationInputSchema, req.body), userId(req)));
+    const input = parse(exteriorApplicationInputSchema, req.body);
+    await assertExteriorApplicationFitsEdition(db, projectId(req), input.key);
+    res.status(201).json(await createExteriorApplication(db, projectId(req), input, userId(req)));
   });
   router.put('/exterior-applications/:applicationId', edit, async (req, res) => {
     const { version, ...input } = parse(exteriorApplicationWriteSchema, req.body);
-    res.json(await replaceExteriorApplication(db, projectId(req), param(req.params['applicationId']), version, input, userId(req)));
+    await assertExteriorApplicationFitsEdition(db, projectId(req), input.key);
+    res.json(await replaceExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, input, userId(req)));
   });
   router.delete('/exterior-applications/:applicationId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await deleteExteriorApplication(db, projectId(req), param(req.params['applicationId']), version);
+    await deleteExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, userId(req));
     res.status(204).end();
   });
 
+  // Undo of a delete, from the snackbar or the History page: the thing comes back with its id.
+  router.post('/spaces/:spaceId/restore', edit, async (req, res) => {
+    res.status(201).json(await restoreDeleted(db, projectId(req), 'space', idParam(req.params['spaceId'], 'This space'), userId(req)));
+  });
+  router.post('/luminaire-types/:typeId/restore', edit, async (req, res) => {
+    res.status(201).json(await restoreDeleted(db, projectId(req), 'luminaire-type', idParam(req.params['typeId'], 'This luminaire type'), userId(req)));
+  });
+  router.post('/exterior-applications/:applicationId/restore', edit, async (req, res) => {
+    res.status(201).json(await restoreDeleted(db, projectId(req), 'exterior-application', idParam(req.params['applicationId'], 'This exterior application'), userId(req)));
+  });
+
   return router;
+}
+
+const importKeyPattern = /^[\x21-\x7e]{1,200}$/;
+
+/** The `Idempotency-Key` of an import: a retry with the same key gets the first import's spaces back. */
+function importKey(req: Request): ImportKey | undefined {
+  const key = req.get('idempotency-key');
+  if (key === undefined) return undefined;
+  if (!importKeyPattern.test(key)) {
+    throw AppError.badRequest('The Idempotency-Key header must be 1 to 200 visible ASCII characters.', [{ path: 'Idempotency-Key', message: 'Not a usable key.' }]);
+  }
+  return { key, requestHash: requestDigest(req.body) };
 }

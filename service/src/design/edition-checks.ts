@@ -33,3 +33,22 @@ export async function assertSpacesFitEdition(db: Database, projectId: string, sp
     .map((problem) => ({ path: single ? problem.path.replace(/^spaces\.0\./, '') : problem.path, message: problem.message }));
   if (details.length > 0) throw AppError.badRequest('Some values do not fit the project’s code edition and method.', details);
 }
+
+/**
+ * An exterior application must be one of the edition's own, and not the base site allowance (the
+ * lighting zone adds that): an unknown key would make the project impossible to evaluate.
+ */
+export async function assertExteriorApplicationFitsEdition(db: Database, projectId: string, key: string): Promise<void> {
+  const project = await db('projects').where({ id: projectId }).first<{ edition_id: string | null } | undefined>('edition_id');
+  if (!project?.edition_id) {
+    throw AppError.badRequest('Choose the code edition in the set-up before adding exterior lighting.', [{ path: 'key', message: 'The project has no code edition yet.' }]);
+  }
+  const edition = await loadEditionData(db, project.edition_id);
+  const application = edition?.exteriorApplications.find((candidate) => candidate.key === key);
+  if (!application) {
+    throw AppError.badRequest('This exterior application is not one of the project’s code edition.', [{ path: 'key', message: 'Choose an application from the edition’s list.' }]);
+  }
+  if (application.isBaseSiteAllowance) {
+    throw AppError.badRequest('The base site allowance comes with the lighting zone; it is not entered as an application.', [{ path: 'key', message: 'Choose another application.' }]);
+  }
+}

@@ -3,9 +3,10 @@ import type { Database } from '../db/database.js';
 import type { ProjectMemberRow, ProjectRole } from '../db/tables.js';
 import { AppError } from './app-error.js';
 import { currentSession } from './session.js';
+import { isUuid } from './validate.js';
 
 /** What a person can do inside a project; each route names the action it performs. */
-export type ProjectAction = 'read' | 'edit-design' | 'submit' | 'review' | 'export' | 'record-field-tests' | 'manage-team';
+export type ProjectAction = 'read' | 'edit-design' | 'submit' | 'review' | 'export' | 'record-field-tests' | 'manage-team' | 'archive';
 
 const allowedRoles: Record<ProjectAction, readonly ProjectRole[]> = {
   read: ['engineer', 'reviewer', 'contractor'],
@@ -15,6 +16,7 @@ const allowedRoles: Record<ProjectAction, readonly ProjectRole[]> = {
   export: ['engineer', 'reviewer', 'contractor'],
   'record-field-tests': ['contractor'],
   'manage-team': ['engineer'],
+  archive: ['engineer'],
 };
 
 export function roleMay(role: ProjectRole | null, isAdmin: boolean, action: ProjectAction): boolean {
@@ -33,8 +35,6 @@ declare module 'express-serve-static-core' {
   }
 }
 
-const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 /**
  * Guards a route under `/projects/:projectId`: 404 for a project that does not exist,
  * 403 for a non-member or a member whose role may not perform the action. Admin passes.
@@ -43,7 +43,7 @@ export function requireProjectAction(db: Database, action: ProjectAction): Reque
   return async (req, _res, next) => {
     const { user } = currentSession(req);
     const projectId = String(req.params['projectId'] ?? '');
-    if (!uuidPattern.test(projectId)) {
+    if (!isUuid(projectId)) {
       throw AppError.notFound('No such project.');
     }
     const project = await db('projects').where({ id: projectId }).first('id');

@@ -1,7 +1,9 @@
 import type { Knex } from 'knex';
 import { dec, text } from '../compliance/numbers.js';
+import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import { updateVersioned } from '../db/optimistic.js';
+import { lockProject } from '../db/project-lock.js';
 import type { ProjectRole } from '../db/tables.js';
 import { AppError } from '../http/app-error.js';
 import type { ProjectCreate, ProjectSetupPatch } from './projects.schema.js';
@@ -23,6 +25,8 @@ export interface ProjectSummary {
   version: number;
   updatedAt: string;
   resultSummary: ResultSummary | null;
+  /** When the project was archived; archived projects are read-only and listed apart. */
+  archivedAt: string | null;
 }
 
 export interface ProjectDetail extends ProjectSummary {
@@ -53,6 +57,7 @@ interface ProjectRow {
   units: 'ip' | 'si';
   lighting_zone: number | null;
   result_summary: ResultSummary | null;
+  archived_at: Date | null;
   updated_by_name: string | null;
 }
 
@@ -60,13 +65,13 @@ function plain(value: string | null): string | null {
   return value === null ? null : text(dec(value));
 }
 
-/** Projects the user is a member of; every project for an administrator. */
-export async function listProjectsFor(db: Database, userId: string, isAdmin: boolean): Promise<ProjectSummary[]> {
+/** Projects the user is a member of (every project for an administrator), current or archived. */
+export async function listProjectsFor(db: Database, userId: string, isAdmin: boolean, archived = false): Promise<ProjectSummary[]> {
   const query = db('projects as p')
     .leftJoin('project_members as m', function joinMembership() {
       this.on('m.project_id', '=', 'p.id').andOn('m.user_id', '=', db.raw('?', [userId]));
     })
-    .select<(Pick<ProjectRow, 'id' | 'name' | 'state' | 'version' | 'updated_at' | 'edition_id' | 'method' | 'result_summary'> & { role: ProjectRole | null })[]>(
+    .select<(Pick<ProjectRow, 'id' | 'name' | 'state' | 'version' | 'updated_at' | 'edition_id' | 'method' | 'result_summary' | 'archived_at'> & { role: ProjectRole | null })[]>(
       'p.id',
       'p.name',
       'p.state',
@@ -75,9 +80,12 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
       'p.edition_id',
       'p.method',
       'p.result_summary',
+      'p.archived_at',
       'm.role',
     )
     .orderBy('p.name');
+  if (archived) query.whereNotNull('p.archived_at');
+  else query.whereNull('p.archived_at');
   if (!isAdmin) {
     query.whereNotNull('m.role');
   }
@@ -91,6 +99,7 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
     version: row.version,
     updatedAt: row.updated_at.toISOString(),
     resultSummary: row.result_summary,
+    archivedAt: row.archived_at?.toISOString() ?? null,
   }));
 }
 
@@ -115,6 +124,7 @@ export async function getProjectDetail(db: Knex, projectId: string, role: Projec
     version: row.version,
     updatedAt: row.updated_at.toISOString(),
     resultSummary: row.result_summary,
+    archivedAt: row.archived_at?.toISOString() ?? null,
     address: row.address,
     latitude: plain(row.latitude),
     longitude: plain(row.longitude),
@@ -156,21 +166,79 @@ export async function createProject(db: Database, input: ProjectCreate, userId: 
   return db.transaction(async (trx) => {
     const [row] = await trx('projects').insert({ ...setupColumns(input), created_by: userId, updated_by: userId }).returning<{ id: string }[]>('id');
     await trx('project_members').insert({ project_id: row!.id, user_id: userId, role: 'engineer' });
+    await recordAudit(trx, { userId, projectId: row!.id, action: 'create', entity: 'project', entityId: row!.id, detail: { name: input.name, after: await setupRecord(trx, row!.id) } });
     return row!.id;
   });
 }
 
-/** Saves the set-up at the version read; `alongside` runs in the same transaction once the version has checked out. */
+/** The set-up as the history keeps it, before and after a change. */
+async function setupRecord(trx: Knex, projectId: string): Promise<Record<string, unknown>> {
+  const row = await trx('projects')
+    .where({ id: projectId })
+    .first<Pick<ProjectRow, 'name' | 'address' | 'latitude' | 'longitude' | 'time_zone' | 'jurisdiction' | 'edition_id' | 'method' | 'units' | 'lighting_zone' | 'version'>>(
+      'name',
+      'address',
+      'latitude',
+      'longitude',
+      'time_zone',
+      'jurisdiction',
+      'edition_id',
+      'method',
+      'units',
+      'lighting_zone',
+      'version',
+    );
+  return {
+    name: row.name,
+    address: row.address,
+    latitude: plain(row.latitude),
+    longitude: plain(row.longitude),
+    timeZone: row.time_zone,
+    jurisdiction: row.jurisdiction,
+    edition: row.edition_id,
+    method: row.method,
+    units: row.units,
+    lightingZone: row.lighting_zone,
+    version: row.version,
+  };
+}
+
+/**
+ * Saves the set-up at the version read; `alongside` (a change of units) runs in the same
+ * transaction once the version has checked out. The history records the set-up before and after.
+ */
 export async function updateProjectSetup(
   db: Database,
   projectId: string,
   patch: ProjectSetupPatch,
   userId: string,
-  alongside?: (trx: Knex.Transaction) => Promise<void>,
+  alongside?: (trx: Knex.Transaction) => Promise<Record<string, unknown>>,
 ): Promise<void> {
   const { version, ...fields } = patch;
   await db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    const before = await setupRecord(trx, projectId);
     await updateVersioned(trx, 'projects', { id: projectId }, version, { ...setupColumns(fields), result_summary: null }, userId, 'The project set-up');
-    if (alongside) await alongside(trx);
+    const conversion = alongside ? await alongside(trx) : undefined;
+    const after = await setupRecord(trx, projectId);
+    await recordAudit(trx, {
+      userId,
+      projectId,
+      action: conversion ? 'convert-units' : 'update',
+      entity: 'project',
+      entityId: projectId,
+      detail: { name: String(after['name']), before, after, ...(conversion ? { conversion } : {}) },
+    });
+  });
+}
+
+/** Archives a project (read-only, listed apart) or brings it back. */
+export async function setProjectArchived(db: Database, projectId: string, archived: boolean, userId: string): Promise<void> {
+  await db.transaction(async (trx) => {
+    const project = await lockProject(trx, projectId, { allowArchived: true });
+    if ((project.archived_at !== null) === archived) return;
+    await trx('projects').where({ id: projectId }).update({ archived_at: archived ? trx.fn.now() : null, archived_by: archived ? userId : null });
+    const { name } = await trx('projects').where({ id: projectId }).first<{ name: string }>('name');
+    await recordAudit(trx, { userId, projectId, action: archived ? 'archive' : 'unarchive', entity: 'project', entityId: projectId, detail: { name } });
   });
 }

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { z } from 'zod';
 import type { Knex } from 'knex';
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import { editionIds, type EditionId } from '../compliance/edition-data.js';
@@ -7,7 +8,7 @@ import { AppError } from '../http/app-error.js';
 import { requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
-import { createProject, getProjectDetail, listProjectsFor, updateProjectSetup } from './projects.repository.js';
+import { createProject, getProjectDetail, listProjectsFor, setProjectArchived, updateProjectSetup } from './projects.repository.js';
 import { projectCreateSchema, projectSetupPatchSchema } from './projects.schema.js';
 import { convertProjectUnits } from './unit-conversion.js';
 
@@ -17,12 +18,15 @@ function assertEdition(edition: string | undefined): void {
   }
 }
 
+const listQuerySchema = z.object({ archived: z.enum(['true', 'false']).optional() });
+
 export function projectsRouter(db: Database): Router {
   const router = Router();
 
   router.get('/', async (req, res) => {
     const { user } = currentSession(req);
-    res.json(await listProjectsFor(db, user.id, user.isAdmin));
+    const { archived } = parse(listQuerySchema, req.query);
+    res.json(await listProjectsFor(db, user.id, user.isAdmin, archived === 'true'));
   });
 
   /** Anyone signed in may start a project; they become its engineer. */
@@ -46,16 +50,26 @@ export function projectsRouter(db: Database): Router {
     const current = await getProjectDetail(db, access.projectId, access.role);
     const to = patch.units;
     // A change of units converts every stored length and area with it, in the same transaction.
-    let convert: ((trx: Knex.Transaction) => Promise<void>) | undefined;
+    let convert: ((trx: Knex.Transaction) => Promise<Record<string, unknown>>) | undefined;
     if (to !== undefined && to !== current.units) {
       const editionId = patch.edition ?? current.edition;
       const edition = editionId ? await loadEditionData(db, editionId) : undefined;
       const exteriorUnits = new Map((edition?.exteriorApplications ?? []).map((application) => [application.key, application.unit]));
-      convert = (trx) => convertProjectUnits(trx, access.projectId, current.units, to, exteriorUnits);
+      const userId = currentSession(req).user.id;
+      convert = async (trx) => ({ ...(await convertProjectUnits(trx, access.projectId, current.units, to, exteriorUnits, userId)) });
     }
     await updateProjectSetup(db, access.projectId, patch, currentSession(req).user.id, convert);
     res.json(await getProjectDetail(db, access.projectId, access.role));
   });
+
+  /** Archiving keeps everything and makes the project read-only; unarchiving brings it back. */
+  for (const [path, archived] of [['archive', true], ['unarchive', false]] as const) {
+    router.post(`/:projectId/${path}`, requireProjectAction(db, 'archive'), async (req, res) => {
+      const access = req.projectAccess!;
+      await setProjectArchived(db, access.projectId, archived, currentSession(req).user.id);
+      res.json(await getProjectDetail(db, access.projectId, access.role));
+    });
+  }
 
   return router;
 }

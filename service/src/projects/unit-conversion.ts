@@ -1,28 +1,90 @@
 import type { Knex } from 'knex';
+import { maxDecimalPlaces, ranges, type NumberRange } from '../compliance/bounds.js';
 import { metresPerFoot, squareMetresPerSquareFoot } from '../compliance/index.js';
 import { text } from '../compliance/numbers.js';
+import { AppError } from '../http/app-error.js';
 
 type Kind = 'length' | 'area';
 
+interface ConvertedTable {
+  table: string;
+  /** What a person calls these rows. */
+  label: string;
+  scope: 'project' | 'space';
+  /** Versioned rows get a new version, so a writer still holding the old values gets 409 instead of saving them in the wrong unit. */
+  versioned: boolean;
+  columns: Record<string, { kind: Kind; range: NumberRange }>;
+  /** Only some rows convert (exterior quantities by their application's unit). */
+  where?: (query: Knex.QueryBuilder) => void;
+}
+
 /** Every stored length and area of a project, by table and column. Watts and counts need no conversion. */
-const columns: { table: string; scope: 'project' | 'space'; kind: Kind; names: string[] }[] = [
-  { table: 'spaces', scope: 'project', kind: 'area', names: ['area'] },
-  { table: 'spaces', scope: 'project', kind: 'length', names: ['ceiling_height', 'length', 'width', 'luminaire_height', 'work_plane_height'] },
-  { table: 'space_windows', scope: 'space', kind: 'length', names: ['width', 'head_height', 'sill_height', 'offset'] },
-  { table: 'space_skylights', scope: 'space', kind: 'length', names: ['length', 'width', 'x', 'y'] },
-  { table: 'space_controls', scope: 'space', kind: 'area', names: ['zone_size'] },
-  { table: 'luminaire_types', scope: 'project', kind: 'length', names: ['length'] },
-  { table: 'retail_display_claims', scope: 'project', kind: 'area', names: ['area'] },
-];
+function convertedTables(exteriorUnits: ReadonlyMap<string, string>): ConvertedTable[] {
+  const length = (range: NumberRange) => ({ kind: 'length' as const, range });
+  const area = { kind: 'area' as const, range: ranges.area };
+  const exteriorKeys = (unit: string) => [...exteriorUnits].filter(([, applicationUnit]) => applicationUnit === unit).map(([key]) => key);
+  return [
+    {
+      table: 'spaces',
+      label: 'spaces',
+      scope: 'project',
+      versioned: true,
+      columns: {
+        area,
+        ceiling_height: length(ranges.height),
+        length: length(ranges.length),
+        width: length(ranges.length),
+        luminaire_height: length(ranges.heightAboveFloor),
+        work_plane_height: length(ranges.heightAboveFloor),
+      },
+    },
+    { table: 'space_windows',
+      label: 'windows', scope: 'space', versioned: false, columns: { width: length(ranges.length), head_height: length(ranges.height), sill_height: length(ranges.heightAboveFloor), offset: length(ranges.offset) } },
+    { table: 'space_skylights',
+      label: 'skylights', scope: 'space', versioned: false, columns: { length: length(ranges.length), width: length(ranges.length), x: length(ranges.offset), y: length(ranges.offset) } },
+    { table: 'space_controls',
+      label: 'controls', scope: 'space', versioned: false, columns: { zone_size: area } },
+    { table: 'luminaire_types',
+      label: 'luminaire types', scope: 'project', versioned: true, columns: { length: length(ranges.length) }, where: (query) => query.whereNotNull('length') },
+    { table: 'retail_display_claims',
+      label: 'sales area claims', scope: 'project', versioned: true, columns: { area } },
+    {
+      table: 'exterior_applications',
+      label: 'exterior applications',
+      scope: 'project',
+      versioned: true,
+      columns: { quantity: { kind: 'area', range: ranges.exteriorQuantity } },
+      where: (query) => query.whereIn('application_key', exteriorKeys('W/ft2')),
+    },
+    {
+      table: 'exterior_applications',
+      label: 'exterior applications',
+      scope: 'project',
+      versioned: true,
+      columns: { quantity: { kind: 'length', range: ranges.exteriorQuantity } },
+      where: (query) => query.whereIn('application_key', exteriorKeys('W/ft')),
+    },
+  ];
+}
 
 /** Decimal places kept when converting to IP, where dividing by 0.3048 need not terminate (1 µft is far below any drawing). */
 const ipScale = 6;
 
+export interface ConversionSummary {
+  from: 'ip' | 'si';
+  to: 'ip' | 'si';
+  /** Rows whose values changed, by table. */
+  rows: Record<string, number>;
+}
+
 /**
- * Converts a project's stored values between IP and SI in the caller's transaction. IP → SI
- * multiplies by the exact factors (1 ft = 0.3048 m, from mathjs units), so nothing is lost;
- * SI → IP divides and keeps six decimal places. Exterior quantities convert by their
- * application's unit (per ft² → area, per linear ft → length; counts and watts stay).
+ * Converts a project's stored values between IP and SI in the caller's transaction.
+ *
+ * IP → SI multiplies by the exact factors (1 ft = 0.3048 m, from mathjs units); SI → IP divides
+ * and keeps six decimal places. Before converting, each row keeps its values as they were in
+ * `unit_origin`; converting back restores those exactly, so SI → IP → SI returns what was entered
+ * (a write in between keeps the origin only of the values it left unchanged). Every converted row
+ * gets a new version. A value that would leave its plausible range in the new unit stops the change.
  */
 export async function convertProjectUnits(
   trx: Knex.Transaction,
@@ -30,23 +92,47 @@ export async function convertProjectUnits(
   from: 'ip' | 'si',
   to: 'ip' | 'si',
   exteriorUnits: ReadonlyMap<string, string>,
-): Promise<void> {
-  if (from === to) return;
+  userId: string,
+): Promise<ConversionSummary> {
+  const summary: ConversionSummary = { from, to, rows: {} };
+  if (from === to) return summary;
   const factors: Record<Kind, string> = { length: text(metresPerFoot), area: text(squareMetresPerSquareFoot) };
-  const converted = (column: string, kind: Kind) =>
-    to === 'si' ? trx.raw('?? * ?::numeric', [column, factors[kind]]) : trx.raw('round(?? / ?::numeric, ?)', [column, factors[kind], ipScale]);
   const spaceIds = trx('spaces').select('id').where({ project_id: projectId });
-  for (const { table, scope, kind, names } of columns) {
-    const changes = Object.fromEntries(names.map((name) => [name, converted(name, kind)]));
+  for (const { table, label, scope, versioned, columns, where } of convertedTables(exteriorUnits)) {
+    const names = Object.keys(columns);
+    const changes: Record<string, Knex.Raw> = {};
+    for (const name of names) {
+      const kind = columns[name]!.kind;
+      const converted =
+        to === 'si' ? trx.raw('round(?? * ?::numeric, ?)', [name, factors[kind], maxDecimalPlaces]) : trx.raw('round(?? / ?::numeric, ?)', [name, factors[kind], ipScale]);
+      changes[name] = trx.raw(`case when unit_origin->>'units' = ? and unit_origin->'values'->>?::text is not null then (unit_origin->'values'->>?::text)::numeric else ? end`, [to, name, name, converted]);
+    }
+    // The origin for the next change back: the values as they are now, except those this change restores.
+    const current = trx.raw(`jsonb_build_object(${names.map(() => '?::text, ??').join(', ')})`, names.flatMap((name) => [name, name]));
+    changes['unit_origin'] = trx.raw(
+      `jsonb_build_object('units', ?::text, 'values', jsonb_strip_nulls(? - (case when unit_origin->>'units' = ? then array(select jsonb_object_keys(unit_origin->'values')) else '{}'::text[] end)))`,
+      [from, current, to],
+    );
+    if (versioned) Object.assign(changes, { version: trx.raw('version + 1'), updated_at: trx.fn.now(), updated_by: userId });
     const query = trx(table).update(changes);
     if (scope === 'project') query.where({ project_id: projectId });
     else query.whereIn('space_id', spaceIds);
-    await query;
+    where?.(query);
+    const count = await query;
+    summary.rows[table] = (summary.rows[table] ?? 0) + count;
+
+    const outOfRange = trx(table).count<{ count: string }>('* as count');
+    if (scope === 'project') outOfRange.where({ project_id: projectId });
+    else outOfRange.whereIn('space_id', spaceIds);
+    outOfRange.where((clause) => {
+      for (const name of names) clause.orWhere(name, '>', columns[name]!.range.max);
+    });
+    const { count: outside } = (await outOfRange.first()) ?? { count: '0' };
+    if (Number(outside) > 0) {
+      throw AppError.badRequest(`Some stored values would be out of range in ${to === 'ip' ? 'feet' : 'metres'}; nothing was converted.`, [
+        { path: 'units', message: `${outside} of the ${label} hold values too large to convert.` },
+      ]);
+    }
   }
-  const applications = await trx('exterior_applications').where({ project_id: projectId }).select<{ id: string; application_key: string }[]>('id', 'application_key');
-  for (const application of applications) {
-    const unit = exteriorUnits.get(application.application_key);
-    const kind: Kind | null = unit === 'W/ft2' ? 'area' : unit === 'W/ft' ? 'length' : null;
-    if (kind) await trx('exterior_applications').where({ id: application.id }).update({ quantity: converted('quantity', kind) });
-  }
+  return summary;
 }

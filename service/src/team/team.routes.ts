@@ -3,11 +3,13 @@ import { z } from 'zod';
 import type { Database } from '../db/database.js';
 import { requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
-import { parse } from '../http/validate.js';
+import { isUuid, parse } from '../http/validate.js';
+import { AppError } from '../http/app-error.js';
+import { textField, textLimits } from '../compliance/bounds.js';
 import { listMembers, removeMember, setMember } from './team.repository.js';
 
 const memberSchema = z.object({
-  email: z.string().trim().email('Enter a valid e-mail address.'),
+  email: textField(textLimits.email, { required: true }).pipe(z.string().email('Enter a valid e-mail address.')),
   role: z.enum(['engineer', 'reviewer', 'contractor']),
 });
 
@@ -25,7 +27,9 @@ export function teamRouter(db: Database): Router {
     res.json(await setMember(db, req.projectAccess!.projectId, email, role, currentSession(req).user.id));
   });
   router.delete('/members/:userId', manage, async (req, res) => {
-    res.json(await removeMember(db, req.projectAccess!.projectId, String(req.params['userId']), currentSession(req).user.id));
+    const memberId = req.params['userId'];
+    if (!isUuid(memberId)) throw AppError.notFound('That person is not on this project.');
+    res.json(await removeMember(db, req.projectAccess!.projectId, memberId, currentSession(req).user.id));
   });
   return router;
 }

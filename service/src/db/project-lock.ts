@@ -1,0 +1,25 @@
+import type { Knex } from 'knex';
+import { AppError } from '../http/app-error.js';
+
+export interface LockedProject {
+  id: string;
+  edition_id: string | null;
+  method: 'building-area' | 'space-by-space' | null;
+  units: 'ip' | 'si';
+  archived_at: Date | null;
+}
+
+/**
+ * Takes the project's row lock for the rest of the transaction. Every design write takes it first,
+ * so checks that span the project (a tag used once, one entry per exterior application, the next
+ * space position, at least one engineer, a change of units) cannot be raced past by a parallel
+ * writer; and since everyone takes the same lock first, they cannot deadlock on each other.
+ */
+export async function lockProject(trx: Knex.Transaction, projectId: string, options: { allowArchived?: boolean } = {}): Promise<LockedProject> {
+  const project = await trx('projects').where({ id: projectId }).forUpdate().first<LockedProject | undefined>('id', 'edition_id', 'method', 'units', 'archived_at');
+  if (!project) throw AppError.notFound('No such project.');
+  if (project.archived_at && !options.allowArchived) {
+    throw new AppError(409, 'archived', 'This project is archived. Restore it from the projects list to change it.');
+  }
+  return project;
+}
