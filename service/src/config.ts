@@ -14,7 +14,8 @@ const configSchema = z.object({
   COOKIE_SECURE: booleanFromString.default(false),
   LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
   LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
-  JSON_BODY_LIMIT: z.string().default('2mb'),
+  // A 10,000-space project (the ceiling) with its luminaires, controls and windows is about 5 MB of JSON.
+  JSON_BODY_LIMIT: z.string().default('10mb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   WEB_DIST: z.string().optional(),
 });

@@ -144,9 +144,25 @@ try {
   const importMs = performance.now() - created;
 
   const agent = request.agent(app);
-  await agent.post('/api/auth/login').send({ email: 'engineer@alderbay.example', password: 'bench-password' });
+  const signedIn = await agent.post('/api/auth/login').send({ email: 'engineer@alderbay.example', password: 'bench-password' });
+  const csrf: string = signedIn.body.csrfToken;
   const edition = (await loadEditionData(db, 'iecc-2021'))!;
   const document = await projectDocument(db, project!.id);
+
+  // The same import through the API, as the web app sends it: body parsing, the shared bounds, the
+  // edition checks, the import and its audit records.
+  const [second] = await db('projects')
+    .insert({ name: 'Generated campus, imported', created_by: engineer.id, edition_id: 'iecc-2021', method: 'space-by-space', units: 'ip' })
+    .returning<{ id: string }[]>('id');
+  await db('project_members').insert({ project_id: second!.id, user_id: engineer.id, role: 'engineer' });
+  for (const tag of ['A', 'B']) await agent.post(`/api/projects/${second!.id}/luminaire-types`).set('X-CSRF-Token', csrf).send({ tag, inputWatts: '20', use: 'general' }).expect(201);
+  const importBody = JSON.stringify({ spaces: generatedSpaces(spaceCount) });
+  const posted = performance.now();
+  await agent.post(`/api/projects/${second!.id}/spaces/bulk`).set('X-CSRF-Token', csrf).set('Content-Type', 'application/json').send(importBody).expect(201);
+  const httpImportMs = performance.now() - posted;
+  const documentBody = JSON.stringify(document);
+  const resultBytes = (await agent.post('/api/evaluate').set('X-CSRF-Token', csrf).set('Content-Type', 'application/json').send(documentBody).expect(200)).text.length;
+  const megabytes = (bytes: number) => `${(bytes / 1e6).toFixed(1)} MB`;
 
   const measures: Measure[] = [
     { name: `validate + evaluate ${spaceCount} spaces (engine only)`, targetMs: 1500, run: async () => {
@@ -156,6 +172,11 @@ try {
     } },
     { name: `GET /spaces with ${spaceCount} spaces`, targetMs: 1500, run: () => agent.get(`/api/projects/${project!.id}/spaces`).expect(200) },
     { name: `GET /results with ${spaceCount} spaces`, targetMs: 3000, run: () => agent.get(`/api/projects/${project!.id}/results`).expect(200) },
+    {
+      name: `POST /api/evaluate of the ${spaceCount}-space document (${megabytes(documentBody.length)} in, ${megabytes(resultBytes)} out)`,
+      targetMs: 3000,
+      run: () => agent.post('/api/evaluate').set('X-CSRF-Token', csrf).set('Content-Type', 'application/json').send(documentBody).expect(200),
+    },
     { name: 'GET /results of the demo project', targetMs: 150, run: async () => {
       const demo = await db('projects').where({ name: 'Alder Bay Library & Makerspace' }).first<{ id: string }>('id');
       return agent.get(`/api/projects/${demo.id}/results`).expect(200);
@@ -164,7 +185,12 @@ try {
 
   const importOk = importMs <= 5000;
   if (!importOk) failed = true;
-  const rows: string[] = [`${importOk ? 'ok  ' : 'MISS'} bulk import of ${spaceCount} spaces in one transaction: ${importMs.toFixed(0)} ms (target 5000 ms)`];
+  const httpImportOk = httpImportMs <= 8000;
+  if (!httpImportOk) failed = true;
+  const rows: string[] = [
+    `${importOk ? 'ok  ' : 'MISS'} bulk import of ${spaceCount} spaces in one transaction: ${importMs.toFixed(0)} ms (target 5000 ms)`,
+    `${httpImportOk ? 'ok  ' : 'MISS'} POST /spaces/bulk of ${spaceCount} spaces, ${megabytes(importBody.length)} of JSON: ${httpImportMs.toFixed(0)} ms (target 8000 ms)`,
+  ];
   for (const measure of measures) {
     const ms = await median(measure);
     const ok = ms <= measure.targetMs;
