@@ -56,13 +56,17 @@ for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
 async function main() {
   if (command === 'backup') {
     const file = given ? typedPath(given) : path.join(dataDir, 'backups') + path.sep;
-    const written = await withConfiguredDatabase(({ url, bin }) => backupDatabase({ url, bin, file, signal: interrupt.signal }));
-    log(`backup written to ${written.file} (${formatSize(written.bytes)})`);
+    await withConfiguredDatabase(async ({ url, bin }) => {
+      const written = await backupDatabase({ url, bin, file, signal: interrupt.signal });
+      log(`backup written to ${written.file} (${formatSize(written.bytes)})`);
+    });
   } else if (command === 'restore' && given) {
     const file = typedPath(given);
-    const restored = await withConfiguredDatabase(({ url, bin }) => restoreDatabase({ url, bin, file, signal: interrupt.signal }));
-    if (restored.warnings) console.error(restored.warnings);
-    log(`restored ${restored.file} into the database ${restored.database}`);
+    await withConfiguredDatabase(async ({ url, bin }) => {
+      const restored = await restoreDatabase({ url, bin, file, signal: interrupt.signal });
+      if (restored.warnings) console.error(restored.warnings);
+      log(`restored ${restored.file} into the database ${restored.database}`);
+    });
   } else {
     console.error('usage: npm run backup [FILE or FOLDER]   |   npm run restore FILE');
     process.exitCode = 2;
