@@ -1,10 +1,10 @@
 // `npm start`: the whole set-up on a fresh machine, then the app with its demo on http://127.0.0.1:4300.
-import { spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { clusterLocation, startCluster } from './postgres.mjs';
+import { supervise } from './supervise.mjs';
 import { ensureDependencies, log, run } from './system.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -71,27 +71,24 @@ try {
 }
 
 const port = Number(process.env.PORT || 4300);
-const server = spawn(process.execPath, [...tsx, 'service/src/main.ts'], {
-  cwd: root,
-  stdio: ['ignore', 'inherit', 'inherit'],
-  env: {
-    ...process.env,
-    NODE_ENV: process.env.NODE_ENV || 'production',
-    PORT: String(port),
-    DATABASE_URL: databaseUrl,
-    JWT_SECRET: process.env.JWT_SECRET || secrets.jwtSecret,
-    WEB_DIST: path.join(root, 'dist', 'web', 'browser'),
-    LOG_LEVEL: process.env.LOG_LEVEL || 'warn',
-  },
-});
+const url = `http://127.0.0.1:${port}`;
 
-async function announceWhenReady() {
-  const url = `http://127.0.0.1:${port}`;
+async function answersHealth() {
+  try {
+    return (await fetch(`${url}/api/health`)).ok;
+  } catch {
+    return false;
+  }
+}
+
+async function announceWhenReady(run) {
   for (let attempt = 0; attempt < 120; attempt += 1) {
-    try {
-      const response = await fetch(`${url}/api/health`);
-      if (response.ok) {
-        console.log(`
+    if (await answersHealth()) {
+      if (run > 1) {
+        log(`the server answers again at ${url}`);
+        return;
+      }
+      console.log(`
   Allowlight is running at ${url}
 
   Demo sign-ins (password: ${demoPassword})
@@ -102,28 +99,47 @@ async function announceWhenReady() {
 
   Press Ctrl-C to stop the server${cluster?.started ? ' and the database' : ''}.
 `);
-        return;
-      }
-    } catch {
-      // not listening yet
+      return;
     }
     await new Promise((resolve) => setTimeout(resolve, 250));
   }
   log('the server did not answer on /api/health within 30 s');
 }
 
-void announceWhenReady();
+const service = supervise({
+  name: 'the server',
+  command: process.execPath,
+  args: [...tsx, 'service/src/main.ts'],
+  spawnOptions: {
+    cwd: root,
+    stdio: ['ignore', 'inherit', 'inherit'],
+    // Its own process group: Ctrl-C reaches only this process, which stops the server on purpose,
+    // so a server that ends on the same keystroke is never mistaken for one that crashed.
+    detached: true,
+    env: {
+      ...process.env,
+      NODE_ENV: process.env.NODE_ENV || 'production',
+      PORT: String(port),
+      DATABASE_URL: databaseUrl,
+      JWT_SECRET: process.env.JWT_SECRET || secrets.jwtSecret,
+      WEB_DIST: path.join(root, 'dist', 'web', 'browser'),
+      LOG_LEVEL: process.env.LOG_LEVEL || 'warn',
+    },
+  },
+  log,
+  onStart: (_child, run) => void announceWhenReady(run),
+});
 
-let stopping = false;
-function shutdown() {
-  if (stopping) return;
-  stopping = true;
-  server.kill('SIGTERM');
+let stopRequested = false;
+for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
+  process.on(signal, () => {
+    if (stopRequested) return;
+    stopRequested = true;
+    log(`${signal}: stopping the server${cluster?.started ? ' and PostgreSQL' : ''}`);
+    void service.stop('SIGTERM');
+  });
 }
 
-process.on('SIGINT', shutdown);
-process.on('SIGTERM', shutdown);
-server.on('exit', (code) => {
-  stopCluster();
-  process.exit(stopping ? 0 : (code ?? 1));
-});
+const outcome = await service.done;
+stopCluster();
+process.exit(outcome.reason === 'stopped' ? 0 : 1);
