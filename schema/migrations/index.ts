@@ -5,6 +5,7 @@ import * as projectDesign from './20261201000300_project_design.js';
 import * as lightReductionExemptions from './20261201000400_light_reduction_exemptions.js';
 import * as projectResultSummary from './20261201000500_project_result_summary.js';
 import * as designIntegrity from './20261202000200_design_integrity.js';
+import * as permitFields from './20261202000300_permit_fields.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -19,6 +20,7 @@ const migrations: Record<string, Migration> = {
   '20261201000400_light_reduction_exemptions': lightReductionExemptions,
   '20261201000500_project_result_summary': projectResultSummary,
   '20261202000200_design_integrity': designIntegrity,
+  '20261202000300_permit_fields': permitFields,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -71,9 +71,15 @@ describe('validateDocument', () => {
     expect(paths(areaMethod)).toContain('spaces.0.buildingAreaType');
   });
 
-  it('flags a space type under the building area method and a missing type under either method', () => {
+  it('flags the type each method needs when it is missing, and keeps the other method’s type', () => {
     const areaMethod = { ...valid(), method: 'building-area' as const };
-    expect(paths(areaMethod)).toEqual(expect.arrayContaining(['spaces.0.spaceType', 'spaces.0.buildingAreaType']));
+    expect(paths(areaMethod)).toEqual(['spaces.0.buildingAreaType']);
+    const both = { ...valid(), method: 'building-area' as const };
+    both.spaces[0]!.buildingAreaType = 'office';
+    expect(paths(both)).toEqual([]);
+    const controlTypeDiffers = valid();
+    controlTypeDiffers.spaces[0]!.controlSpaceType = 'corridor';
+    expect(paths(controlTypeDiffers)).toEqual(['spaces.0.controlSpaceType']);
     const spaceMethod = valid();
     delete spaceMethod.spaces[0]!.spaceType;
     expect(paths(spaceMethod)).toContain('spaces.0.spaceType');

@@ -76,12 +76,13 @@ describe('POST /api/evaluate', () => {
     expect(response.body).not.toHaveProperty('interior');
   });
 
-  it('refuses a space type under the building area method, and an unknown edition', async () => {
+  it('asks for the building area type under the building area method, and refuses an unknown edition', async () => {
     const document = { ...offices(), method: 'building-area' };
     const response = await evaluate(document);
     expect(response.status).toBe(400);
     const paths = response.body.error.details.map((detail: { path: string }) => detail.path);
-    expect(paths).toEqual(expect.arrayContaining(['spaces.0.spaceType', 'spaces.0.buildingAreaType']));
+    expect(paths).toEqual(expect.arrayContaining(['spaces.0.buildingAreaType']));
+    expect(paths).not.toContain('spaces.0.spaceType');
 
     const unknown = await evaluate({ ...offices(), edition: 'iecc-1999' });
     expect(unknown.status).toBe(400);

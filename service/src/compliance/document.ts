@@ -86,7 +86,7 @@ export const spaceSchema = z.object({
   level: textField(textLimits.level, { required: true }).optional(),
   spaceType: key.optional(),
   buildingAreaType: key.optional(),
-  /** Building area method only: the space type whose control requirements apply. */
+  /** Building area method: the space type whose control requirements apply; the space type when absent. */
   controlSpaceType: key.optional(),
   area: decimalField(ranges.area),
   ceilingHeight: decimalField(ranges.height).optional(),
@@ -266,14 +266,12 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     const spaceType = word(space['spaceType']);
     const areaType = word(space['buildingAreaType']);
     const controlType = word(space['controlSpaceType']);
-    if (method === 'building-area') {
-      if (areaType === undefined) add(`${path}.buildingAreaType`, 'The building area method needs a building area type for every space.');
-      if (spaceType !== undefined) add(`${path}.spaceType`, 'A space type is not used by the building area method; give controlSpaceType for the control requirements.');
-    }
+    // A space keeps both its space type and its building area type, so switching the method loses
+    // nothing; each method reads the one it needs.
+    if (method === 'building-area' && areaType === undefined) add(`${path}.buildingAreaType`, 'The building area method needs a building area type for every space.');
     if (method === 'space-by-space') {
       if (spaceType === undefined) add(`${path}.spaceType`, 'The space-by-space method needs a space type for every space.');
-      if (areaType !== undefined) add(`${path}.buildingAreaType`, 'A building area type is not used by the space-by-space method.');
-      if (controlType !== undefined) add(`${path}.controlSpaceType`, 'With the space-by-space method the control space type is the space type.');
+      if (controlType !== undefined && controlType !== spaceType) add(`${path}.controlSpaceType`, 'With the space-by-space method the space type sets the controls; leave the control space type out.');
     }
     if (spaceType !== undefined && !spaceTypes.has(spaceType)) add(`${path}.spaceType`, `${edition.id} has no space type "${spaceType}".`);
     if (controlType !== undefined && !spaceTypes.has(controlType)) add(`${path}.controlSpaceType`, `${edition.id} has no space type "${controlType}".`);

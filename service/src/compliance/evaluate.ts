@@ -263,7 +263,8 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       spaceUnverified.add(`Building area type LPD: ${type.label}`, type.provenance);
       baseLpd = dec(type.lpdWPerFt2);
       lpdBasis = { kind: 'building-area-type', key: type.key, label: type.label };
-      controlType = space.controlSpaceType === undefined ? undefined : spaceTypes.get(space.controlSpaceType);
+      const controlKey = space.controlSpaceType ?? space.spaceType;
+      controlType = controlKey === undefined ? undefined : spaceTypes.get(controlKey);
     }
 
     const rcr = spaceRcr(space, units, cautions);

@@ -23,7 +23,8 @@ export async function assertSpacesFitEdition(db: Database, projectId: string, sp
       method: project.method,
       units: project.units,
       luminaireTypes: types.map(({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts }) => ({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts })),
-      spaces: spaces.map((space, index) => ({ ...space, id: `space-${index}` })),
+      // The building area method's control space type is kept when the project uses the other method, unchecked until it is used.
+      spaces: spaces.map((space, index) => ({ ...space, ...(project.method === 'space-by-space' ? { controlSpaceType: undefined } : {}), id: `space-${index}` })),
     },
     edition,
   );

@@ -34,8 +34,10 @@ export async function projectDocument(db: Knex, projectId: string): Promise<Eval
     method: project.method,
     units: project.units,
     luminaireTypes: types.map(({ id: _id, version: _version, updatedAt: _updatedAt, updatedBy: _updatedBy, wattageSource: _source, ...type }) => type),
-    spaces: spaces.map(({ position: _position, version: _version, updatedAt: _updatedAt, updatedBy: _updatedBy, luminaires, ...space }) => ({
+    spaces: spaces.map(({ position: _position, version: _version, updatedAt: _updatedAt, updatedBy: _updatedBy, luminaires, controlSpaceType, ...space }) => ({
       ...space,
+      // Kept for the building area method; with the space-by-space method the space type sets the controls.
+      ...(project.method === 'building-area' && controlSpaceType !== undefined ? { controlSpaceType } : {}),
       luminaires: luminaires.map(({ luminaireTypeId: _typeId, ...group }) => group),
     })),
   };

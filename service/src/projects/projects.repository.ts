@@ -6,7 +6,8 @@ import { updateVersioned } from '../db/optimistic.js';
 import { lockProject } from '../db/project-lock.js';
 import type { ProjectRole } from '../db/tables.js';
 import { AppError } from '../http/app-error.js';
-import type { ProjectCreate, ProjectSetupPatch } from './projects.schema.js';
+import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
+import { permitColumns, type ProjectCreate, type ProjectSetupPatch } from './projects.schema.js';
 
 /** The last evaluation's verdict, kept for lists; null until the project is evaluated after its latest change. */
 export interface ResultSummary {
@@ -29,7 +30,12 @@ export interface ProjectSummary {
   archivedAt: string | null;
 }
 
-export interface ProjectDetail extends ProjectSummary {
+type PermitField = keyof typeof permitColumns;
+
+/** The permit office's fields; null where not entered. */
+export type PermitFields = { [Field in PermitField]: Field extends 'scope' ? ProjectCreate['scope'] | null : string | null };
+
+export interface ProjectDetail extends ProjectSummary, PermitFields {
   address: string | null;
   latitude: string | null;
   longitude: string | null;
@@ -57,8 +63,16 @@ interface ProjectRow {
   units: 'ip' | 'si';
   lighting_zone: number | null;
   result_summary: ResultSummary | null;
+  gross_floor_area: string | null;
   archived_at: Date | null;
   updated_by_name: string | null;
+  unit_origin: UnitOrigin | null;
+}
+
+function permitFields(row: Record<string, unknown>): PermitFields {
+  const fields = Object.fromEntries(Object.entries(permitColumns).map(([field, column]) => [field, (row[column] as string | null | undefined) ?? null])) as PermitFields;
+  fields.grossFloorArea = plain(fields.grossFloorArea);
+  return fields;
 }
 
 function plain(value: string | null): string | null {
@@ -133,6 +147,7 @@ export async function getProjectDetail(db: Knex, projectId: string, role: Projec
     units: row.units,
     lightingZone: row.lighting_zone,
     updatedBy: row.updated_by_name,
+    ...permitFields(row as unknown as Record<string, unknown>),
     members,
   };
 }
@@ -149,6 +164,7 @@ function setupColumns(input: Partial<ProjectCreate>): Record<string, unknown> {
     method: input.method,
     units: input.units,
     lighting_zone: input.lightingZone,
+    ...Object.fromEntries(Object.entries(permitColumns).map(([field, column]) => [column, input[field as PermitField]])),
   };
   return Object.fromEntries(Object.entries(columns).filter(([, value]) => value !== undefined));
 }
@@ -173,21 +189,7 @@ export async function createProject(db: Database, input: ProjectCreate, userId: 
 
 /** The set-up as the history keeps it, before and after a change. */
 async function setupRecord(trx: Knex, projectId: string): Promise<Record<string, unknown>> {
-  const row = await trx('projects')
-    .where({ id: projectId })
-    .first<Pick<ProjectRow, 'name' | 'address' | 'latitude' | 'longitude' | 'time_zone' | 'jurisdiction' | 'edition_id' | 'method' | 'units' | 'lighting_zone' | 'version'>>(
-      'name',
-      'address',
-      'latitude',
-      'longitude',
-      'time_zone',
-      'jurisdiction',
-      'edition_id',
-      'method',
-      'units',
-      'lighting_zone',
-      'version',
-    );
+  const row = await trx('projects').where({ id: projectId }).first<ProjectRow>();
   return {
     name: row.name,
     address: row.address,
@@ -199,6 +201,7 @@ async function setupRecord(trx: Knex, projectId: string): Promise<Record<string,
     method: row.method,
     units: row.units,
     lightingZone: row.lighting_zone,
+    ...permitFields(row as unknown as Record<string, unknown>),
     version: row.version,
   };
 }
@@ -217,8 +220,11 @@ export async function updateProjectSetup(
   const { version, ...fields } = patch;
   await db.transaction(async (trx) => {
     await lockProject(trx, projectId);
+    const stored = await trx('projects').where({ id: projectId }).first<ProjectRow>();
     const before = await setupRecord(trx, projectId);
-    await updateVersioned(trx, 'projects', { id: projectId }, version, { ...setupColumns(fields), result_summary: null }, userId, 'The project set-up');
+    const columns = setupColumns(fields);
+    const origin = carriedOrigin(stored.unit_origin, { ...stored }, { gross_floor_area: stored.gross_floor_area, ...columns });
+    await updateVersioned(trx, 'projects', { id: projectId }, version, { ...columns, unit_origin: origin, result_summary: null }, userId, 'The project set-up');
     const conversion = alongside ? await alongside(trx) : undefined;
     const after = await setupRecord(trx, projectId);
     await recordAudit(trx, {

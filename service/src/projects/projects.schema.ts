@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { maxNumberLength, textField, textLimits, versionField } from '../compliance/bounds.js';
+import { decimalField, maxNumberLength, ranges, textField, textLimits, versionField } from '../compliance/bounds.js';
 
 function boundedDecimal(min: number, max: number, what: string) {
   return z.union([z.string(), z.number()]).transform((value, ctx) => {
@@ -24,6 +24,10 @@ function isTimeZone(zone: string): boolean {
 
 export const projectMethods = ['building-area', 'space-by-space'] as const;
 export const unitSystems = ['ip', 'si'] as const;
+/** The kind of work the permit covers; each edition's alteration rules depend on it. */
+export const projectScopes = ['new-building', 'addition', 'alteration', 'tenant-improvement'] as const;
+
+const optionalText = (max: number) => textField(max).nullable().optional();
 
 const setupFields = {
   name: textField(textLimits.name).pipe(z.string().min(1, 'Give the project a name.')),
@@ -36,7 +40,36 @@ const setupFields = {
   method: z.enum(projectMethods),
   units: z.enum(unitSystems),
   lightingZone: z.number().int().min(0).max(4).nullable().optional(),
+  permitNumber: optionalText(100),
+  owner: optionalText(textLimits.name),
+  occupancy: optionalText(textLimits.name),
+  scope: z.enum(projectScopes).nullable().optional(),
+  /** Gross floor area of the building, ft² or m² as the project's units say. */
+  grossFloorArea: decimalField(ranges.area).nullable().optional(),
+  designerName: optionalText(textLimits.name),
+  designerFirm: optionalText(textLimits.name),
+  designerLicence: optionalText(100),
+  contractorName: optionalText(textLimits.name),
+  contractorFirm: optionalText(textLimits.name),
+  contractorLicence: optionalText(100),
+  contractorContact: optionalText(textLimits.name),
 };
+
+/** The permit fields, by their names in the API and their columns. */
+export const permitColumns = {
+  permitNumber: 'permit_number',
+  owner: 'owner_name',
+  occupancy: 'occupancy',
+  scope: 'scope',
+  grossFloorArea: 'gross_floor_area',
+  designerName: 'designer_name',
+  designerFirm: 'designer_firm',
+  designerLicence: 'designer_licence',
+  contractorName: 'contractor_name',
+  contractorFirm: 'contractor_firm',
+  contractorLicence: 'contractor_licence',
+  contractorContact: 'contractor_contact',
+} as const;
 
 export const projectCreateSchema = z.object(setupFields);
 export const projectSetupPatchSchema = z.object(setupFields).partial().extend({ version: versionField });

@@ -10,7 +10,8 @@ interface ConvertedTable {
   table: string;
   /** What a person calls these rows. */
   label: string;
-  scope: 'project' | 'space';
+  /** Which rows: the project's own row, its rows, or its spaces' rows. */
+  scope: 'self' | 'project' | 'space';
   /** Versioned rows get a new version, so a writer still holding the old values gets 409 instead of saving them in the wrong unit. */
   versioned: boolean;
   columns: Record<string, { kind: Kind; range: NumberRange }>;
@@ -24,6 +25,8 @@ function convertedTables(exteriorUnits: ReadonlyMap<string, string>): ConvertedT
   const area = { kind: 'area' as const, range: ranges.area };
   const exteriorKeys = (unit: string) => [...exteriorUnits].filter(([, applicationUnit]) => applicationUnit === unit).map(([key]) => key);
   return [
+    // The set-up write that changes the units has already given the project a new version.
+    { table: 'projects', label: 'project set-up', scope: 'self', versioned: false, columns: { gross_floor_area: area } },
     {
       table: 'spaces',
       label: 'spaces',
@@ -98,6 +101,11 @@ export async function convertProjectUnits(
   if (from === to) return summary;
   const factors: Record<Kind, string> = { length: text(metresPerFoot), area: text(squareMetresPerSquareFoot) };
   const spaceIds = trx('spaces').select('id').where({ project_id: projectId });
+  const inScope = (query: Knex.QueryBuilder, scope: ConvertedTable['scope']) => {
+    if (scope === 'self') query.where({ id: projectId });
+    else if (scope === 'project') query.where({ project_id: projectId });
+    else query.whereIn('space_id', spaceIds);
+  };
   for (const { table, label, scope, versioned, columns, where } of convertedTables(exteriorUnits)) {
     const names = Object.keys(columns);
     const changes: Record<string, Knex.Raw> = {};
@@ -115,15 +123,13 @@ export async function convertProjectUnits(
     );
     if (versioned) Object.assign(changes, { version: trx.raw('version + 1'), updated_at: trx.fn.now(), updated_by: userId });
     const query = trx(table).update(changes);
-    if (scope === 'project') query.where({ project_id: projectId });
-    else query.whereIn('space_id', spaceIds);
+    inScope(query, scope);
     where?.(query);
     const count = await query;
     summary.rows[table] = (summary.rows[table] ?? 0) + count;
 
     const outOfRange = trx(table).count<{ count: string }>('* as count');
-    if (scope === 'project') outOfRange.where({ project_id: projectId });
-    else outOfRange.whereIn('space_id', spaceIds);
+    inScope(outOfRange, scope);
     outOfRange.where((clause) => {
       for (const name of names) clause.orWhere(name, '>', columns[name]!.range.max);
     });
