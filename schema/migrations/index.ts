@@ -4,6 +4,7 @@ import * as codeTables from './20261201000200_code_tables.js';
 import * as projectDesign from './20261201000300_project_design.js';
 import * as lightReductionExemptions from './20261201000400_light_reduction_exemptions.js';
 import * as projectResultSummary from './20261201000500_project_result_summary.js';
+import * as sessions from './20261202001000_sessions.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -17,6 +18,7 @@ const migrations: Record<string, Migration> = {
   '20261201000300_project_design': projectDesign,
   '20261201000400_light_reduction_exemptions': lightReductionExemptions,
   '20261201000500_project_result_summary': projectResultSummary,
+  '20261202001000_sessions': sessions,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

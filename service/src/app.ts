@@ -49,14 +49,14 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
   app.use(express.json({ limit: config.JSON_BODY_LIMIT }));
   app.use(cookieParser());
 
-  const tokenSettings = { secret: config.JWT_SECRET, sessionHours: config.SESSION_HOURS };
   const api = express.Router();
-  api.use(readSession(db, tokenSettings));
+  api.use(readSession(db, config.JWT_SECRET));
   api.use('/health', healthRouter(db));
   api.use(
     '/auth',
     authRouter(db, {
-      ...tokenSettings,
+      secret: config.JWT_SECRET,
+      sessionHours: config.SESSION_HOURS,
       cookieSecure: config.COOKIE_SECURE,
       loginRateLimit: config.LOGIN_RATE_LIMIT,
       loginRateWindowMinutes: config.LOGIN_RATE_WINDOW_MINUTES,

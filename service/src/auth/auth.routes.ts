@@ -1,16 +1,18 @@
 import bcrypt from 'bcryptjs';
-import { Router, type CookieOptions } from 'express';
+import { Router, type CookieOptions, type Request } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
-import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
 import { csrfHeader, currentSession, requireSignIn, sessionCookie } from '../http/session.js';
 import { parse } from '../http/validate.js';
 import { findUserByEmail, toPublicUser } from './auth.repository.js';
-import { signSession, type TokenSettings } from './tokens.js';
+import { createSession, revokeSession } from './session.repository.js';
+import { signSession } from './tokens.js';
 
-export interface AuthSettings extends TokenSettings {
+export interface AuthSettings {
+  secret: string;
+  sessionHours: number;
   cookieSecure: boolean;
   loginRateLimit: number;
   loginRateWindowMinutes: number;
@@ -25,6 +27,13 @@ const loginSchema = z.object({
 const unknownUserHash = bcrypt.hashSync('allowlight-unknown-user', 10);
 
 const wrongCredentials = () => new AppError(401, 'invalid_credentials', 'The e-mail or password is not correct.');
+
+/** The client's address as Express resolved it, with IPv4 written plainly rather than IPv6-mapped. */
+function clientAddress(req: Request): string | null {
+  const address = req.ip;
+  if (!address) return null;
+  return address.startsWith('::ffff:') && address.includes('.') ? address.slice('::ffff:'.length) : address;
+}
 
 export function authRouter(db: Database, settings: AuthSettings): Router {
   const router = Router();
@@ -52,15 +61,19 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
     if (!user || !matches) {
       throw wrongCredentials();
     }
-    const { token, csrf } = signSession(settings, user.id);
-    res.cookie(sessionCookie, token, { ...cookieOptions, maxAge: settings.sessionHours * 3_600_000 });
-    await recordAudit(db, { userId: user.id, action: 'sign-in', entity: 'user', entityId: user.id });
+    const expiresAt = new Date(Date.now() + settings.sessionHours * 3_600_000);
+    const sessionId = await createSession(db, { userId: user.id, expiresAt, userAgent: req.get('user-agent') ?? null, address: clientAddress(req) });
+    const { token, csrf } = signSession(settings.secret, { id: sessionId, userId: user.id, expiresAt });
+    res.cookie(sessionCookie, token, { ...cookieOptions, expires: expiresAt });
     res.json({ user: await toPublicUser(db, user), csrfToken: csrf });
   });
 
-  router.post('/logout', (req, res) => {
-    if (req.session && req.get(csrfHeader) !== req.session.csrf) {
-      throw new AppError(403, 'csrf_failed', 'The request is missing a valid X-CSRF-Token header.');
+  router.post('/logout', async (req, res) => {
+    if (req.session) {
+      if (req.get(csrfHeader) !== req.session.csrf) {
+        throw new AppError(403, 'csrf_failed', 'The request is missing a valid X-CSRF-Token header.');
+      }
+      await revokeSession(db, req.session.user.id, req.session.id, 'sign-out');
     }
     res.clearCookie(sessionCookie, cookieOptions);
     res.status(204).end();

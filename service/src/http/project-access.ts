@@ -3,6 +3,7 @@ import type { Database } from '../db/database.js';
 import type { ProjectMemberRow, ProjectRole } from '../db/tables.js';
 import { AppError } from './app-error.js';
 import { currentSession } from './session.js';
+import { uuidPattern } from './validate.js';
 
 /** What a person can do inside a project; each route names the action it performs. */
 export type ProjectAction = 'read' | 'edit-design' | 'submit' | 'review' | 'export' | 'record-field-tests' | 'manage-team';
@@ -32,8 +33,6 @@ declare module 'express-serve-static-core' {
     projectAccess?: ProjectAccess;
   }
 }
-
-const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * Guards a route under `/projects/:projectId`: 404 for a project that does not exist,
