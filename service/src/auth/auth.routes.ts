@@ -5,9 +5,9 @@ import { z } from 'zod';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
 import { csrfHeader, currentSession, requireSignIn, sessionCookie } from '../http/session.js';
-import { parse } from '../http/validate.js';
+import { parse, uuidPattern } from '../http/validate.js';
 import { findUserByEmail, toPublicUser } from './auth.repository.js';
-import { createSession, revokeSession } from './session.repository.js';
+import { createSession, listActiveSessions, revokeOtherSessions, revokeSession } from './session.repository.js';
 import { signSession } from './tokens.js';
 
 export interface AuthSettings {
@@ -82,6 +82,30 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
   router.get('/me', requireSignIn, (req, res) => {
     const session = currentSession(req);
     res.json({ user: session.user, csrfToken: session.csrf });
+  });
+
+  router.get('/sessions', requireSignIn, async (req, res) => {
+    const session = currentSession(req);
+    const sessions = await listActiveSessions(db, session.user.id);
+    res.json(sessions.map((entry) => ({ ...entry, current: entry.id === session.id })));
+  });
+
+  router.post('/sessions/end-others', requireSignIn, async (req, res) => {
+    const session = currentSession(req);
+    res.json({ ended: await revokeOtherSessions(db, session.user.id, session.id) });
+  });
+
+  router.delete('/sessions/:sessionId', requireSignIn, async (req, res) => {
+    const session = currentSession(req);
+    const sessionId = String(req.params['sessionId']);
+    // Someone else's session answers exactly as a missing one does, so ids cannot be probed.
+    if (!uuidPattern.test(sessionId) || !(await revokeSession(db, session.user.id, sessionId, 'end-session'))) {
+      throw AppError.notFound('No such session.');
+    }
+    if (sessionId === session.id) {
+      res.clearCookie(sessionCookie, cookieOptions);
+    }
+    res.status(204).end();
   });
 
   return router;

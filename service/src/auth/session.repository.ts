@@ -18,6 +18,15 @@ export interface NewSession {
   address: string | null;
 }
 
+export interface ActiveSession {
+  id: string;
+  createdAt: Date;
+  lastSeenAt: Date;
+  expiresAt: Date;
+  userAgent: string | null;
+  address: string | null;
+}
+
 /** Stores a new session and audits the sign-in in one transaction; returns the session's id. */
 export async function createSession(db: Database, session: NewSession): Promise<string> {
   return db.transaction(async (trx) => {
@@ -58,7 +67,23 @@ export async function findLiveSessionUser(db: Database, sessionId: string, userI
   return row;
 }
 
-export type SessionEnd = 'sign-out';
+export async function listActiveSessions(db: Database, userId: string): Promise<ActiveSession[]> {
+  const rows = await db<SessionRow>('sessions')
+    .where({ user_id: userId })
+    .whereNull('revoked_at')
+    .andWhere('expires_at', '>', db.fn.now())
+    .orderBy([{ column: 'last_seen_at', order: 'desc' }, { column: 'created_at', order: 'desc' }]);
+  return rows.map((row) => ({
+    id: row.id,
+    createdAt: row.created_at,
+    lastSeenAt: row.last_seen_at,
+    expiresAt: row.expires_at,
+    userAgent: row.user_agent,
+    address: row.address,
+  }));
+}
+
+export type SessionEnd = 'sign-out' | 'end-session';
 
 /** Revokes one live session of the user and audits it; false when there is no such live session. */
 export async function revokeSession(db: Database, userId: string, sessionId: string, action: SessionEnd): Promise<boolean> {
@@ -71,5 +96,21 @@ export async function revokeSession(db: Database, userId: string, sessionId: str
     if (revoked === 0) return false;
     await recordAudit(trx, { userId, action, entity: 'session', entityId: sessionId });
     return true;
+  });
+}
+
+/** Revokes every live session of the user but the one named, audits it, and returns how many ended. */
+export async function revokeOtherSessions(db: Database, userId: string, keepSessionId: string): Promise<number> {
+  return db.transaction(async (trx) => {
+    const ended = await trx('sessions')
+      .where({ user_id: userId })
+      .whereNot({ id: keepSessionId })
+      .whereNull('revoked_at')
+      .andWhere('expires_at', '>', trx.fn.now())
+      .update({ revoked_at: trx.fn.now() }, ['id']);
+    if (ended.length > 0) {
+      await recordAudit(trx, { userId, action: 'end-other-sessions', entity: 'session', entityId: keepSessionId, detail: { ended: ended.map((row: { id: string }) => row.id) } });
+    }
+    return ended.length;
   });
 }
