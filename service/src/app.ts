@@ -26,7 +26,7 @@ export interface AppDeps {
 export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL }) }: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', config.TRUST_PROXY);
 
   app.use(
     helmet({
@@ -60,6 +60,9 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
       cookieSecure: config.COOKIE_SECURE,
       loginRateLimit: config.LOGIN_RATE_LIMIT,
       loginRateWindowMinutes: config.LOGIN_RATE_WINDOW_MINUTES,
+      loginAccountRateLimit: config.LOGIN_ACCOUNT_RATE_LIMIT,
+      loginAccountRateWindowMinutes: config.LOGIN_ACCOUNT_RATE_WINDOW_MINUTES,
+      logger,
     }),
   );
   api.use(requireSignIn);

@@ -32,6 +32,7 @@ function claimsOf(response: request.Response): { sub: string; jti: string; csrf:
 }
 
 const demoSignIn = (email = 'engineer@alderbay.example') => ({ email, password: inject('demoPassword') });
+const wrongSignIn = (email = 'engineer@alderbay.example') => ({ email, password: 'not-the-password' });
 
 describe('POST /api/auth/login', () => {
   it('signs in a demo user and sets an httpOnly, SameSite=Lax session cookie with an expiry', async () => {
@@ -98,6 +99,49 @@ describe('POST /api/auth/login', () => {
     expect(statuses).toEqual([401, 401, 401, 429]);
     const limited = await attempt();
     expect(limited.body.error.code).toBe('rate_limited');
+  });
+});
+
+describe('sign-in limits', () => {
+  const statusesOf = async (attempts: (() => request.Test)[]) => {
+    const statuses: number[] = [];
+    for (const attempt of attempts) statuses.push((await attempt()).status);
+    return statuses;
+  };
+
+  it('counts by the connecting address, so a client that invents X-Forwarded-For values is still stopped', async () => {
+    const { app } = testApp(database.db, database.url, { LOGIN_RATE_LIMIT: '3' });
+    // Addresses from the documentation range (RFC 5737, TEST-NET-3).
+    const attempts = [1, 2, 3, 4, 5].map((host) => () => request(app).post('/api/auth/login').set('X-Forwarded-For', `203.0.113.${host}`).send(wrongSignIn()));
+    expect(await statusesOf(attempts)).toEqual([401, 401, 401, 429, 429]);
+  });
+
+  it('believes X-Forwarded-For from a proxy named in TRUST_PROXY, and counts each forwarded client apart', async () => {
+    const { app } = testApp(database.db, database.url, { LOGIN_RATE_LIMIT: '2', TRUST_PROXY: 'loopback' });
+    const from = (address: string) => () => request(app).post('/api/auth/login').set('X-Forwarded-For', address).send(wrongSignIn());
+    // Documentation addresses (RFC 5737, TEST-NET-3).
+    expect(await statusesOf([from('203.0.113.7'), from('203.0.113.7'), from('203.0.113.7'), from('203.0.113.8')])).toEqual([401, 401, 429, 401]);
+  });
+
+  it('stops guesses at one account whatever the letter case, in the one error shape, while others still sign in', async () => {
+    const { app } = testApp(database.db, database.url, { LOGIN_ACCOUNT_RATE_LIMIT: '2' });
+    const attempts = [
+      () => request(app).post('/api/auth/login').send(wrongSignIn('engineer@alderbay.example')),
+      () => request(app).post('/api/auth/login').send(wrongSignIn('ENGINEER@alderbay.example')),
+      () => request(app).post('/api/auth/login').send(demoSignIn('Engineer@AlderBay.example')),
+    ];
+    expect(await statusesOf(attempts)).toEqual([401, 401, 429]);
+    const limited = await request(app).post('/api/auth/login').send(demoSignIn());
+    expect(limited.body).toEqual({ error: { code: 'rate_limited', message: expect.any(String) } });
+    expect((await request(app).post('/api/auth/login').send(demoSignIn('reviewer@alderbay.example'))).status).toBe(200);
+  });
+
+  it('does not count successful sign-ins against either limit', async () => {
+    const { app } = testApp(database.db, database.url, { LOGIN_RATE_LIMIT: '2', LOGIN_ACCOUNT_RATE_LIMIT: '2' });
+    const successes = Array.from({ length: 6 }, () => () => request(app).post('/api/auth/login').send(demoSignIn()));
+    expect(await statusesOf(successes)).toEqual([200, 200, 200, 200, 200, 200]);
+    const failures = Array.from({ length: 3 }, () => () => request(app).post('/api/auth/login').send(wrongSignIn()));
+    expect(await statusesOf(failures)).toEqual([401, 401, 429]);
   });
 });
 

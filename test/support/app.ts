@@ -14,6 +14,7 @@ export function testConfig(url: string, overrides: Record<string, string> = {}):
     JWT_SECRET: randomBytes(32).toString('hex'),
     LOG_LEVEL: 'silent',
     LOGIN_RATE_LIMIT: '1000',
+    LOGIN_ACCOUNT_RATE_LIMIT: '1000',
     ...overrides,
   });
 }

@@ -1,6 +1,7 @@
 import bcrypt from 'bcryptjs';
-import { Router, type CookieOptions, type Request } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { Router, type CookieOptions, type Request, type Response } from 'express';
+import { rateLimit, type RateLimitRequestHandler } from 'express-rate-limit';
+import type { Logger } from 'pino';
 import { z } from 'zod';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
@@ -16,6 +17,10 @@ export interface AuthSettings {
   cookieSecure: boolean;
   loginRateLimit: number;
   loginRateWindowMinutes: number;
+  loginAccountRateLimit: number;
+  loginAccountRateWindowMinutes: number;
+  /** Where the rate limiter reports a misconfiguration (such as a proxy it was not told to trust). */
+  logger: Logger;
 }
 
 const loginSchema = z.object({
@@ -35,6 +40,32 @@ function clientAddress(req: Request): string | null {
   return address.startsWith('::ffff:') && address.includes('.') ? address.slice('::ffff:'.length) : address;
 }
 
+/** The e-mail a sign-in tries, lower-cased, or null when the body carries none (it then fails validation). */
+function triedEmail(req: Request): string | null {
+  const email: unknown = (req.body as { email?: unknown } | undefined)?.email;
+  return typeof email === 'string' && email.trim().length > 0 ? email.trim().toLowerCase() : null;
+}
+
+/**
+ * A sign-in limiter. Successful sign-ins are handed back, so people who sign in from many tabs or
+ * one shared office address are not locked out; only failures use up the allowance.
+ */
+function signInLimiter(name: string, limit: number, windowMinutes: number, logger: Logger, keyedBy?: (req: Request) => string | null): RateLimitRequestHandler {
+  return rateLimit({
+    identifier: name,
+    windowMs: windowMinutes * 60_000,
+    limit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    skipSuccessfulRequests: true,
+    logger,
+    ...(keyedBy ? { keyGenerator: (req: Request) => keyedBy(req) ?? '', skip: (req: Request) => keyedBy(req) === null } : {}),
+    handler: (_req: Request, res: Response) => {
+      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many sign-in attempts. Wait a few minutes and try again.' } });
+    },
+  });
+}
+
 export function authRouter(db: Database, settings: AuthSettings): Router {
   const router = Router();
   const cookieOptions: CookieOptions = {
@@ -44,17 +75,11 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
     path: '/',
   };
 
-  const loginLimiter = rateLimit({
-    windowMs: settings.loginRateWindowMinutes * 60_000,
-    limit: settings.loginRateLimit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res) => {
-      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many sign-in attempts. Wait a few minutes and try again.' } });
-    },
-  });
+  const addressLimiter = signInLimiter('sign-in-address', settings.loginRateLimit, settings.loginRateWindowMinutes, settings.logger);
+  // Spreads over many addresses do not get more guesses at one account than a single address would.
+  const accountLimiter = signInLimiter('sign-in-account', settings.loginAccountRateLimit, settings.loginAccountRateWindowMinutes, settings.logger, triedEmail);
 
-  router.post('/login', loginLimiter, async (req, res) => {
+  router.post('/login', addressLimiter, accountLimiter, async (req, res) => {
     const { email, password } = parse(loginSchema, req.body);
     const user = await findUserByEmail(db, email);
     const matches = await bcrypt.compare(password, user?.password_hash ?? unknownUserHash);
