@@ -49,7 +49,8 @@ const configSchema = z.object({
   DATABASE_URL: z.string().url(),
   JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters'),
   SESSION_HOURS: z.coerce.number().positive().max(24 * 30).default(8),
-  COOKIE_SECURE: booleanFromString.default(false),
+  /** Unset: Secure everywhere but development, where a LAN address over plain http would lose the cookie. */
+  COOKIE_SECURE: booleanFromString.optional(),
   TRUST_PROXY: trustProxy,
   LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
   LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
@@ -58,7 +59,7 @@ const configSchema = z.object({
   JSON_BODY_LIMIT: z.string().default('2mb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   WEB_DIST: z.string().optional(),
-});
+}).transform((config) => ({ ...config, COOKIE_SECURE: config.COOKIE_SECURE ?? config.NODE_ENV !== 'development' }));
 
 export type Config = z.infer<typeof configSchema>;
 

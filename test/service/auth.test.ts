@@ -75,6 +75,13 @@ describe('POST /api/auth/login', () => {
     expect(response.body.error.details.map((detail: { path: string }) => detail.path).sort()).toEqual(['email', 'password']);
   });
 
+  it('marks the cookie Secure unless the service is told otherwise', async () => {
+    const { app } = testApp(database.db, database.url, { COOKIE_SECURE: undefined });
+    const response = await request(app).post('/api/auth/login').send(demoSignIn());
+    expect(response.status).toBe(200);
+    expect(sessionCookieOf(response)).toMatch(/;\s*Secure/i);
+  });
+
   it('stores a session for the sign-in: the token names it, with the browser and address it came from', async () => {
     const { app } = testApp(database.db, database.url);
     const longAgent = `Tester/1.0 ${'x'.repeat(600)}`;

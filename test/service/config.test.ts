@@ -4,6 +4,14 @@ import { loadConfig } from '../../service/src/config.js';
 const required = { DATABASE_URL: 'postgres://app@127.0.0.1:5432/allowlight', JWT_SECRET: 'a-secret-long-enough-for-the-service-to-accept' };
 
 describe('loadConfig', () => {
+  it('makes the session cookie Secure unless the service runs in development', () => {
+    expect(loadConfig({ ...required, NODE_ENV: 'production' }).COOKIE_SECURE).toBe(true);
+    expect(loadConfig({ ...required, NODE_ENV: 'test' }).COOKIE_SECURE).toBe(true);
+    expect(loadConfig({ ...required, NODE_ENV: 'development' }).COOKIE_SECURE).toBe(false);
+    expect(loadConfig({ ...required, NODE_ENV: 'production', COOKIE_SECURE: 'false' }).COOKIE_SECURE).toBe(false);
+    expect(loadConfig({ ...required, NODE_ENV: 'development', COOKIE_SECURE: 'true' }).COOKIE_SECURE).toBe(true);
+  });
+
   it('trusts no proxy unless told which', () => {
     expect(loadConfig(required).TRUST_PROXY).toBe(false);
     expect(loadConfig({ ...required, TRUST_PROXY: '' }).TRUST_PROXY).toBe(false);
