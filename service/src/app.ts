@@ -11,6 +11,7 @@ import type { Config } from './config.js';
 import type { Database } from './db/database.js';
 import { healthRouter } from './health/health.routes.js';
 import { errorHandler, notFoundHandler } from './http/error-handler.js';
+import { hstsWhenSecure, noStore, permissionsPolicy } from './http/security-headers.js';
 import { readSession, requireSignIn } from './http/session.js';
 import { projectsRouter } from './projects/projects.routes.js';
 import { designRouter } from './design/design.routes.js';
@@ -43,13 +44,16 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
           upgradeInsecureRequests: null,
         },
       },
+      strictTransportSecurity: false,
     }),
   );
+  app.use(hstsWhenSecure, permissionsPolicy);
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(express.json({ limit: config.JSON_BODY_LIMIT }));
   app.use(cookieParser());
 
   const api = express.Router();
+  api.use(noStore);
   api.use(readSession(db, config.JWT_SECRET));
   api.use('/health', healthRouter(db));
   api.use(
