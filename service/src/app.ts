@@ -48,7 +48,14 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
     }),
   );
   app.use(hstsWhenSecure, permissionsPolicy);
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      // A logged cookie or CSRF token is a session anyone who can read the logs could take over.
+      redact: ['req.headers.cookie', 'req.headers.authorization', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'],
+    }),
+  );
   app.use(express.json({ limit: config.JSON_BODY_LIMIT }));
   app.use(cookieParser());
 
