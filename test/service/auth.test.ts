@@ -153,6 +153,24 @@ describe('sign-in limits', () => {
 });
 
 describe('sign-in audit', () => {
+  it('records a wrong password with the e-mail tried and the address, never the password', async () => {
+    const { app } = testApp(database.db, database.url);
+    const user = await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id');
+    await request(app).post('/api/auth/login').send({ email: 'Engineer@AlderBay.example', password: 'a-guess-to-find' });
+    const row = await database.db('audit_log').where({ action: 'sign-in-failed' }).orderBy('id', 'desc').first();
+
+    expect(row).toMatchObject({ user_id: user.id, entity: 'user', entity_id: user.id });
+    expect(row.detail).toEqual({ email: 'Engineer@AlderBay.example', address: '127.0.0.1', reason: 'wrong-password' });
+    expect(JSON.stringify(row)).not.toContain('a-guess-to-find');
+  });
+
+  it('records an unknown e-mail without a user', async () => {
+    const { app } = testApp(database.db, database.url);
+    await request(app).post('/api/auth/login').send({ email: 'nobody@alderbay.example', password: 'a-guess-to-find' });
+    const row = await database.db('audit_log').where({ action: 'sign-in-failed' }).orderBy('id', 'desc').first();
+    expect(row).toMatchObject({ user_id: null, entity_id: null, detail: { email: 'nobody@alderbay.example', address: '127.0.0.1', reason: 'unknown-email' } });
+  });
+
   it('records the sign-in and the sign-out against the session', async () => {
     const { app } = testApp(database.db, database.url);
     const login = await request(app).post('/api/auth/login').send(demoSignIn());

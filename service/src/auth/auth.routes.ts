@@ -3,6 +3,7 @@ import { Router, type CookieOptions, type Request, type Response } from 'express
 import { rateLimit, type RateLimitRequestHandler } from 'express-rate-limit';
 import type { Logger } from 'pino';
 import { z } from 'zod';
+import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
 import { csrfHeader, currentSession, requireSignIn, sessionCookie } from '../http/session.js';
@@ -83,11 +84,19 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
     const { email, password } = parse(loginSchema, req.body);
     const user = await findUserByEmail(db, email);
     const matches = await bcrypt.compare(password, user?.password_hash ?? unknownUserHash);
+    const address = clientAddress(req);
     if (!user || !matches) {
+      await recordAudit(db, {
+        userId: user?.id ?? null,
+        action: 'sign-in-failed',
+        entity: 'user',
+        entityId: user?.id ?? null,
+        detail: { email, address, reason: user ? 'wrong-password' : 'unknown-email' },
+      });
       throw wrongCredentials();
     }
     const expiresAt = new Date(Date.now() + settings.sessionHours * 3_600_000);
-    const sessionId = await createSession(db, { userId: user.id, expiresAt, userAgent: req.get('user-agent') ?? null, address: clientAddress(req) });
+    const sessionId = await createSession(db, { userId: user.id, expiresAt, userAgent: req.get('user-agent') ?? null, address });
     const { token, csrf } = signSession(settings.secret, { id: sessionId, userId: user.id, expiresAt });
     res.cookie(sessionCookie, token, { ...cookieOptions, expires: expiresAt });
     res.json({ user: await toPublicUser(db, user), csrfToken: csrf });
