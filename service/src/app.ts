@@ -12,6 +12,7 @@ import type { Database } from './db/database.js';
 import { healthRouter } from './health/health.routes.js';
 import { historyRouter } from './history/history.routes.js';
 import { errorHandler, notFoundHandler } from './http/error-handler.js';
+import { hstsWhenSecure, noStore, permissionsPolicy } from './http/security-headers.js';
 import { readSession, requireSignIn } from './http/session.js';
 import { projectsRouter } from './projects/projects.routes.js';
 import { designRouter } from './design/design.routes.js';
@@ -27,7 +28,7 @@ export interface AppDeps {
 export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL }) }: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', config.TRUST_PROXY);
 
   app.use(
     helmet({
@@ -44,23 +45,36 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
           upgradeInsecureRequests: null,
         },
       },
+      strictTransportSecurity: false,
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(hstsWhenSecure, permissionsPolicy);
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      // A logged cookie or CSRF token is a session anyone who can read the logs could take over.
+      redact: ['req.headers.cookie', 'req.headers.authorization', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'],
+    }),
+  );
   app.use(express.json({ limit: config.JSON_BODY_LIMIT }));
   app.use(cookieParser());
 
-  const tokenSettings = { secret: config.JWT_SECRET, sessionHours: config.SESSION_HOURS };
   const api = express.Router();
-  api.use(readSession(db, tokenSettings));
+  api.use(noStore);
+  api.use(readSession(db, config.JWT_SECRET));
   api.use('/health', healthRouter(db));
   api.use(
     '/auth',
     authRouter(db, {
-      ...tokenSettings,
+      secret: config.JWT_SECRET,
+      sessionHours: config.SESSION_HOURS,
       cookieSecure: config.COOKIE_SECURE,
       loginRateLimit: config.LOGIN_RATE_LIMIT,
       loginRateWindowMinutes: config.LOGIN_RATE_WINDOW_MINUTES,
+      loginAccountRateLimit: config.LOGIN_ACCOUNT_RATE_LIMIT,
+      loginAccountRateWindowMinutes: config.LOGIN_ACCOUNT_RATE_WINDOW_MINUTES,
+      logger,
     }),
   );
   api.use(requireSignIn);

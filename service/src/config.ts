@@ -1,8 +1,46 @@
+import { isIP } from 'node:net';
 import { z } from 'zod';
 
 const booleanFromString = z
   .enum(['true', 'false', '1', '0'])
   .transform((value) => value === 'true' || value === '1');
+
+/** Express's own names for address ranges (see its `trust proxy` setting). */
+const namedRanges = new Set(['loopback', 'linklocal', 'uniquelocal']);
+
+function isAddressOrSubnet(entry: string): boolean {
+  if (namedRanges.has(entry)) return true;
+  const [address = '', prefix, ...rest] = entry.split('/');
+  const family = isIP(address);
+  if (family === 0 || rest.length > 0) return false;
+  if (prefix === undefined) return true;
+  return /^\d{1,3}$/.test(prefix) && Number(prefix) <= (family === 4 ? 32 : 128);
+}
+
+/**
+ * Which proxies may tell us the client's address through `X-Forwarded-For` (and the scheme through
+ * `X-Forwarded-Proto`): nobody (the default), a number of hops, or a comma-separated list of
+ * addresses, subnets and Express's named ranges. `true` is refused: believing every hop lets any
+ * client choose its own address and slip past the sign-in limits.
+ */
+const trustProxy = z
+  .string()
+  .trim()
+  .optional()
+  .transform((value, context): false | number | string[] => {
+    if (value === undefined || value === '' || value === 'false' || value === '0') return false;
+    if (/^\d+$/.test(value)) return Number(value);
+    const entries = value.split(',').map((entry) => entry.trim());
+    const bad = entries.filter((entry) => !isAddressOrSubnet(entry));
+    if (bad.length > 0) {
+      context.addIssue({
+        code: 'custom',
+        message: `expected false, a number of proxy hops, or addresses, subnets and loopback/linklocal/uniquelocal separated by commas; not ${bad.join(', ')}`,
+      });
+      return z.NEVER;
+    }
+    return entries;
+  });
 
 const configSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -11,14 +49,18 @@ const configSchema = z.object({
   DATABASE_URL: z.string().url(),
   JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters'),
   SESSION_HOURS: z.coerce.number().positive().max(24 * 30).default(8),
-  COOKIE_SECURE: booleanFromString.default(false),
+  /** Unset: Secure everywhere but development, where a LAN address over plain http would lose the cookie. */
+  COOKIE_SECURE: booleanFromString.optional(),
+  TRUST_PROXY: trustProxy,
   LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
   LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  LOGIN_ACCOUNT_RATE_LIMIT: z.coerce.number().int().positive().default(5),
+  LOGIN_ACCOUNT_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   // A 10,000-space project (the ceiling) with its luminaires, controls and windows is about 5 MB of JSON.
   JSON_BODY_LIMIT: z.string().default('10mb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   WEB_DIST: z.string().optional(),
-});
+}).transform((config) => ({ ...config, COOKIE_SECURE: config.COOKIE_SECURE ?? config.NODE_ENV !== 'development' }));
 
 export type Config = z.infer<typeof configSchema>;
 

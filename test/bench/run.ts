@@ -130,7 +130,8 @@ try {
   await setup.destroy();
 
   const db = createDatabase(url);
-  const config = loadConfig({ NODE_ENV: 'test', DATABASE_URL: url, JWT_SECRET: randomBytes(32).toString('hex'), LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '100', WEB_DIST: webDist });
+  // The supertest agent below keeps a Secure cookie but never sends it over plain http.
+  const config = loadConfig({ NODE_ENV: 'test', DATABASE_URL: url, JWT_SECRET: randomBytes(32).toString('hex'), LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '100', COOKIE_SECURE: 'false', WEB_DIST: webDist });
   const app = createApp({ db, config, logger: pino({ level: 'silent' }) });
   const engineer = await db('users').where({ email: 'engineer@alderbay.example' }).first<{ id: string }>('id');
   const [project] = await db('projects')

@@ -62,6 +62,13 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
     expect(await seriousViolations()).toEqual([]);
   });
 
+  it('the account page', async () => {
+    const { page } = browser;
+    await page.getByTestId('signed-in-user').click();
+    await page.getByTestId('session').first().waitFor();
+    expect(await seriousViolations()).toEqual([]);
+  });
+
   for (const area of ['setup', 'spaces', 'luminaires', 'controls', 'daylight', 'exterior', 'results']) {
     it(`the ${area} page`, async () => {
       const { page } = browser;

@@ -7,18 +7,24 @@ import { createApp } from '../../service/src/app.js';
 import { loadConfig, type Config } from '../../service/src/config.js';
 import type { Database } from '../../service/src/db/database.js';
 
-export function testConfig(url: string, overrides: Record<string, string> = {}): Config {
+/** Settings for a test app; an override of `undefined` removes the test's value and lets the service's default apply. */
+export type ConfigOverrides = Record<string, string | undefined>;
+
+export function testConfig(url: string, overrides: ConfigOverrides = {}): Config {
   return loadConfig({
     NODE_ENV: 'test',
     DATABASE_URL: url,
     JWT_SECRET: randomBytes(32).toString('hex'),
     LOG_LEVEL: 'silent',
     LOGIN_RATE_LIMIT: '1000',
+    LOGIN_ACCOUNT_RATE_LIMIT: '1000',
+    // Supertest's cookie jar keeps a Secure cookie but never sends it over plain http.
+    COOKIE_SECURE: 'false',
     ...overrides,
   });
 }
 
-export function testApp(db: Database, url: string, overrides: Record<string, string> = {}): { app: Express; config: Config } {
+export function testApp(db: Database, url: string, overrides: ConfigOverrides = {}): { app: Express; config: Config } {
   const config = testConfig(url, overrides);
   return { app: createApp({ db, config, logger: pino({ level: process.env['TEST_LOG_LEVEL'] ?? 'silent' }) }), config };
 }

@@ -12,7 +12,8 @@ export interface BrowserSuite {
 export async function openBrowserSuite(): Promise<BrowserSuite> {
   requireBuiltWebApp();
   const database = await freshDatabase();
-  const served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist }).app);
+  // Secure cookies, as in production: Chromium counts http://127.0.0.1 as a secure context and keeps them.
+  const served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist, COOKIE_SECURE: undefined }).app);
   const browser = await launchBrowser();
   return { database, served, browser };
 }

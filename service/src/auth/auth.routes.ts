@@ -1,19 +1,27 @@
 import bcrypt from 'bcryptjs';
-import { Router, type CookieOptions } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { Router, type CookieOptions, type Request, type Response } from 'express';
+import { rateLimit, type RateLimitRequestHandler } from 'express-rate-limit';
+import type { Logger } from 'pino';
 import { z } from 'zod';
 import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
 import { csrfHeader, currentSession, requireSignIn, sessionCookie } from '../http/session.js';
-import { parse } from '../http/validate.js';
+import { parse, uuidPattern } from '../http/validate.js';
 import { findUserByEmail, toPublicUser } from './auth.repository.js';
-import { signSession, type TokenSettings } from './tokens.js';
+import { createSession, listActiveSessions, revokeOtherSessions, revokeSession } from './session.repository.js';
+import { signSession } from './tokens.js';
 
-export interface AuthSettings extends TokenSettings {
+export interface AuthSettings {
+  secret: string;
+  sessionHours: number;
   cookieSecure: boolean;
   loginRateLimit: number;
   loginRateWindowMinutes: number;
+  loginAccountRateLimit: number;
+  loginAccountRateWindowMinutes: number;
+  /** Where the rate limiter reports a misconfiguration (such as a proxy it was not told to trust). */
+  logger: Logger;
 }
 
 const loginSchema = z.object({
@@ -26,6 +34,39 @@ const unknownUserHash = bcrypt.hashSync('allowlight-unknown-user', 10);
 
 const wrongCredentials = () => new AppError(401, 'invalid_credentials', 'The e-mail or password is not correct.');
 
+/** The client's address as Express resolved it, with IPv4 written plainly rather than IPv6-mapped. */
+function clientAddress(req: Request): string | null {
+  const address = req.ip;
+  if (!address) return null;
+  return address.startsWith('::ffff:') && address.includes('.') ? address.slice('::ffff:'.length) : address;
+}
+
+/** The e-mail a sign-in tries, lower-cased, or null when the body carries none (it then fails validation). */
+function triedEmail(req: Request): string | null {
+  const email: unknown = (req.body as { email?: unknown } | undefined)?.email;
+  return typeof email === 'string' && email.trim().length > 0 ? email.trim().toLowerCase() : null;
+}
+
+/**
+ * A sign-in limiter. Successful sign-ins are handed back, so people who sign in from many tabs or
+ * one shared office address are not locked out; only failures use up the allowance.
+ */
+function signInLimiter(name: string, limit: number, windowMinutes: number, logger: Logger, keyedBy?: (req: Request) => string | null): RateLimitRequestHandler {
+  return rateLimit({
+    identifier: name,
+    windowMs: windowMinutes * 60_000,
+    limit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    skipSuccessfulRequests: true,
+    logger,
+    ...(keyedBy ? { keyGenerator: (req: Request) => keyedBy(req) ?? '', skip: (req: Request) => keyedBy(req) === null } : {}),
+    handler: (_req: Request, res: Response) => {
+      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many sign-in attempts. Wait a few minutes and try again.' } });
+    },
+  });
+}
+
 export function authRouter(db: Database, settings: AuthSettings): Router {
   const router = Router();
   const cookieOptions: CookieOptions = {
@@ -35,32 +76,38 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
     path: '/',
   };
 
-  const loginLimiter = rateLimit({
-    windowMs: settings.loginRateWindowMinutes * 60_000,
-    limit: settings.loginRateLimit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res) => {
-      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many sign-in attempts. Wait a few minutes and try again.' } });
-    },
-  });
+  const addressLimiter = signInLimiter('sign-in-address', settings.loginRateLimit, settings.loginRateWindowMinutes, settings.logger);
+  // Spreads over many addresses do not get more guesses at one account than a single address would.
+  const accountLimiter = signInLimiter('sign-in-account', settings.loginAccountRateLimit, settings.loginAccountRateWindowMinutes, settings.logger, triedEmail);
 
-  router.post('/login', loginLimiter, async (req, res) => {
+  router.post('/login', addressLimiter, accountLimiter, async (req, res) => {
     const { email, password } = parse(loginSchema, req.body);
     const user = await findUserByEmail(db, email);
     const matches = await bcrypt.compare(password, user?.password_hash ?? unknownUserHash);
+    const address = clientAddress(req);
     if (!user || !matches) {
+      await recordAudit(db, {
+        userId: user?.id ?? null,
+        action: 'sign-in-failed',
+        entity: 'user',
+        entityId: user?.id ?? null,
+        detail: { email, address, reason: user ? 'wrong-password' : 'unknown-email' },
+      });
       throw wrongCredentials();
     }
-    const { token, csrf } = signSession(settings, user.id);
-    res.cookie(sessionCookie, token, { ...cookieOptions, maxAge: settings.sessionHours * 3_600_000 });
-    await recordAudit(db, { userId: user.id, action: 'sign-in', entity: 'user', entityId: user.id });
+    const expiresAt = new Date(Date.now() + settings.sessionHours * 3_600_000);
+    const sessionId = await createSession(db, { userId: user.id, expiresAt, userAgent: req.get('user-agent') ?? null, address });
+    const { token, csrf } = signSession(settings.secret, { id: sessionId, userId: user.id, expiresAt });
+    res.cookie(sessionCookie, token, { ...cookieOptions, expires: expiresAt });
     res.json({ user: await toPublicUser(db, user), csrfToken: csrf });
   });
 
-  router.post('/logout', (req, res) => {
-    if (req.session && req.get(csrfHeader) !== req.session.csrf) {
-      throw new AppError(403, 'csrf_failed', 'The request is missing a valid X-CSRF-Token header.');
+  router.post('/logout', async (req, res) => {
+    if (req.session) {
+      if (req.get(csrfHeader) !== req.session.csrf) {
+        throw new AppError(403, 'csrf_failed', 'The request is missing a valid X-CSRF-Token header.');
+      }
+      await revokeSession(db, req.session.user.id, req.session.id, 'sign-out');
     }
     res.clearCookie(sessionCookie, cookieOptions);
     res.status(204).end();
@@ -69,6 +116,30 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
   router.get('/me', requireSignIn, (req, res) => {
     const session = currentSession(req);
     res.json({ user: session.user, csrfToken: session.csrf });
+  });
+
+  router.get('/sessions', requireSignIn, async (req, res) => {
+    const session = currentSession(req);
+    const sessions = await listActiveSessions(db, session.user.id);
+    res.json(sessions.map((entry) => ({ ...entry, current: entry.id === session.id })));
+  });
+
+  router.post('/sessions/end-others', requireSignIn, async (req, res) => {
+    const session = currentSession(req);
+    res.json({ ended: await revokeOtherSessions(db, session.user.id, session.id) });
+  });
+
+  router.delete('/sessions/:sessionId', requireSignIn, async (req, res) => {
+    const session = currentSession(req);
+    const sessionId = String(req.params['sessionId']);
+    // Someone else's session answers exactly as a missing one does, so ids cannot be probed.
+    if (!uuidPattern.test(sessionId) || !(await revokeSession(db, session.user.id, sessionId, 'end-session'))) {
+      throw AppError.notFound('No such session.');
+    }
+    if (sessionId === session.id) {
+      res.clearCookie(sessionCookie, cookieOptions);
+    }
+    res.status(204).end();
   });
 
   return router;

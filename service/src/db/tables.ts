@@ -12,6 +12,18 @@ export interface UserRow {
   created_at: Date;
 }
 
+export interface SessionRow {
+  id: string;
+  user_id: string;
+  created_at: Date;
+  last_seen_at: Date;
+  expires_at: Date;
+  revoked_at: Date | null;
+  user_agent: string | null;
+  /** PostgreSQL `inet`, which pg returns as text. */
+  address: string | null;
+}
+
 export interface ProjectRow {
   id: string;
   name: string;

@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
-import { findUserById, toPublicUser, type PublicUser } from '../auth/auth.repository.js';
-import { verifySession, type TokenSettings } from '../auth/tokens.js';
+import { toPublicUser, type PublicUser } from '../auth/auth.repository.js';
+import { findLiveSessionUser } from '../auth/session.repository.js';
+import { verifySession } from '../auth/tokens.js';
 import type { Database } from '../db/database.js';
 import { AppError } from './app-error.js';
 
@@ -8,6 +9,8 @@ export const sessionCookie = 'allowlight_session';
 export const csrfHeader = 'x-csrf-token';
 
 export interface Session {
+  /** The id of the stored session the cookie's token names. */
+  id: string;
   user: PublicUser;
   csrf: string;
 }
@@ -20,16 +23,19 @@ declare module 'express-serve-static-core' {
 
 const safeMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
 
-/** Reads the session cookie; a valid token for an existing user sets `req.session`. */
-export function readSession(db: Database, settings: TokenSettings): RequestHandler {
+/**
+ * Reads the session cookie. `req.session` is set only for a well-signed token whose stored session
+ * is still live: a signature alone does not outlast a sign-out.
+ */
+export function readSession(db: Database, secret: string): RequestHandler {
   return async (req, _res, next) => {
     const token: unknown = req.cookies?.[sessionCookie];
     if (typeof token === 'string' && token.length > 0) {
-      const claims = verifySession(settings, token);
+      const claims = verifySession(secret, token);
       if (claims) {
-        const user = await findUserById(db, claims.sub);
+        const user = await findLiveSessionUser(db, claims.sessionId, claims.sub);
         if (user) {
-          req.session = { user: await toPublicUser(db, user), csrf: claims.csrf };
+          req.session = { id: claims.sessionId, user: await toPublicUser(db, user), csrf: claims.csrf };
         }
       }
     }

@@ -3,6 +3,9 @@ import { listed } from '../compliance/document.js';
 import { AppError } from './app-error.js';
 import { zodDetails } from './error-handler.js';
 
+/** The textual UUID form PostgreSQL parses; checked first so a malformed id is a 404, not a database error. */
+export const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
 /** Parses input with a zod schema; a failure becomes a 400 listing the path of every problem (the first few hundred). */
 export function parse<Schema extends z.ZodType>(schema: Schema, input: unknown, message = 'The request is not valid.'): z.infer<Schema> {
   const result = schema.safeParse(input);
@@ -11,8 +14,6 @@ export function parse<Schema extends z.ZodType>(schema: Schema, input: unknown, 
   }
   return result.data;
 }
-
-const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export function isUuid(value: unknown): value is string {
   return typeof value === 'string' && uuidPattern.test(value);

@@ -19,6 +19,11 @@ export const routes: Routes = [
         loadComponent: () => import('./features/projects/projects-page').then((m) => m.ProjectsPage),
       },
       {
+        path: 'account',
+        title: 'Account · Allowlight',
+        loadComponent: () => import('./features/account/account-page').then((m) => m.AccountPage),
+      },
+      {
         path: 'projects/new',
         title: 'New project · Allowlight',
         canDeactivate: [unsavedChangesGuard],

@@ -1,0 +1,33 @@
+import { describe, expect, it } from 'vitest';
+import { loadConfig } from '../../service/src/config.js';
+
+const required = { DATABASE_URL: 'postgres://app@127.0.0.1:5432/allowlight', JWT_SECRET: 'a-secret-long-enough-for-the-service-to-accept' };
+
+describe('loadConfig', () => {
+  it('makes the session cookie Secure unless the service runs in development', () => {
+    expect(loadConfig({ ...required, NODE_ENV: 'production' }).COOKIE_SECURE).toBe(true);
+    expect(loadConfig({ ...required, NODE_ENV: 'test' }).COOKIE_SECURE).toBe(true);
+    expect(loadConfig({ ...required, NODE_ENV: 'development' }).COOKIE_SECURE).toBe(false);
+    expect(loadConfig({ ...required, NODE_ENV: 'production', COOKIE_SECURE: 'false' }).COOKIE_SECURE).toBe(false);
+    expect(loadConfig({ ...required, NODE_ENV: 'development', COOKIE_SECURE: 'true' }).COOKIE_SECURE).toBe(true);
+  });
+
+  it('trusts no proxy unless told which', () => {
+    expect(loadConfig(required).TRUST_PROXY).toBe(false);
+    expect(loadConfig({ ...required, TRUST_PROXY: '' }).TRUST_PROXY).toBe(false);
+    expect(loadConfig({ ...required, TRUST_PROXY: 'false' }).TRUST_PROXY).toBe(false);
+    expect(loadConfig({ ...required, TRUST_PROXY: '1' }).TRUST_PROXY).toBe(1);
+    expect(loadConfig({ ...required, TRUST_PROXY: 'loopback, 10.0.0.0/8, fd00::/8, 192.0.2.10' }).TRUST_PROXY).toEqual(['loopback', '10.0.0.0/8', 'fd00::/8', '192.0.2.10']);
+  });
+
+  it('refuses a TRUST_PROXY that would believe anyone, or that is not an address', () => {
+    for (const value of ['true', 'everyone', '10.0.0.0/33', '10.0.0.0/8/1', 'loopback,']) {
+      expect(() => loadConfig({ ...required, TRUST_PROXY: value }), value).toThrow(/TRUST_PROXY/);
+    }
+  });
+
+  it('keeps the per-account sign-in limit apart from the per-address one', () => {
+    const config = loadConfig({ ...required, LOGIN_ACCOUNT_RATE_LIMIT: '3', LOGIN_ACCOUNT_RATE_WINDOW_MINUTES: '30' });
+    expect(config).toMatchObject({ LOGIN_ACCOUNT_RATE_LIMIT: 3, LOGIN_ACCOUNT_RATE_WINDOW_MINUTES: 30, LOGIN_RATE_LIMIT: 10 });
+  });
+});
