@@ -6,6 +6,7 @@ import * as lightReductionExemptions from './20261201000400_light_reduction_exem
 import * as projectResultSummary from './20261201000500_project_result_summary.js';
 import * as designIntegrity from './20261202000200_design_integrity.js';
 import * as permitFields from './20261202000300_permit_fields.js';
+import * as workspaceFields from './20261202000400_workspace_fields.js';
 import * as sessions from './20261202001000_sessions.js';
 
 interface Migration {
@@ -22,6 +23,7 @@ const migrations: Record<string, Migration> = {
   '20261201000500_project_result_summary': projectResultSummary,
   '20261202000200_design_integrity': designIntegrity,
   '20261202000300_permit_fields': permitFields,
+  '20261202000400_workspace_fields': workspaceFields,
   '20261202001000_sessions': sessions,
 };
 

@@ -118,12 +118,14 @@ describe('90.1 table columns', () => {
         edition: 'ashrae-90.1-2022',
         method: 'space-by-space',
         units: 'ip',
+        luminaireTypes: [{ tag: 'E', description: 'strip', inputWatts: '20', use: 'general' }],
         spaces: [
           {
             id: 's',
             name: 'Storage',
             spaceType: 'storage-50-plus',
             area: 120,
+            luminaires: [{ tag: 'E', count: 2 }],
             controls: [{ strategy: 'automatic-full-off', provided: false, exceptionReason: 'security-or-emergency-continuous' }],
           },
         ],
@@ -277,7 +279,13 @@ describe('IECC 2021 occupant sensors and time switches', () => {
 describe('result framing', () => {
   it('carries the standing cautions and, without a control space type under the building area method, a line to verify', () => {
     const result = run(
-      { edition: 'ashrae-90.1-2019', method: 'building-area', units: 'ip', spaces: [{ id: 'b', name: 'Building', buildingAreaType: 'office', area: 5000 }] },
+      {
+        edition: 'ashrae-90.1-2019',
+        method: 'building-area',
+        units: 'ip',
+        luminaireTypes: [{ tag: 'A', description: 'troffer', inputWatts: '30', use: 'general' }],
+        spaces: [{ id: 'b', name: 'Building', buildingAreaType: 'office', area: 5000, luminaires: [{ tag: 'A', count: 40 }] }],
+      },
       ashrae2019,
     );
     expect(result.cautions.join(' ')).toMatch(/energy-code compliance only/);

@@ -29,10 +29,12 @@ describe('exterior allowance', () => {
     );
     const exterior = result.exterior!;
     expect(exterior.baseSiteAllowanceW).toBe('400');
-    expect(exterior.tradable).toEqual({ allowanceW: '900', installedW: '1160', baseSiteUsedW: '260', complies: true });
+    // The pool's margin counts the base site allowance it uses: 900 + 260 − 1160 = 0 W, not −260 W beside "within allowance".
+    expect(exterior.tradable).toEqual({ allowanceW: '900', installedW: '1160', baseSiteUsedW: '260', marginW: '0', complies: true });
     const facade = exterior.applications.find((application) => application.key === 'facade')!;
     expect(facade.allowanceW).toBe('300');
     expect(facade.baseSiteUsedW).toBe('50');
+    expect(facade.marginW).toBe('0');
     expect(facade.withinAllowance).toBe(true);
     expect(exterior.baseSiteRemainingW).toBe('90');
     // 400 + 800 + 100 + 300 + 200 = 1800 W allowed; 1100 + 60 + 350 + 150 = 1660 W installed.

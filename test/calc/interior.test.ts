@@ -316,3 +316,67 @@ describe('display helpers', () => {
     expect(formatPercent(null)).toBe('—');
   });
 });
+
+describe('spaces without luminaires', () => {
+  // IECC 2021 Table C405.3.2(2), via BESD: office enclosed 0.74 W/ft², storage 0.38 W/ft².
+  const document = (unlit?: boolean): EvaluationDocumentInput => ({
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    luminaireTypes: [led('A', '30')],
+    spaces: [
+      {
+        id: 'o',
+        name: 'Office',
+        spaceType: 'office-enclosed',
+        area: 200,
+        luminaires: [{ tag: 'A', count: 4 }],
+        controls: [
+          { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'manual' },
+          { strategy: 'light-reduction', provided: true },
+        ],
+      },
+      {
+        id: 's',
+        name: 'Shaft room',
+        spaceType: 'storage',
+        area: 1000,
+        controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '15', autoOn: 'manual' }],
+        ...(unlit === undefined ? {} : { unlit }),
+      },
+    ],
+  });
+
+  it('hold the verdict back, named in the cautions, until each is entered or confirmed unlit', () => {
+    const result = run(document(), iecc2021);
+    const shaft = result.interior.spaces.find((space) => space.id === 's')!;
+    expect(shaft.lighting).toBe('none-entered');
+    expect(result.interior.spaces.find((space) => space.id === 'o')!.lighting).toBe('entered');
+    // 4 × 30 = 120 W against 148 + 380 W would pass; with a space still empty there is no verdict yet.
+    expect(result.interior.complies).toBe(true);
+    expect(result.verdict).toBe('incomplete');
+    expect(result.complies).toBe(false);
+    expect(result.openItems).toEqual({ spacesWithoutLuminaires: 1 });
+    // Its control lines still say what its lighting will need.
+    expect(shaft.controls.find((control) => control.strategy === 'occupant-sensor')!.status).toBe('met');
+    expect(result.cautions.some((caution) => caution.includes('“Shaft room” has no luminaires entered'))).toBe(true);
+  });
+
+  it('once confirmed unlit, have no lighted floor area: they add no allowance, and the verdict is settled', () => {
+    const result = run(document(true), iecc2021);
+    const shaft = result.interior.spaces.find((space) => space.id === 's')!;
+    expect(shaft.lighting).toBe('unlit');
+    expect(shaft.controls.every((control) => control.status === 'not-required')).toBe(true);
+    // Only the office counts: 0.74 × 200 = 148 W.
+    expect(result.interior.allowanceW).toBe('148');
+    expect(result.verdict).toBe('complies');
+    expect(result.cautions.some((caution) => caution.includes('Shaft room'))).toBe(false);
+  });
+
+  it('cannot hide a failure: a design over its allowance does not comply whatever is still empty', () => {
+    const over = document();
+    over.spaces[0]!.luminaires = [{ tag: 'A', count: 30 }];
+    // 30 × 30 = 900 W against 148 + 380 = 528 W.
+    expect(run(over, iecc2021).verdict).toBe('does-not-comply');
+  });
+});

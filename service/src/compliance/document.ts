@@ -97,6 +97,8 @@ export const spaceSchema = z.object({
   /** Work plane above the floor; 2.5 ft when absent (common practice). */
   workPlaneHeight: decimalField(ranges.heightAboveFloor).optional(),
   enclosed: z.boolean().optional(),
+  /** The engineer confirms the space has no lighting; until then a space without luminaires is an open item, not a pass. */
+  unlit: z.boolean().optional(),
   luminaires: z.array(luminaireGroupSchema).max(documentLimits.luminaireGroupsPerSpace, listLimit(documentLimits.luminaireGroupsPerSpace, 'luminaire types in one space')).default([]),
   controls: z.array(controlSchema).max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls in one space')).default([]),
   windows: z.array(windowSchema).max(documentLimits.windowsPerSpace, listLimit(documentLimits.windowsPerSpace, 'windows in one space')).default([]),

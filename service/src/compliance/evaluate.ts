@@ -178,7 +178,7 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   const zoneAreas = { 'primary-sidelit': areas.primarySidelit, 'secondary-sidelit': areas.secondarySidelit, toplit: areas.toplit } as const;
   for (const kind of ['primary-sidelit', 'secondary-sidelit', 'toplit'] as const) {
     if (watts.zoneW[kind].greaterThan(0) && zoneAreas[kind].isZero()) {
-      cautions.push(`Space ${space.id}: luminaires are assigned to the ${kind} zone, but the room's openings give no such zone.`);
+      cautions.push(`“${space.name}”: luminaires are assigned to the ${kind.replace('-', ' ')} zone, but the room's openings give no such zone.`);
     }
   }
   const out = (value: Dec) => text(lengthFromFeet(value, units));
@@ -216,7 +216,7 @@ function spaceRcr(space: Space, units: UnitSystem, cautions: string[]): Dec | nu
   const workPlane = space.workPlaneHeight === undefined ? defaultWorkPlaneFt : lengthToFeet(dec(space.workPlaneHeight), units);
   const cavity = lengthToFeet(dec(mounting), units).minus(workPlane);
   if (cavity.lessThanOrEqualTo(0)) {
-    cautions.push(`Space ${space.id}: luminaires are not above the work plane, so no room cavity ratio is computed.`);
+    cautions.push(`“${space.name}”: luminaires are not above the work plane, so no room cavity ratio is computed.`);
     return null;
   }
   return rectangularRoomCavityRatio(cavity, lengthToFeet(dec(space.length), units), lengthToFeet(dec(space.width), units));
@@ -277,10 +277,17 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
         roomGeometryIncreaseApplied = true;
         spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance);
       } else if (controlType.rcrThreshold === null && controlType.rcrCondition !== undefined) {
-        cautions.push(`Space ${space.id}: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`);
+        cautions.push(`“${space.name}”: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`);
       }
     }
 
+    // A space without luminaires is either not entered yet (the verdict waits for it) or confirmed unlit
+    // (no lighted floor area, so no allowance to lend to the other spaces).
+    const hasLuminaires = watts.lines.some((line) => dec(line.count).greaterThan(0));
+    const lighting: SpaceResult['lighting'] = hasLuminaires ? 'entered' : space.unlit === true ? 'unlit' : 'none-entered';
+    if (lighting === 'none-entered') {
+      cautions.push(`“${space.name}” has no luminaires entered: enter them, or confirm the space is unlit. Until then there is no verdict.`);
+    }
     const own = claimLines.filter((line) => line.claim.spaceId === space.id);
     const claimed = sum(own.map((line) => line.claimed));
     const additional = min(claimed, watts.display);
@@ -319,6 +326,10 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
         ...controls,
       ];
     }
+    // Controls govern lighting: a space confirmed unlit needs none. (An empty one keeps its lines: they say what its lighting will need.)
+    if (lighting === 'unlit') {
+      controls = controls.map((line) => ({ ...line, met: null, status: 'not-required', reason: 'Not required: the space is confirmed unlit.' }));
+    }
     for (const line of controls) {
       const strategy = edition.controlStrategies.find((candidate) => candidate.key === line.strategy);
       if (strategy && line.status !== 'not-required') spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance);
@@ -344,6 +355,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       withinAllowance: installed.lessThanOrEqualTo(allowance),
       marginW: text(margin),
       marginPct: percent(margin, allowance),
+      lighting,
       rcr: rcr === null ? null : text(rcr),
       roomGeometryIncreaseApplied,
       luminaires: watts.lines,
@@ -352,7 +364,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       exempt: watts.exempt,
       unverified: spaceUnverified.values(),
       section: allowanceSection,
-      allowance,
+      allowance: lighting === 'unlit' ? ZERO : allowance,
       installed,
       areaFt2,
       uncoveredDisplay: own.length > 0 ? watts.display.minus(additional) : ZERO,
@@ -428,12 +440,18 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     cautions.push('Some control requirements could not be settled from public sources and are marked "to verify"; they do not fail the evaluation.');
   }
 
+  const emptySpaces = spaces.filter((space) => space.lighting === 'none-entered').length;
+  const passes = interiorComplies && controlsComply && (exterior?.complies ?? true);
+  const verdict: EvaluationResult['verdict'] = !passes ? 'does-not-comply' : emptySpaces > 0 ? 'incomplete' : 'complies';
+
   return {
     edition: edition.id,
     dataVersion: edition.dataVersion,
     method: document.method,
     units,
-    complies: interiorComplies && controlsComply && (exterior?.complies ?? true),
+    complies: verdict === 'complies',
+    verdict,
+    openItems: { spacesWithoutLuminaires: emptySpaces },
     interior: {
       section: allowanceSection,
       area: text(areaFromSquareFeet(sum(spaces.map((space) => space.areaFt2)), units)),

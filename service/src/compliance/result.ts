@@ -98,6 +98,12 @@ export interface SpaceResult {
   withinAllowance: boolean;
   marginW: string;
   marginPct: string | null;
+  /**
+   * 'entered': the space has luminaires; 'none-entered': it has none and nobody has said it is
+   * unlit (an open item: the verdict waits for it); 'unlit': confirmed without lighting, so it has
+   * no lighted floor area and adds nothing to the building's allowance.
+   */
+  lighting: 'entered' | 'none-entered' | 'unlit';
   rcr: string | null;
   roomGeometryIncreaseApplied: boolean;
   luminaires: LuminaireLine[];
@@ -163,6 +169,11 @@ export interface ExteriorApplicationResult {
   installedW: string;
   /** Nontradable: base site allowance used to cover this application's excess. */
   baseSiteUsedW: string;
+  /**
+   * What is left (negative: the excess). A nontradable application counts the base site allowance
+   * it uses; a tradable one is judged in its pool, so its margin is its own share before pooling.
+   */
+  marginW: string;
   withinAllowance: boolean;
   controls: ControlLine[];
   section: string;
@@ -175,7 +186,8 @@ export interface ExteriorResult {
   allowanceW: string;
   installedW: string;
   complies: boolean;
-  tradable: { allowanceW: string; installedW: string; baseSiteUsedW: string; complies: boolean };
+  /** The tradable pool: its margin counts the base site allowance it uses, so "within" never shows beside a negative margin. */
+  tradable: { allowanceW: string; installedW: string; baseSiteUsedW: string; marginW: string; complies: boolean };
   baseSiteRemainingW: string;
   baseSiteCoversNontradable: boolean;
   applications: ExteriorApplicationResult[];
@@ -186,7 +198,15 @@ export interface EvaluationResult {
   dataVersion: string;
   method: 'building-area' | 'space-by-space';
   units: UnitSystem;
+  /** true only when the verdict is 'complies'. */
   complies: boolean;
+  /**
+   * 'does-not-comply' when any requirement fails; otherwise 'incomplete' while something the verdict
+   * needs is missing (see `openItems`), and 'complies' only when nothing is.
+   */
+  verdict: 'complies' | 'does-not-comply' | 'incomplete';
+  /** What keeps the verdict from being settled. */
+  openItems: { spacesWithoutLuminaires: number };
   interior: InteriorResult;
   exterior: ExteriorResult | null;
   controlsComply: boolean;

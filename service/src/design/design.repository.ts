@@ -42,6 +42,11 @@ interface LuminaireTypeRow extends VersionedRow {
   length: string | null;
   limit_watts: string | null;
   wattage_source: string | null;
+  manufacturer: string | null;
+  catalog_number: string | null;
+  light_source: string | null;
+  driver: string | null;
+  voltage: string | null;
   unit_origin: UnitOrigin | null;
   updated_by_name?: string | null;
 }
@@ -61,6 +66,11 @@ function luminaireTypeRecord(row: LuminaireTypeRow): LuminaireTypeRecord {
       length: decimal(row.length),
       limitWatts: decimal(row.limit_watts),
       wattageSource: row.wattage_source ?? undefined,
+      manufacturer: row.manufacturer ?? undefined,
+      catalogNumber: row.catalog_number ?? undefined,
+      lightSource: row.light_source ?? undefined,
+      driver: row.driver ?? undefined,
+      voltage: row.voltage ?? undefined,
     }),
     ...stamp(row),
   } as LuminaireTypeRecord;
@@ -77,6 +87,11 @@ function luminaireTypeColumns(input: LuminaireTypeInput): Record<string, unknown
     length: input.length ?? null,
     limit_watts: input.limitWatts ?? null,
     wattage_source: input.wattageSource ?? null,
+    manufacturer: input.manufacturer ?? null,
+    catalog_number: input.catalogNumber ?? null,
+    light_source: input.lightSource ?? null,
+    driver: input.driver ?? null,
+    voltage: input.voltage ?? null,
   };
 }
 
@@ -174,6 +189,7 @@ interface SpaceRow extends VersionedRow {
   luminaire_height: string | null;
   work_plane_height: string | null;
   enclosed: boolean | null;
+  unlit: boolean | null;
   updated_by_name?: string | null;
 }
 
@@ -267,6 +283,7 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
       luminaireHeight: decimal(row.luminaire_height),
       workPlaneHeight: decimal(row.work_plane_height),
       enclosed: row.enclosed,
+      unlit: row.unlit,
     }) as Omit<SpaceInput, 'luminaires' | 'controls' | 'windows' | 'skylights'>),
     luminaires: (luminairesBySpace.get(row.id) ?? []).map((group) => defined({ tag: group.tag, count: String(group.count), zone: group.zone, luminaireTypeId: group.luminaire_type_id })),
     controls: (controlsBySpace.get(row.id) ?? []).map((control) =>
@@ -316,6 +333,7 @@ function spaceColumns(input: Partial<SpaceInput>): Record<string, unknown> {
     luminaire_height: input.luminaireHeight,
     work_plane_height: input.workPlaneHeight,
     enclosed: input.enclosed,
+    unlit: input.unlit,
   };
   return Object.fromEntries(Object.entries(columns).map(([key, value]) => [key, value ?? null]));
 }
@@ -334,6 +352,20 @@ async function resolveTags(trx: Knex, projectId: string, inputs: { luminaires: S
   return byTag;
 }
 
+function controlRow(spaceId: string, control: SpaceInput['controls'][number]): Record<string, unknown> {
+  return {
+    space_id: spaceId,
+    strategy: control.strategy,
+    provided: control.provided,
+    timeout_minutes: control.timeoutMinutes ?? null,
+    zone_size: control.zoneSize ?? null,
+    auto_on: control.autoOn ?? null,
+    device: control.device ?? null,
+    exception_reason: control.exceptionReason ?? null,
+    exception_note: control.exceptionNote ?? null,
+  };
+}
+
 const childTables = { luminaires: 'space_luminaires', controls: 'space_controls', windows: 'space_windows', skylights: 'space_skylights' } as const;
 
 /** A space's children as table rows, by kind. */
@@ -342,17 +374,7 @@ type ChildRows = Record<keyof typeof childTables, Record<string, unknown>[]>;
 function childRows(spaceId: string, input: SpaceInput, typeIds: Map<string, string>): ChildRows {
   return {
     luminaires: input.luminaires.map((group, position) => ({ space_id: spaceId, position, luminaire_type_id: typeIds.get(group.tag), count: Number(group.count), zone: group.zone ?? null })),
-    controls: input.controls.map((control) => ({
-      space_id: spaceId,
-      strategy: control.strategy,
-      provided: control.provided,
-      timeout_minutes: control.timeoutMinutes ?? null,
-      zone_size: control.zoneSize ?? null,
-      auto_on: control.autoOn ?? null,
-      device: control.device ?? null,
-      exception_reason: control.exceptionReason ?? null,
-      exception_note: control.exceptionNote ?? null,
-    })),
+    controls: input.controls.map((control) => controlRow(spaceId, control)),
     windows: input.windows.map((opening, position) => ({ space_id: spaceId, position, width: opening.width, head_height: opening.headHeight, sill_height: opening.sillHeight ?? null, wall: opening.wall, offset: opening.offset ?? null })),
     skylights: input.skylights.map((skylight, position) => ({ space_id: spaceId, position, length: skylight.length, width: skylight.width, x: skylight.x ?? null, y: skylight.y ?? null })),
   };
@@ -495,6 +517,42 @@ export async function deleteSpace(db: Database, projectId: string, spaceId: stri
     await deleteVersioned(trx, 'spaces', { id: spaceId, project_id: projectId }, version, 'This space');
     await recordDesignChange(trx, { userId, projectId, action: 'delete', entity: 'space', entityId: spaceId, name: before.name, before });
     await touchProject(trx, projectId);
+  });
+}
+
+/** One control recorded on many spaces in one step (the same device, or the same exception). */
+export async function setControlOnSpaces(
+  db: Database,
+  projectId: string,
+  targets: { id: string; version: number }[],
+  control: SpaceInput['controls'][number],
+  userId: string,
+): Promise<SpaceRecord[]> {
+  return db.transaction(async (trx) => {
+    await lockProject(trx, projectId);
+    const ids = targets.map((target) => target.id);
+    const stored = await trx('spaces').where({ project_id: projectId }).whereIn('id', ids).select<{ id: string; name: string; version: number }[]>('id', 'name', 'version');
+    if (stored.length !== new Set(ids).size) throw AppError.notFound('Some of these spaces no longer exist. Reload and choose again.');
+    const wanted = new Map(targets.map((target) => [target.id, target.version]));
+    const stale = stored.filter((row) => wanted.get(row.id) !== row.version);
+    if (stale.length > 0) {
+      const names = stale.map((row) => row.name).sort();
+      throw AppError.conflict(`${names.length} of these spaces changed since you read them (${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}). Reload and apply the control again.`, [
+        { path: 'spaces', message: 'Some versions are stale.' },
+      ]);
+    }
+    const before = await spaceRecords(trx, await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position'));
+    await trx('space_controls').whereIn('space_id', ids).where({ strategy: control.strategy }).delete();
+    await trx.batchInsert('space_controls', ids.map((spaceId) => controlRow(spaceId, control)), 1000).transacting(trx);
+    await trx('spaces').whereIn('id', ids).update({ version: trx.raw('version + 1'), updated_at: trx.fn.now(), updated_by: userId });
+    const after = await spaceRecords(trx, await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position'));
+    const earlier = new Map(before.map((space) => [space.id, space]));
+    await recordDesignChanges(
+      trx,
+      after.map((space) => ({ userId, projectId, action: 'update', entity: 'space', entityId: space.id, name: space.name, before: earlier.get(space.id), after: space })),
+    );
+    await touchProject(trx, projectId);
+    return after;
   });
 }
 

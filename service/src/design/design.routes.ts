@@ -20,12 +20,15 @@ import {
   replaceSpace,
   requestDigest,
   restoreDeleted,
+  setControlOnSpaces,
   type ImportKey,
 } from './design.repository.js';
 import {
   bulkSpacesSchema,
   exteriorApplicationInputSchema,
   exteriorApplicationWriteSchema,
+  importAliasesSchema,
+  spaceControlsSchema,
   luminaireTypeInputSchema,
   luminaireTypeWriteSchema,
   spaceInputSchema,
@@ -33,8 +36,9 @@ import {
   spaceWriteSchema,
   versionQuerySchema,
 } from './design.schema.js';
+import { listImportAliases, saveImportAliases } from './import-aliases.repository.js';
 import { projectDocument } from './project-document.js';
-import { assertExteriorApplicationFitsEdition, assertSpacesFitEdition } from './edition-checks.js';
+import { assertAliasesFitEdition, assertControlFitsEdition, assertExteriorApplicationFitsEdition, assertSpacesFitEdition } from './edition-checks.js';
 
 /** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
 export function designRouter(db: Database): Router {
@@ -77,6 +81,19 @@ export function designRouter(db: Database): Router {
     const { spaces } = parse(bulkSpacesSchema, req.body);
     await assertSpacesFitEdition(db, projectId(req), spaces, false);
     res.status(201).json(await createSpaces(db, projectId(req), spaces, userId(req), importKey(req)));
+  });
+  router.post('/spaces/controls', edit, async (req, res) => {
+    const { spaces, control } = parse(spaceControlsSchema, req.body);
+    await assertControlFitsEdition(db, projectId(req), control.strategy);
+    res.json(await setControlOnSpaces(db, projectId(req), spaces, control, userId(req)));
+  });
+  router.get('/import-aliases', read, async (req, res) => {
+    res.json(await listImportAliases(db, projectId(req)));
+  });
+  router.put('/import-aliases', edit, async (req, res) => {
+    const { aliases } = parse(importAliasesSchema, req.body);
+    await assertAliasesFitEdition(db, projectId(req), aliases);
+    res.json(await saveImportAliases(db, projectId(req), aliases, userId(req)));
   });
   router.get('/spaces/:spaceId', read, async (req, res) => {
     res.json(await getSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space')));

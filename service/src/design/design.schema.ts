@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { documentLimits, listLimit, textField, textLimits, versionField } from '../compliance/bounds.js';
-import { exteriorApplicationEntrySchema, luminaireTypeSchema, spaceSchema } from '../compliance/document.js';
+import { controlSchema, exteriorApplicationEntrySchema, luminaireTypeSchema, spaceSchema } from '../compliance/document.js';
 
 /** Writes carry the version the writer read; a stale one gets 409. */
 const version = versionField;
@@ -13,11 +13,37 @@ export const bulkSpacesSchema = z.object({
   spaces: z.array(spaceInputSchema).min(1, 'Send at least one space.').max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
 });
 
-export const luminaireTypeInputSchema = luminaireTypeSchema.extend({ wattageSource: textField(textLimits.description).optional() });
+/** The schedule's catalogue fields: kept with the type and printed in the package, not used by the calculation. */
+export const luminaireCatalogueFields = {
+  wattageSource: textField(textLimits.description).optional(),
+  manufacturer: textField(textLimits.name).optional(),
+  catalogNumber: textField(textLimits.name).optional(),
+  lightSource: textField(textLimits.name).optional(),
+  driver: textField(textLimits.name).optional(),
+  voltage: textField(100).optional(),
+};
+
+export const luminaireTypeInputSchema = luminaireTypeSchema.extend(luminaireCatalogueFields);
 export const luminaireTypeWriteSchema = luminaireTypeInputSchema.extend({ version });
 
 export const exteriorApplicationInputSchema = exteriorApplicationEntrySchema.extend({ description: textField(textLimits.description).default('') });
 export const exteriorApplicationWriteSchema = exteriorApplicationInputSchema.extend({ version });
+
+/** The same control recorded on many spaces: each with the version its writer read. */
+export const spaceControlsSchema = z.object({
+  spaces: z
+    .array(z.object({ id: z.string().uuid('Not a space.'), version }))
+    .min(1, 'Choose at least one space.')
+    .max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one step')),
+  control: controlSchema,
+});
+
+const typeKey = textField(textLimits.key, { required: true });
+export const importAliasesSchema = z.object({
+  aliases: z
+    .array(z.object({ name: textField(textLimits.name, { required: true }), spaceType: typeKey.nullable().default(null), buildingAreaType: typeKey.nullable().default(null) }))
+    .max(1000, listLimit(1000, 'names in one step')),
+});
 
 export const versionQuerySchema = z.object({
   version: z.coerce.number({ message: 'Send the version you read, a whole number.' }).pipe(versionField),

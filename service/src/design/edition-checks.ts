@@ -1,5 +1,5 @@
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
-import { validateDocument } from '../compliance/index.js';
+import { validateDocument, type EditionData } from '../compliance/index.js';
 import type { Database } from '../db/database.js';
 import { AppError, type ErrorDetail } from '../http/app-error.js';
 import { listLuminaireTypes } from './design.repository.js';
@@ -40,16 +40,40 @@ export async function assertSpacesFitEdition(db: Database, projectId: string, sp
  * lighting zone adds that): an unknown key would make the project impossible to evaluate.
  */
 export async function assertExteriorApplicationFitsEdition(db: Database, projectId: string, key: string): Promise<void> {
-  const project = await db('projects').where({ id: projectId }).first<{ edition_id: string | null } | undefined>('edition_id');
-  if (!project?.edition_id) {
-    throw AppError.badRequest('Choose the code edition in the set-up before adding exterior lighting.', [{ path: 'key', message: 'The project has no code edition yet.' }]);
-  }
-  const edition = await loadEditionData(db, project.edition_id);
-  const application = edition?.exteriorApplications.find((candidate) => candidate.key === key);
+  const edition = await projectEdition(db, projectId);
+  const application = edition.exteriorApplications.find((candidate) => candidate.key === key);
   if (!application) {
     throw AppError.badRequest('This exterior application is not one of the project’s code edition.', [{ path: 'key', message: 'Choose an application from the edition’s list.' }]);
   }
   if (application.isBaseSiteAllowance) {
     throw AppError.badRequest('The base site allowance comes with the lighting zone; it is not entered as an application.', [{ path: 'key', message: 'Choose another application.' }]);
   }
+}
+
+async function projectEdition(db: Database, projectId: string): Promise<EditionData> {
+  const project = await db('projects').where({ id: projectId }).first<{ edition_id: string | null } | undefined>('edition_id');
+  const edition = project?.edition_id ? await loadEditionData(db, project.edition_id) : undefined;
+  if (!edition) throw AppError.badRequest('Choose the code edition in the set-up first.', [{ path: 'edition', message: 'The project has no code edition yet.' }]);
+  return edition;
+}
+
+/** A control recorded on many spaces must be one of the edition's strategies. */
+export async function assertControlFitsEdition(db: Database, projectId: string, strategy: string): Promise<void> {
+  const edition = await projectEdition(db, projectId);
+  if (!edition.controlStrategies.some((candidate) => candidate.key === strategy)) {
+    throw AppError.badRequest('This control is not one of the project’s code edition.', [{ path: 'control.strategy', message: 'Choose a control from the edition’s list.' }]);
+  }
+}
+
+/** Remembered import names must point at types the edition has. */
+export async function assertAliasesFitEdition(db: Database, projectId: string, aliases: { spaceType: string | null; buildingAreaType: string | null }[]): Promise<void> {
+  const edition = await projectEdition(db, projectId);
+  const spaceTypes = new Set(edition.spaceTypes.map((type) => type.key));
+  const areaTypes = new Set(edition.buildingAreaTypes.map((type) => type.key));
+  const details = aliases.flatMap((alias, index) => [
+    ...(alias.spaceType !== null && !spaceTypes.has(alias.spaceType) ? [{ path: `aliases.${index}.spaceType`, message: 'Not a space type of the project’s edition.' }] : []),
+    ...(alias.buildingAreaType !== null && !areaTypes.has(alias.buildingAreaType) ? [{ path: `aliases.${index}.buildingAreaType`, message: 'Not a building area type of the project’s edition.' }] : []),
+    ...(alias.spaceType === null && alias.buildingAreaType === null ? [{ path: `aliases.${index}`, message: 'Match the name to a space type or a building area type.' }] : []),
+  ]);
+  if (details.length > 0) throw AppError.badRequest('Some matches do not fit the project’s code edition.', details);
 }

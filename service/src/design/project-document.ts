@@ -33,7 +33,7 @@ export async function projectDocument(db: Knex, projectId: string): Promise<Eval
     edition: project.edition_id,
     method: project.method,
     units: project.units,
-    luminaireTypes: types.map(({ id: _id, version: _version, updatedAt: _updatedAt, updatedBy: _updatedBy, wattageSource: _source, ...type }) => type),
+    luminaireTypes: types.map(({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts }) => defined({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts })),
     spaces: spaces.map(({ position: _position, version: _version, updatedAt: _updatedAt, updatedBy: _updatedBy, luminaires, controlSpaceType, ...space }) => ({
       ...space,
       // Kept for the building area method; with the space-by-space method the space type sets the controls.
@@ -51,4 +51,9 @@ export async function projectDocument(db: Knex, projectId: string): Promise<Eval
     document.retailDisplay = { claims: claims.map((claim) => ({ allowance: claim.allowance_key, spaceId: claim.space_id, area: claim.area })) };
   }
   return document;
+}
+
+/** The fields that have a value (the document leaves out what was never entered). */
+function defined<Fields extends Record<string, unknown>>(fields: Fields): Fields {
+  return Object.fromEntries(Object.entries(fields).filter(([, value]) => value !== undefined)) as Fields;
 }

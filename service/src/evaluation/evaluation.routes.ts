@@ -23,7 +23,7 @@ export function projectResultsRouter(db: Database): Router {
     // Read as text: a JavaScript Date would drop the microseconds the comparison below needs.
     const { design_at: designAt } = await db('projects').where({ id: projectId }).first<{ design_at: string }>(db.raw('updated_at::text as design_at'));
     const result = await evaluateDocument(db, await projectDocument(db, projectId));
-    await keepResultSummary(db, projectId, designAt, { complies: result.complies, marginPct: result.interior.marginPct, dataVersion: result.dataVersion });
+    await keepResultSummary(db, projectId, designAt, { complies: result.complies, verdict: result.verdict, marginPct: result.interior.marginPct, dataVersion: result.dataVersion });
     res.json(result);
   });
   return router;

@@ -57,6 +57,7 @@ const space = z.strictObject({
   withinAllowance: z.boolean(),
   marginW: decimal,
   marginPct: decimal.nullable(),
+  lighting: z.enum(['entered', 'none-entered', 'unlit']),
   rcr: decimal.nullable(),
   roomGeometryIncreaseApplied: z.boolean(),
   luminaires: z.array(
@@ -96,6 +97,7 @@ const exteriorApplication = z.strictObject({
   allowanceW: decimal,
   installedW: decimal,
   baseSiteUsedW: decimal,
+  marginW: decimal,
   withinAllowance: z.boolean(),
   controls: z.array(controlLine),
   section: z.string(),
@@ -107,6 +109,8 @@ export const evaluationResultSchema = z.strictObject({
   method: z.enum(['building-area', 'space-by-space']),
   units: z.enum(['ip', 'si']),
   complies: z.boolean(),
+  verdict: z.enum(['complies', 'does-not-comply', 'incomplete']),
+  openItems: z.strictObject({ spacesWithoutLuminaires: z.number().int().nonnegative() }),
   interior: z.strictObject({
     section: z.string(),
     area: decimal,
@@ -130,7 +134,7 @@ export const evaluationResultSchema = z.strictObject({
       allowanceW: decimal,
       installedW: decimal,
       complies: z.boolean(),
-      tradable: z.strictObject({ allowanceW: decimal, installedW: decimal, baseSiteUsedW: decimal, complies: z.boolean() }),
+      tradable: z.strictObject({ allowanceW: decimal, installedW: decimal, baseSiteUsedW: decimal, marginW: decimal, complies: z.boolean() }),
       baseSiteRemainingW: decimal,
       baseSiteCoversNontradable: z.boolean(),
       applications: z.array(exteriorApplication),

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { dec, text } from '../compliance/numbers.js';
 import { recordAudit } from '../audit/audit.repository.js';
@@ -12,6 +13,8 @@ import { permitColumns, type ProjectCreate, type ProjectSetupPatch } from './pro
 /** The last evaluation's verdict, kept for lists; null until the project is evaluated after its latest change. */
 export interface ResultSummary {
   complies: boolean;
+  /** Absent in summaries kept before verdicts could be incomplete. */
+  verdict?: 'complies' | 'does-not-comply' | 'incomplete';
   marginPct: string | null;
   dataVersion: string;
 }
@@ -246,5 +249,61 @@ export async function setProjectArchived(db: Database, projectId: string, archiv
     await trx('projects').where({ id: projectId }).update({ archived_at: archived ? trx.fn.now() : null, archived_by: archived ? userId : null });
     const { name } = await trx('projects').where({ id: projectId }).first<{ name: string }>('name');
     await recordAudit(trx, { userId, projectId, action: archived ? 'archive' : 'unarchive', entity: 'project', entityId: projectId, detail: { name } });
+  });
+}
+
+/** Copies rows of one project's table to another, keeping every column but the ones given. */
+async function copyRows(trx: Knex.Transaction, table: string, rows: Record<string, unknown>[], change: (row: Record<string, unknown>) => Record<string, unknown>): Promise<void> {
+  if (rows.length === 0) return;
+  await trx.batchInsert(table, rows.map(change), 500).transacting(trx);
+}
+
+/**
+ * A copy of a project as a new draft, for a similar building or to try another method: the set-up,
+ * the permit fields, every space with what is in it, the luminaire types and exterior lighting.
+ * The person copying is its engineer; the team, the history and any review are not copied.
+ */
+export async function copyProject(db: Database, sourceId: string, name: string, userId: string): Promise<string> {
+  return db.transaction(async (trx) => {
+    const source = await lockProject(trx, sourceId, { allowArchived: true });
+    const row = await trx('projects').where({ id: source.id }).first<Record<string, unknown>>();
+    const { id: _id, state: _state, version: _version, created_by: _createdBy, created_at: _createdAt, updated_at: _updatedAt, updated_by: _updatedBy, result_summary: _summary, archived_at: _archivedAt, archived_by: _archivedBy, ...setup } = row;
+    const [copy] = await trx('projects').insert({ ...setup, name, created_by: userId, updated_by: userId }).returning<{ id: string }[]>('id');
+    const projectId = copy!.id;
+    await trx('project_members').insert({ project_id: projectId, user_id: userId, role: 'engineer' });
+
+    const stamp = { version: 1, updated_by: userId, created_at: trx.fn.now(), updated_at: trx.fn.now() };
+    const types = await trx('luminaire_types').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
+    const typeIds = new Map(types.map((type) => [type['id'] as string, randomUUID()]));
+    await copyRows(trx, 'luminaire_types', types, (type) => ({ ...type, ...stamp, id: typeIds.get(type['id'] as string), project_id: projectId }));
+
+    const spaces = await trx('spaces').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
+    const spaceIds = new Map(spaces.map((space) => [space['id'] as string, randomUUID()]));
+    await copyRows(trx, 'spaces', spaces, (space) => ({ ...space, ...stamp, id: spaceIds.get(space['id'] as string), project_id: projectId }));
+    const sourceSpaces = trx('spaces').select('id').where({ project_id: sourceId });
+    for (const table of ['space_luminaires', 'space_controls', 'space_windows', 'space_skylights']) {
+      const children = await trx(table).whereIn('space_id', sourceSpaces).select<Record<string, unknown>[]>('*');
+      await copyRows(trx, table, children, (child) => ({
+        ...child,
+        space_id: spaceIds.get(child['space_id'] as string),
+        ...(child['luminaire_type_id'] ? { luminaire_type_id: typeIds.get(child['luminaire_type_id'] as string) } : {}),
+      }));
+    }
+    const exterior = await trx('exterior_applications').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
+    await copyRows(trx, 'exterior_applications', exterior, (application) => ({ ...application, ...stamp, id: randomUUID(), project_id: projectId, controls: JSON.stringify(application['controls']) }));
+    const claims = await trx('retail_display_claims').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
+    await copyRows(trx, 'retail_display_claims', claims, (claim) => ({ ...claim, ...stamp, id: randomUUID(), project_id: projectId, space_id: spaceIds.get(claim['space_id'] as string) }));
+    const aliases = await trx('project_import_aliases').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
+    await copyRows(trx, 'project_import_aliases', aliases, (alias) => ({ ...alias, project_id: projectId, updated_by: userId }));
+
+    await recordAudit(trx, {
+      userId,
+      projectId,
+      action: 'copy',
+      entity: 'project',
+      entityId: projectId,
+      detail: { name, copiedFrom: { id: sourceId, name: row['name'] }, after: await setupRecord(trx, projectId) },
+    });
+    return projectId;
   });
 }

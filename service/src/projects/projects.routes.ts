@@ -8,7 +8,7 @@ import { AppError } from '../http/app-error.js';
 import { requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
-import { createProject, getProjectDetail, listProjectsFor, setProjectArchived, updateProjectSetup } from './projects.repository.js';
+import { copyProject, createProject, getProjectDetail, listProjectsFor, setProjectArchived, updateProjectSetup } from './projects.repository.js';
 import { projectCreateSchema, projectSetupPatchSchema } from './projects.schema.js';
 import { convertProjectUnits } from './unit-conversion.js';
 
@@ -19,6 +19,7 @@ function assertEdition(edition: string | undefined): void {
 }
 
 const listQuerySchema = z.object({ archived: z.enum(['true', 'false']).optional() });
+const copySchema = z.object({ name: projectCreateSchema.shape.name });
 
 export function projectsRouter(db: Database): Router {
   const router = Router();
@@ -60,6 +61,13 @@ export function projectsRouter(db: Database): Router {
     }
     await updateProjectSetup(db, access.projectId, patch, currentSession(req).user.id, convert);
     res.json(await getProjectDetail(db, access.projectId, access.role));
+  });
+
+  /** Anyone who may read a project may copy it; the copy is theirs, as its engineer. */
+  router.post('/:projectId/copy', requireProjectAction(db, 'read'), async (req, res) => {
+    const { name } = parse(copySchema, req.body);
+    const id = await copyProject(db, req.projectAccess!.projectId, name, currentSession(req).user.id);
+    res.status(201).json(await getProjectDetail(db, id, 'engineer'));
   });
 
   /** Archiving keeps everything and makes the project read-only; unarchiving brings it back. */

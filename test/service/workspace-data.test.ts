@@ -1,0 +1,182 @@
+import type { Express } from 'express';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { signIn, testApp, type SignedInAgent } from '../support/app.js';
+import { freshDatabase, type TestDatabase } from '../support/database.js';
+
+let database: TestDatabase;
+let app: Express;
+let engineer: SignedInAgent;
+let reviewer: SignedInAgent;
+let demoId: string;
+
+beforeAll(async () => {
+  database = await freshDatabase();
+  ({ app } = testApp(database.db, database.url));
+  engineer = await signIn(app, 'engineer@alderbay.example');
+  reviewer = await signIn(app, 'reviewer@alderbay.example');
+  demoId = (await database.db('projects').where({ name: 'Alder Bay Library & Makerspace' }).first<{ id: string }>('id')).id;
+});
+
+afterAll(async () => {
+  await database.drop();
+});
+
+function write(who: SignedInAgent, method: 'post' | 'put' | 'patch' | 'delete', url: string) {
+  return who.agent[method](url).set('X-CSRF-Token', who.csrfToken);
+}
+
+async function newProject(fields: Record<string, unknown> = {}): Promise<string> {
+  const created = await write(engineer, 'post', '/api/projects').send({ name: 'Fire Station 4', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2, ...fields });
+  expect(created.status).toBe(201);
+  return created.body.id;
+}
+
+async function patchSetup(projectId: string, fields: Record<string, unknown>) {
+  const version = (await engineer.agent.get(`/api/projects/${projectId}`)).body.version;
+  return write(engineer, 'patch', `/api/projects/${projectId}`).send({ version, ...fields });
+}
+
+describe('the permit fields of the set-up', () => {
+  it('keeps the permit, owner, occupancy, scope, floor area, designer and contractor', async () => {
+    const permit = {
+      permitNumber: 'BP-2026-0412',
+      owner: 'Alder Bay Fire District',
+      occupancy: 'Fire station (B and S-2)',
+      scope: 'new-building',
+      grossFloorArea: '12500',
+      designerName: 'Ines Halvorsen, PE',
+      designerFirm: 'Tideline Engineering',
+      designerLicence: 'PE 41-0091',
+      contractorName: 'Noor Abernathy',
+      contractorFirm: 'Harbour Electric',
+      contractorLicence: 'EC 2231',
+      contractorContact: 'noor@harbour-electric.example',
+    };
+    const projectId = await newProject(permit);
+    expect((await engineer.agent.get(`/api/projects/${projectId}`)).body).toMatchObject(permit);
+    const scope = await patchSetup(projectId, { scope: 'demolition' });
+    expect(scope.status).toBe(400);
+    expect(scope.body.error.details[0].path).toBe('scope');
+    const cleared = await patchSetup(projectId, { permitNumber: null });
+    expect(cleared.body.permitNumber).toBeNull();
+  });
+
+  it('converts the gross floor area with the units, and back exactly', async () => {
+    const projectId = await newProject({ grossFloorArea: '12500' });
+    expect((await patchSetup(projectId, { units: 'si' })).body.grossFloorArea).toBe('1161.288'); // 12,500 ft² × 0.09290304 m²/ft² (mathjs units)
+    expect((await patchSetup(projectId, { units: 'ip' })).body.grossFloorArea).toBe('12500');
+  });
+});
+
+describe('switching the compliance method', () => {
+  it('keeps each space’s space type and building area type, so switching back gives the same result', async () => {
+    const projectId = await newProject({ name: 'Method switch' });
+    await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'A', inputWatts: '30', use: 'general' });
+    const space = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Apparatus bay office',
+      spaceType: 'office-enclosed',
+      buildingAreaType: 'fire-station',
+      area: '200',
+      luminaires: [{ tag: 'A', count: 4 }],
+      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'manual' }],
+    });
+    expect(space.status).toBe(201);
+    const bySpace = (await engineer.agent.get(`/api/projects/${projectId}/results`)).body;
+    expect(bySpace.interior.spaces[0].lpdBasis).toMatchObject({ kind: 'space-type', key: 'office-enclosed' });
+
+    expect((await patchSetup(projectId, { method: 'building-area' })).status).toBe(200);
+    const byArea = await engineer.agent.get(`/api/projects/${projectId}/results`);
+    expect(byArea.status).toBe(200);
+    expect(byArea.body.interior.spaces[0].lpdBasis).toMatchObject({ kind: 'building-area-type', key: 'fire-station' });
+    // The space type still sets the controls under the building area method.
+    expect(byArea.body.interior.spaces[0].controls.find((line: { strategy: string }) => line.strategy === 'occupant-sensor').status).toBe('met');
+
+    expect((await patchSetup(projectId, { method: 'space-by-space' })).status).toBe(200);
+    expect((await engineer.agent.get(`/api/projects/${projectId}/results`)).body.interior).toEqual(bySpace.interior);
+  });
+});
+
+describe('copying a project', () => {
+  it('makes a new draft with the same design, owned by the person copying', async () => {
+    const copied = await write(reviewer, 'post', `/api/projects/${demoId}/copy`).send({ name: 'Alder Bay Library, option B' });
+    expect(copied.status).toBe(201);
+    expect(copied.body).toMatchObject({ name: 'Alder Bay Library, option B', state: 'draft', role: 'engineer', edition: 'iecc-2021', jurisdiction: 'Alder Bay Building Department' });
+    expect(copied.body.members).toEqual([expect.objectContaining({ email: 'reviewer@alderbay.example', role: 'engineer' })]);
+    const original = (await engineer.agent.get(`/api/projects/${demoId}/results`)).body;
+    const copy = (await reviewer.agent.get(`/api/projects/${copied.body.id}/results`)).body;
+    expect(copy.interior.allowanceW).toBe(original.interior.allowanceW);
+    expect(copy.interior.installedW).toBe(original.interior.installedW);
+    expect(copy.exterior.installedW).toBe(original.exterior.installedW);
+    expect(copy.complies).toBe(original.complies);
+    const spaces = (await reviewer.agent.get(`/api/projects/${copied.body.id}/spaces`)).body;
+    expect(spaces).toHaveLength(original.interior.spaces.length);
+    expect(spaces.every((space: { version: number }) => space.version === 1)).toBe(true);
+    const history = (await reviewer.agent.get(`/api/projects/${copied.body.id}/history`)).body.entries;
+    expect(history).toEqual([expect.objectContaining({ action: 'copy', entity: 'project' })]);
+  });
+});
+
+describe('one control on many spaces', () => {
+  it('records the same control on each chosen space in one step, or on none when one is stale', async () => {
+    const projectId = await newProject({ name: 'Bulk controls' });
+    const created = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).send({
+      spaces: [1, 2, 3].map((index) => ({ name: `Dorm ${index}`, spaceType: 'storage-room', area: '80' })),
+    });
+    const targets = created.body.map((space: { id: string; version: number }) => ({ id: space.id, version: space.version }));
+    const control = { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '15', autoOn: 'manual', device: 'Ceiling sensor' };
+    const stale = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: [...targets.slice(0, 2), { ...targets[2], version: 7 }], control });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.message).toContain('Dorm 3');
+    expect((await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.every((space: { controls: unknown[] }) => space.controls.length === 0)).toBe(true);
+
+    const applied = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: targets, control });
+    expect(applied.status).toBe(200);
+    expect(applied.body.map((space: { version: number; controls: unknown[] }) => [space.version, space.controls])).toEqual(targets.map(() => [2, [control]]));
+    const history = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries;
+    expect(history.slice(0, 3).map((entry: { action: string; entity: string }) => `${entry.action} ${entry.entity}`)).toEqual(Array(3).fill('update space'));
+    const unknown = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: targets.map((target: { id: string }) => ({ ...target, version: 2 })), control: { ...control, strategy: 'moonlight-dimming' } });
+    expect(unknown.status).toBe(400);
+  });
+});
+
+describe('names an import matched to a type', () => {
+  it('are remembered for the project, one per name whatever its case or dashes', async () => {
+    const projectId = await newProject({ name: 'Aliases' });
+    const saved = await write(engineer, 'put', `/api/projects/${projectId}/import-aliases`).send({
+      aliases: [
+        { name: 'Apparatus Bay', spaceType: 'storage-room' },
+        { name: 'apparatus-bay', spaceType: 'electrical-mechanical-room' },
+        { name: 'Bunk room', spaceType: 'office-enclosed' },
+      ],
+    });
+    expect(saved.status).toBe(200);
+    expect(saved.body).toEqual([
+      { name: 'apparatus-bay', spaceType: 'electrical-mechanical-room', buildingAreaType: null },
+      { name: 'Bunk room', spaceType: 'office-enclosed', buildingAreaType: null },
+    ]);
+    const wrong = await write(engineer, 'put', `/api/projects/${projectId}/import-aliases`).send({ aliases: [{ name: 'Hose tower', spaceType: 'hose-drying-tower' }] });
+    expect(wrong.status).toBe(400);
+    expect((await write(reviewer, 'put', `/api/projects/${projectId}/import-aliases`).send({ aliases: [] })).status).toBe(403);
+  });
+});
+
+describe('luminaire schedule fields', () => {
+  it('keeps the catalogue fields with the type and out of the evaluation document', async () => {
+    const projectId = await newProject({ name: 'Schedule' });
+    const type = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({
+      tag: 'H1',
+      description: 'High-bay',
+      inputWatts: '151.5',
+      use: 'general',
+      manufacturer: 'Invented Lighting Co.',
+      catalogNumber: 'HB-150-40K',
+      lightSource: 'LED, 4000 K',
+      driver: '0–10 V dimming',
+      voltage: '120–277 V',
+    });
+    expect(type.status).toBe(201);
+    expect(type.body).toMatchObject({ inputWatts: '151.5', manufacturer: 'Invented Lighting Co.', catalogNumber: 'HB-150-40K', lightSource: 'LED, 4000 K', driver: '0–10 V dimming', voltage: '120–277 V' });
+    const document = (await engineer.agent.get(`/api/projects/${projectId}/document`)).body;
+    expect(Object.keys(document.luminaireTypes[0]).sort()).toEqual(['basis', 'description', 'inputWatts', 'tag', 'use']);
+  });
+});
