@@ -83,7 +83,7 @@ describe('design data with optimistic locking', () => {
   it('refuses a space type the project’s edition does not have, and a space without the type its method needs', async () => {
     const unknown = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Lab', spaceType: 'no-such-type', area: 100 });
     expect(unknown.status).toBe(400);
-    expect(unknown.body.error.details).toEqual([{ path: 'spaceType', message: 'iecc-2021 has no space type "no-such-type".' }]);
+    expect(unknown.body.error.details).toEqual([{ path: 'spaceType', message: 'International Energy Conservation Code 2021 (commercial) has no space type “no-such-type”.' }]);
     const wrongMethod = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).send({
       spaces: [
         { name: 'Store', spaceType: 'storage-room', area: 80 },

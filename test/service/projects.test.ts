@@ -91,7 +91,7 @@ describe('the verdict kept for the project list', () => {
 
     const results = await engineer.agent.get(`/api/projects/${demo.id}/results`);
     const listed = (await engineer.agent.get('/api/projects')).body.find((project: { id: string }) => project.id === demo.id);
-    expect(listed.resultSummary).toEqual({ complies: results.body.complies, marginPct: results.body.interior.marginPct, dataVersion: results.body.dataVersion });
+    expect(listed.resultSummary).toEqual({ complies: results.body.complies, verdict: results.body.verdict, marginPct: results.body.interior.marginPct, dataVersion: results.body.dataVersion });
 
     const types = (await engineer.agent.get(`/api/projects/${demo.id}/luminaire-types`)).body;
     const type = types.find((candidate: { tag: string }) => candidate.tag === 'A');

@@ -227,7 +227,7 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
 
   const editionId = word(doc['edition']);
   if (editionId !== undefined && editionId !== edition.id) {
-    add('edition', `The document is for ${editionId}; these tables are ${edition.id}.`);
+    add('edition', `The document names another code edition than ${edition.title}.`);
   }
 
   const spaceTypes = new Set(edition.spaceTypes.map((type) => type.key));
@@ -275,9 +275,9 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       if (spaceType === undefined) add(`${path}.spaceType`, 'The space-by-space method needs a space type for every space.');
       if (controlType !== undefined && controlType !== spaceType) add(`${path}.controlSpaceType`, 'With the space-by-space method the space type sets the controls; leave the control space type out.');
     }
-    if (spaceType !== undefined && !spaceTypes.has(spaceType)) add(`${path}.spaceType`, `${edition.id} has no space type "${spaceType}".`);
-    if (controlType !== undefined && !spaceTypes.has(controlType)) add(`${path}.controlSpaceType`, `${edition.id} has no space type "${controlType}".`);
-    if (areaType !== undefined && !buildingAreaTypes.has(areaType)) add(`${path}.buildingAreaType`, `${edition.id} has no building area type "${areaType}".`);
+    if (spaceType !== undefined && !spaceTypes.has(spaceType)) add(`${path}.spaceType`, `${edition.title} has no space type “${spaceType}”.`);
+    if (controlType !== undefined && !spaceTypes.has(controlType)) add(`${path}.controlSpaceType`, `${edition.title} has no space type “${controlType}”.`);
+    if (areaType !== undefined && !buildingAreaTypes.has(areaType)) add(`${path}.buildingAreaType`, `${edition.title} has no building area type “${areaType}”.`);
 
     list(space['luminaires']).forEach((group, groupIndex) => {
       const tag = word(group['tag']);
@@ -294,7 +294,7 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     const ext = record(exterior);
     const zone = ext['lightingZone'];
     const zones = new Set(edition.lightingZones.map((lightingZone) => String(lightingZone.zone)));
-    if (present(zone) && !zones.has(String(zone).trim())) add('exterior.lightingZone', `${edition.id} has no lighting zone "${String(zone)}".`);
+    if (present(zone) && !zones.has(String(zone).trim())) add('exterior.lightingZone', `${edition.title} has no lighting zone “${String(zone)}”.`);
     const applications = new Map(edition.exteriorApplications.map((application) => [application.key, application]));
     const seen = new Set<string>();
     list(ext['applications']).forEach((entry, index) => {
@@ -302,7 +302,7 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       const applicationKey = word(entry['key']);
       if (applicationKey === undefined) return;
       const application = applications.get(applicationKey);
-      if (application === undefined) add(`${path}.key`, `${edition.id} has no exterior application "${applicationKey}".`);
+      if (application === undefined) add(`${path}.key`, `${edition.title} has no exterior application “${applicationKey}”.`);
       else if (application.isBaseSiteAllowance) add(`${path}.key`, 'The base site allowance is added by the lighting zone; do not list it.');
       if (seen.has(applicationKey)) add(`${path}.key`, `Exterior application "${applicationKey}" is listed more than once.`);
       seen.add(applicationKey);
@@ -317,7 +317,7 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       const path = `retailDisplay.claims.${index}`;
       if (method === 'building-area') add(path, 'Additional allowances are part of the space-by-space method.');
       const allowance = word(claim['allowance']);
-      if (allowance !== undefined && !allowances.has(allowance)) add(`${path}.allowance`, `${edition.id} has no additional allowance "${allowance}".`);
+      if (allowance !== undefined && !allowances.has(allowance)) add(`${path}.allowance`, `${edition.title} has no additional allowance “${allowance}”.`);
       const spaceId = word(claim['spaceId']);
       if (spaceId !== undefined && !spaceIds.has(spaceId)) add(`${path}.spaceId`, `No space has the id "${spaceId}".`);
     });
@@ -336,8 +336,8 @@ function controlProblems(
   list(controls).forEach((control, index) => {
     const strategy = word(control['strategy']);
     if (strategy === undefined) return;
-    if (!strategies.has(strategy)) add(`${path}.${index}.strategy`, `"${strategy}" is not a control strategy of ${edition.id}.`);
-    if (seen.has(strategy)) add(`${path}.${index}.strategy`, `"${strategy}" is listed more than once.`);
+    if (!strategies.has(strategy)) add(`${path}.${index}.strategy`, `“${strategy}” is not a control of ${edition.title}.`);
+    if (seen.has(strategy)) add(`${path}.${index}.strategy`, `This control is listed more than once.`);
     seen.add(strategy);
     if (control['exceptionReason'] === 'other' && word(control['exceptionNote']) === undefined) {
       add(`${path}.${index}.exceptionNote`, 'Say which exception is claimed.');
