@@ -222,6 +222,8 @@ export const ashrae2022: EditionData = {
     ashraeSpace('conference', 'Conference/meeting/multipurpose room', '0.88', '6', { ...daylightReq, 'automatic-full-off': REQ }, T2022_SBS),
     ashraeSpace('corridor', 'Corridor', '0.44', null, { ...daylightReq, 'automatic-partial-off': REQ, 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 }, T2022_SBS),
     ashraeSpace('storage-50-plus', 'Storage room ≥ 50 ft²', '0.35', '6', { 'automatic-full-off': REQ }, T2022_SBS),
+    // Table 9.5.2.1-2: Sales area = 0.85 W/ft².
+    ashraeSpace('sales-area', 'Sales area', '0.85', '6', { 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 }, T2022_SBS),
   ],
   controlStrategies: ashraeStrategies('90.1-2022'),
   exteriorApplications: [

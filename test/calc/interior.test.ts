@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatLpd, formatPercent, formatWatts } from '../../service/src/compliance/index.js';
+import { formatLpd, formatPercent, formatWatts, validateDocument } from '../../service/src/compliance/index.js';
 import type { EvaluationDocumentInput } from '../../service/src/compliance/index.js';
 import { ashrae2019, ashrae2022, iecc2021, run } from './fixtures.js';
 
@@ -191,8 +191,8 @@ describe('space-by-space method', () => {
   it('limits the retail display allowance to the display watts it covers (90.1-2022 formula)', () => {
     // D-RETAIL-2022 (external-test-cases.csv, 90.1-2022 §9.5.2.2(b)): 750 + 1000 × 0.40 + 500 × 0.70 = 1500 W available.
     // Display lighting installed 1200 W, so only 1200 W of it may be used (use it or lose it).
-    // Base: the spaces use the conference type here only for a known LPD (0.88 W/ft², 90.1-2022 Table 9.5.2.1-1):
-    // 1000 × 0.88 + 500 × 0.88 = 1320 W. Claims per space: 400 W (space s1), 350 W (space s2); display 800 W in s1, 400 W in s2.
+    // Base: sales area 0.85 W/ft² (90.1-2022 Table 9.5.2.1-2, via BESD): 1000 × 0.85 + 500 × 0.85 = 1275 W.
+    // Claims per space: 400 W (space s1), 350 W (space s2); display 800 W in s1, 400 W in s2.
     // Space s1 uses min(400, 800) = 400; s2 min(350, 400) = 350; fixed 750 W covers min(750, 400 + 50) = 450 W.
     const result = run(
       {
@@ -201,8 +201,8 @@ describe('space-by-space method', () => {
         units: 'ip',
         luminaireTypes: [led('S', '100', 'display')],
         spaces: [
-          { id: 's1', name: 'Sales 1', spaceType: 'conference', area: 1000, luminaires: [{ tag: 'S', count: 8 }] },
-          { id: 's2', name: 'Sales 2', spaceType: 'conference', area: 500, luminaires: [{ tag: 'S', count: 4 }] },
+          { id: 's1', name: 'Sales 1', spaceType: 'sales-area', area: 1000, luminaires: [{ tag: 'S', count: 8 }] },
+          { id: 's2', name: 'Sales 2', spaceType: 'sales-area', area: 500, luminaires: [{ tag: 'S', count: 4 }] },
         ],
         retailDisplay: {
           claims: [
@@ -216,8 +216,32 @@ describe('space-by-space method', () => {
     expect(result.interior.additional!.claimedW).toBe('1500');
     expect(result.interior.additional!.usableW).toBe('1200');
     expect(result.interior.displayW).toBe('1200');
-    // 1320 + 1200 = 2520 W allowed; 1200 W installed.
-    expect(result.interior.allowanceW).toBe('2520');
+    // 1275 + 1200 = 2475 W allowed; 1200 W installed.
+    expect(result.interior.allowanceW).toBe('2475');
+  });
+
+  it('refuses a display claim off the sales floor, larger than its space, or made twice', () => {
+    const document = (claims: { allowance: string; spaceId: string; area: number }[]): EvaluationDocumentInput => ({
+      edition: 'ashrae-90.1-2022',
+      method: 'space-by-space',
+      units: 'ip',
+      luminaireTypes: [led('S', '100', 'display')],
+      spaces: [
+        { id: 's1', name: 'Sales floor', spaceType: 'sales-area', area: 1000, luminaires: [{ tag: 'S', count: 2 }] },
+        { id: 'c', name: 'Meeting room', spaceType: 'conference', area: 300, luminaires: [{ tag: 'S', count: 1 }] },
+      ],
+      retailDisplay: { claims },
+    });
+    const problems = (claims: Parameters<typeof document>[0]) => validateDocument(document(claims), ashrae2022).problems.map((problem) => problem.path);
+    expect(problems([{ allowance: 'retail-area-1', spaceId: 'c', area: 300 }])).toEqual(['retailDisplay.claims.0.spaceId']);
+    expect(problems([{ allowance: 'retail-area-1', spaceId: 's1', area: 1200 }])).toEqual(['retailDisplay.claims.0.area']);
+    expect(
+      problems([
+        { allowance: 'retail-area-1', spaceId: 's1', area: 400 },
+        { allowance: 'retail-area-1', spaceId: 's1', area: 400 },
+      ]),
+    ).toEqual(['retailDisplay.claims.1.allowance']);
+    expect(problems([{ allowance: 'retail-area-1', spaceId: 's1', area: 400 }, { allowance: 'retail-area-3', spaceId: 's1', area: 600 }])).toEqual([]);
   });
 
   it('sums per level', () => {

@@ -180,3 +180,34 @@ describe('luminaire schedule fields', () => {
     expect(Object.keys(document.luminaireTypes[0]).sort()).toEqual(['basis', 'description', 'inputWatts', 'tag', 'use']);
   });
 });
+
+describe('additional allowance claims', () => {
+  it('are kept per space on the sales floor, at most its area, once per allowance, and count in the results', async () => {
+    const projectId = await newProject({ name: 'Chandlery', edition: 'ashrae-90.1-2022' });
+    await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'D', inputWatts: '50', use: 'display' });
+    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Sales floor', spaceType: 'sales-area', area: '1000', luminaires: [{ tag: 'D', count: 10 }] });
+    const office = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Office', spaceType: 'office-enclosed-and-gt-150-ft2-and-le-300-ft2', area: '300' });
+    expect([sales.status, office.status]).toEqual([201, 201]);
+    const url = `/api/projects/${projectId}/additional-allowances`;
+
+    const offFloor = await write(engineer, 'post', url).send({ spaceId: office.body.id, allowance: 'retail-area-1', area: '300' });
+    expect(offFloor.status).toBe(400);
+    expect(offFloor.body.error.details[0].path).toBe('spaceId');
+    const tooLarge = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '1200' });
+    expect(tooLarge.status).toBe(400);
+    expect(tooLarge.body.error.details[0].path).toBe('area');
+    const claim = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '600' });
+    expect(claim.status).toBe(201);
+    expect(claim.body).toMatchObject({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '600', version: 1 });
+    expect((await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '100' })).status).toBe(409);
+
+    const results = (await engineer.agent.get(`/api/projects/${projectId}/results`)).body;
+    expect(results.interior.additional.lines).toHaveLength(1);
+    const changed = await write(engineer, 'put', `${url}/${claim.body.id}`).send({ spaceId: sales.body.id, allowance: 'retail-area-2', area: '500', version: 1 });
+    expect(changed.body).toMatchObject({ allowance: 'retail-area-2', version: 2 });
+    expect((await write(engineer, 'delete', `${url}/${claim.body.id}?version=2`)).status).toBe(204);
+    expect((await engineer.agent.get(url)).body).toEqual([]);
+    const actions = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries.slice(0, 3).map((entry: { action: string; entity: string }) => `${entry.action} ${entry.entity}`);
+    expect(actions).toEqual(['delete additional-allowance', 'update additional-allowance', 'create additional-allowance']);
+  });
+});

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { EditionData } from './edition-data.js';
-import { decimalField, documentLimits, listLimit, ranges, textField, textLimits } from './bounds.js';
-import { dec } from './numbers.js';
+import { boundedDecimal, decimalField, documentLimits, listLimit, ranges, textField, textLimits } from './bounds.js';
+import { type Dec, dec } from './numbers.js';
 
 /**
  * The project document an evaluation reads. Numbers arrive as decimal strings or JSON numbers and
@@ -211,6 +211,16 @@ function word(value: unknown): string | undefined {
   return typeof value === 'string' && value.trim() !== '' ? value.trim() : undefined;
 }
 
+/** The space type of every edition whose lighting the retail display allowance is for. */
+export const salesAreaSpaceType = 'sales-area';
+
+/** A number that already passed the schema's bounds, or null (the schema reports the rest). */
+function decimalOrNull(value: unknown): Dec | null {
+  if (typeof value !== 'string' && typeof value !== 'number') return null;
+  const checked = boundedDecimal(value, ranges.area);
+  return checked.ok ? dec(checked.value) : null;
+}
+
 function present(value: unknown): boolean {
   return value !== undefined && value !== null && value !== '';
 }
@@ -258,12 +268,14 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
   });
 
   const spaceIds = new Set<string>();
+  const spacesById = new Map<string, Loose>();
   list(doc['spaces']).forEach((space, index) => {
     const path = `spaces.${index}`;
     const id = word(space['id']);
     if (id !== undefined) {
       if (spaceIds.has(id)) add(`${path}.id`, `Space id "${id}" is used more than once.`);
       spaceIds.add(id);
+      spacesById.set(id, space);
     }
     const spaceType = word(space['spaceType']);
     const areaType = word(space['buildingAreaType']);
@@ -313,6 +325,7 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
   const retail = doc['retailDisplay'];
   if (retail !== undefined) {
     const allowances = new Set(edition.additionalAllowances.map((allowance) => allowance.key));
+    const claimedPairs = new Set<string>();
     list(record(retail)['claims']).forEach((claim, index) => {
       const path = `retailDisplay.claims.${index}`;
       if (method === 'building-area') add(path, 'Additional allowances are part of the space-by-space method.');
@@ -320,6 +333,17 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       if (allowance !== undefined && !allowances.has(allowance)) add(`${path}.allowance`, `${edition.title} has no additional allowance “${allowance}”.`);
       const spaceId = word(claim['spaceId']);
       if (spaceId !== undefined && !spaceIds.has(spaceId)) add(`${path}.spaceId`, `No space has the id "${spaceId}".`);
+      const space = spaceId === undefined ? undefined : spacesById.get(spaceId);
+      if (space !== undefined && method === 'space-by-space') {
+        // The retail display allowance is for lighting on a sales floor (90.1 §9.6.2(b), IECC C405.3.2.2.1).
+        if (word(space['spaceType']) !== salesAreaSpaceType) add(`${path}.spaceId`, `“${word(space['name']) ?? spaceId}” is not a sales area; the display allowance is for sales floors.`);
+        const claimArea = decimalOrNull(claim['area']);
+        const spaceArea = decimalOrNull(space['area']);
+        if (claimArea !== null && spaceArea !== null && claimArea.greaterThan(spaceArea)) add(`${path}.area`, `The claimed area is larger than the space (${spaceArea.toFixed()}).`);
+        const pair = `${spaceId}\u0000${allowance}`;
+        if (claimedPairs.has(pair)) add(`${path}.allowance`, 'This allowance is already claimed for this space.');
+        claimedPairs.add(pair);
+      }
     });
   }
   return problems;

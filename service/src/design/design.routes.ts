@@ -26,6 +26,8 @@ import {
 import {
   bulkSpacesSchema,
   exteriorApplicationInputSchema,
+  allowanceClaimInputSchema,
+  allowanceClaimWriteSchema,
   exteriorApplicationWriteSchema,
   importAliasesSchema,
   spaceControlsSchema,
@@ -36,9 +38,10 @@ import {
   spaceWriteSchema,
   versionQuerySchema,
 } from './design.schema.js';
+import { createAllowanceClaim, deleteAllowanceClaim, listAllowanceClaims, replaceAllowanceClaim } from './allowance-claims.repository.js';
 import { listImportAliases, saveImportAliases } from './import-aliases.repository.js';
 import { projectDocument } from './project-document.js';
-import { assertAliasesFitEdition, assertControlFitsEdition, assertExteriorApplicationFitsEdition, assertSpacesFitEdition } from './edition-checks.js';
+import { assertAliasesFitEdition, assertAllowanceFitsEdition, assertControlFitsEdition, assertExteriorApplicationFitsEdition, assertSpacesFitEdition } from './edition-checks.js';
 
 /** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
 export function designRouter(db: Database): Router {
@@ -135,6 +138,25 @@ export function designRouter(db: Database): Router {
   router.delete('/exterior-applications/:applicationId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
     await deleteExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, userId(req));
+    res.status(204).end();
+  });
+
+  router.get('/additional-allowances', read, async (req, res) => {
+    res.json(await listAllowanceClaims(db, projectId(req)));
+  });
+  router.post('/additional-allowances', edit, async (req, res) => {
+    const input = parse(allowanceClaimInputSchema, req.body);
+    await assertAllowanceFitsEdition(db, projectId(req), input);
+    res.status(201).json(await createAllowanceClaim(db, projectId(req), input, userId(req)));
+  });
+  router.put('/additional-allowances/:claimId', edit, async (req, res) => {
+    const { version, ...input } = parse(allowanceClaimWriteSchema, req.body);
+    await assertAllowanceFitsEdition(db, projectId(req), input);
+    res.json(await replaceAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), version, input, userId(req)));
+  });
+  router.delete('/additional-allowances/:claimId', edit, async (req, res) => {
+    const { version } = parse(versionQuerySchema, req.query);
+    await deleteAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), version, userId(req));
     res.status(204).end();
   });
 

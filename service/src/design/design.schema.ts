@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { documentLimits, listLimit, textField, textLimits, versionField } from '../compliance/bounds.js';
+import { decimalField, documentLimits, listLimit, ranges, textField, textLimits, versionField } from '../compliance/bounds.js';
 import { controlSchema, exteriorApplicationEntrySchema, luminaireTypeSchema, spaceSchema } from '../compliance/document.js';
 
 /** Writes carry the version the writer read; a stale one gets 409. */
@@ -44,6 +44,14 @@ export const importAliasesSchema = z.object({
     .array(z.object({ name: textField(textLimits.name, { required: true }), spaceType: typeKey.nullable().default(null), buildingAreaType: typeKey.nullable().default(null) }))
     .max(1000, listLimit(1000, 'names in one step')),
 });
+
+export const allowanceClaimInputSchema = z.object({
+  spaceId: z.string().uuid('Choose a space of the project.'),
+  allowance: textField(textLimits.key, { required: true }),
+  /** Qualifying sales floor area, ft² or m² as the project's units say. */
+  area: decimalField(ranges.area),
+});
+export const allowanceClaimWriteSchema = allowanceClaimInputSchema.extend({ version });
 
 export const versionQuerySchema = z.object({
   version: z.coerce.number({ message: 'Send the version you read, a whole number.' }).pipe(versionField),

@@ -1,4 +1,5 @@
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
+import { salesAreaSpaceType } from '../compliance/document.js';
 import { validateDocument, type EditionData } from '../compliance/index.js';
 import type { Database } from '../db/database.js';
 import { AppError, type ErrorDetail } from '../http/app-error.js';
@@ -76,4 +77,23 @@ export async function assertAliasesFitEdition(db: Database, projectId: string, a
     ...(alias.spaceType === null && alias.buildingAreaType === null ? [{ path: `aliases.${index}`, message: 'Match the name to a space type or a building area type.' }] : []),
   ]);
   if (details.length > 0) throw AppError.badRequest('Some matches do not fit the project’s code edition.', details);
+}
+
+/**
+ * An additional-allowance claim: one of the edition's allowances, under the space-by-space method,
+ * on a space whose type is the sales area (90.1 §9.6.2(b), IECC C405.3.2.2.1).
+ */
+export async function assertAllowanceFitsEdition(db: Database, projectId: string, input: { spaceId: string; allowance: string }): Promise<void> {
+  const edition = await projectEdition(db, projectId);
+  const project = await db('projects').where({ id: projectId }).first<{ method: string | null }>('method');
+  if (project?.method !== 'space-by-space') {
+    throw AppError.badRequest('Additional allowances are part of the space-by-space method.', [{ path: 'allowance', message: 'Switch the project to the space-by-space method first.' }]);
+  }
+  if (!edition.additionalAllowances.some((allowance) => allowance.key === input.allowance)) {
+    throw AppError.badRequest('This allowance is not one of the project’s code edition.', [{ path: 'allowance', message: 'Choose an allowance from the edition’s list.' }]);
+  }
+  const space = await db('spaces').where({ id: input.spaceId, project_id: projectId }).first<{ space_type: string | null } | undefined>('space_type');
+  if (space && space.space_type !== salesAreaSpaceType) {
+    throw AppError.badRequest('The display allowance is for sales floors.', [{ path: 'spaceId', message: 'Choose a space whose type is the sales area.' }]);
+  }
 }
