@@ -76,6 +76,11 @@ export class WorkspaceApi {
     return this.http.delete<void>(`/api/projects/${projectId}/spaces/${spaceId}`, { params: { version } });
   }
 
+  /** Brings a deleted space back with its id, values and children. */
+  restoreSpace(projectId: string, spaceId: string): Observable<SpaceRecord> {
+    return this.http.post<SpaceRecord>(`/api/projects/${projectId}/spaces/${spaceId}/restore`, {});
+  }
+
   luminaireTypes(projectId: string): Observable<LuminaireTypeRecord[]> {
     return this.http.get<LuminaireTypeRecord[]>(`/api/projects/${projectId}/luminaire-types`);
   }
@@ -92,6 +97,10 @@ export class WorkspaceApi {
     return this.http.delete<void>(`/api/projects/${projectId}/luminaire-types/${typeId}`, { params: { version } });
   }
 
+  restoreLuminaireType(projectId: string, typeId: string): Observable<LuminaireTypeRecord> {
+    return this.http.post<LuminaireTypeRecord>(`/api/projects/${projectId}/luminaire-types/${typeId}/restore`, {});
+  }
+
   exteriorApplications(projectId: string): Observable<ExteriorApplicationRecord[]> {
     return this.http.get<ExteriorApplicationRecord[]>(`/api/projects/${projectId}/exterior-applications`);
   }
@@ -106,6 +115,10 @@ export class WorkspaceApi {
 
   deleteExteriorApplication(projectId: string, applicationId: string, version: number): Observable<void> {
     return this.http.delete<void>(`/api/projects/${projectId}/exterior-applications/${applicationId}`, { params: { version } });
+  }
+
+  restoreExteriorApplication(projectId: string, applicationId: string): Observable<ExteriorApplicationRecord> {
+    return this.http.post<ExteriorApplicationRecord>(`/api/projects/${projectId}/exterior-applications/${applicationId}/restore`, {});
   }
 
   results(projectId: string): Observable<EvaluationResult> {
