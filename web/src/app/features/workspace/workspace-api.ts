@@ -60,8 +60,9 @@ export class WorkspaceApi {
     return this.http.post<SpaceRecord>(`/api/projects/${projectId}/spaces`, space);
   }
 
-  createSpaces(projectId: string, spaces: SpaceInput[]): Observable<SpaceRecord[]> {
-    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, { spaces });
+  /** One import, all or nothing; a retry with the same `importKey` returns the first import's spaces instead of adding them twice. */
+  createSpaces(projectId: string, spaces: SpaceInput[], importKey: string): Observable<SpaceRecord[]> {
+    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, { spaces }, { headers: { 'Idempotency-Key': importKey } });
   }
 
   replaceSpace(projectId: string, spaceId: string, version: number, space: SpaceInput): Observable<SpaceRecord> {
