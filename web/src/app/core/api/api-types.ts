@@ -33,6 +33,8 @@ export interface ProjectSummary {
   updatedAt: string;
   /** The last evaluation's verdict; null until the project is evaluated after its latest change. */
   resultSummary: { complies: boolean; marginPct: string | null; dataVersion: string } | null;
+  /** When the project was archived: it can be read but not changed until it is unarchived. */
+  archivedAt: string | null;
 }
 
 export interface ProjectMember {
