@@ -126,6 +126,15 @@ describe('the project history', { timeout: 60_000 }, () => {
     const created = await apiWrite(page, 'post', '/api/projects', { name: 'Boathouse scratch', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
     expect(created.status).toBe(201);
     const row = (name: string) => page.getByRole('row').filter({ has: page.getByRole('link', { name, exact: true }) });
+    const scratchUrl = `${served.baseUrl}/projects/${(created.body as { id: string }).id}`;
+
+    // An address the team does not take: the service does not say why, and the page says no more.
+    await page.goto(`${scratchUrl}/setup`);
+    await page.getByLabel('E-mail of a person with an account').fill('nobody@alderbay.example');
+    await page.getByRole('button', { name: 'Add to the team' }).click();
+    await page.getByText("No one was added for that address. Check it, or ask an administrator to create the person's account first.").waitFor();
+    expect(await page.getByLabel('E-mail of a person with an account').inputValue()).toBe('nobody@alderbay.example');
+    await browser.screenshot('team-not-added');
 
     await page.goto(served.baseUrl);
     await row('Boathouse scratch').waitFor();
@@ -163,8 +172,9 @@ describe('the project history', { timeout: 60_000 }, () => {
     await page.getByRole('table', { name: 'Your projects' }).waitFor();
     await row('Boathouse scratch').waitFor();
 
-    await page.goto(`${served.baseUrl}/projects/${(created.body as { id: string }).id}/history`);
+    await page.goto(`${scratchUrl}/history`);
     await entry(page, 'Ines Halvorsen unarchived the project').waitFor();
+    await entry(page, 'Ines Halvorsen asked to add nobody@alderbay.example to the team; no one was added').waitFor();
     await entry(page, 'Ines Halvorsen archived the project').waitFor();
     await entry(page, 'Ines Halvorsen created the project “Boathouse scratch”').waitFor();
   });

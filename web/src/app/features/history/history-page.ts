@@ -79,7 +79,8 @@ export class HistoryPage {
   private readonly requests = new Subject<{ query: HistoryQuery; before?: string }>();
 
   protected readonly filters = new FormGroup({
-    space: new FormControl<SpaceOption | string>('', { nonNullable: true }),
+    /** Text while the person types, the option once chosen; null when typed text is left unchosen. */
+    space: new FormControl<SpaceOption | string | null>(''),
     person: new FormControl('', { nonNullable: true }),
     since: new FormControl<Date | null>(null),
   });
@@ -101,7 +102,7 @@ export class HistoryPage {
   protected readonly query = computed<HistoryQuery>(
     () => {
       const { space, person, since } = this.filterValue();
-      return { spaceId: typeof space === 'object' ? space.id : undefined, userId: person || undefined, since: since ? isoDate(since) : undefined };
+      return { spaceId: space && typeof space === 'object' ? space.id : undefined, userId: person || undefined, since: since ? isoDate(since) : undefined };
     },
     { equal: (a, b) => a.spaceId === b.spaceId && a.userId === b.userId && a.since === b.since },
   );
