@@ -69,11 +69,13 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
     expect(await seriousViolations()).toEqual([]);
   });
 
-  for (const area of ['setup', 'spaces', 'luminaires', 'controls', 'daylight', 'exterior', 'results']) {
+  for (const area of ['setup', 'spaces', 'luminaires', 'controls', 'daylight', 'exterior', 'results', 'history']) {
     it(`the ${area} page`, async () => {
       const { page } = browser;
       await page.goto(`${projectUrl}/${area}`);
       await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
+      // The history arrives apart from the design: wait for its entries.
+      if (area === 'history') await page.locator('.entry').first().waitFor();
       expect(await seriousViolations()).toEqual([]);
     });
   }
@@ -81,9 +83,10 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
   it('the workspace in the dark colour scheme', async () => {
     const { page } = browser;
     await page.emulateMedia({ colorScheme: 'dark' });
-    for (const area of ['spaces', 'daylight', 'results']) {
+    for (const area of ['spaces', 'daylight', 'results', 'history']) {
       await page.goto(`${projectUrl}/${area}`);
       await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
+      if (area === 'history') await page.locator('.entry').first().waitFor();
       expect(await seriousViolations(), area).toEqual([]);
     }
     await browser.screenshot('dark-results');

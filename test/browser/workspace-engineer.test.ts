@@ -247,6 +247,8 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await page.getByRole('radio', { name: /^SI/ }).check();
     await page.getByRole('button', { name: 'Save set-up' }).click();
     await expect.poll(() => page.getByRole('button', { name: 'Save set-up' }).isDisabled()).toBe(true);
+    // The button is disabled while saving too: leaving before the answer would meet the unsaved-changes question.
+    await page.getByRole('progressbar', { name: 'Saving the set-up' }).waitFor({ state: 'detached' });
     await page.getByRole('link', { name: 'Spaces' }).click();
     await page.getByText('Area (m²)').first().waitFor();
     // 200 ft² × 0.09290304 m²/ft² = 18.580608 m² (mathjs units), shown to 0.1 m².

@@ -4,15 +4,16 @@ import type { AbstractControl } from '@angular/forms';
 import { ApiError, type ApiErrorDetail } from '../core/http/api-error';
 
 /**
- * How the workspace answers a failed write. A 409 says who changed the record and offers to reload
- * it (the caller's reload keeps nothing stale on screen); other errors show the service's message.
+ * How the workspace answers a failed write. A stale write (409 `conflict`) says who changed the
+ * record and offers to reload it (the caller's reload keeps nothing stale on screen); other errors,
+ * other refusals included (an archived project, a type still counted), show the service's message.
  */
 @Injectable({ providedIn: 'root' })
 export class WriteFailure {
   private readonly snackBar = inject(MatSnackBar);
 
   report(error: unknown, reload: () => void): void {
-    if (error instanceof ApiError && error.status === 409) {
+    if (error instanceof ApiError && error.status === 409 && error.code === 'conflict') {
       this.snackBar
         .open(error.message, 'Reload', { duration: 20_000, politeness: 'assertive' })
         .onAction()

@@ -33,6 +33,8 @@ export interface ProjectSummary {
   updatedAt: string;
   /** The last evaluation's verdict; null until the project is evaluated after its latest change. */
   resultSummary: { complies: boolean; marginPct: string | null; dataVersion: string } | null;
+  /** When the project was archived: it can be read but not changed until it is unarchived. */
+  archivedAt: string | null;
 }
 
 export interface ProjectMember {
@@ -150,6 +152,73 @@ export interface ExteriorApplicationInput {
 
 export interface ExteriorApplicationRecord extends ExteriorApplicationInput, Stamp {
   id: string;
+}
+
+// ---------------------------------------------------------------- history
+
+export type DesignHistoryAction = 'create' | 'import' | 'update' | 'delete' | 'restore';
+export type ProjectHistoryAction = 'create' | 'update' | 'convert-units' | 'archive' | 'unarchive';
+export type TeamHistoryAction = 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account';
+
+/** The set-up as the history keeps it before and after a change of the project. */
+export interface SetupSnapshot {
+  name: string;
+  address: string | null;
+  latitude: string | null;
+  longitude: string | null;
+  timeZone: string | null;
+  jurisdiction: string | null;
+  edition: EditionId | null;
+  method: ComplianceMethod | null;
+  units: UnitSystem;
+  lightingZone: number | null;
+  version: number;
+}
+
+/** A change of units: the units, and how many stored rows of each table were converted. */
+export interface UnitConversion {
+  from: UnitSystem;
+  to: UnitSystem;
+  rows: Record<string, number>;
+}
+
+interface HistoryEntryBase {
+  id: string;
+  at: string;
+  /** Null when the person's account no longer exists. */
+  user: { id: string; name: string } | null;
+  entityId: string | null;
+  /** What a person calls the thing changed: a space's name, a type's tag, an e-mail. */
+  name: string | null;
+  /** A deleted design item that the restore route can still bring back. */
+  restorable: boolean;
+}
+
+export type HistoryEntry = HistoryEntryBase &
+  (
+    | { entity: 'space'; action: DesignHistoryAction; before: SpaceRecord | null; after: SpaceRecord | null }
+    | { entity: 'luminaire-type'; action: DesignHistoryAction; before: LuminaireTypeRecord | null; after: LuminaireTypeRecord | null }
+    | { entity: 'exterior-application'; action: DesignHistoryAction; before: ExteriorApplicationRecord | null; after: ExteriorApplicationRecord | null }
+    | { entity: 'project'; action: ProjectHistoryAction; before: SetupSnapshot | null; after: SetupSnapshot | null; conversion?: UnitConversion }
+    | { entity: 'project_member'; action: TeamHistoryAction; before: { role: ProjectRole } | null; after: { role: ProjectRole } | null }
+  );
+
+export interface HistoryPage {
+  /** Newest first. */
+  entries: HistoryEntry[];
+  /** Older entries exist: ask again with `before` set to the last entry's id. */
+  more: boolean;
+  /** Everyone who appears in the project's history, for the filter. */
+  people: { id: string; name: string }[];
+}
+
+export interface HistoryQuery {
+  spaceId?: string;
+  userId?: string;
+  /** A date, YYYY-MM-DD: entries from its start on. */
+  since?: string;
+  before?: string;
+  limit?: number;
 }
 
 // ---------------------------------------------------------------- code tables

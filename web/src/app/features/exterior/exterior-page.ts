@@ -6,6 +6,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { ControlLine, ExteriorApplicationInput, ExteriorApplicationRecord } from '../../core/api/api-types';
 import { CautionsBanner, defaultCautions } from '../../shared/cautions-banner';
@@ -31,6 +32,7 @@ export class ExteriorPage implements HasUnsavedChanges {
   protected readonly store = inject(ProjectStore);
   private readonly api = inject(WorkspaceApi);
   private readonly failure = inject(WriteFailure);
+  private readonly snackBar = inject(MatSnackBar);
 
   protected readonly figures = { watts: wattsFigure, quantity: quantityFigure };
   protected readonly statusView = statusView;
@@ -107,14 +109,24 @@ export class ExteriorPage implements HasUnsavedChanges {
     });
   }
 
-  protected remove(record: ExteriorApplicationRecord): void {
+  /** No question first: the snackbar's Undo brings the application back with its id. */
+  protected remove(record: ExteriorApplicationRecord, label: string): void {
     const projectId = this.store.projectId();
-    if (!projectId || !window.confirm(`Remove this exterior application${record.description ? ` (${record.description})` : ''}?`)) return;
+    if (!projectId) return;
     this.saving.set(true);
     this.api.deleteExteriorApplication(projectId, record.id, record.version).subscribe({
       next: () => {
         this.saving.set(false);
         this.store.removeExterior(record.id);
+        this.snackBar
+          .open(`${label}${record.description ? ` (${record.description})` : ''} removed`, 'Undo', { duration: 8000 })
+          .onAction()
+          .subscribe(() =>
+            this.api.restoreExteriorApplication(projectId, record.id).subscribe({
+              next: (restored) => this.store.upsertExterior(restored),
+              error: (error: unknown) => this.failure.report(error, () => this.reload()),
+            }),
+          );
       },
       error: (error: unknown) => {
         this.saving.set(false);

@@ -3,6 +3,7 @@ import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import { MatTabsModule } from '@angular/material/tabs';
 import { MatTooltipModule } from '@angular/material/tooltip';
@@ -36,6 +37,7 @@ export class LuminairesPage implements HasUnsavedChanges {
   private readonly api = inject(WorkspaceApi);
   private readonly dialogs = inject(MatDialog);
   private readonly writeFailure = inject(WriteFailure);
+  private readonly snackBar = inject(MatSnackBar);
   private readonly writes = new Subject<CountWrite>();
 
   protected readonly columns = computed(() => ['tag', 'description', 'inputWatts', 'use', 'basis', 'wattageSource', 'cutSheet', ...(this.store.canEdit() ? ['actions'] : [])]);
@@ -87,11 +89,23 @@ export class LuminairesPage implements HasUnsavedChanges {
       });
   }
 
+  /** No question first: the snackbar's Undo brings the type back with its id. */
   protected deleteType(type: LuminaireTypeRecord): void {
     const projectId = this.store.projectId();
-    if (!projectId || !window.confirm(`Delete luminaire type ${type.tag}?`)) return;
+    if (!projectId) return;
     this.api.deleteLuminaireType(projectId, type.id, type.version).subscribe({
-      next: () => this.store.removeLuminaireType(type.id),
+      next: () => {
+        this.store.removeLuminaireType(type.id);
+        this.snackBar
+          .open(`Luminaire type “${type.tag}” deleted`, 'Undo', { duration: 8000 })
+          .onAction()
+          .subscribe(() =>
+            this.api.restoreLuminaireType(projectId, type.id).subscribe({
+              next: (restored) => this.store.upsertLuminaireType(restored),
+              error: (error: unknown) => this.writeFailure.report(error, () => this.reloadTypes()),
+            }),
+          );
+      },
       error: (error: unknown) => this.writeFailure.report(error, () => this.reloadTypes()),
     });
   }

@@ -2,6 +2,7 @@ import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { provideRouter } from '@angular/router';
 import type { ProjectSummary } from '../../core/api/api-types';
 import { apiInterceptor } from '../../core/http/api-interceptor';
@@ -9,9 +10,9 @@ import { ProjectsPage } from './projects-page';
 
 // Invented demo projects.
 const projects: ProjectSummary[] = [
-  { id: 'p1', name: 'Cedar Hall', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', version: 1, updatedAt: '2026-03-01T10:00:00Z', resultSummary: null },
-  { id: 'p2', name: 'Alder Bay Library', state: 'in-review', role: 'reviewer', edition: 'iecc-2021', method: 'space-by-space', version: 3, updatedAt: '2026-03-02T10:00:00Z', resultSummary: null },
-  { id: 'p3', name: 'Birch Annex', state: 'accepted', role: 'engineer', edition: 'ashrae-90.1-2019', method: 'building-area', version: 2, updatedAt: '2026-03-03T10:00:00Z', resultSummary: null },
+  { id: 'p1', name: 'Cedar Hall', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', version: 1, updatedAt: '2026-03-01T10:00:00Z', resultSummary: null, archivedAt: null },
+  { id: 'p2', name: 'Alder Bay Library', state: 'in-review', role: 'reviewer', edition: 'iecc-2021', method: 'space-by-space', version: 3, updatedAt: '2026-03-02T10:00:00Z', resultSummary: null, archivedAt: null },
+  { id: 'p3', name: 'Birch Annex', state: 'accepted', role: 'engineer', edition: 'ashrae-90.1-2019', method: 'building-area', version: 2, updatedAt: '2026-03-03T10:00:00Z', resultSummary: null, archivedAt: null },
 ];
 
 describe('ProjectsPage', () => {
@@ -22,7 +23,14 @@ describe('ProjectsPage', () => {
   async function render(list: ProjectSummary[]): Promise<void> {
     TestBed.configureTestingModule({
       imports: [ProjectsPage],
-      providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting()],
+      providers: [
+        provideZonelessChangeDetection(),
+        provideRouter([]),
+        provideHttpClient(withInterceptors([apiInterceptor])),
+        provideHttpClientTesting(),
+        // The confirm dialog closes at once, so what its answer starts can be checked straight after.
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      ],
     });
     fixture = TestBed.createComponent(ProjectsPage);
     http = TestBed.inject(HttpTestingController);
@@ -82,5 +90,45 @@ describe('ProjectsPage', () => {
     filter.dispatchEvent(new Event('input'));
     await fixture.whenStable();
     expect(element.textContent).toContain('No project matches');
+  });
+
+  it('archives a project the user engineers after a confirm dialog, and lists archived projects with Unarchive', async () => {
+    http.match((request) => request.url.endsWith('/results')).forEach((request) => request.flush({ complies: true, interior: { marginPct: '1' } }));
+    await fixture.whenStable();
+    // A reviewer on the project may not archive it.
+    expect(element.querySelector('button[aria-label="Archive Alder Bay Library"]')).toBeNull();
+
+    const dialogButton = (text: string) => Array.from(document.querySelectorAll<HTMLButtonElement>('mat-dialog-container button')).find((button) => button.textContent?.trim() === text);
+    element.querySelector<HTMLButtonElement>('button[aria-label="Archive Cedar Hall"]')!.click();
+    await fixture.whenStable();
+    expect(document.querySelector('mat-dialog-container')?.textContent).toContain('Archive “Cedar Hall”?');
+    dialogButton('Cancel')!.click();
+    await fixture.whenStable();
+    http.expectNone((request) => request.url.endsWith('/archive'));
+
+    element.querySelector<HTMLButtonElement>('button[aria-label="Archive Cedar Hall"]')!.click();
+    await fixture.whenStable();
+    dialogButton('Archive')!.click();
+    await fixture.whenStable();
+    http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/archive').flush({ ...projects[0], archivedAt: '2026-03-04T10:00:00Z', members: [] });
+    await fixture.whenStable();
+    http.expectOne('/api/projects').flush([projects[1], projects[2]]);
+    await fixture.whenStable();
+    expect(names()).toEqual(['Alder Bay Library', 'Birch Annex']);
+    expect(document.querySelector('.mat-mdc-snack-bar-container')?.textContent).toContain('“Cedar Hall” archived');
+
+    element.querySelector<HTMLButtonElement>('mat-slide-toggle button')!.click();
+    await fixture.whenStable();
+    const archived = http.expectOne((request) => request.url === '/api/projects' && request.params.get('archived') === 'true');
+    archived.flush([{ ...projects[0]!, archivedAt: '2026-03-04T10:00:00Z' }]);
+    await fixture.whenStable();
+    expect(names()).toEqual(['Cedar Hall']);
+    expect(element.querySelector('table')?.getAttribute('aria-label')).toBe('Your archived projects');
+    element.querySelector<HTMLButtonElement>('button[aria-label="Unarchive Cedar Hall"]')!.click();
+    http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/unarchive').flush({ ...projects[0], members: [] });
+    await fixture.whenStable();
+    http.expectOne((request) => request.url === '/api/projects' && request.params.get('archived') === 'true').flush([]);
+    await fixture.whenStable();
+    expect(element.textContent).toContain('No archived projects.');
   });
 });

@@ -1,19 +1,25 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
-import { catchError, from, map, mergeMap, of, startWith } from 'rxjs';
+import { catchError, from, map, mergeMap, of, startWith, switchMap } from 'rxjs';
 import type { ProjectSummary } from '../../core/api/api-types';
+import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
+import { ConfirmDialog, type ConfirmDialogData } from '../../shared/confirm-dialog';
 import { formatPercent } from '../../shared/format';
 import { ProjectApi } from './project-api';
 import { stateLabels } from './project-states';
@@ -32,15 +38,18 @@ const verdictConcurrency = 3;
 
 @Component({
   selector: 'al-projects-page',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatProgressBarModule, MatSortModule, MatTableModule],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatProgressBarModule, MatSlideToggleModule, MatSortModule, MatTableModule, MatTooltipModule],
   templateUrl: './projects-page.html',
   styleUrl: './projects-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ProjectsPage {
   private readonly api = inject(ProjectApi);
+  private readonly auth = inject(AuthStore);
   private readonly router = inject(Router);
-  protected readonly columns = ['name', 'state', 'edition', 'role', 'updatedAt', 'margin', 'verdict'];
+  private readonly dialogs = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  protected readonly columns = ['name', 'state', 'edition', 'role', 'updatedAt', 'margin', 'verdict', 'actions'];
   protected readonly dataSource = new MatTableDataSource<ProjectSummary>([]);
   protected readonly verdicts = signal<ReadonlyMap<string, ProjectVerdict>>(new Map());
   protected readonly filter = signal('');
@@ -48,13 +57,22 @@ export class ProjectsPage {
   private readonly sort = viewChild(MatSort);
   private readonly paginator = viewChild(MatPaginator);
 
+  /** The archived projects instead of the current ones. */
+  protected readonly showArchived = signal(false);
+  private readonly reloads = signal(0);
+  protected readonly busy = signal<string | null>(null);
+
   protected readonly list = toSignal(
-    this.api.list().pipe(
-      map((projects): ListState => ({ status: 'ready', projects })),
-      catchError((error: unknown) => of<ListState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'The projects could not be loaded.' })),
-      startWith<ListState>({ status: 'loading' }),
+    toObservable(computed(() => ({ archived: this.showArchived(), reload: this.reloads() }))).pipe(
+      switchMap(({ archived }) =>
+        this.api.list(archived).pipe(
+          map((projects): ListState => ({ status: 'ready', projects })),
+          catchError((error: unknown) => of<ListState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'The projects could not be loaded.' })),
+          startWith<ListState>({ status: 'loading' }),
+        ),
+      ),
     ),
-    { requireSync: true },
+    { initialValue: { status: 'loading' } as ListState },
   );
 
   protected readonly projectCount = computed(() => {
@@ -94,6 +112,50 @@ export class ProjectsPage {
       if (sort) this.dataSource.sort = sort;
       if (paginator) this.dataSource.paginator = paginator;
     });
+  }
+
+  /** Engineers on a project, and administrators, archive it and bring it back. */
+  protected mayArchive(project: ProjectSummary): boolean {
+    return project.role === 'engineer' || (this.auth.user()?.isAdmin ?? false);
+  }
+
+  protected archive(project: ProjectSummary): void {
+    const data: ConfirmDialogData = {
+      title: `Archive “${project.name}”?`,
+      message:
+        'The project keeps its whole design and history and can still be read, but no one can change it. It leaves this list; turn on “Show archived projects” to find it and unarchive it.',
+      confirm: 'Archive',
+    };
+    this.dialogs
+      .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data, width: '480px', maxWidth: '96vw' })
+      .afterClosed()
+      .subscribe((confirmed) => {
+        if (confirmed) this.setArchived(project, true);
+      });
+  }
+
+  protected unarchive(project: ProjectSummary): void {
+    this.setArchived(project, false);
+  }
+
+  private setArchived(project: ProjectSummary, archived: boolean): void {
+    this.busy.set(project.id);
+    (archived ? this.api.archive(project.id) : this.api.unarchive(project.id)).subscribe({
+      next: () => {
+        this.busy.set(null);
+        this.snackBar.open(archived ? `“${project.name}” archived` : `“${project.name}” is back among the current projects`, undefined, { duration: 4000 });
+        this.reloads.update((count) => count + 1);
+      },
+      error: (error: unknown) => {
+        this.busy.set(null);
+        this.snackBar.open(error instanceof ApiError ? error.message : 'The project could not be changed.', 'Dismiss', { duration: 8000, politeness: 'assertive' });
+      },
+    });
+  }
+
+  protected toggleArchived(show: boolean): void {
+    this.showArchived.set(show);
+    this.applyFilter('');
   }
 
   protected applyFilter(value: string): void {

@@ -31,6 +31,8 @@ export class SetupPage implements HasUnsavedChanges {
   protected readonly hasDesignData = computed(() => this.store.spaces().length > 0 || this.store.exterior().length > 0);
   protected readonly teamBusy = signal(false);
   protected readonly teamError = signal<string | null>(null);
+  /** The address of the last addition when the team that came back does not hold it. */
+  protected readonly teamNotAdded = signal<string | null>(null);
 
   constructor() {
     effect(() => {
@@ -80,7 +82,11 @@ export class SetupPage implements HasUnsavedChanges {
 
   protected addMember(entry: { email: string; role: ProjectRole }): void {
     const project = this.store.project();
-    if (project) this.changeTeam(this.api.setMember(project.id, entry.email, entry.role));
+    if (!project) return;
+    this.changeTeam(this.api.setMember(project.id, entry.email, entry.role), (members) => {
+      const added = members.some((member) => member.email.toLocaleLowerCase() === entry.email.toLocaleLowerCase());
+      this.teamNotAdded.set(added ? null : entry.email);
+    });
   }
 
   protected removeMember(member: TeamEntry): void {
@@ -88,12 +94,14 @@ export class SetupPage implements HasUnsavedChanges {
     if (project && member.userId) this.changeTeam(this.api.removeMember(project.id, member.userId));
   }
 
-  private changeTeam(request: ReturnType<WorkspaceApi['members']>): void {
+  private changeTeam(request: ReturnType<WorkspaceApi['members']>, check?: (members: ProjectMember[]) => void): void {
     this.teamBusy.set(true);
     this.teamError.set(null);
+    this.teamNotAdded.set(null);
     request.subscribe({
       next: (members: ProjectMember[]) => {
         this.teamBusy.set(false);
+        check?.(members);
         const project = this.store.project();
         if (project) this.store.project.set({ ...project, members });
       },

@@ -65,21 +65,27 @@ export class SetupWizard implements HasUnsavedChanges {
     this.api.createProject(setupValue(this.form)).subscribe({
       next: (project) => {
         this.created = true;
-        // Each invitation is sent on its own, so one unknown e-mail does not stop the others.
+        // Each invitation is sent on its own, so one refused address does not stop the others. The
+        // service answers with the team whether or not an address has an account: an address the
+        // team does not hold afterwards was not added, and the words say no more than that.
         from(this.invited())
           .pipe(
             concatMap((entry) =>
               this.api.setMember(project.id, entry.email, entry.role).pipe(
-                map((): string | null => null),
+                map((members): string | null => (members.some((member) => member.email.toLocaleLowerCase() === entry.email.toLocaleLowerCase()) ? null : entry.email)),
                 catchError(() => of(entry.email)),
               ),
             ),
             toArray(),
           )
           .subscribe((outcomes) => {
-            const refused = outcomes.filter((email): email is string => email !== null);
-            if (refused.length) {
-              this.snackBar.open(`Not added (no account): ${refused.join(', ')}. Add them on the Set-up page once they have one.`, 'Dismiss', { duration: 12_000 });
+            const missing = outcomes.filter((email): email is string => email !== null);
+            if (missing.length) {
+              this.snackBar.open(
+                `No one was added for ${missing.join(', ')}. Check ${missing.length === 1 ? 'it' : 'them'} on the Set-up page, or ask an administrator to create ${missing.length === 1 ? "the person's account" : 'their accounts'} first.`,
+                'Dismiss',
+                { duration: 12_000 },
+              );
             }
             void this.router.navigate(['/projects', project.id, 'spaces']);
           });

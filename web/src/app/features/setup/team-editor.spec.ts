@@ -55,4 +55,38 @@ describe('TeamEditor', () => {
     element.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
     expect(emitted).toEqual([{ email: 'contractor@alderbay.example', role: 'reviewer' }]);
   });
+
+  it('keeps an address the team did not take, says so beside the field, and empties the field once the person is on the team', async () => {
+    const fixture = render(true);
+    const element = fixture.nativeElement as HTMLElement;
+    const input = element.querySelector<HTMLInputElement>('input[type="email"]')!;
+    const submit = async (address: string) => {
+      input.value = address;
+      input.dispatchEvent(new Event('input'));
+      element.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+      await fixture.whenStable();
+    };
+    const notice = () => element.querySelector('[role="status"]')?.textContent?.trim();
+
+    // The team came back without the address: the service does not say why, and neither do we.
+    await submit('newcomer@alderbay.example');
+    fixture.componentRef.setInput('members', [...members]);
+    fixture.componentRef.setInput('notAdded', 'newcomer@alderbay.example');
+    await fixture.whenStable();
+    expect(input.value).toBe('newcomer@alderbay.example');
+    expect(notice()).toBe("No one was added for that address. Check it, or ask an administrator to create the person's account first.");
+    expect(element.textContent).not.toMatch(/no account|does not exist|unknown/i);
+
+    input.value = 'contractor@alderbay.example';
+    input.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(notice()).toBe('');
+
+    await submit('contractor@alderbay.example');
+    fixture.componentRef.setInput('notAdded', null);
+    fixture.componentRef.setInput('members', [...members, { userId: 'u3', name: 'Noor Abernathy', email: 'contractor@alderbay.example', role: 'reviewer' }]);
+    await fixture.whenStable();
+    expect(input.value).toBe('');
+    expect(element.querySelector('mat-error')).toBeNull();
+  });
 });

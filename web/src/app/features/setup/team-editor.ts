@@ -1,4 +1,5 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, output, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, untracked, viewChild } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -47,9 +48,10 @@ const roleIcons: Record<ProjectRole, string> = { engineer: 'engineering', review
     </ul>
     @if (canManage()) {
       <form class="add" [formGroup]="form" (ngSubmit)="add()" novalidate>
-        <mat-form-field appearance="outline">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic">
           <mat-label>E-mail of a person with an account</mat-label>
           <input matInput type="email" formControlName="email" autocomplete="off" />
+          <mat-hint><span role="status" class="not-added">{{ notAddedShown() ? notAddedMessage : '' }}</span></mat-hint>
           @if (form.controls.email.hasError('required')) {
             <mat-error>Enter an e-mail address.</mat-error>
           } @else if (form.controls.email.hasError('email')) {
@@ -102,6 +104,9 @@ const roleIcons: Record<ProjectRole, string> = { engineer: 'engineering', review
     .add mat-form-field:first-child {
       flex: 1 1 280px;
     }
+    .not-added {
+      color: var(--mat-sys-on-surface);
+    }
     .failure {
       display: flex;
       gap: 8px;
@@ -117,6 +122,11 @@ export class TeamEditor {
   readonly busy = input(false);
   /** The service's message when the last change was refused. */
   readonly error = input<string | null>(null);
+  /**
+   * The address of the last addition when the team that came back does not hold it. The service
+   * answers the same whether or not an address has an account, so the words say no more than that.
+   */
+  readonly notAdded = input<string | null>(null);
   readonly added = output<{ email: string; role: ProjectRole }>();
   readonly removed = output<TeamEntry>();
 
@@ -128,6 +138,28 @@ export class TeamEditor {
   });
   private readonly formDirective = viewChild(FormGroupDirective);
   private readonly engineers = computed(() => this.members().filter((member) => member.role === 'engineer').length);
+  private readonly typed = toSignal(this.form.controls.email.valueChanges, { initialValue: '' });
+  protected readonly notAddedMessage = "No one was added for that address. Check it, or ask an administrator to create the person's account first.";
+  /** Shown while the field still holds that address; typing another one clears it. */
+  protected readonly notAddedShown = computed(() => {
+    const address = this.notAdded();
+    return address !== null && sameAddress(address, this.typed());
+  });
+  /** The address sent last; the field keeps it until the team that comes back holds it. */
+  private submitted: { email: string; role: ProjectRole } | null = null;
+
+  constructor() {
+    effect(() => {
+      const members = this.members();
+      untracked(() => {
+        const submitted = this.submitted;
+        if (!submitted || !members.some((member) => sameAddress(member.email, submitted.email))) return;
+        this.submitted = null;
+        // Reset through the directive too, so the emptied field is not shown as an error of the last submit.
+        this.formDirective()?.resetForm({ email: '', role: submitted.role });
+      });
+    });
+  }
 
   /** A project always keeps an engineer of record. */
   protected removable(member: TeamEntry): boolean {
@@ -140,8 +172,11 @@ export class TeamEditor {
       return;
     }
     const { email, role } = this.form.getRawValue();
-    this.added.emit({ email: email.trim(), role });
-    // Reset through the directive too, so the emptied field is not shown as an error of the last submit.
-    this.formDirective()?.resetForm({ email: '', role });
+    this.submitted = { email: email.trim(), role };
+    this.added.emit(this.submitted);
   }
+}
+
+function sameAddress(a: string, b: string): boolean {
+  return a.trim().toLocaleLowerCase() === b.trim().toLocaleLowerCase();
 }

@@ -63,6 +63,8 @@ export class SpaceImportDialog {
   protected readonly problemCount = computed(() => this.rows().filter((row) => row.problems.length > 0).length);
   protected readonly missingName = computed(() => !this.mapping().includes('name') || !this.mapping().includes('area'));
   protected readonly trackRow = (_index: number, row: ImportRow) => row.line;
+  /** The key of an import whose outcome is unknown (no answer, or a server failure), with the rows it sent. */
+  private unanswered: { key: string; rows: readonly ImportRow[] } | null = null;
 
   constructor() {
     this.dialog.disableClose = true;
@@ -108,10 +110,15 @@ export class SpaceImportDialog {
     this.busy.set(true);
     this.failure.set(null);
     const rows = this.rows();
-    this.api.createSpaces(this.data.projectId, rows.map((row) => row.space)).subscribe({
+    // Pressing Import again after the answer was lost sends the same key: the service then returns
+    // the spaces that import may already have added instead of adding them a second time.
+    const key = this.unanswered?.rows === rows ? this.unanswered.key : crypto.randomUUID();
+    this.unanswered = null;
+    this.api.createSpaces(this.data.projectId, rows.map((row) => row.space), key).subscribe({
       next: (created) => this.dialog.close(created),
       error: (error: unknown) => {
         this.busy.set(false);
+        if (error instanceof ApiError && (error.status === 0 || error.status >= 500)) this.unanswered = { key, rows };
         if (error instanceof ApiError && error.status === 400) {
           this.serverRows.set(attachServerProblems(rows, error.details));
           this.failure.set(`${error.message} Nothing was imported.`);

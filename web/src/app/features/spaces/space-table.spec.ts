@@ -103,7 +103,7 @@ describe('the space table', () => {
     expect(element.querySelector('[role="table"]')?.getAttribute('aria-rowcount')).toBe(String(5000 + 10 + 1));
   });
 
-  it('deletes a space and re-creates it on Undo', async () => {
+  it('deletes a space and brings it back with its id on Undo', async () => {
     const http = TestBed.inject(HttpTestingController);
     element.querySelector<HTMLButtonElement>('button[aria-label="More for Store 102"]')!.click();
     await fixture.whenStable();
@@ -118,11 +118,13 @@ describe('the space table', () => {
     const undo = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-snack-bar-container button')).find((button) => button.textContent?.includes('Undo'))!;
     expect(document.querySelector('.mat-mdc-snack-bar-container')?.textContent).toContain('Space “Store 102” deleted');
     undo.click();
-    const restore = http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/spaces');
-    expect(restore.request.body).toEqual({ name: 'Store 102', level: 'Level 1', area: '100', spaceType: 'storage-room', luminaires: [], controls: [], windows: [], skylights: [] });
-    restore.flush({ ...spaces[2], id: 's4', position: 4 });
+    // The restore route, not a new space: the same id keeps its history and the counts that name it.
+    http.expectNone((request) => request.method === 'POST' && request.url === '/api/projects/p1/spaces');
+    const restore = http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/spaces/s3/restore');
+    restore.flush(spaces[2], { status: 201, statusText: 'Created' });
     await fixture.whenStable();
-    expect(store.spaces().map((kept) => kept.id)).toEqual(['s1', 's2', 's4']);
+    expect(store.spaces().map((kept) => kept.id)).toEqual(['s1', 's2', 's3']);
+    expect(rowText('Store 102')).toContain('Storage Room');
   });
 
   it('shows edit actions to the engineer and none to a reader', async () => {

@@ -67,7 +67,8 @@ export class SpacesPage implements HasUnsavedChanges {
           .open(`Space “${space.name}” deleted`, 'Undo', { duration: 8000 })
           .onAction()
           .subscribe(() =>
-            this.api.createSpace(projectId, spaceInput(space)).subscribe({
+            // Brought back with its id, so its history and the counts that name it carry on.
+            this.api.restoreSpace(projectId, space.id).subscribe({
               next: (restored) => this.store.upsertSpace(restored),
               error: (error: unknown) => this.writeFailure.report(error, () => this.reloadSpaces()),
             }),

@@ -53,8 +53,11 @@ export class ProjectStore {
 
   readonly projectId = computed(() => this.project()?.id ?? null);
   readonly units = computed(() => this.project()?.units ?? 'ip');
-  /** Engineers (and administrators) edit; everyone else reads. The server refuses the rest anyway. */
-  readonly canEdit = computed(() => this.project()?.role === 'engineer' || (this.auth.user()?.isAdmin ?? false));
+  /** Engineers (and administrators) archive a project and bring it back. */
+  readonly canArchive = computed(() => this.project()?.role === 'engineer' || (this.auth.user()?.isAdmin ?? false));
+  readonly archived = computed(() => !!this.project()?.archivedAt);
+  /** The same people edit, unless the project is archived; everyone else reads. The server refuses the rest anyway. */
+  readonly canEdit = computed(() => this.canArchive() && !this.archived());
   readonly spaceTypeByKey = computed(() => new Map((this.tables()?.spaceTypes ?? []).map((type) => [type.key, type])));
   readonly resultBySpace = computed(() => {
     const state = this.results();

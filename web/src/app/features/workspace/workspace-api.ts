@@ -60,8 +60,9 @@ export class WorkspaceApi {
     return this.http.post<SpaceRecord>(`/api/projects/${projectId}/spaces`, space);
   }
 
-  createSpaces(projectId: string, spaces: SpaceInput[]): Observable<SpaceRecord[]> {
-    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, { spaces });
+  /** One import, all or nothing; a retry with the same `importKey` returns the first import's spaces instead of adding them twice. */
+  createSpaces(projectId: string, spaces: SpaceInput[], importKey: string): Observable<SpaceRecord[]> {
+    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, { spaces }, { headers: { 'Idempotency-Key': importKey } });
   }
 
   replaceSpace(projectId: string, spaceId: string, version: number, space: SpaceInput): Observable<SpaceRecord> {
@@ -74,6 +75,11 @@ export class WorkspaceApi {
 
   deleteSpace(projectId: string, spaceId: string, version: number): Observable<void> {
     return this.http.delete<void>(`/api/projects/${projectId}/spaces/${spaceId}`, { params: { version } });
+  }
+
+  /** Brings a deleted space back with its id, values and children. */
+  restoreSpace(projectId: string, spaceId: string): Observable<SpaceRecord> {
+    return this.http.post<SpaceRecord>(`/api/projects/${projectId}/spaces/${spaceId}/restore`, {});
   }
 
   luminaireTypes(projectId: string): Observable<LuminaireTypeRecord[]> {
@@ -92,6 +98,10 @@ export class WorkspaceApi {
     return this.http.delete<void>(`/api/projects/${projectId}/luminaire-types/${typeId}`, { params: { version } });
   }
 
+  restoreLuminaireType(projectId: string, typeId: string): Observable<LuminaireTypeRecord> {
+    return this.http.post<LuminaireTypeRecord>(`/api/projects/${projectId}/luminaire-types/${typeId}/restore`, {});
+  }
+
   exteriorApplications(projectId: string): Observable<ExteriorApplicationRecord[]> {
     return this.http.get<ExteriorApplicationRecord[]>(`/api/projects/${projectId}/exterior-applications`);
   }
@@ -106,6 +116,10 @@ export class WorkspaceApi {
 
   deleteExteriorApplication(projectId: string, applicationId: string, version: number): Observable<void> {
     return this.http.delete<void>(`/api/projects/${projectId}/exterior-applications/${applicationId}`, { params: { version } });
+  }
+
+  restoreExteriorApplication(projectId: string, applicationId: string): Observable<ExteriorApplicationRecord> {
+    return this.http.post<ExteriorApplicationRecord>(`/api/projects/${projectId}/exterior-applications/${applicationId}/restore`, {});
   }
 
   results(projectId: string): Observable<EvaluationResult> {

@@ -1,11 +1,15 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSidenavModule } from '@angular/material/sidenav';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { WriteFailure } from '../../shared/conflict';
+import { ProjectApi } from '../projects/project-api';
 import { stateLabels } from '../projects/project-states';
 import { ProjectStore } from './project-store';
 
@@ -15,7 +19,7 @@ interface WorkspaceArea {
   icon: string;
 }
 
-/** The project's areas, in the order the work goes. Review, Package, Field tests and Team follow. */
+/** The project's areas, in the order the work goes, then its history. Review, Package, Field tests and Team follow. */
 export const workspaceAreas: readonly WorkspaceArea[] = [
   { path: 'setup', label: 'Set-up', icon: 'tune' },
   { path: 'spaces', label: 'Spaces', icon: 'floor_lamp' },
@@ -24,11 +28,12 @@ export const workspaceAreas: readonly WorkspaceArea[] = [
   { path: 'daylight', label: 'Daylight', icon: 'wb_sunny' },
   { path: 'exterior', label: 'Exterior', icon: 'nightlight' },
   { path: 'results', label: 'Results', icon: 'fact_check' },
+  { path: 'history', label: 'History', icon: 'history' },
 ];
 
 @Component({
   selector: 'al-workspace-page',
-  imports: [MatSidenavModule, MatListModule, MatIconModule, MatChipsModule, MatProgressBarModule, MatTooltipModule, RouterLink, RouterLinkActive, RouterOutlet],
+  imports: [MatButtonModule, MatSidenavModule, MatListModule, MatIconModule, MatChipsModule, MatProgressBarModule, MatTooltipModule, RouterLink, RouterLinkActive, RouterOutlet],
   providers: [ProjectStore],
   templateUrl: './workspace-page.html',
   styleUrl: './workspace-page.scss',
@@ -36,7 +41,11 @@ export const workspaceAreas: readonly WorkspaceArea[] = [
 })
 export class WorkspacePage {
   protected readonly store = inject(ProjectStore);
+  private readonly projects = inject(ProjectApi);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly writeFailure = inject(WriteFailure);
   protected readonly areas = workspaceAreas;
+  protected readonly unarchiving = signal(false);
   protected readonly stateLabels = stateLabels;
 
   /** Bound from the route. */
@@ -52,6 +61,23 @@ export class WorkspacePage {
     effect(() => {
       const id = this.projectId();
       this.store.load(id).subscribe();
+    });
+  }
+
+  protected unarchive(): void {
+    const id = this.store.projectId();
+    if (!id) return;
+    this.unarchiving.set(true);
+    this.projects.unarchive(id).subscribe({
+      next: (project) => {
+        this.unarchiving.set(false);
+        this.store.setProject(project);
+        this.snackBar.open(`“${project.name}” is back among the current projects and can be changed again.`, undefined, { duration: 5000 });
+      },
+      error: (error: unknown) => {
+        this.unarchiving.set(false);
+        this.writeFailure.report(error, () => this.store.load(id).subscribe());
+      },
     });
   }
 }
