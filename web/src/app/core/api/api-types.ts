@@ -32,7 +32,7 @@ export interface ProjectSummary {
   version: number;
   updatedAt: string;
   /** The last evaluation's verdict; null until the project is evaluated after its latest change. */
-  resultSummary: { complies: boolean; marginPct: string | null; dataVersion: string } | null;
+  resultSummary: { complies: boolean; verdict?: Verdict; marginPct: string | null; dataVersion: string } | null;
   /** When the project was archived: it can be read but not changed until it is unarchived. */
   archivedAt: string | null;
 }
@@ -346,6 +346,8 @@ export interface SpaceResult {
   withinAllowance: boolean;
   marginW: string;
   marginPct: string | null;
+  /** 'none-entered': no luminaires yet and not confirmed unlit (the verdict waits); 'unlit': confirmed without lighting. */
+  lighting: 'entered' | 'none-entered' | 'unlit';
   rcr: string | null;
   roomGeometryIncreaseApplied: boolean;
   luminaires: { tag: string; use: LuminaireUse; count: string; unitWatts: string; watts: string; basis: string; zone?: DaylightZoneKind; section: string }[];
@@ -396,6 +398,8 @@ export interface ExteriorApplicationResult {
   allowanceW: string;
   installedW: string;
   baseSiteUsedW: string;
+  /** Allowance plus the base site allowance used, less installed. */
+  marginW: string;
   withinAllowance: boolean;
   controls: ControlLine[];
   section: string;
@@ -408,11 +412,14 @@ export interface ExteriorResult {
   allowanceW: string;
   installedW: string;
   complies: boolean;
-  tradable: { allowanceW: string; installedW: string; baseSiteUsedW: string; complies: boolean };
+  tradable: { allowanceW: string; installedW: string; baseSiteUsedW: string; marginW: string; complies: boolean };
   baseSiteRemainingW: string;
   baseSiteCoversNontradable: boolean;
   applications: ExteriorApplicationResult[];
 }
+
+/** 'incomplete' while something the verdict needs is missing, e.g. a space without luminaires. */
+export type Verdict = 'complies' | 'does-not-comply' | 'incomplete';
 
 export interface EvaluationResult {
   edition: EditionId;
@@ -420,6 +427,8 @@ export interface EvaluationResult {
   method: ComplianceMethod;
   units: UnitSystem;
   complies: boolean;
+  verdict: Verdict;
+  openItems: { spacesWithoutLuminaires: number };
   interior: InteriorResult;
   exterior: ExteriorResult | null;
   controlsComply: boolean;

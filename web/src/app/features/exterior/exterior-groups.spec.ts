@@ -13,6 +13,7 @@ function application(overrides: Partial<ExteriorApplicationResult>): ExteriorApp
     allowanceW: '480',
     installedW: '440',
     baseSiteUsedW: '0',
+    marginW: '40',
     withinAllowance: true,
     controls: [],
     section: 'C405.5.2',
@@ -29,11 +30,11 @@ const exterior: ExteriorResult = {
   allowanceW: '1000',
   installedW: '1100',
   complies: false,
-  tradable: { allowanceW: '480', installedW: '560', baseSiteUsedW: '80', complies: true },
+  tradable: { allowanceW: '480', installedW: '560', baseSiteUsedW: '80', marginW: '0', complies: true },
   baseSiteRemainingW: '320',
   baseSiteCoversNontradable: false,
   applications: [
-    application({ installedW: '560', withinAllowance: true }),
+    application({ installedW: '560', marginW: '-80', withinAllowance: true }),
     application({
       key: 'building-facades',
       label: 'Building facades',
@@ -43,6 +44,7 @@ const exterior: ExteriorResult = {
       rate: '0.075',
       allowanceW: '120',
       installedW: '540',
+      marginW: '-420',
       withinAllowance: false,
     }),
   ],
@@ -53,8 +55,9 @@ describe('exterior grouping', () => {
     const groups = exteriorGroups(exterior, []);
     expect(groups.tradable.lines.map((line) => line.result.key)).toEqual(['parking-lots-and-drives']);
     expect(groups.tradable.lines[0].status).toBeNull();
-    expect(groups.tradable.marginW).toBe('-80');
-    expect(groups.tradable.status.label).toBe('Within allowance');
+    // 480 W allowed + 80 W of the base site allowance − 560 W installed: 0 W, and the words agree.
+    expect(groups.tradable.marginW).toBe('0');
+    expect(groups.tradable.status).toMatchObject({ label: 'Within allowance', words: '0 W to spare' });
   });
 
   it('holds each nontradable application to its own allowance', () => {
@@ -69,6 +72,11 @@ describe('exterior grouping', () => {
     expect(groups.total).toMatchObject({ allowanceW: '1000', installedW: '1100', marginW: '-100' });
     expect(groups.total.status).toMatchObject({ label: 'Over allowance', words: '100 W over' });
     expect(groups.baseSite).toEqual({ allowanceW: '400', remainingW: '320', coversNontradable: false });
+  });
+
+  it('says an application is over when the site total has watts to spare but one nontradable line has not', () => {
+    const groups = exteriorGroups({ ...exterior, allowanceW: '1200', installedW: '1100' }, []);
+    expect(groups.total.status).toMatchObject({ label: 'Over allowance', words: 'an application is over its own allowance' });
   });
 
   it('names what a quantity counts from the rate unit', () => {

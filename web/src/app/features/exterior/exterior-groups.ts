@@ -21,34 +21,39 @@ export interface ExteriorGroups {
 /** Display arithmetic only, on the engine's exact strings; nothing computed here is sent back. */
 const minus = (a: string, b: string) => String(Number(a) - Number(b));
 
+/**
+ * The site as a whole: its margin can be positive while one nontradable application is over its
+ * own allowance (which nothing else may cover), so the words say that rather than "0 W over".
+ */
+function siteStatus(complies: boolean, marginW: string): AllowanceStatus {
+  const status = allowanceStatus(complies, marginW);
+  return !complies && Number(marginW) >= 0 ? { ...status, words: 'an application is over its own allowance' } : status;
+}
+
 export function exteriorGroups(exterior: ExteriorResult, records: readonly ExteriorApplicationRecord[]): ExteriorGroups {
   const byKey = new Map(records.map((record) => [record.key, record]));
-  const line = (result: ExteriorApplicationResult): ExteriorLine => {
-    const covered = String(Number(result.allowanceW) + Number(result.baseSiteUsedW) - Number(result.installedW));
-    return {
-      record: byKey.get(result.key) ?? null,
-      result,
-      marginW: minus(result.allowanceW, result.installedW),
-      status: result.tradable ? null : allowanceStatus(result.withinAllowance, covered),
-    };
-  };
+  // The engine's margins count the base site allowance an application or the pool uses, so the
+  // number beside "within allowance" is never negative.
+  const line = (result: ExteriorApplicationResult): ExteriorLine => ({
+    record: byKey.get(result.key) ?? null,
+    result,
+    marginW: result.tradable ? minus(result.allowanceW, result.installedW) : result.marginW,
+    status: result.tradable ? null : allowanceStatus(result.withinAllowance, result.marginW),
+  });
   const tradableLines = exterior.applications.filter((application) => application.tradable).map(line);
-  const poolMargin = minus(exterior.tradable.allowanceW, exterior.tradable.installedW);
-  // The pool is within allowance when the base site allowance covers any excess, so its status margin counts the base used.
-  const poolStatusMargin = String(Number(poolMargin) + Number(exterior.tradable.baseSiteUsedW));
   const totalMargin = minus(exterior.allowanceW, exterior.installedW);
   return {
     tradable: {
       lines: tradableLines,
       allowanceW: exterior.tradable.allowanceW,
       installedW: exterior.tradable.installedW,
-      marginW: poolMargin,
+      marginW: exterior.tradable.marginW,
       baseSiteUsedW: exterior.tradable.baseSiteUsedW,
-      status: allowanceStatus(exterior.tradable.complies, poolStatusMargin),
+      status: allowanceStatus(exterior.tradable.complies, exterior.tradable.marginW),
     },
     nontradable: exterior.applications.filter((application) => !application.tradable).map(line),
     baseSite: { allowanceW: exterior.baseSiteAllowanceW, remainingW: exterior.baseSiteRemainingW, coversNontradable: exterior.baseSiteCoversNontradable },
-    total: { allowanceW: exterior.allowanceW, installedW: exterior.installedW, marginW: totalMargin, status: allowanceStatus(exterior.complies, totalMargin) },
+    total: { allowanceW: exterior.allowanceW, installedW: exterior.installedW, marginW: totalMargin, status: siteStatus(exterior.complies, totalMargin) },
   };
 }
 

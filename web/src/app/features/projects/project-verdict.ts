@@ -8,5 +8,5 @@ export type ProjectVerdict =
   | { status: 'incomplete' };
 
 export function verdictOf(result: EvaluationResult): ProjectVerdict {
-  return { status: result.complies ? 'complies' : 'does-not-comply', marginPct: result.interior.marginPct };
+  return result.verdict === 'incomplete' ? { status: 'incomplete' } : { status: result.verdict, marginPct: result.interior.marginPct };
 }

@@ -49,8 +49,8 @@ describe('ProjectsPage', () => {
     expect(element.textContent).toContain('In review');
     const pending = http.match((request) => request.url.endsWith('/results'));
     expect(pending.length).toBe(3);
-    pending.find((request) => request.request.url.includes('p1'))!.flush({ complies: true, interior: { marginPct: '12.345' } });
-    pending.find((request) => request.request.url.includes('p2'))!.flush({ complies: false, interior: { marginPct: '-4.2' } });
+    pending.find((request) => request.request.url.includes('p1'))!.flush({ complies: true, verdict: 'complies', interior: { marginPct: '12.345' } });
+    pending.find((request) => request.request.url.includes('p2'))!.flush({ complies: false, verdict: 'does-not-comply', interior: { marginPct: '-4.2' } });
     pending
       .find((request) => request.request.url.includes('p3'))!
       .flush({ error: { code: 'validation_failed', message: 'At least one space is needed.' } }, { status: 400, statusText: 'Bad Request' });
@@ -74,7 +74,7 @@ describe('ProjectsPage', () => {
   });
 
   it('sorts by a column header and filters by text', async () => {
-    http.match(() => true).forEach((request) => request.flush({ complies: true, interior: { marginPct: '1' } }));
+    http.match(() => true).forEach((request) => request.flush({ complies: true, verdict: 'complies', interior: { marginPct: '1' } }));
     const nameHeader = Array.from(element.querySelectorAll<HTMLElement>('th')).find((th) => th.textContent?.includes('Project'))!;
     nameHeader.querySelector<HTMLElement>('.mat-sort-header-container')!.click();
     await fixture.whenStable();
@@ -93,7 +93,7 @@ describe('ProjectsPage', () => {
   });
 
   it('archives a project the user engineers after a confirm dialog, and lists archived projects with Unarchive', async () => {
-    http.match((request) => request.url.endsWith('/results')).forEach((request) => request.flush({ complies: true, interior: { marginPct: '1' } }));
+    http.match((request) => request.url.endsWith('/results')).forEach((request) => request.flush({ complies: true, verdict: 'complies', interior: { marginPct: '1' } }));
     await fixture.whenStable();
     // A reviewer on the project may not archive it.
     expect(element.querySelector('button[aria-label="Archive Alder Bay Library"]')).toBeNull();

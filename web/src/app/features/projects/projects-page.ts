@@ -190,7 +190,7 @@ export class ProjectsPage {
     const kept = new Map<string, ProjectVerdict>();
     for (const project of projects) {
       const summary = project.resultSummary;
-      if (summary) kept.set(project.id, { status: summary.complies ? 'complies' : 'does-not-comply', marginPct: summary.marginPct });
+      if (summary) kept.set(project.id, summary.verdict === 'incomplete' ? { status: 'incomplete' } : { status: summary.complies ? 'complies' : 'does-not-comply', marginPct: summary.marginPct });
     }
     this.verdicts.set(kept);
     from(projects.filter((project) => project.edition && !project.resultSummary))

@@ -28,6 +28,7 @@ export function spaceResult(overrides: Partial<SpaceResult>): SpaceResult {
     allowanceW: '1000',
     additionalAllowanceW: '0',
     installedW: '800',
+    lighting: 'entered',
     generalW: '800',
     decorativeW: '0',
     displayW: '0',
@@ -71,6 +72,8 @@ export function evaluation(): EvaluationResult {
     method: 'space-by-space',
     units: 'ip',
     complies: false,
+    verdict: 'does-not-comply',
+    openItems: { spacesWithoutLuminaires: 0 },
     interior: {
       section: 'C405.3.2.2',
       area: '1500',

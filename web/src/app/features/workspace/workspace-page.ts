@@ -53,7 +53,7 @@ export class WorkspacePage {
 
   protected readonly verdict = computed(() => {
     const state = this.store.results();
-    if (state.status === 'ready') return state.result.complies ? 'complies' : 'does-not-comply';
+    if (state.status === 'ready') return state.result.verdict;
     return state.status;
   });
 
