@@ -44,7 +44,26 @@ export interface ProjectMember {
   role: ProjectRole;
 }
 
-export interface ProjectDetail extends ProjectSummary {
+export type ProjectScope = 'new-building' | 'addition' | 'alteration' | 'tenant-improvement';
+
+/** What a permit office asks for beside the design; null where not entered. */
+export interface PermitFields {
+  permitNumber: string | null;
+  owner: string | null;
+  occupancy: string | null;
+  scope: ProjectScope | null;
+  /** Gross floor area of the building, ft² or m² as the project's units say. */
+  grossFloorArea: string | null;
+  designerName: string | null;
+  designerFirm: string | null;
+  designerLicence: string | null;
+  contractorName: string | null;
+  contractorFirm: string | null;
+  contractorLicence: string | null;
+  contractorContact: string | null;
+}
+
+export interface ProjectDetail extends ProjectSummary, PermitFields {
   address: string | null;
   latitude: string | null;
   longitude: string | null;
@@ -69,6 +88,9 @@ export interface ProjectSetup {
   lightingZone?: number | null;
 }
 
+/** A set-up write may carry any of the permit fields as well. */
+export type ProjectSetupWrite = ProjectSetup & Partial<PermitFields>;
+
 export interface LuminaireTypeInput {
   tag: string;
   description: string;
@@ -79,6 +101,12 @@ export interface LuminaireTypeInput {
   length?: string;
   limitWatts?: string;
   wattageSource?: string;
+  /** Catalogue fields: kept with the type and printed in the package, not used by the calculation. */
+  manufacturer?: string;
+  catalogNumber?: string;
+  lightSource?: string;
+  driver?: string;
+  voltage?: string;
 }
 
 export interface LuminaireTypeRecord extends LuminaireTypeInput, Stamp {
@@ -130,6 +158,8 @@ export interface SpaceInput {
   luminaireHeight?: string;
   workPlaneHeight?: string;
   enclosed?: boolean;
+  /** The engineer confirms the space has no lighting; until then a space without luminaires holds the verdict back. */
+  unlit?: boolean;
   luminaires: LuminaireGroup[];
   controls: ProvidedControl[];
   windows: WindowOpening[];
@@ -434,4 +464,20 @@ export interface EvaluationResult {
   controlsComply: boolean;
   unverifiedValues: UnverifiedValue[];
   cautions: string[];
+}
+
+/** A sales-floor space's claim on one of the edition's additional allowances. */
+export interface AllowanceClaim extends Stamp {
+  id: string;
+  spaceId: string;
+  allowance: string;
+  /** ft² or m² as the project's units say; at most the space's area. */
+  area: string;
+}
+
+/** A name a spreadsheet used for a type, and the type the engineer matched it to (remembered per project). */
+export interface ImportAlias {
+  name: string;
+  spaceType: string | null;
+  buildingAreaType: string | null;
 }
