@@ -1,23 +1,36 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, type Signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { ReactiveFormsModule } from '@angular/forms';
+import { ReactiveFormsModule, type AbstractControl } from '@angular/forms';
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
-import { MatFormFieldModule } from '@angular/material/form-field';
+import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldModule, type MatFormFieldDefaultOptions } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
-import type { LightingZoneView } from '../../core/api/api-types';
+import type { LightingZoneView, ProjectScope, UnitSystem } from '../../core/api/api-types';
+import { unitLabels } from '../../shared/format';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { WorkspaceApi } from '../workspace/workspace-api';
+import { coordinateExamples, coordinateInWords, parseCoordinate, siteWarnings, type Axis } from './coordinates';
 import { errorMessage, type SetupForm } from './setup-form';
+import { isTimeZone, searchTimeZones, timeZoneLabel } from './time-zones';
 
-export type SetupSection = 'identity' | 'site' | 'code' | 'exterior';
-
-const allTimeZones: readonly string[] = typeof Intl.supportedValuesOf === 'function' ? Intl.supportedValuesOf('timeZone') : ['UTC'];
+export type SetupSection = 'identity' | 'site' | 'code' | 'building' | 'exterior' | 'people';
 
 export const methodLabels = { 'space-by-space': 'Space-by-space method', 'building-area': 'Building area method' } as const;
+
+export const scopeLabels: Record<ProjectScope, string> = {
+  'new-building': 'New building',
+  addition: 'Addition',
+  alteration: 'Alteration',
+  'tenant-improvement': 'Tenant improvement',
+};
+
+/** A control's value as a signal, following the form input when it is replaced. */
+function valueOf<T>(form: Signal<SetupForm>, pick: (form: SetupForm) => AbstractControl<T>, initialValue: T): Signal<T> {
+  return toSignal(toObservable(form).pipe(switchMap((current) => pick(current).valueChanges.pipe(startWith(pick(current).value)))), { initialValue });
+}
 
 /** One section of the project set-up fields; the wizard shows one per step, the set-up page all. */
 @Component({
@@ -25,25 +38,28 @@ export const methodLabels = { 'space-by-space': 'Space-by-space method', 'buildi
   imports: [ReactiveFormsModule, MatAutocompleteModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, MatSelectModule, VerifyBadge],
   templateUrl: './setup-fields.html',
   styleUrl: './setup-fields.scss',
+  // Hints and messages take the lines they need, so a long one never runs under the next field.
+  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } satisfies MatFormFieldDefaultOptions }],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SetupFields {
   private readonly api = inject(WorkspaceApi);
   readonly form = input.required<SetupForm>();
   readonly section = input.required<SetupSection>();
-  /** Units are fixed once spaces exist (the service refuses the change). */
   /** The project already holds lengths and areas, which a change of units converts. */
   readonly convertsData = input(false);
+  /** The spaces' floor areas added up, in words, beside the gross floor area. */
+  readonly spacesArea = input<string | null>(null);
 
   protected readonly methodLabels = methodLabels;
   protected readonly errorMessage = errorMessage;
 
   protected readonly editions = toSignal(this.api.editions().pipe(catchError(() => of([]))), { initialValue: [] });
 
-  private readonly edition = toSignal(
-    toObservable(this.form).pipe(switchMap((form) => form.controls.code.controls.edition.valueChanges.pipe(startWith(form.controls.code.controls.edition.value)))),
-    { initialValue: '' },
-  );
+  private readonly edition = valueOf(this.form, (form) => form.controls.code.controls.edition, '');
+  private readonly units = valueOf<UnitSystem>(this.form, (form) => form.controls.code.controls.units, 'ip');
+  protected readonly areaUnit = computed(() => unitLabels(this.units()).area);
+  protected readonly scopes = Object.entries(scopeLabels).map(([value, label]) => ({ value: value as ProjectScope, label }));
 
   protected readonly methods = computed(() => {
     const edition = this.editions().find((candidate) => candidate.id === this.edition());
@@ -65,16 +81,36 @@ export class SetupFields {
     { initialValue: { status: 'no-edition' as const } },
   );
 
-  private readonly timeZoneQuery = toSignal(
-    toObservable(this.form).pipe(switchMap((form) => form.controls.site.controls.timeZone.valueChanges.pipe(startWith(form.controls.site.controls.timeZone.value)))),
-    { initialValue: '' },
-  );
+  private readonly timeZone = valueOf(this.form, (form) => form.controls.site.controls.timeZone, '');
+  private readonly latitude = valueOf(this.form, (form) => form.controls.site.controls.latitude, '');
+  private readonly longitude = valueOf(this.form, (form) => form.controls.site.controls.longitude, '');
 
-  protected readonly timeZones = computed(() => {
-    const query = this.timeZoneQuery().trim().toLocaleLowerCase().replace(/\s+/g, '_');
-    const matches = query === '' ? allTimeZones : allTimeZones.filter((zone) => zone.toLocaleLowerCase().includes(query));
-    return matches.slice(0, 50);
+  protected readonly timeZones = computed(() => searchTimeZones(this.timeZone()));
+  protected readonly zoneLabel = timeZoneLabel;
+
+  /** Each coordinate read back in words, so a converted or flipped value shows before it is saved. */
+  protected readonly reading = computed(() => ({ latitude: this.read(this.latitude(), 'latitude'), longitude: this.read(this.longitude(), 'longitude') }));
+
+  protected readonly siteWarnings = computed(() => {
+    const latitude = parseCoordinate(this.latitude(), 'latitude');
+    const longitude = parseCoordinate(this.longitude(), 'longitude');
+    const zone = this.timeZone().trim();
+    return siteWarnings(latitude.kind === 'ok' ? latitude.decimal : null, longitude.kind === 'ok' ? longitude.decimal : null, zone !== '' && isTimeZone(zone) ? zone : null);
   });
+
+  private read(raw: string, axis: Axis): string {
+    const parsed = parseCoordinate(raw, axis);
+    if (parsed.kind !== 'ok') return `Decimal degrees or degrees, minutes and seconds: ${coordinateExamples[axis]}`;
+    const words = coordinateInWords(parsed.decimal, axis);
+    return parsed.converted ? `${words}: saved as ${parsed.decimal.replace(/^-/, '−')}` : words;
+  }
+
+  /** A coordinate typed in degrees and minutes becomes the decimal the project keeps, once the field is left. */
+  protected settle(axis: Axis): void {
+    const control = this.form().controls.site.controls[axis];
+    const parsed = parseCoordinate(control.value, axis);
+    if (parsed.kind === 'ok' && parsed.converted) control.setValue(parsed.decimal);
+  }
 
   protected zoneNumber(zone: LightingZoneView): number {
     return Number(zone.zone);

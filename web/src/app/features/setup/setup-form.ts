@@ -1,41 +1,49 @@
 import { FormControl, FormGroup, Validators, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
-import type { ComplianceMethod, EditionId, ProjectDetail, ProjectSetup, UnitSystem } from '../../core/api/api-types';
+import type { ComplianceMethod, EditionId, ProjectDetail, ProjectScope, ProjectSetupWrite, UnitSystem } from '../../core/api/api-types';
 import type { ApiErrorDetail } from '../../core/http/api-error';
 import { placeServerErrors } from '../../shared/conflict';
+import { quantityProblem } from '../spaces/space-form';
+import { parseCoordinate, type Axis } from './coordinates';
+import { isTimeZone } from './time-zones';
 
-/** The same ranges the service checks (projects.schema.ts): a plain decimal between the bounds. */
-export function decimalBetween(min: number, max: number, what: string): ValidatorFn {
+/** A latitude or longitude in any of the ways parseCoordinate reads, within its range. */
+export function coordinateValidator(axis: Axis): ValidatorFn {
   return (control: AbstractControl<string>): ValidationErrors | null => {
-    const raw = (control.value ?? '').trim();
-    if (raw === '') return null;
-    const parsed = Number(raw);
-    return /^[+-]?\d+(\.\d+)?$/.test(raw) && parsed >= min && parsed <= max ? null : { range: `${what} must be a decimal number from ${min} to ${max}.` };
+    const parsed = parseCoordinate(control.value ?? '', axis);
+    return parsed.kind === 'invalid' ? { coordinate: parsed.message } : null;
   };
-}
-
-export function isTimeZone(zone: string): boolean {
-  try {
-    new Intl.DateTimeFormat('en-US', { timeZone: zone });
-    return true;
-  } catch {
-    return false;
-  }
 }
 
 export const timeZoneValidator: ValidatorFn = (control: AbstractControl<string>) => {
   const zone = (control.value ?? '').trim();
-  return zone === '' || isTimeZone(zone) ? null : { timeZone: 'Use an IANA time zone such as America/Los_Angeles.' };
+  return zone === '' || isTimeZone(zone) ? null : { timeZone: 'Choose a time zone from the list: type a city, a region or a name such as Pacific.' };
 };
+
+/** The service's range for floor areas (compliance/bounds.ts), in its words. */
+const grossAreaLimit = 5_000_000;
+const grossAreaRange = 'Enter a number greater than 0 and at most 5,000,000.';
+
+export const grossAreaValidator: ValidatorFn = (control: AbstractControl<string>) => {
+  const raw = (control.value ?? '').trim();
+  if (raw === '') return null;
+  const problem = quantityProblem(raw, 'positive');
+  if (problem) return { range: `${problem} ${grossAreaRange}` };
+  return Number(raw) > grossAreaLimit ? { range: `Out of range. ${grossAreaRange}` } : null;
+};
+
+const text = (max: number) => new FormControl('', { nonNullable: true, validators: [Validators.maxLength(max)] });
 
 export function setupForm() {
   return new FormGroup({
     identity: new FormGroup({
       name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
-      address: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(500)] }),
+      address: text(500),
+      permitNumber: text(100),
+      owner: text(200),
     }),
     site: new FormGroup({
-      latitude: new FormControl('', { nonNullable: true, validators: [decimalBetween(-90, 90, 'Latitude')] }),
-      longitude: new FormControl('', { nonNullable: true, validators: [decimalBetween(-180, 180, 'Longitude')] }),
+      latitude: new FormControl('', { nonNullable: true, validators: [coordinateValidator('latitude')] }),
+      longitude: new FormControl('', { nonNullable: true, validators: [coordinateValidator('longitude')] }),
       timeZone: new FormControl('', { nonNullable: true, validators: [timeZoneValidator] }),
     }),
     code: new FormGroup({
@@ -44,8 +52,22 @@ export function setupForm() {
       method: new FormControl<ComplianceMethod>('space-by-space', { nonNullable: true, validators: [Validators.required] }),
       units: new FormControl<UnitSystem>('ip', { nonNullable: true, validators: [Validators.required] }),
     }),
+    building: new FormGroup({
+      occupancy: text(200),
+      scope: new FormControl<ProjectScope | null>(null),
+      grossFloorArea: new FormControl('', { nonNullable: true, validators: [grossAreaValidator] }),
+    }),
     exterior: new FormGroup({
       lightingZone: new FormControl<number | null>(null),
+    }),
+    people: new FormGroup({
+      designerName: text(200),
+      designerFirm: text(200),
+      designerLicence: text(100),
+      contractorName: text(200),
+      contractorFirm: text(200),
+      contractorLicence: text(100),
+      contractorContact: text(200),
     }),
   });
 }
@@ -56,6 +78,8 @@ export type SetupForm = ReturnType<typeof setupForm>;
 const fieldGroups: Record<string, keyof SetupForm['controls']> = {
   name: 'identity',
   address: 'identity',
+  permitNumber: 'identity',
+  owner: 'identity',
   latitude: 'site',
   longitude: 'site',
   timeZone: 'site',
@@ -64,6 +88,16 @@ const fieldGroups: Record<string, keyof SetupForm['controls']> = {
   method: 'code',
   units: 'code',
   lightingZone: 'exterior',
+  occupancy: 'building',
+  scope: 'building',
+  grossFloorArea: 'building',
+  designerName: 'people',
+  designerFirm: 'people',
+  designerLicence: 'people',
+  contractorName: 'people',
+  contractorFirm: 'people',
+  contractorLicence: 'people',
+  contractorContact: 'people',
 };
 
 function blankToNull(value: string): string | null {
@@ -71,28 +105,56 @@ function blankToNull(value: string): string | null {
   return trimmed === '' ? null : trimmed;
 }
 
-export function setupValue(form: SetupForm): ProjectSetup {
-  const { identity, site, code, exterior } = form.getRawValue();
+/** A coordinate as the service stores it: decimal degrees, converted from degrees and minutes where typed so. */
+function coordinate(raw: string, axis: Axis): string | null {
+  const parsed = parseCoordinate(raw, axis);
+  return parsed.kind === 'ok' ? parsed.decimal : blankToNull(raw);
+}
+
+export function setupValue(form: SetupForm): ProjectSetupWrite {
+  const { identity, site, code, building, exterior, people } = form.getRawValue();
   return {
     name: identity.name.trim(),
     address: blankToNull(identity.address),
-    latitude: blankToNull(site.latitude),
-    longitude: blankToNull(site.longitude),
+    permitNumber: blankToNull(identity.permitNumber),
+    owner: blankToNull(identity.owner),
+    latitude: coordinate(site.latitude, 'latitude'),
+    longitude: coordinate(site.longitude, 'longitude'),
     timeZone: blankToNull(site.timeZone),
     jurisdiction: blankToNull(code.jurisdiction),
     edition: code.edition as EditionId,
     method: code.method,
     units: code.units,
+    occupancy: blankToNull(building.occupancy),
+    scope: building.scope,
+    grossFloorArea: blankToNull(building.grossFloorArea),
     lightingZone: exterior.lightingZone,
+    designerName: blankToNull(people.designerName),
+    designerFirm: blankToNull(people.designerFirm),
+    designerLicence: blankToNull(people.designerLicence),
+    contractorName: blankToNull(people.contractorName),
+    contractorFirm: blankToNull(people.contractorFirm),
+    contractorLicence: blankToNull(people.contractorLicence),
+    contractorContact: blankToNull(people.contractorContact),
   };
 }
 
 export function fillSetup(form: SetupForm, project: ProjectDetail): void {
   form.reset({
-    identity: { name: project.name, address: project.address ?? '' },
+    identity: { name: project.name, address: project.address ?? '', permitNumber: project.permitNumber ?? '', owner: project.owner ?? '' },
     site: { latitude: project.latitude ?? '', longitude: project.longitude ?? '', timeZone: project.timeZone ?? '' },
     code: { jurisdiction: project.jurisdiction ?? '', edition: project.edition ?? '', method: project.method ?? 'space-by-space', units: project.units },
+    building: { occupancy: project.occupancy ?? '', scope: project.scope, grossFloorArea: project.grossFloorArea ?? '' },
     exterior: { lightingZone: project.lightingZone },
+    people: {
+      designerName: project.designerName ?? '',
+      designerFirm: project.designerFirm ?? '',
+      designerLicence: project.designerLicence ?? '',
+      contractorName: project.contractorName ?? '',
+      contractorFirm: project.contractorFirm ?? '',
+      contractorLicence: project.contractorLicence ?? '',
+      contractorContact: project.contractorContact ?? '',
+    },
   });
 }
 

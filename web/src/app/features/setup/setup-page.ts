@@ -6,6 +6,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { ProjectMember, ProjectRole } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
 import { WriteFailure } from '../../shared/conflict';
+import { formatArea } from '../../shared/format';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
@@ -29,6 +30,10 @@ export class SetupPage implements HasUnsavedChanges {
   protected readonly saving = signal(false);
   protected readonly failure = signal<string | null>(null);
   protected readonly hasDesignData = computed(() => this.store.spaces().length > 0 || this.store.exterior().length > 0);
+  protected readonly spacesArea = computed(() => {
+    const spaces = this.store.spaces();
+    return spaces.length ? formatArea(String(spaces.reduce((sum, space) => sum + Number(space.area), 0)), this.store.units()) : null;
+  });
   protected readonly teamBusy = signal(false);
   protected readonly teamError = signal<string | null>(null);
   /** The address of the last addition when the team that came back does not hold it. */

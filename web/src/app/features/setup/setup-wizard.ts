@@ -12,7 +12,7 @@ import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { WorkspaceApi } from '../workspace/workspace-api';
-import { SetupFields } from './setup-fields';
+import { SetupFields, type SetupSection } from './setup-fields';
 import { TeamEditor, type TeamEntry } from './team-editor';
 import { setupForm, setupValue, showServerErrors } from './setup-form';
 
@@ -49,6 +49,23 @@ export class SetupWizard implements HasUnsavedChanges {
 
   protected uninvite(entry: TeamEntry): void {
     this.invited.update((list) => list.filter((other) => other.email !== entry.email));
+  }
+
+  protected readonly steps: readonly { section: SetupSection; label: string }[] = [
+    { section: 'identity', label: 'Project and permit' },
+    { section: 'site', label: 'Location' },
+    { section: 'code', label: 'Jurisdiction, edition, method and units' },
+    { section: 'building', label: 'Building' },
+    { section: 'exterior', label: 'Exterior lighting zone' },
+    { section: 'people', label: 'Designer of record and contractor' },
+  ];
+
+  /**
+   * A linear stepper stays on a step with a missing or wrong value but only marks the step; touching
+   * its fields puts each message beside its field, where the person looks.
+   */
+  protected showProblems(section: SetupSection): void {
+    this.form.controls[section].markAllAsTouched();
   }
 
   hasUnsavedChanges(): boolean {

@@ -15,7 +15,7 @@ import type {
   ProjectDetail,
   ProjectMember,
   ProjectRole,
-  ProjectSetup,
+  ProjectSetupWrite,
   SpaceInput,
   SpaceRecord,
   SpaceTypeView,
@@ -31,11 +31,11 @@ export class WorkspaceApi {
     return this.http.get<ProjectDetail>(`/api/projects/${projectId}`);
   }
 
-  createProject(setup: ProjectSetup): Observable<ProjectDetail> {
+  createProject(setup: ProjectSetupWrite): Observable<ProjectDetail> {
     return this.http.post<ProjectDetail>('/api/projects', setup);
   }
 
-  updateSetup(projectId: string, version: number, changes: Partial<ProjectSetup>): Observable<ProjectDetail> {
+  updateSetup(projectId: string, version: number, changes: Partial<ProjectSetupWrite>): Observable<ProjectDetail> {
     return this.http.patch<ProjectDetail>(`/api/projects/${projectId}`, { ...changes, version });
   }
 
