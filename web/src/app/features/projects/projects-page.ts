@@ -21,9 +21,11 @@ import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import { ConfirmDialog, type ConfirmDialogData } from '../../shared/confirm-dialog';
 import { formatPercent } from '../../shared/format';
+import { openCopyDialog } from './copy-project-dialog';
 import { ProjectApi } from './project-api';
 import { stateLabels } from './project-states';
 import { verdictOf, type ProjectVerdict } from './project-verdict';
+import { CardRows } from '../../shared/card-rows';
 
 type ListState = { status: 'loading' } | { status: 'ready'; projects: ProjectSummary[] } | { status: 'failed'; message: string };
 
@@ -38,7 +40,7 @@ const verdictConcurrency = 3;
 
 @Component({
   selector: 'al-projects-page',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatProgressBarModule, MatSlideToggleModule, MatSortModule, MatTableModule, MatTooltipModule],
+  imports: [CardRows, DatePipe, RouterLink, MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatProgressBarModule, MatSlideToggleModule, MatSortModule, MatTableModule, MatTooltipModule],
   templateUrl: './projects-page.html',
   styleUrl: './projects-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -132,6 +134,12 @@ export class ProjectsPage {
       .subscribe((confirmed) => {
         if (confirmed) this.setArchived(project, true);
       });
+  }
+
+  protected copy(project: ProjectSummary): void {
+    openCopyDialog(this.dialogs, project).subscribe((copy) => {
+      if (copy) void this.router.navigate(['/projects', copy.id]);
+    });
   }
 
   protected unarchive(project: ProjectSummary): void {

@@ -1,14 +1,21 @@
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatDialog } from '@angular/material/dialog';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatToolbarModule } from '@angular/material/toolbar';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { filter, map, startWith } from 'rxjs';
 import { WriteFailure } from '../../shared/conflict';
+import { narrowScreen, phoneScreen, screenMatches } from '../../shared/media-queries';
+import { openCopyDialog } from '../projects/copy-project-dialog';
 import { ProjectApi } from '../projects/project-api';
 import { stateLabels } from '../projects/project-states';
 import { ProjectStore } from './project-store';
@@ -33,7 +40,7 @@ export const workspaceAreas: readonly WorkspaceArea[] = [
 
 @Component({
   selector: 'al-workspace-page',
-  imports: [MatButtonModule, MatSidenavModule, MatListModule, MatIconModule, MatChipsModule, MatProgressBarModule, MatTooltipModule, RouterLink, RouterLinkActive, RouterOutlet],
+  imports: [NgTemplateOutlet, MatButtonModule, MatSidenavModule, MatListModule, MatIconModule, MatChipsModule, MatProgressBarModule, MatToolbarModule, MatTooltipModule, RouterLink, RouterLinkActive, RouterOutlet],
   providers: [ProjectStore],
   templateUrl: './workspace-page.html',
   styleUrl: './workspace-page.scss',
@@ -44,7 +51,26 @@ export class WorkspacePage {
   private readonly projects = inject(ProjectApi);
   private readonly snackBar = inject(MatSnackBar);
   private readonly writeFailure = inject(WriteFailure);
+  private readonly dialogs = inject(MatDialog);
+  private readonly router = inject(Router);
   protected readonly areas = workspaceAreas;
+  protected readonly narrow = screenMatches(narrowScreen);
+  /** The shell's top bar is 56 px high on a phone and 64 px elsewhere (Material's toolbar heights); the opened navigation starts below it. */
+  private readonly phone = screenMatches(phoneScreen);
+  protected readonly topBarHeight = computed(() => (this.phone() ? 56 : 64));
+  private readonly url = toSignal(
+    this.router.events.pipe(
+      filter((event) => event instanceof NavigationEnd),
+      map(() => this.router.url),
+      startWith(this.router.url),
+    ),
+    { initialValue: this.router.url },
+  );
+  /** The area on screen, named in the bar that replaces the navigation on a narrow screen. */
+  protected readonly currentArea = computed(() => {
+    const path = this.url().split(/[?#]/)[0]!.split('/').at(-1);
+    return this.areas.find((area) => area.path === path) ?? null;
+  });
   protected readonly unarchiving = signal(false);
   protected readonly stateLabels = stateLabels;
 
@@ -61,6 +87,14 @@ export class WorkspacePage {
     effect(() => {
       const id = this.projectId();
       this.store.load(id).subscribe();
+    });
+  }
+
+  protected copy(): void {
+    const project = this.store.project();
+    if (!project) return;
+    openCopyDialog(this.dialogs, project).subscribe((copy) => {
+      if (copy) void this.router.navigate(['/projects', copy.id]);
     });
   }
 
