@@ -130,10 +130,10 @@ describe('the project history', { timeout: 60_000 }, () => {
 
     // An address the team does not take: the service does not say why, and the page says no more.
     await page.goto(`${scratchUrl}/setup`);
-    await page.getByLabel('E-mail of a person with an account').fill('nobody@alderbay.example');
+    await page.getByLabel('E-mail address', { exact: true }).fill('nobody@alderbay.example');
     await page.getByRole('button', { name: 'Add to the team' }).click();
     await page.getByText("No one was added for that address. Check it, or ask an administrator to create the person's account first.").waitFor();
-    expect(await page.getByLabel('E-mail of a person with an account').inputValue()).toBe('nobody@alderbay.example');
+    expect(await page.getByLabel('E-mail address', { exact: true }).inputValue()).toBe('nobody@alderbay.example');
     await browser.screenshot('team-not-added');
 
     await page.goto(served.baseUrl);

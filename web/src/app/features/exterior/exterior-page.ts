@@ -19,11 +19,12 @@ import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { ExteriorApplicationForm, exteriorControls } from './exterior-application-form';
 import { exteriorGroups, quantityUnit } from './exterior-groups';
+import { CardRows } from '../../shared/card-rows';
 
 /** The site's lighting zone, its lighted applications, and the exterior allowance: tradable pooled, nontradable each alone. */
 @Component({
   selector: 'al-exterior-page',
-  imports: [NgTemplateOutlet, FormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, MatTooltipModule, CautionsBanner, VerifyBadge, ExteriorApplicationForm],
+  imports: [CardRows, NgTemplateOutlet, FormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, MatTooltipModule, CautionsBanner, VerifyBadge, ExteriorApplicationForm],
   templateUrl: './exterior-page.html',
   styleUrl: './exterior-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

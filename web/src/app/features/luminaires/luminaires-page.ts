@@ -19,6 +19,7 @@ import { groupsOf, withCount } from './luminaire-counts';
 import { LuminaireTypeEditor, type LuminaireTypeEditorData } from './luminaire-type-editor';
 import { basisLabels, useLabels } from './luminaire-type-form';
 import { SpaceCounts } from './space-counts';
+import { CardRows } from '../../shared/card-rows';
 
 interface CountWrite {
   spaceId: string;
@@ -27,7 +28,7 @@ interface CountWrite {
 
 @Component({
   selector: 'al-luminaires-page',
-  imports: [MatButtonModule, MatIconModule, MatTableModule, MatTabsModule, MatTooltipModule, CountGrid, SpaceCounts],
+  imports: [CardRows, MatButtonModule, MatIconModule, MatTableModule, MatTabsModule, MatTooltipModule, CountGrid, SpaceCounts],
   templateUrl: './luminaires-page.html',
   styleUrl: './luminaires-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

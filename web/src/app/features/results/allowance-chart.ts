@@ -4,6 +4,7 @@ import type { ChartConfiguration, ChartData } from 'chart.js';
 import { BaseChartDirective, provideCharts, withDefaultRegisterables } from 'ng2-charts';
 import type { EvaluationResult } from '../../core/api/api-types';
 import { allowanceStatus } from '../../shared/allowance-status';
+import { phoneScreen, screenMatches } from '../../shared/media-queries';
 
 export type ChartGrouping = 'space' | 'level';
 
@@ -101,17 +102,26 @@ export class AllowanceChart {
       ? `Every ${what} is within its allowance.`
       : `${over.length} ${what}${over.length === 1 ? ' is' : 's are'} over allowance: ${over.map((bar) => `${bar.label} (${bar.words})`).join('; ')}.`;
   });
+  /** On a phone the chart is too narrow for long space names beside the bars, or for every tick of the watts. */
+  private readonly phone = screenMatches(phoneScreen);
   protected readonly options = computed<ChartConfiguration<'bar', number[], string>['options']>(() => {
     const palette = this.palette();
     const bars = this.bars();
+    const phone = this.phone();
+    const longest = phone ? 20 : 60;
+    const label = (index: number) => {
+      const text = bars[index]?.label ?? '';
+      return text.length > longest ? `${text.slice(0, longest - 1).trimEnd()}…` : text;
+    };
     return {
       indexAxis: 'y',
       responsive: true,
       maintainAspectRatio: false,
       animation: false,
       scales: {
-        x: { title: { display: true, text: 'Watts (W)', color: palette.text }, ticks: { color: palette.text }, grid: { color: palette.grid } },
-        y: { ticks: { color: palette.text, autoSkip: false }, grid: { display: false } },
+        x: { title: { display: true, text: 'Watts (W)', color: palette.text }, ticks: { color: palette.text, maxTicksLimit: phone ? 4 : 11 }, grid: { color: palette.grid } },
+        // The full name is in the tooltip and in the table below.
+        y: { ticks: { color: palette.text, autoSkip: false, callback: (_value, index) => label(index) }, grid: { display: false } },
       },
       plugins: {
         legend: { position: 'top', labels: { color: palette.text } },

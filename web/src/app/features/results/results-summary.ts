@@ -7,6 +7,7 @@ import { areaFigure, wattsFigure } from '../../shared/figures';
 import { formatArea, formatPercent, formatWatts } from '../../shared/format';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { outstandingLines, requirementWords, statusView } from '../controls/control-status';
+import { CardRows } from '../../shared/card-rows';
 
 export interface UnmetLine {
   spaceId: string;
@@ -26,7 +27,7 @@ export function unmetControls(result: EvaluationResult): UnmetLine[] {
  */
 @Component({
   selector: 'al-results-summary',
-  imports: [MatIconModule, RouterLink, VerifyBadge],
+  imports: [CardRows, MatIconModule, RouterLink, VerifyBadge],
   templateUrl: './results-summary.html',
   styleUrl: './results-summary.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

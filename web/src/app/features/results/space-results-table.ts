@@ -11,6 +11,7 @@ import { allowanceStatus, type AllowanceStatus } from '../../shared/allowance-st
 import { areaFigure, densityFigure, percentFigure, wattsFigure } from '../../shared/figures';
 import { unitLabels } from '../../shared/format';
 import { VerifyBadge } from '../../shared/verify-badge';
+import { CardRows } from '../../shared/card-rows';
 
 export interface SpaceRow {
   space: SpaceResult;
@@ -39,7 +40,7 @@ const numericColumns: Record<string, (space: SpaceResult) => string | null> = {
 /** Each space's allowance, installed power, LPDs, margin and status; sortable, and filterable to the spaces over allowance. */
 @Component({
   selector: 'al-space-results-table',
-  imports: [MatTableModule, MatSortModule, MatSlideToggleModule, MatFormFieldModule, MatInputModule, MatIconModule, FormsModule, VerifyBadge],
+  imports: [CardRows, MatTableModule, MatSortModule, MatSlideToggleModule, MatFormFieldModule, MatInputModule, MatIconModule, FormsModule, VerifyBadge],
   templateUrl: './space-results-table.html',
   styleUrl: './space-results-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -49,9 +49,12 @@ const roleIcons: Record<ProjectRole, string> = { engineer: 'engineering', review
     @if (canManage()) {
       <form class="add" [formGroup]="form" (ngSubmit)="add()" novalidate>
         <mat-form-field appearance="outline" subscriptSizing="dynamic">
-          <mat-label>E-mail of a person with an account</mat-label>
+          <mat-label>E-mail address</mat-label>
           <input matInput type="email" formControlName="email" autocomplete="off" />
-          <mat-hint><span role="status" class="not-added">{{ notAddedShown() ? notAddedMessage : '' }}</span></mat-hint>
+          <mat-hint
+            ><span role="status" class="not-added">{{ notAddedShown() ? notAddedMessage : '' }}</span
+            >@if (!notAddedShown()) {<span>The person needs an account</span>}</mat-hint
+          >
           @if (form.controls.email.hasError('required')) {
             <mat-error>Enter an e-mail address.</mat-error>
           } @else if (form.controls.email.hasError('email')) {

@@ -1,4 +1,5 @@
 import { ScrollingModule } from '@angular/cdk/scrolling';
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -6,15 +7,18 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceResult, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
 import { formatArea, formatLength, formatWatts, unitLabels } from '../../shared/format';
+import { phoneScreen, printing, screenMatches } from '../../shared/media-queries';
 import { groupByLevel, spaceStatus, type SpaceRow, type SpaceStatus } from './space-rows';
 
 /** Row height in px; the virtual scroll needs it fixed. */
 export const spaceRowHeight = 48;
+/** The same for a space's card on a phone: name, type, figures and a status of up to two lines. */
+export const spaceCardHeight = 136;
 
 /** The project's spaces grouped by level, in one virtual-scrolled list that stays smooth at thousands of rows. */
 @Component({
   selector: 'al-space-table',
-  imports: [ScrollingModule, MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule],
+  imports: [NgTemplateOutlet, ScrollingModule, MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule],
   templateUrl: './space-table.html',
   styleUrl: './space-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -34,7 +38,6 @@ export class SpaceTable {
   readonly duplicate = output<SpaceRecord>();
   readonly remove = output<SpaceRecord>();
 
-  protected readonly rowHeight = spaceRowHeight;
   protected readonly rows = computed(() => groupByLevel(this.spaces()));
   protected readonly labels = computed(() => unitLabels(this.units()));
   private readonly typeLabels = computed(() => {
@@ -44,6 +47,16 @@ export class SpaceTable {
   });
 
   protected readonly trackRow = (_index: number, row: SpaceRow) => row.id;
+
+  /** A phone shows each space as a card of its name, type, figures and status, taller than a table row. */
+  protected readonly phone = screenMatches(phoneScreen);
+  protected readonly rowHeight = computed(() => (this.phone() ? spaceCardHeight : spaceRowHeight));
+  protected readonly printing = printing();
+
+  /** A template's context has no type of its own: this gives the row its type back at the template's edge. */
+  protected asRow(row: SpaceRow): SpaceRow {
+    return row;
+  }
 
   protected typeLabel(space: SpaceRecord): string {
     const key = this.method() === 'building-area' ? space.buildingAreaType : space.spaceType;

@@ -55,9 +55,12 @@ export class WorkspacePage {
   private readonly router = inject(Router);
   protected readonly areas = workspaceAreas;
   protected readonly narrow = screenMatches(narrowScreen);
-  /** The shell's top bar is 56 px high on a phone and 64 px elsewhere (Material's toolbar heights); the opened navigation starts below it. */
+  /**
+   * The opened navigation starts below the shell's bar (56 px high on a phone, 64 px elsewhere:
+   * Material's toolbar heights) and the area bar (56 px), so the menu button stays in reach to close it.
+   */
   private readonly phone = screenMatches(phoneScreen);
-  protected readonly topBarHeight = computed(() => (this.phone() ? 56 : 64));
+  protected readonly topGap = computed(() => (this.phone() ? 56 : 64) + 56);
   private readonly url = toSignal(
     this.router.events.pipe(
       filter((event) => event instanceof NavigationEnd),

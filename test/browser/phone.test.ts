@@ -1,0 +1,123 @@
+/// <reference lib="dom" />
+import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser, Served } from '../support/browser.js';
+import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
+import type { TestDatabase } from '../support/database.js';
+
+let database: TestDatabase;
+let served: Served;
+let browser: Browser;
+
+beforeAll(async () => {
+  ({ database, served, browser } = await openBrowserSuite());
+  browser.page.setDefaultTimeout(8000);
+  // A phone held upright, 390 × 844 CSS pixels (common practice for a current mid-size phone).
+  await browser.page.setViewportSize({ width: 390, height: 844 });
+});
+
+afterEach(async (context) => {
+  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-phone-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+});
+
+afterAll(() => closeBrowserSuite({ browser, served, database }));
+
+/**
+ * Parts of the page that stick out past the screen's edge, or that clip or scroll their content
+ * sideways: each is narrower than its content needs. Only the outermost of each is named.
+ */
+async function crampedParts(): Promise<string[]> {
+  return browser.page.evaluate(() => {
+    const width = document.documentElement.clientWidth;
+    const found: string[] = [];
+    const reported: Element[] = [];
+    const describe = (element: Element) => `${element.tagName.toLowerCase()}.${[...element.classList].join('.')} “${(element.textContent ?? '').trim().slice(0, 40)}”`;
+    for (const element of document.querySelectorAll('.content *')) {
+      // Typed text scrolls in its field and a select shows its choice; a tab not shown is moved aside.
+      if (element.closest('input, textarea, .mat-mdc-select, svg, canvas, mat-tab-body:not(.mat-mdc-tab-body-active), .mat-drawer:not(.mat-drawer-opened)')) continue;
+      if (reported.some((outer) => outer.contains(element))) continue;
+      const style = getComputedStyle(element);
+      if (style.display === 'none' || style.visibility === 'hidden') continue;
+      // Kept for screen readers only (clipped to a pixel), like a card list's column headers.
+      if (style.clip !== 'auto' && style.position === 'absolute') {
+        reported.push(element);
+        continue;
+      }
+      const rect = element.getBoundingClientRect();
+      if (rect.width === 0 || rect.height === 0) continue;
+      if (rect.right > width + 1 || rect.left < -1) found.push(`${describe(element)} sticks out`);
+      else if (style.overflowX !== 'visible' && element.scrollWidth > element.clientWidth + 1) found.push(`${describe(element)} is narrower than its content`);
+      else continue;
+      reported.push(element);
+    }
+    return found;
+  });
+}
+
+const sidewaysScroll = () => browser.page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+
+describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
+  it('lists the projects as cards', async () => {
+    const { page } = browser;
+    await page.goto(`${served.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill('engineer@alderbay.example');
+    await page.getByLabel('Password', { exact: true }).fill(inject('demoPassword'));
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('link', { name: 'Alder Bay Library & Makerspace' }).waitFor();
+    // A card names each value beside it, from its column's header.
+    await page.locator('td[data-label="Edition"]', { hasText: 'IECC 2021' }).first().waitFor();
+    await browser.screenshot('phone-projects');
+    expect(await sidewaysScroll()).toBeLessThanOrEqual(1);
+    expect(await crampedParts()).toEqual([]);
+    await page.getByRole('link', { name: 'Alder Bay Library & Makerspace' }).click();
+    await page.getByRole('heading', { name: 'Spaces', level: 2 }).waitFor();
+  });
+
+  const areas: [string, string][] = [
+    ['Set-up', 'setup'],
+    ['Spaces', 'spaces'],
+    ['Luminaires', 'luminaires'],
+    ['Controls', 'controls'],
+    ['Daylight', 'daylight'],
+    ['Exterior', 'exterior'],
+    ['Results', 'results'],
+    ['History', 'history'],
+  ];
+  for (const [label, path] of areas) {
+    it(`opens ${label} from the menu and lays it out within the screen`, async () => {
+      const { page } = browser;
+      // The navigation is folded away: the page has the whole width.
+      expect(await page.getByRole('navigation', { name: 'Project areas' }).count()).toBe(0);
+      expect(await page.getByRole('link', { name: label, exact: true }).isVisible()).toBe(false);
+      await page.getByRole('button', { name: 'Project areas' }).click();
+      const link = page.getByRole('link', { name: label, exact: true });
+      // Slid fully in (a trial click waits for the link to stand still).
+      await link.click({ trial: true });
+      if (path === 'setup') await browser.screenshot('phone-menu');
+      await link.click();
+      await page.waitForURL(new RegExp(`/${path}$`));
+      // The menu closes on its own, and the bar names the area.
+      await expect.poll(() => link.isVisible()).toBe(false);
+      await expect.poll(() => page.locator('.area-bar').textContent()).toContain(label);
+      await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
+      // The history arrives apart from the design: wait for its entries.
+      if (path === 'history') await page.locator('.entry').first().waitFor();
+      if (path === 'results') await page.locator('td[data-label="Allowance (W)"]').first().waitFor();
+      await browser.screenshot(`phone-${path}`);
+      expect(await sidewaysScroll()).toBeLessThanOrEqual(1);
+      expect(await crampedParts()).toEqual([]);
+    });
+  }
+
+  it('shows each space as a card with its figures named', async () => {
+    const { page } = browser;
+    await page.getByRole('button', { name: 'Project areas' }).click();
+    await page.getByRole('link', { name: 'Spaces', exact: true }).click();
+    const lobby = page.locator('[data-space-id]', { hasText: '101 Entry lobby' });
+    await lobby.waitFor();
+    // Each card is as tall as its content: name, type, the two figures and the status, one under the other.
+    const box = await lobby.boundingBox();
+    expect(box!.height).toBeGreaterThan(100);
+    expect(await lobby.locator('[data-label="Allowance (W)"]').isVisible()).toBe(true);
+    expect(await lobby.locator('.type').isVisible()).toBe(true);
+  });
+});
