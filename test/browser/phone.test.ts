@@ -1,4 +1,5 @@
 /// <reference lib="dom" />
+/// <reference lib="dom.iterable" />
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Served } from '../support/browser.js';
 import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
@@ -76,6 +77,7 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
     ['Set-up', 'setup'],
     ['Spaces', 'spaces'],
     ['Luminaires', 'luminaires'],
+    ['Allowances', 'allowances'],
     ['Controls', 'controls'],
     ['Daylight', 'daylight'],
     ['Exterior', 'exterior'],

@@ -96,7 +96,7 @@ describe('printing a page of the workspace', { timeout: 60_000 }, () => {
     expect(pages.length).toBeGreaterThanOrEqual(3);
   });
 
-  for (const area of ['setup', 'luminaires', 'controls', 'daylight', 'exterior', 'history']) {
+  for (const area of ['setup', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'history']) {
     it(`prints ${area} without the navigation`, async () => {
       const { page } = browser;
       await page.goto(`${projectUrl}/${area}`);

@@ -26,7 +26,7 @@ beforeAll(async () => {
 afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 describe('the workspace at a tablet width (800 px)', () => {
-  for (const area of ['spaces', 'luminaires', 'controls', 'daylight', 'exterior', 'results', 'history']) {
+  for (const area of ['spaces', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'results', 'history']) {
     it(`lays out ${area} without a sideways scroll of the page`, async () => {
       const { page } = browser;
       await page.goto(`${projectUrl}/${area}`);

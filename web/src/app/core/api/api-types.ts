@@ -303,6 +303,22 @@ export interface ExteriorApplicationView extends RowProvenance {
   allowanceByZone: Record<string, string>;
 }
 
+/** One of the edition's additional allowances (retail display categories), in W/ft² of the area claimed. */
+export interface AdditionalAllowanceView extends RowProvenance {
+  key: string;
+  label: string;
+  sourceLabel: string;
+  kind: 'retail-display';
+  lpdWPerFt2: string;
+  /** Added once per building where the edition states one (90.1-2022: 750 W). */
+  fixedW: string | null;
+}
+
+/** The edition's rules as the web app reads them: only the section each rule is stated in, so far. */
+export interface EditionRulesView {
+  sections: Record<string, { section: string; verified: boolean }>;
+}
+
 export interface LightingZoneView extends RowProvenance {
   key: string;
   zone: number;

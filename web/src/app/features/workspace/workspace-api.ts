@@ -2,8 +2,10 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { shareReplay, type Observable } from 'rxjs';
 import type {
+  AdditionalAllowanceView,
   BuildingAreaTypeView,
   ControlStrategyView,
+  EditionRulesView,
   EditionSummary,
   EvaluationResult,
   ExteriorApplicationInput,
@@ -148,6 +150,14 @@ export class WorkspaceApi {
 
   lightingZones(edition: string): Observable<LightingZoneView[]> {
     return this.cached(`${edition}/lighting-zones`, `/api/code-editions/${edition}/lighting-zones`);
+  }
+
+  additionalAllowances(edition: string): Observable<AdditionalAllowanceView[]> {
+    return this.cached(`${edition}/additional-allowances`, `/api/code-editions/${edition}/additional-allowances`);
+  }
+
+  rules(edition: string): Observable<EditionRulesView> {
+    return this.cached(`${edition}/rules`, `/api/code-editions/${edition}/rules`);
   }
 
   /** Code tables change only with a new data version, so one request per page load is enough. */

@@ -31,6 +31,7 @@ export const workspaceAreas: readonly WorkspaceArea[] = [
   { path: 'setup', label: 'Set-up', icon: 'tune' },
   { path: 'spaces', label: 'Spaces', icon: 'floor_lamp' },
   { path: 'luminaires', label: 'Luminaires', icon: 'light' },
+  { path: 'allowances', label: 'Allowances', icon: 'storefront' },
   { path: 'controls', label: 'Controls', icon: 'toggle_on' },
   { path: 'daylight', label: 'Daylight', icon: 'wb_sunny' },
   { path: 'exterior', label: 'Exterior', icon: 'nightlight' },

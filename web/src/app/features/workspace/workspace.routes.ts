@@ -6,6 +6,7 @@ export const workspaceRoutes: Routes = [
   { path: 'setup', canDeactivate: [unsavedChangesGuard], title: 'Set-up · Allowlight', loadComponent: () => import('../setup/setup-page').then((m) => m.SetupPage) },
   { path: 'spaces', canDeactivate: [unsavedChangesGuard], title: 'Spaces · Allowlight', loadComponent: () => import('../spaces/spaces-page').then((m) => m.SpacesPage) },
   { path: 'luminaires', canDeactivate: [unsavedChangesGuard], title: 'Luminaires · Allowlight', loadComponent: () => import('../luminaires/luminaires-page').then((m) => m.LuminairesPage) },
+  { path: 'allowances', canDeactivate: [unsavedChangesGuard], title: 'Allowances · Allowlight', loadComponent: () => import('../allowances/allowances-page').then((m) => m.AllowancesPage) },
   { path: 'controls', canDeactivate: [unsavedChangesGuard], title: 'Controls · Allowlight', loadComponent: () => import('../controls/controls-page').then((m) => m.ControlsPage) },
   { path: 'daylight', canDeactivate: [unsavedChangesGuard], title: 'Daylight · Allowlight', loadComponent: () => import('../daylight/daylight-page').then((m) => m.DaylightPage) },
   { path: 'exterior', canDeactivate: [unsavedChangesGuard], title: 'Exterior · Allowlight', loadComponent: () => import('../exterior/exterior-page').then((m) => m.ExteriorPage) },

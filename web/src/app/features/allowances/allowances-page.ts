@@ -1,0 +1,307 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal, untracked, viewChild } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatListModule } from '@angular/material/list';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import { RouterLink } from '@angular/router';
+import { catchError, combineLatest, of, switchMap } from 'rxjs';
+import type { AdditionalAllowanceView, AllowanceClaim, EditionRulesView, EvaluationResult, SpaceRecord } from '../../core/api/api-types';
+import { ApiError } from '../../core/http/api-error';
+import { allowanceStatus } from '../../shared/allowance-status';
+import { CardRows } from '../../shared/card-rows';
+import { placeServerErrors, WriteFailure } from '../../shared/conflict';
+import { areaFigure, densityFigure, wattsFigure } from '../../shared/figures';
+import { formatArea, formatWatts, unitLabels } from '../../shared/format';
+import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
+import { VerifyBadge } from '../../shared/verify-badge';
+import { editionLabels } from '../projects/projects-page';
+import { densityInUnits } from '../spaces/space-rows';
+import { ProjectStore } from '../workspace/project-store';
+import { WorkspaceApi } from '../workspace/workspace-api';
+import { AllowancesApi, type AllowanceClaimInput } from './allowances-api';
+import { claimAreaValidator, claimLines, salesFloorType, usageWords, type ClaimLine } from './claim-lines';
+
+interface Tables {
+  catalogue: AdditionalAllowanceView[];
+  rules: EditionRulesView | null;
+}
+
+/**
+ * Each sales floor's claims on the edition's additional allowances (retail display), with the rate
+ * and source of each, and what the evaluation lets the space use: they cover display lighting only.
+ */
+@Component({
+  selector: 'al-allowances-page',
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatListModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatTooltipModule,
+    CardRows,
+    VerifyBadge,
+  ],
+  templateUrl: './allowances-page.html',
+  styleUrl: './allowances-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class AllowancesPage implements HasUnsavedChanges {
+  protected readonly store = inject(ProjectStore);
+  private readonly workspace = inject(WorkspaceApi);
+  private readonly api = inject(AllowancesApi);
+  private readonly failure = inject(WriteFailure);
+  private readonly snackBar = inject(MatSnackBar);
+
+  /** The space to open, from `?space=`. */
+  readonly space = input<string>();
+
+  protected readonly figures = { watts: wattsFigure, density: densityFigure, area: areaFigure };
+  protected readonly labels = computed(() => unitLabels(this.store.units()));
+  protected readonly spaceBySpace = computed(() => this.store.project()?.method === 'space-by-space');
+  private readonly edition = computed(() => this.store.project()?.edition ?? null);
+
+  private readonly tables = toSignal(
+    toObservable(this.edition).pipe(
+      switchMap((edition) =>
+        edition
+          ? combineLatest({ catalogue: this.workspace.additionalAllowances(edition), rules: this.workspace.rules(edition).pipe(catchError(() => of(null))) })
+          : of<Tables>({ catalogue: [], rules: null }),
+      ),
+      catchError(() => of<Tables>({ catalogue: [], rules: null })),
+    ),
+    { initialValue: null },
+  );
+  protected readonly catalogue = computed(() => this.tables()?.catalogue ?? []);
+
+  private readonly reloads = signal(0);
+  protected readonly claims = signal<AllowanceClaim[] | null>(null);
+  protected readonly loadError = signal<string | null>(null);
+  protected readonly saving = signal(false);
+
+  /** The evaluation to read, the last one while a new one is computed. */
+  private readonly result = computed<EvaluationResult | null>(() => {
+    const state = this.store.results();
+    return state.status === 'ready' ? state.result : state.status === 'updating' ? state.previous : null;
+  });
+  protected readonly updating = computed(() => this.store.results().status !== 'ready');
+  protected readonly resultsProblem = computed(() => {
+    const state = this.store.results();
+    return state.status === 'incomplete' || state.status === 'failed' ? state.message : null;
+  });
+
+  protected readonly salesFloors = computed(() => this.store.spaces().filter((space) => space.spaceType === salesFloorType));
+  /** Claims on spaces that are no longer sales floors: the evaluation refuses them until they are removed. */
+  protected readonly strayClaims = computed(() => {
+    const sales = new Set(this.salesFloors().map((space) => space.id));
+    const names = new Map(this.store.spaces().map((space) => [space.id, space.name]));
+    return (this.claims() ?? []).filter((claim) => !this.spaceBySpace() || !sales.has(claim.spaceId)).map((claim) => ({ claim, spaceName: names.get(claim.spaceId) ?? 'A deleted space', label: this.allowanceLabel(claim.allowance) }));
+  });
+
+  private readonly chosenId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
+  protected readonly selected = computed<SpaceRecord | null>(() => {
+    const floors = this.salesFloors();
+    return floors.find((space) => space.id === this.chosenId()) ?? floors[0] ?? null;
+  });
+  protected readonly selectedResult = computed(() => {
+    const space = this.selected();
+    return space ? (this.store.resultBySpace().get(space.id) ?? null) : null;
+  });
+  protected readonly lines = computed<ClaimLine[]>(() => {
+    const space = this.selected();
+    return space ? claimLines(space.id, this.claims() ?? [], this.catalogue(), this.result()) : [];
+  });
+
+  protected readonly claimCount = computed(() => {
+    const counts = new Map<string, number>();
+    for (const claim of this.claims() ?? []) counts.set(claim.spaceId, (counts.get(claim.spaceId) ?? 0) + 1);
+    return counts;
+  });
+
+  /** The space's figures from the evaluation: display lighting, what its claims come to, and what they may use. */
+  protected readonly usage = computed(() => {
+    const result = this.selectedResult();
+    if (!result) return null;
+    const claimed = this.lines().reduce((sum, line) => sum + Number(line.claimedW ?? 0), 0);
+    const used = Number(result.additionalAllowanceW);
+    const display = Number(result.displayW);
+    return {
+      displayW: result.displayW,
+      claimedW: String(claimed),
+      usedW: result.additionalAllowanceW,
+      words: usageWords(claimed, used, display, (value) => formatWatts(String(value))),
+      status: allowanceStatus(result.withinAllowance, result.marginW, result.marginPct),
+    };
+  });
+
+  /** The building's totals, with the edition's once-per-building wattage where it states one. */
+  protected readonly building = computed(() => this.result()?.interior.additional ?? null);
+
+  protected readonly editing = signal<AllowanceClaim | null>(null);
+  private readonly formDirective = viewChild(FormGroupDirective);
+  protected readonly form = new FormGroup({
+    allowance: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
+    area: new FormControl('', { nonNullable: true, validators: [Validators.required, claimAreaValidator(() => this.selected(), () => this.store.units())] }),
+  });
+  /** Each allowance once per space: what is left to claim here (and the one being changed). */
+  protected readonly choices = computed(() => {
+    const claimed = new Set(this.lines().map((line) => line.claim.allowance));
+    const editing = this.editing()?.allowance;
+    return this.catalogue().filter((allowance) => !claimed.has(allowance.key) || allowance.key === editing);
+  });
+
+  constructor() {
+    effect(() => {
+      const projectId = this.store.projectId();
+      this.reloads();
+      if (!projectId) return;
+      untracked(() =>
+        this.api.claims(projectId).subscribe({
+          next: (claims) => {
+            this.loadError.set(null);
+            this.claims.set(claims);
+          },
+          error: (error: unknown) => this.loadError.set(error instanceof ApiError ? error.message : 'The claims could not be loaded.'),
+        }),
+      );
+    });
+    effect(() => {
+      this.selected();
+      untracked(() => this.cancel());
+    });
+    effect(() => {
+      if (this.store.canEdit()) this.form.enable({ emitEvent: false });
+      else this.form.disable({ emitEvent: false });
+    });
+  }
+
+  hasUnsavedChanges(): boolean {
+    return this.form.dirty;
+  }
+
+  protected select(spaceId: string): void {
+    this.chosenId.set(spaceId);
+  }
+
+  protected rate(allowance: AdditionalAllowanceView | undefined): string {
+    return allowance ? densityFigure(densityInUnits(allowance.lpdWPerFt2, this.store.units())) : '—';
+  }
+
+  protected allowanceLabel(key: string): string {
+    return this.catalogue().find((allowance) => allowance.key === key)?.label ?? 'An allowance this edition does not offer';
+  }
+
+  /** A short citation: the edition and the section that states the allowance. */
+  protected citation(): string {
+    const project = this.store.project();
+    const edition = project?.edition ? (editionLabels[project.edition] ?? project.edition) : '';
+    const section = this.tables()?.rules?.sections['additionalAllowances']?.section;
+    return section ? `${edition}, section ${section}` : edition;
+  }
+
+  /** Why a rate carries the verify mark, in words (never the data's own notes). */
+  protected unverifiedWords(allowance: AdditionalAllowanceView): string {
+    const fromMemory = allowance.source === 'from memory' || allowance.confidence === 'from memory';
+    return fromMemory
+      ? 'Not yet checked against the printed code: this rate is from memory.'
+      : 'Not yet checked against the printed code: this rate comes from a transcription of the code tables.';
+  }
+
+  protected spaceArea(space: SpaceRecord): string {
+    return formatArea(space.area, this.store.units());
+  }
+
+  protected change(claim: AllowanceClaim): void {
+    this.editing.set(claim);
+    this.form.reset({ allowance: claim.allowance, area: claim.area });
+  }
+
+  /** Resets through the form's directive too, so a submitted form shows no message for the blank fields that follow. */
+  protected cancel(): void {
+    this.editing.set(null);
+    const blank = { allowance: '', area: '' };
+    const directive = this.formDirective();
+    if (directive) directive.resetForm(blank);
+    else this.form.reset(blank);
+  }
+
+  protected save(): void {
+    const projectId = this.store.projectId();
+    const space = this.selected();
+    if (!projectId || !space) return;
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const value = this.form.getRawValue();
+    const input: AllowanceClaimInput = { spaceId: space.id, allowance: value.allowance, area: value.area.trim() };
+    const editing = this.editing();
+    this.saving.set(true);
+    (editing ? this.api.replace(projectId, editing.id, editing.version, input) : this.api.create(projectId, input)).subscribe({
+      next: (saved) => {
+        this.saving.set(false);
+        this.claims.update((claims) => {
+          const list = claims ?? [];
+          return list.some((claim) => claim.id === saved.id) ? list.map((claim) => (claim.id === saved.id ? saved : claim)) : [...list, saved];
+        });
+        this.cancel();
+        this.store.refreshResults();
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        if (error instanceof ApiError && error.status === 400) {
+          const unplaced = placeServerErrors(error.details, (path) => (path === 'area' ? this.form.controls.area : path === 'allowance' ? this.form.controls.allowance : null));
+          if (unplaced.length) this.snackBar.open(unplaced.map((detail) => detail.message).join(' '), 'Dismiss', { duration: 8000 });
+          return;
+        }
+        this.failure.report(error, () => this.reload());
+      },
+    });
+  }
+
+  protected remove(claim: AllowanceClaim): void {
+    const projectId = this.store.projectId();
+    if (!projectId) return;
+    this.saving.set(true);
+    this.api.remove(projectId, claim.id, claim.version).subscribe({
+      next: () => {
+        this.saving.set(false);
+        this.claims.update((claims) => (claims ?? []).filter((other) => other.id !== claim.id));
+        this.store.refreshResults();
+        const words = `Claim on “${this.allowanceLabel(claim.allowance)}” removed`;
+        // A claim has no restore route: Undo claims the same again.
+        this.snackBar
+          .open(words, this.spaceBySpace() ? 'Undo' : undefined, { duration: 8000 })
+          .onAction()
+          .subscribe(() =>
+            this.api.create(projectId, { spaceId: claim.spaceId, allowance: claim.allowance, area: claim.area }).subscribe({
+              next: (again) => {
+                this.claims.update((claims) => [...(claims ?? []), again]);
+                this.store.refreshResults();
+              },
+              error: (error: unknown) => this.failure.report(error, () => this.reload()),
+            }),
+          );
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        this.failure.report(error, () => this.reload());
+      },
+    });
+  }
+
+  private reload(): void {
+    this.reloads.update((count) => count + 1);
+  }
+}

@@ -1,0 +1,40 @@
+import { FormControl } from '@angular/forms';
+import type { AdditionalAllowanceView, AllowanceClaim, EvaluationResult, SpaceRecord } from '../../core/api/api-types';
+import { formatWatts } from '../../shared/format';
+import { claimAreaValidator, claimLines, usageWords } from './claim-lines';
+
+// Invented claims and figures for the test; the 1.05 W/ft² rate is the IECC 2021 retail area 3 row, from memory (reference/iecc-2021).
+const allowance = { key: 'retail-area-3', label: 'Retail display, retail area 3', lpdWPerFt2: '1.05' } as AdditionalAllowanceView;
+const claim = (id: string, spaceId: string, key: string, area: string): AllowanceClaim => ({ id, spaceId, allowance: key, area, version: 1, updatedAt: '', updatedBy: null });
+const result = {
+  interior: { additional: { lines: [{ allowance: 'retail-area-3', label: '', spaceId: 's1', area: '800', claimedW: '840', section: 'C405.3.2.2.1' }] } },
+} as unknown as EvaluationResult;
+const watts = (value: number) => formatWatts(String(value));
+
+describe('a space’s claims on the additional allowances', () => {
+  it('pairs each claim of the space with its allowance and what the evaluation counted', () => {
+    const lines = claimLines('s1', [claim('c1', 's1', 'retail-area-3', '800'), claim('c2', 's2', 'retail-area-3', '100'), claim('c3', 's1', 'gone', '50')], [allowance], result);
+    expect(lines.map((line) => [line.claim.id, line.allowance?.label ?? null, line.claimedW])).toEqual([
+      ['c1', 'Retail display, retail area 3', '840'],
+      ['c3', null, null],
+    ]);
+  });
+
+  it('says how much of a claim the display lighting uses', () => {
+    expect(usageWords(0, 0, 0, watts)).toBe('Nothing claimed yet.');
+    expect(usageWords(840, 840, 1000, watts)).toBe('All 840 W claimed is used, against 1,000 W of display lighting.');
+    expect(usageWords(1050, 1000, 1000, watts)).toBe('1,000 W of the 1,050 W claimed is used: the display lighting here is 1,000 W, and the allowance covers display lighting only.');
+    expect(usageWords(840, 0, 0, watts)).toContain('none used');
+  });
+
+  it('takes at most the space’s floor area', () => {
+    const space = { area: '2000' } as SpaceRecord;
+    const area = new FormControl('', { nonNullable: true, validators: [claimAreaValidator(() => space, () => 'ip')] });
+    area.setValue('2500');
+    expect(area.errors).toEqual({ area: 'At most 2,000 ft², the space’s floor area.' });
+    area.setValue('-1');
+    expect(area.errors).toEqual({ area: 'Must not be negative.' });
+    area.setValue('2000');
+    expect(area.errors).toBeNull();
+  });
+});
