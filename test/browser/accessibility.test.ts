@@ -80,7 +80,7 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
     });
   }
 
-  it('the workspace in the dark colour scheme', async () => {
+  it('the workspace and the sign-in page in the dark colour scheme', async () => {
     const { page } = browser;
     await page.emulateMedia({ colorScheme: 'dark' });
     for (const area of ['spaces', 'daylight', 'results', 'history']) {
@@ -90,6 +90,9 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
       expect(await seriousViolations(), area).toEqual([]);
     }
     await browser.screenshot('dark-results');
+    await page.goto(`${served.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').waitFor();
+    expect(await seriousViolations(), 'sign-in').toEqual([]);
     await page.emulateMedia({ colorScheme: 'light' });
   });
 });
