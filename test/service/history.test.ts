@@ -91,6 +91,13 @@ describe('the audit trail', () => {
     expect(entries[2]).toMatchObject({ action: 'update', entity: 'project', before: { jurisdiction: null }, after: { jurisdiction: 'Tidewater County' } });
   });
 
+  it('names the project a copy was made from', async () => {
+    const copied = await write(reviewer, 'post', `/api/projects/${projectId}/copy`).send({ name: 'Tidewater Clinic, option B' });
+    expect(copied.status).toBe(201);
+    const response = await reviewer.agent.get(`/api/projects/${copied.body.id}/history`);
+    expect(response.body.entries).toEqual([expect.objectContaining({ action: 'copy', entity: 'project', name: 'Tidewater Clinic, option B', copiedFrom: { id: projectId, name: 'Tidewater Clinic' } })]);
+  });
+
   it('writes nothing for a write that was refused', async () => {
     const count = async () => Number((await database.db('audit_log').where({ project_id: projectId }).count<{ count: string }[]>('* as count'))[0]!.count);
     const before = await count();

@@ -23,6 +23,8 @@ export interface HistoryEntry {
   after: unknown;
   /** For a change of units: the units and the rows converted. */
   conversion?: unknown;
+  /** On a copy: the project it was made from. */
+  copiedFrom?: unknown;
   /** A deleted space, luminaire type or exterior application that can still be brought back. */
   restorable: boolean;
 }
@@ -35,7 +37,7 @@ interface AuditRow {
   action: string;
   entity: string;
   entity_id: string | null;
-  detail: { name?: string; before?: unknown; after?: unknown; conversion?: unknown; restoredFrom?: string } | null;
+  detail: { name?: string; before?: unknown; after?: unknown; conversion?: unknown; copiedFrom?: unknown; restoredFrom?: string } | null;
 }
 
 const restorableEntities = new Set(['space', 'luminaire-type', 'exterior-application']);
@@ -78,6 +80,7 @@ export async function listHistory(db: Knex, projectId: string, filter: HistoryFi
       before: row.detail?.before ?? null,
       after: row.detail?.after ?? null,
       ...(row.detail?.conversion ? { conversion: row.detail.conversion } : {}),
+      ...(row.detail?.copiedFrom ? { copiedFrom: row.detail.copiedFrom } : {}),
       restorable: row.action === 'delete' && restorableEntities.has(row.entity) && !restored.has(String(row.id)) && row.at.getTime() >= oldest,
     })),
     more: rows.length > filter.limit,

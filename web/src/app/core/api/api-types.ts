@@ -187,11 +187,12 @@ export interface ExteriorApplicationRecord extends ExteriorApplicationInput, Sta
 // ---------------------------------------------------------------- history
 
 export type DesignHistoryAction = 'create' | 'import' | 'update' | 'delete' | 'restore';
-export type ProjectHistoryAction = 'create' | 'update' | 'convert-units' | 'archive' | 'unarchive';
+export type ProjectHistoryAction = 'create' | 'copy' | 'update' | 'convert-units' | 'archive' | 'unarchive';
+export type ClaimHistoryAction = 'create' | 'update' | 'delete';
 export type TeamHistoryAction = 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account';
 
-/** The set-up as the history keeps it before and after a change of the project. */
-export interface SetupSnapshot {
+/** The set-up as the history keeps it before and after a change of the project (entries from before the permit fields lack them). */
+export interface SetupSnapshot extends Partial<PermitFields> {
   name: string;
   address: string | null;
   latitude: string | null;
@@ -229,7 +230,8 @@ export type HistoryEntry = HistoryEntryBase &
     | { entity: 'space'; action: DesignHistoryAction; before: SpaceRecord | null; after: SpaceRecord | null }
     | { entity: 'luminaire-type'; action: DesignHistoryAction; before: LuminaireTypeRecord | null; after: LuminaireTypeRecord | null }
     | { entity: 'exterior-application'; action: DesignHistoryAction; before: ExteriorApplicationRecord | null; after: ExteriorApplicationRecord | null }
-    | { entity: 'project'; action: ProjectHistoryAction; before: SetupSnapshot | null; after: SetupSnapshot | null; conversion?: UnitConversion }
+    | { entity: 'project'; action: ProjectHistoryAction; before: SetupSnapshot | null; after: SetupSnapshot | null; conversion?: UnitConversion; copiedFrom?: { id: string; name: string } }
+    | { entity: 'additional-allowance'; action: ClaimHistoryAction; before: AllowanceClaim | null; after: AllowanceClaim | null }
     | { entity: 'project_member'; action: TeamHistoryAction; before: { role: ProjectRole } | null; after: { role: ProjectRole } | null }
   );
 

@@ -174,6 +174,35 @@ describe('a history entry in words', () => {
       expect(say(entry({ entity: 'project', action: 'create', name: 'Tidewater Clinic', before: null, after: setup }))).toBe('Ines Halvorsen created the project “Tidewater Clinic”');
     });
 
+    it('reads the permit fields and the time zone in words, and a copy with its original', () => {
+      // Invented permit details; America/Los_Angeles keeps UTC−8 as standard time (IANA tz database).
+      const before = { ...setup, timeZone: 'America/Denver', permitNumber: null, scope: null, grossFloorArea: '2400' };
+      const after = { ...setup, permitNumber: 'BP-2026-0417', owner: 'Town of Tidewater', scope: 'alteration' as const, grossFloorArea: '2600', contractorLicence: 'EC-7731' };
+      const words = describeEntry(entry({ entity: 'project', action: 'update', name: 'Tidewater Clinic', before, after }), labels, 'ip');
+      expect(words.changes).toEqual([
+        expect.stringMatching(/^time zone Denver \(America\) — Mountain Time, UTC−7 → Los Angeles \(America\) — Pacific Time, UTC−8$/),
+        'permit number set to “BP-2026-0417”',
+        'owner set to “Town of Tidewater”',
+        'scope of work set to alteration',
+        'gross floor area 2,400 → 2,600 ft²',
+        'contractor’s licence number set to “EC-7731”',
+      ]);
+      // An entry written before the permit fields existed has none of them: nothing is said about them.
+      expect(describeEntry(entry({ entity: 'project', action: 'update', name: 'x', before: setup, after: { ...setup, permitNumber: null } }), labels, 'ip').summary).toBe('saved the set-up without a change');
+      expect(say(entry({ entity: 'project', action: 'copy', name: 'Tidewater Clinic (copy)', before: null, after: setup, copiedFrom: { id: 'p1', name: 'Tidewater Clinic' } }))).toBe(
+        'Ines Halvorsen made this project “Tidewater Clinic (copy)” as a copy of “Tidewater Clinic”',
+      );
+    });
+
+    it('reads a sales floor’s claims on an additional allowance', () => {
+      const claim = { id: 'c1', spaceId: 's1', allowance: 'retail-area-3', area: '800', ...stamp };
+      expect(say(entry({ entity: 'additional-allowance', action: 'create', name: 'Sales floor', before: null, after: claim }))).toBe('Ines Halvorsen claimed an additional allowance on “Sales floor” for 800 ft²');
+      expect(say(entry({ entity: 'additional-allowance', action: 'update', name: 'Sales floor', before: claim, after: { ...claim, area: '1000' } }))).toBe(
+        'Ines Halvorsen changed an additional allowance claimed on “Sales floor”: area claimed 800 → 1,000 ft²',
+      );
+      expect(say(entry({ entity: 'additional-allowance', action: 'delete', name: 'Sales floor', before: claim, after: null }))).toBe('Ines Halvorsen removed an additional allowance claimed on “Sales floor” for 800 ft²');
+    });
+
     it('reads a change of units with what was converted', () => {
       const conversion = { from: 'ip' as const, to: 'si' as const, rows: { spaces: 29, space_windows: 4, space_skylights: 0, luminaire_types: 1 } };
       expect(say(entry({ entity: 'project', action: 'convert-units', name: 'Tidewater Clinic', before: setup, after: { ...setup, units: 'si', version: 4 }, conversion }))).toBe(

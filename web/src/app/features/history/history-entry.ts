@@ -4,6 +4,7 @@ import type {
   LuminaireGroup,
   LuminaireTypeRecord,
   ProjectRole,
+  ProjectScope,
   ProvidedControl,
   SetupSnapshot,
   SpaceRecord,
@@ -14,7 +15,8 @@ import { quantityUnit } from '../exterior/exterior-groups';
 import { exteriorControls } from '../exterior/exterior-application-form';
 import { basisLabels, useLabels } from '../luminaires/luminaire-type-form';
 import { exceptionReasonLabels } from '../controls/control-status';
-import { methodLabels } from '../setup/setup-fields';
+import { methodLabels, scopeLabels } from '../setup/setup-fields';
+import { timeZoneLabel } from '../setup/time-zones';
 
 /**
  * A history entry in words: who did what, and which fields changed from what to what, in the units
@@ -292,12 +294,24 @@ function setupChanges(before: SetupSnapshot, after: SetupSnapshot, labels: Histo
     text('address', before.address, after.address),
     measured('latitude', before.latitude, after.latitude, ''),
     measured('longitude', before.longitude, after.longitude, ''),
-    choice('time zone', before.timeZone, after.timeZone, (zone) => zone.replace(/_/g, ' ')),
+    choice('time zone', before.timeZone, after.timeZone, timeZoneLabel),
     text('jurisdiction', before.jurisdiction, after.jurisdiction),
     choice('code edition', before.edition, after.edition, named(labels.editions)),
     choice('compliance method', before.method, after.method, (method) => lowerFirst(methodLabels[method as keyof typeof methodLabels] ?? spelt(method))),
     choice('units', before.units, after.units, (system) => unitNames[system as UnitSystem] ?? spelt(system)),
     choice('exterior lighting zone', before.lightingZone, after.lightingZone, (zone) => zone),
+    text('permit number', before.permitNumber, after.permitNumber),
+    text('owner', before.owner, after.owner),
+    text('occupancy', before.occupancy, after.occupancy),
+    choice('scope of work', before.scope, after.scope, (scope) => lowerFirst(scopeLabels[scope as ProjectScope] ?? spelt(scope))),
+    measured('gross floor area', before.grossFloorArea, after.grossFloorArea, units(after.units).area),
+    text('designer of record', before.designerName, after.designerName),
+    text('designer’s firm', before.designerFirm, after.designerFirm),
+    text('designer’s licence number', before.designerLicence, after.designerLicence),
+    text('contractor', before.contractorName, after.contractorName),
+    text('contractor’s firm', before.contractorFirm, after.contractorFirm),
+    text('contractor’s licence number', before.contractorLicence, after.contractorLicence),
+    text('contractor’s contact', before.contractorContact, after.contractorContact),
   ];
   return changes.filter((change): change is string => change !== null);
 }
@@ -336,6 +350,7 @@ const icons: Record<string, string> = {
   delete: 'delete',
   restore: 'restore_from_trash',
   'convert-units': 'straighten',
+  copy: 'content_copy',
   archive: 'archive',
   unarchive: 'unarchive',
   'add-member': 'person_add',
@@ -423,6 +438,8 @@ function projectWords(entry: Extract<HistoryEntry, { entity: 'project' }>, label
   switch (entry.action) {
     case 'create':
       return { summary: `created the project${entry.name ? ` ${quoted(entry.name)}` : ''}`, changes: [] };
+    case 'copy':
+      return { summary: `made this project${entry.name ? ` ${quoted(entry.name)}` : ''} as a copy${entry.copiedFrom ? ` of ${quoted(entry.copiedFrom.name)}` : ''}`, changes: [] };
     case 'archive':
       return { summary: 'archived the project', changes: [] };
     case 'unarchive':
@@ -435,6 +452,22 @@ function projectWords(entry: Extract<HistoryEntry, { entity: 'project' }>, label
     }
     default:
       return { summary: changes.length ? 'changed the set-up' : 'saved the set-up without a change', changes };
+  }
+}
+
+/** A sales floor's claim on an additional allowance; `name` is the space's. */
+function claimWords(entry: Extract<HistoryEntry, { entity: 'additional-allowance' }>, system: UnitSystem): { summary: string; changes: string[] } {
+  const where = entry.name ? ` on ${quoted(entry.name)}` : '';
+  const area = (claim: { area: string } | null) => (claim ? ` for ${figure(claim.area)} ${units(system).area}` : '');
+  switch (entry.action) {
+    case 'create':
+      return { summary: `claimed an additional allowance${where}${area(entry.after)}`, changes: [] };
+    case 'delete':
+      return { summary: `removed an additional allowance claimed${where}${area(entry.before)}`, changes: [] };
+    default: {
+      const changes = entry.before && entry.after ? [measured('area claimed', entry.before.area, entry.after.area, units(system).area)].filter((change): change is string => change !== null) : [];
+      return { summary: `changed an additional allowance claimed${where}`, changes };
+    }
   }
 }
 
@@ -469,6 +502,9 @@ export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system
       break;
     case 'project_member':
       words = teamWords(entry);
+      break;
+    case 'additional-allowance':
+      words = claimWords(entry, system);
       break;
     default:
       words = { summary: 'changed the project', changes: [] };
