@@ -1,25 +1,45 @@
-import { afterNextRender, DestroyRef, Directive, ElementRef, inject } from '@angular/core';
+import { afterNextRender, DestroyRef, Directive, ElementRef, inject, signal } from '@angular/core';
 
 /**
- * On a phone a table too wide to read becomes a list of cards (styles.scss, `.al-card-rows`): each
- * row a card, its first cell the title, every other cell beside its column's header. The headers are
- * copied onto the cells as `data-label`, and again whenever rows or header texts change.
+ * A table that does not fit its place (a phone, a small tablet) becomes a list of cards
+ * (styles.scss, `.al-cards`): each row a card, its first cell the title, every other cell beside its
+ * column's header. The headers are copied onto the cells as `data-label` whenever rows or header
+ * texts change. Whether the table fits is measured while it is a table: the width it needs then is
+ * what the cards wait for before turning back into a table.
  */
 @Directive({
   selector: 'table[alCardRows]',
-  host: { class: 'al-card-rows' },
+  host: { class: 'al-card-rows', '[class.al-cards]': 'cards()' },
 })
 export class CardRows {
+  protected readonly cards = signal(false);
+
   constructor() {
     const table = inject<ElementRef<HTMLTableElement>>(ElementRef).nativeElement;
-    const label = () => labelCells(table);
-    const observer = new MutationObserver(label);
+    let needed = 0;
+    const fit = () => {
+      const place = table.parentElement;
+      if (!place) return;
+      const available = place.clientWidth;
+      if (!this.cards()) needed = table.scrollWidth;
+      this.cards.set(needed > available + 1);
+    };
+    const changed = () => {
+      labelCells(table);
+      fit();
+    };
+    const mutations = new MutationObserver(changed);
+    const resizes = new ResizeObserver(fit);
     afterNextRender(() => {
-      label();
+      changed();
       // Only rows and texts: the labels this writes are attributes, so they do not call it again.
-      observer.observe(table, { childList: true, subtree: true, characterData: true });
+      mutations.observe(table, { childList: true, subtree: true, characterData: true });
+      if (table.parentElement) resizes.observe(table.parentElement);
     });
-    inject(DestroyRef).onDestroy(() => observer.disconnect());
+    inject(DestroyRef).onDestroy(() => {
+      mutations.disconnect();
+      resizes.disconnect();
+    });
   }
 }
 
