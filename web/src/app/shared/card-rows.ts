@@ -1,11 +1,14 @@
+import { ViewportRuler } from '@angular/cdk/scrolling';
 import { afterNextRender, DestroyRef, Directive, ElementRef, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 
 /**
  * A table that does not fit its place (a phone, a small tablet) becomes a list of cards
  * (styles.scss, `.al-cards`): each row a card, its first cell the title, every other cell beside its
  * column's header. The headers are copied onto the cells as `data-label` whenever rows or header
  * texts change. Whether the table fits is measured while it is a table: the width it needs then is
- * what the cards wait for before turning back into a table.
+ * what the cards wait for before turning back into a table. The place changes width with the window
+ * (the workspace's navigation takes a fixed width beside it, or none).
  */
 @Directive({
   selector: 'table[alCardRows]',
@@ -29,17 +32,13 @@ export class CardRows {
       fit();
     };
     const mutations = new MutationObserver(changed);
-    const resizes = new ResizeObserver(fit);
     afterNextRender(() => {
       changed();
       // Only rows and texts: the labels this writes are attributes, so they do not call it again.
       mutations.observe(table, { childList: true, subtree: true, characterData: true });
-      if (table.parentElement) resizes.observe(table.parentElement);
     });
-    inject(DestroyRef).onDestroy(() => {
-      mutations.disconnect();
-      resizes.disconnect();
-    });
+    inject(ViewportRuler).change(100).pipe(takeUntilDestroyed()).subscribe(fit);
+    inject(DestroyRef).onDestroy(() => mutations.disconnect());
   }
 }
 

@@ -67,7 +67,7 @@ export class AllowancesPage implements HasUnsavedChanges {
   /** The space to open, from `?space=`. */
   readonly space = input<string>();
 
-  protected readonly figures = { watts: wattsFigure, density: densityFigure, area: areaFigure };
+  protected readonly figures = { watts: wattsFigure, area: areaFigure };
   protected readonly labels = computed(() => unitLabels(this.store.units()));
   protected readonly spaceBySpace = computed(() => this.store.project()?.method === 'space-by-space');
   private readonly edition = computed(() => this.store.project()?.edition ?? null);

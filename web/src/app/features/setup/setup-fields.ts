@@ -28,7 +28,7 @@ export const scopeLabels: Record<ProjectScope, string> = {
 };
 
 /** A control's value as a signal, following the form input when it is replaced. */
-function valueOf<T>(form: Signal<SetupForm>, pick: (form: SetupForm) => AbstractControl<T>, initialValue: T): Signal<T> {
+function controlValue<T>(form: Signal<SetupForm>, pick: (form: SetupForm) => AbstractControl<T>, initialValue: T): Signal<T> {
   return toSignal(toObservable(form).pipe(switchMap((current) => pick(current).valueChanges.pipe(startWith(pick(current).value)))), { initialValue });
 }
 
@@ -56,8 +56,8 @@ export class SetupFields {
 
   protected readonly editions = toSignal(this.api.editions().pipe(catchError(() => of([]))), { initialValue: [] });
 
-  private readonly edition = valueOf(this.form, (form) => form.controls.code.controls.edition, '');
-  private readonly units = valueOf<UnitSystem>(this.form, (form) => form.controls.code.controls.units, 'ip');
+  private readonly edition = controlValue(this.form, (form) => form.controls.code.controls.edition, '');
+  private readonly units = controlValue<UnitSystem>(this.form, (form) => form.controls.code.controls.units, 'ip');
   protected readonly areaUnit = computed(() => unitLabels(this.units()).area);
   protected readonly scopes = Object.entries(scopeLabels).map(([value, label]) => ({ value: value as ProjectScope, label }));
 
@@ -81,9 +81,9 @@ export class SetupFields {
     { initialValue: { status: 'no-edition' as const } },
   );
 
-  private readonly timeZone = valueOf(this.form, (form) => form.controls.site.controls.timeZone, '');
-  private readonly latitude = valueOf(this.form, (form) => form.controls.site.controls.latitude, '');
-  private readonly longitude = valueOf(this.form, (form) => form.controls.site.controls.longitude, '');
+  private readonly timeZone = controlValue(this.form, (form) => form.controls.site.controls.timeZone, '');
+  private readonly latitude = controlValue(this.form, (form) => form.controls.site.controls.latitude, '');
+  private readonly longitude = controlValue(this.form, (form) => form.controls.site.controls.longitude, '');
 
   protected readonly timeZones = computed(() => searchTimeZones(this.timeZone()));
   protected readonly zoneLabel = timeZoneLabel;
