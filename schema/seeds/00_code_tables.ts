@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { deriveIeccControls } from '../../service/src/code-tables/iecc-controls.js';
 import { defaultReferenceRoot, editionIds, readReferenceEdition, type ReferenceEdition } from '../../service/src/code-tables/reference-files.js';
-import type { RequirementCode } from '../../service/src/compliance/edition-data.js';
+import type { RequirementCode, StrategyKey } from '../../service/src/compliance/edition-data.js';
 
 /** Loads `reference/` into the code tables. An unchanged edition is left alone; a changed one gets a new data version. */
 export async function seed(knex: Knex): Promise<void> {
@@ -81,11 +81,15 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
       iecc_full_auto_on_item: row.iecc?.fullAutoOnItem ?? null,
       iecc_sensor_function: row.iecc?.sensorFunction ?? null,
       iecc_light_reduction_exempt_item: row.iecc?.lightReductionExemptItem ?? null,
+      iecc_time_switch_exempt_item: row.iecc?.timeSwitchExemptItem ?? null,
+      iecc_sleeping_unit: row.iecc ? row.iecc.sleepingUnit : null,
       iecc_note: row.iecc?.note ?? null,
       ...provenanceColumns(row),
     })),
   );
 
+  // A derived cell is only as sure as the strategy it derives: a rule input from an unverified strategy is unverified too.
+  const strategyVerified = new Map(reference.controlStrategies.strategies.map((strategy) => [strategy.key, strategy.verified]));
   const controls = reference.spaceTypes.rows.flatMap((row) => {
     if (row.iecc && row.daylight) {
       const derived = deriveIeccControls(row.iecc, {
@@ -99,7 +103,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
         requirement: cell.requirement,
         source: strategy.startsWith('daylight-') ? row.source : 'derived from the C405.2.1 rule inputs of this space type',
         confidence: row.confidence,
-        verified: row.verified && !strategy.startsWith('daylight-') ? true : false,
+        verified: row.verified && !strategy.startsWith('daylight-') && (strategyVerified.get(strategy as StrategyKey) ?? false),
         note: strategy.startsWith('daylight-') ? `${cell.why}: ${row.daylight!.note}` : cell.why,
         from_memory: null,
       }));
@@ -186,6 +190,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
     daylight_primary_depth_head_heights: rules.daylight.primaryDepthHeadHeights,
     daylight_secondary_depth_head_heights: rules.daylight.secondaryDepthHeadHeights,
     daylight_toplit_extension_ceiling_heights: rules.daylight.toplitExtensionCeilingHeights,
+    daylight_overlap_precedence: rules.daylight.overlapPrecedence ?? null,
     daylight_provenance: JSON.stringify(rules.daylight.provenance),
     room_geometry_increase_percent: rules.roomGeometry?.increasePercent ?? null,
     room_geometry_provenance: rules.roomGeometry ? JSON.stringify(rules.roomGeometry.provenance) : null,

@@ -226,7 +226,10 @@ describe('loadEditionData', () => {
   it('gives IECC space types their rule inputs and derived controls', async () => {
     const data = await loadEditionData(database.db, 'iecc-2021');
     const enclosed = data!.spaceTypes.find((space) => space.key === 'office-enclosed')!;
-    expect(enclosed.iecc).toEqual({ occupantSensorListed: true, fullAutoOnAllowed: false, sensorFunction: 'general', lightReductionExemptItem: null }); // IECC 2021 C405.2.1 item 5
+    expect(enclosed.iecc).toEqual({ occupantSensorListed: true, fullAutoOnAllowed: false, sensorFunction: 'general', lightReductionExemptItem: null, timeSwitchExemptItem: null, sleepingUnit: false }); // IECC 2021 C405.2.1 item 5
+    // C405.2.2 exception and sleeping-unit controls (from memory, flagged in the data's notes).
+    const dormitory = data!.spaceTypes.find((space) => space.key === 'dormitory-living-quarters')!;
+    expect(dormitory.iecc).toMatchObject({ timeSwitchExemptItem: 'sleeping units', sleepingUnit: true });
     // C405.2.3 exceptions as Washington's 2021 text states them ([S-ed]): corridors, lobbies, electrical and mechanical rooms.
     const corridor = data!.spaceTypes.find((space) => space.key === 'corridor-otherwise')!;
     expect(corridor.iecc?.lightReductionExemptItem).toBe('corridors');
@@ -235,6 +238,13 @@ describe('loadEditionData', () => {
     expect(enclosed.controls['occupant-sensor']).toBe('required');
     expect(data!.rules.smallEnclosedSpaceFt2).toBe('300'); // IECC 2021 C405.2.1 item 12
     expect(data!.rules.roomGeometry).toBeNull();
+    // The sidelit zones count together at more than 150 W (C405.2.4 item 1, from memory).
+    expect(data!.rules.daylight.combinedSidelitThresholdW).toBe('150');
+  });
+
+  it('gives 90.1 the overlap of toplit and primary sidelit areas to the primary sidelit area (from memory)', async () => {
+    const data = await loadEditionData(database.db, 'ashrae-90.1-2019');
+    expect(data!.rules.daylight.overlapPrecedence).toEqual(['primary-sidelit', 'toplit', 'secondary-sidelit']);
   });
 
   it('is undefined for an unknown edition or data version', async () => {

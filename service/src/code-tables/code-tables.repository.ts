@@ -50,6 +50,8 @@ export interface IeccRuleView {
   fullAutoOnItem: string | null;
   sensorFunction: NonNullable<SpaceType['iecc']>['sensorFunction'];
   lightReductionExemptItem: string | null;
+  timeSwitchExemptItem: string | null;
+  sleepingUnit: boolean;
   note?: string;
 }
 
@@ -224,6 +226,8 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
         fullAutoOnItem: row.iecc_full_auto_on_item,
         sensorFunction: row.iecc_sensor_function,
         lightReductionExemptItem: row.iecc_light_reduction_exempt_item,
+        timeSwitchExemptItem: row.iecc_time_switch_exempt_item ?? null,
+        sleepingUnit: row.iecc_sleeping_unit ?? false,
         ...(row.iecc_note ? { note: row.iecc_note } : {}),
       };
     }
@@ -322,6 +326,7 @@ export async function getRules(db: Database, version: EditionVersion): Promise<R
       primaryDepthHeadHeights: row.daylight_primary_depth_head_heights,
       secondaryDepthHeadHeights: row.daylight_secondary_depth_head_heights,
       toplitExtensionCeilingHeights: row.daylight_toplit_extension_ceiling_heights,
+      ...(row.daylight_overlap_precedence ? { overlapPrecedence: row.daylight_overlap_precedence } : {}),
       provenance: taggedProvenance(row.daylight_provenance),
     },
     roomGeometry:
@@ -393,6 +398,8 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
                 fullAutoOnAllowed: row.iecc.fullAutoOnAllowed,
                 sensorFunction: row.iecc.sensorFunction,
                 lightReductionExemptItem: row.iecc.lightReductionExemptItem,
+                timeSwitchExemptItem: row.iecc.timeSwitchExemptItem,
+                sleepingUnit: row.iecc.sleepingUnit,
               },
             }
           : {}),

@@ -55,6 +55,10 @@ export const ieccInputs = z.object({
   sensorFunction: z.enum(['general', 'warehouse', 'open-office', 'corridor', 'parking-garage']),
   /** The C405.2.3 exception list item that frees this space type from light-reduction control, if any. */
   lightReductionExemptItem: z.string().nullable().default(null),
+  /** The C405.2.2 exception list item that frees this space type from time-switch control, if any. */
+  timeSwitchExemptItem: z.string().nullable().default(null),
+  /** A sleeping or dwelling unit, whose lighting has its own controls. */
+  sleepingUnit: z.boolean().default(false),
   note: z.string().optional(),
 });
 
@@ -125,6 +129,7 @@ export const rulesFileSchema = z.object({
     primaryDepthHeadHeights: decimal,
     secondaryDepthHeadHeights: decimal,
     toplitExtensionCeilingHeights: decimal,
+    overlapPrecedence: z.array(z.enum(['primary-sidelit', 'secondary-sidelit', 'toplit'])).length(3).optional(),
     provenance: provenanceObject,
   }),
   roomGeometry: z.object({ increasePercent: decimal, provenance: provenanceObject }).nullable(),

@@ -39,6 +39,8 @@ export const ranges = {
   exteriorQuantity: { min: 'zero', max: '100000000' },
   /** Installed watts of one exterior application. */
   exteriorWatts: { min: 'zero', max: '10000000' },
+  /** A share of the lighting power, %. */
+  percent: { min: 'zero', max: '100' },
   /** A control's time-out: a day at most. */
   timeoutMinutes: { min: 'zero', max: '1440' },
 } as const satisfies Record<string, NumberRange>;

@@ -29,6 +29,10 @@ export const controlExceptionReasons = [
   'security-or-emergency-continuous',
   'exit-stairway-ramp-passageway',
   'egress-normally-off',
+  /** IECC C405.2.2: lighting intended for continuous operation needs no time switch. */
+  'continuous-operation',
+  /** For a requirement the product cannot settle ("to verify"): the engineer checked the adopted code and it does not apply here. */
+  'verified-not-required',
   'other',
 ] as const;
 
@@ -58,6 +62,8 @@ export const controlSchema = z.object({
   timeoutMinutes: decimalField(ranges.timeoutMinutes).optional(),
   /** Floor area one device or zone of this control serves, ft² or m² (checked against the strategy's zone size limit where one is stated). */
   zoneSize: decimalField(ranges.area).optional(),
+  /** How far the control reduces the lighting power when it acts (partial OFF, light reduction), %. */
+  reductionPercent: decimalField(ranges.percent).optional(),
   /** For occupant sensors: how lighting turns on. 'partial' means automatic-on to at most 50 %. */
   autoOn: z.enum(['manual', 'partial', 'full']).optional(),
   exceptionReason: z.enum(controlExceptionReasons).optional(),
@@ -363,8 +369,11 @@ function controlProblems(
     if (!strategies.has(strategy)) add(`${path}.${index}.strategy`, `“${strategy}” is not a control of ${edition.title}.`);
     if (seen.has(strategy)) add(`${path}.${index}.strategy`, `This control is listed more than once.`);
     seen.add(strategy);
-    if (control['exceptionReason'] === 'other' && word(control['exceptionNote']) === undefined) {
-      add(`${path}.${index}.exceptionNote`, 'Say which exception is claimed.');
+    if ((control['exceptionReason'] === 'other' || control['exceptionReason'] === 'verified-not-required') && word(control['exceptionNote']) === undefined) {
+      add(`${path}.${index}.exceptionNote`, control['exceptionReason'] === 'other' ? 'Say which exception is claimed.' : 'Say where in the adopted code it was checked.');
+    }
+    if (control['exceptionReason'] === 'continuous-operation' && strategy !== 'time-switch') {
+      add(`${path}.${index}.exceptionReason`, 'Continuous operation frees lighting from the time switch only.');
     }
   });
 }

@@ -104,6 +104,10 @@ export interface SpaceType {
     sensorFunction: 'general' | 'warehouse' | 'open-office' | 'corridor' | 'parking-garage';
     /** The C405.2.3 exception list item (e.g. "corridors") that frees this space type from light-reduction control. */
     lightReductionExemptItem?: string | null;
+    /** The C405.2.2 exception list item (e.g. "sleeping units") that frees this space type from time-switch control. */
+    timeSwitchExemptItem?: string | null;
+    /** A dwelling or sleeping unit (guest room, dormitory, sleeping quarters): its own controls apply (C405.2.5). */
+    sleepingUnit?: boolean;
   };
   provenance: Provenance;
 }
@@ -159,6 +163,11 @@ export interface EditionRules {
     secondaryDepthHeadHeights: string;
     /** Toplit zone extends this many ceiling heights beyond each skylight edge. */
     toplitExtensionCeilingHeights: string;
+    /**
+     * Which zone keeps a piece of floor that two zones reach, first to last. Absent: toplit, then
+     * primary sidelit, then secondary sidelit.
+     */
+    overlapPrecedence?: ('primary-sidelit' | 'secondary-sidelit' | 'toplit')[];
     provenance: Provenance;
   };
   /** 90.1 §9.6.3 room-geometry increase; null for IECC. */

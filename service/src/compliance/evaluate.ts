@@ -1,4 +1,4 @@
-import { type SpaceControlFacts, interiorRequirements, linesComply, resolveControls } from './controls.js';
+import { type DaylightTrigger, type SpaceControlFacts, interiorRequirements, linesComply, openLines, resolveControls } from './controls.js';
 import type { EvaluationDocument, Space } from './document.js';
 import type { EditionData, Provenance, SpaceType } from './edition-data.js';
 import { evaluateExterior } from './exterior.js';
@@ -116,7 +116,8 @@ function spaceWatts(space: Space, document: EvaluationDocument, edition: Edition
 
 interface DaylightOutcome {
   result: DaylightResult;
-  why: { sidelighting: string; toplighting: string };
+  sidelighting: DaylightTrigger;
+  toplighting: DaylightTrigger;
 }
 
 function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: UnitSystem, unverified: Unverified, cautions: string[]): DaylightOutcome {
@@ -149,33 +150,51 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   }
   const windowArea = sum(
     space.windows.map((window) => {
+      // Without a sill the glazing is counted from the floor: the larger area never clears a requirement.
+      if (window.sillHeight === undefined) unverified.note('Window sill height', 'common practice', 'No sill height given for some windows: their area is counted from the floor.');
       const height = dec(window.headHeight).minus(dec(window.sillHeight ?? '0'));
       return areaToSquareFeet(dec(window.width).times(height), units);
     }),
   );
-  const primaryW = watts.zoneW['primary-sidelit'];
-  const secondaryW = watts.zoneW['secondary-sidelit'];
-  const toplitW = watts.zoneW.toplit;
-  const comparison = rules.comparison === 'at-least' ? 'at least' : 'more than';
+  const zoneAreas = { 'primary-sidelit': areas.primarySidelit, 'secondary-sidelit': areas.secondarySidelit, toplit: areas.toplit } as const;
+  const assigned = watts.zoneW['primary-sidelit'].plus(watts.zoneW['secondary-sidelit']).plus(watts.zoneW.toplit);
+  // With zones on the plan, general lighting and none of it assigned to a zone, the zone watts are
+  // estimated from each zone's share of the floor; an estimate can make a control required, but
+  // below the threshold it leaves the question open rather than passing it.
+  const roomArea = length !== undefined && width !== undefined ? length.times(width) : ZERO;
+  const estimated = assigned.isZero() && watts.general.greaterThan(0) && roomArea.greaterThan(0) && sum(Object.values(zoneAreas)).greaterThan(0);
+  const zoneWatts = (kind: keyof typeof zoneAreas): Dec => (estimated ? min(watts.general, watts.general.times(zoneAreas[kind]).dividedBy(roomArea)) : watts.zoneW[kind]);
+  const primaryW = zoneWatts('primary-sidelit');
+  const secondaryW = zoneWatts('secondary-sidelit');
+  const toplitW = zoneWatts('toplit');
+  const estimateWords = estimated ? ' (estimated from the zone’s share of the floor area: no luminaires are assigned to daylight zones)' : '';
+  const at = (threshold: string) => (rules.comparison === 'at-least' ? `${threshold} W or more` : `more than ${threshold} W`);
+  const watt = (value: Dec) => `${value.toDecimalPlaces(1).toFixed()} W`;
   const windowException = rules.minimumWindowAreaFt2 !== null && windowArea.lessThan(dec(rules.minimumWindowAreaFt2));
   const primaryTriggers = comparesAt(primaryW, dec(rules.primarySidelitThresholdW), rules.comparison);
-  const sidelightingControlRequired = primaryTriggers && !windowException;
   const combined = primaryW.plus(secondaryW);
-  const secondarySidelightingControlRequired =
-    rules.combinedSidelitThresholdW !== null && !windowException && comparesAt(combined, dec(rules.combinedSidelitThresholdW), rules.comparison);
+  const combinedTriggers = rules.combinedSidelitThresholdW !== null && comparesAt(combined, dec(rules.combinedSidelitThresholdW), rules.comparison);
+  // 90.1 §9.4.1.1(e): the primary area alone at 150 W, or primary and secondary together at 300 W; the
+  // edition data says which thresholds apply (IECC's sidelit zones count together).
+  const sidelightingControlRequired = (primaryTriggers || combinedTriggers) && !windowException;
+  const secondarySidelightingControlRequired = combinedTriggers && !windowException;
   const toplightingControlRequired = comparesAt(toplitW, dec(rules.toplitThresholdW), rules.comparison);
-  const reasons: string[] = [];
-  let sidelighting = `primary sidelit general lighting ${primaryW.toFixed()} W; required at ${comparison} ${rules.primarySidelitThresholdW} W`;
-  if (windowException && primaryTriggers) {
-    sidelighting += `, but the window area ${windowArea.toFixed()} ft² is below ${rules.minimumWindowAreaFt2} ft²`;
+
+  const sidelitThresholds = [`primary sidelit general lighting ${watt(primaryW)}, required at ${at(rules.primarySidelitThresholdW)}`];
+  if (rules.combinedSidelitThresholdW !== null) sidelitThresholds.push(`primary and secondary together ${watt(combined)}, required at ${at(rules.combinedSidelitThresholdW)}`);
+  let sidelighting = `${sidelitThresholds.join('; ')}${estimateWords}`;
+  if (windowException && (primaryTriggers || combinedTriggers)) {
+    sidelighting += `; but the window area of ${windowArea.toDecimalPlaces(1).toFixed()} ft² is below ${rules.minimumWindowAreaFt2} ft²`;
   }
-  reasons.push(`Sidelighting: ${sidelighting}.`);
-  if (rules.combinedSidelitThresholdW !== null) {
-    reasons.push(`Secondary sidelighting: primary + secondary ${combined.toFixed()} W; required at ${comparison} ${rules.combinedSidelitThresholdW} W.`);
-  }
-  const toplighting = `toplit general lighting ${toplitW.toFixed()} W; required at ${comparison} ${rules.toplitThresholdW} W`;
+  const toplighting = `toplit general lighting ${watt(toplitW)}, required at ${at(rules.toplitThresholdW)}${estimateWords}`;
+  const trigger = (required: boolean, why: string, hasZone: boolean): DaylightTrigger => {
+    if (required) return { requirement: 'required', why };
+    if (estimated && hasZone) return { requirement: 'to-verify', why: `${why}; assign the luminaires in the zone to settle it` };
+    return { requirement: 'not-required', why };
+  };
+  const reasons: string[] = [`Sidelighting: ${sidelighting}.`];
+  if (secondarySidelightingControlRequired) reasons.push('Secondary sidelighting: the secondary sidelit zone is controlled separately from the primary.');
   reasons.push(`Toplighting: ${toplighting}.`);
-  const zoneAreas = { 'primary-sidelit': areas.primarySidelit, 'secondary-sidelit': areas.secondarySidelit, toplit: areas.toplit } as const;
   for (const kind of ['primary-sidelit', 'secondary-sidelit', 'toplit'] as const) {
     if (watts.zoneW[kind].greaterThan(0) && zoneAreas[kind].isZero()) {
       cautions.push(`“${space.name}”: luminaires are assigned to the ${kind.replace('-', ' ')} zone, but the room's openings give no such zone.`);
@@ -205,15 +224,20 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
     })),
     section: [...new Set([edition.sections['daylightSidelighting'], edition.sections['daylightToplighting']])].filter(Boolean).join('; '),
   };
-  return { result, why: { sidelighting, toplighting } };
+  return {
+    result,
+    sidelighting: trigger(sidelightingControlRequired, sidelighting, zoneAreas['primary-sidelit'].plus(zoneAreas['secondary-sidelit']).greaterThan(0)),
+    toplighting: trigger(toplightingControlRequired, toplighting, zoneAreas.toplit.greaterThan(0)),
+  };
 }
 
 /** The room cavity ratio of a rectangular room, or null where the geometry is not given. */
-function spaceRcr(space: Space, units: UnitSystem, cautions: string[]): Dec | null {
+function spaceRcr(space: Space, units: UnitSystem, cautions: string[], unverified: Unverified): Dec | null {
   if (space.length === undefined || space.width === undefined) return null;
   const mounting = space.luminaireHeight ?? space.ceilingHeight;
   if (mounting === undefined) return null;
   const workPlane = space.workPlaneHeight === undefined ? defaultWorkPlaneFt : lengthToFeet(dec(space.workPlaneHeight), units);
+  if (space.workPlaneHeight === undefined) unverified.note('Work plane height', 'common practice', `No work plane height given for some spaces: ${defaultWorkPlaneFt.toFixed()} ft above the floor is assumed for the room cavity ratio.`);
   const cavity = lengthToFeet(dec(mounting), units).minus(workPlane);
   if (cavity.lessThanOrEqualTo(0)) {
     cautions.push(`“${space.name}”: luminaires are not above the work plane, so no room cavity ratio is computed.`);
@@ -267,7 +291,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       controlType = controlKey === undefined ? undefined : spaceTypes.get(controlKey);
     }
 
-    const rcr = spaceRcr(space, units, cautions);
+    const rcr = spaceRcr(space, units, cautions, spaceUnverified);
     let allowedLpd = baseLpd;
     let roomGeometryIncreaseApplied = false;
     const geometryRule = edition.rules.roomGeometry;
@@ -277,7 +301,20 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
         roomGeometryIncreaseApplied = true;
         spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance);
       } else if (controlType.rcrThreshold === null && controlType.rcrCondition !== undefined) {
-        cautions.push(`“${space.name}”: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`);
+        // Corridors carry "width < 8 ft" in the RCR column: a narrow corridor gets the increase.
+        const narrower = /width\s*<\s*(\d+(?:\.\d+)?)\s*ft/i.exec(controlType.rcrCondition);
+        const shorterSide = space.length !== undefined && space.width !== undefined ? lengthToFeet(min(dec(space.length), dec(space.width)), units) : null;
+        if (narrower && shorterSide !== null) {
+          if (shorterSide.lessThan(dec(narrower[1]!))) {
+            allowedLpd = baseLpd.times(dec(1).plus(dec(geometryRule.increasePercent).dividedBy(100)));
+            roomGeometryIncreaseApplied = true;
+            spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance);
+          }
+        } else if (narrower) {
+          cautions.push(`“${space.name}”: a corridor narrower than ${narrower[1]} ft gets the room-geometry increase; give its length and width to have it applied.`);
+        } else {
+          cautions.push(`“${space.name}”: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`);
+        }
       }
     }
 
@@ -295,22 +332,22 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     const installed = watts.general.plus(watts.decorative).plus(watts.display);
     const margin = allowance.minus(installed);
 
-    const { result: daylightOut, why: daylightWhy } = daylight(space, watts, edition, units, spaceUnverified, cautions);
+    const { result: daylightOut, sidelighting, toplighting } = daylight(space, watts, edition, units, spaceUnverified, cautions);
     const facts: SpaceControlFacts = {
       spaceType: controlType,
       areaFt2,
       enclosed: space.enclosed,
-      sidelightingRequired: daylightOut.sidelightingControlRequired,
+      sidelighting,
       secondarySidelightingRequired: daylightOut.secondarySidelightingControlRequired,
-      toplightingRequired: daylightOut.toplightingControlRequired,
-      daylightWhy,
+      toplighting,
       decorativeW: watts.decorative,
       displayW: watts.display,
       installedW: installed,
       nonExemptLuminaires: watts.lines.filter((line) => line.use !== 'exempt').map((line) => ({ count: dec(line.count), unitWatts: dec(line.unitWatts) })),
-      occupantSensorProvided: space.controls.some((control) => control.strategy === 'occupant-sensor' && control.provided),
+      provided: space.controls,
+      units,
     };
-    let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType, units);
+    let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType, units, areaFt2);
     if (controlType === undefined && edition.family === 'ashrae-90.1') {
       controls = [
         {
@@ -332,7 +369,8 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     }
     for (const line of controls) {
       const strategy = edition.controlStrategies.find((candidate) => candidate.key === line.strategy);
-      if (strategy && line.status !== 'not-required') spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance);
+      // A "not required" can rest on an unverified threshold just as a requirement can.
+      if (strategy) spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance);
       if (line.status === 'to-verify') spaceUnverified.note(`${space.id}: ${line.label}`, controlType?.provenance.source ?? 'not given', line.reason);
     }
     for (const value of spaceUnverified.values()) unverified.note(value.what, value.source, value.note);
@@ -436,13 +474,16 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
   const interiorLines = spaces.flatMap((space) => space.controls);
   const exteriorLines = exterior?.applications.flatMap((application) => application.controls) ?? [];
   const controlsComply = linesComply(interiorLines) && linesComply(exteriorLines);
-  if ([...interiorLines, ...exteriorLines].some((line) => line.status === 'to-verify')) {
-    cautions.push('Some control requirements could not be settled from public sources and are marked "to verify"; they do not fail the evaluation.');
+  const controlsToVerify = openLines(interiorLines) + openLines(exteriorLines);
+  if (controlsToVerify > 0) {
+    cautions.push(
+      `${controlsToVerify} control requirement(s) are marked "to verify": record what is provided, or that the adopted code was checked and it does not apply. Until then there is no verdict.`,
+    );
   }
 
   const emptySpaces = spaces.filter((space) => space.lighting === 'none-entered').length;
   const passes = interiorComplies && controlsComply && (exterior?.complies ?? true);
-  const verdict: EvaluationResult['verdict'] = !passes ? 'does-not-comply' : emptySpaces > 0 ? 'incomplete' : 'complies';
+  const verdict: EvaluationResult['verdict'] = !passes ? 'does-not-comply' : emptySpaces > 0 || controlsToVerify > 0 ? 'incomplete' : 'complies';
 
   return {
     edition: edition.id,
@@ -451,7 +492,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     units,
     complies: verdict === 'complies',
     verdict,
-    openItems: { spacesWithoutLuminaires: emptySpaces },
+    openItems: { spacesWithoutLuminaires: emptySpaces, controlsToVerify },
     interior: {
       section: allowanceSection,
       area: text(areaFromSquareFeet(sum(spaces.map((space) => space.areaFt2)), units)),

@@ -206,7 +206,7 @@ export interface EvaluationResult {
    */
   verdict: 'complies' | 'does-not-comply' | 'incomplete';
   /** What keeps the verdict from being settled. */
-  openItems: { spacesWithoutLuminaires: number };
+  openItems: { spacesWithoutLuminaires: number; controlsToVerify: number };
   interior: InteriorResult;
   exterior: ExteriorResult | null;
   controlsComply: boolean;

@@ -208,6 +208,7 @@ interface SpaceControlRow {
   provided: boolean;
   timeout_minutes: string | null;
   zone_size: string | null;
+  reduction_percent: string | null;
   auto_on: SpaceInput['controls'][number]['autoOn'] | null;
   device: string | null;
   exception_reason: SpaceInput['controls'][number]['exceptionReason'] | null;
@@ -292,6 +293,7 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
         provided: control.provided,
         timeoutMinutes: decimal(control.timeout_minutes),
         zoneSize: decimal(control.zone_size),
+        reductionPercent: decimal(control.reduction_percent),
         autoOn: control.auto_on,
         device: control.device,
         exceptionReason: control.exception_reason,
@@ -359,6 +361,7 @@ function controlRow(spaceId: string, control: SpaceInput['controls'][number]): R
     provided: control.provided,
     timeout_minutes: control.timeoutMinutes ?? null,
     zone_size: control.zoneSize ?? null,
+    reduction_percent: control.reductionPercent ?? null,
     auto_on: control.autoOn ?? null,
     device: control.device ?? null,
     exception_reason: control.exceptionReason ?? null,
