@@ -7,7 +7,7 @@ import * as projectResultSummary from './20261201000500_project_result_summary.j
 import * as designIntegrity from './20261202000200_design_integrity.js';
 import * as permitFields from './20261202000300_permit_fields.js';
 import * as workspaceFields from './20261202000400_workspace_fields.js';
-import * as controlReduction from './20261202000500_control_reduction.js';
+import * as ruleFields from './20261202000500_rule_fields.js';
 import * as ruleInputs from './20261202000600_rule_inputs.js';
 import * as sessions from './20261202001000_sessions.js';
 
@@ -26,7 +26,7 @@ const migrations: Record<string, Migration> = {
   '20261202000200_design_integrity': designIntegrity,
   '20261202000300_permit_fields': permitFields,
   '20261202000400_workspace_fields': workspaceFields,
-  '20261202000500_control_reduction': controlReduction,
+  '20261202000500_rule_fields': ruleFields,
   '20261202000600_rule_inputs': ruleInputs,
   '20261202001000_sessions': sessions,
 };

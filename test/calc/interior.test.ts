@@ -51,7 +51,8 @@ describe('space-by-space method', () => {
     method: 'space-by-space',
     units: 'ip',
     spaces: [
-      { id: 'eo', name: 'Enclosed offices', spaceType: types[0], area: 2000 },
+      // One entry for ten enclosed offices of 200 ft² each, so each is within the "≤ 250 ft²" row.
+      { id: 'eo', name: 'Enclosed offices', spaceType: types[0], area: 2000, rooms: 10 },
       { id: 'op', name: 'Open office', spaceType: types[1], area: 5000 },
       { id: 'cf', name: 'Conference', spaceType: types[2], area: 600 },
       { id: 'co', name: 'Corridor', spaceType: types[3], area: 1200 },
@@ -275,8 +276,8 @@ describe('external test cases (mechanics of area-weighting)', () => {
     const edition = {
       ...ashrae2019,
       spaceTypes: [
-        { ...ashrae2019.spaceTypes[0]!, key: 'guest-room', rcrThreshold: null, lpdWPerFt2: '1.14' },
-        { ...ashrae2019.spaceTypes[0]!, key: 'hotel-lobby', rcrThreshold: null, lpdWPerFt2: '1.10' },
+        { ...ashrae2019.spaceTypes[0]!, key: 'guest-room', sourceLabel: 'Guest Room', rcrThreshold: null, lpdWPerFt2: '1.14' },
+        { ...ashrae2019.spaceTypes[0]!, key: 'hotel-lobby', sourceLabel: 'Lobby | Hotel', rcrThreshold: null, lpdWPerFt2: '1.10' },
       ],
     };
     const hotel = (guestArea: number, guestDensity: string, lobbyDensity: string) =>

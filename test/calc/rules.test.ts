@@ -184,3 +184,76 @@ describe('"to verify" needs an answer', () => {
     expect(line(stated.controls, 'occupant-sensor').status).toBe('not-met');
   });
 });
+
+describe('sizes the space type names', () => {
+  it('refuses a 2,000 ft² room as an enclosed office of at most 250 ft², and names the row that fits (90.1-2019 Table 9.6.1 labels, via BESD)', async () => {
+    const { validateDocument } = await import('../../service/src/compliance/index.js');
+    const edition: EditionData = {
+      ...ashrae2019,
+      spaceTypes: [
+        ...ashrae2019.spaceTypes,
+        { ...ashrae2019.spaceTypes[0]!, key: 'office-enclosed-and-le-250-ft2', label: 'Office — Enclosed and ≤ 250 ft²', sourceLabel: 'Office | Enclosed and <= 250 ft2' },
+        { ...ashrae2019.spaceTypes[0]!, key: 'office-enclosed-and-gt-250-ft2', label: 'Office — Enclosed and > 250 ft²', sourceLabel: 'Office | Enclosed and > 250 ft2' },
+      ],
+    };
+    const document = (area: number, units: 'ip' | 'si' = 'ip'): EvaluationDocumentInput => ({
+      edition: edition.id,
+      method: 'space-by-space',
+      units,
+      spaces: [{ id: 's', name: 'Office', spaceType: 'office-enclosed-and-le-250-ft2', area }],
+    });
+    const outcome = validateDocument(document(2000), edition);
+    expect(outcome.problems).toEqual([
+      {
+        path: 'spaces.0.spaceType',
+        message: '“Office — Enclosed and ≤ 250 ft²” is for spaces at most 250 ft²; this one is 2000 ft². Choose “Office — Enclosed and > 250 ft²”. If this entry groups several rooms, give how many.',
+      },
+    ]);
+    // One entry for ten offices of 200 ft² each fits the row.
+    expect(validateDocument({ ...document(2000), spaces: [{ ...document(2000).spaces[0]!, rooms: 10 }] }, edition).problems).toEqual([]);
+    expect(validateDocument(document(250), edition).problems).toEqual([]);
+    // 25 m² = 269.1 ft² (1 ft² = 0.09290304 m², mathjs units): over 250 ft².
+    expect(validateDocument(document(25, 'si'), edition).problems.map((problem) => problem.path)).toEqual(['spaces.0.spaceType']);
+  });
+});
+
+describe('geometry that does not add up', () => {
+  it('refuses a floor area larger than its length × width and a window head above the ceiling', async () => {
+    const { validateDocument } = await import('../../service/src/compliance/index.js');
+    const document: EvaluationDocumentInput = {
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+      spaces: [{ id: 's', name: 'Room', spaceType: 'office-enclosed', area: 2500, length: 100, width: 20, ceilingHeight: 9, windows: [{ width: 4, headHeight: 10, wall: 'south' }] }],
+    };
+    expect(validateDocument(document, iecc2021).problems.map((problem) => problem.path).sort()).toEqual(['spaces.0.area', 'spaces.0.windows.0.headHeight']);
+  });
+
+  it('cautions where the area is much smaller than the rectangle (an L-shaped room)', () => {
+    const room = run(
+      { edition: 'iecc-2021', method: 'space-by-space', units: 'ip', spaces: [{ id: 's', name: 'Odd room', spaceType: 'office-enclosed', area: 100, length: 100, width: 20, unlit: true }] },
+      iecc2021,
+    );
+    expect(room.cautions.some((caution) => caution.includes('less than half of its length × width'))).toBe(true);
+  });
+});
+
+describe('exterior lighting zones', () => {
+  it('refuses a blank zone, and a zone whose allowances are only placeholders (IECC 2021 zone 0 in the dataset)', async () => {
+    const { validateDocument } = await import('../../service/src/compliance/index.js');
+    const edition: EditionData = {
+      ...iecc2021,
+      exteriorApplications: iecc2021.exteriorApplications.map((application) => (application.isBaseSiteAllowance ? { ...application, unverifiedZones: ['0'] } : application)),
+    };
+    const site = (lightingZone: string): EvaluationDocumentInput => ({
+      edition: 'iecc-2021',
+      method: 'building-area',
+      units: 'ip',
+      spaces: [{ id: 'b', name: 'Building', buildingAreaType: 'library', area: 1000 }],
+      exterior: { lightingZone, applications: [{ key: 'parking', quantity: 1000, installedWatts: 10 }] },
+    });
+    expect(validateDocument(site(''), edition).problems).toEqual([{ path: 'exterior.lightingZone', message: 'Choose the site’s exterior lighting zone.' }]);
+    expect(validateDocument(site('0'), edition).problems.map((problem) => problem.path)).toEqual(['exterior.lightingZone']);
+    expect(validateDocument(site('2'), edition).problems).toEqual([]);
+  });
+});

@@ -430,6 +430,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
           tradable: row.tradable,
           isBaseSiteAllowance: row.isBaseSiteAllowance,
           allowanceByZone: row.allowanceByZone,
+          ...(row.unverifiedZones.length ? { unverifiedZones: row.unverifiedZones } : {}),
           controls: row.controls,
           provenance: contractProvenance({ ...row, note: [row.note, zoneNote].filter(Boolean).join(' | ') }),
         },

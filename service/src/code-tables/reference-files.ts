@@ -87,6 +87,8 @@ export const exteriorApplicationRow = z.object({
   isBaseSiteAllowance: z.boolean(),
   allowanceByZone: z.record(z.string(), decimal),
   unverifiedZones: z.array(z.string()).optional(),
+  /** A zone value corrected from the source's obvious error; the source's own value, by zone. */
+  correctedFrom: z.record(z.string(), decimal).optional(),
   controls: z.partialRecord(strategyKey, requirement),
   sourceControlFlags: z.record(z.string(), z.string()),
   ...provenance,

@@ -1,5 +1,7 @@
 import { z } from 'zod';
-import type { EditionData } from './edition-data.js';
+import type { EditionData, SpaceType } from './edition-data.js';
+import { conditionWords, satisfies, sizeCondition } from './size-conditions.js';
+import { areaToSquareFeet, lengthToFeet } from './units.js';
 import { boundedDecimal, decimalField, documentLimits, listLimit, ranges, textField, textLimits } from './bounds.js';
 import { type Dec, dec } from './numbers.js';
 
@@ -103,6 +105,11 @@ export const spaceSchema = z.object({
   /** Work plane above the floor; 2.5 ft when absent (common practice). */
   workPlaneHeight: decimalField(ranges.heightAboveFloor).optional(),
   enclosed: z.boolean().optional(),
+  /**
+   * How many like rooms this entry stands for (a space-by-space entry may group them); a size in
+   * the space type's name applies to each room, so to the area divided by this. 1 when absent.
+   */
+  rooms: decimalField(ranges.rooms).optional(),
   /** The engineer confirms the space has no lighting; until then a space without luminaires is an open item, not a pass. */
   unlit: z.boolean().optional(),
   luminaires: z.array(luminaireGroupSchema).max(documentLimits.luminaireGroupsPerSpace, listLimit(documentLimits.luminaireGroupsPerSpace, 'luminaire types in one space')).default([]),
@@ -247,6 +254,8 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
   }
 
   const spaceTypes = new Set(edition.spaceTypes.map((type) => type.key));
+  const spaceTypesByKey = new Map(edition.spaceTypes.map((type) => [type.key, type]));
+  const units = doc['units'] === 'si' ? 'si' : 'ip';
   const buildingAreaTypes = new Set(edition.buildingAreaTypes.map((type) => type.key));
   const strategies = new Set(edition.controlStrategies.map((strategy) => strategy.key));
 
@@ -296,6 +305,7 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     if (spaceType !== undefined && !spaceTypes.has(spaceType)) add(`${path}.spaceType`, `${edition.title} has no space type “${spaceType}”.`);
     if (controlType !== undefined && !spaceTypes.has(controlType)) add(`${path}.controlSpaceType`, `${edition.title} has no space type “${controlType}”.`);
     if (areaType !== undefined && !buildingAreaTypes.has(areaType)) add(`${path}.buildingAreaType`, `${edition.title} has no building area type “${areaType}”.`);
+    if (spaceType !== undefined && spaceTypes.has(spaceType)) sizeProblem(edition, spaceTypesByKey.get(spaceType)!, space, units, `${path}.spaceType`, add);
 
     list(space['luminaires']).forEach((group, groupIndex) => {
       const tag = word(group['tag']);
@@ -312,7 +322,16 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     const ext = record(exterior);
     const zone = ext['lightingZone'];
     const zones = new Set(edition.lightingZones.map((lightingZone) => String(lightingZone.zone)));
-    if (present(zone) && !zones.has(String(zone).trim())) add('exterior.lightingZone', `${edition.title} has no lighting zone “${String(zone)}”.`);
+    const zoneText = present(zone) ? String(zone).trim() : '';
+    if (zoneText === '') add('exterior.lightingZone', 'Choose the site’s exterior lighting zone.');
+    else if (!zones.has(zoneText)) add('exterior.lightingZone', `${edition.title} has no lighting zone “${zoneText}”.`);
+    else {
+      // A zone whose every allowance is a placeholder would price the whole site at zero.
+      const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
+      if (base?.unverifiedZones?.includes(zoneText) && dec(base.allowanceByZone[zoneText] ?? '0').isZero()) {
+        add('exterior.lightingZone', `${edition.title}’s allowances for lighting zone ${zoneText} were not found in a public source, so the site cannot be priced in that zone; check the zone, or enter the site under the zone the authority having jurisdiction assigns.`);
+      }
+    }
     const applications = new Map(edition.exteriorApplications.map((application) => [application.key, application]));
     const seen = new Set<string>();
     list(ext['applications']).forEach((entry, index) => {
@@ -353,6 +372,31 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     });
   }
   return problems;
+}
+
+/**
+ * A space type whose name carries a size (an enclosed office of at most 250 ft²) fits only spaces
+ * of that size; the problem names the row of the same kind that fits, where there is one.
+ */
+function sizeProblem(edition: EditionData, type: SpaceType, space: Loose, units: 'ip' | 'si', path: string, add: (path: string, message: string) => void): void {
+  const condition = sizeCondition(type.sourceLabel);
+  if (condition === null) return;
+  const raw = condition.quantity === 'area' ? space['area'] : space['ceilingHeight'];
+  const value = decimalOrNull(raw);
+  if (value === null) return;
+  const rooms = condition.quantity === 'area' ? (decimalOrNull(space['rooms']) ?? dec(1)) : dec(1);
+  const measured = condition.quantity === 'area' ? areaToSquareFeet(value, units).dividedBy(rooms.isZero() ? 1 : rooms) : lengthToFeet(value, units);
+  if (satisfies(condition, measured)) return;
+  const kind = type.sourceLabel.split('|')[0]!.trim();
+  const fitting = edition.spaceTypes.find((other) => {
+    if (other.key === type.key || other.sourceLabel.split('|')[0]!.trim() !== kind) return false;
+    const otherCondition = sizeCondition(other.sourceLabel);
+    return otherCondition !== null && otherCondition.quantity === condition.quantity && satisfies(otherCondition, measured);
+  });
+  const grouped = !rooms.equals(1);
+  const size = condition.quantity === 'area' ? `${measured.toDecimalPlaces(0).toFixed()} ft²${grouped ? ' a room' : ''}` : `${measured.toDecimalPlaces(1).toFixed()} ft high`;
+  const hint = condition.quantity === 'area' && !grouped ? ' If this entry groups several rooms, give how many.' : '';
+  add(path, `“${type.label}” is for spaces ${conditionWords(condition)}; this one is ${size}.${fitting ? ` Choose “${fitting.label}”.` : ''}${hint}`);
 }
 
 function controlProblems(
@@ -417,6 +461,17 @@ function geometryProblems(doc: EvaluationDocument): DocumentProblem[] {
     });
     if (space.luminaireHeight !== undefined && space.ceilingHeight !== undefined && dec(space.luminaireHeight).greaterThan(dec(space.ceilingHeight))) {
       problems.push({ path: `${path}.luminaireHeight`, message: 'Luminaires cannot be above the ceiling.' });
+    }
+    // A room's floor area cannot exceed the rectangle that holds it (2 % for rounding the dimensions).
+    if (length !== undefined && width !== undefined && dec(space.area).greaterThan(length.times(width).times('1.02'))) {
+      problems.push({ path: `${path}.area`, message: `The floor area is larger than the room’s length × width (${length.times(width).toDecimalPlaces(2).toFixed()}); check the area or the dimensions.` });
+    }
+    if (space.ceilingHeight !== undefined) {
+      space.windows.forEach((window, windowIndex) => {
+        if (dec(window.headHeight).greaterThan(dec(space.ceilingHeight!))) {
+          problems.push({ path: `${path}.windows.${windowIndex}.headHeight`, message: 'The window head is above the ceiling.' });
+        }
+      });
     }
   });
   return problems;

@@ -124,6 +124,8 @@ export interface ExteriorApplication {
   isBaseSiteAllowance: boolean;
   /** Allowance per unit for lighting zones "0".."4"; decimal strings. */
   allowanceByZone: Record<string, string>;
+  /** Zones whose allowance here is not from a public source (a placeholder, or a corrected value). */
+  unverifiedZones?: string[];
   controls: Partial<Record<StrategyKey, RequirementCode>>;
   provenance: Provenance;
 }

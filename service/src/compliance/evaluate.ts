@@ -292,6 +292,9 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     }
 
     const rcr = spaceRcr(space, units, cautions, spaceUnverified);
+    if (space.length !== undefined && space.width !== undefined && dec(space.area).lessThan(dec(space.length).times(dec(space.width)).times('0.5'))) {
+      cautions.push(`“${space.name}”: the floor area is less than half of its length × width; daylight zones and the room cavity ratio are worked out on the rectangle.`);
+    }
     let allowedLpd = baseLpd;
     let roomGeometryIncreaseApplied = false;
     const geometryRule = edition.rules.roomGeometry;
@@ -417,6 +420,9 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       return value.greaterThan(largest) ? value : largest;
     }, ZERO);
     fixedUsable = min(fixed, sum(spaces.map((space) => space.uncoveredDisplay)));
+    if (claimLines.every((line) => line.allowance.fixedW === undefined)) {
+      unverified.note('Retail display fixed adder', 'not found in a public source', 'This edition’s fixed wattage added once per building to the retail display allowance was not found; none is counted, which can only understate the allowance.');
+    }
     const claimedSpaces = new Set(claims.map((claim) => claim.spaceId));
     const claimed = sum(claimLines.map((line) => line.claimed)).plus(fixed);
     additional = {
@@ -466,6 +472,9 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     for (const entry of document.exterior!.applications) {
       const application = edition.exteriorApplications.find((candidate) => candidate.key === entry.key)!;
       unverified.add(`Exterior allowance: ${application.label}`, application.provenance);
+      if (application.unverifiedZones?.includes(exterior.lightingZone)) {
+        unverified.note(`Exterior allowance: ${application.label}, zone ${exterior.lightingZone}`, application.provenance.source, `The allowance for lighting zone ${exterior.lightingZone} is not from the published table as it stands: ${application.provenance.note ?? 'verify it'}`);
+      }
     }
     const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
     if (base) unverified.add(`Exterior allowance: ${base.label}`, base.provenance);

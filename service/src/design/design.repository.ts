@@ -189,6 +189,7 @@ interface SpaceRow extends VersionedRow {
   luminaire_height: string | null;
   work_plane_height: string | null;
   enclosed: boolean | null;
+  rooms: number | null;
   unlit: boolean | null;
   updated_by_name?: string | null;
 }
@@ -284,6 +285,7 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
       luminaireHeight: decimal(row.luminaire_height),
       workPlaneHeight: decimal(row.work_plane_height),
       enclosed: row.enclosed,
+      rooms: row.rooms === null ? undefined : String(row.rooms),
       unlit: row.unlit,
     }) as Omit<SpaceInput, 'luminaires' | 'controls' | 'windows' | 'skylights'>),
     luminaires: (luminairesBySpace.get(row.id) ?? []).map((group) => defined({ tag: group.tag, count: String(group.count), zone: group.zone, luminaireTypeId: group.luminaire_type_id })),
@@ -335,6 +337,7 @@ function spaceColumns(input: Partial<SpaceInput>): Record<string, unknown> {
     luminaire_height: input.luminaireHeight,
     work_plane_height: input.workPlaneHeight,
     enclosed: input.enclosed,
+    rooms: input.rooms === undefined ? undefined : Number(input.rooms),
     unlit: input.unlit,
   };
   return Object.fromEntries(Object.entries(columns).map(([key, value]) => [key, value ?? null]));
