@@ -17,6 +17,16 @@ import { type Dec, dec } from './numbers.js';
  * `x`/`y` is its south-west corner. Absent offsets and positions centre the opening.
  */
 
+/**
+ * An object of known fields: any other field is refused by name, so a misspelt one (a
+ * `ceilingHieght`) is reported instead of silently ignored.
+ */
+function fields<Shape extends z.core.$ZodLooseShape>(shape: Shape) {
+  return z.strictObject(shape, {
+    error: (issue) => (issue.code === 'unrecognized_keys' ? `Unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((name) => `“${name}”`).join(', ')}: check the spelling.` : undefined),
+  });
+}
+
 const key = textField(textLimits.key, { required: true });
 const tag = textField(textLimits.tag, { required: true });
 const note = textField(textLimits.note, { required: true, multiline: true });
@@ -38,7 +48,7 @@ export const controlExceptionReasons = [
   'other',
 ] as const;
 
-export const luminaireTypeSchema = z.object({
+export const luminaireTypeSchema = fields({
   tag,
   description: textField(textLimits.description).default(''),
   /** Rated input watts per luminaire (for track: the specified watts of the luminaires on one run). */
@@ -52,13 +62,13 @@ export const luminaireTypeSchema = z.object({
   limitWatts: decimalField(ranges.limitWatts).optional(),
 });
 
-export const luminaireGroupSchema = z.object({
+export const luminaireGroupSchema = fields({
   tag,
   count: decimalField(ranges.count),
   zone: z.enum(daylightZoneKinds).optional(),
 });
 
-export const controlSchema = z.object({
+export const controlSchema = fields({
   strategy: key,
   provided: z.boolean(),
   timeoutMinutes: decimalField(ranges.timeoutMinutes).optional(),
@@ -73,7 +83,7 @@ export const controlSchema = z.object({
   device: textField(textLimits.device).optional(),
 });
 
-export const windowSchema = z.object({
+export const windowSchema = fields({
   width: decimalField(ranges.length),
   headHeight: decimalField(ranges.height),
   sillHeight: decimalField(ranges.heightAboveFloor).optional(),
@@ -81,14 +91,14 @@ export const windowSchema = z.object({
   wall: z.enum(walls).default('south'),
 });
 
-export const skylightSchema = z.object({
+export const skylightSchema = fields({
   length: decimalField(ranges.length),
   width: decimalField(ranges.length),
   x: decimalField(ranges.offset).optional(),
   y: decimalField(ranges.offset).optional(),
 });
 
-export const spaceSchema = z.object({
+export const spaceSchema = fields({
   id: key,
   name: textField(textLimits.name, { required: true }),
   level: textField(textLimits.level, { required: true }).optional(),
@@ -118,7 +128,7 @@ export const spaceSchema = z.object({
   skylights: z.array(skylightSchema).max(documentLimits.skylightsPerSpace, listLimit(documentLimits.skylightsPerSpace, 'skylights in one space')).default([]),
 });
 
-export const exteriorApplicationEntrySchema = z.object({
+export const exteriorApplicationEntrySchema = fields({
   key,
   /** ft² (m²), linear ft (m) or a count, as the application's unit says. */
   quantity: decimalField(ranges.exteriorQuantity),
@@ -126,15 +136,15 @@ export const exteriorApplicationEntrySchema = z.object({
   controls: z.array(controlSchema).max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls on one application')).default([]),
 });
 
-export const exteriorSchema = z.object({
+export const exteriorSchema = fields({
   lightingZone: z.union([z.string().max(10, 'Give the lighting zone as a number from 0 to 4.'), z.number()]).transform((zone) => String(zone).trim()),
   applications: z.array(exteriorApplicationEntrySchema).max(documentLimits.exteriorApplications, listLimit(documentLimits.exteriorApplications, 'exterior applications')).default([]),
 });
 
-export const retailDisplaySchema = z.object({
+export const retailDisplaySchema = fields({
   claims: z
     .array(
-      z.object({
+      fields({
         /** An additional-allowance key of the edition (e.g. a retail area category). */
         allowance: key,
         spaceId: key,
@@ -146,7 +156,7 @@ export const retailDisplaySchema = z.object({
     .default([]),
 });
 
-export const evaluationDocumentSchema = z.object({
+export const evaluationDocumentSchema = fields({
   edition: key,
   method: z.enum(['building-area', 'space-by-space']),
   units: z.enum(['ip', 'si']),
