@@ -56,7 +56,8 @@ describe('properties', () => {
       fc.property(fc.array(spaceArbitrary, { minLength: 1, maxLength: 6 }), fc.integer({ min: 2, max: 9 }), (specs, factor) => {
         const base = dec(run(document(specs), ashrae2019).interior.allowanceW);
         const scaled = dec(run(document(specs, factor), ashrae2019).interior.allowanceW);
-        expect(scaled.equals(base.times(factor))).toBe(true);
+        // Both are reported to 0.1 W, so they agree within the rounding of each (0.05 W, and 0.05 W × factor).
+        expect(scaled.minus(base.times(factor)).abs().lessThanOrEqualTo(dec('0.05').times(factor + 1))).toBe(true);
       }),
       { numRuns: 50 },
     );

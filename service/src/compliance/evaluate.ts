@@ -4,7 +4,7 @@ import type { EditionData, Provenance, SpaceType } from './edition-data.js';
 import { evaluateExterior } from './exterior.js';
 import { type RoomPlan, daylightAreas, rectangularRoomCavityRatio } from './geometry.js';
 import { unitWattage } from './installed.js';
-import { type Dec, ZERO, dec, min, sum, text } from './numbers.js';
+import { type Dec, ZERO, dec, min, reported, sum, text } from './numbers.js';
 import type {
   AdditionalAllowanceResult,
   ControlLine,
@@ -61,7 +61,7 @@ function comparesAt(value: Dec, threshold: Dec, comparison: 'at-least' | 'more-t
 }
 
 function percent(part: Dec, whole: Dec): string | null {
-  return whole.isZero() ? null : text(part.dividedBy(whole).times(100));
+  return whole.isZero() ? null : reported.percent(part.dividedBy(whole).times(100));
 }
 
 interface SpaceWatts {
@@ -96,12 +96,12 @@ function spaceWatts(space: Space, document: EvaluationDocument, edition: Edition
     const count = dec(group.count);
     const watts = count.times(wattage.watts);
     const section = wattage.usesTrackRule ? (edition.sections['trackLighting'] ?? installedSection) : installedSection;
-    const line: LuminaireLine = { tag: type.tag, use: type.use, count: text(count), unitWatts: text(wattage.watts), watts: text(watts), basis: wattage.basis, section };
+    const line: LuminaireLine = { tag: type.tag, use: type.use, count: text(count), unitWatts: reported.watts(wattage.watts), watts: reported.watts(watts), basis: wattage.basis, section };
     if (group.zone !== undefined) line.zone = group.zone;
     result.lines.push(line);
     if (type.use === 'exempt') {
       result.exemptW = result.exemptW.plus(watts);
-      result.exempt.push({ tag: type.tag, count: text(count), watts: text(watts), reason: type.exemptReason ?? '', section: edition.sections['exemptLighting'] ?? '' });
+      result.exempt.push({ tag: type.tag, count: text(count), watts: reported.watts(watts), reason: type.exemptReason ?? '', section: edition.sections['exemptLighting'] ?? '' });
     } else if (type.use === 'decorative') {
       result.decorative = result.decorative.plus(watts);
     } else if (type.use === 'display') {
@@ -200,16 +200,16 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
       cautions.push(`“${space.name}”: luminaires are assigned to the ${kind.replace('-', ' ')} zone, but the room's openings give no such zone.`);
     }
   }
-  const out = (value: Dec) => text(lengthFromFeet(value, units));
+  const out = (value: Dec) => reported.length(lengthFromFeet(value, units));
   const result: DaylightResult = {
     geometryEvaluated: geometryEvaluated && hasOpenings,
-    windowArea: text(areaFromSquareFeet(windowArea, units)),
-    primarySidelitArea: text(areaFromSquareFeet(areas.primarySidelit, units)),
-    secondarySidelitArea: text(areaFromSquareFeet(areas.secondarySidelit, units)),
-    toplitArea: text(areaFromSquareFeet(areas.toplit, units)),
-    primarySidelitW: text(primaryW),
-    secondarySidelitW: text(secondaryW),
-    toplitW: text(toplitW),
+    windowArea: reported.area(areaFromSquareFeet(windowArea, units)),
+    primarySidelitArea: reported.area(areaFromSquareFeet(areas.primarySidelit, units)),
+    secondarySidelitArea: reported.area(areaFromSquareFeet(areas.secondarySidelit, units)),
+    toplitArea: reported.area(areaFromSquareFeet(areas.toplit, units)),
+    primarySidelitW: reported.watts(primaryW),
+    secondarySidelitW: reported.watts(secondaryW),
+    toplitW: reported.watts(toplitW),
     sidelightingControlRequired,
     secondarySidelightingControlRequired,
     toplightingControlRequired,
@@ -269,7 +269,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     return { claim, allowance, claimed: dec(allowance.lpdWPerFt2).times(areaFt2) };
   });
 
-  const spaces: (SpaceResult & { allowance: Dec; installed: Dec; areaFt2: Dec; uncoveredDisplay: Dec })[] = document.spaces.map((space) => {
+  const spaces: (SpaceResult & { allowance: Dec; installed: Dec; areaFt2: Dec; uncoveredDisplay: Dec; exact: { exempt: Dec; decorative: Dec; display: Dec; additional: Dec } })[] = document.spaces.map((space) => {
     const spaceUnverified = new Unverified();
     const areaFt2 = areaToSquareFeet(dec(space.area), units);
     const watts = spaceWatts(space, document, edition, spaceUnverified);
@@ -384,20 +384,20 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       level: space.level ?? null,
       area: space.area,
       lpdBasis,
-      allowanceW: text(allowance),
-      additionalAllowanceW: text(additional),
-      installedW: text(installed),
-      generalW: text(watts.general),
-      decorativeW: text(watts.decorative),
-      displayW: text(watts.display),
-      exemptW: text(watts.exemptW),
-      allowedLpd: text(densityFromPerSquareFoot(allowedLpd, units)),
-      installedLpd: text(densityFromPerSquareFoot(installed.dividedBy(areaFt2), units)),
+      allowanceW: reported.watts(allowance),
+      additionalAllowanceW: reported.watts(additional),
+      installedW: reported.watts(installed),
+      generalW: reported.watts(watts.general),
+      decorativeW: reported.watts(watts.decorative),
+      displayW: reported.watts(watts.display),
+      exemptW: reported.watts(watts.exemptW),
+      allowedLpd: reported.density(densityFromPerSquareFoot(allowedLpd, units)),
+      installedLpd: reported.density(densityFromPerSquareFoot(installed.dividedBy(areaFt2), units)),
       withinAllowance: installed.lessThanOrEqualTo(allowance),
-      marginW: text(margin),
+      marginW: reported.watts(margin),
       marginPct: percent(margin, allowance),
       lighting,
-      rcr: rcr === null ? null : text(rcr),
+      rcr: rcr === null ? null : reported.ratio(rcr),
       roomGeometryIncreaseApplied,
       luminaires: watts.lines,
       daylight: daylightOut,
@@ -408,6 +408,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       allowance: lighting === 'unlit' ? ZERO : allowance,
       installed,
       areaFt2,
+      exact: { exempt: watts.exemptW, decorative: watts.decorative, display: watts.display, additional },
       uncoveredDisplay: own.length > 0 ? watts.display.minus(additional) : ZERO,
     };
   });
@@ -431,13 +432,13 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
         label: line.allowance.label,
         spaceId: line.claim.spaceId,
         area: line.claim.area,
-        claimedW: text(line.claimed),
+        claimedW: reported.watts(line.claimed),
         section: edition.sections['additionalAllowances'] ?? '',
       })),
-      fixedW: text(fixed),
-      claimedW: text(claimed),
-      displayW: text(sum(spaces.filter((space) => claimedSpaces.has(space.id)).map((space) => dec(space.displayW)))),
-      usableW: text(sum(spaces.map((space) => dec(space.additionalAllowanceW))).plus(fixedUsable)),
+      fixedW: reported.watts(fixed),
+      claimedW: reported.watts(claimed),
+      displayW: reported.watts(sum(spaces.filter((space) => claimedSpaces.has(space.id)).map((space) => space.exact.display))),
+      usableW: reported.watts(sum(spaces.map((space) => space.exact.additional)).plus(fixedUsable)),
     };
   }
 
@@ -459,9 +460,9 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       return {
         level,
         area: text(sum(members.map((space) => dec(space.area)))),
-        allowanceW: text(allowance),
-        installedW: text(installed),
-        marginW: text(allowance.minus(installed)),
+        allowanceW: reported.watts(allowance),
+        installedW: reported.watts(installed),
+        marginW: reported.watts(allowance.minus(installed)),
       };
     });
   }
@@ -504,17 +505,17 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     openItems: { spacesWithoutLuminaires: emptySpaces, controlsToVerify },
     interior: {
       section: allowanceSection,
-      area: text(areaFromSquareFeet(sum(spaces.map((space) => space.areaFt2)), units)),
-      allowanceW: text(allowanceW),
-      installedW: text(installedW),
-      exemptW: text(sum(spaces.map((space) => dec(space.exemptW)))),
-      decorativeW: text(sum(spaces.map((space) => dec(space.decorativeW)))),
-      displayW: text(sum(spaces.map((space) => dec(space.displayW)))),
-      marginW: text(interiorMargin),
+      area: reported.area(areaFromSquareFeet(sum(spaces.map((space) => space.areaFt2)), units)),
+      allowanceW: reported.watts(allowanceW),
+      installedW: reported.watts(installedW),
+      exemptW: reported.watts(sum(spaces.map((space) => space.exact.exempt))),
+      decorativeW: reported.watts(sum(spaces.map((space) => space.exact.decorative))),
+      displayW: reported.watts(sum(spaces.map((space) => space.exact.display))),
+      marginW: reported.watts(interiorMargin),
       marginPct: percent(interiorMargin, allowanceW),
       complies: interiorComplies,
       additional,
-      spaces: spaces.map(({ allowance: _allowance, installed: _installed, areaFt2: _areaFt2, uncoveredDisplay: _uncovered, ...space }) => space),
+      spaces: spaces.map(({ allowance: _allowance, installed: _installed, areaFt2: _areaFt2, uncoveredDisplay: _uncovered, exact: _exact, ...space }) => space),
       levels,
     },
     exterior,
