@@ -9,6 +9,7 @@ import * as permitFields from './20261202000300_permit_fields.js';
 import * as workspaceFields from './20261202000400_workspace_fields.js';
 import * as ruleFields from './20261202000500_rule_fields.js';
 import * as ruleInputs from './20261202000600_rule_inputs.js';
+import * as editionAmendments from './20261202000700_edition_amendments.js';
 import * as sessions from './20261202001000_sessions.js';
 
 interface Migration {
@@ -28,6 +29,7 @@ const migrations: Record<string, Migration> = {
   '20261202000400_workspace_fields': workspaceFields,
   '20261202000500_rule_fields': ruleFields,
   '20261202000600_rule_inputs': ruleInputs,
+  '20261202000700_edition_amendments': editionAmendments,
   '20261202001000_sessions': sessions,
 };
 

@@ -202,6 +202,23 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
     base_site_provenance: JSON.stringify(rules.baseSite.provenance),
   });
 
+  if (reference.amendments.rows.length) {
+    await trx('edition_amendments').insert(
+      reference.amendments.rows.map((row, position) => ({
+        ...version,
+        key: row.key,
+        position,
+        title: row.title,
+        jurisdiction: row.jurisdiction,
+        parameters: JSON.stringify(row.parameters),
+        source: row.source,
+        confidence: row.confidence,
+        verified: row.verified,
+        note: row.note,
+      })),
+    );
+  }
+
   await trx('edition_sections').insert(
     Object.entries(rules.sections).map(([key, section]) => ({ ...version, key, section: section.section, tag: section.tag, verified: section.verified, note: section.note })),
   );

@@ -1,6 +1,7 @@
 import type { Database } from '../db/database.js';
 import type {
   AdditionalAllowance,
+  Amendment,
   BuildingAreaType,
   CodeFamily,
   ControlStrategy,
@@ -307,6 +308,19 @@ function taggedProvenance(value: RowProvenance & { tag?: string }): Provenance {
   return contractProvenance({ ...value, note: [value.tag, value.note].filter(Boolean).join(' ') });
 }
 
+export interface AmendmentView extends RowProvenance {
+  key: string;
+  title: string;
+  jurisdiction: string;
+  parameters: Amendment['parameters'];
+}
+
+/** The jurisdiction amendments a project on this edition may choose. */
+export async function listAmendments(db: Database, version: EditionVersion): Promise<AmendmentView[]> {
+  const rows = await db('edition_amendments').where({ edition_id: version.edition.id, data_version: version.dataVersion }).orderBy('position');
+  return rows.map((row) => ({ key: row.key, title: row.title, jurisdiction: row.jurisdiction, parameters: row.parameters, ...provenanceOf({ ...row, from_memory: null }) }));
+}
+
 export async function getRules(db: Database, version: EditionVersion): Promise<RulesView> {
   const [row, sections] = await Promise.all([
     db('edition_rules').where(scope(version)).first(),
@@ -360,7 +374,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
   const cached = editionDataCache.get(cacheKey);
   if (cached) return cached;
 
-  const [buildingAreaTypes, spaceTypes, strategies, exterior, zones, allowances, rules] = await Promise.all([
+  const [buildingAreaTypes, spaceTypes, strategies, exterior, zones, allowances, rules, amendments] = await Promise.all([
     listBuildingAreaTypes(db, version),
     listSpaceTypes(db, version),
     listControlStrategies(db, version),
@@ -368,6 +382,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
     listLightingZones(db, version),
     listAdditionalAllowances(db, version),
     getRules(db, version),
+    listAmendments(db, version),
   ]);
   const { sections, smallEnclosedSpaceProvenance: _small, ...editionRules } = rules;
   const data: EditionData = {
@@ -448,6 +463,13 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
       }),
     ),
     rules: editionRules,
+    amendments: amendments.map((row): Amendment => ({
+      key: row.key,
+      title: row.title,
+      jurisdiction: row.jurisdiction,
+      parameters: row.parameters,
+      provenance: contractProvenance(row),
+    })),
   };
   editionDataCache.set(cacheKey, data);
   return data;

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { readFileSync, readdirSync } from 'node:fs';
+import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
@@ -140,7 +140,17 @@ export const rulesFileSchema = z.object({
   baseSite: z.object({ coversNontradable: z.boolean(), provenance: provenanceObject }),
 });
 
+export const amendmentRow = z.object({
+  key: z.string(),
+  title: z.string(),
+  jurisdiction: z.string(),
+  /** By strategy, the parameters the amendment sets in place of the edition's. */
+  parameters: z.partialRecord(strategyKey, z.record(z.string(), decimal)),
+  ...provenance,
+});
+
 const buildingAreaTypesFile = table(buildingAreaTypeRow);
+const amendmentsFile = table(amendmentRow);
 const spaceTypesFile = table(spaceTypeRow);
 const exteriorApplicationsFile = table(exteriorApplicationRow);
 const lightingZonesFile = table(lightingZoneRow);
@@ -159,6 +169,8 @@ export interface ReferenceEdition {
   additionalAllowances: z.infer<typeof additionalAllowancesFile>;
   controlStrategies: { edition: string; strategies: z.infer<typeof editionStrategyRow>[] };
   rules: z.infer<typeof rulesFileSchema>;
+  /** Jurisdiction amendments over this edition (amendments.json; none when the file is absent). */
+  amendments: z.infer<typeof amendmentsFile>;
   catalogue: z.infer<typeof catalogueSchema>;
 }
 
@@ -213,6 +225,9 @@ export function readReferenceEdition(id: EditionId, root = defaultReferenceRoot)
     additionalAllowances: parsed(additionalAllowancesFile, at('additional-allowances.json')) as ReferenceEdition['additionalAllowances'],
     controlStrategies: strategies,
     rules: parsed(rulesFileSchema, at('rules.json')) as ReferenceEdition['rules'],
+    amendments: existsSync(at('amendments.json'))
+      ? (parsed(amendmentsFile, at('amendments.json')) as ReferenceEdition['amendments'])
+      : { table: 'none', sourceFile: 'none', rows: [] },
     catalogue: parsed(catalogueSchema, path.join(root, 'control-strategies.json')) as ReferenceEdition['catalogue'],
   };
 }

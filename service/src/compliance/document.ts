@@ -164,6 +164,8 @@ export const evaluationDocumentSchema = fields({
   spaces: z.array(spaceSchema).min(1, 'At least one space is needed.').max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
   exterior: exteriorSchema.optional(),
   retailDisplay: retailDisplaySchema.optional(),
+  /** Jurisdiction amendments of the edition to apply (their keys); the model code alone when absent. */
+  amendments: z.array(key).max(10, listLimit(10, 'amendments')).default([]),
 });
 
 export type EvaluationDocumentInput = z.input<typeof evaluationDocumentSchema>;
@@ -354,6 +356,13 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       if (seen.has(applicationKey)) add(`${path}.key`, `Exterior application "${applicationKey}" is listed more than once.`);
       seen.add(applicationKey);
       controlProblems(entry['controls'], `${path}.controls`, strategies, edition, add);
+    });
+  }
+
+  const known = new Set((edition.amendments ?? []).map((amendment) => amendment.key));
+  if (Array.isArray(doc['amendments'])) {
+    (doc['amendments'] as unknown[]).forEach((amendment, index) => {
+      if (typeof amendment === 'string' && !known.has(amendment)) add(`amendments.${index}`, `${edition.title} has no jurisdiction amendment “${amendment}” here.`);
     });
   }
 

@@ -184,6 +184,15 @@ export interface EditionRules {
   baseSiteProvenance: Provenance;
 }
 
+/** A jurisdiction's amendment: its own values for some of the edition's parameters, chosen per project. */
+export interface Amendment {
+  key: string;
+  title: string;
+  jurisdiction: string;
+  parameters: Partial<Record<StrategyKey, Record<string, string>>>;
+  provenance: Provenance;
+}
+
 export interface EditionData {
   id: EditionId;
   family: CodeFamily;
@@ -201,4 +210,6 @@ export interface EditionData {
   lightingZones: LightingZone[];
   additionalAllowances: AdditionalAllowance[];
   rules: EditionRules;
+  /** Jurisdiction amendments a project may choose; none for most editions. */
+  amendments?: Amendment[];
 }

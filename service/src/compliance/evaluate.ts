@@ -1,6 +1,7 @@
 import { type DaylightTrigger, type SpaceControlFacts, interiorRequirements, linesComply, openLines, resolveControls } from './controls.js';
 import type { EvaluationDocument, Space } from './document.js';
 import type { EditionData, Provenance, SpaceType } from './edition-data.js';
+import { amendedEdition } from './amendments.js';
 import { evaluateExterior } from './exterior.js';
 import { type RoomPlan, daylightAreas, rectangularRoomCavityRatio } from './geometry.js';
 import { unitWattage } from './installed.js';
@@ -250,7 +251,8 @@ function spaceRcr(space: Space, units: UnitSystem, cautions: string[], unverifie
  * Evaluates a document that `validateDocument` accepted against one edition's tables. Pure: it
  * reads nothing but its arguments.
  */
-export function evaluate(document: EvaluationDocument, edition: EditionData): EvaluationResult {
+export function evaluate(document: EvaluationDocument, modelCode: EditionData): EvaluationResult {
+  const edition = amendedEdition(modelCode, document.amendments);
   const units = document.units;
   const unverified = new Unverified();
   const cautions: string[] = [...standingCautions];
@@ -502,6 +504,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     units,
     complies: verdict === 'complies',
     verdict,
+    amendments: (edition.amendments ?? []).filter((amendment) => document.amendments.includes(amendment.key)).map((amendment) => ({ key: amendment.key, title: amendment.title })),
     openItems: { spacesWithoutLuminaires: emptySpaces, controlsToVerify },
     interior: {
       section: allowanceSection,

@@ -205,6 +205,8 @@ export interface EvaluationResult {
    * needs is missing (see `openItems`), and 'complies' only when nothing is.
    */
   verdict: 'complies' | 'does-not-comply' | 'incomplete';
+  /** The jurisdiction amendments applied over the model code. */
+  amendments: { key: string; title: string }[];
   /** What keeps the verdict from being settled. */
   openItems: { spacesWithoutLuminaires: number; controlsToVerify: number };
   interior: InteriorResult;

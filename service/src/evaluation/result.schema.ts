@@ -110,6 +110,7 @@ export const evaluationResultSchema = z.strictObject({
   units: z.enum(['ip', 'si']),
   complies: z.boolean(),
   verdict: z.enum(['complies', 'does-not-comply', 'incomplete']),
+  amendments: z.array(z.strictObject({ key: z.string(), title: z.string() })),
   openItems: z.strictObject({ spacesWithoutLuminaires: z.number().int().nonnegative(), controlsToVerify: z.number().int().nonnegative() }),
   interior: z.strictObject({
     section: z.string(),
