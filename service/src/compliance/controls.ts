@@ -72,7 +72,7 @@ function tableRequirements(edition: EditionData, facts: SpaceControlFacts): Cont
   for (const strategy of strategyKeys) {
     const code = type.controls[strategy];
     if (code === undefined) continue;
-    const column = `${type.label}: ${code === 'required' ? 'required' : code.startsWith('one-of:') ? `at least one of group ${code.slice(7)}` : code === 'to-verify' ? 'not yet checked against the printed table' : 'not required'}`;
+    const column = `${type.label}: ${code === 'required' ? 'required' : code.startsWith('one-of:') ? 'one of a set of alternatives' : code === 'to-verify' ? 'not yet checked against the printed table' : 'not required'}`;
     if ((strategy === 'daylight-sidelighting' || strategy === 'daylight-toplighting') && code !== 'not-required' && code !== 'to-verify') {
       const trigger = strategy === 'daylight-sidelighting' ? facts.sidelighting : facts.toplighting;
       const requirement = trigger.requirement === 'required' ? code : trigger.requirement;
