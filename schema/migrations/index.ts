@@ -10,6 +10,7 @@ import * as workspaceFields from './20261202000400_workspace_fields.js';
 import * as ruleFields from './20261202000500_rule_fields.js';
 import * as ruleInputs from './20261202000600_rule_inputs.js';
 import * as editionAmendments from './20261202000700_edition_amendments.js';
+import * as equalRows from './20261202000800_equal_rows.js';
 import * as sessions from './20261202001000_sessions.js';
 
 interface Migration {
@@ -30,6 +31,7 @@ const migrations: Record<string, Migration> = {
   '20261202000500_rule_fields': ruleFields,
   '20261202000600_rule_inputs': ruleInputs,
   '20261202000700_edition_amendments': editionAmendments,
+  '20261202000800_equal_rows': equalRows,
   '20261202001000_sessions': sessions,
 };
 

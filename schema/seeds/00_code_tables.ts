@@ -60,6 +60,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
       label: row.label,
       source_label: row.sourceLabel,
       lpd_w_per_ft2: row.lpdWPerFt2,
+      equals_row_of: row.equalsRowOf ? JSON.stringify(row.equalsRowOf) : null,
       ...provenanceColumns(row),
     })),
   );
@@ -75,6 +76,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
       lpd_w_per_ft2: row.lpdWPerFt2,
       rcr_threshold: row.rcrThreshold,
       rcr_condition: row.rcrCondition ?? null,
+      equals_row_of: row.equalsRowOf ? JSON.stringify(row.equalsRowOf) : null,
       iecc_occupant_sensor_listed: row.iecc?.occupantSensorListed ?? null,
       iecc_occupant_sensor_list_item: row.iecc?.occupantSensorListItem ?? null,
       iecc_full_auto_on_allowed: row.iecc?.fullAutoOnAllowed ?? null,

@@ -2,6 +2,7 @@ import type { Database } from '../db/database.js';
 import type {
   AdditionalAllowance,
   Amendment,
+  EqualRow,
   BuildingAreaType,
   CodeFamily,
   ControlStrategy,
@@ -42,6 +43,8 @@ export interface BuildingAreaTypeView extends RowProvenance {
   label: string;
   sourceLabel: string;
   lpdWPerFt2: string;
+  /** The row of another edition this one equals, where the reference data records one. */
+  equalsRowOf?: EqualRow;
 }
 
 export interface IeccRuleView {
@@ -64,6 +67,7 @@ export interface SpaceTypeView extends RowProvenance {
   lpdWPerFt2: string;
   rcrThreshold: string | null;
   rcrCondition?: string;
+  equalsRowOf?: EqualRow;
   controls: Partial<Record<StrategyKey, RequirementCode>>;
   controlProvenance: Partial<Record<StrategyKey, RowProvenance>>;
   iecc?: IeccRuleView;
@@ -182,7 +186,14 @@ function scope(version: EditionVersion) {
 
 export async function listBuildingAreaTypes(db: Database, version: EditionVersion): Promise<BuildingAreaTypeView[]> {
   const rows = await db('building_area_types').where(scope(version)).orderBy('position');
-  return rows.map((row) => ({ key: row.key, label: row.label, sourceLabel: row.source_label, lpdWPerFt2: row.lpd_w_per_ft2, ...provenanceOf(row) }));
+  return rows.map((row) => ({
+    key: row.key,
+    label: row.label,
+    sourceLabel: row.source_label,
+    lpdWPerFt2: row.lpd_w_per_ft2,
+    ...(row.equals_row_of ? { equalsRowOf: row.equals_row_of } : {}),
+    ...provenanceOf(row),
+  }));
 }
 
 export async function listSpaceTypes(db: Database, version: EditionVersion): Promise<SpaceTypeView[]> {
@@ -215,6 +226,7 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
       lpdWPerFt2: row.lpd_w_per_ft2,
       rcrThreshold: row.rcr_threshold,
       ...(row.rcr_condition ? { rcrCondition: row.rcr_condition } : {}),
+      ...(row.equals_row_of ? { equalsRowOf: row.equals_row_of } : {}),
       controls,
       controlProvenance,
       ...provenanceOf(row),
@@ -394,7 +406,14 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
     dataVersion: version.dataVersion,
     sections: Object.fromEntries(Object.entries(sections).map(([key, section]) => [key, section.section])),
     buildingAreaTypes: buildingAreaTypes.map(
-      (row): BuildingAreaType => ({ key: row.key, label: row.label, sourceLabel: row.sourceLabel, lpdWPerFt2: row.lpdWPerFt2, provenance: contractProvenance(row) }),
+      (row): BuildingAreaType => ({
+        key: row.key,
+        label: row.label,
+        sourceLabel: row.sourceLabel,
+        lpdWPerFt2: row.lpdWPerFt2,
+        ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
+        provenance: contractProvenance(row),
+      }),
     ),
     spaceTypes: spaceTypes.map(
       (row): SpaceType => ({
@@ -405,6 +424,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
         lpdWPerFt2: row.lpdWPerFt2,
         rcrThreshold: row.rcrThreshold,
         ...(row.rcrCondition ? { rcrCondition: row.rcrCondition } : {}),
+        ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
         controls: row.controls,
         ...(row.iecc
           ? {

@@ -76,11 +76,18 @@ export interface ControlStrategy {
   provenance: Provenance;
 }
 
+/** A row of another edition that this one equals (same use, same value), as the reference data records it. */
+export interface EqualRow {
+  edition: string;
+  key: string;
+}
+
 export interface BuildingAreaType {
   key: string;
   label: string;
   sourceLabel: string;
   lpdWPerFt2: string;
+  equalsRowOf?: EqualRow;
   provenance: Provenance;
 }
 
@@ -94,6 +101,7 @@ export interface SpaceType {
   rcrThreshold: string | null;
   /** A threshold the source states in words instead of a number (e.g. corridors "width < 8 ft"). */
   rcrCondition?: string;
+  equalsRowOf?: EqualRow;
   /** 90.1: the table's control columns. IECC: derived from the rule inputs below, for display. */
   controls: Partial<Record<StrategyKey, RequirementCode>>;
   /** IECC rule inputs, held as data (C405.2.1 list and its full automatic-on exception list). */

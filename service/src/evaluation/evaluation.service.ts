@@ -1,4 +1,7 @@
-import { evaluate, validateDocument, type EvaluationResult } from '../compliance/index.js';
+import { compareEditions, summary, type EditionComparison } from '../compliance/comparison.js';
+import { editionIds } from '../compliance/edition-data.js';
+import { evaluate, validateDocument, type EditionData, type EvaluationResult } from '../compliance/index.js';
+import { projectDocument } from '../design/project-document.js';
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
@@ -22,4 +25,20 @@ export async function evaluateDocument(db: Database, input: unknown): Promise<Ev
     throw AppError.badRequest('The document is not valid.', outcome.problems);
   }
   return evaluate(outcome.document, tables);
+}
+
+/**
+ * The stored project under its own edition and under every other edition loaded, mapped row by
+ * row (GET /api/projects/:id/comparison). The project's own evaluation keeps its amendments.
+ */
+export async function compareProject(db: Database, projectId: string): Promise<{ current: EditionComparison; editions: EditionComparison[] }> {
+  const document = await projectDocument(db, projectId);
+  const own = await loadEditionData(db, document.edition);
+  if (!own) throw AppError.badRequest('The project’s code edition is not loaded.');
+  const others = (await Promise.all(editionIds.filter((id) => id !== own.id).map((id) => loadEditionData(db, id)))).filter((edition): edition is EditionData => edition !== undefined);
+  const result = await evaluateDocument(db, document);
+  return {
+    current: { edition: own.id, title: own.title, status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], problems: [], result: summary(result) },
+    editions: compareEditions(document, own, others),
+  };
 }
