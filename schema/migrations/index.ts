@@ -8,6 +8,7 @@ import * as designIntegrity from './20261202000200_design_integrity.js';
 import * as permitFields from './20261202000300_permit_fields.js';
 import * as workspaceFields from './20261202000400_workspace_fields.js';
 import * as sessions from './20261202001000_sessions.js';
+import * as spaceTypeFormulas from './20261202001100_space_type_formulas.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -25,6 +26,7 @@ const migrations: Record<string, Migration> = {
   '20261202000300_permit_fields': permitFields,
   '20261202000400_workspace_fields': workspaceFields,
   '20261202001000_sessions': sessions,
+  '20261202001100_space_type_formulas': spaceTypeFormulas,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

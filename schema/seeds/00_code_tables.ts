@@ -75,12 +75,14 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
       lpd_w_per_ft2: row.lpdWPerFt2,
       rcr_threshold: row.rcrThreshold,
       rcr_condition: row.rcrCondition ?? null,
+      lpd_formula: row.lpdFormula ? JSON.stringify(row.lpdFormula) : null,
       iecc_occupant_sensor_listed: row.iecc?.occupantSensorListed ?? null,
       iecc_occupant_sensor_list_item: row.iecc?.occupantSensorListItem ?? null,
       iecc_full_auto_on_allowed: row.iecc?.fullAutoOnAllowed ?? null,
       iecc_full_auto_on_item: row.iecc?.fullAutoOnItem ?? null,
       iecc_sensor_function: row.iecc?.sensorFunction ?? null,
       iecc_light_reduction_exempt_item: row.iecc?.lightReductionExemptItem ?? null,
+      iecc_inputs_tag: row.iecc?.tag ?? null,
       iecc_note: row.iecc?.note ?? null,
       ...provenanceColumns(row),
     })),
@@ -92,6 +94,8 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
         sidelighting: row.daylight.sidelighting as RequirementCode,
         toplighting: row.daylight.toplighting as RequirementCode,
       });
+      // Inputs that another edition's list stands in for cannot make a derived cell verified.
+      const standIn = row.iecc.tag !== undefined;
       return Object.entries(derived).map(([strategy, cell]) => ({
         ...version,
         space_type_key: row.key,
@@ -99,8 +103,8 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
         requirement: cell.requirement,
         source: strategy.startsWith('daylight-') ? row.source : 'derived from the C405.2.1 rule inputs of this space type',
         confidence: row.confidence,
-        verified: row.verified && !strategy.startsWith('daylight-') ? true : false,
-        note: strategy.startsWith('daylight-') ? `${cell.why}: ${row.daylight!.note}` : cell.why,
+        verified: row.verified && !standIn && !strategy.startsWith('daylight-') ? true : false,
+        note: strategy.startsWith('daylight-') ? `${cell.why}: ${row.daylight!.note}` : standIn ? `${cell.why}; IECC 2021's rule list stands in for this edition's own, which was not found` : cell.why,
         from_memory: null,
       }));
     }

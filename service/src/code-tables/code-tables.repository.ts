@@ -10,6 +10,7 @@ import type {
   ExteriorApplication,
   ExteriorUnit,
   LightingZone,
+  LpdFormula,
   Provenance,
   RequirementCode,
   SpaceType,
@@ -50,6 +51,7 @@ export interface IeccRuleView {
   fullAutoOnItem: string | null;
   sensorFunction: NonNullable<SpaceType['iecc']>['sensorFunction'];
   lightReductionExemptItem: string | null;
+  tag?: '[S-ed]';
   note?: string;
 }
 
@@ -59,6 +61,7 @@ export interface SpaceTypeView extends RowProvenance {
   sourceLabel: string;
   category: string;
   lpdWPerFt2: string;
+  lpdFormula?: LpdFormula;
   rcrThreshold: string | null;
   rcrCondition?: string;
   controls: Partial<Record<StrategyKey, RequirementCode>>;
@@ -210,6 +213,7 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
       sourceLabel: row.source_label,
       category: row.category,
       lpdWPerFt2: row.lpd_w_per_ft2,
+      ...(row.lpd_formula ? { lpdFormula: row.lpd_formula } : {}),
       rcrThreshold: row.rcr_threshold,
       ...(row.rcr_condition ? { rcrCondition: row.rcr_condition } : {}),
       controls,
@@ -224,6 +228,7 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
         fullAutoOnItem: row.iecc_full_auto_on_item,
         sensorFunction: row.iecc_sensor_function,
         lightReductionExemptItem: row.iecc_light_reduction_exempt_item,
+        ...(row.iecc_inputs_tag ? { tag: row.iecc_inputs_tag } : {}),
         ...(row.iecc_note ? { note: row.iecc_note } : {}),
       };
     }
@@ -383,6 +388,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
         sourceLabel: row.sourceLabel,
         category: row.category,
         lpdWPerFt2: row.lpdWPerFt2,
+        ...(row.lpdFormula ? { lpdFormula: row.lpdFormula } : {}),
         rcrThreshold: row.rcrThreshold,
         ...(row.rcrCondition ? { rcrCondition: row.rcrCondition } : {}),
         controls: row.controls,
