@@ -4,10 +4,10 @@
  * Every number is an exact decimal string; nothing here is a JavaScript number.
  */
 
-export type EditionId = 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2021';
+export type EditionId = 'ashrae-90.1-2013' | 'ashrae-90.1-2016' | 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2018' | 'iecc-2021' | 'iecc-2024';
 export type CodeFamily = 'ashrae-90.1' | 'iecc';
 
-export const editionIds: readonly EditionId[] = ['ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2021'];
+export const editionIds: readonly EditionId[] = ['ashrae-90.1-2013', 'ashrae-90.1-2016', 'ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2018', 'iecc-2021', 'iecc-2024'];
 
 /** Where a value came from and how far it can be trusted. `verified: false` shows a "verify" mark. */
 export interface Provenance {
