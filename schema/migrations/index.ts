@@ -12,6 +12,7 @@ import * as ruleInputs from './20261202000600_rule_inputs.js';
 import * as editionAmendments from './20261202000700_edition_amendments.js';
 import * as equalRows from './20261202000800_equal_rows.js';
 import * as sessions from './20261202001000_sessions.js';
+import * as spaceTypeFormulas from './20261202001100_space_type_formulas.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -33,6 +34,7 @@ const migrations: Record<string, Migration> = {
   '20261202000700_edition_amendments': editionAmendments,
   '20261202000800_equal_rows': equalRows,
   '20261202001000_sessions': sessions,
+  '20261202001100_space_type_formulas': spaceTypeFormulas,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -77,6 +77,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
       rcr_threshold: row.rcrThreshold,
       rcr_condition: row.rcrCondition ?? null,
       equals_row_of: row.equalsRowOf ? JSON.stringify(row.equalsRowOf) : null,
+      lpd_formula: row.lpdFormula ? JSON.stringify(row.lpdFormula) : null,
       iecc_occupant_sensor_listed: row.iecc?.occupantSensorListed ?? null,
       iecc_occupant_sensor_list_item: row.iecc?.occupantSensorListItem ?? null,
       iecc_full_auto_on_allowed: row.iecc?.fullAutoOnAllowed ?? null,
@@ -85,6 +86,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
       iecc_light_reduction_exempt_item: row.iecc?.lightReductionExemptItem ?? null,
       iecc_time_switch_exempt_item: row.iecc?.timeSwitchExemptItem ?? null,
       iecc_sleeping_unit: row.iecc ? row.iecc.sleepingUnit : null,
+      iecc_inputs_tag: row.iecc?.tag ?? null,
       iecc_note: row.iecc?.note ?? null,
       ...provenanceColumns(row),
     })),
@@ -98,6 +100,8 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
         sidelighting: row.daylight.sidelighting as RequirementCode,
         toplighting: row.daylight.toplighting as RequirementCode,
       });
+      // Inputs that another edition's list stands in for cannot make a derived cell verified.
+      const standIn = row.iecc.tag !== undefined;
       return Object.entries(derived).map(([strategy, cell]) => ({
         ...version,
         space_type_key: row.key,
@@ -105,8 +109,8 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
         requirement: cell.requirement,
         source: strategy.startsWith('daylight-') ? row.source : 'derived from the C405.2.1 rule inputs of this space type',
         confidence: row.confidence,
-        verified: row.verified && !strategy.startsWith('daylight-') && (strategyVerified.get(strategy as StrategyKey) ?? false),
-        note: strategy.startsWith('daylight-') ? `${cell.why}: ${row.daylight!.note}` : cell.why,
+        verified: row.verified && !standIn && !strategy.startsWith('daylight-') && (strategyVerified.get(strategy as StrategyKey) ?? false),
+        note: strategy.startsWith('daylight-') ? `${cell.why}: ${row.daylight!.note}` : standIn ? `${cell.why}; IECC 2021's rule list stands in for this edition's own, which was not found` : cell.why,
         from_memory: null,
       }));
     }

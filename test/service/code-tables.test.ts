@@ -57,8 +57,9 @@ async function rowCounts(): Promise<Record<string, number>> {
 }
 
 describe('GET /api/code-editions', () => {
-  it('lists the three editions with their current data version and methods', async () => {
+  it('lists the seven editions with their current data version and methods', async () => {
     const body = await get('/api/code-editions');
+    expect(body.map((edition: { id: string }) => edition.id)).toEqual(['ashrae-90.1-2013', 'ashrae-90.1-2016', 'ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2018', 'iecc-2021', 'iecc-2024']);
     expect(body.map((edition: { id: string }) => edition.id).sort()).toEqual([...editionIds].sort());
     for (const edition of body) {
       expect(edition).toMatchObject({ dataVersion: reference[edition.id as EditionId].dataVersion, methods: ['building-area', 'space-by-space'] });
@@ -115,6 +116,7 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
         ...provenance(row),
       });
       expect(served.rcrCondition).toBe(row.rcrCondition);
+      expect(served.lpdFormula).toEqual(row.lpdFormula);
       const expected =
         row.iecc && row.daylight
           ? Object.fromEntries(
@@ -245,6 +247,25 @@ describe('loadEditionData', () => {
   it('gives 90.1 the overlap of toplit and primary sidelit areas to the primary sidelit area (from memory)', async () => {
     const data = await loadEditionData(database.db, 'ashrae-90.1-2019');
     expect(data!.rules.daylight.overlapPrecedence).toEqual(['primary-sidelit', 'toplit', 'secondary-sidelit']);
+  });
+
+  it('gives the atrium rows of the older editions their height formula', async () => {
+    const data = await loadEditionData(database.db, 'ashrae-90.1-2016');
+    const atrium = data!.spaceTypes.find((space) => space.key === 'atrium-gt-40-ft-in-height')!;
+    // ASHRAE 90.1-2016 Table 9.6.1 atrium > 40 ft: 0.4 plus a supplemental 0.02 per ft of total height (the row notes; from memory "0.40 + 0.02 per ft total height").
+    expect(atrium.lpdFormula).toEqual({ kind: 'base-plus-per-foot-of-height', baseWPerFt2: '0.4', wPerFt2PerFt: '0.02', heightFt: { above: '40' } });
+    expect(atrium.provenance.verified).toBe(false);
+    expect(data!.spaceTypes.find((space) => space.key === 'office-open-plan')!.lpdFormula).toBeUndefined();
+  });
+
+  it('derives no verified control from IECC 2021 inputs standing in for IECC 2018', async () => {
+    const body = await get('/api/code-editions/iecc-2018/space-types');
+    const enclosed = body.find((row: { key: string }) => row.key === 'office-enclosed');
+    expect(enclosed.iecc).toMatchObject({ occupantSensorListed: true, tag: '[S-ed]' });
+    expect(enclosed.verified).toBe(true);
+    for (const provenance of Object.values(enclosed.controlProvenance) as Array<{ verified: boolean }>) expect(provenance.verified).toBe(false);
+    const data = await loadEditionData(database.db, 'iecc-2018');
+    expect(data!.sections['exteriorAllowance']).toBe('C405.4.2'); // IECC 2018 numbers exterior lighting C405.4 (the source's table labels)
   });
 
   it('is undefined for an unknown edition or data version', async () => {

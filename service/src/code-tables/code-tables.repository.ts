@@ -12,6 +12,7 @@ import type {
   ExteriorApplication,
   ExteriorUnit,
   LightingZone,
+  LpdFormula,
   Provenance,
   RequirementCode,
   SpaceType,
@@ -56,6 +57,7 @@ export interface IeccRuleView {
   lightReductionExemptItem: string | null;
   timeSwitchExemptItem: string | null;
   sleepingUnit: boolean;
+  tag?: '[S-ed]';
   note?: string;
 }
 
@@ -65,6 +67,7 @@ export interface SpaceTypeView extends RowProvenance {
   sourceLabel: string;
   category: string;
   lpdWPerFt2: string;
+  lpdFormula?: LpdFormula;
   rcrThreshold: string | null;
   rcrCondition?: string;
   equalsRowOf?: EqualRow;
@@ -224,6 +227,7 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
       sourceLabel: row.source_label,
       category: row.category,
       lpdWPerFt2: row.lpd_w_per_ft2,
+      ...(row.lpd_formula ? { lpdFormula: row.lpd_formula } : {}),
       rcrThreshold: row.rcr_threshold,
       ...(row.rcr_condition ? { rcrCondition: row.rcr_condition } : {}),
       ...(row.equals_row_of ? { equalsRowOf: row.equals_row_of } : {}),
@@ -241,6 +245,7 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
         lightReductionExemptItem: row.iecc_light_reduction_exempt_item,
         timeSwitchExemptItem: row.iecc_time_switch_exempt_item ?? null,
         sleepingUnit: row.iecc_sleeping_unit ?? false,
+        ...(row.iecc_inputs_tag ? { tag: row.iecc_inputs_tag } : {}),
         ...(row.iecc_note ? { note: row.iecc_note } : {}),
       };
     }
@@ -422,6 +427,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
         sourceLabel: row.sourceLabel,
         category: row.category,
         lpdWPerFt2: row.lpdWPerFt2,
+        ...(row.lpdFormula ? { lpdFormula: row.lpdFormula } : {}),
         rcrThreshold: row.rcrThreshold,
         ...(row.rcrCondition ? { rcrCondition: row.rcrCondition } : {}),
         ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),

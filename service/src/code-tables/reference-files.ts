@@ -7,7 +7,7 @@ import { strategyKeys, type EditionId, type StrategyKey } from '../compliance/ed
 
 /** Reads and checks the files under `reference/`: the seed loads them, the tests compare against them. */
 
-export const editionIds: readonly EditionId[] = ['ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2021'];
+export { editionIds } from '../compliance/edition-data.js';
 
 export const defaultReferenceRoot = fileURLToPath(new URL('../../../reference/', import.meta.url));
 
@@ -59,8 +59,19 @@ export const ieccInputs = z.object({
   timeSwitchExemptItem: z.string().nullable().default(null),
   /** A sleeping or dwelling unit, whose lighting has its own controls. */
   sleepingUnit: z.boolean().default(false),
+  /** "[S-ed]" where another edition's list stands in for this edition's own; absent where sourced for it. */
+  tag: z.literal('[S-ed]').optional(),
   note: z.string().optional(),
 });
+
+const heightRangeFt = z
+  .strictObject({ above: decimal.optional(), atLeast: decimal.optional(), below: decimal.optional(), atMost: decimal.optional() })
+  .refine((range) => Object.keys(range).length > 0, 'a height range needs at least one bound');
+
+export const lpdFormula = z.discriminatedUnion('kind', [
+  z.strictObject({ kind: z.literal('per-foot-of-height'), wPerFt2PerFt: decimal, heightFt: heightRangeFt }),
+  z.strictObject({ kind: z.literal('base-plus-per-foot-of-height'), baseWPerFt2: decimal, wPerFt2PerFt: decimal, heightFt: heightRangeFt }),
+]);
 
 export const spaceTypeRow = z.object({
   key: z.string(),
@@ -68,6 +79,7 @@ export const spaceTypeRow = z.object({
   sourceLabel: z.string(),
   category: z.string(),
   lpdWPerFt2: decimal,
+  lpdFormula: lpdFormula.optional(),
   rcrThreshold: decimal.nullable(),
   rcrCondition: z.string().optional(),
   controls: z.partialRecord(strategyKey, controlCell).optional(),

@@ -3,6 +3,7 @@ import type { EditionData, SpaceType } from './edition-data.js';
 import { conditionWords, satisfies, sizeCondition } from './size-conditions.js';
 import { areaToSquareFeet, lengthToFeet } from './units.js';
 import { boundedDecimal, decimalField, documentLimits, listLimit, ranges, textField, textLimits } from './bounds.js';
+import { lpdFormulaProblems } from './lpd-formula.js';
 import { type Dec, dec } from './numbers.js';
 
 /**
@@ -196,7 +197,7 @@ export function validateDocument(input: unknown, edition: EditionData): Validati
     : parsed.error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message }));
   problems.push(...referenceProblems(input, edition));
   if (parsed.success) {
-    problems.push(...geometryProblems(parsed.data));
+    problems.push(...geometryProblems(parsed.data), ...lpdFormulaProblems(parsed.data, edition));
   }
   const unique = dedupe(problems);
   return parsed.success && unique.length === 0

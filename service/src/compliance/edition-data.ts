@@ -4,10 +4,10 @@
  * Every number is an exact decimal string; nothing here is a JavaScript number.
  */
 
-export type EditionId = 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2021';
+export type EditionId = 'ashrae-90.1-2013' | 'ashrae-90.1-2016' | 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2018' | 'iecc-2021' | 'iecc-2024';
 export type CodeFamily = 'ashrae-90.1' | 'iecc';
 
-export const editionIds: readonly EditionId[] = ['ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2021'];
+export const editionIds: readonly EditionId[] = ['ashrae-90.1-2013', 'ashrae-90.1-2016', 'ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2018', 'iecc-2021', 'iecc-2024'];
 
 /** Where a value came from and how far it can be trusted. `verified: false` shows a "verify" mark. */
 export interface Provenance {
@@ -91,12 +91,31 @@ export interface BuildingAreaType {
   provenance: Provenance;
 }
 
+/** The height range (ft) a formula row is for, as its label states it; a bound left out is open. */
+export interface HeightRangeFt {
+  above?: string;
+  atLeast?: string;
+  below?: string;
+  atMost?: string;
+}
+
+/**
+ * An allowance that depends on the space's height instead of a flat W/ft² (the atrium rows of
+ * 90.1-2013/2016 and IECC 2018): W/ft² per foot of total height, or a base plus so much per foot.
+ */
+export type LpdFormula =
+  | { kind: 'per-foot-of-height'; wPerFt2PerFt: string; heightFt: HeightRangeFt }
+  | { kind: 'base-plus-per-foot-of-height'; baseWPerFt2: string; wPerFt2PerFt: string; heightFt: HeightRangeFt };
+
 export interface SpaceType {
   key: string;
   label: string;
   sourceLabel: string;
   category: string;
+  /** The table's number; for a formula row only the formula's first term, never a flat allowance. */
   lpdWPerFt2: string;
+  /** Where present, the allowed LPD comes from the space's ceiling height through this formula. */
+  lpdFormula?: LpdFormula;
   /** 90.1 only: the room cavity ratio at or above which the room-geometry increase applies. */
   rcrThreshold: string | null;
   /** A threshold the source states in words instead of a number (e.g. corridors "width < 8 ft"). */

@@ -5,6 +5,7 @@ import { amendedEdition } from './amendments.js';
 import { evaluateExterior } from './exterior.js';
 import { type RoomPlan, daylightAreas, rectangularRoomCavityRatio } from './geometry.js';
 import { unitWattage } from './installed.js';
+import { spaceTypeLpd } from './lpd-formula.js';
 import { type Dec, ZERO, dec, min, reported, sum, text } from './numbers.js';
 import type {
   AdditionalAllowanceResult,
@@ -281,7 +282,7 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     if (spaceBySpace) {
       const type = spaceTypes.get(space.spaceType!)!;
       spaceUnverified.add(`Space type LPD: ${type.label}`, type.provenance);
-      baseLpd = dec(type.lpdWPerFt2);
+      baseLpd = spaceTypeLpd(type, space, units);
       lpdBasis = { kind: 'space-type', key: type.key, label: type.label };
       controlType = type;
     } else {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { editionIds, type EditionId } from '../compliance/edition-data.js';
 
 /**
  * The evaluation result as a schema, for the served API description. It mirrors
@@ -104,7 +105,7 @@ const exteriorApplication = z.strictObject({
 });
 
 export const evaluationResultSchema = z.strictObject({
-  edition: z.enum(['ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2021']),
+  edition: z.enum(editionIds as [EditionId, ...EditionId[]]),
   dataVersion: z.string(),
   method: z.enum(['building-area', 'space-by-space']),
   units: z.enum(['ip', 'si']),

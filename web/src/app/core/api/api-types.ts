@@ -3,7 +3,7 @@
  * exact decimal string; the app formats for display and never does arithmetic on floats it sends back.
  */
 
-export type EditionId = 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2021';
+export type EditionId = 'ashrae-90.1-2013' | 'ashrae-90.1-2016' | 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2018' | 'iecc-2021' | 'iecc-2024';
 export type ComplianceMethod = 'building-area' | 'space-by-space';
 export type UnitSystem = 'ip' | 'si';
 export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
@@ -276,12 +276,27 @@ export interface BuildingAreaTypeView extends RowProvenance {
   lpdWPerFt2: string;
 }
 
+/** The height range (ft) a formula row is for; a bound left out is open. */
+export interface HeightRangeFt {
+  above?: string;
+  atLeast?: string;
+  below?: string;
+  atMost?: string;
+}
+
+/** An allowance that depends on the space's height (the atrium rows of 90.1-2013/2016 and IECC 2018). */
+export type LpdFormula =
+  | { kind: 'per-foot-of-height'; wPerFt2PerFt: string; heightFt: HeightRangeFt }
+  | { kind: 'base-plus-per-foot-of-height'; baseWPerFt2: string; wPerFt2PerFt: string; heightFt: HeightRangeFt };
+
 export interface SpaceTypeView extends RowProvenance {
   key: string;
   label: string;
   sourceLabel: string;
   category: string;
+  /** For a formula row only the formula's first term: read `lpdFormula` instead. */
   lpdWPerFt2: string;
+  lpdFormula?: LpdFormula;
   rcrThreshold: string | null;
   controls: Record<string, RequirementCode>;
 }

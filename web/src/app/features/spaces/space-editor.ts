@@ -17,7 +17,7 @@ import { formatDensity, unitLabels } from '../../shared/format';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { densityInUnits, spaceInput } from './space-rows';
-import { emptySpace, fieldMessage, fillSpace, requireGeometry, spaceForm, spaceFromForm } from './space-form';
+import { emptySpace, fieldMessage, fillSpace, requireGeometry, requireHeightForFormula, spaceForm, spaceFromForm } from './space-form';
 import { SpaceTypePicker } from './space-type-picker';
 
 export interface SpaceEditorData {
@@ -60,6 +60,7 @@ export class SpaceEditor {
   constructor() {
     if (this.data.space) fillSpace(this.form, this.data.space);
     requireGeometry(this.form, this.data.space);
+    if (this.data.method === 'space-by-space') requireHeightForFormula(this.form, this.data.spaceTypes);
     this.dialog.disableClose = true;
     this.dialog.backdropClick().subscribe(() => this.cancel());
     this.dialog.keydownEvents().subscribe((event) => {

@@ -1,5 +1,5 @@
 import { FormControl, FormGroup, Validators, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
-import type { ComplianceMethod, SpaceInput, SpaceRecord } from '../../core/api/api-types';
+import type { ComplianceMethod, SpaceInput, SpaceRecord, SpaceTypeView } from '../../core/api/api-types';
 
 /** The service's decimal rule (compliance/document.ts): a plain or exponent decimal, here also > 0. */
 export const decimalPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
@@ -47,6 +47,22 @@ export function requireGeometry(form: SpaceForm, space: SpaceRecord | null): voi
     form.controls.width.addValidators(Validators.required);
   }
   if ((space?.skylights.length ?? 0) > 0) form.controls.ceilingHeight.addValidators(Validators.required);
+}
+
+/**
+ * Under the space-by-space method a space type whose allowance grows with height (an atrium row of
+ * 90.1-2013/2016 or IECC 2018) needs the ceiling height, as the service's document check says.
+ */
+export function requireHeightForFormula(form: SpaceForm, spaceTypes: readonly SpaceTypeView[]): void {
+  const ceiling = form.controls.ceilingHeight;
+  ceiling.addValidators((control: AbstractControl<string>): ValidationErrors | null => {
+    const type = spaceTypes.find((candidate) => candidate.key === form.controls.spaceType.value);
+    return type?.lpdFormula && control.value.trim() === '' ? { heightNeeded: "The atrium's allowance depends on its height: give the ceiling height." } : null;
+  });
+  form.controls.spaceType.valueChanges.subscribe(() => {
+    ceiling.updateValueAndValidity();
+    if (ceiling.invalid) ceiling.markAsTouched();
+  });
 }
 
 export function fillSpace(form: SpaceForm, space: SpaceRecord): void {

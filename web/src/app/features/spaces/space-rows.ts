@@ -1,5 +1,5 @@
-import type { SpaceInput, SpaceRecord, SpaceResult, UnitSystem } from '../../core/api/api-types';
-import { formatPercent, formatWatts } from '../../shared/format';
+import type { SpaceInput, SpaceRecord, SpaceResult, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
+import { formatDensity, formatPercent, formatWatts, unitLabels } from '../../shared/format';
 
 export const noLevel = 'No level';
 
@@ -59,6 +59,19 @@ const ft2PerM2 = 1 / 0.09290304;
 /** A table's W/ft² in the project's units (code tables hold IP densities). */
 export function densityInUnits(lpdWPerFt2: string, units: UnitSystem): string {
   return units === 'ip' ? lpdWPerFt2 : String(Number(lpdWPerFt2) * ft2PerM2);
+}
+
+/**
+ * A space type's allowance as people read it, in the project's units: a flat density, or, for a
+ * row whose allowance grows with the room's height, so much per foot (metre) of height.
+ */
+export function spaceTypeAllowance(type: SpaceTypeView, units: UnitSystem): string {
+  const formula = type.lpdFormula;
+  if (!formula) return formatDensity(densityInUnits(type.lpdWPerFt2, units), units);
+  // Per foot of height becomes per metre: 1 m = 1 / 0.3048 ft exactly (NIST SP 811).
+  const perLength = units === 'ip' ? formula.wPerFt2PerFt : String(Number(densityInUnits(formula.wPerFt2PerFt, units)) / 0.3048);
+  const perHeight = `${formatDensity(perLength, units)} per ${unitLabels(units).length} of height`;
+  return formula.kind === 'per-foot-of-height' ? perHeight : `${formatDensity(densityInUnits(formula.baseWPerFt2, units), units)} + ${perHeight}`;
 }
 
 /** A stored space as the body of a write (what PUT and POST take back). */

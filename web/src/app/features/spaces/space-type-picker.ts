@@ -5,9 +5,8 @@ import { MatAutocompleteModule, type MatAutocompleteSelectedEvent } from '@angul
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { SpaceTypeView, UnitSystem } from '../../core/api/api-types';
-import { formatDensity } from '../../shared/format';
 import { VerifyBadge } from '../../shared/verify-badge';
-import { densityInUnits } from './space-rows';
+import { spaceTypeAllowance } from './space-rows';
 
 export const categoryLabels: Partial<Record<string, string>> = {
   common: 'Common space types',
@@ -124,7 +123,7 @@ export class SpaceTypePicker {
   protected readonly display = (value: string | SpaceTypeView | null): string => (value && typeof value !== 'string' ? value.label : (value ?? ''));
 
   protected density(type: SpaceTypeView): string {
-    return formatDensity(densityInUnits(type.lpdWPerFt2, this.units()), this.units());
+    return spaceTypeAllowance(type, this.units());
   }
 
   protected choose(event: MatAutocompleteSelectedEvent): void {
