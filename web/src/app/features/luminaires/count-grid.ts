@@ -52,8 +52,8 @@ export class CountGrid {
   protected readonly problemScroll = createRepositionScrollStrategy(inject(Injector), { autoClose: true });
   protected readonly problemPositions: ConnectedPosition[] = [
     { originX: 'end', originY: 'center', overlayX: 'start', overlayY: 'center', offsetX: 8 },
-    { originX: 'start', originY: 'bottom', overlayX: 'start', overlayY: 'top', offsetY: 4 },
-    { originX: 'start', originY: 'top', overlayX: 'start', overlayY: 'bottom', offsetY: -4 },
+    { originX: 'end', originY: 'bottom', overlayX: 'end', overlayY: 'top', offsetY: 4 },
+    { originX: 'end', originY: 'top', overlayX: 'end', overlayY: 'bottom', offsetY: -4 },
   ];
 
   protected hasProblem(space: SpaceRecord, tag: string): boolean {

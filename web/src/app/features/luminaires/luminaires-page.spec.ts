@@ -104,7 +104,7 @@ describe('LuminairesPage', () => {
     expect(row.textContent).toContain('0–10 V dimming');
     expect(row.textContent).toContain('120–277 V');
     const headers = Array.from(element.querySelectorAll('th')).map((header) => header.textContent?.trim());
-    expect(headers).toEqual(expect.arrayContaining(['Manufacturer and catalogue number', 'Light source', 'Driver', 'Voltage', 'Rated input (W)']));
+    expect(headers).toEqual(expect.arrayContaining(['Product', 'Light source and driver', 'Rated input (W)']));
     expect(element.textContent).not.toContain('Cut sheet');
     expect(element.textContent).not.toContain('With the submittal package');
   });

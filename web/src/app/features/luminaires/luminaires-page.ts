@@ -49,7 +49,7 @@ export class LuminairesPage implements HasUnsavedChanges {
   /** The space whose counts panel to open, from `?space=`. */
   readonly space = input<string>();
 
-  protected readonly columns = computed(() => ['tag', 'description', 'product', 'lightSource', 'driver', 'voltage', 'inputWatts', 'use', 'basis', ...(this.store.canEdit() ? ['actions'] : [])]);
+  protected readonly columns = computed(() => ['tag', 'description', 'product', 'source', 'inputWatts', 'use', 'basis', ...(this.store.canEdit() ? ['actions'] : [])]);
   protected readonly useLabels = useLabels;
   protected readonly basisLabels = basisLabels;
   protected readonly ratedWatts = ratedWattsFigure;
@@ -76,7 +76,17 @@ export class LuminairesPage implements HasUnsavedChanges {
 
   protected showTab(index: number): void {
     this.tabIndex.set(index);
-    void this.router.navigate([], { relativeTo: this.route, queryParams: { tab: index === 1 ? 'counts' : null }, queryParamsHandling: 'merge', replaceUrl: true });
+    this.keepInUrl({ tab: index === 1 ? 'counts' : null });
+  }
+
+  protected closePanel(): void {
+    this.selectedId.set(null);
+    this.keepInUrl({ space: null });
+  }
+
+  /** The URL follows the page's state without a new history entry, so a reload shows the same view. */
+  private keepInUrl(queryParams: Record<string, string | null>): void {
+    void this.router.navigate([], { relativeTo: this.route, queryParams, queryParamsHandling: 'merge', replaceUrl: true });
   }
 
   protected basisText(type: LuminaireTypeRecord): string {
@@ -84,6 +94,10 @@ export class LuminairesPage implements HasUnsavedChanges {
     if (type.length) parts.push(formatLength(type.length, this.store.units()));
     if (type.limitWatts) parts.push(`limit ${formatWatts(type.limitWatts)}`);
     return parts.join(' · ');
+  }
+
+  protected driverText(type: LuminaireTypeRecord): string {
+    return [type.driver, type.voltage].filter(Boolean).join(' · ');
   }
 
   protected useText(type: LuminaireTypeRecord): string {

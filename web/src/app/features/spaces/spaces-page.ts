@@ -100,7 +100,7 @@ export class SpacesPage implements HasUnsavedChanges {
         if (luminaireTypes > 0) this.api.luminaireTypes(projectId).subscribe((types) => this.store.luminaireTypes.set(types));
         this.store.refreshResults();
         const types = luminaireTypes > 0 ? ` with ${luminaireTypes} luminaire type${luminaireTypes === 1 ? '' : 's'}` : '';
-        this.snackBar.open(`${created.length} spaces imported${types}`, undefined, { duration: 4000 });
+        this.snackBar.open(`${created.length} space${created.length === 1 ? '' : 's'} imported${types}`, undefined, { duration: 4000 });
       });
   }
 
