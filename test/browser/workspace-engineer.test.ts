@@ -156,7 +156,7 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     // Invented demo wattages.
     await addType(page, 'A1', '30', '2×4 LED troffer');
     await addType(page, 'B1', '20', '4 ft LED strip');
-    await page.getByRole('cell', { name: 'With the submittal package' }).first().waitFor();
+    await page.getByRole('cell', { name: 'B1', exact: true }).waitFor();
     await page.getByRole('tab', { name: 'Counts' }).click();
     await setCount(page, 'A1', 'Harbour office', '4');
     await setCount(page, 'B1', 'Net store', '1');
@@ -225,7 +225,7 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
 
     await page.getByRole('button', { name: 'Import spreadsheet' }).click();
     await page.getByTestId('import-file').setInputFiles(file);
-    await page.getByText('rooms.xlsx: 50 rows').waitFor();
+    await page.getByText('Spaces: rooms.xlsx, 50 rows').waitFor();
     await page.getByRole('button', { name: 'Check rows' }).click();
     await page.getByText('all ready to import').waitFor();
     await browser.screenshot('import-preview');

@@ -441,11 +441,53 @@ export function requestDigest(body: unknown): string {
 const importKeyHours = 24;
 
 /**
- * Creates spaces all together or not at all (the import's commit step uses this too). With an
- * import key, a retry of the same import returns the spaces the first one created instead of
- * creating them again.
+ * The luminaire types an import brings, created in its transaction: a tag the project already has
+ * is a 409 naming it (the import would otherwise count the wrong type), and each type is audited
+ * as a create, as one added by hand would be.
  */
-export async function createSpaces(db: Database, projectId: string, inputs: SpaceInput[], userId: string, importKey?: ImportKey): Promise<SpaceRecord[]> {
+async function createImportedTypes(trx: Knex.Transaction, projectId: string, inputs: LuminaireTypeInput[], userId: string): Promise<void> {
+  const clashes = await trx('luminaire_types')
+    .where({ project_id: projectId })
+    .whereIn('tag', inputs.map((input) => input.tag))
+    .select<{ tag: string }[]>('tag');
+  const taken = new Set(clashes.map((row) => row.tag));
+  if (taken.size > 0) {
+    const tags = [...taken].sort().map((tag) => `"${tag}"`);
+    const message = tags.length === 1 ? `A luminaire type tagged ${tags[0]} already exists in this project.` : `Luminaire types tagged ${tags.join(', ')} already exist in this project.`;
+    throw AppError.conflict(
+      `${message} Nothing was imported.`,
+      inputs.flatMap((input, index) => (taken.has(input.tag) ? [{ path: `luminaireTypes.${index}.tag`, message: 'Tags are unique within a project.' }] : [])),
+    );
+  }
+  const { count } = (await trx('luminaire_types').where({ project_id: projectId }).count<{ count: string }>('* as count').first()) ?? { count: '0' };
+  if (Number(count) + inputs.length > documentLimits.luminaireTypes) {
+    throw AppError.badRequest(`A project holds at most ${documentLimits.luminaireTypes.toLocaleString('en-US')} luminaire types; this one has ${Number(count).toLocaleString('en-US')}.`, [
+      { path: 'luminaireTypes', message: 'Too many luminaire types for one project.' },
+    ]);
+  }
+  const inserted = await trx('luminaire_types')
+    .insert(inputs.map((input) => ({ project_id: projectId, ...luminaireTypeColumns(input), updated_by: userId })))
+    .returning<{ id: string }[]>('id');
+  const rows: LuminaireTypeRow[] = await withUpdaterName(trx, 'luminaire_types').whereIn('t.id', inserted.map((row) => row.id)).orderBy('t.tag');
+  await recordDesignChanges(
+    trx,
+    rows.map(luminaireTypeRecord).map((type) => ({ userId, projectId, action: 'create', entity: 'luminaire-type', entityId: type.id, name: type.tag, after: type })),
+  );
+}
+
+/**
+ * Creates spaces all together or not at all (the import's commit step uses this too), with the
+ * luminaire types the import brings. With an import key, a retry of the same import returns the
+ * spaces the first one created instead of creating them (or its types) again.
+ */
+export async function createSpaces(
+  db: Database,
+  projectId: string,
+  inputs: SpaceInput[],
+  userId: string,
+  importKey?: ImportKey,
+  luminaireTypes: LuminaireTypeInput[] = [],
+): Promise<SpaceRecord[]> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     if (importKey) {
@@ -466,6 +508,7 @@ export async function createSpaces(db: Database, projectId: string, inputs: Spac
         { path: 'spaces', message: 'Too many spaces for one project.' },
       ]);
     }
+    if (luminaireTypes.length > 0) await createImportedTypes(trx, projectId, luminaireTypes, userId);
     const typeIds = await resolveTags(trx, projectId, inputs, (index) => (inputs.length === 1 ? '' : `spaces.${index}.`));
     const first = await nextPosition(trx, projectId);
     const ids: string[] = [];

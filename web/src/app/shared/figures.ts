@@ -2,7 +2,8 @@ import type { UnitSystem } from '../core/api/api-types';
 
 /**
  * Bare figures for table cells whose header carries the unit, rounded as format.ts rounds them:
- * watts to 1 W, power densities to 0.01, percentages to 0.1, areas to 1 ft² or 0.1 m².
+ * watts to 1 W, power densities to 0.01, percentages to 0.1, areas to 1 ft² or 0.1 m²; the rated
+ * input of one luminaire to 0.1 W, as schedules give it.
  */
 const whole = new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 });
 const hundredths = new Intl.NumberFormat('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
@@ -26,6 +27,7 @@ function figure(format: Intl.NumberFormat) {
 export const wattsFigure = figure(whole);
 export const densityFigure = figure(hundredths);
 export const percentFigure = figure(tenths);
+export const ratedWattsFigure = figure(tenths);
 export const quantityFigure = figure(upToHundredths);
 
 export function areaFigure(value: string | null | undefined, units: UnitSystem): string {

@@ -10,7 +10,7 @@ import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { SpaceEditor, type SpaceEditorData } from './space-editor';
-import { SpaceImportDialog, type SpaceImportData } from './space-import-dialog';
+import { SpaceImportDialog, type SpaceImportData, type SpaceImportOutcome } from './space-import-dialog';
 import { spaceInput } from './space-rows';
 import { SpaceTable } from './space-table';
 
@@ -82,15 +82,25 @@ export class SpacesPage implements HasUnsavedChanges {
     const projectId = this.store.projectId();
     const tables = this.store.tables();
     if (!projectId || !tables) return;
-    const data: SpaceImportData = { projectId, units: this.store.units(), method: this.method(), spaceTypes: tables.spaceTypes, buildingAreaTypes: tables.buildingAreaTypes };
+    const data: SpaceImportData = {
+      projectId,
+      units: this.store.units(),
+      method: this.method(),
+      spaceTypes: tables.spaceTypes,
+      buildingAreaTypes: tables.buildingAreaTypes,
+      luminaireTags: this.store.luminaireTypes().map((type) => type.tag),
+    };
     this.dialogs
-      .open<SpaceImportDialog, SpaceImportData, SpaceRecord[]>(SpaceImportDialog, { data, width: '960px', maxWidth: '96vw' })
+      .open<SpaceImportDialog, SpaceImportData, SpaceImportOutcome>(SpaceImportDialog, { data, width: '960px', maxWidth: '96vw' })
       .afterClosed()
-      .subscribe((created) => {
-        if (!created?.length) return;
+      .subscribe((outcome) => {
+        if (!outcome?.spaces.length) return;
+        const { spaces: created, luminaireTypes } = outcome;
         this.store.spaces.update((spaces) => [...spaces, ...created]);
+        if (luminaireTypes > 0) this.api.luminaireTypes(projectId).subscribe((types) => this.store.luminaireTypes.set(types));
         this.store.refreshResults();
-        this.snackBar.open(`${created.length} spaces imported`, undefined, { duration: 4000 });
+        const types = luminaireTypes > 0 ? ` with ${luminaireTypes} luminaire type${luminaireTypes === 1 ? '' : 's'}` : '';
+        this.snackBar.open(`${created.length} space${created.length === 1 ? '' : 's'} imported${types}`, undefined, { duration: 4000 });
       });
   }
 

@@ -9,6 +9,7 @@ import type {
   ExteriorApplicationInput,
   ExteriorApplicationRecord,
   ExteriorApplicationView,
+  ImportAlias,
   LightingZoneView,
   LuminaireTypeInput,
   LuminaireTypeRecord,
@@ -60,9 +61,22 @@ export class WorkspaceApi {
     return this.http.post<SpaceRecord>(`/api/projects/${projectId}/spaces`, space);
   }
 
-  /** One import, all or nothing; a retry with the same `importKey` returns the first import's spaces instead of adding them twice. */
-  createSpaces(projectId: string, spaces: SpaceInput[], importKey: string): Observable<SpaceRecord[]> {
-    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, { spaces }, { headers: { 'Idempotency-Key': importKey } });
+  /**
+   * One import, all or nothing, with the luminaire types its counts name; a retry with the same
+   * `importKey` returns the first import's spaces instead of adding them (and the types) twice.
+   */
+  createSpaces(projectId: string, spaces: SpaceInput[], importKey: string, luminaireTypes: LuminaireTypeInput[] = []): Observable<SpaceRecord[]> {
+    const body = luminaireTypes.length > 0 ? { spaces, luminaireTypes } : { spaces };
+    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, body, { headers: { 'Idempotency-Key': importKey } });
+  }
+
+  /** Names earlier imports matched to a type, remembered for the project. */
+  importAliases(projectId: string): Observable<ImportAlias[]> {
+    return this.http.get<ImportAlias[]>(`/api/projects/${projectId}/import-aliases`);
+  }
+
+  saveImportAliases(projectId: string, aliases: ImportAlias[]): Observable<ImportAlias[]> {
+    return this.http.put<ImportAlias[]>(`/api/projects/${projectId}/import-aliases`, { aliases });
   }
 
   replaceSpace(projectId: string, spaceId: string, version: number, space: SpaceInput): Observable<SpaceRecord> {
