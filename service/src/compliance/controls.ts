@@ -2,7 +2,7 @@ import type { ProvidedControl } from './document.js';
 import type { ControlStrategy, EditionData, RequirementCode, SpaceType, StrategyKey } from './edition-data.js';
 import { strategyKeys } from './edition-data.js';
 import { type Dec, dec } from './numbers.js';
-import { type UnitSystem, areaToSquareFeet } from './units.js';
+import { type UnitSystem, areaToSquareFeet, areaWords, densityWords } from './units.js';
 import type { ControlLine } from './result.js';
 
 /** One requirement before it is compared with what the engineer provided. */
@@ -15,6 +15,8 @@ export interface ControlRequirement {
 export interface SpaceControlFacts {
   spaceType: SpaceType | undefined;
   areaFt2: Dec;
+  /** The document's units: reasons give areas and densities in them. */
+  units: UnitSystem;
   enclosed: boolean | undefined;
   sidelightingRequired: boolean;
   secondarySidelightingRequired: boolean;
@@ -37,10 +39,6 @@ const exceptionWords: Record<NonNullable<ProvidedControl['exceptionReason']>, st
   'egress-normally-off': 'emergency egress lighting that is normally off',
   other: 'another exception',
 };
-
-function ft2(value: Dec): string {
-  return `${value.toFixed()} ft²`;
-}
 
 /** 90.1: the space type's table columns; daylight columns apply only where the geometry and watts trigger them. */
 function tableRequirements(edition: EditionData, facts: SpaceControlFacts): ControlRequirement[] {
@@ -66,11 +64,12 @@ function tableRequirements(edition: EditionData, facts: SpaceControlFacts): Cont
 function ruleRequirements(edition: EditionData, facts: SpaceControlFacts): ControlRequirement[] {
   const type = facts.spaceType;
   const small = edition.rules.smallEnclosedSpaceFt2 === null ? null : dec(edition.rules.smallEnclosedSpaceFt2);
+  const area = (squareFeet: Dec) => areaWords(squareFeet, facts.units);
   let occupant: ControlRequirement;
   if (type?.iecc?.occupantSensorListed) {
     occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `${type.label} is a space type listed for occupant sensors` };
   } else if (small !== null && facts.enclosed === true && facts.areaFt2.lessThanOrEqualTo(small)) {
-    occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `enclosed space of ${ft2(facts.areaFt2)}, not more than ${ft2(small)}` };
+    occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `enclosed space of ${area(facts.areaFt2)}, not more than ${area(small)}` };
   } else if (type === undefined && facts.enclosed !== false) {
     occupant = { strategy: 'occupant-sensor', requirement: 'to-verify', why: 'no control space type given, so the occupant-sensor list cannot be checked' };
   } else {
@@ -78,7 +77,7 @@ function ruleRequirements(edition: EditionData, facts: SpaceControlFacts): Contr
       small === null
         ? ''
         : facts.enclosed === true
-          ? `; enclosed but ${ft2(facts.areaFt2)} is more than ${ft2(small)}`
+          ? `; enclosed but ${area(facts.areaFt2)} is more than ${area(small)}`
           : facts.enclosed === false
             ? '; not an enclosed space'
             : '; not recorded as enclosed';
@@ -118,7 +117,7 @@ function lightReduction(edition: EditionData, facts: SpaceControlFacts): Control
   if (lpdBelow !== undefined && facts.areaFt2.greaterThan(0)) {
     const density = facts.installedW.dividedBy(facts.areaFt2);
     if (density.lessThan(dec(lpdBelow))) {
-      return { strategy, requirement: 'not-required', why: `the installed density of ${density.toDecimalPlaces(2).toFixed()} W/ft² is less than ${lpdBelow} W/ft²` };
+      return { strategy, requirement: 'not-required', why: `the installed density of ${densityWords(density, facts.units)} is less than ${densityWords(dec(lpdBelow), facts.units)}` };
     }
   }
   return { strategy, requirement: 'required', why: 'the occupant can reduce the connected lighting load in a reasonably uniform pattern' };
@@ -176,7 +175,8 @@ function checkProvision(
   if (zoneLimit !== undefined && entry.zoneSize !== undefined) {
     const zoneFt2 = areaToSquareFeet(dec(entry.zoneSize), units);
     if (zoneFt2.greaterThan(dec(zoneLimit))) {
-      return { ok: false, words: `${by}${device}, but one device serves ${zoneFt2.toDecimalPlaces(0).toFixed()} ft², more than ${zoneLimit} ft²` };
+      const served = units === 'ip' ? areaWords(zoneFt2.toDecimalPlaces(0), units) : areaWords(zoneFt2, units);
+      return { ok: false, words: `${by}${device}, but one device serves ${served}, more than ${areaWords(dec(zoneLimit), units)}` };
     }
   }
   const timeout =

@@ -1,5 +1,6 @@
 import { type SpaceControlFacts, interiorRequirements, linesComply, resolveControls } from './controls.js';
 import type { EvaluationDocument, Space } from './document.js';
+import { type Citation, citationOf, editionName } from './citation.js';
 import type { EditionData, Provenance, SpaceType } from './edition-data.js';
 import { evaluateExterior } from './exterior.js';
 import { type RoomPlan, daylightAreas, rectangularRoomCavityRatio } from './geometry.js';
@@ -16,7 +17,7 @@ import type {
   SpaceResult,
   UnverifiedValue,
 } from './result.js';
-import { type UnitSystem, areaFromSquareFeet, areaToSquareFeet, densityFromPerSquareFoot, lengthFromFeet, lengthToFeet } from './units.js';
+import { type UnitSystem, areaFromSquareFeet, areaToSquareFeet, areaWords, densityFromPerSquareFoot, lengthFromFeet, lengthToFeet } from './units.js';
 
 /** The edition section keys the engine cites from `EditionData.sections` (as `reference/<edition>/rules.json` names them). */
 export const sectionKeys = [
@@ -42,17 +43,36 @@ export const standingCautions = [
   'The engineer of record verifies every value flagged as unverified before relying on the result.',
 ];
 
+/**
+ * The values an evaluation used that are not checked against a published source, each once, cited
+ * for people (the code tables' citation, or one made here for data built by hand).
+ */
 class Unverified {
   private readonly seen = new Map<string, UnverifiedValue>();
-  add(what: string, provenance: Provenance): void {
+  constructor(private readonly edition: string) {}
+
+  /** `reference` is the table or section to cite when the provenance carries no citation of its own. */
+  add(what: string, provenance: Provenance, reference: string): void {
     if (provenance.verified || this.seen.has(what)) return;
-    this.seen.set(what, { what, source: provenance.source, note: provenance.note ?? provenance.confidence });
+    this.keep(what, provenance.citation ?? citationOf({ edition: this.edition, reference, ...provenance }));
   }
-  note(what: string, source: string, note: string): void {
-    if (!this.seen.has(what)) this.seen.set(what, { what, source, note });
+
+  /** A value the data cannot settle at all: not yet checked, with the reason in words. */
+  unsettled(what: string, reference: string, reason: string, key = what): void {
+    if (this.seen.has(key)) return;
+    this.keep(what, citationOf({ edition: this.edition, reference, source: 'not found', confidence: 'none', verified: false, note: reason }), key);
   }
+
+  merge(values: readonly UnverifiedValue[]): void {
+    for (const value of values) if (!this.seen.has(value.what)) this.seen.set(value.what, value);
+  }
+
   values(): UnverifiedValue[] {
     return [...this.seen.values()];
+  }
+
+  private keep(what: string, citation: Citation, key = what): void {
+    this.seen.set(key, { what, source: citation.short, note: citation.note ?? citation.short, citation });
   }
 }
 
@@ -89,9 +109,9 @@ function spaceWatts(space: Space, document: EvaluationDocument, edition: Edition
   for (const group of space.luminaires) {
     const type = types.get(group.tag)!;
     const wattage = unitWattage(type, edition.rules, document.units);
-    if (wattage.usesTrackRule && type.basis === 'line-voltage-track') unverified.add('Line-voltage track minimum W per linear foot', edition.rules.trackProvenance);
+    if (wattage.usesTrackRule && type.basis === 'line-voltage-track') unverified.add('Line-voltage track: the least wattage counted per length of track', edition.rules.trackProvenance, edition.sections['trackLighting'] ?? installedSection);
     if (wattage.fromMemory) {
-      unverified.note('Low-voltage track counted at the transformer rating', 'from memory', 'No public source found for the low-voltage track rule; verify against the printed standard.');
+      unverified.unsettled('Low-voltage track counted at the transformer rating', edition.sections['trackLighting'] ?? installedSection, 'No public source found for the low-voltage track rule; verify against the printed standard.');
     }
     const count = dec(group.count);
     const watts = count.times(wattage.watts);
@@ -125,7 +145,7 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   const length = feet(space.length);
   const width = feet(space.width);
   const hasOpenings = space.windows.length > 0 || space.skylights.length > 0;
-  if (hasOpenings) unverified.add('Daylight thresholds and zone geometry', rules.provenance);
+  if (hasOpenings) unverified.add('Daylight thresholds and zone geometry', rules.provenance, edition.sections['daylightSidelighting'] ?? '');
   const geometryEvaluated = length !== undefined && width !== undefined;
   let areas = { primarySidelit: ZERO, secondarySidelit: ZERO, toplit: ZERO, rectangles: [] as ReturnType<typeof daylightAreas>['rectangles'] };
   if (geometryEvaluated && hasOpenings) {
@@ -167,7 +187,7 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   const reasons: string[] = [];
   let sidelighting = `primary sidelit general lighting ${primaryW.toFixed()} W; required at ${comparison} ${rules.primarySidelitThresholdW} W`;
   if (windowException && primaryTriggers) {
-    sidelighting += `, but the window area ${windowArea.toFixed()} ft² is below ${rules.minimumWindowAreaFt2} ft²`;
+    sidelighting += `, but the window area ${areaWords(windowArea, units)} is below ${areaWords(dec(rules.minimumWindowAreaFt2!), units)}`;
   }
   reasons.push(`Sidelighting: ${sidelighting}.`);
   if (rules.combinedSidelitThresholdW !== null) {
@@ -228,7 +248,8 @@ function spaceRcr(space: Space, units: UnitSystem, cautions: string[]): Dec | nu
  */
 export function evaluate(document: EvaluationDocument, edition: EditionData): EvaluationResult {
   const units = document.units;
-  const unverified = new Unverified();
+  const name = editionName(edition.family, edition.year);
+  const unverified = new Unverified(name);
   const cautions: string[] = [...standingCautions];
   const spaceTypes = new Map(edition.spaceTypes.map((type) => [type.key, type]));
   const areaTypes = new Map(edition.buildingAreaTypes.map((type) => [type.key, type]));
@@ -240,13 +261,13 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
   const claims = document.retailDisplay?.claims ?? [];
   const claimLines = claims.map((claim) => {
     const allowance = additionalCatalogue.get(claim.allowance)!;
-    unverified.add(`Additional allowance: ${allowance.label}`, allowance.provenance);
+    unverified.add(`Additional allowance: ${allowance.label}`, allowance.provenance, edition.sections['additionalAllowances'] ?? '');
     const areaFt2 = areaToSquareFeet(dec(claim.area), units);
     return { claim, allowance, claimed: dec(allowance.lpdWPerFt2).times(areaFt2) };
   });
 
   const spaces: (SpaceResult & { allowance: Dec; installed: Dec; areaFt2: Dec; uncoveredDisplay: Dec })[] = document.spaces.map((space) => {
-    const spaceUnverified = new Unverified();
+    const spaceUnverified = new Unverified(name);
     const areaFt2 = areaToSquareFeet(dec(space.area), units);
     const watts = spaceWatts(space, document, edition, spaceUnverified);
     let baseLpd: Dec;
@@ -254,13 +275,13 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     let controlType: SpaceType | undefined;
     if (spaceBySpace) {
       const type = spaceTypes.get(space.spaceType!)!;
-      spaceUnverified.add(`Space type LPD: ${type.label}`, type.provenance);
+      spaceUnverified.add(`Space type LPD: ${type.label}`, type.provenance, allowanceSection);
       baseLpd = dec(type.lpdWPerFt2);
       lpdBasis = { kind: 'space-type', key: type.key, label: type.label };
       controlType = type;
     } else {
       const type = areaTypes.get(space.buildingAreaType!)!;
-      spaceUnverified.add(`Building area type LPD: ${type.label}`, type.provenance);
+      spaceUnverified.add(`Building area type LPD: ${type.label}`, type.provenance, allowanceSection);
       baseLpd = dec(type.lpdWPerFt2);
       lpdBasis = { kind: 'building-area-type', key: type.key, label: type.label };
       const controlKey = space.controlSpaceType ?? space.spaceType;
@@ -275,7 +296,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       if (controlType.rcrThreshold !== null && rcr !== null && rcr.greaterThanOrEqualTo(dec(controlType.rcrThreshold))) {
         allowedLpd = baseLpd.times(dec(1).plus(dec(geometryRule.increasePercent).dividedBy(100)));
         roomGeometryIncreaseApplied = true;
-        spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance);
+        spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance, edition.sections['roomGeometry'] ?? '');
       } else if (controlType.rcrThreshold === null && controlType.rcrCondition !== undefined) {
         cautions.push(`“${space.name}”: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`);
       }
@@ -299,6 +320,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     const facts: SpaceControlFacts = {
       spaceType: controlType,
       areaFt2,
+      units,
       enclosed: space.enclosed,
       sidelightingRequired: daylightOut.sidelightingControlRequired,
       secondarySidelightingRequired: daylightOut.secondarySidelightingControlRequired,
@@ -332,10 +354,11 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     }
     for (const line of controls) {
       const strategy = edition.controlStrategies.find((candidate) => candidate.key === line.strategy);
-      if (strategy && line.status !== 'not-required') spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance);
-      if (line.status === 'to-verify') spaceUnverified.note(`${space.id}: ${line.label}`, controlType?.provenance.source ?? 'not given', line.reason);
+      if (strategy && line.status !== 'not-required') spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance, strategy.section);
+      // People know a space by its name; the id only keeps two spaces of the same name apart.
+      if (line.status === 'to-verify') spaceUnverified.unsettled(`${space.name}: ${line.label}`, line.section, line.reason, `${space.id}\u0000${line.strategy}`);
     }
-    for (const value of spaceUnverified.values()) unverified.note(value.what, value.source, value.note);
+    unverified.merge(spaceUnverified.values());
 
     return {
       id: space.id,
@@ -424,13 +447,14 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
 
   const exterior = document.exterior === undefined ? null : evaluateExterior(document.exterior, edition, units);
   if (exterior !== null) {
-    unverified.add('Whether the base site allowance may cover nontradable applications', edition.rules.baseSiteProvenance);
+    const exteriorSection = edition.sections['exteriorAllowance'] ?? '';
+    unverified.add('Whether the base site allowance may cover nontradable applications', edition.rules.baseSiteProvenance, exteriorSection);
     for (const entry of document.exterior!.applications) {
       const application = edition.exteriorApplications.find((candidate) => candidate.key === entry.key)!;
-      unverified.add(`Exterior allowance: ${application.label}`, application.provenance);
+      unverified.add(`Exterior allowance: ${application.label}`, application.provenance, exteriorSection);
     }
     const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
-    if (base) unverified.add(`Exterior allowance: ${base.label}`, base.provenance);
+    if (base) unverified.add(`Exterior allowance: ${base.label}`, base.provenance, exteriorSection);
   }
 
   const interiorLines = spaces.flatMap((space) => space.controls);
