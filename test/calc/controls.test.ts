@@ -136,7 +136,13 @@ describe('90.1 table columns', () => {
     expect(claimed.controlsComply).toBe(true);
     expect(claimed.complies).toBe(true);
     const missing = run(
-      { edition: 'ashrae-90.1-2022', method: 'space-by-space', units: 'ip', spaces: [{ id: 's', name: 'Storage', spaceType: 'storage-50-plus', area: 120 }] },
+      {
+        edition: 'ashrae-90.1-2022',
+        method: 'space-by-space',
+        units: 'ip',
+        luminaireTypes: [{ tag: 'E', description: 'strip', inputWatts: '20', use: 'general' }],
+        spaces: [{ id: 's', name: 'Storage', spaceType: 'storage-50-plus', area: 120, luminaires: [{ tag: 'E', count: 2 }] }],
+      },
       ashrae2022,
     );
     expect(missing.controlsComply).toBe(false);

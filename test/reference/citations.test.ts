@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { editionIds, readReferenceEdition, type ReferenceEdition } from '../../service/src/code-tables/reference-files.js';
-import { citationOf, cleanNote, editionName, referenceOf, type CitationInput } from '../../service/src/compliance/citation.js';
+import { citationOf, cleanNote, editionName, referenceOf, withoutProvenance, type CitationInput } from '../../service/src/compliance/citation.js';
 
 /**
  * What the maintainers' provenance may hold and a reader must never see: the tags of the check
@@ -115,6 +115,18 @@ describe('citations of the code tables', () => {
     const track = citationOf(iecc.find((row) => row.where.endsWith('rule track'))!);
     expect(track.layer).toBe('not-checked');
     expect(track.note).toMatch(/not yet checked against the printed code/i);
+  });
+
+  it('leave the tables’ own labels and definitions without bracketed provenance', () => {
+    for (const edition of editions) {
+      const texts = [
+        ...edition.lightingZones.rows.map((row) => row.description),
+        ...edition.spaceTypes.rows.map((row) => row.label),
+        ...edition.buildingAreaTypes.rows.map((row) => row.label),
+        ...edition.exteriorApplications.rows.map((row) => row.label),
+      ].map(withoutProvenance);
+      expect(texts.filter((text) => /\[|from memory/i.test(text)), edition.id).toEqual([]);
+    }
   });
 
   it('rewrite the maintainers’ shorthand in words', () => {

@@ -176,7 +176,8 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
         key: row.zone,
         zone: Number(row.zone),
         label: `Lighting zone ${row.zone}`,
-        description: row.description,
+        // The definition without the provenance the file appends in brackets; the citation carries that.
+        description: row.description.replace(/\s*\[from memory[^\]]*\]/, ''),
         sourceLabel: row.sourceLabel,
         ...provenance(row),
       })),

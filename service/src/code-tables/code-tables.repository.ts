@@ -15,7 +15,7 @@ import type {
   SpaceType,
   StrategyKey,
 } from '../compliance/edition-data.js';
-import { type Citation, citationOf, editionName, referenceOf } from '../compliance/citation.js';
+import { type Citation, citationOf, editionName, referenceOf, withoutProvenance } from '../compliance/citation.js';
 
 /** The code tables as the API and the compliance engine read them. NUMERIC columns stay strings. */
 
@@ -318,7 +318,7 @@ export async function listLightingZones(db: Database, version: EditionVersion): 
     key: String(row.zone),
     zone: row.zone,
     label: `Lighting zone ${row.zone}`,
-    description: row.description,
+    description: withoutProvenance(row.description),
     sourceLabel: row.source_label,
     ...provenanceOf(row, context, context.sections['lightingZones'] ?? ''),
   }));

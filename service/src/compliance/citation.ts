@@ -208,6 +208,14 @@ export function cleanNote(note: string | null | undefined, fromMemory?: string |
   return parts.length === 0 ? null : parts.join(' ');
 }
 
+/**
+ * A table's own text (a label or a definition) without the provenance the files append to it in
+ * brackets ("[from memory, unverified; …]"): the row's citation says that, in words.
+ */
+export function withoutProvenance(text: string): string {
+  return text.replace(/\s*\[(?:from memory|S|S-ed|I|M)\b[^\]]*\]/gi, '').trim();
+}
+
 /** The citation of one row, from its edition, its table or section and its provenance. */
 export function citationOf(input: CitationInput): Citation {
   const layer = layerOf(input);

@@ -459,7 +459,10 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
 
   const interiorLines = spaces.flatMap((space) => space.controls);
   const exteriorLines = exterior?.applications.flatMap((application) => application.controls) ?? [];
-  const controlsComply = linesComply(interiorLines) && linesComply(exteriorLines);
+  // A space without luminaires is out of the verdict until they are entered or it is confirmed unlit:
+  // its lines say what its lighting will need, and wait with it (the verdict is incomplete meanwhile).
+  const judgedLines = spaces.filter((space) => space.lighting !== 'none-entered').flatMap((space) => space.controls);
+  const controlsComply = linesComply(judgedLines) && linesComply(exteriorLines);
   if ([...interiorLines, ...exteriorLines].some((line) => line.status === 'to-verify')) {
     cautions.push('Some control requirements could not be settled from public sources and are marked "to verify"; they do not fail the evaluation.');
   }
