@@ -14,6 +14,7 @@ import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView
 import { ApiError } from '../../core/http/api-error';
 import { placeServerErrors, WriteFailure } from '../../shared/conflict';
 import { formatDensity, unitLabels } from '../../shared/format';
+import { InUnits } from '../../shared/in-units';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { densityInUnits, spaceInput } from './space-rows';
@@ -35,7 +36,7 @@ export interface SpaceEditorData {
 /** Adds or edits one space; saves through the service and closes with the stored record. */
 @Component({
   selector: 'al-space-editor',
-  imports: [ReactiveFormsModule, MatAutocompleteModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, SpaceTypePicker, VerifyBadge],
+  imports: [ReactiveFormsModule, MatAutocompleteModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, SpaceTypePicker, InUnits, VerifyBadge],
   templateUrl: './space-editor.html',
   styleUrl: './space-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
