@@ -39,13 +39,20 @@ function unbroken(text: string): string {
 export type SpaceStatus =
   | { kind: 'updating' }
   | { kind: 'not-evaluated' }
+  | { kind: 'none-entered' }
+  | { kind: 'unlit' }
   | { kind: 'within'; words: string }
   | { kind: 'over'; words: string };
 
-/** A space's status in words; while results are updating no verdict is given. */
+/**
+ * A space's status in words; while results are updating no verdict is given, and a space without
+ * luminaires has none until they are entered or it is confirmed unlit.
+ */
 export function spaceStatus(result: SpaceResult | undefined, resultsStatus: string): SpaceStatus {
   if (resultsStatus === 'updating' || resultsStatus === 'idle') return { kind: 'updating' };
   if (resultsStatus !== 'ready' || !result) return { kind: 'not-evaluated' };
+  if (result.lighting === 'none-entered') return { kind: 'none-entered' };
+  if (result.lighting === 'unlit') return { kind: 'unlit' };
   if (result.withinAllowance) {
     const pct = result.marginPct === null ? '' : `\u00a0(${formatPercent(result.marginPct).replace(' ', '\u00a0')})`;
     return { kind: 'within', words: `${unbroken(formatWatts(result.marginW))}${pct} to spare` };
