@@ -166,7 +166,6 @@ describe('results in words', { timeout: 90_000 }, () => {
       const box = (await scroller.locator('th', { hasText: header }).first().boundingBox())!;
       expect(box.x + box.width, header).toBeLessThanOrEqual(frame.x + frame.width + 1);
     }
-    await scroller.scrollIntoViewIfNeeded();
     await browser.screenshot('results-by-space-1280');
   });
 

@@ -170,7 +170,9 @@ const rewrites: Rewrite[] = [
   // Provenance tags: a tag with a detail keeps the detail in words, a bare tag goes.
   [/\[(?:S|S-ed|I|M),\s*([^\]]+)\]/g, '($1)'],
   [/\s*\[(?:S|S-ed|I|M)\]\s*/g, ' '],
-  [/\[from memory([^\]]*)\]/gi, `(${notChecked}$1)`],
+  // "[from memory, unverified; may not exist …]": the words after the semicolon are the doubt to check.
+  [/\[from memory(?:, unverified)?;\s*([^\]]+)\]/gi, '($1)'],
+  [/\[from memory[^\]]*\]/gi, `(${notChecked})`],
   [/^from memory:\s*/i, `Not yet checked against the printed code: `],
   [/\(from memory\)/gi, `(${notChecked})`],
   [/\bfrom memory\b/gi, notChecked],

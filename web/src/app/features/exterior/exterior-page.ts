@@ -14,6 +14,7 @@ import { WriteFailure } from '../../shared/conflict';
 import { quantityFigure, rateFigure, wattsFigure } from '../../shared/figures';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { InUnits } from '../../shared/in-units';
+import { inProjectUnits } from '../../shared/unit-words';
 import { UnverifiedCount } from '../../shared/unverified-count';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { statusView } from '../controls/control-status';
@@ -131,7 +132,7 @@ export class ExteriorPage implements HasUnsavedChanges {
         this.saving.set(false);
         this.store.removeExterior(record.id);
         this.snackBar
-          .open(`${label}${record.description ? ` (${record.description})` : ''} removed`, 'Undo', { duration: 8000 })
+          .open(`${inProjectUnits(label, this.store.units())}${record.description ? ` (${record.description})` : ''} removed`, 'Undo', { duration: 8000 })
           .onAction()
           .subscribe(() =>
             this.api.restoreExteriorApplication(projectId, record.id).subscribe({

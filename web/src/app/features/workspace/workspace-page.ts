@@ -58,10 +58,13 @@ export class WorkspacePage {
     return state.status;
   });
 
-  /** Why there is no pass, in a few words, linked to the Results page where each reason is listed. */
+  /**
+   * Why there is no pass, in a few words (plain text: the area names it holds must not read as
+   * the navigation's links); "See why" leads to the Results page, where each reason is linked.
+   */
   protected readonly verdictDetail = computed(() => {
     const state = this.store.results();
-    if (state.status === 'incomplete') return 'see what to fix';
+    if (state.status === 'incomplete') return 'the results cannot be computed yet';
     if (state.status !== 'ready') return '';
     const result = state.result;
     if (result.verdict === 'does-not-comply') return reasonTitles(result);
