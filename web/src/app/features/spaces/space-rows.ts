@@ -1,5 +1,6 @@
 import type { SpaceInput, SpaceRecord, SpaceResult, UnitSystem } from '../../core/api/api-types';
 import { formatPercent, formatWatts } from '../../shared/format';
+import { squareMetresPerSquareFoot } from '../../shared/unit-words';
 
 export const noLevel = 'No level';
 
@@ -60,12 +61,9 @@ export function spaceStatus(result: SpaceResult | undefined, resultsStatus: stri
   return { kind: 'over', words: `by ${unbroken(formatWatts(String(-Number(result.marginW))))}` };
 }
 
-/** 1 ft = 0.3048 m exactly, so 1 m² = 1 / 0.09290304 ft² (NIST SP 811, exact definition). */
-const ft2PerM2 = 1 / 0.09290304;
-
 /** A table's W/ft² in the project's units (code tables hold IP densities). */
 export function densityInUnits(lpdWPerFt2: string, units: UnitSystem): string {
-  return units === 'ip' ? lpdWPerFt2 : String(Number(lpdWPerFt2) * ft2PerM2);
+  return units === 'ip' ? lpdWPerFt2 : String(Number(lpdWPerFt2) / squareMetresPerSquareFoot);
 }
 
 /** A stored space as the body of a write (what PUT and POST take back). */
