@@ -147,7 +147,13 @@ describe('90.1 table columns', () => {
     expect(claimed.controlsComply).toBe(true);
     expect(claimed.complies).toBe(true);
     const missing = run(
-      { edition: 'ashrae-90.1-2022', method: 'space-by-space', units: 'ip', spaces: [{ id: 's', name: 'Storage', spaceType: 'storage-50-plus', area: 120 }] },
+      {
+        edition: 'ashrae-90.1-2022',
+        method: 'space-by-space',
+        units: 'ip',
+        luminaireTypes: [{ tag: 'E', description: 'strip', inputWatts: '20', use: 'general' }],
+        spaces: [{ id: 's', name: 'Storage', spaceType: 'storage-50-plus', area: 120, luminaires: [{ tag: 'E', count: 2 }] }],
+      },
       ashrae2022,
     );
     expect(missing.controlsComply).toBe(false);
@@ -224,8 +230,9 @@ describe('IECC 2021 occupant sensors and time switches', () => {
       ).interior.spaces[0]!.controls;
     expect(line(withZone(5000), 'time-switch').status).toBe('met');
     expect(line(withZone(5001), 'time-switch').status).toBe('not-met');
-    // 500 m² = 5,381.96 ft² (1 ft² = 0.09290304 m², mathjs units): over the limit.
-    expect(line(withZone(500, 'si'), 'time-switch').reason).toContain('5382 ft²');
+    // 500 m² = 5,381.96 ft² (1 ft² = 0.09290304 m², mathjs units): over the limit, and an SI project reads both in m²
+    // (5,000 ft² = 464.5152 m²).
+    expect(line(withZone(500, 'si'), 'time-switch').reason).toContain('one device serves 500 m², more than 464.5 m²');
   });
 
   it('applies the light-reduction exceptions held in the data', () => {

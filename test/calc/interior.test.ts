@@ -388,6 +388,17 @@ describe('spaces without luminaires', () => {
     expect(result.cautions.some((caution) => caution.includes('“Shaft room” has no luminaires entered'))).toBe(true);
   });
 
+  it('keep their control requirements out of the verdict while they wait: listed, not failing', () => {
+    const empty = document();
+    empty.spaces[1] = { ...empty.spaces[1]!, controls: [] };
+    const result = run(empty, iecc2021);
+    const shaft = result.interior.spaces.find((space) => space.id === 's')!;
+    // IECC 2021 C405.2.1 lists storage rooms for occupant sensors: required, and nothing is recorded yet.
+    expect(shaft.controls.find((control) => control.strategy === 'occupant-sensor')!.status).toBe('not-met');
+    expect(result.controlsComply).toBe(true);
+    expect(result.verdict).toBe('incomplete');
+  });
+
   it('once confirmed unlit, have no lighted floor area: they add no allowance, and the verdict is settled', () => {
     const result = run(document(true), iecc2021);
     const shaft = result.interior.spaces.find((space) => space.id === 's')!;

@@ -7,6 +7,7 @@ import { seedCodeTables } from '../../schema/seeds/00_code_tables.js';
 import { loadEditionData } from '../../service/src/code-tables/code-tables.repository.js';
 import { deriveIeccControls } from '../../service/src/code-tables/iecc-controls.js';
 import { editionIds, readReferenceEdition, type ReferenceEdition } from '../../service/src/code-tables/reference-files.js';
+import { editionName } from '../../service/src/compliance/citation.js';
 import type { EditionId, RequirementCode } from '../../service/src/compliance/edition-data.js';
 import { signIn, testApp, type SignedInAgent } from '../support/app.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
@@ -88,12 +89,14 @@ describe('GET /api/code-editions', () => {
 
 describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
   const edition = reference[id];
+  const name = editionName(edition.edition.family, edition.edition.year);
   const provenance = (row: { source: string; confidence: string; verified: boolean; note: string; fromMemory?: string | undefined }) => ({
     source: row.source,
     confidence: row.confidence,
     verified: row.verified,
     note: row.note,
     ...(row.fromMemory ? { fromMemory: row.fromMemory } : {}),
+    citation: expect.objectContaining({ short: expect.stringMatching(new RegExp(`^${name.replace('.', '\\.')} `)), checked: row.verified ? expect.any(Boolean) : false }),
   });
 
   it('building-area-types returns every row of the file, decimals unchanged', async () => {
@@ -175,7 +178,8 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
         key: row.zone,
         zone: Number(row.zone),
         label: `Lighting zone ${row.zone}`,
-        description: row.description,
+        // The definition without the provenance the file appends in brackets; the citation carries that.
+        description: row.description.replace(/\s*\[from memory[^\]]*\]/, ''),
         sourceLabel: row.sourceLabel,
         ...provenance(row),
       })),
@@ -206,6 +210,38 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
     expect(Object.fromEntries(Object.entries(body.sections).map(([key, section]) => [key, (section as { section: string }).section]))).toEqual(
       Object.fromEntries(Object.entries(edition.rules.sections).map(([key, section]) => [key, section.section])),
     );
+  });
+});
+
+describe('citations in the code-table views', () => {
+  const tables = ['building-area-types', 'space-types', 'control-strategies', 'exterior-applications', 'lighting-zones', 'additional-allowances'];
+
+  it.each(editionIds)('cite every row of %s in words, with none of the files’ markers', async (id) => {
+    for (const table of tables) {
+      const body: { citation: { short: string; note: string | null; checked: boolean }; verified: boolean }[] = await get(`/api/code-editions/${id}/${table}`);
+      for (const row of body) {
+        const words = `${row.citation.short} ${row.citation.note ?? ''}`;
+        expect(words, `${id}/${table}`).not.toMatch(/\[(S|S-ed|I|M)\b|FLAG:|source annotation|SOURCES\.md|github:|https?:\/\/|from memory/i);
+        if (!row.verified) expect(row.citation.checked, `${id}/${table}`).toBe(false);
+      }
+    }
+  });
+
+  it('names the table, the kind of source and what is not yet checked', async () => {
+    const spaceTypes = await get('/api/code-editions/iecc-2021/space-types');
+    // IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data.
+    expect(spaceTypes.find((row: { key: string }) => row.key === 'office-enclosed').citation).toMatchObject({ short: 'IECC 2021 Table C405.3.2(2) — model code', layer: 'model-code', checked: true });
+    const strategies = await get('/api/code-editions/iecc-2021/control-strategies');
+    // C405.2.5 specific application controls: the reference files hold it from memory.
+    expect(strategies.find((row: { key: string }) => row.key === 'specific-application').citation).toMatchObject({
+      short: 'IECC 2021 Section C405.2.5 — not yet checked against the printed code',
+      layer: 'not-checked',
+      checked: false,
+    });
+    const cells = await get('/api/code-editions/ashrae-90.1-2019/space-types');
+    // ASHRAE 90.1-2019 Table 9.6.1 column (a): no public source was found for columns (a)–(d).
+    const office = cells.find((row: { key: string }) => row.key === 'office-enclosed-and-le-250-ft2');
+    expect(office.controlProvenance['local-control'].citation.layer).toBe('not-checked');
   });
 });
 

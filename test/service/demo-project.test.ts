@@ -62,6 +62,21 @@ describe('the seeded demo project', () => {
     expect(parsed.success, JSON.stringify(parsed.error?.issues.slice(0, 3))).toBe(true);
   });
 
+  it('cites each unverified value in words: edition, table or section, what it rests on, and a note without the files’ markers', () => {
+    expect(result.unverifiedValues.length).toBeGreaterThan(0);
+    for (const value of result.unverifiedValues) {
+      expect(value.citation.checked, value.what).toBe(false);
+      expect(value.source, value.what).toBe(value.citation.short);
+      expect(value.source, value.what).toMatch(/^IECC 2021 /);
+      expect(`${value.what} ${value.source} ${value.note}`, value.what).not.toMatch(/\[(S|S-ed|I|M)\b|FLAG:|source annotation|SOURCES\.md|github:|https?:\/\/|from memory/i);
+    }
+    // IECC 2021 C405.2.2 time-switch control: the reference data follows Washington's state text (WAC 51-11C-405022).
+    expect(result.unverifiedValues.find((value) => value.what === 'Control strategy: Time-switch control')?.citation).toMatchObject({
+      layer: 'other-edition-or-state',
+      short: 'IECC 2021 Section C405.2.2 — Washington state text standing in for the model code',
+    });
+  });
+
   it('gives the same result when its document is evaluated directly', async () => {
     const document = (await engineer.agent.get(`/api/projects/${projectId}/document`)).body;
     const evaluated = await engineer.agent.post('/api/evaluate').set('X-CSRF-Token', engineer.csrfToken).send(document);

@@ -18,6 +18,7 @@ import type {
   SpaceType,
   StrategyKey,
 } from '../compliance/edition-data.js';
+import { type Citation, citationOf, editionName, referenceOf, withoutProvenance } from '../compliance/citation.js';
 
 /** The code tables as the API and the compliance engine read them. NUMERIC columns stay strings. */
 
@@ -27,6 +28,8 @@ export interface RowProvenance {
   verified: boolean;
   note: string;
   fromMemory?: string;
+  /** The row's source for people: a short citation and the note in words (none of the maintainers' markers). */
+  citation: Citation;
 }
 
 export interface EditionSummary {
@@ -82,7 +85,7 @@ export interface ControlStrategyView extends RowProvenance {
   section: string;
   tag: string;
   parameters: Record<string, string>;
-  parameterSources: Record<string, { tag: string; source: string; note?: string }>;
+  parameterSources: Record<string, { tag: string; source: string; note?: string; citation: Citation }>;
 }
 
 export interface ExteriorApplicationView extends RowProvenance {
@@ -121,6 +124,7 @@ export interface SectionView {
   tag: string;
   verified: boolean;
   note: string;
+  citation: Citation;
 }
 
 export interface RulesView extends EditionRules {
@@ -146,14 +150,31 @@ interface ProvenanceColumns {
   from_memory: string | null;
 }
 
-function provenanceOf(row: ProvenanceColumns): RowProvenance {
-  return { source: row.source, confidence: row.confidence, verified: row.verified, note: row.note, ...(row.from_memory ? { fromMemory: row.from_memory } : {}) };
+/** What a citation needs besides the row: the edition's name and the sections its rules cite (a fallback reference). */
+interface CitationContext {
+  edition: string;
+  sections: Record<string, string>;
 }
 
-/** Provenance as the contract holds it: a from-memory text is kept in the note. */
+async function citationContext(db: Database, version: EditionVersion): Promise<CitationContext> {
+  const rows: { key: string; section: string }[] = await db('edition_sections').where(scope(version)).select('key', 'section');
+  return { edition: editionName(version.edition.family, version.edition.year), sections: Object.fromEntries(rows.map((row) => [row.key, row.section])) };
+}
+
+/** The table the row's own annotation names, else the section the edition cites for that kind of value. */
+function reference(context: CitationContext, note: string | null | undefined, sectionKey: string): string {
+  return referenceOf(note, context.sections[sectionKey] ?? '');
+}
+
+function provenanceOf(row: ProvenanceColumns, context: CitationContext, where: string, tag?: string): RowProvenance {
+  const citation = citationOf({ edition: context.edition, reference: where, source: row.source, confidence: row.confidence, tag, verified: row.verified, note: row.note, fromMemory: row.from_memory });
+  return { source: row.source, confidence: row.confidence, verified: row.verified, note: row.note, ...(row.from_memory ? { fromMemory: row.from_memory } : {}), citation };
+}
+
+/** Provenance as the contract holds it: a from-memory text is kept in the note, the citation beside it. */
 function contractProvenance(row: RowProvenance): Provenance {
   const note = [row.note, row.fromMemory ? `from memory: ${row.fromMemory}` : ''].filter(Boolean).join(' | ');
-  return { source: row.source, confidence: row.confidence, verified: row.verified, ...(note ? { note } : {}) };
+  return { source: row.source, confidence: row.confidence, verified: row.verified, ...(note ? { note } : {}), citation: row.citation };
 }
 
 /** An edition and the data version to read: the current one unless a stored result names another. */
@@ -188,25 +209,26 @@ function scope(version: EditionVersion) {
 }
 
 export async function listBuildingAreaTypes(db: Database, version: EditionVersion): Promise<BuildingAreaTypeView[]> {
-  const rows = await db('building_area_types').where(scope(version)).orderBy('position');
+  const [rows, context] = await Promise.all([db('building_area_types').where(scope(version)).orderBy('position'), citationContext(db, version)]);
   return rows.map((row) => ({
     key: row.key,
     label: row.label,
     sourceLabel: row.source_label,
     lpdWPerFt2: row.lpd_w_per_ft2,
     ...(row.equals_row_of ? { equalsRowOf: row.equals_row_of } : {}),
-    ...provenanceOf(row),
+    ...provenanceOf(row, context, reference(context, row.note, 'buildingAreaMethod')),
   }));
 }
 
 export async function listSpaceTypes(db: Database, version: EditionVersion): Promise<SpaceTypeView[]> {
-  const [rows, cells] = await Promise.all([
+  const [rows, cells, context] = await Promise.all([
     db('space_types').where(scope(version)).orderBy('position'),
     db('space_type_controls')
       .join('control_strategies', 'control_strategies.key', 'space_type_controls.strategy_key')
       .where({ 'space_type_controls.edition_id': version.edition.id, 'space_type_controls.data_version': version.dataVersion })
       .orderBy('control_strategies.position')
       .select('space_type_controls.*'),
+    citationContext(db, version),
   ]);
   const cellsBySpace = new Map<string, typeof cells>();
   for (const cell of cells) {
@@ -219,7 +241,7 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
     const controlProvenance: Partial<Record<StrategyKey, RowProvenance>> = {};
     for (const cell of cellsBySpace.get(row.key) ?? []) {
       controls[cell.strategy_key as StrategyKey] = cell.requirement as RequirementCode;
-      controlProvenance[cell.strategy_key as StrategyKey] = provenanceOf(cell);
+      controlProvenance[cell.strategy_key as StrategyKey] = provenanceOf(cell, context, reference(context, cell.note, 'spaceBySpaceMethod'));
     }
     const view: SpaceTypeView = {
       key: row.key,
@@ -233,7 +255,7 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
       ...(row.equals_row_of ? { equalsRowOf: row.equals_row_of } : {}),
       controls,
       controlProvenance,
-      ...provenanceOf(row),
+      ...provenanceOf(row, context, reference(context, row.note, 'spaceBySpaceMethod')),
     };
     if (row.iecc_sensor_function) {
       view.iecc = {
@@ -254,13 +276,14 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
 }
 
 export async function listControlStrategies(db: Database, version: EditionVersion): Promise<ControlStrategyView[]> {
-  const [sections, parameters] = await Promise.all([
+  const [sections, parameters, context] = await Promise.all([
     db('control_strategy_sections')
       .join('control_strategies', 'control_strategies.key', 'control_strategy_sections.strategy_key')
       .where({ 'control_strategy_sections.edition_id': version.edition.id, 'control_strategy_sections.data_version': version.dataVersion })
       .orderBy('control_strategies.position')
       .select('control_strategy_sections.*', 'control_strategies.label'),
     db('control_strategy_parameters').where(scope(version)).orderBy([{ column: 'strategy_key' }, { column: 'position' }]),
+    citationContext(db, version),
   ]);
   return sections.map((row) => {
     const own = parameters.filter((parameter) => parameter.strategy_key === row.strategy_key);
@@ -271,15 +294,24 @@ export async function listControlStrategies(db: Database, version: EditionVersio
       tag: row.tag,
       parameters: Object.fromEntries(own.map((parameter) => [parameter.name, parameter.value])),
       parameterSources: Object.fromEntries(
-        own.map((parameter) => [parameter.name, { tag: parameter.tag, source: parameter.source, ...(parameter.note ? { note: parameter.note } : {}) }]),
+        own.map((parameter) => [
+          parameter.name,
+          {
+            tag: parameter.tag,
+            source: parameter.source,
+            ...(parameter.note ? { note: parameter.note } : {}),
+            // A parameter has no verified flag of its own: only a value from the edition's own text counts as checked.
+            citation: citationOf({ edition: context.edition, reference: row.section, source: parameter.source, confidence: '', tag: parameter.tag, verified: parameter.tag === '[S]', note: parameter.note }),
+          },
+        ]),
       ),
-      ...provenanceOf(row),
+      ...provenanceOf(row, context, row.section, row.tag),
     };
   });
 }
 
 export async function listExteriorApplications(db: Database, version: EditionVersion): Promise<ExteriorApplicationView[]> {
-  const rows = await db('code_exterior_applications').where(scope(version)).orderBy('position');
+  const [rows, context] = await Promise.all([db('code_exterior_applications').where(scope(version)).orderBy('position'), citationContext(db, version)]);
   return rows.map((row) => ({
     key: row.key,
     label: row.label,
@@ -292,24 +324,24 @@ export async function listExteriorApplications(db: Database, version: EditionVer
     unverifiedZones: row.unverified_zones,
     controls: row.controls,
     sourceControlFlags: row.source_control_flags,
-    ...provenanceOf(row),
+    ...provenanceOf(row, context, reference(context, row.note, 'exteriorAllowance')),
   }));
 }
 
 export async function listLightingZones(db: Database, version: EditionVersion): Promise<LightingZoneView[]> {
-  const rows = await db('lighting_zones').where(scope(version)).orderBy('zone');
+  const [rows, context] = await Promise.all([db('lighting_zones').where(scope(version)).orderBy('zone'), citationContext(db, version)]);
   return rows.map((row) => ({
     key: String(row.zone),
     zone: row.zone,
     label: `Lighting zone ${row.zone}`,
-    description: row.description,
+    description: withoutProvenance(row.description),
     sourceLabel: row.source_label,
-    ...provenanceOf(row),
+    ...provenanceOf(row, context, context.sections['lightingZones'] ?? ''),
   }));
 }
 
 export async function listAdditionalAllowances(db: Database, version: EditionVersion): Promise<AdditionalAllowanceView[]> {
-  const rows = await db('additional_allowances').where(scope(version)).orderBy('position');
+  const [rows, context] = await Promise.all([db('additional_allowances').where(scope(version)).orderBy('position'), citationContext(db, version)]);
   return rows.map((row) => ({
     key: row.key,
     label: row.label,
@@ -317,12 +349,23 @@ export async function listAdditionalAllowances(db: Database, version: EditionVer
     kind: row.kind,
     lpdWPerFt2: row.lpd_w_per_ft2,
     fixedW: row.fixed_w,
-    ...provenanceOf(row),
+    ...provenanceOf(row, context, reference(context, row.note, 'additionalAllowances')),
   }));
 }
 
-function taggedProvenance(value: RowProvenance & { tag?: string }): Provenance {
-  return contractProvenance({ ...value, note: [value.tag, value.note].filter(Boolean).join(' ') });
+interface TaggedProvenance {
+  source: string;
+  confidence: string;
+  verified: boolean;
+  note: string;
+  fromMemory?: string;
+  tag?: string;
+}
+
+/** An edition rule's provenance (stored as JSON with its tag), cited under the section the rule belongs to. */
+function taggedProvenance(value: TaggedProvenance, context: CitationContext, sectionKey: string): Provenance {
+  const citation = citationOf({ edition: context.edition, reference: context.sections[sectionKey] ?? '', ...value });
+  return contractProvenance({ ...value, note: [value.tag, value.note].filter(Boolean).join(' '), citation });
 }
 
 export interface AmendmentView extends RowProvenance {
@@ -334,14 +377,18 @@ export interface AmendmentView extends RowProvenance {
 
 /** The jurisdiction amendments a project on this edition may choose. */
 export async function listAmendments(db: Database, version: EditionVersion): Promise<AmendmentView[]> {
-  const rows = await db('edition_amendments').where({ edition_id: version.edition.id, data_version: version.dataVersion }).orderBy('position');
-  return rows.map((row) => ({ key: row.key, title: row.title, jurisdiction: row.jurisdiction, parameters: row.parameters, ...provenanceOf({ ...row, from_memory: null }) }));
+  const [rows, context] = await Promise.all([
+    db('edition_amendments').where({ edition_id: version.edition.id, data_version: version.dataVersion }).orderBy('position'),
+    citationContext(db, version),
+  ]);
+  return rows.map((row) => ({ key: row.key, title: row.title, jurisdiction: row.jurisdiction, parameters: row.parameters, ...provenanceOf({ ...row, from_memory: null }, context, row.title) }));
 }
 
 export async function getRules(db: Database, version: EditionVersion): Promise<RulesView> {
-  const [row, sections] = await Promise.all([
+  const [row, sections, context] = await Promise.all([
     db('edition_rules').where(scope(version)).first(),
     db('edition_sections').where(scope(version)).orderBy('key'),
+    citationContext(db, version),
   ]);
   return {
     daylight: {
@@ -358,17 +405,28 @@ export async function getRules(db: Database, version: EditionVersion): Promise<R
       secondaryDepthHeadHeights: row.daylight_secondary_depth_head_heights,
       toplitExtensionCeilingHeights: row.daylight_toplit_extension_ceiling_heights,
       ...(row.daylight_overlap_precedence ? { overlapPrecedence: row.daylight_overlap_precedence } : {}),
-      provenance: taggedProvenance(row.daylight_provenance),
+      provenance: taggedProvenance(row.daylight_provenance, context, 'daylightSidelighting'),
     },
     roomGeometry:
-      row.room_geometry_increase_percent === null ? null : { increasePercent: row.room_geometry_increase_percent, provenance: taggedProvenance(row.room_geometry_provenance) },
+      row.room_geometry_increase_percent === null ? null : { increasePercent: row.room_geometry_increase_percent, provenance: taggedProvenance(row.room_geometry_provenance, context, 'roomGeometry') },
     smallEnclosedSpaceFt2: row.small_enclosed_space_ft2,
-    smallEnclosedSpaceProvenance: row.small_enclosed_space_provenance ? taggedProvenance(row.small_enclosed_space_provenance) : null,
+    smallEnclosedSpaceProvenance: row.small_enclosed_space_provenance ? taggedProvenance(row.small_enclosed_space_provenance, context, context.sections['occupantSensor'] ? 'occupantSensor' : 'controlsGeneral') : null,
     trackMinimumWPerFt: row.track_minimum_w_per_ft,
-    trackProvenance: taggedProvenance(row.track_provenance),
+    trackProvenance: taggedProvenance(row.track_provenance, context, 'trackLighting'),
     baseSiteCoversNontradable: row.base_site_covers_nontradable,
-    baseSiteProvenance: taggedProvenance(row.base_site_provenance),
-    sections: Object.fromEntries(sections.map((section) => [section.key, { section: section.section, tag: section.tag, verified: section.verified, note: section.note }])),
+    baseSiteProvenance: taggedProvenance(row.base_site_provenance, context, 'exteriorAllowance'),
+    sections: Object.fromEntries(
+      sections.map((section) => [
+        section.key,
+        {
+          section: section.section,
+          tag: section.tag,
+          verified: section.verified,
+          note: section.note,
+          citation: citationOf({ edition: context.edition, reference: section.section, source: '', confidence: '', tag: section.tag, verified: section.verified, note: section.note }),
+        },
+      ]),
+    ),
   };
 }
 

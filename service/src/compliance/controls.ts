@@ -2,7 +2,7 @@ import type { ProvidedControl } from './document.js';
 import type { ControlStrategy, EditionData, RequirementCode, SpaceType, StrategyKey } from './edition-data.js';
 import { strategyKeys } from './edition-data.js';
 import { type Dec, dec } from './numbers.js';
-import { type UnitSystem, areaToSquareFeet } from './units.js';
+import { type UnitSystem, areaToSquareFeet, areaWords, densityWords } from './units.js';
 import type { ControlLine } from './result.js';
 
 /** One requirement before it is compared with what the engineer provided. */
@@ -25,6 +25,8 @@ export interface FunctionNeeds {
 export interface SpaceControlFacts {
   spaceType: SpaceType | undefined;
   areaFt2: Dec;
+  /** The document's units: reasons give areas and densities in them. */
+  units: UnitSystem;
   enclosed: boolean | undefined;
   sidelighting: DaylightTrigger;
   secondarySidelightingRequired: boolean;
@@ -35,7 +37,6 @@ export interface SpaceControlFacts {
   installedW: Dec;
   nonExemptLuminaires: { count: Dec; unitWatts: Dec }[];
   provided: ProvidedControl[];
-  units: UnitSystem;
 }
 
 /** Whether the daylight geometry and watts call for a daylight-responsive control, and why in words. */
@@ -55,10 +56,6 @@ const exceptionWords: Record<NonNullable<ProvidedControl['exceptionReason']>, st
   'verified-not-required': 'checked against the adopted code: not required here',
   other: 'another exception',
 };
-
-function ft2(value: Dec): string {
-  return `${value.toDecimalPlaces(2).toFixed()} ft²`;
-}
 
 function parameter(edition: EditionData, strategy: StrategyKey, name: string): string | undefined {
   return edition.controlStrategies.find((entry) => entry.key === strategy)?.parameters[name];
@@ -109,22 +106,23 @@ function sensorFunctionNeeds(edition: EditionData, type: SpaceType): FunctionNee
 function ruleRequirements(edition: EditionData, facts: SpaceControlFacts, catalogue: ReadonlyMap<string, ControlStrategy>): ControlRequirement[] {
   const type = facts.spaceType;
   const small = edition.rules.smallEnclosedSpaceFt2 === null ? null : dec(edition.rules.smallEnclosedSpaceFt2);
+  const area = (squareFeet: Dec) => areaWords(squareFeet, facts.units);
   let occupant: ControlRequirement;
   if (type?.iecc?.occupantSensorListed) {
     occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `${type.label} is a space type listed for occupant sensors` };
   } else if (type === undefined) {
     occupant = { strategy: 'occupant-sensor', requirement: 'to-verify', why: 'no control space type is given, so the occupant-sensor list cannot be checked' };
   } else if (small !== null && facts.areaFt2.lessThanOrEqualTo(small) && facts.enclosed === true) {
-    occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `enclosed space of ${ft2(facts.areaFt2)}, not more than ${ft2(small)}` };
+    occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `enclosed space of ${area(facts.areaFt2)}, not more than ${area(small)}` };
   } else if (small !== null && facts.areaFt2.lessThanOrEqualTo(small) && facts.enclosed === undefined) {
     // The small-space rule turns on whether the room is enclosed: blank is not "no".
     occupant = {
       strategy: 'occupant-sensor',
       requirement: 'to-verify',
-      why: `a space of ${ft2(facts.areaFt2)} (not more than ${ft2(small)}) needs occupant sensors if it is enclosed by floor-to-ceiling walls, and that is not recorded`,
+      why: `a space of ${area(facts.areaFt2)} (not more than ${area(small)}) needs occupant sensors if it is enclosed by floor-to-ceiling walls, and that is not recorded`,
     };
   } else {
-    const size = small === null ? '' : facts.enclosed === true ? `; enclosed but ${ft2(facts.areaFt2)} is more than ${ft2(small)}` : facts.enclosed === false ? '; not an enclosed space' : `; more than ${ft2(small)}`;
+    const size = small === null ? '' : facts.enclosed === true ? `; enclosed but ${area(facts.areaFt2)} is more than ${area(small)}` : facts.enclosed === false ? '; not an enclosed space' : `; more than ${area(small)}`;
     occupant = { strategy: 'occupant-sensor', requirement: 'not-required', why: `${type.label} is not on the occupant-sensor list${size}` };
   }
 
@@ -187,7 +185,7 @@ function lightReduction(edition: EditionData, facts: SpaceControlFacts): Control
   if (lpdBelow !== undefined && facts.areaFt2.greaterThan(0)) {
     const density = facts.installedW.dividedBy(facts.areaFt2);
     if (density.lessThan(dec(lpdBelow))) {
-      return { strategy, requirement: 'not-required', why: `the installed density of ${density.toDecimalPlaces(2).toFixed()} W/ft² is less than ${lpdBelow} W/ft²` };
+      return { strategy, requirement: 'not-required', why: `the installed density of ${densityWords(density, facts.units)} is less than ${densityWords(dec(lpdBelow), facts.units)}` };
     }
   }
   const reduction = parameter(edition, strategy, 'reductionPercent');
@@ -266,10 +264,13 @@ function checkProvision(
   if (zoneLimit !== undefined) {
     if (entry.zoneSize !== undefined) {
       const zoneFt2 = areaToSquareFeet(dec(entry.zoneSize), units);
-      if (zoneFt2.greaterThan(zoneLimit)) return { state: 'failed', words: `${by}${device}, but one device or zone serves ${zoneFt2.toDecimalPlaces(0).toFixed()} ft², more than ${zoneLimit.toFixed()} ft²` };
+      if (zoneFt2.greaterThan(zoneLimit)) {
+        const served = units === 'ip' ? areaWords(zoneFt2.toDecimalPlaces(0), units) : areaWords(zoneFt2, units);
+        return { state: 'failed', words: `${by}${device}, but one device or zone serves ${served}, more than ${areaWords(zoneLimit, units)}` };
+      }
     } else if (areaFt2 === undefined || areaFt2.greaterThan(zoneLimit)) {
       // A zone cannot be larger than its space, so only a space larger than the limit needs the zone size.
-      open.push(`the floor area one device or zone serves is not recorded (at most ${zoneLimit.toFixed()} ft²)`);
+      open.push(`the floor area one device or zone serves is not recorded (at most ${areaWords(zoneLimit, units)})`);
     }
   }
   // Full OFF reduces by all of it; otherwise the recorded reduction decides.

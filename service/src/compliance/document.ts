@@ -285,13 +285,13 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     }
     const basis = type['basis'];
     if (basis === 'line-voltage-track' && !present(type['length']) && !present(type['limitWatts'])) {
-      add(`${path}.length`, 'Line-voltage track needs its length (or the current limiter rating in limitWatts).');
+      add(`${path}.length`, 'Line-voltage track needs its length, or the rating of its current limiter.');
     }
     if (basis === 'low-voltage-track' && !present(type['limitWatts'])) {
-      add(`${path}.limitWatts`, 'Low-voltage track counts at its transformer rating: give it in limitWatts.');
+      add(`${path}.limitWatts`, 'Low-voltage track counts at its transformer rating: enter the rating.');
     }
     if (basis === 'current-limited' && !present(type['limitWatts'])) {
-      add(`${path}.limitWatts`, 'A current-limited circuit counts at the limiter rating: give it in limitWatts.');
+      add(`${path}.limitWatts`, 'A current-limited circuit counts at the limiter rating: enter the rating.');
     }
   });
 

@@ -1,3 +1,5 @@
+import type { Citation } from './citation.js';
+
 /**
  * The code tables of one edition, as the compliance engine reads them. The code-tables module
  * loads this from PostgreSQL (seeded from `reference/<edition>/`); tests may build it by hand.
@@ -15,6 +17,8 @@ export interface Provenance {
   confidence: string;
   verified: boolean;
   note?: string;
+  /** How the value is cited to people; the code tables give it, hand-built data may leave it out. */
+  citation?: Citation;
 }
 
 /** Our own keys for the control strategies; each edition says which section covers each. */

@@ -1,5 +1,6 @@
 import { type DaylightTrigger, type SpaceControlFacts, interiorRequirements, linesComply, openLines, resolveControls } from './controls.js';
 import type { EvaluationDocument, Space } from './document.js';
+import { type Citation, citationOf, editionName } from './citation.js';
 import type { EditionData, Provenance, SpaceType } from './edition-data.js';
 import { amendedEdition } from './amendments.js';
 import { evaluateExterior } from './exterior.js';
@@ -18,7 +19,7 @@ import type {
   SpaceResult,
   UnverifiedValue,
 } from './result.js';
-import { type UnitSystem, areaFromSquareFeet, areaToSquareFeet, densityFromPerSquareFoot, lengthFromFeet, lengthToFeet } from './units.js';
+import { type UnitSystem, areaFromSquareFeet, areaToSquareFeet, areaWords, densityFromPerSquareFoot, lengthFromFeet, lengthToFeet } from './units.js';
 
 /** The edition section keys the engine cites from `EditionData.sections` (as `reference/<edition>/rules.json` names them). */
 export const sectionKeys = [
@@ -44,17 +45,36 @@ export const standingCautions = [
   'The engineer of record verifies every value flagged as unverified before relying on the result.',
 ];
 
+/**
+ * The values an evaluation used that are not checked against a published source, each once, cited
+ * for people (the code tables' citation, or one made here for data built by hand).
+ */
 class Unverified {
   private readonly seen = new Map<string, UnverifiedValue>();
-  add(what: string, provenance: Provenance): void {
+  constructor(private readonly edition: string) {}
+
+  /** `reference` is the table or section to cite when the provenance carries no citation of its own. */
+  add(what: string, provenance: Provenance, reference: string): void {
     if (provenance.verified || this.seen.has(what)) return;
-    this.seen.set(what, { what, source: provenance.source, note: provenance.note ?? provenance.confidence });
+    this.keep(what, provenance.citation ?? citationOf({ edition: this.edition, reference, ...provenance }));
   }
-  note(what: string, source: string, note: string): void {
-    if (!this.seen.has(what)) this.seen.set(what, { what, source, note });
+
+  /** A value the data cannot settle at all: not yet checked, with the reason in words. */
+  unsettled(what: string, reference: string, reason: string, key = what): void {
+    if (this.seen.has(key)) return;
+    this.keep(what, citationOf({ edition: this.edition, reference, source: 'not found', confidence: 'none', verified: false, note: reason }), key);
   }
+
+  merge(values: readonly UnverifiedValue[]): void {
+    for (const value of values) if (!this.seen.has(value.what)) this.seen.set(value.what, value);
+  }
+
   values(): UnverifiedValue[] {
     return [...this.seen.values()];
+  }
+
+  private keep(what: string, citation: Citation, key = what): void {
+    this.seen.set(key, { what, source: citation.short, note: citation.note ?? citation.short, citation });
   }
 }
 
@@ -91,9 +111,9 @@ function spaceWatts(space: Space, document: EvaluationDocument, edition: Edition
   for (const group of space.luminaires) {
     const type = types.get(group.tag)!;
     const wattage = unitWattage(type, edition.rules, document.units);
-    if (wattage.usesTrackRule && type.basis === 'line-voltage-track') unverified.add('Line-voltage track minimum W per linear foot', edition.rules.trackProvenance);
+    if (wattage.usesTrackRule && type.basis === 'line-voltage-track') unverified.add('Line-voltage track: the least wattage counted per length of track', edition.rules.trackProvenance, edition.sections['trackLighting'] ?? installedSection);
     if (wattage.fromMemory) {
-      unverified.note('Low-voltage track counted at the transformer rating', 'from memory', 'No public source found for the low-voltage track rule; verify against the printed standard.');
+      unverified.unsettled('Low-voltage track counted at the transformer rating', edition.sections['trackLighting'] ?? installedSection, 'No public source found for the low-voltage track rule; verify against the printed standard.');
     }
     const count = dec(group.count);
     const watts = count.times(wattage.watts);
@@ -128,7 +148,7 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   const length = feet(space.length);
   const width = feet(space.width);
   const hasOpenings = space.windows.length > 0 || space.skylights.length > 0;
-  if (hasOpenings) unverified.add('Daylight thresholds and zone geometry', rules.provenance);
+  if (hasOpenings) unverified.add('Daylight thresholds and zone geometry', rules.provenance, edition.sections['daylightSidelighting'] ?? '');
   const geometryEvaluated = length !== undefined && width !== undefined;
   let areas = { primarySidelit: ZERO, secondarySidelit: ZERO, toplit: ZERO, rectangles: [] as ReturnType<typeof daylightAreas>['rectangles'] };
   if (geometryEvaluated && hasOpenings) {
@@ -153,7 +173,7 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   const windowArea = sum(
     space.windows.map((window) => {
       // Without a sill the glazing is counted from the floor: the larger area never clears a requirement.
-      if (window.sillHeight === undefined) unverified.note('Window sill height', 'common practice', 'No sill height given for some windows: their area is counted from the floor.');
+      if (window.sillHeight === undefined) unverified.unsettled('Window sill height', 'common practice', 'No sill height given for some windows: their area is counted from the floor.');
       const height = dec(window.headHeight).minus(dec(window.sillHeight ?? '0'));
       return areaToSquareFeet(dec(window.width).times(height), units);
     }),
@@ -186,7 +206,7 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   if (rules.combinedSidelitThresholdW !== null) sidelitThresholds.push(`primary and secondary together ${watt(combined)}, required at ${at(rules.combinedSidelitThresholdW)}`);
   let sidelighting = `${sidelitThresholds.join('; ')}${estimateWords}`;
   if (windowException && (primaryTriggers || combinedTriggers)) {
-    sidelighting += `; but the window area of ${windowArea.toDecimalPlaces(1).toFixed()} ft² is below ${rules.minimumWindowAreaFt2} ft²`;
+    sidelighting += `; but the window area of ${areaWords(windowArea, units)} is below ${areaWords(dec(rules.minimumWindowAreaFt2!), units)}`;
   }
   const toplighting = `toplit general lighting ${watt(toplitW)}, required at ${at(rules.toplitThresholdW)}${estimateWords}`;
   const trigger = (required: boolean, why: string, hasZone: boolean): DaylightTrigger => {
@@ -239,7 +259,7 @@ function spaceRcr(space: Space, units: UnitSystem, cautions: string[], unverifie
   const mounting = space.luminaireHeight ?? space.ceilingHeight;
   if (mounting === undefined) return null;
   const workPlane = space.workPlaneHeight === undefined ? defaultWorkPlaneFt : lengthToFeet(dec(space.workPlaneHeight), units);
-  if (space.workPlaneHeight === undefined) unverified.note('Work plane height', 'common practice', `No work plane height given for some spaces: ${defaultWorkPlaneFt.toFixed()} ft above the floor is assumed for the room cavity ratio.`);
+  if (space.workPlaneHeight === undefined) unverified.unsettled('Work plane height', 'common practice', `No work plane height given for some spaces: ${defaultWorkPlaneFt.toFixed()} ft (0.762 m) above the floor is assumed for the room cavity ratio.`);
   const cavity = lengthToFeet(dec(mounting), units).minus(workPlane);
   if (cavity.lessThanOrEqualTo(0)) {
     cautions.push(`“${space.name}”: luminaires are not above the work plane, so no room cavity ratio is computed.`);
@@ -255,7 +275,8 @@ function spaceRcr(space: Space, units: UnitSystem, cautions: string[], unverifie
 export function evaluate(document: EvaluationDocument, modelCode: EditionData): EvaluationResult {
   const edition = amendedEdition(modelCode, document.amendments);
   const units = document.units;
-  const unverified = new Unverified();
+  const name = editionName(edition.family, edition.year);
+  const unverified = new Unverified(name);
   const cautions: string[] = [...standingCautions];
   const spaceTypes = new Map(edition.spaceTypes.map((type) => [type.key, type]));
   const areaTypes = new Map(edition.buildingAreaTypes.map((type) => [type.key, type]));
@@ -267,13 +288,13 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
   const claims = document.retailDisplay?.claims ?? [];
   const claimLines = claims.map((claim) => {
     const allowance = additionalCatalogue.get(claim.allowance)!;
-    unverified.add(`Additional allowance: ${allowance.label}`, allowance.provenance);
+    unverified.add(`Additional allowance: ${allowance.label}`, allowance.provenance, edition.sections['additionalAllowances'] ?? '');
     const areaFt2 = areaToSquareFeet(dec(claim.area), units);
     return { claim, allowance, claimed: dec(allowance.lpdWPerFt2).times(areaFt2) };
   });
 
   const spaces: (SpaceResult & { allowance: Dec; installed: Dec; areaFt2: Dec; uncoveredDisplay: Dec; exact: { exempt: Dec; decorative: Dec; display: Dec; additional: Dec } })[] = document.spaces.map((space) => {
-    const spaceUnverified = new Unverified();
+    const spaceUnverified = new Unverified(name);
     const areaFt2 = areaToSquareFeet(dec(space.area), units);
     const watts = spaceWatts(space, document, edition, spaceUnverified);
     let baseLpd: Dec;
@@ -281,13 +302,13 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     let controlType: SpaceType | undefined;
     if (spaceBySpace) {
       const type = spaceTypes.get(space.spaceType!)!;
-      spaceUnverified.add(`Space type LPD: ${type.label}`, type.provenance);
+      spaceUnverified.add(`Space type LPD: ${type.label}`, type.provenance, allowanceSection);
       baseLpd = spaceTypeLpd(type, space, units);
       lpdBasis = { kind: 'space-type', key: type.key, label: type.label };
       controlType = type;
     } else {
       const type = areaTypes.get(space.buildingAreaType!)!;
-      spaceUnverified.add(`Building area type LPD: ${type.label}`, type.provenance);
+      spaceUnverified.add(`Building area type LPD: ${type.label}`, type.provenance, allowanceSection);
       baseLpd = dec(type.lpdWPerFt2);
       lpdBasis = { kind: 'building-area-type', key: type.key, label: type.label };
       const controlKey = space.controlSpaceType ?? space.spaceType;
@@ -305,7 +326,7 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       if (controlType.rcrThreshold !== null && rcr !== null && rcr.greaterThanOrEqualTo(dec(controlType.rcrThreshold))) {
         allowedLpd = baseLpd.times(dec(1).plus(dec(geometryRule.increasePercent).dividedBy(100)));
         roomGeometryIncreaseApplied = true;
-        spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance);
+        spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance, edition.sections['roomGeometry'] ?? '');
       } else if (controlType.rcrThreshold === null && controlType.rcrCondition !== undefined) {
         // Corridors carry "width < 8 ft" in the RCR column: a narrow corridor gets the increase.
         const narrower = /width\s*<\s*(\d+(?:\.\d+)?)\s*ft/i.exec(controlType.rcrCondition);
@@ -314,7 +335,7 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
           if (shorterSide.lessThan(dec(narrower[1]!))) {
             allowedLpd = baseLpd.times(dec(1).plus(dec(geometryRule.increasePercent).dividedBy(100)));
             roomGeometryIncreaseApplied = true;
-            spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance);
+            spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance, edition.sections['roomGeometry'] ?? '');
           }
         } else if (narrower) {
           cautions.push(`“${space.name}”: a corridor narrower than ${narrower[1]} ft gets the room-geometry increase; give its length and width to have it applied.`);
@@ -342,6 +363,7 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     const facts: SpaceControlFacts = {
       spaceType: controlType,
       areaFt2,
+      units,
       enclosed: space.enclosed,
       sidelighting,
       secondarySidelightingRequired: daylightOut.secondarySidelightingControlRequired,
@@ -351,7 +373,6 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       installedW: installed,
       nonExemptLuminaires: watts.lines.filter((line) => line.use !== 'exempt').map((line) => ({ count: dec(line.count), unitWatts: dec(line.unitWatts) })),
       provided: space.controls,
-      units,
     };
     let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType, units, areaFt2);
     if (controlType === undefined && edition.family === 'ashrae-90.1') {
@@ -376,10 +397,11 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     for (const line of controls) {
       const strategy = edition.controlStrategies.find((candidate) => candidate.key === line.strategy);
       // A "not required" can rest on an unverified threshold just as a requirement can.
-      if (strategy) spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance);
-      if (line.status === 'to-verify') spaceUnverified.note(`${space.id}: ${line.label}`, controlType?.provenance.source ?? 'not given', line.reason);
+      if (strategy) spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance, strategy.section);
+      // People know a space by its name; the id only keeps two spaces of the same name apart.
+      if (line.status === 'to-verify') spaceUnverified.unsettled(`${space.name}: ${line.label}`, line.section, line.reason, `${space.id}\u0000${line.strategy}`);
     }
-    for (const value of spaceUnverified.values()) unverified.note(value.what, value.source, value.note);
+    unverified.merge(spaceUnverified.values());
 
     return {
       id: space.id,
@@ -425,7 +447,7 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     }, ZERO);
     fixedUsable = min(fixed, sum(spaces.map((space) => space.uncoveredDisplay)));
     if (claimLines.every((line) => line.allowance.fixedW === undefined)) {
-      unverified.note('Retail display fixed adder', 'not found in a public source', 'This edition’s fixed wattage added once per building to the retail display allowance was not found; none is counted, which can only understate the allowance.');
+      unverified.unsettled('Retail display fixed adder', edition.sections['additionalAllowances'] ?? '', 'This edition’s fixed wattage added once per building to the retail display allowance was not found; none is counted, which can only understate the allowance.');
     }
     const claimedSpaces = new Set(claims.map((claim) => claim.spaceId));
     const claimed = sum(claimLines.map((line) => line.claimed)).plus(fixed);
@@ -472,22 +494,26 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
 
   const exterior = document.exterior === undefined ? null : evaluateExterior(document.exterior, edition, units);
   if (exterior !== null) {
-    unverified.add('Whether the base site allowance may cover nontradable applications', edition.rules.baseSiteProvenance);
+    const exteriorSection = edition.sections['exteriorAllowance'] ?? '';
+    unverified.add('Whether the base site allowance may cover nontradable applications', edition.rules.baseSiteProvenance, exteriorSection);
     for (const entry of document.exterior!.applications) {
       const application = edition.exteriorApplications.find((candidate) => candidate.key === entry.key)!;
-      unverified.add(`Exterior allowance: ${application.label}`, application.provenance);
+      unverified.add(`Exterior allowance: ${application.label}`, application.provenance, exteriorSection);
       if (application.unverifiedZones?.includes(exterior.lightingZone)) {
-        unverified.note(`Exterior allowance: ${application.label}, zone ${exterior.lightingZone}`, application.provenance.source, `The allowance for lighting zone ${exterior.lightingZone} is not from the published table as it stands: ${application.provenance.note ?? 'verify it'}`);
+        unverified.unsettled(`Exterior allowance: ${application.label}, zone ${exterior.lightingZone}`, exteriorSection, `The allowance for lighting zone ${exterior.lightingZone} is not the published table as it stands: ${application.provenance.note ?? 'verify it'}`);
       }
     }
     const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
-    if (base) unverified.add(`Exterior allowance: ${base.label}`, base.provenance);
+    if (base) unverified.add(`Exterior allowance: ${base.label}`, base.provenance, exteriorSection);
   }
 
   const interiorLines = spaces.flatMap((space) => space.controls);
   const exteriorLines = exterior?.applications.flatMap((application) => application.controls) ?? [];
-  const controlsComply = linesComply(interiorLines) && linesComply(exteriorLines);
-  const controlsToVerify = openLines(interiorLines) + openLines(exteriorLines);
+  // A space without luminaires is out of the verdict until they are entered or it is confirmed unlit:
+  // its lines say what its lighting will need, and wait with it (the verdict is incomplete meanwhile).
+  const judgedLines = spaces.filter((space) => space.lighting !== 'none-entered').flatMap((space) => space.controls);
+  const controlsComply = linesComply(judgedLines) && linesComply(exteriorLines);
+  const controlsToVerify = openLines(judgedLines) + openLines(exteriorLines);
   if (controlsToVerify > 0) {
     cautions.push(
       `${controlsToVerify} control requirement(s) are marked "to verify": record what is provided, or that the adopted code was checked and it does not apply. Until then there is no verdict.`,

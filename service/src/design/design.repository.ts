@@ -586,9 +586,11 @@ export async function setControlOnSpaces(
     const stale = stored.filter((row) => wanted.get(row.id) !== row.version);
     if (stale.length > 0) {
       const names = stale.map((row) => row.name).sort();
-      throw AppError.conflict(`${names.length} of these spaces changed since you read them (${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}). Reload and apply the control again.`, [
-        { path: 'spaces', message: 'Some versions are stale.' },
-      ]);
+      const staleIds = new Set(stale.map((row) => row.id));
+      const nameOf = new Map(stale.map((row) => [row.id, row.name]));
+      // One detail per changed space, at its place in the request, so a client can name each one.
+      const details = targets.flatMap((target, index) => (staleIds.has(target.id) ? [{ path: `spaces.${index}`, message: `“${nameOf.get(target.id)}” changed since you read it.` }] : []));
+      throw AppError.conflict(`${names.length} of these spaces changed since you read them (${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}). Reload and apply the control again.`, details);
     }
     const before = await spaceRecords(trx, await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position'));
     await trx('space_controls').whereIn('space_id', ids).where({ strategy: control.strategy }).delete();

@@ -20,7 +20,15 @@ const controlLine = z.strictObject({
   verified: z.boolean(),
 });
 
-const unverifiedValue = z.strictObject({ what: z.string(), source: z.string(), note: z.string() });
+const citation = z
+  .strictObject({
+    short: z.string().describe('Edition, table or section, and what the value rests on, in words.'),
+    layer: z.enum(['model-code', 'other-edition-or-state', 'modelling-dataset', 'not-checked']),
+    checked: z.boolean(),
+    note: z.string().nullable().describe('The source note in words, for those who ask.'),
+  })
+  .describe('How a code-table value is cited to people.');
+const unverifiedValue = z.strictObject({ what: z.string(), source: z.string(), note: z.string(), citation });
 const zoneKind = z.enum(['primary-sidelit', 'secondary-sidelit', 'toplit']);
 
 const daylight = z.strictObject({

@@ -10,6 +10,7 @@ const hundredths = new Intl.NumberFormat('en-US', { minimumFractionDigits: 2, ma
 const tenths = new Intl.NumberFormat('en-US', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
 const upToTenths = new Intl.NumberFormat('en-US', { maximumFractionDigits: 1 });
 const upToHundredths = new Intl.NumberFormat('en-US', { maximumFractionDigits: 2 });
+const upToThousandths = new Intl.NumberFormat('en-US', { maximumFractionDigits: 3 });
 
 function parsed(value: string | null | undefined): number | null {
   if (value === null || value === undefined || value === '') return null;
@@ -29,6 +30,8 @@ export const densityFigure = figure(hundredths);
 export const percentFigure = figure(tenths);
 export const ratedWattsFigure = figure(tenths);
 export const quantityFigure = figure(upToHundredths);
+/** An exterior allowance rate (W per ft², m, location…): tables print them to 0.001, and SI conversions run longer. */
+export const rateFigure = figure(upToThousandths);
 
 export function areaFigure(value: string | null | undefined, units: UnitSystem): string {
   return figure(units === 'ip' ? whole : upToTenths)(value);

@@ -262,11 +262,30 @@ export interface EditionSummary {
   methods: ComplianceMethod[];
 }
 
+/**
+ * What a code-table value rests on: the model code's own table or text; another edition's or a
+ * state's text standing in for it; how a public modelling dataset reads the rule; or nothing checked yet.
+ */
+export type CitationLayer = 'model-code' | 'other-edition-or-state' | 'modelling-dataset' | 'not-checked';
+
+/** How the service cites a value to people: in words, without the reference files' markers. */
+export interface Citation {
+  /** E.g. "IECC 2021 Table C405.3.2(2) — model code". */
+  short: string;
+  layer: CitationLayer;
+  /** Checked against a published source; the "verify" badge shows where this is false. */
+  checked: boolean;
+  /** The source's note in words, shown on demand. */
+  note: string | null;
+}
+
+/** The maintainers' provenance of a row (not for screens) and its citation (for screens). */
 export interface RowProvenance {
   source: string;
   confidence: string;
   verified: boolean;
   note?: string | null;
+  citation: Citation;
 }
 
 export interface BuildingAreaTypeView extends RowProvenance {
@@ -369,8 +388,11 @@ export interface DaylightResult {
 
 export interface UnverifiedValue {
   what: string;
+  /** The short citation, in words. */
   source: string;
+  /** The note in words (the short citation where there is none). */
   note: string;
+  citation: Citation;
 }
 
 export interface SpaceResult {

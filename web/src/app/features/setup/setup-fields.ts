@@ -9,6 +9,7 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
 import type { LightingZoneView } from '../../core/api/api-types';
+import { UnverifiedCount } from '../../shared/unverified-count';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { errorMessage, type SetupForm } from './setup-form';
@@ -22,7 +23,7 @@ export const methodLabels = { 'space-by-space': 'Space-by-space method', 'buildi
 /** One section of the project set-up fields; the wizard shows one per step, the set-up page all. */
 @Component({
   selector: 'al-setup-fields',
-  imports: [ReactiveFormsModule, MatAutocompleteModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, MatSelectModule, VerifyBadge],
+  imports: [ReactiveFormsModule, MatAutocompleteModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, MatSelectModule, UnverifiedCount, VerifyBadge],
   templateUrl: './setup-fields.html',
   styleUrl: './setup-fields.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -64,6 +65,11 @@ export class SetupFields {
     ),
     { initialValue: { status: 'no-edition' as const } },
   );
+  /** The zones offered whose definition is not checked: each carries a "verify" mark. */
+  protected readonly unverifiedZones = computed(() => {
+    const zones = this.zones();
+    return zones.status === 'ready' ? zones.zones.filter((zone) => !zone.verified).length : 0;
+  });
 
   private readonly timeZoneQuery = toSignal(
     toObservable(this.form).pipe(switchMap((form) => form.controls.site.controls.timeZone.valueChanges.pipe(startWith(form.controls.site.controls.timeZone.value)))),

@@ -16,6 +16,7 @@ import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView
 import { ApiError } from '../../core/http/api-error';
 import { placeServerErrors, WriteFailure } from '../../shared/conflict';
 import { formatDensity, unitLabels } from '../../shared/format';
+import { InUnits } from '../../shared/in-units';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { densityInUnits, spaceInput } from './space-rows';
@@ -50,6 +51,7 @@ export interface SpaceEditorData {
     MatProgressBarModule,
     MatSelectModule,
     SpaceTypePicker,
+    InUnits,
     VerifyBadge,
   ],
   templateUrl: './space-editor.html',

@@ -6,6 +6,8 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceResult, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
 import { formatArea, formatLength, formatWatts, unitLabels } from '../../shared/format';
+import { inProjectUnits } from '../../shared/unit-words';
+import { VerifyBadge } from '../../shared/verify-badge';
 import { groupByLevel, spaceStatus, type SpaceRow, type SpaceStatus } from './space-rows';
 
 /** Row height in px; the virtual scroll needs it fixed. */
@@ -14,7 +16,7 @@ export const spaceRowHeight = 48;
 /** The project's spaces grouped by level, in one virtual-scrolled list that stays smooth at thousands of rows. */
 @Component({
   selector: 'al-space-table',
-  imports: [ScrollingModule, MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule],
+  imports: [ScrollingModule, MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule, VerifyBadge],
   templateUrl: './space-table.html',
   styleUrl: './space-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -37,18 +39,25 @@ export class SpaceTable {
   protected readonly rowHeight = spaceRowHeight;
   protected readonly rows = computed(() => groupByLevel(this.spaces()));
   protected readonly labels = computed(() => unitLabels(this.units()));
-  private readonly typeLabels = computed(() => {
-    const entries: [string, string][] =
-      this.method() === 'building-area' ? this.buildingAreaTypes().map((type) => [type.key, type.label]) : this.spaceTypes().map((type) => [type.key, type.label]);
-    return new Map(entries);
+  /** The template names the unit labels `units`; the badge takes the system itself. */
+  protected readonly unitSystem = computed(() => this.units());
+  private readonly typeViews = computed(() => {
+    const types: readonly (SpaceTypeView | BuildingAreaTypeView)[] = this.method() === 'building-area' ? this.buildingAreaTypes() : this.spaceTypes();
+    return new Map(types.map((type) => [type.key, type]));
   });
 
   protected readonly trackRow = (_index: number, row: SpaceRow) => row.id;
 
+  protected typeView(space: SpaceRecord): SpaceTypeView | BuildingAreaTypeView | undefined {
+    const key = this.method() === 'building-area' ? space.buildingAreaType : space.spaceType;
+    return key ? this.typeViews().get(key) : undefined;
+  }
+
   protected typeLabel(space: SpaceRecord): string {
     const key = this.method() === 'building-area' ? space.buildingAreaType : space.spaceType;
     if (!key) return '—';
-    return this.typeLabels().get(key) ?? key;
+    // A type the edition does not have (kept from another edition) is named as such, never by its key.
+    return inProjectUnits(this.typeViews().get(key)?.label ?? 'A type this edition does not have', this.units());
   }
 
   protected area(value: string | number): string {
@@ -78,6 +87,10 @@ export class SpaceTable {
         return `Within allowance, ${status.words}`;
       case 'over':
         return `Over allowance ${status.words}`;
+      case 'none-entered':
+        return 'No luminaires entered: enter them, or confirm the space is unlit';
+      case 'unlit':
+        return 'Unlit (confirmed)';
       case 'updating':
         return 'Updating…';
       default:

@@ -17,10 +17,18 @@ import type {
   ProjectMember,
   ProjectRole,
   ProjectSetup,
+  ProvidedControl,
   SpaceInput,
   SpaceRecord,
   SpaceTypeView,
 } from '../../core/api/api-types';
+
+/** The parts of an evaluation document that problem paths count through (`spaces.3`, `luminaireTypes.0`, `exterior.applications.2`). */
+export interface EvaluationDocumentOrder {
+  spaces: { id: string; name: string }[];
+  luminaireTypes: { tag: string }[];
+  exterior?: { applications: { key: string }[] };
+}
 
 /** The project workspace's calls: set-up, design data, results, and the code tables (cached per edition). */
 @Injectable({ providedIn: 'root' })
@@ -134,6 +142,16 @@ export class WorkspaceApi {
 
   restoreExteriorApplication(projectId: string, applicationId: string): Observable<ExteriorApplicationRecord> {
     return this.http.post<ExteriorApplicationRecord>(`/api/projects/${projectId}/exterior-applications/${applicationId}/restore`, {});
+  }
+
+  /** Records one control (provided, or an exception) on many spaces at once; all or nothing, 409 naming the stale ones. */
+  setControlOnSpaces(projectId: string, spaces: readonly Pick<SpaceRecord, 'id' | 'version'>[], control: ProvidedControl): Observable<SpaceRecord[]> {
+    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/controls`, { spaces: spaces.map(({ id, version }) => ({ id, version })), control });
+  }
+
+  /** The stored project as the evaluation reads it: the order its problem paths count in. */
+  document(projectId: string): Observable<EvaluationDocumentOrder> {
+    return this.http.get<EvaluationDocumentOrder>(`/api/projects/${projectId}/document`);
   }
 
   results(projectId: string): Observable<EvaluationResult> {
