@@ -232,7 +232,7 @@ describe('IECC 2021 occupant sensors and time switches', () => {
     expect(line(withZone(5001), 'time-switch').status).toBe('not-met');
     // 500 m² = 5,381.96 ft² (1 ft² = 0.09290304 m², mathjs units): over the limit, and an SI project reads both in m²
     // (5,000 ft² = 464.5152 m²).
-    expect(line(withZone(500, 'si'), 'time-switch').reason).toContain('one device serves 500 m², more than 464.5 m²');
+    expect(line(withZone(500, 'si'), 'time-switch').reason).toContain('one device or zone serves 500 m², more than 464.5 m²');
   });
 
   it('applies the light-reduction exceptions held in the data', () => {

@@ -101,7 +101,16 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
 
   it('building-area-types returns every row of the file, decimals unchanged', async () => {
     const body = await get(`/api/code-editions/${id}/building-area-types`);
-    expect(body).toEqual(edition.buildingAreaTypes.rows.map((row) => ({ key: row.key, label: row.label, sourceLabel: row.sourceLabel, lpdWPerFt2: row.lpdWPerFt2, ...provenance(row) })));
+    expect(body).toEqual(
+      edition.buildingAreaTypes.rows.map((row) => ({
+        key: row.key,
+        label: row.label,
+        sourceLabel: row.sourceLabel,
+        lpdWPerFt2: row.lpdWPerFt2,
+        ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
+        ...provenance(row),
+      })),
+    );
   });
 
   it('space-types returns every row with its category, RCR threshold and requirement map', async () => {
