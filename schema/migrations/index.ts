@@ -7,7 +7,12 @@ import * as projectResultSummary from './20261201000500_project_result_summary.j
 import * as designIntegrity from './20261202000200_design_integrity.js';
 import * as permitFields from './20261202000300_permit_fields.js';
 import * as workspaceFields from './20261202000400_workspace_fields.js';
+import * as ruleFields from './20261202000500_rule_fields.js';
+import * as ruleInputs from './20261202000600_rule_inputs.js';
+import * as editionAmendments from './20261202000700_edition_amendments.js';
+import * as equalRows from './20261202000800_equal_rows.js';
 import * as sessions from './20261202001000_sessions.js';
+import * as spaceTypeFormulas from './20261202001100_space_type_formulas.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -24,7 +29,12 @@ const migrations: Record<string, Migration> = {
   '20261202000200_design_integrity': designIntegrity,
   '20261202000300_permit_fields': permitFields,
   '20261202000400_workspace_fields': workspaceFields,
+  '20261202000500_rule_fields': ruleFields,
+  '20261202000600_rule_inputs': ruleInputs,
+  '20261202000700_edition_amendments': editionAmendments,
+  '20261202000800_equal_rows': equalRows,
   '20261202001000_sessions': sessions,
+  '20261202001100_space_type_formulas': spaceTypeFormulas,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { deriveIeccControls } from '../../service/src/code-tables/iecc-controls.js';
 import { defaultReferenceRoot, editionIds, readReferenceEdition, type ReferenceEdition } from '../../service/src/code-tables/reference-files.js';
-import type { RequirementCode } from '../../service/src/compliance/edition-data.js';
+import type { RequirementCode, StrategyKey } from '../../service/src/compliance/edition-data.js';
 
 /** Loads `reference/` into the code tables. An unchanged edition is left alone; a changed one gets a new data version. */
 export async function seed(knex: Knex): Promise<void> {
@@ -60,6 +60,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
       label: row.label,
       source_label: row.sourceLabel,
       lpd_w_per_ft2: row.lpdWPerFt2,
+      equals_row_of: row.equalsRowOf ? JSON.stringify(row.equalsRowOf) : null,
       ...provenanceColumns(row),
     })),
   );
@@ -75,23 +76,32 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
       lpd_w_per_ft2: row.lpdWPerFt2,
       rcr_threshold: row.rcrThreshold,
       rcr_condition: row.rcrCondition ?? null,
+      equals_row_of: row.equalsRowOf ? JSON.stringify(row.equalsRowOf) : null,
+      lpd_formula: row.lpdFormula ? JSON.stringify(row.lpdFormula) : null,
       iecc_occupant_sensor_listed: row.iecc?.occupantSensorListed ?? null,
       iecc_occupant_sensor_list_item: row.iecc?.occupantSensorListItem ?? null,
       iecc_full_auto_on_allowed: row.iecc?.fullAutoOnAllowed ?? null,
       iecc_full_auto_on_item: row.iecc?.fullAutoOnItem ?? null,
       iecc_sensor_function: row.iecc?.sensorFunction ?? null,
       iecc_light_reduction_exempt_item: row.iecc?.lightReductionExemptItem ?? null,
+      iecc_time_switch_exempt_item: row.iecc?.timeSwitchExemptItem ?? null,
+      iecc_sleeping_unit: row.iecc ? row.iecc.sleepingUnit : null,
+      iecc_inputs_tag: row.iecc?.tag ?? null,
       iecc_note: row.iecc?.note ?? null,
       ...provenanceColumns(row),
     })),
   );
 
+  // A derived cell is only as sure as the strategy it derives: a rule input from an unverified strategy is unverified too.
+  const strategyVerified = new Map(reference.controlStrategies.strategies.map((strategy) => [strategy.key, strategy.verified]));
   const controls = reference.spaceTypes.rows.flatMap((row) => {
     if (row.iecc && row.daylight) {
       const derived = deriveIeccControls(row.iecc, {
         sidelighting: row.daylight.sidelighting as RequirementCode,
         toplighting: row.daylight.toplighting as RequirementCode,
       });
+      // Inputs that another edition's list stands in for cannot make a derived cell verified.
+      const standIn = row.iecc.tag !== undefined;
       return Object.entries(derived).map(([strategy, cell]) => ({
         ...version,
         space_type_key: row.key,
@@ -99,8 +109,8 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
         requirement: cell.requirement,
         source: strategy.startsWith('daylight-') ? row.source : 'derived from the C405.2.1 rule inputs of this space type',
         confidence: row.confidence,
-        verified: row.verified && !strategy.startsWith('daylight-') ? true : false,
-        note: strategy.startsWith('daylight-') ? `${cell.why}: ${row.daylight!.note}` : cell.why,
+        verified: row.verified && !standIn && !strategy.startsWith('daylight-') && (strategyVerified.get(strategy as StrategyKey) ?? false),
+        note: strategy.startsWith('daylight-') ? `${cell.why}: ${row.daylight!.note}` : standIn ? `${cell.why}; IECC 2021's rule list stands in for this edition's own, which was not found` : cell.why,
         from_memory: null,
       }));
     }
@@ -186,6 +196,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
     daylight_primary_depth_head_heights: rules.daylight.primaryDepthHeadHeights,
     daylight_secondary_depth_head_heights: rules.daylight.secondaryDepthHeadHeights,
     daylight_toplit_extension_ceiling_heights: rules.daylight.toplitExtensionCeilingHeights,
+    daylight_overlap_precedence: rules.daylight.overlapPrecedence ?? null,
     daylight_provenance: JSON.stringify(rules.daylight.provenance),
     room_geometry_increase_percent: rules.roomGeometry?.increasePercent ?? null,
     room_geometry_provenance: rules.roomGeometry ? JSON.stringify(rules.roomGeometry.provenance) : null,
@@ -196,6 +207,23 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
     base_site_covers_nontradable: rules.baseSite.coversNontradable,
     base_site_provenance: JSON.stringify(rules.baseSite.provenance),
   });
+
+  if (reference.amendments.rows.length) {
+    await trx('edition_amendments').insert(
+      reference.amendments.rows.map((row, position) => ({
+        ...version,
+        key: row.key,
+        position,
+        title: row.title,
+        jurisdiction: row.jurisdiction,
+        parameters: JSON.stringify(row.parameters),
+        source: row.source,
+        confidence: row.confidence,
+        verified: row.verified,
+        note: row.note,
+      })),
+    );
+  }
 
   await trx('edition_sections').insert(
     Object.entries(rules.sections).map(([key, section]) => ({ ...version, key, section: section.section, tag: section.tag, verified: section.verified, note: section.note })),

@@ -29,14 +29,23 @@ export const demoLuminaireTypes = [
   { tag: 'M', description: 'Emergency egress unit, normally off', inputWatts: '4', use: 'exempt', exemptReason: 'Emergency egress lighting that is normally off' },
 ] as const;
 
-type Control = { strategy: string; provided: boolean; timeoutMinutes?: string; autoOn?: 'manual' | 'partial' | 'full'; device?: string; exceptionReason?: string };
+type Control = { strategy: string; provided: boolean; timeoutMinutes?: string; reductionPercent?: string; autoOn?: 'manual' | 'partial' | 'full'; device?: string; exceptionReason?: string };
 
 const sensor = (autoOn: 'manual' | 'partial' | 'full' = 'partial'): Control => ({ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn, device: 'Ceiling dual-technology occupant sensor' });
 const timeSwitch: Control = { strategy: 'time-switch', provided: true, device: 'Lighting control panel schedule, astronomical clock' };
-const dimming: Control = { strategy: 'light-reduction', provided: true, device: '0–10 V dimming wall station' };
+const dimming: Control = { strategy: 'light-reduction', provided: true, reductionPercent: '90', device: '0–10 V dimming wall station, down to 10 %' };
 const sidelighting: Control = { strategy: 'daylight-sidelighting', provided: true, device: 'Closed-loop photosensor, continuous dimming to 10 %' };
-const stepDimming: Control = { strategy: 'light-reduction', provided: true, device: 'Occupant sensor with a 50 % low-level step' };
-const partialOff: Control = { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', device: 'Corridor sensors, 50 % step when vacant' };
+const stepDimming: Control = { strategy: 'light-reduction', provided: true, reductionPercent: '50', device: 'Occupant sensor with a 50 % low-level step' };
+const partialOff: Control = { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '50', device: 'Corridor sensors, 50 % step when vacant' };
+// Open plan offices: zones of at most 600 ft², each reduced by at least 80 % when vacant (IECC C405.2.1.3).
+const openPlanZones = (zoneSize: string): Control & { zoneSize: string } => ({
+  strategy: 'automatic-partial-off',
+  provided: true,
+  timeoutMinutes: '20',
+  reductionPercent: '80',
+  zoneSize,
+  device: 'Zoned ceiling sensors, each vacant zone down to 20 %',
+});
 const specific: Control = { strategy: 'specific-application', provided: true, device: 'Separate switch leg for display and decorative lighting' };
 
 interface DemoSpace {
@@ -114,7 +123,7 @@ export const demoSpaces: DemoSpace[] = [
   { name: '105 Community room', level: l1, spaceType: 'conference-meeting-multipurpose-room', area: '1100', length: '44', width: '25', ceilingHeight: '11', luminaires: [{ tag: 'A', count: 30 }, { tag: 'X', count: 2 }], controls: [sensor(), dimming] },
   { name: '106 Café', level: l1, spaceType: 'dining-area-in-cafeteria-or-fast-food-dining', area: '700', length: '35', width: '20', ceilingHeight: '11', luminaires: [{ tag: 'D', count: 16 }, { tag: 'G', count: 6 }], controls: [timeSwitch, dimming, specific] },
   { name: '107 Café kitchen', level: l1, spaceType: 'food-preparation-area', area: '250', length: '25', width: '10', ceilingHeight: '10', enclosed: true, luminaires: [{ tag: 'E', count: 10 }], controls: [sensor('manual'), dimming] },
-  { name: '108 Circulation workroom', level: l1, spaceType: 'office-open-plan', area: '500', length: '25', width: '20', ceilingHeight: '10', luminaires: [{ tag: 'B', count: 12 }], controls: [sensor(), dimming] },
+  { name: '108 Circulation workroom', level: l1, spaceType: 'office-open-plan', area: '500', length: '25', width: '20', ceilingHeight: '10', luminaires: [{ tag: 'B', count: 12 }], controls: [sensor(), dimming, openPlanZones('250')] },
   { name: '109 Restroom, women', level: l1, spaceType: 'restroom-otherwise', area: '280', length: '20', width: '14', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'D', count: 12 }], controls: [sensor('full'), stepDimming] },
   { name: '110 Restroom, men', level: l1, spaceType: 'restroom-otherwise', area: '260', length: '20', width: '13', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'D', count: 11 }], controls: [sensor('full'), stepDimming] },
   { name: '111 Corridor', level: l1, spaceType: 'corridor-otherwise', area: '900', length: '120', width: '7.5', ceilingHeight: '9', luminaires: [{ tag: 'B', count: 16 }, { tag: 'X', count: 3 }, { tag: 'M', count: 4 }], controls: [sensor('full'), partialOff] },
@@ -147,7 +156,7 @@ export const demoSpaces: DemoSpace[] = [
     width: '20',
     ceilingHeight: '10',
     luminaires: [{ tag: 'B', count: 6, zone: 'primary-sidelit' }, { tag: 'B', count: 10 }],
-    controls: [sensor(), dimming, sidelighting],
+    controls: [sensor(), dimming, sidelighting, openPlanZones('350')],
     windows: [{ width: '10', headHeight: '8', sillHeight: '3', wall: 'south', offset: '5' }, { width: '10', headHeight: '8', sillHeight: '3', wall: 'south', offset: '20' }],
   },
   { name: '207 Staff break room', level: l2, spaceType: 'lounge-breakroom-otherwise', area: '300', length: '20', width: '15', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'B', count: 7 }], controls: [sensor(), dimming] },

@@ -82,10 +82,11 @@ describe('additional allowances per sales floor', { timeout: 60_000 }, () => {
     await row.waitFor();
     expect(await row.locator('td').nth(0).textContent()).toContain('1.05');
     expect(await row.locator('td').nth(1).textContent()).toContain('800');
-    // The rate's source as a short citation, and in words that it is not yet checked.
     const source = row.getByTestId('claim-source');
-    expect(await source.textContent()).toContain('IECC 2021, section C405.3.2.2.1');
+    // The rate's source as a short citation, in words that it is not yet checked, with the verify mark.
+    expect(await source.textContent()).toContain('IECC 2021 Section C405.3.2.2.1');
     expect(await source.textContent()).toContain('not yet checked against the printed code');
+    expect(await source.getByText('verify', { exact: true }).count()).toBe(1);
     // A fresh form for the next claim, without messages for fields not touched yet.
     expect(await page.getByText('Choose an allowance.').count()).toBe(0);
     // 1.05 W/ft² × 800 ft² = 840 W, all of it used by the 1,000 W of display lighting: 2,100 + 840 = 2,940 W against 2,200 W.

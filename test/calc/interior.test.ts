@@ -51,7 +51,8 @@ describe('space-by-space method', () => {
     method: 'space-by-space',
     units: 'ip',
     spaces: [
-      { id: 'eo', name: 'Enclosed offices', spaceType: types[0], area: 2000 },
+      // One entry for ten enclosed offices of 200 ft² each, so each is within the "≤ 250 ft²" row.
+      { id: 'eo', name: 'Enclosed offices', spaceType: types[0], area: 2000, rooms: 10 },
       { id: 'op', name: 'Open office', spaceType: types[1], area: 5000 },
       { id: 'cf', name: 'Conference', spaceType: types[2], area: 600 },
       { id: 'co', name: 'Corridor', spaceType: types[3], area: 1200 },
@@ -275,8 +276,8 @@ describe('external test cases (mechanics of area-weighting)', () => {
     const edition = {
       ...ashrae2019,
       spaceTypes: [
-        { ...ashrae2019.spaceTypes[0]!, key: 'guest-room', rcrThreshold: null, lpdWPerFt2: '1.14' },
-        { ...ashrae2019.spaceTypes[0]!, key: 'hotel-lobby', rcrThreshold: null, lpdWPerFt2: '1.10' },
+        { ...ashrae2019.spaceTypes[0]!, key: 'guest-room', sourceLabel: 'Guest Room', rcrThreshold: null, lpdWPerFt2: '1.14' },
+        { ...ashrae2019.spaceTypes[0]!, key: 'hotel-lobby', sourceLabel: 'Lobby | Hotel', rcrThreshold: null, lpdWPerFt2: '1.10' },
       ],
     };
     const hotel = (guestArea: number, guestDensity: string, lobbyDensity: string) =>
@@ -357,7 +358,8 @@ describe('spaces without luminaires', () => {
         luminaires: [{ tag: 'A', count: 4 }],
         controls: [
           { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'manual' },
-          { strategy: 'light-reduction', provided: true },
+          // IECC 2021 C405.2.3: reduce the connected load by at least 50 % [S-ed, Washington text].
+          { strategy: 'light-reduction', provided: true, reductionPercent: '50' },
         ],
       },
       {
@@ -380,10 +382,21 @@ describe('spaces without luminaires', () => {
     expect(result.interior.complies).toBe(true);
     expect(result.verdict).toBe('incomplete');
     expect(result.complies).toBe(false);
-    expect(result.openItems).toEqual({ spacesWithoutLuminaires: 1 });
+    expect(result.openItems).toEqual({ spacesWithoutLuminaires: 1, controlsToVerify: 0 });
     // Its control lines still say what its lighting will need.
     expect(shaft.controls.find((control) => control.strategy === 'occupant-sensor')!.status).toBe('met');
     expect(result.cautions.some((caution) => caution.includes('“Shaft room” has no luminaires entered'))).toBe(true);
+  });
+
+  it('keep their control requirements out of the verdict while they wait: listed, not failing', () => {
+    const empty = document();
+    empty.spaces[1] = { ...empty.spaces[1]!, controls: [] };
+    const result = run(empty, iecc2021);
+    const shaft = result.interior.spaces.find((space) => space.id === 's')!;
+    // IECC 2021 C405.2.1 lists storage rooms for occupant sensors: required, and nothing is recorded yet.
+    expect(shaft.controls.find((control) => control.strategy === 'occupant-sensor')!.status).toBe('not-met');
+    expect(result.controlsComply).toBe(true);
+    expect(result.verdict).toBe('incomplete');
   });
 
   it('once confirmed unlit, have no lighted floor area: they add no allowance, and the verdict is settled', () => {

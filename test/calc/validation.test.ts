@@ -130,3 +130,20 @@ describe('validateDocument', () => {
     expect(paths(document)).toEqual(expect.arrayContaining(['spaces.0.area', 'spaces.0.spaceType']));
   });
 });
+
+describe('unknown fields', () => {
+  it('are refused by name at every level, so a misspelt field is not silently lost', () => {
+    const document = valid() as unknown as Record<string, unknown> & { spaces: Record<string, unknown>[] };
+    document.spaces[0]!['ceilingHieght'] = 9;
+    (document.spaces[0]!['luminaires'] as Record<string, unknown>[])[0]!['cnt'] = 2;
+    document['author'] = 'someone';
+    const problems = validateDocument(document, ashrae2019).problems;
+    expect(problems).toEqual(
+      expect.arrayContaining([
+        { path: 'spaces.0', message: 'Unknown field “ceilingHieght”: check the spelling.' },
+        { path: 'spaces.0.luminaires.0', message: 'Unknown field “cnt”: check the spelling.' },
+        { path: '', message: 'Unknown field “author”: check the spelling.' },
+      ]),
+    );
+  });
+});

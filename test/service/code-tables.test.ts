@@ -7,6 +7,7 @@ import { seedCodeTables } from '../../schema/seeds/00_code_tables.js';
 import { loadEditionData } from '../../service/src/code-tables/code-tables.repository.js';
 import { deriveIeccControls } from '../../service/src/code-tables/iecc-controls.js';
 import { editionIds, readReferenceEdition, type ReferenceEdition } from '../../service/src/code-tables/reference-files.js';
+import { editionName } from '../../service/src/compliance/citation.js';
 import type { EditionId, RequirementCode } from '../../service/src/compliance/edition-data.js';
 import { signIn, testApp, type SignedInAgent } from '../support/app.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
@@ -57,8 +58,9 @@ async function rowCounts(): Promise<Record<string, number>> {
 }
 
 describe('GET /api/code-editions', () => {
-  it('lists the three editions with their current data version and methods', async () => {
+  it('lists the seven editions with their current data version and methods', async () => {
     const body = await get('/api/code-editions');
+    expect(body.map((edition: { id: string }) => edition.id)).toEqual(['ashrae-90.1-2013', 'ashrae-90.1-2016', 'ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2018', 'iecc-2021', 'iecc-2024']);
     expect(body.map((edition: { id: string }) => edition.id).sort()).toEqual([...editionIds].sort());
     for (const edition of body) {
       expect(edition).toMatchObject({ dataVersion: reference[edition.id as EditionId].dataVersion, methods: ['building-area', 'space-by-space'] });
@@ -87,17 +89,28 @@ describe('GET /api/code-editions', () => {
 
 describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
   const edition = reference[id];
+  const name = editionName(edition.edition.family, edition.edition.year);
   const provenance = (row: { source: string; confidence: string; verified: boolean; note: string; fromMemory?: string | undefined }) => ({
     source: row.source,
     confidence: row.confidence,
     verified: row.verified,
     note: row.note,
     ...(row.fromMemory ? { fromMemory: row.fromMemory } : {}),
+    citation: expect.objectContaining({ short: expect.stringMatching(new RegExp(`^${name.replace('.', '\\.')} `)), checked: row.verified ? expect.any(Boolean) : false }),
   });
 
   it('building-area-types returns every row of the file, decimals unchanged', async () => {
     const body = await get(`/api/code-editions/${id}/building-area-types`);
-    expect(body).toEqual(edition.buildingAreaTypes.rows.map((row) => ({ key: row.key, label: row.label, sourceLabel: row.sourceLabel, lpdWPerFt2: row.lpdWPerFt2, ...provenance(row) })));
+    expect(body).toEqual(
+      edition.buildingAreaTypes.rows.map((row) => ({
+        key: row.key,
+        label: row.label,
+        sourceLabel: row.sourceLabel,
+        lpdWPerFt2: row.lpdWPerFt2,
+        ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
+        ...provenance(row),
+      })),
+    );
   });
 
   it('space-types returns every row with its category, RCR threshold and requirement map', async () => {
@@ -115,6 +128,7 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
         ...provenance(row),
       });
       expect(served.rcrCondition).toBe(row.rcrCondition);
+      expect(served.lpdFormula).toEqual(row.lpdFormula);
       const expected =
         row.iecc && row.daylight
           ? Object.fromEntries(
@@ -173,7 +187,8 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
         key: row.zone,
         zone: Number(row.zone),
         label: `Lighting zone ${row.zone}`,
-        description: row.description,
+        // The definition without the provenance the file appends in brackets; the citation carries that.
+        description: row.description.replace(/\s*\[from memory[^\]]*\]/, ''),
         sourceLabel: row.sourceLabel,
         ...provenance(row),
       })),
@@ -207,6 +222,38 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
   });
 });
 
+describe('citations in the code-table views', () => {
+  const tables = ['building-area-types', 'space-types', 'control-strategies', 'exterior-applications', 'lighting-zones', 'additional-allowances'];
+
+  it.each(editionIds)('cite every row of %s in words, with none of the files’ markers', async (id) => {
+    for (const table of tables) {
+      const body: { citation: { short: string; note: string | null; checked: boolean }; verified: boolean }[] = await get(`/api/code-editions/${id}/${table}`);
+      for (const row of body) {
+        const words = `${row.citation.short} ${row.citation.note ?? ''}`;
+        expect(words, `${id}/${table}`).not.toMatch(/\[(S|S-ed|I|M)\b|FLAG:|source annotation|SOURCES\.md|github:|https?:\/\/|from memory/i);
+        if (!row.verified) expect(row.citation.checked, `${id}/${table}`).toBe(false);
+      }
+    }
+  });
+
+  it('names the table, the kind of source and what is not yet checked', async () => {
+    const spaceTypes = await get('/api/code-editions/iecc-2021/space-types');
+    // IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data.
+    expect(spaceTypes.find((row: { key: string }) => row.key === 'office-enclosed').citation).toMatchObject({ short: 'IECC 2021 Table C405.3.2(2) — model code', layer: 'model-code', checked: true });
+    const strategies = await get('/api/code-editions/iecc-2021/control-strategies');
+    // C405.2.5 specific application controls: the reference files hold it from memory.
+    expect(strategies.find((row: { key: string }) => row.key === 'specific-application').citation).toMatchObject({
+      short: 'IECC 2021 Section C405.2.5 — not yet checked against the printed code',
+      layer: 'not-checked',
+      checked: false,
+    });
+    const cells = await get('/api/code-editions/ashrae-90.1-2019/space-types');
+    // ASHRAE 90.1-2019 Table 9.6.1 column (a): no public source was found for columns (a)–(d).
+    const office = cells.find((row: { key: string }) => row.key === 'office-enclosed-and-le-250-ft2');
+    expect(office.controlProvenance['local-control'].citation.layer).toBe('not-checked');
+  });
+});
+
 describe('loadEditionData', () => {
   it('builds the contract the engine reads, at the current data version', async () => {
     const data = await loadEditionData(database.db, 'ashrae-90.1-2019');
@@ -226,7 +273,10 @@ describe('loadEditionData', () => {
   it('gives IECC space types their rule inputs and derived controls', async () => {
     const data = await loadEditionData(database.db, 'iecc-2021');
     const enclosed = data!.spaceTypes.find((space) => space.key === 'office-enclosed')!;
-    expect(enclosed.iecc).toEqual({ occupantSensorListed: true, fullAutoOnAllowed: false, sensorFunction: 'general', lightReductionExemptItem: null }); // IECC 2021 C405.2.1 item 5
+    expect(enclosed.iecc).toEqual({ occupantSensorListed: true, fullAutoOnAllowed: false, sensorFunction: 'general', lightReductionExemptItem: null, timeSwitchExemptItem: null, sleepingUnit: false }); // IECC 2021 C405.2.1 item 5
+    // C405.2.2 exception and sleeping-unit controls (from memory, flagged in the data's notes).
+    const dormitory = data!.spaceTypes.find((space) => space.key === 'dormitory-living-quarters')!;
+    expect(dormitory.iecc).toMatchObject({ timeSwitchExemptItem: 'sleeping units', sleepingUnit: true });
     // C405.2.3 exceptions as Washington's 2021 text states them ([S-ed]): corridors, lobbies, electrical and mechanical rooms.
     const corridor = data!.spaceTypes.find((space) => space.key === 'corridor-otherwise')!;
     expect(corridor.iecc?.lightReductionExemptItem).toBe('corridors');
@@ -235,6 +285,32 @@ describe('loadEditionData', () => {
     expect(enclosed.controls['occupant-sensor']).toBe('required');
     expect(data!.rules.smallEnclosedSpaceFt2).toBe('300'); // IECC 2021 C405.2.1 item 12
     expect(data!.rules.roomGeometry).toBeNull();
+    // The sidelit zones count together at more than 150 W (C405.2.4 item 1, from memory).
+    expect(data!.rules.daylight.combinedSidelitThresholdW).toBe('150');
+  });
+
+  it('gives 90.1 the overlap of toplit and primary sidelit areas to the primary sidelit area (from memory)', async () => {
+    const data = await loadEditionData(database.db, 'ashrae-90.1-2019');
+    expect(data!.rules.daylight.overlapPrecedence).toEqual(['primary-sidelit', 'toplit', 'secondary-sidelit']);
+  });
+
+  it('gives the atrium rows of the older editions their height formula', async () => {
+    const data = await loadEditionData(database.db, 'ashrae-90.1-2016');
+    const atrium = data!.spaceTypes.find((space) => space.key === 'atrium-gt-40-ft-in-height')!;
+    // ASHRAE 90.1-2016 Table 9.6.1 atrium > 40 ft: 0.4 plus a supplemental 0.02 per ft of total height (the row notes; from memory "0.40 + 0.02 per ft total height").
+    expect(atrium.lpdFormula).toEqual({ kind: 'base-plus-per-foot-of-height', baseWPerFt2: '0.4', wPerFt2PerFt: '0.02', heightFt: { above: '40' } });
+    expect(atrium.provenance.verified).toBe(false);
+    expect(data!.spaceTypes.find((space) => space.key === 'office-open-plan')!.lpdFormula).toBeUndefined();
+  });
+
+  it('derives no verified control from IECC 2021 inputs standing in for IECC 2018', async () => {
+    const body = await get('/api/code-editions/iecc-2018/space-types');
+    const enclosed = body.find((row: { key: string }) => row.key === 'office-enclosed');
+    expect(enclosed.iecc).toMatchObject({ occupantSensorListed: true, tag: '[S-ed]' });
+    expect(enclosed.verified).toBe(true);
+    for (const provenance of Object.values(enclosed.controlProvenance) as Array<{ verified: boolean }>) expect(provenance.verified).toBe(false);
+    const data = await loadEditionData(database.db, 'iecc-2018');
+    expect(data!.sections['exteriorAllowance']).toBe('C405.4.2'); // IECC 2018 numbers exterior lighting C405.4 (the source's table labels)
   });
 
   it('is undefined for an unknown edition or data version', async () => {

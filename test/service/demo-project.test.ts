@@ -46,6 +46,9 @@ describe('the seeded demo project', () => {
 
   it('complies, inside and out, with a modest margin', () => {
     expect(unmet(result)).toEqual([]);
+    const open = result.interior.spaces.flatMap((space) => space.controls.filter((line) => line.status === 'to-verify').map((line) => `${space.name}: ${line.reason}`));
+    expect(open).toEqual([]);
+    expect(result.openItems).toEqual({ spacesWithoutLuminaires: 0, controlsToVerify: 0 });
     expect(result.interior.complies).toBe(true);
     expect(result.exterior?.complies).toBe(true);
     expect(result.complies).toBe(true);
@@ -57,6 +60,21 @@ describe('the seeded demo project', () => {
   it('matches the served result schema', () => {
     const parsed = evaluationResultSchema.safeParse(result);
     expect(parsed.success, JSON.stringify(parsed.error?.issues.slice(0, 3))).toBe(true);
+  });
+
+  it('cites each unverified value in words: edition, table or section, what it rests on, and a note without the files’ markers', () => {
+    expect(result.unverifiedValues.length).toBeGreaterThan(0);
+    for (const value of result.unverifiedValues) {
+      expect(value.citation.checked, value.what).toBe(false);
+      expect(value.source, value.what).toBe(value.citation.short);
+      expect(value.source, value.what).toMatch(/^IECC 2021 /);
+      expect(`${value.what} ${value.source} ${value.note}`, value.what).not.toMatch(/\[(S|S-ed|I|M)\b|FLAG:|source annotation|SOURCES\.md|github:|https?:\/\/|from memory/i);
+    }
+    // IECC 2021 C405.2.2 time-switch control: the reference data follows Washington's state text (WAC 51-11C-405022).
+    expect(result.unverifiedValues.find((value) => value.what === 'Control strategy: Time-switch control')?.citation).toMatchObject({
+      layer: 'other-edition-or-state',
+      short: 'IECC 2021 Section C405.2.2 — Washington state text standing in for the model code',
+    });
   });
 
   it('gives the same result when its document is evaluated directly', async () => {

@@ -104,17 +104,17 @@ describe('design data with optimistic locking', () => {
   });
 
   it('answers a stale write with 409 naming who changed it, and loses nothing', async () => {
-    const first = await write(engineer, 'patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 1, area: '125' });
+    const first = await write(engineer, 'patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 1, area: '115' });
     expect(first.status).toBe(200);
-    expect(first.body).toMatchObject({ area: '125', version: 2 });
+    expect(first.body).toMatchObject({ area: '115', version: 2 });
     expect(first.body.luminaires).toHaveLength(1);
 
-    const stale = await write(engineer, 'patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 1, area: '999' });
+    const stale = await write(engineer, 'patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 1, area: '110' });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('conflict');
     expect(stale.body.error.message).toContain('Ines Halvorsen');
     const after = await engineer.agent.get(`/api/projects/${projectId}/spaces/${spaceId}`);
-    expect(after.body.area).toBe('125');
+    expect(after.body.area).toBe('115');
 
     const staleDelete = await write(engineer, 'delete', `/api/projects/${projectId}/spaces/${spaceId}?version=1`);
     expect(staleDelete.status).toBe(409);
@@ -163,7 +163,7 @@ describe('design data with optimistic locking', () => {
     expect(document.body).toMatchObject({ edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
     expect(document.body.luminaireTypes).toEqual([{ tag: 'A', description: '2x4 troffer', inputWatts: '32.5', use: 'general', basis: 'rated' }]);
     const exam = document.body.spaces.find((space: { name: string }) => space.name === 'Exam 1');
-    expect(exam).toMatchObject({ id: spaceId, area: '125', luminaires: [{ tag: 'A', count: '2', zone: 'primary-sidelit' }] });
+    expect(exam).toMatchObject({ id: spaceId, area: '115', luminaires: [{ tag: 'A', count: '2', zone: 'primary-sidelit' }] });
     expect(exam).not.toHaveProperty('version');
     expect(document.body.exterior).toEqual({ lightingZone: '2', applications: [] });
   });
@@ -179,7 +179,7 @@ describe('design data with optimistic locking', () => {
 
     // 1 ft = 0.3048 m and 1 ft² = 0.09290304 m² exactly (mathjs units).
     const exam = (await engineer.agent.get(`/api/projects/${projectId}/spaces/${spaceId}`)).body;
-    expect(exam).toMatchObject({ area: '11.61288', length: '3.6576', width: '3.048', ceilingHeight: '2.7432' }); // 125 ft², 12 ft, 10 ft, 9 ft
+    expect(exam).toMatchObject({ area: '10.6838496', length: '3.6576', width: '3.048', ceilingHeight: '2.7432' }); // 115 ft², 12 ft, 10 ft, 9 ft
     expect(exam.windows[0]).toMatchObject({ width: '1.2192', headHeight: '2.1336', offset: '1.2192' }); // 4 ft, 7 ft, 4 ft
     expect(exam.controls[0].zoneSize).toBe('11.1483648'); // 120 ft²
     const exterior = (await engineer.agent.get(`/api/projects/${projectId}/exterior-applications`)).body;
@@ -198,7 +198,7 @@ describe('design data with optimistic locking', () => {
     const back = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: toSi.body.version, units: 'ip' });
     expect(back.status).toBe(200);
     const restored = (await engineer.agent.get(`/api/projects/${projectId}/spaces/${spaceId}`)).body;
-    expect(restored).toMatchObject({ area: '125', length: '12', width: '10', ceilingHeight: '9' });
+    expect(restored).toMatchObject({ area: '115', length: '12', width: '10', ceilingHeight: '9' });
     expect(restored.controls[0].zoneSize).toBe('120');
   });
 
@@ -207,7 +207,7 @@ describe('design data with optimistic locking', () => {
     const stale = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version - 1, units: 'si' });
     expect(stale.status).toBe(409);
     const exam = (await engineer.agent.get(`/api/projects/${projectId}/spaces/${spaceId}`)).body;
-    expect(exam.area).toBe('125');
+    expect(exam.area).toBe('115');
     expect((await engineer.agent.get(`/api/projects/${projectId}`)).body.units).toBe('ip');
     const rename = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version, name: 'Cedar Row Clinic, phase 1' });
     expect(rename.body).toMatchObject({ name: 'Cedar Row Clinic, phase 1', version: detail.body.version + 1 });

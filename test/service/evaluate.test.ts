@@ -74,6 +74,8 @@ describe('POST /api/evaluate', () => {
     const paths = response.body.error.details.map((detail: { path: string }) => detail.path);
     expect(paths).toEqual(expect.arrayContaining(['spaces.0.spaceType', 'spaces.1.area', 'spaces.1.luminaires.0.tag', 'spaces.2.area']));
     expect(response.body).not.toHaveProperty('interior');
+    // The summary is for people: it says what to do, and each detail names its field and the fix.
+    expect(response.body.error.message).toBe('The results cannot be computed until the problems below are fixed.');
   });
 
   it('asks for the building area type under the building area method, and refuses an unknown edition', async () => {

@@ -98,7 +98,7 @@ describe('the verdict kept for the project list', () => {
     await engineer.agent
       .put(`/api/projects/${demo.id}/luminaire-types/${type.id}`)
       .set('X-CSRF-Token', engineer.csrfToken)
-      .send({ ...type, inputWatts: '34' });
+      .send({ tag: type.tag, description: type.description, use: type.use, basis: type.basis, version: type.version, inputWatts: '34' });
     const afterChange = (await engineer.agent.get('/api/projects')).body.find((project: { id: string }) => project.id === demo.id);
     expect(afterChange.resultSummary).toBeNull();
   });

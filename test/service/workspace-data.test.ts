@@ -127,6 +127,8 @@ describe('one control on many spaces', () => {
     const stale = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: [...targets.slice(0, 2), { ...targets[2], version: 7 }], control });
     expect(stale.status).toBe(409);
     expect(stale.body.error.message).toContain('Dorm 3');
+    // Each changed space is named at its place in the request, so the page can say which ones to reload.
+    expect(stale.body.error.details).toEqual([{ path: 'spaces.2', message: '“Dorm 3” changed since you read it.' }]);
     expect((await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.every((space: { controls: unknown[] }) => space.controls.length === 0)).toBe(true);
 
     const applied = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: targets, control });

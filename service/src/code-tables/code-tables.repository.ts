@@ -1,6 +1,8 @@
 import type { Database } from '../db/database.js';
 import type {
   AdditionalAllowance,
+  Amendment,
+  EqualRow,
   BuildingAreaType,
   CodeFamily,
   ControlStrategy,
@@ -10,11 +12,13 @@ import type {
   ExteriorApplication,
   ExteriorUnit,
   LightingZone,
+  LpdFormula,
   Provenance,
   RequirementCode,
   SpaceType,
   StrategyKey,
 } from '../compliance/edition-data.js';
+import { type Citation, citationOf, editionName, referenceOf, withoutProvenance } from '../compliance/citation.js';
 
 /** The code tables as the API and the compliance engine read them. NUMERIC columns stay strings. */
 
@@ -24,6 +28,8 @@ export interface RowProvenance {
   verified: boolean;
   note: string;
   fromMemory?: string;
+  /** The row's source for people: a short citation and the note in words (none of the maintainers' markers). */
+  citation: Citation;
 }
 
 export interface EditionSummary {
@@ -41,6 +47,8 @@ export interface BuildingAreaTypeView extends RowProvenance {
   label: string;
   sourceLabel: string;
   lpdWPerFt2: string;
+  /** The row of another edition this one equals, where the reference data records one. */
+  equalsRowOf?: EqualRow;
 }
 
 export interface IeccRuleView {
@@ -50,6 +58,9 @@ export interface IeccRuleView {
   fullAutoOnItem: string | null;
   sensorFunction: NonNullable<SpaceType['iecc']>['sensorFunction'];
   lightReductionExemptItem: string | null;
+  timeSwitchExemptItem: string | null;
+  sleepingUnit: boolean;
+  tag?: '[S-ed]';
   note?: string;
 }
 
@@ -59,8 +70,10 @@ export interface SpaceTypeView extends RowProvenance {
   sourceLabel: string;
   category: string;
   lpdWPerFt2: string;
+  lpdFormula?: LpdFormula;
   rcrThreshold: string | null;
   rcrCondition?: string;
+  equalsRowOf?: EqualRow;
   controls: Partial<Record<StrategyKey, RequirementCode>>;
   controlProvenance: Partial<Record<StrategyKey, RowProvenance>>;
   iecc?: IeccRuleView;
@@ -72,7 +85,7 @@ export interface ControlStrategyView extends RowProvenance {
   section: string;
   tag: string;
   parameters: Record<string, string>;
-  parameterSources: Record<string, { tag: string; source: string; note?: string }>;
+  parameterSources: Record<string, { tag: string; source: string; note?: string; citation: Citation }>;
 }
 
 export interface ExteriorApplicationView extends RowProvenance {
@@ -111,6 +124,7 @@ export interface SectionView {
   tag: string;
   verified: boolean;
   note: string;
+  citation: Citation;
 }
 
 export interface RulesView extends EditionRules {
@@ -136,14 +150,31 @@ interface ProvenanceColumns {
   from_memory: string | null;
 }
 
-function provenanceOf(row: ProvenanceColumns): RowProvenance {
-  return { source: row.source, confidence: row.confidence, verified: row.verified, note: row.note, ...(row.from_memory ? { fromMemory: row.from_memory } : {}) };
+/** What a citation needs besides the row: the edition's name and the sections its rules cite (a fallback reference). */
+interface CitationContext {
+  edition: string;
+  sections: Record<string, string>;
 }
 
-/** Provenance as the contract holds it: a from-memory text is kept in the note. */
+async function citationContext(db: Database, version: EditionVersion): Promise<CitationContext> {
+  const rows: { key: string; section: string }[] = await db('edition_sections').where(scope(version)).select('key', 'section');
+  return { edition: editionName(version.edition.family, version.edition.year), sections: Object.fromEntries(rows.map((row) => [row.key, row.section])) };
+}
+
+/** The table the row's own annotation names, else the section the edition cites for that kind of value. */
+function reference(context: CitationContext, note: string | null | undefined, sectionKey: string): string {
+  return referenceOf(note, context.sections[sectionKey] ?? '');
+}
+
+function provenanceOf(row: ProvenanceColumns, context: CitationContext, where: string, tag?: string): RowProvenance {
+  const citation = citationOf({ edition: context.edition, reference: where, source: row.source, confidence: row.confidence, tag, verified: row.verified, note: row.note, fromMemory: row.from_memory });
+  return { source: row.source, confidence: row.confidence, verified: row.verified, note: row.note, ...(row.from_memory ? { fromMemory: row.from_memory } : {}), citation };
+}
+
+/** Provenance as the contract holds it: a from-memory text is kept in the note, the citation beside it. */
 function contractProvenance(row: RowProvenance): Provenance {
   const note = [row.note, row.fromMemory ? `from memory: ${row.fromMemory}` : ''].filter(Boolean).join(' | ');
-  return { source: row.source, confidence: row.confidence, verified: row.verified, ...(note ? { note } : {}) };
+  return { source: row.source, confidence: row.confidence, verified: row.verified, ...(note ? { note } : {}), citation: row.citation };
 }
 
 /** An edition and the data version to read: the current one unless a stored result names another. */
@@ -178,18 +209,26 @@ function scope(version: EditionVersion) {
 }
 
 export async function listBuildingAreaTypes(db: Database, version: EditionVersion): Promise<BuildingAreaTypeView[]> {
-  const rows = await db('building_area_types').where(scope(version)).orderBy('position');
-  return rows.map((row) => ({ key: row.key, label: row.label, sourceLabel: row.source_label, lpdWPerFt2: row.lpd_w_per_ft2, ...provenanceOf(row) }));
+  const [rows, context] = await Promise.all([db('building_area_types').where(scope(version)).orderBy('position'), citationContext(db, version)]);
+  return rows.map((row) => ({
+    key: row.key,
+    label: row.label,
+    sourceLabel: row.source_label,
+    lpdWPerFt2: row.lpd_w_per_ft2,
+    ...(row.equals_row_of ? { equalsRowOf: row.equals_row_of } : {}),
+    ...provenanceOf(row, context, reference(context, row.note, 'buildingAreaMethod')),
+  }));
 }
 
 export async function listSpaceTypes(db: Database, version: EditionVersion): Promise<SpaceTypeView[]> {
-  const [rows, cells] = await Promise.all([
+  const [rows, cells, context] = await Promise.all([
     db('space_types').where(scope(version)).orderBy('position'),
     db('space_type_controls')
       .join('control_strategies', 'control_strategies.key', 'space_type_controls.strategy_key')
       .where({ 'space_type_controls.edition_id': version.edition.id, 'space_type_controls.data_version': version.dataVersion })
       .orderBy('control_strategies.position')
       .select('space_type_controls.*'),
+    citationContext(db, version),
   ]);
   const cellsBySpace = new Map<string, typeof cells>();
   for (const cell of cells) {
@@ -202,7 +241,7 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
     const controlProvenance: Partial<Record<StrategyKey, RowProvenance>> = {};
     for (const cell of cellsBySpace.get(row.key) ?? []) {
       controls[cell.strategy_key as StrategyKey] = cell.requirement as RequirementCode;
-      controlProvenance[cell.strategy_key as StrategyKey] = provenanceOf(cell);
+      controlProvenance[cell.strategy_key as StrategyKey] = provenanceOf(cell, context, reference(context, cell.note, 'spaceBySpaceMethod'));
     }
     const view: SpaceTypeView = {
       key: row.key,
@@ -210,11 +249,13 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
       sourceLabel: row.source_label,
       category: row.category,
       lpdWPerFt2: row.lpd_w_per_ft2,
+      ...(row.lpd_formula ? { lpdFormula: row.lpd_formula } : {}),
       rcrThreshold: row.rcr_threshold,
       ...(row.rcr_condition ? { rcrCondition: row.rcr_condition } : {}),
+      ...(row.equals_row_of ? { equalsRowOf: row.equals_row_of } : {}),
       controls,
       controlProvenance,
-      ...provenanceOf(row),
+      ...provenanceOf(row, context, reference(context, row.note, 'spaceBySpaceMethod')),
     };
     if (row.iecc_sensor_function) {
       view.iecc = {
@@ -224,6 +265,9 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
         fullAutoOnItem: row.iecc_full_auto_on_item,
         sensorFunction: row.iecc_sensor_function,
         lightReductionExemptItem: row.iecc_light_reduction_exempt_item,
+        timeSwitchExemptItem: row.iecc_time_switch_exempt_item ?? null,
+        sleepingUnit: row.iecc_sleeping_unit ?? false,
+        ...(row.iecc_inputs_tag ? { tag: row.iecc_inputs_tag } : {}),
         ...(row.iecc_note ? { note: row.iecc_note } : {}),
       };
     }
@@ -232,13 +276,14 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
 }
 
 export async function listControlStrategies(db: Database, version: EditionVersion): Promise<ControlStrategyView[]> {
-  const [sections, parameters] = await Promise.all([
+  const [sections, parameters, context] = await Promise.all([
     db('control_strategy_sections')
       .join('control_strategies', 'control_strategies.key', 'control_strategy_sections.strategy_key')
       .where({ 'control_strategy_sections.edition_id': version.edition.id, 'control_strategy_sections.data_version': version.dataVersion })
       .orderBy('control_strategies.position')
       .select('control_strategy_sections.*', 'control_strategies.label'),
     db('control_strategy_parameters').where(scope(version)).orderBy([{ column: 'strategy_key' }, { column: 'position' }]),
+    citationContext(db, version),
   ]);
   return sections.map((row) => {
     const own = parameters.filter((parameter) => parameter.strategy_key === row.strategy_key);
@@ -249,15 +294,24 @@ export async function listControlStrategies(db: Database, version: EditionVersio
       tag: row.tag,
       parameters: Object.fromEntries(own.map((parameter) => [parameter.name, parameter.value])),
       parameterSources: Object.fromEntries(
-        own.map((parameter) => [parameter.name, { tag: parameter.tag, source: parameter.source, ...(parameter.note ? { note: parameter.note } : {}) }]),
+        own.map((parameter) => [
+          parameter.name,
+          {
+            tag: parameter.tag,
+            source: parameter.source,
+            ...(parameter.note ? { note: parameter.note } : {}),
+            // A parameter has no verified flag of its own: only a value from the edition's own text counts as checked.
+            citation: citationOf({ edition: context.edition, reference: row.section, source: parameter.source, confidence: '', tag: parameter.tag, verified: parameter.tag === '[S]', note: parameter.note }),
+          },
+        ]),
       ),
-      ...provenanceOf(row),
+      ...provenanceOf(row, context, row.section, row.tag),
     };
   });
 }
 
 export async function listExteriorApplications(db: Database, version: EditionVersion): Promise<ExteriorApplicationView[]> {
-  const rows = await db('code_exterior_applications').where(scope(version)).orderBy('position');
+  const [rows, context] = await Promise.all([db('code_exterior_applications').where(scope(version)).orderBy('position'), citationContext(db, version)]);
   return rows.map((row) => ({
     key: row.key,
     label: row.label,
@@ -270,24 +324,24 @@ export async function listExteriorApplications(db: Database, version: EditionVer
     unverifiedZones: row.unverified_zones,
     controls: row.controls,
     sourceControlFlags: row.source_control_flags,
-    ...provenanceOf(row),
+    ...provenanceOf(row, context, reference(context, row.note, 'exteriorAllowance')),
   }));
 }
 
 export async function listLightingZones(db: Database, version: EditionVersion): Promise<LightingZoneView[]> {
-  const rows = await db('lighting_zones').where(scope(version)).orderBy('zone');
+  const [rows, context] = await Promise.all([db('lighting_zones').where(scope(version)).orderBy('zone'), citationContext(db, version)]);
   return rows.map((row) => ({
     key: String(row.zone),
     zone: row.zone,
     label: `Lighting zone ${row.zone}`,
-    description: row.description,
+    description: withoutProvenance(row.description),
     sourceLabel: row.source_label,
-    ...provenanceOf(row),
+    ...provenanceOf(row, context, context.sections['lightingZones'] ?? ''),
   }));
 }
 
 export async function listAdditionalAllowances(db: Database, version: EditionVersion): Promise<AdditionalAllowanceView[]> {
-  const rows = await db('additional_allowances').where(scope(version)).orderBy('position');
+  const [rows, context] = await Promise.all([db('additional_allowances').where(scope(version)).orderBy('position'), citationContext(db, version)]);
   return rows.map((row) => ({
     key: row.key,
     label: row.label,
@@ -295,18 +349,46 @@ export async function listAdditionalAllowances(db: Database, version: EditionVer
     kind: row.kind,
     lpdWPerFt2: row.lpd_w_per_ft2,
     fixedW: row.fixed_w,
-    ...provenanceOf(row),
+    ...provenanceOf(row, context, reference(context, row.note, 'additionalAllowances')),
   }));
 }
 
-function taggedProvenance(value: RowProvenance & { tag?: string }): Provenance {
-  return contractProvenance({ ...value, note: [value.tag, value.note].filter(Boolean).join(' ') });
+interface TaggedProvenance {
+  source: string;
+  confidence: string;
+  verified: boolean;
+  note: string;
+  fromMemory?: string;
+  tag?: string;
+}
+
+/** An edition rule's provenance (stored as JSON with its tag), cited under the section the rule belongs to. */
+function taggedProvenance(value: TaggedProvenance, context: CitationContext, sectionKey: string): Provenance {
+  const citation = citationOf({ edition: context.edition, reference: context.sections[sectionKey] ?? '', ...value });
+  return contractProvenance({ ...value, note: [value.tag, value.note].filter(Boolean).join(' '), citation });
+}
+
+export interface AmendmentView extends RowProvenance {
+  key: string;
+  title: string;
+  jurisdiction: string;
+  parameters: Amendment['parameters'];
+}
+
+/** The jurisdiction amendments a project on this edition may choose. */
+export async function listAmendments(db: Database, version: EditionVersion): Promise<AmendmentView[]> {
+  const [rows, context] = await Promise.all([
+    db('edition_amendments').where({ edition_id: version.edition.id, data_version: version.dataVersion }).orderBy('position'),
+    citationContext(db, version),
+  ]);
+  return rows.map((row) => ({ key: row.key, title: row.title, jurisdiction: row.jurisdiction, parameters: row.parameters, ...provenanceOf({ ...row, from_memory: null }, context, row.title) }));
 }
 
 export async function getRules(db: Database, version: EditionVersion): Promise<RulesView> {
-  const [row, sections] = await Promise.all([
+  const [row, sections, context] = await Promise.all([
     db('edition_rules').where(scope(version)).first(),
     db('edition_sections').where(scope(version)).orderBy('key'),
+    citationContext(db, version),
   ]);
   return {
     daylight: {
@@ -322,17 +404,29 @@ export async function getRules(db: Database, version: EditionVersion): Promise<R
       primaryDepthHeadHeights: row.daylight_primary_depth_head_heights,
       secondaryDepthHeadHeights: row.daylight_secondary_depth_head_heights,
       toplitExtensionCeilingHeights: row.daylight_toplit_extension_ceiling_heights,
-      provenance: taggedProvenance(row.daylight_provenance),
+      ...(row.daylight_overlap_precedence ? { overlapPrecedence: row.daylight_overlap_precedence } : {}),
+      provenance: taggedProvenance(row.daylight_provenance, context, 'daylightSidelighting'),
     },
     roomGeometry:
-      row.room_geometry_increase_percent === null ? null : { increasePercent: row.room_geometry_increase_percent, provenance: taggedProvenance(row.room_geometry_provenance) },
+      row.room_geometry_increase_percent === null ? null : { increasePercent: row.room_geometry_increase_percent, provenance: taggedProvenance(row.room_geometry_provenance, context, 'roomGeometry') },
     smallEnclosedSpaceFt2: row.small_enclosed_space_ft2,
-    smallEnclosedSpaceProvenance: row.small_enclosed_space_provenance ? taggedProvenance(row.small_enclosed_space_provenance) : null,
+    smallEnclosedSpaceProvenance: row.small_enclosed_space_provenance ? taggedProvenance(row.small_enclosed_space_provenance, context, context.sections['occupantSensor'] ? 'occupantSensor' : 'controlsGeneral') : null,
     trackMinimumWPerFt: row.track_minimum_w_per_ft,
-    trackProvenance: taggedProvenance(row.track_provenance),
+    trackProvenance: taggedProvenance(row.track_provenance, context, 'trackLighting'),
     baseSiteCoversNontradable: row.base_site_covers_nontradable,
-    baseSiteProvenance: taggedProvenance(row.base_site_provenance),
-    sections: Object.fromEntries(sections.map((section) => [section.key, { section: section.section, tag: section.tag, verified: section.verified, note: section.note }])),
+    baseSiteProvenance: taggedProvenance(row.base_site_provenance, context, 'exteriorAllowance'),
+    sections: Object.fromEntries(
+      sections.map((section) => [
+        section.key,
+        {
+          section: section.section,
+          tag: section.tag,
+          verified: section.verified,
+          note: section.note,
+          citation: citationOf({ edition: context.edition, reference: section.section, source: '', confidence: '', tag: section.tag, verified: section.verified, note: section.note }),
+        },
+      ]),
+    ),
   };
 }
 
@@ -355,7 +449,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
   const cached = editionDataCache.get(cacheKey);
   if (cached) return cached;
 
-  const [buildingAreaTypes, spaceTypes, strategies, exterior, zones, allowances, rules] = await Promise.all([
+  const [buildingAreaTypes, spaceTypes, strategies, exterior, zones, allowances, rules, amendments] = await Promise.all([
     listBuildingAreaTypes(db, version),
     listSpaceTypes(db, version),
     listControlStrategies(db, version),
@@ -363,6 +457,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
     listLightingZones(db, version),
     listAdditionalAllowances(db, version),
     getRules(db, version),
+    listAmendments(db, version),
   ]);
   const { sections, smallEnclosedSpaceProvenance: _small, ...editionRules } = rules;
   const data: EditionData = {
@@ -374,7 +469,14 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
     dataVersion: version.dataVersion,
     sections: Object.fromEntries(Object.entries(sections).map(([key, section]) => [key, section.section])),
     buildingAreaTypes: buildingAreaTypes.map(
-      (row): BuildingAreaType => ({ key: row.key, label: row.label, sourceLabel: row.sourceLabel, lpdWPerFt2: row.lpdWPerFt2, provenance: contractProvenance(row) }),
+      (row): BuildingAreaType => ({
+        key: row.key,
+        label: row.label,
+        sourceLabel: row.sourceLabel,
+        lpdWPerFt2: row.lpdWPerFt2,
+        ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
+        provenance: contractProvenance(row),
+      }),
     ),
     spaceTypes: spaceTypes.map(
       (row): SpaceType => ({
@@ -383,8 +485,10 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
         sourceLabel: row.sourceLabel,
         category: row.category,
         lpdWPerFt2: row.lpdWPerFt2,
+        ...(row.lpdFormula ? { lpdFormula: row.lpdFormula } : {}),
         rcrThreshold: row.rcrThreshold,
         ...(row.rcrCondition ? { rcrCondition: row.rcrCondition } : {}),
+        ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
         controls: row.controls,
         ...(row.iecc
           ? {
@@ -393,6 +497,8 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
                 fullAutoOnAllowed: row.iecc.fullAutoOnAllowed,
                 sensorFunction: row.iecc.sensorFunction,
                 lightReductionExemptItem: row.iecc.lightReductionExemptItem,
+                timeSwitchExemptItem: row.iecc.timeSwitchExemptItem,
+                sleepingUnit: row.iecc.sleepingUnit,
               },
             }
           : {}),
@@ -423,6 +529,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
           tradable: row.tradable,
           isBaseSiteAllowance: row.isBaseSiteAllowance,
           allowanceByZone: row.allowanceByZone,
+          ...(row.unverifiedZones.length ? { unverifiedZones: row.unverifiedZones } : {}),
           controls: row.controls,
           provenance: contractProvenance({ ...row, note: [row.note, zoneNote].filter(Boolean).join(' | ') }),
         },
@@ -440,6 +547,13 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
       }),
     ),
     rules: editionRules,
+    amendments: amendments.map((row): Amendment => ({
+      key: row.key,
+      title: row.title,
+      jurisdiction: row.jurisdiction,
+      parameters: row.parameters,
+      provenance: contractProvenance(row),
+    })),
   };
   editionDataCache.set(cacheKey, data);
   return data;

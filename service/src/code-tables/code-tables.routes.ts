@@ -6,6 +6,7 @@ import {
   findEditionVersion,
   getRules,
   listAdditionalAllowances,
+  listAmendments,
   listBuildingAreaTypes,
   listControlStrategies,
   listEditions,
@@ -31,6 +32,7 @@ export function codeEditionsRouter(db: Database): Router {
     'exterior-applications': listExteriorApplications,
     'lighting-zones': listLightingZones,
     'additional-allowances': listAdditionalAllowances,
+    amendments: listAmendments,
     rules: getRules,
   };
   for (const [name, list] of Object.entries(tables)) {

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { readFileSync, readdirSync } from 'node:fs';
+import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
@@ -7,7 +7,7 @@ import { strategyKeys, type EditionId, type StrategyKey } from '../compliance/ed
 
 /** Reads and checks the files under `reference/`: the seed loads them, the tests compare against them. */
 
-export const editionIds: readonly EditionId[] = ['ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2021'];
+export { editionIds } from '../compliance/edition-data.js';
 
 export const defaultReferenceRoot = fileURLToPath(new URL('../../../reference/', import.meta.url));
 
@@ -55,8 +55,23 @@ export const ieccInputs = z.object({
   sensorFunction: z.enum(['general', 'warehouse', 'open-office', 'corridor', 'parking-garage']),
   /** The C405.2.3 exception list item that frees this space type from light-reduction control, if any. */
   lightReductionExemptItem: z.string().nullable().default(null),
+  /** The C405.2.2 exception list item that frees this space type from time-switch control, if any. */
+  timeSwitchExemptItem: z.string().nullable().default(null),
+  /** A sleeping or dwelling unit, whose lighting has its own controls. */
+  sleepingUnit: z.boolean().default(false),
+  /** "[S-ed]" where another edition's list stands in for this edition's own; absent where sourced for it. */
+  tag: z.literal('[S-ed]').optional(),
   note: z.string().optional(),
 });
+
+const heightRangeFt = z
+  .strictObject({ above: decimal.optional(), atLeast: decimal.optional(), below: decimal.optional(), atMost: decimal.optional() })
+  .refine((range) => Object.keys(range).length > 0, 'a height range needs at least one bound');
+
+export const lpdFormula = z.discriminatedUnion('kind', [
+  z.strictObject({ kind: z.literal('per-foot-of-height'), wPerFt2PerFt: decimal, heightFt: heightRangeFt }),
+  z.strictObject({ kind: z.literal('base-plus-per-foot-of-height'), baseWPerFt2: decimal, wPerFt2PerFt: decimal, heightFt: heightRangeFt }),
+]);
 
 export const spaceTypeRow = z.object({
   key: z.string(),
@@ -64,6 +79,7 @@ export const spaceTypeRow = z.object({
   sourceLabel: z.string(),
   category: z.string(),
   lpdWPerFt2: decimal,
+  lpdFormula: lpdFormula.optional(),
   rcrThreshold: decimal.nullable(),
   rcrCondition: z.string().optional(),
   controls: z.partialRecord(strategyKey, controlCell).optional(),
@@ -83,6 +99,8 @@ export const exteriorApplicationRow = z.object({
   isBaseSiteAllowance: z.boolean(),
   allowanceByZone: z.record(z.string(), decimal),
   unverifiedZones: z.array(z.string()).optional(),
+  /** A zone value corrected from the source's obvious error; the source's own value, by zone. */
+  correctedFrom: z.record(z.string(), decimal).optional(),
   controls: z.partialRecord(strategyKey, requirement),
   sourceControlFlags: z.record(z.string(), z.string()),
   ...provenance,
@@ -125,6 +143,7 @@ export const rulesFileSchema = z.object({
     primaryDepthHeadHeights: decimal,
     secondaryDepthHeadHeights: decimal,
     toplitExtensionCeilingHeights: decimal,
+    overlapPrecedence: z.array(z.enum(['primary-sidelit', 'secondary-sidelit', 'toplit'])).length(3).optional(),
     provenance: provenanceObject,
   }),
   roomGeometry: z.object({ increasePercent: decimal, provenance: provenanceObject }).nullable(),
@@ -133,7 +152,17 @@ export const rulesFileSchema = z.object({
   baseSite: z.object({ coversNontradable: z.boolean(), provenance: provenanceObject }),
 });
 
+export const amendmentRow = z.object({
+  key: z.string(),
+  title: z.string(),
+  jurisdiction: z.string(),
+  /** By strategy, the parameters the amendment sets in place of the edition's. */
+  parameters: z.partialRecord(strategyKey, z.record(z.string(), decimal)),
+  ...provenance,
+});
+
 const buildingAreaTypesFile = table(buildingAreaTypeRow);
+const amendmentsFile = table(amendmentRow);
 const spaceTypesFile = table(spaceTypeRow);
 const exteriorApplicationsFile = table(exteriorApplicationRow);
 const lightingZonesFile = table(lightingZoneRow);
@@ -152,6 +181,8 @@ export interface ReferenceEdition {
   additionalAllowances: z.infer<typeof additionalAllowancesFile>;
   controlStrategies: { edition: string; strategies: z.infer<typeof editionStrategyRow>[] };
   rules: z.infer<typeof rulesFileSchema>;
+  /** Jurisdiction amendments over this edition (amendments.json; none when the file is absent). */
+  amendments: z.infer<typeof amendmentsFile>;
   catalogue: z.infer<typeof catalogueSchema>;
 }
 
@@ -206,6 +237,9 @@ export function readReferenceEdition(id: EditionId, root = defaultReferenceRoot)
     additionalAllowances: parsed(additionalAllowancesFile, at('additional-allowances.json')) as ReferenceEdition['additionalAllowances'],
     controlStrategies: strategies,
     rules: parsed(rulesFileSchema, at('rules.json')) as ReferenceEdition['rules'],
+    amendments: existsSync(at('amendments.json'))
+      ? (parsed(amendmentsFile, at('amendments.json')) as ReferenceEdition['amendments'])
+      : { table: 'none', sourceFile: 'none', rows: [] },
     catalogue: parsed(catalogueSchema, path.join(root, 'control-strategies.json')) as ReferenceEdition['catalogue'],
   };
 }

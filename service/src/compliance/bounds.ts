@@ -39,6 +39,10 @@ export const ranges = {
   exteriorQuantity: { min: 'zero', max: '100000000' },
   /** Installed watts of one exterior application. */
   exteriorWatts: { min: 'zero', max: '10000000' },
+  /** Like rooms one space entry stands for. */
+  rooms: { min: 'above-zero', max: '100000', integer: true },
+  /** A share of the lighting power, %. */
+  percent: { min: 'zero', max: '100' },
   /** A control's time-out: a day at most. */
   timeoutMinutes: { min: 'zero', max: '1440' },
 } as const satisfies Record<string, NumberRange>;

@@ -1,6 +1,9 @@
 import { z } from 'zod';
-import type { EditionData } from './edition-data.js';
+import type { EditionData, SpaceType } from './edition-data.js';
+import { conditionWords, satisfies, sizeCondition } from './size-conditions.js';
+import { areaToSquareFeet, lengthToFeet } from './units.js';
 import { boundedDecimal, decimalField, documentLimits, listLimit, ranges, textField, textLimits } from './bounds.js';
+import { lpdFormulaProblems } from './lpd-formula.js';
 import { type Dec, dec } from './numbers.js';
 
 /**
@@ -14,6 +17,16 @@ import { type Dec, dec } from './numbers.js';
  * end of the north and south walls, the south end of the east and west walls); a skylight's
  * `x`/`y` is its south-west corner. Absent offsets and positions centre the opening.
  */
+
+/**
+ * An object of known fields: any other field is refused by name, so a misspelt one (a
+ * `ceilingHieght`) is reported instead of silently ignored.
+ */
+function fields<Shape extends z.core.$ZodLooseShape>(shape: Shape) {
+  return z.strictObject(shape, {
+    error: (issue) => (issue.code === 'unrecognized_keys' ? `Unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((name) => `“${name}”`).join(', ')}: check the spelling.` : undefined),
+  });
+}
 
 const key = textField(textLimits.key, { required: true });
 const tag = textField(textLimits.tag, { required: true });
@@ -29,10 +42,14 @@ export const controlExceptionReasons = [
   'security-or-emergency-continuous',
   'exit-stairway-ramp-passageway',
   'egress-normally-off',
+  /** IECC C405.2.2: lighting intended for continuous operation needs no time switch. */
+  'continuous-operation',
+  /** For a requirement the product cannot settle ("to verify"): the engineer checked the adopted code and it does not apply here. */
+  'verified-not-required',
   'other',
 ] as const;
 
-export const luminaireTypeSchema = z.object({
+export const luminaireTypeSchema = fields({
   tag,
   description: textField(textLimits.description).default(''),
   /** Rated input watts per luminaire (for track: the specified watts of the luminaires on one run). */
@@ -46,18 +63,20 @@ export const luminaireTypeSchema = z.object({
   limitWatts: decimalField(ranges.limitWatts).optional(),
 });
 
-export const luminaireGroupSchema = z.object({
+export const luminaireGroupSchema = fields({
   tag,
   count: decimalField(ranges.count),
   zone: z.enum(daylightZoneKinds).optional(),
 });
 
-export const controlSchema = z.object({
+export const controlSchema = fields({
   strategy: key,
   provided: z.boolean(),
   timeoutMinutes: decimalField(ranges.timeoutMinutes).optional(),
   /** Floor area one device or zone of this control serves, ft² or m² (checked against the strategy's zone size limit where one is stated). */
   zoneSize: decimalField(ranges.area).optional(),
+  /** How far the control reduces the lighting power when it acts (partial OFF, light reduction), %. */
+  reductionPercent: decimalField(ranges.percent).optional(),
   /** For occupant sensors: how lighting turns on. 'partial' means automatic-on to at most 50 %. */
   autoOn: z.enum(['manual', 'partial', 'full']).optional(),
   exceptionReason: z.enum(controlExceptionReasons).optional(),
@@ -65,7 +84,7 @@ export const controlSchema = z.object({
   device: textField(textLimits.device).optional(),
 });
 
-export const windowSchema = z.object({
+export const windowSchema = fields({
   width: decimalField(ranges.length),
   headHeight: decimalField(ranges.height),
   sillHeight: decimalField(ranges.heightAboveFloor).optional(),
@@ -73,14 +92,14 @@ export const windowSchema = z.object({
   wall: z.enum(walls).default('south'),
 });
 
-export const skylightSchema = z.object({
+export const skylightSchema = fields({
   length: decimalField(ranges.length),
   width: decimalField(ranges.length),
   x: decimalField(ranges.offset).optional(),
   y: decimalField(ranges.offset).optional(),
 });
 
-export const spaceSchema = z.object({
+export const spaceSchema = fields({
   id: key,
   name: textField(textLimits.name, { required: true }),
   level: textField(textLimits.level, { required: true }).optional(),
@@ -97,6 +116,11 @@ export const spaceSchema = z.object({
   /** Work plane above the floor; 2.5 ft when absent (common practice). */
   workPlaneHeight: decimalField(ranges.heightAboveFloor).optional(),
   enclosed: z.boolean().optional(),
+  /**
+   * How many like rooms this entry stands for (a space-by-space entry may group them); a size in
+   * the space type's name applies to each room, so to the area divided by this. 1 when absent.
+   */
+  rooms: decimalField(ranges.rooms).optional(),
   /** The engineer confirms the space has no lighting; until then a space without luminaires is an open item, not a pass. */
   unlit: z.boolean().optional(),
   luminaires: z.array(luminaireGroupSchema).max(documentLimits.luminaireGroupsPerSpace, listLimit(documentLimits.luminaireGroupsPerSpace, 'luminaire types in one space')).default([]),
@@ -105,7 +129,7 @@ export const spaceSchema = z.object({
   skylights: z.array(skylightSchema).max(documentLimits.skylightsPerSpace, listLimit(documentLimits.skylightsPerSpace, 'skylights in one space')).default([]),
 });
 
-export const exteriorApplicationEntrySchema = z.object({
+export const exteriorApplicationEntrySchema = fields({
   key,
   /** ft² (m²), linear ft (m) or a count, as the application's unit says. */
   quantity: decimalField(ranges.exteriorQuantity),
@@ -113,15 +137,15 @@ export const exteriorApplicationEntrySchema = z.object({
   controls: z.array(controlSchema).max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls on one application')).default([]),
 });
 
-export const exteriorSchema = z.object({
+export const exteriorSchema = fields({
   lightingZone: z.union([z.string().max(10, 'Give the lighting zone as a number from 0 to 4.'), z.number()]).transform((zone) => String(zone).trim()),
   applications: z.array(exteriorApplicationEntrySchema).max(documentLimits.exteriorApplications, listLimit(documentLimits.exteriorApplications, 'exterior applications')).default([]),
 });
 
-export const retailDisplaySchema = z.object({
+export const retailDisplaySchema = fields({
   claims: z
     .array(
-      z.object({
+      fields({
         /** An additional-allowance key of the edition (e.g. a retail area category). */
         allowance: key,
         spaceId: key,
@@ -133,7 +157,7 @@ export const retailDisplaySchema = z.object({
     .default([]),
 });
 
-export const evaluationDocumentSchema = z.object({
+export const evaluationDocumentSchema = fields({
   edition: key,
   method: z.enum(['building-area', 'space-by-space']),
   units: z.enum(['ip', 'si']),
@@ -141,6 +165,8 @@ export const evaluationDocumentSchema = z.object({
   spaces: z.array(spaceSchema).min(1, 'At least one space is needed.').max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
   exterior: exteriorSchema.optional(),
   retailDisplay: retailDisplaySchema.optional(),
+  /** Jurisdiction amendments of the edition to apply (their keys); the model code alone when absent. */
+  amendments: z.array(key).max(10, listLimit(10, 'amendments')).default([]),
 });
 
 export type EvaluationDocumentInput = z.input<typeof evaluationDocumentSchema>;
@@ -171,7 +197,7 @@ export function validateDocument(input: unknown, edition: EditionData): Validati
     : parsed.error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message }));
   problems.push(...referenceProblems(input, edition));
   if (parsed.success) {
-    problems.push(...geometryProblems(parsed.data));
+    problems.push(...geometryProblems(parsed.data), ...lpdFormulaProblems(parsed.data, edition));
   }
   const unique = dedupe(problems);
   return parsed.success && unique.length === 0
@@ -241,6 +267,8 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
   }
 
   const spaceTypes = new Set(edition.spaceTypes.map((type) => type.key));
+  const spaceTypesByKey = new Map(edition.spaceTypes.map((type) => [type.key, type]));
+  const units = doc['units'] === 'si' ? 'si' : 'ip';
   const buildingAreaTypes = new Set(edition.buildingAreaTypes.map((type) => type.key));
   const strategies = new Set(edition.controlStrategies.map((strategy) => strategy.key));
 
@@ -257,13 +285,13 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     }
     const basis = type['basis'];
     if (basis === 'line-voltage-track' && !present(type['length']) && !present(type['limitWatts'])) {
-      add(`${path}.length`, 'Line-voltage track needs its length (or the current limiter rating in limitWatts).');
+      add(`${path}.length`, 'Line-voltage track needs its length, or the rating of its current limiter.');
     }
     if (basis === 'low-voltage-track' && !present(type['limitWatts'])) {
-      add(`${path}.limitWatts`, 'Low-voltage track counts at its transformer rating: give it in limitWatts.');
+      add(`${path}.limitWatts`, 'Low-voltage track counts at its transformer rating: enter the rating.');
     }
     if (basis === 'current-limited' && !present(type['limitWatts'])) {
-      add(`${path}.limitWatts`, 'A current-limited circuit counts at the limiter rating: give it in limitWatts.');
+      add(`${path}.limitWatts`, 'A current-limited circuit counts at the limiter rating: enter the rating.');
     }
   });
 
@@ -290,6 +318,7 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     if (spaceType !== undefined && !spaceTypes.has(spaceType)) add(`${path}.spaceType`, `${edition.title} has no space type “${spaceType}”.`);
     if (controlType !== undefined && !spaceTypes.has(controlType)) add(`${path}.controlSpaceType`, `${edition.title} has no space type “${controlType}”.`);
     if (areaType !== undefined && !buildingAreaTypes.has(areaType)) add(`${path}.buildingAreaType`, `${edition.title} has no building area type “${areaType}”.`);
+    if (spaceType !== undefined && spaceTypes.has(spaceType)) sizeProblem(edition, spaceTypesByKey.get(spaceType)!, space, units, `${path}.spaceType`, add);
 
     list(space['luminaires']).forEach((group, groupIndex) => {
       const tag = word(group['tag']);
@@ -306,7 +335,16 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     const ext = record(exterior);
     const zone = ext['lightingZone'];
     const zones = new Set(edition.lightingZones.map((lightingZone) => String(lightingZone.zone)));
-    if (present(zone) && !zones.has(String(zone).trim())) add('exterior.lightingZone', `${edition.title} has no lighting zone “${String(zone)}”.`);
+    const zoneText = present(zone) ? String(zone).trim() : '';
+    if (zoneText === '') add('exterior.lightingZone', 'Choose the site’s exterior lighting zone.');
+    else if (!zones.has(zoneText)) add('exterior.lightingZone', `${edition.title} has no lighting zone “${zoneText}”.`);
+    else {
+      // A zone whose every allowance is a placeholder would price the whole site at zero.
+      const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
+      if (base?.unverifiedZones?.includes(zoneText) && dec(base.allowanceByZone[zoneText] ?? '0').isZero()) {
+        add('exterior.lightingZone', `${edition.title}’s allowances for lighting zone ${zoneText} were not found in a public source, so the site cannot be priced in that zone; check the zone, or enter the site under the zone the authority having jurisdiction assigns.`);
+      }
+    }
     const applications = new Map(edition.exteriorApplications.map((application) => [application.key, application]));
     const seen = new Set<string>();
     list(ext['applications']).forEach((entry, index) => {
@@ -319,6 +357,13 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       if (seen.has(applicationKey)) add(`${path}.key`, `Exterior application "${applicationKey}" is listed more than once.`);
       seen.add(applicationKey);
       controlProblems(entry['controls'], `${path}.controls`, strategies, edition, add);
+    });
+  }
+
+  const known = new Set((edition.amendments ?? []).map((amendment) => amendment.key));
+  if (Array.isArray(doc['amendments'])) {
+    (doc['amendments'] as unknown[]).forEach((amendment, index) => {
+      if (typeof amendment === 'string' && !known.has(amendment)) add(`amendments.${index}`, `${edition.title} has no jurisdiction amendment “${amendment}” here.`);
     });
   }
 
@@ -349,6 +394,32 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
   return problems;
 }
 
+/**
+ * A space type whose name carries a size (an enclosed office of at most 250 ft²) fits only spaces
+ * of that size; the problem names the row of the same kind that fits, where there is one.
+ */
+function sizeProblem(edition: EditionData, type: SpaceType, space: Loose, units: 'ip' | 'si', path: string, add: (path: string, message: string) => void): void {
+  const condition = sizeCondition(type.sourceLabel);
+  // A row whose allowance grows with height checks the height itself (lpdFormulaProblems).
+  if (condition === null || (condition.quantity === 'height' && type.lpdFormula !== undefined)) return;
+  const raw = condition.quantity === 'area' ? space['area'] : space['ceilingHeight'];
+  const value = decimalOrNull(raw);
+  if (value === null) return;
+  const rooms = condition.quantity === 'area' ? (decimalOrNull(space['rooms']) ?? dec(1)) : dec(1);
+  const measured = condition.quantity === 'area' ? areaToSquareFeet(value, units).dividedBy(rooms.isZero() ? 1 : rooms) : lengthToFeet(value, units);
+  if (satisfies(condition, measured)) return;
+  const kind = type.sourceLabel.split('|')[0]!.trim();
+  const fitting = edition.spaceTypes.find((other) => {
+    if (other.key === type.key || other.sourceLabel.split('|')[0]!.trim() !== kind) return false;
+    const otherCondition = sizeCondition(other.sourceLabel);
+    return otherCondition !== null && otherCondition.quantity === condition.quantity && satisfies(otherCondition, measured);
+  });
+  const grouped = !rooms.equals(1);
+  const size = condition.quantity === 'area' ? `${measured.toDecimalPlaces(0).toFixed()} ft²${grouped ? ' a room' : ''}` : `${measured.toDecimalPlaces(1).toFixed()} ft high`;
+  const hint = condition.quantity === 'area' && !grouped ? ' If this entry groups several rooms, give how many.' : '';
+  add(path, `“${type.label}” is for spaces ${conditionWords(condition)}; this one is ${size}.${fitting ? ` Choose “${fitting.label}”.` : ''}${hint}`);
+}
+
 function controlProblems(
   controls: unknown,
   path: string,
@@ -363,8 +434,11 @@ function controlProblems(
     if (!strategies.has(strategy)) add(`${path}.${index}.strategy`, `“${strategy}” is not a control of ${edition.title}.`);
     if (seen.has(strategy)) add(`${path}.${index}.strategy`, `This control is listed more than once.`);
     seen.add(strategy);
-    if (control['exceptionReason'] === 'other' && word(control['exceptionNote']) === undefined) {
-      add(`${path}.${index}.exceptionNote`, 'Say which exception is claimed.');
+    if ((control['exceptionReason'] === 'other' || control['exceptionReason'] === 'verified-not-required') && word(control['exceptionNote']) === undefined) {
+      add(`${path}.${index}.exceptionNote`, control['exceptionReason'] === 'other' ? 'Say which exception is claimed.' : 'Say where in the adopted code it was checked.');
+    }
+    if (control['exceptionReason'] === 'continuous-operation' && strategy !== 'time-switch') {
+      add(`${path}.${index}.exceptionReason`, 'Continuous operation frees lighting from the time switch only.');
     }
   });
 }
@@ -408,6 +482,17 @@ function geometryProblems(doc: EvaluationDocument): DocumentProblem[] {
     });
     if (space.luminaireHeight !== undefined && space.ceilingHeight !== undefined && dec(space.luminaireHeight).greaterThan(dec(space.ceilingHeight))) {
       problems.push({ path: `${path}.luminaireHeight`, message: 'Luminaires cannot be above the ceiling.' });
+    }
+    // A room's floor area cannot exceed the rectangle that holds it (2 % for rounding the dimensions).
+    if (length !== undefined && width !== undefined && dec(space.area).greaterThan(length.times(width).times('1.02'))) {
+      problems.push({ path: `${path}.area`, message: `The floor area is larger than the room’s length × width (${length.times(width).toDecimalPlaces(2).toFixed()}); check the area or the dimensions.` });
+    }
+    if (space.ceilingHeight !== undefined) {
+      space.windows.forEach((window, windowIndex) => {
+        if (dec(window.headHeight).greaterThan(dec(space.ceilingHeight!))) {
+          problems.push({ path: `${path}.windows.${windowIndex}.headHeight`, message: 'The window head is above the ceiling.' });
+        }
+      });
     }
   });
   return problems;

@@ -1,13 +1,15 @@
+import type { Citation } from './citation.js';
+
 /**
  * The code tables of one edition, as the compliance engine reads them. The code-tables module
  * loads this from PostgreSQL (seeded from `reference/<edition>/`); tests may build it by hand.
  * Every number is an exact decimal string; nothing here is a JavaScript number.
  */
 
-export type EditionId = 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2021';
+export type EditionId = 'ashrae-90.1-2013' | 'ashrae-90.1-2016' | 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2018' | 'iecc-2021' | 'iecc-2024';
 export type CodeFamily = 'ashrae-90.1' | 'iecc';
 
-export const editionIds: readonly EditionId[] = ['ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2021'];
+export const editionIds: readonly EditionId[] = ['ashrae-90.1-2013', 'ashrae-90.1-2016', 'ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2018', 'iecc-2021', 'iecc-2024'];
 
 /** Where a value came from and how far it can be trusted. `verified: false` shows a "verify" mark. */
 export interface Provenance {
@@ -15,6 +17,8 @@ export interface Provenance {
   confidence: string;
   verified: boolean;
   note?: string;
+  /** How the value is cited to people; the code tables give it, hand-built data may leave it out. */
+  citation?: Citation;
 }
 
 /** Our own keys for the control strategies; each edition says which section covers each. */
@@ -76,24 +80,51 @@ export interface ControlStrategy {
   provenance: Provenance;
 }
 
+/** A row of another edition that this one equals (same use, same value), as the reference data records it. */
+export interface EqualRow {
+  edition: string;
+  key: string;
+}
+
 export interface BuildingAreaType {
   key: string;
   label: string;
   sourceLabel: string;
   lpdWPerFt2: string;
+  equalsRowOf?: EqualRow;
   provenance: Provenance;
 }
+
+/** The height range (ft) a formula row is for, as its label states it; a bound left out is open. */
+export interface HeightRangeFt {
+  above?: string;
+  atLeast?: string;
+  below?: string;
+  atMost?: string;
+}
+
+/**
+ * An allowance that depends on the space's height instead of a flat W/ft² (the atrium rows of
+ * 90.1-2013/2016 and IECC 2018): W/ft² per foot of total height, or a base plus so much per foot.
+ */
+export type LpdFormula =
+  | { kind: 'per-foot-of-height'; wPerFt2PerFt: string; heightFt: HeightRangeFt }
+  | { kind: 'base-plus-per-foot-of-height'; baseWPerFt2: string; wPerFt2PerFt: string; heightFt: HeightRangeFt };
 
 export interface SpaceType {
   key: string;
   label: string;
   sourceLabel: string;
   category: string;
+  /** The table's number; for a formula row only the formula's first term, never a flat allowance. */
   lpdWPerFt2: string;
+  /** Where present, the allowed LPD comes from the space's ceiling height through this formula. */
+  lpdFormula?: LpdFormula;
   /** 90.1 only: the room cavity ratio at or above which the room-geometry increase applies. */
   rcrThreshold: string | null;
   /** A threshold the source states in words instead of a number (e.g. corridors "width < 8 ft"). */
   rcrCondition?: string;
+  equalsRowOf?: EqualRow;
   /** 90.1: the table's control columns. IECC: derived from the rule inputs below, for display. */
   controls: Partial<Record<StrategyKey, RequirementCode>>;
   /** IECC rule inputs, held as data (C405.2.1 list and its full automatic-on exception list). */
@@ -104,6 +135,10 @@ export interface SpaceType {
     sensorFunction: 'general' | 'warehouse' | 'open-office' | 'corridor' | 'parking-garage';
     /** The C405.2.3 exception list item (e.g. "corridors") that frees this space type from light-reduction control. */
     lightReductionExemptItem?: string | null;
+    /** The C405.2.2 exception list item (e.g. "sleeping units") that frees this space type from time-switch control. */
+    timeSwitchExemptItem?: string | null;
+    /** A dwelling or sleeping unit (guest room, dormitory, sleeping quarters): its own controls apply (C405.2.5). */
+    sleepingUnit?: boolean;
   };
   provenance: Provenance;
 }
@@ -120,6 +155,8 @@ export interface ExteriorApplication {
   isBaseSiteAllowance: boolean;
   /** Allowance per unit for lighting zones "0".."4"; decimal strings. */
   allowanceByZone: Record<string, string>;
+  /** Zones whose allowance here is not from a public source (a placeholder, or a corrected value). */
+  unverifiedZones?: string[];
   controls: Partial<Record<StrategyKey, RequirementCode>>;
   provenance: Provenance;
 }
@@ -159,6 +196,11 @@ export interface EditionRules {
     secondaryDepthHeadHeights: string;
     /** Toplit zone extends this many ceiling heights beyond each skylight edge. */
     toplitExtensionCeilingHeights: string;
+    /**
+     * Which zone keeps a piece of floor that two zones reach, first to last. Absent: toplit, then
+     * primary sidelit, then secondary sidelit.
+     */
+    overlapPrecedence?: ('primary-sidelit' | 'secondary-sidelit' | 'toplit')[];
     provenance: Provenance;
   };
   /** 90.1 §9.6.3 room-geometry increase; null for IECC. */
@@ -171,6 +213,15 @@ export interface EditionRules {
   /** Whether the base site allowance may cover nontradable excess. */
   baseSiteCoversNontradable: boolean;
   baseSiteProvenance: Provenance;
+}
+
+/** A jurisdiction's amendment: its own values for some of the edition's parameters, chosen per project. */
+export interface Amendment {
+  key: string;
+  title: string;
+  jurisdiction: string;
+  parameters: Partial<Record<StrategyKey, Record<string, string>>>;
+  provenance: Provenance;
 }
 
 export interface EditionData {
@@ -190,4 +241,6 @@ export interface EditionData {
   lightingZones: LightingZone[];
   additionalAllowances: AdditionalAllowance[];
   rules: EditionRules;
+  /** Jurisdiction amendments a project may choose; none for most editions. */
+  amendments?: Amendment[];
 }

@@ -1,10 +1,13 @@
-import { type SpaceControlFacts, interiorRequirements, linesComply, resolveControls } from './controls.js';
+import { type DaylightTrigger, type SpaceControlFacts, interiorRequirements, linesComply, openLines, resolveControls } from './controls.js';
 import type { EvaluationDocument, Space } from './document.js';
+import { type Citation, citationOf, editionName } from './citation.js';
 import type { EditionData, Provenance, SpaceType } from './edition-data.js';
+import { amendedEdition } from './amendments.js';
 import { evaluateExterior } from './exterior.js';
 import { type RoomPlan, daylightAreas, rectangularRoomCavityRatio } from './geometry.js';
 import { unitWattage } from './installed.js';
-import { type Dec, ZERO, dec, min, sum, text } from './numbers.js';
+import { spaceTypeLpd } from './lpd-formula.js';
+import { type Dec, ZERO, dec, min, reported, sum, text } from './numbers.js';
 import type {
   AdditionalAllowanceResult,
   ControlLine,
@@ -16,7 +19,7 @@ import type {
   SpaceResult,
   UnverifiedValue,
 } from './result.js';
-import { type UnitSystem, areaFromSquareFeet, areaToSquareFeet, densityFromPerSquareFoot, lengthFromFeet, lengthToFeet } from './units.js';
+import { type UnitSystem, areaFromSquareFeet, areaToSquareFeet, areaWords, densityFromPerSquareFoot, lengthFromFeet, lengthToFeet } from './units.js';
 
 /** The edition section keys the engine cites from `EditionData.sections` (as `reference/<edition>/rules.json` names them). */
 export const sectionKeys = [
@@ -42,17 +45,36 @@ export const standingCautions = [
   'The engineer of record verifies every value flagged as unverified before relying on the result.',
 ];
 
+/**
+ * The values an evaluation used that are not checked against a published source, each once, cited
+ * for people (the code tables' citation, or one made here for data built by hand).
+ */
 class Unverified {
   private readonly seen = new Map<string, UnverifiedValue>();
-  add(what: string, provenance: Provenance): void {
+  constructor(private readonly edition: string) {}
+
+  /** `reference` is the table or section to cite when the provenance carries no citation of its own. */
+  add(what: string, provenance: Provenance, reference: string): void {
     if (provenance.verified || this.seen.has(what)) return;
-    this.seen.set(what, { what, source: provenance.source, note: provenance.note ?? provenance.confidence });
+    this.keep(what, provenance.citation ?? citationOf({ edition: this.edition, reference, ...provenance }));
   }
-  note(what: string, source: string, note: string): void {
-    if (!this.seen.has(what)) this.seen.set(what, { what, source, note });
+
+  /** A value the data cannot settle at all: not yet checked, with the reason in words. */
+  unsettled(what: string, reference: string, reason: string, key = what): void {
+    if (this.seen.has(key)) return;
+    this.keep(what, citationOf({ edition: this.edition, reference, source: 'not found', confidence: 'none', verified: false, note: reason }), key);
   }
+
+  merge(values: readonly UnverifiedValue[]): void {
+    for (const value of values) if (!this.seen.has(value.what)) this.seen.set(value.what, value);
+  }
+
   values(): UnverifiedValue[] {
     return [...this.seen.values()];
+  }
+
+  private keep(what: string, citation: Citation, key = what): void {
+    this.seen.set(key, { what, source: citation.short, note: citation.note ?? citation.short, citation });
   }
 }
 
@@ -61,7 +83,7 @@ function comparesAt(value: Dec, threshold: Dec, comparison: 'at-least' | 'more-t
 }
 
 function percent(part: Dec, whole: Dec): string | null {
-  return whole.isZero() ? null : text(part.dividedBy(whole).times(100));
+  return whole.isZero() ? null : reported.percent(part.dividedBy(whole).times(100));
 }
 
 interface SpaceWatts {
@@ -89,19 +111,19 @@ function spaceWatts(space: Space, document: EvaluationDocument, edition: Edition
   for (const group of space.luminaires) {
     const type = types.get(group.tag)!;
     const wattage = unitWattage(type, edition.rules, document.units);
-    if (wattage.usesTrackRule && type.basis === 'line-voltage-track') unverified.add('Line-voltage track minimum W per linear foot', edition.rules.trackProvenance);
+    if (wattage.usesTrackRule && type.basis === 'line-voltage-track') unverified.add('Line-voltage track: the least wattage counted per length of track', edition.rules.trackProvenance, edition.sections['trackLighting'] ?? installedSection);
     if (wattage.fromMemory) {
-      unverified.note('Low-voltage track counted at the transformer rating', 'from memory', 'No public source found for the low-voltage track rule; verify against the printed standard.');
+      unverified.unsettled('Low-voltage track counted at the transformer rating', edition.sections['trackLighting'] ?? installedSection, 'No public source found for the low-voltage track rule; verify against the printed standard.');
     }
     const count = dec(group.count);
     const watts = count.times(wattage.watts);
     const section = wattage.usesTrackRule ? (edition.sections['trackLighting'] ?? installedSection) : installedSection;
-    const line: LuminaireLine = { tag: type.tag, use: type.use, count: text(count), unitWatts: text(wattage.watts), watts: text(watts), basis: wattage.basis, section };
+    const line: LuminaireLine = { tag: type.tag, use: type.use, count: text(count), unitWatts: reported.watts(wattage.watts), watts: reported.watts(watts), basis: wattage.basis, section };
     if (group.zone !== undefined) line.zone = group.zone;
     result.lines.push(line);
     if (type.use === 'exempt') {
       result.exemptW = result.exemptW.plus(watts);
-      result.exempt.push({ tag: type.tag, count: text(count), watts: text(watts), reason: type.exemptReason ?? '', section: edition.sections['exemptLighting'] ?? '' });
+      result.exempt.push({ tag: type.tag, count: text(count), watts: reported.watts(watts), reason: type.exemptReason ?? '', section: edition.sections['exemptLighting'] ?? '' });
     } else if (type.use === 'decorative') {
       result.decorative = result.decorative.plus(watts);
     } else if (type.use === 'display') {
@@ -116,7 +138,8 @@ function spaceWatts(space: Space, document: EvaluationDocument, edition: Edition
 
 interface DaylightOutcome {
   result: DaylightResult;
-  why: { sidelighting: string; toplighting: string };
+  sidelighting: DaylightTrigger;
+  toplighting: DaylightTrigger;
 }
 
 function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: UnitSystem, unverified: Unverified, cautions: string[]): DaylightOutcome {
@@ -125,7 +148,7 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   const length = feet(space.length);
   const width = feet(space.width);
   const hasOpenings = space.windows.length > 0 || space.skylights.length > 0;
-  if (hasOpenings) unverified.add('Daylight thresholds and zone geometry', rules.provenance);
+  if (hasOpenings) unverified.add('Daylight thresholds and zone geometry', rules.provenance, edition.sections['daylightSidelighting'] ?? '');
   const geometryEvaluated = length !== undefined && width !== undefined;
   let areas = { primarySidelit: ZERO, secondarySidelit: ZERO, toplit: ZERO, rectangles: [] as ReturnType<typeof daylightAreas>['rectangles'] };
   if (geometryEvaluated && hasOpenings) {
@@ -149,48 +172,66 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   }
   const windowArea = sum(
     space.windows.map((window) => {
+      // Without a sill the glazing is counted from the floor: the larger area never clears a requirement.
+      if (window.sillHeight === undefined) unverified.unsettled('Window sill height', 'common practice', 'No sill height given for some windows: their area is counted from the floor.');
       const height = dec(window.headHeight).minus(dec(window.sillHeight ?? '0'));
       return areaToSquareFeet(dec(window.width).times(height), units);
     }),
   );
-  const primaryW = watts.zoneW['primary-sidelit'];
-  const secondaryW = watts.zoneW['secondary-sidelit'];
-  const toplitW = watts.zoneW.toplit;
-  const comparison = rules.comparison === 'at-least' ? 'at least' : 'more than';
+  const zoneAreas = { 'primary-sidelit': areas.primarySidelit, 'secondary-sidelit': areas.secondarySidelit, toplit: areas.toplit } as const;
+  const assigned = watts.zoneW['primary-sidelit'].plus(watts.zoneW['secondary-sidelit']).plus(watts.zoneW.toplit);
+  // With zones on the plan, general lighting and none of it assigned to a zone, the zone watts are
+  // estimated from each zone's share of the floor; an estimate can make a control required, but
+  // below the threshold it leaves the question open rather than passing it.
+  const roomArea = length !== undefined && width !== undefined ? length.times(width) : ZERO;
+  const estimated = assigned.isZero() && watts.general.greaterThan(0) && roomArea.greaterThan(0) && sum(Object.values(zoneAreas)).greaterThan(0);
+  const zoneWatts = (kind: keyof typeof zoneAreas): Dec => (estimated ? min(watts.general, watts.general.times(zoneAreas[kind]).dividedBy(roomArea)) : watts.zoneW[kind]);
+  const primaryW = zoneWatts('primary-sidelit');
+  const secondaryW = zoneWatts('secondary-sidelit');
+  const toplitW = zoneWatts('toplit');
+  const estimateWords = estimated ? ' (estimated from the zone’s share of the floor area: no luminaires are assigned to daylight zones)' : '';
+  const at = (threshold: string) => (rules.comparison === 'at-least' ? `${threshold} W or more` : `more than ${threshold} W`);
+  const watt = (value: Dec) => `${value.toDecimalPlaces(1).toFixed()} W`;
   const windowException = rules.minimumWindowAreaFt2 !== null && windowArea.lessThan(dec(rules.minimumWindowAreaFt2));
   const primaryTriggers = comparesAt(primaryW, dec(rules.primarySidelitThresholdW), rules.comparison);
-  const sidelightingControlRequired = primaryTriggers && !windowException;
   const combined = primaryW.plus(secondaryW);
-  const secondarySidelightingControlRequired =
-    rules.combinedSidelitThresholdW !== null && !windowException && comparesAt(combined, dec(rules.combinedSidelitThresholdW), rules.comparison);
+  const combinedTriggers = rules.combinedSidelitThresholdW !== null && comparesAt(combined, dec(rules.combinedSidelitThresholdW), rules.comparison);
+  // 90.1 §9.4.1.1(e): the primary area alone at 150 W, or primary and secondary together at 300 W; the
+  // edition data says which thresholds apply (IECC's sidelit zones count together).
+  const sidelightingControlRequired = (primaryTriggers || combinedTriggers) && !windowException;
+  const secondarySidelightingControlRequired = combinedTriggers && !windowException;
   const toplightingControlRequired = comparesAt(toplitW, dec(rules.toplitThresholdW), rules.comparison);
-  const reasons: string[] = [];
-  let sidelighting = `primary sidelit general lighting ${primaryW.toFixed()} W; required at ${comparison} ${rules.primarySidelitThresholdW} W`;
-  if (windowException && primaryTriggers) {
-    sidelighting += `, but the window area ${windowArea.toFixed()} ft² is below ${rules.minimumWindowAreaFt2} ft²`;
+
+  const sidelitThresholds = [`primary sidelit general lighting ${watt(primaryW)}, required at ${at(rules.primarySidelitThresholdW)}`];
+  if (rules.combinedSidelitThresholdW !== null) sidelitThresholds.push(`primary and secondary together ${watt(combined)}, required at ${at(rules.combinedSidelitThresholdW)}`);
+  let sidelighting = `${sidelitThresholds.join('; ')}${estimateWords}`;
+  if (windowException && (primaryTriggers || combinedTriggers)) {
+    sidelighting += `; but the window area of ${areaWords(windowArea, units)} is below ${areaWords(dec(rules.minimumWindowAreaFt2!), units)}`;
   }
-  reasons.push(`Sidelighting: ${sidelighting}.`);
-  if (rules.combinedSidelitThresholdW !== null) {
-    reasons.push(`Secondary sidelighting: primary + secondary ${combined.toFixed()} W; required at ${comparison} ${rules.combinedSidelitThresholdW} W.`);
-  }
-  const toplighting = `toplit general lighting ${toplitW.toFixed()} W; required at ${comparison} ${rules.toplitThresholdW} W`;
+  const toplighting = `toplit general lighting ${watt(toplitW)}, required at ${at(rules.toplitThresholdW)}${estimateWords}`;
+  const trigger = (required: boolean, why: string, hasZone: boolean): DaylightTrigger => {
+    if (required) return { requirement: 'required', why };
+    if (estimated && hasZone) return { requirement: 'to-verify', why: `${why}; assign the luminaires in the zone to settle it` };
+    return { requirement: 'not-required', why };
+  };
+  const reasons: string[] = [`Sidelighting: ${sidelighting}.`];
+  if (secondarySidelightingControlRequired) reasons.push('Secondary sidelighting: the secondary sidelit zone is controlled separately from the primary.');
   reasons.push(`Toplighting: ${toplighting}.`);
-  const zoneAreas = { 'primary-sidelit': areas.primarySidelit, 'secondary-sidelit': areas.secondarySidelit, toplit: areas.toplit } as const;
   for (const kind of ['primary-sidelit', 'secondary-sidelit', 'toplit'] as const) {
     if (watts.zoneW[kind].greaterThan(0) && zoneAreas[kind].isZero()) {
       cautions.push(`“${space.name}”: luminaires are assigned to the ${kind.replace('-', ' ')} zone, but the room's openings give no such zone.`);
     }
   }
-  const out = (value: Dec) => text(lengthFromFeet(value, units));
+  const out = (value: Dec) => reported.length(lengthFromFeet(value, units));
   const result: DaylightResult = {
     geometryEvaluated: geometryEvaluated && hasOpenings,
-    windowArea: text(areaFromSquareFeet(windowArea, units)),
-    primarySidelitArea: text(areaFromSquareFeet(areas.primarySidelit, units)),
-    secondarySidelitArea: text(areaFromSquareFeet(areas.secondarySidelit, units)),
-    toplitArea: text(areaFromSquareFeet(areas.toplit, units)),
-    primarySidelitW: text(primaryW),
-    secondarySidelitW: text(secondaryW),
-    toplitW: text(toplitW),
+    windowArea: reported.area(areaFromSquareFeet(windowArea, units)),
+    primarySidelitArea: reported.area(areaFromSquareFeet(areas.primarySidelit, units)),
+    secondarySidelitArea: reported.area(areaFromSquareFeet(areas.secondarySidelit, units)),
+    toplitArea: reported.area(areaFromSquareFeet(areas.toplit, units)),
+    primarySidelitW: reported.watts(primaryW),
+    secondarySidelitW: reported.watts(secondaryW),
+    toplitW: reported.watts(toplitW),
     sidelightingControlRequired,
     secondarySidelightingControlRequired,
     toplightingControlRequired,
@@ -205,15 +246,20 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
     })),
     section: [...new Set([edition.sections['daylightSidelighting'], edition.sections['daylightToplighting']])].filter(Boolean).join('; '),
   };
-  return { result, why: { sidelighting, toplighting } };
+  return {
+    result,
+    sidelighting: trigger(sidelightingControlRequired, sidelighting, zoneAreas['primary-sidelit'].plus(zoneAreas['secondary-sidelit']).greaterThan(0)),
+    toplighting: trigger(toplightingControlRequired, toplighting, zoneAreas.toplit.greaterThan(0)),
+  };
 }
 
 /** The room cavity ratio of a rectangular room, or null where the geometry is not given. */
-function spaceRcr(space: Space, units: UnitSystem, cautions: string[]): Dec | null {
+function spaceRcr(space: Space, units: UnitSystem, cautions: string[], unverified: Unverified): Dec | null {
   if (space.length === undefined || space.width === undefined) return null;
   const mounting = space.luminaireHeight ?? space.ceilingHeight;
   if (mounting === undefined) return null;
   const workPlane = space.workPlaneHeight === undefined ? defaultWorkPlaneFt : lengthToFeet(dec(space.workPlaneHeight), units);
+  if (space.workPlaneHeight === undefined) unverified.unsettled('Work plane height', 'common practice', `No work plane height given for some spaces: ${defaultWorkPlaneFt.toFixed()} ft (0.762 m) above the floor is assumed for the room cavity ratio.`);
   const cavity = lengthToFeet(dec(mounting), units).minus(workPlane);
   if (cavity.lessThanOrEqualTo(0)) {
     cautions.push(`“${space.name}”: luminaires are not above the work plane, so no room cavity ratio is computed.`);
@@ -226,9 +272,11 @@ function spaceRcr(space: Space, units: UnitSystem, cautions: string[]): Dec | nu
  * Evaluates a document that `validateDocument` accepted against one edition's tables. Pure: it
  * reads nothing but its arguments.
  */
-export function evaluate(document: EvaluationDocument, edition: EditionData): EvaluationResult {
+export function evaluate(document: EvaluationDocument, modelCode: EditionData): EvaluationResult {
+  const edition = amendedEdition(modelCode, document.amendments);
   const units = document.units;
-  const unverified = new Unverified();
+  const name = editionName(edition.family, edition.year);
+  const unverified = new Unverified(name);
   const cautions: string[] = [...standingCautions];
   const spaceTypes = new Map(edition.spaceTypes.map((type) => [type.key, type]));
   const areaTypes = new Map(edition.buildingAreaTypes.map((type) => [type.key, type]));
@@ -240,13 +288,13 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
   const claims = document.retailDisplay?.claims ?? [];
   const claimLines = claims.map((claim) => {
     const allowance = additionalCatalogue.get(claim.allowance)!;
-    unverified.add(`Additional allowance: ${allowance.label}`, allowance.provenance);
+    unverified.add(`Additional allowance: ${allowance.label}`, allowance.provenance, edition.sections['additionalAllowances'] ?? '');
     const areaFt2 = areaToSquareFeet(dec(claim.area), units);
     return { claim, allowance, claimed: dec(allowance.lpdWPerFt2).times(areaFt2) };
   });
 
-  const spaces: (SpaceResult & { allowance: Dec; installed: Dec; areaFt2: Dec; uncoveredDisplay: Dec })[] = document.spaces.map((space) => {
-    const spaceUnverified = new Unverified();
+  const spaces: (SpaceResult & { allowance: Dec; installed: Dec; areaFt2: Dec; uncoveredDisplay: Dec; exact: { exempt: Dec; decorative: Dec; display: Dec; additional: Dec } })[] = document.spaces.map((space) => {
+    const spaceUnverified = new Unverified(name);
     const areaFt2 = areaToSquareFeet(dec(space.area), units);
     const watts = spaceWatts(space, document, edition, spaceUnverified);
     let baseLpd: Dec;
@@ -254,20 +302,23 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     let controlType: SpaceType | undefined;
     if (spaceBySpace) {
       const type = spaceTypes.get(space.spaceType!)!;
-      spaceUnverified.add(`Space type LPD: ${type.label}`, type.provenance);
-      baseLpd = dec(type.lpdWPerFt2);
+      spaceUnverified.add(`Space type LPD: ${type.label}`, type.provenance, allowanceSection);
+      baseLpd = spaceTypeLpd(type, space, units);
       lpdBasis = { kind: 'space-type', key: type.key, label: type.label };
       controlType = type;
     } else {
       const type = areaTypes.get(space.buildingAreaType!)!;
-      spaceUnverified.add(`Building area type LPD: ${type.label}`, type.provenance);
+      spaceUnverified.add(`Building area type LPD: ${type.label}`, type.provenance, allowanceSection);
       baseLpd = dec(type.lpdWPerFt2);
       lpdBasis = { kind: 'building-area-type', key: type.key, label: type.label };
       const controlKey = space.controlSpaceType ?? space.spaceType;
       controlType = controlKey === undefined ? undefined : spaceTypes.get(controlKey);
     }
 
-    const rcr = spaceRcr(space, units, cautions);
+    const rcr = spaceRcr(space, units, cautions, spaceUnverified);
+    if (space.length !== undefined && space.width !== undefined && dec(space.area).lessThan(dec(space.length).times(dec(space.width)).times('0.5'))) {
+      cautions.push(`“${space.name}”: the floor area is less than half of its length × width; daylight zones and the room cavity ratio are worked out on the rectangle.`);
+    }
     let allowedLpd = baseLpd;
     let roomGeometryIncreaseApplied = false;
     const geometryRule = edition.rules.roomGeometry;
@@ -275,9 +326,22 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       if (controlType.rcrThreshold !== null && rcr !== null && rcr.greaterThanOrEqualTo(dec(controlType.rcrThreshold))) {
         allowedLpd = baseLpd.times(dec(1).plus(dec(geometryRule.increasePercent).dividedBy(100)));
         roomGeometryIncreaseApplied = true;
-        spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance);
+        spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance, edition.sections['roomGeometry'] ?? '');
       } else if (controlType.rcrThreshold === null && controlType.rcrCondition !== undefined) {
-        cautions.push(`“${space.name}”: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`);
+        // Corridors carry "width < 8 ft" in the RCR column: a narrow corridor gets the increase.
+        const narrower = /width\s*<\s*(\d+(?:\.\d+)?)\s*ft/i.exec(controlType.rcrCondition);
+        const shorterSide = space.length !== undefined && space.width !== undefined ? lengthToFeet(min(dec(space.length), dec(space.width)), units) : null;
+        if (narrower && shorterSide !== null) {
+          if (shorterSide.lessThan(dec(narrower[1]!))) {
+            allowedLpd = baseLpd.times(dec(1).plus(dec(geometryRule.increasePercent).dividedBy(100)));
+            roomGeometryIncreaseApplied = true;
+            spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance, edition.sections['roomGeometry'] ?? '');
+          }
+        } else if (narrower) {
+          cautions.push(`“${space.name}”: a corridor narrower than ${narrower[1]} ft gets the room-geometry increase; give its length and width to have it applied.`);
+        } else {
+          cautions.push(`“${space.name}”: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`);
+        }
       }
     }
 
@@ -295,22 +359,22 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     const installed = watts.general.plus(watts.decorative).plus(watts.display);
     const margin = allowance.minus(installed);
 
-    const { result: daylightOut, why: daylightWhy } = daylight(space, watts, edition, units, spaceUnverified, cautions);
+    const { result: daylightOut, sidelighting, toplighting } = daylight(space, watts, edition, units, spaceUnverified, cautions);
     const facts: SpaceControlFacts = {
       spaceType: controlType,
       areaFt2,
+      units,
       enclosed: space.enclosed,
-      sidelightingRequired: daylightOut.sidelightingControlRequired,
+      sidelighting,
       secondarySidelightingRequired: daylightOut.secondarySidelightingControlRequired,
-      toplightingRequired: daylightOut.toplightingControlRequired,
-      daylightWhy,
+      toplighting,
       decorativeW: watts.decorative,
       displayW: watts.display,
       installedW: installed,
       nonExemptLuminaires: watts.lines.filter((line) => line.use !== 'exempt').map((line) => ({ count: dec(line.count), unitWatts: dec(line.unitWatts) })),
-      occupantSensorProvided: space.controls.some((control) => control.strategy === 'occupant-sensor' && control.provided),
+      provided: space.controls,
     };
-    let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType, units);
+    let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType, units, areaFt2);
     if (controlType === undefined && edition.family === 'ashrae-90.1') {
       controls = [
         {
@@ -332,10 +396,12 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     }
     for (const line of controls) {
       const strategy = edition.controlStrategies.find((candidate) => candidate.key === line.strategy);
-      if (strategy && line.status !== 'not-required') spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance);
-      if (line.status === 'to-verify') spaceUnverified.note(`${space.id}: ${line.label}`, controlType?.provenance.source ?? 'not given', line.reason);
+      // A "not required" can rest on an unverified threshold just as a requirement can.
+      if (strategy) spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance, strategy.section);
+      // People know a space by its name; the id only keeps two spaces of the same name apart.
+      if (line.status === 'to-verify') spaceUnverified.unsettled(`${space.name}: ${line.label}`, line.section, line.reason, `${space.id}\u0000${line.strategy}`);
     }
-    for (const value of spaceUnverified.values()) unverified.note(value.what, value.source, value.note);
+    unverified.merge(spaceUnverified.values());
 
     return {
       id: space.id,
@@ -343,20 +409,20 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       level: space.level ?? null,
       area: space.area,
       lpdBasis,
-      allowanceW: text(allowance),
-      additionalAllowanceW: text(additional),
-      installedW: text(installed),
-      generalW: text(watts.general),
-      decorativeW: text(watts.decorative),
-      displayW: text(watts.display),
-      exemptW: text(watts.exemptW),
-      allowedLpd: text(densityFromPerSquareFoot(allowedLpd, units)),
-      installedLpd: text(densityFromPerSquareFoot(installed.dividedBy(areaFt2), units)),
+      allowanceW: reported.watts(allowance),
+      additionalAllowanceW: reported.watts(additional),
+      installedW: reported.watts(installed),
+      generalW: reported.watts(watts.general),
+      decorativeW: reported.watts(watts.decorative),
+      displayW: reported.watts(watts.display),
+      exemptW: reported.watts(watts.exemptW),
+      allowedLpd: reported.density(densityFromPerSquareFoot(allowedLpd, units)),
+      installedLpd: reported.density(densityFromPerSquareFoot(installed.dividedBy(areaFt2), units)),
       withinAllowance: installed.lessThanOrEqualTo(allowance),
-      marginW: text(margin),
+      marginW: reported.watts(margin),
       marginPct: percent(margin, allowance),
       lighting,
-      rcr: rcr === null ? null : text(rcr),
+      rcr: rcr === null ? null : reported.ratio(rcr),
       roomGeometryIncreaseApplied,
       luminaires: watts.lines,
       daylight: daylightOut,
@@ -367,6 +433,7 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       allowance: lighting === 'unlit' ? ZERO : allowance,
       installed,
       areaFt2,
+      exact: { exempt: watts.exemptW, decorative: watts.decorative, display: watts.display, additional },
       uncoveredDisplay: own.length > 0 ? watts.display.minus(additional) : ZERO,
     };
   });
@@ -379,6 +446,9 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       return value.greaterThan(largest) ? value : largest;
     }, ZERO);
     fixedUsable = min(fixed, sum(spaces.map((space) => space.uncoveredDisplay)));
+    if (claimLines.every((line) => line.allowance.fixedW === undefined)) {
+      unverified.unsettled('Retail display fixed adder', edition.sections['additionalAllowances'] ?? '', 'This edition’s fixed wattage added once per building to the retail display allowance was not found; none is counted, which can only understate the allowance.');
+    }
     const claimedSpaces = new Set(claims.map((claim) => claim.spaceId));
     const claimed = sum(claimLines.map((line) => line.claimed)).plus(fixed);
     additional = {
@@ -387,13 +457,13 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
         label: line.allowance.label,
         spaceId: line.claim.spaceId,
         area: line.claim.area,
-        claimedW: text(line.claimed),
+        claimedW: reported.watts(line.claimed),
         section: edition.sections['additionalAllowances'] ?? '',
       })),
-      fixedW: text(fixed),
-      claimedW: text(claimed),
-      displayW: text(sum(spaces.filter((space) => claimedSpaces.has(space.id)).map((space) => dec(space.displayW)))),
-      usableW: text(sum(spaces.map((space) => dec(space.additionalAllowanceW))).plus(fixedUsable)),
+      fixedW: reported.watts(fixed),
+      claimedW: reported.watts(claimed),
+      displayW: reported.watts(sum(spaces.filter((space) => claimedSpaces.has(space.id)).map((space) => space.exact.display))),
+      usableW: reported.watts(sum(spaces.map((space) => space.exact.additional)).plus(fixedUsable)),
     };
   }
 
@@ -415,34 +485,44 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
       return {
         level,
         area: text(sum(members.map((space) => dec(space.area)))),
-        allowanceW: text(allowance),
-        installedW: text(installed),
-        marginW: text(allowance.minus(installed)),
+        allowanceW: reported.watts(allowance),
+        installedW: reported.watts(installed),
+        marginW: reported.watts(allowance.minus(installed)),
       };
     });
   }
 
   const exterior = document.exterior === undefined ? null : evaluateExterior(document.exterior, edition, units);
   if (exterior !== null) {
-    unverified.add('Whether the base site allowance may cover nontradable applications', edition.rules.baseSiteProvenance);
+    const exteriorSection = edition.sections['exteriorAllowance'] ?? '';
+    unverified.add('Whether the base site allowance may cover nontradable applications', edition.rules.baseSiteProvenance, exteriorSection);
     for (const entry of document.exterior!.applications) {
       const application = edition.exteriorApplications.find((candidate) => candidate.key === entry.key)!;
-      unverified.add(`Exterior allowance: ${application.label}`, application.provenance);
+      unverified.add(`Exterior allowance: ${application.label}`, application.provenance, exteriorSection);
+      if (application.unverifiedZones?.includes(exterior.lightingZone)) {
+        unverified.unsettled(`Exterior allowance: ${application.label}, zone ${exterior.lightingZone}`, exteriorSection, `The allowance for lighting zone ${exterior.lightingZone} is not the published table as it stands: ${application.provenance.note ?? 'verify it'}`);
+      }
     }
     const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
-    if (base) unverified.add(`Exterior allowance: ${base.label}`, base.provenance);
+    if (base) unverified.add(`Exterior allowance: ${base.label}`, base.provenance, exteriorSection);
   }
 
   const interiorLines = spaces.flatMap((space) => space.controls);
   const exteriorLines = exterior?.applications.flatMap((application) => application.controls) ?? [];
-  const controlsComply = linesComply(interiorLines) && linesComply(exteriorLines);
-  if ([...interiorLines, ...exteriorLines].some((line) => line.status === 'to-verify')) {
-    cautions.push('Some control requirements could not be settled from public sources and are marked "to verify"; they do not fail the evaluation.');
+  // A space without luminaires is out of the verdict until they are entered or it is confirmed unlit:
+  // its lines say what its lighting will need, and wait with it (the verdict is incomplete meanwhile).
+  const judgedLines = spaces.filter((space) => space.lighting !== 'none-entered').flatMap((space) => space.controls);
+  const controlsComply = linesComply(judgedLines) && linesComply(exteriorLines);
+  const controlsToVerify = openLines(judgedLines) + openLines(exteriorLines);
+  if (controlsToVerify > 0) {
+    cautions.push(
+      `${controlsToVerify} control requirement(s) are marked "to verify": record what is provided, or that the adopted code was checked and it does not apply. Until then there is no verdict.`,
+    );
   }
 
   const emptySpaces = spaces.filter((space) => space.lighting === 'none-entered').length;
   const passes = interiorComplies && controlsComply && (exterior?.complies ?? true);
-  const verdict: EvaluationResult['verdict'] = !passes ? 'does-not-comply' : emptySpaces > 0 ? 'incomplete' : 'complies';
+  const verdict: EvaluationResult['verdict'] = !passes ? 'does-not-comply' : emptySpaces > 0 || controlsToVerify > 0 ? 'incomplete' : 'complies';
 
   return {
     edition: edition.id,
@@ -451,20 +531,21 @@ export function evaluate(document: EvaluationDocument, edition: EditionData): Ev
     units,
     complies: verdict === 'complies',
     verdict,
-    openItems: { spacesWithoutLuminaires: emptySpaces },
+    amendments: (edition.amendments ?? []).filter((amendment) => document.amendments.includes(amendment.key)).map((amendment) => ({ key: amendment.key, title: amendment.title })),
+    openItems: { spacesWithoutLuminaires: emptySpaces, controlsToVerify },
     interior: {
       section: allowanceSection,
-      area: text(areaFromSquareFeet(sum(spaces.map((space) => space.areaFt2)), units)),
-      allowanceW: text(allowanceW),
-      installedW: text(installedW),
-      exemptW: text(sum(spaces.map((space) => dec(space.exemptW)))),
-      decorativeW: text(sum(spaces.map((space) => dec(space.decorativeW)))),
-      displayW: text(sum(spaces.map((space) => dec(space.displayW)))),
-      marginW: text(interiorMargin),
+      area: reported.area(areaFromSquareFeet(sum(spaces.map((space) => space.areaFt2)), units)),
+      allowanceW: reported.watts(allowanceW),
+      installedW: reported.watts(installedW),
+      exemptW: reported.watts(sum(spaces.map((space) => space.exact.exempt))),
+      decorativeW: reported.watts(sum(spaces.map((space) => space.exact.decorative))),
+      displayW: reported.watts(sum(spaces.map((space) => space.exact.display))),
+      marginW: reported.watts(interiorMargin),
       marginPct: percent(interiorMargin, allowanceW),
       complies: interiorComplies,
       additional,
-      spaces: spaces.map(({ allowance: _allowance, installed: _installed, areaFt2: _areaFt2, uncoveredDisplay: _uncovered, ...space }) => space),
+      spaces: spaces.map(({ allowance: _allowance, installed: _installed, areaFt2: _areaFt2, uncoveredDisplay: _uncovered, exact: _exact, ...space }) => space),
       levels,
     },
     exterior,

@@ -2,7 +2,7 @@ import { type ControlRequirement, resolveControls } from './controls.js';
 import type { EvaluationDocument } from './document.js';
 import type { EditionData, ExteriorApplication } from './edition-data.js';
 import { strategyKeys } from './edition-data.js';
-import { type Dec, ZERO, dec, min, sum, text } from './numbers.js';
+import { type Dec, ZERO, dec, min, reported, sum, text } from './numbers.js';
 import type { ExteriorApplicationResult, ExteriorResult } from './result.js';
 import { type UnitSystem, areaToSquareFeet, densityFromPerSquareFoot, lengthToFeet, linearDensityFromPerFoot } from './units.js';
 
@@ -69,11 +69,11 @@ export function evaluateExterior(exterior: NonNullable<EvaluationDocument['exter
       tradable: line.application.tradable,
       unit: shown.unit,
       quantity: text(line.quantity),
-      rate: text(shown.rate),
-      allowanceW: text(line.allowance),
-      installedW: text(line.installed),
-      baseSiteUsedW: text(baseUsed),
-      marginW: text(line.allowance.plus(baseUsed).minus(line.installed)),
+      rate: reported.density(shown.rate),
+      allowanceW: reported.watts(line.allowance),
+      installedW: reported.watts(line.installed),
+      baseSiteUsedW: reported.watts(baseUsed),
+      marginW: reported.watts(line.allowance.plus(baseUsed).minus(line.installed)),
       withinAllowance: within,
       controls: resolveControls(requirements, line.entry.controls, edition, undefined, units),
       section,
@@ -85,18 +85,18 @@ export function evaluateExterior(exterior: NonNullable<EvaluationDocument['exter
   return {
     lightingZone: zone,
     section,
-    baseSiteAllowanceW: text(baseSiteW),
-    allowanceW: text(allowance),
-    installedW: text(installed),
+    baseSiteAllowanceW: reported.watts(baseSiteW),
+    allowanceW: reported.watts(allowance),
+    installedW: reported.watts(installed),
     complies: applications.every((application) => application.withinAllowance) && tradableComplies,
     tradable: {
-      allowanceW: text(tradableAllowance),
-      installedW: text(tradableInstalled),
-      baseSiteUsedW: text(tradableBaseUsed),
-      marginW: text(tradableAllowance.plus(tradableBaseUsed).minus(tradableInstalled)),
+      allowanceW: reported.watts(tradableAllowance),
+      installedW: reported.watts(tradableInstalled),
+      baseSiteUsedW: reported.watts(tradableBaseUsed),
+      marginW: reported.watts(tradableAllowance.plus(tradableBaseUsed).minus(tradableInstalled)),
       complies: tradableComplies,
     },
-    baseSiteRemainingW: text(baseRemaining),
+    baseSiteRemainingW: reported.watts(baseRemaining),
     baseSiteCoversNontradable: edition.rules.baseSiteCoversNontradable,
     applications,
   };

@@ -112,7 +112,8 @@ export function zoneRectangles(room: RoomPlan, rules: EditionRules['daylight']):
   return rectangles;
 }
 
-const precedence: ZoneKind[] = ['toplit', 'primary-sidelit', 'secondary-sidelit'];
+/** Where an edition's data gives no order: the area under a skylight is not also sidelit; a primary band is never someone else's secondary band. */
+export const defaultPrecedence: ZoneKind[] = ['toplit', 'primary-sidelit', 'secondary-sidelit'];
 
 function contains(rectangle: PlanRectangle, x: Dec, y: Dec): boolean {
   return x.greaterThan(rectangle.x0) && x.lessThan(rectangle.x1) && y.greaterThan(rectangle.y0) && y.lessThan(rectangle.y1);
@@ -125,11 +126,11 @@ function breakpoints(values: Dec[]): Dec[] {
 
 /**
  * Daylight areas without double counting. Overlapping zones count once, in the zone that takes
- * precedence: toplit over primary sidelit over secondary sidelit (the daylight area under a
- * skylight is not also sidelit; a primary band is never also someone else's secondary band).
- * The plan is cut into cells at every rectangle edge and each cell is given to one zone.
+ * precedence, in the order the edition's data gives (or {@link defaultPrecedence}). The plan is
+ * cut into cells at every rectangle edge and each cell is given to one zone.
  */
 export function daylightAreas(room: RoomPlan, rules: EditionRules['daylight']): ZoneAreas {
+  const precedence = rules.overlapPrecedence ?? defaultPrecedence;
   const rectangles = zoneRectangles(room, rules);
   const xs = breakpoints(rectangles.flatMap((rectangle) => [rectangle.x0, rectangle.x1]));
   const ys = breakpoints(rectangles.flatMap((rectangle) => [rectangle.y0, rectangle.y1]));

@@ -1,4 +1,5 @@
 export type * from './edition-data.js';
+export { citationOf, cleanNote, editionName, referenceOf, type Citation, type CitationInput, type CitationLayer } from './citation.js';
 export { strategyKeys } from './edition-data.js';
 export {
   controlExceptionReasons,

@@ -1,7 +1,7 @@
 import type { LuminaireType } from './document.js';
 import type { EditionRules } from './edition-data.js';
 import { type Dec, dec, max } from './numbers.js';
-import { type UnitSystem, lengthToFeet } from './units.js';
+import { type UnitSystem, lengthToFeet, lengthWords, linearDensityFromPerFoot } from './units.js';
 
 export interface UnitWattage {
   watts: Dec;
@@ -10,6 +10,11 @@ export interface UnitWattage {
   /** true where the rule applied is from memory (low-voltage track). */
   fromMemory: boolean;
   usesTrackRule: boolean;
+}
+
+/** The track minimum (held per foot) in the document's units: "30 W/ft", or "98.43 W/m". */
+function perLength(wattsPerFoot: string, units: UnitSystem): string {
+  return units === 'ip' ? `${wattsPerFoot} W/ft` : `${linearDensityFromPerFoot(dec(wattsPerFoot), units).toDecimalPlaces(2).toFixed()} W/m`;
 }
 
 /**
@@ -32,7 +37,7 @@ export function unitWattage(type: LuminaireType, rules: EditionRules, units: Uni
       const watts = max(specified, minimum);
       return {
         watts,
-        basis: `greater of specified ${specified.toFixed()} W and ${rules.trackMinimumWPerFt} W/ft × ${feet.toFixed()} ft = ${minimum.toFixed()} W`,
+        basis: `greater of specified ${specified.toFixed()} W and ${perLength(rules.trackMinimumWPerFt, units)} × ${lengthWords(feet, units)} = ${minimum.toFixed()} W`,
         fromMemory: false,
         usesTrackRule: true,
       };

@@ -31,3 +31,17 @@ export function min(a: Decimal, b: Decimal): Decimal {
 export function max(a: Decimal, b: Decimal): Decimal {
   return a.greaterThan(b) ? a : b;
 }
+
+/**
+ * How a result reports its numbers: computed exactly, rounded once on the way out (watts to 0.1 W,
+ * power densities to 0.001, shares to 0.01 %, ratios to 0.01, areas to 0.01 and lengths to 0.001
+ * of their unit). Verdicts are decided on the exact values, never on these.
+ */
+export const reported = {
+  watts: (value: Decimal) => text(value.toDecimalPlaces(1)),
+  density: (value: Decimal) => text(value.toDecimalPlaces(3)),
+  percent: (value: Decimal) => text(value.toDecimalPlaces(2)),
+  ratio: (value: Decimal) => text(value.toDecimalPlaces(2)),
+  area: (value: Decimal) => text(value.toDecimalPlaces(2)),
+  length: (value: Decimal) => text(value.toDecimalPlaces(3)),
+};

@@ -1,3 +1,4 @@
+import type { Citation } from './citation.js';
 import type { EditionId, RequirementCode, StrategyKey } from './edition-data.js';
 import type { ZoneKind } from './geometry.js';
 import type { UnitSystem } from './units.js';
@@ -72,10 +73,14 @@ export interface LuminaireLine {
   section: string;
 }
 
+/** A value the evaluation used that is not checked against a published source; every field is in words for people. */
 export interface UnverifiedValue {
   what: string;
+  /** The short citation (the same as `citation.short`). */
   source: string;
+  /** The note in words, or the short citation where the row has none. */
   note: string;
+  citation: Citation;
 }
 
 export interface SpaceResult {
@@ -205,8 +210,10 @@ export interface EvaluationResult {
    * needs is missing (see `openItems`), and 'complies' only when nothing is.
    */
   verdict: 'complies' | 'does-not-comply' | 'incomplete';
+  /** The jurisdiction amendments applied over the model code. */
+  amendments: { key: string; title: string }[];
   /** What keeps the verdict from being settled. */
-  openItems: { spacesWithoutLuminaires: number };
+  openItems: { spacesWithoutLuminaires: number; controlsToVerify: number };
   interior: InteriorResult;
   exterior: ExteriorResult | null;
   controlsComply: boolean;

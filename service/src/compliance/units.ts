@@ -43,6 +43,21 @@ export function linearDensityFromPerFoot(wattsPerFoot: Dec, units: UnitSystem): 
   return units === 'ip' ? wattsPerFoot : wattsPerFoot.dividedBy(metresPerFoot);
 }
 
+/** An area held in ft², written in the document's units for a reason: ft² as held, m² to 0.1 m². */
+export function areaWords(squareFeet: Dec, units: UnitSystem): string {
+  return units === 'ip' ? `${squareFeet.toFixed()} ft²` : `${areaFromSquareFeet(squareFeet, units).toDecimalPlaces(1).toFixed()} m²`;
+}
+
+/** A power density held in W/ft², written in the document's units to 0.01. */
+export function densityWords(wattsPerSquareFoot: Dec, units: UnitSystem): string {
+  return `${densityFromPerSquareFoot(wattsPerSquareFoot, units).toDecimalPlaces(2).toFixed()} ${units === 'ip' ? 'W/ft²' : 'W/m²'}`;
+}
+
+/** A length held in feet, written in the document's units: ft as held, m to 0.01 m. */
+export function lengthWords(feet: Dec, units: UnitSystem): string {
+  return units === 'ip' ? `${feet.toFixed()} ft` : `${lengthFromFeet(feet, units).toDecimalPlaces(2).toFixed()} m`;
+}
+
 export function unitLabels(units: UnitSystem): { length: string; area: string; density: string } {
   return units === 'ip'
     ? { length: 'ft', area: 'ft²', density: 'W/ft²' }

@@ -189,6 +189,7 @@ interface SpaceRow extends VersionedRow {
   luminaire_height: string | null;
   work_plane_height: string | null;
   enclosed: boolean | null;
+  rooms: number | null;
   unlit: boolean | null;
   updated_by_name?: string | null;
 }
@@ -208,6 +209,7 @@ interface SpaceControlRow {
   provided: boolean;
   timeout_minutes: string | null;
   zone_size: string | null;
+  reduction_percent: string | null;
   auto_on: SpaceInput['controls'][number]['autoOn'] | null;
   device: string | null;
   exception_reason: SpaceInput['controls'][number]['exceptionReason'] | null;
@@ -283,6 +285,7 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
       luminaireHeight: decimal(row.luminaire_height),
       workPlaneHeight: decimal(row.work_plane_height),
       enclosed: row.enclosed,
+      rooms: row.rooms === null ? undefined : String(row.rooms),
       unlit: row.unlit,
     }) as Omit<SpaceInput, 'luminaires' | 'controls' | 'windows' | 'skylights'>),
     luminaires: (luminairesBySpace.get(row.id) ?? []).map((group) => defined({ tag: group.tag, count: String(group.count), zone: group.zone, luminaireTypeId: group.luminaire_type_id })),
@@ -292,6 +295,7 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
         provided: control.provided,
         timeoutMinutes: decimal(control.timeout_minutes),
         zoneSize: decimal(control.zone_size),
+        reductionPercent: decimal(control.reduction_percent),
         autoOn: control.auto_on,
         device: control.device,
         exceptionReason: control.exception_reason,
@@ -333,6 +337,7 @@ function spaceColumns(input: Partial<SpaceInput>): Record<string, unknown> {
     luminaire_height: input.luminaireHeight,
     work_plane_height: input.workPlaneHeight,
     enclosed: input.enclosed,
+    rooms: input.rooms === undefined ? undefined : Number(input.rooms),
     unlit: input.unlit,
   };
   return Object.fromEntries(Object.entries(columns).map(([key, value]) => [key, value ?? null]));
@@ -359,6 +364,7 @@ function controlRow(spaceId: string, control: SpaceInput['controls'][number]): R
     provided: control.provided,
     timeout_minutes: control.timeoutMinutes ?? null,
     zone_size: control.zoneSize ?? null,
+    reduction_percent: control.reductionPercent ?? null,
     auto_on: control.autoOn ?? null,
     device: control.device ?? null,
     exception_reason: control.exceptionReason ?? null,
@@ -435,11 +441,53 @@ export function requestDigest(body: unknown): string {
 const importKeyHours = 24;
 
 /**
- * Creates spaces all together or not at all (the import's commit step uses this too). With an
- * import key, a retry of the same import returns the spaces the first one created instead of
- * creating them again.
+ * The luminaire types an import brings, created in its transaction: a tag the project already has
+ * is a 409 naming it (the import would otherwise count the wrong type), and each type is audited
+ * as a create, as one added by hand would be.
  */
-export async function createSpaces(db: Database, projectId: string, inputs: SpaceInput[], userId: string, importKey?: ImportKey): Promise<SpaceRecord[]> {
+async function createImportedTypes(trx: Knex.Transaction, projectId: string, inputs: LuminaireTypeInput[], userId: string): Promise<void> {
+  const clashes = await trx('luminaire_types')
+    .where({ project_id: projectId })
+    .whereIn('tag', inputs.map((input) => input.tag))
+    .select<{ tag: string }[]>('tag');
+  const taken = new Set(clashes.map((row) => row.tag));
+  if (taken.size > 0) {
+    const tags = [...taken].sort().map((tag) => `"${tag}"`);
+    const message = tags.length === 1 ? `A luminaire type tagged ${tags[0]} already exists in this project.` : `Luminaire types tagged ${tags.join(', ')} already exist in this project.`;
+    throw AppError.conflict(
+      `${message} Nothing was imported.`,
+      inputs.flatMap((input, index) => (taken.has(input.tag) ? [{ path: `luminaireTypes.${index}.tag`, message: 'Tags are unique within a project.' }] : [])),
+    );
+  }
+  const { count } = (await trx('luminaire_types').where({ project_id: projectId }).count<{ count: string }>('* as count').first()) ?? { count: '0' };
+  if (Number(count) + inputs.length > documentLimits.luminaireTypes) {
+    throw AppError.badRequest(`A project holds at most ${documentLimits.luminaireTypes.toLocaleString('en-US')} luminaire types; this one has ${Number(count).toLocaleString('en-US')}.`, [
+      { path: 'luminaireTypes', message: 'Too many luminaire types for one project.' },
+    ]);
+  }
+  const inserted = await trx('luminaire_types')
+    .insert(inputs.map((input) => ({ project_id: projectId, ...luminaireTypeColumns(input), updated_by: userId })))
+    .returning<{ id: string }[]>('id');
+  const rows: LuminaireTypeRow[] = await withUpdaterName(trx, 'luminaire_types').whereIn('t.id', inserted.map((row) => row.id)).orderBy('t.tag');
+  await recordDesignChanges(
+    trx,
+    rows.map(luminaireTypeRecord).map((type) => ({ userId, projectId, action: 'create', entity: 'luminaire-type', entityId: type.id, name: type.tag, after: type })),
+  );
+}
+
+/**
+ * Creates spaces all together or not at all (the import's commit step uses this too), with the
+ * luminaire types the import brings. With an import key, a retry of the same import returns the
+ * spaces the first one created instead of creating them (or its types) again.
+ */
+export async function createSpaces(
+  db: Database,
+  projectId: string,
+  inputs: SpaceInput[],
+  userId: string,
+  importKey?: ImportKey,
+  luminaireTypes: LuminaireTypeInput[] = [],
+): Promise<SpaceRecord[]> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     if (importKey) {
@@ -460,6 +508,7 @@ export async function createSpaces(db: Database, projectId: string, inputs: Spac
         { path: 'spaces', message: 'Too many spaces for one project.' },
       ]);
     }
+    if (luminaireTypes.length > 0) await createImportedTypes(trx, projectId, luminaireTypes, userId);
     const typeIds = await resolveTags(trx, projectId, inputs, (index) => (inputs.length === 1 ? '' : `spaces.${index}.`));
     const first = await nextPosition(trx, projectId);
     const ids: string[] = [];
@@ -537,9 +586,11 @@ export async function setControlOnSpaces(
     const stale = stored.filter((row) => wanted.get(row.id) !== row.version);
     if (stale.length > 0) {
       const names = stale.map((row) => row.name).sort();
-      throw AppError.conflict(`${names.length} of these spaces changed since you read them (${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}). Reload and apply the control again.`, [
-        { path: 'spaces', message: 'Some versions are stale.' },
-      ]);
+      const staleIds = new Set(stale.map((row) => row.id));
+      const nameOf = new Map(stale.map((row) => [row.id, row.name]));
+      // One detail per changed space, at its place in the request, so a client can name each one.
+      const details = targets.flatMap((target, index) => (staleIds.has(target.id) ? [{ path: `spaces.${index}`, message: `“${nameOf.get(target.id)}” changed since you read it.` }] : []));
+      throw AppError.conflict(`${names.length} of these spaces changed since you read them (${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}). Reload and apply the control again.`, details);
     }
     const before = await spaceRecords(trx, await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position'));
     await trx('space_controls').whereIn('space_id', ids).where({ strategy: control.strategy }).delete();

@@ -81,9 +81,9 @@ export function designRouter(db: Database): Router {
     res.status(201).json(space);
   });
   router.post('/spaces/bulk', edit, async (req, res) => {
-    const { spaces } = parse(bulkSpacesSchema, req.body);
-    await assertSpacesFitEdition(db, projectId(req), spaces, false);
-    res.status(201).json(await createSpaces(db, projectId(req), spaces, userId(req), importKey(req)));
+    const { spaces, luminaireTypes } = parse(bulkSpacesSchema, req.body);
+    await assertSpacesFitEdition(db, projectId(req), spaces, false, luminaireTypes);
+    res.status(201).json(await createSpaces(db, projectId(req), spaces, userId(req), importKey(req), luminaireTypes));
   });
   router.post('/spaces/controls', edit, async (req, res) => {
     const { spaces, control } = parse(spaceControlsSchema, req.body);

@@ -9,10 +9,6 @@ const version = versionField;
 export const spaceInputSchema = spaceSchema.omit({ id: true });
 export const spaceWriteSchema = spaceInputSchema.extend({ version });
 export const spacePatchSchema = spaceInputSchema.partial().extend({ version });
-export const bulkSpacesSchema = z.object({
-  spaces: z.array(spaceInputSchema).min(1, 'Send at least one space.').max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
-});
-
 /** The schedule's catalogue fields: kept with the type and printed in the package, not used by the calculation. */
 export const luminaireCatalogueFields = {
   wattageSource: textField(textLimits.description).optional(),
@@ -25,6 +21,22 @@ export const luminaireCatalogueFields = {
 
 export const luminaireTypeInputSchema = luminaireTypeSchema.extend(luminaireCatalogueFields);
 export const luminaireTypeWriteSchema = luminaireTypeInputSchema.extend({ version });
+
+/** An import: its spaces, and the luminaire types their counts name that the project does not have yet (created with them). */
+export const bulkSpacesSchema = z.object({
+  spaces: z.array(spaceInputSchema).min(1, 'Send at least one space.').max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
+  luminaireTypes: z
+    .array(luminaireTypeInputSchema)
+    .max(documentLimits.luminaireTypes, listLimit(documentLimits.luminaireTypes, 'luminaire types in one project'))
+    .default([])
+    .superRefine((types, ctx) => {
+      const seen = new Set<string>();
+      types.forEach((type, index) => {
+        if (seen.has(type.tag)) ctx.addIssue({ code: 'custom', path: [index, 'tag'], message: `The tag "${type.tag}" is on an earlier type of this import too.` });
+        seen.add(type.tag);
+      });
+    }),
+});
 
 export const exteriorApplicationInputSchema = exteriorApplicationEntrySchema.extend({ description: textField(textLimits.description).default('') });
 export const exteriorApplicationWriteSchema = exteriorApplicationInputSchema.extend({ version });

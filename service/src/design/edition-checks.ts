@@ -4,7 +4,7 @@ import { validateDocument, type EditionData } from '../compliance/index.js';
 import type { Database } from '../db/database.js';
 import { AppError, type ErrorDetail } from '../http/app-error.js';
 import { listLuminaireTypes } from './design.repository.js';
-import type { SpaceInput } from './design.schema.js';
+import type { LuminaireTypeInput, SpaceInput } from './design.schema.js';
 
 /**
  * Checks spaces about to be stored against the project's edition and method with the same rules
@@ -12,12 +12,14 @@ import type { SpaceInput } from './design.schema.js';
  * openings, defined luminaire tags), so a bad key is refused when it is typed, not later.
  * `single` reports paths relative to the one space (`spaceType`), otherwise `spaces.N.spaceType`.
  */
-export async function assertSpacesFitEdition(db: Database, projectId: string, spaces: SpaceInput[], single: boolean): Promise<void> {
+export async function assertSpacesFitEdition(db: Database, projectId: string, spaces: SpaceInput[], single: boolean, newTypes: readonly LuminaireTypeInput[] = []): Promise<void> {
   const project = await db('projects').where({ id: projectId }).first<{ edition_id: string | null; method: 'building-area' | 'space-by-space' | null; units: 'ip' | 'si' } | undefined>('edition_id', 'method', 'units');
   if (!project?.edition_id || !project.method) return;
   const edition = await loadEditionData(db, project.edition_id);
   if (!edition) return;
-  const types = await listLuminaireTypes(db, projectId);
+  // Types created in the same import come first, so their problems keep the paths the request gave them.
+  const newTags = new Set(newTypes.map((type) => type.tag));
+  const types = [...newTypes, ...(await listLuminaireTypes(db, projectId)).filter((type) => !newTags.has(type.tag))];
   const outcome = validateDocument(
     {
       edition: project.edition_id,
@@ -30,8 +32,9 @@ export async function assertSpacesFitEdition(db: Database, projectId: string, sp
     edition,
   );
   if (outcome.valid) return;
+  const ownType = (path: string) => Number(/^luminaireTypes\.(\d+)\./.exec(path)?.[1] ?? Infinity) < newTypes.length;
   const details: ErrorDetail[] = outcome.problems
-    .filter((problem) => problem.path.startsWith('spaces.'))
+    .filter((problem) => problem.path.startsWith('spaces.') || ownType(problem.path))
     .map((problem) => ({ path: single ? problem.path.replace(/^spaces\.0\./, '') : problem.path, message: problem.message }));
   if (details.length > 0) throw AppError.badRequest('Some values do not fit the project’s code edition and method.', details);
 }

@@ -5,6 +5,7 @@ import { listExteriorApplications, listLuminaireTypes, listSpaces } from './desi
 
 interface ProjectSetupRow {
   edition_id: string | null;
+  amendments: string[];
   method: 'building-area' | 'space-by-space' | null;
   units: 'ip' | 'si';
   lighting_zone: number | null;
@@ -15,7 +16,7 @@ interface ProjectSetupRow {
  * so evaluating it gives exactly the stored project's results.
  */
 export async function projectDocument(db: Knex, projectId: string): Promise<EvaluationDocumentInput> {
-  const project = await db('projects').where({ id: projectId }).first<ProjectSetupRow | undefined>('edition_id', 'method', 'units', 'lighting_zone');
+  const project = await db('projects').where({ id: projectId }).first<ProjectSetupRow | undefined>('edition_id', 'method', 'units', 'lighting_zone', 'amendments');
   if (!project) throw AppError.notFound('No such project.');
   if (!project.edition_id || !project.method) {
     throw AppError.badRequest('Choose the code edition and compliance method in the set-up first.', [
@@ -47,6 +48,7 @@ export async function projectDocument(db: Knex, projectId: string): Promise<Eval
       applications: exterior.map((application) => ({ key: application.key, quantity: application.quantity, installedWatts: application.installedWatts, controls: application.controls })),
     };
   }
+  if (project.amendments.length > 0) document.amendments = project.amendments;
   if (claims.length > 0) {
     document.retailDisplay = { claims: claims.map((claim) => ({ allowance: claim.allowance_key, spaceId: claim.space_id, area: claim.area })) };
   }

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import type { Database } from '../db/database.js';
 import { projectDocument } from '../design/project-document.js';
 import { requireProjectAction } from '../http/project-access.js';
-import { evaluateDocument } from './evaluation.service.js';
+import { compareProject, evaluateDocument } from './evaluation.service.js';
 import { openApiDocument } from './openapi.js';
 import { keepResultSummary } from '../projects/projects.repository.js';
 
@@ -25,6 +25,10 @@ export function projectResultsRouter(db: Database): Router {
     const result = await evaluateDocument(db, await projectDocument(db, projectId));
     await keepResultSummary(db, projectId, designAt, { complies: result.complies, verdict: result.verdict, marginPct: result.interior.marginPct, dataVersion: result.dataVersion });
     res.json(result);
+  });
+  /** The same design under every other edition the tables hold, side by side with its own. */
+  router.get('/comparison', requireProjectAction(db, 'read'), async (req, res) => {
+    res.json(await compareProject(db, req.projectAccess!.projectId));
   });
   return router;
 }

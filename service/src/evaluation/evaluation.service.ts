@@ -1,7 +1,13 @@
-import { evaluate, validateDocument, type EvaluationResult } from '../compliance/index.js';
+import { compareEditions, summary, type EditionComparison } from '../compliance/comparison.js';
+import { editionIds } from '../compliance/edition-data.js';
+import { evaluate, validateDocument, type EditionData, type EvaluationResult } from '../compliance/index.js';
+import { projectDocument } from '../design/project-document.js';
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
+
+/** Said above the list of problems, each of which names its field and what to do about it. */
+export const notComputedMessage = 'The results cannot be computed until the problems below are fixed.';
 
 /**
  * The one path from a project document to a result, used by `POST /api/evaluate` and by a stored
@@ -11,15 +17,31 @@ import { AppError } from '../http/app-error.js';
 export async function evaluateDocument(db: Database, input: unknown): Promise<EvaluationResult> {
   const edition = typeof input === 'object' && input !== null && 'edition' in input ? (input as { edition: unknown }).edition : undefined;
   if (typeof edition !== 'string' || edition.trim() === '') {
-    throw AppError.badRequest('The document is not valid.', [{ path: 'edition', message: 'Name the code edition, e.g. "iecc-2021".' }]);
+    throw AppError.badRequest(notComputedMessage, [{ path: 'edition', message: 'No code edition is chosen.' }]);
   }
   const tables = await loadEditionData(db, edition.trim());
   if (!tables) {
-    throw AppError.badRequest('The document is not valid.', [{ path: 'edition', message: `There is no code edition "${edition}".` }]);
+    throw AppError.badRequest(notComputedMessage, [{ path: 'edition', message: `There is no code edition "${edition}".` }]);
   }
   const outcome = validateDocument(input, tables);
   if (!outcome.valid) {
-    throw AppError.badRequest('The document is not valid.', outcome.problems);
+    throw AppError.badRequest(notComputedMessage, outcome.problems);
   }
   return evaluate(outcome.document, tables);
+}
+
+/**
+ * The stored project under its own edition and under every other edition loaded, mapped row by
+ * row (GET /api/projects/:id/comparison). The project's own evaluation keeps its amendments.
+ */
+export async function compareProject(db: Database, projectId: string): Promise<{ current: EditionComparison; editions: EditionComparison[] }> {
+  const document = await projectDocument(db, projectId);
+  const own = await loadEditionData(db, document.edition);
+  if (!own) throw AppError.badRequest('The project’s code edition is not loaded.');
+  const others = (await Promise.all(editionIds.filter((id) => id !== own.id).map((id) => loadEditionData(db, id)))).filter((edition): edition is EditionData => edition !== undefined);
+  const result = await evaluateDocument(db, document);
+  return {
+    current: { edition: own.id, title: own.title, status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], problems: [], result: summary(result) },
+    editions: compareEditions(document, own, others),
+  };
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { editionIds, type EditionId } from '../compliance/edition-data.js';
 
 /**
  * The evaluation result as a schema, for the served API description. It mirrors
@@ -19,7 +20,15 @@ const controlLine = z.strictObject({
   verified: z.boolean(),
 });
 
-const unverifiedValue = z.strictObject({ what: z.string(), source: z.string(), note: z.string() });
+const citation = z
+  .strictObject({
+    short: z.string().describe('Edition, table or section, and what the value rests on, in words.'),
+    layer: z.enum(['model-code', 'other-edition-or-state', 'modelling-dataset', 'not-checked']),
+    checked: z.boolean(),
+    note: z.string().nullable().describe('The source note in words, for those who ask.'),
+  })
+  .describe('How a code-table value is cited to people.');
+const unverifiedValue = z.strictObject({ what: z.string(), source: z.string(), note: z.string(), citation });
 const zoneKind = z.enum(['primary-sidelit', 'secondary-sidelit', 'toplit']);
 
 const daylight = z.strictObject({
@@ -104,13 +113,14 @@ const exteriorApplication = z.strictObject({
 });
 
 export const evaluationResultSchema = z.strictObject({
-  edition: z.enum(['ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2021']),
+  edition: z.enum(editionIds as [EditionId, ...EditionId[]]),
   dataVersion: z.string(),
   method: z.enum(['building-area', 'space-by-space']),
   units: z.enum(['ip', 'si']),
   complies: z.boolean(),
   verdict: z.enum(['complies', 'does-not-comply', 'incomplete']),
-  openItems: z.strictObject({ spacesWithoutLuminaires: z.number().int().nonnegative() }),
+  amendments: z.array(z.strictObject({ key: z.string(), title: z.string() })),
+  openItems: z.strictObject({ spacesWithoutLuminaires: z.number().int().nonnegative(), controlsToVerify: z.number().int().nonnegative() }),
   interior: z.strictObject({
     section: z.string(),
     area: decimal,

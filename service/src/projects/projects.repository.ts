@@ -46,6 +46,8 @@ export interface ProjectDetail extends ProjectSummary, PermitFields {
   jurisdiction: string | null;
   units: 'ip' | 'si';
   lightingZone: number | null;
+  /** The jurisdiction amendments the project follows over the model code. */
+  amendments: string[];
   updatedBy: string | null;
   members: { userId: string; name: string; email: string; role: ProjectRole }[];
 }
@@ -65,6 +67,7 @@ interface ProjectRow {
   method: string | null;
   units: 'ip' | 'si';
   lighting_zone: number | null;
+  amendments: string[];
   result_summary: ResultSummary | null;
   gross_floor_area: string | null;
   archived_at: Date | null;
@@ -149,6 +152,7 @@ export async function getProjectDetail(db: Knex, projectId: string, role: Projec
     jurisdiction: row.jurisdiction,
     units: row.units,
     lightingZone: row.lighting_zone,
+    amendments: row.amendments,
     updatedBy: row.updated_by_name,
     ...permitFields(row as unknown as Record<string, unknown>),
     members,
@@ -167,6 +171,7 @@ function setupColumns(input: Partial<ProjectCreate>): Record<string, unknown> {
     method: input.method,
     units: input.units,
     lighting_zone: input.lightingZone,
+    amendments: input.amendments,
     ...Object.fromEntries(Object.entries(permitColumns).map(([field, column]) => [column, input[field as PermitField]])),
   };
   return Object.fromEntries(Object.entries(columns).filter(([, value]) => value !== undefined));
@@ -204,6 +209,7 @@ async function setupRecord(trx: Knex, projectId: string): Promise<Record<string,
     method: row.method,
     units: row.units,
     lightingZone: row.lighting_zone,
+    amendments: row.amendments,
     ...permitFields(row as unknown as Record<string, unknown>),
     version: row.version,
   };

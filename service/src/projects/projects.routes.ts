@@ -18,6 +18,15 @@ function assertEdition(edition: string | undefined): void {
   }
 }
 
+/** The amendments chosen must be the edition's own. */
+async function assertAmendments(db: Database, edition: string | null | undefined, amendments: string[] | undefined): Promise<void> {
+  if (!amendments?.length) return;
+  const data = edition ? await loadEditionData(db, edition) : undefined;
+  const known = new Set((data?.amendments ?? []).map((amendment) => amendment.key));
+  const details = amendments.flatMap((key, index) => (known.has(key) ? [] : [{ path: `amendments.${index}`, message: 'Not an amendment of the project’s code edition.' }]));
+  if (details.length) throw AppError.badRequest('Some amendments do not belong to the project’s code edition.', details);
+}
+
 const listQuerySchema = z.object({ archived: z.enum(['true', 'false']).optional() });
 const copySchema = z.object({ name: projectCreateSchema.shape.name });
 
@@ -34,6 +43,7 @@ export function projectsRouter(db: Database): Router {
   router.post('/', async (req, res) => {
     const input = parse(projectCreateSchema, req.body);
     assertEdition(input.edition);
+    await assertAmendments(db, input.edition, input.amendments);
     const { user } = currentSession(req);
     const id = await createProject(db, input, user.id);
     res.status(201).json(await getProjectDetail(db, id, 'engineer'));
@@ -49,6 +59,9 @@ export function projectsRouter(db: Database): Router {
     const patch = parse(projectSetupPatchSchema, req.body);
     assertEdition(patch.edition);
     const current = await getProjectDetail(db, access.projectId, access.role);
+    // A change of edition drops amendments of the old one unless new ones are chosen with it.
+    if (patch.edition !== undefined && patch.edition !== current.edition && patch.amendments === undefined) patch.amendments = [];
+    await assertAmendments(db, patch.edition ?? current.edition, patch.amendments);
     const to = patch.units;
     // A change of units converts every stored length and area with it, in the same transaction.
     let convert: ((trx: Knex.Transaction) => Promise<Record<string, unknown>>) | undefined;

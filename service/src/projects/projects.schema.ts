@@ -40,6 +40,8 @@ const setupFields = {
   method: z.enum(projectMethods),
   units: z.enum(unitSystems),
   lightingZone: z.number().int().min(0).max(4).nullable().optional(),
+  /** Jurisdiction amendments of the edition the project follows (keys of the edition's amendments). */
+  amendments: z.array(textField(textLimits.key, { required: true })).max(10).optional(),
   permitNumber: optionalText(100),
   owner: optionalText(textLimits.name),
   occupancy: optionalText(textLimits.name),

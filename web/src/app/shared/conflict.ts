@@ -2,6 +2,7 @@ import { inject, Injectable } from '@angular/core';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import type { AbstractControl } from '@angular/forms';
 import { ApiError, type ApiErrorDetail } from '../core/http/api-error';
+import { problemLine, problemText } from './problem-words';
 
 /**
  * How the workspace answers a failed write. A stale write (409 `conflict`) says who changed the
@@ -20,9 +21,17 @@ export class WriteFailure {
         .subscribe(() => reload());
       return;
     }
-    const message = error instanceof ApiError ? error.message : 'The change could not be saved.';
-    this.snackBar.open(message, 'Dismiss', { duration: 8000, politeness: 'assertive' });
+    this.snackBar.open(failureWords(error), 'Dismiss', { duration: 8000, politeness: 'assertive' });
   }
+}
+
+/** A refused write in words: the service's message and, for a 400, what to fix (field labels, never paths). */
+export function failureWords(error: unknown): string {
+  if (!(error instanceof ApiError)) return 'The change could not be saved.';
+  if (error.status !== 400 || error.details.length === 0) return error.message;
+  const shown = error.details.slice(0, 3).map((detail) => problemText(problemLine(detail)));
+  const more = error.details.length > shown.length ? ` And ${error.details.length - shown.length} more.` : '';
+  return `${error.message} ${shown.join(' ')}${more}`;
 }
 
 /** Maps a 400's detail paths onto form fields: `{ area: 'Must be greater than zero.' }`. */

@@ -1,11 +1,16 @@
-import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatTooltipModule } from '@angular/material/tooltip';
+import type { Citation, UnitSystem } from '../core/api/api-types';
+import { inProjectUnits } from './unit-words';
 
-/** The small "verify" mark on a value that does not come from a verified published source. */
+/**
+ * The small "verify" mark on a value not checked against a published source. Its tooltip (and
+ * what a screen reader hears) is the source's citation and note in words, in the project's units.
+ */
 @Component({
   selector: 'al-verify-badge',
   imports: [MatTooltipModule],
-  template: `<span class="badge" tabindex="0" [matTooltip]="note()" [attr.aria-label]="'Verify: ' + note()">verify</span>`,
+  template: `<span class="badge" tabindex="0" [matTooltip]="text()" matTooltipClass="al-source-note" [attr.aria-label]="'Verify: ' + text()">verify</span>`,
   styles: `
     .badge {
       display: inline-block;
@@ -24,6 +29,15 @@ import { MatTooltipModule } from '@angular/material/tooltip';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class VerifyBadge {
-  /** The source's note, shown on hover and read by screen readers. */
-  readonly note = input.required<string>();
+  /** The value's citation: its short form and its note make the tooltip. */
+  readonly citation = input<Citation | null>(null);
+  /** Words of our own, where the doubt is not about a source (a requirement the data cannot settle). */
+  readonly note = input('');
+  readonly units = input<UnitSystem>('ip');
+
+  protected readonly text = computed(() => {
+    const citation = this.citation();
+    const words = citation ? [citation.short, citation.note].filter(Boolean).join('. ') : this.note();
+    return inProjectUnits(words, this.units());
+  });
 }

@@ -3,7 +3,7 @@
  * exact decimal string; the app formats for display and never does arithmetic on floats it sends back.
  */
 
-export type EditionId = 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2021';
+export type EditionId = 'ashrae-90.1-2013' | 'ashrae-90.1-2016' | 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2018' | 'iecc-2021' | 'iecc-2024';
 export type ComplianceMethod = 'building-area' | 'space-by-space';
 export type UnitSystem = 'ip' | 'si';
 export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
@@ -264,11 +264,30 @@ export interface EditionSummary {
   methods: ComplianceMethod[];
 }
 
+/**
+ * What a code-table value rests on: the model code's own table or text; another edition's or a
+ * state's text standing in for it; how a public modelling dataset reads the rule; or nothing checked yet.
+ */
+export type CitationLayer = 'model-code' | 'other-edition-or-state' | 'modelling-dataset' | 'not-checked';
+
+/** How the service cites a value to people: in words, without the reference files' markers. */
+export interface Citation {
+  /** E.g. "IECC 2021 Table C405.3.2(2) — model code". */
+  short: string;
+  layer: CitationLayer;
+  /** Checked against a published source; the "verify" badge shows where this is false. */
+  checked: boolean;
+  /** The source's note in words, shown on demand. */
+  note: string | null;
+}
+
+/** The maintainers' provenance of a row (not for screens) and its citation (for screens). */
 export interface RowProvenance {
   source: string;
   confidence: string;
   verified: boolean;
   note?: string | null;
+  citation: Citation;
 }
 
 export interface BuildingAreaTypeView extends RowProvenance {
@@ -278,12 +297,27 @@ export interface BuildingAreaTypeView extends RowProvenance {
   lpdWPerFt2: string;
 }
 
+/** The height range (ft) a formula row is for; a bound left out is open. */
+export interface HeightRangeFt {
+  above?: string;
+  atLeast?: string;
+  below?: string;
+  atMost?: string;
+}
+
+/** An allowance that depends on the space's height (the atrium rows of 90.1-2013/2016 and IECC 2018). */
+export type LpdFormula =
+  | { kind: 'per-foot-of-height'; wPerFt2PerFt: string; heightFt: HeightRangeFt }
+  | { kind: 'base-plus-per-foot-of-height'; baseWPerFt2: string; wPerFt2PerFt: string; heightFt: HeightRangeFt };
+
 export interface SpaceTypeView extends RowProvenance {
   key: string;
   label: string;
   sourceLabel: string;
   category: string;
+  /** For a formula row only the formula's first term: read `lpdFormula` instead. */
   lpdWPerFt2: string;
+  lpdFormula?: LpdFormula;
   rcrThreshold: string | null;
   controls: Record<string, RequirementCode>;
 }
@@ -314,11 +348,6 @@ export interface AdditionalAllowanceView extends RowProvenance {
   lpdWPerFt2: string;
   /** Added once per building where the edition states one (90.1-2022: 750 W). */
   fixedW: string | null;
-}
-
-/** The edition's rules as the web app reads them: only the section each rule is stated in, so far. */
-export interface EditionRulesView {
-  sections: Record<string, { section: string; verified: boolean }>;
 }
 
 export interface LightingZoneView extends RowProvenance {
@@ -372,8 +401,11 @@ export interface DaylightResult {
 
 export interface UnverifiedValue {
   what: string;
+  /** The short citation, in words. */
   source: string;
+  /** The note in words (the short citation where there is none). */
   note: string;
+  citation: Citation;
 }
 
 export interface SpaceResult {

@@ -11,27 +11,22 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
-import { catchError, combineLatest, of, switchMap } from 'rxjs';
-import type { AdditionalAllowanceView, AllowanceClaim, EditionRulesView, EvaluationResult, SpaceRecord } from '../../core/api/api-types';
+import { catchError, of, switchMap } from 'rxjs';
+import type { AdditionalAllowanceView, AllowanceClaim, EvaluationResult, SpaceRecord } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
 import { allowanceStatus } from '../../shared/allowance-status';
 import { CardRows } from '../../shared/card-rows';
 import { placeServerErrors, WriteFailure } from '../../shared/conflict';
 import { areaFigure, densityFigure, wattsFigure } from '../../shared/figures';
 import { formatArea, formatWatts, unitLabels } from '../../shared/format';
+import { inProjectUnits } from '../../shared/unit-words';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { VerifyBadge } from '../../shared/verify-badge';
-import { editionLabels } from '../projects/projects-page';
 import { densityInUnits } from '../spaces/space-rows';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { AllowancesApi, type AllowanceClaimInput } from './allowances-api';
 import { claimAreaValidator, claimLines, salesFloorType, usageWords, type ClaimLine } from './claim-lines';
-
-interface Tables {
-  catalogue: AdditionalAllowanceView[];
-  rules: EditionRulesView | null;
-}
 
 /**
  * Each sales floor's claims on the edition's additional allowances (retail display), with the rate
@@ -72,18 +67,13 @@ export class AllowancesPage implements HasUnsavedChanges {
   protected readonly spaceBySpace = computed(() => this.store.project()?.method === 'space-by-space');
   private readonly edition = computed(() => this.store.project()?.edition ?? null);
 
-  private readonly tables = toSignal(
+  protected readonly catalogue = toSignal(
     toObservable(this.edition).pipe(
-      switchMap((edition) =>
-        edition
-          ? combineLatest({ catalogue: this.workspace.additionalAllowances(edition), rules: this.workspace.rules(edition).pipe(catchError(() => of(null))) })
-          : of<Tables>({ catalogue: [], rules: null }),
-      ),
-      catchError(() => of<Tables>({ catalogue: [], rules: null })),
+      switchMap((edition) => (edition ? this.workspace.additionalAllowances(edition) : of<AdditionalAllowanceView[]>([]))),
+      catchError(() => of<AdditionalAllowanceView[]>([])),
     ),
-    { initialValue: null },
+    { initialValue: [] },
   );
-  protected readonly catalogue = computed(() => this.tables()?.catalogue ?? []);
 
   private readonly reloads = signal(0);
   protected readonly claims = signal<AllowanceClaim[] | null>(null);
@@ -202,20 +192,9 @@ export class AllowancesPage implements HasUnsavedChanges {
     return this.catalogue().find((allowance) => allowance.key === key)?.label ?? 'An allowance this edition does not offer';
   }
 
-  /** A short citation: the edition and the section that states the allowance. */
-  protected citation(): string {
-    const project = this.store.project();
-    const edition = project?.edition ? (editionLabels[project.edition] ?? project.edition) : '';
-    const section = this.tables()?.rules?.sections['additionalAllowances']?.section;
-    return section ? `${edition}, section ${section}` : edition;
-  }
-
-  /** Why a rate carries the verify mark, in words (never the data's own notes). */
-  protected unverifiedWords(allowance: AdditionalAllowanceView): string {
-    const fromMemory = allowance.source === 'from memory' || allowance.confidence === 'from memory';
-    return fromMemory
-      ? 'Not yet checked against the printed code: this rate is from memory.'
-      : 'Not yet checked against the printed code: this rate comes from a transcription of the code tables.';
+  /** Code-table words name feet; an SI project reads metres. */
+  protected inUnits(words: string): string {
+    return inProjectUnits(words, this.store.units());
   }
 
   protected spaceArea(space: SpaceRecord): string {

@@ -33,7 +33,7 @@ describe('a space’s claims on the additional allowances', () => {
     area.setValue('2500');
     expect(area.errors).toEqual({ area: 'At most 2,000 ft², the space’s floor area.' });
     area.setValue('-1');
-    expect(area.errors).toEqual({ area: 'Must not be negative.' });
+    expect(area.errors).toEqual({ area: 'Must not be negative. Enter a number greater than 0 and at most 5,000,000.' });
     area.setValue('2000');
     expect(area.errors).toBeNull();
   });

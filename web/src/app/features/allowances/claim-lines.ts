@@ -1,7 +1,7 @@
 import type { AbstractControl, ValidationErrors, ValidatorFn } from '@angular/forms';
 import type { AdditionalAllowanceView, AllowanceClaim, EvaluationResult, SpaceRecord, UnitSystem } from '../../core/api/api-types';
 import { formatArea } from '../../shared/format';
-import { quantityProblem } from '../spaces/space-form';
+import { numberProblem, ranges } from '../../shared/number-range';
 
 /** The service's sales floor space type (compliance/document.ts): the display allowances are for it alone. */
 export const salesFloorType = 'sales-area';
@@ -43,7 +43,7 @@ export function claimAreaValidator(space: () => SpaceRecord | null, units: () =>
   return (control: AbstractControl<string>): ValidationErrors | null => {
     const raw = (control.value ?? '').trim();
     if (raw === '') return null;
-    const problem = quantityProblem(raw, 'positive');
+    const problem = numberProblem(raw, ranges.area);
     if (problem) return { area: problem };
     const current = space();
     if (current && Number(raw) > Number(current.area)) return { area: `At most ${formatArea(current.area, units())}, the space’s floor area.` };

@@ -7,9 +7,12 @@ import { RouterLink } from '@angular/router';
 import type { ProvidedControl, SpaceRecord } from '../../core/api/api-types';
 import { WriteFailure } from '../../shared/conflict';
 import { formatArea } from '../../shared/format';
+import { InUnits } from '../../shared/in-units';
+import { UnverifiedCount } from '../../shared/unverified-count';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
+import { BulkControlPanel } from './bulk-control-panel';
 import { replaceControl } from './control-form';
 import { ControlLineCard } from './control-line-card';
 import { outstandingLines } from './control-status';
@@ -17,7 +20,7 @@ import { outstandingLines } from './control-status';
 /** Per space: the control requirements the evaluation derives, and what the engineer records as provided or excepted. */
 @Component({
   selector: 'al-controls-page',
-  imports: [MatIconModule, MatListModule, MatProgressBarModule, MatSlideToggleModule, RouterLink, ControlLineCard],
+  imports: [MatIconModule, MatListModule, MatProgressBarModule, MatSlideToggleModule, RouterLink, BulkControlPanel, ControlLineCard, InUnits, UnverifiedCount],
   templateUrl: './controls-page.html',
   styleUrl: './controls-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -53,6 +56,17 @@ export class ControlsPage implements HasUnsavedChanges {
     const lines = this.selected()?.result?.controls ?? [];
     return { applicable: lines.filter((line) => line.status !== 'not-required'), notRequired: lines.filter((line) => line.status === 'not-required') };
   });
+
+  /** The requirements shown for the space that carry a "verify" mark (those not required sit folded away). */
+  protected readonly unverifiedCount = computed(() => this.lines().applicable.filter((line) => !line.verified).length);
+
+  protected typeLabel(row: { space: SpaceRecord; result?: { lpdBasis: { label: string } } }): string {
+    if (row.result) return row.result.lpdBasis.label;
+    const byArea = this.store.project()?.method === 'building-area';
+    const key = byArea ? row.space.buildingAreaType : row.space.spaceType;
+    const types: readonly { key: string; label: string }[] = (byArea ? this.store.tables()?.buildingAreaTypes : this.store.tables()?.spaceTypes) ?? [];
+    return types.find((type) => type.key === key)?.label ?? 'No type chosen';
+  }
 
   hasUnsavedChanges(): boolean {
     return this.cards().some((card) => card.hasUnsavedChanges());

@@ -8,6 +8,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { startWith } from 'rxjs';
 import type { ExteriorApplicationInput, ExteriorApplicationRecord, ExteriorApplicationView, ProvidedControl, UnitSystem } from '../../core/api/api-types';
+import { InUnits } from '../../shared/in-units';
+import { inProjectUnits } from '../../shared/unit-words';
 import { quantityUnit } from './exterior-groups';
 
 export const exteriorControls = [
@@ -35,7 +37,7 @@ function controlGroup(current: ProvidedControl | undefined) {
 /** Add or change one lighted exterior application: which one (from the edition's catalogue), how much of it, its installed watts and controls. */
 @Component({
   selector: 'al-exterior-application-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule],
+  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, InUnits],
   templateUrl: './exterior-application-form.html',
   styleUrl: './exterior-application-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -83,7 +85,8 @@ export class ExteriorApplicationForm implements OnInit {
   protected readonly rate = computed(() => {
     const chosen = this.chosen();
     const zone = this.lightingZone();
-    return chosen && zone !== null ? `${chosen.allowanceByZone[String(zone)] ?? '—'} ${chosen.unit.replace('ft2', 'ft²')} in zone ${zone}` : null;
+    // The tables hold IP rates; an SI project reads them in its own units.
+    return chosen && zone !== null ? `${inProjectUnits(`${chosen.allowanceByZone[String(zone)] ?? '—'} ${chosen.unit.replace('ft2', 'ft²')}`, this.units())} in zone ${zone}` : null;
   });
 
   ngOnInit(): void {

@@ -8,11 +8,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import type { ControlLine, ExteriorApplicationInput, ExteriorApplicationRecord } from '../../core/api/api-types';
+import type { Citation, ControlLine, ExteriorApplicationInput, ExteriorApplicationRecord } from '../../core/api/api-types';
 import { CautionsBanner, defaultCautions } from '../../shared/cautions-banner';
 import { WriteFailure } from '../../shared/conflict';
-import { quantityFigure, wattsFigure } from '../../shared/figures';
+import { quantityFigure, rateFigure, wattsFigure } from '../../shared/figures';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
+import { InUnits } from '../../shared/in-units';
+import { inProjectUnits } from '../../shared/unit-words';
+import { UnverifiedCount } from '../../shared/unverified-count';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { statusView } from '../controls/control-status';
 import { ProjectStore } from '../workspace/project-store';
@@ -24,7 +27,7 @@ import { CardRows } from '../../shared/card-rows';
 /** The site's lighting zone, its lighted applications, and the exterior allowance: tradable pooled, nontradable each alone. */
 @Component({
   selector: 'al-exterior-page',
-  imports: [CardRows, NgTemplateOutlet, FormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, MatTooltipModule, CautionsBanner, VerifyBadge, ExteriorApplicationForm],
+  imports: [CardRows, NgTemplateOutlet, FormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, MatTooltipModule, CautionsBanner, InUnits, UnverifiedCount, VerifyBadge, ExteriorApplicationForm],
   templateUrl: './exterior-page.html',
   styleUrl: './exterior-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,7 +38,7 @@ export class ExteriorPage implements HasUnsavedChanges {
   private readonly failure = inject(WriteFailure);
   private readonly snackBar = inject(MatSnackBar);
 
-  protected readonly figures = { watts: wattsFigure, quantity: quantityFigure };
+  protected readonly figures = { watts: wattsFigure, quantity: quantityFigure, rate: rateFigure };
   protected readonly statusView = statusView;
   protected readonly controlNames: Partial<Record<string, string>> = Object.fromEntries(exteriorControls.map((control) => [control.strategy, control.label]));
   protected readonly quantityUnit = quantityUnit;
@@ -68,6 +71,16 @@ export class ExteriorPage implements HasUnsavedChanges {
     const shown = new Set((this.result()?.exterior?.applications ?? []).map((application) => application.key));
     return this.store.exterior().filter((application) => !shown.has(application.key));
   });
+
+  private readonly unverifiedApplications = computed(() => new Map(this.catalogue().filter((entry) => !entry.verified).map((entry) => [entry.key, entry.citation])));
+  /** The lighting zones and the project's applications whose values are not checked: each shows a "verify" mark. */
+  protected readonly unverifiedCount = computed(
+    () => this.zones().filter((zone) => !zone.verified).length + this.store.exterior().filter((application) => this.unverifiedApplications().has(application.key)).length,
+  );
+
+  protected citationOf(key: string): Citation | null {
+    return this.unverifiedApplications().get(key) ?? null;
+  }
 
   protected controlSummary(lines: readonly ControlLine[]): ControlLine[] {
     return lines.filter((line) => line.status !== 'not-required');
@@ -120,7 +133,7 @@ export class ExteriorPage implements HasUnsavedChanges {
         this.saving.set(false);
         this.store.removeExterior(record.id);
         this.snackBar
-          .open(`${label}${record.description ? ` (${record.description})` : ''} removed`, 'Undo', { duration: 8000 })
+          .open(`${inProjectUnits(label, this.store.units())}${record.description ? ` (${record.description})` : ''} removed`, 'Undo', { duration: 8000 })
           .onAction()
           .subscribe(() =>
             this.api.restoreExteriorApplication(projectId, record.id).subscribe({

@@ -3,7 +3,7 @@ import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
+import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -17,6 +17,17 @@ import { fieldMessage } from '../spaces/space-form';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { basisLabels, fillLuminaireType, luminaireTypeForm, luminaireTypeFromForm, useLabels } from './luminaire-type-form';
 
+type CatalogueField = 'manufacturer' | 'catalogNumber' | 'lightSource' | 'driver' | 'voltage';
+
+/** The schedule's product columns: printed in the package, not used by the calculation. */
+const catalogueFields: readonly { name: CatalogueField; label: string; hint?: string; double?: boolean }[] = [
+  { name: 'manufacturer', label: 'Manufacturer' },
+  { name: 'catalogNumber', label: 'Catalogue number', double: true },
+  { name: 'lightSource', label: 'Light source', hint: 'e.g. LED, 4000 K' },
+  { name: 'driver', label: 'Driver', hint: 'e.g. 0–10 V dimming' },
+  { name: 'voltage', label: 'Voltage', hint: 'e.g. 120–277 V' },
+];
+
 export interface LuminaireTypeEditorData {
   projectId: string;
   type: LuminaireTypeRecord | null;
@@ -28,9 +39,14 @@ export interface LuminaireTypeEditorData {
   selector: 'al-luminaire-type-editor',
   imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule],
   templateUrl: './luminaire-type-editor.html',
+  // A hint or message that wraps pushes the next row down instead of running over its label.
+  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { subscriptSizing: 'dynamic' } }],
   styles: `
-    .fields { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 4px 16px; padding-top: 8px !important; }
+    .fields { display: grid; grid-template-columns: repeat(auto-fill, minmax(180px, 1fr)); align-items: start; gap: 12px 16px; padding-top: 8px !important; }
     .wide { grid-column: 1 / -1; }
+    .double { grid-column: span 2; }
+    .group-heading { margin: 8px 0 0; font: var(--mat-sys-title-small); color: var(--mat-sys-on-surface-variant); }
+    @media (max-width: 599px) { .double { grid-column: 1 / -1; } }
     .failure { display: flex; align-items: center; gap: 8px; color: var(--mat-sys-error); }
     .note { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
   `,
@@ -48,6 +64,7 @@ export class LuminaireTypeEditor {
   protected readonly uses = Object.keys(useLabels) as (keyof typeof useLabels)[];
   protected readonly bases = Object.keys(basisLabels) as (keyof typeof basisLabels)[];
   protected readonly fieldMessage = fieldMessage;
+  protected readonly catalogueFields = catalogueFields;
   protected readonly saving = signal(false);
   protected readonly failure = signal<string | null>(null);
   protected readonly use = toSignal(this.form.controls.use.valueChanges, { initialValue: this.form.controls.use.value });

@@ -1,5 +1,6 @@
 import { FormControl, FormGroup, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
 import type { LuminaireTypeInput, LuminaireTypeRecord, LuminaireUse, WattageBasis } from '../../core/api/api-types';
+import { ranges } from '../../shared/number-range';
 import { quantityValidator } from '../spaces/space-form';
 
 export const useLabels: Record<LuminaireUse, string> = {
@@ -46,13 +47,18 @@ export function luminaireTypeForm() {
     {
       tag: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
       description: new FormControl('', { nonNullable: true }),
-      inputWatts: new FormControl('', { nonNullable: true, validators: [Validators.required, quantityValidator('non-negative')] }),
+      inputWatts: new FormControl('', { nonNullable: true, validators: [Validators.required, quantityValidator(ranges.luminaireWatts)] }),
       use: new FormControl<LuminaireUse>('general', { nonNullable: true }),
       exemptReason: new FormControl('', { nonNullable: true }),
       basis: new FormControl<WattageBasis>('rated', { nonNullable: true }),
-      length: new FormControl('', { nonNullable: true, validators: [quantityValidator('positive')] }),
-      limitWatts: new FormControl('', { nonNullable: true, validators: [quantityValidator('positive')] }),
+      length: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.length)] }),
+      limitWatts: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.limitWatts)] }),
       wattageSource: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(500)] }),
+      manufacturer: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
+      catalogNumber: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
+      lightSource: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
+      driver: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
+      voltage: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(100)] }),
     },
     { validators: luminaireRules },
   );
@@ -71,6 +77,11 @@ export function fillLuminaireType(form: LuminaireTypeForm, type: LuminaireTypeRe
     length: type.length ?? '',
     limitWatts: type.limitWatts ?? '',
     wattageSource: type.wattageSource ?? '',
+    manufacturer: type.manufacturer ?? '',
+    catalogNumber: type.catalogNumber ?? '',
+    lightSource: type.lightSource ?? '',
+    driver: type.driver ?? '',
+    voltage: type.voltage ?? '',
   });
 }
 
@@ -91,5 +102,10 @@ export function luminaireTypeFromForm(form: LuminaireTypeForm): LuminaireTypeInp
     length: value.basis === 'line-voltage-track' ? optional(value.length) : undefined,
     limitWatts: value.basis === 'rated' ? undefined : optional(value.limitWatts),
     wattageSource: optional(value.wattageSource),
+    manufacturer: optional(value.manufacturer),
+    catalogNumber: optional(value.catalogNumber),
+    lightSource: optional(value.lightSource),
+    driver: optional(value.driver),
+    voltage: optional(value.voltage),
   };
 }

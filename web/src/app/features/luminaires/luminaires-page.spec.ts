@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { LuminaireTypeRecord, ProjectDetail } from '../../core/api/api-types';
+import type { LuminaireTypeRecord, ProjectDetail, SpaceRecord } from '../../core/api/api-types';
 import { apiInterceptor } from '../../core/http/api-interceptor';
 import { ProjectStore } from '../workspace/project-store';
 import { LuminairesPage } from './luminaires-page';
@@ -14,7 +14,34 @@ const stamp = { version: 2, updatedAt: '', updatedBy: null };
 const types: LuminaireTypeRecord[] = [
   { id: 't1', tag: 'A', description: '2×4 troffer', inputWatts: '30', use: 'general', basis: 'rated', ...stamp },
   { id: 't2', tag: 'B', description: 'Strip', inputWatts: '20', use: 'general', basis: 'rated', ...stamp },
+  {
+    id: 't3',
+    tag: 'H',
+    description: 'High-bay',
+    inputWatts: '151.46',
+    use: 'general',
+    basis: 'rated',
+    manufacturer: 'Invented Lighting Co.',
+    catalogNumber: 'HB-150-40K',
+    lightSource: 'LED, 4000 K',
+    driver: '0–10 V dimming',
+    voltage: '120–277 V',
+    ...stamp,
+  },
 ];
+// An invented apparatus bay with ten high-bays not yet assigned to a daylight zone.
+const bay: SpaceRecord = {
+  id: 's1',
+  name: 'Apparatus bay',
+  position: 1,
+  area: '3000',
+  spaceType: 'emergency-vehicle-garage',
+  luminaires: [{ tag: 'H', count: '10', luminaireTypeId: 't3' }],
+  controls: [],
+  windows: [],
+  skylights: [{ length: '4', width: '4' }],
+  ...stamp,
+};
 
 describe('LuminairesPage', () => {
   let fixture: ComponentFixture<LuminairesPage>;
@@ -31,6 +58,7 @@ describe('LuminairesPage', () => {
     vi.spyOn(store, 'refreshResults').mockImplementation(() => undefined);
     store.project.set(project);
     store.luminaireTypes.set(types);
+    store.spaces.set([bay]);
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(LuminairesPage);
     element = fixture.nativeElement as HTMLElement;
@@ -45,14 +73,14 @@ describe('LuminairesPage', () => {
     expect(deletion.request.params.get('version')).toBe('2');
     deletion.flush(null, { status: 204, statusText: 'No Content' });
     await fixture.whenStable();
-    expect(store.luminaireTypes().map((type) => type.tag)).toEqual(['B']);
+    expect(store.luminaireTypes().map((type) => type.tag)).toEqual(['B', 'H']);
     expect(snackBar()?.textContent).toContain('Luminaire type “A” deleted');
 
     Array.from(snackBar()!.querySelectorAll<HTMLButtonElement>('button')).find((button) => button.textContent?.includes('Undo'))!.click();
     http.expectNone((request) => request.method === 'POST' && request.url === '/api/projects/p1/luminaire-types');
     http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/luminaire-types/t1/restore').flush(types[0], { status: 201, statusText: 'Created' });
     await fixture.whenStable();
-    expect(store.luminaireTypes().map((type) => type.id)).toEqual(['t1', 't2']);
+    expect(store.luminaireTypes().map((type) => type.id)).toEqual(['t1', 't2', 't3']);
   });
 
   it('says why a type still counted in spaces is kept, with no offer to reload', async () => {
@@ -63,6 +91,50 @@ describe('LuminairesPage', () => {
     await fixture.whenStable();
     expect(snackBar()?.textContent).toContain('still counted in 1 space(s): Exam 1');
     expect(snackBar()?.textContent).not.toContain('Reload');
-    expect(store.luminaireTypes().map((type) => type.tag)).toEqual(['A', 'B']);
+    expect(store.luminaireTypes().map((type) => type.tag)).toEqual(['A', 'B', 'H']);
+  });
+
+  it('lists the schedule with rated input to 0.1 W and the product columns, and no cut-sheet placeholder', () => {
+    const row = Array.from(element.querySelectorAll('tr')).find((candidate) => candidate.textContent?.includes('High-bay'))!;
+    const cells = Array.from(row.querySelectorAll('td')).map((cell) => cell.textContent?.trim());
+    expect(cells).toContain('151.5');
+    expect(row.textContent).toContain('Invented Lighting Co.');
+    expect(row.textContent).toContain('HB-150-40K');
+    expect(row.textContent).toContain('LED, 4000 K');
+    expect(row.textContent).toContain('0–10 V dimming');
+    expect(row.textContent).toContain('120–277 V');
+    const headers = Array.from(element.querySelectorAll('th')).map((header) => header.textContent?.trim());
+    expect(headers).toEqual(expect.arrayContaining(['Product', 'Light source and driver', 'Rated input (W)']));
+    expect(element.textContent).not.toContain('Cut sheet');
+    expect(element.textContent).not.toContain('With the submittal package');
+  });
+
+  it('saves a daylight-zone split from the counts panel through the service and stays on the Counts tab', async () => {
+    fixture.componentRef.setInput('tab', 'counts');
+    fixture.componentRef.setInput('space', 's1');
+    await fixture.whenStable();
+    const panel = element.querySelector<HTMLElement>('al-space-counts')!;
+    expect(panel.querySelector('h3')?.textContent).toContain('Apparatus bay');
+
+    panel.querySelector<HTMLElement>('mat-select[formcontrolname="zone"] .mat-mdc-select-trigger')!.click();
+    await fixture.whenStable();
+    Array.from(document.querySelectorAll<HTMLElement>('.cdk-overlay-container mat-option'))
+      .find((option) => option.textContent?.trim() === 'Toplit')!
+      .click();
+    await fixture.whenStable();
+    const save = Array.from(panel.querySelectorAll<HTMLButtonElement>('button')).find((button) => button.textContent?.includes('Save counts'))!;
+    expect(save.disabled).toBe(false);
+    const submitted = new Promise<SubmitEvent>((resolve) => panel.querySelector('form')!.addEventListener('submit', (event) => resolve(event as SubmitEvent), { once: true }));
+    save.click();
+    // The form is the app's, not the browser's: no page load.
+    expect((await submitted).defaultPrevented).toBe(true);
+
+    const patch = http.expectOne((request) => request.method === 'PATCH' && request.url === '/api/projects/p1/spaces/s1');
+    expect(patch.request.body).toEqual({ luminaires: [{ tag: 'H', count: '10', zone: 'toplit' }], version: 2 });
+    patch.flush({ ...bay, version: 3, luminaires: [{ tag: 'H', count: '10', zone: 'toplit', luminaireTypeId: 't3' }] });
+    await fixture.whenStable();
+    expect(store.spaces()[0]!.luminaires[0]!.zone).toBe('toplit');
+    expect(element.querySelector('[role="tab"][aria-selected="true"]')?.textContent).toContain('Counts');
+    expect(element.querySelector('al-space-counts')).not.toBeNull();
   });
 });

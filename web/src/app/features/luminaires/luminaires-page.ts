@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -7,9 +7,11 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import { MatTabsModule } from '@angular/material/tabs';
 import { MatTooltipModule } from '@angular/material/tooltip';
+import { ActivatedRoute, Router } from '@angular/router';
 import { catchError, concatMap, EMPTY, groupBy, mergeMap, Subject, tap } from 'rxjs';
 import type { LuminaireGroup, LuminaireTypeRecord, SpaceRecord } from '../../core/api/api-types';
 import { WriteFailure } from '../../shared/conflict';
+import { ratedWattsFigure } from '../../shared/figures';
 import { formatLength, formatWatts } from '../../shared/format';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
@@ -39,14 +41,22 @@ export class LuminairesPage implements HasUnsavedChanges {
   private readonly dialogs = inject(MatDialog);
   private readonly writeFailure = inject(WriteFailure);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly router = inject(Router);
+  private readonly route = inject(ActivatedRoute);
   private readonly writes = new Subject<CountWrite>();
 
-  protected readonly columns = computed(() => ['tag', 'description', 'inputWatts', 'use', 'basis', 'wattageSource', 'cutSheet', ...(this.store.canEdit() ? ['actions'] : [])]);
+  /** The tab to show, from `?tab=counts`: links from other pages open the counts, and a reload keeps the tab. */
+  readonly tab = input<string>();
+  /** The space whose counts panel to open, from `?space=`. */
+  readonly space = input<string>();
+
+  protected readonly columns = computed(() => ['tag', 'description', 'product', 'source', 'inputWatts', 'use', 'basis', ...(this.store.canEdit() ? ['actions'] : [])]);
   protected readonly useLabels = useLabels;
   protected readonly basisLabels = basisLabels;
-  protected readonly formatWatts = formatWatts;
+  protected readonly ratedWatts = ratedWattsFigure;
   protected readonly saving = signal<ReadonlySet<string>>(new Set());
-  protected readonly selectedId = signal<string | null>(null);
+  protected readonly tabIndex = linkedSignal<number>(() => (this.tab() === 'counts' ? 1 : 0));
+  protected readonly selectedId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
   protected readonly selected = computed(() => this.store.spaces().find((space) => space.id === this.selectedId()) ?? null);
   private readonly openPanel = viewChild(SpaceCounts);
 
@@ -65,11 +75,30 @@ export class LuminairesPage implements HasUnsavedChanges {
     return this.dialogs.openDialogs.some((dialog) => (dialog.componentInstance as Partial<HasUnsavedChanges>).hasUnsavedChanges?.() ?? false) || (this.openPanel()?.hasUnsavedChanges() ?? false);
   }
 
+  protected showTab(index: number): void {
+    this.tabIndex.set(index);
+    this.keepInUrl({ tab: index === 1 ? 'counts' : null });
+  }
+
+  protected closePanel(): void {
+    this.selectedId.set(null);
+    this.keepInUrl({ space: null });
+  }
+
+  /** The URL follows the page's state without a new history entry, so a reload shows the same view. */
+  private keepInUrl(queryParams: Record<string, string | null>): void {
+    void this.router.navigate([], { relativeTo: this.route, queryParams, queryParamsHandling: 'merge', replaceUrl: true });
+  }
+
   protected basisText(type: LuminaireTypeRecord): string {
     const parts: string[] = [basisLabels[type.basis].replace(/ \(.*\)$/, '')];
     if (type.length) parts.push(formatLength(type.length, this.store.units()));
     if (type.limitWatts) parts.push(`limit ${formatWatts(type.limitWatts)}`);
     return parts.join(' · ');
+  }
+
+  protected driverText(type: LuminaireTypeRecord): string {
+    return [type.driver, type.voltage].filter(Boolean).join(' · ');
   }
 
   protected useText(type: LuminaireTypeRecord): string {

@@ -6,6 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { DaylightZoneKind, LuminaireGroup, LuminaireTypeRecord, SpaceRecord } from '../../core/api/api-types';
+import { ranges } from '../../shared/number-range';
 import { fieldMessage, quantityValidator } from '../spaces/space-form';
 import { zoneLabels } from './luminaire-counts';
 
@@ -14,7 +15,7 @@ type ZoneChoice = DaylightZoneKind | 'none';
 function groupForm(group?: LuminaireGroup) {
   return new FormGroup({
     tag: new FormControl(group?.tag ?? '', { nonNullable: true, validators: [Validators.required] }),
-    count: new FormControl(group?.count ?? '', { nonNullable: true, validators: [Validators.required, quantityValidator('non-negative', true)] }),
+    count: new FormControl(group?.count ?? '', { nonNullable: true, validators: [Validators.required, quantityValidator(ranges.count)] }),
     zone: new FormControl<ZoneChoice>(group?.zone ?? 'none', { nonNullable: true }),
   });
 }

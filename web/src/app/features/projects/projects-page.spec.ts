@@ -64,6 +64,14 @@ describe('ProjectsPage', () => {
     expect(element.querySelectorAll('.verdict mat-icon').length).toBe(3);
   });
 
+  it('names the older and the newer code editions by their short names', async () => {
+    TestBed.resetTestingModule();
+    const editions = ['ashrae-90.1-2013', 'ashrae-90.1-2016', 'iecc-2018', 'iecc-2024'] as const;
+    await render(editions.map((edition, index) => ({ ...projects[0]!, id: `e${index}`, name: `Project ${index}`, edition })));
+    const cells = Array.from(element.querySelectorAll('td.mat-column-edition')).map((cell) => cell.textContent?.trim());
+    expect(cells).toEqual(['90.1-2013', '90.1-2016', 'IECC 2018', 'IECC 2024']);
+  });
+
   it('shows a kept verdict without evaluating that project again', async () => {
     TestBed.resetTestingModule();
     await render([{ ...projects[0]!, resultSummary: { complies: true, marginPct: '7.25', dataVersion: 'v1' } }]);

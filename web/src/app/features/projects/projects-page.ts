@@ -30,7 +30,11 @@ import { CardRows } from '../../shared/card-rows';
 type ListState = { status: 'loading' } | { status: 'ready'; projects: ProjectSummary[] } | { status: 'failed'; message: string };
 
 export const editionLabels: Partial<Record<string, string>> = {
+  'iecc-2018': 'IECC 2018',
   'iecc-2021': 'IECC 2021',
+  'iecc-2024': 'IECC 2024',
+  'ashrae-90.1-2013': '90.1-2013',
+  'ashrae-90.1-2016': '90.1-2016',
   'ashrae-90.1-2019': '90.1-2019',
   'ashrae-90.1-2022': '90.1-2022',
 };

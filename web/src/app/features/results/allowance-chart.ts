@@ -3,7 +3,7 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import type { ChartConfiguration, ChartData } from 'chart.js';
 import { BaseChartDirective, provideCharts, withDefaultRegisterables } from 'ng2-charts';
 import type { EvaluationResult } from '../../core/api/api-types';
-import { allowanceStatus } from '../../shared/allowance-status';
+import { allowanceStatus, spaceAllowanceStatus } from '../../shared/allowance-status';
 import { phoneScreen, screenMatches } from '../../shared/media-queries';
 
 export type ChartGrouping = 'space' | 'level';
@@ -27,13 +27,16 @@ export interface ChartBar {
 
 /** One bar pair per space (in the result's order) or per level; watts as numbers only for drawing. */
 export function chartBars(result: EvaluationResult, by: ChartGrouping): ChartBar[] {
-  const rows =
-    by === 'space'
-      ? result.interior.spaces.map((space) => ({ label: space.name, allowanceW: space.allowanceW, installedW: space.installedW, marginW: space.marginW, marginPct: space.marginPct, within: space.withinAllowance }))
-      : (result.interior.levels ?? []).map((level) => ({ label: level.level, allowanceW: level.allowanceW, installedW: level.installedW, marginW: level.marginW, marginPct: null, within: Number(level.marginW) >= 0 }));
-  return rows.map((row) => {
-    const status = allowanceStatus(row.within, row.marginW, row.marginPct);
-    return { label: row.label, allowanceW: Number(row.allowanceW), installedW: Number(row.installedW), within: row.within, words: `${status.label}, ${status.words}` };
+  if (by === 'space') {
+    return result.interior.spaces.map((space) => {
+      // A space without luminaires has no margin to speak of: its words say what it waits for.
+      const status = spaceAllowanceStatus(space);
+      return { label: space.name, allowanceW: Number(space.allowanceW), installedW: Number(space.installedW), within: !status.over, words: `${status.label}, ${status.words}` };
+    });
+  }
+  return (result.interior.levels ?? []).map((level) => {
+    const status = allowanceStatus(Number(level.marginW) >= 0, level.marginW);
+    return { label: level.level, allowanceW: Number(level.allowanceW), installedW: Number(level.installedW), within: status.within, words: `${status.label}, ${status.words}` };
   });
 }
 

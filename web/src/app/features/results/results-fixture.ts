@@ -1,9 +1,17 @@
-import type { ControlLine, EvaluationResult, SpaceResult } from '../../core/api/api-types';
+import type { ControlLine, EvaluationResult, SpaceResult, UnverifiedValue } from '../../core/api/api-types';
 
 /**
  * A fixed evaluation for the results specs. Every figure here is invented for the tests (a demo
  * building, not a code table); only its shape follows the service's result.
  */
+/** An unverified value as the service cites it (invented wording). */
+export const invented: UnverifiedValue = {
+  what: 'Invented value',
+  source: 'IECC 2021 Section C405.9.9 — not yet checked against the printed code',
+  note: 'An invented note about 5,000 ft² zones.',
+  citation: { short: 'IECC 2021 Section C405.9.9 — not yet checked against the printed code', layer: 'not-checked', checked: false, note: 'An invented note about 5,000 ft² zones.' },
+};
+
 export function controlLine(overrides: Partial<ControlLine>): ControlLine {
   return {
     strategy: 'occupant-sensor',
@@ -100,7 +108,7 @@ export function evaluation(): EvaluationResult {
           marginW: '-30',
           marginPct: '-6',
           controls: [controlLine({ strategy: 'light-reduction', label: 'Light-reduction control', status: 'not-met', met: false, section: 'C405.2.3', verified: false })],
-          unverified: [{ what: 'Invented value', source: 'from memory', note: 'An invented note' }],
+          unverified: [invented],
         }),
       ],
       levels: [
@@ -110,7 +118,7 @@ export function evaluation(): EvaluationResult {
     },
     exterior: null,
     controlsComply: false,
-    unverifiedValues: [{ what: 'Invented value', source: 'from memory', note: 'An invented note' }],
+    unverifiedValues: [invented],
     cautions: ['Energy code only (test caution).'],
   };
 }

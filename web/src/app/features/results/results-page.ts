@@ -1,8 +1,12 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { CautionsBanner, defaultCautions } from '../../shared/cautions-banner';
+import { WriteFailure } from '../../shared/conflict';
+import { ProblemList } from '../../shared/problem-list';
 import { ProjectStore } from '../workspace/project-store';
+import { WorkspaceApi } from '../workspace/workspace-api';
 import { AllowanceChart } from './allowance-chart';
 import { ResultsSummary } from './results-summary';
 import { SpaceResultsTable } from './space-results-table';
@@ -10,13 +14,16 @@ import { SpaceResultsTable } from './space-results-table';
 /** The project's evaluation: the summary, a chart, and every space; recomputed as the design changes. */
 @Component({
   selector: 'al-results-page',
-  imports: [MatIconModule, MatProgressBarModule, CautionsBanner, ResultsSummary, SpaceResultsTable, AllowanceChart],
+  imports: [MatIconModule, MatProgressBarModule, CautionsBanner, ProblemList, ResultsSummary, SpaceResultsTable, AllowanceChart],
   templateUrl: './results-page.html',
   styleUrl: './results-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ResultsPage {
   protected readonly store = inject(ProjectStore);
+  private readonly api = inject(WorkspaceApi);
+  private readonly failure = inject(WriteFailure);
+  private readonly snackBar = inject(MatSnackBar);
   protected readonly state = this.store.results;
   protected readonly updating = computed(() => this.state().status === 'updating' || this.state().status === 'idle');
   /** The result to lay out: the current one, or while updating the previous one, greyed and without its verdict. */
@@ -25,4 +32,18 @@ export class ResultsPage {
     return state.status === 'ready' ? state.result : state.status === 'updating' ? state.previous : null;
   });
   protected readonly cautions = computed(() => this.shown()?.cautions ?? defaultCautions);
+
+  /** The engineer says a space without luminaires has no lighting: it stops holding the verdict back. */
+  protected confirmUnlit(spaceId: string): void {
+    const projectId = this.store.projectId();
+    const space = this.store.spaces().find((candidate) => candidate.id === spaceId);
+    if (!projectId || !space) return;
+    this.api.patchSpace(projectId, space.id, space.version, { unlit: true }).subscribe({
+      next: (saved) => {
+        this.store.upsertSpace(saved);
+        this.snackBar.open(`“${saved.name}” is confirmed unlit: it adds no allowance and no longer holds the verdict back.`, undefined, { duration: 5000 });
+      },
+      error: (error: unknown) => this.failure.report(error, () => this.store.reloadSpaces().subscribe()),
+    });
+  }
 }

@@ -1,33 +1,47 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import type { ControlLine, EvaluationResult, UnitSystem } from '../../core/api/api-types';
 import { allowanceStatus } from '../../shared/allowance-status';
+import { CardRows } from '../../shared/card-rows';
 import { areaFigure, wattsFigure } from '../../shared/figures';
 import { formatArea, formatPercent, formatWatts } from '../../shared/format';
+import { InUnits } from '../../shared/in-units';
+import type { WorkspaceLink } from '../../shared/problem-words';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { outstandingLines, requirementWords, statusView } from '../controls/control-status';
-import { CardRows } from '../../shared/card-rows';
+import { exteriorGroups } from '../exterior/exterior-groups';
+import { spacesWithoutLuminaires, verdictReasons } from './verdict-reasons';
 
 export interface UnmetLine {
-  spaceId: string;
-  spaceName: string;
+  key: string;
+  /** The space's or exterior application's name. */
+  name: string;
   line: ControlLine;
+  link: WorkspaceLink;
 }
 
-/** Every control line that still needs the engineer, space by space, in the result's order. */
+/** Every control line that still needs the engineer (not met, or to verify): spaces first, then exterior applications. */
 export function unmetControls(result: EvaluationResult): UnmetLine[] {
-  return result.interior.spaces.flatMap((space) => outstandingLines(space.controls).map((line) => ({ spaceId: space.id, spaceName: space.name, line })));
+  const interior = result.interior.spaces.flatMap((space) =>
+    outstandingLines(space.controls).map((line): UnmetLine => ({ key: `${space.id}:${line.strategy}`, name: space.name, line, link: { page: 'controls', query: { space: space.id } } })),
+  );
+  const exterior = (result.exterior?.applications ?? []).flatMap((application) =>
+    outstandingLines(application.controls).map((line): UnmetLine => ({ key: `${application.key}:${line.strategy}`, name: application.label, line, link: { page: 'exterior' } })),
+  );
+  return [...interior, ...exterior];
 }
 
 /**
- * The building's figures: allowance, installed, exempt, margin and the verdict; per level; the
- * control lines not yet met; the unverified values the evaluation used. While results are being
- * recomputed the verdict is withheld, never shown from the previous evaluation.
+ * The building's figures: allowance, installed, exempt, margin and the verdict with every reason
+ * for it (or the open items that hold it back); per level; the control lines not yet met; the
+ * unverified values the evaluation used. While results are being recomputed the verdict is
+ * withheld, never shown from the previous evaluation.
  */
 @Component({
   selector: 'al-results-summary',
-  imports: [CardRows, MatIconModule, RouterLink, VerifyBadge],
+  imports: [CardRows, MatButtonModule, MatIconModule, RouterLink, VerifyBadge, InUnits],
   templateUrl: './results-summary.html',
   styleUrl: './results-summary.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,6 +49,9 @@ export function unmetControls(result: EvaluationResult): UnmetLine[] {
 export class ResultsSummary {
   readonly result = input.required<EvaluationResult>();
   readonly updating = input(false);
+  /** The engineer may confirm a space without luminaires is unlit, from the open items. */
+  readonly canEdit = input(false);
+  readonly confirmUnlit = output<string>();
 
   protected readonly format = { watts: formatWatts, percent: formatPercent, area: formatArea };
   protected readonly figures = { watts: wattsFigure, area: areaFigure };
@@ -45,21 +62,12 @@ export class ResultsSummary {
   protected readonly interiorStatus = computed(() => allowanceStatus(this.interior().complies, this.interior().marginW, this.interior().marginPct));
   protected readonly exteriorStatus = computed(() => {
     const exterior = this.result().exterior;
-    return exterior ? allowanceStatus(exterior.complies, String(Number(exterior.allowanceW) - Number(exterior.installedW))) : null;
+    return exterior ? exteriorGroups(exterior, []).total.status : null;
   });
   protected readonly levels = computed(() =>
     (this.interior().levels ?? []).map((level) => ({ ...level, status: allowanceStatus(Number(level.marginW) >= 0, level.marginW) })),
   );
   protected readonly unmet = computed(() => unmetControls(this.result()));
-  protected readonly failures = computed(() => {
-    const result = this.result();
-    const count = this.unmet().length;
-    return [
-      result.interior.complies ? '' : 'interior power over allowance',
-      result.exterior && !result.exterior.complies ? 'exterior power over allowance' : '',
-      result.controlsComply ? '' : `${count} control requirement${count === 1 ? '' : 's'} outstanding`,
-    ]
-      .filter(Boolean)
-      .join('; ');
-  });
+  protected readonly reasons = computed(() => verdictReasons(this.result()));
+  protected readonly openSpaces = computed(() => spacesWithoutLuminaires(this.result()));
 }

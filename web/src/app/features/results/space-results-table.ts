@@ -7,25 +7,41 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import type { SpaceResult, UnitSystem } from '../../core/api/api-types';
-import { allowanceStatus, type AllowanceStatus } from '../../shared/allowance-status';
+import { spaceAllowanceStatus, type SpaceAllowanceStatus } from '../../shared/allowance-status';
 import { areaFigure, densityFigure, percentFigure, wattsFigure } from '../../shared/figures';
 import { unitLabels } from '../../shared/format';
+import { InUnits } from '../../shared/in-units';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { CardRows } from '../../shared/card-rows';
 
 export interface SpaceRow {
   space: SpaceResult;
-  status: AllowanceStatus;
+  status: SpaceAllowanceStatus;
+  /** What the space's figures rest on that is not checked, each with its short citation. */
   unverifiedNote: string | null;
 }
 
-export function spaceRows(spaces: readonly SpaceResult[]): SpaceRow[] {
-  return spaces.map((space) => ({
-    space,
-    status: allowanceStatus(space.withinAllowance, space.marginW, space.marginPct),
-    unverifiedNote: space.unverified.length === 0 ? null : space.unverified.map((value) => `${value.what}: ${value.note}`).join(' · '),
-  }));
+/**
+ * The unverified values behind a row's figures (allowance and installed power): control and
+ * daylight values belong to the Controls and Daylight pages, which mark them there.
+ */
+function figureValues(space: SpaceResult): SpaceResult['unverified'] {
+  return space.unverified.filter((value) => !value.what.startsWith('Control strategy:') && !value.what.startsWith('Daylight ') && !value.what.startsWith(`${space.name}: `));
 }
+
+export function spaceRows(spaces: readonly SpaceResult[]): SpaceRow[] {
+  return spaces.map((space) => {
+    const values = figureValues(space);
+    return {
+      space,
+      status: spaceAllowanceStatus(space),
+      unverifiedNote: values.length === 0 ? null : values.map((value) => `${value.what}: ${value.citation.short}`).join(' · '),
+    };
+  });
+}
+
+/** Sorted by status, the spaces that need the engineer come first. */
+const statusOrder: Record<SpaceAllowanceStatus['kind'], number> = { over: 0, 'none-entered': 1, within: 2, unlit: 3 };
 
 const numericColumns: Record<string, (space: SpaceResult) => string | null> = {
   area: (space) => space.area,
@@ -40,7 +56,7 @@ const numericColumns: Record<string, (space: SpaceResult) => string | null> = {
 /** Each space's allowance, installed power, LPDs, margin and status; sortable, and filterable to the spaces over allowance. */
 @Component({
   selector: 'al-space-results-table',
-  imports: [CardRows, MatTableModule, MatSortModule, MatSlideToggleModule, MatFormFieldModule, MatInputModule, MatIconModule, FormsModule, VerifyBadge],
+  imports: [CardRows, MatTableModule, MatSortModule, MatSlideToggleModule, MatFormFieldModule, MatInputModule, MatIconModule, FormsModule, VerifyBadge, InUnits],
   templateUrl: './space-results-table.html',
   styleUrl: './space-results-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -55,7 +71,7 @@ export class SpaceResultsTable {
   protected readonly labels = computed(() => unitLabels(this.units()));
   protected readonly figures = { watts: wattsFigure, density: densityFigure, percent: percentFigure, area: areaFigure };
   protected readonly columns = ['name', 'level', 'area', 'allowedLpd', 'installedLpd', 'allowanceW', 'installedW', 'marginW', 'marginPct', 'status'];
-  protected readonly overCount = computed(() => this.spaces().filter((space) => !space.withinAllowance).length);
+  protected readonly overCount = computed(() => this.spaces().filter((space) => spaceAllowanceStatus(space).over).length);
 
   protected readonly dataSource = new MatTableDataSource<SpaceRow>([]);
   private readonly sort = viewChild(MatSort);
@@ -63,14 +79,15 @@ export class SpaceResultsTable {
   constructor() {
     this.dataSource.sortingDataAccessor = (row, column) => {
       const numeric = numericColumns[column];
-      if (numeric) return Number(numeric(row.space) ?? Number.NEGATIVE_INFINITY);
+      // A margin without luminaires means nothing: those rows sort with the empty ones.
+      if (numeric) return !row.status.hasMargin && column.startsWith('margin') ? Number.NEGATIVE_INFINITY : Number(numeric(row.space) ?? Number.NEGATIVE_INFINITY);
       if (column === 'level') return row.space.level ?? '';
-      if (column === 'status') return row.status.within ? 1 : 0;
+      if (column === 'status') return statusOrder[row.status.kind];
       return row.space.name;
     };
     this.dataSource.filterPredicate = (row, filter) => {
       const { overOnly, text } = JSON.parse(filter) as { overOnly: boolean; text: string };
-      if (overOnly && row.status.within) return false;
+      if (overOnly && !row.status.over) return false;
       return text === '' || `${row.space.name} ${row.space.level ?? ''} ${row.space.lpdBasis.label}`.toLowerCase().includes(text);
     };
     effect(() => {

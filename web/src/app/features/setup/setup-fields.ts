@@ -10,6 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
 import type { LightingZoneView, ProjectScope, UnitSystem } from '../../core/api/api-types';
 import { unitLabels } from '../../shared/format';
+import { UnverifiedCount } from '../../shared/unverified-count';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { coordinateExamples, coordinateInWords, parseCoordinate, siteWarnings, type Axis } from './coordinates';
@@ -35,7 +36,7 @@ function controlValue<T>(form: Signal<SetupForm>, pick: (form: SetupForm) => Abs
 /** One section of the project set-up fields; the wizard shows one per step, the set-up page all. */
 @Component({
   selector: 'al-setup-fields',
-  imports: [ReactiveFormsModule, MatAutocompleteModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, MatSelectModule, VerifyBadge],
+  imports: [ReactiveFormsModule, MatAutocompleteModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, MatSelectModule, UnverifiedCount, VerifyBadge],
   templateUrl: './setup-fields.html',
   styleUrl: './setup-fields.scss',
   // Hints and messages take the lines they need, so a long one never runs under the next field.
@@ -80,6 +81,11 @@ export class SetupFields {
     ),
     { initialValue: { status: 'no-edition' as const } },
   );
+  /** The zones offered whose definition is not checked: each carries a "verify" mark. */
+  protected readonly unverifiedZones = computed(() => {
+    const zones = this.zones();
+    return zones.status === 'ready' ? zones.zones.filter((zone) => !zone.verified).length : 0;
+  });
 
   private readonly timeZone = controlValue(this.form, (form) => form.controls.site.controls.timeZone, '');
   private readonly latitude = controlValue(this.form, (form) => form.controls.site.controls.latitude, '');

@@ -45,9 +45,9 @@ describe('the set-up form', () => {
     // The service's floor-area range (compliance/bounds.ts), in its words.
     const area = form.controls.building.controls.grossFloorArea;
     area.setValue('99999999999');
-    expect(area.errors).toEqual({ range: 'Out of range. Enter a number greater than 0 and at most 5,000,000.' });
+    expect(area.errors).toEqual({ quantity: 'Out of range. Enter a number greater than 0 and at most 5,000,000.' });
     area.setValue('-5');
-    expect(area.errors).toEqual({ range: 'Must not be negative. Enter a number greater than 0 and at most 5,000,000.' });
+    expect(area.errors).toEqual({ quantity: 'Must not be negative. Enter a number greater than 0 and at most 5,000,000.' });
     area.setValue('2400');
     expect(area.errors).toBeNull();
   });

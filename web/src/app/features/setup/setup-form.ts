@@ -2,7 +2,8 @@ import { FormControl, FormGroup, Validators, type AbstractControl, type Validati
 import type { ComplianceMethod, EditionId, ProjectDetail, ProjectScope, ProjectSetupWrite, UnitSystem } from '../../core/api/api-types';
 import type { ApiErrorDetail } from '../../core/http/api-error';
 import { placeServerErrors } from '../../shared/conflict';
-import { quantityProblem } from '../spaces/space-form';
+import { ranges } from '../../shared/number-range';
+import { quantityValidator } from '../spaces/space-form';
 import { parseCoordinate, type Axis } from './coordinates';
 import { isTimeZone } from './time-zones';
 
@@ -17,18 +18,6 @@ export function coordinateValidator(axis: Axis): ValidatorFn {
 export const timeZoneValidator: ValidatorFn = (control: AbstractControl<string>) => {
   const zone = (control.value ?? '').trim();
   return zone === '' || isTimeZone(zone) ? null : { timeZone: 'Choose a time zone from the list: type a city, a region or a name such as Pacific.' };
-};
-
-/** The service's range for floor areas (compliance/bounds.ts), in its words. */
-const grossAreaLimit = 5_000_000;
-const grossAreaRange = 'Enter a number greater than 0 and at most 5,000,000.';
-
-export const grossAreaValidator: ValidatorFn = (control: AbstractControl<string>) => {
-  const raw = (control.value ?? '').trim();
-  if (raw === '') return null;
-  const problem = quantityProblem(raw, 'positive');
-  if (problem) return { range: `${problem} ${grossAreaRange}` };
-  return Number(raw) > grossAreaLimit ? { range: `Out of range. ${grossAreaRange}` } : null;
 };
 
 const text = (max: number) => new FormControl('', { nonNullable: true, validators: [Validators.maxLength(max)] });
@@ -55,7 +44,7 @@ export function setupForm() {
     building: new FormGroup({
       occupancy: text(200),
       scope: new FormControl<ProjectScope | null>(null),
-      grossFloorArea: new FormControl('', { nonNullable: true, validators: [grossAreaValidator] }),
+      grossFloorArea: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.area)] }),
     }),
     exterior: new FormGroup({
       lightingZone: new FormControl<number | null>(null),

@@ -3,8 +3,10 @@ import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
+import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldModule } from '@angular/material/form-field';
+import { MatExpansionModule } from '@angular/material/expansion';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -14,10 +16,11 @@ import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView
 import { ApiError } from '../../core/http/api-error';
 import { placeServerErrors, WriteFailure } from '../../shared/conflict';
 import { formatDensity, unitLabels } from '../../shared/format';
+import { InUnits } from '../../shared/in-units';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { densityInUnits, spaceInput } from './space-rows';
-import { emptySpace, fieldMessage, fillSpace, requireGeometry, spaceForm, spaceFromForm } from './space-form';
+import { canConfirmUnlit, emptySpace, fieldMessage, fillSpace, requireGeometry, requireHeightForFormula, spaceForm, spaceFromForm } from './space-form';
 import { SpaceTypePicker } from './space-type-picker';
 
 export interface SpaceEditorData {
@@ -35,8 +38,25 @@ export interface SpaceEditorData {
 /** Adds or edits one space; saves through the service and closes with the stored record. */
 @Component({
   selector: 'al-space-editor',
-  imports: [ReactiveFormsModule, MatAutocompleteModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, SpaceTypePicker, VerifyBadge],
+  imports: [
+    ReactiveFormsModule,
+    MatAutocompleteModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatDialogModule,
+    MatExpansionModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    SpaceTypePicker,
+    InUnits,
+    VerifyBadge,
+  ],
   templateUrl: './space-editor.html',
+  // A hint or message that wraps pushes the next row down instead of running over its label.
+  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { subscriptSizing: 'dynamic' } }],
   styleUrl: './space-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -45,7 +65,7 @@ export class SpaceEditor {
   private readonly dialog = inject<MatDialogRef<SpaceEditor, SpaceRecord>>(MatDialogRef);
   private readonly api = inject(WorkspaceApi);
   private readonly writeFailure = inject(WriteFailure);
-  protected readonly form = spaceForm(this.data.method);
+  protected readonly form = this.filledForm();
   protected readonly labels = unitLabels(this.data.units);
   protected readonly saving = signal(false);
   protected readonly failure = signal<string | null>(null);
@@ -56,15 +76,38 @@ export class SpaceEditor {
     const typed = this.levelText().trim().toLocaleLowerCase();
     return this.data.levels.filter((level) => level.toLocaleLowerCase().startsWith(typed) && level.toLocaleLowerCase() !== typed);
   });
+  protected readonly offerUnlit = canConfirmUnlit(this.data.space);
+  /** Under the building area method, a control space type stored apart from the space type keeps its own picker. */
+  protected readonly separateControlType = this.data.method === 'building-area' && this.data.space !== null && this.form.controls.controlSpaceType.value !== '';
+  /** The other method's type is folded away; opened when the service has something to say about it. */
+  protected readonly otherMethodOpen = signal(false);
+  private readonly otherType = toSignal(this.otherControl().valueChanges, { initialValue: this.otherControl().value });
+  protected readonly otherTypeLabel = computed(() => {
+    const key = this.otherType();
+    if (!key) return 'not chosen';
+    const types: readonly { key: string; label: string }[] = this.data.method === 'building-area' ? this.data.spaceTypes : this.data.buildingAreaTypes;
+    return types.find((type) => type.key === key)?.label ?? key;
+  });
 
   constructor() {
-    if (this.data.space) fillSpace(this.form, this.data.space);
     requireGeometry(this.form, this.data.space);
+    if (this.data.method === 'space-by-space') requireHeightForFormula(this.form, this.data.spaceTypes);
     this.dialog.disableClose = true;
     this.dialog.backdropClick().subscribe(() => this.cancel());
     this.dialog.keydownEvents().subscribe((event) => {
       if (event.key === 'Escape') this.cancel();
     });
+  }
+
+  private filledForm() {
+    const form = spaceForm(this.data.method);
+    if (this.data.space) fillSpace(form, this.data.space);
+    return form;
+  }
+
+  /** The field the other method reads: the building area type here, or the space type under the building area method. */
+  private otherControl() {
+    return this.data.method === 'building-area' ? this.form.controls.spaceType : this.form.controls.buildingAreaType;
   }
 
   hasUnsavedChanges(): boolean {
@@ -84,8 +127,8 @@ export class SpaceEditor {
       this.form.markAllAsTouched();
       return;
     }
-    const { projectId, space, method } = this.data;
-    const body = spaceFromForm(this.form, method, space ? spaceInput(space) : emptySpace());
+    const { projectId, space } = this.data;
+    const body = spaceFromForm(this.form, space ? spaceInput(space) : emptySpace());
     const request: Observable<SpaceRecord> = space ? this.api.replaceSpace(projectId, space.id, space.version, body) : this.api.createSpace(projectId, body);
     this.saving.set(true);
     this.failure.set(null);
@@ -98,6 +141,7 @@ export class SpaceEditor {
         this.saving.set(false);
         if (error instanceof ApiError && error.status === 400) {
           const unplaced = placeServerErrors(error.details, (path) => this.form.get(path));
+          if (this.otherControl().invalid) this.otherMethodOpen.set(true);
           this.failure.set(unplaced.length ? unplaced.map((detail) => detail.message).join(' ') : null);
           return;
         }

@@ -1,24 +1,12 @@
 import { FormControl, FormGroup, Validators, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
-import type { ComplianceMethod, SpaceInput, SpaceRecord } from '../../core/api/api-types';
+import type { ComplianceMethod, SpaceInput, SpaceRecord, SpaceTypeView } from '../../core/api/api-types';
+import { numberProblem, ranges, type NumberRange } from '../../shared/number-range';
 
-/** The service's decimal rule (compliance/document.ts): a plain or exponent decimal, here also > 0. */
-export const decimalPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
-
-export function quantityProblem(raw: string, bound: 'positive' | 'non-negative', integer = false): string | null {
-  const text = raw.trim();
-  if (!decimalPattern.test(text)) return `"${text}" is not a decimal number.`;
-  const value = Number(text);
-  if (value < 0) return 'Must not be negative.';
-  if (bound === 'positive' && value === 0) return 'Must be greater than zero.';
-  if (integer && !Number.isInteger(value)) return 'Must be a whole number.';
-  return null;
-}
-
-export function quantityValidator(bound: 'positive' | 'non-negative', integer = false): ValidatorFn {
+export function quantityValidator(range: NumberRange): ValidatorFn {
   return (control: AbstractControl<string>): ValidationErrors | null => {
     const raw = control.value ?? '';
     if (raw.trim() === '') return null;
-    const problem = quantityProblem(raw, bound, integer);
+    const problem = numberProblem(raw, range);
     return problem ? { quantity: problem } : null;
   };
 }
@@ -27,13 +15,15 @@ export function spaceForm(method: ComplianceMethod) {
   return new FormGroup({
     name: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
     level: new FormControl('', { nonNullable: true }),
+    // Both types stay on the record whatever the method; each method requires its own.
     spaceType: new FormControl('', { nonNullable: true, validators: method === 'space-by-space' ? [Validators.required] : [] }),
     buildingAreaType: new FormControl('', { nonNullable: true, validators: method === 'building-area' ? [Validators.required] : [] }),
     controlSpaceType: new FormControl('', { nonNullable: true }),
-    area: new FormControl('', { nonNullable: true, validators: [Validators.required, quantityValidator('positive')] }),
-    ceilingHeight: new FormControl('', { nonNullable: true, validators: [quantityValidator('positive')] }),
-    length: new FormControl('', { nonNullable: true, validators: [quantityValidator('positive')] }),
-    width: new FormControl('', { nonNullable: true, validators: [quantityValidator('positive')] }),
+    area: new FormControl('', { nonNullable: true, validators: [Validators.required, quantityValidator(ranges.area)] }),
+    ceilingHeight: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.height)] }),
+    length: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.length)] }),
+    width: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.length)] }),
+    unlit: new FormControl(false, { nonNullable: true }),
   });
 }
 
@@ -49,17 +39,47 @@ export function requireGeometry(form: SpaceForm, space: SpaceRecord | null): voi
   if ((space?.skylights.length ?? 0) > 0) form.controls.ceilingHeight.addValidators(Validators.required);
 }
 
+/**
+ * Under the space-by-space method a space type whose allowance grows with height (an atrium row of
+ * 90.1-2013/2016 or IECC 2018) needs the ceiling height, as the service's document check says.
+ */
+export function requireHeightForFormula(form: SpaceForm, spaceTypes: readonly SpaceTypeView[]): void {
+  const ceiling = form.controls.ceilingHeight;
+  ceiling.addValidators((control: AbstractControl<string>): ValidationErrors | null => {
+    const type = spaceTypes.find((candidate) => candidate.key === form.controls.spaceType.value);
+    return type?.lpdFormula && control.value.trim() === '' ? { heightNeeded: "The atrium's allowance depends on its height: give the ceiling height." } : null;
+  });
+  form.controls.spaceType.valueChanges.subscribe(() => {
+    ceiling.updateValueAndValidity();
+    if (ceiling.invalid) ceiling.markAsTouched();
+  });
+}
+
+/** Only a space without luminaires can be confirmed unlit; one with luminaires is lit whatever its flag says. */
+export function canConfirmUnlit(space: SpaceRecord | null): boolean {
+  return (space?.luminaires.length ?? 0) === 0;
+}
+
+/**
+ * Under the building area method the space type sets the controls unless a separate control space
+ * type is stored. A control type alone (or the same as the space type) is the space type, so the
+ * form shows one picker; only a control type that differs from a stored space type stays apart.
+ */
 export function fillSpace(form: SpaceForm, space: SpaceRecord): void {
+  const spaceType = space.spaceType ?? '';
+  const control = space.controlSpaceType ?? '';
+  const separateControl = control !== '' && spaceType !== '' && control !== spaceType;
   form.reset({
     name: space.name,
     level: space.level ?? '',
-    spaceType: space.spaceType ?? '',
+    spaceType: spaceType || control,
     buildingAreaType: space.buildingAreaType ?? '',
-    controlSpaceType: space.controlSpaceType ?? '',
+    controlSpaceType: separateControl ? control : '',
     area: space.area,
     ceilingHeight: space.ceilingHeight ?? '',
     length: space.length ?? '',
     width: space.width ?? '',
+    unlit: space.unlit ?? false,
   });
 }
 
@@ -68,22 +88,21 @@ function optional(value: string): string | undefined {
   return trimmed === '' ? undefined : trimmed;
 }
 
-/** The form over a base space (the stored one, or an empty one): children stay as they are. */
-export function spaceFromForm(form: SpaceForm, method: ComplianceMethod, base: SpaceInput): SpaceInput {
+/** The form over a base space (the stored one, or an empty one): children stay as they are, and so do both types. */
+export function spaceFromForm(form: SpaceForm, base: SpaceInput): SpaceInput {
   const value = form.getRawValue();
-  const byMethod =
-    method === 'building-area'
-      ? { spaceType: undefined, buildingAreaType: optional(value.buildingAreaType), controlSpaceType: optional(value.controlSpaceType) }
-      : { spaceType: optional(value.spaceType), buildingAreaType: undefined, controlSpaceType: undefined };
   return {
     ...base,
     name: value.name.trim(),
     level: optional(value.level),
-    ...byMethod,
+    spaceType: optional(value.spaceType),
+    buildingAreaType: optional(value.buildingAreaType),
+    controlSpaceType: optional(value.controlSpaceType),
     area: value.area.trim(),
     ceilingHeight: optional(value.ceilingHeight),
     length: optional(value.length),
     width: optional(value.width),
+    unlit: base.luminaires.length === 0 ? value.unlit || undefined : base.unlit,
   };
 }
 
@@ -94,6 +113,8 @@ export function emptySpace(): SpaceInput {
 export function fieldMessage(control: AbstractControl, label: string): string {
   const errors = control.errors ?? {};
   if (errors['required']) return `${label} is required.`;
+  const tooLong = errors['maxlength'] as { requiredLength: number } | undefined;
+  if (tooLong) return `Use at most ${tooLong.requiredLength.toLocaleString('en-US')} characters.`;
   const message = Object.values(errors).find((value): value is string => typeof value === 'string');
   return message ?? `Check the ${label.toLocaleLowerCase()}.`;
 }

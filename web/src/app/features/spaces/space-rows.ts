@@ -1,5 +1,6 @@
-import type { SpaceInput, SpaceRecord, SpaceResult, UnitSystem } from '../../core/api/api-types';
-import { formatPercent, formatWatts } from '../../shared/format';
+import type { SpaceInput, SpaceRecord, SpaceResult, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
+import { formatDensity, formatPercent, formatWatts, unitLabels } from '../../shared/format';
+import { squareMetresPerSquareFoot } from '../../shared/unit-words';
 
 export const noLevel = 'No level';
 
@@ -39,13 +40,20 @@ function unbroken(text: string): string {
 export type SpaceStatus =
   | { kind: 'updating' }
   | { kind: 'not-evaluated' }
+  | { kind: 'none-entered' }
+  | { kind: 'unlit' }
   | { kind: 'within'; words: string }
   | { kind: 'over'; words: string };
 
-/** A space's status in words; while results are updating no verdict is given. */
+/**
+ * A space's status in words; while results are updating no verdict is given, and a space without
+ * luminaires has none until they are entered or it is confirmed unlit.
+ */
 export function spaceStatus(result: SpaceResult | undefined, resultsStatus: string): SpaceStatus {
   if (resultsStatus === 'updating' || resultsStatus === 'idle') return { kind: 'updating' };
   if (resultsStatus !== 'ready' || !result) return { kind: 'not-evaluated' };
+  if (result.lighting === 'none-entered') return { kind: 'none-entered' };
+  if (result.lighting === 'unlit') return { kind: 'unlit' };
   if (result.withinAllowance) {
     const pct = result.marginPct === null ? '' : `\u00a0(${formatPercent(result.marginPct).replace(' ', '\u00a0')})`;
     return { kind: 'within', words: `${unbroken(formatWatts(result.marginW))}${pct} to spare` };
@@ -53,12 +61,22 @@ export function spaceStatus(result: SpaceResult | undefined, resultsStatus: stri
   return { kind: 'over', words: `by ${unbroken(formatWatts(String(-Number(result.marginW))))}` };
 }
 
-/** 1 ft = 0.3048 m exactly, so 1 m² = 1 / 0.09290304 ft² (NIST SP 811, exact definition). */
-const ft2PerM2 = 1 / 0.09290304;
-
 /** A table's W/ft² in the project's units (code tables hold IP densities). */
 export function densityInUnits(lpdWPerFt2: string, units: UnitSystem): string {
-  return units === 'ip' ? lpdWPerFt2 : String(Number(lpdWPerFt2) * ft2PerM2);
+  return units === 'ip' ? lpdWPerFt2 : String(Number(lpdWPerFt2) / squareMetresPerSquareFoot);
+}
+
+/**
+ * A space type's allowance as people read it, in the project's units: a flat density, or, for a
+ * row whose allowance grows with the room's height, so much per foot (metre) of height.
+ */
+export function spaceTypeAllowance(type: SpaceTypeView, units: UnitSystem): string {
+  const formula = type.lpdFormula;
+  if (!formula) return formatDensity(densityInUnits(type.lpdWPerFt2, units), units);
+  // Per foot of height becomes per metre: 1 m = 1 / 0.3048 ft exactly (NIST SP 811).
+  const perLength = units === 'ip' ? formula.wPerFt2PerFt : String(Number(densityInUnits(formula.wPerFt2PerFt, units)) / 0.3048);
+  const perHeight = `${formatDensity(perLength, units)} per ${unitLabels(units).length} of height`;
+  return formula.kind === 'per-foot-of-height' ? perHeight : `${formatDensity(densityInUnits(formula.baseWPerFt2, units), units)} + ${perHeight}`;
 }
 
 /** A stored space as the body of a write (what PUT and POST take back). */

@@ -2,6 +2,8 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { MatDialog } from '@angular/material/dialog';
+import { provideRouter } from '@angular/router';
 import type { EvaluationResult, ProjectDetail, SpaceRecord, SpaceResult, SpaceTypeView } from '../../core/api/api-types';
 import { ProjectStore } from '../workspace/project-store';
 import { groupByLevel, spaceStatus } from './space-rows';
@@ -47,7 +49,7 @@ describe('the space table', () => {
   beforeEach(async () => {
     TestBed.configureTestingModule({
       imports: [SpacesPage],
-      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting(), ProjectStore],
+      providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting(), provideRouter([]), ProjectStore],
     });
     store = TestBed.inject(ProjectStore);
     store.project.set(project);
@@ -83,6 +85,28 @@ describe('the space table', () => {
     expect(element.querySelector('.status.within mat-icon')?.textContent?.trim()).toBe('check_circle');
     expect(element.textContent).toContain('Installed (W)');
     expect(element.textContent).toContain('Area (ft²)');
+  });
+
+  it('says a space without luminaires has none entered, and a confirmed one is unlit, never "to spare"', async () => {
+    // Invented results: Store 102 has no luminaires yet, Office 101 is confirmed unlit.
+    const waiting = { ...evaluation.interior.spaces[2]!, installedW: '0', marginW: '38', marginPct: '100', withinAllowance: true, lighting: 'none-entered' } as SpaceResult;
+    const unlit = { ...evaluation.interior.spaces[1]!, allowanceW: '0', installedW: '0', marginW: '0', marginPct: null, withinAllowance: true, lighting: 'unlit' } as SpaceResult;
+    store.results.set({ status: 'ready', result: { ...evaluation, interior: { ...evaluation.interior, spaces: [evaluation.interior.spaces[0]!, unlit, waiting] } } as EvaluationResult });
+    await fixture.whenStable();
+    expect(rowText('Store 102')).toContain('No luminaires entered');
+    expect(rowText('Store 102')).not.toContain('to spare');
+    expect(rowText('Office 101')).toContain('Unlit (confirmed)');
+    expect(rowText('Office 101')).not.toContain('Within allowance');
+  });
+
+  it('opens the space a link names, ready at the field to fix', async () => {
+    fixture.componentRef.setInput('space', 's2');
+    fixture.componentRef.setInput('field', 'area');
+    await fixture.whenStable();
+    const dialog = document.querySelector('mat-dialog-container')!;
+    expect(dialog).not.toBeNull();
+    expect(dialog.querySelector<HTMLInputElement>('input[formcontrolname="name"]')?.value).toBe('Office 101');
+    TestBed.inject(MatDialog).closeAll();
   });
 
   it('gives no verdict while the results are updating', async () => {

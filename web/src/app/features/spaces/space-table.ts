@@ -8,6 +8,8 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceResult, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
 import { formatArea, formatLength, formatWatts, unitLabels } from '../../shared/format';
 import { phoneScreen, printing, screenMatches } from '../../shared/media-queries';
+import { inProjectUnits } from '../../shared/unit-words';
+import { VerifyBadge } from '../../shared/verify-badge';
 import { groupByLevel, spaceStatus, type SpaceRow, type SpaceStatus } from './space-rows';
 
 /** Row height in px; the virtual scroll needs it fixed. */
@@ -18,7 +20,7 @@ export const spaceCardHeight = 136;
 /** The project's spaces grouped by level, in one virtual-scrolled list that stays smooth at thousands of rows. */
 @Component({
   selector: 'al-space-table',
-  imports: [NgTemplateOutlet, ScrollingModule, MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule],
+  imports: [NgTemplateOutlet, ScrollingModule, MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule, VerifyBadge],
   templateUrl: './space-table.html',
   styleUrl: './space-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -40,10 +42,11 @@ export class SpaceTable {
 
   protected readonly rows = computed(() => groupByLevel(this.spaces()));
   protected readonly labels = computed(() => unitLabels(this.units()));
-  private readonly typeLabels = computed(() => {
-    const entries: [string, string][] =
-      this.method() === 'building-area' ? this.buildingAreaTypes().map((type) => [type.key, type.label]) : this.spaceTypes().map((type) => [type.key, type.label]);
-    return new Map(entries);
+  /** The template names the unit labels `units`; the badge takes the system itself. */
+  protected readonly unitSystem = computed(() => this.units());
+  private readonly typeViews = computed(() => {
+    const types: readonly (SpaceTypeView | BuildingAreaTypeView)[] = this.method() === 'building-area' ? this.buildingAreaTypes() : this.spaceTypes();
+    return new Map(types.map((type) => [type.key, type]));
   });
 
   protected readonly trackRow = (_index: number, row: SpaceRow) => row.id;
@@ -53,6 +56,11 @@ export class SpaceTable {
   protected readonly rowHeight = computed(() => (this.phone() ? spaceCardHeight : spaceRowHeight));
   protected readonly printing = printing();
 
+  protected typeView(space: SpaceRecord): SpaceTypeView | BuildingAreaTypeView | undefined {
+    const key = this.method() === 'building-area' ? space.buildingAreaType : space.spaceType;
+    return key ? this.typeViews().get(key) : undefined;
+  }
+
   /** A template's context has no type of its own: this gives the row its type back at the template's edge. */
   protected asRow(row: SpaceRow): SpaceRow {
     return row;
@@ -61,7 +69,8 @@ export class SpaceTable {
   protected typeLabel(space: SpaceRecord): string {
     const key = this.method() === 'building-area' ? space.buildingAreaType : space.spaceType;
     if (!key) return '—';
-    return this.typeLabels().get(key) ?? key;
+    // A type the edition does not have (kept from another edition) is named as such, never by its key.
+    return inProjectUnits(this.typeViews().get(key)?.label ?? 'A type this edition does not have', this.units());
   }
 
   protected area(value: string | number): string {
@@ -91,6 +100,10 @@ export class SpaceTable {
         return `Within allowance, ${status.words}`;
       case 'over':
         return `Over allowance ${status.words}`;
+      case 'none-entered':
+        return 'No luminaires entered: enter them, or confirm the space is unlit';
+      case 'unlit':
+        return 'Unlit (confirmed)';
       case 'updating':
         return 'Updating…';
       default:

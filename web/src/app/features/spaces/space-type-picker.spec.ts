@@ -90,4 +90,29 @@ describe('SpaceTypePicker', () => {
     expect(control.value).toBe('');
     expect((fixture.nativeElement as HTMLElement).querySelector('mat-error')?.textContent).toContain('Choose a space type from the list.');
   });
+
+  describe('an atrium row whose allowance grows with height', () => {
+    // ASHRAE 90.1-2016 Table 9.6.1, via PNNL building-energy-standards-data: the source stores 0.03 (W/ft) and 0.4 + 0.02,
+    // read as W/ft² per ft of total atrium height (the row notes of shared/reference-data/ashrae901-2016-sbs.csv; from memory).
+    const atria = [
+      { key: 'atrium-ge-20-ft-and-le-40-ft-in-height', label: 'Atrium — ≥ 20 ft and ≤ 40 ft in height', sourceLabel: 'Atrium | >= 20 ft and <= 40 ft in height', category: 'common', lpdWPerFt2: '0.03', lpdFormula: { kind: 'per-foot-of-height', wPerFt2PerFt: '0.03', heightFt: { atLeast: '20', atMost: '40' } }, verified: false, source: 'PNNL', confidence: 'medium' },
+      { key: 'atrium-gt-40-ft-in-height', label: 'Atrium — > 40 ft in height', sourceLabel: 'Atrium | > 40 ft in height', category: 'common', lpdWPerFt2: '0.4', lpdFormula: { kind: 'base-plus-per-foot-of-height', baseWPerFt2: '0.4', wPerFt2PerFt: '0.02', heightFt: { above: '40' } }, verified: false, source: 'PNNL', confidence: 'medium' },
+    ] as SpaceTypeView[];
+
+    it('shows the allowance per foot of height, never the bare number as a flat density', async () => {
+      fixture.componentRef.setInput('spaceTypes', atria);
+      await typeText('atrium');
+      const options = Array.from(overlay().querySelectorAll('mat-option')).map((option) => option.querySelector('.lpd')?.textContent?.trim());
+      expect(options).toEqual(['0.03 W/ft² per ft of height', '0.40 W/ft² + 0.02 W/ft² per ft of height']);
+    });
+
+    it('speaks per metre of height in an SI project', async () => {
+      fixture.componentRef.setInput('spaceTypes', atria);
+      fixture.componentRef.setInput('units', 'si');
+      await typeText('atrium');
+      // 0.03 W/ft² per ft × 10.7639 ft²/m² ÷ 0.3048 m/ft = 1.06 W/m² per m; 0.4 W/ft² = 4.31 W/m²; 0.02 → 0.71 W/m² per m (1 ft = 0.3048 m exactly, NIST SP 811).
+      const options = Array.from(overlay().querySelectorAll('mat-option')).map((option) => option.querySelector('.lpd')?.textContent?.trim());
+      expect(options).toEqual(['1.06 W/m² per m of height', '4.31 W/m² + 0.71 W/m² per m of height']);
+    });
+  });
 });

@@ -5,9 +5,10 @@ import { MatAutocompleteModule, type MatAutocompleteSelectedEvent } from '@angul
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { SpaceTypeView, UnitSystem } from '../../core/api/api-types';
-import { formatDensity } from '../../shared/format';
+import { InUnits } from '../../shared/in-units';
+import { inProjectUnits } from '../../shared/unit-words';
 import { VerifyBadge } from '../../shared/verify-badge';
-import { densityInUnits } from './space-rows';
+import { spaceTypeAllowance } from './space-rows';
 
 export const categoryLabels: Partial<Record<string, string>> = {
   common: 'Common space types',
@@ -36,7 +37,7 @@ export function groupSpaceTypes(types: readonly SpaceTypeView[], query: string):
 /** A space type chosen from the edition's table: grouped by category, filtered as you type. */
 @Component({
   selector: 'al-space-type-picker',
-  imports: [ReactiveFormsModule, MatAutocompleteModule, MatFormFieldModule, MatInputModule, VerifyBadge],
+  imports: [ReactiveFormsModule, MatAutocompleteModule, MatFormFieldModule, MatInputModule, InUnits, VerifyBadge],
   template: `
     <mat-form-field appearance="outline" class="picker">
       <mat-label>{{ label() }}</mat-label>
@@ -47,13 +48,13 @@ export function groupSpaceTypes(types: readonly SpaceTypeView[], query: string):
             @for (type of group.types; track type.key) {
               <mat-option [value]="type">
                 <span class="option">
-                  <span class="name">{{ type.label }}</span>
+                  <span class="name">{{ type.label | inUnits: units() }}</span>
                   @if (!type.verified) {
-                    <al-verify-badge [note]="type.note ?? type.source" />
+                    <al-verify-badge [citation]="type.citation" [units]="units()" />
                   }
                   <span class="lpd">{{ density(type) }}</span>
                 </span>
-                <span class="source-label">{{ type.sourceLabel }}</span>
+                <span class="source-label">{{ type.sourceLabel | inUnits: units() }}</span>
               </mat-option>
             }
           </mat-optgroup>
@@ -121,10 +122,10 @@ export class SpaceTypePicker {
     });
   }
 
-  protected readonly display = (value: string | SpaceTypeView | null): string => (value && typeof value !== 'string' ? value.label : (value ?? ''));
+  protected readonly display = (value: string | SpaceTypeView | null): string => (value && typeof value !== 'string' ? inProjectUnits(value.label, this.units()) : (value ?? ''));
 
   protected density(type: SpaceTypeView): string {
-    return formatDensity(densityInUnits(type.lpdWPerFt2, this.units()), this.units());
+    return spaceTypeAllowance(type, this.units());
   }
 
   protected choose(event: MatAutocompleteSelectedEvent): void {

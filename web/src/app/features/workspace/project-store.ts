@@ -14,7 +14,8 @@ import type {
   SpaceTypeView,
 } from '../../core/api/api-types';
 import { AuthStore } from '../../core/auth/auth-store';
-import { ApiError, type ApiErrorDetail } from '../../core/http/api-error';
+import { ApiError } from '../../core/http/api-error';
+import { problemLine, type ProblemContext, type ProblemLine } from '../../shared/problem-words';
 import { WorkspaceApi } from './workspace-api';
 
 /**
@@ -25,7 +26,7 @@ export type ResultsState =
   | { status: 'idle' }
   | { status: 'updating'; previous: EvaluationResult | null }
   | { status: 'ready'; result: EvaluationResult }
-  | { status: 'incomplete'; problems: readonly ApiErrorDetail[]; message: string }
+  | { status: 'incomplete'; problems: readonly ProblemLine[]; message: string }
   | { status: 'failed'; message: string };
 
 export interface EditionTables {
@@ -75,17 +76,34 @@ export class ProjectStore {
           this.api.results(projectId).pipe(
             map((result): ResultsState => ({ status: 'ready', result })),
             catchError((error: unknown) =>
-              of<ResultsState>(
-                error instanceof ApiError && error.status === 400
-                  ? { status: 'incomplete', problems: error.details, message: error.message }
-                  : { status: 'failed', message: error instanceof ApiError ? error.message : 'The results could not be computed.' },
-              ),
+              error instanceof ApiError && error.status === 400
+                ? this.problemContext(projectId).pipe(map((context): ResultsState => ({ status: 'incomplete', problems: error.details.map((detail) => problemLine(detail, context)), message: error.message })))
+                : of<ResultsState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'The results could not be computed.' }),
             ),
           ),
         ),
         takeUntilDestroyed(inject(DestroyRef)),
       )
       .subscribe((state) => this.results.set(state));
+  }
+
+  /**
+   * What the paths of the results' problems count through: the document the evaluation read (its
+   * order is the service's), or the spaces as loaded here when it cannot be read.
+   */
+  private problemContext(projectId: string): Observable<ProblemContext> {
+    const labels = new Map((this.tables()?.exteriorApplications ?? []).map((application) => [application.key, application.label]));
+    const fallback: ProblemContext = { spaces: this.spaces(), luminaireTags: this.luminaireTypes().map((type) => type.tag) };
+    return this.api.document(projectId).pipe(
+      map(
+        (document): ProblemContext => ({
+          spaces: document.spaces,
+          luminaireTags: document.luminaireTypes.map((type) => type.tag),
+          exteriorApplications: (document.exterior?.applications ?? []).map((application) => ({ label: labels.get(application.key) ?? 'An exterior application' })),
+        }),
+      ),
+      catchError(() => of(fallback)),
+    );
   }
 
   load(projectId: string): Observable<void> {
@@ -143,6 +161,25 @@ export class ProjectStore {
       return index === -1 ? [...spaces, space] : spaces.map((existing) => (existing.id === space.id ? space : existing));
     });
     this.refreshResults();
+  }
+
+  /** Many spaces written at once (one control on many): one recompute for all of them. */
+  upsertSpaces(saved: readonly SpaceRecord[]): void {
+    const byId = new Map(saved.map((space) => [space.id, space]));
+    this.spaces.update((spaces) => spaces.map((space) => byId.get(space.id) ?? space));
+    this.refreshResults();
+  }
+
+  /** Reads the spaces again, after a stale write: what others saved replaces what is on screen. */
+  reloadSpaces(): Observable<SpaceRecord[]> {
+    const id = this.projectId();
+    if (!id) return of([]);
+    return this.api.spaces(id).pipe(
+      tap((spaces) => {
+        this.spaces.set(spaces);
+        this.refreshResults();
+      }),
+    );
   }
 
   removeSpace(spaceId: string): void {

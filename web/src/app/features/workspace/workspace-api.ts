@@ -5,12 +5,12 @@ import type {
   AdditionalAllowanceView,
   BuildingAreaTypeView,
   ControlStrategyView,
-  EditionRulesView,
   EditionSummary,
   EvaluationResult,
   ExteriorApplicationInput,
   ExteriorApplicationRecord,
   ExteriorApplicationView,
+  ImportAlias,
   LightingZoneView,
   LuminaireTypeInput,
   LuminaireTypeRecord,
@@ -18,10 +18,18 @@ import type {
   ProjectMember,
   ProjectRole,
   ProjectSetupWrite,
+  ProvidedControl,
   SpaceInput,
   SpaceRecord,
   SpaceTypeView,
 } from '../../core/api/api-types';
+
+/** The parts of an evaluation document that problem paths count through (`spaces.3`, `luminaireTypes.0`, `exterior.applications.2`). */
+export interface EvaluationDocumentOrder {
+  spaces: { id: string; name: string }[];
+  luminaireTypes: { tag: string }[];
+  exterior?: { applications: { key: string }[] };
+}
 
 /** The project workspace's calls: set-up, design data, results, and the code tables (cached per edition). */
 @Injectable({ providedIn: 'root' })
@@ -62,9 +70,22 @@ export class WorkspaceApi {
     return this.http.post<SpaceRecord>(`/api/projects/${projectId}/spaces`, space);
   }
 
-  /** One import, all or nothing; a retry with the same `importKey` returns the first import's spaces instead of adding them twice. */
-  createSpaces(projectId: string, spaces: SpaceInput[], importKey: string): Observable<SpaceRecord[]> {
-    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, { spaces }, { headers: { 'Idempotency-Key': importKey } });
+  /**
+   * One import, all or nothing, with the luminaire types its counts name; a retry with the same
+   * `importKey` returns the first import's spaces instead of adding them (and the types) twice.
+   */
+  createSpaces(projectId: string, spaces: SpaceInput[], importKey: string, luminaireTypes: LuminaireTypeInput[] = []): Observable<SpaceRecord[]> {
+    const body = luminaireTypes.length > 0 ? { spaces, luminaireTypes } : { spaces };
+    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, body, { headers: { 'Idempotency-Key': importKey } });
+  }
+
+  /** Names earlier imports matched to a type, remembered for the project. */
+  importAliases(projectId: string): Observable<ImportAlias[]> {
+    return this.http.get<ImportAlias[]>(`/api/projects/${projectId}/import-aliases`);
+  }
+
+  saveImportAliases(projectId: string, aliases: ImportAlias[]): Observable<ImportAlias[]> {
+    return this.http.put<ImportAlias[]>(`/api/projects/${projectId}/import-aliases`, { aliases });
   }
 
   replaceSpace(projectId: string, spaceId: string, version: number, space: SpaceInput): Observable<SpaceRecord> {
@@ -124,6 +145,16 @@ export class WorkspaceApi {
     return this.http.post<ExteriorApplicationRecord>(`/api/projects/${projectId}/exterior-applications/${applicationId}/restore`, {});
   }
 
+  /** Records one control (provided, or an exception) on many spaces at once; all or nothing, 409 naming the stale ones. */
+  setControlOnSpaces(projectId: string, spaces: readonly Pick<SpaceRecord, 'id' | 'version'>[], control: ProvidedControl): Observable<SpaceRecord[]> {
+    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/controls`, { spaces: spaces.map(({ id, version }) => ({ id, version })), control });
+  }
+
+  /** The stored project as the evaluation reads it: the order its problem paths count in. */
+  document(projectId: string): Observable<EvaluationDocumentOrder> {
+    return this.http.get<EvaluationDocumentOrder>(`/api/projects/${projectId}/document`);
+  }
+
   results(projectId: string): Observable<EvaluationResult> {
     return this.http.get<EvaluationResult>(`/api/projects/${projectId}/results`);
   }
@@ -154,10 +185,6 @@ export class WorkspaceApi {
 
   additionalAllowances(edition: string): Observable<AdditionalAllowanceView[]> {
     return this.cached(`${edition}/additional-allowances`, `/api/code-editions/${edition}/additional-allowances`);
-  }
-
-  rules(edition: string): Observable<EditionRulesView> {
-    return this.cached(`${edition}/rules`, `/api/code-editions/${edition}/rules`);
   }
 
   /** Code tables change only with a new data version, so one request per page load is enough. */

@@ -18,6 +18,7 @@ import { narrowScreen, phoneScreen, screenMatches } from '../../shared/media-que
 import { openCopyDialog } from '../projects/copy-project-dialog';
 import { ProjectApi } from '../projects/project-api';
 import { stateLabels } from '../projects/project-states';
+import { reasonTitles } from '../results/verdict-reasons';
 import { ProjectStore } from './project-store';
 
 interface WorkspaceArea {
@@ -85,6 +86,20 @@ export class WorkspacePage {
     const state = this.store.results();
     if (state.status === 'ready') return state.result.verdict;
     return state.status;
+  });
+
+  /**
+   * Why there is no pass, in a few words (plain text: the area names it holds must not read as
+   * the navigation's links); "See why" leads to the Results page, where each reason is linked.
+   */
+  protected readonly verdictDetail = computed(() => {
+    const state = this.store.results();
+    if (state.status === 'incomplete') return 'the results cannot be computed yet';
+    if (state.status !== 'ready') return '';
+    const result = state.result;
+    if (result.verdict === 'does-not-comply') return reasonTitles(result);
+    const open = result.openItems.spacesWithoutLuminaires;
+    return `${open === 1 ? '1 space' : `${open} spaces`} without luminaires`;
   });
 
   constructor() {

@@ -1,0 +1,231 @@
+/**
+ * How a code-table value is cited to the people who read it: a short citation (edition, table or
+ * section, and what kind of text it rests on) and the row's note in plain words. The reference
+ * files carry provenance for the people who maintain them (tags such as [S-ed], "FLAG:", dataset
+ * paths, links); none of that reaches a screen.
+ */
+
+/**
+ * What a value rests on: the model code's own table or text; another edition's or a state's text
+ * standing in for it; how public modelling data reads the rule; or nothing checked yet.
+ */
+export type CitationLayer = 'model-code' | 'other-edition-or-state' | 'modelling-dataset' | 'not-checked';
+
+export interface Citation {
+  /** E.g. "IECC 2021 Table C405.3.2(2) — model code". */
+  short: string;
+  layer: CitationLayer;
+  /** Checked against a published source; the "verify" badge shows where this is false. */
+  checked: boolean;
+  /** The row's note in words, for those who ask; null when it says nothing the short citation does not. */
+  note: string | null;
+}
+
+export interface CitationInput {
+  /** The edition as people name it, e.g. "IECC 2021" (see `editionName`). */
+  edition: string;
+  /** The table or section the value belongs to, e.g. "Table C405.3.2(2)" or "C405.2.1"; empty when unknown. */
+  reference: string;
+  source: string;
+  confidence: string;
+  /** The reference files' provenance tag, where the row has one: [S], [S-ed], [I] or [M]. */
+  tag?: string | null;
+  verified: boolean;
+  note?: string | null;
+  /** What the row recalls from memory, kept apart from its note in the files. */
+  fromMemory?: string | null;
+}
+
+const notChecked = 'not yet checked against the printed code';
+
+/** "IECC 2021", "ASHRAE 90.1-2019": the names engineers write beside a value. */
+export function editionName(family: 'iecc' | 'ashrae-90.1', year: number): string {
+  return family === 'iecc' ? `IECC ${year}` : `ASHRAE 90.1-${year}`;
+}
+
+const statePatterns: [RegExp, string][] = [
+  [/washington|leg\.wa\.gov|\bWSEC\b|\bWAC\b/i, 'Washington'],
+  [/colorado/i, 'Colorado'],
+  [/massachusetts/i, 'Massachusetts'],
+  [/oregon/i, 'Oregon'],
+  [/district[- ]of[- ]columbia|\bDC 12-/i, 'District of Columbia'],
+];
+
+const secondaryPattern = /secondary summary|manufacturer|forum|blog|leeduser|mikeholt|squarespace|aiadallas|hortoncontrols|mhcompanies/i;
+
+function layerOf(input: CitationInput): CitationLayer {
+  const tag = input.tag?.trim() ?? '';
+  const confidence = input.confidence.trim().toLowerCase();
+  const note = `${input.note ?? ''} ${input.fromMemory ?? ''}`;
+  if (tag === '[M]' || /^(from memory|not found)/i.test(input.source.trim()) || ['from memory', 'none', 'not sourced'].includes(confidence)) return 'not-checked';
+  if (tag === '[I]' || confidence === 'interpretation' || (tag === '' && /\[I\]/.test(note))) return 'modelling-dataset';
+  if (tag === '[S-ed]' || otherEditionCited(input) !== null || statePatterns.some(([pattern]) => pattern.test(input.source)) || secondaryPattern.test(input.source) || (tag === '' && /\[S-ed\]/.test(note))) {
+    return 'other-edition-or-state';
+  }
+  return 'model-code';
+}
+
+/** The other edition a row's own source annotation names ("From 90.1-2013 Section 9.6.2" on a 90.1-2019 row), if any. */
+function otherEditionCited(input: CitationInput): string | null {
+  const cited = /From\s+((?:ASHRAE\s+)?90\.1-\d{4}|IECC-?\s?\d{4})/.exec(input.note ?? '')?.[1];
+  const year = cited?.slice(-4);
+  return cited && year && !input.edition.includes(year) ? cited.replace(/^IECC-?\s?/, 'IECC ') : null;
+}
+
+/** Where a value stands in, which text it stands on: a named state, a secondary summary, or another edition. */
+function standInWords(input: CitationInput): string {
+  const state = statePatterns.find(([pattern]) => pattern.test(input.source) || pattern.test(input.note ?? ''));
+  if (state) return `${state[1]} state text standing in for the model code`;
+  if (secondaryPattern.test(input.source)) return 'a secondary summary of the code, not its text';
+  const other = otherEditionCited(input);
+  if (other) return `${other} text standing in for this edition`;
+  return "another edition's text standing in for this one";
+}
+
+function layerWords(layer: CitationLayer, input: CitationInput): string {
+  switch (layer) {
+    case 'model-code':
+      return 'model code';
+    case 'other-edition-or-state':
+      return standInWords(input);
+    case 'modelling-dataset':
+      return 'as a public modelling dataset reads the rule';
+    case 'not-checked':
+      return notChecked;
+  }
+}
+
+/** "Table 9.6.1" stays as it is; a bare section number reads "Section 9.4.1.1(e)". */
+function referenceWords(reference: string): string {
+  const trimmed = reference.trim();
+  if (trimmed === '' || trimmed === 'none') return '';
+  return /^(Table|Tables|Section|§)/i.test(trimmed) ? trimmed : `Section ${trimmed}`;
+}
+
+/**
+ * The table a row's own source annotation names together with an edition ("From IECC-2021 Table
+ * C405.3.2(2)", "ASHRAE 90.1-2022 Table 9.5.2.1-1/9.5.2.1-2"); `fallback` where it names none.
+ */
+export function referenceOf(note: string | null | undefined, fallback: string): string {
+  const match = /(?:From\s+(?:ASHRAE\s+)?(?:90\.1|IECC)-?\s?\d{4}\s+|ASHRAE\s+90\.1-\d{4}\s+)(Tables?\s+[0-9A-Z][0-9A-Za-z.\-()/]*[0-9A-Za-z)])/.exec(note ?? '');
+  return match?.[1] ?? fallback;
+}
+
+/** Splits a note at " | " where it is not inside parentheses or quotes (quoted row labels use the same bar). */
+function segments(note: string): string[] {
+  const parts: string[] = [];
+  let depth = 0;
+  let quoted = false;
+  let start = 0;
+  for (let index = 0; index < note.length; index++) {
+    const char = note[index];
+    if (char === '"') quoted = !quoted;
+    else if (char === '(') depth++;
+    else if (char === ')') depth = Math.max(0, depth - 1);
+    else if (char === '|' && depth === 0 && !quoted && note[index - 1] === ' ' && note[index + 1] === ' ') {
+      parts.push(note.slice(start, index - 1));
+      start = index + 2;
+    }
+  }
+  parts.push(note.slice(start));
+  return parts.map((part) => part.trim()).filter(Boolean);
+}
+
+/** Rewrites of the maintainers' shorthand, applied in order to each part of a note. */
+type Rewrite = [RegExp, string | ((match: string, ...groups: string[]) => string)];
+
+const rewrites: Rewrite[] = [
+  // Links and dataset paths: the short citation says where a value comes from in words.
+  [/\s*\([^()]*(?:SOURCES\.md|shared\/reference-data)[^()]*\)/g, ''],
+  [/https?:\/\/[^\s,;)]+/g, ''],
+  [/\s+on up\.codes\b/g, ''],
+  [/\(\s*,\s*/g, '('],
+  [/\(\s*\)/g, ''],
+  [/github:\S+/g, 'public modelling code'],
+  [/\s*\(revised in BESD PR #\d+\)/g, ''],
+  [/\bBESD PR #\d+\b/g, 'a public modelling dataset'],
+  [/the BESD row/g, 'the public modelling dataset’s row'],
+  [/\bBESD\b/g, 'the public modelling dataset'],
+  [/the PNNL rule-checking code/g, 'public rule-checking code'],
+  [/PNNL's Appendix G modelling flag manon_or_partauto/g, 'a public modelling dataset’s Appendix G flag for manual-on or partial automatic-on'],
+  [/\(row ([^()|]+?) \| ([^()]+?) \| flag=1\)/g, '(its row “$1, $2” is flagged)'],
+  [/\bflag=1\b/g, 'flagged'],
+  [/^openstudio-standards CSV annotation:\s*/i, 'A public modelling dataset notes: '],
+  [/^source annotation:\s*From\s+/i, 'The public transcription cites '],
+  [/^source annotates this row/i, 'The public transcription gives this row as'],
+  [/^FLAG:\s*/, 'To verify: '],
+  [/^Tables? [^,]+ column, /, 'From the control columns of '],
+  [/^(equal to|DIFFERS from) (ASHRAE 90\.1-\d{4}) row "([^"|]+?) \| ([^"]+?)\s*" = ([\d.]+)$/, (_match: string, relation: string, edition: string, type: string, part: string, value: string) =>
+    `${relation === 'equal to' ? 'The same value as' : 'Differs from'} the ${edition} row “${type.trim()} — ${part.trim()}” (${value})`],
+  [/^SOURCES\.md "Rows to verify":\s*/, 'To verify: '],
+  [/^interpretation — verify: YES \(b\/c ADD1 likely\), from/, 'An interpretation to verify: likely required (column (b) or (c), at least one of group ADD1), from'],
+  [/modelling proxy: NO_PROXY \(no matching Table G3\.7 row in the source\)/g, 'no modelling proxy either (no matching Table G3.7 row)'],
+  [/modelling proxy: NO \(b and c likely blank\)/g, 'the modelling proxy reads it as not required (columns (b) and (c) likely blank)'],
+  [/\bNOT\b/g, 'not'],
+  [/\bDIFFERS\b/g, 'differs'],
+  [/\bREQ\b/g, 'required'],
+  [/\brcr_threshold\b/g, 'RCR threshold'],
+  [/\s*\(same source repo\)/g, ''],
+  [/\s*\(same lineage\)/g, ''],
+  // Provenance tags: a tag with a detail keeps the detail in words, a bare tag goes.
+  [/\[(?:S|S-ed|I|M),\s*([^\]]+)\]/g, '($1)'],
+  [/\s*\[(?:S|S-ed|I|M)\]\s*/g, ' '],
+  // "[from memory, unverified; may not exist …]": the words after the semicolon are the doubt to check.
+  [/\[from memory(?:, unverified)?;\s*([^\]]+)\]/gi, '($1)'],
+  [/\[from memory[^\]]*\]/gi, `(${notChecked})`],
+  [/^from memory:\s*/i, `Not yet checked against the printed code: `],
+  [/\(from memory\)/gi, `(${notChecked})`],
+  [/\bfrom memory\b/gi, notChecked],
+];
+
+/** Parts that only trace a row through other datasets or the files' history: nothing a reader acts on. */
+const droppedParts = [/^(LPD )?equal in github:/, /^values identical to github:/, /^source history:/, /^[a-z]+[A-Z]\w* \[(?:S|S-ed|I|M)\]/];
+
+function sentence(part: string): string {
+  const trimmed = part.replace(/\s{2,}/g, ' ').replace(/\s+([,;.:)])/g, '$1').trim();
+  if (trimmed === '') return '';
+  const capital = trimmed[0]!.toUpperCase() + trimmed.slice(1);
+  return /[.!?]["”)]?$/.test(capital) ? capital : `${capital}.`;
+}
+
+/**
+ * A row's note (and its from-memory text) in words: no provenance tags, "FLAG:", "source
+ * annotation:", SOURCES.md pointers, dataset paths or links; "from memory" reads "not yet checked
+ * against the printed code". Null when nothing is left to say.
+ */
+export function cleanNote(note: string | null | undefined, fromMemory?: string | null): string | null {
+  const raw = [...segments(note ?? '')];
+  if (fromMemory?.trim()) raw.push(`from memory: ${fromMemory.trim().replace(/^\[M\]\s*/, '')}`);
+  const flagged = raw.some((part) => part.startsWith('FLAG:'));
+  const parts: string[] = [];
+  for (const part of raw) {
+    // A "rows to verify" pointer repeats a flag the note already gives.
+    if (flagged && part.startsWith('SOURCES.md')) continue;
+    if (droppedParts.some((pattern) => pattern.test(part))) continue;
+    let text = part;
+    for (const [pattern, replacement] of rewrites) text = typeof replacement === 'string' ? text.replace(pattern, replacement) : text.replace(pattern, replacement);
+    const words = sentence(text);
+    if (words !== '' && !parts.includes(words)) parts.push(words);
+  }
+  return parts.length === 0 ? null : parts.join(' ');
+}
+
+/**
+ * A table's own text (a label or a definition) without the provenance the files append to it in
+ * brackets ("[from memory, unverified; …]"): the row's citation says that, in words.
+ */
+export function withoutProvenance(text: string): string {
+  return text.replace(/\s*\[(?:from memory|S|S-ed|I|M)\b[^\]]*\]/gi, '').trim();
+}
+
+/** The citation of one row, from its edition, its table or section and its provenance. */
+export function citationOf(input: CitationInput): Citation {
+  const layer = layerOf(input);
+  const where = [input.edition, referenceWords(input.reference)].filter(Boolean).join(' ');
+  return {
+    short: `${where} — ${layerWords(layer, input)}`,
+    layer,
+    checked: input.verified && layer !== 'not-checked',
+    note: cleanNote(input.note, input.fromMemory),
+  };
+}

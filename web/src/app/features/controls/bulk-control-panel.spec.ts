@@ -1,0 +1,175 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+import type { ControlStrategyView, EvaluationResult, ProjectDetail, SpaceRecord, SpaceTypeView } from '../../core/api/api-types';
+import { apiInterceptor } from '../../core/http/api-interceptor';
+import { controlLine, evaluation, spaceResult } from '../results/results-fixture';
+import { ProjectStore } from '../workspace/project-store';
+import { BulkControlPanel } from './bulk-control-panel';
+
+// Invented fire station: three bunk rooms on two levels and an office.
+const project = { id: 'p1', name: 'Fire Station 4', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', units: 'si', version: 1, members: [] } as unknown as ProjectDetail;
+
+function space(id: string, name: string, level: string, spaceType: string, version = 1): SpaceRecord {
+  return { id, name, level, position: 1, area: '20', spaceType, luminaires: [], controls: [], windows: [], skylights: [], version, updatedAt: '', updatedBy: null };
+}
+
+const spaces = [space('b1', 'Bunk 1', 'Level 2', 'dormitory'), space('b2', 'Bunk 2', 'Level 2', 'dormitory'), space('b3', 'Bunk 3', 'Level 1', 'dormitory'), space('o1', 'Office', 'Level 1', 'office-enclosed')];
+const spaceTypes = [
+  { key: 'dormitory', label: 'Dormitory — Living quarters', verified: true },
+  { key: 'office-enclosed', label: 'Office — Enclosed', verified: true },
+] as SpaceTypeView[];
+// IECC 2021 C405.2.2 (as the reference data holds it, [S-ed] Washington text): one override serves at most 5,000 ft².
+const strategies = [
+  { key: 'occupant-sensor', label: 'Occupant sensor', section: 'C405.2.1', parameters: { timeoutMinutes: '20' } },
+  { key: 'time-switch', label: 'Time-switch control', section: 'C405.2.2', parameters: { zoneSizeLimitFt2: '5000' } },
+] as unknown as ControlStrategyView[];
+
+const result: EvaluationResult = {
+  ...evaluation(),
+  interior: {
+    ...evaluation().interior,
+    spaces: spaces.map((entry) =>
+      spaceResult({
+        id: entry.id,
+        name: entry.name,
+        controls: [controlLine({ status: 'not-required', met: null }), controlLine({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false })],
+      }),
+    ),
+  },
+};
+
+describe('BulkControlPanel', () => {
+  let fixture: ComponentFixture<BulkControlPanel>;
+  let element: HTMLElement;
+  let store: ProjectStore;
+  let http: HttpTestingController;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      imports: [BulkControlPanel],
+      providers: [provideZonelessChangeDetection(), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting(), provideRouter([]), ProjectStore],
+    });
+    store = TestBed.inject(ProjectStore);
+    http = TestBed.inject(HttpTestingController);
+    store.project.set(project);
+    store.spaces.set(spaces);
+    store.tables.set({ spaceTypes, buildingAreaTypes: [], controlStrategies: strategies, exteriorApplications: [], lightingZones: [] });
+    store.results.set({ status: 'ready', result });
+    fixture = TestBed.createComponent(BulkControlPanel);
+    element = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+    element.querySelector<HTMLElement>('mat-expansion-panel-header')!.click();
+    await fixture.whenStable();
+  });
+
+  const checkbox = (label: string) =>
+    Array.from(element.querySelectorAll<HTMLElement>('mat-checkbox')).find((box) => box.textContent?.includes(label))!.querySelector<HTMLInputElement>('input')!;
+
+  async function choose(label: string, option: string): Promise<void> {
+    const field = Array.from(element.querySelectorAll('mat-form-field')).find((entry) => entry.querySelector('mat-label')?.textContent?.trim() === label)!;
+    field.querySelector<HTMLElement>('mat-select')!.click();
+    await fixture.whenStable();
+    Array.from(document.querySelectorAll<HTMLElement>('mat-option')).find((entry) => entry.textContent?.includes(option))!.click();
+    await fixture.whenStable();
+  }
+
+  async function fill(label: string, value: string): Promise<void> {
+    const field = Array.from(element.querySelectorAll('mat-form-field')).find((entry) => entry.querySelector('mat-label')?.textContent?.trim().startsWith(label))!;
+    const input = field.querySelector<HTMLInputElement>('input')!;
+    input.value = value;
+    input.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+  }
+
+  const submit = async () => {
+    element.querySelector<HTMLButtonElement>('form.record button[type="submit"]')!.click();
+    await fixture.whenStable();
+  };
+
+  it('chooses spaces by type, level or name, and all those shown at once', async () => {
+    await choose('Space type', 'Dormitory — Living quarters');
+    await choose('Level', 'Level 2');
+    expect(Array.from(element.querySelectorAll('.choices li')).map((item) => item.textContent?.replace(/\s+/g, ' ').trim())).toEqual([
+      'Bunk 1Dormitory — Living quarters · Level 2',
+      'Bunk 2Dormitory — Living quarters · Level 2',
+    ]);
+    checkbox('Select all shown').click();
+    await fixture.whenStable();
+    expect(element.textContent).toContain('2 spaces chosen');
+    await choose('Level', 'Any level');
+    await fill('Find spaces', 'bunk 3');
+    checkbox('Bunk 3').click();
+    await fixture.whenStable();
+    expect(element.textContent).toContain('3 spaces chosen');
+    expect(element.querySelector('button[type="submit"]')?.textContent?.trim()).toBe('Record on 3 spaces');
+  });
+
+  it('records one provided control on every chosen space in one request, in the project units, and the store follows', async () => {
+    checkbox('Select all shown').click();
+    await choose('Control', 'Time-switch control');
+    // An SI project reads the limit in m²: 5,000 ft² × 0.09290304 m²/ft² (exact) = 464.5 m².
+    expect(element.textContent).toContain('At most 464.5 m² per device');
+    expect(element.textContent).not.toContain('ft²');
+    await fill('Device', 'Panel schedule');
+    await fill('Zone size', '400');
+    await submit();
+    const request = http.expectOne((entry) => entry.method === 'POST' && entry.url === '/api/projects/p1/spaces/controls');
+    expect(request.request.body).toEqual({
+      spaces: spaces.map((entry) => ({ id: entry.id, version: 1 })),
+      control: { strategy: 'time-switch', provided: true, device: 'Panel schedule', zoneSize: '400' },
+    });
+    const saved = spaces.map((entry) => ({ ...entry, version: 2, controls: [request.request.body.control] }));
+    request.flush(saved);
+    await fixture.whenStable();
+    expect(store.spaces().map((entry) => [entry.id, entry.version, entry.controls.length])).toEqual(spaces.map((entry) => [entry.id, 2, 1]));
+    expect(element.querySelector('[data-testid="bulk-done"]')?.textContent).toContain('“Time-switch control” recorded as provided on 4 spaces.');
+  });
+
+  it('records the same exception with its reason', async () => {
+    checkbox('Bunk 1').click();
+    await choose('Control', 'Occupant sensor');
+    Array.from(element.querySelectorAll<HTMLElement>('mat-radio-button'))
+      .find((radio) => radio.textContent?.includes('Exception claimed'))!
+      .querySelector<HTMLInputElement>('input')!
+      .click();
+    await fixture.whenStable();
+    expect(element.textContent).not.toContain('Not provided');
+    await choose('Exception', 'Another exception');
+    await submit();
+    http.expectNone('/api/projects/p1/spaces/controls');
+    expect(element.textContent).toContain('Say which exception is claimed.');
+    await fill('Note', 'Invented reason for the test');
+    await submit();
+    const request = http.expectOne('/api/projects/p1/spaces/controls');
+    expect(request.request.body.control).toEqual({ strategy: 'occupant-sensor', provided: false, exceptionReason: 'other', exceptionNote: 'Invented reason for the test' });
+    request.flush([{ ...spaces[0], version: 2 }]);
+  });
+
+  it('names the spaces someone changed meanwhile, records nothing, and reads the spaces again on Reload', async () => {
+    checkbox('Select all shown').click();
+    await choose('Control', 'Time-switch control');
+    await submit();
+    http
+      .expectOne('/api/projects/p1/spaces/controls')
+      .flush(
+        { error: { code: 'conflict', message: '1 of these spaces changed since you read them (Bunk 3). Reload and apply the control again.', details: [{ path: 'spaces.2', message: '“Bunk 3” changed since you read it.' }] } },
+        { status: 409, statusText: 'Conflict' },
+      );
+    await fixture.whenStable();
+    const stale = element.querySelector('[data-testid="bulk-stale"]')!;
+    expect(stale.getAttribute('role')).toBe('alert');
+    expect(stale.textContent).toContain('Nothing was recorded: this space was changed by someone else since you read it: Bunk 3.');
+    expect(store.spaces().every((entry) => entry.version === 1)).toBe(true);
+    Array.from(stale.querySelectorAll('button')).find((button) => button.textContent?.includes('Reload'))!.click();
+    http.expectOne((entry) => entry.method === 'GET' && entry.url === '/api/projects/p1/spaces').flush(spaces.map((entry) => (entry.id === 'b3' ? { ...entry, version: 3 } : entry)));
+    await fixture.whenStable();
+    expect(store.spaces().find((entry) => entry.id === 'b3')?.version).toBe(3);
+    expect(element.querySelector('[data-testid="bulk-stale"]')).toBeNull();
+    // The choice stays, so the next try sends the fresh version.
+    await submit();
+    expect(http.expectOne('/api/projects/p1/spaces/controls').request.body.spaces[2]).toEqual({ id: 'b3', version: 3 });
+  });
+});
