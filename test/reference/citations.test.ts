@@ -138,4 +138,12 @@ describe('citations of the code tables', () => {
     expect(cleanNote('read from the toplit text (https://example.org/a, Colorado 2015) [S-ed]')).toBe('Read from the toplit text (Colorado 2015).');
     expect(cleanNote('')).toBeNull();
   });
+
+  it('decide the kind of source by the row’s tag first', () => {
+    // An invented row: another edition's modelling reading, tagged [S-ed], with the confidence of an interpretation.
+    const reading = { edition: 'ASHRAE 90.1-2010', reference: '9.4.1.1(e)', source: 'github:owner/code@1234567:space.rb', confidence: 'interpretation', verified: false };
+    expect(citationOf({ ...reading, tag: '[S-ed]' })).toMatchObject({ layer: 'other-edition-or-state', short: "ASHRAE 90.1-2010 Section 9.4.1.1(e) — another edition's modelling reading standing in for this one" });
+    expect(citationOf({ ...reading, tag: null }).layer).toBe('modelling-dataset');
+    expect(citationOf({ ...reading, tag: '[M]' }).layer).toBe('not-checked');
+  });
 });

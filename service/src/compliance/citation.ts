@@ -51,15 +51,22 @@ const statePatterns: [RegExp, string][] = [
   [/district[- ]of[- ]columbia|\bDC 12-/i, 'District of Columbia'],
 ];
 
+/** Sources that are modelling or rule-checking code, not the text of a code. */
+const modellingSourcePattern = /openstudio-standards|ConStrain|ruleset-checking|\.rb\b/i;
+
 const secondaryPattern = /secondary summary|manufacturer|forum|blog|leeduser|mikeholt|squarespace|aiadallas|hortoncontrols|mhcompanies/i;
 
 function layerOf(input: CitationInput): CitationLayer {
   const tag = input.tag?.trim() ?? '';
   const confidence = input.confidence.trim().toLowerCase();
   const note = `${input.note ?? ''} ${input.fromMemory ?? ''}`;
-  if (tag === '[M]' || /^(from memory|not found)/i.test(input.source.trim()) || ['from memory', 'none', 'not sourced'].includes(confidence)) return 'not-checked';
-  if (tag === '[I]' || confidence === 'interpretation' || (tag === '' && /\[I\]/.test(note))) return 'modelling-dataset';
-  if (tag === '[S-ed]' || otherEditionCited(input) !== null || statePatterns.some(([pattern]) => pattern.test(input.source)) || secondaryPattern.test(input.source) || (tag === '' && /\[S-ed\]/.test(note))) {
+  // The tag says what the value rests on where the row has one; the source and confidence decide where it has none.
+  if (tag === '[M]') return 'not-checked';
+  if (tag === '[S-ed]') return 'other-edition-or-state';
+  if (tag === '[I]') return 'modelling-dataset';
+  if (/^(from memory|not found)/i.test(input.source.trim()) || ['from memory', 'none', 'not sourced'].includes(confidence)) return 'not-checked';
+  if (confidence === 'interpretation' || (tag === '' && /\[I\]/.test(note))) return 'modelling-dataset';
+  if (otherEditionCited(input) !== null || statePatterns.some(([pattern]) => pattern.test(input.source)) || secondaryPattern.test(input.source) || (tag === '' && /\[S-ed\]/.test(note))) {
     return 'other-edition-or-state';
   }
   return 'model-code';
@@ -74,9 +81,14 @@ function otherEditionCited(input: CitationInput): string | null {
 
 /** Where a value stands in, which text it stands on: a named state, a secondary summary, or another edition. */
 function standInWords(input: CitationInput): string {
-  const state = statePatterns.find(([pattern]) => pattern.test(input.source) || pattern.test(input.note ?? ''));
-  if (state) return `${state[1]} state text standing in for the model code`;
+  const stateOf = (text: string) => statePatterns.find(([pattern]) => pattern.test(text))?.[1];
+  const sourceState = stateOf(input.source);
+  if (sourceState) return `${sourceState} state text standing in for the model code`;
   if (secondaryPattern.test(input.source)) return 'a secondary summary of the code, not its text';
+  // Another edition as modelling code reads it (a state named in the note then qualifies a detail, not the value).
+  if (input.confidence.trim().toLowerCase() === 'interpretation' || modellingSourcePattern.test(input.source)) return "another edition's modelling reading standing in for this one";
+  const noteState = stateOf(input.note ?? '');
+  if (noteState) return `${noteState} state text standing in for the model code`;
   const other = otherEditionCited(input);
   if (other) return `${other} text standing in for this edition`;
   return "another edition's text standing in for this one";
