@@ -11,7 +11,7 @@ import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { WriteFailure } from '../../shared/conflict';
 import { ProjectApi } from '../projects/project-api';
 import { stateLabels } from '../projects/project-states';
-import { reasonTitles } from '../results/verdict-reasons';
+import { openItemWords, reasonTitles } from '../results/verdict-reasons';
 import { ProjectStore } from './project-store';
 
 interface WorkspaceArea {
@@ -68,8 +68,7 @@ export class WorkspacePage {
     if (state.status !== 'ready') return '';
     const result = state.result;
     if (result.verdict === 'does-not-comply') return reasonTitles(result);
-    const open = result.openItems.spacesWithoutLuminaires;
-    return `${open === 1 ? '1 space' : `${open} spaces`} without luminaires`;
+    return openItemWords(result);
   });
 
   constructor() {
