@@ -63,11 +63,14 @@ describe('results in words', { timeout: 90_000 }, () => {
       `/api/projects/${projectId}/exterior-applications`,
     );
     const parking = applications.find((application) => application.key === 'parking-lots-and-drives')!;
-    const { id, version, ...input } = parking;
+    const { id, version, key, description, quantity, installedWatts, controls } = parking;
     await api(page, 'put', `/api/projects/${projectId}/exterior-applications/${id}`, {
-      ...input,
+      key,
+      description,
+      quantity,
+      installedWatts,
       version,
-      controls: input.controls.filter((control) => control.strategy !== 'exterior-daylight-off'),
+      controls: controls.filter((control) => control.strategy !== 'exterior-daylight-off'),
     });
 
     await page.goto(`${served.baseUrl}/projects/${projectId}/results`);

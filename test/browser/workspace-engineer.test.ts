@@ -177,10 +177,9 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     const spaces = (await (await page.request.get(`${projectUrl.replace('/projects/', '/api/projects/')}/spaces`)).json()) as { id: string; name: string; version: number }[];
     const sensor = (autoOn: string) => ({ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn, device: 'Ceiling occupant sensor' });
     const controls: Record<string, unknown[]> = {
-      // Invented devices; each reduction recorded, as the requirements now ask how far the lighting is reduced.
-      'Harbour office': [sensor('manual'), { strategy: 'light-reduction', provided: true, device: 'Dimming wall station', reductionPercent: '50' }],
+      'Harbour office': [sensor('manual'), { strategy: 'light-reduction', provided: true, reductionPercent: '90', device: 'Dimming wall station' }],
       'Net store': [sensor('manual')],
-      'Pier corridor': [sensor('full'), { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', device: '50 % step when vacant', reductionPercent: '50' }],
+      'Pier corridor': [sensor('full'), { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '50', device: '50 % step when vacant' }],
     };
     for (const space of spaces) {
       const response = await page.request.patch(`${projectUrl.replace('/projects/', '/api/projects/')}/spaces/${space.id}`, {

@@ -13,8 +13,8 @@ const roomsFor = (type: string, area: number) => (type === 'office-enclosed-smal
 const spaceArbitrary = fc.record({
   type: fc.constantFrom(...spaceTypes),
   area: fc.integer({ min: 50, max: 20000 }),
-  length: fc.integer({ min: 5, max: 200 }),
-  width: fc.integer({ min: 5, max: 200 }),
+  length: fc.integer({ min: 10, max: 200 }),
+  width: fc.integer({ min: 10, max: 200 }),
   ceiling: fc.integer({ min: 8, max: 30 }),
   count: fc.integer({ min: 0, max: 200 }),
   watts: fc.integer({ min: 1, max: 400 }),

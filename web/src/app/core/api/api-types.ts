@@ -508,7 +508,7 @@ export interface EvaluationResult {
   units: UnitSystem;
   complies: boolean;
   verdict: Verdict;
-  openItems: { spacesWithoutLuminaires: number };
+  openItems: { spacesWithoutLuminaires: number; controlsToVerify: number };
   interior: InteriorResult;
   exterior: ExteriorResult | null;
   controlsComply: boolean;

@@ -81,7 +81,7 @@ export function evaluation(): EvaluationResult {
     units: 'ip',
     complies: false,
     verdict: 'does-not-comply',
-    openItems: { spacesWithoutLuminaires: 0 },
+    openItems: { spacesWithoutLuminaires: 0, controlsToVerify: 0 },
     interior: {
       section: 'C405.3.2.2',
       area: '1500',

@@ -119,7 +119,7 @@ describe('ResultsSummary', () => {
     result.complies = false;
     result.controlsComply = true;
     result.interior.spaces = [result.interior.spaces[0], { ...result.interior.spaces[1], controls: [], lighting: 'none-entered', installedW: '0', marginW: '500', marginPct: '100', withinAllowance: true }];
-    result.openItems = { spacesWithoutLuminaires: 1 };
+    result.openItems = { spacesWithoutLuminaires: 1, controlsToVerify: 0 };
     fixture.componentRef.setInput('result', result);
     fixture.componentRef.setInput('canEdit', true);
     await fixture.whenStable();
@@ -132,6 +132,23 @@ describe('ResultsSummary', () => {
     fixture.componentInstance.confirmUnlit.subscribe((id) => confirmed.push(id));
     Array.from(item.querySelectorAll('button')).find((button) => button.textContent?.includes('Confirm unlit'))!.click();
     expect(confirmed).toEqual(['s2']);
+  });
+
+  it('lists each control still to verify, linked to the space on the Controls page', async () => {
+    const result = evaluation();
+    result.verdict = 'incomplete';
+    result.complies = false;
+    result.controlsComply = true;
+    const open = { ...result.interior.spaces[0].controls[0], status: 'to-verify' as const, met: null, label: 'Occupant sensor control', reason: 'To verify: whether the room is enclosed is not recorded.' };
+    result.interior.spaces = [{ ...result.interior.spaces[0], controls: [open] }];
+    result.openItems = { spacesWithoutLuminaires: 0, controlsToVerify: 1 };
+    fixture.componentRef.setInput('result', result);
+    await fixture.whenStable();
+    expect(text('.verdict')).toContain('Design incomplete: no verdict yet (1 control to verify)');
+    const item = element.querySelector('[data-testid="open-controls"] li')!;
+    expect(item.querySelector('a')?.getAttribute('href')).toContain('controls?space=s1');
+    expect(item.textContent).toContain('Occupant sensor control');
+    expect(item.textContent).toContain('whether the room is enclosed is not recorded');
   });
 
   it('shows each level with its status, the excess in watts where over', () => {

@@ -12,7 +12,7 @@ import type { WorkspaceLink } from '../../shared/problem-words';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { outstandingLines, requirementWords, statusView } from '../controls/control-status';
 import { exteriorGroups } from '../exterior/exterior-groups';
-import { spacesWithoutLuminaires, verdictReasons } from './verdict-reasons';
+import { controlsToVerify, openItemWords, spacesWithoutLuminaires, verdictReasons } from './verdict-reasons';
 
 export interface UnmetLine {
   key: string;
@@ -70,4 +70,6 @@ export class ResultsSummary {
   protected readonly unmet = computed(() => unmetControls(this.result()));
   protected readonly reasons = computed(() => verdictReasons(this.result()));
   protected readonly openSpaces = computed(() => spacesWithoutLuminaires(this.result()));
+  protected readonly openControls = computed(() => controlsToVerify(this.result()));
+  protected readonly openWords = computed(() => openItemWords(this.result()));
 }

@@ -88,6 +88,40 @@ export function spacesWithoutLuminaires(result: EvaluationResult): SpaceResult[]
   return result.interior.spaces.filter((space) => space.lighting === 'none-entered');
 }
 
+/** A control requirement the verdict waits for: provided, or checked against the adopted code, settles it. */
+export interface OpenControl {
+  spaceId: string | null;
+  place: string;
+  control: string;
+  reason: string;
+}
+
+/**
+ * The control lines marked "to verify" that hold the verdict back. A space without luminaires
+ * waits as a whole, so its lines are not listed again here.
+ */
+export function controlsToVerify(result: EvaluationResult): OpenControl[] {
+  const interior = result.interior.spaces
+    .filter((space) => space.lighting !== 'none-entered')
+    .flatMap((space) => space.controls.filter((line) => line.status === 'to-verify').map((line) => ({ spaceId: space.id, place: space.name, control: line.label, reason: line.reason })));
+  const exterior = (result.exterior?.applications ?? []).flatMap((application) =>
+    application.controls.filter((line) => line.status === 'to-verify').map((line) => ({ spaceId: null, place: application.label, control: line.label, reason: line.reason })),
+  );
+  return [...interior, ...exterior];
+}
+
+/** Why an incomplete design has no verdict, in a few words. */
+export function openItemWords(result: EvaluationResult): string {
+  const spaces = result.openItems.spacesWithoutLuminaires;
+  const controls = result.openItems.controlsToVerify;
+  return [
+    spaces > 0 ? `${spaces === 1 ? '1 space' : `${spaces} spaces`} without luminaires` : '',
+    controls > 0 ? `${controls === 1 ? '1 control' : `${controls} controls`} to verify` : '',
+  ]
+    .filter(Boolean)
+    .join(', ');
+}
+
 /** The verdict's reasons in a few words, for the workspace's side panel. */
 export function reasonTitles(result: EvaluationResult): string {
   return verdictReasons(result)

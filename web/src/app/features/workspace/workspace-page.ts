@@ -18,7 +18,7 @@ import { narrowScreen, phoneScreen, screenMatches } from '../../shared/media-que
 import { openCopyDialog } from '../projects/copy-project-dialog';
 import { ProjectApi } from '../projects/project-api';
 import { stateLabels } from '../projects/project-states';
-import { reasonTitles } from '../results/verdict-reasons';
+import { openItemWords, reasonTitles } from '../results/verdict-reasons';
 import { ProjectStore } from './project-store';
 
 interface WorkspaceArea {
@@ -98,8 +98,7 @@ export class WorkspacePage {
     if (state.status !== 'ready') return '';
     const result = state.result;
     if (result.verdict === 'does-not-comply') return reasonTitles(result);
-    const open = result.openItems.spacesWithoutLuminaires;
-    return `${open === 1 ? '1 space' : `${open} spaces`} without luminaires`;
+    return openItemWords(result);
   });
 
   constructor() {
