@@ -12,6 +12,7 @@ import type { Database } from './db/database.js';
 import { healthRouter } from './health/health.routes.js';
 import { historyRouter } from './history/history.routes.js';
 import { errorHandler, notFoundHandler } from './http/error-handler.js';
+import { exactJsonBody } from './http/json-body.js';
 import { hstsWhenSecure, noStore, permissionsPolicy } from './http/security-headers.js';
 import { readSession, requireSignIn } from './http/session.js';
 import { projectsRouter } from './projects/projects.routes.js';
@@ -57,7 +58,7 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
       redact: ['req.headers.cookie', 'req.headers.authorization', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'],
     }),
   );
-  app.use(express.json({ limit: config.JSON_BODY_LIMIT }));
+  app.use(exactJsonBody(config.JSON_BODY_LIMIT));
   app.use(cookieParser());
 
   const api = express.Router();

@@ -137,3 +137,28 @@ describe('while PostgreSQL is unreachable', () => {
     }
   });
 });
+
+describe('numbers in a JSON body', () => {
+  it('are read as written, not through a binary float', async () => {
+    // 1.0000000000000001 is 1 as a double (IEEE 754 binary64: 53-bit significand); the bounds keep 20 decimal places.
+    const area = await write('post', `/api/projects/${projectId}/spaces`)
+      .set('Content-Type', 'application/json')
+      .send('{"name": "Exact room", "spaceType": "office-enclosed", "area": 120.0000000000000001}');
+    expect(area.status).toBe(201);
+    expect(area.body.area).toBe('120.0000000000000001');
+    // 9007199254740993 = 2^53 + 1, which a double rounds to 2^53: the count's range message is about the number sent.
+    const count = await write('post', `/api/projects/${projectId}/spaces`)
+      .set('Content-Type', 'application/json')
+      .send('{"name": "Big count", "spaceType": "office-enclosed", "area": 100, "luminaires": [{"tag": "R1", "count": 9007199254740993}]}');
+    expect(count.status).toBe(400);
+    expect(count.body.error.details[0]).toMatchObject({ path: 'luminaires.0.count', message: expect.stringContaining('whole number from 0 to 1,000,000') });
+  });
+
+  it('still refuses a body that is not JSON, and one with a key twice', async () => {
+    const broken = await write('post', `/api/projects/${projectId}/spaces`).set('Content-Type', 'application/json').send('{"name": ');
+    expectErrorShape(broken, 400);
+    expect(broken.body.error.code).toBe('malformed_json');
+    const twice = await write('post', `/api/projects/${projectId}/spaces`).set('Content-Type', 'application/json').send('{"name": "A", "name": "B", "spaceType": "office-enclosed", "area": 10}');
+    expectErrorShape(twice, 400);
+  });
+});
