@@ -66,15 +66,19 @@ class Unverified {
   }
 
   merge(values: readonly UnverifiedValue[]): void {
-    for (const value of values) if (!this.seen.has(value.what)) this.seen.set(value.what, value);
+    for (const value of values) if (!this.seen.has(value.id)) this.seen.set(value.id, value);
   }
 
   values(): UnverifiedValue[] {
     return [...this.seen.values()];
   }
 
+  ids(): string[] {
+    return [...this.seen.keys()];
+  }
+
   private keep(what: string, citation: Citation, key = what): void {
-    this.seen.set(key, { what, source: citation.short, note: citation.note ?? citation.short, citation });
+    this.seen.set(key, { id: key, what, source: citation.short, note: citation.note ?? citation.short, citation });
   }
 }
 
@@ -399,7 +403,7 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       // A "not required" can rest on an unverified threshold just as a requirement can.
       if (strategy) spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance, strategy.section);
       // People know a space by its name; the id only keeps two spaces of the same name apart.
-      if (line.status === 'to-verify') spaceUnverified.unsettled(`${space.name}: ${line.label}`, line.section, line.reason, `${space.id}\u0000${line.strategy}`);
+      if (line.status === 'to-verify') spaceUnverified.unsettled(`${space.name}: ${line.label}`, line.section, line.reason, `${space.id}/${line.strategy}`);
     }
     unverified.merge(spaceUnverified.values());
 
@@ -428,7 +432,7 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       daylight: daylightOut,
       controls,
       exempt: watts.exempt,
-      unverified: spaceUnverified.values(),
+      unverified: spaceUnverified.ids(),
       section: allowanceSection,
       allowance: lighting === 'unlit' ? ZERO : allowance,
       installed,

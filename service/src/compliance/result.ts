@@ -75,6 +75,8 @@ export interface LuminaireLine {
 
 /** A value the evaluation used that is not checked against a published source; every field is in words for people. */
 export interface UnverifiedValue {
+  /** Names the entry within one result; a space's `unverified` lists these. Not for people. */
+  id: string;
   what: string;
   /** The short citation (the same as `citation.short`). */
   source: string;
@@ -115,7 +117,8 @@ export interface SpaceResult {
   daylight: DaylightResult;
   controls: ControlLine[];
   exempt: ExemptLine[];
-  unverified: UnverifiedValue[];
+  /** The ids of the result's `unverifiedValues` this space's figures rest on (each entry is written once, there). */
+  unverified: string[];
   section: string;
 }
 

@@ -28,7 +28,7 @@ const citation = z
     note: z.string().nullable().describe('The source note in words, for those who ask.'),
   })
   .describe('How a code-table value is cited to people.');
-const unverifiedValue = z.strictObject({ what: z.string(), source: z.string(), note: z.string(), citation });
+const unverifiedValue = z.strictObject({ id: z.string(), what: z.string(), source: z.string(), note: z.string(), citation });
 const zoneKind = z.enum(['primary-sidelit', 'secondary-sidelit', 'toplit']);
 
 const daylight = z.strictObject({
@@ -84,7 +84,7 @@ const space = z.strictObject({
   daylight,
   controls: z.array(controlLine),
   exempt: z.array(z.strictObject({ tag: z.string(), count: decimal, watts: decimal, reason: z.string(), section: z.string() })),
-  unverified: z.array(unverifiedValue),
+  unverified: z.array(z.string()),
   section: z.string(),
 });
 

@@ -400,6 +400,8 @@ export interface DaylightResult {
 }
 
 export interface UnverifiedValue {
+  /** Names the entry within one result; a space's `unverified` lists these. */
+  id: string;
   what: string;
   /** The short citation, in words. */
   source: string;
@@ -434,7 +436,8 @@ export interface SpaceResult {
   daylight: DaylightResult;
   controls: ControlLine[];
   exempt: { tag: string; count: string; watts: string; reason: string; section: string }[];
-  unverified: UnverifiedValue[];
+  /** The ids of the result's `unverifiedValues` this space's figures rest on. */
+  unverified: string[];
   section: string;
 }
 

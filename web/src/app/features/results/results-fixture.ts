@@ -6,6 +6,7 @@ import type { ControlLine, EvaluationResult, SpaceResult, UnverifiedValue } from
  */
 /** An unverified value as the service cites it (invented wording). */
 export const invented: UnverifiedValue = {
+  id: 'Invented value',
   what: 'Invented value',
   source: 'IECC 2021 Section C405.9.9 — not yet checked against the printed code',
   note: 'An invented note about 5,000 ft² zones.',
@@ -108,7 +109,7 @@ export function evaluation(): EvaluationResult {
           marginW: '-30',
           marginPct: '-6',
           controls: [controlLine({ strategy: 'light-reduction', label: 'Light-reduction control', status: 'not-met', met: false, section: 'C405.2.3', verified: false })],
-          unverified: [invented],
+          unverified: [invented.id],
         }),
       ],
       levels: [

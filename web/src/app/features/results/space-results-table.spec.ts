@@ -1,6 +1,6 @@
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import { spaceResult } from './results-fixture';
+import { invented, spaceResult } from './results-fixture';
 import { SpaceResultsTable } from './space-results-table';
 
 describe('SpaceResultsTable', () => {
@@ -25,5 +25,20 @@ describe('SpaceResultsTable', () => {
     // The margin and the status stay in view when the table scrolls sideways.
     const sticky = Array.from(element.querySelectorAll('th.mat-mdc-table-sticky')).map((cell) => cell.textContent?.trim());
     expect(sticky).toEqual(expect.arrayContaining(['Space', 'Margin (W)', 'Margin (%)', 'Status']));
+  });
+
+  it('marks a row whose figures rest on an unverified value, named by id in the result’s list', async () => {
+    const fixture = TestBed.createComponent(SpaceResultsTable);
+    const control = { ...invented, id: 'Control strategy: Occupant sensor', what: 'Control strategy: Occupant sensor' };
+    fixture.componentRef.setInput('spaces', [spaceResult({ unverified: [invented.id, control.id] }), spaceResult({ id: 's2', name: 'Storage', unverified: [] })]);
+    fixture.componentRef.setInput('unverifiedValues', [invented, control]);
+    await fixture.whenStable();
+    const element = fixture.nativeElement as HTMLElement;
+    const row = (name: string) => Array.from(element.querySelectorAll('tr.mat-mdc-row')).find((entry) => entry.textContent?.includes(name))!;
+    const badge = row('Reading room').querySelector('al-verify-badge .badge')!;
+    // The row's figures rest on the invented value; the control's value belongs to the Controls page.
+    expect(badge.getAttribute('aria-label')).toContain(`Invented value: ${invented.citation.short}`);
+    expect(badge.getAttribute('aria-label')).not.toContain('Occupant sensor');
+    expect(row('Storage').querySelector('al-verify-badge')).toBeNull();
   });
 });

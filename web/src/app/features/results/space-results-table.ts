@@ -6,7 +6,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
-import type { SpaceResult, UnitSystem } from '../../core/api/api-types';
+import type { SpaceResult, UnitSystem, UnverifiedValue } from '../../core/api/api-types';
 import { spaceAllowanceStatus, type SpaceAllowanceStatus } from '../../shared/allowance-status';
 import { areaFigure, densityFigure, percentFigure, wattsFigure } from '../../shared/figures';
 import { unitLabels } from '../../shared/format';
@@ -25,13 +25,18 @@ export interface SpaceRow {
  * The unverified values behind a row's figures (allowance and installed power): control and
  * daylight values belong to the Controls and Daylight pages, which mark them there.
  */
-function figureValues(space: SpaceResult): SpaceResult['unverified'] {
-  return space.unverified.filter((value) => !value.what.startsWith('Control strategy:') && !value.what.startsWith('Daylight ') && !value.what.startsWith(`${space.name}: `));
+function figureValues(space: SpaceResult, byId: ReadonlyMap<string, UnverifiedValue>): UnverifiedValue[] {
+  return space.unverified
+    .map((id) => byId.get(id))
+    .filter((value): value is UnverifiedValue => value !== undefined)
+    .filter((value) => !value.what.startsWith('Control strategy:') && !value.what.startsWith('Daylight ') && !value.what.startsWith(`${space.name}: `));
 }
 
-export function spaceRows(spaces: readonly SpaceResult[]): SpaceRow[] {
+/** `values` is the result's `unverifiedValues`, which the spaces name by id. */
+export function spaceRows(spaces: readonly SpaceResult[], values: readonly UnverifiedValue[]): SpaceRow[] {
+  const byId = new Map(values.map((value) => [value.id, value]));
   return spaces.map((space) => {
-    const values = figureValues(space);
+    const values = figureValues(space, byId);
     return {
       space,
       status: spaceAllowanceStatus(space),
@@ -63,6 +68,8 @@ const numericColumns: Record<string, (space: SpaceResult) => string | null> = {
 })
 export class SpaceResultsTable {
   readonly spaces = input.required<readonly SpaceResult[]>();
+  /** The result's unverified values, which each space names by id. */
+  readonly unverifiedValues = input<readonly UnverifiedValue[]>([]);
   readonly units = input<UnitSystem>('ip');
   readonly updating = input(false);
 
@@ -91,7 +98,7 @@ export class SpaceResultsTable {
       return text === '' || `${row.space.name} ${row.space.level ?? ''} ${row.space.lpdBasis.label}`.toLowerCase().includes(text);
     };
     effect(() => {
-      this.dataSource.data = spaceRows(this.spaces());
+      this.dataSource.data = spaceRows(this.spaces(), this.unverifiedValues());
     });
     effect(() => {
       this.dataSource.filter = JSON.stringify({ overOnly: this.overOnly(), text: this.search().trim().toLowerCase() });
