@@ -11,6 +11,8 @@ export default defineConfig({
     globalSetup: ['test/support/global-setup.ts'],
     testTimeout: 20_000,
     hookTimeout: 60_000,
+    // A poll waits for what the page shows; a loaded machine may take seconds to recompute, so the wait is long and the test still ends at the first match.
+    expect: { poll: { timeout: 10_000 } },
     pool: 'forks',
     reporters: ['default'],
   },
