@@ -33,6 +33,12 @@ function countFailedSuitesWithFailedTests(report) {
 
 const steps = [
   {
+    // tsx, vitest and the web test runner strip types without checking them: the checker runs first.
+    name: 'type checks of service, schema, tests and web (tsc)',
+    command: process.platform === 'win32' ? 'npm.cmd' : 'npm',
+    args: () => ['run', '--silent', 'typecheck'],
+  },
+  {
     name: 'web unit tests (ng test)',
     report: path.join(output, 'web-unit.json'),
     command: bin('ng'),
