@@ -19,15 +19,27 @@ import { projectsRouter } from './projects/projects.routes.js';
 import { designRouter } from './design/design.routes.js';
 import { evaluateRouter, openApiRouter, projectResultsRouter } from './evaluation/evaluation.routes.js';
 import { teamRouter } from './team/team.routes.js';
+import { liveRouter } from './live/live.routes.js';
+import { ProjectChanges } from './live/project-changes.js';
+import type { Knex } from 'knex';
+import type { ClientConfig as PgClientConfig } from 'pg';
 
 export interface AppDeps {
   db: Database;
   config: Config;
   logger?: Logger;
+  /** Who watches which project; one is made from the database's connection when not given. */
+  changes?: ProjectChanges;
 }
 
-export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL }) }: AppDeps): Express {
+/** The connection the change listener opens: the same database as the pool's. */
+function connectionOf(db: Database): string | PgClientConfig {
+  return (db.client as { config: Knex.Config }).config.connection as string | PgClientConfig;
+}
+
+export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL }), changes = new ProjectChanges(connectionOf(db), logger) }: AppDeps): Express {
   const app = express();
+  app.locals['changes'] = changes;
   app.disable('x-powered-by');
   app.set('trust proxy', config.TRUST_PROXY);
 
@@ -85,6 +97,7 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
   api.use('/projects/:projectId', projectResultsRouter(db));
   api.use('/projects/:projectId', teamRouter(db));
   api.use('/projects/:projectId', historyRouter(db));
+  api.use('/projects/:projectId', liveRouter(db, changes));
   api.use('/evaluate', evaluateRouter(db));
   api.use('/openapi.json', openApiRouter());
   api.use(notFoundHandler);

@@ -2,6 +2,7 @@ import { pino } from 'pino';
 import { createApp } from './app.js';
 import { loadConfig } from './config.js';
 import { createDatabase } from './db/database.js';
+import type { ProjectChanges } from './live/project-changes.js';
 
 const config = loadConfig();
 const logger = pino({ level: config.LOG_LEVEL });
@@ -14,6 +15,8 @@ const server = app.listen(config.PORT, config.HOST, () => {
 
 function shutdown(signal: string): void {
   logger.info({ signal }, 'shutting down');
+  // Open event streams would hold the server open: end them first.
+  void (app.locals['changes'] as ProjectChanges).close();
   server.close(() => {
     void db.destroy().finally(() => process.exit(0));
   });
