@@ -1,9 +1,9 @@
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
-import type { Express } from 'express';
+import type { Express, Response as ExpressResponse } from 'express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
-import type { ProjectChanges } from '../../service/src/live/project-changes.js';
+import { ProjectChanges } from '../../service/src/live/project-changes.js';
 import { testApp } from '../support/app.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
 
@@ -121,6 +121,16 @@ describe('the project change stream', () => {
     expect((await call(engineer, 'POST', `/api/projects/${projectId}/luminaire-types`, { tag: 'LB', inputWatts: '40', use: 'general' })).status).toBe(201);
     expect(JSON.parse((await stream.next('change')).data).entity).toBe('luminaire-type');
     await stream.cancel();
+  });
+
+  it('does not count a client that left while the listener was connecting, and closes the listener after it', async () => {
+    const changes = new ProjectChanges(database.url);
+    // What Express hands over for a request whose socket has already closed.
+    const gone = { destroyed: true, writableEnded: false } as unknown as ExpressResponse;
+    await changes.watch(projectId, gone);
+    expect(changes.open).toBe(0);
+    expect(changes.listening).toBe(false);
+    await changes.close();
   });
 
   it('is for members only', async () => {

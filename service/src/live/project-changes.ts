@@ -35,6 +35,11 @@ export class ProjectChanges {
   /** Opens a server-sent event stream on `res` for one project; it ends when the client goes. */
   async watch(projectId: string, res: Response): Promise<void> {
     await this.listen();
+    // A client that went while the listener was connecting is not counted; the last one out closes it.
+    if (res.destroyed || res.writableEnded) {
+      if (this.watchers.size === 0) await this.stop();
+      return;
+    }
     res.status(200);
     res.setHeader('Content-Type', 'text/event-stream; charset=utf-8');
     res.setHeader('Cache-Control', 'no-store');
@@ -60,11 +65,20 @@ export class ProjectChanges {
     return count;
   }
 
+  /** Whether the listening connection is open (the tests read it). */
+  get listening(): boolean {
+    return this.client !== null;
+  }
+
   /** Ends every stream and the listening connection (shutdown). */
   async close(): Promise<void> {
+    this.endAll();
+    await this.stop();
+  }
+
+  private endAll(): void {
     for (const set of this.watchers.values()) for (const res of set) res.end();
     this.watchers.clear();
-    await this.stop();
   }
 
   private async listen(): Promise<void> {
@@ -75,8 +89,7 @@ export class ProjectChanges {
       client.on('error', (error) => {
         this.logger?.warn({ err: error }, 'the change listener lost its connection');
         // Watchers reconnect on their own (retry above) and so open a new listener.
-        for (const set of this.watchers.values()) for (const res of set) res.end();
-        this.watchers.clear();
+        this.endAll();
         this.client = null;
       });
       await client.connect();
