@@ -189,9 +189,8 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
       expect(response.status()).toBe(200);
     }
 
-    // The page has not seen these writes: reload it, so the verdict it shows is computed from them
-    // rather than from whichever refresh happened to be pending when they landed.
-    await page.goto(`${projectUrl}/spaces`);
+    // The workspace follows the project's change stream: it reads these writes back and recomputes.
+    await page.getByRole('link', { name: 'Spaces' }).click();
     await expect.poll(() => verdict(page).textContent(), { timeout: 10_000 }).toContain('Complies');
     const office = page.locator('[data-space-id]', { hasText: 'Harbour office' });
     // 4 × 30 W = 120 W against 148 W: 28 W (18.9 %) to spare.

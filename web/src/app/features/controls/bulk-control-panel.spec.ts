@@ -54,10 +54,10 @@ describe('BulkControlPanel', () => {
     });
     store = TestBed.inject(ProjectStore);
     http = TestBed.inject(HttpTestingController);
-    store.project.set(project);
-    store.spaces.set(spaces);
-    store.tables.set({ spaceTypes, buildingAreaTypes: [], controlStrategies: strategies, exteriorApplications: [], lightingZones: [] });
-    store.results.set({ status: 'ready', result });
+    store.seed({ project });
+    store.seed({ spaces });
+    store.seed({ tables: { spaceTypes, buildingAreaTypes: [], controlStrategies: strategies, exteriorApplications: [], lightingZones: [] } });
+    store.seed({ results: { status: 'ready', result } });
     fixture = TestBed.createComponent(BulkControlPanel);
     element = fixture.nativeElement as HTMLElement;
     await fixture.whenStable();

@@ -85,6 +85,8 @@ export class DaylightPage implements HasUnsavedChanges {
   });
 
   protected form: OpeningsForm = openingsForm(() => this.room(), [], []);
+  /** The stored record the form started from: its version goes with the save. */
+  private formBase: SpaceRecord | null = null;
   /** Moves on every edit and every new form, so the plan and the buttons follow the form. */
   private readonly formTick = signal(0);
   private formChanges: Subscription | null = null;
@@ -107,10 +109,15 @@ export class DaylightPage implements HasUnsavedChanges {
   });
 
   constructor() {
-    // A different space, or a fresh copy of this one from the service, starts the form again.
+    // A different space, or a fresh copy of this one from the service, starts the form again;
+    // unsaved edits of the same space are kept, and saving them against the copy they started
+    // from reports someone else's change rather than overwriting it.
     effect(() => {
       const space = this.selectedSpace();
-      untracked(() => this.resetForm(space));
+      untracked(() => {
+        if (space && this.formBase?.id === space.id && this.form.dirty) return;
+        this.resetForm(space);
+      });
     });
   }
 
@@ -158,7 +165,8 @@ export class DaylightPage implements HasUnsavedChanges {
     if (!projectId) return;
     this.saving.set(true);
     this.serverErrors.set({});
-    this.api.patchSpace(projectId, space.id, space.version, openingsValue(this.form)).subscribe({
+    const version = this.formBase?.id === space.id ? this.formBase.version : space.version;
+    this.api.patchSpace(projectId, space.id, version, openingsValue(this.form)).subscribe({
       next: (saved) => {
         this.saving.set(false);
         this.form.markAsPristine();
@@ -187,6 +195,7 @@ export class DaylightPage implements HasUnsavedChanges {
 
   private resetForm(space: SpaceRecord | null): void {
     this.formChanges?.unsubscribe();
+    this.formBase = space;
     this.form = openingsForm(() => this.room(), space?.windows ?? [], space?.skylights ?? []);
     this.formChanges = this.form.valueChanges.subscribe(() => this.formTick.update((tick) => tick + 1));
     if (!this.store.canEdit()) this.form.disable();

@@ -153,8 +153,7 @@ export class ExteriorPage implements HasUnsavedChanges {
     const projectId = this.store.projectId();
     if (!projectId) return;
     this.api.exteriorApplications(projectId).subscribe((applications) => {
-      this.store.exterior.set(applications);
-      this.store.refreshResults();
+      this.store.replaceExterior(applications);
     });
   }
 }

@@ -50,9 +50,9 @@ describe('HistoryPage', () => {
     store = TestBed.inject(ProjectStore);
     // The results a change asks for are the store's business, not this page's.
     vi.spyOn(store, 'refreshResults').mockImplementation(() => undefined);
-    store.project.set(project);
-    store.spaces.set([{ ...exam1, area: '150', version: 2 }]);
-    store.tables.set({ spaceTypes: [{ key: 'office-enclosed', label: 'Office — Enclosed' }] as never, buildingAreaTypes: [], controlStrategies: [], exteriorApplications: [], lightingZones: [] });
+    store.seed({ project });
+    store.seed({ spaces: [{ ...exam1, area: '150', version: 2 }] });
+    store.seed({ tables: { spaceTypes: [{ key: 'office-enclosed', label: 'Office — Enclosed' }] as never, buildingAreaTypes: [], controlStrategies: [], exteriorApplications: [], lightingZones: [] } });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(HistoryPage);
     element = fixture.nativeElement as HTMLElement;
@@ -75,12 +75,12 @@ describe('HistoryPage', () => {
     expect(element.querySelector('button[aria-label="Restore space “Exam 3”"]')).not.toBeNull();
     expect(element.querySelectorAll('.restore').length).toBe(1);
 
-    store.project.set({ ...project, role: 'reviewer' });
+    store.seed({ project: { ...project, role: 'reviewer' } });
     await fixture.whenStable();
     expect(element.querySelector('.restore')).toBeNull();
     expect(element.textContent).toContain('Ines Halvorsen changed space “Exam 1”');
 
-    store.project.set({ ...project, archivedAt: '2026-03-03T08:00:00Z' });
+    store.seed({ project: { ...project, archivedAt: '2026-03-03T08:00:00Z' } });
     await fixture.whenStable();
     expect(element.querySelector('.restore')).toBeNull();
   });

@@ -56,9 +56,9 @@ describe('LuminairesPage', () => {
     });
     store = TestBed.inject(ProjectStore);
     vi.spyOn(store, 'refreshResults').mockImplementation(() => undefined);
-    store.project.set(project);
-    store.luminaireTypes.set(types);
-    store.spaces.set([bay]);
+    store.seed({ project });
+    store.seed({ luminaireTypes: types });
+    store.seed({ spaces: [bay] });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(LuminairesPage);
     element = fixture.nativeElement as HTMLElement;

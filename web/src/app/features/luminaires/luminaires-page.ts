@@ -174,15 +174,14 @@ export class LuminairesPage implements HasUnsavedChanges {
 
   private reloadTypes(): void {
     const projectId = this.store.projectId();
-    if (projectId) this.api.luminaireTypes(projectId).subscribe((types) => this.store.luminaireTypes.set(types));
+    if (projectId) this.api.luminaireTypes(projectId).subscribe((types) => this.store.replaceLuminaireTypes(types));
   }
 
   private reloadSpaces(): void {
     const projectId = this.store.projectId();
     if (!projectId) return;
     this.api.spaces(projectId).subscribe((spaces) => {
-      this.store.spaces.set(spaces);
-      this.store.refreshResults();
+      this.store.replaceSpaces(spaces);
     });
   }
 }

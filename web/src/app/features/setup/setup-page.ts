@@ -34,6 +34,8 @@ export class SetupPage implements HasUnsavedChanges {
     const spaces = this.store.spaces();
     return spaces.length ? formatArea(String(spaces.reduce((sum, space) => sum + Number(space.area), 0)), this.store.units()) : null;
   });
+  /** The version of the set-up the form was last filled from. */
+  private baseVersion: number | null = null;
   protected readonly teamBusy = signal(false);
   protected readonly teamError = signal<string | null>(null);
   /** The address of the last addition when the team that came back does not hold it. */
@@ -44,7 +46,10 @@ export class SetupPage implements HasUnsavedChanges {
       const project = this.store.project();
       const canEdit = this.store.canEdit();
       untracked(() => {
-        if (project && !this.form.dirty) fillSetup(this.form, project);
+        if (project && !this.form.dirty) {
+          fillSetup(this.form, project);
+          this.baseVersion = project.version;
+        }
         if (canEdit) this.form.enable({ emitEvent: false });
         else this.form.disable({ emitEvent: false });
       });
@@ -64,7 +69,8 @@ export class SetupPage implements HasUnsavedChanges {
     }
     this.saving.set(true);
     this.failure.set(null);
-    this.api.updateSetup(project.id, project.version, setupValue(this.form)).subscribe({
+    // Saved against the set-up the form was filled from: a change someone made since is reported, not overwritten.
+    this.api.updateSetup(project.id, this.baseVersion ?? project.version, setupValue(this.form)).subscribe({
       next: (updated) => {
         this.saving.set(false);
         this.form.markAsPristine();
@@ -107,8 +113,7 @@ export class SetupPage implements HasUnsavedChanges {
       next: (members: ProjectMember[]) => {
         this.teamBusy.set(false);
         check?.(members);
-        const project = this.store.project();
-        if (project) this.store.project.set({ ...project, members });
+        this.store.setMembers(members);
       },
       error: (error: unknown) => {
         this.teamBusy.set(false);

@@ -52,10 +52,10 @@ describe('the space table', () => {
       providers: [provideZonelessChangeDetection(), provideHttpClient(), provideHttpClientTesting(), provideRouter([]), ProjectStore],
     });
     store = TestBed.inject(ProjectStore);
-    store.project.set(project);
-    store.spaces.set(spaces);
-    store.tables.set({ spaceTypes, buildingAreaTypes: [], controlStrategies: [], exteriorApplications: [], lightingZones: [] });
-    store.results.set({ status: 'ready', result: evaluation });
+    store.seed({ project });
+    store.seed({ spaces });
+    store.seed({ tables: { spaceTypes, buildingAreaTypes: [], controlStrategies: [], exteriorApplications: [], lightingZones: [] } });
+    store.seed({ results: { status: 'ready', result: evaluation } });
     fixture = TestBed.createComponent(SpacesPage);
     element = fixture.nativeElement as HTMLElement;
     await fixture.whenStable();
@@ -91,7 +91,7 @@ describe('the space table', () => {
     // Invented results: Store 102 has no luminaires yet, Office 101 is confirmed unlit.
     const waiting = { ...evaluation.interior.spaces[2]!, installedW: '0', marginW: '38', marginPct: '100', withinAllowance: true, lighting: 'none-entered' } as SpaceResult;
     const unlit = { ...evaluation.interior.spaces[1]!, allowanceW: '0', installedW: '0', marginW: '0', marginPct: null, withinAllowance: true, lighting: 'unlit' } as SpaceResult;
-    store.results.set({ status: 'ready', result: { ...evaluation, interior: { ...evaluation.interior, spaces: [evaluation.interior.spaces[0]!, unlit, waiting] } } as EvaluationResult });
+    store.seed({ results: { status: 'ready', result: { ...evaluation, interior: { ...evaluation.interior, spaces: [evaluation.interior.spaces[0]!, unlit, waiting] } } as EvaluationResult } });
     await fixture.whenStable();
     expect(rowText('Store 102')).toContain('No luminaires entered');
     expect(rowText('Store 102')).not.toContain('to spare');
@@ -110,7 +110,7 @@ describe('the space table', () => {
   });
 
   it('gives no verdict while the results are updating', async () => {
-    store.results.set({ status: 'updating', previous: evaluation });
+    store.seed({ results: { status: 'updating', previous: evaluation } });
     await fixture.whenStable();
     expect(element.querySelectorAll('.status.within, .status.over').length).toBe(0);
     expect(rowText('Office 101')).toContain('Updating…');
@@ -119,7 +119,7 @@ describe('the space table', () => {
 
   it('renders only the rows in view when the project has 5,000 spaces', async () => {
     const many = Array.from({ length: 5000 }, (_, index) => space(`m${index}`, `Room ${index}`, `Level ${Math.floor(index / 500) + 1}`, index, '100', 'office-enclosed'));
-    store.spaces.set(many);
+    store.seed({ spaces: many });
     await fixture.whenStable();
     const rendered = element.querySelectorAll('cdk-virtual-scroll-viewport [role="row"]').length;
     expect(rendered).toBeGreaterThan(0);
@@ -154,7 +154,7 @@ describe('the space table', () => {
   it('shows edit actions to the engineer and none to a reader', async () => {
     expect(element.querySelector('button[aria-label="Edit Office 101"]')).not.toBeNull();
     expect(element.textContent).toContain('Add space');
-    store.project.set({ ...project, role: 'reviewer' });
+    store.seed({ project: { ...project, role: 'reviewer' } });
     await fixture.whenStable();
     expect(element.querySelector('button[aria-label="Edit Office 101"]')).toBeNull();
     expect(element.querySelector('button[aria-label="More for Office 101"]')).toBeNull();

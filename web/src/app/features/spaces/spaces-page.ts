@@ -128,9 +128,8 @@ export class SpacesPage implements HasUnsavedChanges {
       .subscribe((outcome) => {
         if (!outcome?.spaces.length) return;
         const { spaces: created, luminaireTypes } = outcome;
-        this.store.spaces.update((spaces) => [...spaces, ...created]);
-        if (luminaireTypes > 0) this.api.luminaireTypes(projectId).subscribe((types) => this.store.luminaireTypes.set(types));
-        this.store.refreshResults();
+        this.store.upsertSpaces(created);
+        if (luminaireTypes > 0) this.api.luminaireTypes(projectId).subscribe((types) => this.store.replaceLuminaireTypes(types));
         const types = luminaireTypes > 0 ? ` with ${luminaireTypes} luminaire type${luminaireTypes === 1 ? '' : 's'}` : '';
         this.snackBar.open(`${created.length} space${created.length === 1 ? '' : 's'} imported${types}`, undefined, { duration: 4000 });
       });
@@ -168,8 +167,7 @@ export class SpacesPage implements HasUnsavedChanges {
     const projectId = this.store.projectId();
     if (!projectId) return;
     this.api.spaces(projectId).subscribe((spaces) => {
-      this.store.spaces.set(spaces);
-      this.store.refreshResults();
+      this.store.replaceSpaces(spaces);
     });
   }
 }

@@ -1,4 +1,4 @@
-import { computed, DestroyRef, inject, Injectable, signal } from '@angular/core';
+import { computed, DestroyRef, inject, Injectable, signal, type WritableSignal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { catchError, debounceTime, forkJoin, map, of, Subject, switchMap, tap, type Observable } from 'rxjs';
 import type {
@@ -37,20 +37,60 @@ export interface EditionTables {
   lightingZones: LightingZoneView[];
 }
 
+/** The records read again, with each one whose version did not move replaced by the copy already held. */
+export function sameWhereUnchanged<T extends { id: string; version: number }>(held: readonly T[], read: readonly T[]): T[] {
+  const byId = new Map(held.map((record) => [record.id, record]));
+  const next = read.map((record) => {
+    const kept = byId.get(record.id);
+    return kept && kept.version === record.version ? kept : record;
+  });
+  return next.length === held.length && next.every((record, index) => record === held[index]) ? (held as T[]) : next;
+}
+
+/**
+ * Puts records written into a list: each replaces the held record of its id unless the held one is
+ * newer (a change read back from the stream may arrive before the answer to the write), and the
+ * rest are added.
+ */
+function upsertInto<T extends { id: string; version: number }>(list: WritableSignal<T[]>, records: readonly T[], order?: (a: T, b: T) => number): void {
+  list.update((held) => {
+    const incoming = new Map(records.map((record) => [record.id, record]));
+    const next = held.map((record) => {
+      const written = incoming.get(record.id);
+      if (!written) return record;
+      incoming.delete(record.id);
+      return written.version >= record.version ? written : record;
+    });
+    next.push(...incoming.values());
+    return order ? next.sort(order) : next;
+  });
+}
+
 /** One project's data for every page of the workspace; provided by the workspace page. */
 @Injectable()
 export class ProjectStore {
   private readonly api = inject(WorkspaceApi);
   private readonly auth = inject(AuthStore);
   private readonly recompute = new Subject<string>();
+  /** A change someone made (another tab, another person, the API): the project is read again. */
+  private readonly changed = new Subject<string>();
+  private stream: EventSource | null = null;
 
-  readonly project = signal<ProjectDetail | null>(null);
-  readonly spaces = signal<SpaceRecord[]>([]);
-  readonly luminaireTypes = signal<LuminaireTypeRecord[]>([]);
-  readonly exterior = signal<ExteriorApplicationRecord[]>([]);
-  readonly tables = signal<EditionTables | null>(null);
-  readonly results = signal<ResultsState>({ status: 'idle' });
-  readonly loadError = signal<string | null>(null);
+  // Pages read these; only the store's methods change them.
+  private readonly projectState = signal<ProjectDetail | null>(null);
+  private readonly spaceList = signal<SpaceRecord[]>([]);
+  private readonly typeList = signal<LuminaireTypeRecord[]>([]);
+  private readonly exteriorList = signal<ExteriorApplicationRecord[]>([]);
+  private readonly tableState = signal<EditionTables | null>(null);
+  private readonly resultState = signal<ResultsState>({ status: 'idle' });
+  private readonly loadErrorState = signal<string | null>(null);
+  readonly project = this.projectState.asReadonly();
+  readonly spaces = this.spaceList.asReadonly();
+  readonly luminaireTypes = this.typeList.asReadonly();
+  readonly exterior = this.exteriorList.asReadonly();
+  readonly tables = this.tableState.asReadonly();
+  readonly results = this.resultState.asReadonly();
+  readonly loadError = this.loadErrorState.asReadonly();
 
   readonly projectId = computed(() => this.project()?.id ?? null);
   readonly units = computed(() => this.project()?.units ?? 'ip');
@@ -70,7 +110,7 @@ export class ProjectStore {
     // Edits come in bursts: wait for a pause, and let a newer request cancel the one in flight.
     this.recompute
       .pipe(
-        tap(() => this.results.update((state) => ({ status: 'updating', previous: state.status === 'ready' ? state.result : state.status === 'updating' ? state.previous : null }))),
+        tap(() => this.resultState.update((state) => ({ status: 'updating', previous: state.status === 'ready' ? state.result : state.status === 'updating' ? state.previous : null }))),
         debounceTime(350),
         switchMap((projectId) =>
           this.api.results(projectId).pipe(
@@ -84,7 +124,69 @@ export class ProjectStore {
         ),
         takeUntilDestroyed(inject(DestroyRef)),
       )
-      .subscribe((state) => this.results.set(state));
+      .subscribe((state) => this.resultState.set(state));
+    // A newer change cancels the reading in flight; the last one read wins.
+    this.changed
+      .pipe(
+        switchMap((projectId) => this.reread(projectId)),
+        takeUntilDestroyed(inject(DestroyRef)),
+      )
+      .subscribe();
+    inject(DestroyRef).onDestroy(() => this.unfollow());
+  }
+
+  /**
+   * Follows the project's change stream: every write anyone commits is read back into the store
+   * and the results recomputed. After a lost connection the browser reconnects by itself (the
+   * stream's retry) and the project is read again, since changes may have been missed meanwhile.
+   * Browsers without server-sent events simply do not follow.
+   */
+  follow(projectId: string): void {
+    this.unfollow();
+    if (typeof EventSource === 'undefined') return;
+    const stream = new EventSource(`/api/projects/${encodeURIComponent(projectId)}/events`);
+    let connections = 0;
+    stream.addEventListener('ready', () => {
+      connections += 1;
+      if (connections > 1) this.changed.next(projectId);
+    });
+    stream.addEventListener('change', () => this.changed.next(projectId));
+    this.stream = stream;
+  }
+
+  private unfollow(): void {
+    this.stream?.close();
+    this.stream = null;
+  }
+
+  /** Reads the project's set-up and design again after someone else's change. */
+  private reread(projectId: string): Observable<void> {
+    return forkJoin({
+      project: this.api.project(projectId),
+      spaces: this.api.spaces(projectId),
+      luminaireTypes: this.api.luminaireTypes(projectId),
+      exterior: this.api.exteriorApplications(projectId),
+    }).pipe(
+      map((loaded) => {
+        if (this.projectId() !== projectId) return;
+        const editionChanged = loaded.project.edition !== this.project()?.edition;
+        // What did not change keeps its identity, so a page editing it is not started again.
+        if (loaded.project.version !== this.project()?.version) this.projectState.set(loaded.project);
+        this.spaceList.set(sameWhereUnchanged(this.spaces(), loaded.spaces));
+        this.typeList.set(sameWhereUnchanged(this.luminaireTypes(), loaded.luminaireTypes));
+        this.exteriorList.set(sameWhereUnchanged(this.exterior(), loaded.exterior));
+        if (editionChanged && loaded.project.edition) this.loadTables(loaded.project.edition).subscribe();
+        this.refreshResults();
+      }),
+      catchError((error: unknown) => {
+        // Taken off the team, or the project gone: say so; anything else waits for the next change.
+        if (error instanceof ApiError && (error.status === 403 || error.status === 404)) {
+          this.unfollow();
+          this.loadErrorState.set(error.message);
+        }
+        return of(undefined);
+      }),
+    );
   }
 
   /**
@@ -107,7 +209,7 @@ export class ProjectStore {
   }
 
   load(projectId: string): Observable<void> {
-    this.loadError.set(null);
+    this.loadErrorState.set(null);
     return forkJoin({
       project: this.api.project(projectId),
       spaces: this.api.spaces(projectId),
@@ -115,15 +217,15 @@ export class ProjectStore {
       exterior: this.api.exteriorApplications(projectId),
     }).pipe(
       switchMap((loaded) => {
-        this.project.set(loaded.project);
-        this.spaces.set(loaded.spaces);
-        this.luminaireTypes.set(loaded.luminaireTypes);
-        this.exterior.set(loaded.exterior);
+        this.projectState.set(loaded.project);
+        this.spaceList.set(loaded.spaces);
+        this.typeList.set(loaded.luminaireTypes);
+        this.exteriorList.set(loaded.exterior);
         this.refreshResults();
         return loaded.project.edition ? this.loadTables(loaded.project.edition) : of(undefined);
       }),
       catchError((error: unknown) => {
-        this.loadError.set(error instanceof ApiError ? error.message : 'The project could not be loaded.');
+        this.loadErrorState.set(error instanceof ApiError ? error.message : 'The project could not be loaded.');
         return of(undefined);
       }),
     );
@@ -137,7 +239,7 @@ export class ProjectStore {
       exteriorApplications: this.api.exteriorApplicationTypes(edition),
       lightingZones: this.api.lightingZones(edition),
     }).pipe(
-      tap((tables) => this.tables.set(tables)),
+      tap((tables) => this.tableState.set(tables)),
       map(() => undefined),
     );
   }
@@ -150,23 +252,29 @@ export class ProjectStore {
 
   setProject(project: ProjectDetail): void {
     const editionChanged = project.edition !== this.project()?.edition;
-    this.project.set(project);
+    this.projectState.set(project);
     if (editionChanged && project.edition) this.loadTables(project.edition).subscribe();
     this.refreshResults();
   }
 
+  /** The project's team changed: the rest of the set-up is as it was. */
+  setMembers(members: ProjectDetail['members']): void {
+    this.projectState.update((project) => (project ? { ...project, members } : project));
+  }
+
   upsertSpace(space: SpaceRecord): void {
-    this.spaces.update((spaces) => {
-      const index = spaces.findIndex((existing) => existing.id === space.id);
-      return index === -1 ? [...spaces, space] : spaces.map((existing) => (existing.id === space.id ? space : existing));
-    });
+    this.upsertSpaces([space]);
+  }
+
+  /** Spaces written (one or many at once, new or changed): one recompute for all of them. */
+  upsertSpaces(saved: readonly SpaceRecord[]): void {
+    upsertInto(this.spaceList, saved);
     this.refreshResults();
   }
 
-  /** Many spaces written at once (one control on many): one recompute for all of them. */
-  upsertSpaces(saved: readonly SpaceRecord[]): void {
-    const byId = new Map(saved.map((space) => [space.id, space]));
-    this.spaces.update((spaces) => spaces.map((space) => byId.get(space.id) ?? space));
+  /** The spaces as read from the service, in place of those held (after a stale write, a reload). */
+  replaceSpaces(spaces: SpaceRecord[]): void {
+    this.spaceList.set(sameWhereUnchanged(this.spaceList(), spaces));
     this.refreshResults();
   }
 
@@ -174,43 +282,54 @@ export class ProjectStore {
   reloadSpaces(): Observable<SpaceRecord[]> {
     const id = this.projectId();
     if (!id) return of([]);
-    return this.api.spaces(id).pipe(
-      tap((spaces) => {
-        this.spaces.set(spaces);
-        this.refreshResults();
-      }),
-    );
+    return this.api.spaces(id).pipe(tap((spaces) => this.replaceSpaces(spaces)));
   }
 
   removeSpace(spaceId: string): void {
-    this.spaces.update((spaces) => spaces.filter((space) => space.id !== spaceId));
+    this.spaceList.update((spaces) => spaces.filter((space) => space.id !== spaceId));
     this.refreshResults();
   }
 
   upsertLuminaireType(type: LuminaireTypeRecord): void {
-    this.luminaireTypes.update((types) => {
-      const index = types.findIndex((existing) => existing.id === type.id);
-      const next = index === -1 ? [...types, type] : types.map((existing) => (existing.id === type.id ? type : existing));
-      return next.sort((a, b) => a.tag.localeCompare(b.tag, undefined, { numeric: true }));
-    });
+    upsertInto(this.typeList, [type], (a, b) => a.tag.localeCompare(b.tag, undefined, { numeric: true }));
+    this.refreshResults();
+  }
+
+  replaceLuminaireTypes(types: LuminaireTypeRecord[]): void {
+    this.typeList.set(sameWhereUnchanged(this.typeList(), types));
     this.refreshResults();
   }
 
   removeLuminaireType(typeId: string): void {
-    this.luminaireTypes.update((types) => types.filter((type) => type.id !== typeId));
+    this.typeList.update((types) => types.filter((type) => type.id !== typeId));
     this.refreshResults();
   }
 
   upsertExterior(application: ExteriorApplicationRecord): void {
-    this.exterior.update((applications) => {
-      const index = applications.findIndex((existing) => existing.id === application.id);
-      return index === -1 ? [...applications, application] : applications.map((existing) => (existing.id === application.id ? application : existing));
-    });
+    upsertInto(this.exteriorList, [application]);
+    this.refreshResults();
+  }
+
+  replaceExterior(applications: ExteriorApplicationRecord[]): void {
+    this.exteriorList.set(sameWhereUnchanged(this.exteriorList(), applications));
     this.refreshResults();
   }
 
   removeExterior(applicationId: string): void {
-    this.exterior.update((applications) => applications.filter((application) => application.id !== applicationId));
+    this.exteriorList.update((applications) => applications.filter((application) => application.id !== applicationId));
     this.refreshResults();
+  }
+
+  /**
+   * Puts data in place without asking the service: for component tests, which give a page the
+   * store's state directly.
+   */
+  seed(state: { project?: ProjectDetail; spaces?: SpaceRecord[]; luminaireTypes?: LuminaireTypeRecord[]; exterior?: ExteriorApplicationRecord[]; tables?: EditionTables; results?: ResultsState }): void {
+    if (state.project) this.projectState.set(state.project);
+    if (state.spaces) this.spaceList.set(state.spaces);
+    if (state.luminaireTypes) this.typeList.set(state.luminaireTypes);
+    if (state.exterior) this.exteriorList.set(state.exterior);
+    if (state.tables) this.tableState.set(state.tables);
+    if (state.results) this.resultState.set(state.results);
   }
 }

@@ -105,6 +105,7 @@ export class WorkspacePage {
     effect(() => {
       const id = this.projectId();
       this.store.load(id).subscribe();
+      this.store.follow(id);
     });
   }
 
