@@ -139,7 +139,7 @@ describe('the project history', { timeout: 60_000 }, () => {
     await page.goto(served.baseUrl);
     await row('Boathouse scratch').waitFor();
     await page.getByRole('button', { name: 'Archive Boathouse scratch' }).click();
-    const dialog = page.getByRole('dialog');
+    const dialog = page.getByRole('alertdialog', { name: 'Archive “Boathouse scratch”?' });
     await dialog.getByText('Archive “Boathouse scratch”?').waitFor();
     // Focus lands on the confirming button once the dialog has opened.
     await expect.poll(() => dialog.getByRole('button', { name: 'Archive' }).evaluate((button) => button === document.activeElement)).toBe(true);

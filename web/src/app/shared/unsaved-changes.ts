@@ -1,4 +1,8 @@
+import { inject } from '@angular/core';
+import { MatDialog } from '@angular/material/dialog';
 import type { CanDeactivateFn } from '@angular/router';
+import { of } from 'rxjs';
+import { askToDiscard } from './confirm-dialog';
 
 /** A page with edits not yet saved says so; the guard asks before leaving it. */
 export interface HasUnsavedChanges {
@@ -6,4 +10,4 @@ export interface HasUnsavedChanges {
 }
 
 export const unsavedChangesGuard: CanDeactivateFn<HasUnsavedChanges> = (page) =>
-  !page?.hasUnsavedChanges?.() || window.confirm('You have changes that are not saved. Leave this page and lose them?');
+  !page?.hasUnsavedChanges?.() ? of(true) : askToDiscard(inject(MatDialog), 'You have changes on this page that are not saved. Leave it and lose them?');

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal, untracked } from '@angular/core';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -20,6 +21,7 @@ import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { DaylightPlan, zoneNames } from './daylight-plan';
 import { fieldMessage, openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
+import { askToDiscard } from '../../shared/confirm-dialog';
 
 /** Windows and skylights per space, the daylight zones they make, and whether daylight-responsive control is required. */
 @Component({
@@ -45,6 +47,7 @@ import { fieldMessage, openingsForm, openingsValue, skylightForm, windowForm, ty
 export class DaylightPage implements HasUnsavedChanges {
   protected readonly store = inject(ProjectStore);
   private readonly api = inject(WorkspaceApi);
+  private readonly dialogs = inject(MatDialog);
   private readonly failure = inject(WriteFailure);
 
   /** The space to open, from `?space=`. */
@@ -126,8 +129,8 @@ export class DaylightPage implements HasUnsavedChanges {
   }
 
   protected select(spaceId: string): void {
-    if (this.form.dirty && !window.confirm('You have changes to the openings that are not saved. Discard them?')) return;
-    this.chosenId.set(spaceId);
+    if (!this.form.dirty) this.chosenId.set(spaceId);
+    else askToDiscard(this.dialogs, 'The changes to the windows and skylights of this space are not saved.').subscribe((discard) => discard && this.chosenId.set(spaceId));
   }
 
   protected addWindow(): void {

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/cor
 import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -16,6 +16,7 @@ import { unitLabels } from '../../shared/format';
 import { fieldMessage } from '../spaces/space-form';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { basisLabels, fillLuminaireType, luminaireTypeForm, luminaireTypeFromForm, useLabels } from './luminaire-type-form';
+import { askToDiscard } from '../../shared/confirm-dialog';
 
 type CatalogueField = 'manufacturer' | 'catalogNumber' | 'lightSource' | 'driver' | 'voltage';
 
@@ -55,6 +56,7 @@ export interface LuminaireTypeEditorData {
 export class LuminaireTypeEditor {
   protected readonly data = inject<LuminaireTypeEditorData>(MAT_DIALOG_DATA);
   private readonly dialog = inject<MatDialogRef<LuminaireTypeEditor, LuminaireTypeRecord>>(MatDialogRef);
+  private readonly dialogs = inject(MatDialog);
   private readonly api = inject(WorkspaceApi);
   private readonly writeFailure = inject(WriteFailure);
   protected readonly form = luminaireTypeForm();
@@ -84,7 +86,8 @@ export class LuminaireTypeEditor {
   }
 
   protected cancel(): void {
-    if (!this.form.dirty || window.confirm('Discard the changes to this luminaire type?')) this.dialog.close();
+    if (!this.form.dirty) this.dialog.close();
+    else askToDiscard(this.dialogs, 'The changes to this luminaire type are not saved.').subscribe((discard) => discard && this.dialog.close());
   }
 
   protected save(): void {

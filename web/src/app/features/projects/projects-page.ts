@@ -19,7 +19,7 @@ import { catchError, from, map, mergeMap, of, startWith, switchMap } from 'rxjs'
 import type { ProjectSummary } from '../../core/api/api-types';
 import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
-import { ConfirmDialog, type ConfirmDialogData } from '../../shared/confirm-dialog';
+import { askToConfirm, type ConfirmDialogData } from '../../shared/confirm-dialog';
 import { formatPercent } from '../../shared/format';
 import { openCopyDialog } from './copy-project-dialog';
 import { ProjectApi } from './project-api';
@@ -132,12 +132,9 @@ export class ProjectsPage {
         'The project keeps its whole design and history and can still be read, but no one can change it. It leaves this list; turn on “Show archived projects” to find it and unarchive it.',
       confirm: 'Archive',
     };
-    this.dialogs
-      .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data, width: '480px', maxWidth: '96vw' })
-      .afterClosed()
-      .subscribe((confirmed) => {
-        if (confirmed) this.setArchived(project, true);
-      });
+    askToConfirm(this.dialogs, data).subscribe((confirmed) => {
+      if (confirmed) this.setArchived(project, true);
+    });
   }
 
   protected copy(project: ProjectSummary): void {

@@ -4,7 +4,7 @@ import { ReactiveFormsModule } from '@angular/forms';
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
-import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldModule } from '@angular/material/form-field';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatIconModule } from '@angular/material/icon';
@@ -22,6 +22,7 @@ import { WorkspaceApi } from '../workspace/workspace-api';
 import { densityInUnits, spaceInput } from './space-rows';
 import { canConfirmUnlit, emptySpace, fieldMessage, fillSpace, requireGeometry, requireHeightForFormula, spaceForm, spaceFromForm } from './space-form';
 import { SpaceTypePicker } from './space-type-picker';
+import { askToDiscard } from '../../shared/confirm-dialog';
 
 export interface SpaceEditorData {
   projectId: string;
@@ -63,6 +64,7 @@ export interface SpaceEditorData {
 export class SpaceEditor {
   protected readonly data = inject<SpaceEditorData>(MAT_DIALOG_DATA);
   private readonly dialog = inject<MatDialogRef<SpaceEditor, SpaceRecord>>(MatDialogRef);
+  private readonly dialogs = inject(MatDialog);
   private readonly api = inject(WorkspaceApi);
   private readonly writeFailure = inject(WriteFailure);
   protected readonly form = this.filledForm();
@@ -119,7 +121,8 @@ export class SpaceEditor {
   }
 
   protected cancel(): void {
-    if (!this.form.dirty || window.confirm('Discard the changes to this space?')) this.dialog.close();
+    if (!this.form.dirty) this.dialog.close();
+    else askToDiscard(this.dialogs, 'The changes to this space are not saved.').subscribe((discard) => discard && this.dialog.close());
   }
 
   protected save(): void {

@@ -1,7 +1,7 @@
 import { ScrollingModule } from '@angular/cdk/scrolling';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -40,6 +40,7 @@ import {
 } from './space-import';
 import { foldTypeName, type TypeOption } from './space-import-match';
 import { SpaceImportNamePicker } from './space-import-name-picker';
+import { askToConfirm } from '../../shared/confirm-dialog';
 
 export interface SpaceImportData extends ImportContext {
   projectId: string;
@@ -75,6 +76,7 @@ const kindLabels: Record<TypeKind, string> = { spaceType: 'Space type', building
 export class SpaceImportDialog {
   protected readonly data = inject<SpaceImportData>(MAT_DIALOG_DATA);
   private readonly dialog = inject<MatDialogRef<SpaceImportDialog, SpaceImportOutcome>>(MatDialogRef);
+  private readonly dialogs = inject(MatDialog);
   private readonly api = inject(WorkspaceApi);
 
   protected readonly typeFields = typeFields;
@@ -256,7 +258,11 @@ export class SpaceImportDialog {
   }
 
   protected close(): void {
-    if (this.stage() === 'choose' || window.confirm('Stop importing? Nothing has been saved.')) this.dialog.close();
+    if (this.stage() === 'choose') this.dialog.close();
+    else
+      askToConfirm(this.dialogs, { title: 'Stop importing?', message: 'Nothing has been saved yet.', confirm: 'Stop importing', cancel: 'Keep importing' }).subscribe(
+        (stop) => stop && this.dialog.close(),
+      );
   }
 
   protected downloadCsv(): void {
