@@ -4,6 +4,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
 import { strategyKeys, type EditionId, type StrategyKey } from '../compliance/edition-data.js';
+import { decimalPattern } from '../../../contract/editions.js';
 
 /** Reads and checks the files under `reference/`: the seed loads them, the tests compare against them. */
 
@@ -11,8 +12,8 @@ export { editionIds } from '../compliance/edition-data.js';
 
 export const defaultReferenceRoot = fileURLToPath(new URL('../../../reference/', import.meta.url));
 
-const decimal = z.string().regex(/^-?\d+(\.\d+)?$/, 'an exact decimal string');
-const strategyKey = z.enum(strategyKeys as [StrategyKey, ...StrategyKey[]]);
+const decimal = z.string().regex(decimalPattern, 'an exact decimal string');
+const strategyKey = z.enum(strategyKeys);
 const requirement = z.string().regex(/^(required|not-required|to-verify|one-of:[A-Z0-9-]+)$/);
 
 const provenance = {

@@ -5,21 +5,9 @@
  * paths, commits, links); none of that reaches a screen.
  */
 
-/**
- * What a value rests on: the model code's own table or text; another edition's or a state's text
- * standing in for it; how public modelling data reads the rule; or nothing checked yet.
- */
-export type CitationLayer = 'model-code' | 'other-edition-or-state' | 'modelling-dataset' | 'not-checked';
+import type { Citation, CitationLayer } from '../../../contract/result.js';
 
-export interface Citation {
-  /** E.g. "IECC 2021 Table C405.3.2(2) — model code". */
-  short: string;
-  layer: CitationLayer;
-  /** Checked against a published source; the "verify" badge shows where this is false. */
-  checked: boolean;
-  /** The row's note in words, for those who ask; null when it says nothing the short citation does not. */
-  note: string | null;
-}
+export type { Citation, CitationLayer } from '../../../contract/result.js';
 
 export interface CitationInput {
   /** The edition as people name it, e.g. "IECC 2021" (see `editionName`). */

@@ -1,4 +1,7 @@
+import type { EditionId, RequirementCode, StrategyKey } from '../../../contract/editions.js';
 import type { Citation } from './citation.js';
+
+export { editionIds, strategyKeys, type EditionId, type RequirementCode, type StrategyKey } from '../../../contract/editions.js';
 
 /**
  * The code tables of one edition, as the compliance engine reads them. The code-tables module
@@ -6,10 +9,7 @@ import type { Citation } from './citation.js';
  * Every number is an exact decimal string; nothing here is a JavaScript number.
  */
 
-export type EditionId = 'ashrae-90.1-2013' | 'ashrae-90.1-2016' | 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2018' | 'iecc-2021' | 'iecc-2024';
 export type CodeFamily = 'ashrae-90.1' | 'iecc';
-
-export const editionIds: readonly EditionId[] = ['ashrae-90.1-2013', 'ashrae-90.1-2016', 'ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2018', 'iecc-2021', 'iecc-2024'];
 
 /** Where a value came from and how far it can be trusted. `verified: false` shows a "verify" mark. */
 export interface Provenance {
@@ -21,49 +21,6 @@ export interface Provenance {
   citation?: Citation;
 }
 
-/** Our own keys for the control strategies; each edition says which section covers each. */
-export type StrategyKey =
-  | 'local-control'
-  | 'restricted-manual-on'
-  | 'restricted-partial-auto-on'
-  | 'bilevel'
-  | 'daylight-sidelighting'
-  | 'daylight-toplighting'
-  | 'automatic-partial-off'
-  | 'automatic-full-off'
-  | 'scheduled-shutoff'
-  | 'occupant-sensor'
-  | 'time-switch'
-  | 'light-reduction'
-  | 'specific-application'
-  | 'exterior-daylight-off'
-  | 'exterior-setback'
-  | 'exterior-facade-landscape-off';
-
-export const strategyKeys: readonly StrategyKey[] = [
-  'local-control',
-  'restricted-manual-on',
-  'restricted-partial-auto-on',
-  'bilevel',
-  'daylight-sidelighting',
-  'daylight-toplighting',
-  'automatic-partial-off',
-  'automatic-full-off',
-  'scheduled-shutoff',
-  'occupant-sensor',
-  'time-switch',
-  'light-reduction',
-  'specific-application',
-  'exterior-daylight-off',
-  'exterior-setback',
-  'exterior-facade-landscape-off',
-];
-
-/**
- * A table cell for one strategy in one space type: required, at least one of a group
- * (90.1's ADD1/ADD2 become `one-of:ADD1`), not required, or not known from a public source.
- */
-export type RequirementCode = 'required' | 'not-required' | 'to-verify' | `one-of:${string}`;
 
 export interface ControlStrategy {
   key: StrategyKey;

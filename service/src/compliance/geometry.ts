@@ -14,7 +14,9 @@ export function rectangularRoomCavityRatio(cavityHeight: Dec, length: Dec, width
   return dec(5).times(cavityHeight).times(length.plus(width)).dividedBy(length.times(width));
 }
 
-export type ZoneKind = 'primary-sidelit' | 'secondary-sidelit' | 'toplit';
+import type { ZoneKind } from '../../../contract/editions.js';
+
+export type { ZoneKind } from '../../../contract/editions.js';
 
 /** An axis-aligned rectangle in plan, feet, origin at the room's south-west corner. */
 export interface PlanRectangle {

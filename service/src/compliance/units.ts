@@ -2,7 +2,9 @@ import { all, create } from 'mathjs';
 import { type Dec, dec } from './numbers.js';
 
 /** The document's unit system: IP (ft, ft², W/ft²) or SI (m, m², W/m²). The engine computes in IP. */
-export type UnitSystem = 'ip' | 'si';
+import type { UnitSystem } from '../../../contract/editions.js';
+
+export type { UnitSystem } from '../../../contract/editions.js';
 
 const math = create(all, { number: 'BigNumber', precision: 64 });
 

@@ -3,15 +3,13 @@
  * exact decimal string; the app formats for display and never does arithmetic on floats it sends back.
  */
 
-export type EditionId = 'ashrae-90.1-2013' | 'ashrae-90.1-2016' | 'ashrae-90.1-2019' | 'ashrae-90.1-2022' | 'iecc-2018' | 'iecc-2021' | 'iecc-2024';
-export type ComplianceMethod = 'building-area' | 'space-by-space';
-export type UnitSystem = 'ip' | 'si';
+import type { ComplianceMethod, EditionId, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
+import type { Citation, EvaluationResult, Verdict } from '../../../../../contract/result';
+
+export type { ComplianceMethod, EditionId, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
 export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
 export type ProjectState = 'draft' | 'in-review' | 'returned' | 'accepted' | 'issued';
-export type RequirementCode = 'required' | 'not-required' | 'to-verify' | `one-of:${string}`;
-export type LuminaireUse = 'general' | 'decorative' | 'display' | 'exempt';
 export type WattageBasis = 'rated' | 'line-voltage-track' | 'low-voltage-track' | 'current-limited';
-export type DaylightZoneKind = 'primary-sidelit' | 'secondary-sidelit' | 'toplit';
 export type Wall = 'north' | 'east' | 'south' | 'west';
 export type ControlExceptionReason = 'security-or-emergency-continuous' | 'exit-stairway-ramp-passageway' | 'egress-normally-off' | 'other';
 
@@ -264,22 +262,7 @@ export interface EditionSummary {
   methods: ComplianceMethod[];
 }
 
-/**
- * What a code-table value rests on: the model code's own table or text; another edition's or a
- * state's text standing in for it; how a public modelling dataset reads the rule; or nothing checked yet.
- */
-export type CitationLayer = 'model-code' | 'other-edition-or-state' | 'modelling-dataset' | 'not-checked';
-
-/** How the service cites a value to people: in words, without the reference files' markers. */
-export interface Citation {
-  /** E.g. "IECC 2021 Table C405.3.2(2) — model code". */
-  short: string;
-  layer: CitationLayer;
-  /** Checked against a published source; the "verify" badge shows where this is false. */
-  checked: boolean;
-  /** The source's note in words, shown on demand. */
-  note: string | null;
-}
+export type { Citation, CitationLayer } from '../../../../../contract/result';
 
 /** The maintainers' provenance of a row (not for screens) and its citation (for screens). */
 export interface RowProvenance {
@@ -359,165 +342,26 @@ export interface LightingZoneView extends RowProvenance {
 }
 
 // ---------------------------------------------------------------- evaluation result
+// One schema, in the contract the service reads too: the types cannot drift from what is served.
 
-export type ControlStatus = 'met' | 'not-met' | 'exception-claimed' | 'to-verify' | 'not-required';
-
-export interface ControlLine {
-  strategy: string;
-  label: string;
-  requirement: RequirementCode;
-  met: boolean | null;
-  status: ControlStatus;
-  reason: string;
-  section: string;
-  verified: boolean;
-}
-
-export interface ZoneRectangleResult {
-  kind: DaylightZoneKind;
-  source: string;
-  x: string;
-  y: string;
-  length: string;
-  width: string;
-}
-
-export interface DaylightResult {
-  geometryEvaluated: boolean;
-  windowArea: string;
-  primarySidelitArea: string;
-  secondarySidelitArea: string;
-  toplitArea: string;
-  primarySidelitW: string;
-  secondarySidelitW: string;
-  toplitW: string;
-  sidelightingControlRequired: boolean;
-  secondarySidelightingControlRequired: boolean;
-  toplightingControlRequired: boolean;
-  reasons: string[];
-  zones: ZoneRectangleResult[];
-  section: string;
-}
-
-export interface UnverifiedValue {
-  /** Names the entry within one result; a space's `unverified` lists these. */
-  id: string;
-  what: string;
-  /** The short citation, in words. */
-  source: string;
-  /** The note in words (the short citation where there is none). */
-  note: string;
-  citation: Citation;
-}
-
-export interface SpaceResult {
-  id: string;
-  name: string;
-  level: string | null;
-  area: string;
-  lpdBasis: { kind: 'space-type' | 'building-area-type'; key: string; label: string };
-  allowanceW: string;
-  additionalAllowanceW: string;
-  installedW: string;
-  generalW: string;
-  decorativeW: string;
-  displayW: string;
-  exemptW: string;
-  allowedLpd: string;
-  installedLpd: string;
-  withinAllowance: boolean;
-  marginW: string;
-  marginPct: string | null;
-  /** 'none-entered': no luminaires yet and not confirmed unlit (the verdict waits); 'unlit': confirmed without lighting. */
-  lighting: 'entered' | 'none-entered' | 'unlit';
-  rcr: string | null;
-  roomGeometryIncreaseApplied: boolean;
-  luminaires: { tag: string; use: LuminaireUse; count: string; unitWatts: string; watts: string; basis: string; zone?: DaylightZoneKind; section: string }[];
-  daylight: DaylightResult;
-  controls: ControlLine[];
-  exempt: { tag: string; count: string; watts: string; reason: string; section: string }[];
-  /** The ids of the result's `unverifiedValues` this space's figures rest on. */
-  unverified: string[];
-  section: string;
-}
-
-export interface LevelResult {
-  level: string;
-  area: string;
-  allowanceW: string;
-  installedW: string;
-  marginW: string;
-}
-
-export interface InteriorResult {
-  section: string;
-  area: string;
-  allowanceW: string;
-  installedW: string;
-  exemptW: string;
-  decorativeW: string;
-  displayW: string;
-  marginW: string;
-  marginPct: string | null;
-  complies: boolean;
-  additional: {
-    lines: { allowance: string; label: string; spaceId: string; area: string; claimedW: string; section: string }[];
-    fixedW: string;
-    claimedW: string;
-    displayW: string;
-    usableW: string;
-  } | null;
-  spaces: SpaceResult[];
-  levels: LevelResult[] | null;
-}
-
-export interface ExteriorApplicationResult {
-  key: string;
-  label: string;
-  tradable: boolean;
-  unit: string;
-  quantity: string;
-  rate: string;
-  allowanceW: string;
-  installedW: string;
-  baseSiteUsedW: string;
-  /** Allowance plus the base site allowance used, less installed. */
-  marginW: string;
-  withinAllowance: boolean;
-  controls: ControlLine[];
-  section: string;
-}
-
-export interface ExteriorResult {
-  lightingZone: string;
-  section: string;
-  baseSiteAllowanceW: string;
-  allowanceW: string;
-  installedW: string;
-  complies: boolean;
-  tradable: { allowanceW: string; installedW: string; baseSiteUsedW: string; marginW: string; complies: boolean };
-  baseSiteRemainingW: string;
-  baseSiteCoversNontradable: boolean;
-  applications: ExteriorApplicationResult[];
-}
-
-/** 'incomplete' while something the verdict needs is missing, e.g. a space without luminaires. */
-export type Verdict = 'complies' | 'does-not-comply' | 'incomplete';
-
-export interface EvaluationResult {
-  edition: EditionId;
-  dataVersion: string;
-  method: ComplianceMethod;
-  units: UnitSystem;
-  complies: boolean;
-  verdict: Verdict;
-  openItems: { spacesWithoutLuminaires: number; controlsToVerify: number };
-  interior: InteriorResult;
-  exterior: ExteriorResult | null;
-  controlsComply: boolean;
-  unverifiedValues: UnverifiedValue[];
-  cautions: string[];
-}
+export type {
+  AdditionalAllowanceLine,
+  AdditionalAllowanceResult,
+  ControlLine,
+  ControlStatus,
+  DaylightResult,
+  EvaluationResult,
+  ExemptLine,
+  ExteriorApplicationResult,
+  ExteriorResult,
+  InteriorResult,
+  LevelResult,
+  LuminaireLine,
+  SpaceResult,
+  UnverifiedValue,
+  Verdict,
+  ZoneRectangleResult,
+} from '../../../../../contract/result';
 
 /** A sales-floor space's claim on one of the edition's additional allowances. */
 export interface AllowanceClaim extends Stamp {

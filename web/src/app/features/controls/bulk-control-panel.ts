@@ -103,7 +103,7 @@ export class BulkControlPanel {
   protected readonly strategies = computed(() => {
     const all = this.store.tables()?.controlStrategies ?? [];
     const results = this.store.resultBySpace();
-    const applied = new Set([...results.values()].flatMap((result) => result.controls.map((line) => line.strategy)));
+    const applied = new Set<string>([...results.values()].flatMap((result) => result.controls.map((line) => line.strategy)));
     const listed = applied.size > 0 ? all.filter((strategy) => applied.has(strategy.key)) : all.filter((strategy) => !strategy.key.startsWith('exterior-'));
     return listed.map((strategy) => {
       const needed = this.chosenSpaces().filter((space) => results.get(space.id)?.controls.some((line) => line.strategy === strategy.key && line.status !== 'not-required')).length;

@@ -78,6 +78,7 @@ export function evaluation(): EvaluationResult {
   return {
     edition: 'iecc-2021',
     dataVersion: 'test',
+    amendments: [],
     method: 'space-by-space',
     units: 'ip',
     complies: false,
