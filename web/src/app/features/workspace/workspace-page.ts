@@ -1,6 +1,6 @@
 import { NgTemplateOutlet } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { rxResource, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
 import { MatIconModule } from '@angular/material/icon';
@@ -12,7 +12,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
-import { filter, map, startWith } from 'rxjs';
+import { filter, map, startWith, tap } from 'rxjs';
 import { WriteFailure } from '../../shared/conflict';
 import { narrowScreen, phoneScreen, screenMatches } from '../../shared/media-queries';
 import { openCopyDialog } from '../projects/copy-project-dialog';
@@ -101,13 +101,11 @@ export class WorkspacePage {
     return openItemWords(result);
   });
 
-  constructor() {
-    effect(() => {
-      const id = this.projectId();
-      this.store.load(id).subscribe();
-      this.store.follow(id);
-    });
-  }
+  /** The project of the address: read when it changes (a newer one cancels the reading in flight), then followed. */
+  protected readonly loading = rxResource({
+    params: () => this.projectId(),
+    stream: ({ params: id }) => this.store.load(id).pipe(tap({ complete: () => this.store.follow(id) })),
+  });
 
   protected copy(): void {
     const project = this.store.project();
