@@ -22,6 +22,7 @@ import { WorkspaceApi } from '../workspace/workspace-api';
 import { DaylightPlan, zoneNames } from './daylight-plan';
 import { fieldMessage, openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
 import { askToDiscard } from '../../shared/confirm-dialog';
+import { MeasureInput } from '../../shared/measure-input';
 
 /** Windows and skylights per space, the daylight zones they make, and whether daylight-responsive control is required. */
 @Component({
@@ -39,6 +40,7 @@ import { askToDiscard } from '../../shared/confirm-dialog';
     MatTooltipModule,
     RouterLink,
     DaylightPlan,
+    MeasureInput,
   ],
   templateUrl: './daylight-page.html',
   styleUrl: './daylight-page.scss',

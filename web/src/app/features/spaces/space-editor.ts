@@ -23,6 +23,7 @@ import { densityInUnits, spaceInput } from './space-rows';
 import { canConfirmUnlit, emptySpace, fieldMessage, fillSpace, requireGeometry, requireHeightForFormula, spaceForm, spaceFromForm } from './space-form';
 import { SpaceTypePicker } from './space-type-picker';
 import { askToDiscard } from '../../shared/confirm-dialog';
+import { MeasureInput } from '../../shared/measure-input';
 
 export interface SpaceEditorData {
   projectId: string;
@@ -54,6 +55,7 @@ export interface SpaceEditorData {
     SpaceTypePicker,
     InUnits,
     VerifyBadge,
+    MeasureInput,
   ],
   templateUrl: './space-editor.html',
   // A hint or message that wraps pushes the next row down instead of running over its label.
