@@ -1,7 +1,10 @@
-import { readMeasure, siteNotation } from './measure';
+import { loadMath, readMeasure, siteNotation } from './measure';
 
 // Conversions are exact by definition: 1 ft = 0.3048 m and 1 in = 1/12 ft (international yard and pound, 1959).
 describe('readMeasure', () => {
+  // mathjs is its own chunk, loaded once: slow on a loaded machine, so before the tests and with time to spare.
+  beforeAll(() => loadMath().then(() => undefined), 60_000);
+
   it('leaves a plain number as it was typed', async () => {
     expect(await readMeasure('12.50', 'length', 'ip')).toEqual({ kind: 'value', value: '12.50' });
   });
