@@ -9,3 +9,8 @@ export function createDatabase(connectionString: string, poolMax = 10): Database
     pool: { min: 0, max: poolMax },
   });
 }
+
+/** Answers when the database does; throws when it does not (the health check). */
+export async function ping(db: Database): Promise<void> {
+  await db.raw('select 1');
+}

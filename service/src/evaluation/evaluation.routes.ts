@@ -1,10 +1,8 @@
 import { Router } from 'express';
 import type { Database } from '../db/database.js';
-import { projectDocument } from '../design/project-document.js';
 import { requireProjectAction } from '../http/project-access.js';
-import { compareProject, evaluateDocument } from './evaluation.service.js';
+import { compareProject, evaluateDocument, projectResults } from './evaluation.service.js';
 import { openApiDocument } from './openapi.js';
-import { keepResultSummary } from '../projects/projects.repository.js';
 
 /** `POST /api/evaluate`: stateless, stores nothing. */
 export function evaluateRouter(db: Database): Router {
@@ -19,12 +17,7 @@ export function evaluateRouter(db: Database): Router {
 export function projectResultsRouter(db: Database): Router {
   const router = Router({ mergeParams: true });
   router.get('/results', requireProjectAction(db, 'read'), async (req, res) => {
-    const projectId = req.projectAccess!.projectId;
-    // Read as text: a JavaScript Date would drop the microseconds the comparison below needs.
-    const { design_at: designAt } = await db('projects').where({ id: projectId }).first<{ design_at: string }>(db.raw('updated_at::text as design_at'));
-    const result = await evaluateDocument(db, await projectDocument(db, projectId));
-    await keepResultSummary(db, projectId, designAt, { complies: result.complies, verdict: result.verdict, marginPct: result.interior.marginPct, dataVersion: result.dataVersion });
-    res.json(result);
+    res.json(await projectResults(db, req.projectAccess!.projectId));
   });
   /** The same design under every other edition the tables hold, side by side with its own. */
   router.get('/comparison', requireProjectAction(db, 'read'), async (req, res) => {

@@ -5,6 +5,7 @@ import { projectDocument } from '../design/project-document.js';
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
+import { designChangedAt, keepResultSummary } from '../projects/projects.repository.js';
 
 /** Said above the list of problems, each of which names its field and what to do about it. */
 export const notComputedMessage = 'The results cannot be computed until the problems below are fixed.';
@@ -28,6 +29,18 @@ export async function evaluateDocument(db: Database, input: unknown): Promise<Ev
     throw AppError.badRequest(notComputedMessage, outcome.problems);
   }
   return evaluate(outcome.document, tables);
+}
+
+/**
+ * A stored project's result (GET /api/projects/:id/results), with its verdict kept for the project
+ * lists when no write landed while it was computed.
+ */
+export async function projectResults(db: Database, projectId: string): Promise<EvaluationResult> {
+  const designAt = await designChangedAt(db, projectId);
+  if (designAt === null) throw AppError.notFound('No such project.');
+  const result = await evaluateDocument(db, await projectDocument(db, projectId));
+  await keepResultSummary(db, projectId, designAt, { complies: result.complies, verdict: result.verdict, marginPct: result.interior.marginPct, dataVersion: result.dataVersion });
+  return result;
 }
 
 /**

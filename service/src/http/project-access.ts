@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { Database } from '../db/database.js';
-import type { ProjectMemberRow, ProjectRole } from '../db/tables.js';
+import type { ProjectRole } from '../db/tables.js';
+import { projectMembership } from '../projects/projects.repository.js';
 import { AppError } from './app-error.js';
 import { currentSession } from './session.js';
 import { isUuid } from './validate.js';
@@ -46,12 +47,10 @@ export function requireProjectAction(db: Database, action: ProjectAction): Reque
     if (!isUuid(projectId)) {
       throw AppError.notFound('No such project.');
     }
-    const project = await db('projects').where({ id: projectId }).first('id');
-    if (!project) {
+    const { exists, role } = await projectMembership(db, projectId, user.id);
+    if (!exists) {
       throw AppError.notFound('No such project.');
     }
-    const membership = await db<ProjectMemberRow>('project_members').where({ project_id: projectId, user_id: user.id }).first();
-    const role = membership?.role ?? null;
     if (!user.isAdmin && role === null) {
       throw AppError.forbidden('You are not a member of this project.');
     }

@@ -5,7 +5,7 @@ import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import { updateVersioned } from '../db/optimistic.js';
 import { lockProject } from '../db/project-lock.js';
-import type { ProjectRole } from '../db/tables.js';
+import type { ProjectMemberRow, ProjectRole } from '../db/tables.js';
 import { AppError } from '../http/app-error.js';
 import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
 import { permitColumns, type ProjectCreate, type ProjectSetupPatch } from './projects.schema.js';
@@ -181,6 +181,23 @@ function setupColumns(input: Partial<ProjectCreate>): Record<string, unknown> {
  * Keeps the verdict of an evaluation for the project list, unless the design changed while it was
  * being computed (then the stored project no longer matches and nothing is kept).
  */
+/**
+ * When the project's design last changed, as PostgreSQL's text (a JavaScript Date would drop the
+ * microseconds that `keepResultSummary` compares); null for no such project.
+ */
+export async function designChangedAt(db: Database, projectId: string): Promise<string | null> {
+  const row = await db('projects').where({ id: projectId }).first<{ design_at: string } | undefined>(db.raw('updated_at::text as design_at'));
+  return row?.design_at ?? null;
+}
+
+/** Whether the project exists, and the person's role on it (null when not a member). */
+export async function projectMembership(db: Database, projectId: string, userId: string): Promise<{ exists: boolean; role: ProjectRole | null }> {
+  const project = await db('projects').where({ id: projectId }).first('id');
+  if (!project) return { exists: false, role: null };
+  const membership = await db<ProjectMemberRow>('project_members').where({ project_id: projectId, user_id: userId }).first('role');
+  return { exists: true, role: membership?.role ?? null };
+}
+
 export async function keepResultSummary(db: Database, projectId: string, designAt: string, summary: ResultSummary): Promise<void> {
   await db('projects').where({ id: projectId }).whereRaw('updated_at = ?::timestamptz', [designAt]).update({ result_summary: JSON.stringify(summary) });
 }
