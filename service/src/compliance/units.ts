@@ -6,7 +6,7 @@ import type { UnitSystem } from '../../../contract/editions.js';
 
 export type { UnitSystem } from '../../../contract/editions.js';
 
-const math = create(all, { number: 'BigNumber', precision: 64 });
+const math = create(all!, { number: 'BigNumber', precision: 64 });
 
 /** Exact conversion factor taken from mathjs's unit definitions (1 ft = 0.3048 m). */
 function factor(from: string, to: string): Dec {

@@ -17,7 +17,7 @@ let loaded: Promise<MathInstance> | null = null;
 
 /** mathjs, loaded on first use (its own chunk), with exact decimals: 1 ft = 0.3048 m and 1 in = 1/12 ft exactly. */
 export function loadMath(): Promise<MathInstance> {
-  loaded ??= import('mathjs').then(({ all, create }) => create(all, { number: 'BigNumber', precision: 64 }));
+  loaded ??= import('mathjs').then(({ all, create }) => create(all!, { number: 'BigNumber', precision: 64 }));
   return loaded;
 }
 

@@ -15,7 +15,7 @@ describe('daylight plan geometry', () => {
     );
     expect(plan.scale).toBe(10);
     expect(plan.room).toEqual({ x: planPadding.left, y: planPadding.top, width: 600, height: 400 });
-    const [zone] = plan.zones;
+    const zone = plan.zones[0]!;
     expect(zone).toMatchObject({ x: planPadding.left + 40, width: 160, height: 100, label: 'Primary' });
     // The zone sits on the south wall, so its bottom edge is the room's bottom edge.
     expect(zone.y + zone.height).toBe(planPadding.top + 400);
@@ -23,7 +23,7 @@ describe('daylight plan geometry', () => {
 
   it('draws an east window on the right-hand wall, its offset from the south end', () => {
     const plan = planGeometry({ ...room, windows: [{ wall: 'east', width: '10', headHeight: '8', offset: '5' }], skylights: [], zones: [] }, 600, 400);
-    const [window] = plan.windows;
+    const window = plan.windows[0]!;
     expect(window.x1).toBe(planPadding.left + 600);
     expect(window.x2).toBe(planPadding.left + 600);
     expect([window.y1, window.y2]).toEqual([planPadding.top + 350, planPadding.top + 250]);
@@ -31,7 +31,7 @@ describe('daylight plan geometry', () => {
 
   it('centres a window with no offset, as the engine does', () => {
     const plan = planGeometry({ ...room, windows: [{ wall: 'south', width: '20', headHeight: '8' }], skylights: [], zones: [] }, 600, 400);
-    expect([plan.windows[0].x1, plan.windows[0].x2]).toEqual([planPadding.left + 200, planPadding.left + 400]);
+    expect([plan.windows[0]!.x1, plan.windows[0]!.x2]).toEqual([planPadding.left + 200, planPadding.left + 400]);
   });
 
   it('picks a round scale bar of about a quarter of the room', () => {

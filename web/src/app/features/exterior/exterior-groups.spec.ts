@@ -54,7 +54,7 @@ describe('exterior grouping', () => {
   it('pools the tradable applications, the base site allowance covering their excess', () => {
     const groups = exteriorGroups(exterior, []);
     expect(groups.tradable.lines.map((line) => line.result.key)).toEqual(['parking-lots-and-drives']);
-    expect(groups.tradable.lines[0].status).toBeNull();
+    expect(groups.tradable.lines[0]!.status).toBeNull();
     // 480 W allowed + 80 W of the base site allowance − 560 W installed: 0 W, and the words agree.
     expect(groups.tradable.marginW).toBe('0');
     expect(groups.tradable.status).toMatchObject({ label: 'Within allowance', words: '0 W to spare' });
@@ -63,8 +63,8 @@ describe('exterior grouping', () => {
   it('holds each nontradable application to its own allowance', () => {
     const groups = exteriorGroups(exterior, []);
     expect(groups.nontradable).toHaveLength(1);
-    expect(groups.nontradable[0].marginW).toBe('-420');
-    expect(groups.nontradable[0].status).toMatchObject({ label: 'Over allowance', words: '420 W over' });
+    expect(groups.nontradable[0]!.marginW).toBe('-420');
+    expect(groups.nontradable[0]!.status).toMatchObject({ label: 'Over allowance', words: '420 W over' });
   });
 
   it('totals allowance, installed and margin for the site', () => {

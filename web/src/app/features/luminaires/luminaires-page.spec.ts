@@ -78,7 +78,7 @@ describe('LuminairesPage', () => {
 
     Array.from(snackBar()!.querySelectorAll<HTMLButtonElement>('button')).find((button) => button.textContent?.includes('Undo'))!.click();
     http.expectNone((request) => request.method === 'POST' && request.url === '/api/projects/p1/luminaire-types');
-    http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/luminaire-types/t1/restore').flush(types[0], { status: 201, statusText: 'Created' });
+    http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/luminaire-types/t1/restore').flush(types[0]!, { status: 201, statusText: 'Created' });
     await fixture.whenStable();
     expect(store.luminaireTypes().map((type) => type.id)).toEqual(['t1', 't2', 't3']);
   });

@@ -39,8 +39,8 @@ describe('ResultsSummary', () => {
   it('lists each unmet control requirement with a link to its space on the Controls page', () => {
     const items = Array.from(element.querySelectorAll('.unmet li'));
     expect(items).toHaveLength(1);
-    expect(items[0].textContent).toContain('Not met');
-    const link = items[0].querySelector('a')!;
+    expect(items[0]!.textContent).toContain('Not met');
+    const link = items[0]!.querySelector('a')!;
     expect(link.textContent).toContain('Storage: Light-reduction control');
     expect(link.getAttribute('href')).toContain('controls?space=s2');
     expect(unmetControls(evaluation()).map((item) => item.key)).toEqual(['s2:light-reduction']);
@@ -49,7 +49,7 @@ describe('ResultsSummary', () => {
   it('lists a design failing only on exterior controls as that, each application linked to the Exterior page', async () => {
     // Invented result: the interior passes; one exterior application has its daylight shutoff not met.
     const result = evaluation();
-    result.interior.spaces[1] = { ...result.interior.spaces[1], controls: [] };
+    result.interior.spaces[1] = { ...result.interior.spaces[1]!, controls: [] };
     result.exterior = {
       lightingZone: '2',
       section: 'C405.5.2',
@@ -84,8 +84,8 @@ describe('ResultsSummary', () => {
     expect(text('.verdict')).not.toContain('0 control requirements');
     const reasons = Array.from(element.querySelectorAll('.reasons > li'));
     expect(reasons.map((reason) => reason.getAttribute('data-kind'))).toEqual(['exterior-controls']);
-    expect(reasons[0].textContent).toContain('Parking lots and drives: Exterior daylight shutoff not met (C405.2.7.1)');
-    expect(reasons[0].querySelector('ul a')?.getAttribute('href')).toContain('/exterior');
+    expect(reasons[0]!.textContent).toContain('Parking lots and drives: Exterior daylight shutoff not met (C405.2.7.1)');
+    expect(reasons[0]!.querySelector('ul a')?.getAttribute('href')).toContain('/exterior');
     expect(verdictReasons(result).map((reason) => reason.kind)).toEqual(['exterior-controls']);
   });
 
@@ -109,8 +109,8 @@ describe('ResultsSummary', () => {
     };
     const reasons = verdictReasons(result);
     expect(reasons.map((reason) => reason.kind)).toEqual(['interior-power', 'interior-controls', 'exterior-power']);
-    expect(reasons[0].items.map((item) => [item.text, item.link])).toEqual([['Storage: 30 W over its allowance', { page: 'spaces', query: { space: 's2' } }]]);
-    expect(reasons[2].items.map((item) => item.text)).toEqual(['Tradable applications together: 200 W over their pooled allowance', 'Building facades: 100 W over its own allowance']);
+    expect(reasons[0]!.items.map((item) => [item.text, item.link])).toEqual([['Storage: 30 W over its allowance', { page: 'spaces', query: { space: 's2' } }]]);
+    expect(reasons[2]!.items.map((item) => item.text)).toEqual(['Tradable applications together: 200 W over their pooled allowance', 'Building facades: 100 W over its own allowance']);
   });
 
   it('holds the verdict back for a space without luminaires, linked to it, with both ways out', async () => {
@@ -118,7 +118,7 @@ describe('ResultsSummary', () => {
     result.verdict = 'incomplete';
     result.complies = false;
     result.controlsComply = true;
-    result.interior.spaces = [result.interior.spaces[0], { ...result.interior.spaces[1], controls: [], lighting: 'none-entered', installedW: '0', marginW: '500', marginPct: '100', withinAllowance: true }];
+    result.interior.spaces = [result.interior.spaces[0]!, { ...result.interior.spaces[1]!, controls: [], lighting: 'none-entered', installedW: '0', marginW: '500', marginPct: '100', withinAllowance: true }];
     result.openItems = { spacesWithoutLuminaires: 1, controlsToVerify: 0 };
     fixture.componentRef.setInput('result', result);
     fixture.componentRef.setInput('canEdit', true);
@@ -139,8 +139,8 @@ describe('ResultsSummary', () => {
     result.verdict = 'incomplete';
     result.complies = false;
     result.controlsComply = true;
-    const open = { ...result.interior.spaces[0].controls[0], status: 'to-verify' as const, met: null, label: 'Occupant sensor control', reason: 'To verify: whether the room is enclosed is not recorded.' };
-    result.interior.spaces = [{ ...result.interior.spaces[0], controls: [open] }];
+    const open = { ...result.interior.spaces[0]!.controls[0]!, status: 'to-verify' as const, met: null, label: 'Occupant sensor control', reason: 'To verify: whether the room is enclosed is not recorded.' };
+    result.interior.spaces = [{ ...result.interior.spaces[0]!, controls: [open] }];
     result.openItems = { spacesWithoutLuminaires: 0, controlsToVerify: 1 };
     fixture.componentRef.setInput('result', result);
     await fixture.whenStable();
@@ -153,8 +153,8 @@ describe('ResultsSummary', () => {
 
   it('shows each level with its status, the excess in watts where over', () => {
     const rows = Array.from(element.querySelectorAll('.levels tbody tr')).map((row) => row.textContent?.replace(/\s+/g, ' '));
-    expect(rows[0]).toContain('Within allowance, 200 W to spare');
-    expect(rows[1]).toContain('Over allowance, 30 W over');
+    expect(rows[0]!).toContain('Within allowance, 200 W to spare');
+    expect(rows[1]!).toContain('Over allowance, 30 W over');
   });
 
   it('lists the unverified values with their badge and short citation, the note on demand in the project units', async () => {

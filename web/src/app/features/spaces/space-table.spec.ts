@@ -114,7 +114,7 @@ describe('the space table', () => {
     await fixture.whenStable();
     expect(element.querySelectorAll('.status.within, .status.over').length).toBe(0);
     expect(rowText('Office 101')).toContain('Updating…');
-    expect(spaceStatus(evaluation.interior.spaces[1], 'updating')).toEqual({ kind: 'updating' });
+    expect(spaceStatus(evaluation.interior.spaces[1]!, 'updating')).toEqual({ kind: 'updating' });
   });
 
   it('renders only the rows in view when the project has 5,000 spaces', async () => {
@@ -145,7 +145,7 @@ describe('the space table', () => {
     // The restore route, not a new space: the same id keeps its history and the counts that name it.
     http.expectNone((request) => request.method === 'POST' && request.url === '/api/projects/p1/spaces');
     const restore = http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/spaces/s3/restore');
-    restore.flush(spaces[2], { status: 201, statusText: 'Created' });
+    restore.flush(spaces[2]!, { status: 201, statusText: 'Created' });
     await fixture.whenStable();
     expect(store.spaces().map((kept) => kept.id)).toEqual(['s1', 's2', 's3']);
     expect(rowText('Store 102')).toContain('Storage Room');
