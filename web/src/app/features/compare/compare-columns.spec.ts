@@ -179,6 +179,13 @@ describe('placesWords', () => {
     expect(placesWords(of('Reading room', 'Stacks'), names)).toBe('2 spaces: Reading room, Stacks');
     expect(placesWords([...of('Corridor'), { place: 'Parking lots', exterior: true }], names)).toBe('Corridor; Parking lots (exterior)');
   });
+
+  it('names the first spaces of a long list and counts the rest', () => {
+    const many = Array.from({ length: 100 }, (_, index) => `Store ${index + 1}`);
+    const words = placesWords(many.slice(0, 60).map((place) => ({ place, exterior: false })), many);
+    expect(words).toMatch(/^60 spaces: Store 1, Store 2, .*Store 40 and 20 more$/);
+    expect(words).not.toContain('Store 41');
+  });
 });
 
 describe('changeGroups', () => {

@@ -160,7 +160,13 @@ function verdictOf(comparison: EditionComparison): EditionColumn['verdict'] {
   return { icon: 'warning', words: 'Does not comply', detail: reasons.join('; ') };
 }
 
-/** The spaces a change applies to, in words: every space, every space but a few, or each by name; exterior applications after. */
+/** Names a change lists before it counts the rest: a large project's list would bury the column. */
+export const namedPlaces = 40;
+
+/**
+ * The spaces a change applies to, in words: every space, every space but a few, or each by name
+ * (the first {@link namedPlaces}, then how many more); exterior applications after.
+ */
 export function placesWords(places: readonly { place: string; exterior: boolean }[], spaceNames: readonly string[]): string {
   const spaces = places.filter((entry) => !entry.exterior).map((entry) => entry.place);
   const exterior = places.filter((entry) => entry.exterior).map((entry) => `${entry.place} (exterior)`);
@@ -170,6 +176,7 @@ export function placesWords(places: readonly { place: string; exterior: boolean 
   if (spaces.length === 1) words = spaces[0]!;
   else if (spaces.length > 1 && others.length === 0 && spaces.length === spaceNames.length) words = `all ${spaces.length} spaces`;
   else if (spaces.length > 1 && others.length <= 3 && others.length < spaces.length) words = `${spaces.length} spaces: all but ${others.join(', ')}`;
+  else if (spaces.length > namedPlaces) words = `${spaces.length} spaces: ${spaces.slice(0, namedPlaces).join(', ')} and ${spaces.length - namedPlaces} more`;
   else if (spaces.length > 1) words = `${spaces.length} spaces: ${spaces.join(', ')}`;
   return [words, ...exterior].filter(Boolean).join('; ');
 }
