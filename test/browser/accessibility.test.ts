@@ -73,16 +73,29 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
     expect(await seriousViolations()).toEqual([]);
   });
 
-  for (const area of ['setup', 'spaces', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'results', 'history']) {
+  for (const area of ['setup', 'spaces', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'results', 'compare', 'history']) {
     it(`the ${area} page`, async () => {
       const { page } = browser;
       await page.goto(`${projectUrl}/${area}`);
       await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
-      // The history arrives apart from the design: wait for its entries.
+      // The history and the comparison arrive apart from the design: wait for them.
       if (area === 'history') await page.locator('.entry').first().waitFor();
+      if (area === 'compare') await page.getByTestId('edition-column').first().waitFor();
       expect(await seriousViolations()).toEqual([]);
     });
   }
+
+  it('the compare page in the dark colour scheme', async () => {
+    const { page } = browser;
+    await page.emulateMedia({ colorScheme: 'dark' });
+    try {
+      await page.goto(`${projectUrl}/compare`);
+      await page.getByTestId('edition-column').first().waitFor();
+      expect(await seriousViolations()).toEqual([]);
+    } finally {
+      await page.emulateMedia({ colorScheme: 'light' });
+    }
+  });
 
   it('the workspace and the sign-in page in the dark colour scheme', async () => {
     const { page } = browser;

@@ -82,6 +82,7 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
     ['Daylight', 'daylight'],
     ['Exterior', 'exterior'],
     ['Results', 'results'],
+    ['Compare', 'compare'],
     ['History', 'history'],
   ];
   for (const [label, path] of areas) {
@@ -104,6 +105,7 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
       // The history arrives apart from the design: wait for its entries.
       if (path === 'history') await page.locator('.entry').first().waitFor();
       if (path === 'results') await page.locator('td[data-label="Allowance (W)"]').first().waitFor();
+      if (path === 'compare') await page.getByTestId('edition-column').first().waitFor();
       await browser.screenshot(`phone-${path}`);
       expect(await sidewaysScroll()).toBeLessThanOrEqual(1);
       expect(await crampedParts()).toEqual([]);

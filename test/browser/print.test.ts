@@ -96,12 +96,14 @@ describe('printing a page of the workspace', { timeout: 60_000 }, () => {
     expect(pages.length).toBeGreaterThanOrEqual(3);
   });
 
-  for (const area of ['setup', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'history']) {
+  for (const area of ['setup', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'compare', 'history']) {
     it(`prints ${area} without the navigation`, async () => {
       const { page } = browser;
       await page.goto(`${projectUrl}/${area}`);
       const heading = page.locator('h2').first();
       await heading.waitFor();
+      // The comparison arrives apart from the design: print it once it is there.
+      if (area === 'compare') await page.getByTestId('edition-column').first().waitFor();
       await page.emulateMedia({ media: 'print' });
       await expect.poll(() => navigation().isVisible()).toBe(false);
       expect(await page.getByRole('button', { name: 'Sign out' }).isVisible()).toBe(false);

@@ -26,13 +26,14 @@ beforeAll(async () => {
 afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 describe('the workspace at a tablet width (800 px)', () => {
-  for (const area of ['spaces', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'results', 'history']) {
+  for (const area of ['spaces', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'results', 'compare', 'history']) {
     it(`lays out ${area} without a sideways scroll of the page`, async () => {
       const { page } = browser;
       await page.goto(`${projectUrl}/${area}`);
       await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
       // The history arrives apart from the design: wait for its entries.
       if (area === 'history') await page.locator('.entry').first().waitFor();
+      if (area === 'compare') await page.getByTestId('edition-column').first().waitFor();
       const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
       await browser.screenshot(`tablet-${area}`);
       expect(overflow).toBeLessThanOrEqual(1);

@@ -25,16 +25,65 @@ interface Comparison {
   unmapped: { what: string; name: string; type: string }[];
   remapped: { space: string; from: string; to: string }[];
   controlsNotCarried: string[];
-  result: { verdict: string; allowanceW: string; installedW: string; controls: { met: number; notMet: number; toVerify: number }; open: unknown[] } | null;
+  controlChanges: { place: string; exterior: boolean; changes: { control: string; requirement: string; before: string; status: string; section: string }[] }[];
+  result: {
+    verdict: string;
+    units: string;
+    area: string;
+    allowanceW: string;
+    installedW: string;
+    marginW: string;
+    allowanceLpd: string | null;
+    installedLpd: string | null;
+    interiorComplies: boolean;
+    exterior: { allowanceW: string; installedW: string; marginW: string; complies: boolean } | null;
+    controls: { met: number; notMet: number; toVerify: number };
+    open: unknown[];
+    unverifiedValues: number;
+  } | null;
+}
+
+interface Results {
+  verdict: string;
+  units: string;
+  interior: { area: string; allowanceW: string; installedW: string; marginW: string; complies: boolean; spaces: { name: string; controls: { label: string; requirement: string }[] }[] };
+  exterior: { allowanceW: string; installedW: string; complies: boolean } | null;
+  unverifiedValues: unknown[];
+  cautions: string[];
+}
+
+/** The figures the page beside the project's own Results page must agree with. */
+function expectSummaryOf(comparison: Comparison, results: Results): void {
+  expect(comparison.result).toMatchObject({
+    verdict: results.verdict,
+    units: results.units,
+    area: results.interior.area,
+    allowanceW: results.interior.allowanceW,
+    installedW: results.interior.installedW,
+    marginW: results.interior.marginW,
+    interiorComplies: results.interior.complies,
+    unverifiedValues: results.unverifiedValues.length,
+  });
+  expect(comparison.result!.exterior).toEqual({
+    allowanceW: results.exterior!.allowanceW,
+    installedW: results.exterior!.installedW,
+    marginW: String(Number((Number(results.exterior!.allowanceW) - Number(results.exterior!.installedW)).toFixed(1))),
+    complies: results.exterior!.complies,
+  });
+  // Watts over the counted floor area, reported to 0.001 as the results report densities.
+  expect(Number(comparison.result!.allowanceLpd)).toBeCloseTo(Number(results.interior.allowanceW) / Number(results.interior.area), 3);
+  expect(Number(comparison.result!.installedLpd)).toBeCloseTo(Number(results.interior.installedW) / Number(results.interior.area), 3);
 }
 
 describe('GET /api/projects/:id/comparison', () => {
   it('sets the demo beside every other edition, mapping each space type through the rows the tables record as equal', async () => {
     const response = await engineer.agent.get(`/api/projects/${demoId}/comparison`);
     expect(response.status).toBe(200);
-    const { current, editions } = response.body as { current: Comparison; editions: Comparison[] };
-    const results = (await engineer.agent.get(`/api/projects/${demoId}/results`)).body;
-    expect(current).toMatchObject({ edition: 'iecc-2021', status: 'evaluated', result: { verdict: results.verdict, allowanceW: results.interior.allowanceW, installedW: results.interior.installedW } });
+    const { current, editions, cautions } = response.body as { current: Comparison; editions: Comparison[]; cautions: string[] };
+    const results = (await engineer.agent.get(`/api/projects/${demoId}/results`)).body as Results;
+    expect(current).toMatchObject({ edition: 'iecc-2021', status: 'evaluated', controlChanges: [] });
+    expectSummaryOf(current, results);
+    expect(cautions).toEqual(results.cautions);
     expect(editions.map((edition) => edition.edition)).toEqual(expect.arrayContaining(['ashrae-90.1-2019', 'ashrae-90.1-2022']));
 
     const ashrae = editions.find((edition) => edition.edition === 'ashrae-90.1-2019')!;
@@ -46,7 +95,50 @@ describe('GET /api/projects/:id/comparison', () => {
     // The IECC controls recorded (occupant sensors, time switches, light reduction) are not 90.1's: said, not carried.
     expect(ashrae.controlsNotCarried).toEqual(expect.arrayContaining([expect.stringMatching(/occupant sensor/i)]));
     expect(ashrae.result!.controls.notMet + ashrae.result!.controls.toVerify).toBeGreaterThan(0);
+    expect(ashrae.result).toMatchObject({ units: 'ip', area: results.interior.area });
     expect(JSON.stringify(response.body)).not.toMatch(/\u0000/);
+  });
+
+  it('names, per space, each control whose requirement is not the one under the project\'s own edition', async () => {
+    const { editions } = (await engineer.agent.get(`/api/projects/${demoId}/comparison`)).body as { editions: Comparison[] };
+    const results = (await engineer.agent.get(`/api/projects/${demoId}/results`)).body as Results;
+    const ownRequirement = (space: string, control: string) => {
+      const line = results.interior.spaces.find((candidate) => candidate.name === space)?.controls.find((candidate) => candidate.label === control);
+      if (!line || line.requirement === 'not-required') return 'not-required';
+      return line.requirement === 'to-verify' ? 'to-verify' : 'required';
+    };
+    const ashrae = editions.find((edition) => edition.edition === 'ashrae-90.1-2019')!;
+    expect(ashrae.controlChanges.length).toBeGreaterThan(0);
+    for (const { place, exterior, changes } of ashrae.controlChanges) {
+      expect(changes.length).toBeGreaterThan(0);
+      for (const change of changes) {
+        expect(change.requirement).not.toBe(change.before);
+        if (!exterior) expect(change.before, `${place}: ${change.control}`).toBe(ownRequirement(place, change.control));
+      }
+    }
+    const changes = ashrae.controlChanges.flatMap((entry) => entry.changes);
+    // Occupant sensors are an IECC 2021 §C405.2.1 strategy (reference/iecc-2021/control-strategies.json)
+    // that 90.1-2019 does not list; its §9.4.1.1(h) automatic full OFF (reference/ashrae-90.1-2019/
+    // control-strategies.json, via PNNL ConStrain) is required in their place.
+    expect(changes).toEqual(expect.arrayContaining([expect.objectContaining({ control: 'Occupant sensor', before: 'required', requirement: 'not-required' })]));
+    expect(changes).toEqual(expect.arrayContaining([expect.objectContaining({ control: 'Automatic full OFF', before: 'not-required', requirement: 'required' })]));
+    // What the tables cannot settle stays to verify: never listed as not required.
+    const undecided = changes.filter((entry) => entry.status === 'to-verify');
+    expect(undecided.length).toBeGreaterThan(0);
+    for (const change of undecided) expect(change.requirement).not.toBe('not-required');
+  });
+
+  it('reports an SI project in m² and W/m²', async () => {
+    const copy = await engineer.agent.post(`/api/projects/${demoId}/copy`).set('X-CSRF-Token', engineer.csrfToken).send({ name: 'Alder Bay in SI' });
+    expect(copy.status).toBe(201);
+    const detail = (await engineer.agent.get(`/api/projects/${copy.body.id}`)).body as { version: number };
+    const converted = await engineer.agent.patch(`/api/projects/${copy.body.id}`).set('X-CSRF-Token', engineer.csrfToken).send({ version: detail.version, units: 'si' });
+    expect(converted.status).toBe(200);
+    const { current, editions } = (await engineer.agent.get(`/api/projects/${copy.body.id}/comparison`)).body as { current: Comparison; editions: Comparison[] };
+    const results = (await engineer.agent.get(`/api/projects/${copy.body.id}/results`)).body as Results;
+    expect(results.units).toBe('si');
+    expectSummaryOf(current, results);
+    for (const edition of editions.filter((entry) => entry.result)) expect(edition.result).toMatchObject({ units: 'si', area: results.interior.area });
   });
 
   it('lists what does not map instead of guessing', async () => {

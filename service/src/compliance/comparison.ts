@@ -2,8 +2,8 @@ import type { DocumentProblem, EvaluationDocumentInput } from './document.js';
 import { validateDocument } from './document.js';
 import type { EditionData } from './edition-data.js';
 import { evaluate } from './evaluate.js';
-import { dec } from './numbers.js';
-import type { ControlStatus, EvaluationResult } from './result.js';
+import { dec, reported } from './numbers.js';
+import type { ControlLine, ControlStatus, EvaluationResult } from './result.js';
 import { satisfies, sizeCondition } from './size-conditions.js';
 import { areaToSquareFeet, type UnitSystem } from './units.js';
 
@@ -20,6 +20,26 @@ export interface MappedRow {
   to: string;
 }
 
+/** Where a control is required, not required, or to verify: one of a set of alternatives counts as required. */
+export type RequirementKind = 'required' | 'not-required' | 'to-verify';
+
+/** The control lines of one space (or exterior application) whose requirement differs from the project's own edition. */
+export interface ControlChange {
+  /** The space's or exterior application's name. */
+  place: string;
+  exterior: boolean;
+  changes: {
+    control: string;
+    /** Under this edition; a control the edition does not list for the place is not required there. */
+    requirement: RequirementKind;
+    /** Under the project's own edition. */
+    before: RequirementKind;
+    /** The line's status under this edition ('not-required' where the edition has no such line). */
+    status: ControlStatus;
+    section: string;
+  }[];
+}
+
 export interface EditionComparison {
   edition: string;
   title: string;
@@ -31,17 +51,29 @@ export interface EditionComparison {
   remapped: MappedRow[];
   /** Controls recorded for the project's edition that this edition does not have. */
   controlsNotCarried: string[];
+  /** Per space, the controls whose requirement is not the same as under the project's own edition (none for the own edition). */
+  controlChanges: ControlChange[];
   problems: DocumentProblem[];
   result: {
     verdict: 'complies' | 'does-not-comply' | 'incomplete';
+    units: UnitSystem;
+    /** The floor area the allowance counts, in the project's units (ft² or m²). */
+    area: string;
     allowanceW: string;
     installedW: string;
     marginW: string;
     marginPct: string | null;
-    exterior: { allowanceW: string; installedW: string; complies: boolean } | null;
+    /** Watts per ft² or m² of that area; null without any. */
+    allowanceLpd: string | null;
+    installedLpd: string | null;
+    /** Interior power alone: installed within the allowance. */
+    interiorComplies: boolean;
+    exterior: { allowanceW: string; installedW: string; marginW: string; complies: boolean } | null;
     controls: { met: number; notMet: number; toVerify: number };
     /** The control lines that fail or wait, by space: what changes under this edition. */
     open: { space: string; control: string; status: ControlStatus; section: string }[];
+    /** How many values the evaluation used that are not checked against a published source. */
+    unverifiedValues: number;
   } | null;
 }
 
@@ -106,13 +138,14 @@ function fittingRow(to: EditionData, key: string, area: unknown, rooms: unknown,
   return sibling?.key ?? key;
 }
 
-export function compareEditions(document: EvaluationDocumentInput, from: EditionData, targets: readonly EditionData[]): EditionComparison[] {
+/** `own` is the design's evaluation under `from`, which every other edition's control requirements are set against. */
+export function compareEditions(document: EvaluationDocumentInput, from: EditionData, targets: readonly EditionData[], own: EvaluationResult): EditionComparison[] {
   const all = [from, ...targets];
   const spaceEdges = equalities(all, 'space');
   const areaEdges = equalities(all, 'area');
   const units = document.units;
   return targets.map((to): EditionComparison => {
-    const comparison: EditionComparison = { edition: to.id, title: to.title, status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], problems: [], result: null };
+    const comparison: EditionComparison = { edition: to.id, title: to.title, status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], controlChanges: [], problems: [], result: null };
     const strategies = new Set<string>(to.controlStrategies.map((strategy) => strategy.key));
     const dropped = new Set<string>();
     const carry = <Control extends { strategy: string }>(controls: Control[] | undefined): Control[] =>
@@ -171,7 +204,9 @@ export function compareEditions(document: EvaluationDocumentInput, from: Edition
       comparison.problems = outcome.problems;
       return comparison;
     }
-    comparison.result = summary(evaluate(outcome.document, to));
+    const result = evaluate(outcome.document, to);
+    comparison.result = summary(result);
+    comparison.controlChanges = controlChanges(own, result);
     return comparison;
   });
 }
@@ -181,13 +216,23 @@ export function summary(result: EvaluationResult): NonNullable<EditionComparison
   const lines = result.interior.spaces.flatMap((space) => space.controls.map((line) => ({ space: space.name, line })));
   const exteriorLines = (result.exterior?.applications ?? []).flatMap((application) => application.controls.map((line) => ({ space: application.label, line })));
   const every = [...lines, ...exteriorLines];
+  const { interior, exterior } = result;
+  const area = dec(interior.area);
+  const density = (watts: string) => (area.isZero() ? null : reported.density(dec(watts).dividedBy(area)));
   return {
     verdict: result.verdict,
-    allowanceW: result.interior.allowanceW,
-    installedW: result.interior.installedW,
-    marginW: result.interior.marginW,
-    marginPct: result.interior.marginPct,
-    exterior: result.exterior ? { allowanceW: result.exterior.allowanceW, installedW: result.exterior.installedW, complies: result.exterior.complies } : null,
+    units: result.units,
+    area: interior.area,
+    allowanceW: interior.allowanceW,
+    installedW: interior.installedW,
+    marginW: interior.marginW,
+    marginPct: interior.marginPct,
+    allowanceLpd: density(interior.allowanceW),
+    installedLpd: density(interior.installedW),
+    interiorComplies: interior.complies,
+    exterior: exterior
+      ? { allowanceW: exterior.allowanceW, installedW: exterior.installedW, marginW: reported.watts(dec(exterior.allowanceW).minus(exterior.installedW)), complies: exterior.complies }
+      : null,
     controls: {
       met: every.filter(({ line }) => line.status === 'met' || line.status === 'exception-claimed').length,
       notMet: every.filter(({ line }) => line.status === 'not-met').length,
@@ -196,7 +241,41 @@ export function summary(result: EvaluationResult): NonNullable<EditionComparison
     open: every
       .filter(({ line }) => line.status === 'not-met' || line.status === 'to-verify')
       .map(({ space, line }) => ({ space, control: line.label, status: line.status, section: line.section })),
+    unverifiedValues: result.unverifiedValues.length,
   };
+}
+
+function requirementKind(line: ControlLine | undefined): RequirementKind {
+  if (line === undefined || line.requirement === 'not-required') return 'not-required';
+  return line.requirement === 'to-verify' ? 'to-verify' : 'required';
+}
+
+/**
+ * Per space and exterior application (matched by id and key: the same design under both), each
+ * control whose requirement under `other` is not the one under `own`: required, not required or to
+ * verify. A requirement not decided from the data stays "to verify" on either side.
+ */
+export function controlChanges(own: EvaluationResult, other: EvaluationResult): ControlChange[] {
+  const places = (result: EvaluationResult) => [
+    ...result.interior.spaces.map((space) => ({ id: `space:${space.id}`, place: space.name, exterior: false, lines: space.controls })),
+    ...(result.exterior?.applications ?? []).map((application) => ({ id: `exterior:${application.key}`, place: application.label, exterior: true, lines: application.controls })),
+  ];
+  const before = new Map(places(own).map((place) => [place.id, place.lines]));
+  return places(other).flatMap(({ id, place, exterior, lines }): ControlChange[] => {
+    const ownLines = before.get(id) ?? [];
+    const byStrategy = new Map(ownLines.map((line) => [line.strategy, line]));
+    const changes: ControlChange['changes'] = lines.flatMap((line) => {
+      const was = requirementKind(byStrategy.get(line.strategy));
+      const now = requirementKind(line);
+      return was === now ? [] : [{ control: line.label, requirement: now, before: was, status: line.status, section: line.section }];
+    });
+    const listed = new Set(lines.map((line) => line.strategy));
+    for (const line of ownLines) {
+      if (listed.has(line.strategy) || requirementKind(line) === 'not-required') continue;
+      changes.push({ control: line.label, requirement: 'not-required', before: requirementKind(line), status: 'not-required', section: line.section });
+    }
+    return changes.length === 0 ? [] : [{ place, exterior, changes }];
+  });
 }
 
 function labelOf(edition: EditionData, kind: Kind, key: string): string {

@@ -45,16 +45,18 @@ export async function projectResults(db: Database, projectId: string): Promise<E
 
 /**
  * The stored project under its own edition and under every other edition loaded, mapped row by
- * row (GET /api/projects/:id/comparison). The project's own evaluation keeps its amendments.
+ * row (GET /api/projects/:id/comparison), with the cautions of its own evaluation. The project's own
+ * evaluation keeps its amendments, and every other edition's control requirements are set against it.
  */
-export async function compareProject(db: Database, projectId: string): Promise<{ current: EditionComparison; editions: EditionComparison[] }> {
+export async function compareProject(db: Database, projectId: string): Promise<{ current: EditionComparison; editions: EditionComparison[]; cautions: string[] }> {
   const document = await projectDocument(db, projectId);
   const own = await loadEditionData(db, document.edition);
   if (!own) throw AppError.badRequest('The project’s code edition is not loaded.');
   const others = (await Promise.all(editionIds.filter((id) => id !== own.id).map((id) => loadEditionData(db, id)))).filter((edition): edition is EditionData => edition !== undefined);
   const result = await evaluateDocument(db, document);
   return {
-    current: { edition: own.id, title: own.title, status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], problems: [], result: summary(result) },
-    editions: compareEditions(document, own, others),
+    current: { edition: own.id, title: own.title, status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], controlChanges: [], problems: [], result: summary(result) },
+    editions: compareEditions(document, own, others, result),
+    cautions: result.cautions,
   };
 }

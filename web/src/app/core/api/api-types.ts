@@ -363,6 +363,54 @@ export type {
   ZoneRectangleResult,
 } from '../../../../../contract/result';
 
+/** Where a control is required (one of a set of alternatives counts), not required, or to verify. */
+export type RequirementKind = 'required' | 'not-required' | 'to-verify';
+
+/** A space's (or exterior application's) controls whose requirement under an edition differs from the project's own. */
+export interface ControlChange {
+  place: string;
+  exterior: boolean;
+  changes: { control: string; requirement: RequirementKind; before: RequirementKind; status: ControlStatus; section: string }[];
+}
+
+/** What a comparison shows of one edition's evaluation; watts W, area and densities in the project's units. */
+export interface ComparisonSummary {
+  verdict: Verdict;
+  units: UnitSystem;
+  area: string;
+  allowanceW: string;
+  installedW: string;
+  marginW: string;
+  marginPct: string | null;
+  allowanceLpd: string | null;
+  installedLpd: string | null;
+  interiorComplies: boolean;
+  exterior: { allowanceW: string; installedW: string; marginW: string; complies: boolean } | null;
+  controls: { met: number; notMet: number; toVerify: number };
+  open: { space: string; control: string; status: ControlStatus; section: string }[];
+  unverifiedValues: number;
+}
+
+/** The design under one edition: each space type mapped to that edition's row, or listed where none matches. */
+export interface EditionComparison {
+  edition: string;
+  title: string;
+  status: 'evaluated' | 'not-mapped' | 'not-valid';
+  unmapped: { what: 'space' | 'exterior application'; name: string; type: string }[];
+  remapped: { space: string; from: string; to: string }[];
+  controlsNotCarried: string[];
+  controlChanges: ControlChange[];
+  problems: { path: string; message: string }[];
+  result: ComparisonSummary | null;
+}
+
+/** `GET /api/projects/:id/comparison`. */
+export interface ProjectComparison {
+  current: EditionComparison;
+  editions: EditionComparison[];
+  cautions: string[];
+}
+
 /** A sales-floor space's claim on one of the edition's additional allowances. */
 export interface AllowanceClaim extends Stamp {
   id: string;

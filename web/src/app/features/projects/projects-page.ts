@@ -26,18 +26,9 @@ import { ProjectApi } from './project-api';
 import { stateLabels } from './project-states';
 import { verdictOf, type ProjectVerdict } from './project-verdict';
 import { CardRows } from '../../shared/card-rows';
+import { editionLabel } from '../../shared/edition-labels';
 
 type ListState = { status: 'loading' } | { status: 'ready'; projects: ProjectSummary[] } | { status: 'failed'; message: string };
-
-export const editionLabels: Partial<Record<string, string>> = {
-  'iecc-2018': 'IECC 2018',
-  'iecc-2021': 'IECC 2021',
-  'iecc-2024': 'IECC 2024',
-  'ashrae-90.1-2013': '90.1-2013',
-  'ashrae-90.1-2016': '90.1-2016',
-  'ashrae-90.1-2019': '90.1-2019',
-  'ashrae-90.1-2022': '90.1-2022',
-};
 
 /** At most this many result requests in flight, so a long list stays cheap for the service. */
 const verdictConcurrency = 3;
@@ -182,7 +173,7 @@ export class ProjectsPage {
   }
 
   protected editionLabel(project: ProjectSummary): string {
-    return project.edition ? (editionLabels[project.edition] ?? project.edition) : '—';
+    return project.edition ? editionLabel(project.edition) : '—';
   }
 
   /** The margin without its unit: the column header carries it. */

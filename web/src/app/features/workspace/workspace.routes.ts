@@ -11,5 +11,6 @@ export const workspaceRoutes: Routes = [
   { path: 'daylight', canDeactivate: [unsavedChangesGuard], title: 'Daylight · Allowlight', loadComponent: () => import('../daylight/daylight-page').then((m) => m.DaylightPage) },
   { path: 'exterior', canDeactivate: [unsavedChangesGuard], title: 'Exterior · Allowlight', loadComponent: () => import('../exterior/exterior-page').then((m) => m.ExteriorPage) },
   { path: 'results', title: 'Results · Allowlight', loadComponent: () => import('../results/results-page').then((m) => m.ResultsPage) },
+  { path: 'compare', title: 'Compare editions · Allowlight', loadComponent: () => import('../compare/compare-page').then((m) => m.ComparePage) },
   { path: 'history', title: 'History · Allowlight', loadComponent: () => import('../history/history-page').then((m) => m.HistoryPage) },
 ];
