@@ -7,6 +7,7 @@ import type { ComparisonSummary, EditionComparison, ProjectComparison, ProjectDe
 import { apiInterceptor } from '../../core/http/api-interceptor';
 import { ProjectStore } from '../workspace/project-store';
 import { ComparePage } from './compare-page';
+import { evaluation } from '../results/results-fixture';
 
 // An invented project and invented figures.
 const project = { id: 'p1', name: 'Harbour Pavilion', state: 'draft', role: 'reviewer', edition: 'iecc-2021', method: 'space-by-space', units: 'si', version: 3, members: [], archivedAt: null } as unknown as ProjectDetail;
@@ -48,7 +49,8 @@ describe('ComparePage', () => {
       providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting(), ProjectStore],
     });
     const store = TestBed.inject(ProjectStore);
-    store.project.set(project);
+    // The page compares once the project's own results are in (any result will do here).
+    store.seed({ project, results: { status: 'ready', result: evaluation() } });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(ComparePage);
     element = fixture.nativeElement as HTMLElement;

@@ -36,9 +36,20 @@ export class ComparePage {
   protected readonly store = inject(ProjectStore);
   private readonly api = inject(CompareApi);
 
+  /**
+   * Compared again whenever the project's own results are new (a write here or anyone's change the
+   * workspace follows), so the editions never show a design older than the one on Results.
+   */
+  private readonly design = computed(() => {
+    const id = this.store.projectId();
+    const results = this.store.results();
+    return id !== null && (results.status === 'ready' || results.status === 'incomplete') ? { id, results } : null;
+  });
+
   protected readonly state = toSignal(
-    toObservable(this.store.projectId).pipe(
-      filter((id): id is string => id !== null),
+    toObservable(this.design).pipe(
+      filter((design) => design !== null),
+      map((design) => design.id),
       switchMap((id) =>
         this.api.comparison(id).pipe(
           map((comparison): CompareState => ({ status: 'ready', comparison })),
@@ -49,9 +60,9 @@ export class ComparePage {
                 : { status: 'failed', message: error instanceof ApiError ? error.message : 'The editions could not be compared.' },
             ),
           ),
-          startWith<CompareState>({ status: 'loading' }),
         ),
       ),
+      startWith<CompareState>({ status: 'loading' }),
     ),
     { initialValue: { status: 'loading' } as CompareState },
   );
