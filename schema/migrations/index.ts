@@ -13,6 +13,7 @@ import * as editionAmendments from './20261202000700_edition_amendments.js';
 import * as equalRows from './20261202000800_equal_rows.js';
 import * as sessions from './20261202001000_sessions.js';
 import * as spaceTypeFormulas from './20261202001100_space_type_formulas.js';
+import * as allowanceClaimDeletes from './20261202001200_allowance_claim_deletes.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -35,6 +36,7 @@ const migrations: Record<string, Migration> = {
   '20261202000800_equal_rows': equalRows,
   '20261202001000_sessions': sessions,
   '20261202001100_space_type_formulas': spaceTypeFormulas,
+  '20261202001200_allowance_claim_deletes': allowanceClaimDeletes,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

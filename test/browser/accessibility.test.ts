@@ -97,6 +97,20 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
     }
   });
 
+  it('the luminaire counts as cards on a phone, in both colour schemes', async () => {
+    const { page } = browser;
+    // A phone held upright, 390 × 844 CSS pixels (common practice for a current mid-size phone).
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.goto(`${projectUrl}/luminaires?tab=counts`);
+    await page.getByRole('list', { name: 'Luminaire counts by space' }).getByRole('group', { name: '101 Entry lobby' }).waitFor();
+    await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
+    expect(await seriousViolations(), 'light').toEqual([]);
+    await page.emulateMedia({ colorScheme: 'dark' });
+    expect(await seriousViolations(), 'dark').toEqual([]);
+    await page.emulateMedia({ colorScheme: 'light' });
+    await page.setViewportSize({ width: 1280, height: 800 });
+  });
+
   it('the workspace and the sign-in page in the dark colour scheme', async () => {
     const { page } = browser;
     await page.emulateMedia({ colorScheme: 'dark' });

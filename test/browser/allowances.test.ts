@@ -51,6 +51,11 @@ afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 const floorStatus = (page: Page) => page.getByTestId('space-usage');
 
+/** The shop's claims as the service keeps them. */
+function storedClaims(page: Page): Promise<{ id: string; area: string }[]> {
+  return page.evaluate(async (url) => (await fetch(url)).json() as Promise<{ id: string; area: string }[]>, `${shopUrl.replace('/projects/', '/api/projects/')}/additional-allowances`);
+}
+
 describe('additional allowances per sales floor', { timeout: 60_000 }, () => {
   it('lists the sales floors and the space over its allowance before any claim', async () => {
     const { page } = browser;
@@ -116,13 +121,28 @@ describe('additional allowances per sales floor', { timeout: 60_000 }, () => {
     await page.keyboard.press('Escape');
   });
 
-  it('removes the claim, and the space is over its allowance again', async () => {
+  it('removes the claim, and brings it back with its id on Undo', async () => {
+    const { page } = browser;
+    const [kept] = await storedClaims(page);
+    await page.getByRole('button', { name: 'Remove the claim on Retail display, retail area 3' }).click();
+    await page.getByText('No claim on this space yet.').waitFor();
+    expect(await storedClaims(page)).toEqual([]);
+    await page.locator('.mat-mdc-snack-bar-container', { hasText: 'Claim on “Retail display, retail area 3” removed' }).getByRole('button', { name: 'Undo' }).click();
+    const row = page.locator('tr[data-claim="retail-area-3"]');
+    await row.waitFor();
+    expect(await row.locator('td').nth(1).textContent()).toContain('1,000');
+    // As before the removal: 1,000 W of the 1,050 W claimed is used, 900 W within.
+    await expect.poll(() => floorStatus(page).textContent()).toContain('Within allowance, 900 W');
+    expect((await storedClaims(page)).map((claim) => [claim.id, claim.area])).toEqual([[kept!.id, '1000']]);
+    await browser.screenshot('allowances-undo');
+  });
+
+  it('removes the claim again, and the space is over its allowance', async () => {
     const { page } = browser;
     await page.getByRole('button', { name: 'Remove the claim on Retail display, retail area 3' }).click();
     await page.getByText('No claim on this space yet.').waitFor();
     await expect.poll(() => floorStatus(page).textContent()).toContain('Over allowance, 100 W over');
-    const stored = await page.evaluate(async (url) => (await fetch(url)).json(), `${shopUrl.replace('/projects/', '/api/projects/')}/additional-allowances`);
-    expect(stored).toEqual([]);
+    expect(await storedClaims(page)).toEqual([]);
   });
 
   it('says why there is nothing to claim under the building area method', async () => {

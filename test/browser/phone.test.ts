@@ -124,4 +124,63 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
     expect(await lobby.locator('[data-label="Allowance (W)"]').isVisible()).toBe(true);
     expect(await lobby.locator('.type').isVisible()).toBe(true);
   });
+
+  /** How far the counts' list, the tab that holds it and the document scroll sideways (0 when all fits). */
+  const countsOverflow = () =>
+    browser.page.evaluate(() => {
+      const overflow = (element: Element | null) => (element ? element.scrollWidth - element.clientWidth : Number.NaN);
+      const list = document.querySelector('[role="list"][aria-label="Luminaire counts by space"]');
+      return { list: overflow(list), grid: overflow(list?.closest('al-count-grid') ?? null), tab: overflow(list?.closest('.mat-mdc-tab-body-content') ?? null), document: overflow(document.documentElement) };
+    });
+
+  it('lists the luminaire counts as a card per space that fits the screen, reaches the daylight split, and keeps a changed count', async () => {
+    const { page } = browser;
+    await page.getByRole('button', { name: 'Project areas' }).click();
+    await page.getByRole('link', { name: 'Luminaires', exact: true }).click();
+    await page.getByRole('tab', { name: 'Counts' }).click();
+    const list = page.getByRole('list', { name: 'Luminaire counts by space' });
+    const lobby = list.getByRole('group', { name: '101 Entry lobby' });
+    await lobby.waitFor();
+    // The demo's first space (schema/seeds/demo-project.ts): 600 ft², 24 downlights and 2 exit signs.
+    expect(await lobby.textContent()).toContain('600 ft²');
+    expect(await page.getByRole('grid').count()).toBe(0);
+    await browser.screenshot('phone-luminaire-counts');
+    expect(await countsOverflow()).toEqual({ list: 0, grid: 0, tab: 0, document: 0 });
+    expect(await crampedParts()).toEqual([]);
+
+    // Each type is a labelled field: tag, description and its watts (the demo's schedule).
+    const downlights = lobby.getByRole('textbox', { name: 'D 6 in LED downlight 13.0 W each' });
+    expect(await downlights.inputValue()).toBe('24');
+    expect(await lobby.getByRole('textbox', { name: /^A 2×4 LED troffer, 4000 K/ }).inputValue()).toBe('');
+
+    // A refused count stays with its reason, and nothing is sent.
+    await downlights.fill('2.5');
+    await downlights.press('Enter');
+    const problem = page.getByRole('alert').filter({ hasText: 'Must be a whole number' });
+    await problem.waitFor();
+    await problem.getByRole('button', { name: 'Keep 24' }).click();
+    await expect.poll(() => downlights.inputValue()).toBe('24');
+    expect(await problem.count()).toBe(0);
+
+    // The daylight-zone split: the space's panel takes the list's place and fits the screen too.
+    await list.getByRole('button', { name: 'Daylight zones of 102 Main reading room' }).click();
+    const panel = page.getByRole('region', { name: '102 Main reading room' });
+    await panel.waitFor();
+    expect(await list.count()).toBe(0);
+    expect(await panel.getByRole('combobox', { name: 'Daylight zone' }).count()).toBeGreaterThan(0);
+    await browser.screenshot('phone-luminaire-counts-space');
+    expect(await sidewaysScroll()).toBeLessThanOrEqual(1);
+    expect(await crampedParts()).toEqual([]);
+    await panel.getByRole('button', { name: "Close the space's counts" }).click();
+    await expect.poll(() => page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toBe('Daylight zones of 102 Main reading room');
+
+    // A changed count is saved as the field is left: the card's total follows the stored space.
+    await downlights.fill('25');
+    await downlights.press('Enter');
+    await expect.poll(() => lobby.locator('.card-detail').textContent()).toBe('Level 1 · 27 luminaires');
+    await page.reload();
+    await lobby.waitFor();
+    expect(await downlights.inputValue()).toBe('25');
+    expect(await lobby.locator('.card-detail').textContent()).toBe('Level 1 · 27 luminaires');
+  });
 });

@@ -36,7 +36,7 @@ function expectErrorShape(response: request.Response, status: number): void {
 }
 
 describe('child ids that are not UUIDs', () => {
-  it('answer 404 on every space, luminaire type, exterior application and member route', async () => {
+  it('answer 404 on every space, luminaire type, exterior application, claim restore and member route', async () => {
     const base = `/api/projects/${projectId}`;
     const calls = [
       engineer.agent.get(`${base}/spaces/not-a-uuid`),
@@ -48,6 +48,7 @@ describe('child ids that are not UUIDs', () => {
       write('delete', `${base}/luminaire-types/x?version=1`),
       write('put', `${base}/exterior-applications/x`).send({ key: 'parking-lots-and-drives', quantity: '1', installedWatts: '1', version: 1 }),
       write('delete', `${base}/exterior-applications/x?version=1`),
+      write('post', `${base}/additional-allowances/x/restore`),
       write('delete', `${base}/members/not-a-user`),
     ];
     for (const response of await Promise.all(calls)) expectErrorShape(response, 404);

@@ -213,3 +213,90 @@ describe('additional allowance claims', () => {
     expect(actions).toEqual(['delete additional-allowance', 'update additional-allowance', 'create additional-allowance']);
   });
 });
+
+describe('POST /api/projects/:id/additional-allowances/:claimId/restore', () => {
+  it('brings a deleted claim back with its id into the evaluation, for the engineer only, and records it', async () => {
+    const projectId = await newProject({ name: 'Net loft', edition: 'ashrae-90.1-2022' });
+    await write(engineer, 'post', `/api/projects/${projectId}/members`).send({ email: 'reviewer@alderbay.example', role: 'reviewer' });
+    await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'D', inputWatts: '50', use: 'display' });
+    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Sales floor', spaceType: 'sales-area', area: '1000', luminaires: [{ tag: 'D', count: 10 }] });
+    const url = `/api/projects/${projectId}/additional-allowances`;
+    const claim = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '600' });
+    expect(claim.status).toBe(201);
+    const evaluation = async () => {
+      const results = (await engineer.agent.get(`/api/projects/${projectId}/results`)).body;
+      const document = (await engineer.agent.get(`/api/projects/${projectId}/document`)).body;
+      return { lines: results.interior.additional?.lines.length ?? 0, spaceW: results.interior.spaces[0].additionalAllowanceW, claims: document.retailDisplay?.claims ?? [] };
+    };
+    const claimed = await evaluation();
+    expect(claimed.lines).toBe(1);
+    expect(Number(claimed.spaceW)).toBeGreaterThan(0);
+    expect(claimed.claims).toEqual([{ allowance: 'retail-area-1', spaceId: sales.body.id, area: '600' }]);
+
+    expect((await write(engineer, 'delete', `${url}/${claim.body.id}?version=1`)).status).toBe(204);
+    expect((await engineer.agent.get(url)).body).toEqual([]);
+    expect(await evaluation()).toEqual({ lines: 0, spaceW: '0', claims: [] });
+    // Deleted is not there to change or delete again.
+    expect((await write(engineer, 'put', `${url}/${claim.body.id}`).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '500', version: 2 })).status).toBe(404);
+    expect((await write(engineer, 'delete', `${url}/${claim.body.id}?version=2`)).status).toBe(404);
+    const deleteEntry = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries[0];
+    expect(deleteEntry).toMatchObject({ action: 'delete', entity: 'additional-allowance', entityId: claim.body.id, restorable: true });
+
+    const refused = await write(reviewer, 'post', `${url}/${claim.body.id}/restore`);
+    expect(refused.status).toBe(403);
+    expect(await evaluation()).toEqual({ lines: 0, spaceW: '0', claims: [] });
+
+    const restored = await write(engineer, 'post', `${url}/${claim.body.id}/restore`);
+    expect(restored.status).toBe(201);
+    expect(restored.body).toMatchObject({ id: claim.body.id, spaceId: sales.body.id, allowance: 'retail-area-1', area: '600', version: 3 });
+    expect((await engineer.agent.get(url)).body.map((kept: { id: string }) => kept.id)).toEqual([claim.body.id]);
+    expect(await evaluation()).toEqual(claimed);
+
+    const entries = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries;
+    expect(entries[0]).toMatchObject({ action: 'restore', entity: 'additional-allowance', entityId: claim.body.id, name: 'Sales floor', user: { name: engineer.user.name } });
+    expect(entries[0].after).toMatchObject({ id: claim.body.id, area: '600' });
+    const restoreRow = await database.db('audit_log').where({ entity_id: claim.body.id, action: 'restore' }).first<{ detail: { restoredFrom: string } }>('detail');
+    expect(restoreRow.detail.restoredFrom).toBe(deleteEntry.id);
+    expect(entries[1]).toMatchObject({ action: 'delete', restorable: false });
+    expect((await write(engineer, 'post', `${url}/${claim.body.id}/restore`)).status).toBe(404);
+  });
+
+  it('comes back in the project’s units after a change of units while it was deleted', async () => {
+    const projectId = await newProject({ name: 'Rope walk', edition: 'ashrae-90.1-2022' });
+    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Counter', spaceType: 'sales-area', area: '1000' });
+    const url = `/api/projects/${projectId}/additional-allowances`;
+    const claim = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '600' });
+    await write(engineer, 'delete', `${url}/${claim.body.id}?version=1`);
+    expect((await patchSetup(projectId, { units: 'si' })).status).toBe(200);
+    const restored = await write(engineer, 'post', `${url}/${claim.body.id}/restore`);
+    expect(restored.status).toBe(201);
+    expect(restored.body.area).toBe('55.741824'); // 600 ft² × 0.09290304 m²/ft² (mathjs units)
+  });
+
+  it('refuses a claim the project would not take now, and one deleted more than 30 days ago', async () => {
+    const projectId = await newProject({ name: 'Sail shop', edition: 'ashrae-90.1-2022' });
+    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Shop', spaceType: 'sales-area', area: '800' });
+    const url = `/api/projects/${projectId}/additional-allowances`;
+    const first = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '400' });
+    expect((await write(engineer, 'delete', `${url}/${first.body.id}?version=1`)).status).toBe(204);
+    // The same allowance claimed again on the floor since: the deleted one would claim it twice.
+    const again = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '300' });
+    expect(again.status).toBe(201);
+    const twice = await write(engineer, 'post', `${url}/${first.body.id}/restore`);
+    expect(twice.status).toBe(409);
+    expect(twice.body.error).toMatchObject({ code: 'not_restorable' });
+    expect(twice.body.error.message).toContain('“Shop” already claims this allowance');
+
+    const second = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-2', area: '200' });
+    await write(engineer, 'delete', `${url}/${second.body.id}?version=1`);
+    await database.db('retail_display_claims').where({ id: second.body.id }).update({ deleted_at: database.db.raw("now() - interval '31 days'") });
+    const old = await write(engineer, 'post', `${url}/${second.body.id}/restore`);
+    expect(old.status).toBe(409);
+    expect(old.body.error.message).toContain('more than 30 days ago');
+    // The next delete clears claims past their days for good.
+    await write(engineer, 'delete', `${url}/${again.body.id}?version=1`);
+    expect(await database.db('retail_display_claims').where({ id: second.body.id }).first('id')).toBeUndefined();
+    expect((await write(engineer, 'post', `${url}/${second.body.id}/restore`)).status).toBe(404);
+    expect((await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries.find((entry: { entityId: string; action: string }) => entry.entityId === second.body.id && entry.action === 'delete').restorable).toBe(false);
+  });
+});

@@ -701,7 +701,7 @@ export async function deleteExteriorApplication(db: Database, projectId: string,
 
 // ---------------------------------------------------------------- restoring what was deleted
 
-/** How long a deleted space, luminaire type or exterior application can be brought back from the history. */
+/** How long a deleted space, luminaire type, exterior application or allowance claim can be brought back from the history. */
 export const restoreDays = 30;
 
 interface DeleteEntry {
@@ -716,7 +716,7 @@ function withoutStamp(record: Record<string, unknown>): Record<string, unknown> 
   return fields;
 }
 
-function notRestorable(message: string): AppError {
+export function notRestorable(message: string): AppError {
   return new AppError(409, 'not_restorable', message);
 }
 

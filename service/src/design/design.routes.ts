@@ -38,7 +38,7 @@ import {
   spaceWriteSchema,
   versionQuerySchema,
 } from './design.schema.js';
-import { createAllowanceClaim, deleteAllowanceClaim, listAllowanceClaims, replaceAllowanceClaim } from './allowance-claims.repository.js';
+import { createAllowanceClaim, deleteAllowanceClaim, listAllowanceClaims, replaceAllowanceClaim, restoreAllowanceClaim } from './allowance-claims.repository.js';
 import { listImportAliases, saveImportAliases } from './import-aliases.repository.js';
 import { projectDocument } from './project-document.js';
 import { assertAliasesFitEdition, assertAllowanceFitsEdition, assertControlFitsEdition, assertExteriorApplicationFitsEdition, assertSpacesFitEdition } from './edition-checks.js';
@@ -169,6 +169,9 @@ export function designRouter(db: Database): Router {
   });
   router.post('/exterior-applications/:applicationId/restore', edit, async (req, res) => {
     res.status(201).json(await restoreDeleted(db, projectId(req), 'exterior-application', idParam(req.params['applicationId'], 'This exterior application'), userId(req)));
+  });
+  router.post('/additional-allowances/:claimId/restore', edit, async (req, res) => {
+    res.status(201).json(await restoreAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), userId(req)));
   });
 
   return router;

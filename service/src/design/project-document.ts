@@ -28,7 +28,8 @@ export async function projectDocument(db: Knex, projectId: string): Promise<Eval
     listLuminaireTypes(db, projectId),
     listSpaces(db, projectId),
     listExteriorApplications(db, projectId),
-    db('retail_display_claims').where({ project_id: projectId }).orderBy('created_at').select<{ allowance_key: string; space_id: string; area: string }[]>('allowance_key', 'space_id', 'area'),
+    // A deleted claim (kept for its restore days) is no claim.
+    db('retail_display_claims').where({ project_id: projectId }).whereNull('deleted_at').orderBy('created_at').select<{ allowance_key: string; space_id: string; area: string }[]>('allowance_key', 'space_id', 'area'),
   ]);
   const document: EvaluationDocumentInput = {
     edition: project.edition_id,

@@ -25,7 +25,7 @@ export interface HistoryEntry {
   conversion?: unknown;
   /** On a copy: the project it was made from. */
   copiedFrom?: unknown;
-  /** A deleted space, luminaire type or exterior application that can still be brought back. */
+  /** A deleted space, luminaire type, exterior application or allowance claim that can still be brought back. */
   restorable: boolean;
 }
 
@@ -40,7 +40,7 @@ interface AuditRow {
   detail: { name?: string; before?: unknown; after?: unknown; conversion?: unknown; copiedFrom?: unknown; restoredFrom?: string } | null;
 }
 
-const restorableEntities = new Set(['space', 'luminaire-type', 'exterior-application']);
+const restorableEntities = new Set(['space', 'luminaire-type', 'exterior-application', 'additional-allowance']);
 
 /** A project's history, newest first, one page at a time. */
 export async function listHistory(db: Knex, projectId: string, filter: HistoryFilter): Promise<{ entries: HistoryEntry[]; more: boolean }> {
@@ -67,6 +67,11 @@ export async function listHistory(db: Knex, projectId: string, filter: HistoryFi
       .select<{ restored_from: string }[]>(db.raw(`detail->>'restoredFrom' as restored_from`));
     for (const row of later) restored.add(row.restored_from);
   }
+  // A deleted claim waits in its table; one gone with its space (or past its days) cannot come back.
+  const claimIds = page.filter((row) => row.action === 'delete' && row.entity === 'additional-allowance' && row.entity_id).map((row) => row.entity_id!);
+  const waitingClaims = new Set(
+    claimIds.length > 0 ? (await db('retail_display_claims').whereIn('id', claimIds).whereNotNull('deleted_at').select<{ id: string }[]>('id')).map((row) => row.id) : [],
+  );
   const oldest = Date.now() - restoreDays * 86_400_000;
   return {
     entries: page.map((row) => ({
@@ -81,7 +86,12 @@ export async function listHistory(db: Knex, projectId: string, filter: HistoryFi
       after: row.detail?.after ?? null,
       ...(row.detail?.conversion ? { conversion: row.detail.conversion } : {}),
       ...(row.detail?.copiedFrom ? { copiedFrom: row.detail.copiedFrom } : {}),
-      restorable: row.action === 'delete' && restorableEntities.has(row.entity) && !restored.has(String(row.id)) && row.at.getTime() >= oldest,
+      restorable:
+        row.action === 'delete' &&
+        restorableEntities.has(row.entity) &&
+        !restored.has(String(row.id)) &&
+        row.at.getTime() >= oldest &&
+        (row.entity !== 'additional-allowance' || waitingClaims.has(row.entity_id ?? '')),
     })),
     more: rows.length > filter.limit,
   };

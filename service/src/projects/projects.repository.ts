@@ -314,7 +314,7 @@ export async function copyProject(db: Database, sourceId: string, name: string, 
     }
     const exterior = await trx('exterior_applications').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
     await copyRows(trx, 'exterior_applications', exterior, (application) => ({ ...application, ...stamp, id: randomUUID(), project_id: projectId, controls: JSON.stringify(application['controls']) }));
-    const claims = await trx('retail_display_claims').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
+    const claims = await trx('retail_display_claims').where({ project_id: sourceId }).whereNull('deleted_at').select<Record<string, unknown>[]>('*');
     await copyRows(trx, 'retail_display_claims', claims, (claim) => ({ ...claim, ...stamp, id: randomUUID(), project_id: projectId, space_id: spaceIds.get(claim['space_id'] as string) }));
     const aliases = await trx('project_import_aliases').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
     await copyRows(trx, 'project_import_aliases', aliases, (alias) => ({ ...alias, project_id: projectId, updated_by: userId }));

@@ -186,7 +186,7 @@ export interface ExteriorApplicationRecord extends ExteriorApplicationInput, Sta
 
 export type DesignHistoryAction = 'create' | 'import' | 'update' | 'delete' | 'restore';
 export type ProjectHistoryAction = 'create' | 'copy' | 'update' | 'convert-units' | 'archive' | 'unarchive';
-export type ClaimHistoryAction = 'create' | 'update' | 'delete';
+export type ClaimHistoryAction = 'create' | 'update' | 'delete' | 'restore';
 export type TeamHistoryAction = 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account';
 
 /** The set-up as the history keeps it before and after a change of the project (entries from before the permit fields lack them). */

@@ -29,4 +29,9 @@ export class AllowancesApi {
   remove(projectId: string, claimId: string, version: number): Observable<void> {
     return this.http.delete<void>(`/api/projects/${projectId}/additional-allowances/${claimId}`, { params: { version } });
   }
+
+  /** Brings back a claim deleted in the last 30 days, with its id. */
+  restore(projectId: string, claimId: string): Observable<AllowanceClaim> {
+    return this.http.post<AllowanceClaim>(`/api/projects/${projectId}/additional-allowances/${claimId}/restore`, {});
+  }
 }

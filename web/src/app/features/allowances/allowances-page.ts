@@ -259,14 +259,15 @@ export class AllowancesPage implements HasUnsavedChanges {
         this.claims.update((claims) => (claims ?? []).filter((other) => other.id !== claim.id));
         this.store.refreshResults();
         const words = `Claim on “${this.allowanceLabel(claim.allowance)}” removed`;
-        // A claim has no restore route: Undo claims the same again.
+        // Undo brings the claim back with its id; one the evaluation could not take (off a sales floor) is not offered back.
+        const onSalesFloor = this.spaceBySpace() && this.salesFloors().some((space) => space.id === claim.spaceId);
         this.snackBar
-          .open(words, this.spaceBySpace() ? 'Undo' : undefined, { duration: 8000 })
+          .open(words, onSalesFloor ? 'Undo' : undefined, { duration: 8000 })
           .onAction()
           .subscribe(() =>
-            this.api.create(projectId, { spaceId: claim.spaceId, allowance: claim.allowance, area: claim.area }).subscribe({
-              next: (again) => {
-                this.claims.update((claims) => [...(claims ?? []), again]);
+            this.api.restore(projectId, claim.id).subscribe({
+              next: (restored) => {
+                this.claims.update((claims) => [...(claims ?? []).filter((other) => other.id !== restored.id), restored]);
                 this.store.refreshResults();
               },
               error: (error: unknown) => this.failure.report(error, () => this.reload()),

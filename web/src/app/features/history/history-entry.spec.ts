@@ -201,6 +201,7 @@ describe('a history entry in words', () => {
         'Ines Halvorsen changed an additional allowance claimed on “Sales floor”: area claimed 800 → 1,000 ft²',
       );
       expect(say(entry({ entity: 'additional-allowance', action: 'delete', name: 'Sales floor', before: claim, after: null }))).toBe('Ines Halvorsen removed an additional allowance claimed on “Sales floor” for 800 ft²');
+      expect(say(entry({ entity: 'additional-allowance', action: 'restore', name: 'Sales floor', before: null, after: claim }))).toBe('Ines Halvorsen restored an additional allowance claimed on “Sales floor” for 800 ft²');
     });
 
     it('reads a change of units with what was converted', () => {
@@ -257,6 +258,8 @@ describe('a history entry in words', () => {
 
   it('names the item brought back', () => {
     expect(restoredWords(entry({ entity: 'space', action: 'delete', name: 'Exam 3', before: space({ name: 'Exam 3' }), after: null }), labels)).toBe('Space “Exam 3” restored');
+    const claim = { id: 'c1', spaceId: 's1', allowance: 'retail-area-3', area: '800', ...stamp };
+    expect(restoredWords(entry({ entity: 'additional-allowance', action: 'delete', name: 'Sales floor', before: claim, after: null }), labels)).toBe('The claim on “Sales floor” restored');
   });
 });
 

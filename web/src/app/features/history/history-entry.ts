@@ -464,6 +464,8 @@ function claimWords(entry: Extract<HistoryEntry, { entity: 'additional-allowance
       return { summary: `claimed an additional allowance${where}${area(entry.after)}`, changes: [] };
     case 'delete':
       return { summary: `removed an additional allowance claimed${where}${area(entry.before)}`, changes: [] };
+    case 'restore':
+      return { summary: `restored an additional allowance claimed${where}${area(entry.after)}`, changes: [] };
     default: {
       const changes = entry.before && entry.after ? [measured('area claimed', entry.before.area, entry.after.area, units(system).area)].filter((change): change is string => change !== null) : [];
       return { summary: `changed an additional allowance claimed${where}`, changes };
@@ -605,6 +607,7 @@ export function relativeTime(at: string, now: Date): string {
 
 /** A design item as a sentence names it ("space “Exam 3”"), for its Restore button and the snackbar after. */
 export function itemWords(entry: HistoryEntry, labels: HistoryLabels): string {
+  if (entry.entity === 'additional-allowance') return entry.name ? `the claim on ${quoted(entry.name)}` : 'the claim';
   if (entry.entity !== 'space' && entry.entity !== 'luminaire-type' && entry.entity !== 'exterior-application') return 'the item';
   return itemName(entry, labels);
 }

@@ -141,6 +141,25 @@ describe('HistoryPage', () => {
     expect(store.refreshResults).toHaveBeenCalled();
   });
 
+  it('restores a removed allowance claim through its restore route, and the results count it again', async () => {
+    const claim = { id: 'c4', spaceId: 's1', allowance: 'retail-area-3', area: '800', version: 2, updatedAt: '', updatedBy: null };
+    const removed: HistoryEntry = { id: '44', at: '2026-03-02T10:30:00Z', user: ines, action: 'delete', entity: 'additional-allowance', entityId: 'c4', name: 'Exam 1', before: claim, after: null, restorable: true };
+    // Ines's changes, the claim's removal among them.
+    await (await loader.getHarness(MatSelectHarness)).clickOptions({ text: 'Ines Halvorsen' });
+    historyRequest().flush(page({ entries: [removed, ...entries], more: false }));
+    await fixture.whenStable();
+    expect(element.textContent).toContain('Ines Halvorsen removed an additional allowance claimed on “Exam 1” for 800 ft²');
+    element.querySelector<HTMLButtonElement>('button[aria-label="Restore the claim on “Exam 1”"]')!.click();
+    http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/additional-allowances/c4/restore').flush({ ...claim, version: 3 }, { status: 201, statusText: 'Created' });
+    await fixture.whenStable();
+    expect(document.querySelector('.mat-mdc-snack-bar-container')?.textContent).toContain('The claim on “Exam 1” restored');
+    expect(store.refreshResults).toHaveBeenCalled();
+    historyRequest().flush(page({ more: false, entries: [{ ...removed, id: '45', action: 'restore', before: null, after: { ...claim, version: 3 }, restorable: false }, { ...removed, restorable: false }] }));
+    await fixture.whenStable();
+    expect(element.textContent).toContain('Ines Halvorsen restored an additional allowance claimed on “Exam 1” for 800 ft²');
+    expect(element.querySelector('.restore')).toBeNull();
+  });
+
   it('says in words when the restore is refused', async () => {
     element.querySelector<HTMLButtonElement>('button[aria-label="Restore space “Exam 3”"]')!.click();
     http

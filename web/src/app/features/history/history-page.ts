@@ -15,6 +15,7 @@ import { catchError, map, of, startWith, Subject, switchMap, tap, type Observabl
 import type { HistoryEntry, HistoryPage as HistoryPageBody, HistoryQuery } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
 import { WriteFailure } from '../../shared/conflict';
+import { AllowancesApi } from '../allowances/allowances-api';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { HistoryApi } from './history-api';
@@ -74,6 +75,7 @@ export class HistoryPage {
   protected readonly store = inject(ProjectStore);
   private readonly api = inject(HistoryApi);
   private readonly workspaceApi = inject(WorkspaceApi);
+  private readonly allowancesApi = inject(AllowancesApi);
   private readonly snackBar = inject(MatSnackBar);
   private readonly writeFailure = inject(WriteFailure);
   private readonly requests = new Subject<{ query: HistoryQuery; before?: string }>();
@@ -205,6 +207,10 @@ export class HistoryPage {
         break;
       case 'exterior-application':
         request = this.workspaceApi.restoreExteriorApplication(projectId, id).pipe(tap((application) => this.store.upsertExterior(application)));
+        break;
+      case 'additional-allowance':
+        // The claims are read by the Allowances page itself; the results count the claim again.
+        request = this.allowancesApi.restore(projectId, id).pipe(tap(() => this.store.refreshResults()));
         break;
       default:
         return;

@@ -1,11 +1,14 @@
 import { createRepositionScrollStrategy, OverlayModule, type ConnectedPosition } from '@angular/cdk/overlay';
 import { CdkVirtualScrollViewport, ScrollingModule } from '@angular/cdk/scrolling';
 import { ChangeDetectionStrategy, Component, computed, ElementRef, inject, Injector, input, output, signal, viewChild } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import type { LuminaireTypeRecord, SpaceRecord } from '../../core/api/api-types';
+import type { LuminaireTypeRecord, SpaceRecord, UnitSystem } from '../../core/api/api-types';
+import { formatArea } from '../../shared/format';
+import { phoneScreen, screenMatches } from '../../shared/media-queries';
 import { numberProblem, ranges } from '../../shared/number-range';
-import { cellCount } from './luminaire-counts';
+import { cellCount, eachWords } from './luminaire-counts';
 
 /** A value a cell refused: it stays in the cell, with the reason beside it, until corrected or Esc. */
 interface CellProblem {
@@ -23,10 +26,21 @@ export interface CountEdit {
   count: string;
 }
 
-/** Spaces down, luminaire types across: type a count, Enter goes down, Tab goes across. */
+/**
+ * Heights in px of a space's card on a phone (the virtual scroll needs them fixed): its heading, a
+ * row per type (two lines of tag and description, one of watts), its button, its border above and
+ * below, the gap to the next card.
+ */
+export const countCard = { heading: 60, field: 64, actions: 52, border: 2, gap: 12 };
+
+/**
+ * Spaces down, luminaire types across: type a count, Enter goes down, Tab goes across. On a phone,
+ * where the columns would not fit, each space is a card with one labelled count per type, read in
+ * the page's own scroll; Enter goes to the next count.
+ */
 @Component({
   selector: 'al-count-grid',
-  imports: [OverlayModule, ScrollingModule, MatIconModule, MatTooltipModule],
+  imports: [OverlayModule, ScrollingModule, MatButtonModule, MatIconModule, MatTooltipModule],
   templateUrl: './count-grid.html',
   styleUrl: './count-grid.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -36,12 +50,18 @@ export class CountGrid {
   readonly spaces = input.required<readonly SpaceRecord[]>();
   readonly types = input.required<readonly LuminaireTypeRecord[]>();
   readonly canEdit = input(false);
+  readonly units = input<UnitSystem>('ip');
   /** Spaces with a write in flight. */
   readonly saving = input<ReadonlySet<string>>(new Set());
   readonly changeCount = output<CountEdit>();
   readonly openSpace = output<SpaceRecord>();
 
   private readonly viewport = viewChild(CdkVirtualScrollViewport);
+  protected readonly phone = screenMatches(phoneScreen);
+  protected readonly cardSize = computed(() => countCard.heading + this.types().length * countCard.field + countCard.actions + countCard.border + countCard.gap);
+  protected readonly cardRows = computed(() => `${countCard.heading}px repeat(${this.types().length}, ${countCard.field}px) ${countCard.actions}px`);
+  protected readonly cardGap = countCard.gap;
+  protected readonly eachWords = eachWords;
   protected readonly columns = computed(() => `minmax(160px, 1.5fr) repeat(${this.types().length}, 76px) 72px`);
   protected readonly sortedSpaces = computed(() => [...this.spaces()].sort((a, b) => a.position - b.position));
   protected readonly trackSpace = (_index: number, space: SpaceRecord) => space.id;
@@ -103,29 +123,85 @@ export class CountGrid {
 
   /** Enter moves to the same type in the next space (Shift+Enter goes up), as a spreadsheet does. */
   protected move(event: Event, row: number, column: number): void {
-    const keyboard = event as KeyboardEvent;
-    keyboard.preventDefault();
-    const cell = keyboard.target as HTMLInputElement;
+    const back = (event as KeyboardEvent).shiftKey;
+    this.leaveCell(event, row + (back ? -1 : 1), column);
+  }
+
+  /** On a phone's card Enter moves to the next count to type, on to the next space's (Shift+Enter goes back); a split count is typed in the space. */
+  protected moveOn(event: Event, row: number, column: number): void {
+    const step = (event as KeyboardEvent).shiftKey ? -1 : 1;
+    const types = this.types();
+    const spaces = this.sortedSpaces();
+    let [nextRow, nextColumn] = [row, column];
+    do {
+      nextColumn += step;
+      if (nextColumn >= types.length) [nextRow, nextColumn] = [nextRow + 1, 0];
+      else if (nextColumn < 0) [nextRow, nextColumn] = [nextRow - 1, types.length - 1];
+    } while (nextRow >= 0 && nextRow < spaces.length && cellCount(spaces[nextRow]!, types[nextColumn]!.tag).split);
+    this.leaveCell(event, nextRow, nextColumn);
+  }
+
+  private leaveCell(event: Event, row: number, column: number): void {
+    event.preventDefault();
+    const cell = event.target as HTMLInputElement;
     cell.blur();
     // A refused value keeps the cell, as a spreadsheet keeps the cursor on a bad entry.
     if (this.problemCell() === cell) {
       cell.focus();
       return;
     }
-    const next = row + (keyboard.shiftKey ? -1 : 1);
-    if (next < 0 || next >= this.sortedSpaces().length) return;
-    const focus = () => this.host.nativeElement.querySelector<HTMLInputElement>(`input[data-row="${next}"][data-column="${column}"]`);
+    if (row < 0 || row >= this.sortedSpaces().length) return;
+    const focus = () => this.host.nativeElement.querySelector<HTMLInputElement>(`input[data-row="${row}"][data-column="${column}"]`);
     const target = focus();
     if (target) {
       target.focus();
       target.select();
       return;
     }
-    this.viewport()?.scrollToIndex(next);
+    this.scrollToSpace(row);
     setTimeout(() => {
       focus()?.focus();
       focus()?.select();
     }, 50);
+  }
+
+  /** Brings a space's card back into view with the focus on its daylight-zone button, as when its counts panel closes on a phone. */
+  reveal(spaceId: string): void {
+    const index = this.sortedSpaces().findIndex((space) => space.id === spaceId);
+    if (index === -1) return;
+    // A list just shown takes a few frames to measure its length and to render the cards scrolled to.
+    let frames = 30;
+    const attempt = () => {
+      const card = this.host.nativeElement.querySelector<HTMLElement>(`[data-space-id="${spaceId}"]`);
+      if (card) {
+        card.scrollIntoView({ block: 'start' });
+        // The button the panel was opened from, back in view where the person left it.
+        card.querySelector<HTMLButtonElement>('.zones')?.focus();
+        return;
+      }
+      if (frames-- === 0) return;
+      this.scrollToSpace(index);
+      requestAnimationFrame(attempt);
+    };
+    attempt();
+  }
+
+  private scrollToSpace(index: number): void {
+    const viewport = this.viewport();
+    if (!viewport) return;
+    // The cards scroll with the page, and the viewport's own scrollToIndex leaves out where it sits on the page.
+    if (this.phone()) viewport.scrollToOffset(viewport.measureViewportOffset() + index * this.cardSize());
+    else viewport.scrollToIndex(index);
+  }
+
+  /** Under a card's name: its level, and how many luminaires it counts in all. */
+  protected cardDetail(space: SpaceRecord): string {
+    const total = this.total(space);
+    return [space.level, `${total} ${total === 1 ? 'luminaire' : 'luminaires'}`].filter(Boolean).join(' · ');
+  }
+
+  protected area(space: SpaceRecord): string {
+    return formatArea(space.area, this.units());
   }
 
   protected total(space: SpaceRecord): number {

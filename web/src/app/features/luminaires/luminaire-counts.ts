@@ -1,4 +1,6 @@
-import type { DaylightZoneKind, LuminaireGroup, SpaceRecord } from '../../core/api/api-types';
+import type { DaylightZoneKind, LuminaireGroup, LuminaireTypeRecord, SpaceRecord } from '../../core/api/api-types';
+import { ratedWattsFigure } from '../../shared/figures';
+import { formatWatts } from '../../shared/format';
 
 export const zoneLabels: Record<DaylightZoneKind | 'none', string> = {
   none: 'None',
@@ -27,4 +29,23 @@ export function withCount(groups: readonly LuminaireGroup[], tag: string, count:
   if (index === -1) return remove ? [...groups] : [...groups, { tag, count: text }];
   if (remove) return groups.filter((group) => group.tag !== tag);
   return groups.map((group, position) => (position === index ? { ...group, count: text } : group));
+}
+
+/**
+ * What one of a type counts for, beside its count: the rated input of a luminaire, or the rating a
+ * track run or limited circuit is counted at (service/src/compliance/installed.ts). A line-voltage
+ * track without a limiter counts at least its specified watts: the edition's minimum for its length
+ * may count more.
+ */
+export function eachWords(type: LuminaireTypeRecord): string {
+  switch (type.basis) {
+    case 'rated':
+      return `${ratedWattsFigure(type.inputWatts)} W each`;
+    case 'line-voltage-track':
+      return type.limitWatts ? `${formatWatts(type.limitWatts)} a run (limiter rating)` : `at least ${ratedWattsFigure(type.inputWatts)} W a run`;
+    case 'low-voltage-track':
+      return `${formatWatts(type.limitWatts)} a run (transformer rating)`;
+    case 'current-limited':
+      return `${formatWatts(type.limitWatts)} a circuit (limiter rating)`;
+  }
 }

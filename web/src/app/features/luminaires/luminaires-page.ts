@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal, viewChild } from '@angular/core';
+import { afterNextRender, ChangeDetectionStrategy, Component, computed, inject, Injector, input, linkedSignal, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -13,6 +13,7 @@ import type { LuminaireGroup, LuminaireTypeRecord, SpaceRecord } from '../../cor
 import { WriteFailure } from '../../shared/conflict';
 import { ratedWattsFigure } from '../../shared/figures';
 import { formatLength, formatWatts } from '../../shared/format';
+import { phoneScreen, screenMatches } from '../../shared/media-queries';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
@@ -43,6 +44,7 @@ export class LuminairesPage implements HasUnsavedChanges {
   private readonly snackBar = inject(MatSnackBar);
   private readonly router = inject(Router);
   private readonly route = inject(ActivatedRoute);
+  private readonly injector = inject(Injector);
   private readonly writes = new Subject<CountWrite>();
 
   /** The tab to show, from `?tab=counts`: links from other pages open the counts, and a reload keeps the tab. */
@@ -59,6 +61,9 @@ export class LuminairesPage implements HasUnsavedChanges {
   protected readonly selectedId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
   protected readonly selected = computed(() => this.store.spaces().find((space) => space.id === this.selectedId()) ?? null);
   private readonly openPanel = viewChild(SpaceCounts);
+  private readonly countGrid = viewChild(CountGrid);
+  /** On a phone a space's counts panel takes the place of the list of spaces until it closes. */
+  protected readonly phone = screenMatches(phoneScreen);
 
   constructor() {
     // Writes to one space go one after another, each with the version the previous one returned.
@@ -80,9 +85,17 @@ export class LuminairesPage implements HasUnsavedChanges {
     this.keepInUrl({ tab: index === 1 ? 'counts' : null });
   }
 
+  protected openSpace(space: SpaceRecord): void {
+    this.selectedId.set(space.id);
+    if (this.phone()) afterNextRender(() => this.openPanel()?.focusHeading(), { injector: this.injector });
+  }
+
   protected closePanel(): void {
+    const closed = this.selectedId();
     this.selectedId.set(null);
     this.keepInUrl({ space: null });
+    // Back to the space's card, where the panel was opened.
+    if (this.phone() && closed) afterNextRender(() => this.countGrid()?.reveal(closed), { injector: this.injector });
   }
 
   /** The URL follows the page's state without a new history entry, so a reload shows the same view. */

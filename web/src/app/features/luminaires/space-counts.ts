@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, input, output, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, ElementRef, input, output, untracked, viewChild } from '@angular/core';
 import { FormArray, FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -41,6 +41,7 @@ export class SpaceCounts {
   protected readonly zoneLabels = zoneLabels;
   protected readonly fieldMessage = fieldMessage;
   private readonly useByTag = computed(() => new Map(this.types().map((type) => [type.tag, type.use])));
+  private readonly heading = viewChild.required<ElementRef<HTMLElement>>('heading');
 
   constructor() {
     effect(() => {
@@ -54,6 +55,13 @@ export class SpaceCounts {
         else this.groups.disable({ emitEvent: false });
       });
     });
+  }
+
+  /** On a phone the panel takes the list's place: the focus goes to its heading, which comes into view. */
+  focusHeading(): void {
+    const heading = this.heading().nativeElement;
+    heading.scrollIntoView({ block: 'start' });
+    heading.focus({ preventScroll: true });
   }
 
   hasUnsavedChanges(): boolean {
