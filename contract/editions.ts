@@ -47,3 +47,11 @@ export type LuminaireUse = (typeof luminaireUses)[number];
 
 /** An exact decimal number as text: what every number the calculation touches travels as. */
 export const decimalPattern = /^-?\d+(\.\d+)?$/;
+
+/**
+ * The exact conversions between the unit systems, as decimals: 1 ft = 0.3048 m by definition, so
+ * 1 ft² = 0.09290304 m² (NIST SP 811, appendix B). The service computes with them exactly; the web
+ * app converts for display with the same figures.
+ */
+export const metresPerFootText = '0.3048';
+export const squareMetresPerSquareFootText = '0.09290304';

@@ -1,21 +1,12 @@
-import { all, create } from 'mathjs';
+import { metresPerFootText, squareMetresPerSquareFootText, type UnitSystem } from '../../../contract/editions.js';
 import { type Dec, dec } from './numbers.js';
 
 /** The document's unit system: IP (ft, ft², W/ft²) or SI (m, m², W/m²). The engine computes in IP. */
-import type { UnitSystem } from '../../../contract/editions.js';
-
 export type { UnitSystem } from '../../../contract/editions.js';
 
-const math = create(all!, { number: 'BigNumber', precision: 64 });
-
-/** Exact conversion factor taken from mathjs's unit definitions (1 ft = 0.3048 m). */
-function factor(from: string, to: string): Dec {
-  const value = math.unit(math.bignumber(1), from).toNumeric(to);
-  return dec(String(value));
-}
-
-export const metresPerFoot = factor('ft', 'm');
-export const squareMetresPerSquareFoot = factor('ft^2', 'm^2');
+/** The exact factors the web app shares (contract/editions.ts). */
+export const metresPerFoot = dec(metresPerFootText);
+export const squareMetresPerSquareFoot = dec(squareMetresPerSquareFootText);
 
 /** A length in the document's units, in feet. */
 export function lengthToFeet(value: Dec, units: UnitSystem): Dec {

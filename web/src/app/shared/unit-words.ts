@@ -1,8 +1,9 @@
 import type { UnitSystem } from '../core/api/api-types';
+import { metresPerFootText, squareMetresPerSquareFootText } from '../../../../contract/editions';
 
-/** 1 ft = 0.3048 m exactly, so 1 ft² = 0.09290304 m² (NIST SP 811, exact definitions). */
-export const metresPerFoot = 0.3048;
-export const squareMetresPerSquareFoot = 0.09290304;
+/** 1 ft = 0.3048 m exactly, so 1 ft² = 0.09290304 m² (NIST SP 811, exact definitions), shared with the service. */
+export const metresPerFoot = Number(metresPerFootText);
+export const squareMetresPerSquareFoot = Number(squareMetresPerSquareFootText);
 
 const tenths = new Intl.NumberFormat('en-US', { maximumFractionDigits: 1 });
 const hundredths = new Intl.NumberFormat('en-US', { maximumFractionDigits: 2 });

@@ -1,6 +1,6 @@
 import type { SpaceInput, SpaceRecord, SpaceResult, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
 import { formatDensity, formatPercent, formatWatts, unitLabels } from '../../shared/format';
-import { squareMetresPerSquareFoot } from '../../shared/unit-words';
+import { metresPerFoot, squareMetresPerSquareFoot } from '../../shared/unit-words';
 
 export const noLevel = 'No level';
 
@@ -74,7 +74,7 @@ export function spaceTypeAllowance(type: SpaceTypeView, units: UnitSystem): stri
   const formula = type.lpdFormula;
   if (!formula) return formatDensity(densityInUnits(type.lpdWPerFt2, units), units);
   // Per foot of height becomes per metre: 1 m = 1 / 0.3048 ft exactly (NIST SP 811).
-  const perLength = units === 'ip' ? formula.wPerFt2PerFt : String(Number(densityInUnits(formula.wPerFt2PerFt, units)) / 0.3048);
+  const perLength = units === 'ip' ? formula.wPerFt2PerFt : String(Number(densityInUnits(formula.wPerFt2PerFt, units)) / metresPerFoot);
   const perHeight = `${formatDensity(perLength, units)} per ${unitLabels(units).length} of height`;
   return formula.kind === 'per-foot-of-height' ? perHeight : `${formatDensity(densityInUnits(formula.baseWPerFt2, units), units)} + ${perHeight}`;
 }
