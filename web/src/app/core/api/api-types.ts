@@ -124,6 +124,8 @@ export interface ProvidedControl {
   provided: boolean;
   timeoutMinutes?: string;
   zoneSize?: string;
+  /** How far the control reduces the lighting power when it acts (partial OFF, light reduction), %. */
+  reductionPercent?: string;
   autoOn?: 'manual' | 'partial' | 'full';
   device?: string;
   exceptionReason?: ControlExceptionReason;

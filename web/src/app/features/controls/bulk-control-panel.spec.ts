@@ -25,6 +25,8 @@ const spaceTypes = [
 const strategies = [
   { key: 'occupant-sensor', label: 'Occupant sensor', section: 'C405.2.1', parameters: { timeoutMinutes: '20' } },
   { key: 'time-switch', label: 'Time-switch control', section: 'C405.2.2', parameters: { zoneSizeLimitFt2: '5000' } },
+  // IECC 2021 C405.2.1.2–C405.2.1.4 as the reference data holds it ([S-ed] secondary summaries): at least 50 % in warehouses and corridors.
+  { key: 'automatic-partial-off', label: 'Automatic partial OFF', section: 'C405.2.1.2–C405.2.1.4', parameters: { timeoutMinutes: '20', reductionPercent: '50' } },
 ] as unknown as ControlStrategyView[];
 
 const result: EvaluationResult = {
@@ -35,7 +37,11 @@ const result: EvaluationResult = {
       spaceResult({
         id: entry.id,
         name: entry.name,
-        controls: [controlLine({ status: 'not-required', met: null }), controlLine({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false })],
+        controls: [
+          controlLine({ status: 'not-required', met: null }),
+          controlLine({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false }),
+          controlLine({ strategy: 'automatic-partial-off', label: 'Automatic partial OFF', status: 'not-met', met: false }),
+        ],
       }),
     ),
   },
@@ -126,6 +132,36 @@ describe('BulkControlPanel', () => {
     await fixture.whenStable();
     expect(store.spaces().map((entry) => [entry.id, entry.version, entry.controls.length])).toEqual(spaces.map((entry) => [entry.id, 2, 1]));
     expect(element.querySelector('[data-testid="bulk-done"]')?.textContent).toContain('“Time-switch control” recorded as provided on 4 spaces.');
+  });
+
+  it('asks how far the lighting is reduced only for a control whose check reads it, bounded like the service', async () => {
+    checkbox('Bunk 1').click();
+    await choose('Control', 'Time-switch control');
+    const labelsShown = () => Array.from(element.querySelectorAll('mat-label')).map((label) => label.textContent?.trim());
+    expect(labelsShown()).not.toContain('Reduces the lighting by (%)');
+    await choose('Control', 'Automatic partial OFF');
+    expect(labelsShown()).toContain('Reduces the lighting by (%)');
+    // The service's range for a share of the lighting power (compliance/bounds.ts ranges.percent): 0 to 100.
+    await fill('Reduces the lighting by', '120');
+    await submit();
+    http.expectNone('/api/projects/p1/spaces/controls');
+    expect(element.textContent).toContain('Out of range. Enter a number from 0 to 100.');
+    await fill('Reduces the lighting by', '50');
+    await submit();
+    const request = http.expectOne('/api/projects/p1/spaces/controls');
+    expect(request.request.body.control).toEqual({ strategy: 'automatic-partial-off', provided: true, reductionPercent: '50' });
+    request.flush([{ ...spaces[0], version: 2 }]);
+  });
+
+  it('neither checks nor sends a reduction once another control is chosen', async () => {
+    checkbox('Bunk 1').click();
+    await choose('Control', 'Automatic partial OFF');
+    await fill('Reduces the lighting by', '120');
+    await choose('Control', 'Time-switch control');
+    await submit();
+    const request = http.expectOne('/api/projects/p1/spaces/controls');
+    expect(request.request.body.control).toEqual({ strategy: 'time-switch', provided: true });
+    request.flush([{ ...spaces[0], version: 2 }]);
   });
 
   it('records the same exception with its reason', async () => {

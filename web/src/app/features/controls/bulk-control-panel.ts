@@ -27,8 +27,8 @@ interface Choice {
 }
 
 /** Many spaces get what is provided or excepted; "not provided" is what they have before. */
-function provisionForm() {
-  const form = controlForm(undefined);
+function provisionForm(strategy: () => string) {
+  const form = controlForm(undefined, strategy);
   form.controls.mode.setValue('provided');
   return form;
 }
@@ -56,7 +56,7 @@ export class BulkControlPanel {
     text: new FormControl('', { nonNullable: true }),
   });
   protected readonly strategy = new FormControl('', { nonNullable: true, validators: [Validators.required] });
-  protected readonly provision = provisionForm();
+  protected readonly provision = provisionForm(() => this.strategy.value);
   /** One form, so Enter and the button submit through Angular, never as a page load. */
   protected readonly record = new FormGroup({ strategy: this.strategy, provision: this.provision });
 
@@ -111,6 +111,11 @@ export class BulkControlPanel {
     });
   });
   protected readonly strategyView = computed(() => this.strategies().find((entry) => entry.view.key === this.strategyKey())?.view);
+
+  constructor() {
+    // The fields and rules follow the control chosen: a value only another control reads is neither checked nor sent.
+    this.strategy.valueChanges.subscribe(() => this.provision.updateValueAndValidity());
+  }
 
   protected toggle(spaceId: string, checked: boolean): void {
     this.selected.update((selected) => {

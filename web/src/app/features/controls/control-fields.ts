@@ -6,7 +6,8 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import type { ControlStrategyView, UnitSystem } from '../../core/api/api-types';
 import { areaInUnits } from '../../shared/unit-words';
-import type { ControlForm } from './control-form';
+import { fieldMessage } from '../spaces/space-form';
+import { reducesLighting, type ControlForm } from './control-form';
 import { exceptionReasonLabels } from './control-status';
 
 /**
@@ -36,5 +37,8 @@ export class ControlFields {
     return limit === undefined ? undefined : areaInUnits(limit, this.units());
   });
   protected readonly asksAutoOn = computed(() => this.strategyKey() === 'occupant-sensor');
+  /** Partial OFF and light reduction are checked against how far they reduce the lighting. */
+  protected readonly asksReduction = computed(() => reducesLighting(this.strategyKey()));
+  protected readonly fieldMessage = fieldMessage;
   protected readonly areaUnit = computed(() => (this.units() === 'ip' ? 'ft²' : 'm²'));
 }

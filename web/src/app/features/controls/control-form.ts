@@ -1,5 +1,7 @@
 import { FormControl, FormGroup, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
 import type { ControlExceptionReason, ProvidedControl } from '../../core/api/api-types';
+import { ranges } from '../../shared/number-range';
+import { quantityValidator } from '../spaces/space-form';
 
 export type ProvisionMode = 'provided' | 'exception' | 'none';
 export type AutoOn = '' | 'manual' | 'partial' | 'full';
@@ -10,6 +12,7 @@ export type ControlForm = FormGroup<{
   timeoutMinutes: FormControl<string>;
   autoOn: FormControl<AutoOn>;
   zoneSize: FormControl<string>;
+  reductionPercent: FormControl<string>;
   exceptionReason: FormControl<ControlExceptionReason | ''>;
   exceptionNote: FormControl<string>;
 }>;
@@ -35,7 +38,21 @@ const noteRequired = whenMode('exception', (control) => {
   return reason === 'other' && String(control.value).trim() === '' ? { required: true } : null;
 });
 
-export function controlForm(current: ProvidedControl | undefined): ControlForm {
+/** The strategies whose check reads how far the lighting is reduced (automatic partial OFF, light reduction). */
+export const reducingStrategies: ReadonlySet<string> = new Set(['automatic-partial-off', 'light-reduction']);
+
+export function reducesLighting(strategy: string): boolean {
+  return reducingStrategies.has(strategy);
+}
+
+/**
+ * The form for one strategy's entry. `strategy` says which strategy it is for at the moment (the
+ * panel for many spaces lets the engineer change it), so fields that strategy does not read are
+ * neither checked nor sent.
+ */
+export function controlForm(current: ProvidedControl | undefined, strategy: () => string): ControlForm {
+  const percent = quantityValidator(ranges.percent);
+  const reductionRule = whenMode('provided', (control) => (reducesLighting(strategy()) ? percent(control) : null));
   const mode: ProvisionMode = current?.provided ? 'provided' : current?.exceptionReason ? 'exception' : 'none';
   const form: ControlForm = new FormGroup({
     mode: new FormControl<ProvisionMode>(mode, { nonNullable: true }),
@@ -43,10 +60,12 @@ export function controlForm(current: ProvidedControl | undefined): ControlForm {
     timeoutMinutes: new FormControl(current?.timeoutMinutes ?? '', { nonNullable: true, validators: [nonNegativeDecimal] }),
     autoOn: new FormControl<AutoOn>(current?.autoOn ?? '', { nonNullable: true }),
     zoneSize: new FormControl(current?.zoneSize ?? '', { nonNullable: true, validators: [nonNegativeDecimal] }),
+    reductionPercent: new FormControl(current?.reductionPercent ?? '', { nonNullable: true, validators: [reductionRule] }),
     exceptionReason: new FormControl<ControlExceptionReason | ''>(current?.exceptionReason ?? '', { nonNullable: true, validators: [reasonRequired] }),
     exceptionNote: new FormControl(current?.exceptionNote ?? '', { nonNullable: true, validators: [noteRequired] }),
   });
   const revalidate = () => {
+    form.controls.reductionPercent.updateValueAndValidity({ emitEvent: false });
     form.controls.exceptionReason.updateValueAndValidity({ emitEvent: false });
     form.controls.exceptionNote.updateValueAndValidity({ emitEvent: false });
   };
@@ -69,10 +88,12 @@ export function providedControl(strategy: string, value: ReturnType<ControlForm[
   const device = text(value.device);
   const timeout = text(value.timeoutMinutes);
   const zoneSize = text(value.zoneSize);
+  const reduction = reducesLighting(strategy) ? text(value.reductionPercent) : undefined;
   if (device !== undefined) control.device = device;
   if (timeout !== undefined) control.timeoutMinutes = timeout;
   if (value.autoOn !== '') control.autoOn = value.autoOn;
   if (zoneSize !== undefined) control.zoneSize = zoneSize;
+  if (reduction !== undefined) control.reductionPercent = reduction;
   return control;
 }
 

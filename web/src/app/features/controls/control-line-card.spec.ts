@@ -44,6 +44,18 @@ describe('ControlLineCard', () => {
     expect(statusView('exception-claimed').outstanding).toBe(false);
   });
 
+  it('says how far a recorded light-reduction control reduces the lighting, and offers the field when editing', async () => {
+    fixture.componentRef.setInput('line', controlLine({ strategy: 'light-reduction', label: 'Light-reduction control', status: 'met', met: true }));
+    fixture.componentRef.setInput('provided', { strategy: 'light-reduction', provided: true, device: 'Invented dimmer', reductionPercent: '50' });
+    fixture.componentRef.setInput('canEdit', true);
+    await fixture.whenStable();
+    expect(element.querySelector('.recorded')?.textContent?.trim()).toBe('buildProvided: Invented dimmer; reduces by 50 %');
+    element.querySelector<HTMLButtonElement>('button')!.click();
+    await fixture.whenStable();
+    const field = element.querySelector<HTMLInputElement>('input[formcontrolname="reductionPercent"]')!;
+    expect(field.value).toBe('50');
+  });
+
   it('offers no edit button to someone who only reads', async () => {
     await show('not-met', false);
     expect(element.querySelector('button')).toBeNull();
@@ -71,7 +83,7 @@ describe('ControlLineCard', () => {
 
 describe('control form rules', () => {
   it('needs a reason for an exception, and rejects a negative time-out', () => {
-    const form = controlForm(undefined);
+    const form = controlForm(undefined, () => 'occupant-sensor');
     form.controls.mode.setValue('exception');
     expect(form.controls.exceptionReason.hasError('required')).toBe(true);
     form.controls.mode.setValue('provided');
@@ -82,8 +94,23 @@ describe('control form rules', () => {
     expect(form.valid).toBe(true);
   });
 
+  it('reads how far a partial-OFF or light-reduction control reduces the lighting, from 0 to 100 %', () => {
+    const form = controlForm({ strategy: 'light-reduction', provided: true, reductionPercent: '50' }, () => 'light-reduction');
+    expect(form.controls.reductionPercent.value).toBe('50');
+    // The service's range for a share of the lighting power (compliance/bounds.ts ranges.percent).
+    form.controls.reductionPercent.setValue('-1');
+    expect(form.controls.reductionPercent.errors).toEqual({ quantity: 'Must not be negative. Enter a number from 0 to 100.' });
+    form.controls.reductionPercent.setValue('100.5');
+    expect(form.controls.reductionPercent.errors).toEqual({ quantity: 'Out of range. Enter a number from 0 to 100.' });
+    form.controls.reductionPercent.setValue(' 80 ');
+    expect(form.valid).toBe(true);
+    expect(providedControl('light-reduction', form.getRawValue())).toEqual({ strategy: 'light-reduction', provided: true, reductionPercent: '80' });
+    // A strategy whose check does not read it gets none.
+    expect(providedControl('time-switch', form.getRawValue())).toEqual({ strategy: 'time-switch', provided: true });
+  });
+
   it('sends only what was recorded, and replaces just that strategy', () => {
-    const form = controlForm(undefined);
+    const form = controlForm(undefined, () => 'occupant-sensor');
     form.patchValue({ mode: 'provided', device: ' Invented sensor ', timeoutMinutes: '15', autoOn: 'partial' });
     const next = providedControl('occupant-sensor', form.getRawValue());
     expect(next).toEqual({ strategy: 'occupant-sensor', provided: true, device: 'Invented sensor', timeoutMinutes: '15', autoOn: 'partial' });

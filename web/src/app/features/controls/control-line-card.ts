@@ -28,7 +28,7 @@ export class ControlLineCard {
   readonly save = output<ProvidedControl | null>();
 
   protected readonly editing = signal(false);
-  protected form: ControlForm = controlForm(undefined);
+  protected form: ControlForm = controlForm(undefined, () => this.line().strategy);
   protected readonly reasonLabels = exceptionReasonLabels;
   protected readonly view = computed(() => statusView(this.line().status));
   protected readonly requirement = computed(() => requirementWords(this.line().requirement));
@@ -42,7 +42,7 @@ export class ControlLineCard {
   }
 
   open(): void {
-    this.form = controlForm(this.provided());
+    this.form = controlForm(this.provided(), () => this.line().strategy);
     this.editing.set(true);
   }
 
