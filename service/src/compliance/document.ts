@@ -434,13 +434,25 @@ function controlProblems(
     if (!strategies.has(strategy)) add(`${path}.${index}.strategy`, `“${strategy}” is not a control of ${edition.title}.`);
     if (seen.has(strategy)) add(`${path}.${index}.strategy`, `This control is listed more than once.`);
     seen.add(strategy);
-    if ((control['exceptionReason'] === 'other' || control['exceptionReason'] === 'verified-not-required') && word(control['exceptionNote']) === undefined) {
-      add(`${path}.${index}.exceptionNote`, control['exceptionReason'] === 'other' ? 'Say which exception is claimed.' : 'Say where in the adopted code it was checked.');
-    }
-    if (control['exceptionReason'] === 'continuous-operation' && strategy !== 'time-switch') {
-      add(`${path}.${index}.exceptionReason`, 'Continuous operation frees lighting from the time switch only.');
-    }
+    for (const problem of exceptionProblems(control)) add(`${path}.${index}.${problem.path}`, problem.message);
   });
+}
+
+/**
+ * The rules of one control's exception claim, its fields' paths relative to the control: a note
+ * where the reason needs one, continuous operation for the time switch only. Every write of a
+ * control passes them, so no stored design fails the evaluation for them later.
+ */
+export function exceptionProblems(control: Record<string, unknown>): DocumentProblem[] {
+  const problems: DocumentProblem[] = [];
+  const reason = control['exceptionReason'];
+  if ((reason === 'other' || reason === 'verified-not-required') && word(control['exceptionNote']) === undefined) {
+    problems.push({ path: 'exceptionNote', message: reason === 'other' ? 'Say which exception is claimed.' : 'Say where in the adopted code it was checked.' });
+  }
+  if (reason === 'continuous-operation' && word(control['strategy']) !== 'time-switch') {
+    problems.push({ path: 'exceptionReason', message: 'Continuous operation frees lighting from the time switch only.' });
+  }
+  return problems;
 }
 
 /** Geometry that must fit the room: openings inside their walls and ceiling, heights in order. */
