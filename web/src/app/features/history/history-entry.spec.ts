@@ -95,11 +95,11 @@ describe('a history entry in words', () => {
 
     it('says what changed inside a control, and names the type and level in words', () => {
       const before = space({ controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '15', device: 'Wall sensor' }] });
-      const after = space({ level: 'Level 2', spaceType: 'storage-room', controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', device: 'Ceiling sensor' }] });
+      const after = space({ level: 'Level 2', spaceType: 'storage-room', controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', reductionPercent: '50', device: 'Ceiling sensor' }] });
       expect(describeEntry(entry({ entity: 'space', action: 'update', name: 'Exam 1', before, after }), labels, 'ip').changes).toEqual([
         'level “Level 1” → “Level 2”',
         'space type Office — Enclosed → Storage Room',
-        'controls: occupant sensor time-out 15 → 20 min, device “Wall sensor” → “Ceiling sensor”',
+        'controls: occupant sensor time-out 15 → 20 min, reduction set to 50 %, device “Wall sensor” → “Ceiling sensor”',
       ]);
     });
 

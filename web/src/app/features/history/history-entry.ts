@@ -189,6 +189,7 @@ function controlDetails(before: ProvidedControl | undefined, after: ProvidedCont
   parts.push(
     measured('time-out', before?.timeoutMinutes, after.timeoutMinutes, 'min'),
     measured('zone size', before?.zoneSize, after.zoneSize, areaUnit),
+    measured('reduction', before?.reductionPercent, after.reductionPercent, '%'),
     choice('switching on', before?.autoOn, after.autoOn, (value) => autoOnWords[value] ?? spelt(value)),
     text('device', before?.device, after.device),
     exceptionChange(before?.exceptionReason, after.exceptionReason),
