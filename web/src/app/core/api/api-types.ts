@@ -13,7 +13,15 @@ export type LuminaireUse = 'general' | 'decorative' | 'display' | 'exempt';
 export type WattageBasis = 'rated' | 'line-voltage-track' | 'low-voltage-track' | 'current-limited';
 export type DaylightZoneKind = 'primary-sidelit' | 'secondary-sidelit' | 'toplit';
 export type Wall = 'north' | 'east' | 'south' | 'west';
-export type ControlExceptionReason = 'security-or-emergency-continuous' | 'exit-stairway-ramp-passageway' | 'egress-normally-off' | 'other';
+export type ControlExceptionReason =
+  | 'security-or-emergency-continuous'
+  | 'exit-stairway-ramp-passageway'
+  | 'egress-normally-off'
+  /** The time switch only: lighting intended for continuous operation. */
+  | 'continuous-operation'
+  /** For a requirement to verify: the engineer checked the adopted code and it does not apply here (the note says where). */
+  | 'verified-not-required'
+  | 'other';
 
 /** Written with every design record; send `version` back on update, get 409 if someone else wrote first. */
 export interface Stamp {

@@ -184,6 +184,33 @@ describe('BulkControlPanel', () => {
     request.flush([{ ...spaces[0], version: 2 }]);
   });
 
+  it('offers continuous operation for the time switch, and puts the service’s refusal beside the field it names', async () => {
+    checkbox('Bunk 1').click();
+    await choose('Control', 'Time-switch control');
+    Array.from(element.querySelectorAll<HTMLElement>('mat-radio-button'))
+      .find((radio) => radio.textContent?.includes('Exception claimed'))!
+      .querySelector<HTMLInputElement>('input')!
+      .click();
+    await fixture.whenStable();
+    await choose('Exception', 'Lighting intended to operate continuously');
+    await submit();
+    const request = http.expectOne('/api/projects/p1/spaces/controls');
+    expect(request.request.body.control).toEqual({ strategy: 'time-switch', provided: false, exceptionReason: 'continuous-operation' });
+    request.flush(
+      { error: { code: 'validation_failed', message: 'The exception claimed is not complete.', details: [{ path: 'control.exceptionNote', message: 'Invented refusal for the test.' }] } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+    const note = Array.from(element.querySelectorAll('mat-form-field')).find((field) => field.querySelector('mat-label')?.textContent?.trim() === 'Note')!;
+    expect(note.querySelector('mat-error')?.textContent?.trim()).toBe('Invented refusal for the test.');
+
+    // Chosen for another control, the reason is refused beside the field before anything is sent.
+    await choose('Control', 'Occupant sensor');
+    await submit();
+    http.expectNone('/api/projects/p1/spaces/controls');
+    expect(element.textContent).toContain('Continuous operation frees lighting from the time switch only.');
+  });
+
   it('names the spaces someone changed meanwhile, records nothing, and reads the spaces again on Reload', async () => {
     checkbox('Select all shown').click();
     await choose('Control', 'Time-switch control');

@@ -31,11 +31,17 @@ function whenMode(mode: ProvisionMode, check: (control: AbstractControl) => Vali
   return (control) => ((control.parent?.value as { mode?: ProvisionMode } | undefined)?.mode === mode ? check(control) : null);
 }
 
-const reasonRequired = whenMode('exception', (control) => (control.value === '' ? { required: true } : null));
-/** As the service says: an "other" exception must say which exception is claimed. */
+/** The notes the service requires, by reason, in its words (compliance/document.ts exceptionProblems). */
+export const notesRequired: Partial<Record<ControlExceptionReason, string>> = {
+  other: 'Say which exception is claimed.',
+  'verified-not-required': 'Say where in the adopted code it was checked.',
+};
+
+/** As the service says: an "other" exception says which it is, and a check against the adopted code says where it was made. */
 const noteRequired = whenMode('exception', (control) => {
-  const reason = (control.parent?.value as { exceptionReason?: string } | undefined)?.exceptionReason;
-  return reason === 'other' && String(control.value).trim() === '' ? { required: true } : null;
+  const reason = (control.parent?.value as { exceptionReason?: ControlExceptionReason | '' } | undefined)?.exceptionReason;
+  const message = reason ? notesRequired[reason] : undefined;
+  return message !== undefined && String(control.value).trim() === '' ? { note: message } : null;
 });
 
 /** The strategies whose check reads how far the lighting is reduced (automatic partial OFF, light reduction). */
@@ -53,6 +59,10 @@ export function reducesLighting(strategy: string): boolean {
 export function controlForm(current: ProvidedControl | undefined, strategy: () => string): ControlForm {
   const percent = quantityValidator(ranges.percent);
   const reductionRule = whenMode('provided', (control) => (reducesLighting(strategy()) ? percent(control) : null));
+  const reasonRule = whenMode('exception', (control) => {
+    if (control.value === '') return { required: true };
+    return control.value === 'continuous-operation' && strategy() !== 'time-switch' ? { timeSwitchOnly: 'Continuous operation frees lighting from the time switch only.' } : null;
+  });
   const mode: ProvisionMode = current?.provided ? 'provided' : current?.exceptionReason ? 'exception' : 'none';
   const form: ControlForm = new FormGroup({
     mode: new FormControl<ProvisionMode>(mode, { nonNullable: true }),
@@ -61,7 +71,7 @@ export function controlForm(current: ProvidedControl | undefined, strategy: () =
     autoOn: new FormControl<AutoOn>(current?.autoOn ?? '', { nonNullable: true }),
     zoneSize: new FormControl(current?.zoneSize ?? '', { nonNullable: true, validators: [nonNegativeDecimal] }),
     reductionPercent: new FormControl(current?.reductionPercent ?? '', { nonNullable: true, validators: [reductionRule] }),
-    exceptionReason: new FormControl<ControlExceptionReason | ''>(current?.exceptionReason ?? '', { nonNullable: true, validators: [reasonRequired] }),
+    exceptionReason: new FormControl<ControlExceptionReason | ''>(current?.exceptionReason ?? '', { nonNullable: true, validators: [reasonRule] }),
     exceptionNote: new FormControl(current?.exceptionNote ?? '', { nonNullable: true, validators: [noteRequired] }),
   });
   const revalidate = () => {
