@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { EditionData, SpaceType } from './edition-data.js';
 import { conditionWords, satisfies, sizeCondition } from './size-conditions.js';
-import { areaToSquareFeet, lengthToFeet } from './units.js';
+import { areaToSquareFeet, areaWords, lengthToFeet, lengthWords } from './units.js';
 import { boundedDecimal, decimalField, documentLimits, listLimit, ranges, textField, textLimits } from './bounds.js';
 import { lpdFormulaProblems } from './lpd-formula.js';
 import { type Dec, dec } from './numbers.js';
@@ -415,9 +415,13 @@ function sizeProblem(edition: EditionData, type: SpaceType, space: Loose, units:
     return otherCondition !== null && otherCondition.quantity === condition.quantity && satisfies(otherCondition, measured);
   });
   const grouped = !rooms.equals(1);
-  const size = condition.quantity === 'area' ? `${measured.toDecimalPlaces(0).toFixed()} ft²${grouped ? ' a room' : ''}` : `${measured.toDecimalPlaces(1).toFixed()} ft high`;
+  // The size in the project's units: ft² to 1 and ft to 0.1, or m² to 0.1 and m to 0.01.
+  const size =
+    condition.quantity === 'area'
+      ? `${units === 'ip' ? `${measured.toDecimalPlaces(0).toFixed()} ft²` : areaWords(measured, units)}${grouped ? ' a room' : ''}`
+      : `${units === 'ip' ? `${measured.toDecimalPlaces(1).toFixed()} ft` : lengthWords(measured, units)} high`;
   const hint = condition.quantity === 'area' && !grouped ? ' If this entry groups several rooms, give how many.' : '';
-  add(path, `“${type.label}” is for spaces ${conditionWords(condition)}; this one is ${size}.${fitting ? ` Choose “${fitting.label}”.` : ''}${hint}`);
+  add(path, `“${type.label}” is for spaces ${conditionWords(condition, units)}; this one is ${size}.${fitting ? ` Choose “${fitting.label}”.` : ''}${hint}`);
 }
 
 function controlProblems(
