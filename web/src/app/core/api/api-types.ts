@@ -168,6 +168,8 @@ export interface SpaceInput {
   luminaireHeight?: string;
   workPlaneHeight?: string;
   enclosed?: boolean;
+  /** How many like rooms this entry stands for (1 when absent); a size in the space type's name applies to each. */
+  rooms?: string;
   /** The engineer confirms the space has no lighting; until then a space without luminaires holds the verdict back. */
   unlit?: boolean;
   luminaires: LuminaireGroup[];

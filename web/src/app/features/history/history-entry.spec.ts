@@ -105,8 +105,9 @@ describe('a history entry in words', () => {
 
     it('reads a set value and a cleared one', () => {
       const before = space({ ceilingHeight: undefined, length: '12' });
-      const after = space({ ceilingHeight: '10', length: undefined });
+      const after = space({ ceilingHeight: '10', length: undefined, rooms: '4' });
       expect(describeEntry(entry({ entity: 'space', action: 'update', name: 'Exam 1', before, after }), labels, 'si').changes).toEqual([
+        'like rooms in the entry set to 4',
         'ceiling height set to 10 m',
         'room length cleared (was 12 m)',
       ]);

@@ -238,6 +238,7 @@ function spaceChanges(before: SpaceRecord, after: SpaceRecord, labels: HistoryLa
     choice('building area type', before.buildingAreaType, after.buildingAreaType, named(labels.buildingAreaTypes)),
     choice('space type for controls', before.controlSpaceType, after.controlSpaceType, named(labels.spaceTypes)),
     measured('floor area', before.area, after.area, area),
+    measured('like rooms in the entry', before.rooms, after.rooms, ''),
     measured('ceiling height', before.ceilingHeight, after.ceilingHeight, length),
     measured('room length', before.length, after.length, length),
     measured('room width', before.width, after.width, length),
