@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { EditionData, SpaceType } from './edition-data.js';
 import { conditionWords, satisfies, sizeCondition } from './size-conditions.js';
 import { areaToSquareFeet, areaWords, lengthToFeet, lengthWords } from './units.js';
-import { boundedDecimal, decimalField, documentLimits, listLimit, ranges, textField, textLimits } from './bounds.js';
+import { boundedDecimal, decimalField, distinctKeys, documentLimits, listLimit, maxAmendments, ranges, textField, textLimits } from './bounds.js';
 import { lpdFormulaProblems } from './lpd-formula.js';
 import { type Dec, dec } from './numbers.js';
 
@@ -166,7 +166,7 @@ export const evaluationDocumentSchema = fields({
   exterior: exteriorSchema.optional(),
   retailDisplay: retailDisplaySchema.optional(),
   /** Jurisdiction amendments of the edition to apply (their keys); the model code alone when absent. */
-  amendments: z.array(key).max(10, listLimit(10, 'amendments')).default([]),
+  amendments: distinctKeys(key, maxAmendments, 'amendments').default([]),
 });
 
 export type EvaluationDocumentInput = z.input<typeof evaluationDocumentSchema>;
