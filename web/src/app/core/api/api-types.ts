@@ -79,6 +79,8 @@ export interface ProjectDetail extends ProjectSummary, PermitFields {
   jurisdiction: string | null;
   units: UnitSystem;
   lightingZone: number | null;
+  /** Keys of the edition's jurisdiction amendments the project follows; none: the model code alone. */
+  amendments: string[];
   updatedBy: string | null;
   members: ProjectMember[];
 }
@@ -94,6 +96,7 @@ export interface ProjectSetup {
   method: ComplianceMethod;
   units: UnitSystem;
   lightingZone?: number | null;
+  amendments?: string[];
 }
 
 /** A set-up write may carry any of the permit fields as well. */
@@ -215,6 +218,8 @@ export interface SetupSnapshot extends Partial<PermitFields> {
   method: ComplianceMethod | null;
   units: UnitSystem;
   lightingZone: number | null;
+  /** Absent from entries written before the set-up kept them. */
+  amendments?: string[];
   version: number;
 }
 
@@ -360,6 +365,13 @@ export interface AdditionalAllowanceView extends RowProvenance {
   lpdWPerFt2: string;
   /** Added once per building where the edition states one (90.1-2022: 750 W). */
   fixedW: string | null;
+}
+
+/** A jurisdiction's amendment of an edition: its values replace the model code's for a project that chooses it. */
+export interface AmendmentView extends RowProvenance {
+  key: string;
+  title: string;
+  jurisdiction: string;
 }
 
 export interface LightingZoneView extends RowProvenance {
@@ -529,6 +541,8 @@ export interface EvaluationResult {
   controlsComply: boolean;
   unverifiedValues: UnverifiedValue[];
   cautions: string[];
+  /** The jurisdiction amendments applied over the model code. */
+  amendments: { key: string; title: string }[];
 }
 
 /** A sales-floor space's claim on one of the edition's additional allowances. */

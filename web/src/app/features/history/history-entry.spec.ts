@@ -172,6 +172,8 @@ describe('a history entry in words', () => {
       expect(say(entry({ entity: 'project', action: 'update', name: 'Tidewater Clinic', before: setup, after }))).toBe(
         'Ines Halvorsen changed the set-up: jurisdiction set to “Tidewater County”; code edition IECC 2021 → ASHRAE/IES 90.1-2019; compliance method space-by-space method → building area method; exterior lighting zone 2 → 3',
       );
+      const amended = describeEntry(entry({ entity: 'project', action: 'update', name: 'x', before: { ...setup, amendments: [] }, after: { ...setup, amendments: ['washington-2021'] } }), labels, 'ip');
+      expect(amended.changes).toEqual(['jurisdiction amendments: model code only → 1 chosen']);
       expect(say(entry({ entity: 'project', action: 'create', name: 'Tidewater Clinic', before: null, after: setup }))).toBe('Ines Halvorsen created the project “Tidewater Clinic”');
     });
 
