@@ -76,6 +76,25 @@ describe('SetupFields: jurisdiction amendments', () => {
     expect(element.querySelector('[data-testid="no-amendments"]')?.textContent).toContain('the model code applies');
   });
 
+  it('drops and names them in the code section, whichever section of the same form was made first', async () => {
+    // The Set-up page shows every section of one form: the others neither read the amendments nor drop them.
+    fixture.destroy();
+    const identity = TestBed.createComponent(SetupFields);
+    identity.componentRef.setInput('form', form);
+    identity.componentRef.setInput('section', 'identity');
+    fixture = TestBed.createComponent(SetupFields);
+    fixture.componentRef.setInput('form', form);
+    fixture.componentRef.setInput('section', 'code');
+    element = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+    await identity.whenStable();
+    await chooseEdition('iecc-2021', amendments);
+    form.controls.code.controls.amendments.setValue(['washington-2021']);
+    await chooseEdition('ashrae-90.1-2019', []);
+    await identity.whenStable();
+    expect(element.querySelector('[data-testid="dropped-amendments"]')?.textContent).toContain('Washington State Energy Code 2021');
+  });
+
   it('puts a refused amendment beside the field', async () => {
     await chooseEdition('iecc-2021', amendments);
     form.controls.code.controls.amendments.setValue(['washington-2021']);

@@ -87,9 +87,13 @@ export class SetupFields {
     return zones.status === 'ready' ? zones.zones.filter((zone) => !zone.verified).length : 0;
   });
 
-  /** The edition's jurisdiction amendments, as the service lists them for the edition chosen. */
+  /**
+   * The edition's jurisdiction amendments, as the service lists them for the edition chosen. Only
+   * the section that shows them reads them, so that one instance alone drops and names them.
+   */
+  private readonly amendmentEdition = computed(() => (this.section() === 'code' ? this.edition() : ''));
   protected readonly amendments = toSignal(
-    toObservable(this.edition).pipe(
+    toObservable(this.amendmentEdition).pipe(
       switchMap((edition) =>
         edition
           ? this.api.amendments(edition).pipe(
