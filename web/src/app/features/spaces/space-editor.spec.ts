@@ -132,6 +132,14 @@ describe('SpaceEditor', () => {
       );
     await fixture.whenStable();
     expect(Array.from(element.querySelectorAll('mat-error')).map((error) => error.textContent?.trim())).toContain('“Office — Enclosed and ≤ 23.2 m²” is for spaces at most 23.2 m²; this one is 25 m².');
+
+    // Giving the like rooms answers it: the refusal goes, and the next save asks the service again.
+    const rooms = element.querySelector<HTMLInputElement>('input[formcontrolname="rooms"]')!;
+    rooms.value = '2';
+    rooms.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(element.textContent).not.toContain('is for spaces at most');
+    expect((await save())['rooms']).toBe('2');
   });
 
   it('does not offer it once the space has luminaires, and leaves the stored flag alone', async () => {
