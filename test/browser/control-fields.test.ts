@@ -162,7 +162,7 @@ describe('the design fields the service holds, entered through the pages', { tim
     await browser.screenshot('control-fields-rooms-refused');
 
     // Three offices of 20 m² each fit the row.
-    await dialog.getByLabel('Like rooms in this entry').fill('3');
+    await dialog.getByLabel('Like rooms', { exact: true }).fill('3');
     await dialog.getByRole('button', { name: 'Add space' }).click();
     await dialog.waitFor({ state: 'detached' });
     const row = page.getByRole('row', { name: /Staff offices/ });
