@@ -212,8 +212,15 @@ describe('sizes the space type names', () => {
     // One entry for ten offices of 200 ft² each fits the row.
     expect(validateDocument({ ...document(2000), spaces: [{ ...document(2000).spaces[0]!, rooms: 10 }] }, edition).problems).toEqual([]);
     expect(validateDocument(document(250), edition).problems).toEqual([]);
-    // 25 m² = 269.1 ft² (1 ft² = 0.09290304 m², mathjs units): over 250 ft².
-    expect(validateDocument(document(25, 'si'), edition).problems.map((problem) => problem.path)).toEqual(['spaces.0.spaceType']);
+    // 25 m² = 269.1 ft² (1 ft² = 0.09290304 m², mathjs units): over 250 ft², which is 23.2 m². An SI project reads the sizes in m².
+    expect(validateDocument(document(25, 'si'), edition).problems).toEqual([
+      {
+        path: 'spaces.0.spaceType',
+        message: '“Office — Enclosed and ≤ 250 ft²” is for spaces at most 23.2 m²; this one is 25 m². Choose “Office — Enclosed and > 250 ft²”. If this entry groups several rooms, give how many.',
+      },
+    ]);
+    // Two offices of 60 m² entered as one: each is 60 m², still over 23.2 m², and the message says it is a room's size.
+    expect(validateDocument({ ...document(120, 'si'), spaces: [{ ...document(120, 'si').spaces[0]!, rooms: 2 }] }, edition).problems[0]!.message).toContain('at most 23.2 m²; this one is 60 m² a room.');
   });
 });
 

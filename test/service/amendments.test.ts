@@ -59,6 +59,27 @@ describe('jurisdiction amendments', () => {
     expect((await engineer.agent.get(`/api/projects/${projectId}/document`)).body.amendments).toEqual(['washington-2021']);
   });
 
+  it('are each chosen once, at most 10, in the set-up and in a document', async () => {
+    const twice = await write('post', '/api/projects').send({ name: 'Twice', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', amendments: ['washington-2021', 'washington-2021'] });
+    expect(twice.status).toBe(400);
+    expect(twice.body.error.details).toEqual([{ path: 'amendments.1', message: '“washington-2021” is chosen more than once.' }]);
+
+    const created = await write('post', '/api/projects').send({ name: 'Many', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
+    const eleven = Array.from({ length: 11 }, (_, index) => `amendment-${index}`);
+    const tooMany = await write('patch', `/api/projects/${created.body.id}`).send({ version: created.body.version, amendments: eleven });
+    expect(tooMany.status).toBe(400);
+    expect(tooMany.body.error.details).toEqual([{ path: 'amendments', message: 'At most 10 amendments.' }]);
+    const again = await write('patch', `/api/projects/${created.body.id}`).send({ version: created.body.version, amendments: ['washington-2021', 'washington-2021'] });
+    expect(again.body.error.details).toEqual([{ path: 'amendments.1', message: '“washington-2021” is chosen more than once.' }]);
+    expect((await engineer.agent.get(`/api/projects/${created.body.id}`)).body.amendments).toEqual([]);
+
+    const document = { edition: 'iecc-2021', method: 'space-by-space', units: 'ip', spaces: [{ id: 's', name: 'Office', spaceType: 'office-enclosed', area: '150' }] };
+    const evaluated = await write('post', '/api/evaluate').send({ ...document, amendments: ['washington-2021', 'washington-2021'] });
+    expect(evaluated.status).toBe(400);
+    expect(evaluated.body.error.details).toEqual([{ path: 'amendments.1', message: '“washington-2021” is chosen more than once.' }]);
+    expect((await write('post', '/api/evaluate').send({ ...document, amendments: eleven })).body.error.details).toContainEqual({ path: 'amendments', message: 'At most 10 amendments.' });
+  });
+
   it('must belong to the project’s edition', async () => {
     const created = await write('post', '/api/projects').send({ name: 'Elsewhere', edition: 'ashrae-90.1-2019', method: 'space-by-space', units: 'ip', amendments: ['washington-2021'] });
     expect(created.status).toBe(400);

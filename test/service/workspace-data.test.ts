@@ -139,6 +139,29 @@ describe('one control on many spaces', () => {
     const unknown = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: targets.map((target: { id: string }) => ({ ...target, version: 2 })), control: { ...control, strategy: 'moonlight-dimming' } });
     expect(unknown.status).toBe(400);
   });
+
+  it('refuses an exception claim that one space’s write would refuse, and stores nothing', async () => {
+    const projectId = await newProject({ name: 'Claims on many' });
+    const created = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).send({
+      spaces: [1, 2].map((n) => ({ name: `Corridor ${n}`, spaceType: 'corridor-otherwise', area: '400' })),
+    });
+    expect(created.status).toBe(201);
+    const targets = created.body.map((space: { id: string; version: number }) => ({ id: space.id, version: space.version }));
+    const claim = (control: Record<string, unknown>) => write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: targets, control });
+
+    // A check against the adopted code must say where it was made; continuous operation frees lighting from the time switch only (IECC 2021 C405.2.2, as document.ts holds it).
+    const unsaid = await claim({ strategy: 'occupant-sensor', provided: false, exceptionReason: 'verified-not-required' });
+    expect(unsaid.status).toBe(400);
+    expect(unsaid.body.error.details).toEqual([{ path: 'control.exceptionNote', message: 'Say where in the adopted code it was checked.' }]);
+    const misplaced = await claim({ strategy: 'occupant-sensor', provided: false, exceptionReason: 'continuous-operation' });
+    expect(misplaced.body.error.details).toEqual([{ path: 'control.exceptionReason', message: 'Continuous operation frees lighting from the time switch only.' }]);
+    expect((await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.every((space: { controls: unknown[] }) => space.controls.length === 0)).toBe(true);
+
+    const timeSwitch = await claim({ strategy: 'time-switch', provided: false, exceptionReason: 'continuous-operation' });
+    expect(timeSwitch.status).toBe(200);
+    // The project still evaluates: nothing stored breaks its document.
+    expect((await engineer.agent.get(`/api/projects/${projectId}/results`)).status).toBe(200);
+  });
 });
 
 describe('names an import matched to a type', () => {

@@ -162,6 +162,21 @@ export const documentLimits = {
   problemsListed: 500,
 } as const;
 
+/** At most 10 jurisdiction amendments on one project, each once (common practice: a jurisdiction rarely layers more than two). */
+export const maxAmendments = 10;
+
+/** A list of keys that names each key once; a repeat is refused at its own place (`amendments.2`). */
+export function distinctKeys(schema: z.ZodType<string>, max: number, what: string) {
+  return z
+    .array(schema)
+    .max(max, listLimit(max, what))
+    .superRefine((keys, ctx) => {
+      keys.forEach((key, index) => {
+        if (keys.indexOf(key) !== index) ctx.addIssue({ code: 'custom', path: [index], message: `“${key}” is chosen more than once.` });
+      });
+    });
+}
+
 export function listLimit(max: number, what: string): string {
   return `At most ${grouped(String(max))} ${what}.`;
 }

@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import type { EditionData, SpaceType } from './edition-data.js';
 import { conditionWords, satisfies, sizeCondition } from './size-conditions.js';
-import { areaToSquareFeet, lengthToFeet } from './units.js';
-import { boundedDecimal, decimalField, documentLimits, listLimit, ranges, textField, textLimits } from './bounds.js';
+import { areaToSquareFeet, areaWords, lengthToFeet, lengthWords } from './units.js';
+import { boundedDecimal, decimalField, distinctKeys, documentLimits, listLimit, maxAmendments, ranges, textField, textLimits } from './bounds.js';
 import { lpdFormulaProblems } from './lpd-formula.js';
 import { type Dec, dec } from './numbers.js';
 
@@ -166,7 +166,7 @@ export const evaluationDocumentSchema = fields({
   exterior: exteriorSchema.optional(),
   retailDisplay: retailDisplaySchema.optional(),
   /** Jurisdiction amendments of the edition to apply (their keys); the model code alone when absent. */
-  amendments: z.array(key).max(10, listLimit(10, 'amendments')).default([]),
+  amendments: distinctKeys(key, maxAmendments, 'amendments').default([]),
 });
 
 export type EvaluationDocumentInput = z.input<typeof evaluationDocumentSchema>;
@@ -415,9 +415,13 @@ function sizeProblem(edition: EditionData, type: SpaceType, space: Loose, units:
     return otherCondition !== null && otherCondition.quantity === condition.quantity && satisfies(otherCondition, measured);
   });
   const grouped = !rooms.equals(1);
-  const size = condition.quantity === 'area' ? `${measured.toDecimalPlaces(0).toFixed()} ft²${grouped ? ' a room' : ''}` : `${measured.toDecimalPlaces(1).toFixed()} ft high`;
+  // The size in the project's units: ft² to 1 and ft to 0.1, or m² to 0.1 and m to 0.01.
+  const size =
+    condition.quantity === 'area'
+      ? `${units === 'ip' ? `${measured.toDecimalPlaces(0).toFixed()} ft²` : areaWords(measured, units)}${grouped ? ' a room' : ''}`
+      : `${units === 'ip' ? `${measured.toDecimalPlaces(1).toFixed()} ft` : lengthWords(measured, units)} high`;
   const hint = condition.quantity === 'area' && !grouped ? ' If this entry groups several rooms, give how many.' : '';
-  add(path, `“${type.label}” is for spaces ${conditionWords(condition)}; this one is ${size}.${fitting ? ` Choose “${fitting.label}”.` : ''}${hint}`);
+  add(path, `“${type.label}” is for spaces ${conditionWords(condition, units)}; this one is ${size}.${fitting ? ` Choose “${fitting.label}”.` : ''}${hint}`);
 }
 
 function controlProblems(
@@ -434,13 +438,25 @@ function controlProblems(
     if (!strategies.has(strategy)) add(`${path}.${index}.strategy`, `“${strategy}” is not a control of ${edition.title}.`);
     if (seen.has(strategy)) add(`${path}.${index}.strategy`, `This control is listed more than once.`);
     seen.add(strategy);
-    if ((control['exceptionReason'] === 'other' || control['exceptionReason'] === 'verified-not-required') && word(control['exceptionNote']) === undefined) {
-      add(`${path}.${index}.exceptionNote`, control['exceptionReason'] === 'other' ? 'Say which exception is claimed.' : 'Say where in the adopted code it was checked.');
-    }
-    if (control['exceptionReason'] === 'continuous-operation' && strategy !== 'time-switch') {
-      add(`${path}.${index}.exceptionReason`, 'Continuous operation frees lighting from the time switch only.');
-    }
+    for (const problem of exceptionProblems(control)) add(`${path}.${index}.${problem.path}`, problem.message);
   });
+}
+
+/**
+ * The rules of one control's exception claim, its fields' paths relative to the control: a note
+ * where the reason needs one, continuous operation for the time switch only. Every write of a
+ * control passes them, so no stored design fails the evaluation for them later.
+ */
+export function exceptionProblems(control: Record<string, unknown>): DocumentProblem[] {
+  const problems: DocumentProblem[] = [];
+  const reason = control['exceptionReason'];
+  if ((reason === 'other' || reason === 'verified-not-required') && word(control['exceptionNote']) === undefined) {
+    problems.push({ path: 'exceptionNote', message: reason === 'other' ? 'Say which exception is claimed.' : 'Say where in the adopted code it was checked.' });
+  }
+  if (reason === 'continuous-operation' && word(control['strategy']) !== 'time-switch') {
+    problems.push({ path: 'exceptionReason', message: 'Continuous operation frees lighting from the time switch only.' });
+  }
+  return problems;
 }
 
 /** Geometry that must fit the room: openings inside their walls and ceiling, heights in order. */

@@ -1,4 +1,5 @@
 import { type Dec, dec } from './numbers.js';
+import { areaWords, lengthWords, type UnitSystem } from './units.js';
 
 /**
  * Some space types carry a size in their name (an enclosed office of at most 250 ft², a storage
@@ -43,14 +44,16 @@ export function satisfies(condition: SizeCondition, value: Dec): boolean {
   return true;
 }
 
-/** The condition in words: "at most 250 ft²", "more than 150 ft² and at most 300 ft²", "from 25 to 50 ft". */
-export function conditionWords(condition: SizeCondition): string {
-  const unit = condition.quantity === 'area' ? 'ft²' : 'ft';
+/**
+ * The condition in words, in the project's units: "at most 250 ft²", "more than 150 ft² and at most
+ * 300 ft²", "from 25 to 50 ft"; in SI "at most 23.2 m²", "from 7.62 to 15.24 m".
+ */
+export function conditionWords(condition: SizeCondition, units: UnitSystem = 'ip'): string {
+  const words = (value: Dec) => (condition.quantity === 'area' ? areaWords(value, units) : lengthWords(value, units));
+  const figure = (value: Dec) => words(value).replace(/ \S+$/, '');
+  const unit = words(dec(1)).replace(/^\S+ /, '');
   const { min, max } = condition;
-  if (min && max && min.inclusive && max.inclusive) return `from ${min.value.toFixed()} to ${max.value.toFixed()} ${unit}`;
-  const parts = [
-    min ? `${min.inclusive ? 'at least' : 'more than'} ${min.value.toFixed()} ${unit}` : '',
-    max ? `${max.inclusive ? 'at most' : 'less than'} ${max.value.toFixed()} ${unit}` : '',
-  ].filter(Boolean);
+  if (min && max && min.inclusive && max.inclusive) return `from ${figure(min.value)} to ${figure(max.value)} ${unit}`;
+  const parts = [min ? `${min.inclusive ? 'at least' : 'more than'} ${words(min.value)}` : '', max ? `${max.inclusive ? 'at most' : 'less than'} ${words(max.value)}` : ''].filter(Boolean);
   return parts.join(' and ');
 }

@@ -87,7 +87,7 @@ export function designRouter(db: Database): Router {
   });
   router.post('/spaces/controls', edit, async (req, res) => {
     const { spaces, control } = parse(spaceControlsSchema, req.body);
-    await assertControlFitsEdition(db, projectId(req), control.strategy);
+    await assertControlFitsEdition(db, projectId(req), control);
     res.json(await setControlOnSpaces(db, projectId(req), spaces, control, userId(req)));
   });
   router.get('/import-aliases', read, async (req, res) => {

@@ -1,5 +1,5 @@
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
-import { salesAreaSpaceType } from '../compliance/document.js';
+import { exceptionProblems, salesAreaSpaceType } from '../compliance/document.js';
 import { validateDocument, type EditionData } from '../compliance/index.js';
 import type { Database } from '../db/database.js';
 import { AppError, type ErrorDetail } from '../http/app-error.js';
@@ -61,12 +61,14 @@ async function projectEdition(db: Database, projectId: string): Promise<EditionD
   return edition;
 }
 
-/** A control recorded on many spaces must be one of the edition's strategies. */
-export async function assertControlFitsEdition(db: Database, projectId: string, strategy: string): Promise<void> {
+/** A control recorded on many spaces must be one of the edition's strategies, and its exception claim must hold as in one space's write. */
+export async function assertControlFitsEdition(db: Database, projectId: string, control: SpaceInput['controls'][number]): Promise<void> {
   const edition = await projectEdition(db, projectId);
-  if (!edition.controlStrategies.some((candidate) => candidate.key === strategy)) {
+  if (!edition.controlStrategies.some((candidate) => candidate.key === control.strategy)) {
     throw AppError.badRequest('This control is not one of the project’s code edition.', [{ path: 'control.strategy', message: 'Choose a control from the edition’s list.' }]);
   }
+  const problems = exceptionProblems(control);
+  if (problems.length > 0) throw AppError.badRequest('The exception claimed is not complete.', problems.map((problem) => ({ path: `control.${problem.path}`, message: problem.message })));
 }
 
 /** Remembered import names must point at types the edition has. */

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { decimalField, maxNumberLength, ranges, textField, textLimits, versionField } from '../compliance/bounds.js';
+import { decimalField, distinctKeys, maxAmendments, maxNumberLength, ranges, textField, textLimits, versionField } from '../compliance/bounds.js';
 
 function boundedDecimal(min: number, max: number, what: string) {
   return z.union([z.string(), z.number()]).transform((value, ctx) => {
@@ -41,7 +41,7 @@ const setupFields = {
   units: z.enum(unitSystems),
   lightingZone: z.number().int().min(0).max(4).nullable().optional(),
   /** Jurisdiction amendments of the edition the project follows (keys of the edition's amendments). */
-  amendments: z.array(textField(textLimits.key, { required: true })).max(10).optional(),
+  amendments: distinctKeys(textField(textLimits.key, { required: true }), maxAmendments, 'amendments').optional(),
   permitNumber: optionalText(100),
   owner: optionalText(textLimits.name),
   occupancy: optionalText(textLimits.name),

@@ -17,6 +17,10 @@ export const ranges = {
   luminaireWatts: { min: 'zero', max: 100_000 },
   limitWatts: { min: 'above-zero', max: 1_000_000 },
   count: { min: 'zero', max: 1_000_000, integer: true },
+  /** Like rooms one space entry stands for. */
+  rooms: { min: 'above-zero', max: 100_000, integer: true },
+  /** A share of the lighting power, %. */
+  percent: { min: 'zero', max: 100 },
 } as const satisfies Record<string, NumberRange>;
 
 /** A plain or exponent decimal, as the service reads one. */

@@ -11,7 +11,15 @@ export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
 export type ProjectState = 'draft' | 'in-review' | 'returned' | 'accepted' | 'issued';
 export type WattageBasis = 'rated' | 'line-voltage-track' | 'low-voltage-track' | 'current-limited';
 export type Wall = 'north' | 'east' | 'south' | 'west';
-export type ControlExceptionReason = 'security-or-emergency-continuous' | 'exit-stairway-ramp-passageway' | 'egress-normally-off' | 'other';
+export type ControlExceptionReason =
+  | 'security-or-emergency-continuous'
+  | 'exit-stairway-ramp-passageway'
+  | 'egress-normally-off'
+  /** The time switch only: lighting intended for continuous operation. */
+  | 'continuous-operation'
+  /** For a requirement to verify: the engineer checked the adopted code and it does not apply here (the note says where). */
+  | 'verified-not-required'
+  | 'other';
 
 /** Written with every design record; send `version` back on update, get 409 if someone else wrote first. */
 export interface Stamp {
@@ -69,6 +77,8 @@ export interface ProjectDetail extends ProjectSummary, PermitFields {
   jurisdiction: string | null;
   units: UnitSystem;
   lightingZone: number | null;
+  /** Keys of the edition's jurisdiction amendments the project follows; none: the model code alone. */
+  amendments: string[];
   updatedBy: string | null;
   members: ProjectMember[];
 }
@@ -84,6 +94,7 @@ export interface ProjectSetup {
   method: ComplianceMethod;
   units: UnitSystem;
   lightingZone?: number | null;
+  amendments?: string[];
 }
 
 /** A set-up write may carry any of the permit fields as well. */
@@ -122,6 +133,8 @@ export interface ProvidedControl {
   provided: boolean;
   timeoutMinutes?: string;
   zoneSize?: string;
+  /** How far the control reduces the lighting power when it acts (partial OFF, light reduction), %. */
+  reductionPercent?: string;
   autoOn?: 'manual' | 'partial' | 'full';
   device?: string;
   exceptionReason?: ControlExceptionReason;
@@ -156,6 +169,8 @@ export interface SpaceInput {
   luminaireHeight?: string;
   workPlaneHeight?: string;
   enclosed?: boolean;
+  /** How many like rooms this entry stands for (1 when absent); a size in the space type's name applies to each. */
+  rooms?: string;
   /** The engineer confirms the space has no lighting; until then a space without luminaires holds the verdict back. */
   unlit?: boolean;
   luminaires: LuminaireGroup[];
@@ -201,6 +216,8 @@ export interface SetupSnapshot extends Partial<PermitFields> {
   method: ComplianceMethod | null;
   units: UnitSystem;
   lightingZone: number | null;
+  /** Absent from entries written before the set-up kept them. */
+  amendments?: string[];
   version: number;
 }
 
@@ -333,6 +350,13 @@ export interface AdditionalAllowanceView extends RowProvenance {
   fixedW: string | null;
 }
 
+/** A jurisdiction's amendment of an edition: its values replace the model code's for a project that chooses it. */
+export interface AmendmentView extends RowProvenance {
+  key: string;
+  title: string;
+  jurisdiction: string;
+}
+
 export interface LightingZoneView extends RowProvenance {
   key: string;
   zone: number;
@@ -409,6 +433,8 @@ export interface ProjectComparison {
   current: EditionComparison;
   editions: EditionComparison[];
   cautions: string[];
+  /** The jurisdiction amendments applied over the model code. */
+  amendments: { key: string; title: string }[];
 }
 
 /** A sales-floor space's claim on one of the edition's additional allowances. */

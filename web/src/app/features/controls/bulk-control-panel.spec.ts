@@ -25,6 +25,8 @@ const spaceTypes = [
 const strategies = [
   { key: 'occupant-sensor', label: 'Occupant sensor', section: 'C405.2.1', parameters: { timeoutMinutes: '20' } },
   { key: 'time-switch', label: 'Time-switch control', section: 'C405.2.2', parameters: { zoneSizeLimitFt2: '5000' } },
+  // IECC 2021 C405.2.1.2–C405.2.1.4 as the reference data holds it ([S-ed] secondary summaries): at least 50 % in warehouses and corridors.
+  { key: 'automatic-partial-off', label: 'Automatic partial OFF', section: 'C405.2.1.2–C405.2.1.4', parameters: { timeoutMinutes: '20', reductionPercent: '50' } },
 ] as unknown as ControlStrategyView[];
 
 const result: EvaluationResult = {
@@ -35,7 +37,11 @@ const result: EvaluationResult = {
       spaceResult({
         id: entry.id,
         name: entry.name,
-        controls: [controlLine({ status: 'not-required', met: null }), controlLine({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false })],
+        controls: [
+          controlLine({ status: 'not-required', met: null }),
+          controlLine({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false }),
+          controlLine({ strategy: 'automatic-partial-off', label: 'Automatic partial OFF', status: 'not-met', met: false }),
+        ],
       }),
     ),
   },
@@ -128,6 +134,36 @@ describe('BulkControlPanel', () => {
     expect(element.querySelector('[data-testid="bulk-done"]')?.textContent).toContain('“Time-switch control” recorded as provided on 4 spaces.');
   });
 
+  it('asks how far the lighting is reduced only for a control whose check reads it, bounded like the service', async () => {
+    checkbox('Bunk 1').click();
+    await choose('Control', 'Time-switch control');
+    const labelsShown = () => Array.from(element.querySelectorAll('mat-label')).map((label) => label.textContent?.trim());
+    expect(labelsShown()).not.toContain('Reduces the lighting by (%)');
+    await choose('Control', 'Automatic partial OFF');
+    expect(labelsShown()).toContain('Reduces the lighting by (%)');
+    // The service's range for a share of the lighting power (compliance/bounds.ts ranges.percent): 0 to 100.
+    await fill('Reduces the lighting by', '120');
+    await submit();
+    http.expectNone('/api/projects/p1/spaces/controls');
+    expect(element.textContent).toContain('Out of range. Enter a number from 0 to 100.');
+    await fill('Reduces the lighting by', '50');
+    await submit();
+    const request = http.expectOne('/api/projects/p1/spaces/controls');
+    expect(request.request.body.control).toEqual({ strategy: 'automatic-partial-off', provided: true, reductionPercent: '50' });
+    request.flush([{ ...spaces[0], version: 2 }]);
+  });
+
+  it('neither checks nor sends a reduction once another control is chosen', async () => {
+    checkbox('Bunk 1').click();
+    await choose('Control', 'Automatic partial OFF');
+    await fill('Reduces the lighting by', '120');
+    await choose('Control', 'Time-switch control');
+    await submit();
+    const request = http.expectOne('/api/projects/p1/spaces/controls');
+    expect(request.request.body.control).toEqual({ strategy: 'time-switch', provided: true });
+    request.flush([{ ...spaces[0], version: 2 }]);
+  });
+
   it('records the same exception with its reason', async () => {
     checkbox('Bunk 1').click();
     await choose('Control', 'Occupant sensor');
@@ -146,6 +182,33 @@ describe('BulkControlPanel', () => {
     const request = http.expectOne('/api/projects/p1/spaces/controls');
     expect(request.request.body.control).toEqual({ strategy: 'occupant-sensor', provided: false, exceptionReason: 'other', exceptionNote: 'Invented reason for the test' });
     request.flush([{ ...spaces[0], version: 2 }]);
+  });
+
+  it('offers continuous operation for the time switch, and puts the service’s refusal beside the field it names', async () => {
+    checkbox('Bunk 1').click();
+    await choose('Control', 'Time-switch control');
+    Array.from(element.querySelectorAll<HTMLElement>('mat-radio-button'))
+      .find((radio) => radio.textContent?.includes('Exception claimed'))!
+      .querySelector<HTMLInputElement>('input')!
+      .click();
+    await fixture.whenStable();
+    await choose('Exception', 'Lighting intended to operate continuously');
+    await submit();
+    const request = http.expectOne('/api/projects/p1/spaces/controls');
+    expect(request.request.body.control).toEqual({ strategy: 'time-switch', provided: false, exceptionReason: 'continuous-operation' });
+    request.flush(
+      { error: { code: 'validation_failed', message: 'The exception claimed is not complete.', details: [{ path: 'control.exceptionNote', message: 'Invented refusal for the test.' }] } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+    const note = Array.from(element.querySelectorAll('mat-form-field')).find((field) => field.querySelector('mat-label')?.textContent?.trim() === 'Note')!;
+    expect(note.querySelector('mat-error')?.textContent?.trim()).toBe('Invented refusal for the test.');
+
+    // Chosen for another control, the reason is refused beside the field before anything is sent.
+    await choose('Control', 'Occupant sensor');
+    await submit();
+    http.expectNone('/api/projects/p1/spaces/controls');
+    expect(element.textContent).toContain('Continuous operation frees lighting from the time switch only.');
   });
 
   it('names the spaces someone changed meanwhile, records nothing, and reads the spaces again on Reload', async () => {

@@ -10,7 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { SpaceRecord } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { WriteFailure } from '../../shared/conflict';
+import { placeServerErrors, WriteFailure } from '../../shared/conflict';
 import { InUnits } from '../../shared/in-units';
 import { ProblemList } from '../../shared/problem-list';
 import { problemLine, type ProblemLine } from '../../shared/problem-words';
@@ -27,8 +27,8 @@ interface Choice {
 }
 
 /** Many spaces get what is provided or excepted; "not provided" is what they have before. */
-function provisionForm() {
-  const form = controlForm(undefined);
+function provisionForm(strategy: () => string) {
+  const form = controlForm(undefined, strategy);
   form.controls.mode.setValue('provided');
   return form;
 }
@@ -56,7 +56,7 @@ export class BulkControlPanel {
     text: new FormControl('', { nonNullable: true }),
   });
   protected readonly strategy = new FormControl('', { nonNullable: true, validators: [Validators.required] });
-  protected readonly provision = provisionForm();
+  protected readonly provision = provisionForm(() => this.strategy.value);
   /** One form, so Enter and the button submit through Angular, never as a page load. */
   protected readonly record = new FormGroup({ strategy: this.strategy, provision: this.provision });
 
@@ -111,6 +111,16 @@ export class BulkControlPanel {
     });
   });
   protected readonly strategyView = computed(() => this.strategies().find((entry) => entry.view.key === this.strategyKey())?.view);
+  /** "Checked against the adopted code" is offered where a chosen space's requirement is still to verify. */
+  protected readonly offerChecked = computed(() => {
+    const results = this.store.resultBySpace();
+    return this.chosenSpaces().some((space) => results.get(space.id)?.controls.some((line) => line.strategy === this.strategyKey() && line.requirement === 'to-verify'));
+  });
+
+  constructor() {
+    // The fields and rules follow the control chosen: a value only another control reads is neither checked nor sent.
+    this.strategy.valueChanges.subscribe(() => this.provision.updateValueAndValidity());
+  }
 
   protected toggle(spaceId: string, checked: boolean): void {
     this.selected.update((selected) => {
@@ -169,7 +179,12 @@ export class BulkControlPanel {
           return;
         }
         if (error instanceof ApiError && error.status === 400) {
-          this.problems.set(error.details.map((detail) => problemLine(detail, { spaces })));
+          // What names a field of the control (`control.exceptionNote`) goes beside it; the rest is listed.
+          const unplaced = placeServerErrors(error.details, (path) => {
+            const field = path.startsWith('control.') ? path.slice('control.'.length) : '';
+            return field in this.provision.controls ? this.provision.get(field) : null;
+          });
+          this.problems.set(unplaced.map((detail) => problemLine(detail, { spaces })));
           return;
         }
         this.failure.report(error, () => this.reload());

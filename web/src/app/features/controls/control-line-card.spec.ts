@@ -44,6 +44,18 @@ describe('ControlLineCard', () => {
     expect(statusView('exception-claimed').outstanding).toBe(false);
   });
 
+  it('says how far a recorded light-reduction control reduces the lighting, and offers the field when editing', async () => {
+    fixture.componentRef.setInput('line', controlLine({ strategy: 'light-reduction', label: 'Light-reduction control', status: 'met', met: true }));
+    fixture.componentRef.setInput('provided', { strategy: 'light-reduction', provided: true, device: 'Invented dimmer', reductionPercent: '50' });
+    fixture.componentRef.setInput('canEdit', true);
+    await fixture.whenStable();
+    expect(element.querySelector('.recorded')?.textContent?.trim()).toBe('buildProvided: Invented dimmer; reduces by 50 %');
+    element.querySelector<HTMLButtonElement>('button')!.click();
+    await fixture.whenStable();
+    const field = element.querySelector<HTMLInputElement>('input[formcontrolname="reductionPercent"]')!;
+    expect(field.value).toBe('50');
+  });
+
   it('offers no edit button to someone who only reads', async () => {
     await show('not-met', false);
     expect(element.querySelector('button')).toBeNull();
@@ -69,9 +81,96 @@ describe('ControlLineCard', () => {
   });
 });
 
+describe('ControlLineCard exceptions', () => {
+  let fixture: ComponentFixture<ControlLineCard>;
+  let element: HTMLElement;
+  let saved: (ProvidedControl | null)[];
+
+  async function edit(line: Parameters<typeof controlLine>[0]): Promise<ReturnType<typeof controlForm>> {
+    TestBed.configureTestingModule({ imports: [ControlLineCard], providers: [provideZonelessChangeDetection()] });
+    fixture = TestBed.createComponent(ControlLineCard);
+    element = fixture.nativeElement as HTMLElement;
+    saved = [];
+    fixture.componentInstance.save.subscribe((value) => saved.push(value));
+    fixture.componentRef.setInput('line', controlLine(line));
+    fixture.componentRef.setInput('canEdit', true);
+    await fixture.whenStable();
+    element.querySelector<HTMLButtonElement>('button')!.click();
+    await fixture.whenStable();
+    const form = (fixture.componentInstance as unknown as { form: ReturnType<typeof controlForm> }).form;
+    form.controls.mode.setValue('exception');
+    await fixture.whenStable();
+    return form;
+  }
+
+  async function offered(): Promise<string[]> {
+    element.querySelector<HTMLElement>('mat-select')!.click();
+    await fixture.whenStable();
+    const options = Array.from(document.querySelectorAll('mat-option')).map((option) => option.textContent?.trim() ?? '');
+    document.querySelector<HTMLElement>('.cdk-overlay-backdrop')?.click();
+    await fixture.whenStable();
+    return options;
+  }
+
+  const errors = () => Array.from(element.querySelectorAll('mat-error')).map((error) => error.textContent?.trim());
+  const submit = async () => {
+    element.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+    await fixture.whenStable();
+  };
+
+  it('offers continuous operation for the time switch only, and every general exception in words', async () => {
+    await edit({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false });
+    expect(await offered()).toEqual([
+      'Security or emergency area that must stay lit continuously',
+      'Interior exit stairway, exit ramp or exit passageway',
+      'Emergency egress lighting that is normally off',
+      'Lighting intended to operate continuously',
+      'Another exception (say which)',
+    ]);
+    TestBed.resetTestingModule();
+    await edit({ strategy: 'occupant-sensor', status: 'not-met', met: false });
+    expect(await offered()).not.toContain('Lighting intended to operate continuously');
+  });
+
+  it('offers "checked against the adopted code" for a requirement to verify, and then needs the note saying where', async () => {
+    const form = await edit({ strategy: 'occupant-sensor', requirement: 'to-verify', status: 'to-verify', met: null, verified: false });
+    expect(await offered()).toContain('Checked against the adopted code: not required here (say where)');
+    form.controls.exceptionReason.setValue('verified-not-required');
+    await submit();
+    expect(saved).toEqual([]);
+    expect(errors()).toContain('Say where in the adopted code it was checked.');
+    form.controls.exceptionNote.setValue('Invented: city amendment 12-3, checked on the adopted text');
+    await submit();
+    expect(saved).toEqual([{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'verified-not-required', exceptionNote: 'Invented: city amendment 12-3, checked on the adopted text' }]);
+  });
+
+  it('does not offer it where the requirement is stated', async () => {
+    await edit({ strategy: 'occupant-sensor', requirement: 'required', status: 'not-met', met: false });
+    expect(await offered()).not.toContain('Checked against the adopted code: not required here (say where)');
+  });
+
+  it('stays open on a refusal and shows the service’s message beside the field it names', async () => {
+    const form = await edit({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false });
+    form.controls.exceptionReason.setValue('continuous-operation');
+    await submit();
+    expect(saved).toEqual([{ strategy: 'time-switch', provided: false, exceptionReason: 'continuous-operation' }]);
+    fixture.componentInstance.refused([{ path: 'exceptionNote', message: 'Invented refusal for the test.' }], 'Some values do not fit.');
+    await fixture.whenStable();
+    expect(element.querySelector('form.editor')).not.toBeNull();
+    const note = Array.from(element.querySelectorAll('mat-form-field')).find((field) => field.querySelector('mat-label')?.textContent?.trim() === 'Note')!;
+    expect(note.querySelector('mat-error')?.textContent?.trim()).toBe('Invented refusal for the test.');
+    fixture.componentInstance.refused([], 'The space could not be saved.');
+    await fixture.whenStable();
+    expect(element.querySelector('.refusal')?.textContent).toContain('The space could not be saved.');
+    fixture.componentInstance.saved();
+    await fixture.whenStable();
+    expect(element.querySelector('form.editor')).toBeNull();
+  });
+});
+
 describe('control form rules', () => {
   it('needs a reason for an exception, and rejects a negative time-out', () => {
-    const form = controlForm(undefined);
+    const form = controlForm(undefined, () => 'occupant-sensor');
     form.controls.mode.setValue('exception');
     expect(form.controls.exceptionReason.hasError('required')).toBe(true);
     form.controls.mode.setValue('provided');
@@ -82,8 +181,32 @@ describe('control form rules', () => {
     expect(form.valid).toBe(true);
   });
 
+  it('reads how far a partial-OFF or light-reduction control reduces the lighting, from 0 to 100 %', () => {
+    const form = controlForm({ strategy: 'light-reduction', provided: true, reductionPercent: '50' }, () => 'light-reduction');
+    expect(form.controls.reductionPercent.value).toBe('50');
+    // The service's range for a share of the lighting power (compliance/bounds.ts ranges.percent).
+    form.controls.reductionPercent.setValue('-1');
+    expect(form.controls.reductionPercent.errors).toEqual({ quantity: 'Must not be negative. Enter a number from 0 to 100.' });
+    form.controls.reductionPercent.setValue('100.5');
+    expect(form.controls.reductionPercent.errors).toEqual({ quantity: 'Out of range. Enter a number from 0 to 100.' });
+    form.controls.reductionPercent.setValue(' 80 ');
+    expect(form.valid).toBe(true);
+    expect(providedControl('light-reduction', form.getRawValue())).toEqual({ strategy: 'light-reduction', provided: true, reductionPercent: '80' });
+    // A strategy whose check does not read it gets none.
+    expect(providedControl('time-switch', form.getRawValue())).toEqual({ strategy: 'time-switch', provided: true });
+  });
+
+  it('refuses continuous operation for any control but the time switch, as the service does', () => {
+    let strategy = 'time-switch';
+    const form = controlForm({ strategy, provided: false, exceptionReason: 'continuous-operation' }, () => strategy);
+    expect(form.valid).toBe(true);
+    strategy = 'occupant-sensor';
+    form.updateValueAndValidity();
+    expect(form.controls.exceptionReason.errors).toEqual({ timeSwitchOnly: 'Continuous operation frees lighting from the time switch only.' });
+  });
+
   it('sends only what was recorded, and replaces just that strategy', () => {
-    const form = controlForm(undefined);
+    const form = controlForm(undefined, () => 'occupant-sensor');
     form.patchValue({ mode: 'provided', device: ' Invented sensor ', timeoutMinutes: '15', autoOn: 'partial' });
     const next = providedControl('occupant-sensor', form.getRawValue());
     expect(next).toEqual({ strategy: 'occupant-sensor', provided: true, device: 'Invented sensor', timeoutMinutes: '15', autoOn: 'partial' });

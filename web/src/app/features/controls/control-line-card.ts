@@ -3,6 +3,8 @@ import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { ControlLine, ControlStrategyView, ProvidedControl, UnitSystem } from '../../core/api/api-types';
+import type { ApiErrorDetail } from '../../core/http/api-error';
+import { placeServerErrors } from '../../shared/conflict';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { ControlFields } from './control-fields';
 import { controlForm, providedControl, type ControlForm } from './control-form';
@@ -28,13 +30,17 @@ export class ControlLineCard {
   readonly save = output<ProvidedControl | null>();
 
   protected readonly editing = signal(false);
-  protected form: ControlForm = controlForm(undefined);
+  /** What the service refused that no field of the form takes. */
+  protected readonly refusal = signal<string | null>(null);
+  protected form: ControlForm = controlForm(undefined, () => this.line().strategy);
   protected readonly reasonLabels = exceptionReasonLabels;
   protected readonly view = computed(() => statusView(this.line().status));
   protected readonly requirement = computed(() => requirementWords(this.line().requirement));
   /** The doubt is the requirement itself where the data cannot settle it, else the strategy's source. */
   protected readonly undecided = computed(() => this.line().requirement === 'to-verify');
   protected readonly areaUnit = computed(() => (this.units() === 'ip' ? 'ft²' : 'm²'));
+  /** "Checked against the adopted code" answers a requirement the data cannot settle, and nothing else. */
+  protected readonly offerChecked = computed(() => this.line().requirement === 'to-verify' || this.provided()?.exceptionReason === 'verified-not-required');
 
   /** An open form with edits not yet saved. */
   hasUnsavedChanges(): boolean {
@@ -42,7 +48,8 @@ export class ControlLineCard {
   }
 
   open(): void {
-    this.form = controlForm(this.provided());
+    this.form = controlForm(this.provided(), () => this.line().strategy);
+    this.refusal.set(null);
     this.editing.set(true);
   }
 
@@ -50,10 +57,21 @@ export class ControlLineCard {
     this.editing.set(false);
   }
 
+  /** The form stays open until the page says the entry is stored (`saved`) or refused (`refused`). */
   submit(): void {
     this.form.markAllAsTouched();
     if (this.form.invalid) return;
+    this.refusal.set(null);
     this.save.emit(providedControl(this.line().strategy, this.form.getRawValue()));
+  }
+
+  saved(): void {
     this.editing.set(false);
+  }
+
+  /** The service's messages beside the fields they name (paths relative to this entry: `exceptionNote`); the rest below the form. */
+  refused(details: readonly ApiErrorDetail[], message: string): void {
+    const unplaced = placeServerErrors(details, (path) => (path in this.form.controls ? this.form.get(path) : null));
+    this.refusal.set(details.length === 0 ? message : unplaced.length > 0 ? unplaced.map((detail) => detail.message).join(' ') : null);
   }
 }

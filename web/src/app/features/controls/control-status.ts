@@ -1,4 +1,4 @@
-import type { ControlLine, ControlStatus, RequirementCode } from '../../core/api/api-types';
+import type { ControlExceptionReason, ControlLine, ControlStatus, RequirementCode } from '../../core/api/api-types';
 
 export interface StatusView {
   icon: string;
@@ -30,9 +30,18 @@ export function outstandingLines(lines: readonly ControlLine[]): ControlLine[] {
   return lines.filter((line) => statusView(line.status).outstanding);
 }
 
-export const exceptionReasonLabels = {
+export const exceptionReasonLabels: Record<ControlExceptionReason, string> = {
   'security-or-emergency-continuous': 'Security or emergency area that must stay lit continuously',
   'exit-stairway-ramp-passageway': 'Interior exit stairway, exit ramp or exit passageway',
   'egress-normally-off': 'Emergency egress lighting that is normally off',
+  'continuous-operation': 'Lighting intended to operate continuously',
+  'verified-not-required': 'Checked against the adopted code: not required here (say where)',
   other: 'Another exception (say which)',
-} as const;
+};
+
+/** The reasons one control may give: continuous operation frees lighting from the time switch only, as the service says. */
+export function reasonsFor(strategy: string, offerChecked: boolean): ControlExceptionReason[] {
+  return (Object.keys(exceptionReasonLabels) as ControlExceptionReason[]).filter(
+    (reason) => (reason !== 'continuous-operation' || strategy === 'time-switch') && (reason !== 'verified-not-required' || offerChecked),
+  );
+}

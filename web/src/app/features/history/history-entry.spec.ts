@@ -95,18 +95,19 @@ describe('a history entry in words', () => {
 
     it('says what changed inside a control, and names the type and level in words', () => {
       const before = space({ controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '15', device: 'Wall sensor' }] });
-      const after = space({ level: 'Level 2', spaceType: 'storage-room', controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', device: 'Ceiling sensor' }] });
+      const after = space({ level: 'Level 2', spaceType: 'storage-room', controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', reductionPercent: '50', device: 'Ceiling sensor' }] });
       expect(describeEntry(entry({ entity: 'space', action: 'update', name: 'Exam 1', before, after }), labels, 'ip').changes).toEqual([
         'level “Level 1” → “Level 2”',
         'space type Office — Enclosed → Storage Room',
-        'controls: occupant sensor time-out 15 → 20 min, device “Wall sensor” → “Ceiling sensor”',
+        'controls: occupant sensor time-out 15 → 20 min, reduction set to 50 %, device “Wall sensor” → “Ceiling sensor”',
       ]);
     });
 
     it('reads a set value and a cleared one', () => {
       const before = space({ ceilingHeight: undefined, length: '12' });
-      const after = space({ ceilingHeight: '10', length: undefined });
+      const after = space({ ceilingHeight: '10', length: undefined, rooms: '4' });
       expect(describeEntry(entry({ entity: 'space', action: 'update', name: 'Exam 1', before, after }), labels, 'si').changes).toEqual([
+        'like rooms in the entry set to 4',
         'ceiling height set to 10 m',
         'room length cleared (was 12 m)',
       ]);
@@ -171,6 +172,8 @@ describe('a history entry in words', () => {
       expect(say(entry({ entity: 'project', action: 'update', name: 'Tidewater Clinic', before: setup, after }))).toBe(
         'Ines Halvorsen changed the set-up: jurisdiction set to “Tidewater County”; code edition IECC 2021 → ASHRAE/IES 90.1-2019; compliance method space-by-space method → building area method; exterior lighting zone 2 → 3',
       );
+      const amended = describeEntry(entry({ entity: 'project', action: 'update', name: 'x', before: { ...setup, amendments: [] }, after: { ...setup, amendments: ['washington-2021'] } }), labels, 'ip');
+      expect(amended.changes).toEqual(['jurisdiction amendments: model code only → 1 chosen']);
       expect(say(entry({ entity: 'project', action: 'create', name: 'Tidewater Clinic', before: null, after: setup }))).toBe('Ines Halvorsen created the project “Tidewater Clinic”');
     });
 

@@ -189,6 +189,7 @@ function controlDetails(before: ProvidedControl | undefined, after: ProvidedCont
   parts.push(
     measured('time-out', before?.timeoutMinutes, after.timeoutMinutes, 'min'),
     measured('zone size', before?.zoneSize, after.zoneSize, areaUnit),
+    measured('reduction', before?.reductionPercent, after.reductionPercent, '%'),
     choice('switching on', before?.autoOn, after.autoOn, (value) => autoOnWords[value] ?? spelt(value)),
     text('device', before?.device, after.device),
     exceptionChange(before?.exceptionReason, after.exceptionReason),
@@ -237,6 +238,7 @@ function spaceChanges(before: SpaceRecord, after: SpaceRecord, labels: HistoryLa
     choice('building area type', before.buildingAreaType, after.buildingAreaType, named(labels.buildingAreaTypes)),
     choice('space type for controls', before.controlSpaceType, after.controlSpaceType, named(labels.spaceTypes)),
     measured('floor area', before.area, after.area, area),
+    measured('like rooms in the entry', before.rooms, after.rooms, ''),
     measured('ceiling height', before.ceilingHeight, after.ceilingHeight, length),
     measured('room length', before.length, after.length, length),
     measured('room width', before.width, after.width, length),
@@ -288,6 +290,14 @@ function exteriorLabel(key: string, labels: HistoryLabels): string {
 
 const unitNames: Record<UnitSystem, string> = { ip: 'IP', si: 'SI' };
 
+/** The entry keeps only the amendments' keys, so the change is told by count: "jurisdiction amendments: model code only → 1 chosen". */
+function amendmentChange(before: readonly string[] | undefined, after: readonly string[] | undefined): string | null {
+  if (before === undefined || after === undefined) return null;
+  if (before.length === after.length && before.every((key) => after.includes(key))) return null;
+  const words = (keys: readonly string[]) => (keys.length === 0 ? 'model code only' : `${keys.length} chosen`);
+  return before.length === after.length ? 'jurisdiction amendments changed' : `jurisdiction amendments: ${words(before)} → ${words(after)}`;
+}
+
 function setupChanges(before: SetupSnapshot, after: SetupSnapshot, labels: HistoryLabels): string[] {
   const changes = [
     text('project name', before.name, after.name),
@@ -300,6 +310,7 @@ function setupChanges(before: SetupSnapshot, after: SetupSnapshot, labels: Histo
     choice('compliance method', before.method, after.method, (method) => lowerFirst(methodLabels[method as keyof typeof methodLabels] ?? spelt(method))),
     choice('units', before.units, after.units, (system) => unitNames[system as UnitSystem] ?? spelt(system)),
     choice('exterior lighting zone', before.lightingZone, after.lightingZone, (zone) => zone),
+    amendmentChange(before.amendments, after.amendments),
     text('permit number', before.permitNumber, after.permitNumber),
     text('owner', before.owner, after.owner),
     text('occupancy', before.occupancy, after.occupancy),

@@ -122,5 +122,6 @@ export function evaluation(): EvaluationResult {
     controlsComply: false,
     unverifiedValues: [invented],
     cautions: ['Energy code only (test caution).'],
+    amendments: [],
   };
 }

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import type { EvaluationResult } from '../../core/api/api-types';
 import { CautionsBanner, defaultCautions } from '../../shared/cautions-banner';
 import { WriteFailure } from '../../shared/conflict';
 import { ProblemList } from '../../shared/problem-list';
@@ -34,6 +35,10 @@ export class ResultsPage {
   protected readonly cautions = computed(() => this.shown()?.cautions ?? defaultCautions);
 
   /** The engineer says a space without luminaires has no lighting: it stops holding the verdict back. */
+  protected amendmentTitles(result: EvaluationResult): string {
+    return result.amendments.map((amendment) => amendment.title).join('; ');
+  }
+
   protected confirmUnlit(spaceId: string): void {
     const projectId = this.store.projectId();
     const space = this.store.spaces().find((candidate) => candidate.id === spaceId);

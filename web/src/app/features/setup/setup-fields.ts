@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, type Signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked, type Signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule, type AbstractControl } from '@angular/forms';
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
-import type { LightingZoneView, ProjectScope, UnitSystem } from '../../core/api/api-types';
+import type { AmendmentView, LightingZoneView, ProjectScope, UnitSystem } from '../../core/api/api-types';
 import { unitLabels } from '../../shared/format';
 import { UnverifiedCount } from '../../shared/unverified-count';
 import { VerifyBadge } from '../../shared/verify-badge';
@@ -87,6 +87,41 @@ export class SetupFields {
     return zones.status === 'ready' ? zones.zones.filter((zone) => !zone.verified).length : 0;
   });
 
+  /**
+   * The edition's jurisdiction amendments, as the service lists them for the edition chosen. Only
+   * the section that shows them reads them, so that one instance alone drops and names them.
+   */
+  private readonly amendmentEdition = computed(() => (this.section() === 'code' ? this.edition() : ''));
+  protected readonly amendments = toSignal(
+    toObservable(this.amendmentEdition).pipe(
+      switchMap((edition) =>
+        edition
+          ? this.api.amendments(edition).pipe(
+              map((amendments): { status: 'ready'; edition: string; amendments: AmendmentView[] } => ({ status: 'ready', edition, amendments })),
+              catchError(() => of({ status: 'failed' as const })),
+              startWith({ status: 'loading' as const }),
+            )
+          : of({ status: 'no-edition' as const }),
+      ),
+    ),
+    { initialValue: { status: 'no-edition' as const } },
+  );
+  protected readonly amendmentChoices = computed(() => {
+    const state = this.amendments();
+    return state.status === 'ready' ? state.amendments : [];
+  });
+  private readonly chosenAmendments = controlValue<string[]>(this.form, (form) => form.controls.code.controls.amendments, []);
+  /** The choice in words for the closed field: the titles, or the model code alone. */
+  protected readonly amendmentSummary = computed(() => {
+    const chosen = this.chosenAmendments();
+    if (chosen.length === 0) return 'Model code only';
+    return chosen.map((key) => this.amendmentTitles.get(key) ?? 'An amendment this edition does not list').join('; ');
+  });
+  /** Titles of every amendment seen, so that one dropped with a change of edition is still named in words. */
+  private readonly amendmentTitles = new Map<string, string>();
+  /** The amendments a change of edition dropped, in words, until the next change. */
+  protected readonly droppedAmendments = signal<readonly string[]>([]);
+
   private readonly timeZone = controlValue(this.form, (form) => form.controls.site.controls.timeZone, '');
   private readonly latitude = controlValue(this.form, (form) => form.controls.site.controls.latitude, '');
   private readonly longitude = controlValue(this.form, (form) => form.controls.site.controls.longitude, '');
@@ -103,6 +138,24 @@ export class SetupFields {
     const zone = this.timeZone().trim();
     return siteWarnings(latitude.kind === 'ok' ? latitude.decimal : null, longitude.kind === 'ok' ? longitude.decimal : null, zone !== '' && isTimeZone(zone) ? zone : null);
   });
+
+  constructor() {
+    // An amendment belongs to its edition: once the new edition's list is read, those it lacks are dropped, and the page says so.
+    effect(() => {
+      const state = this.amendments();
+      untracked(() => {
+        if (state.status !== 'ready') return;
+        for (const amendment of state.amendments) this.amendmentTitles.set(amendment.key, amendment.title);
+        const control = this.form().controls.code.controls.amendments;
+        const known = new Set(state.amendments.map((amendment) => amendment.key));
+        const dropped = control.value.filter((key) => !known.has(key));
+        if (dropped.length === 0) return;
+        control.setValue(control.value.filter((key) => known.has(key)));
+        control.markAsDirty();
+        this.droppedAmendments.set(dropped.map((key) => this.amendmentTitles.get(key) ?? 'an amendment of the former edition'));
+      });
+    });
+  }
 
   private read(raw: string, axis: Axis): string {
     const parsed = parseCoordinate(raw, axis);

@@ -14,6 +14,8 @@ const project = {
   method: 'space-by-space',
   units: 'ip',
   lightingZone: 2,
+  // The amendment reference/iecc-2021/amendments.json holds.
+  amendments: ['washington-2021'],
   // Invented permit details for the test.
   permitNumber: 'BP-2026-0142',
   owner: 'Alder Bay Harbour Trust',
@@ -68,6 +70,7 @@ describe('the set-up form', () => {
       edition: 'iecc-2021',
       method: 'space-by-space',
       units: 'ip',
+      amendments: ['washington-2021'],
       occupancy: null,
       scope: 'new-building',
       grossFloorArea: '2400',

@@ -20,6 +20,11 @@ export const timeZoneValidator: ValidatorFn = (control: AbstractControl<string>)
   return zone === '' || isTimeZone(zone) ? null : { timeZone: 'Choose a time zone from the list: type a city, a region or a name such as Pacific.' };
 };
 
+/** As the service says: at most 10 amendments (compliance/bounds.ts maxAmendments); the choice cannot repeat one. */
+export const maxAmendments = 10;
+const amendmentLimit: ValidatorFn = (control: AbstractControl<string[]>) =>
+  control.value.length > maxAmendments ? { amendments: `Choose at most ${maxAmendments} amendments.` } : null;
+
 const text = (max: number) => new FormControl('', { nonNullable: true, validators: [Validators.maxLength(max)] });
 
 export function setupForm() {
@@ -40,6 +45,8 @@ export function setupForm() {
       edition: new FormControl<EditionId | ''>('', { nonNullable: true, validators: [Validators.required] }),
       method: new FormControl<ComplianceMethod>('space-by-space', { nonNullable: true, validators: [Validators.required] }),
       units: new FormControl<UnitSystem>('ip', { nonNullable: true, validators: [Validators.required] }),
+      /** The edition's jurisdiction amendments chosen (their keys); none: the model code only. */
+      amendments: new FormControl<string[]>([], { nonNullable: true, validators: [amendmentLimit] }),
     }),
     building: new FormGroup({
       occupancy: text(200),
@@ -76,6 +83,7 @@ const fieldGroups: Record<string, keyof SetupForm['controls']> = {
   edition: 'code',
   method: 'code',
   units: 'code',
+  amendments: 'code',
   lightingZone: 'exterior',
   occupancy: 'building',
   scope: 'building',
@@ -114,6 +122,7 @@ export function setupValue(form: SetupForm): ProjectSetupWrite {
     edition: code.edition as EditionId,
     method: code.method,
     units: code.units,
+    amendments: code.amendments,
     occupancy: blankToNull(building.occupancy),
     scope: building.scope,
     grossFloorArea: blankToNull(building.grossFloorArea),
@@ -132,7 +141,7 @@ export function fillSetup(form: SetupForm, project: ProjectDetail): void {
   form.reset({
     identity: { name: project.name, address: project.address ?? '', permitNumber: project.permitNumber ?? '', owner: project.owner ?? '' },
     site: { latitude: project.latitude ?? '', longitude: project.longitude ?? '', timeZone: project.timeZone ?? '' },
-    code: { jurisdiction: project.jurisdiction ?? '', edition: project.edition ?? '', method: project.method ?? 'space-by-space', units: project.units },
+    code: { jurisdiction: project.jurisdiction ?? '', edition: project.edition ?? '', method: project.method ?? 'space-by-space', units: project.units, amendments: project.amendments ?? [] },
     building: { occupancy: project.occupancy ?? '', scope: project.scope, grossFloorArea: project.grossFloorArea ?? '' },
     exterior: { lightingZone: project.lightingZone },
     people: {
@@ -150,8 +159,10 @@ export function fillSetup(form: SetupForm, project: ProjectDetail): void {
 /** Puts the service's 400 messages beside the fields they name; returns those it could not place. */
 export function showServerErrors(form: SetupForm, details: readonly ApiErrorDetail[]): ApiErrorDetail[] {
   return placeServerErrors(details, (path) => {
-    const group = fieldGroups[path];
-    return group ? form.get([group, path]) : null;
+    // A refused amendment is named by its place in the list (`amendments.1`): the message goes beside the one field.
+    const field = path.startsWith('amendments.') ? 'amendments' : path;
+    const group = fieldGroups[field];
+    return group ? form.get([group, field]) : null;
   });
 }
 

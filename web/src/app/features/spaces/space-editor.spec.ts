@@ -5,7 +5,7 @@ import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { provideRouter } from '@angular/router';
 import { EMPTY } from 'rxjs';
-import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView } from '../../core/api/api-types';
+import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
 import { apiInterceptor } from '../../core/http/api-interceptor';
 import { SpaceEditor, type SpaceEditorData } from './space-editor';
 
@@ -27,8 +27,8 @@ describe('SpaceEditor', () => {
   let http: HttpTestingController;
   let element: HTMLElement;
 
-  async function open(method: ComplianceMethod, space: SpaceRecord | null): Promise<void> {
-    const data: SpaceEditorData = { projectId: 'p1', space, method, units: 'ip', spaceTypes, buildingAreaTypes, levels: [], reload: () => undefined };
+  async function open(method: ComplianceMethod, space: SpaceRecord | null, units: UnitSystem = 'ip'): Promise<void> {
+    const data: SpaceEditorData = { projectId: 'p1', space, method, units, spaceTypes, buildingAreaTypes, levels: [], reload: () => undefined };
     TestBed.configureTestingModule({
       imports: [SpaceEditor],
       providers: [
@@ -89,6 +89,57 @@ describe('SpaceEditor', () => {
     box.click();
     await fixture.whenStable();
     expect((await save())['unlit']).toBe(true);
+  });
+
+  it('keeps how many like rooms the entry stands for, bounded like the service, and stores no 1', async () => {
+    await open('space-by-space', room({ spaceType: 'storage-room', rooms: '4' }));
+    const input = element.querySelector<HTMLInputElement>('input[formcontrolname="rooms"]')!;
+    expect(input.value).toBe('4');
+    // The service's range for like rooms (compliance/bounds.ts ranges.rooms): a whole number from 1 to 100,000.
+    for (const [typed, message] of [
+      ['2.5', 'Must be a whole number. Enter a whole number from 1 to 100,000.'],
+      ['0', 'Out of range. Enter a whole number from 1 to 100,000.'],
+    ]) {
+      input.value = typed;
+      input.dispatchEvent(new Event('input'));
+      await fixture.whenStable();
+      button('Save space').click();
+      await fixture.whenStable();
+      http.expectNone('/api/projects/p1/spaces/s1');
+      expect(element.textContent).toContain(message);
+    }
+    input.value = '6';
+    input.dispatchEvent(new Event('input'));
+    expect((await save())['rooms']).toBe('6');
+    TestBed.resetTestingModule();
+    await open('space-by-space', room({ spaceType: 'storage-room', rooms: '4' }));
+    const again = element.querySelector<HTMLInputElement>('input[formcontrolname="rooms"]')!;
+    again.value = '1';
+    again.dispatchEvent(new Event('input'));
+    expect((await save())['rooms']).toBeUndefined();
+  });
+
+  it('reads a size refusal of the service in the project units', async () => {
+    await open('space-by-space', room({ spaceType: 'storage-room', area: '25' }), 'si');
+    button('Save space').click();
+    await fixture.whenStable();
+    // The service writes the row's own label (with its ft²) inside a message already in the project's units.
+    http
+      .expectOne('/api/projects/p1/spaces/s1')
+      .flush(
+        { error: { code: 'validation_failed', message: 'Some values do not fit.', details: [{ path: 'spaceType', message: '“Office — Enclosed and ≤ 250 ft²” is for spaces at most 23.2 m²; this one is 25 m².' }] } },
+        { status: 400, statusText: 'Bad Request' },
+      );
+    await fixture.whenStable();
+    expect(Array.from(element.querySelectorAll('mat-error')).map((error) => error.textContent?.trim())).toContain('“Office — Enclosed and ≤ 23.2 m²” is for spaces at most 23.2 m²; this one is 25 m².');
+
+    // Giving the like rooms answers it: the refusal goes, and the next save asks the service again.
+    const rooms = element.querySelector<HTMLInputElement>('input[formcontrolname="rooms"]')!;
+    rooms.value = '2';
+    rooms.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(element.textContent).not.toContain('is for spaces at most');
+    expect((await save())['rooms']).toBe('2');
   });
 
   it('does not offer it once the space has luminaires, and leaves the stored flag alone', async () => {

@@ -11,7 +11,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import type { Observable } from 'rxjs';
+import { merge, type Observable } from 'rxjs';
 import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
 import { placeServerErrors, WriteFailure } from '../../shared/conflict';
@@ -95,6 +95,12 @@ export class SpaceEditor {
 
   constructor() {
     requireGeometry(this.form, this.data.space);
+    // The service checks the size a type's name carries against the area, the like rooms and the height: a refusal it
+    // put beside the type goes once any of them changes, so the next save asks the service again.
+    const { area, rooms, ceilingHeight, spaceType } = this.form.controls;
+    merge(area.valueChanges, rooms.valueChanges, ceilingHeight.valueChanges).subscribe(() => {
+      if (spaceType.hasError('server')) spaceType.updateValueAndValidity();
+    });
     if (this.data.method === 'space-by-space') requireHeightForFormula(this.form, this.data.spaceTypes);
     this.dialog.disableClose = true;
     this.dialog.backdropClick().subscribe(() => this.cancel());

@@ -23,6 +23,7 @@ export function spaceForm(method: ComplianceMethod) {
     ceilingHeight: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.height)] }),
     length: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.length)] }),
     width: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.length)] }),
+    rooms: new FormControl('', { nonNullable: true, validators: [quantityValidator(ranges.rooms)] }),
     unlit: new FormControl(false, { nonNullable: true }),
   });
 }
@@ -79,6 +80,7 @@ export function fillSpace(form: SpaceForm, space: SpaceRecord): void {
     ceilingHeight: space.ceilingHeight ?? '',
     length: space.length ?? '',
     width: space.width ?? '',
+    rooms: space.rooms ?? '',
     unlit: space.unlit ?? false,
   });
 }
@@ -102,6 +104,8 @@ export function spaceFromForm(form: SpaceForm, base: SpaceInput): SpaceInput {
     ceilingHeight: optional(value.ceilingHeight),
     length: optional(value.length),
     width: optional(value.width),
+    // One room is what an entry stands for without the field, so 1 is not stored.
+    rooms: optional(value.rooms) === undefined || Number(value.rooms) === 1 ? undefined : value.rooms.trim(),
     unlit: base.luminaires.length === 0 ? value.unlit || undefined : base.unlit,
   };
 }

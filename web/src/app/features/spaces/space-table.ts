@@ -73,6 +73,12 @@ export class SpaceTable {
     return inProjectUnits(this.typeViews().get(key)?.label ?? 'A type this edition does not have', this.units());
   }
 
+  /** How many like rooms the entry stands for, in words, where it is more than one. */
+  protected roomCount(space: SpaceRecord): string | null {
+    const rooms = Number(space.rooms ?? '1');
+    return rooms > 1 ? rooms.toLocaleString('en-US') : null;
+  }
+
   protected area(value: string | number): string {
     return formatArea(String(value), this.units()).replace(/ (ft²|m²)$/, '');
   }

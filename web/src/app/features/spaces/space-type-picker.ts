@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, effect, input, signal, untracked } from '@angular/core';
-import { FormControl, ReactiveFormsModule, type AbstractControl } from '@angular/forms';
+import { FormControl, ReactiveFormsModule, type AbstractControl, type ValidationErrors } from '@angular/forms';
 import type { ErrorStateMatcher } from '@angular/material/core';
 import { MatAutocompleteModule, type MatAutocompleteSelectedEvent } from '@angular/material/autocomplete';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -65,10 +65,10 @@ export function groupSpaceTypes(types: readonly SpaceTypeView[], query: string):
       @if (chosen(); as type) {
         <mat-hint>{{ density(type) }} · {{ type.sourceLabel }}</mat-hint>
       }
-      @if (control().errors?.['required']) {
+      @if (errors()?.['required']) {
         <mat-error>Choose a space type from the list.</mat-error>
-      } @else if (control().errors?.['server']) {
-        <mat-error>{{ control().errors?.['server'] }}</mat-error>
+      } @else if (errors()?.['server']; as message) {
+        <mat-error>{{ message | inUnits: units() }}</mat-error>
       }
     </mat-form-field>
   `,
@@ -93,6 +93,8 @@ export class SpaceTypePicker {
   protected readonly query = new FormControl<string | SpaceTypeView>('', { nonNullable: true });
   private readonly queryText = signal('');
   private readonly key = signal('');
+  /** The outer control's errors, followed on every status change so that a refusal the service sends shows at once. */
+  protected readonly errors = signal<ValidationErrors | null>(null);
 
   protected readonly groups = computed(() => groupSpaceTypes(this.spaceTypes(), this.queryText()));
   protected readonly chosen = computed(() => this.spaceTypes().find((type) => type.key === this.key()) ?? null);
@@ -106,6 +108,7 @@ export class SpaceTypePicker {
       untracked(() => {
         const show = () => {
           this.key.set(control.value);
+          this.errors.set(control.errors);
           const type = types.find((candidate) => candidate.key === control.value);
           if (type && this.query.value !== type) this.query.setValue(type, { emitEvent: false });
           if (control.disabled) this.query.disable({ emitEvent: false });

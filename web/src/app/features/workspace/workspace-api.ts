@@ -3,6 +3,7 @@ import { inject, Injectable } from '@angular/core';
 import { shareReplay, type Observable } from 'rxjs';
 import type {
   AdditionalAllowanceView,
+  AmendmentView,
   BuildingAreaTypeView,
   ControlStrategyView,
   EditionSummary,
@@ -181,6 +182,10 @@ export class WorkspaceApi {
 
   lightingZones(edition: string): Observable<LightingZoneView[]> {
     return this.cached(`${edition}/lighting-zones`, `/api/code-editions/${edition}/lighting-zones`);
+  }
+
+  amendments(edition: string): Observable<AmendmentView[]> {
+    return this.cached(`${edition}/amendments`, `/api/code-editions/${edition}/amendments`);
   }
 
   additionalAllowances(edition: string): Observable<AdditionalAllowanceView[]> {

@@ -1,0 +1,46 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+import type { ProjectDetail } from '../../core/api/api-types';
+import { apiInterceptor } from '../../core/http/api-interceptor';
+import { ProjectStore } from '../workspace/project-store';
+import { ResultsPage } from './results-page';
+import { evaluation } from './results-fixture';
+
+// Invented project.
+const project = { id: 'p1', name: 'Tacoma annex', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', version: 1, members: [], amendments: [] } as unknown as ProjectDetail;
+
+describe('ResultsPage', () => {
+  let fixture: ComponentFixture<ResultsPage>;
+  let store: ProjectStore;
+  let element: HTMLElement;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      imports: [ResultsPage],
+      providers: [provideZonelessChangeDetection(), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting(), provideRouter([]), ProjectStore],
+    });
+    store = TestBed.inject(ProjectStore);
+    store.project.set(project);
+    store.results.set({ status: 'ready', result: evaluation() });
+    fixture = TestBed.createComponent(ResultsPage);
+    element = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+  });
+
+  const basis = () => element.querySelector('[data-testid="results-amendments"]')?.textContent?.replace(/\s+/g, ' ').trim();
+
+  it('says the model code alone applies when the result carries no amendment', () => {
+    expect(basis()).toBe('gavel Model code only: no jurisdiction amendment is applied.');
+  });
+
+  it('names each jurisdiction amendment the result applied, by its title', async () => {
+    // The title as reference/iecc-2021/amendments.json holds it (Washington State Energy Code 2021).
+    store.results.set({ status: 'ready', result: { ...evaluation(), amendments: [{ key: 'washington-2021', title: "Washington State Energy Code 2021 (Washington's amendments to IECC 2021)" }] } });
+    await fixture.whenStable();
+    expect(basis()).toBe("gavel Jurisdiction amendment applied over the model code: Washington State Energy Code 2021 (Washington's amendments to IECC 2021).");
+    expect(basis()).not.toContain('washington-2021');
+  });
+});
