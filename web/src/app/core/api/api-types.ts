@@ -433,8 +433,6 @@ export interface ProjectComparison {
   current: EditionComparison;
   editions: EditionComparison[];
   cautions: string[];
-  /** The jurisdiction amendments applied over the model code. */
-  amendments: { key: string; title: string }[];
 }
 
 /** A sales-floor space's claim on one of the edition's additional allowances. */

@@ -122,6 +122,5 @@ export function evaluation(): EvaluationResult {
     controlsComply: false,
     unverifiedValues: [invented],
     cautions: ['Energy code only (test caution).'],
-    amendments: [],
   };
 }

@@ -23,8 +23,8 @@ describe('ResultsPage', () => {
       providers: [provideZonelessChangeDetection(), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting(), provideRouter([]), ProjectStore],
     });
     store = TestBed.inject(ProjectStore);
-    store.project.set(project);
-    store.results.set({ status: 'ready', result: evaluation() });
+    store.seed({ project });
+    store.seed({ results: { status: 'ready', result: evaluation() } });
     fixture = TestBed.createComponent(ResultsPage);
     element = fixture.nativeElement as HTMLElement;
     await fixture.whenStable();
@@ -38,7 +38,7 @@ describe('ResultsPage', () => {
 
   it('names each jurisdiction amendment the result applied, by its title', async () => {
     // The title as reference/iecc-2021/amendments.json holds it (Washington State Energy Code 2021).
-    store.results.set({ status: 'ready', result: { ...evaluation(), amendments: [{ key: 'washington-2021', title: "Washington State Energy Code 2021 (Washington's amendments to IECC 2021)" }] } });
+    store.seed({ results: { status: 'ready', result: { ...evaluation(), amendments: [{ key: 'washington-2021', title: "Washington State Energy Code 2021 (Washington's amendments to IECC 2021)" }] } } });
     await fixture.whenStable();
     expect(basis()).toBe("gavel Jurisdiction amendment applied over the model code: Washington State Energy Code 2021 (Washington's amendments to IECC 2021).");
     expect(basis()).not.toContain('washington-2021');

@@ -96,7 +96,7 @@ describe('SpaceEditor', () => {
     const input = element.querySelector<HTMLInputElement>('input[formcontrolname="rooms"]')!;
     expect(input.value).toBe('4');
     // The service's range for like rooms (compliance/bounds.ts ranges.rooms): a whole number from 1 to 100,000.
-    for (const [typed, message] of [
+    for (const [typed, message] of <[string, string][]>[
       ['2.5', 'Must be a whole number. Enter a whole number from 1 to 100,000.'],
       ['0', 'Out of range. Enter a whole number from 1 to 100,000.'],
     ]) {
