@@ -1,5 +1,5 @@
 import { ApiError } from '../core/http/api-error';
-import { failureWords } from './conflict';
+import { failureWords } from './write-failure';
 import { problemLine, problemText } from './problem-words';
 
 // Invented project: two spaces, two luminaire types, one exterior application.

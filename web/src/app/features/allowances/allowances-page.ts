@@ -16,9 +16,8 @@ import type { AdditionalAllowanceView, AllowanceClaim, EvaluationResult, SpaceRe
 import { ApiError } from '../../core/http/api-error';
 import { allowanceStatus } from '../../shared/allowance-status';
 import { CardRows } from '../../shared/card-rows';
-import { placeServerErrors, WriteFailure } from '../../shared/conflict';
-import { areaFigure, densityFigure, wattsFigure } from '../../shared/figures';
-import { formatArea, formatWatts, unitLabels } from '../../shared/format';
+import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
+import { areaFigure, densityFigure, formatArea, formatWatts, unitLabels, wattsFigure } from '../../shared/format';
 import { inProjectUnits } from '../../shared/unit-words';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { VerifyBadge } from '../../shared/verify-badge';

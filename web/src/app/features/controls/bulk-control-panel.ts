@@ -10,7 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { SpaceRecord } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { placeServerErrors, WriteFailure } from '../../shared/conflict';
+import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
 import { InUnits } from '../../shared/in-units';
 import { ProblemList } from '../../shared/problem-list';
 import { problemLine, type ProblemLine } from '../../shared/problem-words';

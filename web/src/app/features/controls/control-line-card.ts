@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { ControlLine, ControlStrategyView, ProvidedControl, UnitSystem } from '../../core/api/api-types';
 import type { ApiErrorDetail } from '../../core/http/api-error';
-import { placeServerErrors } from '../../shared/conflict';
+import { placeServerErrors } from '../../shared/write-failure';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { ControlFields } from './control-fields';
 import { controlForm, providedControl, type ControlForm } from './control-form';

@@ -6,7 +6,7 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { RouterLink } from '@angular/router';
 import type { ProvidedControl, SpaceRecord } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { WriteFailure } from '../../shared/conflict';
+import { WriteFailure } from '../../shared/write-failure';
 import { formatArea } from '../../shared/format';
 import { InUnits } from '../../shared/in-units';
 import { UnverifiedCount } from '../../shared/unverified-count';

@@ -14,7 +14,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { catchError, map, of, startWith, Subject, switchMap, tap, type Observable } from 'rxjs';
 import type { HistoryEntry, HistoryPage as HistoryPageBody, HistoryQuery } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { WriteFailure } from '../../shared/conflict';
+import { WriteFailure } from '../../shared/write-failure';
 import { AllowancesApi } from '../allowances/allowances-api';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';

@@ -1,6 +1,5 @@
 import type { DaylightZoneKind, LuminaireGroup, LuminaireTypeRecord, SpaceRecord } from '../../core/api/api-types';
-import { ratedWattsFigure } from '../../shared/figures';
-import { formatWatts } from '../../shared/format';
+import { formatWatts, ratedWattsFigure } from '../../shared/format';
 
 export const zoneLabels: Record<DaylightZoneKind | 'none', string> = {
   none: 'None',

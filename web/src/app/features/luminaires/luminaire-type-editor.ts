@@ -11,7 +11,7 @@ import { MatSelectModule } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import type { LuminaireTypeRecord, UnitSystem } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { placeServerErrors, WriteFailure } from '../../shared/conflict';
+import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
 import { unitLabels } from '../../shared/format';
 import { fieldMessage } from '../spaces/space-form';
 import { WorkspaceApi } from '../workspace/workspace-api';

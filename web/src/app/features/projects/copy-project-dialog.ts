@@ -9,7 +9,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { Observable } from 'rxjs';
 import type { ProjectDetail } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { placeServerErrors } from '../../shared/conflict';
+import { placeServerErrors } from '../../shared/write-failure';
 import { ProjectApi } from './project-api';
 
 export interface CopyProjectData {

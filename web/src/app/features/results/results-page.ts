@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { EvaluationResult } from '../../core/api/api-types';
 import { CautionsBanner, defaultCautions } from '../../shared/cautions-banner';
-import { WriteFailure } from '../../shared/conflict';
+import { WriteFailure } from '../../shared/write-failure';
 import { ProblemList } from '../../shared/problem-list';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';

@@ -1,7 +1,7 @@
 import { FormControl, FormGroup, Validators, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
 import type { ComplianceMethod, EditionId, ProjectDetail, ProjectScope, ProjectSetupWrite, UnitSystem } from '../../core/api/api-types';
 import type { ApiErrorDetail } from '../../core/http/api-error';
-import { placeServerErrors } from '../../shared/conflict';
+import { placeServerErrors } from '../../shared/write-failure';
 import { ranges } from '../../shared/number-range';
 import { quantityValidator } from '../spaces/space-form';
 import { parseCoordinate, type Axis } from './coordinates';

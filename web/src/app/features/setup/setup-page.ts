@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { ProjectMember, ProjectRole } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { WriteFailure } from '../../shared/conflict';
+import { WriteFailure } from '../../shared/write-failure';
 import { formatArea } from '../../shared/format';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';

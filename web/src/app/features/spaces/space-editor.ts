@@ -14,7 +14,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { merge, type Observable } from 'rxjs';
 import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
-import { placeServerErrors, WriteFailure } from '../../shared/conflict';
+import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
 import { formatDensity, unitLabels } from '../../shared/format';
 import { InUnits } from '../../shared/in-units';
 import { VerifyBadge } from '../../shared/verify-badge';

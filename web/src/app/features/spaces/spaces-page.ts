@@ -6,7 +6,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { ActivatedRoute, Router } from '@angular/router';
 import type { SpaceRecord } from '../../core/api/api-types';
-import { WriteFailure } from '../../shared/conflict';
+import { WriteFailure } from '../../shared/write-failure';
 import { ProblemList } from '../../shared/problem-list';
 import { UnverifiedCount } from '../../shared/unverified-count';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';

@@ -13,7 +13,7 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { filter, map, startWith, tap } from 'rxjs';
-import { WriteFailure } from '../../shared/conflict';
+import { WriteFailure } from '../../shared/write-failure';
 import { narrowScreen, phoneScreen, screenMatches } from '../../shared/media-queries';
 import { openCopyDialog } from '../projects/copy-project-dialog';
 import { ProjectApi } from '../projects/project-api';
