@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { Database } from '../db/database.js';
+import type { AuditLogRow } from '../db/tables.js';
 import { changeChannel, type ProjectChange } from '../live/project-changes.js';
 
 export interface AuditEntry {
@@ -11,7 +12,7 @@ export interface AuditEntry {
   detail?: Record<string, unknown>;
 }
 
-function auditRow(entry: AuditEntry) {
+function auditRow(entry: AuditEntry): Omit<AuditLogRow, 'id' | 'at'> {
   return {
     user_id: entry.userId,
     project_id: entry.projectId ?? null,

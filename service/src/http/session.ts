@@ -54,13 +54,6 @@ export const requireSignIn: RequestHandler = (req, _res, next) => {
   next();
 };
 
-export const requireAdmin: RequestHandler = (req, _res, next) => {
-  if (!req.session?.user.isAdmin) {
-    throw AppError.forbidden('Only an administrator can do this.');
-  }
-  next();
-};
-
 export function currentSession(req: { session?: Session }): Session {
   if (!req.session) {
     throw AppError.unauthorized();
