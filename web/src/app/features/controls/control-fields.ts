@@ -8,7 +8,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { startWith, switchMap } from 'rxjs';
 import type { ControlStrategyView, UnitSystem } from '../../core/api/api-types';
 import { areaInUnits } from '../../shared/unit-words';
-import { fieldMessage } from '../spaces/space-form';
+import { fieldMessage } from '../../shared/field-message';
 import { reducesLighting, type ControlForm } from './control-form';
 import { exceptionReasonLabels, reasonsFor } from './control-status';
 

@@ -19,7 +19,8 @@ import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { DaylightPlan, zoneNames } from './daylight-plan';
-import { fieldMessage, openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
+import { fieldMessage } from '../../shared/field-message';
+import { openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
 import { askToDiscard } from '../../shared/confirm-dialog';
 import { MeasureInput } from '../../shared/measure-input';
 

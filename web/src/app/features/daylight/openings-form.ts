@@ -128,14 +128,3 @@ export function openingsValue(form: OpeningsForm): { windows: WindowOpening[]; s
     }),
   };
 }
-
-/** A field's message, beside it, in the service's words where the service has them. */
-export function fieldMessage(control: AbstractControl): string | null {
-  const unread: unknown = control.getError('measure');
-  if (typeof unread === 'string') return unread;
-  if (control.hasError('required')) return 'Required.';
-  if (control.hasError('decimal')) return 'Enter a number.';
-  if (control.hasError('negative')) return 'Must not be negative.';
-  if (control.hasError('positive')) return 'Must be greater than zero.';
-  return null;
-}

@@ -13,7 +13,7 @@ import type { LuminaireTypeRecord, UnitSystem } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
 import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
 import { unitLabels } from '../../shared/format';
-import { fieldMessage } from '../spaces/space-form';
+import { fieldMessage } from '../../shared/field-message';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { basisLabels, fillLuminaireType, luminaireTypeForm, luminaireTypeFromForm, useLabels } from './luminaire-type-form';
 import { askToDiscard } from '../../shared/confirm-dialog';

@@ -7,7 +7,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { DaylightZoneKind, LuminaireGroup, LuminaireTypeRecord, SpaceRecord } from '../../core/api/api-types';
 import { ranges } from '../../shared/number-range';
-import { fieldMessage, quantityValidator } from '../spaces/space-form';
+import { fieldMessage } from '../../shared/field-message';
+import { quantityValidator } from '../spaces/space-form';
 import { zoneLabels } from './luminaire-counts';
 
 type ZoneChoice = DaylightZoneKind | 'none';

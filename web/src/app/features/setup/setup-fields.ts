@@ -14,7 +14,8 @@ import { UnverifiedCount } from '../../shared/unverified-count';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { coordinateExamples, coordinateInWords, parseCoordinate, siteWarnings, type Axis } from './coordinates';
-import { errorMessage, type SetupForm } from './setup-form';
+import { fieldMessage as errorMessage } from '../../shared/field-message';
+import type { SetupForm } from './setup-form';
 import { isTimeZone, searchTimeZones, timeZoneLabel } from './time-zones';
 
 export type SetupSection = 'identity' | 'site' | 'code' | 'building' | 'exterior' | 'people';

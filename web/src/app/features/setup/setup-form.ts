@@ -165,12 +165,3 @@ export function showServerErrors(form: SetupForm, details: readonly ApiErrorDeta
     return group ? form.get([group, field]) : null;
   });
 }
-
-/** The first message for a control, in the order a person would fix them. */
-export function errorMessage(control: AbstractControl, label: string): string {
-  const errors = control.errors ?? {};
-  if (errors['required']) return `${label} is required.`;
-  if (errors['maxlength']) return `${label} is at most ${(errors['maxlength'] as { requiredLength: number }).requiredLength} characters.`;
-  const message = Object.values(errors).find((value): value is string => typeof value === 'string');
-  return message ?? `Check the ${label.toLocaleLowerCase()}.`;
-}

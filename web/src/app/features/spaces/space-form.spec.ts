@@ -1,5 +1,6 @@
 import type { SpaceTypeView } from '../../core/api/api-types';
-import { fieldMessage, requireHeightForFormula, spaceForm } from './space-form';
+import { fieldMessage } from '../../shared/field-message';
+import { requireHeightForFormula, spaceForm } from './space-form';
 
 // ASHRAE 90.1-2016 Table 9.6.1, via PNNL building-energy-standards-data: the atrium row's allowance is 0.03 W/ft² per ft of
 // total height (the row notes of shared/reference-data/ashrae901-2016-sbs.csv; from memory); open office 0.81 W/ft², flat.

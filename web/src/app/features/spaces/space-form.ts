@@ -113,12 +113,3 @@ export function spaceFromForm(form: SpaceForm, base: SpaceInput): SpaceInput {
 export function emptySpace(): SpaceInput {
   return { name: '', area: '', luminaires: [], controls: [], windows: [], skylights: [] };
 }
-
-export function fieldMessage(control: AbstractControl, label: string): string {
-  const errors = control.errors ?? {};
-  if (errors['required']) return `${label} is required.`;
-  const tooLong = errors['maxlength'] as { requiredLength: number } | undefined;
-  if (tooLong) return `Use at most ${tooLong.requiredLength.toLocaleString('en-US')} characters.`;
-  const message = Object.values(errors).find((value): value is string => typeof value === 'string');
-  return message ?? `Check the ${label.toLocaleLowerCase()}.`;
-}
