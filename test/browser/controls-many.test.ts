@@ -81,7 +81,11 @@ describe('one control on many spaces', { timeout: 90_000 }, () => {
 
   it('names a space someone changed meanwhile, records nothing, and records on Reload and a second try', async () => {
     const { page } = browser;
-    await panel(page).getByRole('button', { name: 'Clear the choice' }).click();
+    // The workspace follows others' writes as they commit, so a stale write needs a page that has
+    // not heard of one: here it has lost its change stream, and the service must still refuse.
+    await page.route('**/api/projects/*/events', (route) => route.abort());
+    await page.goto(`${served.baseUrl}/projects/${projectId}/controls`);
+    await panel(page).getByText('Record one control on many spaces').click();
     await choose(page, 'Space type', 'Any type');
     await choose(page, 'Level', 'Any level');
     await panel(page).getByLabel('Find spaces').fill('stair');
@@ -112,5 +116,6 @@ describe('one control on many spaces', { timeout: 90_000 }, () => {
     for (const name of ['112 Stair A', '213 Stair B']) {
       expect(after.find((space) => space.name === name)!.controls.find((control) => control.strategy === 'time-switch')?.exceptionReason, name).toBe('exit-stairway-ramp-passageway');
     }
+    await page.unroute('**/api/projects/*/events');
   });
 });
