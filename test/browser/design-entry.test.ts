@@ -251,6 +251,9 @@ describe('an engineer enters a fire station', { timeout: 90_000 }, () => {
       true,
     );
     await page.goto(projectUrl('spaces'));
+    // The dialog takes the project's luminaire types as they are when it opens: open it on a loaded project.
+    await page.locator('[data-space-id]', { hasText: 'Hose store' }).first().waitFor();
+    await expect.poll(() => page.getByTestId('workspace-verdict').textContent()).not.toContain('Updating');
     await page.getByRole('button', { name: 'Import spreadsheet' }).click();
     await page.getByTestId('import-file').setInputFiles(first);
     await page.getByText('Spaces: station.xlsx, 4 rows').waitFor();
