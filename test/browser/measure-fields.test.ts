@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Served } from '../support/browser.js';
-import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
+import { closeBrowserSuite, openBrowserSuite, signInToDemo } from '../support/browser-suite.js';
 import type { TestDatabase } from '../support/database.js';
 
 /** Numeric fields read what people type on site; the demo project is in feet. */
@@ -11,14 +11,7 @@ let projectUrl: string;
 
 beforeAll(async () => {
   ({ database, served, browser } = await openBrowserSuite());
-  const { page } = browser;
-  await page.goto(`${served.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill('engineer@alderbay.example');
-  await page.getByLabel('Password', { exact: true }).fill(inject('demoPassword'));
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByTestId('signed-in-user').waitFor();
-  const projects = await page.evaluate(async () => (await fetch('/api/projects')).json() as Promise<{ id: string; name: string }[]>);
-  projectUrl = `${served.baseUrl}/projects/${projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id}`;
+  projectUrl = await signInToDemo({ browser, served }, 'engineer@alderbay.example', inject('demoPassword'));
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Served } from '../support/browser.js';
-import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
+import { closeBrowserSuite, openBrowserSuite, signInToDemo } from '../support/browser-suite.js';
 import type { TestDatabase } from '../support/database.js';
 
 /** Edits not saved are never lost without a question, and the question is the app's own dialog. */
@@ -17,13 +17,7 @@ beforeAll(async () => {
     void dialog.dismiss();
     throw new Error(`a native "${dialog.type()}" dialog appeared: ${dialog.message()}`);
   });
-  await page.goto(`${served.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill('engineer@alderbay.example');
-  await page.getByLabel('Password', { exact: true }).fill(inject('demoPassword'));
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByTestId('signed-in-user').waitFor();
-  const projects = await page.evaluate(async () => (await fetch('/api/projects')).json() as Promise<{ id: string; name: string }[]>);
-  projectUrl = `${served.baseUrl}/projects/${projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id}`;
+  projectUrl = await signInToDemo({ browser, served }, 'engineer@alderbay.example', inject('demoPassword'));
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));

@@ -27,3 +27,15 @@ export async function closeBrowserSuite(suite: Partial<BrowserSuite>): Promise<v
     await suite.database?.drop();
   }
 }
+
+/** Signs a demo person in through the sign-in page and answers the demo project's workspace address. */
+export async function signInToDemo(suite: Pick<BrowserSuite, 'browser' | 'served'>, email: string, password: string): Promise<string> {
+  const { page } = suite.browser;
+  await page.goto(`${suite.served.baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByTestId('signed-in-user').waitFor();
+  const projects = await page.evaluate(async () => (await fetch('/api/projects')).json() as Promise<{ id: string; name: string }[]>);
+  return `${suite.served.baseUrl}/projects/${projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id}`;
+}

@@ -279,8 +279,6 @@ export interface EditionSummary {
   methods: ComplianceMethod[];
 }
 
-export type { Citation, CitationLayer } from '../../../../../contract/result';
-
 /** The maintainers' provenance of a row (not for screens) and its citation (for screens). */
 export interface RowProvenance {
   source: string;
@@ -368,24 +366,7 @@ export interface LightingZoneView extends RowProvenance {
 // ---------------------------------------------------------------- evaluation result
 // One schema, in the contract the service reads too: the types cannot drift from what is served.
 
-export type {
-  AdditionalAllowanceLine,
-  AdditionalAllowanceResult,
-  ControlLine,
-  ControlStatus,
-  DaylightResult,
-  EvaluationResult,
-  ExemptLine,
-  ExteriorApplicationResult,
-  ExteriorResult,
-  InteriorResult,
-  LevelResult,
-  LuminaireLine,
-  SpaceResult,
-  UnverifiedValue,
-  Verdict,
-  ZoneRectangleResult,
-} from '../../../../../contract/result';
+export type * from '../../../../../contract/result';
 
 /** Where a control is required (one of a set of alternatives counts), not required, or to verify. */
 export type RequirementKind = 'required' | 'not-required' | 'to-verify';
