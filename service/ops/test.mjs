@@ -40,6 +40,12 @@ const steps = [
     args: () => ['run', '--silent', 'typecheck'],
   },
   {
+    // ESLint (typescript-eslint, angular-eslint) and Prettier in check mode: `npm run format` fixes the layout.
+    name: 'lint and formatting (eslint, prettier --check)',
+    command: process.platform === 'win32' ? 'npm.cmd' : 'npm',
+    args: () => ['run', '--silent', 'lint'],
+  },
+  {
     name: 'web unit tests (ng test)',
     report: path.join(output, 'web-unit.json'),
     command: bin('ng'),

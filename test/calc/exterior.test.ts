@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import type { EvaluationDocumentInput } from '../../service/src/compliance/index.js';
-import { squareMetresPerSquareFoot } from '../../service/src/compliance/index.js';
 import { ashrae2022, iecc2021, run } from './fixtures.js';
 
 const site = (applications: NonNullable<EvaluationDocumentInput['exterior']>['applications'], units: 'ip' | 'si' = 'ip', zone = '2'): EvaluationDocumentInput => ({

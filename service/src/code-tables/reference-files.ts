@@ -3,7 +3,7 @@ import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
-import { strategyKeys, type EditionId, type StrategyKey } from '../compliance/edition-data.js';
+import { strategyKeys, type EditionId } from '../compliance/edition-data.js';
 import { decimalPattern } from '../../../contract/editions.js';
 
 /** Reads and checks the files under `reference/`: the seed loads them, the tests compare against them. */

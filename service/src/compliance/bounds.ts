@@ -126,6 +126,8 @@ const loneSurrogate = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\
 
 export function textProblem(value: string, multiline = false): string | null {
   if (loneSurrogate.test(value)) return 'Contains a broken character (an unpaired surrogate).';
+  // Control characters are what this pattern is for.
+  // eslint-disable-next-line no-control-regex
   const controls = multiline ? /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/ : /[\u0000-\u001f\u007f]/;
   if (controls.test(value)) return value.includes('\u0000') ? 'Contains a NUL character.' : 'Contains a control character.';
   return null;

@@ -511,7 +511,6 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     if (base) unverified.add(`Exterior allowance: ${base.label}`, base.provenance, exteriorSection);
   }
 
-  const interiorLines = spaces.flatMap((space) => space.controls);
   const exteriorLines = exterior?.applications.flatMap((application) => application.controls) ?? [];
   // A space without luminaires is out of the verdict until they are entered or it is confirmed unlit:
   // its lines say what its lighting will need, and wait with it (the verdict is incomplete meanwhile).

@@ -4,7 +4,7 @@
  */
 
 import type { ComplianceMethod, EditionId, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
-import type { Citation, ControlStatus, EvaluationResult, Verdict } from '../../../../../contract/result';
+import type { Citation, ControlStatus, Verdict } from '../../../../../contract/result';
 
 export type { ComplianceMethod, EditionId, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
 export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
