@@ -96,7 +96,9 @@ async function announceWhenReady(run) {
     reviewer@alderbay.example     reviewer on the demo project
     contractor@alderbay.example   contractor on the demo project
     admin@alderbay.example        administrator
-
+${mailCatcher ? `
+  Mail the app sends: .data/mail/, and the Outbox page when signed in as the administrator.
+` : ''}
   Press Ctrl-C to stop the server${cluster?.started ? ' and the database' : ''}.
 `);
       return;
@@ -104,6 +106,20 @@ async function announceWhenReady(run) {
     await new Promise((resolve) => setTimeout(resolve, 250));
   }
   log('the server did not answer on /api/health within 30 s');
+}
+
+// The app's mail goes to a local SMTP server that keeps each message under .data/mail/, unless
+// SMTP_HOST names a real relay. Imported here, after the dependencies are installed.
+let mailCatcher = null;
+if (!process.env.SMTP_HOST) {
+  const { startMailCatcher } = await import('./mail-catcher.mjs');
+  const dir = path.join(dataDir, 'mail');
+  const wanted = Number(process.env.SMTP_PORT || 2525);
+  mailCatcher = await startMailCatcher({ dir, port: wanted }).catch((error) => {
+    if (error?.code !== 'EADDRINUSE') throw error;
+    return startMailCatcher({ dir, port: 0 });
+  });
+  log(`mail the app sends is kept in .data/mail/ (a local SMTP server on 127.0.0.1:${mailCatcher.port})`);
 }
 
 const service = supervise({
@@ -124,6 +140,8 @@ const service = supervise({
       JWT_SECRET: process.env.JWT_SECRET || secrets.jwtSecret,
       WEB_DIST: path.join(root, 'dist', 'web', 'browser'),
       LOG_LEVEL: process.env.LOG_LEVEL || 'warn',
+      APP_URL: process.env.APP_URL || url,
+      ...(mailCatcher ? { SMTP_HOST: '127.0.0.1', SMTP_PORT: String(mailCatcher.port), SMTP_SECURE: 'false' } : {}),
     },
   },
   log,
@@ -141,5 +159,6 @@ for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
 }
 
 const outcome = await service.done;
+await mailCatcher?.close();
 stopCluster();
 process.exit(outcome.reason === 'stopped' ? 0 : 1);

@@ -6,6 +6,8 @@ import helmet from 'helmet';
 import { pino, type Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import { authRouter } from './auth/auth.routes.js';
+import { passwordRouter } from './auth/password.routes.js';
+import { adminRouter } from './admin/admin.routes.js';
 import { codeEditionsRouter } from './code-tables/code-tables.routes.js';
 import type { Config } from './config.js';
 import type { Database } from './db/database.js';
@@ -30,6 +32,8 @@ export interface AppDeps {
   logger?: Logger;
   /** Who watches which project; one is made from the database's connection when not given. */
   changes?: ProjectChanges;
+  /** Told when a message was queued in the outbox (the server's mail sender); nothing by default. */
+  mailQueued?: () => void;
 }
 
 /** The connection the change listener opens: the same database as the pool's. */
@@ -37,7 +41,7 @@ function connectionOf(db: Database): string | PgClientConfig {
   return (db.client as { config: Knex.Config }).config.connection as string | PgClientConfig;
 }
 
-export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL }), changes = new ProjectChanges(connectionOf(db), logger) }: AppDeps): Express {
+export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL }), changes = new ProjectChanges(connectionOf(db), logger), mailQueued = () => {} }: AppDeps): Express {
   const app = express();
   app.locals['changes'] = changes;
   app.disable('x-powered-by');
@@ -90,7 +94,9 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
       logger,
     }),
   );
+  api.use('/auth', passwordRouter(db, { appUrl: config.APP_URL, resetMinutes: config.PASSWORD_RESET_MINUTES, mailQueued, logger }));
   api.use(requireSignIn);
+  api.use('/admin', adminRouter(db));
   api.use('/code-editions', codeEditionsRouter(db));
   api.use('/projects', projectsRouter(db));
   api.use('/projects/:projectId', designRouter(db));

@@ -60,7 +60,25 @@ const configSchema = z.object({
   JSON_BODY_LIMIT: z.string().default('10mb'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   WEB_DIST: z.string().optional(),
-}).transform((config) => ({ ...config, COOKIE_SECURE: config.COOKIE_SECURE ?? config.NODE_ENV !== 'development' }));
+  /** The address people reach the app at: the links in its mail. Unset: http://127.0.0.1:PORT. */
+  APP_URL: z.string().url().optional(),
+  /** The SMTP relay. `npm start` and the tests run a local one on loopback that keeps every message. */
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  /** TLS from the first byte (usually port 465); unset, STARTTLS is used where the relay offers it. */
+  SMTP_SECURE: booleanFromString.default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().min(3).default('Allowlight <no-reply@allowlight.localhost>'),
+  MAIL_RETRY_SECONDS: z.coerce.number().positive().max(3600).default(60),
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
+  MAIL_POLL_SECONDS: z.coerce.number().positive().max(3600).default(5),
+  PASSWORD_RESET_MINUTES: z.coerce.number().int().min(5).max(24 * 60).default(60),
+}).transform((config) => ({
+  ...config,
+  COOKIE_SECURE: config.COOKIE_SECURE ?? config.NODE_ENV !== 'development',
+  APP_URL: (config.APP_URL ?? `http://127.0.0.1:${config.PORT}`).replace(/\/+$/, ''),
+}));
 
 export type Config = z.infer<typeof configSchema>;
 

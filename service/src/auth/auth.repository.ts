@@ -14,6 +14,10 @@ export async function findUserByEmail(db: Database, email: string): Promise<User
   return db<UserRow>('users').whereRaw('lower(email) = lower(?)', [email]).first();
 }
 
+export async function findUserById(db: Database, id: string): Promise<UserRow | undefined> {
+  return db<UserRow>('users').where({ id }).first();
+}
+
 export async function toPublicUser(db: Database, row: UserRow): Promise<PublicUser> {
   const held = await db('project_members').where({ user_id: row.id }).distinct<{ role: ProjectRole }[]>('role');
   const roles = projectRoles.filter((role) => held.some((entry) => entry.role === role));

@@ -1,5 +1,5 @@
 import type { Routes } from '@angular/router';
-import { authGuard } from './core/auth/auth-guard';
+import { adminGuard, authGuard } from './core/auth/auth-guard';
 import { unsavedChangesGuard } from './shared/unsaved-changes';
 
 export const routes: Routes = [
@@ -7,6 +7,16 @@ export const routes: Routes = [
     path: 'sign-in',
     title: 'Sign in · Allowlight',
     loadComponent: () => import('./features/sign-in/sign-in-page').then((m) => m.SignInPage),
+  },
+  {
+    path: 'forgot-password',
+    title: 'Forgot your password · Allowlight',
+    loadComponent: () => import('./features/sign-in/forgot-password-page').then((m) => m.ForgotPasswordPage),
+  },
+  {
+    path: 'reset-password',
+    title: 'Choose a new password · Allowlight',
+    loadComponent: () => import('./features/sign-in/reset-password-page').then((m) => m.ResetPasswordPage),
   },
   {
     path: '',
@@ -22,6 +32,12 @@ export const routes: Routes = [
         path: 'account',
         title: 'Account · Allowlight',
         loadComponent: () => import('./features/account/account-page').then((m) => m.AccountPage),
+      },
+      {
+        path: 'outbox',
+        title: 'Outbox · Allowlight',
+        canActivate: [adminGuard],
+        loadComponent: () => import('./features/outbox/outbox-page').then((m) => m.OutboxPage),
       },
       {
         path: 'projects/new',

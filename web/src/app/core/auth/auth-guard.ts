@@ -11,3 +11,10 @@ export const authGuard: CanActivateFn = (_route, state) => {
     map((user) => (user ? true : router.createUrlTree(['/sign-in'], { queryParams: { returnUrl: state.url } }))),
   );
 };
+
+/** Administrators only (after `authGuard`); anyone else lands on the projects. The service checks again. */
+export const adminGuard: CanActivateFn = () => {
+  const auth = inject(AuthStore);
+  const router = inject(Router);
+  return auth.restore().pipe(map((user) => (user?.isAdmin ? true : router.createUrlTree(['/']))));
+};

@@ -8,6 +8,7 @@ import { BehaviorSubject, catchError, map, of, switchMap } from 'rxjs';
 import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import { AccountApi, type ActiveSession } from './account-api';
+import { PasswordChange } from './password-change';
 import { describeDevice, timeAgo, type DeviceIcon } from './session-words';
 
 interface SessionView {
@@ -38,7 +39,7 @@ function toView(session: ActiveSession, now: Date): SessionView {
 
 @Component({
   selector: 'al-account-page',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, PasswordChange],
   templateUrl: './account-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -91,6 +92,11 @@ export class AccountPage {
       next: ({ ended }) => this.ended(ended === 1 ? 'One other session has ended.' : `${ended} other sessions have ended.`),
       error: (error: unknown) => this.failed(error),
     });
+  }
+
+  protected passwordChanged(endedSessions: number): void {
+    const others = endedSessions === 0 ? '' : endedSessions === 1 ? ' One other session has ended.' : ` ${endedSessions} other sessions have ended.`;
+    this.ended(`Your password is changed.${others}`);
   }
 
   private ended(message: string): void {

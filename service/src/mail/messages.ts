@@ -1,0 +1,44 @@
+import type { OutgoingMail } from './outbox.repository.js';
+
+const escapes: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+const escapeHtml = (text: string): string => text.replace(/[&<>"']/g, (character) => escapes[character] ?? character);
+
+/** One message in text and HTML from the same paragraphs, with at most one link, in our words. */
+function compose(kind: OutgoingMail['kind'], to: string, subject: string, paragraphs: string[], link?: { label: string; url: string }): OutgoingMail {
+  const text = [...paragraphs, ...(link ? [`${link.label}: ${link.url}`] : []), '— Allowlight'].join('\n\n');
+  const html = [
+    '<!doctype html><html><body style="font-family: sans-serif; line-height: 1.5">',
+    ...paragraphs.map((paragraph) => `<p>${escapeHtml(paragraph)}</p>`),
+    ...(link ? [`<p><a href="${escapeHtml(link.url)}">${escapeHtml(link.label)}</a></p>`] : []),
+    '<p>— Allowlight</p></body></html>',
+  ].join('\n');
+  return { kind, to: [to], subject, text, html };
+}
+
+export function passwordResetMail(to: string, name: string, url: string, minutes: number): OutgoingMail {
+  return compose(
+    'password-reset',
+    to,
+    'Choose a new Allowlight password',
+    [
+      `Hello ${name},`,
+      `Someone (we hope you) asked to choose a new password for the Allowlight account of ${to}. The link below works once, for the next ${minutes} minutes. Choosing a new password signs the account out everywhere.`,
+      'If you did not ask for this, you can ignore this message: your password stays as it is.',
+    ],
+    { label: 'Choose a new password', url },
+  );
+}
+
+export function passwordChangedMail(to: string, name: string, signInUrl: string): OutgoingMail {
+  return compose(
+    'password-changed',
+    to,
+    'Your Allowlight password was changed',
+    [
+      `Hello ${name},`,
+      `The password of the Allowlight account of ${to} was just changed, and the account's other sessions were ended.`,
+      'If you did not change it, ask for a new password from the sign-in page at once and tell your administrator.',
+    ],
+    { label: 'Sign in', url: signInUrl },
+  );
+}

@@ -1,0 +1,129 @@
+import { ChangeDetectionStrategy, Component, inject, output, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { ApiError } from '../../core/http/api-error';
+import { PasswordApi, passwordRuleWords } from '../sign-in/password-api';
+import { sameAsPassword } from '../sign-in/reset-password-page';
+
+/** The Account page's password change: the current password, the new one twice. */
+@Component({
+  selector: 'al-password-change',
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule],
+  template: `
+    <form [formGroup]="form" (ngSubmit)="submit()" novalidate aria-labelledby="password-heading">
+      <h2 id="password-heading">Password</h2>
+      <p class="hint" id="new-password-rules">{{ rules }} Changing it ends your other sessions.</p>
+      <div class="fields">
+        <mat-form-field appearance="outline">
+          <mat-label>Current password</mat-label>
+          <input matInput type="password" formControlName="currentPassword" autocomplete="current-password" required />
+          @if (form.controls.currentPassword.hasError('required')) {
+            <mat-error>Enter your current password.</mat-error>
+          } @else if (form.controls.currentPassword.hasError('service')) {
+            <mat-error>{{ form.controls.currentPassword.getError('service') }}</mat-error>
+          }
+        </mat-form-field>
+        <mat-form-field appearance="outline">
+          <mat-label>New password</mat-label>
+          <input matInput type="password" formControlName="password" autocomplete="new-password" aria-describedby="new-password-rules" required />
+          @if (form.controls.password.hasError('required')) {
+            <mat-error>Enter the new password.</mat-error>
+          } @else if (form.controls.password.hasError('minlength')) {
+            <mat-error>Use at least 12 characters.</mat-error>
+          } @else if (form.controls.password.hasError('maxlength')) {
+            <mat-error>Use at most 64 characters.</mat-error>
+          } @else if (form.controls.password.hasError('service')) {
+            <mat-error>{{ form.controls.password.getError('service') }}</mat-error>
+          }
+        </mat-form-field>
+        <mat-form-field appearance="outline">
+          <mat-label>New password again</mat-label>
+          <input matInput type="password" formControlName="repeat" autocomplete="new-password" required />
+          @if (form.controls.repeat.hasError('required')) {
+            <mat-error>Enter the new password again.</mat-error>
+          } @else if (form.controls.repeat.hasError('mismatch')) {
+            <mat-error>The two passwords differ.</mat-error>
+          }
+        </mat-form-field>
+      </div>
+      @if (failure(); as message) {
+        <p class="failure" role="alert"><mat-icon aria-hidden="true">error</mat-icon>{{ message }}</p>
+      }
+      <button mat-flat-button type="submit" [disabled]="busy()">Change the password</button>
+    </form>
+  `,
+  styles: `
+    h2 {
+      font: var(--mat-sys-title-large);
+      margin: 0;
+    }
+    .hint {
+      margin: 8px 0 16px;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .fields {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0 16px;
+    }
+    mat-form-field {
+      flex: 1 1 220px;
+    }
+    .failure {
+      display: flex;
+      align-items: center;
+      gap: 8px;
+      color: var(--mat-sys-error);
+    }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class PasswordChange {
+  private readonly api = inject(PasswordApi);
+  /** Says how many other sessions ended, for the page's notice. */
+  readonly changed = output<number>();
+  protected readonly rules = passwordRuleWords;
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    currentPassword: ['', [Validators.required, Validators.maxLength(200)]],
+    password: ['', [Validators.required, Validators.minLength(12), Validators.maxLength(64)]],
+    repeat: ['', [Validators.required, sameAsPassword]],
+  });
+  protected readonly busy = signal(false);
+  protected readonly failure = signal<string | null>(null);
+
+  constructor() {
+    this.form.controls.password.valueChanges.subscribe(() => this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }));
+  }
+
+  protected submit(): void {
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const { currentPassword, password } = this.form.getRawValue();
+    this.busy.set(true);
+    this.failure.set(null);
+    this.api.change(currentPassword, password).subscribe({
+      next: ({ endedSessions }) => {
+        this.busy.set(false);
+        this.form.reset();
+        this.changed.emit(endedSessions);
+      },
+      error: (error: unknown) => {
+        this.busy.set(false);
+        const detail = error instanceof ApiError ? error.details[0] : undefined;
+        const field = detail?.path === 'currentPassword' ? 'currentPassword' : detail?.path === 'newPassword' ? 'password' : null;
+        if (field && detail) {
+          // The service's sentence shown on the field it is about.
+          this.form.controls[field].setErrors({ service: detail.message });
+          this.form.controls[field].markAsTouched();
+        } else {
+          this.failure.set(error instanceof ApiError ? error.message : 'The password could not be changed. Try again.');
+        }
+      },
+    });
+  }
+}
