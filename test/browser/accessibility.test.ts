@@ -44,6 +44,15 @@ beforeAll(async () => {
 afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
+  it('the pages for a forgotten password', async () => {
+    await browser.page.goto(`${served.baseUrl}/forgot-password`);
+    await browser.page.getByLabel('E-mail').waitFor();
+    expect(await seriousViolations(), 'forgot-password').toEqual([]);
+    await browser.page.goto(`${served.baseUrl}/reset-password?token=some-token`);
+    await browser.page.getByLabel('New password again').waitFor();
+    expect(await seriousViolations(), 'reset-password').toEqual([]);
+  });
+
   it('the sign-in page', async () => {
     await browser.page.goto(`${served.baseUrl}/sign-in`);
     await browser.page.getByLabel('E-mail').waitFor();

@@ -94,9 +94,8 @@ export class AccountPage {
     });
   }
 
-  protected passwordChanged(endedSessions: number): void {
-    const others = endedSessions === 0 ? '' : endedSessions === 1 ? ' One other session has ended.' : ` ${endedSessions} other sessions have ended.`;
-    this.ended(`Your password is changed.${others}`);
+  protected passwordChanged(): void {
+    this.refresh.next();
   }
 
   private ended(message: string): void {

@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, inject, output, signal } from '@angular/core';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, inject, output, signal, viewChild } from '@angular/core';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -52,6 +52,9 @@ import { sameAsPassword } from '../sign-in/reset-password-page';
       @if (failure(); as message) {
         <p class="failure" role="alert"><mat-icon aria-hidden="true">error</mat-icon>{{ message }}</p>
       }
+      @if (done(); as message) {
+        <p class="done" role="status"><mat-icon aria-hidden="true">check_circle</mat-icon>{{ message }}</p>
+      }
       <button mat-flat-button type="submit" [disabled]="busy()">Change the password</button>
     </form>
   `,
@@ -72,6 +75,13 @@ import { sameAsPassword } from '../sign-in/reset-password-page';
     mat-form-field {
       flex: 1 1 220px;
     }
+    .done {
+      display: flex;
+      align-items: center;
+      gap: 8px;
+      color: var(--mat-sys-primary);
+      margin: 0 0 8px;
+    }
     .failure {
       display: flex;
       align-items: center;
@@ -83,7 +93,7 @@ import { sameAsPassword } from '../sign-in/reset-password-page';
 })
 export class PasswordChange {
   private readonly api = inject(PasswordApi);
-  /** Says how many other sessions ended, for the page's notice. */
+  /** Says how many other sessions ended, so the page can list the sessions again. */
   readonly changed = output<number>();
   protected readonly rules = passwordRuleWords;
   protected readonly form = inject(NonNullableFormBuilder).group({
@@ -93,6 +103,8 @@ export class PasswordChange {
   });
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
+  protected readonly done = signal<string | null>(null);
+  private readonly formDirective = viewChild.required(FormGroupDirective);
 
   constructor() {
     this.form.controls.password.valueChanges.subscribe(() => this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }));
@@ -106,10 +118,14 @@ export class PasswordChange {
     const { currentPassword, password } = this.form.getRawValue();
     this.busy.set(true);
     this.failure.set(null);
+    this.done.set(null);
     this.api.change(currentPassword, password).subscribe({
       next: ({ endedSessions }) => {
         this.busy.set(false);
-        this.form.reset();
+        // Through the directive, so the emptied fields are not shown as a submitted form's errors.
+        this.formDirective().resetForm();
+        const others = endedSessions === 0 ? '' : endedSessions === 1 ? ' One other session has ended.' : ` ${endedSessions} other sessions have ended.`;
+        this.done.set(`Your password is changed.${others}`);
         this.changed.emit(endedSessions);
       },
       error: (error: unknown) => {
