@@ -126,7 +126,7 @@ export const exteriorExemptions: Record<EditionFamily, readonly ExteriorExemptio
 
 /** No list above was checked against a printed code: each use is listed among the unverified values with this note. */
 export const exteriorExemptionsNote =
-  'The list of exterior lighting exempt from the allowance is from memory, not from a published source; check the exception against the printed code.';
+  'The list of exterior lighting exempt from the allowance was not found in a public source; check this exception in the printed code.';
 
 export function editionFamilyOf(edition: EditionId): EditionFamily {
   return edition.startsWith('iecc') ? 'iecc' : 'ashrae-90.1';
