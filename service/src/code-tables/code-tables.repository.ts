@@ -352,7 +352,8 @@ export async function listAdditionalAllowances(db: Database, version: EditionVer
     section: row.section,
     lpdWPerFt2: row.lpd_w_per_ft2,
     fixedW: row.fixed_w,
-    ...provenanceOf(row, context, reference(context, row.note, 'additionalAllowances')),
+    // A row stating its own section (the decorative allowance, item (a)) is cited by it.
+    ...provenanceOf(row, context, row.section ? referenceOf(row.note, row.section) : reference(context, row.note, 'additionalAllowances')),
   }));
 }
 
