@@ -127,7 +127,7 @@ describe('exterior exemptions', () => {
   });
 
   it('refuses exempt watts without a reason, more than installed, or a reason the edition does not list', () => {
-    const problems = (entry: NonNullable<EvaluationDocumentInput['exterior']>['applications'][number], edition = iecc2021) =>
+    const problems = (entry: NonNullable<NonNullable<EvaluationDocumentInput['exterior']>['applications']>[number], edition = iecc2021) =>
       validateDocument(edition === iecc2021 ? site([entry]) : { ...site([entry]), edition: 'ashrae-90.1-2022' }, edition).problems;
     expect(problems({ key: 'parking', quantity: 100, installedWatts: 50, exemptWatts: 10 })).toEqual([
       { path: 'exterior.applications.0.exemptReason', message: 'Exempt lighting needs the reason it is exempt: choose it from the list.' },
