@@ -1,4 +1,6 @@
 /// <reference lib="dom" />
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
@@ -11,6 +13,22 @@ let served: Served;
 let browser: Browser;
 let hallUrl = '';
 let depotUrl = '';
+
+/** Evaluated through the browser's debugging protocol, so the app's own Content-Security-Policy stays in force (as in accessibility.test.ts). */
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+/** axe-core's WCAG 2.1 A/AA rules on the page as it stands: its serious and critical findings. */
+async function seriousViolations(page: Page): Promise<string[]> {
+  await page.evaluate(axeSource);
+  const violations = await page.evaluate(async () => {
+    type Violation = { id: string; impact: string | null; nodes: { target: string[] }[] };
+    const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Violation[]; passes: unknown[] }> } }).axe;
+    const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } });
+    return { violations: result.violations, passed: result.passes.length };
+  });
+  expect(violations.passed).toBeGreaterThan(5);
+  return violations.violations.filter((violation) => violation.impact === 'serious' || violation.impact === 'critical').map((violation) => `${violation.id}: ${violation.nodes[0]?.target.join(' ')}`);
+}
 
 /** Writes through the API as the signed-in engineer: the set-up the pages under test stand on. */
 async function post(page: Page, url: string, data: unknown): Promise<{ id: string }> {
@@ -69,6 +87,7 @@ describe('decorative allowance and exempt exterior lighting, through the pages',
     // 0.75 × 400 = 300 W claimed; the two pendants, 2 × 25 = 50 W, use 50 W of it and the rest is lost.
     await expect.poll(() => page.getByTestId('used').textContent()).toContain('50');
     await page.getByText('50 W of the 300 W claimed is used: the decorative lighting here is 50 W, and the allowance covers decorative lighting only.').waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
 
     await page.goto(`${hallUrl}/results`);
     const claims = page.getByTestId('additional-allowances');
@@ -96,6 +115,7 @@ describe('decorative allowance and exempt exterior lighting, through the pages',
     // IECC 2021 C405.5.1 exceptions: from memory (contract/editions.ts).
     await page.getByRole('option', { name: 'Lighting of athletic playing areas · section C405.5.1 exception' }).click();
     await form.getByLabel('Note').fill('Court lights on their own switch');
+    expect(await seriousViolations(page)).toEqual([]);
     await form.getByRole('button', { name: 'Add application' }).click();
 
     const line = page.locator('tr[data-key="parking-lots-and-drives"]');
@@ -109,5 +129,6 @@ describe('decorative allowance and exempt exterior lighting, through the pages',
     await exempt.getByText('Parking lots and drives: 600 W exempt').waitFor();
     await exempt.getByText('Lighting of athletic playing areas, section C405.5.1 exception: Court lights on their own switch').waitFor();
     await page.getByText('Exterior exemption: Lighting of athletic playing areas').waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
   });
 });
