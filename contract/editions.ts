@@ -55,3 +55,79 @@ export const decimalPattern = /^-?\d+(\.\d+)?$/;
  */
 export const metresPerFootText = '0.3048';
 export const squareMetresPerSquareFootText = '0.09290304';
+
+/**
+ * The kinds of additional interior allowance an edition may offer under the space-by-space method:
+ * retail display (on a sales floor, for display luminaires) and decorative (any space, for
+ * decorative luminaires). Each is usable only by the luminaires it is for.
+ */
+export const additionalAllowanceKinds = ['retail-display', 'decorative'] as const;
+export type AdditionalAllowanceKind = (typeof additionalAllowanceKinds)[number];
+
+export type EditionFamily = 'ashrae-90.1' | 'iecc';
+
+/** Our own keys for the reasons exterior lighting may be left out of the exterior allowance. */
+export const exteriorExemptionReasons = [
+  'safety-approved',
+  'emergency-normally-off',
+  'exit-signs',
+  'transportation-signal',
+  'signage',
+  'integral-to-equipment',
+  'theatrical',
+  'athletic-playing-area',
+  'temporary',
+  'industrial-production',
+  'theme-park',
+  'historic-landmark',
+] as const;
+export type ExteriorExemptionReason = (typeof exteriorExemptionReasons)[number];
+
+export interface ExteriorExemption {
+  reason: ExteriorExemptionReason;
+  label: string;
+  /** The section of the edition family that lists it. */
+  section: string;
+}
+
+/**
+ * The exterior exemptions of each edition family. From memory: the exceptions to 90.1 §9.4.2
+ * (with §9.1.1's emergency lighting) and to IECC C405.5.1 were not found in the reference data, so
+ * every use of one is listed among the unverified values.
+ */
+export const exteriorExemptions: Record<EditionFamily, readonly ExteriorExemption[]> = {
+  'ashrae-90.1': [
+    { reason: 'emergency-normally-off', label: 'Emergency lighting that is off in normal operation', section: '9.1.1' },
+    { reason: 'transportation-signal', label: 'Signal, directional and marker lighting for transportation', section: '9.4.2 exception' },
+    { reason: 'signage', label: 'Advertising or directional signage', section: '9.4.2 exception' },
+    { reason: 'integral-to-equipment', label: 'Lighting integral to equipment or instruments, installed by their maker', section: '9.4.2 exception' },
+    { reason: 'theatrical', label: 'Theatrical, stage, film or video production lighting', section: '9.4.2 exception' },
+    { reason: 'athletic-playing-area', label: 'Lighting of athletic playing areas', section: '9.4.2 exception' },
+    { reason: 'temporary', label: 'Temporary lighting', section: '9.4.2 exception' },
+    { reason: 'industrial-production', label: 'Industrial production, material handling, transportation sites and their storage areas', section: '9.4.2 exception' },
+    { reason: 'theme-park', label: 'Theme elements in theme or amusement parks', section: '9.4.2 exception' },
+    { reason: 'historic-landmark', label: 'Lighting that highlights public monuments or registered historic landmarks', section: '9.4.2 exception' },
+  ],
+  iecc: [
+    { reason: 'safety-approved', label: 'Lighting approved because of safety considerations', section: 'C405.5.1 exception' },
+    { reason: 'emergency-normally-off', label: 'Emergency lighting that is off in normal operation', section: 'C405.5.1 exception' },
+    { reason: 'exit-signs', label: 'Exit signs', section: 'C405.5.1 exception' },
+    { reason: 'transportation-signal', label: 'Signal, directional and marker lighting for transportation', section: 'C405.5.1 exception' },
+    { reason: 'signage', label: 'Advertising or directional signage', section: 'C405.5.1 exception' },
+    { reason: 'integral-to-equipment', label: 'Lighting integral to equipment or instruments, installed by their maker', section: 'C405.5.1 exception' },
+    { reason: 'theatrical', label: 'Theatrical, stage, film or video production lighting', section: 'C405.5.1 exception' },
+    { reason: 'athletic-playing-area', label: 'Lighting of athletic playing areas', section: 'C405.5.1 exception' },
+    { reason: 'temporary', label: 'Temporary lighting', section: 'C405.5.1 exception' },
+    { reason: 'industrial-production', label: 'Industrial production, material handling, transportation sites and their storage areas', section: 'C405.5.1 exception' },
+    { reason: 'theme-park', label: 'Theme elements in theme or amusement parks', section: 'C405.5.1 exception' },
+    { reason: 'historic-landmark', label: 'Lighting that highlights art, public monuments or registered historic landmarks', section: 'C405.5.1 exception' },
+  ],
+};
+
+/** No list above was checked against a printed code: each use is listed among the unverified values with this note. */
+export const exteriorExemptionsNote =
+  'The list of exterior lighting exempt from the allowance was not found in a public source; check this exception in the printed code.';
+
+export function editionFamilyOf(edition: EditionId): EditionFamily {
+  return edition.startsWith('iecc') ? 'iecc' : 'ashrae-90.1';
+}

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { complianceMethods, decimalPattern, editionIds, luminaireUses, strategyKeys, unitSystems, zoneKinds, type RequirementCode } from './editions.js';
+import { additionalAllowanceKinds, complianceMethods, decimalPattern, editionIds, exteriorExemptionReasons, luminaireUses, strategyKeys, unitSystems, zoneKinds, type RequirementCode } from './editions.js';
 
 /**
  * The evaluation result: one schema, read by the service (its types, the served API description,
@@ -65,7 +65,7 @@ const space = z.strictObject({
   /** Space type (space-by-space) or building area type (building area method) whose LPD applies. */
   lpdBasis: z.strictObject({ kind: z.enum(['space-type', 'building-area-type']), key: z.string(), label: z.string() }),
   allowanceW: decimal,
-  /** The part of allowanceW that is an additional allowance actually used by display lighting. */
+  /** The part of allowanceW that is additional allowances actually used: by display lighting (retail display) and by decorative lighting (decorative). */
   additionalAllowanceW: decimal,
   installedW: decimal,
   generalW: decimal,
@@ -106,11 +106,30 @@ const space = z.strictObject({
 });
 
 const additional = z.strictObject({
-  lines: z.array(z.strictObject({ allowance: z.string(), label: z.string(), spaceId: z.string(), area: decimal, claimedW: decimal, section: z.string() })),
-  /** The edition's fixed adder (once per building), where one is stated. */
+  lines: z.array(
+    z.strictObject({
+      allowance: z.string(),
+      kind: z.enum(additionalAllowanceKinds),
+      label: z.string(),
+      spaceId: z.string(),
+      area: decimal,
+      claimedW: decimal,
+      /**
+       * What of the claim the space's own luminaires of this kind use (display for retail display,
+       * decorative for decorative): the rest is lost, never traded to other lighting.
+       */
+      usableW: decimal,
+      /** Why the usable part is less than the claim, in words; null when the claim is used whole. */
+      limitedBy: z.string().nullable(),
+      section: z.string(),
+    }),
+  ),
+  /** The edition's fixed adder (once per building), where one is stated (retail display only). */
   fixedW: decimal,
   claimedW: decimal,
   displayW: decimal,
+  /** Decorative watts of the spaces with a decorative claim. */
+  decorativeW: decimal,
   usableW: decimal,
 });
 
@@ -123,7 +142,11 @@ const exteriorApplication = z.strictObject({
   quantity: decimal,
   rate: decimal,
   allowanceW: decimal,
+  /** Installed watts counted against the allowance: the exempt part is left out. */
   installedW: decimal,
+  /** The part of the application's lighting exempt from the allowance, with the reason. */
+  exemptW: decimal,
+  exemption: z.strictObject({ reason: z.enum(exteriorExemptionReasons), label: z.string(), note: z.string(), section: z.string(), verified: z.boolean() }).nullable(),
   /**
    * Nontradable: the base site allowance used to cover this application's excess. The margin is what
    * is left (negative: the excess); a tradable application is judged in its pool, so its margin is
@@ -170,6 +193,8 @@ export const evaluationResultSchema = z.strictObject({
       baseSiteAllowanceW: decimal,
       allowanceW: decimal,
       installedW: decimal,
+      /** Exterior lighting exempt from the allowance, left out of installedW. */
+      exemptW: decimal,
       complies: z.boolean(),
       /** The tradable pool: its margin counts the base site allowance it uses, so "within" never shows beside a negative margin. */
       tradable: z.strictObject({ allowanceW: decimal, installedW: decimal, baseSiteUsedW: decimal, marginW: decimal, complies: z.boolean() }),

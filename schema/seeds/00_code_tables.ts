@@ -175,6 +175,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
         label: row.label,
         source_label: row.sourceLabel,
         kind: row.kind,
+        section: row.section ?? null,
         lpd_w_per_ft2: row.lpdWPerFt2,
         fixed_w: row.fixedW,
         ...provenanceColumns(row),

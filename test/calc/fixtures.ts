@@ -237,6 +237,8 @@ export const ashrae2022: EditionData = {
     // 90.1-2022 §9.5.2.2(b): 750 W + 0.40/0.40/0.70/1.00 W/ft² (pnnl/ruleset-checking-tool section6rule12.py; [S]).
     { key: 'retail-area-1', label: 'Retail area 1', kind: 'retail-display', lpdWPerFt2: '0.40', fixedW: '750', provenance: sourced('ASHRAE 90.1-2022 §9.5.2.2(b), via pnnl/ruleset-checking-tool') },
     { key: 'retail-area-3', label: 'Retail area 3', kind: 'retail-display', lpdWPerFt2: '0.70', fixedW: '750', provenance: sourced('ASHRAE 90.1-2022 §9.5.2.2(b), via pnnl/ruleset-checking-tool') },
+    // 90.1-2022 §9.5.2.2(a) decorative appearance: 0.75 W/ft² from memory (not in shared/reference-data).
+    { key: 'decorative', label: 'Decorative lighting', kind: 'decorative', section: '9.5.2.2(a)', lpdWPerFt2: '0.75', provenance: fromMemory('decorative allowance rate from memory') },
   ],
   rules: { ...ashrae2019.rules, daylight: ashraeDaylight('90.1-2022') },
 };

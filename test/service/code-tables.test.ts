@@ -200,6 +200,7 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
         label: row.label,
         sourceLabel: row.sourceLabel,
         kind: row.kind,
+        section: row.section ?? null,
         lpdWPerFt2: row.lpdWPerFt2,
         fixedW: row.fixedW,
         ...provenance(row),

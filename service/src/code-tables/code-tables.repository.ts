@@ -1,4 +1,5 @@
 import type { Database } from '../db/database.js';
+import type { AdditionalAllowanceKind } from '../../../contract/editions.js';
 import type {
   AdditionalAllowance,
   Amendment,
@@ -114,7 +115,8 @@ export interface AdditionalAllowanceView extends RowProvenance {
   key: string;
   label: string;
   sourceLabel: string;
-  kind: 'retail-display';
+  kind: AdditionalAllowanceKind;
+  section: string | null;
   lpdWPerFt2: string;
   fixedW: string | null;
 }
@@ -347,9 +349,11 @@ export async function listAdditionalAllowances(db: Database, version: EditionVer
     label: row.label,
     sourceLabel: row.source_label,
     kind: row.kind,
+    section: row.section,
     lpdWPerFt2: row.lpd_w_per_ft2,
     fixedW: row.fixed_w,
-    ...provenanceOf(row, context, reference(context, row.note, 'additionalAllowances')),
+    // A row stating its own section (the decorative allowance, item (a)) is cited by it.
+    ...provenanceOf(row, context, row.section ? referenceOf(row.note, row.section) : reference(context, row.note, 'additionalAllowances')),
   }));
 }
 
@@ -541,6 +545,7 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
         key: row.key,
         label: row.label,
         kind: row.kind,
+        ...(row.section !== null ? { section: row.section } : {}),
         lpdWPerFt2: row.lpdWPerFt2,
         ...(row.fixedW !== null ? { fixedW: row.fixedW } : {}),
         provenance: contractProvenance(row),

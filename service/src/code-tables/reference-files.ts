@@ -4,7 +4,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
 import { strategyKeys, type EditionId } from '../compliance/edition-data.js';
-import { decimalPattern } from '../../../contract/editions.js';
+import { additionalAllowanceKinds, decimalPattern } from '../../../contract/editions.js';
 
 /** Reads and checks the files under `reference/`: the seed loads them, the tests compare against them. */
 
@@ -113,7 +113,9 @@ export const additionalAllowanceRow = z.object({
   key: z.string(),
   label: z.string(),
   sourceLabel: z.string(),
-  kind: z.literal('retail-display'),
+  kind: z.enum(additionalAllowanceKinds),
+  /** The section that states this allowance, where it is not the edition's section for additional allowances. */
+  section: z.string().optional(),
   lpdWPerFt2: decimal,
   fixedW: decimal.nullable(),
   ...provenance,

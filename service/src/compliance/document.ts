@@ -5,6 +5,7 @@ import { areaToSquareFeet, areaWords, lengthToFeet, lengthWords } from './units.
 import { boundedDecimal, decimalField, distinctKeys, documentLimits, listLimit, maxAmendments, ranges, textField, textLimits } from './bounds.js';
 import { lpdFormulaProblems } from './lpd-formula.js';
 import { type Dec, dec } from './numbers.js';
+import { exteriorExemptionReasons, exteriorExemptions } from '../../../contract/editions.js';
 
 /**
  * The project document an evaluation reads. Numbers arrive as decimal strings or JSON numbers and
@@ -134,6 +135,10 @@ export const exteriorApplicationEntrySchema = fields({
   /** ft² (m²), linear ft (m) or a count, as the application's unit says. */
   quantity: decimalField(ranges.exteriorQuantity),
   installedWatts: decimalField(ranges.exteriorWatts),
+  /** The part of installedWatts the code exempts from the exterior allowance (with its reason). */
+  exemptWatts: decimalField(ranges.exteriorWatts).optional(),
+  exemptReason: z.enum(exteriorExemptionReasons, { error: 'Choose the reason from the list.' }).optional(),
+  exemptNote: note.optional(),
   controls: z.array(controlSchema).max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls on one application')).default([]),
 });
 
@@ -176,6 +181,7 @@ export type Space = EvaluationDocument['spaces'][number];
 export type ProvidedControl = Space['controls'][number];
 export type WindowOpening = Space['windows'][number];
 export type Skylight = Space['skylights'][number];
+export type ExteriorApplicationEntry = NonNullable<EvaluationDocument['exterior']>['applications'][number];
 
 export interface DocumentProblem {
   path: string;
@@ -356,6 +362,7 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       else if (application.isBaseSiteAllowance) add(`${path}.key`, 'The base site allowance is added by the lighting zone; do not list it.');
       if (seen.has(applicationKey)) add(`${path}.key`, `Exterior application "${applicationKey}" is listed more than once.`);
       seen.add(applicationKey);
+      for (const problem of exteriorExemptionProblems(entry, edition)) add(`${path}.${problem.path}`, problem.message);
       controlProblems(entry['controls'], `${path}.controls`, strategies, edition, add);
     });
   }
@@ -369,7 +376,7 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
 
   const retail = doc['retailDisplay'];
   if (retail !== undefined) {
-    const allowances = new Set(edition.additionalAllowances.map((allowance) => allowance.key));
+    const allowances = new Map(edition.additionalAllowances.map((allowance) => [allowance.key, allowance]));
     const claimedPairs = new Set<string>();
     list(record(retail)['claims']).forEach((claim, index) => {
       const path = `retailDisplay.claims.${index}`;
@@ -380,8 +387,8 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       if (spaceId !== undefined && !spaceIds.has(spaceId)) add(`${path}.spaceId`, `No space has the id "${spaceId}".`);
       const space = spaceId === undefined ? undefined : spacesById.get(spaceId);
       if (space !== undefined && method === 'space-by-space') {
-        // The retail display allowance is for lighting on a sales floor (90.1 §9.6.2(b), IECC C405.3.2.2.1).
-        if (word(space['spaceType']) !== salesAreaSpaceType) add(`${path}.spaceId`, `“${word(space['name']) ?? spaceId}” is not a sales area; the display allowance is for sales floors.`);
+        // The retail display allowance is for lighting on a sales floor (90.1 §9.6.2(b), IECC C405.3.2.2.1); the decorative one is for any space.
+        if (allowances.get(allowance ?? '')?.kind === 'retail-display' && word(space['spaceType']) !== salesAreaSpaceType) add(`${path}.spaceId`, `“${word(space['name']) ?? spaceId}” is not a sales area; the display allowance is for sales floors.`);
         const claimArea = decimalOrNull(claim['area']);
         const spaceArea = decimalOrNull(space['area']);
         if (claimArea !== null && spaceArea !== null && claimArea.greaterThan(spaceArea)) add(`${path}.area`, `The claimed area is larger than the space (${spaceArea.toFixed()}).`);
@@ -440,6 +447,38 @@ function controlProblems(
     seen.add(strategy);
     for (const problem of exceptionProblems(control)) add(`${path}.${index}.${problem.path}`, problem.message);
   });
+}
+
+/**
+ * The rules of an exterior application's exempt part, its fields' paths relative to the
+ * application: exempt watts need a reason of the edition's list (as exempt interior lighting needs
+ * its reason), a reason needs the watts it covers, and the exempt part is at most what is installed.
+ * Every write of an application passes them.
+ */
+export function exteriorExemptionProblems(entry: Record<string, unknown>, edition: Pick<EditionData, 'family' | 'title'>): DocumentProblem[] {
+  const problems: DocumentProblem[] = [];
+  const exempt = exteriorWattsOrNull(entry['exemptWatts']);
+  const installed = exteriorWattsOrNull(entry['installedWatts']);
+  const reason = word(entry['exemptReason']);
+  if (exempt !== null && exempt.greaterThan(0) && reason === undefined) {
+    problems.push({ path: 'exemptReason', message: 'Exempt lighting needs the reason it is exempt: choose it from the list.' });
+  }
+  if (reason !== undefined && (exempt === null || exempt.isZero())) {
+    problems.push({ path: 'exemptWatts', message: 'Give the watts of the exempt lighting, or clear the reason.' });
+  }
+  if (reason !== undefined && (exteriorExemptionReasons as readonly string[]).includes(reason) && !exteriorExemptions[edition.family].some((exemption) => exemption.reason === reason)) {
+    problems.push({ path: 'exemptReason', message: `${edition.title} does not list this exemption; choose another reason.` });
+  }
+  if (exempt !== null && installed !== null && exempt.greaterThan(installed)) {
+    problems.push({ path: 'exemptWatts', message: 'The exempt watts are part of the installed watts, so they cannot be more.' });
+  }
+  return problems;
+}
+
+function exteriorWattsOrNull(value: unknown): Dec | null {
+  if (typeof value !== 'string' && typeof value !== 'number') return null;
+  const checked = boundedDecimal(value, ranges.exteriorWatts);
+  return checked.ok ? dec(checked.value) : null;
 }
 
 /**

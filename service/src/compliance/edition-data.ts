@@ -1,4 +1,4 @@
-import type { EditionId, RequirementCode, StrategyKey } from '../../../contract/editions.js';
+import type { AdditionalAllowanceKind, EditionId, RequirementCode, StrategyKey } from '../../../contract/editions.js';
 import type { Citation } from './citation.js';
 
 export { editionIds, strategyKeys, type EditionId, type RequirementCode, type StrategyKey } from '../../../contract/editions.js';
@@ -127,7 +127,9 @@ export interface LightingZone {
 export interface AdditionalAllowance {
   key: string;
   label: string;
-  kind: 'retail-display';
+  kind: AdditionalAllowanceKind;
+  /** The section that states this allowance, where it is not the edition's section for additional allowances. */
+  section?: string;
   /** W/ft² of the qualifying area. */
   lpdWPerFt2: string;
   /** A fixed wattage added once per building where the edition states one. */

@@ -4,6 +4,7 @@ import { type Citation, citationOf, editionName } from './citation.js';
 import type { EditionData, Provenance, SpaceType } from './edition-data.js';
 import { amendedEdition } from './amendments.js';
 import { evaluateExterior } from './exterior.js';
+import { exteriorExemptionsNote } from '../../../contract/editions.js';
 import { type RoomPlan, daylightAreas, rectangularRoomCavityRatio } from './geometry.js';
 import { unitWattage } from './installed.js';
 import { spaceTypeLpd } from './lpd-formula.js';
@@ -80,6 +81,33 @@ class Unverified {
   private keep(what: string, citation: Citation, key = what): void {
     this.seen.set(key, { id: key, what, source: citation.short, note: citation.note ?? citation.short, citation });
   }
+}
+
+interface ClaimLine {
+  claimed: Dec;
+  section: string;
+  usable: Dec;
+  limitedBy: string | null;
+}
+
+/**
+ * The part of a space's claims of one kind its own luminaires of that kind use: the smaller of
+ * the claims and those luminaires' watts, shared out to the claims in their order. Each claim
+ * keeps its usable part and, where less than the claim, why.
+ */
+function usedBy(lines: ClaimLine[], luminaireWatts: Dec, use: 'display' | 'decorative', editionTitle: string): Dec {
+  let left = luminaireWatts;
+  for (const line of lines) {
+    line.usable = min(line.claimed, left);
+    left = left.minus(line.usable);
+    if (line.usable.lessThan(line.claimed)) {
+      const lost = `it cannot be traded to other lighting (${editionTitle} §${line.section})`;
+      line.limitedBy = line.usable.isZero()
+        ? `The space has no ${use} luminaires left to use this allowance, so none of it is counted: ${lost}.`
+        : `Only ${reported.watts(line.usable)} W of it is used by the space’s ${use} luminaires; the rest is lost: ${lost}.`;
+    }
+  }
+  return sum(lines.map((line) => line.usable));
 }
 
 function comparesAt(value: Dec, threshold: Dec, comparison: 'at-least' | 'more-than'): boolean {
@@ -287,14 +315,15 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
   const spaceBySpace = document.method === 'space-by-space';
   const allowanceSection = edition.sections[spaceBySpace ? 'spaceBySpaceMethod' : 'buildingAreaMethod'] ?? '';
 
-  // Additional allowances (space-by-space only): what each space claims, capped later by its display watts.
+  // Additional allowances (space-by-space only): what each space claims, capped later by the watts of its own luminaires of that kind.
   const additionalCatalogue = new Map(edition.additionalAllowances.map((allowance) => [allowance.key, allowance]));
   const claims = document.retailDisplay?.claims ?? [];
   const claimLines = claims.map((claim) => {
     const allowance = additionalCatalogue.get(claim.allowance)!;
-    unverified.add(`Additional allowance: ${allowance.label}`, allowance.provenance, edition.sections['additionalAllowances'] ?? '');
+    const section = allowance.section ?? edition.sections['additionalAllowances'] ?? '';
+    unverified.add(`Additional allowance: ${allowance.label}`, allowance.provenance, section);
     const areaFt2 = areaToSquareFeet(dec(claim.area), units);
-    return { claim, allowance, claimed: dec(allowance.lpdWPerFt2).times(areaFt2) };
+    return { claim, allowance, section, claimed: dec(allowance.lpdWPerFt2).times(areaFt2), usable: ZERO, limitedBy: null as string | null };
   });
 
   const spaces: (SpaceResult & { allowance: Dec; installed: Dec; areaFt2: Dec; uncoveredDisplay: Dec; exact: { exempt: Dec; decorative: Dec; display: Dec; additional: Dec } })[] = document.spaces.map((space) => {
@@ -357,8 +386,14 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       cautions.push(`“${space.name}” has no luminaires entered: enter them, or confirm the space is unlit. Until then there is no verdict.`);
     }
     const own = claimLines.filter((line) => line.claim.spaceId === space.id);
-    const claimed = sum(own.map((line) => line.claimed));
-    const additional = min(claimed, watts.display);
+    const retailOwn = own.filter((line) => line.allowance.kind === 'retail-display');
+    const decorativeOwn = own.filter((line) => line.allowance.kind === 'decorative');
+    // Each additional allowance is usable only by the space's own luminaires it is for, so what they
+    // do not use is lost, never traded to the space's other lighting or to other spaces
+    // (90.1 §9.6.2, from memory: the added power serves only the luminaires it is granted for).
+    const retailUsable = usedBy(retailOwn, watts.display, 'display', name);
+    const decorativeUsable = usedBy(decorativeOwn, watts.decorative, 'decorative', name);
+    const additional = retailUsable.plus(decorativeUsable);
     const allowance = allowedLpd.times(areaFt2).plus(additional);
     const installed = watts.general.plus(watts.decorative).plus(watts.display);
     const margin = allowance.minus(installed);
@@ -438,35 +473,41 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       installed,
       areaFt2,
       exact: { exempt: watts.exemptW, decorative: watts.decorative, display: watts.display, additional },
-      uncoveredDisplay: own.length > 0 ? watts.display.minus(additional) : ZERO,
+      uncoveredDisplay: retailOwn.length > 0 ? watts.display.minus(retailUsable) : ZERO,
     };
   });
 
   let additional: AdditionalAllowanceResult | null = null;
   let fixedUsable = ZERO;
   if (claimLines.length > 0) {
-    const fixed = claimLines.reduce((largest, line) => {
+    const retailLines = claimLines.filter((line) => line.allowance.kind === 'retail-display');
+    const fixed = retailLines.reduce((largest, line) => {
       const value = dec(line.allowance.fixedW ?? '0');
       return value.greaterThan(largest) ? value : largest;
     }, ZERO);
     fixedUsable = min(fixed, sum(spaces.map((space) => space.uncoveredDisplay)));
-    if (claimLines.every((line) => line.allowance.fixedW === undefined)) {
+    if (retailLines.length > 0 && retailLines.every((line) => line.allowance.fixedW === undefined)) {
       unverified.unsettled('Retail display fixed adder', edition.sections['additionalAllowances'] ?? '', 'This edition’s fixed wattage added once per building to the retail display allowance was not found; none is counted, which can only understate the allowance.');
     }
-    const claimedSpaces = new Set(claims.map((claim) => claim.spaceId));
+    const claimedSpaces = new Set(retailLines.map((line) => line.claim.spaceId));
+    const decorativeSpaces = new Set(claimLines.filter((line) => line.allowance.kind === 'decorative').map((line) => line.claim.spaceId));
     const claimed = sum(claimLines.map((line) => line.claimed)).plus(fixed);
     additional = {
       lines: claimLines.map((line) => ({
         allowance: line.allowance.key,
+        kind: line.allowance.kind,
         label: line.allowance.label,
         spaceId: line.claim.spaceId,
         area: line.claim.area,
         claimedW: reported.watts(line.claimed),
-        section: edition.sections['additionalAllowances'] ?? '',
+        usableW: reported.watts(line.usable),
+        limitedBy: line.limitedBy,
+        section: line.section,
       })),
       fixedW: reported.watts(fixed),
       claimedW: reported.watts(claimed),
       displayW: reported.watts(sum(spaces.filter((space) => claimedSpaces.has(space.id)).map((space) => space.exact.display))),
+      decorativeW: reported.watts(sum(spaces.filter((space) => decorativeSpaces.has(space.id)).map((space) => space.exact.decorative))),
       usableW: reported.watts(sum(spaces.map((space) => space.exact.additional)).plus(fixedUsable)),
     };
   }
@@ -503,6 +544,8 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     for (const entry of document.exterior!.applications) {
       const application = edition.exteriorApplications.find((candidate) => candidate.key === entry.key)!;
       unverified.add(`Exterior allowance: ${application.label}`, application.provenance, exteriorSection);
+      const exempt = exterior.applications.find((line) => line.key === entry.key)?.exemption;
+      if (exempt) unverified.unsettled(`Exterior exemption: ${exempt.label}`, exempt.section, exteriorExemptionsNote);
       if (application.unverifiedZones?.includes(exterior.lightingZone)) {
         unverified.unsettled(`Exterior allowance: ${application.label}, zone ${exterior.lightingZone}`, exteriorSection, `The allowance for lighting zone ${exterior.lightingZone} is not the published table as it stands: ${application.provenance.note ?? 'verify it'}`);
       }

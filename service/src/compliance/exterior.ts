@@ -1,7 +1,8 @@
 import { type ControlRequirement, resolveControls } from './controls.js';
-import type { EvaluationDocument } from './document.js';
+import type { EvaluationDocument, ExteriorApplicationEntry } from './document.js';
 import type { EditionData, ExteriorApplication } from './edition-data.js';
 import { strategyKeys } from './edition-data.js';
+import { exteriorExemptions } from '../../../contract/editions.js';
 import { type Dec, ZERO, dec, min, reported, sum, text } from './numbers.js';
 import type { ExteriorApplicationResult, ExteriorResult } from './result.js';
 import { type UnitSystem, areaToSquareFeet, densityFromPerSquareFoot, lengthToFeet, linearDensityFromPerFoot } from './units.js';
@@ -16,6 +17,14 @@ function rateInDocumentUnits(application: ExteriorApplication, rate: Dec, units:
   if (application.unit === 'W/ft2') return { rate: densityFromPerSquareFoot(rate, units), unit: units === 'ip' ? 'W/ft²' : 'W/m²' };
   if (application.unit === 'W/ft') return { rate: linearDensityFromPerFoot(rate, units), unit: units === 'ip' ? 'W/ft' : 'W/m' };
   return { rate, unit: application.unit };
+}
+
+/** The reason, words and section of an application's exempt part (the edition family's list, from memory). */
+function exemptionOf(entry: ExteriorApplicationEntry, edition: EditionData): ExteriorApplicationResult['exemption'] {
+  if (entry.exemptReason === undefined) return null;
+  const listed = exteriorExemptions[edition.family].find((exemption) => exemption.reason === entry.exemptReason)!;
+  // Every family's list is from memory until a reference table replaces it.
+  return { reason: listed.reason, label: listed.label, note: entry.exemptNote ?? '', section: listed.section, verified: false };
 }
 
 /**
@@ -35,7 +44,9 @@ export function evaluateExterior(exterior: NonNullable<EvaluationDocument['exter
     const tableRate = dec(application.allowanceByZone[zone] ?? '0');
     const quantity = dec(entry.quantity);
     const allowance = tableRate.times(quantityInTableUnits(application, quantity, units));
-    return { entry, application, tableRate, quantity, allowance, installed: dec(entry.installedWatts) };
+    // Exempt lighting is reported but left out of what the allowance must cover.
+    const exempt = entry.exemptReason === undefined ? ZERO : dec(entry.exemptWatts ?? '0');
+    return { entry, application, tableRate, quantity, allowance, exempt, installed: dec(entry.installedWatts).minus(exempt) };
   });
 
   const tradable = priced.filter((line) => line.application.tradable);
@@ -72,6 +83,8 @@ export function evaluateExterior(exterior: NonNullable<EvaluationDocument['exter
       rate: reported.density(shown.rate),
       allowanceW: reported.watts(line.allowance),
       installedW: reported.watts(line.installed),
+      exemptW: reported.watts(line.exempt),
+      exemption: exemptionOf(line.entry, edition),
       baseSiteUsedW: reported.watts(baseUsed),
       marginW: reported.watts(line.allowance.plus(baseUsed).minus(line.installed)),
       withinAllowance: within,
@@ -88,6 +101,7 @@ export function evaluateExterior(exterior: NonNullable<EvaluationDocument['exter
     baseSiteAllowanceW: reported.watts(baseSiteW),
     allowanceW: reported.watts(allowance),
     installedW: reported.watts(installed),
+    exemptW: reported.watts(sum(priced.map((line) => line.exempt))),
     complies: applications.every((application) => application.withinAllowance) && tradableComplies,
     tradable: {
       allowanceW: reported.watts(tradableAllowance),

@@ -616,6 +616,9 @@ interface ExteriorRow extends VersionedRow {
   description: string;
   quantity: string;
   installed_watts: string;
+  exempt_watts: string | null;
+  exempt_reason: ExteriorApplicationInput['exemptReason'] | null;
+  exempt_note: string | null;
   controls: ExteriorApplicationInput['controls'];
   unit_origin: UnitOrigin | null;
   updated_by_name?: string | null;
@@ -630,13 +633,25 @@ function exteriorRecord(row: ExteriorRow): ExteriorApplicationRecord {
     description: row.description,
     quantity: decimal(row.quantity)!,
     installedWatts: decimal(row.installed_watts)!,
+    ...(row.exempt_reason !== null ? { exemptWatts: decimal(row.exempt_watts)!, exemptReason: row.exempt_reason } : {}),
+    ...(row.exempt_note !== null ? { exemptNote: row.exempt_note } : {}),
     controls: row.controls,
     ...stamp(row),
   };
 }
 
 function exteriorColumns(input: ExteriorApplicationInput): Record<string, unknown> {
-  return { application_key: input.key, description: input.description, quantity: input.quantity, installed_watts: input.installedWatts, controls: JSON.stringify(input.controls) };
+  return {
+    application_key: input.key,
+    description: input.description,
+    quantity: input.quantity,
+    installed_watts: input.installedWatts,
+    // The exempt part is kept only with its reason (the writes refuse one without the other).
+    exempt_watts: input.exemptReason === undefined ? null : (input.exemptWatts ?? null),
+    exempt_reason: input.exemptReason ?? null,
+    exempt_note: input.exemptReason === undefined ? null : (input.exemptNote ?? null),
+    controls: JSON.stringify(input.controls),
+  };
 }
 
 export async function listExteriorApplications(db: Knex, projectId: string): Promise<ExteriorApplicationRecord[]> {

@@ -127,12 +127,12 @@ export function designRouter(db: Database): Router {
   });
   router.post('/exterior-applications', edit, async (req, res) => {
     const input = parse(exteriorApplicationInputSchema, req.body);
-    await assertExteriorApplicationFitsEdition(db, projectId(req), input.key);
+    await assertExteriorApplicationFitsEdition(db, projectId(req), input);
     res.status(201).json(await createExteriorApplication(db, projectId(req), input, userId(req)));
   });
   router.put('/exterior-applications/:applicationId', edit, async (req, res) => {
     const { version, ...input } = parse(exteriorApplicationWriteSchema, req.body);
-    await assertExteriorApplicationFitsEdition(db, projectId(req), input.key);
+    await assertExteriorApplicationFitsEdition(db, projectId(req), input);
     res.json(await replaceExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, input, userId(req)));
   });
   router.delete('/exterior-applications/:applicationId', edit, async (req, res) => {

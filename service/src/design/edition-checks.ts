@@ -1,10 +1,10 @@
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
-import { exceptionProblems, salesAreaSpaceType } from '../compliance/document.js';
+import { exceptionProblems, exteriorExemptionProblems, salesAreaSpaceType } from '../compliance/document.js';
 import { validateDocument, type EditionData } from '../compliance/index.js';
 import type { Database } from '../db/database.js';
 import { AppError, type ErrorDetail } from '../http/app-error.js';
 import { listLuminaireTypes } from './design.repository.js';
-import type { LuminaireTypeInput, SpaceInput } from './design.schema.js';
+import type { ExteriorApplicationInput, LuminaireTypeInput, SpaceInput } from './design.schema.js';
 
 /**
  * Checks spaces about to be stored against the project's edition and method with the same rules
@@ -41,17 +41,20 @@ export async function assertSpacesFitEdition(db: Database, projectId: string, sp
 
 /**
  * An exterior application must be one of the edition's own, and not the base site allowance (the
- * lighting zone adds that): an unknown key would make the project impossible to evaluate.
+ * lighting zone adds that): an unknown key would make the project impossible to evaluate. An exempt
+ * part needs its reason from the edition's list, and is at most the installed watts.
  */
-export async function assertExteriorApplicationFitsEdition(db: Database, projectId: string, key: string): Promise<void> {
+export async function assertExteriorApplicationFitsEdition(db: Database, projectId: string, input: ExteriorApplicationInput): Promise<void> {
   const edition = await projectEdition(db, projectId);
-  const application = edition.exteriorApplications.find((candidate) => candidate.key === key);
+  const application = edition.exteriorApplications.find((candidate) => candidate.key === input.key);
   if (!application) {
     throw AppError.badRequest('This exterior application is not one of the project’s code edition.', [{ path: 'key', message: 'Choose an application from the edition’s list.' }]);
   }
   if (application.isBaseSiteAllowance) {
     throw AppError.badRequest('The base site allowance comes with the lighting zone; it is not entered as an application.', [{ path: 'key', message: 'Choose another application.' }]);
   }
+  const problems = exteriorExemptionProblems(input, edition);
+  if (problems.length > 0) throw AppError.badRequest('The exempt lighting is not complete.', problems);
 }
 
 async function projectEdition(db: Database, projectId: string): Promise<EditionData> {
@@ -85,8 +88,8 @@ export async function assertAliasesFitEdition(db: Database, projectId: string, a
 }
 
 /**
- * An additional-allowance claim: one of the edition's allowances, under the space-by-space method,
- * on a space whose type is the sales area (90.1 §9.6.2(b), IECC C405.3.2.2.1).
+ * An additional-allowance claim: one of the edition's allowances, under the space-by-space method;
+ * a retail display claim on a space whose type is the sales area (90.1 §9.6.2(b), IECC C405.3.2.2.1).
  */
 export async function assertAllowanceFitsEdition(db: Database, projectId: string, input: { spaceId: string; allowance: string }): Promise<void> {
   const edition = await projectEdition(db, projectId);
@@ -94,9 +97,12 @@ export async function assertAllowanceFitsEdition(db: Database, projectId: string
   if (project?.method !== 'space-by-space') {
     throw AppError.badRequest('Additional allowances are part of the space-by-space method.', [{ path: 'allowance', message: 'Switch the project to the space-by-space method first.' }]);
   }
-  if (!edition.additionalAllowances.some((allowance) => allowance.key === input.allowance)) {
+  const allowance = edition.additionalAllowances.find((candidate) => candidate.key === input.allowance);
+  if (!allowance) {
     throw AppError.badRequest('This allowance is not one of the project’s code edition.', [{ path: 'allowance', message: 'Choose an allowance from the edition’s list.' }]);
   }
+  // The decorative allowance is for any space (90.1 §9.6.2(a)); only retail display needs a sales floor.
+  if (allowance.kind !== 'retail-display') return;
   const space = await db('spaces').where({ id: input.spaceId, project_id: projectId }).first<{ space_type: string | null } | undefined>('space_type');
   if (space && space.space_type !== salesAreaSpaceType) {
     throw AppError.badRequest('The display allowance is for sales floors.', [{ path: 'spaceId', message: 'Choose a space whose type is the sales area.' }]);

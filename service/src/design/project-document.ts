@@ -46,7 +46,7 @@ export async function projectDocument(db: Knex, projectId: string): Promise<Eval
   if (project.lighting_zone !== null || exterior.length > 0) {
     document.exterior = {
       lightingZone: String(project.lighting_zone ?? ''),
-      applications: exterior.map((application) => ({ key: application.key, quantity: application.quantity, installedWatts: application.installedWatts, controls: application.controls })),
+      applications: exterior.map(({ key, quantity, installedWatts, exemptWatts, exemptReason, exemptNote, controls }) => defined({ key, quantity, installedWatts, exemptWatts, exemptReason, exemptNote, controls })),
     };
   }
   if (project.amendments.length > 0) document.amendments = project.amendments;

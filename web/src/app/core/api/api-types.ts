@@ -3,10 +3,10 @@
  * exact decimal string; the app formats for display and never does arithmetic on floats it sends back.
  */
 
-import type { ComplianceMethod, EditionId, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
+import type { AdditionalAllowanceKind, ComplianceMethod, EditionId, ExteriorExemptionReason, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
 import type { Citation, ControlStatus, Verdict } from '../../../../../contract/result';
 
-export type { ComplianceMethod, EditionId, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
+export type { AdditionalAllowanceKind, ComplianceMethod, EditionId, ExteriorExemptionReason, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
 export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
 export type ProjectState = 'draft' | 'in-review' | 'returned' | 'accepted' | 'issued';
 export type WattageBasis = 'rated' | 'line-voltage-track' | 'low-voltage-track' | 'current-limited';
@@ -190,6 +190,10 @@ export interface ExteriorApplicationInput {
   description: string;
   quantity: string;
   installedWatts: string;
+  /** The part of installedWatts exempt from the allowance, with the reason from the edition's list and a note. */
+  exemptWatts?: string;
+  exemptReason?: ExteriorExemptionReason;
+  exemptNote?: string;
   controls: ProvidedControl[];
 }
 
@@ -342,7 +346,9 @@ export interface AdditionalAllowanceView extends RowProvenance {
   key: string;
   label: string;
   sourceLabel: string;
-  kind: 'retail-display';
+  kind: AdditionalAllowanceKind;
+  /** The section stating this allowance where it is not the edition's section for additional allowances (decorative: item (a)). */
+  section: string | null;
   lpdWPerFt2: string;
   /** Added once per building where the edition states one (90.1-2022: 750 W). */
   fixedW: string | null;

@@ -28,8 +28,9 @@ import { AllowancesApi, type AllowanceClaimInput } from './allowances-api';
 import { claimAreaValidator, claimLines, salesFloorType, usageWords, type ClaimLine } from './claim-lines';
 
 /**
- * Each sales floor's claims on the edition's additional allowances (retail display), with the rate
- * and source of each, and what the evaluation lets the space use: they cover display lighting only.
+ * Each space's claims on the edition's additional allowances (retail display on a sales floor,
+ * decorative on any space where the edition offers it), with the rate and source of each, and what
+ * the evaluation lets the space use: each covers only the luminaires it is for.
  */
 @Component({
   selector: 'al-allowances-page',
@@ -91,16 +92,22 @@ export class AllowancesPage implements HasUnsavedChanges {
   });
 
   protected readonly salesFloors = computed(() => this.store.spaces().filter((space) => space.spaceType === salesFloorType));
-  /** Claims on spaces that are no longer sales floors: the evaluation refuses them until they are removed. */
+  /** The edition offers an allowance for decorative lighting (90.1; not the IECC), which any space may claim. */
+  protected readonly offersDecorative = computed(() => this.catalogue().some((allowance) => allowance.kind === 'decorative'));
+  /** The spaces that may claim something: every space where decorative lighting may be claimed, else the sales floors. */
+  protected readonly claimable = computed(() => (this.offersDecorative() ? this.store.spaces() : this.salesFloors()));
+  /** Claims the evaluation refuses until they are removed: any under the building area method, a retail display one off a sales floor. */
   protected readonly strayClaims = computed(() => {
     const sales = new Set(this.salesFloors().map((space) => space.id));
     const names = new Map(this.store.spaces().map((space) => [space.id, space.name]));
-    return (this.claims() ?? []).filter((claim) => !this.spaceBySpace() || !sales.has(claim.spaceId)).map((claim) => ({ claim, spaceName: names.get(claim.spaceId) ?? 'A deleted space', label: this.allowanceLabel(claim.allowance) }));
+    return (this.claims() ?? [])
+      .filter((claim) => !this.spaceBySpace() || (this.kindOf(claim.allowance) !== 'decorative' && !sales.has(claim.spaceId)))
+      .map((claim) => ({ claim, spaceName: names.get(claim.spaceId) ?? 'A deleted space', label: this.allowanceLabel(claim.allowance) }));
   });
 
   private readonly chosenId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
   protected readonly selected = computed<SpaceRecord | null>(() => {
-    const floors = this.salesFloors();
+    const floors = this.claimable();
     return floors.find((space) => space.id === this.chosenId()) ?? floors[0] ?? null;
   });
   protected readonly selectedResult = computed(() => {
@@ -118,18 +125,25 @@ export class AllowancesPage implements HasUnsavedChanges {
     return counts;
   });
 
-  /** The space's figures from the evaluation: display lighting, what its claims come to, and what they may use. */
+  /** The space's figures from the evaluation: display and decorative lighting, what its claims come to, and what they may use. */
   protected readonly usage = computed(() => {
     const result = this.selectedResult();
     if (!result) return null;
-    const claimed = this.lines().reduce((sum, line) => sum + Number(line.claimedW ?? 0), 0);
-    const used = Number(result.additionalAllowanceW);
-    const display = Number(result.displayW);
+    const lines = this.lines();
+    const total = (of: readonly ClaimLine[], field: 'claimedW' | 'usableW') => of.reduce((sum, line) => sum + Number(line[field] ?? 0), 0);
+    const watts = (value: number) => formatWatts(String(value));
+    const decorative = lines.filter((line) => line.allowance?.kind === 'decorative');
+    const display = lines.filter((line) => line.allowance?.kind !== 'decorative');
+    const words = [
+      ...(display.length > 0 ? [usageWords(total(display, 'claimedW'), total(display, 'usableW'), Number(result.displayW), watts, 'display')] : []),
+      ...(decorative.length > 0 ? [usageWords(total(decorative, 'claimedW'), total(decorative, 'usableW'), Number(result.decorativeW), watts, 'decorative')] : []),
+    ];
     return {
       displayW: result.displayW,
-      claimedW: String(claimed),
+      decorativeW: result.decorativeW,
+      claimedW: String(total(lines, 'claimedW')),
       usedW: result.additionalAllowanceW,
-      words: usageWords(claimed, used, display, (value) => formatWatts(String(value))),
+      words: words.length > 0 ? words.join(' ') : 'Nothing claimed yet.',
       status: allowanceStatus(result.withinAllowance, result.marginW, result.marginPct),
     };
   });
@@ -143,12 +157,16 @@ export class AllowancesPage implements HasUnsavedChanges {
     allowance: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
     area: new FormControl('', { nonNullable: true, validators: [Validators.required, claimAreaValidator(() => this.selected(), () => this.store.units())] }),
   });
-  /** Each allowance once per space: what is left to claim here (and the one being changed). */
+  /** Each allowance once per space: what is left to claim here (and the one being changed); retail display on a sales floor only. */
   protected readonly choices = computed(() => {
     const claimed = new Set(this.lines().map((line) => line.claim.allowance));
     const editing = this.editing()?.allowance;
-    return this.catalogue().filter((allowance) => !claimed.has(allowance.key) || allowance.key === editing);
+    const onSalesFloor = this.selected()?.spaceType === salesFloorType;
+    return this.catalogue().filter((allowance) => (onSalesFloor || allowance.kind === 'decorative') && (!claimed.has(allowance.key) || allowance.key === editing));
   });
+  /** The kind of the allowance chosen in the form, for the words of the area's hint. */
+  private readonly chosenAllowance = toSignal(this.form.controls.allowance.valueChanges, { initialValue: '' });
+  protected readonly claimsDecorative = computed(() => this.kindOf(this.chosenAllowance()) === 'decorative');
 
   constructor() {
     effect(() => {
@@ -185,6 +203,10 @@ export class AllowancesPage implements HasUnsavedChanges {
 
   protected rate(allowance: AdditionalAllowanceView | undefined): string {
     return allowance ? densityFigure(densityInUnits(allowance.lpdWPerFt2, this.store.units())) : '—';
+  }
+
+  private kindOf(key: string): AdditionalAllowanceView['kind'] | undefined {
+    return this.catalogue().find((allowance) => allowance.key === key)?.kind;
   }
 
   protected allowanceLabel(key: string): string {
@@ -258,10 +280,10 @@ export class AllowancesPage implements HasUnsavedChanges {
         this.claims.update((claims) => (claims ?? []).filter((other) => other.id !== claim.id));
         this.store.refreshResults();
         const words = `Claim on “${this.allowanceLabel(claim.allowance)}” removed`;
-        // Undo brings the claim back with its id; one the evaluation could not take (off a sales floor) is not offered back.
-        const onSalesFloor = this.spaceBySpace() && this.salesFloors().some((space) => space.id === claim.spaceId);
+        // Undo brings the claim back with its id; one the evaluation could not take (retail display off a sales floor) is not offered back.
+        const takeable = this.spaceBySpace() && (this.kindOf(claim.allowance) === 'decorative' || this.salesFloors().some((space) => space.id === claim.spaceId));
         this.snackBar
-          .open(words, onSalesFloor ? 'Undo' : undefined, { duration: 8000 })
+          .open(words, takeable ? 'Undo' : undefined, { duration: 8000 })
           .onAction()
           .subscribe(() =>
             this.api.restore(projectId, claim.id).subscribe({

@@ -7,16 +7,18 @@ import { claimAreaValidator, claimLines, usageWords } from './claim-lines';
 const allowance = { key: 'retail-area-3', label: 'Retail display, retail area 3', lpdWPerFt2: '1.05' } as AdditionalAllowanceView;
 const claim = (id: string, spaceId: string, key: string, area: string): AllowanceClaim => ({ id, spaceId, allowance: key, area, version: 1, updatedAt: '', updatedBy: null });
 const result = {
-  interior: { additional: { lines: [{ allowance: 'retail-area-3', label: '', spaceId: 's1', area: '800', claimedW: '840', section: 'C405.3.2.2.1' }] } },
+  interior: {
+    additional: { lines: [{ allowance: 'retail-area-3', kind: 'retail-display', label: '', spaceId: 's1', area: '800', claimedW: '840', usableW: '800', limitedBy: null, section: 'C405.3.2.2.1' }] },
+  },
 } as unknown as EvaluationResult;
 const watts = (value: number) => formatWatts(String(value));
 
 describe('a space’s claims on the additional allowances', () => {
   it('pairs each claim of the space with its allowance and what the evaluation counted', () => {
     const lines = claimLines('s1', [claim('c1', 's1', 'retail-area-3', '800'), claim('c2', 's2', 'retail-area-3', '100'), claim('c3', 's1', 'gone', '50')], [allowance], result);
-    expect(lines.map((line) => [line.claim.id, line.allowance?.label ?? null, line.claimedW])).toEqual([
-      ['c1', 'Retail display, retail area 3', '840'],
-      ['c3', null, null],
+    expect(lines.map((line) => [line.claim.id, line.allowance?.label ?? null, line.claimedW, line.usableW])).toEqual([
+      ['c1', 'Retail display, retail area 3', '840', '800'],
+      ['c3', null, null, null],
     ]);
   });
 
@@ -25,6 +27,11 @@ describe('a space’s claims on the additional allowances', () => {
     expect(usageWords(840, 840, 1000, watts)).toBe('All 840 W claimed is used, against 1,000 W of display lighting.');
     expect(usageWords(1050, 1000, 1000, watts)).toBe('1,000 W of the 1,050 W claimed is used: the display lighting here is 1,000 W, and the allowance covers display lighting only.');
     expect(usageWords(840, 0, 0, watts)).toContain('none used');
+  });
+
+  it('says the same of a decorative claim and the decorative lighting', () => {
+    expect(usageWords(300, 50, 50, watts, 'decorative')).toBe('50 W of the 300 W claimed is used: the decorative lighting here is 50 W, and the allowance covers decorative lighting only.');
+    expect(usageWords(150, 0, 0, watts, 'decorative')).toBe('150 W claimed, none used: no luminaire in this space is entered as decorative lighting, and the allowance covers decorative lighting only.');
   });
 
   it('takes at most the space’s floor area', () => {

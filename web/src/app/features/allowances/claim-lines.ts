@@ -10,8 +10,10 @@ export interface ClaimLine {
   claim: AllowanceClaim;
   /** Undefined when the edition no longer offers the allowance claimed. */
   allowance: AdditionalAllowanceView | undefined;
-  /** What the evaluation counted for the claim: rate × area, before the display lighting caps it. */
+  /** What the evaluation counted for the claim: rate × area, before the lighting it is for caps it. */
   claimedW: string | null;
+  /** What of it the space's display (retail display) or decorative (decorative) luminaires use. */
+  usableW: string | null;
 }
 
 /** A space's claims with the evaluation's figures for each. */
@@ -20,22 +22,22 @@ export function claimLines(spaceId: string, claims: readonly AllowanceClaim[], c
   const counted = result?.interior.additional?.lines ?? [];
   return claims
     .filter((claim) => claim.spaceId === spaceId)
-    .map((claim) => ({
-      claim,
-      allowance: byKey.get(claim.allowance),
-      claimedW: counted.find((line) => line.spaceId === spaceId && line.allowance === claim.allowance)?.claimedW ?? null,
-    }));
+    .map((claim) => {
+      const line = counted.find((candidate) => candidate.spaceId === spaceId && candidate.allowance === claim.allowance);
+      return { claim, allowance: byKey.get(claim.allowance), claimedW: line?.claimedW ?? null, usableW: line?.usableW ?? null };
+    });
 }
 
 /**
- * What the claims bring, in words: an additional allowance covers display lighting only, so a claim
- * larger than the space's display lighting is partly unused (use it or lose it).
+ * What the claims of one kind bring, in words: a retail display allowance covers display lighting
+ * only and a decorative one decorative lighting only, so a claim larger than that lighting of the
+ * space is partly unused (use it or lose it).
  */
-export function usageWords(claimedW: number, usedW: number, displayW: number, watts: (value: number) => string): string {
+export function usageWords(claimedW: number, usedW: number, lightingW: number, watts: (value: number) => string, use: 'display' | 'decorative' = 'display'): string {
   if (claimedW === 0) return 'Nothing claimed yet.';
-  if (displayW === 0) return `${watts(claimedW)} claimed, none used: no luminaire in this space is entered as display lighting, and the allowance covers display lighting only.`;
-  if (usedW < claimedW) return `${watts(usedW)} of the ${watts(claimedW)} claimed is used: the display lighting here is ${watts(displayW)}, and the allowance covers display lighting only.`;
-  return `All ${watts(claimedW)} claimed is used, against ${watts(displayW)} of display lighting.`;
+  if (lightingW === 0) return `${watts(claimedW)} claimed, none used: no luminaire in this space is entered as ${use} lighting, and the allowance covers ${use} lighting only.`;
+  if (usedW < claimedW) return `${watts(usedW)} of the ${watts(claimedW)} claimed is used: the ${use} lighting here is ${watts(lightingW)}, and the allowance covers ${use} lighting only.`;
+  return `All ${watts(claimedW)} claimed is used, against ${watts(lightingW)} of ${use} lighting.`;
 }
 
 /** A claimed area: a positive number of at most the space's own floor area, as the service checks. */

@@ -7,7 +7,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { startWith } from 'rxjs';
-import type { ExteriorApplicationInput, ExteriorApplicationRecord, ExteriorApplicationView, ProvidedControl, UnitSystem } from '../../core/api/api-types';
+import type { EditionId, ExteriorApplicationInput, ExteriorApplicationRecord, ExteriorApplicationView, ExteriorExemptionReason, ProvidedControl, UnitSystem } from '../../core/api/api-types';
+import { editionFamilyOf, exteriorExemptions } from '../../../../../contract/editions';
 import { InUnits } from '../../shared/in-units';
 import { inProjectUnits } from '../../shared/unit-words';
 import { quantityUnit } from './exterior-groups';
@@ -34,7 +35,16 @@ function controlGroup(current: ProvidedControl | undefined) {
   });
 }
 
-/** Add or change one lighted exterior application: which one (from the edition's catalogue), how much of it, its installed watts and controls. */
+/** Exempt watts: a number above zero, and at most the installed watts (they are part of them). */
+function exemptWattsValidator(control: AbstractControl<string>): ValidationErrors | null {
+  const problem = nonNegative(control);
+  if (problem) return problem;
+  if (Number(control.value) === 0) return { zero: true };
+  const installed = (control.parent?.get('installedWatts')?.value as string | undefined)?.trim() ?? '';
+  return decimalPattern.test(installed) && Number(control.value) > Number(installed) ? { moreThanInstalled: true } : null;
+}
+
+/** Add or change one lighted exterior application: which one (from the edition's catalogue), how much of it, its installed watts, any exempt part, and controls. */
 @Component({
   selector: 'al-exterior-application-form',
   imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, InUnits],
@@ -49,6 +59,8 @@ export class ExteriorApplicationForm implements OnInit {
   readonly usedKeys = input<readonly string[]>([]);
   readonly units = input<UnitSystem>('ip');
   readonly lightingZone = input<number | null>(null);
+  /** The project's edition: its family's list of exterior exemptions is offered. */
+  readonly edition = input<EditionId | null>(null);
   readonly saving = input(false);
   readonly save = output<ExteriorApplicationInput>();
   readonly cancelled = output<void>();
@@ -58,6 +70,10 @@ export class ExteriorApplicationForm implements OnInit {
     description: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(500)] }),
     quantity: new FormControl('', { nonNullable: true, validators: [nonNegative] }),
     installedWatts: new FormControl('', { nonNullable: true, validators: [nonNegative] }),
+    exempt: new FormControl(false, { nonNullable: true }),
+    exemptWatts: new FormControl({ value: '', disabled: true }, { nonNullable: true, validators: [exemptWattsValidator] }),
+    exemptReason: new FormControl<ExteriorExemptionReason | ''>({ value: '', disabled: true }, { nonNullable: true, validators: [Validators.required] }),
+    exemptNote: new FormControl({ value: '', disabled: true }, { nonNullable: true, validators: [Validators.maxLength(1000)] }),
     controls: new FormGroup({
       'exterior-daylight-off': controlGroup(undefined),
       'exterior-setback': controlGroup(undefined),
@@ -69,6 +85,14 @@ export class ExteriorApplicationForm implements OnInit {
   hasUnsavedChanges(): boolean {
     return this.form.dirty;
   }
+
+  /** Exempt lighting is recorded: its watts, reason and note are asked for. */
+  protected readonly exempt = toSignal(this.form.controls.exempt.valueChanges, { initialValue: false });
+  /** The edition family's exemptions (from memory: the page says so). */
+  protected readonly exemptions = computed(() => {
+    const edition = this.edition();
+    return edition ? exteriorExemptions[editionFamilyOf(edition)] : [];
+  });
 
   private readonly key = toSignal(this.form.controls.key.valueChanges.pipe(startWith('')), { initialValue: '' });
 
@@ -93,10 +117,24 @@ export class ExteriorApplicationForm implements OnInit {
     const record = this.record();
     if (!record) return;
     this.form.patchValue({ key: record.key, description: record.description, quantity: record.quantity, installedWatts: record.installedWatts });
+    if (record.exemptReason !== undefined) {
+      this.form.patchValue({ exempt: true, exemptWatts: record.exemptWatts ?? '', exemptReason: record.exemptReason, exemptNote: record.exemptNote ?? '' });
+    }
     for (const { strategy } of exteriorControls) {
       const current = record.controls.find((control) => control.strategy === strategy);
       this.form.controls.controls.controls[strategy].setValue({ provided: current?.provided ?? false, device: current?.device ?? '' });
     }
+  }
+
+  constructor() {
+    // The exempt fields count only while exempt lighting is recorded.
+    this.form.controls.exempt.valueChanges.subscribe((exempt) => {
+      for (const control of [this.form.controls.exemptWatts, this.form.controls.exemptReason, this.form.controls.exemptNote]) {
+        if (exempt) control.enable({ emitEvent: false });
+        else control.disable({ emitEvent: false });
+      }
+    });
+    this.form.controls.installedWatts.valueChanges.subscribe(() => this.form.controls.exemptWatts.updateValueAndValidity({ emitEvent: false }));
   }
 
   protected submit(): void {
@@ -111,13 +149,19 @@ export class ExteriorApplicationForm implements OnInit {
         .filter((control) => control.provided)
         .map((control) => (control.device.trim() ? { strategy: control.strategy, provided: true, device: control.device.trim() } : { strategy: control.strategy, provided: true })),
     ];
-    this.save.emit({ key: value.key, description: value.description.trim(), quantity: value.quantity.trim(), installedWatts: value.installedWatts.trim(), controls });
+    const exempt =
+      value.exempt && value.exemptReason !== ''
+        ? { exemptWatts: value.exemptWatts.trim(), exemptReason: value.exemptReason, ...(value.exemptNote.trim() ? { exemptNote: value.exemptNote.trim() } : {}) }
+        : {};
+    this.save.emit({ key: value.key, description: value.description.trim(), quantity: value.quantity.trim(), installedWatts: value.installedWatts.trim(), ...exempt, controls });
   }
 
   protected message(control: AbstractControl): string {
     if (control.hasError('required')) return 'Required.';
     if (control.hasError('negative')) return 'Must not be negative.';
     if (control.hasError('decimal')) return 'Enter a number.';
+    if (control.hasError('zero')) return 'Enter the watts of the exempt lighting, more than 0.';
+    if (control.hasError('moreThanInstalled')) return 'The exempt watts are part of the installed watts, so they cannot be more.';
     return '';
   }
 }

@@ -15,7 +15,8 @@ export interface ExteriorGroups {
   /** Each nontradable application stands on its own allowance (and the base site allowance where the edition lets it). */
   nontradable: ExteriorLine[];
   baseSite: { allowanceW: string; remainingW: string; coversNontradable: boolean };
-  total: { allowanceW: string; installedW: string; marginW: string; status: AllowanceStatus };
+  /** installedW leaves out the exempt lighting, which exemptW reports. */
+  total: { allowanceW: string; installedW: string; exemptW: string; marginW: string; status: AllowanceStatus };
 }
 
 /** Display arithmetic only, on the engine's exact strings; nothing computed here is sent back. */
@@ -53,7 +54,7 @@ export function exteriorGroups(exterior: ExteriorResult, records: readonly Exter
     },
     nontradable: exterior.applications.filter((application) => !application.tradable).map(line),
     baseSite: { allowanceW: exterior.baseSiteAllowanceW, remainingW: exterior.baseSiteRemainingW, coversNontradable: exterior.baseSiteCoversNontradable },
-    total: { allowanceW: exterior.allowanceW, installedW: exterior.installedW, marginW: totalMargin, status: siteStatus(exterior.complies, totalMargin) },
+    total: { allowanceW: exterior.allowanceW, installedW: exterior.installedW, exemptW: exterior.exemptW, marginW: totalMargin, status: siteStatus(exterior.complies, totalMargin) },
   };
 }
 

@@ -163,6 +163,11 @@ describe('a history entry in words', () => {
       expect(say(entry({ entity: 'exterior-application', action: 'create', name: 'walkways-narrow', before: null, after: walkway }))).toBe(
         'Ines Halvorsen added exterior application “Walkways less than 10 feet wide” (300 linear ft, 150 W installed)',
       );
+      // The reason's words are the project's own list (contract/editions.ts, from memory).
+      const exempt = { ...lot, exemptWatts: '60', exemptReason: 'athletic-playing-area' as const, exemptNote: 'Court lights', version: 2 };
+      expect(say(entry({ entity: 'exterior-application', action: 'update', name: 'North lot', before: lot, after: exempt }))).toBe(
+        'Ines Halvorsen changed exterior application “North lot” (Parking lots and drives): exempt set to 60 W; reason it is exempt set to lighting of athletic playing areas; exemption note set to “Court lights”',
+      );
     });
   });
 

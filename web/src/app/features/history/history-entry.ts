@@ -17,6 +17,7 @@ import { basisLabels, useLabels } from '../luminaires/luminaire-type-form';
 import { exceptionReasonLabels } from '../controls/control-status';
 import { methodLabels, scopeLabels } from '../setup/setup-fields';
 import { timeZoneLabel } from '../setup/time-zones';
+import { exteriorExemptions } from '../../../../../contract/editions';
 
 /**
  * A history entry in words: who did what, and which fields changed from what to what, in the units
@@ -279,9 +280,18 @@ function exteriorChanges(before: ExteriorApplicationRecord, after: ExteriorAppli
     text('description', before.description, after.description),
     measured('quantity', before.quantity, after.quantity, exteriorQuantityUnit(after.key, labels, system)),
     measured('installed', before.installedWatts, after.installedWatts, 'W'),
+    measured('exempt', before.exemptWatts, after.exemptWatts, 'W'),
+    choice('reason it is exempt', before.exemptReason, after.exemptReason, exemptionLabel),
+    text('exemption note', before.exemptNote, after.exemptNote),
     ...controlChanges(before.controls ?? [], after.controls ?? [], labels, units(system).area),
   ];
   return changes.filter((change): change is string => change !== null);
+}
+
+/** An exterior exemption by its words (the reason keys mean the same in both edition families). */
+function exemptionLabel(reason: string): string {
+  const listed = [...exteriorExemptions['ashrae-90.1'], ...exteriorExemptions.iecc].find((exemption) => exemption.reason === reason);
+  return listed ? lowerFirst(listed.label) : spelt(reason);
 }
 
 function exteriorLabel(key: string, labels: HistoryLabels): string {

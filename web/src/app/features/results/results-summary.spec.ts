@@ -56,6 +56,7 @@ describe('ResultsSummary', () => {
       baseSiteAllowanceW: '400',
       allowanceW: '900',
       installedW: '600',
+      exemptW: '0',
       complies: true,
       tradable: { allowanceW: '500', installedW: '600', baseSiteUsedW: '100', marginW: '0', complies: true },
       baseSiteRemainingW: '300',
@@ -70,6 +71,8 @@ describe('ResultsSummary', () => {
           rate: '0.05',
           allowanceW: '500',
           installedW: '600',
+          exemptW: '0',
+          exemption: null,
           baseSiteUsedW: '100',
           marginW: '0',
           withinAllowance: true,
@@ -99,12 +102,13 @@ describe('ResultsSummary', () => {
       baseSiteAllowanceW: '0',
       allowanceW: '600',
       installedW: '900',
+      exemptW: '0',
       complies: false,
       tradable: { allowanceW: '500', installedW: '700', baseSiteUsedW: '0', marginW: '-200', complies: false },
       baseSiteRemainingW: '0',
       baseSiteCoversNontradable: false,
       applications: [
-        { key: 'facades', label: 'Building facades', tradable: false, unit: 'W/ft²', quantity: '1000', rate: '0.1', allowanceW: '100', installedW: '200', baseSiteUsedW: '0', marginW: '-100', withinAllowance: false, controls: [], section: 'C405.5.2' },
+        { key: 'facades', label: 'Building facades', tradable: false, unit: 'W/ft²', quantity: '1000', rate: '0.1', allowanceW: '100', installedW: '200', exemptW: '0', exemption: null, baseSiteUsedW: '0', marginW: '-100', withinAllowance: false, controls: [], section: 'C405.5.2' },
       ],
     };
     const reasons = verdictReasons(result);

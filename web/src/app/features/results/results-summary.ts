@@ -67,6 +67,26 @@ export class ResultsSummary {
     (this.interior().levels ?? []).map((level) => ({ ...level, status: allowanceStatus(Number(level.marginW) >= 0, level.marginW) })),
   );
   protected readonly unmet = computed(() => unmetControls(this.result()));
+  /** The additional allowance claims, each with its space's name, what its luminaires use and why not more; unverified ones with their citation. */
+  protected readonly additionalLines = computed(() => {
+    const result = this.result();
+    const names = new Map(result.interior.spaces.map((space) => [space.id, space.name]));
+    return (result.interior.additional?.lines ?? []).map((line) => ({
+      ...line,
+      key: `${line.spaceId}:${line.allowance}`,
+      spaceName: names.get(line.spaceId) ?? '',
+      unverified: result.unverifiedValues.find((value) => value.what === `Additional allowance: ${line.label}`)?.citation ?? null,
+    }));
+  });
+  /** Exterior lighting exempt from the allowance: the application, the watts left out, the reason and section, and the unverified mark of the list. */
+  protected readonly exemptExterior = computed(() => {
+    const result = this.result();
+    return (result.exterior?.applications ?? []).flatMap((application) =>
+      application.exemption === null
+        ? []
+        : [{ application, exemption: application.exemption, unverified: result.unverifiedValues.find((value) => value.what === `Exterior exemption: ${application.exemption!.label}`)?.citation ?? null }],
+    );
+  });
   protected readonly reasons = computed(() => verdictReasons(this.result()));
   protected readonly openSpaces = computed(() => spacesWithoutLuminaires(this.result()));
   protected readonly openControls = computed(() => controlsToVerify(this.result()));
