@@ -96,7 +96,7 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
   );
   api.use('/auth', passwordRouter(db, { appUrl: config.APP_URL, resetMinutes: config.PASSWORD_RESET_MINUTES, mailQueued, logger }));
   api.use(requireSignIn);
-  api.use('/admin', adminRouter(db));
+  api.use('/admin', adminRouter(db, { appUrl: config.APP_URL, mailQueued }));
   api.use('/code-editions', codeEditionsRouter(db));
   api.use('/projects', projectsRouter(db));
   api.use('/projects/:projectId', designRouter(db));

@@ -95,6 +95,11 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
       });
       throw wrongCredentials();
     }
+    if (user.disabled_at) {
+      // Told only to someone who knows the password, so it reveals nothing to a guesser.
+      await recordAudit(db, { userId: user.id, action: 'sign-in-failed', entity: 'user', entityId: user.id, detail: { email, address, reason: 'disabled' } });
+      throw new AppError(403, 'account_disabled', 'This account is disabled. Ask your administrator to enable it.');
+    }
     const expiresAt = new Date(Date.now() + settings.sessionHours * 3_600_000);
     const sessionId = await createSession(db, { userId: user.id, expiresAt, userAgent: req.get('user-agent') ?? null, address });
     const { token, csrf } = signSession(settings.secret, { id: sessionId, userId: user.id, expiresAt });

@@ -5,7 +5,7 @@ import type { UserRow } from '../db/tables.js';
 /** Only the SHA-256 of a reset token is stored: a copy of the table cannot be used to reset anyone. */
 export const hashToken = (token: string): string => createHash('sha256').update(token).digest('hex');
 
-/** A new single-use token for the user, good for `minutes`; returns the token itself, for the link. */
+/** A new single-use token for the user, good for `minutes`; returns the token itself, for the link (a new account's first password uses the same). */
 export async function createPasswordReset(trx: Knex.Transaction, userId: string, minutes: number): Promise<string> {
   const token = randomBytes(32).toString('base64url');
   await trx('password_resets').insert({ user_id: userId, token_hash: hashToken(token), expires_at: new Date(Date.now() + minutes * 60_000) });

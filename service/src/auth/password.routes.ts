@@ -67,7 +67,7 @@ export function passwordRouter(db: Database, settings: PasswordSettings): Router
   router.post('/password-reset', byAddress, byAccount, async (req, res) => {
     const { email: address } = parse(resetRequestSchema, req.body);
     const user = await findUserByEmail(db, address);
-    if (user) {
+    if (user && !user.disabled_at) {
       await db.transaction(async (trx) => {
         const token = await createPasswordReset(trx, user.id, settings.resetMinutes);
         await queueMail(trx, passwordResetMail(user.email, user.name, `${settings.appUrl}/reset-password?token=${token}`, settings.resetMinutes));

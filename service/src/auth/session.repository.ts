@@ -54,6 +54,7 @@ export async function findLiveSessionUser(db: Database, sessionId: string, userI
     .join('users', 'users.id', 'sessions.user_id')
     .where({ 'sessions.id': sessionId, 'sessions.user_id': userId })
     .whereNull('sessions.revoked_at')
+    .whereNull('users.disabled_at')
     .andWhere('sessions.expires_at', '>', db.fn.now())
     .first<(UserRow & { last_seen_at: Date }) | undefined>('users.*', 'sessions.last_seen_at');
   if (!row) return undefined;

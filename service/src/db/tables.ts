@@ -10,6 +10,8 @@ export interface UserRow {
   password_hash: string;
   is_admin: boolean;
   created_at: Date;
+  /** Set while an administrator has the account disabled. */
+  disabled_at: Date | null;
 }
 
 export interface SessionRow {

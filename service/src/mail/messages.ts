@@ -42,3 +42,16 @@ export function passwordChangedMail(to: string, name: string, signInUrl: string)
     { label: 'Sign in', url: signInUrl },
   );
 }
+
+export function accountCreatedMail(to: string, name: string, url: string, days: number): OutgoingMail {
+  return compose(
+    'account-created',
+    to,
+    'Your Allowlight account',
+    [
+      `Hello ${name},`,
+      `An administrator made you an Allowlight account for ${to}. Choose your password with the link below; it works once, for the next ${days} days. After that, ask for a new link from the sign-in page ("Forgot your password?").`,
+    ],
+    { label: 'Choose your password', url },
+  );
+}

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import type { Database } from '../db/database.js';
 
 export type MailStatus = 'queued' | 'sent' | 'failed';
-export type MailKind = 'password-reset' | 'password-changed';
+export type MailKind = 'password-reset' | 'password-changed' | 'account-created';
 
 export interface OutgoingMail {
   kind: MailKind;
