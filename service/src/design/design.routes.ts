@@ -1,7 +1,7 @@
 import { Router, type Request } from 'express';
 import { AppError } from '../http/app-error.js';
 import type { Database } from '../db/database.js';
-import { requireProjectAction } from '../http/project-access.js';
+import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { idParam, parse } from '../http/validate.js';
 import {
@@ -46,9 +46,9 @@ import { assertAliasesFitEdition, assertAllowanceFitsEdition, assertControlFitsE
 /** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
 export function designRouter(db: Database): Router {
   const router = Router({ mergeParams: true });
-  const read = requireProjectAction(db, 'read');
-  const edit = requireProjectAction(db, 'edit-design');
-  const projectId = (req: { projectAccess?: { projectId: string } }) => req.projectAccess!.projectId;
+  const read = requireProjectAction('read');
+  const edit = requireProjectAction('edit-design');
+  const projectId = (req: Request) => projectAccess(req).projectId;
   const userId = (req: Parameters<typeof currentSession>[0]) => currentSession(req).user.id;
 
   router.get('/document', read, async (req, res) => {

@@ -5,7 +5,7 @@ import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import { editionIds, type EditionId } from '../compliance/edition-data.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
-import { requireProjectAction } from '../http/project-access.js';
+import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
 import { copyProject, createProject, getProjectDetail, listProjectsFor, setProjectArchived, updateProjectSetup } from './projects.repository.js';
@@ -49,13 +49,13 @@ export function projectsRouter(db: Database): Router {
     res.status(201).json(await getProjectDetail(db, id, 'engineer'));
   });
 
-  router.get('/:projectId', requireProjectAction(db, 'read'), async (req, res) => {
-    const access = req.projectAccess!;
+  router.get('/:projectId', requireProjectAction('read'), async (req, res) => {
+    const access = projectAccess(req);
     res.json(await getProjectDetail(db, access.projectId, access.role));
   });
 
-  router.patch('/:projectId', requireProjectAction(db, 'edit-design'), async (req, res) => {
-    const access = req.projectAccess!;
+  router.patch('/:projectId', requireProjectAction('edit-design'), async (req, res) => {
+    const access = projectAccess(req);
     const patch = parse(projectSetupPatchSchema, req.body);
     assertEdition(patch.edition);
     const current = await getProjectDetail(db, access.projectId, access.role);
@@ -77,16 +77,16 @@ export function projectsRouter(db: Database): Router {
   });
 
   /** Anyone who may read a project may copy it; the copy is theirs, as its engineer. */
-  router.post('/:projectId/copy', requireProjectAction(db, 'read'), async (req, res) => {
+  router.post('/:projectId/copy', requireProjectAction('read'), async (req, res) => {
     const { name } = parse(copySchema, req.body);
-    const id = await copyProject(db, req.projectAccess!.projectId, name, currentSession(req).user.id);
+    const id = await copyProject(db, projectAccess(req).projectId, name, currentSession(req).user.id);
     res.status(201).json(await getProjectDetail(db, id, 'engineer'));
   });
 
   /** Archiving keeps everything and makes the project read-only; unarchiving brings it back. */
   for (const [path, archived] of [['archive', true], ['unarchive', false]] as const) {
-    router.post(`/:projectId/${path}`, requireProjectAction(db, 'archive'), async (req, res) => {
-      const access = req.projectAccess!;
+    router.post(`/:projectId/${path}`, requireProjectAction('archive'), async (req, res) => {
+      const access = projectAccess(req);
       await setProjectArchived(db, access.projectId, archived, currentSession(req).user.id);
       res.json(await getProjectDetail(db, access.projectId, access.role));
     });
