@@ -178,10 +178,6 @@ function setupColumns(input: Partial<ProjectCreate>): Record<string, unknown> {
 }
 
 /**
- * Keeps the verdict of an evaluation for the project list, unless the design changed while it was
- * being computed (then the stored project no longer matches and nothing is kept).
- */
-/**
  * When the project's design last changed, as PostgreSQL's text (a JavaScript Date would drop the
  * microseconds that `keepResultSummary` compares); null for no such project.
  */
@@ -212,6 +208,10 @@ export async function projectForMember(db: Database, projectId: string, userId: 
   return { project: { id: row.id, name: row.name, editionId: row.edition_id, method: row.method, units: row.units, archivedAt: row.archived_at }, role: row.role };
 }
 
+/**
+ * Keeps the verdict of an evaluation for the project list, unless the design changed while it was
+ * being computed (then the stored project no longer matches and nothing is kept).
+ */
 export async function keepResultSummary(db: Database, projectId: string, designAt: string, summary: ResultSummary): Promise<void> {
   await db('projects').where({ id: projectId }).whereRaw('updated_at = ?::timestamptz', [designAt]).update({ result_summary: JSON.stringify(summary) });
 }

@@ -8,6 +8,7 @@ import { AppError } from '../http/app-error.js';
 import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
+import { keepVerdict } from '../evaluation/evaluation.service.js';
 import { copyProject, createProject, getProjectDetail, listProjectsFor, setProjectArchived, updateProjectSetup } from './projects.repository.js';
 import { projectCreateSchema, projectSetupPatchSchema } from './projects.schema.js';
 import { convertProjectUnits } from './unit-conversion.js';
@@ -46,6 +47,7 @@ export function projectsRouter(db: Database): Router {
     await assertAmendments(db, input.edition, input.amendments);
     const { user } = currentSession(req);
     const id = await createProject(db, input, user.id);
+    await keepVerdict(db, id, req.log);
     res.status(201).json(await getProjectDetail(db, id, 'engineer'));
   });
 
@@ -73,6 +75,7 @@ export function projectsRouter(db: Database): Router {
       convert = async (trx) => ({ ...(await convertProjectUnits(trx, access.projectId, current.units, to, exteriorUnits, userId)) });
     }
     await updateProjectSetup(db, access.projectId, patch, currentSession(req).user.id, convert);
+    await keepVerdict(db, access.projectId, req.log);
     res.json(await getProjectDetail(db, access.projectId, access.role));
   });
 
@@ -80,6 +83,7 @@ export function projectsRouter(db: Database): Router {
   router.post('/:projectId/copy', requireProjectAction('read'), async (req, res) => {
     const { name } = parse(copySchema, req.body);
     const id = await copyProject(db, projectAccess(req).projectId, name, currentSession(req).user.id);
+    await keepVerdict(db, id, req.log);
     res.status(201).json(await getProjectDetail(db, id, 'engineer'));
   });
 
