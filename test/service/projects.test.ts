@@ -10,7 +10,7 @@ let app: ReturnType<typeof testApp>['app'];
 beforeAll(async () => {
   database = await freshDatabase();
   app = testApp(database.db, database.url).app;
-  const engineer = await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id');
+  const engineer = (await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id'))!;
   const [project] = await database.db('projects').insert({ name: 'Harbour Annex (engineer only)', created_by: engineer.id }).returning('id');
   privateProjectId = project.id;
   await database.db('project_members').insert({ project_id: privateProjectId, user_id: engineer.id, role: 'engineer' });

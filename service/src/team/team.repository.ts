@@ -27,12 +27,12 @@ export async function listMembers(db: Database, projectId: string): Promise<Memb
 export async function setMember(db: Database, projectId: string, email: string, role: ProjectRole, actorId: string): Promise<Member[]> {
   await db.transaction(async (trx) => {
     await lockProject(trx, projectId, { allowArchived: true });
-    const user = await trx('users').whereRaw('lower(email) = lower(?)', [email]).first<{ id: string } | undefined>('id');
+    const user = await trx('users').whereRaw('lower(email) = lower(?)', [email]).first('id');
     if (!user) {
       await recordAudit(trx, { userId: actorId, projectId, action: 'add-member-no-account', entity: 'project_member', detail: { name: email, role } });
       return;
     }
-    const current = await trx('project_members').where({ project_id: projectId, user_id: user.id }).first<{ role: ProjectRole } | undefined>('role');
+    const current = await trx('project_members').where({ project_id: projectId, user_id: user.id }).first('role');
     if (current?.role === 'engineer' && role !== 'engineer') await assertAnotherEngineer(trx, projectId, user.id);
     await trx('project_members').insert({ project_id: projectId, user_id: user.id, role }).onConflict(['project_id', 'user_id']).merge({ role });
     await recordAudit(trx, {
