@@ -28,8 +28,6 @@ export async function seed(knex: Knex): Promise<void> {
   if (existingProject) return;
   const engineerId = userIds.get('engineer@alderbay.example')!;
   const [project] = await knex('projects').insert({ name: demoProjectName, created_by: engineerId }).returning<{ id: string }[]>('id');
-  const members = demoUsers
-    .filter((demo) => demo.projectRole !== null)
-    .map((demo) => ({ project_id: project!.id, user_id: userIds.get(demo.email)!, role: demo.projectRole }));
+  const members = demoUsers.flatMap((demo) => (demo.projectRole === null ? [] : [{ project_id: project!.id, user_id: userIds.get(demo.email)!, role: demo.projectRole }]));
   await knex('project_members').insert(members);
 }

@@ -16,6 +16,7 @@ import { historyRouter } from './history/history.routes.js';
 import { errorHandler, notFoundHandler } from './http/error-handler.js';
 import { exactJsonBody } from './http/json-body.js';
 import { hstsWhenSecure, noStore, permissionsPolicy } from './http/security-headers.js';
+import { loadProject } from './http/project-access.js';
 import { readSession, requireSignIn } from './http/session.js';
 import { projectsRouter } from './projects/projects.routes.js';
 import { designRouter } from './design/design.routes.js';
@@ -98,6 +99,8 @@ export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL 
   api.use(requireSignIn);
   api.use('/admin', adminRouter(db, { appUrl: config.APP_URL, mailQueued }));
   api.use('/code-editions', codeEditionsRouter(db));
+  // Every route under one project reads it, and the caller's role on it, from what this loads once.
+  api.use('/projects/:projectId', loadProject(db));
   api.use('/projects', projectsRouter(db));
   api.use('/projects/:projectId', designRouter(db));
   api.use('/projects/:projectId', projectResultsRouter(db));

@@ -87,7 +87,7 @@ describe('POST /api/auth/login', () => {
     const longAgent = `Tester/1.0 ${'x'.repeat(600)}`;
     const response = await request(app).post('/api/auth/login').set('User-Agent', longAgent).send(demoSignIn());
     const claims = claimsOf(response);
-    const row = await database.db('sessions').where({ id: claims.jti }).first();
+    const row = (await database.db('sessions').where({ id: claims.jti }).first())!;
 
     expect(row.user_id).toBe(claims.sub);
     expect(row.revoked_at).toBeNull();
@@ -155,9 +155,9 @@ describe('sign-in limits', () => {
 describe('sign-in audit', () => {
   it('records a wrong password with the e-mail tried and the address, never the password', async () => {
     const { app } = testApp(database.db, database.url);
-    const user = await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id');
+    const user = (await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id'))!;
     await request(app).post('/api/auth/login').send({ email: 'Engineer@AlderBay.example', password: 'a-guess-to-find' });
-    const row = await database.db('audit_log').where({ action: 'sign-in-failed' }).orderBy('id', 'desc').first();
+    const row = (await database.db('audit_log').where({ action: 'sign-in-failed' }).orderBy('id', 'desc').first())!;
 
     expect(row).toMatchObject({ user_id: user.id, entity: 'user', entity_id: user.id });
     expect(row.detail).toEqual({ email: 'Engineer@AlderBay.example', address: '127.0.0.1', reason: 'wrong-password' });
@@ -205,7 +205,7 @@ describe('GET /api/auth/me', () => {
 
   it('refuses an expired token', async () => {
     const { app, config } = testApp(database.db, database.url);
-    const user = await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id');
+    const user = (await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id'))!;
     const expired = jwt.sign({ csrf: 'x', exp: Math.floor(Date.now() / 1000) - 60 }, config.JWT_SECRET, { subject: user.id, issuer: 'allowlight' });
     const response = await request(app).get('/api/auth/me').set('Cookie', `allowlight_session=${expired}`);
     expect(response.status).toBe(401);
@@ -215,7 +215,7 @@ describe('GET /api/auth/me', () => {
     const { app } = testApp(database.db, database.url);
     const login = await request(app).post('/api/auth/login').send(demoSignIn());
     const { jti } = claimsOf(login);
-    const lastSeen = async (): Promise<Date> => (await database.db('sessions').where({ id: jti }).first('last_seen_at')).last_seen_at;
+    const lastSeen = async (): Promise<Date> => (await database.db('sessions').where({ id: jti }).first('last_seen_at'))!.last_seen_at;
     const me = () => request(app).get('/api/auth/me').set('Cookie', cookiePair(login)).expect(200);
 
     const atSignIn = await lastSeen();
@@ -258,7 +258,7 @@ describe('GET /api/auth/me', () => {
 
   it('refuses a token signed with another secret', async () => {
     const { app } = testApp(database.db, database.url);
-    const user = await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id');
+    const user = (await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id'))!;
     const forged = jwt.sign({ csrf: 'x' }, 'another-secret-that-is-long-enough-to-sign', { subject: user.id, issuer: 'allowlight', expiresIn: 600 });
     const response = await request(app).get('/api/auth/me').set('Cookie', `allowlight_session=${forged}`);
     expect(response.status).toBe(401);
@@ -292,7 +292,7 @@ describe('POST /api/auth/logout', () => {
     const replayed = await request(app).get('/api/projects').set('Cookie', kept);
     expect(replayed.status).toBe(401);
     expect(replayed.body.error.code).toBe('unauthorized');
-    const row = await database.db('sessions').where({ id: claimsOf(login).jti }).first('revoked_at');
+    const row = (await database.db('sessions').where({ id: claimsOf(login).jti }).first('revoked_at'))!;
     expect(row.revoked_at).toBeInstanceOf(Date);
   });
 });

@@ -53,7 +53,7 @@ describe('POST /api/projects/:id/spaces/bulk with luminaire types', () => {
       { tag: 'X1', use: 'exempt', exemptReason: 'Exit sign' },
     ]);
     const audit = await database.db('audit_log').where({ project_id: projectId, entity: 'luminaire-type' }).select('action', 'detail');
-    expect(audit.map((entry) => [entry.action, entry.detail.name]).sort()).toEqual([
+    expect(audit.map((entry) => [entry.action, (entry.detail as { name: string }).name]).sort()).toEqual([
       ['create', 'H1'],
       ['create', 'X1'],
     ]);

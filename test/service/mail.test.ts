@@ -154,7 +154,7 @@ describe('the outbox', () => {
       expect(queued.last_error).toMatch(/ECONNREFUSED|connect/i);
       // The reset itself was committed: its token is live although no mail went out.
       const contractor = await database.db('users').where({ email: 'contractor@alderbay.example' }).first('id');
-      expect(await database.db('password_resets').where({ user_id: contractor.id }).whereNull('used_at').count({ n: '*' })).toEqual([{ n: '1' }]);
+      expect(await database.db('password_resets').where({ user_id: contractor!.id }).whereNull('used_at').count({ n: '*' })).toEqual([{ n: '1' }]);
 
       const back = await startMailCatcher({ dir: mailDir, port });
       try {

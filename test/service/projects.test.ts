@@ -10,7 +10,7 @@ let app: ReturnType<typeof testApp>['app'];
 beforeAll(async () => {
   database = await freshDatabase();
   app = testApp(database.db, database.url).app;
-  const engineer = await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id');
+  const engineer = (await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id'))!;
   const [project] = await database.db('projects').insert({ name: 'Harbour Annex (engineer only)', created_by: engineer.id }).returning('id');
   privateProjectId = project.id;
   await database.db('project_members').insert({ project_id: privateProjectId, user_id: engineer.id, role: 'engineer' });
@@ -84,22 +84,57 @@ describe('unknown API routes', () => {
 });
 
 describe('the verdict kept for the project list', () => {
-  it('appears after an evaluation and is cleared by the next design change', async () => {
+  it('is not written by reading the results, and follows every design change', async () => {
     const engineer = await signIn(app, 'engineer@alderbay.example');
+    const listed = async (id: string) => (await engineer.agent.get('/api/projects')).body.find((project: { id: string }) => project.id === id).resultSummary;
+    const results = async (id: string) => {
+      const { body } = await engineer.agent.get(`/api/projects/${id}/results`).expect(200);
+      return { complies: body.complies, verdict: body.verdict, marginPct: body.interior.marginPct, dataVersion: body.dataVersion };
+    };
     const demo = (await engineer.agent.get('/api/projects')).body.find((project: { name: string }) => project.name === 'Alder Bay Library & Makerspace');
     expect(demo.resultSummary).toBeNull();
 
-    const results = await engineer.agent.get(`/api/projects/${demo.id}/results`);
-    const listed = (await engineer.agent.get('/api/projects')).body.find((project: { id: string }) => project.id === demo.id);
-    expect(listed.resultSummary).toEqual({ complies: results.body.complies, verdict: results.body.verdict, marginPct: results.body.interior.marginPct, dataVersion: results.body.dataVersion });
+    // Reading the results stores nothing.
+    const seeded = await results(demo.id);
+    expect(await listed(demo.id)).toBeNull();
 
     const types = (await engineer.agent.get(`/api/projects/${demo.id}/luminaire-types`)).body;
     const type = types.find((candidate: { tag: string }) => candidate.tag === 'A');
-    await engineer.agent
-      .put(`/api/projects/${demo.id}/luminaire-types/${type.id}`)
-      .set('X-CSRF-Token', engineer.csrfToken)
-      .send({ tag: type.tag, description: type.description, use: type.use, basis: type.basis, version: type.version, inputWatts: '34' });
-    const afterChange = (await engineer.agent.get('/api/projects')).body.find((project: { id: string }) => project.id === demo.id);
-    expect(afterChange.resultSummary).toBeNull();
+    const putType = async (inputWatts: string, version: number) =>
+      (
+        await engineer.agent
+          .put(`/api/projects/${demo.id}/luminaire-types/${type.id}`)
+          .set('X-CSRF-Token', engineer.csrfToken)
+          .send({ tag: type.tag, description: type.description, use: type.use, basis: type.basis, version, inputWatts })
+          .expect(200)
+      ).body.version as number;
+
+    let version = await putType('34', type.version);
+    const afterChange = await listed(demo.id);
+    expect(afterChange).toEqual(await results(demo.id));
+    expect(afterChange.marginPct).not.toBe(seeded.marginPct);
+
+    // Far more watts than any allowance: the list says so without anyone opening the results.
+    version = await putType('5000', version);
+    expect(await listed(demo.id)).toMatchObject({ complies: false, verdict: 'does-not-comply' });
+    expect(await listed(demo.id)).toEqual(await results(demo.id));
+
+    await putType(type.inputWatts, version);
+    expect(await listed(demo.id)).toEqual(seeded);
+
+    // A delete and its restore are design changes too.
+    const [space] = (await engineer.agent.get(`/api/projects/${demo.id}/spaces`)).body;
+    await engineer.agent.delete(`/api/projects/${demo.id}/spaces/${space.id}?version=${space.version}`).set('X-CSRF-Token', engineer.csrfToken).expect(204);
+    expect(await listed(demo.id)).toEqual(await results(demo.id));
+    expect(await listed(demo.id)).not.toEqual(seeded);
+    await engineer.agent.post(`/api/projects/${demo.id}/spaces/${space.id}/restore`).set('X-CSRF-Token', engineer.csrfToken).expect(201);
+    expect(await listed(demo.id)).toEqual(seeded);
+
+    // So is a change of the set-up (here of units, which converts the stored design), and a copy starts with its verdict.
+    const detail = (await engineer.agent.get(`/api/projects/${demo.id}`)).body;
+    await engineer.agent.patch(`/api/projects/${demo.id}`).set('X-CSRF-Token', engineer.csrfToken).send({ version: detail.version, units: detail.units === 'ip' ? 'si' : 'ip' }).expect(200);
+    expect(await listed(demo.id)).toEqual(await results(demo.id));
+    const copy = await engineer.agent.post(`/api/projects/${demo.id}/copy`).set('X-CSRF-Token', engineer.csrfToken).send({ name: 'Alder Bay copy for the list' }).expect(201);
+    expect(await listed(copy.body.id)).toEqual(await results(copy.body.id));
   });
 });

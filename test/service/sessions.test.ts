@@ -78,7 +78,7 @@ describe('DELETE /api/auth/sessions/:id', () => {
     expect(await stillSignedIn(phone)).toBe(false);
     expect(await stillSignedIn(laptop)).toBe(true);
     expect((await list(laptop)).map((session) => session.id)).not.toContain(phoneId);
-    const audit = await database.db('audit_log').where({ action: 'end-session', entity_id: phoneId }).first();
+    const audit = (await database.db('audit_log').where({ action: 'end-session', entity_id: phoneId }).first())!;
     expect(audit.user_id).toBe(laptop.user.id);
   });
 

@@ -31,7 +31,7 @@ describe('project team', () => {
     expect(response.status).toBe(200);
     expect(response.body.map((member: { role: string }) => member.role).sort()).toEqual(['engineer', 'reviewer']);
     expect((await reviewer.agent.get(`/api/projects/${projectId}`)).body.role).toBe('reviewer');
-    const audit = await database.db('audit_log').where({ project_id: projectId, action: 'add-member' }).first();
+    const audit = (await database.db('audit_log').where({ project_id: projectId, action: 'add-member' }).first())!;
     expect(audit.user_id).toBe(engineer.user.id);
   });
 

@@ -32,8 +32,9 @@ export async function recordAudit(db: Database | Knex.Transaction, entries: Audi
   const list = Array.isArray(entries) ? entries : [entries];
   if (list.length === 0) return;
   const rows = list.map(auditRow);
-  if (rows.length === 1) {
-    await db('audit_log').insert(rows[0]);
+  const [only] = rows;
+  if (rows.length === 1 && only) {
+    await db('audit_log').insert(only);
   } else {
     const batch = db.batchInsert('audit_log', rows, 500);
     await (db.isTransaction ? batch.transacting(db as Knex.Transaction) : batch);

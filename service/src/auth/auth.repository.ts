@@ -11,7 +11,7 @@ export interface PublicUser {
 }
 
 export async function findUserByEmail(db: Database, email: string): Promise<UserRow | undefined> {
-  return db<UserRow>('users').whereRaw('lower(email) = lower(?)', [email]).first();
+  return db('users').whereRaw('lower(email) = lower(?)', [email]).first();
 }
 
 export async function findUserById(db: Database, id: string): Promise<UserRow | undefined> {

@@ -1,5 +1,5 @@
 import bcrypt from 'bcryptjs';
-import { Router, type CookieOptions, type Request, type Response } from 'express';
+import { Router, type CookieOptions, type NextFunction, type Request, type Response } from 'express';
 import { rateLimit, type RateLimitRequestHandler } from 'express-rate-limit';
 import type { Logger } from 'pino';
 import { z } from 'zod';
@@ -61,8 +61,9 @@ function signInLimiter(name: string, limit: number, windowMinutes: number, logge
     skipSuccessfulRequests: true,
     logger,
     ...(keyedBy ? { keyGenerator: (req: Request) => keyedBy(req) ?? '', skip: (req: Request) => keyedBy(req) === null } : {}),
-    handler: (_req: Request, res: Response) => {
-      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many sign-in attempts. Wait a few minutes and try again.' } });
+    // Answered by the error handler, so the refusal has the same shape as every other error.
+    handler: (_req: Request, _res: Response, next: NextFunction) => {
+      next(new AppError(429, 'rate_limited', 'Too many sign-in attempts. Wait a few minutes and try again.'));
     },
   });
 }

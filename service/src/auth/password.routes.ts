@@ -1,5 +1,5 @@
 import bcrypt from 'bcryptjs';
-import { Router, type Request, type Response } from 'express';
+import { Router, type NextFunction, type Request, type Response } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import type { Logger } from 'pino';
 import { z } from 'zod';
@@ -46,8 +46,9 @@ function limiter(name: string, limit: number, windowMinutes: number, logger: Log
     legacyHeaders: false,
     logger,
     ...(keyedBy ? { keyGenerator: (req: Request) => keyedBy(req) ?? '', skip: (req: Request) => keyedBy(req) === null } : {}),
-    handler: (_req: Request, res: Response) => {
-      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many requests for a new password. Wait a while and try again.' } });
+    // Answered by the error handler, so the refusal has the same shape as every other error.
+    handler: (_req: Request, _res: Response, next: NextFunction) => {
+      next(new AppError(429, 'rate_limited', 'Too many requests for a new password. Wait a while and try again.'));
     },
   });
 }

@@ -1,6 +1,6 @@
 import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
-import type { SessionRow, UserRow } from '../db/tables.js';
+import type { UserRow } from '../db/tables.js';
 
 /** The `sessions.user_agent` column's width; longer headers are cut rather than refused. */
 export const userAgentLength = 512;
@@ -34,7 +34,7 @@ export async function createSession(db: Database, session: NewSession): Promise<
       .where({ user_id: session.userId })
       .andWhere('expires_at', '<', trx.raw(`now() - interval '${keepExpiredDays} days'`))
       .delete();
-    const [row] = await trx<SessionRow>('sessions')
+    const [row] = await trx('sessions')
       .insert({
         user_id: session.userId,
         expires_at: session.expiresAt,
@@ -52,7 +52,8 @@ export async function createSession(db: Database, session: NewSession): Promise<
 export async function findLiveSessionUser(db: Database, sessionId: string, userId: string): Promise<UserRow | undefined> {
   const row = await db('sessions')
     .join('users', 'users.id', 'sessions.user_id')
-    .where({ 'sessions.id': sessionId, 'sessions.user_id': userId })
+    .where('sessions.id', sessionId)
+    .where('sessions.user_id', userId)
     .whereNull('sessions.revoked_at')
     .whereNull('users.disabled_at')
     .andWhere('sessions.expires_at', '>', db.fn.now())
@@ -69,7 +70,7 @@ export async function findLiveSessionUser(db: Database, sessionId: string, userI
 }
 
 export async function listActiveSessions(db: Database, userId: string): Promise<ActiveSession[]> {
-  const rows = await db<SessionRow>('sessions')
+  const rows = await db('sessions')
     .where({ user_id: userId })
     .whereNull('revoked_at')
     .andWhere('expires_at', '>', db.fn.now())

@@ -20,6 +20,7 @@ import type {
   StrategyKey,
 } from '../compliance/edition-data.js';
 import { type Citation, citationOf, editionName, referenceOf, withoutProvenance } from '../compliance/citation.js';
+import type { CodeEditionRow, ControlStrategyRow, ControlStrategySectionRow, ProvenanceColumns, SpaceTypeControlRow, TaggedProvenance } from '../db/tables.js';
 
 /** The code tables as the API and the compliance engine read them. NUMERIC columns stay strings. */
 
@@ -134,22 +135,14 @@ export interface RulesView extends EditionRules {
   sections: Record<string, SectionView>;
 }
 
-interface EditionRow {
-  id: EditionId;
-  family: CodeFamily;
-  title: string;
-  publisher: string;
-  year: number;
-  methods: string[];
-  current_data_version: string;
-}
 
-interface ProvenanceColumns {
-  source: string;
-  confidence: string;
-  verified: boolean;
-  note: string;
-  from_memory: string | null;
+/**
+ * A column the seeds always fill where it applies (the reference files require it); a row without
+ * it is broken data, answered as an error rather than read as false or left out.
+ */
+function stored<Value>(value: Value | null, what: string): Value {
+  if (value === null) throw new Error(`The code tables hold no value for ${what}.`);
+  return value;
 }
 
 /** What a citation needs besides the row: the edition's name and the sections its rules cite (a fallback reference). */
@@ -159,7 +152,7 @@ interface CitationContext {
 }
 
 async function citationContext(db: Database, version: EditionVersion): Promise<CitationContext> {
-  const rows: { key: string; section: string }[] = await db('edition_sections').where(scope(version)).select('key', 'section');
+  const rows = await db('edition_sections').where(scope(version)).select('key', 'section');
   return { edition: editionName(version.edition.family, version.edition.year), sections: Object.fromEntries(rows.map((row) => [row.key, row.section])) };
 }
 
@@ -181,12 +174,12 @@ function contractProvenance(row: RowProvenance): Provenance {
 
 /** An edition and the data version to read: the current one unless a stored result names another. */
 export interface EditionVersion {
-  edition: EditionRow;
+  edition: CodeEditionRow;
   dataVersion: string;
 }
 
 export async function listEditions(db: Database): Promise<EditionSummary[]> {
-  const rows: EditionRow[] = await db('code_editions').whereNotNull('current_data_version').orderBy([{ column: 'family' }, { column: 'year' }]);
+  const rows = await db('code_editions').whereNotNull('current_data_version').orderBy([{ column: 'family' }, { column: 'year' }]);
   return rows.map((row) => ({
     id: row.id,
     family: row.family,
@@ -199,7 +192,7 @@ export async function listEditions(db: Database): Promise<EditionSummary[]> {
 }
 
 export async function findEditionVersion(db: Database, editionId: string, dataVersion?: string): Promise<EditionVersion | undefined> {
-  const edition: EditionRow | undefined = await db('code_editions').where({ id: editionId }).first();
+  const edition = await db('code_editions').where('id', editionId).first();
   if (!edition) return undefined;
   const version = dataVersion ?? edition.current_data_version;
   const known = await db('code_edition_versions').where({ edition_id: editionId, data_version: version }).first();
@@ -227,9 +220,10 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
     db('space_types').where(scope(version)).orderBy('position'),
     db('space_type_controls')
       .join('control_strategies', 'control_strategies.key', 'space_type_controls.strategy_key')
-      .where({ 'space_type_controls.edition_id': version.edition.id, 'space_type_controls.data_version': version.dataVersion })
+      .where('space_type_controls.edition_id', version.edition.id)
+      .where('space_type_controls.data_version', version.dataVersion)
       .orderBy('control_strategies.position')
-      .select('space_type_controls.*'),
+      .select<SpaceTypeControlRow[]>('space_type_controls.*'),
     citationContext(db, version),
   ]);
   const cellsBySpace = new Map<string, typeof cells>();
@@ -242,8 +236,8 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
     const controls: Partial<Record<StrategyKey, RequirementCode>> = {};
     const controlProvenance: Partial<Record<StrategyKey, RowProvenance>> = {};
     for (const cell of cellsBySpace.get(row.key) ?? []) {
-      controls[cell.strategy_key as StrategyKey] = cell.requirement as RequirementCode;
-      controlProvenance[cell.strategy_key as StrategyKey] = provenanceOf(cell, context, reference(context, cell.note, 'spaceBySpaceMethod'));
+      controls[cell.strategy_key] = cell.requirement;
+      controlProvenance[cell.strategy_key] = provenanceOf(cell, context, reference(context, cell.note, 'spaceBySpaceMethod'));
     }
     const view: SpaceTypeView = {
       key: row.key,
@@ -260,10 +254,11 @@ export async function listSpaceTypes(db: Database, version: EditionVersion): Pro
       ...provenanceOf(row, context, reference(context, row.note, 'spaceBySpaceMethod')),
     };
     if (row.iecc_sensor_function) {
+      const where = `space type ${row.key} of ${version.edition.id} (${version.dataVersion})`;
       view.iecc = {
-        occupantSensorListed: row.iecc_occupant_sensor_listed,
+        occupantSensorListed: stored(row.iecc_occupant_sensor_listed, `the occupant-sensor listing of ${where}`),
         occupantSensorListItem: row.iecc_occupant_sensor_list_item,
-        fullAutoOnAllowed: row.iecc_full_auto_on_allowed,
+        fullAutoOnAllowed: stored(row.iecc_full_auto_on_allowed, `the full automatic-on exception of ${where}`),
         fullAutoOnItem: row.iecc_full_auto_on_item,
         sensorFunction: row.iecc_sensor_function,
         lightReductionExemptItem: row.iecc_light_reduction_exempt_item,
@@ -281,9 +276,10 @@ export async function listControlStrategies(db: Database, version: EditionVersio
   const [sections, parameters, context] = await Promise.all([
     db('control_strategy_sections')
       .join('control_strategies', 'control_strategies.key', 'control_strategy_sections.strategy_key')
-      .where({ 'control_strategy_sections.edition_id': version.edition.id, 'control_strategy_sections.data_version': version.dataVersion })
+      .where('control_strategy_sections.edition_id', version.edition.id)
+      .where('control_strategy_sections.data_version', version.dataVersion)
       .orderBy('control_strategies.position')
-      .select('control_strategy_sections.*', 'control_strategies.label'),
+      .select<(ControlStrategySectionRow & Pick<ControlStrategyRow, 'label'>)[]>('control_strategy_sections.*', 'control_strategies.label'),
     db('control_strategy_parameters').where(scope(version)).orderBy([{ column: 'strategy_key' }, { column: 'position' }]),
     citationContext(db, version),
   ]);
@@ -357,15 +353,6 @@ export async function listAdditionalAllowances(db: Database, version: EditionVer
   }));
 }
 
-interface TaggedProvenance {
-  source: string;
-  confidence: string;
-  verified: boolean;
-  note: string;
-  fromMemory?: string;
-  tag?: string;
-}
-
 /** An edition rule's provenance (stored as JSON with its tag), cited under the section the rule belongs to. */
 function taggedProvenance(value: TaggedProvenance, context: CitationContext, sectionKey: string): Provenance {
   const citation = citationOf({ edition: context.edition, reference: context.sections[sectionKey] ?? '', ...value });
@@ -394,6 +381,7 @@ export async function getRules(db: Database, version: EditionVersion): Promise<R
     db('edition_sections').where(scope(version)).orderBy('key'),
     citationContext(db, version),
   ]);
+  if (!row) throw new Error(`The code tables of ${version.edition.id} (${version.dataVersion}) have no edition rules.`);
   return {
     daylight: {
       primarySidelitThresholdW: row.daylight_primary_sidelit_threshold_w,
@@ -412,7 +400,10 @@ export async function getRules(db: Database, version: EditionVersion): Promise<R
       provenance: taggedProvenance(row.daylight_provenance, context, 'daylightSidelighting'),
     },
     roomGeometry:
-      row.room_geometry_increase_percent === null ? null : { increasePercent: row.room_geometry_increase_percent, provenance: taggedProvenance(row.room_geometry_provenance, context, 'roomGeometry') },
+      row.room_geometry_increase_percent === null ? null : {
+            increasePercent: row.room_geometry_increase_percent,
+            provenance: taggedProvenance(stored(row.room_geometry_provenance, `the room-geometry provenance of ${version.edition.id} (${version.dataVersion})`), context, 'roomGeometry'),
+          },
     smallEnclosedSpaceFt2: row.small_enclosed_space_ft2,
     smallEnclosedSpaceProvenance: row.small_enclosed_space_provenance ? taggedProvenance(row.small_enclosed_space_provenance, context, context.sections['occupantSensor'] ? 'occupantSensor' : 'controlsGeneral') : null,
     trackMinimumWPerFt: row.track_minimum_w_per_ft,

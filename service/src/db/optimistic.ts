@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { AppError } from '../http/app-error.js';
+import { NotFound, Stale } from '../domain-errors.js';
 
 export interface VersionedRow {
   id: string;
@@ -17,16 +17,16 @@ async function lastChange(trx: Knex, table: string, id: string): Promise<{ versi
   return row ? { version: row.version, updatedAt: row.updated_at.toISOString(), updatedBy: row.name } : undefined;
 }
 
-export function staleWrite(what: string, change: { version: number; updatedAt: string; updatedBy: string | null }): AppError {
+export function staleWrite(what: string, change: { version: number; updatedAt: string; updatedBy: string | null }): Stale {
   const who = change.updatedBy ?? 'someone';
-  return AppError.conflict(`${what} was changed by ${who} at ${change.updatedAt} (now version ${change.version}). Reload to see their change, then apply yours again.`, [
+  return new Stale(`${what} was changed by ${who} at ${change.updatedAt} (now version ${change.version}). Reload to see their change, then apply yours again.`, change.version, [
     { path: 'version', message: `current version is ${change.version}` },
   ]);
 }
 
 /**
  * Updates one row only if it still has the version the writer read; bumps the version.
- * A stale version gets 409 naming who changed it; a missing row gets 404. Nothing is overwritten.
+ * A stale version is refused as stale, naming who changed it; a missing row is not found. Nothing is overwritten.
  */
 export async function updateVersioned(
   trx: Knex,
@@ -42,7 +42,7 @@ export async function updateVersioned(
     .update({ ...changes, version: trx.raw('version + 1'), updated_at: trx.fn.now(), updated_by: userId });
   if (updated === 1) return;
   const exists = await trx(table).where(scope).first('id');
-  if (!exists) throw AppError.notFound(`${what} does not exist.`);
+  if (!exists) throw new NotFound(`${what} does not exist.`);
   const change = await lastChange(trx, table, scope.id);
   throw staleWrite(what, change!);
 }
@@ -52,7 +52,7 @@ export async function deleteVersioned(trx: Knex, table: string, scope: { id: str
   const deleted = await trx(table).where({ ...scope, version: expectedVersion }).delete();
   if (deleted === 1) return;
   const exists = await trx(table).where(scope).first('id');
-  if (!exists) throw AppError.notFound(`${what} does not exist.`);
+  if (!exists) throw new NotFound(`${what} does not exist.`);
   const change = await lastChange(trx, table, scope.id);
   throw staleWrite(what, change!);
 }

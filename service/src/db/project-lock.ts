@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { AppError } from '../http/app-error.js';
+import { Archived, NotFound } from '../domain-errors.js';
 
 export interface LockedProject {
   id: string;
@@ -17,9 +17,9 @@ export interface LockedProject {
  */
 export async function lockProject(trx: Knex.Transaction, projectId: string, options: { allowArchived?: boolean } = {}): Promise<LockedProject> {
   const project = await trx('projects').where({ id: projectId }).forUpdate().first<LockedProject | undefined>('id', 'edition_id', 'method', 'units', 'archived_at');
-  if (!project) throw AppError.notFound('No such project.');
+  if (!project) throw new NotFound('No such project.');
   if (project.archived_at && !options.allowArchived) {
-    throw new AppError(409, 'archived', 'This project is archived. Restore it from the projects list to change it.');
+    throw new Archived('This project is archived. Restore it from the projects list to change it.');
   }
   return project;
 }

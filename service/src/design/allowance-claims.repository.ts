@@ -4,8 +4,8 @@ import { dec, text } from '../compliance/numbers.js';
 import type { Database } from '../db/database.js';
 import { updateVersioned, type VersionedRow } from '../db/optimistic.js';
 import { lockProject } from '../db/project-lock.js';
-import { AppError } from '../http/app-error.js';
-import { notRestorable, restoreDays, touchProject } from './design.repository.js';
+import { Conflict, NotFound, NotRestorable, Refused } from '../domain-errors.js';
+import { restoreDays, touchProject } from './design.repository.js';
 import { assertAllowanceFitsEdition } from './edition-checks.js';
 
 /** A space's claim on one of the edition's additional allowances (retail display on a sales floor). */
@@ -60,19 +60,19 @@ async function oneClaim(db: Knex, id: string): Promise<AllowanceClaim> {
 
 /** A live claim of the project, or 404. */
 async function assertClaimExists(trx: Knex, projectId: string, id: string): Promise<void> {
-  if (!(await trx('retail_display_claims').where({ id, project_id: projectId }).whereNull('deleted_at').first('id'))) throw AppError.notFound('This claim does not exist.');
+  if (!(await trx('retail_display_claims').where({ id, project_id: projectId }).whereNull('deleted_at').first('id'))) throw new NotFound('This claim does not exist.');
 }
 
 /** A space claims each allowance once, for at most its own floor area. */
 async function assertClaimFits(trx: Knex, projectId: string, input: AllowanceClaimInput, exceptId?: string): Promise<string> {
   const space = await trx('spaces').where({ id: input.spaceId, project_id: projectId }).first<{ name: string; area: string } | undefined>('name', 'area');
-  if (!space) throw AppError.badRequest('This space does not exist.', [{ path: 'spaceId', message: 'Choose a space of the project.' }]);
+  if (!space) throw new Refused('This space does not exist.', [{ path: 'spaceId', message: 'Choose a space of the project.' }]);
   if (dec(input.area).greaterThan(dec(space.area))) {
-    throw AppError.badRequest('The claimed area is larger than the space.', [{ path: 'area', message: `At most ${text(dec(space.area))}, the space’s floor area.` }]);
+    throw new Refused('The claimed area is larger than the space.', [{ path: 'area', message: `At most ${text(dec(space.area))}, the space’s floor area.` }]);
   }
   const twice = trx('retail_display_claims').where({ project_id: projectId, space_id: input.spaceId, allowance_key: input.allowance }).whereNull('deleted_at');
   if (exceptId) twice.whereNot({ id: exceptId });
-  if (await twice.first('id')) throw AppError.conflict(`“${space.name}” already claims this allowance.`, [{ path: 'allowance', message: 'Each allowance once per space.' }]);
+  if (await twice.first('id')) throw new Conflict(`“${space.name}” already claims this allowance.`, [{ path: 'allowance', message: 'Each allowance once per space.' }]);
   return space.name;
 }
 
@@ -135,21 +135,21 @@ export async function restoreAllowanceClaim(db: Database, projectId: string, id:
       .where({ project_id: projectId, entity: 'additional-allowance', entity_id: id, action: 'delete' })
       .orderBy('id', 'desc')
       .first<{ id: string } | undefined>('id');
-    if (!row || !entry) throw AppError.notFound('There is nothing deleted here to restore.');
+    if (!row || !entry) throw new NotFound('There is nothing deleted here to restore.');
     const space = await trx('spaces').where({ id: row.space_id }).first<{ name: string }>('name');
     const what = `The claim on “${space.name}”`;
     if (Date.now() - row.deleted_at!.getTime() > restoreDays * 86_400_000) {
-      throw notRestorable(`${what} was deleted more than ${restoreDays} days ago and can no longer be restored; claim it again instead.`);
+      throw new NotRestorable(`${what} was deleted more than ${restoreDays} days ago and can no longer be restored; claim it again instead.`);
     }
     const input = { spaceId: row.space_id, allowance: row.allowance_key, area: text(dec(row.area)) };
     try {
       await assertAllowanceFitsEdition(trx, projectId, input);
       await assertClaimFits(trx, projectId, input, id);
     } catch (error) {
-      // The rules of a new claim answer 400 or 409 with their reason; for a restore that reason is why not.
-      if (!(error instanceof AppError) || (error.status !== 400 && error.status !== 409)) throw error;
+      // The rules of a new claim refuse it, or find it clashing, with their reason; for a restore that reason is why not.
+      if (!(error instanceof Refused) && !(error instanceof Conflict)) throw error;
       const why = [error.message, ...error.details.map((detail) => detail.message)].join(' ');
-      throw notRestorable(`${what} cannot be restored as it was: ${why}`);
+      throw new NotRestorable(`${what} cannot be restored as it was: ${why}`);
     }
     await trx('retail_display_claims')
       .where({ id })

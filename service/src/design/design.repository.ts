@@ -7,7 +7,7 @@ import type { Database } from '../db/database.js';
 import { deleteVersioned, updateVersioned, type VersionedRow } from '../db/optimistic.js';
 import { lockProject } from '../db/project-lock.js';
 import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
-import { AppError, type ErrorDetail } from '../http/app-error.js';
+import { Conflict, InUse, KeyReused, NotFound, NotRestorable, Refused, type ErrorDetail } from '../domain-errors.js';
 import { exteriorApplicationInputSchema, luminaireTypeInputSchema, spaceInputSchema, type ExteriorApplicationInput, type LuminaireTypeInput, type SpaceInput } from './design.schema.js';
 
 /** A NUMERIC column's string in plain form ("12.5000" → "12.5"); absent stays absent. */
@@ -115,13 +115,13 @@ async function assertTagFree(trx: Knex, projectId: string, tag: string, exceptId
   if (await query.first('id')) throw tagTaken(tag);
 }
 
-function tagTaken(tag: string): AppError {
-  return AppError.conflict(`A luminaire type tagged "${tag}" already exists in this project.`, [{ path: 'tag', message: 'Tags are unique within a project.' }]);
+function tagTaken(tag: string): Conflict {
+  return new Conflict(`A luminaire type tagged "${tag}" already exists in this project.`, [{ path: 'tag', message: 'Tags are unique within a project.' }]);
 }
 
 async function storedLuminaireType(trx: Knex, projectId: string, id: string): Promise<LuminaireTypeRow> {
   const row = await trx('luminaire_types').where({ id, project_id: projectId }).first<LuminaireTypeRow | undefined>();
-  if (!row) throw AppError.notFound('This luminaire type does not exist.');
+  if (!row) throw new NotFound('This luminaire type does not exist.');
   return row;
 }
 
@@ -159,9 +159,7 @@ export async function deleteLuminaireType(db: Database, projectId: string, id: s
     const users = await trx('space_luminaires as l').join('spaces as s', 's.id', 'l.space_id').where('l.luminaire_type_id', id).distinct<{ name: string }[]>('s.name');
     if (users.length > 0) {
       const names = users.map((space) => space.name).sort();
-      throw new AppError(
-        409,
-        'in_use',
+      throw new InUse(
         `This luminaire type is still counted in ${names.length} space(s): ${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}. Remove those counts first.`,
       );
     }
@@ -353,7 +351,7 @@ async function resolveTags(trx: Knex, projectId: string, inputs: { luminaires: S
       if (!byTag.has(group.tag)) problems.push({ path: `${pathPrefix(index)}luminaires.${groupIndex}.tag`, message: `No luminaire type has the tag "${group.tag}".` });
     }),
   );
-  if (problems.length > 0) throw AppError.badRequest('Some luminaire tags are not defined in this project.', problems);
+  if (problems.length > 0) throw new Refused('Some luminaire tags are not defined in this project.', problems);
   return byTag;
 }
 
@@ -454,14 +452,14 @@ async function createImportedTypes(trx: Knex.Transaction, projectId: string, inp
   if (taken.size > 0) {
     const tags = [...taken].sort().map((tag) => `"${tag}"`);
     const message = tags.length === 1 ? `A luminaire type tagged ${tags[0]} already exists in this project.` : `Luminaire types tagged ${tags.join(', ')} already exist in this project.`;
-    throw AppError.conflict(
+    throw new Conflict(
       `${message} Nothing was imported.`,
       inputs.flatMap((input, index) => (taken.has(input.tag) ? [{ path: `luminaireTypes.${index}.tag`, message: 'Tags are unique within a project.' }] : [])),
     );
   }
   const { count } = (await trx('luminaire_types').where({ project_id: projectId }).count<{ count: string }>('* as count').first()) ?? { count: '0' };
   if (Number(count) + inputs.length > documentLimits.luminaireTypes) {
-    throw AppError.badRequest(`A project holds at most ${documentLimits.luminaireTypes.toLocaleString('en-US')} luminaire types; this one has ${Number(count).toLocaleString('en-US')}.`, [
+    throw new Refused(`A project holds at most ${documentLimits.luminaireTypes.toLocaleString('en-US')} luminaire types; this one has ${Number(count).toLocaleString('en-US')}.`, [
       { path: 'luminaireTypes', message: 'Too many luminaire types for one project.' },
     ]);
   }
@@ -495,7 +493,7 @@ export async function createSpaces(
       const earlier = await trx('idempotency_keys').where({ project_id: projectId, user_id: userId, key: importKey.key }).first<{ request_hash: string; space_ids: string[] } | undefined>();
       if (earlier) {
         if (earlier.request_hash !== importKey.requestHash) {
-          throw new AppError(422, 'idempotency_key_reused', 'This import key was already used for a different import. Start a new import.');
+          throw new KeyReused('This import key was already used for a different import. Start a new import.');
         }
         const rows: SpaceRow[] = await withUpdaterName(trx, 'spaces').whereIn('t.id', earlier.space_ids).orderBy('t.position');
         return spaceRecords(trx, rows);
@@ -504,7 +502,7 @@ export async function createSpaces(
     const { count } = (await trx('spaces').where({ project_id: projectId }).count<{ count: string }>('* as count').first()) ?? { count: '0' };
     const room = documentLimits.spaces - Number(count);
     if (inputs.length > room) {
-      throw AppError.badRequest(`A project holds at most ${documentLimits.spaces.toLocaleString('en-US')} spaces; this one has ${Number(count).toLocaleString('en-US')}, so at most ${Math.max(room, 0).toLocaleString('en-US')} more.`, [
+      throw new Refused(`A project holds at most ${documentLimits.spaces.toLocaleString('en-US')} spaces; this one has ${Number(count).toLocaleString('en-US')}, so at most ${Math.max(room, 0).toLocaleString('en-US')} more.`, [
         { path: 'spaces', message: 'Too many spaces for one project.' },
       ]);
     }
@@ -538,7 +536,7 @@ export async function createSpaces(
 
 export async function getSpace(db: Knex, projectId: string, spaceId: string): Promise<SpaceRecord> {
   const exists = await db('spaces').where({ id: spaceId, project_id: projectId }).first('id');
-  if (!exists) throw AppError.notFound('This space does not exist.');
+  if (!exists) throw new NotFound('This space does not exist.');
   return oneSpace(db, spaceId);
 }
 
@@ -546,7 +544,7 @@ export async function replaceSpace(db: Database, projectId: string, spaceId: str
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     const stored = await trx('spaces').where({ id: spaceId, project_id: projectId }).first<(SpaceRow & { unit_origin: UnitOrigin | null }) | undefined>();
-    if (!stored) throw AppError.notFound('This space does not exist.');
+    if (!stored) throw new NotFound('This space does not exist.');
     const before = await oneSpace(trx, spaceId);
     const typeIds = await resolveTags(trx, projectId, [input], () => '');
     const columns = spaceColumns(input);
@@ -581,7 +579,7 @@ export async function setControlOnSpaces(
     await lockProject(trx, projectId);
     const ids = targets.map((target) => target.id);
     const stored = await trx('spaces').where({ project_id: projectId }).whereIn('id', ids).select<{ id: string; name: string; version: number }[]>('id', 'name', 'version');
-    if (stored.length !== new Set(ids).size) throw AppError.notFound('Some of these spaces no longer exist. Reload and choose again.');
+    if (stored.length !== new Set(ids).size) throw new NotFound('Some of these spaces no longer exist. Reload and choose again.');
     const wanted = new Map(targets.map((target) => [target.id, target.version]));
     const stale = stored.filter((row) => wanted.get(row.id) !== row.version);
     if (stale.length > 0) {
@@ -590,7 +588,7 @@ export async function setControlOnSpaces(
       const nameOf = new Map(stale.map((row) => [row.id, row.name]));
       // One detail per changed space, at its place in the request, so a client can name each one.
       const details = targets.flatMap((target, index) => (staleIds.has(target.id) ? [{ path: `spaces.${index}`, message: `“${nameOf.get(target.id)}” changed since you read it.` }] : []));
-      throw AppError.conflict(`${names.length} of these spaces changed since you read them (${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}). Reload and apply the control again.`, details);
+      throw new Conflict(`${names.length} of these spaces changed since you read them (${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}). Reload and apply the control again.`, details);
     }
     const before = await spaceRecords(trx, await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position'));
     await trx('space_controls').whereIn('space_id', ids).where({ strategy: control.strategy }).delete();
@@ -668,7 +666,7 @@ async function assertApplicationFree(trx: Knex, projectId: string, key: string, 
   const query = trx('exterior_applications').where({ project_id: projectId, application_key: key });
   if (exceptId) query.whereNot({ id: exceptId });
   if (await query.first('id')) {
-    throw AppError.conflict('This exterior application is already on the project; change its quantity and watts there instead.', [{ path: 'key', message: 'Each application appears once.' }]);
+    throw new Conflict('This exterior application is already on the project; change its quantity and watts there instead.', [{ path: 'key', message: 'Each application appears once.' }]);
   }
 }
 
@@ -689,7 +687,7 @@ export async function replaceExteriorApplication(db: Database, projectId: string
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first<ExteriorRow | undefined>();
-    if (!stored) throw AppError.notFound('This exterior application does not exist.');
+    if (!stored) throw new NotFound('This exterior application does not exist.');
     const before = exteriorRecord(stored);
     await assertApplicationFree(trx, projectId, input.key, id);
     const columns = exteriorColumns(input);
@@ -706,7 +704,7 @@ export async function deleteExteriorApplication(db: Database, projectId: string,
   await db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first<ExteriorRow | undefined>();
-    if (!stored) throw AppError.notFound('This exterior application does not exist.');
+    if (!stored) throw new NotFound('This exterior application does not exist.');
     const before = exteriorRecord(stored);
     await deleteVersioned(trx, 'exterior_applications', { id, project_id: projectId }, version, 'This exterior application');
     await recordDesignChange(trx, { userId, projectId, action: 'delete', entity: 'exterior-application', entityId: id, name: before.description || before.key, before });
@@ -731,10 +729,6 @@ function withoutStamp(record: Record<string, unknown>): Record<string, unknown> 
   return fields;
 }
 
-export function notRestorable(message: string): AppError {
-  return new AppError(409, 'not_restorable', message);
-}
-
 /**
  * Brings back a space, luminaire type or exterior application deleted in the last
  * {@link restoreDays} days, with the id, values and (for a space) the position and children it
@@ -749,18 +743,18 @@ export async function restoreDeleted(db: Database, projectId: string, entity: De
       .first<DeleteEntry | undefined>('id', 'at', 'detail');
     const table = { space: 'spaces', 'luminaire-type': 'luminaire_types', 'exterior-application': 'exterior_applications' }[entity];
     if (!entry || (await trx(table).where({ id: entityId }).first('id'))) {
-      throw AppError.notFound('There is nothing deleted here to restore.');
+      throw new NotFound('There is nothing deleted here to restore.');
     }
     if (Date.now() - entry.at.getTime() > restoreDays * 86_400_000) {
-      throw notRestorable(`“${entry.detail.name}” was deleted more than ${restoreDays} days ago and can no longer be restored; add it again instead.`);
+      throw new NotRestorable(`“${entry.detail.name}” was deleted more than ${restoreDays} days ago and can no longer be restored; add it again instead.`);
     }
     const fields = withoutStamp(entry.detail.before);
     let restored: SpaceRecord | LuminaireTypeRecord | ExteriorApplicationRecord;
     if (entity === 'space') {
       const parsed = spaceInputSchema.safeParse({ ...fields, luminaires: ((fields['luminaires'] as Record<string, unknown>[] | undefined) ?? []).map(({ luminaireTypeId: _type, ...group }) => group) });
-      if (!parsed.success) throw notRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
+      if (!parsed.success) throw new NotRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
       const typeIds = await resolveTags(trx, projectId, [parsed.data], () => '').catch(() => {
-        throw notRestorable(`“${entry.detail.name}” counted luminaire types that no longer exist; restore or add them first.`);
+        throw new NotRestorable(`“${entry.detail.name}” counted luminaire types that no longer exist; restore or add them first.`);
       });
       const wanted = Number(entry.detail.before['position']);
       const taken = Number.isInteger(wanted) ? await trx('spaces').where({ project_id: projectId, position: wanted }).first('id') : true;
@@ -770,13 +764,13 @@ export async function restoreDeleted(db: Database, projectId: string, entity: De
       restored = await oneSpace(trx, entityId);
     } else if (entity === 'luminaire-type') {
       const parsed = luminaireTypeInputSchema.safeParse(fields);
-      if (!parsed.success) throw notRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
+      if (!parsed.success) throw new NotRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
       await assertTagFree(trx, projectId, parsed.data.tag);
       await trx('luminaire_types').insert({ id: entityId, project_id: projectId, ...luminaireTypeColumns(parsed.data), updated_by: userId });
       restored = await oneLuminaireType(trx, entityId);
     } else {
       const parsed = exteriorApplicationInputSchema.safeParse(fields);
-      if (!parsed.success) throw notRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
+      if (!parsed.success) throw new NotRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
       await assertApplicationFree(trx, projectId, parsed.data.key);
       const { max } = (await trx('exterior_applications').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? { max: null };
       await trx('exterior_applications').insert({ id: entityId, project_id: projectId, position: (max ?? -1) + 1, ...exteriorColumns(parsed.data), updated_by: userId });

@@ -1,7 +1,7 @@
 import { Router, type Request } from 'express';
 import { AppError } from '../http/app-error.js';
 import type { Database } from '../db/database.js';
-import { requireProjectAction } from '../http/project-access.js';
+import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { idParam, parse } from '../http/validate.js';
 import {
@@ -40,16 +40,22 @@ import {
 } from './design.schema.js';
 import { createAllowanceClaim, deleteAllowanceClaim, listAllowanceClaims, replaceAllowanceClaim, restoreAllowanceClaim } from './allowance-claims.repository.js';
 import { listImportAliases, saveImportAliases } from './import-aliases.repository.js';
+import { keepVerdict } from '../evaluation/evaluation.service.js';
 import { projectDocument } from './project-document.js';
 import { assertAliasesFitEdition, assertAllowanceFitsEdition, assertControlFitsEdition, assertExteriorApplicationFitsEdition, assertSpacesFitEdition } from './edition-checks.js';
 
 /** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
 export function designRouter(db: Database): Router {
   const router = Router({ mergeParams: true });
-  const read = requireProjectAction(db, 'read');
-  const edit = requireProjectAction(db, 'edit-design');
-  const projectId = (req: { projectAccess?: { projectId: string } }) => req.projectAccess!.projectId;
+  const read = requireProjectAction('read');
+  const edit = requireProjectAction('edit-design');
+  const projectId = (req: Request) => projectAccess(req).projectId;
   const userId = (req: Parameters<typeof currentSession>[0]) => currentSession(req).user.id;
+  /** After a write to the design, once committed: the project list's verdict for the design as it now is. */
+  const changed = async <Written>(req: Request, written: Written): Promise<Written> => {
+    await keepVerdict(db, projectId(req), req.log);
+    return written;
+  };
 
   router.get('/document', read, async (req, res) => {
     res.json(await projectDocument(db, projectId(req)));
@@ -59,15 +65,15 @@ export function designRouter(db: Database): Router {
     res.json(await listLuminaireTypes(db, projectId(req)));
   });
   router.post('/luminaire-types', edit, async (req, res) => {
-    res.status(201).json(await createLuminaireType(db, projectId(req), parse(luminaireTypeInputSchema, req.body), userId(req)));
+    res.status(201).json(await changed(req, await createLuminaireType(db, projectId(req), parse(luminaireTypeInputSchema, req.body), userId(req))));
   });
   router.put('/luminaire-types/:typeId', edit, async (req, res) => {
     const { version, ...input } = parse(luminaireTypeWriteSchema, req.body);
-    res.json(await replaceLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, input, userId(req)));
+    res.json(await changed(req, await replaceLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, input, userId(req))));
   });
   router.delete('/luminaire-types/:typeId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await deleteLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, userId(req));
+    await changed(req, await deleteLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, userId(req)));
     res.status(204).end();
   });
 
@@ -77,18 +83,18 @@ export function designRouter(db: Database): Router {
   router.post('/spaces', edit, async (req, res) => {
     const input = parse(spaceInputSchema, req.body);
     await assertSpacesFitEdition(db, projectId(req), [input], true);
-    const [space] = await createSpaces(db, projectId(req), [input], userId(req));
+    const [space] = await changed(req, await createSpaces(db, projectId(req), [input], userId(req)));
     res.status(201).json(space);
   });
   router.post('/spaces/bulk', edit, async (req, res) => {
     const { spaces, luminaireTypes } = parse(bulkSpacesSchema, req.body);
     await assertSpacesFitEdition(db, projectId(req), spaces, false, luminaireTypes);
-    res.status(201).json(await createSpaces(db, projectId(req), spaces, userId(req), importKey(req), luminaireTypes));
+    res.status(201).json(await changed(req, await createSpaces(db, projectId(req), spaces, userId(req), importKey(req), luminaireTypes)));
   });
   router.post('/spaces/controls', edit, async (req, res) => {
     const { spaces, control } = parse(spaceControlsSchema, req.body);
     await assertControlFitsEdition(db, projectId(req), control);
-    res.json(await setControlOnSpaces(db, projectId(req), spaces, control, userId(req)));
+    res.json(await changed(req, await setControlOnSpaces(db, projectId(req), spaces, control, userId(req))));
   });
   router.get('/import-aliases', read, async (req, res) => {
     res.json(await listImportAliases(db, projectId(req)));
@@ -104,7 +110,7 @@ export function designRouter(db: Database): Router {
   router.put('/spaces/:spaceId', edit, async (req, res) => {
     const { version, ...input } = parse(spaceWriteSchema, req.body);
     await assertSpacesFitEdition(db, projectId(req), [input], true);
-    res.json(await replaceSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'), version, input, userId(req)));
+    res.json(await changed(req, await replaceSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'), version, input, userId(req))));
   });
   router.patch('/spaces/:spaceId', edit, async (req, res) => {
     // Only the fields the body names change; the rest (children included) stay as stored.
@@ -114,11 +120,11 @@ export function designRouter(db: Database): Router {
     const named = Object.fromEntries(Object.entries(req.body as Record<string, unknown>).filter(([field]) => field in spaceInputSchema.shape));
     const merged = parse(spaceInputSchema, { ...stored, luminaires: stored.luminaires.map(({ luminaireTypeId: _type, ...group }) => group), ...named });
     await assertSpacesFitEdition(db, projectId(req), [merged], true);
-    res.json(await replaceSpace(db, projectId(req), current.id, version, merged, userId(req)));
+    res.json(await changed(req, await replaceSpace(db, projectId(req), current.id, version, merged, userId(req))));
   });
   router.delete('/spaces/:spaceId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await deleteSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'), version, userId(req));
+    await changed(req, await deleteSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'), version, userId(req)));
     res.status(204).end();
   });
 
@@ -128,16 +134,16 @@ export function designRouter(db: Database): Router {
   router.post('/exterior-applications', edit, async (req, res) => {
     const input = parse(exteriorApplicationInputSchema, req.body);
     await assertExteriorApplicationFitsEdition(db, projectId(req), input);
-    res.status(201).json(await createExteriorApplication(db, projectId(req), input, userId(req)));
+    res.status(201).json(await changed(req, await createExteriorApplication(db, projectId(req), input, userId(req))));
   });
   router.put('/exterior-applications/:applicationId', edit, async (req, res) => {
     const { version, ...input } = parse(exteriorApplicationWriteSchema, req.body);
     await assertExteriorApplicationFitsEdition(db, projectId(req), input);
-    res.json(await replaceExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, input, userId(req)));
+    res.json(await changed(req, await replaceExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, input, userId(req))));
   });
   router.delete('/exterior-applications/:applicationId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await deleteExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, userId(req));
+    await changed(req, await deleteExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, userId(req)));
     res.status(204).end();
   });
 
@@ -147,31 +153,31 @@ export function designRouter(db: Database): Router {
   router.post('/additional-allowances', edit, async (req, res) => {
     const input = parse(allowanceClaimInputSchema, req.body);
     await assertAllowanceFitsEdition(db, projectId(req), input);
-    res.status(201).json(await createAllowanceClaim(db, projectId(req), input, userId(req)));
+    res.status(201).json(await changed(req, await createAllowanceClaim(db, projectId(req), input, userId(req))));
   });
   router.put('/additional-allowances/:claimId', edit, async (req, res) => {
     const { version, ...input } = parse(allowanceClaimWriteSchema, req.body);
     await assertAllowanceFitsEdition(db, projectId(req), input);
-    res.json(await replaceAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), version, input, userId(req)));
+    res.json(await changed(req, await replaceAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), version, input, userId(req))));
   });
   router.delete('/additional-allowances/:claimId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await deleteAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), version, userId(req));
+    await changed(req, await deleteAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), version, userId(req)));
     res.status(204).end();
   });
 
   // Undo of a delete, from the snackbar or the History page: the thing comes back with its id.
   router.post('/spaces/:spaceId/restore', edit, async (req, res) => {
-    res.status(201).json(await restoreDeleted(db, projectId(req), 'space', idParam(req.params['spaceId'], 'This space'), userId(req)));
+    res.status(201).json(await changed(req, await restoreDeleted(db, projectId(req), 'space', idParam(req.params['spaceId'], 'This space'), userId(req))));
   });
   router.post('/luminaire-types/:typeId/restore', edit, async (req, res) => {
-    res.status(201).json(await restoreDeleted(db, projectId(req), 'luminaire-type', idParam(req.params['typeId'], 'This luminaire type'), userId(req)));
+    res.status(201).json(await changed(req, await restoreDeleted(db, projectId(req), 'luminaire-type', idParam(req.params['typeId'], 'This luminaire type'), userId(req))));
   });
   router.post('/exterior-applications/:applicationId/restore', edit, async (req, res) => {
-    res.status(201).json(await restoreDeleted(db, projectId(req), 'exterior-application', idParam(req.params['applicationId'], 'This exterior application'), userId(req)));
+    res.status(201).json(await changed(req, await restoreDeleted(db, projectId(req), 'exterior-application', idParam(req.params['applicationId'], 'This exterior application'), userId(req))));
   });
   router.post('/additional-allowances/:claimId/restore', edit, async (req, res) => {
-    res.status(201).json(await restoreAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), userId(req)));
+    res.status(201).json(await changed(req, await restoreAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), userId(req))));
   });
 
   return router;

@@ -2,7 +2,7 @@ import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import { exceptionProblems, exteriorExemptionProblems, salesAreaSpaceType } from '../compliance/document.js';
 import { validateDocument, type EditionData } from '../compliance/index.js';
 import type { Database } from '../db/database.js';
-import { AppError, type ErrorDetail } from '../http/app-error.js';
+import { Refused, type ErrorDetail } from '../domain-errors.js';
 import { listLuminaireTypes } from './design.repository.js';
 import type { ExteriorApplicationInput, LuminaireTypeInput, SpaceInput } from './design.schema.js';
 
@@ -36,7 +36,7 @@ export async function assertSpacesFitEdition(db: Database, projectId: string, sp
   const details: ErrorDetail[] = outcome.problems
     .filter((problem) => problem.path.startsWith('spaces.') || ownType(problem.path))
     .map((problem) => ({ path: single ? problem.path.replace(/^spaces\.0\./, '') : problem.path, message: problem.message }));
-  if (details.length > 0) throw AppError.badRequest('Some values do not fit the project’s code edition and method.', details);
+  if (details.length > 0) throw new Refused('Some values do not fit the project’s code edition and method.', details);
 }
 
 /**
@@ -48,19 +48,19 @@ export async function assertExteriorApplicationFitsEdition(db: Database, project
   const edition = await projectEdition(db, projectId);
   const application = edition.exteriorApplications.find((candidate) => candidate.key === input.key);
   if (!application) {
-    throw AppError.badRequest('This exterior application is not one of the project’s code edition.', [{ path: 'key', message: 'Choose an application from the edition’s list.' }]);
+    throw new Refused('This exterior application is not one of the project’s code edition.', [{ path: 'key', message: 'Choose an application from the edition’s list.' }]);
   }
   if (application.isBaseSiteAllowance) {
-    throw AppError.badRequest('The base site allowance comes with the lighting zone; it is not entered as an application.', [{ path: 'key', message: 'Choose another application.' }]);
+    throw new Refused('The base site allowance comes with the lighting zone; it is not entered as an application.', [{ path: 'key', message: 'Choose another application.' }]);
   }
   const problems = exteriorExemptionProblems(input, edition);
-  if (problems.length > 0) throw AppError.badRequest('The exempt lighting is not complete.', problems);
+  if (problems.length > 0) throw new Refused('The exempt lighting is not complete.', problems);
 }
 
 async function projectEdition(db: Database, projectId: string): Promise<EditionData> {
   const project = await db('projects').where({ id: projectId }).first<{ edition_id: string | null } | undefined>('edition_id');
   const edition = project?.edition_id ? await loadEditionData(db, project.edition_id) : undefined;
-  if (!edition) throw AppError.badRequest('Choose the code edition in the set-up first.', [{ path: 'edition', message: 'The project has no code edition yet.' }]);
+  if (!edition) throw new Refused('Choose the code edition in the set-up first.', [{ path: 'edition', message: 'The project has no code edition yet.' }]);
   return edition;
 }
 
@@ -68,10 +68,10 @@ async function projectEdition(db: Database, projectId: string): Promise<EditionD
 export async function assertControlFitsEdition(db: Database, projectId: string, control: SpaceInput['controls'][number]): Promise<void> {
   const edition = await projectEdition(db, projectId);
   if (!edition.controlStrategies.some((candidate) => candidate.key === control.strategy)) {
-    throw AppError.badRequest('This control is not one of the project’s code edition.', [{ path: 'control.strategy', message: 'Choose a control from the edition’s list.' }]);
+    throw new Refused('This control is not one of the project’s code edition.', [{ path: 'control.strategy', message: 'Choose a control from the edition’s list.' }]);
   }
   const problems = exceptionProblems(control);
-  if (problems.length > 0) throw AppError.badRequest('The exception claimed is not complete.', problems.map((problem) => ({ path: `control.${problem.path}`, message: problem.message })));
+  if (problems.length > 0) throw new Refused('The exception claimed is not complete.', problems.map((problem) => ({ path: `control.${problem.path}`, message: problem.message })));
 }
 
 /** Remembered import names must point at types the edition has. */
@@ -84,7 +84,7 @@ export async function assertAliasesFitEdition(db: Database, projectId: string, a
     ...(alias.buildingAreaType !== null && !areaTypes.has(alias.buildingAreaType) ? [{ path: `aliases.${index}.buildingAreaType`, message: 'Not a building area type of the project’s edition.' }] : []),
     ...(alias.spaceType === null && alias.buildingAreaType === null ? [{ path: `aliases.${index}`, message: 'Match the name to a space type or a building area type.' }] : []),
   ]);
-  if (details.length > 0) throw AppError.badRequest('Some matches do not fit the project’s code edition.', details);
+  if (details.length > 0) throw new Refused('Some matches do not fit the project’s code edition.', details);
 }
 
 /**
@@ -95,16 +95,16 @@ export async function assertAllowanceFitsEdition(db: Database, projectId: string
   const edition = await projectEdition(db, projectId);
   const project = await db('projects').where({ id: projectId }).first<{ method: string | null }>('method');
   if (project?.method !== 'space-by-space') {
-    throw AppError.badRequest('Additional allowances are part of the space-by-space method.', [{ path: 'allowance', message: 'Switch the project to the space-by-space method first.' }]);
+    throw new Refused('Additional allowances are part of the space-by-space method.', [{ path: 'allowance', message: 'Switch the project to the space-by-space method first.' }]);
   }
   const allowance = edition.additionalAllowances.find((candidate) => candidate.key === input.allowance);
   if (!allowance) {
-    throw AppError.badRequest('This allowance is not one of the project’s code edition.', [{ path: 'allowance', message: 'Choose an allowance from the edition’s list.' }]);
+    throw new Refused('This allowance is not one of the project’s code edition.', [{ path: 'allowance', message: 'Choose an allowance from the edition’s list.' }]);
   }
   // The decorative allowance is for any space (90.1 §9.6.2(a)); only retail display needs a sales floor.
   if (allowance.kind !== 'retail-display') return;
   const space = await db('spaces').where({ id: input.spaceId, project_id: projectId }).first<{ space_type: string | null } | undefined>('space_type');
   if (space && space.space_type !== salesAreaSpaceType) {
-    throw AppError.badRequest('The display allowance is for sales floors.', [{ path: 'spaceId', message: 'Choose a space whose type is the sales area.' }]);
+    throw new Refused('The display allowance is for sales floors.', [{ path: 'spaceId', message: 'Choose a space whose type is the sales area.' }]);
   }
 }

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { EvaluationDocumentInput } from '../compliance/document.js';
-import { AppError } from '../http/app-error.js';
+import { NotFound, Refused } from '../domain-errors.js';
 import { listExteriorApplications, listLuminaireTypes, listSpaces } from './design.repository.js';
 
 interface ProjectSetupRow {
@@ -17,9 +17,9 @@ interface ProjectSetupRow {
  */
 export async function projectDocument(db: Knex, projectId: string): Promise<EvaluationDocumentInput> {
   const project = await db('projects').where({ id: projectId }).first<ProjectSetupRow | undefined>('edition_id', 'method', 'units', 'lighting_zone', 'amendments');
-  if (!project) throw AppError.notFound('No such project.');
+  if (!project) throw new NotFound('No such project.');
   if (!project.edition_id || !project.method) {
-    throw AppError.badRequest('Choose the code edition and compliance method in the set-up first.', [
+    throw new Refused('Choose the code edition and compliance method in the set-up first.', [
       ...(project.edition_id ? [] : [{ path: 'edition', message: 'Required.' }]),
       ...(project.method ? [] : [{ path: 'method', message: 'Required.' }]),
     ]);

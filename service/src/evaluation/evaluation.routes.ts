@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { Database } from '../db/database.js';
-import { requireProjectAction } from '../http/project-access.js';
+import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { compareProject, evaluateDocument, projectResults } from './evaluation.service.js';
 import { openApiDocument } from './openapi.js';
 
@@ -16,12 +16,12 @@ export function evaluateRouter(db: Database): Router {
 /** `GET /api/projects/:projectId/results`: the same engine on the stored project. */
 export function projectResultsRouter(db: Database): Router {
   const router = Router({ mergeParams: true });
-  router.get('/results', requireProjectAction(db, 'read'), async (req, res) => {
-    res.json(await projectResults(db, req.projectAccess!.projectId));
+  router.get('/results', requireProjectAction('read'), async (req, res) => {
+    res.json(await projectResults(db, projectAccess(req).projectId));
   });
   /** The same design under every other edition the tables hold, side by side with its own. */
-  router.get('/comparison', requireProjectAction(db, 'read'), async (req, res) => {
-    res.json(await compareProject(db, req.projectAccess!.projectId));
+  router.get('/comparison', requireProjectAction('read'), async (req, res) => {
+    res.json(await compareProject(db, projectAccess(req).projectId));
   });
   return router;
 }

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import type { Database } from '../db/database.js';
-import { requireProjectAction } from '../http/project-access.js';
+import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { isUuid, parse } from '../http/validate.js';
 import { historyPeople, listHistory } from './history.repository.js';
 
@@ -18,8 +18,8 @@ const historyQuerySchema = z.object({
 /** `GET /api/projects/:projectId/history`: who changed what and when, newest first. Members read. */
 export function historyRouter(db: Database): Router {
   const router = Router({ mergeParams: true });
-  router.get('/history', requireProjectAction(db, 'read'), async (req, res) => {
-    const projectId = req.projectAccess!.projectId;
+  router.get('/history', requireProjectAction('read'), async (req, res) => {
+    const projectId = projectAccess(req).projectId;
     const filter = parse(historyQuerySchema, req.query);
     const [page, people] = await Promise.all([listHistory(db, projectId, filter), historyPeople(db, projectId)]);
     res.json({ ...page, people });

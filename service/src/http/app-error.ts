@@ -1,7 +1,6 @@
-export interface ErrorDetail {
-  path: string;
-  message: string;
-}
+import type { ErrorDetail } from '../domain-errors.js';
+
+export type { ErrorDetail };
 
 /** An error the API reports in its single error shape, with a status and a stable code. */
 export class AppError extends Error {

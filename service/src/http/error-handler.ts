@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
+import { Archived, DomainError, InUse, KeyReused, NotFound, NotRestorable, Refused, Stale, Conflict } from '../domain-errors.js';
 import { AppError, type ErrorDetail } from './app-error.js';
 
 export interface ErrorBody {
@@ -48,6 +49,18 @@ function bodyParserAnswer(err: Failure, status: number): { status: number; code:
   return { status, code: 'bad_request', message: 'The request could not be read.' };
 }
 
+/** The status and code of each domain error: the one place the data layer's refusals become HTTP. */
+function domainAnswer(err: DomainError): { status: number; code: string } {
+  if (err instanceof NotFound) return { status: 404, code: 'not_found' };
+  if (err instanceof Refused) return { status: 400, code: 'validation_failed' };
+  if (err instanceof InUse) return { status: 409, code: 'in_use' };
+  if (err instanceof Stale || err instanceof Conflict) return { status: 409, code: 'conflict' };
+  if (err instanceof NotRestorable) return { status: 409, code: 'not_restorable' };
+  if (err instanceof Archived) return { status: 409, code: 'archived' };
+  if (err instanceof KeyReused) return { status: 422, code: 'idempotency_key_reused' };
+  return { status: 500, code: 'internal' };
+}
+
 /**
  * Every failure leaves the service in one shape; unknown errors never leak a stack trace. A bad
  * request is a 4xx whatever part refused it: the body parser, zod, or PostgreSQL as a last line.
@@ -55,6 +68,16 @@ function bodyParserAnswer(err: Failure, status: number): { status: number; code:
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err instanceof AppError) {
     res.status(err.status).json(body(err.code, err.message, err.details));
+    return;
+  }
+  if (err instanceof DomainError) {
+    const { status, code } = domainAnswer(err);
+    if (status === 500) {
+      req.log?.error({ err }, 'unmapped domain error');
+      res.status(500).json(body('internal', 'Something went wrong on our side. The error has been logged.'));
+      return;
+    }
+    res.status(status).json(body(code, err.message, err.details));
     return;
   }
   if (err instanceof ZodError) {

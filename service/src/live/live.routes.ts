@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { Database } from '../db/database.js';
-import { requireProjectAction } from '../http/project-access.js';
+import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import type { ProjectChanges } from './project-changes.js';
 
 /**
@@ -10,8 +10,8 @@ import type { ProjectChanges } from './project-changes.js';
  */
 export function liveRouter(db: Database, changes: ProjectChanges): Router {
   const router = Router({ mergeParams: true });
-  router.get('/events', requireProjectAction(db, 'read'), async (req, res) => {
-    await changes.watch(req.projectAccess!.projectId, res);
+  router.get('/events', requireProjectAction('read'), async (req, res) => {
+    await changes.watch(projectAccess(req).projectId, res);
   });
   return router;
 }

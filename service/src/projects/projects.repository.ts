@@ -5,8 +5,8 @@ import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import { updateVersioned } from '../db/optimistic.js';
 import { lockProject } from '../db/project-lock.js';
-import type { ProjectMemberRow, ProjectRole } from '../db/tables.js';
-import { AppError } from '../http/app-error.js';
+import type { ProjectRole } from '../db/tables.js';
+import { NotFound } from '../domain-errors.js';
 import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
 import { permitColumns, type ProjectCreate, type ProjectSetupPatch } from './projects.schema.js';
 
@@ -128,7 +128,7 @@ export async function getProjectDetail(db: Knex, projectId: string, role: Projec
     .leftJoin('users as u', 'u.id', 'p.updated_by')
     .where('p.id', projectId)
     .first<ProjectRow | undefined>('p.*', 'u.name as updated_by_name');
-  if (!row) throw AppError.notFound('No such project.');
+  if (!row) throw new NotFound('No such project.');
   const members = await db('project_members as m')
     .join('users as u', 'u.id', 'm.user_id')
     .where('m.project_id', projectId)
@@ -178,10 +178,6 @@ function setupColumns(input: Partial<ProjectCreate>): Record<string, unknown> {
 }
 
 /**
- * Keeps the verdict of an evaluation for the project list, unless the design changed while it was
- * being computed (then the stored project no longer matches and nothing is kept).
- */
-/**
  * When the project's design last changed, as PostgreSQL's text (a JavaScript Date would drop the
  * microseconds that `keepResultSummary` compares); null for no such project.
  */
@@ -190,14 +186,32 @@ export async function designChangedAt(db: Database, projectId: string): Promise<
   return row?.design_at ?? null;
 }
 
-/** Whether the project exists, and the person's role on it (null when not a member). */
-export async function projectMembership(db: Database, projectId: string, userId: string): Promise<{ exists: boolean; role: ProjectRole | null }> {
-  const project = await db('projects').where({ id: projectId }).first('id');
-  if (!project) return { exists: false, role: null };
-  const membership = await db<ProjectMemberRow>('project_members').where({ project_id: projectId, user_id: userId }).first('role');
-  return { exists: true, role: membership?.role ?? null };
+/** What every route under a project reads of it before its own work. */
+export interface ProjectForAccess {
+  id: string;
+  name: string;
+  editionId: string | null;
+  method: string | null;
+  units: 'ip' | 'si';
+  archivedAt: Date | null;
 }
 
+/** The project and the person's role on it (null when not a member), in one query; undefined for no such project. */
+export async function projectForMember(db: Database, projectId: string, userId: string): Promise<{ project: ProjectForAccess; role: ProjectRole | null } | undefined> {
+  const row = await db('projects as p')
+    .leftJoin('project_members as m', function joinMembership() {
+      this.on('m.project_id', '=', 'p.id').andOn('m.user_id', '=', db.raw('?', [userId]));
+    })
+    .where('p.id', projectId)
+    .first<(Pick<ProjectRow, 'id' | 'name' | 'edition_id' | 'method' | 'units' | 'archived_at'> & { role: ProjectRole | null }) | undefined>('p.id', 'p.name', 'p.edition_id', 'p.method', 'p.units', 'p.archived_at', 'm.role');
+  if (!row) return undefined;
+  return { project: { id: row.id, name: row.name, editionId: row.edition_id, method: row.method, units: row.units, archivedAt: row.archived_at }, role: row.role };
+}
+
+/**
+ * Keeps the verdict of an evaluation for the project list, unless the design changed while it was
+ * being computed (then the stored project no longer matches and nothing is kept).
+ */
 export async function keepResultSummary(db: Database, projectId: string, designAt: string, summary: ResultSummary): Promise<void> {
   await db('projects').where({ id: projectId }).whereRaw('updated_at = ?::timestamptz', [designAt]).update({ result_summary: JSON.stringify(summary) });
 }

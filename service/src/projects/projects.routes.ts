@@ -5,9 +5,10 @@ import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import { editionIds, type EditionId } from '../compliance/edition-data.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
-import { requireProjectAction } from '../http/project-access.js';
+import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
+import { keepVerdict } from '../evaluation/evaluation.service.js';
 import { copyProject, createProject, getProjectDetail, listProjectsFor, setProjectArchived, updateProjectSetup } from './projects.repository.js';
 import { projectCreateSchema, projectSetupPatchSchema } from './projects.schema.js';
 import { convertProjectUnits } from './unit-conversion.js';
@@ -46,16 +47,17 @@ export function projectsRouter(db: Database): Router {
     await assertAmendments(db, input.edition, input.amendments);
     const { user } = currentSession(req);
     const id = await createProject(db, input, user.id);
+    await keepVerdict(db, id, req.log);
     res.status(201).json(await getProjectDetail(db, id, 'engineer'));
   });
 
-  router.get('/:projectId', requireProjectAction(db, 'read'), async (req, res) => {
-    const access = req.projectAccess!;
+  router.get('/:projectId', requireProjectAction('read'), async (req, res) => {
+    const access = projectAccess(req);
     res.json(await getProjectDetail(db, access.projectId, access.role));
   });
 
-  router.patch('/:projectId', requireProjectAction(db, 'edit-design'), async (req, res) => {
-    const access = req.projectAccess!;
+  router.patch('/:projectId', requireProjectAction('edit-design'), async (req, res) => {
+    const access = projectAccess(req);
     const patch = parse(projectSetupPatchSchema, req.body);
     assertEdition(patch.edition);
     const current = await getProjectDetail(db, access.projectId, access.role);
@@ -73,20 +75,22 @@ export function projectsRouter(db: Database): Router {
       convert = async (trx) => ({ ...(await convertProjectUnits(trx, access.projectId, current.units, to, exteriorUnits, userId)) });
     }
     await updateProjectSetup(db, access.projectId, patch, currentSession(req).user.id, convert);
+    await keepVerdict(db, access.projectId, req.log);
     res.json(await getProjectDetail(db, access.projectId, access.role));
   });
 
   /** Anyone who may read a project may copy it; the copy is theirs, as its engineer. */
-  router.post('/:projectId/copy', requireProjectAction(db, 'read'), async (req, res) => {
+  router.post('/:projectId/copy', requireProjectAction('read'), async (req, res) => {
     const { name } = parse(copySchema, req.body);
-    const id = await copyProject(db, req.projectAccess!.projectId, name, currentSession(req).user.id);
+    const id = await copyProject(db, projectAccess(req).projectId, name, currentSession(req).user.id);
+    await keepVerdict(db, id, req.log);
     res.status(201).json(await getProjectDetail(db, id, 'engineer'));
   });
 
   /** Archiving keeps everything and makes the project read-only; unarchiving brings it back. */
   for (const [path, archived] of [['archive', true], ['unarchive', false]] as const) {
-    router.post(`/:projectId/${path}`, requireProjectAction(db, 'archive'), async (req, res) => {
-      const access = req.projectAccess!;
+    router.post(`/:projectId/${path}`, requireProjectAction('archive'), async (req, res) => {
+      const access = projectAccess(req);
       await setProjectArchived(db, access.projectId, archived, currentSession(req).user.id);
       res.json(await getProjectDetail(db, access.projectId, access.role));
     });

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { maxDecimalPlaces, ranges, type NumberRange } from '../compliance/bounds.js';
 import { metresPerFoot, squareMetresPerSquareFoot } from '../compliance/index.js';
 import { text } from '../compliance/numbers.js';
-import { AppError } from '../http/app-error.js';
+import { Refused } from '../domain-errors.js';
 
 type Kind = 'length' | 'area';
 
@@ -135,7 +135,7 @@ export async function convertProjectUnits(
     });
     const { count: outside } = (await outOfRange.first()) ?? { count: '0' };
     if (Number(outside) > 0) {
-      throw AppError.badRequest(`Some stored values would be out of range in ${to === 'ip' ? 'feet' : 'metres'}; nothing was converted.`, [
+      throw new Refused(`Some stored values would be out of range in ${to === 'ip' ? 'feet' : 'metres'}; nothing was converted.`, [
         { path: 'units', message: `${outside} of the ${label} hold values too large to convert.` },
       ]);
     }

@@ -2,7 +2,7 @@ import type { Database } from '../db/database.js';
 import type { ProjectRole } from '../db/tables.js';
 import { recordAudit } from '../audit/audit.repository.js';
 import { lockProject } from '../db/project-lock.js';
-import { AppError } from '../http/app-error.js';
+import { Conflict, NotFound } from '../domain-errors.js';
 
 export interface Member {
   userId: string;
@@ -27,12 +27,12 @@ export async function listMembers(db: Database, projectId: string): Promise<Memb
 export async function setMember(db: Database, projectId: string, email: string, role: ProjectRole, actorId: string): Promise<Member[]> {
   await db.transaction(async (trx) => {
     await lockProject(trx, projectId, { allowArchived: true });
-    const user = await trx('users').whereRaw('lower(email) = lower(?)', [email]).first<{ id: string } | undefined>('id');
+    const user = await trx('users').whereRaw('lower(email) = lower(?)', [email]).first('id');
     if (!user) {
       await recordAudit(trx, { userId: actorId, projectId, action: 'add-member-no-account', entity: 'project_member', detail: { name: email, role } });
       return;
     }
-    const current = await trx('project_members').where({ project_id: projectId, user_id: user.id }).first<{ role: ProjectRole } | undefined>('role');
+    const current = await trx('project_members').where({ project_id: projectId, user_id: user.id }).first('role');
     if (current?.role === 'engineer' && role !== 'engineer') await assertAnotherEngineer(trx, projectId, user.id);
     await trx('project_members').insert({ project_id: projectId, user_id: user.id, role }).onConflict(['project_id', 'user_id']).merge({ role });
     await recordAudit(trx, {
@@ -55,7 +55,7 @@ export async function removeMember(db: Database, projectId: string, userId: stri
       .join('users as u', 'u.id', 'm.user_id')
       .where({ 'm.project_id': projectId, 'm.user_id': userId })
       .first<{ role: ProjectRole; email: string } | undefined>('m.role', 'u.email');
-    if (!current) throw AppError.notFound('That person is not on this project.');
+    if (!current) throw new NotFound('That person is not on this project.');
     if (current.role === 'engineer') await assertAnotherEngineer(trx, projectId, userId);
     await trx('project_members').where({ project_id: projectId, user_id: userId }).delete();
     await recordAudit(trx, { userId: actorId, projectId, action: 'remove-member', entity: 'project_member', entityId: userId, detail: { name: current.email, before: { role: current.role } } });
@@ -66,5 +66,5 @@ export async function removeMember(db: Database, projectId: string, userId: stri
 /** A project always keeps an engineer of record. */
 async function assertAnotherEngineer(trx: Database, projectId: string, leavingUserId: string): Promise<void> {
   const others = await trx('project_members').where({ project_id: projectId, role: 'engineer' }).whereNot({ user_id: leavingUserId }).first('user_id');
-  if (!others) throw AppError.conflict('A project keeps at least one engineer; add another engineer first.');
+  if (!others) throw new Conflict('A project keeps at least one engineer; add another engineer first.');
 }
