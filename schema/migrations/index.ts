@@ -14,6 +14,7 @@ import * as equalRows from './20261202000800_equal_rows.js';
 import * as sessions from './20261202001000_sessions.js';
 import * as spaceTypeFormulas from './20261202001100_space_type_formulas.js';
 import * as allowanceClaimDeletes from './20261202001200_allowance_claim_deletes.js';
+import * as openingDaylightFields from './20261202001500_opening_daylight_fields.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -37,6 +38,7 @@ const migrations: Record<string, Migration> = {
   '20261202001000_sessions': sessions,
   '20261202001100_space_type_formulas': spaceTypeFormulas,
   '20261202001200_allowance_claim_deletes': allowanceClaimDeletes,
+  '20261202001500_opening_daylight_fields': openingDaylightFields,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -5,6 +5,7 @@ import type {
   EqualRow,
   BuildingAreaType,
   CodeFamily,
+  DaylightOpeningRules,
   ControlStrategy,
   EditionData,
   EditionId,
@@ -368,6 +369,17 @@ function taggedProvenance(value: TaggedProvenance, context: CitationContext, sec
   return contractProvenance({ ...value, note: [value.tag, value.note].filter(Boolean).join(' '), citation });
 }
 
+type StoredOpeningRules = Record<string, { section: string; provenance: TaggedProvenance } & Record<string, unknown>>;
+
+/** The glazing rules of an edition, each cited by its own section. */
+function openingRules(stored: StoredOpeningRules, context: CitationContext): DaylightOpeningRules {
+  const cited = Object.entries(stored).map(([name, { provenance, ...rule }]) => {
+    const citation = citationOf({ edition: context.edition, reference: rule.section, ...provenance });
+    return [name, { ...rule, provenance: contractProvenance({ ...provenance, note: [provenance.tag, provenance.note].filter(Boolean).join(' '), citation }) }];
+  });
+  return Object.fromEntries(cited) as DaylightOpeningRules;
+}
+
 export interface AmendmentView extends RowProvenance {
   key: string;
   title: string;
@@ -406,6 +418,7 @@ export async function getRules(db: Database, version: EditionVersion): Promise<R
       toplitExtensionCeilingHeights: row.daylight_toplit_extension_ceiling_heights,
       ...(row.daylight_overlap_precedence ? { overlapPrecedence: row.daylight_overlap_precedence } : {}),
       provenance: taggedProvenance(row.daylight_provenance, context, 'daylightSidelighting'),
+      ...(row.daylight_openings ? { openings: openingRules(row.daylight_openings, context) } : {}),
     },
     roomGeometry:
       row.room_geometry_increase_percent === null ? null : { increasePercent: row.room_geometry_increase_percent, provenance: taggedProvenance(row.room_geometry_provenance, context, 'roomGeometry') },
