@@ -27,6 +27,7 @@ export const strategyKeys = [
   'time-switch',
   'light-reduction',
   'specific-application',
+  'parking-daylight-transition',
   'exterior-daylight-off',
   'exterior-setback',
   'exterior-facade-landscape-off',

@@ -15,6 +15,7 @@ import * as sessions from './20261202001000_sessions.js';
 import * as spaceTypeFormulas from './20261202001100_space_type_formulas.js';
 import * as allowanceClaimDeletes from './20261202001200_allowance_claim_deletes.js';
 import * as decorativeAndExteriorExemptions from './20261202001500_decorative_and_exterior_exemptions.js';
+import * as openingDaylightFields from './20261202001600_opening_daylight_fields.js';
 import * as mailOutboxPasswordResets from './20261202002000_mail_outbox_password_resets.js';
 import * as userDisable from './20261202002100_user_disable.js';
 
@@ -41,6 +42,7 @@ const migrations: Record<string, Migration> = {
   '20261202001100_space_type_formulas': spaceTypeFormulas,
   '20261202001200_allowance_claim_deletes': allowanceClaimDeletes,
   '20261202001500_decorative_and_exterior_exemptions': decorativeAndExteriorExemptions,
+  '20261202001600_opening_daylight_fields': openingDaylightFields,
   '20261202002000_mail_outbox_password_resets': mailOutboxPasswordResets,
   '20261202002100_user_disable': userDisable,
 };

@@ -199,6 +199,7 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
     daylight_toplit_extension_ceiling_heights: rules.daylight.toplitExtensionCeilingHeights,
     daylight_overlap_precedence: rules.daylight.overlapPrecedence ?? null,
     daylight_provenance: JSON.stringify(rules.daylight.provenance),
+    daylight_openings: rules.daylight.openings ? JSON.stringify(rules.daylight.openings) : null,
     room_geometry_increase_percent: rules.roomGeometry?.increasePercent ?? null,
     room_geometry_provenance: rules.roomGeometry ? JSON.stringify(rules.roomGeometry.provenance) : null,
     small_enclosed_space_ft2: rules.smallEnclosedSpace?.ft2 ?? null,

@@ -59,7 +59,8 @@ interface DemoSpace {
   enclosed?: boolean;
   luminaires: { tag: string; count: number; zone?: 'primary-sidelit' | 'secondary-sidelit' | 'toplit' }[];
   controls: Control[];
-  windows?: { width: string; headHeight: string; sillHeight?: string; wall: 'north' | 'east' | 'south' | 'west'; offset?: string }[];
+  /** Glazing: low-e double glazing, visible transmittance about 0.6 (invented, a plausible figure); nothing outside blocks the daylight. */
+  windows?: { width: string; headHeight: string; sillHeight?: string; wall: 'north' | 'east' | 'south' | 'west'; offset?: string; visibleTransmittance?: string; daylightBlocked?: boolean }[];
 }
 
 const l1 = 'Level 1';
@@ -78,7 +79,7 @@ function office(name: string, length: string, width: string, sidelitLuminaires: 
     enclosed: true,
     luminaires: [{ tag: 'B', count: sidelitLuminaires, zone: 'primary-sidelit' }, { tag: 'B', count: 2 }],
     controls: [sensor('manual'), dimming],
-    windows: [{ width: windowWidth, headHeight: '7.5', sillHeight: '3', wall: 'east', offset: '2' }],
+    windows: [{ width: windowWidth, headHeight: '7.5', sillHeight: '3', wall: 'east', offset: '2', visibleTransmittance: '0.55', daylightBlocked: false }],
   };
 }
 
@@ -102,9 +103,9 @@ export const demoSpaces: DemoSpace[] = [
     ],
     controls: [timeSwitch, dimming, sidelighting, specific],
     windows: [
-      { width: '12', headHeight: '10', sillHeight: '3', wall: 'south', offset: '6' },
-      { width: '12', headHeight: '10', sillHeight: '3', wall: 'south', offset: '24' },
-      { width: '12', headHeight: '10', sillHeight: '3', wall: 'south', offset: '42' },
+      { width: '12', headHeight: '10', sillHeight: '3', wall: 'south', offset: '6', visibleTransmittance: '0.62', daylightBlocked: false },
+      { width: '12', headHeight: '10', sillHeight: '3', wall: 'south', offset: '24', visibleTransmittance: '0.62', daylightBlocked: false },
+      { width: '12', headHeight: '10', sillHeight: '3', wall: 'south', offset: '42', visibleTransmittance: '0.62', daylightBlocked: false },
     ],
   },
   { name: '103 Stacks', level: l1, spaceType: 'library-in-the-stacks', area: '2600', length: '65', width: '40', ceilingHeight: '12', luminaires: [{ tag: 'F', count: 64 }, { tag: 'X', count: 2 }, { tag: 'M', count: 4 }], controls: [sensor('full'), dimming] },
@@ -118,7 +119,7 @@ export const demoSpaces: DemoSpace[] = [
     ceilingHeight: '12',
     luminaires: [{ tag: 'B', count: 8, zone: 'primary-sidelit' }, { tag: 'B', count: 8, zone: 'secondary-sidelit' }, { tag: 'B', count: 16 }, { tag: 'X', count: 1 }],
     controls: [timeSwitch, dimming, sidelighting],
-    windows: [{ width: '10', headHeight: '8', sillHeight: '2.5', wall: 'west', offset: '4' }, { width: '10', headHeight: '8', sillHeight: '2.5', wall: 'west', offset: '16' }],
+    windows: [{ width: '10', headHeight: '8', sillHeight: '2.5', wall: 'west', offset: '4', visibleTransmittance: '0.62', daylightBlocked: false }, { width: '10', headHeight: '8', sillHeight: '2.5', wall: 'west', offset: '16', visibleTransmittance: '0.62', daylightBlocked: false }],
   },
   { name: '105 Community room', level: l1, spaceType: 'conference-meeting-multipurpose-room', area: '1100', length: '44', width: '25', ceilingHeight: '11', luminaires: [{ tag: 'A', count: 30 }, { tag: 'X', count: 2 }], controls: [sensor(), dimming] },
   { name: '106 Café', level: l1, spaceType: 'dining-area-in-cafeteria-or-fast-food-dining', area: '700', length: '35', width: '20', ceilingHeight: '11', luminaires: [{ tag: 'D', count: 16 }, { tag: 'G', count: 6 }], controls: [timeSwitch, dimming, specific] },
@@ -141,7 +142,7 @@ export const demoSpaces: DemoSpace[] = [
     ceilingHeight: '12',
     luminaires: [{ tag: 'A', count: 10, zone: 'primary-sidelit' }, { tag: 'A', count: 10, zone: 'secondary-sidelit' }, { tag: 'A', count: 36 }, { tag: 'X', count: 2 }],
     controls: [timeSwitch, dimming, sidelighting],
-    windows: [{ width: '16', headHeight: '9', sillHeight: '3', wall: 'north', offset: '8' }, { width: '16', headHeight: '9', sillHeight: '3', wall: 'north', offset: '28' }],
+    windows: [{ width: '16', headHeight: '9', sillHeight: '3', wall: 'north', offset: '8', visibleTransmittance: '0.58', daylightBlocked: false }, { width: '16', headHeight: '9', sillHeight: '3', wall: 'north', offset: '28', visibleTransmittance: '0.58', daylightBlocked: false }],
   },
   { name: '202 Tool storage', level: l2, spaceType: 'storage-room', area: '200', ceilingHeight: '10', enclosed: true, luminaires: [{ tag: 'E', count: 3 }], controls: [sensor('manual')] },
   office('203 Office', '15', '10', 2, '6'),
@@ -157,7 +158,7 @@ export const demoSpaces: DemoSpace[] = [
     ceilingHeight: '10',
     luminaires: [{ tag: 'B', count: 6, zone: 'primary-sidelit' }, { tag: 'B', count: 10 }],
     controls: [sensor(), dimming, sidelighting, openPlanZones('350')],
-    windows: [{ width: '10', headHeight: '8', sillHeight: '3', wall: 'south', offset: '5' }, { width: '10', headHeight: '8', sillHeight: '3', wall: 'south', offset: '20' }],
+    windows: [{ width: '10', headHeight: '8', sillHeight: '3', wall: 'south', offset: '5', visibleTransmittance: '0.62', daylightBlocked: false }, { width: '10', headHeight: '8', sillHeight: '3', wall: 'south', offset: '20', visibleTransmittance: '0.62', daylightBlocked: false }],
   },
   { name: '207 Staff break room', level: l2, spaceType: 'lounge-breakroom-otherwise', area: '300', length: '20', width: '15', ceilingHeight: '9', enclosed: true, luminaires: [{ tag: 'B', count: 7 }], controls: [sensor(), dimming] },
   { name: '208 Group study rooms', level: l2, spaceType: 'conference-meeting-multipurpose-room', area: '400', length: '20', width: '20', ceilingHeight: '9', luminaires: [{ tag: 'B', count: 14 }], controls: [sensor(), dimming] },

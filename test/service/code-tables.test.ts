@@ -210,9 +210,16 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
 
   it('rules returns the edition rules and the sections results cite', async () => {
     const body = await get(`/api/code-editions/${id}/rules`);
-    const { provenance: _daylightProvenance, ...daylight } = edition.rules.daylight;
+    const { provenance: _daylightProvenance, openings, ...daylight } = edition.rules.daylight;
     expect(body.daylight).toMatchObject(daylight);
     expect(body.daylight.provenance.verified).toBe(false);
+    // The glazing rules keep their values and sections; each is cited for people and, from memory, not checked.
+    for (const [name, rule] of Object.entries(openings ?? {})) {
+      const { provenance: _ruleProvenance, ...values } = rule;
+      expect(body.daylight.openings[name], `${id} ${name}`).toMatchObject(values);
+      expect(body.daylight.openings[name].provenance.verified).toBe(false);
+      expect(body.daylight.openings[name].provenance.citation.checked).toBe(false);
+    }
     expect(body.roomGeometry?.increasePercent ?? null).toBe(edition.rules.roomGeometry?.increasePercent ?? null);
     expect(body.smallEnclosedSpaceFt2).toBe(edition.rules.smallEnclosedSpace?.ft2 ?? null);
     expect(body.trackMinimumWPerFt).toBe(edition.rules.track.minimumWPerFt);

@@ -57,6 +57,15 @@ describe('the seeded demo project', () => {
     expect(margin).toBeLessThan(15);
   });
 
+  it('records the glazing of every window, so no daylight line waits on a blank', async () => {
+    const document = (await engineer.agent.get(`/api/projects/${projectId}/document`)).body;
+    const windows = document.spaces.flatMap((space: { windows: { visibleTransmittance?: string; daylightBlocked?: boolean }[] }) => space.windows);
+    expect(windows.length).toBeGreaterThan(0);
+    for (const window of windows) expect(window).toMatchObject({ visibleTransmittance: expect.any(String), daylightBlocked: false });
+    const daylightLines = result.interior.spaces.flatMap((space) => space.controls.filter((line) => line.strategy.startsWith('daylight-')));
+    expect(daylightLines.filter((line) => line.reason.includes('is not recorded'))).toEqual([]);
+  });
+
   it('matches the served result schema', () => {
     const parsed = evaluationResultSchema.safeParse(result);
     expect(parsed.success, JSON.stringify(parsed.error?.issues.slice(0, 3))).toBe(true);

@@ -6,6 +6,7 @@ import type {
   EqualRow,
   BuildingAreaType,
   CodeFamily,
+  DaylightOpeningRules,
   ControlStrategy,
   EditionData,
   EditionId,
@@ -20,7 +21,7 @@ import type {
   StrategyKey,
 } from '../compliance/edition-data.js';
 import { type Citation, citationOf, editionName, referenceOf, withoutProvenance } from '../compliance/citation.js';
-import type { CodeEditionRow, ControlStrategyRow, ControlStrategySectionRow, ProvenanceColumns, SpaceTypeControlRow, TaggedProvenance } from '../db/tables.js';
+import type { CodeEditionRow, ControlStrategyRow, ControlStrategySectionRow, ProvenanceColumns, EditionRulesRow, SpaceTypeControlRow, TaggedProvenance } from '../db/tables.js';
 
 /** The code tables as the API and the compliance engine read them. NUMERIC columns stay strings. */
 
@@ -359,6 +360,17 @@ function taggedProvenance(value: TaggedProvenance, context: CitationContext, sec
   return contractProvenance({ ...value, note: [value.tag, value.note].filter(Boolean).join(' '), citation });
 }
 
+type StoredOpeningRules = NonNullable<EditionRulesRow['daylight_openings']>;
+
+/** The glazing rules of an edition, each cited by its own section. */
+function openingRules(stored: StoredOpeningRules, context: CitationContext): DaylightOpeningRules {
+  const cited = Object.entries(stored).map(([name, { provenance, ...rule }]) => {
+    const citation = citationOf({ edition: context.edition, reference: rule.section, ...provenance });
+    return [name, { ...rule, provenance: contractProvenance({ ...provenance, note: [provenance.tag, provenance.note].filter(Boolean).join(' '), citation }) }];
+  });
+  return Object.fromEntries(cited) as DaylightOpeningRules;
+}
+
 export interface AmendmentView extends RowProvenance {
   key: string;
   title: string;
@@ -398,6 +410,7 @@ export async function getRules(db: Database, version: EditionVersion): Promise<R
       toplitExtensionCeilingHeights: row.daylight_toplit_extension_ceiling_heights,
       ...(row.daylight_overlap_precedence ? { overlapPrecedence: row.daylight_overlap_precedence } : {}),
       provenance: taggedProvenance(row.daylight_provenance, context, 'daylightSidelighting'),
+      ...(row.daylight_openings ? { openings: openingRules(row.daylight_openings, context) } : {}),
     },
     roomGeometry:
       row.room_geometry_increase_percent === null ? null : {

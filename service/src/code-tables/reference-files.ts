@@ -131,6 +131,7 @@ export const editionStrategyRow = z.object({
 });
 
 const section = z.object({ section: z.string(), tag: z.string(), verified: z.boolean(), note: z.string() });
+const openingRule = z.strictObject({ section: z.string(), provenance: provenanceObject });
 export const rulesFileSchema = z.object({
   sections: z.record(z.string(), section),
   daylight: z.object({
@@ -148,6 +149,15 @@ export const rulesFileSchema = z.object({
     toplitExtensionCeilingHeights: decimal,
     overlapPrecedence: z.array(z.enum(['primary-sidelit', 'secondary-sidelit', 'toplit'])).length(3).optional(),
     provenance: provenanceObject,
+    openings: z
+      .strictObject({
+        blockedWindow: openingRule.extend({ excludes: z.enum(['primary', 'all']) }).optional(),
+        windowMinimumVt: openingRule.extend({ vt: decimal }).optional(),
+        windowMinimumAreaFt2: openingRule.extend({ ft2: decimal }).optional(),
+        blockedSkylight: openingRule.extend({ hours: decimal }).optional(),
+        skylightMinimumVt: openingRule.extend({ vt: decimal }).optional(),
+      })
+      .optional(),
   }),
   roomGeometry: z.object({ increasePercent: decimal, provenance: provenanceObject }).nullable(),
   smallEnclosedSpace: z.object({ ft2: decimal, provenance: provenanceObject }).nullable(),

@@ -45,6 +45,8 @@ export const ranges = {
   percent: { min: 'zero', max: '100' },
   /** A control's time-out: a day at most. */
   timeoutMinutes: { min: 'zero', max: '1440' },
+  /** A glazing's visible transmittance: the fraction of visible light it passes, 0 to 1. */
+  visibleTransmittance: { min: 'zero', max: '1' },
 } as const satisfies Record<string, NumberRange>;
 
 /** A number arrives as text of at most this many characters (about 30 significant digits and an exponent). */

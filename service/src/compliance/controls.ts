@@ -197,6 +197,29 @@ function lightReduction(edition: EditionData, facts: SpaceControlFacts): Control
   };
 }
 
+/** 90.1's own space type for the transition zone (90.1-2022) and for the rest of the garage. */
+const transitionZoneType = 'parking-garage-daylight-transition-zone';
+
+function isParkingGarage(type: SpaceType): boolean {
+  return type.key === 'parking-area-interior' || type.key.startsWith('parking-garage-') || type.iecc?.sensorFunction === 'parking-garage';
+}
+
+/**
+ * 90.1 §9.4.1.2 and IECC C405.2.8 (from memory): in a parking garage, the lighting of the daylight
+ * transition zone at a covered vehicle entrance or exit is controlled apart from the rest and
+ * reduced from sunset to sunrise. Where the space type does not say whether the space holds such
+ * a zone, that is a question for the engineer, not a "no".
+ */
+function parkingTransition(type: SpaceType, edition: EditionData): ControlRequirement {
+  const strategy = 'parking-daylight-transition';
+  const rule = 'lighting in the daylight transition zone at a covered vehicle entrance or exit is controlled apart from the garage’s other lighting and reduced automatically from sunset to sunrise';
+  if (type.key === transitionZoneType) return { strategy, requirement: 'required', why: `${type.label}: ${rule}` };
+  if (edition.spaceTypes.some((candidate) => candidate.key === transitionZoneType)) {
+    return { strategy, requirement: 'not-required', why: `this edition gives the daylight transition zone its own space type, and this space is entered as ${type.label}` };
+  }
+  return { strategy, requirement: 'to-verify', why: `in a parking garage, ${rule}; whether this space has a covered vehicle entrance or exit with such lighting is not recorded` };
+}
+
 export function interiorRequirements(edition: EditionData, facts: SpaceControlFacts): ControlRequirement[] {
   const catalogue: ReadonlyMap<string, ControlStrategy> = new Map(edition.controlStrategies.map((strategy) => [strategy.key, strategy]));
   const requirements = edition.family === 'iecc' ? ruleRequirements(edition, facts, catalogue) : tableRequirements(edition, facts);
@@ -208,6 +231,9 @@ export function interiorRequirements(edition: EditionData, facts: SpaceControlFa
       requirement: 'required',
       why: `decorative ${facts.decorativeW.toFixed()} W and display ${facts.displayW.toFixed()} W are controlled apart from general lighting`,
     });
+  }
+  if (catalogue.has('parking-daylight-transition') && facts.spaceType && isParkingGarage(facts.spaceType)) {
+    requirements.push(parkingTransition(facts.spaceType, edition));
   }
   if (facts.secondarySidelightingRequired) {
     const sidelighting = requirements.find((line) => line.strategy === 'daylight-sidelighting');

@@ -91,6 +91,13 @@ export const windowSchema = fields({
   sillHeight: decimalField(ranges.heightAboveFloor).optional(),
   offset: decimalField(ranges.offset).optional(),
   wall: z.enum(walls).default('south'),
+  /** The glazing's visible transmittance, 0 to 1; absent: not recorded. */
+  visibleTransmittance: decimalField(ranges.visibleTransmittance).optional(),
+  /**
+   * The top of an existing adjacent structure is at least twice as high above the window as its
+   * horizontal distance from it (90.1 §9.4.1.1(e)); absent: not recorded.
+   */
+  daylightBlocked: z.boolean().optional(),
 });
 
 export const skylightSchema = fields({
@@ -98,6 +105,13 @@ export const skylightSchema = fields({
   width: decimalField(ranges.length),
   x: decimalField(ranges.offset).optional(),
   y: decimalField(ranges.offset).optional(),
+  /** The glazing's visible transmittance, 0 to 1; absent: not recorded. */
+  visibleTransmittance: decimalField(ranges.visibleTransmittance).optional(),
+  /**
+   * Existing adjacent structures or natural objects block direct sunlight on the skylight for more
+   * daytime hours a year than the edition's limit (90.1 §9.4.1.1(f)); absent: not recorded.
+   */
+  daylightBlocked: z.boolean().optional(),
 });
 
 export const spaceSchema = fields({

@@ -137,6 +137,35 @@ export interface AdditionalAllowance {
   provenance: Provenance;
 }
 
+/** One of an edition's rules on a window's or skylight's glazing, with the section that states it. */
+export interface OpeningRule {
+  section: string;
+  provenance: Provenance;
+}
+
+/**
+ * What an edition asks of an opening's glazing before its daylight area calls for control: the
+ * exceptions of 90.1 §9.4.1.1(e)/(f) and the minimum glazing of the IECC's daylight zones. An
+ * entry left out is no such rule in this edition.
+ */
+export interface DaylightOpeningRules {
+  /**
+   * A window blocked by an adjacent structure (its top at least twice as high above the window as
+   * its distance from it): 'primary' — its primary sidelit area needs no control (90.1); 'all' —
+   * it makes no sidelit zone (IECC, whose own test is less strict, so a window blocked this way
+   * is blocked there too).
+   */
+  blockedWindow?: OpeningRule & { excludes: 'primary' | 'all' };
+  /** A window of lower visible transmittance makes no sidelit zone. */
+  windowMinimumVt?: OpeningRule & { vt: string };
+  /** A window of less glazing area (ft²) makes no sidelit zone. */
+  windowMinimumAreaFt2?: OpeningRule & { ft2: string };
+  /** A skylight whose direct sunlight is blocked for more than this many daytime hours a year needs no toplighting control. */
+  blockedSkylight?: OpeningRule & { hours: string };
+  /** A skylight of lower visible transmittance needs no toplighting control. */
+  skylightMinimumVt?: OpeningRule & { vt: string };
+}
+
 /** Edition-wide numbers the rules use. Each carries its provenance; unverified ones show "verify". */
 export interface EditionRules {
   daylight: {
@@ -161,6 +190,8 @@ export interface EditionRules {
      */
     overlapPrecedence?: ('primary-sidelit' | 'secondary-sidelit' | 'toplit')[];
     provenance: Provenance;
+    /** The glazing rules; absent: the edition's data states none. */
+    openings?: DaylightOpeningRules;
   };
   /** 90.1 §9.6.3 room-geometry increase; null for IECC. */
   roomGeometry: { increasePercent: string; provenance: Provenance } | null;

@@ -5,7 +5,8 @@ import type { EditionData, Provenance, SpaceType } from './edition-data.js';
 import { amendedEdition } from './amendments.js';
 import { evaluateExterior } from './exterior.js';
 import { exteriorExemptionsNote } from '../../../contract/editions.js';
-import { type RoomPlan, daylightAreas, rectangularRoomCavityRatio } from './geometry.js';
+import { skylightVerdict, windowAreaFt2, windowVerdict } from './daylight-openings.js';
+import { type RoomPlan, type ZoneRectangle, daylightAreas, rectangularRoomCavityRatio } from './geometry.js';
 import { unitWattage } from './installed.js';
 import { spaceTypeLpd } from './lpd-formula.js';
 import { type Dec, ZERO, dec, min, reported, sum, text } from './numbers.js';
@@ -176,15 +177,16 @@ interface DaylightOutcome {
 
 function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: UnitSystem, unverified: Unverified, cautions: string[]): DaylightOutcome {
   const rules = edition.rules.daylight;
+  const openingRules = rules.openings ?? {};
   const feet = (value: string | undefined) => (value === undefined ? undefined : lengthToFeet(dec(value), units));
   const length = feet(space.length);
   const width = feet(space.width);
   const hasOpenings = space.windows.length > 0 || space.skylights.length > 0;
   if (hasOpenings) unverified.add('Daylight thresholds and zone geometry', rules.provenance, edition.sections['daylightSidelighting'] ?? '');
   const geometryEvaluated = length !== undefined && width !== undefined;
-  let areas = { primarySidelit: ZERO, secondarySidelit: ZERO, toplit: ZERO, rectangles: [] as ReturnType<typeof daylightAreas>['rectangles'] };
+  let plan: RoomPlan | undefined;
   if (geometryEvaluated && hasOpenings) {
-    const plan: RoomPlan = {
+    plan = {
       length,
       width,
       windows: space.windows.map((window) => {
@@ -200,55 +202,121 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
       }),
     };
     if (space.ceilingHeight !== undefined) plan.ceilingHeight = feet(space.ceilingHeight)!;
-    areas = daylightAreas(plan, rules);
   }
-  const windowArea = sum(
-    space.windows.map((window) => {
-      // Without a sill the glazing is counted from the floor: the larger area never clears a requirement.
-      if (window.sillHeight === undefined) unverified.unsettled('Window sill height', 'common practice', 'No sill height given for some windows: their area is counted from the floor.');
-      const height = dec(window.headHeight).minus(dec(window.sillHeight ?? '0'));
-      return areaToSquareFeet(dec(window.width).times(height), units);
-    }),
-  );
-  const zoneAreas = { 'primary-sidelit': areas.primarySidelit, 'secondary-sidelit': areas.secondarySidelit, toplit: areas.toplit } as const;
-  const assigned = watts.zoneW['primary-sidelit'].plus(watts.zoneW['secondary-sidelit']).plus(watts.zoneW.toplit);
-  // With zones on the plan, general lighting and none of it assigned to a zone, the zone watts are
-  // estimated from each zone's share of the floor; an estimate can make a control required, but
-  // below the threshold it leaves the question open rather than passing it.
+  // Without a sill the glazing is counted from the floor: the larger area never clears a requirement.
+  if (space.windows.some((window) => window.sillHeight === undefined)) {
+    unverified.unsettled('Window sill height', 'common practice', 'No sill height given for some windows: their area is counted from the floor.');
+  }
+  const windowArea = sum(space.windows.map((window) => windowAreaFt2(window, units)));
   const roomArea = length !== undefined && width !== undefined ? length.times(width) : ZERO;
-  const estimated = assigned.isZero() && watts.general.greaterThan(0) && roomArea.greaterThan(0) && sum(Object.values(zoneAreas)).greaterThan(0);
-  const zoneWatts = (kind: keyof typeof zoneAreas): Dec => (estimated ? min(watts.general, watts.general.times(zoneAreas[kind]).dividedBy(roomArea)) : watts.zoneW[kind]);
-  const primaryW = zoneWatts('primary-sidelit');
-  const secondaryW = zoneWatts('secondary-sidelit');
-  const toplitW = zoneWatts('toplit');
-  const estimateWords = estimated ? ' (estimated from the zone’s share of the floor area: no luminaires are assigned to daylight zones)' : '';
   const at = (threshold: string) => (rules.comparison === 'at-least' ? `${threshold} W or more` : `more than ${threshold} W`);
   const watt = (value: Dec) => `${value.toDecimalPlaces(1).toFixed()} W`;
   const windowException = rules.minimumWindowAreaFt2 !== null && windowArea.lessThan(dec(rules.minimumWindowAreaFt2));
-  const primaryTriggers = comparesAt(primaryW, dec(rules.primarySidelitThresholdW), rules.comparison);
-  const combined = primaryW.plus(secondaryW);
-  const combinedTriggers = rules.combinedSidelitThresholdW !== null && comparesAt(combined, dec(rules.combinedSidelitThresholdW), rules.comparison);
-  // 90.1 §9.4.1.1(e): the primary area alone at 150 W, or primary and secondary together at 300 W; the
-  // edition data says which thresholds apply (IECC's sidelit zones count together).
-  const sidelightingControlRequired = (primaryTriggers || combinedTriggers) && !windowException;
-  const secondarySidelightingControlRequired = combinedTriggers && !windowException;
-  const toplightingControlRequired = comparesAt(toplitW, dec(rules.toplitThresholdW), rules.comparison);
 
+  /**
+   * The daylight areas and triggers with each blank glazing value read one way: as making its zone
+   * (the reading shown) or as excepting it. The glazing rules take away the zones of the openings
+   * they except; a zone kind that every opening of its sort has lost carries no watts, even ones
+   * assigned to it.
+   */
+  const reading = (windowBlanksExcept: boolean, skylightBlanksExcept: boolean) => {
+    const windows = space.windows.map((window, index) => windowVerdict(window, index, openingRules, units, windowBlanksExcept));
+    const skylights = space.skylights.map((skylight, index) => skylightVerdict(skylight, index, openingRules, skylightBlanksExcept));
+    const keep = (rectangle: ZoneRectangle): boolean => {
+      const [sort, position] = rectangle.source.split('.');
+      const verdict = (sort === 'windows' ? windows : skylights)[Number(position)];
+      if (verdict === undefined || verdict.excludes === 'none') return true;
+      return verdict.excludes === 'primary' ? rectangle.kind !== 'primary-sidelit' : false;
+    };
+    const areas = plan ? daylightAreas(plan, rules, keep) : { primarySidelit: ZERO, secondarySidelit: ZERO, toplit: ZERO, rectangles: [] as ZoneRectangle[] };
+    const gone = {
+      'primary-sidelit': windows.length > 0 && windows.every((verdict) => verdict.excludes !== 'none'),
+      'secondary-sidelit': windows.length > 0 && windows.every((verdict) => verdict.excludes === 'all'),
+      toplit: skylights.length > 0 && skylights.every((verdict) => verdict.excludes === 'all'),
+    };
+    const zoneAreas = { 'primary-sidelit': areas.primarySidelit, 'secondary-sidelit': areas.secondarySidelit, toplit: areas.toplit } as const;
+    const assignedW = (kind: keyof typeof zoneAreas) => (gone[kind] ? ZERO : watts.zoneW[kind]);
+    const assigned = watts.zoneW['primary-sidelit'].plus(watts.zoneW['secondary-sidelit']).plus(watts.zoneW.toplit);
+    // With zones on the plan, general lighting and none of it assigned to a zone, the zone watts are
+    // estimated from each zone's share of the floor; an estimate can make a control required, but
+    // below the threshold it leaves the question open rather than passing it.
+    const estimated = assigned.isZero() && watts.general.greaterThan(0) && roomArea.greaterThan(0) && sum(Object.values(zoneAreas)).greaterThan(0);
+    const zoneWatts = (kind: keyof typeof zoneAreas): Dec => (estimated ? min(watts.general, watts.general.times(zoneAreas[kind]).dividedBy(roomArea)) : assignedW(kind));
+    const primaryW = zoneWatts('primary-sidelit');
+    const secondaryW = zoneWatts('secondary-sidelit');
+    const toplitW = zoneWatts('toplit');
+    const primaryTriggers = comparesAt(primaryW, dec(rules.primarySidelitThresholdW), rules.comparison);
+    const combined = primaryW.plus(secondaryW);
+    const combinedTriggers = rules.combinedSidelitThresholdW !== null && comparesAt(combined, dec(rules.combinedSidelitThresholdW), rules.comparison);
+    // 90.1 §9.4.1.1(e): the primary area alone at 150 W, or primary and secondary together at 300 W; the
+    // edition data says which thresholds apply (IECC's sidelit zones count together).
+    const sidelightingRequired = (primaryTriggers || combinedTriggers) && !windowException;
+    return {
+      windows,
+      skylights,
+      areas,
+      zoneAreas,
+      estimated,
+      primaryW,
+      secondaryW,
+      toplitW,
+      combined,
+      primaryTriggers,
+      combinedTriggers,
+      sidelightingRequired,
+      secondaryRequired: combinedTriggers && !windowException,
+      toplightingRequired: comparesAt(toplitW, dec(rules.toplitThresholdW), rules.comparison),
+    };
+  };
+
+  const shown = reading(false, false);
+  const { areas, zoneAreas, estimated, primaryW, secondaryW, toplitW, combined } = shown;
+  const estimateWords = estimated ? ' (estimated from the zone’s share of the floor area: no luminaires are assigned to daylight zones)' : '';
   const sidelitThresholds = [`primary sidelit general lighting ${watt(primaryW)}, required at ${at(rules.primarySidelitThresholdW)}`];
   if (rules.combinedSidelitThresholdW !== null) sidelitThresholds.push(`primary and secondary together ${watt(combined)}, required at ${at(rules.combinedSidelitThresholdW)}`);
   let sidelighting = `${sidelitThresholds.join('; ')}${estimateWords}`;
-  if (windowException && (primaryTriggers || combinedTriggers)) {
+  if (windowException && (shown.primaryTriggers || shown.combinedTriggers)) {
     sidelighting += `; but the window area of ${areaWords(windowArea, units)} is below ${areaWords(dec(rules.minimumWindowAreaFt2!), units)}`;
   }
-  const toplighting = `toplit general lighting ${watt(toplitW)}, required at ${at(rules.toplitThresholdW)}${estimateWords}`;
-  const trigger = (required: boolean, why: string, hasZone: boolean): DaylightTrigger => {
+  const windowWords = shown.windows.flatMap((verdict) => verdict.words);
+  if (windowWords.length > 0) sidelighting += `; ${windowWords.join('; ')}`;
+  let toplighting = `toplit general lighting ${watt(toplitW)}, required at ${at(rules.toplitThresholdW)}${estimateWords}`;
+  const skylightWords = shown.skylights.flatMap((verdict) => verdict.words);
+  if (skylightWords.length > 0) toplighting += `; ${skylightWords.join('; ')}`;
+  for (const verdict of [...shown.windows, ...shown.skylights]) {
+    for (const { what, rule } of verdict.applied) unverified.add(what, rule.provenance, rule.section);
+  }
+
+  // A blank glazing value holds a control open only where reading it the other way changes the answer.
+  const windowBlanks = shown.windows.flatMap((verdict) => verdict.blanks);
+  const skylightBlanks = shown.skylights.flatMap((verdict) => verdict.blanks);
+  const others = [
+    ...(windowBlanks.length > 0 ? [{ reading: reading(true, false), blanks: windowBlanks }] : []),
+    ...(skylightBlanks.length > 0 ? [{ reading: reading(false, true), blanks: skylightBlanks }] : []),
+    ...(windowBlanks.length > 0 && skylightBlanks.length > 0 ? [{ reading: reading(true, true), blanks: [...windowBlanks, ...skylightBlanks] }] : []),
+  ];
+  const deciding = (required: (outcome: typeof shown) => boolean): string[] => [
+    ...new Set(others.filter((other) => required(other.reading) !== required(shown)).flatMap((other) => other.blanks)),
+  ];
+  const trigger = (required: boolean, why: string, hasZone: boolean, blanks: string[]): DaylightTrigger => {
+    if (blanks.length > 0) {
+      const answer = required ? 'required as entered' : 'not required as entered';
+      return { requirement: 'to-verify', why: `${why}; ${answer}, but ${blanks.join('; and ')}, and that decides it` };
+    }
     if (required) return { requirement: 'required', why };
     if (estimated && hasZone) return { requirement: 'to-verify', why: `${why}; assign the luminaires in the zone to settle it` };
     return { requirement: 'not-required', why };
   };
+  const sidelitBlanks = deciding((outcome) => outcome.sidelightingRequired);
+  const toplitBlanks = deciding((outcome) => outcome.toplightingRequired);
+  const sidelightingTrigger = trigger(shown.sidelightingRequired, sidelighting, zoneAreas['primary-sidelit'].plus(zoneAreas['secondary-sidelit']).greaterThan(0), sidelitBlanks);
+  const toplightingTrigger = trigger(shown.toplightingRequired, toplighting, zoneAreas.toplit.greaterThan(0), toplitBlanks);
+
   const reasons: string[] = [`Sidelighting: ${sidelighting}.`];
-  if (secondarySidelightingControlRequired) reasons.push('Secondary sidelighting: the secondary sidelit zone is controlled separately from the primary.');
+  if (shown.secondaryRequired) reasons.push('Secondary sidelighting: the secondary sidelit zone is controlled separately from the primary.');
+  if (sidelitBlanks.length > 0) reasons.push(`Sidelighting, to verify: ${sidelitBlanks.join('; and ')}.`);
   reasons.push(`Toplighting: ${toplighting}.`);
+  if (toplitBlanks.length > 0) reasons.push(`Toplighting, to verify: ${toplitBlanks.join('; and ')}.`);
   for (const kind of ['primary-sidelit', 'secondary-sidelit', 'toplit'] as const) {
     if (watts.zoneW[kind].greaterThan(0) && zoneAreas[kind].isZero()) {
       cautions.push(`“${space.name}”: luminaires are assigned to the ${kind.replace('-', ' ')} zone, but the room's openings give no such zone.`);
@@ -264,9 +332,9 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
     primarySidelitW: reported.watts(primaryW),
     secondarySidelitW: reported.watts(secondaryW),
     toplitW: reported.watts(toplitW),
-    sidelightingControlRequired,
-    secondarySidelightingControlRequired,
-    toplightingControlRequired,
+    sidelightingControlRequired: shown.sidelightingRequired,
+    secondarySidelightingControlRequired: shown.secondaryRequired,
+    toplightingControlRequired: shown.toplightingRequired,
     reasons,
     zones: areas.rectangles.map((rectangle) => ({
       kind: rectangle.kind,
@@ -278,11 +346,7 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
     })),
     section: [...new Set([edition.sections['daylightSidelighting'], edition.sections['daylightToplighting']])].filter(Boolean).join('; '),
   };
-  return {
-    result,
-    sidelighting: trigger(sidelightingControlRequired, sidelighting, zoneAreas['primary-sidelit'].plus(zoneAreas['secondary-sidelit']).greaterThan(0)),
-    toplighting: trigger(toplightingControlRequired, toplighting, zoneAreas.toplit.greaterThan(0)),
-  };
+  return { result, sidelighting: sidelightingTrigger, toplighting: toplightingTrigger };
 }
 
 /** The room cavity ratio of a rectangular room, or null where the geometry is not given. */

@@ -129,11 +129,13 @@ function breakpoints(values: Dec[]): Dec[] {
 /**
  * Daylight areas without double counting. Overlapping zones count once, in the zone that takes
  * precedence, in the order the edition's data gives (or {@link defaultPrecedence}). The plan is
- * cut into cells at every rectangle edge and each cell is given to one zone.
+ * cut into cells at every rectangle edge and each cell is given to one zone. `keep` leaves out the
+ * zones an edition's glazing rules take away (a blocked window's primary band, a skylight of low
+ * transmittance): their floor goes to whichever other zone reaches it.
  */
-export function daylightAreas(room: RoomPlan, rules: EditionRules['daylight']): ZoneAreas {
+export function daylightAreas(room: RoomPlan, rules: EditionRules['daylight'], keep: (rectangle: ZoneRectangle) => boolean = () => true): ZoneAreas {
   const precedence = rules.overlapPrecedence ?? defaultPrecedence;
-  const rectangles = zoneRectangles(room, rules);
+  const rectangles = zoneRectangles(room, rules).filter(keep);
   const xs = breakpoints(rectangles.flatMap((rectangle) => [rectangle.x0, rectangle.x1]));
   const ys = breakpoints(rectangles.flatMap((rectangle) => [rectangle.y0, rectangle.y1]));
   const totals: Record<ZoneKind, Dec[]> = { toplit: [], 'primary-sidelit': [], 'secondary-sidelit': [] };

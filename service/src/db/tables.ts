@@ -214,6 +214,8 @@ export interface EditionRulesRow extends VersionedCodeRow {
   daylight_secondary_depth_head_heights: string;
   daylight_toplit_extension_ceiling_heights: string;
   daylight_overlap_precedence: NonNullable<EditionRules['daylight']['overlapPrecedence']> | null;
+  /** The opening rules (visible transmittance, blocked daylight, glazing minimums), each with its section and provenance. */
+  daylight_openings: Record<string, { section: string; provenance: TaggedProvenance } & Record<string, unknown>> | null;
   daylight_provenance: TaggedProvenance;
   room_geometry_increase_percent: string | null;
   room_geometry_provenance: TaggedProvenance | null;
@@ -271,7 +273,7 @@ declare module 'knex/types/tables.js' {
     code_exterior_applications: CodeTable<CodeExteriorApplicationRow, 'controls' | 'source_control_flags'>;
     lighting_zones: CodeTable<LightingZoneRow>;
     additional_allowances: CodeTable<AdditionalAllowanceRow, 'kind'>;
-    edition_rules: CodeTable<EditionRulesRow, 'daylight_comparison' | 'daylight_side_extension_kind' | 'daylight_provenance' | 'room_geometry_provenance' | 'small_enclosed_space_provenance' | 'track_provenance' | 'base_site_provenance'>;
+    edition_rules: CodeTable<EditionRulesRow, 'daylight_comparison' | 'daylight_side_extension_kind' | 'daylight_provenance' | 'daylight_openings' | 'room_geometry_provenance' | 'small_enclosed_space_provenance' | 'track_provenance' | 'base_site_provenance'>;
     edition_sections: CodeTable<EditionSectionRow>;
     edition_amendments: CodeTable<EditionAmendmentRow, 'parameters'>;
   }

@@ -222,6 +222,8 @@ interface SpaceWindowRow {
   sill_height: string | null;
   wall: SpaceInput['windows'][number]['wall'] | null;
   offset: string | null;
+  visible_transmittance: string | null;
+  daylight_blocked: boolean | null;
 }
 
 interface SpaceSkylightRow {
@@ -231,6 +233,8 @@ interface SpaceSkylightRow {
   width: string;
   x: string | null;
   y: string | null;
+  visible_transmittance: string | null;
+  daylight_blocked: boolean | null;
 }
 
 export type SpaceRecord = Omit<SpaceInput, 'luminaires'> & Stamp & { id: string; position: number; luminaires: (SpaceInput['luminaires'][number] & { luminaireTypeId: string })[] };
@@ -301,10 +305,10 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
       }),
     ),
     windows: (windowsBySpace.get(row.id) ?? []).map((opening) =>
-      defined({ width: decimal(opening.width)!, headHeight: decimal(opening.head_height)!, sillHeight: decimal(opening.sill_height), wall: opening.wall ?? 'south', offset: decimal(opening.offset) }),
+      defined({ width: decimal(opening.width)!, headHeight: decimal(opening.head_height)!, sillHeight: decimal(opening.sill_height), wall: opening.wall ?? 'south', offset: decimal(opening.offset), visibleTransmittance: decimal(opening.visible_transmittance), daylightBlocked: opening.daylight_blocked ?? undefined }),
     ),
     skylights: (skylightsBySpace.get(row.id) ?? []).map((skylight) =>
-      defined({ length: decimal(skylight.length)!, width: decimal(skylight.width)!, x: decimal(skylight.x), y: decimal(skylight.y) }),
+      defined({ length: decimal(skylight.length)!, width: decimal(skylight.width)!, x: decimal(skylight.x), y: decimal(skylight.y), visibleTransmittance: decimal(skylight.visible_transmittance), daylightBlocked: skylight.daylight_blocked ?? undefined }),
     ),
     ...stamp(row),
   })) as SpaceRecord[];
@@ -379,8 +383,8 @@ function childRows(spaceId: string, input: SpaceInput, typeIds: Map<string, stri
   return {
     luminaires: input.luminaires.map((group, position) => ({ space_id: spaceId, position, luminaire_type_id: typeIds.get(group.tag), count: Number(group.count), zone: group.zone ?? null })),
     controls: input.controls.map((control) => controlRow(spaceId, control)),
-    windows: input.windows.map((opening, position) => ({ space_id: spaceId, position, width: opening.width, head_height: opening.headHeight, sill_height: opening.sillHeight ?? null, wall: opening.wall, offset: opening.offset ?? null })),
-    skylights: input.skylights.map((skylight, position) => ({ space_id: spaceId, position, length: skylight.length, width: skylight.width, x: skylight.x ?? null, y: skylight.y ?? null })),
+    windows: input.windows.map((opening, position) => ({ space_id: spaceId, position, width: opening.width, head_height: opening.headHeight, sill_height: opening.sillHeight ?? null, wall: opening.wall, offset: opening.offset ?? null, visible_transmittance: opening.visibleTransmittance ?? null, daylight_blocked: opening.daylightBlocked ?? null })),
+    skylights: input.skylights.map((skylight, position) => ({ space_id: spaceId, position, length: skylight.length, width: skylight.width, x: skylight.x ?? null, y: skylight.y ?? null, visible_transmittance: skylight.visibleTransmittance ?? null, daylight_blocked: skylight.daylightBlocked ?? null })),
   };
 }
 

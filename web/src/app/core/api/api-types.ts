@@ -147,6 +147,10 @@ export interface WindowOpening {
   sillHeight?: string;
   wall: Wall;
   offset?: string;
+  /** 0 to 1; absent: not recorded. */
+  visibleTransmittance?: string;
+  /** An adjacent structure blocks the window's daylight; absent: not recorded. */
+  daylightBlocked?: boolean;
 }
 
 export interface Skylight {
@@ -154,6 +158,9 @@ export interface Skylight {
   width: string;
   x?: string;
   y?: string;
+  visibleTransmittance?: string;
+  /** Nearby structures or natural objects block its direct sunlight; absent: not recorded. */
+  daylightBlocked?: boolean;
 }
 
 export interface SpaceInput {

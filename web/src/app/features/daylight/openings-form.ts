@@ -23,12 +23,27 @@ function decimal(bound: 'positive' | 'non-negative', optional: boolean): Validat
 
 const number = (text: string) => (text.trim() === '' ? null : Number(text));
 
+/** Visible transmittance: blank (not recorded) or a fraction from 0 to 1, as the service bounds it. */
+function transmittance(control: AbstractControl<string>): ValidationErrors | null {
+  const text = control.value.trim();
+  if (text === '') return null;
+  if (!decimalPattern.test(text)) return { decimal: true };
+  const value = Number(text);
+  return value < 0 || value > 1 ? { range: 'Enter a number from 0 to 1.' } : null;
+}
+
+/** Whether daylight is blocked: not recorded, yes or no. A blank is never read as "no". */
+export type Blocked = '' | 'yes' | 'no';
+const blockedOf = (value: boolean | undefined): Blocked => (value === undefined ? '' : value ? 'yes' : 'no');
+
 export type WindowForm = FormGroup<{
   wall: FormControl<Wall>;
   width: FormControl<string>;
   headHeight: FormControl<string>;
   sillHeight: FormControl<string>;
   offset: FormControl<string>;
+  visibleTransmittance: FormControl<string>;
+  daylightBlocked: FormControl<Blocked>;
 }>;
 
 export type SkylightForm = FormGroup<{
@@ -36,6 +51,8 @@ export type SkylightForm = FormGroup<{
   width: FormControl<string>;
   x: FormControl<string>;
   y: FormControl<string>;
+  visibleTransmittance: FormControl<string>;
+  daylightBlocked: FormControl<Blocked>;
 }>;
 
 export type OpeningsForm = FormGroup<{ windows: FormArray<WindowForm>; skylights: FormArray<SkylightForm> }>;
@@ -80,6 +97,8 @@ export function windowForm(room: () => Room, opening?: WindowOpening): WindowFor
       headHeight: new FormControl(opening?.headHeight ?? '', { nonNullable: true, validators: [decimal('positive', false)] }),
       sillHeight: new FormControl(opening?.sillHeight ?? '', { nonNullable: true, validators: [decimal('non-negative', true)] }),
       offset: new FormControl(opening?.offset ?? '', { nonNullable: true, validators: [decimal('non-negative', true)] }),
+      visibleTransmittance: new FormControl(opening?.visibleTransmittance ?? '', { nonNullable: true, validators: [transmittance] }),
+      daylightBlocked: new FormControl<Blocked>(blockedOf(opening?.daylightBlocked), { nonNullable: true }),
     },
     { validators: [windowRules(room)] },
   );
@@ -92,6 +111,8 @@ export function skylightForm(room: () => Room, skylight?: Skylight): SkylightFor
       width: new FormControl(skylight?.width ?? '', { nonNullable: true, validators: [decimal('positive', false)] }),
       x: new FormControl(skylight?.x ?? '', { nonNullable: true, validators: [decimal('non-negative', true)] }),
       y: new FormControl(skylight?.y ?? '', { nonNullable: true, validators: [decimal('non-negative', true)] }),
+      visibleTransmittance: new FormControl(skylight?.visibleTransmittance ?? '', { nonNullable: true, validators: [transmittance] }),
+      daylightBlocked: new FormControl<Blocked>(blockedOf(skylight?.daylightBlocked), { nonNullable: true }),
     },
     { validators: [skylightRules(room)] },
   );
@@ -106,6 +127,15 @@ export function openingsForm(room: () => Room, windows: readonly WindowOpening[]
 
 const optional = (text: string) => (text.trim() === '' ? undefined : text.trim());
 
+/** The glazing fields of either opening, leaving out what is not recorded. */
+function glazing(value: { visibleTransmittance: string; daylightBlocked: Blocked }): { visibleTransmittance?: string; daylightBlocked?: boolean } {
+  const entry: { visibleTransmittance?: string; daylightBlocked?: boolean } = {};
+  const vt = optional(value.visibleTransmittance);
+  if (vt !== undefined) entry.visibleTransmittance = vt;
+  if (value.daylightBlocked !== '') entry.daylightBlocked = value.daylightBlocked === 'yes';
+  return entry;
+}
+
 /** The wire shape, leaving out blank optional fields (the engine then centres the opening). */
 export function openingsValue(form: OpeningsForm): { windows: WindowOpening[]; skylights: Skylight[] } {
   const { windows, skylights } = form.getRawValue();
@@ -116,7 +146,7 @@ export function openingsValue(form: OpeningsForm): { windows: WindowOpening[]; s
       const offset = optional(opening.offset);
       if (sill !== undefined) entry.sillHeight = sill;
       if (offset !== undefined) entry.offset = offset;
-      return entry;
+      return { ...entry, ...glazing(opening) };
     }),
     skylights: skylights.map((skylight) => {
       const entry: Skylight = { length: skylight.length.trim(), width: skylight.width.trim() };
@@ -124,7 +154,7 @@ export function openingsValue(form: OpeningsForm): { windows: WindowOpening[]; s
       const y = optional(skylight.y);
       if (x !== undefined) entry.x = x;
       if (y !== undefined) entry.y = y;
-      return entry;
+      return { ...entry, ...glazing(skylight) };
     }),
   };
 }
