@@ -51,7 +51,7 @@ afterAll(async () => {
   }
 });
 
-describe('passwords', () => {
+describe('passwords and accounts', () => {
   it('a forgotten password is replaced through the link the mail carries', async () => {
     const { page } = browser;
     await page.goto(`${served.baseUrl}/sign-in`);
@@ -135,5 +135,42 @@ describe('passwords', () => {
     await message.getByText('reset-password?token=(hidden)').waitFor();
     expect(await message.textContent()).toContain('engineer@alderbay.example');
     await page.screenshot({ path: 'test-output/browser/outbox.png', fullPage: true });
+  }, 60_000);
+
+  it('the People page makes an account, whose owner chooses a password from the mail, and disables it', async () => {
+    const { page } = browser;
+    await page.getByRole('link', { name: 'People' }).click();
+    await page.getByRole('heading', { name: 'People' }).waitFor();
+    await page.getByLabel('Name').fill('Noor Castellanos');
+    await page.getByLabel('E-mail').fill('surveyor@alderbay.example');
+    await page.getByRole('button', { name: 'Create the account' }).click();
+    await page.getByRole('status').getByText('Noor Castellanos has an account now').waitFor();
+    const row = page.getByRole('row', { name: /Noor Castellanos/ });
+    await row.getByText('Enabled').waitFor();
+
+    await sender.drain();
+    const mail = await lastMail();
+    expect(mail.subject).toBe('Your Allowlight account');
+    const link = new URL(/http:\/\/allowlight\.localhost\/reset-password\?token=[\w-]+/.exec(mail.text ?? '')![0]);
+    const owner = await browser.context.newPage();
+    try {
+      await owner.goto(`${served.baseUrl}${link.pathname}${link.search}`);
+      await owner.getByLabel('New password', { exact: true }).fill(newPassword);
+      await owner.getByLabel('New password again').fill(newPassword);
+      await owner.getByRole('button', { name: 'Save the new password' }).click();
+      await owner.getByRole('status').getByText('Your new password is saved').waitFor();
+    } finally {
+      await owner.close();
+    }
+    const signIn = (password: string) =>
+      fetch(`${served.baseUrl}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: 'surveyor@alderbay.example', password }) });
+    expect((await signIn(newPassword)).status).toBe(200);
+
+    await row.getByRole('button', { name: 'Disable' }).click();
+    await page.getByRole('alertdialog').getByRole('button', { name: 'Disable the account' }).click();
+    await page.getByRole('status').getByText("Noor Castellanos's account is disabled.").waitFor();
+    await row.getByText('Disabled').waitFor();
+    await page.screenshot({ path: 'test-output/browser/people.png', fullPage: true });
+    expect((await signIn(newPassword)).status).toBe(403);
   }, 60_000);
 });

@@ -34,6 +34,12 @@ export const routes: Routes = [
         loadComponent: () => import('./features/account/account-page').then((m) => m.AccountPage),
       },
       {
+        path: 'people',
+        title: 'People · Allowlight',
+        canActivate: [adminGuard],
+        loadComponent: () => import('./features/people/people-page').then((m) => m.PeoplePage),
+      },
+      {
         path: 'outbox',
         title: 'Outbox · Allowlight',
         canActivate: [adminGuard],

@@ -1,0 +1,30 @@
+import { HttpClient } from '@angular/common/http';
+import { inject, Injectable } from '@angular/core';
+import type { Observable } from 'rxjs';
+
+export interface AccountView {
+  id: string;
+  email: string;
+  name: string;
+  isAdmin: boolean;
+  disabled: boolean;
+  createdAt: string;
+}
+
+/** The administrator's calls on accounts. */
+@Injectable({ providedIn: 'root' })
+export class PeopleApi {
+  private readonly http = inject(HttpClient);
+
+  list(): Observable<AccountView[]> {
+    return this.http.get<AccountView[]>('/api/admin/users');
+  }
+
+  create(account: { email: string; name: string; isAdmin: boolean }): Observable<AccountView> {
+    return this.http.post<AccountView>('/api/admin/users', account);
+  }
+
+  change(id: string, change: { isAdmin?: boolean; disabled?: boolean }): Observable<AccountView> {
+    return this.http.patch<AccountView>(`/api/admin/users/${encodeURIComponent(id)}`, change);
+  }
+}
