@@ -16,6 +16,7 @@ import type { AdditionalAllowanceView, AllowanceClaim, EvaluationResult, SpaceRe
 import { ApiError } from '../../core/http/api-error';
 import { allowanceStatus } from '../../shared/allowance-status';
 import { CardRows } from '../../shared/card-rows';
+import { SpacePicker } from '../../shared/space-picker';
 import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
 import { areaFigure, densityFigure, formatArea, formatWatts, unitLabels, wattsFigure } from '../../shared/format';
 import { inProjectUnits } from '../../shared/unit-words';
@@ -45,6 +46,7 @@ import { claimAreaValidator, claimLines, salesFloorType, usageWords, type ClaimL
     MatSelectModule,
     MatTooltipModule,
     CardRows,
+    SpacePicker,
     VerifyBadge,
   ],
   templateUrl: './allowances-page.html',

@@ -9,6 +9,7 @@ import { ApiError } from '../../core/http/api-error';
 import { WriteFailure } from '../../shared/write-failure';
 import { formatArea } from '../../shared/format';
 import { InUnits } from '../../shared/in-units';
+import { SpacePicker } from '../../shared/space-picker';
 import { UnverifiedCount } from '../../shared/unverified-count';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
@@ -21,7 +22,7 @@ import { outstandingLines } from './control-status';
 /** Per space: the control requirements the evaluation derives, and what the engineer records as provided or excepted. */
 @Component({
   selector: 'al-controls-page',
-  imports: [MatIconModule, MatListModule, MatProgressBarModule, MatSlideToggleModule, RouterLink, BulkControlPanel, ControlLineCard, InUnits, UnverifiedCount],
+  imports: [MatIconModule, MatListModule, MatProgressBarModule, MatSlideToggleModule, RouterLink, BulkControlPanel, ControlLineCard, InUnits, SpacePicker, UnverifiedCount],
   templateUrl: './controls-page.html',
   styleUrl: './controls-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

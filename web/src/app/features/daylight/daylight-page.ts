@@ -23,6 +23,7 @@ import { fieldMessage } from '../../shared/field-message';
 import { openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
 import { askToDiscard } from '../../shared/confirm-dialog';
 import { MeasureInput } from '../../shared/measure-input';
+import { SpacePicker } from '../../shared/space-picker';
 
 /** Windows and skylights per space, the daylight zones they make, and whether daylight-responsive control is required. */
 @Component({
@@ -41,6 +42,7 @@ import { MeasureInput } from '../../shared/measure-input';
     RouterLink,
     DaylightPlan,
     MeasureInput,
+    SpacePicker,
   ],
   templateUrl: './daylight-page.html',
   styleUrl: './daylight-page.scss',
