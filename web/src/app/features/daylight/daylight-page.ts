@@ -170,21 +170,21 @@ export class DaylightPage implements HasUnsavedChanges {
     if (this.form.invalid) return;
     const projectId = this.store.projectId();
     if (!projectId) return;
-    this.saving.set(true);
     this.serverErrors.set({});
     const version = this.formBase?.id === space.id ? this.formBase.version : space.version;
-    this.api.patchSpace(projectId, space.id, version, openingsValue(this.form)).subscribe({
-      next: (saved) => {
-        this.saving.set(false);
-        this.form.markAsPristine();
+    this.failure.save(this.api.patchSpace(projectId, space.id, version, openingsValue(this.form)), {
+      saving: this.saving,
+      form: this.form,
+      saved: (saved) => {
         this.store.upsertSpace(saved);
         this.formTick.update((tick) => tick + 1);
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
+      // The fields take what they can, and the message still names every problem.
+      refused: (error) => {
         this.serverErrors.set(fieldErrors(error));
-        this.failure.report(error, () => this.reload(space.id));
+        return false;
       },
+      reload: () => this.reload(space.id),
     });
   }
 
