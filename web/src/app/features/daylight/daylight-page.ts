@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal, untracked } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -11,7 +12,6 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
-import type { Subscription } from 'rxjs';
 import type { DaylightResult, DaylightZoneKind, Skylight, SpaceRecord, WindowOpening } from '../../core/api/api-types';
 import { WriteFailure, fieldErrors } from '../../shared/write-failure';
 import { areaFigure, formatArea, formatLength, unitLabels, wattsFigure } from '../../shared/format';
@@ -20,7 +20,7 @@ import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { DaylightPlan, zoneNames } from './daylight-plan';
 import { fieldMessage } from '../../shared/field-message';
-import { openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
+import { fillOpenings, openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
 import { askToDiscard } from '../../shared/confirm-dialog';
 import { MeasureInput } from '../../shared/measure-input';
 import { SpacePicker } from '../../shared/space-picker';
@@ -91,16 +91,16 @@ export class DaylightPage implements HasUnsavedChanges {
     return { length: dimension(space?.length), width: dimension(space?.width) };
   });
 
-  protected form: OpeningsForm = openingsForm(() => this.room(), [], []);
+  /** One form for the page, filled again for each space (`resetForm`). */
+  protected readonly form: OpeningsForm = openingsForm(() => this.room(), [], []);
   /** The stored record the form started from: its version goes with the save. */
   private formBase: SpaceRecord | null = null;
-  /** Moves on every edit and every new form, so the plan and the buttons follow the form. */
-  private readonly formTick = signal(0);
-  private formChanges: Subscription | null = null;
+  /** The form's last change (a value, its validity, dirty or pristine): the plan and the buttons follow it. */
+  private readonly formEvent = toSignal(this.form.events);
 
   /** What the plan draws: the openings being edited where they are valid, else the saved ones. */
   protected readonly drawn = computed(() => {
-    this.formTick();
+    this.formEvent();
     const space = this.selectedSpace();
     if (!space) return { windows: [] as WindowOpening[], skylights: [] as Skylight[] };
     if (!this.form.dirty) return { windows: space.windows, skylights: space.skylights };
@@ -111,7 +111,7 @@ export class DaylightPage implements HasUnsavedChanges {
     };
   });
   protected readonly dirty = computed(() => {
-    this.formTick();
+    this.formEvent();
     return this.form.dirty;
   });
 
@@ -140,25 +140,21 @@ export class DaylightPage implements HasUnsavedChanges {
   protected addWindow(): void {
     this.form.controls.windows.push(windowForm(() => this.room()));
     this.form.markAsDirty();
-    this.formTick.update((tick) => tick + 1);
   }
 
   protected addSkylight(): void {
     this.form.controls.skylights.push(skylightForm(() => this.room()));
     this.form.markAsDirty();
-    this.formTick.update((tick) => tick + 1);
   }
 
   protected removeWindow(index: number): void {
     this.form.controls.windows.removeAt(index);
     this.form.markAsDirty();
-    this.formTick.update((tick) => tick + 1);
   }
 
   protected removeSkylight(index: number): void {
     this.form.controls.skylights.removeAt(index);
     this.form.markAsDirty();
-    this.formTick.update((tick) => tick + 1);
   }
 
   protected discard(): void {
@@ -175,10 +171,7 @@ export class DaylightPage implements HasUnsavedChanges {
     this.failure.save(this.api.patchSpace(projectId, space.id, version, openingsValue(this.form)), {
       saving: this.saving,
       form: this.form,
-      saved: (saved) => {
-        this.store.upsertSpace(saved);
-        this.formTick.update((tick) => tick + 1);
-      },
+      saved: (saved) => this.store.upsertSpace(saved),
       // The fields take what they can, and the message still names every problem.
       refused: (error) => {
         this.serverErrors.set(fieldErrors(error));
@@ -201,12 +194,10 @@ export class DaylightPage implements HasUnsavedChanges {
   }
 
   private resetForm(space: SpaceRecord | null): void {
-    this.formChanges?.unsubscribe();
     this.formBase = space;
-    this.form = openingsForm(() => this.room(), space?.windows ?? [], space?.skylights ?? []);
-    this.formChanges = this.form.valueChanges.subscribe(() => this.formTick.update((tick) => tick + 1));
-    if (!this.store.canEdit()) this.form.disable();
+    fillOpenings(this.form, () => this.room(), space?.windows ?? [], space?.skylights ?? []);
+    if (this.store.canEdit()) this.form.enable();
+    else this.form.disable();
     this.serverErrors.set({});
-    this.formTick.update((tick) => tick + 1);
   }
 }
