@@ -5,12 +5,12 @@ import { loadMath } from '../../shared/measure';
 import { ExteriorApplicationForm } from './exterior-application-form';
 
 // ASHRAE 90.1-2019 Table 9.4.2-2 (reference/ashrae-90.1-2019/exterior-applications.json): the units each application is allowed by.
-const row = { source: 'ASHRAE 90.1-2019 Table 9.4.2-2', confidence: 'medium', verified: true, citation: { short: 'Table 9.4.2-2', layer: 'model', checked: true, note: null } };
-const catalogue = [
+const row = { source: 'ASHRAE 90.1-2019 Table 9.4.2-2', confidence: 'medium', verified: true, citation: { short: 'Table 9.4.2-2', layer: 'model-code', checked: true, note: null } } as const;
+const catalogue: ExteriorApplicationView[] = [
   { key: 'parking-lots-and-drives', label: 'Parking lots and drives', sourceLabel: '', unit: 'W/ft2', tradable: true, isBaseSiteAllowance: false, allowanceByZone: { '2': '0.04' }, ...row },
   { key: 'walkways-less-than-10-feet-wide', label: 'Walkways less than 10 feet wide', sourceLabel: '', unit: 'W/ft', tradable: true, isBaseSiteAllowance: false, allowanceByZone: { '2': '0.5' }, ...row },
   { key: 'automated-teller-machines-and-night-depositories-w-per-location', label: 'ATMs and night depositories', sourceLabel: '', unit: 'W/location', tradable: false, isBaseSiteAllowance: false, allowanceByZone: { '2': '135' }, ...row },
-] as unknown as ExteriorApplicationView[];
+];
 
 describe('ExteriorApplicationForm quantity', () => {
   let fixture: ComponentFixture<ExteriorApplicationForm>;
