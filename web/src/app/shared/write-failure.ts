@@ -1,8 +1,25 @@
-import { inject, Injectable } from '@angular/core';
+import { inject, Injectable, type WritableSignal } from '@angular/core';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import type { AbstractControl } from '@angular/forms';
+import type { Observable, Subscription } from 'rxjs';
 import { ApiError, type ApiErrorDetail } from '../core/http/api-error';
 import { problemLine, problemText } from './problem-words';
+
+/** What an editor does around one write; `WriteFailure.save` runs them in their order. */
+export interface SaveSteps<T> {
+  /** On while the request is out, off before anything else happens. */
+  saving?: WritableSignal<boolean>;
+  /** Marked pristine once the write is stored, before `saved`. */
+  form?: AbstractControl;
+  /** The stored record: into the project's store, the editor closed or started again. */
+  saved: (record: T) => void;
+  /** A 400, to put beside the editor's fields. Without it a 400 is answered like any refusal. */
+  invalid?: (error: ApiError) => void;
+  /** A refusal the editor answers in its own words (a duplicate tag, the spaces a write found changed); true when it did. */
+  refused?: (error: ApiError) => boolean;
+  /** Reads fresh copies when the person takes a stale write's Reload. */
+  reload: () => void;
+}
 
 /**
  * How the workspace answers a failed write. A stale write (409 `conflict`) says who changed the
@@ -12,6 +29,31 @@ import { problemLine, problemText } from './problem-words';
 @Injectable({ providedIn: 'root' })
 export class WriteFailure {
   private readonly snackBar = inject(MatSnackBar);
+
+  /**
+   * One write from an editor: `saving` on, the request, then either the stored record (the form
+   * pristine, `saved`) or the failure answered: the editor's own words for a refusal it knows,
+   * a 400 beside its fields, else `report` (a stale write offers `reload`).
+   */
+  save<T>(request: Observable<T>, steps: SaveSteps<T>): Subscription {
+    steps.saving?.set(true);
+    return request.subscribe({
+      next: (record) => {
+        steps.saving?.set(false);
+        steps.form?.markAsPristine();
+        steps.saved(record);
+      },
+      error: (error: unknown) => {
+        steps.saving?.set(false);
+        if (error instanceof ApiError && steps.refused?.(error)) return;
+        if (error instanceof ApiError && error.status === 400 && steps.invalid) {
+          steps.invalid(error);
+          return;
+        }
+        this.report(error, steps.reload);
+      },
+    });
+  }
 
   report(error: unknown, reload: () => void): void {
     if (error instanceof ApiError && error.status === 409 && error.code === 'conflict') {

@@ -16,6 +16,7 @@ import type { AdditionalAllowanceView, AllowanceClaim, EvaluationResult, SpaceRe
 import { ApiError } from '../../core/http/api-error';
 import { allowanceStatus } from '../../shared/allowance-status';
 import { CardRows } from '../../shared/card-rows';
+import { SpacePicker } from '../../shared/space-picker';
 import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
 import { areaFigure, densityFigure, formatArea, formatWatts, unitLabels, wattsFigure } from '../../shared/format';
 import { inProjectUnits } from '../../shared/unit-words';
@@ -46,6 +47,7 @@ import { claimAreaValidator, claimLines, salesFloorType, usageWords, type ClaimL
     MatSelectModule,
     MatTooltipModule,
     CardRows,
+    SpacePicker,
     VerifyBadge,
   ],
   templateUrl: './allowances-page.html',
@@ -247,10 +249,9 @@ export class AllowancesPage implements HasUnsavedChanges {
     const value = this.form.getRawValue();
     const input: AllowanceClaimInput = { spaceId: space.id, allowance: value.allowance, area: value.area.trim() };
     const editing = this.editing();
-    this.saving.set(true);
-    (editing ? this.api.replace(projectId, editing.id, editing.version, input) : this.api.create(projectId, input)).subscribe({
-      next: (saved) => {
-        this.saving.set(false);
+    this.failure.save(editing ? this.api.replace(projectId, editing.id, editing.version, input) : this.api.create(projectId, input), {
+      saving: this.saving,
+      saved: (saved) => {
         this.claims.update((claims) => {
           const list = claims ?? [];
           return list.some((claim) => claim.id === saved.id) ? list.map((claim) => (claim.id === saved.id ? saved : claim)) : [...list, saved];
@@ -258,25 +259,20 @@ export class AllowancesPage implements HasUnsavedChanges {
         this.cancel();
         this.store.refreshResults();
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        if (error instanceof ApiError && error.status === 400) {
-          const unplaced = placeServerErrors(error.details, (path) => (path === 'area' ? this.form.controls.area : path === 'allowance' ? this.form.controls.allowance : null));
-          if (unplaced.length) this.snackBar.open(unplaced.map((detail) => detail.message).join(' '), 'Dismiss', { duration: 8000 });
-          return;
-        }
-        this.failure.report(error, () => this.reload());
+      invalid: (error) => {
+        const unplaced = placeServerErrors(error.details, (path) => (path === 'area' ? this.form.controls.area : path === 'allowance' ? this.form.controls.allowance : null));
+        if (unplaced.length) this.snackBar.open(unplaced.map((detail) => detail.message).join(' '), 'Dismiss', { duration: 8000 });
       },
+      reload: () => this.reload(),
     });
   }
 
   protected remove(claim: AllowanceClaim): void {
     const projectId = this.store.projectId();
     if (!projectId) return;
-    this.saving.set(true);
-    this.api.remove(projectId, claim.id, claim.version).subscribe({
-      next: () => {
-        this.saving.set(false);
+    this.failure.save(this.api.remove(projectId, claim.id, claim.version), {
+      saving: this.saving,
+      saved: () => {
         this.claims.update((claims) => (claims ?? []).filter((other) => other.id !== claim.id));
         this.store.refreshResults();
         const words = `Claim on “${this.allowanceLabel(claim.allowance)}” removed`;
@@ -295,10 +291,7 @@ export class AllowancesPage implements HasUnsavedChanges {
             }),
           );
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        this.failure.report(error, () => this.reload());
-      },
+      reload: () => this.reload(),
     });
   }
 

@@ -1,23 +1,37 @@
 import { FormControl } from '@angular/forms';
-import type { AdditionalAllowanceView, AllowanceClaim, EvaluationResult, SpaceRecord } from '../../core/api/api-types';
+import type { AdditionalAllowanceView, AllowanceClaim, SpaceRecord } from '../../core/api/api-types';
 import { formatWatts } from '../../shared/format';
+import { evaluated } from '../../../testing/evaluate';
 import { claimAreaValidator, claimLines, usageWords } from './claim-lines';
 
-// Invented claims and figures for the test; the 1.05 W/ft² rate is the IECC 2021 retail area 3 row, from memory (reference/iecc-2021).
-const allowance = { key: 'retail-area-3', label: 'Retail display, retail area 3', lpdWPerFt2: '1.05' } as AdditionalAllowanceView;
+// ASHRAE 90.1-2022 §9.5.2.2(b), via pnnl/ruleset-checking-tool (the calculation tests' edition, test/calc/fixtures.ts):
+// retail area 3 adds 0.70 W/ft² of the area claimed. The sales floors, claims and display watts are invented.
+const allowance = { key: 'retail-area-3', label: 'Retail display, retail area 3', lpdWPerFt2: '0.70' } as AdditionalAllowanceView;
 const claim = (id: string, spaceId: string, key: string, area: string): AllowanceClaim => ({ id, spaceId, allowance: key, area, version: 1, updatedAt: '', updatedBy: null });
-const result = {
-  interior: {
-    additional: { lines: [{ allowance: 'retail-area-3', kind: 'retail-display', label: '', spaceId: 's1', area: '800', claimedW: '840', usableW: '800', limitedBy: null, section: 'C405.3.2.2.1' }] },
+const result = evaluated({
+  edition: 'ashrae-90.1-2022',
+  method: 'space-by-space',
+  units: 'ip',
+  luminaireTypes: [{ tag: 'D', description: 'Display spot', inputWatts: '100', use: 'display' }],
+  spaces: [
+    { id: 's1', name: 'Sales 1', spaceType: 'sales-area', area: '1000', luminaires: [{ tag: 'D', count: '10' }] },
+    { id: 's2', name: 'Sales 2', spaceType: 'sales-area', area: '500', luminaires: [{ tag: 'D', count: '5' }] },
+  ],
+  retailDisplay: {
+    claims: [
+      { allowance: 'retail-area-3', spaceId: 's1', area: '800' },
+      { allowance: 'retail-area-3', spaceId: 's2', area: '100' },
+    ],
   },
-} as unknown as EvaluationResult;
+});
 const watts = (value: number) => formatWatts(String(value));
 
 describe('a space’s claims on the additional allowances', () => {
   it('pairs each claim of the space with its allowance and what the evaluation counted', () => {
     const lines = claimLines('s1', [claim('c1', 's1', 'retail-area-3', '800'), claim('c2', 's2', 'retail-area-3', '100'), claim('c3', 's1', 'gone', '50')], [allowance], result);
     expect(lines.map((line) => [line.claim.id, line.allowance?.label ?? null, line.claimedW, line.usableW])).toEqual([
-      ['c1', 'Retail display, retail area 3', '840', '800'],
+      // 800 ft² × 0.70 W/ft² = 560 W.
+      ['c1', 'Retail display, retail area 3', '560', '560'],
       ['c3', null, null, null],
     ]);
   });

@@ -9,7 +9,6 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { SpaceRecord } from '../../core/api/api-types';
-import { ApiError } from '../../core/http/api-error';
 import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
 import { InUnits } from '../../shared/in-units';
 import { ProblemList } from '../../shared/problem-list';
@@ -155,40 +154,36 @@ export class BulkControlPanel {
     if (!projectId || spaces.length === 0 || !strategy || this.provision.invalid) return;
     const control = providedControl(strategy.key, this.provision.getRawValue());
     if (!control) return;
-    this.saving.set(true);
     this.stale.set(null);
     this.problems.set([]);
     this.done.set(null);
-    this.api.setControlOnSpaces(projectId, spaces, control).subscribe({
-      next: (saved) => {
-        this.saving.set(false);
+    this.failure.save(this.api.setControlOnSpaces(projectId, spaces, control), {
+      saving: this.saving,
+      saved: (saved) => {
         this.store.upsertSpaces(saved);
         const what = control.provided ? `“${strategy.label}” recorded as provided` : `An exception to “${strategy.label}” recorded`;
         this.done.set(`${what} on ${saved.length === 1 ? '1 space' : `${saved.length} spaces`}.`);
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        if (error instanceof ApiError && error.status === 409 && error.code === 'conflict') {
-          // Each detail sits at the changed space's place in the request.
-          const names = error.details.flatMap((detail) => {
-            const index = /^spaces\.(\d+)$/.exec(detail.path)?.[1];
-            const space = index === undefined ? undefined : spaces[Number(index)];
-            return space ? [space.name] : [];
-          });
-          this.stale.set(names.length > 0 ? names : [error.message]);
-          return;
-        }
-        if (error instanceof ApiError && error.status === 400) {
-          // What names a field of the control (`control.exceptionNote`) goes beside it; the rest is listed.
-          const unplaced = placeServerErrors(error.details, (path) => {
-            const field = path.startsWith('control.') ? path.slice('control.'.length) : '';
-            return field in this.provision.controls ? this.provision.get(field) : null;
-          });
-          this.problems.set(unplaced.map((detail) => problemLine(detail, { spaces })));
-          return;
-        }
-        this.failure.report(error, () => this.reload());
+      refused: (error) => {
+        if (error.status !== 409 || error.code !== 'conflict') return false;
+        // Each detail sits at the changed space's place in the request.
+        const names = error.details.flatMap((detail) => {
+          const index = /^spaces\.(\d+)$/.exec(detail.path)?.[1];
+          const space = index === undefined ? undefined : spaces[Number(index)];
+          return space ? [space.name] : [];
+        });
+        this.stale.set(names.length > 0 ? names : [error.message]);
+        return true;
       },
+      invalid: (error) => {
+        // What names a field of the control (`control.exceptionNote`) goes beside it; the rest is listed.
+        const unplaced = placeServerErrors(error.details, (path) => {
+          const field = path.startsWith('control.') ? path.slice('control.'.length) : '';
+          return field in this.provision.controls ? this.provision.get(field) : null;
+        });
+        this.problems.set(unplaced.map((detail) => problemLine(detail, { spaces })));
+      },
+      reload: () => this.reload(),
     });
   }
 

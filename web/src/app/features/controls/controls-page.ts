@@ -5,10 +5,10 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { RouterLink } from '@angular/router';
 import type { ProvidedControl, SpaceRecord } from '../../core/api/api-types';
-import { ApiError } from '../../core/http/api-error';
 import { WriteFailure } from '../../shared/write-failure';
 import { formatArea } from '../../shared/format';
 import { InUnits } from '../../shared/in-units';
+import { SpacePicker } from '../../shared/space-picker';
 import { UnverifiedCount } from '../../shared/unverified-count';
 import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
@@ -21,7 +21,7 @@ import { outstandingLines } from './control-status';
 /** Per space: the control requirements the evaluation derives, and what the engineer records as provided or excepted. */
 @Component({
   selector: 'al-controls-page',
-  imports: [MatIconModule, MatListModule, MatProgressBarModule, MatSlideToggleModule, RouterLink, BulkControlPanel, ControlLineCard, InUnits, UnverifiedCount],
+  imports: [MatIconModule, MatListModule, MatProgressBarModule, MatSlideToggleModule, RouterLink, BulkControlPanel, ControlLineCard, InUnits, SpacePicker, UnverifiedCount],
   templateUrl: './controls-page.html',
   styleUrl: './controls-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -86,24 +86,19 @@ export class ControlsPage implements HasUnsavedChanges {
     if (!projectId) return;
     const controls = replaceControl(space.controls, strategy, next);
     const card = () => this.cards().find((candidate) => candidate.line().strategy === strategy);
-    this.saving.set(true);
-    this.api.patchSpace(projectId, space.id, space.version, { controls }).subscribe({
-      next: (saved) => {
-        this.saving.set(false);
+    this.failure.save(this.api.patchSpace(projectId, space.id, space.version, { controls }), {
+      saving: this.saving,
+      saved: (saved) => {
         card()?.saved();
         this.store.upsertSpace(saved);
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        if (error instanceof ApiError && error.status === 400) {
-          // The service names the entry by its place in the list sent: `controls.2.exceptionNote`.
-          const prefix = `controls.${controls.findIndex((control) => control.strategy === strategy)}.`;
-          const details = error.details.map((detail) => (detail.path.startsWith(prefix) ? { ...detail, path: detail.path.slice(prefix.length) } : detail));
-          card()?.refused(details, error.message);
-          return;
-        }
-        this.failure.report(error, () => this.reload(space.id));
+      invalid: (error) => {
+        // The service names the entry by its place in the list sent: `controls.2.exceptionNote`.
+        const prefix = `controls.${controls.findIndex((control) => control.strategy === strategy)}.`;
+        const details = error.details.map((detail) => (detail.path.startsWith(prefix) ? { ...detail, path: detail.path.slice(prefix.length) } : detail));
+        card()?.refused(details, error.message);
       },
+      reload: () => this.reload(space.id),
     });
   }
 

@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal, untracked } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -11,7 +12,6 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
-import type { Subscription } from 'rxjs';
 import type { DaylightResult, DaylightZoneKind, Skylight, SpaceRecord, WindowOpening } from '../../core/api/api-types';
 import { WriteFailure, fieldErrors } from '../../shared/write-failure';
 import { areaFigure, formatArea, formatLength, unitLabels, wattsFigure } from '../../shared/format';
@@ -20,9 +20,10 @@ import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { DaylightPlan, zoneNames } from './daylight-plan';
 import { fieldMessage } from '../../shared/field-message';
-import { openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
+import { fillOpenings, openingsForm, openingsValue, skylightForm, windowForm, type OpeningsForm, type Room } from './openings-form';
 import { askToDiscard } from '../../shared/confirm-dialog';
 import { MeasureInput } from '../../shared/measure-input';
+import { SpacePicker } from '../../shared/space-picker';
 
 /** Windows and skylights per space, the daylight zones they make, and whether daylight-responsive control is required. */
 @Component({
@@ -41,6 +42,7 @@ import { MeasureInput } from '../../shared/measure-input';
     RouterLink,
     DaylightPlan,
     MeasureInput,
+    SpacePicker,
   ],
   templateUrl: './daylight-page.html',
   styleUrl: './daylight-page.scss',
@@ -89,16 +91,16 @@ export class DaylightPage implements HasUnsavedChanges {
     return { length: dimension(space?.length), width: dimension(space?.width) };
   });
 
-  protected form: OpeningsForm = openingsForm(() => this.room(), [], []);
+  /** One form for the page, filled again for each space (`resetForm`). */
+  protected readonly form: OpeningsForm = openingsForm(() => this.room(), [], []);
   /** The stored record the form started from: its version goes with the save. */
   private formBase: SpaceRecord | null = null;
-  /** Moves on every edit and every new form, so the plan and the buttons follow the form. */
-  private readonly formTick = signal(0);
-  private formChanges: Subscription | null = null;
+  /** The form's last change (a value, its validity, dirty or pristine): the plan and the buttons follow it. */
+  private readonly formEvent = toSignal(this.form.events);
 
   /** What the plan draws: the openings being edited where they are valid, else the saved ones. */
   protected readonly drawn = computed(() => {
-    this.formTick();
+    this.formEvent();
     const space = this.selectedSpace();
     if (!space) return { windows: [] as WindowOpening[], skylights: [] as Skylight[] };
     if (!this.form.dirty) return { windows: space.windows, skylights: space.skylights };
@@ -109,7 +111,7 @@ export class DaylightPage implements HasUnsavedChanges {
     };
   });
   protected readonly dirty = computed(() => {
-    this.formTick();
+    this.formEvent();
     return this.form.dirty;
   });
 
@@ -138,25 +140,21 @@ export class DaylightPage implements HasUnsavedChanges {
   protected addWindow(): void {
     this.form.controls.windows.push(windowForm(() => this.room()));
     this.form.markAsDirty();
-    this.formTick.update((tick) => tick + 1);
   }
 
   protected addSkylight(): void {
     this.form.controls.skylights.push(skylightForm(() => this.room()));
     this.form.markAsDirty();
-    this.formTick.update((tick) => tick + 1);
   }
 
   protected removeWindow(index: number): void {
     this.form.controls.windows.removeAt(index);
     this.form.markAsDirty();
-    this.formTick.update((tick) => tick + 1);
   }
 
   protected removeSkylight(index: number): void {
     this.form.controls.skylights.removeAt(index);
     this.form.markAsDirty();
-    this.formTick.update((tick) => tick + 1);
   }
 
   protected discard(): void {
@@ -168,21 +166,18 @@ export class DaylightPage implements HasUnsavedChanges {
     if (this.form.invalid) return;
     const projectId = this.store.projectId();
     if (!projectId) return;
-    this.saving.set(true);
     this.serverErrors.set({});
     const version = this.formBase?.id === space.id ? this.formBase.version : space.version;
-    this.api.patchSpace(projectId, space.id, version, openingsValue(this.form)).subscribe({
-      next: (saved) => {
-        this.saving.set(false);
-        this.form.markAsPristine();
-        this.store.upsertSpace(saved);
-        this.formTick.update((tick) => tick + 1);
-      },
-      error: (error: unknown) => {
-        this.saving.set(false);
+    this.failure.save(this.api.patchSpace(projectId, space.id, version, openingsValue(this.form)), {
+      saving: this.saving,
+      form: this.form,
+      saved: (saved) => this.store.upsertSpace(saved),
+      // The fields take what they can, and the message still names every problem.
+      refused: (error) => {
         this.serverErrors.set(fieldErrors(error));
-        this.failure.report(error, () => this.reload(space.id));
+        return false;
       },
+      reload: () => this.reload(space.id),
     });
   }
 
@@ -199,12 +194,10 @@ export class DaylightPage implements HasUnsavedChanges {
   }
 
   private resetForm(space: SpaceRecord | null): void {
-    this.formChanges?.unsubscribe();
     this.formBase = space;
-    this.form = openingsForm(() => this.room(), space?.windows ?? [], space?.skylights ?? []);
-    this.formChanges = this.form.valueChanges.subscribe(() => this.formTick.update((tick) => tick + 1));
-    if (!this.store.canEdit()) this.form.disable();
+    fillOpenings(this.form, () => this.room(), space?.windows ?? [], space?.skylights ?? []);
+    if (this.store.canEdit()) this.form.enable();
+    else this.form.disable();
     this.serverErrors.set({});
-    this.formTick.update((tick) => tick + 1);
   }
 }

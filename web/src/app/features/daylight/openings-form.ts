@@ -125,6 +125,17 @@ export function openingsForm(room: () => Room, windows: readonly WindowOpening[]
   });
 }
 
+/** Starts the form again from stored openings: the same form, so whatever follows its events keeps following it. */
+export function fillOpenings(form: OpeningsForm, room: () => Room, windows: readonly WindowOpening[], skylights: readonly Skylight[]): void {
+  form.controls.windows.clear({ emitEvent: false });
+  form.controls.skylights.clear({ emitEvent: false });
+  for (const opening of windows) form.controls.windows.push(windowForm(room, opening), { emitEvent: false });
+  for (const skylight of skylights) form.controls.skylights.push(skylightForm(room, skylight), { emitEvent: false });
+  form.markAsPristine();
+  form.markAsUntouched();
+  form.updateValueAndValidity();
+}
+
 const optional = (text: string) => (text.trim() === '' ? undefined : text.trim());
 
 /** The glazing fields of either opening, leaving out what is not recorded. */

@@ -10,6 +10,8 @@ import { startWith } from 'rxjs';
 import type { EditionId, ExteriorApplicationInput, ExteriorApplicationRecord, ExteriorApplicationView, ExteriorExemptionReason, ProvidedControl, UnitSystem } from '../../core/api/api-types';
 import { editionFamilyOf, exteriorExemptions } from '../../../../../contract/editions';
 import { InUnits } from '../../shared/in-units';
+import type { MeasureKind } from '../../shared/measure';
+import { MeasureInput } from '../../shared/measure-input';
 import { inProjectUnits } from '../../shared/unit-words';
 import { quantityUnit } from './exterior-groups';
 
@@ -47,7 +49,7 @@ function exemptWattsValidator(control: AbstractControl<string>): ValidationError
 /** Add or change one lighted exterior application: which one (from the edition's catalogue), how much of it, its installed watts, any exempt part, and controls. */
 @Component({
   selector: 'al-exterior-application-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, InUnits],
+  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, InUnits, MeasureInput],
   templateUrl: './exterior-application-form.html',
   styleUrl: './exterior-application-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -106,6 +108,11 @@ export class ExteriorApplicationForm implements OnInit {
     const chosen = this.chosen();
     return chosen ? quantityUnit(chosen.unit, this.units()) : 'quantity';
   });
+  /** An area or a length may be typed on site notation ("120 ft * 40 ft", "250 m"); locations, doors and the like as plain arithmetic ("4 * 3"). */
+  protected readonly measureKind = computed<MeasureKind>(() => {
+    const unit = this.chosen()?.unit;
+    return unit === 'W/ft2' || unit === 'W/ft²' ? 'area' : unit === 'W/ft' ? 'length' : 'number';
+  });
   protected readonly rate = computed(() => {
     const chosen = this.chosen();
     const zone = this.lightingZone();
@@ -158,6 +165,8 @@ export class ExteriorApplicationForm implements OnInit {
 
   protected message(control: AbstractControl): string {
     if (control.hasError('required')) return 'Required.';
+    const measure: unknown = control.getError('measure');
+    if (typeof measure === 'string') return measure;
     if (control.hasError('negative')) return 'Must not be negative.';
     if (control.hasError('decimal')) return 'Enter a number.';
     if (control.hasError('zero')) return 'Enter the watts of the exempt lighting, more than 0.';

@@ -90,36 +90,26 @@ export class ExteriorPage implements HasUnsavedChanges {
     const project = this.store.project();
     const zone = this.zone();
     if (!project || zone === null || zone === project.lightingZone) return;
-    this.saving.set(true);
-    this.api.updateSetup(project.id, project.version, { lightingZone: zone }).subscribe({
-      next: (saved) => {
-        this.saving.set(false);
-        this.store.setProject(saved);
-      },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        this.failure.report(error, () => this.api.project(project.id).subscribe((fresh) => this.store.setProject(fresh)));
-      },
+    this.failure.save(this.api.updateSetup(project.id, project.version, { lightingZone: zone }), {
+      saving: this.saving,
+      saved: (saved) => this.store.setProject(saved),
+      reload: () => this.api.project(project.id).subscribe((fresh) => this.store.setProject(fresh)),
     });
   }
 
   protected saveApplication(application: ExteriorApplicationInput, record: ExteriorApplicationRecord | null): void {
     const projectId = this.store.projectId();
     if (!projectId) return;
-    this.saving.set(true);
     const request = record
       ? this.api.replaceExteriorApplication(projectId, record.id, record.version, application)
       : this.api.createExteriorApplication(projectId, application);
-    request.subscribe({
-      next: (saved) => {
-        this.saving.set(false);
+    this.failure.save(request, {
+      saving: this.saving,
+      saved: (saved) => {
         this.editing.set(null);
         this.store.upsertExterior(saved);
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        this.failure.report(error, () => this.reload());
-      },
+      reload: () => this.reload(),
     });
   }
 
@@ -127,10 +117,9 @@ export class ExteriorPage implements HasUnsavedChanges {
   protected remove(record: ExteriorApplicationRecord, label: string): void {
     const projectId = this.store.projectId();
     if (!projectId) return;
-    this.saving.set(true);
-    this.api.deleteExteriorApplication(projectId, record.id, record.version).subscribe({
-      next: () => {
-        this.saving.set(false);
+    this.failure.save(this.api.deleteExteriorApplication(projectId, record.id, record.version), {
+      saving: this.saving,
+      saved: () => {
         this.store.removeExterior(record.id);
         this.snackBar
           .open(`${inProjectUnits(label, this.store.units())}${record.description ? ` (${record.description})` : ''} removed`, 'Undo', { duration: 8000 })
@@ -142,10 +131,7 @@ export class ExteriorPage implements HasUnsavedChanges {
             }),
           );
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        this.failure.report(error, () => this.reload());
-      },
+      reload: () => this.reload(),
     });
   }
 

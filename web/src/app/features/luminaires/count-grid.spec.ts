@@ -2,6 +2,7 @@ import { MediaMatcher } from '@angular/cdk/layout';
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import type { LuminaireTypeRecord, SpaceRecord, UnitSystem } from '../../core/api/api-types';
+import { loadMath } from '../../shared/measure';
 import { phoneScreen } from '../../shared/media-queries';
 import { CountGrid, type CountEdit } from './count-grid';
 
@@ -14,6 +15,8 @@ const spaces: SpaceRecord[] = [
 ];
 
 describe('CountGrid', () => {
+  // mathjs, read on first use, takes a while to load in jsdom.
+  beforeAll(() => loadMath().then(() => undefined), 60_000);
   let fixture: ComponentFixture<CountGrid>;
   let element: HTMLElement;
   const edits: CountEdit[] = [];
@@ -55,6 +58,21 @@ describe('CountGrid', () => {
     expect(input.getAttribute('aria-invalid')).toBe('true');
     expect(input.getAttribute('aria-describedby')).toBe('count-problem');
     expect(edits).toEqual([]);
+  });
+
+  it('reads arithmetic typed in a cell and saves the count it comes to', async () => {
+    const input = cell('A1 in Office 2');
+    await enter(input, '4*3');
+    await vi.waitFor(() => expect(edits.map((edit) => [edit.space.id, edit.tag, edit.count])).toEqual([['s2', 'A1', '12']]));
+    expect(input.value).toBe('12');
+  });
+
+  it('refuses arithmetic that comes to no whole count, keeping what was typed', async () => {
+    const input = cell('A1 in Office 1');
+    await enter(input, '10/4');
+    await vi.waitFor(() => expect(problem()?.textContent).toContain('Must be a whole number. Enter a whole number from 0 to 1,000,000.'));
+    expect(edits).toEqual([]);
+    expect(input.value).toBe('10/4');
   });
 
   it('puts the stored count back on Esc, and clears the reason once a good count is entered', async () => {

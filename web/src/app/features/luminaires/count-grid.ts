@@ -6,9 +6,13 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { LuminaireTypeRecord, SpaceRecord, UnitSystem } from '../../core/api/api-types';
 import { formatArea } from '../../shared/format';
+import { loadMath, needsReading, readMeasure } from '../../shared/measure';
 import { phoneScreen, screenMatches } from '../../shared/media-queries';
 import { numberProblem, ranges } from '../../shared/number-range';
 import { cellCount, eachWords } from './luminaire-counts';
+
+/** Numbers, + − × / and brackets: what a count cell reads as arithmetic (words and units it refuses as typed). */
+const arithmetic = /^[\d\s.+\-*/×()]+$/;
 
 /** A value a cell refused: it stays in the cell, with the reason beside it, until corrected or Esc. */
 interface CellProblem {
@@ -90,6 +94,8 @@ export class CountGrid {
     const input = event.target as HTMLInputElement;
     input.select();
     if (this.hasProblem(space, tag)) this.problemCell.set(input);
+    // Fetched while the count is typed, so arithmetic is read at once on leaving the cell.
+    void loadMath();
   }
 
   /** Esc gives up on a refused value and puts the stored count back. */
@@ -108,17 +114,33 @@ export class CountGrid {
 
   protected commit(event: Event, space: SpaceRecord, tag: string): void {
     const input = event.target as HTMLInputElement;
-    const value = input.value.trim();
+    const typed = input.value.trim();
+    if (!needsReading(typed) || !arithmetic.test(typed)) {
+      this.commitCount(input, space, tag, typed);
+      return;
+    }
+    // Arithmetic as on a takeoff sheet ("4*3", "2*6 + 1"): the count it comes to is checked as if typed.
+    void readMeasure(typed, 'number', this.units()).then((reading) => {
+      if (input.value.trim() !== typed) return;
+      // Text that is no arithmetic is refused in the grid's own words; a refused result keeps what was typed.
+      const value = reading.kind === 'value' ? reading.value : typed;
+      if (this.commitCount(input, space, tag, value)) input.value = value;
+    });
+  }
+
+  /** False when the count is refused (the reason shown beside the cell). */
+  private commitCount(input: HTMLInputElement, space: SpaceRecord, tag: string, value: string): boolean {
     const current = cellCount(space, tag).count;
     const message = value === '' ? null : numberProblem(value, ranges.count);
     if (message) {
       this.problem.set({ spaceId: space.id, tag, text: input.value, message, stored: current });
       this.problemCell.set(input);
-      return;
+      return false;
     }
     if (this.hasProblem(space, tag)) this.clearProblem();
-    if (value === current || (value === '' && current === '') || (value === '0' && current === '')) return;
+    if (value === current || (value === '' && current === '') || (value === '0' && current === '')) return true;
     this.changeCount.emit({ space, tag, count: value });
+    return true;
   }
 
   /** Enter moves to the same type in the next space (Shift+Enter goes up), as a spreadsheet does. */

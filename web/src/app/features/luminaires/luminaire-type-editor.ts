@@ -10,7 +10,6 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import type { LuminaireTypeRecord, UnitSystem } from '../../core/api/api-types';
-import { ApiError } from '../../core/http/api-error';
 import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
 import { unitLabels } from '../../shared/format';
 import { fieldMessage } from '../../shared/field-message';
@@ -100,30 +99,25 @@ export class LuminaireTypeEditor {
     const { projectId, type } = this.data;
     const body = luminaireTypeFromForm(this.form);
     const request: Observable<LuminaireTypeRecord> = type ? this.api.replaceLuminaireType(projectId, type.id, type.version, body) : this.api.createLuminaireType(projectId, body);
-    this.saving.set(true);
     this.failure.set(null);
-    request.subscribe({
-      next: (saved) => {
-        this.form.markAsPristine();
-        this.dialog.close(saved);
+    this.writeFailure.save(request, {
+      saving: this.saving,
+      form: this.form,
+      saved: (saved) => this.dialog.close(saved),
+      invalid: (error) => {
+        const unplaced = placeServerErrors(error.details, (path) => this.form.get(path));
+        this.failure.set(unplaced.length ? unplaced.map((detail) => detail.message).join(' ') : null);
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        if (error instanceof ApiError && error.status === 400) {
-          const unplaced = placeServerErrors(error.details, (path) => this.form.get(path));
-          this.failure.set(unplaced.length ? unplaced.map((detail) => detail.message).join(' ') : null);
-          return;
-        }
-        // A duplicate tag is a 409 with the tag path: that belongs beside the field, not in a reload offer.
-        if (error instanceof ApiError && error.status === 409 && error.details.some((detail) => detail.path === 'tag')) {
-          this.form.controls.tag.setErrors({ server: error.message });
-          this.form.controls.tag.markAsTouched();
-          return;
-        }
-        this.writeFailure.report(error, () => {
-          this.dialog.close();
-          this.data.reload();
-        });
+      // A duplicate tag is a 409 with the tag path: that belongs beside the field, not in a reload offer.
+      refused: (error) => {
+        if (error.status !== 409 || !error.details.some((detail) => detail.path === 'tag')) return false;
+        this.form.controls.tag.setErrors({ server: error.message });
+        this.form.controls.tag.markAsTouched();
+        return true;
+      },
+      reload: () => {
+        this.dialog.close();
+        this.data.reload();
       },
     });
   }

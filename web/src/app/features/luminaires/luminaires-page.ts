@@ -135,8 +135,8 @@ export class LuminairesPage implements HasUnsavedChanges {
   protected deleteType(type: LuminaireTypeRecord): void {
     const projectId = this.store.projectId();
     if (!projectId) return;
-    this.api.deleteLuminaireType(projectId, type.id, type.version).subscribe({
-      next: () => {
+    this.writeFailure.save(this.api.deleteLuminaireType(projectId, type.id, type.version), {
+      saved: () => {
         this.store.removeLuminaireType(type.id);
         this.snackBar
           .open(`Luminaire type “${type.tag}” deleted`, 'Undo', { duration: 8000 })
@@ -148,7 +148,7 @@ export class LuminairesPage implements HasUnsavedChanges {
             }),
           );
       },
-      error: (error: unknown) => this.writeFailure.report(error, () => this.reloadTypes()),
+      reload: () => this.reloadTypes(),
     });
   }
 

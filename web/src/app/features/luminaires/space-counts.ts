@@ -8,6 +8,7 @@ import { MatSelectModule } from '@angular/material/select';
 import type { DaylightZoneKind, LuminaireGroup, LuminaireTypeRecord, SpaceRecord } from '../../core/api/api-types';
 import { ranges } from '../../shared/number-range';
 import { fieldMessage } from '../../shared/field-message';
+import { MeasureInput } from '../../shared/measure-input';
 import { quantityValidator } from '../spaces/space-form';
 import { zoneLabels } from './luminaire-counts';
 
@@ -24,7 +25,7 @@ function groupForm(group?: LuminaireGroup) {
 /** One space's luminaire groups, each with the daylight zone it sits in. */
 @Component({
   selector: 'al-space-counts',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, MeasureInput],
   templateUrl: './space-counts.html',
   styleUrl: './space-counts.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -43,12 +43,12 @@ export class ResultsPage {
     const projectId = this.store.projectId();
     const space = this.store.spaces().find((candidate) => candidate.id === spaceId);
     if (!projectId || !space) return;
-    this.api.patchSpace(projectId, space.id, space.version, { unlit: true }).subscribe({
-      next: (saved) => {
+    this.failure.save(this.api.patchSpace(projectId, space.id, space.version, { unlit: true }), {
+      saved: (saved) => {
         this.store.upsertSpace(saved);
         this.snackBar.open(`“${saved.name}” is confirmed unlit: it adds no allowance and no longer holds the verdict back.`, undefined, { duration: 5000 });
       },
-      error: (error: unknown) => this.failure.report(error, () => this.store.reloadSpaces().subscribe()),
+      reload: () => this.store.reloadSpaces().subscribe(),
     });
   }
 }

@@ -67,27 +67,22 @@ export class SetupPage implements HasUnsavedChanges {
       this.form.markAllAsTouched();
       return;
     }
-    this.saving.set(true);
     this.failure.set(null);
     // Saved against the set-up the form was filled from: a change someone made since is reported, not overwritten.
-    this.api.updateSetup(project.id, this.baseVersion ?? project.version, setupValue(this.form)).subscribe({
-      next: (updated) => {
-        this.saving.set(false);
-        this.form.markAsPristine();
+    this.writeFailure.save(this.api.updateSetup(project.id, this.baseVersion ?? project.version, setupValue(this.form)), {
+      saving: this.saving,
+      form: this.form,
+      saved: (updated) => {
         fillSetup(this.form, updated);
         // New units come with every stored length and area converted: read the design again.
         if (updated.units !== project.units) this.store.load(updated.id).subscribe();
         else this.store.setProject(updated);
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        if (error instanceof ApiError && error.status === 400) {
-          const unplaced = showServerErrors(this.form, error.details);
-          if (unplaced.length) this.failure.set(unplaced.map((detail) => detail.message).join(' '));
-          return;
-        }
-        this.writeFailure.report(error, () => this.reload());
+      invalid: (error) => {
+        const unplaced = showServerErrors(this.form, error.details);
+        if (unplaced.length) this.failure.set(unplaced.map((detail) => detail.message).join(' '));
       },
+      reload: () => this.reload(),
     });
   }
 

@@ -13,7 +13,6 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { merge, type Observable } from 'rxjs';
 import type { BuildingAreaTypeView, ComplianceMethod, SpaceRecord, SpaceTypeView, UnitSystem } from '../../core/api/api-types';
-import { ApiError } from '../../core/http/api-error';
 import { placeServerErrors, WriteFailure } from '../../shared/write-failure';
 import { formatDensity, unitLabels } from '../../shared/format';
 import { InUnits } from '../../shared/in-units';
@@ -142,25 +141,19 @@ export class SpaceEditor {
     const { projectId, space } = this.data;
     const body = spaceFromForm(this.form, space ? spaceInput(space) : emptySpace());
     const request: Observable<SpaceRecord> = space ? this.api.replaceSpace(projectId, space.id, space.version, body) : this.api.createSpace(projectId, body);
-    this.saving.set(true);
     this.failure.set(null);
-    request.subscribe({
-      next: (saved) => {
-        this.form.markAsPristine();
-        this.dialog.close(saved);
+    this.writeFailure.save(request, {
+      saving: this.saving,
+      form: this.form,
+      saved: (saved) => this.dialog.close(saved),
+      invalid: (error) => {
+        const unplaced = placeServerErrors(error.details, (path) => this.form.get(path));
+        if (this.otherControl().invalid) this.otherMethodOpen.set(true);
+        this.failure.set(unplaced.length ? unplaced.map((detail) => detail.message).join(' ') : null);
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        if (error instanceof ApiError && error.status === 400) {
-          const unplaced = placeServerErrors(error.details, (path) => this.form.get(path));
-          if (this.otherControl().invalid) this.otherMethodOpen.set(true);
-          this.failure.set(unplaced.length ? unplaced.map((detail) => detail.message).join(' ') : null);
-          return;
-        }
-        this.writeFailure.report(error, () => {
-          this.dialog.close();
-          this.data.reload();
-        });
+      reload: () => {
+        this.dialog.close();
+        this.data.reload();
       },
     });
   }

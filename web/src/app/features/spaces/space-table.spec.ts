@@ -4,7 +4,8 @@ import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
 import { provideRouter } from '@angular/router';
-import type { EvaluationResult, ProjectDetail, SpaceRecord, SpaceResult, SpaceTypeView } from '../../core/api/api-types';
+import type { ProjectDetail, SpaceRecord, SpaceTypeView } from '../../core/api/api-types';
+import { evaluated, type SpecDocument } from '../../../testing/evaluate';
 import { ProjectStore } from '../workspace/project-store';
 import { groupByLevel, spaceStatus } from './space-rows';
 import { SpacesPage } from './spaces-page';
@@ -17,29 +18,33 @@ function space(id: string, name: string, level: string | undefined, position: nu
 }
 
 const spaces = [
-  space('s1', 'Reading room', 'Level 2', 1, '1200', 'library-in-a-reading-area'),
+  space('s1', 'Reading room', 'Level 2', 1, '1200', 'library-reading'),
   space('s2', 'Office 101', 'Level 1', 2, '200', 'office-enclosed'),
-  space('s3', 'Store 102', 'Level 1', 3, '100', 'storage-room'),
+  space('s3', 'Store 102', 'Level 1', 3, '100', 'storage'),
 ];
 
-// IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data: library reading area 0.96 W/ft², office enclosed 0.74,
-// storage room 0.38. Installed watts are invented.
+// IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data (the calculation tests' edition, test/calc/fixtures.ts):
+// library reading area 0.96 W/ft², office enclosed 0.74, storage room 0.38. Installed watts are invented.
 const spaceTypes = [
-  { key: 'library-in-a-reading-area', label: 'Library — In a Reading area', category: 'building-specific', lpdWPerFt2: '0.96', verified: true },
+  { key: 'library-reading', label: 'Library — In a Reading area', category: 'building-specific', lpdWPerFt2: '0.96', verified: true },
   { key: 'office-enclosed', label: 'Office — Enclosed', category: 'common', lpdWPerFt2: '0.74', verified: true },
-  { key: 'storage-room', label: 'Storage Room', category: 'common', lpdWPerFt2: '0.38', verified: true },
+  { key: 'storage', label: 'Storage Room', category: 'common', lpdWPerFt2: '0.38', verified: true },
 ] as SpaceTypeView[];
 
-function result(id: string, allowanceW: string, installedW: string, marginPct: string): SpaceResult {
-  const marginW = String(Number(allowanceW) - Number(installedW));
-  return { id, allowanceW, installedW, marginW, marginPct, withinAllowance: Number(marginW) >= 0 } as SpaceResult;
+/** The three spaces with 10 W troffers: 1,000 W, 240 W and 20 W installed; `change` alters one space. */
+function designOf(change: (space: SpecDocument['spaces'][number]) => SpecDocument['spaces'][number] = (space) => space): SpecDocument {
+  const counts: Record<string, string> = { s1: '100', s2: '24', s3: '2' };
+  return {
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    luminaireTypes: [{ tag: 'A', description: 'Troffer', inputWatts: '10', use: 'general' }],
+    spaces: spaces.map((entry) => change({ id: entry.id, name: entry.name, area: entry.area, spaceType: entry.spaceType, luminaires: [{ tag: 'A', count: counts[entry.id]! }] })),
+  };
 }
 
 // 0.96 × 1200 = 1152 W; 0.74 × 200 = 148 W; 0.38 × 100 = 38 W.
-const evaluation = {
-  complies: false,
-  interior: { spaces: [result('s1', '1152', '1000', '13.19'), result('s2', '148', '240', '-62.16'), result('s3', '38', '20', '47.37')] },
-} as unknown as EvaluationResult;
+const evaluation = evaluated(designOf());
 
 describe('the space table', () => {
   let fixture: ComponentFixture<SpacesPage>;
@@ -88,10 +93,9 @@ describe('the space table', () => {
   });
 
   it('says a space without luminaires has none entered, and a confirmed one is unlit, never "to spare"', async () => {
-    // Invented results: Store 102 has no luminaires yet, Office 101 is confirmed unlit.
-    const waiting = { ...evaluation.interior.spaces[2]!, installedW: '0', marginW: '38', marginPct: '100', withinAllowance: true, lighting: 'none-entered' } as SpaceResult;
-    const unlit = { ...evaluation.interior.spaces[1]!, allowanceW: '0', installedW: '0', marginW: '0', marginPct: null, withinAllowance: true, lighting: 'unlit' } as SpaceResult;
-    store.seed({ results: { status: 'ready', result: { ...evaluation, interior: { ...evaluation.interior, spaces: [evaluation.interior.spaces[0]!, unlit, waiting] } } as EvaluationResult } });
+    // Store 102 has no luminaires yet, Office 101 is confirmed unlit.
+    const result = evaluated(designOf((entry) => (entry.id === 's2' ? { ...entry, luminaires: [], unlit: true } : entry.id === 's3' ? { ...entry, luminaires: [] } : entry)));
+    store.seed({ results: { status: 'ready', result } });
     await fixture.whenStable();
     expect(rowText('Store 102')).toContain('No luminaires entered');
     expect(rowText('Store 102')).not.toContain('to spare');

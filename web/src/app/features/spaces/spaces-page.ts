@@ -80,20 +80,20 @@ export class SpacesPage implements HasUnsavedChanges {
   protected duplicate(space: SpaceRecord): void {
     const projectId = this.store.projectId();
     if (!projectId) return;
-    this.api.createSpace(projectId, { ...spaceInput(space), name: `${space.name} (copy)` }).subscribe({
-      next: (copy) => {
+    this.writeFailure.save(this.api.createSpace(projectId, { ...spaceInput(space), name: `${space.name} (copy)` }), {
+      saved: (copy) => {
         this.store.upsertSpace(copy);
         this.snackBar.open(`“${copy.name}” added`, undefined, { duration: 3000 });
       },
-      error: (error: unknown) => this.writeFailure.report(error, () => this.reloadSpaces()),
+      reload: () => this.reloadSpaces(),
     });
   }
 
   protected remove(space: SpaceRecord): void {
     const projectId = this.store.projectId();
     if (!projectId) return;
-    this.api.deleteSpace(projectId, space.id, space.version).subscribe({
-      next: () => {
+    this.writeFailure.save(this.api.deleteSpace(projectId, space.id, space.version), {
+      saved: () => {
         this.store.removeSpace(space.id);
         this.snackBar
           .open(`Space “${space.name}” deleted`, 'Undo', { duration: 8000 })
@@ -106,7 +106,7 @@ export class SpacesPage implements HasUnsavedChanges {
             }),
           );
       },
-      error: (error: unknown) => this.writeFailure.report(error, () => this.reloadSpaces()),
+      reload: () => this.reloadSpaces(),
     });
   }
 
