@@ -3,7 +3,15 @@
  * daylight zones. Plain values only, so both sides (Node and the browser) can read them.
  */
 
-export const editionIds = ['ashrae-90.1-2013', 'ashrae-90.1-2016', 'ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2018', 'iecc-2021', 'iecc-2024'] as const;
+export const editionIds = [
+  'ashrae-90.1-2013',
+  'ashrae-90.1-2016',
+  'ashrae-90.1-2019',
+  'ashrae-90.1-2022',
+  'iecc-2018',
+  'iecc-2021',
+  'iecc-2024',
+] as const;
 export type EditionId = (typeof editionIds)[number];
 
 export const unitSystems = ['ip', 'si'] as const;
@@ -101,13 +109,25 @@ export const exteriorExemptions: Record<EditionFamily, readonly ExteriorExemptio
     { reason: 'emergency-normally-off', label: 'Emergency lighting that is off in normal operation', section: '9.1.1' },
     { reason: 'transportation-signal', label: 'Signal, directional and marker lighting for transportation', section: '9.4.2 exception' },
     { reason: 'signage', label: 'Advertising or directional signage', section: '9.4.2 exception' },
-    { reason: 'integral-to-equipment', label: 'Lighting integral to equipment or instruments, installed by their maker', section: '9.4.2 exception' },
+    {
+      reason: 'integral-to-equipment',
+      label: 'Lighting integral to equipment or instruments, installed by their maker',
+      section: '9.4.2 exception',
+    },
     { reason: 'theatrical', label: 'Theatrical, stage, film or video production lighting', section: '9.4.2 exception' },
     { reason: 'athletic-playing-area', label: 'Lighting of athletic playing areas', section: '9.4.2 exception' },
     { reason: 'temporary', label: 'Temporary lighting', section: '9.4.2 exception' },
-    { reason: 'industrial-production', label: 'Industrial production, material handling, transportation sites and their storage areas', section: '9.4.2 exception' },
+    {
+      reason: 'industrial-production',
+      label: 'Industrial production, material handling, transportation sites and their storage areas',
+      section: '9.4.2 exception',
+    },
     { reason: 'theme-park', label: 'Theme elements in theme or amusement parks', section: '9.4.2 exception' },
-    { reason: 'historic-landmark', label: 'Lighting that highlights public monuments or registered historic landmarks', section: '9.4.2 exception' },
+    {
+      reason: 'historic-landmark',
+      label: 'Lighting that highlights public monuments or registered historic landmarks',
+      section: '9.4.2 exception',
+    },
   ],
   iecc: [
     { reason: 'safety-approved', label: 'Lighting approved because of safety considerations', section: 'C405.5.1 exception' },
@@ -115,13 +135,25 @@ export const exteriorExemptions: Record<EditionFamily, readonly ExteriorExemptio
     { reason: 'exit-signs', label: 'Exit signs', section: 'C405.5.1 exception' },
     { reason: 'transportation-signal', label: 'Signal, directional and marker lighting for transportation', section: 'C405.5.1 exception' },
     { reason: 'signage', label: 'Advertising or directional signage', section: 'C405.5.1 exception' },
-    { reason: 'integral-to-equipment', label: 'Lighting integral to equipment or instruments, installed by their maker', section: 'C405.5.1 exception' },
+    {
+      reason: 'integral-to-equipment',
+      label: 'Lighting integral to equipment or instruments, installed by their maker',
+      section: 'C405.5.1 exception',
+    },
     { reason: 'theatrical', label: 'Theatrical, stage, film or video production lighting', section: 'C405.5.1 exception' },
     { reason: 'athletic-playing-area', label: 'Lighting of athletic playing areas', section: 'C405.5.1 exception' },
     { reason: 'temporary', label: 'Temporary lighting', section: 'C405.5.1 exception' },
-    { reason: 'industrial-production', label: 'Industrial production, material handling, transportation sites and their storage areas', section: 'C405.5.1 exception' },
+    {
+      reason: 'industrial-production',
+      label: 'Industrial production, material handling, transportation sites and their storage areas',
+      section: 'C405.5.1 exception',
+    },
     { reason: 'theme-park', label: 'Theme elements in theme or amusement parks', section: 'C405.5.1 exception' },
-    { reason: 'historic-landmark', label: 'Lighting that highlights art, public monuments or registered historic landmarks', section: 'C405.5.1 exception' },
+    {
+      reason: 'historic-landmark',
+      label: 'Lighting that highlights art, public monuments or registered historic landmarks',
+      section: 'C405.5.1 exception',
+    },
   ],
 };
 

@@ -1,5 +1,16 @@
 import { z } from 'zod';
-import { additionalAllowanceKinds, complianceMethods, decimalPattern, editionIds, exteriorExemptionReasons, luminaireUses, strategyKeys, unitSystems, zoneKinds, type RequirementCode } from './editions.js';
+import {
+  additionalAllowanceKinds,
+  complianceMethods,
+  decimalPattern,
+  editionIds,
+  exteriorExemptionReasons,
+  luminaireUses,
+  strategyKeys,
+  unitSystems,
+  zoneKinds,
+  type RequirementCode,
+} from './editions.js';
 
 /**
  * The evaluation result: one schema, read by the service (its types, the served API description,
@@ -35,7 +46,13 @@ export const citationSchema = z
     note: z.string().nullable().describe('The source note in words, for those who ask.'),
   })
   .describe('How a code-table value is cited to people.');
-const unverifiedValue = z.strictObject({ id: z.string(), what: z.string(), source: z.string(), note: z.string(), citation: citationSchema });
+const unverifiedValue = z.strictObject({
+  id: z.string(),
+  what: z.string(),
+  source: z.string(),
+  note: z.string(),
+  citation: citationSchema,
+});
 const zoneKind = z.enum(zoneKinds);
 
 const daylight = z.strictObject({
@@ -146,7 +163,15 @@ const exteriorApplication = z.strictObject({
   installedW: decimal,
   /** The part of the application's lighting exempt from the allowance, with the reason. */
   exemptW: decimal,
-  exemption: z.strictObject({ reason: z.enum(exteriorExemptionReasons), label: z.string(), note: z.string(), section: z.string(), verified: z.boolean() }).nullable(),
+  exemption: z
+    .strictObject({
+      reason: z.enum(exteriorExemptionReasons),
+      label: z.string(),
+      note: z.string(),
+      section: z.string(),
+      verified: z.boolean(),
+    })
+    .nullable(),
   /**
    * Nontradable: the base site allowance used to cover this application's excess. The margin is what
    * is left (negative: the excess); a tradable application is judged in its pool, so its margin is
@@ -184,7 +209,9 @@ export const evaluationResultSchema = z.strictObject({
     complies: z.boolean(),
     additional: additional.nullable(),
     spaces: z.array(space),
-    levels: z.array(z.strictObject({ level: z.string(), area: decimal, allowanceW: decimal, installedW: decimal, marginW: decimal })).nullable(),
+    levels: z
+      .array(z.strictObject({ level: z.string(), area: decimal, allowanceW: decimal, installedW: decimal, marginW: decimal }))
+      .nullable(),
   }),
   exterior: z
     .strictObject({
@@ -197,7 +224,13 @@ export const evaluationResultSchema = z.strictObject({
       exemptW: decimal,
       complies: z.boolean(),
       /** The tradable pool: its margin counts the base site allowance it uses, so "within" never shows beside a negative margin. */
-      tradable: z.strictObject({ allowanceW: decimal, installedW: decimal, baseSiteUsedW: decimal, marginW: decimal, complies: z.boolean() }),
+      tradable: z.strictObject({
+        allowanceW: decimal,
+        installedW: decimal,
+        baseSiteUsedW: decimal,
+        marginW: decimal,
+        complies: z.boolean(),
+      }),
       baseSiteRemainingW: decimal,
       baseSiteCoversNontradable: z.boolean(),
       applications: z.array(exteriorApplication),

@@ -29,7 +29,11 @@ export async function up(knex: Knex): Promise<void> {
   const versioned = (table: Knex.CreateTableBuilder) => {
     table.text('edition_id').notNullable();
     table.text('data_version').notNullable();
-    table.foreign(['edition_id', 'data_version']).references(['edition_id', 'data_version']).inTable('code_edition_versions').onDelete('CASCADE');
+    table
+      .foreign(['edition_id', 'data_version'])
+      .references(['edition_id', 'data_version'])
+      .inTable('code_edition_versions')
+      .onDelete('CASCADE');
   };
   const provenance = (table: Knex.CreateTableBuilder) => {
     table.text('source').notNullable();

@@ -22,9 +22,13 @@ export async function up(knex: Knex): Promise<void> {
     table.integer('lighting_zone');
     table.uuid('updated_by').references('users.id').onDelete('SET NULL');
   });
-  await knex.raw("alter table projects add constraint projects_method_check check (method is null or method in ('building-area', 'space-by-space'))");
+  await knex.raw(
+    "alter table projects add constraint projects_method_check check (method is null or method in ('building-area', 'space-by-space'))",
+  );
   await knex.raw("alter table projects add constraint projects_units_check check (units in ('ip', 'si'))");
-  await knex.raw('alter table projects add constraint projects_lighting_zone_check check (lighting_zone is null or lighting_zone between 0 and 4)');
+  await knex.raw(
+    'alter table projects add constraint projects_lighting_zone_check check (lighting_zone is null or lighting_zone between 0 and 4)',
+  );
 
   await knex.schema.createTable('luminaire_types', (table) => {
     table.uuid('id').primary().defaultTo(knex.raw('gen_random_uuid()'));
@@ -41,7 +45,9 @@ export async function up(knex: Knex): Promise<void> {
     versioned(knex, table);
     table.unique(['project_id', 'tag']);
   });
-  await knex.raw("alter table luminaire_types add constraint luminaire_types_use_check check (use in ('general', 'decorative', 'display', 'exempt'))");
+  await knex.raw(
+    "alter table luminaire_types add constraint luminaire_types_use_check check (use in ('general', 'decorative', 'display', 'exempt'))",
+  );
   await knex.raw(
     "alter table luminaire_types add constraint luminaire_types_basis_check check (basis in ('rated', 'line-voltage-track', 'low-voltage-track', 'current-limited'))",
   );
@@ -148,8 +154,21 @@ export async function down(knex: Knex): Promise<void> {
   await knex.schema.dropTable('space_luminaires');
   await knex.schema.dropTable('spaces');
   await knex.schema.dropTable('luminaire_types');
-  await knex.raw('alter table projects drop constraint projects_lighting_zone_check, drop constraint projects_units_check, drop constraint projects_method_check');
+  await knex.raw(
+    'alter table projects drop constraint projects_lighting_zone_check, drop constraint projects_units_check, drop constraint projects_method_check',
+  );
   await knex.schema.alterTable('projects', (table) => {
-    table.dropColumns('address', 'latitude', 'longitude', 'time_zone', 'jurisdiction', 'edition_id', 'method', 'units', 'lighting_zone', 'updated_by');
+    table.dropColumns(
+      'address',
+      'latitude',
+      'longitude',
+      'time_zone',
+      'jurisdiction',
+      'edition_id',
+      'method',
+      'units',
+      'lighting_zone',
+      'updated_by',
+    );
   });
 }

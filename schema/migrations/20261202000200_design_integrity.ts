@@ -9,7 +9,15 @@ import type { Knex } from 'knex';
  * - archived projects;
  * - the audit log read per space and per person.
  */
-const withUnitOrigin = ['spaces', 'space_windows', 'space_skylights', 'space_controls', 'luminaire_types', 'exterior_applications', 'retail_display_claims'];
+const withUnitOrigin = [
+  'spaces',
+  'space_windows',
+  'space_skylights',
+  'space_controls',
+  'luminaire_types',
+  'exterior_applications',
+  'retail_display_claims',
+];
 
 export async function up(knex: Knex): Promise<void> {
   await knex.raw(`

@@ -1,7 +1,19 @@
 import type { Knex } from 'knex';
 
 /** What a permit office asks for beside the design: the permit, the owner, the building, the scope, and who designs and builds it. */
-const textColumns = ['permit_number', 'owner_name', 'occupancy', 'scope', 'designer_name', 'designer_firm', 'designer_licence', 'contractor_name', 'contractor_firm', 'contractor_licence', 'contractor_contact'];
+const textColumns = [
+  'permit_number',
+  'owner_name',
+  'occupancy',
+  'scope',
+  'designer_name',
+  'designer_firm',
+  'designer_licence',
+  'contractor_name',
+  'contractor_firm',
+  'contractor_licence',
+  'contractor_contact',
+];
 
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('projects', (table) => {
@@ -10,7 +22,9 @@ export async function up(knex: Knex): Promise<void> {
     // As on the design rows: the gross floor area before the last change of units.
     table.jsonb('unit_origin');
   });
-  await knex.raw("alter table projects add constraint projects_scope_check check (scope is null or scope in ('new-building', 'addition', 'alteration', 'tenant-improvement'))");
+  await knex.raw(
+    "alter table projects add constraint projects_scope_check check (scope is null or scope in ('new-building', 'addition', 'alteration', 'tenant-improvement'))",
+  );
 }
 
 export async function down(knex: Knex): Promise<void> {

@@ -8,7 +8,11 @@ export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable('edition_amendments', (table) => {
     table.text('edition_id').notNullable();
     table.text('data_version').notNullable();
-    table.foreign(['edition_id', 'data_version']).references(['edition_id', 'data_version']).inTable('code_edition_versions').onDelete('CASCADE');
+    table
+      .foreign(['edition_id', 'data_version'])
+      .references(['edition_id', 'data_version'])
+      .inTable('code_edition_versions')
+      .onDelete('CASCADE');
     table.text('key').notNullable();
     table.integer('position').notNullable();
     table.text('title').notNullable();

@@ -15,7 +15,10 @@ export async function up(knex: Knex): Promise<void> {
       table.specificType('visible_transmittance', 'numeric');
       table.boolean('daylight_blocked');
     });
-    await knex.raw(`alter table ?? add constraint ?? check (visible_transmittance is null or (visible_transmittance >= 0 and visible_transmittance <= 1))`, [name, `${name}_visible_transmittance_check`]);
+    await knex.raw(
+      `alter table ?? add constraint ?? check (visible_transmittance is null or (visible_transmittance >= 0 and visible_transmittance <= 1))`,
+      [name, `${name}_visible_transmittance_check`],
+    );
   }
   await knex.schema.alterTable('edition_rules', (table) => {
     table.jsonb('daylight_openings');

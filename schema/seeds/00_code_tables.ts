@@ -1,6 +1,11 @@
 import type { Knex } from 'knex';
 import { deriveIeccControls } from '../../service/src/code-tables/iecc-controls.js';
-import { defaultReferenceRoot, editionIds, readReferenceEdition, type ReferenceEdition } from '../../service/src/code-tables/reference-files.js';
+import {
+  defaultReferenceRoot,
+  editionIds,
+  readReferenceEdition,
+  type ReferenceEdition,
+} from '../../service/src/code-tables/reference-files.js';
 import type { RequirementCode, StrategyKey } from '../../service/src/compliance/edition-data.js';
 
 /** Loads `reference/` into the code tables. An unchanged edition is left alone; a changed one gets a new data version. */
@@ -19,7 +24,10 @@ export async function seedCodeTables(knex: Knex, root = defaultReferenceRoot): P
   await knex.transaction(async (trx) => {
     const catalogue = readReferenceEdition(editionIds[0]!, root).catalogue;
     for (const [position, strategy] of catalogue.strategies.entries()) {
-      await trx('control_strategies').insert({ key: strategy.key, label: strategy.label, position }).onConflict('key').merge(['label', 'position']);
+      await trx('control_strategies')
+        .insert({ key: strategy.key, label: strategy.label, position })
+        .onConflict('key')
+        .merge(['label', 'position']);
     }
     for (const id of editionIds) {
       outcomes.push(await seedEdition(trx, readReferenceEdition(id, root)));
@@ -30,7 +38,14 @@ export async function seedCodeTables(knex: Knex, root = defaultReferenceRoot): P
 
 async function seedEdition(trx: Knex.Transaction, reference: ReferenceEdition): Promise<SeedOutcome> {
   const { id, dataVersion, edition } = reference;
-  const editionRow = { id, family: edition.family, title: edition.title, publisher: edition.publisher, year: edition.year, methods: edition.methods };
+  const editionRow = {
+    id,
+    family: edition.family,
+    title: edition.title,
+    publisher: edition.publisher,
+    year: edition.year,
+    methods: edition.methods,
+  };
   await trx('code_editions').insert(editionRow).onConflict('id').merge(['family', 'title', 'publisher', 'year', 'methods']);
 
   const known = await trx('code_edition_versions').where({ edition_id: id, data_version: dataVersion }).first();
@@ -110,7 +125,11 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
         source: strategy.startsWith('daylight-') ? row.source : 'derived from the C405.2.1 rule inputs of this space type',
         confidence: row.confidence,
         verified: row.verified && !standIn && !strategy.startsWith('daylight-') && (strategyVerified.get(strategy as StrategyKey) ?? false),
-        note: strategy.startsWith('daylight-') ? `${cell.why}: ${row.daylight!.note}` : standIn ? `${cell.why}; IECC 2021's rule list stands in for this edition's own, which was not found` : cell.why,
+        note: strategy.startsWith('daylight-')
+          ? `${cell.why}: ${row.daylight!.note}`
+          : standIn
+            ? `${cell.why}; IECC 2021's rule list stands in for this edition's own, which was not found`
+            : cell.why,
         from_memory: null,
       }));
     }
@@ -125,7 +144,13 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
   if (controls.length) await trx('space_type_controls').insert(controls);
 
   for (const strategy of reference.controlStrategies.strategies) {
-    await trx('control_strategy_sections').insert({ ...version, strategy_key: strategy.key, section: strategy.section, tag: strategy.tag, ...provenanceColumns(strategy) });
+    await trx('control_strategy_sections').insert({
+      ...version,
+      strategy_key: strategy.key,
+      section: strategy.section,
+      tag: strategy.tag,
+      ...provenanceColumns(strategy),
+    });
     const parameters = Object.entries(strategy.parameters).map(([name, parameter], position) => ({
       ...version,
       strategy_key: strategy.key,
@@ -163,7 +188,13 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
   );
 
   await trx('lighting_zones').insert(
-    reference.lightingZones.rows.map((row) => ({ ...version, zone: Number(row.zone), description: row.description, source_label: row.sourceLabel, ...provenanceColumns(row) })),
+    reference.lightingZones.rows.map((row) => ({
+      ...version,
+      zone: Number(row.zone),
+      description: row.description,
+      source_label: row.sourceLabel,
+      ...provenanceColumns(row),
+    })),
   );
 
   if (reference.additionalAllowances.rows.length) {
@@ -228,6 +259,13 @@ async function insertTables(trx: Knex.Transaction, reference: ReferenceEdition):
   }
 
   await trx('edition_sections').insert(
-    Object.entries(rules.sections).map(([key, section]) => ({ ...version, key, section: section.section, tag: section.tag, verified: section.verified, note: section.note })),
+    Object.entries(rules.sections).map(([key, section]) => ({
+      ...version,
+      key,
+      section: section.section,
+      tag: section.tag,
+      verified: section.verified,
+      note: section.note,
+    })),
   );
 }

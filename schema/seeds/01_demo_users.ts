@@ -10,10 +10,14 @@ export async function seed(knex: Knex): Promise<void> {
   }
   const userIds = new Map<string, string>();
   for (const demo of demoUsers) {
-    const existing = await knex('users').whereRaw('lower(email) = lower(?)', [demo.email]).first<{ id: string; password_hash: string } | undefined>('id', 'password_hash');
+    const existing = await knex('users')
+      .whereRaw('lower(email) = lower(?)', [demo.email])
+      .first<{ id: string; password_hash: string } | undefined>('id', 'password_hash');
     if (existing) {
       if (!(await bcrypt.compare(password, existing.password_hash))) {
-        await knex('users').where({ id: existing.id }).update({ password_hash: await bcrypt.hash(password, 10) });
+        await knex('users')
+          .where({ id: existing.id })
+          .update({ password_hash: await bcrypt.hash(password, 10) });
       }
       userIds.set(demo.email, existing.id);
       continue;
@@ -28,6 +32,8 @@ export async function seed(knex: Knex): Promise<void> {
   if (existingProject) return;
   const engineerId = userIds.get('engineer@alderbay.example')!;
   const [project] = await knex('projects').insert({ name: demoProjectName, created_by: engineerId }).returning<{ id: string }[]>('id');
-  const members = demoUsers.flatMap((demo) => (demo.projectRole === null ? [] : [{ project_id: project!.id, user_id: userIds.get(demo.email)!, role: demo.projectRole }]));
+  const members = demoUsers.flatMap((demo) =>
+    demo.projectRole === null ? [] : [{ project_id: project!.id, user_id: userIds.get(demo.email)!, role: demo.projectRole }],
+  );
   await knex('project_members').insert(members);
 }

@@ -6,17 +6,31 @@ import { demoExterior, demoLuminaireTypes, demoSetup, demoSpaces } from './demo-
 
 /** Fills the demo project's design once; a project that already has spaces is left as it is. */
 export async function seed(knex: Knex): Promise<void> {
-  const project = await knex('projects').where({ name: demoProjectName }).first<{ id: string; created_by: string } | undefined>('id', 'created_by');
+  const project = await knex('projects')
+    .where({ name: demoProjectName })
+    .first<{ id: string; created_by: string } | undefined>('id', 'created_by');
   if (!project) return;
   if (await knex('spaces').where({ project_id: project.id }).first('id')) return;
   const engineerId = project.created_by;
-  await knex('projects').where({ id: project.id }).update({ ...demoSetup, updated_by: engineerId });
+  await knex('projects')
+    .where({ id: project.id })
+    .update({ ...demoSetup, updated_by: engineerId });
   for (const type of demoLuminaireTypes) {
     await createLuminaireType(knex, project.id, luminaireTypeInputSchema.parse(type), engineerId);
   }
-  await createSpaces(knex, project.id, demoSpaces.map((space) => spaceInputSchema.parse(space)), engineerId);
+  await createSpaces(
+    knex,
+    project.id,
+    demoSpaces.map((space) => spaceInputSchema.parse(space)),
+    engineerId,
+  );
   for (const application of demoExterior) {
-    await createExteriorApplication(knex, project.id, exteriorApplicationInputSchema.parse({ ...application, controls: exteriorControls(application.key) }), engineerId);
+    await createExteriorApplication(
+      knex,
+      project.id,
+      exteriorApplicationInputSchema.parse({ ...application, controls: exteriorControls(application.key) }),
+      engineerId,
+    );
   }
 }
 

@@ -47,7 +47,10 @@ export function connectionFor(url) {
 
 /** 2026-03-04T05:06:07.890Z → 20260304T050607Z: sorts by time and has no colons, which some file systems refuse. */
 export function backupTimestamp(date = new Date()) {
-  return date.toISOString().replace(/\.\d+Z$/, 'Z').replace(/[-:]/g, '');
+  return date
+    .toISOString()
+    .replace(/\.\d+Z$/, 'Z')
+    .replace(/[-:]/g, '');
 }
 
 export function formatSize(bytes) {
@@ -77,7 +80,13 @@ function runTool(executable, args, env, signal) {
     child.on('error', (error) => reject(error.name === 'AbortError' ? new Error(`${path.basename(executable)} was interrupted`) : error));
     child.on('close', (code, exitSignal) => {
       if (code === 0) resolve(stderr.trim());
-      else reject(Object.assign(new Error(stderr.trim() || `${path.basename(executable)} exited with ${code ?? exitSignal}`), { exitCode: code, signal: exitSignal }));
+      else
+        reject(
+          Object.assign(new Error(stderr.trim() || `${path.basename(executable)} exited with ${code ?? exitSignal}`), {
+            exitCode: code,
+            signal: exitSignal,
+          }),
+        );
     });
   });
 }

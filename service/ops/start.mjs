@@ -96,9 +96,13 @@ async function announceWhenReady(run) {
     reviewer@alderbay.example     reviewer on the demo project
     contractor@alderbay.example   contractor on the demo project
     admin@alderbay.example        administrator
-${mailCatcher ? `
+${
+  mailCatcher
+    ? `
   Mail the app sends: .data/mail/, and the Outbox page when signed in as the administrator.
-` : ''}
+`
+    : ''
+}
   Press Ctrl-C to stop the server${cluster?.started ? ' and the database' : ''}.
 `);
       return;

@@ -32,7 +32,16 @@ function describeExit(code, signal, error) {
  * that grows with each crash in a row. `stop()` ends it for good; `done` resolves with
  * `{ reason: 'stopped' | 'gave-up', code, signal, runs }` once nothing is running or pending.
  */
-export function supervise({ name = 'the service', command, args = [], spawnOptions = {}, policy = {}, log = console.log, onStart = () => {}, now = Date.now }) {
+export function supervise({
+  name = 'the service',
+  command,
+  args = [],
+  spawnOptions = {},
+  policy = {},
+  log = console.log,
+  onStart = () => {},
+  now = Date.now,
+}) {
   const settings = { ...defaultPolicy, ...policy };
   const recentCrashes = [];
   let consecutive = 0;

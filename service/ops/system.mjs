@@ -31,7 +31,9 @@ let aptUpdated = false;
 /** Installs Debian packages with apt-get (as root); a clear message otherwise. */
 export function aptInstall(packages, why) {
   if (!isRoot) {
-    throw new Error(`${why} needs the Debian package(s) ${packages.join(', ')}. Install them with: sudo apt-get install -y ${packages.join(' ')}`);
+    throw new Error(
+      `${why} needs the Debian package(s) ${packages.join(', ')}. Install them with: sudo apt-get install -y ${packages.join(' ')}`,
+    );
   }
   log(`installing ${packages.join(', ')} from Debian's packages (${why})`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
@@ -51,7 +53,11 @@ export function ensureDependencies(root) {
   if (installed === lockHash && existsSync(path.join(root, 'node_modules', '.bin', 'ng'))) {
     return;
   }
-  log(existsSync(path.join(root, 'node_modules')) ? 'package-lock.json changed: reinstalling dependencies' : 'installing dependencies (npm ci)');
+  log(
+    existsSync(path.join(root, 'node_modules'))
+      ? 'package-lock.json changed: reinstalling dependencies'
+      : 'installing dependencies (npm ci)',
+  );
   run('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root });
   writeFileSync(stampFile, `${lockHash}\n`);
 }

@@ -29,7 +29,9 @@ function counts(reportFile) {
 }
 
 function countFailedFilesWithoutFailedTests(report) {
-  return (report.testResults ?? []).filter((file) => file.status === 'failed' && !(file.assertionResults ?? []).some((test) => test.status === 'failed')).length;
+  return (report.testResults ?? []).filter(
+    (file) => file.status === 'failed' && !(file.assertionResults ?? []).some((test) => test.status === 'failed'),
+  ).length;
 }
 
 const steps = [
@@ -60,7 +62,15 @@ const steps = [
     name: 'calculation, reference, schema, service and browser tests (vitest)',
     report: path.join(output, 'vitest.json'),
     command: bin('vitest'),
-    args: (report) => ['run', '--config', 'test/vitest.config.ts', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...process.argv.slice(2)],
+    args: (report) => [
+      'run',
+      '--config',
+      'test/vitest.config.ts',
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile.json=${report}`,
+      ...process.argv.slice(2),
+    ],
   },
 ];
 
@@ -69,7 +79,11 @@ const failedSteps = [];
 for (const step of steps) {
   log(step.name);
   if (step.report) rmSync(step.report, { force: true });
-  const result = spawnSync(step.command, step.args(step.report), { cwd: root, stdio: 'inherit', env: { ...process.env, FORCE_COLOR: process.env.CI ? '0' : '1' } });
+  const result = spawnSync(step.command, step.args(step.report), {
+    cwd: root,
+    stdio: 'inherit',
+    env: { ...process.env, FORCE_COLOR: process.env.CI ? '0' : '1' },
+  });
   if (step.report) {
     const stepCounts = counts(step.report);
     totals.passed += stepCounts.passed;

@@ -42,7 +42,13 @@ function connectionOf(db: Database): string | PgClientConfig {
   return (db.client as { config: Knex.Config }).config.connection as string | PgClientConfig;
 }
 
-export function createApp({ db, config, logger = pino({ level: config.LOG_LEVEL }), changes = new ProjectChanges(connectionOf(db), logger), mailQueued = () => {} }: AppDeps): Express {
+export function createApp({
+  db,
+  config,
+  logger = pino({ level: config.LOG_LEVEL }),
+  changes = new ProjectChanges(connectionOf(db), logger),
+  mailQueued = () => {},
+}: AppDeps): Express {
   const app = express();
   app.locals['changes'] = changes;
   app.disable('x-powered-by');

@@ -1,9 +1,7 @@
 import { isIP } from 'node:net';
 import { z } from 'zod';
 
-const booleanFromString = z
-  .enum(['true', 'false', '1', '0'])
-  .transform((value) => value === 'true' || value === '1');
+const booleanFromString = z.enum(['true', 'false', '1', '0']).transform((value) => value === 'true' || value === '1');
 
 /** Express's own names for address ranges (see its `trust proxy` setting). */
 const namedRanges = new Set(['loopback', 'linklocal', 'uniquelocal']);
@@ -42,43 +40,54 @@ const trustProxy = z
     return entries;
   });
 
-const configSchema = z.object({
-  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
-  HOST: z.string().default('127.0.0.1'),
-  PORT: z.coerce.number().int().min(0).max(65535).default(4300),
-  DATABASE_URL: z.string().url(),
-  JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters'),
-  SESSION_HOURS: z.coerce.number().positive().max(24 * 30).default(8),
-  /** Unset: Secure everywhere but development, where a LAN address over plain http would lose the cookie. */
-  COOKIE_SECURE: booleanFromString.optional(),
-  TRUST_PROXY: trustProxy,
-  LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
-  LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
-  LOGIN_ACCOUNT_RATE_LIMIT: z.coerce.number().int().positive().default(5),
-  LOGIN_ACCOUNT_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
-  // A 10,000-space project (the ceiling) with its luminaires, controls and windows is about 5 MB of JSON.
-  JSON_BODY_LIMIT: z.string().default('10mb'),
-  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
-  WEB_DIST: z.string().optional(),
-  /** The address people reach the app at: the links in its mail. Unset: http://127.0.0.1:PORT. */
-  APP_URL: z.string().url().optional(),
-  /** The SMTP relay. `npm start` and the tests run a local one on loopback that keeps every message. */
-  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
-  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
-  /** TLS from the first byte (usually port 465); unset, STARTTLS is used where the relay offers it. */
-  SMTP_SECURE: booleanFromString.default(false),
-  SMTP_USER: z.string().optional(),
-  SMTP_PASSWORD: z.string().optional(),
-  MAIL_FROM: z.string().min(3).default('Allowlight <no-reply@allowlight.localhost>'),
-  MAIL_RETRY_SECONDS: z.coerce.number().positive().max(3600).default(60),
-  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
-  MAIL_POLL_SECONDS: z.coerce.number().positive().max(3600).default(5),
-  PASSWORD_RESET_MINUTES: z.coerce.number().int().min(5).max(24 * 60).default(60),
-}).transform((config) => ({
-  ...config,
-  COOKIE_SECURE: config.COOKIE_SECURE ?? config.NODE_ENV !== 'development',
-  APP_URL: (config.APP_URL ?? `http://127.0.0.1:${config.PORT}`).replace(/\/+$/, ''),
-}));
+const configSchema = z
+  .object({
+    NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+    HOST: z.string().default('127.0.0.1'),
+    PORT: z.coerce.number().int().min(0).max(65535).default(4300),
+    DATABASE_URL: z.string().url(),
+    JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters'),
+    SESSION_HOURS: z.coerce
+      .number()
+      .positive()
+      .max(24 * 30)
+      .default(8),
+    /** Unset: Secure everywhere but development, where a LAN address over plain http would lose the cookie. */
+    COOKIE_SECURE: booleanFromString.optional(),
+    TRUST_PROXY: trustProxy,
+    LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
+    LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+    LOGIN_ACCOUNT_RATE_LIMIT: z.coerce.number().int().positive().default(5),
+    LOGIN_ACCOUNT_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+    // A 10,000-space project (the ceiling) with its luminaires, controls and windows is about 5 MB of JSON.
+    JSON_BODY_LIMIT: z.string().default('10mb'),
+    LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+    WEB_DIST: z.string().optional(),
+    /** The address people reach the app at: the links in its mail. Unset: http://127.0.0.1:PORT. */
+    APP_URL: z.string().url().optional(),
+    /** The SMTP relay. `npm start` and the tests run a local one on loopback that keeps every message. */
+    SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+    SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+    /** TLS from the first byte (usually port 465); unset, STARTTLS is used where the relay offers it. */
+    SMTP_SECURE: booleanFromString.default(false),
+    SMTP_USER: z.string().optional(),
+    SMTP_PASSWORD: z.string().optional(),
+    MAIL_FROM: z.string().min(3).default('Allowlight <no-reply@allowlight.localhost>'),
+    MAIL_RETRY_SECONDS: z.coerce.number().positive().max(3600).default(60),
+    MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
+    MAIL_POLL_SECONDS: z.coerce.number().positive().max(3600).default(5),
+    PASSWORD_RESET_MINUTES: z.coerce
+      .number()
+      .int()
+      .min(5)
+      .max(24 * 60)
+      .default(60),
+  })
+  .transform((config) => ({
+    ...config,
+    COOKIE_SECURE: config.COOKIE_SECURE ?? config.NODE_ENV !== 'development',
+    APP_URL: (config.APP_URL ?? `http://127.0.0.1:${config.PORT}`).replace(/\/+$/, ''),
+  }));
 
 export type Config = z.infer<typeof configSchema>;
 

@@ -34,7 +34,15 @@ interface Measure {
 const spaceCount = Number(process.env['BENCH_SPACES'] ?? 5000);
 const repeats = 5;
 
-const types = ['office-enclosed', 'office-open-plan', 'corridor-otherwise', 'storage-room', 'restroom-otherwise', 'library-in-a-reading-area', 'conference-meeting-multipurpose-room'];
+const types = [
+  'office-enclosed',
+  'office-open-plan',
+  'corridor-otherwise',
+  'storage-room',
+  'restroom-otherwise',
+  'library-in-a-reading-area',
+  'conference-meeting-multipurpose-room',
+];
 
 function generatedSpaces(count: number) {
   return Array.from({ length: count }, (_, index) => {
@@ -49,7 +57,10 @@ function generatedSpaces(count: number) {
       width: String(width),
       ceilingHeight: '9',
       enclosed: index % 3 === 0,
-      luminaires: [{ tag: 'A', count: 1 + (index % 9), zone: index % 5 === 0 ? 'primary-sidelit' : undefined }, { tag: 'B', count: index % 4 }],
+      luminaires: [
+        { tag: 'A', count: 1 + (index % 9), zone: index % 5 === 0 ? 'primary-sidelit' : undefined },
+        { tag: 'B', count: index % 4 },
+      ],
       controls: [
         { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial' },
         { strategy: 'light-reduction', provided: true },
@@ -103,7 +114,11 @@ async function browserFigures(app: Parameters<typeof serve>[0], projectId: strin
         last = now;
       }
       intervals.sort((a, b) => a - b);
-      return { count: intervals.length, p95: intervals[Math.floor(intervals.length * 0.95)] ?? 0, domRows: document.querySelectorAll('[role="row"]').length };
+      return {
+        count: intervals.length,
+        p95: intervals[Math.floor(intervals.length * 0.95)] ?? 0,
+        domRows: document.querySelectorAll('[role="row"]').length,
+      };
     });
     const firstOk = firstRowsMs <= 4000;
     const frameOk = frames.p95 <= 50;
@@ -131,15 +146,33 @@ try {
 
   const db = createDatabase(url);
   // The supertest agent below keeps a Secure cookie but never sends it over plain http.
-  const config = loadConfig({ NODE_ENV: 'test', DATABASE_URL: url, JWT_SECRET: randomBytes(32).toString('hex'), LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '100', COOKIE_SECURE: 'false', WEB_DIST: webDist });
+  const config = loadConfig({
+    NODE_ENV: 'test',
+    DATABASE_URL: url,
+    JWT_SECRET: randomBytes(32).toString('hex'),
+    LOG_LEVEL: 'silent',
+    LOGIN_RATE_LIMIT: '100',
+    COOKIE_SECURE: 'false',
+    WEB_DIST: webDist,
+  });
   const app = createApp({ db, config, logger: pino({ level: 'silent' }) });
   const engineer = await db('users').where({ email: 'engineer@alderbay.example' }).first<{ id: string }>('id');
   const [project] = await db('projects')
     .insert({ name: 'Generated campus', created_by: engineer.id, edition_id: 'iecc-2021', method: 'space-by-space', units: 'ip' })
     .returning<{ id: string }[]>('id');
   await db('project_members').insert({ project_id: project!.id, user_id: engineer.id, role: 'engineer' });
-  await createLuminaireType(db, project!.id, luminaireTypeInputSchema.parse({ tag: 'A', description: 'troffer', inputWatts: '30', use: 'general' }), engineer.id);
-  await createLuminaireType(db, project!.id, luminaireTypeInputSchema.parse({ tag: 'B', description: 'downlight', inputWatts: '12', use: 'general' }), engineer.id);
+  await createLuminaireType(
+    db,
+    project!.id,
+    luminaireTypeInputSchema.parse({ tag: 'A', description: 'troffer', inputWatts: '30', use: 'general' }),
+    engineer.id,
+  );
+  await createLuminaireType(
+    db,
+    project!.id,
+    luminaireTypeInputSchema.parse({ tag: 'B', description: 'downlight', inputWatts: '12', use: 'general' }),
+    engineer.id,
+  );
   const created = performance.now();
   await createSpaces(db, project!.id, generatedSpaces(spaceCount), engineer.id);
   const importMs = performance.now() - created;
@@ -156,32 +189,61 @@ try {
     .insert({ name: 'Generated campus, imported', created_by: engineer.id, edition_id: 'iecc-2021', method: 'space-by-space', units: 'ip' })
     .returning<{ id: string }[]>('id');
   await db('project_members').insert({ project_id: second!.id, user_id: engineer.id, role: 'engineer' });
-  for (const tag of ['A', 'B']) await agent.post(`/api/projects/${second!.id}/luminaire-types`).set('X-CSRF-Token', csrf).send({ tag, inputWatts: '20', use: 'general' }).expect(201);
+  for (const tag of ['A', 'B'])
+    await agent
+      .post(`/api/projects/${second!.id}/luminaire-types`)
+      .set('X-CSRF-Token', csrf)
+      .send({ tag, inputWatts: '20', use: 'general' })
+      .expect(201);
   const importBody = JSON.stringify({ spaces: generatedSpaces(spaceCount) });
   const posted = performance.now();
-  await agent.post(`/api/projects/${second!.id}/spaces/bulk`).set('X-CSRF-Token', csrf).set('Content-Type', 'application/json').send(importBody).expect(201);
+  await agent
+    .post(`/api/projects/${second!.id}/spaces/bulk`)
+    .set('X-CSRF-Token', csrf)
+    .set('Content-Type', 'application/json')
+    .send(importBody)
+    .expect(201);
   const httpImportMs = performance.now() - posted;
   const documentBody = JSON.stringify(document);
-  const resultBytes = (await agent.post('/api/evaluate').set('X-CSRF-Token', csrf).set('Content-Type', 'application/json').send(documentBody).expect(200)).text.length;
+  const resultBytes = (
+    await agent.post('/api/evaluate').set('X-CSRF-Token', csrf).set('Content-Type', 'application/json').send(documentBody).expect(200)
+  ).text.length;
   const megabytes = (bytes: number) => `${(bytes / 1e6).toFixed(1)} MB`;
 
   const measures: Measure[] = [
-    { name: `validate + evaluate ${spaceCount} spaces (engine only)`, targetMs: 1500, run: async () => {
-      const outcome = validateDocument(document, edition);
-      if (!outcome.valid) throw new Error(JSON.stringify(outcome.problems.slice(0, 3)));
-      return evaluate(outcome.document, edition);
-    } },
-    { name: `GET /spaces with ${spaceCount} spaces`, targetMs: 1500, run: () => agent.get(`/api/projects/${project!.id}/spaces`).expect(200) },
-    { name: `GET /results with ${spaceCount} spaces`, targetMs: 3000, run: () => agent.get(`/api/projects/${project!.id}/results`).expect(200) },
+    {
+      name: `validate + evaluate ${spaceCount} spaces (engine only)`,
+      targetMs: 1500,
+      run: async () => {
+        const outcome = validateDocument(document, edition);
+        if (!outcome.valid) throw new Error(JSON.stringify(outcome.problems.slice(0, 3)));
+        return evaluate(outcome.document, edition);
+      },
+    },
+    {
+      name: `GET /spaces with ${spaceCount} spaces`,
+      targetMs: 1500,
+      run: () => agent.get(`/api/projects/${project!.id}/spaces`).expect(200),
+    },
+    {
+      name: `GET /results with ${spaceCount} spaces`,
+      targetMs: 3000,
+      run: () => agent.get(`/api/projects/${project!.id}/results`).expect(200),
+    },
     {
       name: `POST /api/evaluate of the ${spaceCount}-space document (${megabytes(documentBody.length)} in, ${megabytes(resultBytes)} out)`,
       targetMs: 3000,
-      run: () => agent.post('/api/evaluate').set('X-CSRF-Token', csrf).set('Content-Type', 'application/json').send(documentBody).expect(200),
+      run: () =>
+        agent.post('/api/evaluate').set('X-CSRF-Token', csrf).set('Content-Type', 'application/json').send(documentBody).expect(200),
     },
-    { name: 'GET /results of the demo project', targetMs: 150, run: async () => {
-      const demo = await db('projects').where({ name: 'Alder Bay Library & Makerspace' }).first<{ id: string }>('id');
-      return agent.get(`/api/projects/${demo.id}/results`).expect(200);
-    } },
+    {
+      name: 'GET /results of the demo project',
+      targetMs: 150,
+      run: async () => {
+        const demo = await db('projects').where({ name: 'Alder Bay Library & Makerspace' }).first<{ id: string }>('id');
+        return agent.get(`/api/projects/${demo.id}/results`).expect(200);
+      },
+    },
   ];
 
   const importOk = importMs <= 5000;

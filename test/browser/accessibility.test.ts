@@ -26,7 +26,9 @@ async function seriousViolations(): Promise<string[]> {
   const { page } = browser;
   await page.evaluate(axeSource);
   const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Violation[]; passes: unknown[] }> } }).axe;
+    const axe = (
+      window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Violation[]; passes: unknown[] }> } }
+    ).axe;
     const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } });
     return { violations: result.violations, passed: result.passes.length };
   });
@@ -34,7 +36,13 @@ async function seriousViolations(): Promise<string[]> {
   expect(violations.passed).toBeGreaterThan(5);
   return violations.violations
     .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
-    .map((violation) => `${violation.id} (${violation.impact}): ${violation.help} — ${violation.nodes.slice(0, 3).map((node) => node.target.join(' ')).join('; ')}`);
+    .map(
+      (violation) =>
+        `${violation.id} (${violation.impact}): ${violation.help} — ${violation.nodes
+          .slice(0, 3)
+          .map((node) => node.target.join(' '))
+          .join('; ')}`,
+    );
 }
 
 beforeAll(async () => {

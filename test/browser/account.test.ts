@@ -19,10 +19,14 @@ async function signInElsewhere(userAgent: string): Promise<string> {
     body: JSON.stringify({ email: 'engineer@alderbay.example', password: inject('demoPassword') }),
   });
   expect(response.status).toBe(200);
-  return response.headers.getSetCookie().find((cookie) => cookie.startsWith('allowlight_session='))!.split(';')[0]!;
+  return response.headers
+    .getSetCookie()
+    .find((cookie) => cookie.startsWith('allowlight_session='))!
+    .split(';')[0]!;
 }
 
-const statusWith = async (cookie: string): Promise<number> => (await fetch(`${served.baseUrl}/api/auth/me`, { headers: { Cookie: cookie } })).status;
+const statusWith = async (cookie: string): Promise<number> =>
+  (await fetch(`${served.baseUrl}/api/auth/me`, { headers: { Cookie: cookie } })).status;
 
 beforeAll(async () => {
   ({ database, served, browser } = await openBrowserSuite());

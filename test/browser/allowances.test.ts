@@ -31,20 +31,61 @@ beforeAll(async () => {
 
   // An invented outfitter's shop: one sales floor of 2,000 ft² with thirty 40 W general luminaires and
   // forty 25 W display luminaires (invented wattages), and a stockroom.
-  const shop = await post(page, '/api/projects', { name: 'Harbour Outfitters', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2 });
-  await post(page, `/api/projects/${shop.id}/luminaire-types`, { tag: 'A', description: '2×4 LED troffer', inputWatts: '40', use: 'general', basis: 'rated' });
-  await post(page, `/api/projects/${shop.id}/luminaire-types`, { tag: 'D', description: 'Track head over the display tables', inputWatts: '25', use: 'display', basis: 'rated' });
+  const shop = await post(page, '/api/projects', {
+    name: 'Harbour Outfitters',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    lightingZone: 2,
+  });
+  await post(page, `/api/projects/${shop.id}/luminaire-types`, {
+    tag: 'A',
+    description: '2×4 LED troffer',
+    inputWatts: '40',
+    use: 'general',
+    basis: 'rated',
+  });
+  await post(page, `/api/projects/${shop.id}/luminaire-types`, {
+    tag: 'D',
+    description: 'Track head over the display tables',
+    inputWatts: '25',
+    use: 'display',
+    basis: 'rated',
+  });
   const openings = { controls: [], windows: [], skylights: [] };
-  await post(page, `/api/projects/${shop.id}/spaces`, { name: 'Sales floor', level: 'Ground', spaceType: 'sales-area', area: '2000', luminaires: [{ tag: 'A', count: '30' }, { tag: 'D', count: '40' }], ...openings });
-  await post(page, `/api/projects/${shop.id}/spaces`, { name: 'Stockroom', level: 'Ground', spaceType: 'storage-room', area: '400', luminaires: [{ tag: 'A', count: '4' }], ...openings });
+  await post(page, `/api/projects/${shop.id}/spaces`, {
+    name: 'Sales floor',
+    level: 'Ground',
+    spaceType: 'sales-area',
+    area: '2000',
+    luminaires: [
+      { tag: 'A', count: '30' },
+      { tag: 'D', count: '40' },
+    ],
+    ...openings,
+  });
+  await post(page, `/api/projects/${shop.id}/spaces`, {
+    name: 'Stockroom',
+    level: 'Ground',
+    spaceType: 'storage-room',
+    area: '400',
+    luminaires: [{ tag: 'A', count: '4' }],
+    ...openings,
+  });
   shopUrl = `${served.baseUrl}/projects/${shop.id}`;
 
-  const office = await post(page, '/api/projects', { name: 'Harbour Outfitters offices', edition: 'iecc-2021', method: 'building-area', units: 'ip' });
+  const office = await post(page, '/api/projects', {
+    name: 'Harbour Outfitters offices',
+    edition: 'iecc-2021',
+    method: 'building-area',
+    units: 'ip',
+  });
   officeUrl = `${served.baseUrl}/projects/${office.id}`;
 });
 
 afterEach(async (context) => {
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-allowances-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-allowances-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));
@@ -53,7 +94,10 @@ const floorStatus = (page: Page) => page.getByTestId('space-usage');
 
 /** The shop's claims as the service keeps them. */
 function storedClaims(page: Page): Promise<{ id: string; area: string }[]> {
-  return page.evaluate(async (url) => (await fetch(url)).json() as Promise<{ id: string; area: string }[]>, `${shopUrl.replace('/projects/', '/api/projects/')}/additional-allowances`);
+  return page.evaluate(
+    async (url) => (await fetch(url)).json() as Promise<{ id: string; area: string }[]>,
+    `${shopUrl.replace('/projects/', '/api/projects/')}/additional-allowances`,
+  );
 }
 
 describe('additional allowances per sales floor', { timeout: 60_000 }, () => {
@@ -112,7 +156,11 @@ describe('additional allowances per sales floor', { timeout: 60_000 }, () => {
     await form.getByRole('button', { name: 'Save the claim' }).click();
     // 1.05 W/ft² × 1,000 ft² = 1,050 W claimed; the 1,000 W of display lighting caps it (use it or lose it).
     await expect.poll(() => page.getByTestId('used').textContent()).toContain('1,000');
-    await page.getByText('1,000 W of the 1,050 W claimed is used: the display lighting here is 1,000 W, and the allowance covers display lighting only.').waitFor();
+    await page
+      .getByText(
+        '1,000 W of the 1,050 W claimed is used: the display lighting here is 1,000 W, and the allowance covers display lighting only.',
+      )
+      .waitFor();
     await expect.poll(() => floorStatus(page).textContent()).toContain('Within allowance, 900 W');
     // Each allowance once per space: retail area 3 is no longer offered.
     await page.getByRole('form', { name: 'Add a claim' }).getByRole('combobox', { name: 'Allowance' }).click();
@@ -127,7 +175,10 @@ describe('additional allowances per sales floor', { timeout: 60_000 }, () => {
     await page.getByRole('button', { name: 'Remove the claim on Retail display, retail area 3' }).click();
     await page.getByText('No claim on this space yet.').waitFor();
     expect(await storedClaims(page)).toEqual([]);
-    await page.locator('.mat-mdc-snack-bar-container', { hasText: 'Claim on “Retail display, retail area 3” removed' }).getByRole('button', { name: 'Undo' }).click();
+    await page
+      .locator('.mat-mdc-snack-bar-container', { hasText: 'Claim on “Retail display, retail area 3” removed' })
+      .getByRole('button', { name: 'Undo' })
+      .click();
     const row = page.locator('tr[data-claim="retail-area-3"]');
     await row.waitFor();
     expect(await row.locator('td').nth(1).textContent()).toContain('1,000');

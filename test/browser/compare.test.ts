@@ -43,7 +43,8 @@ beforeAll(async () => {
 
 afterEach(async (context) => {
   await browser.page.emulateMedia({ media: 'screen' });
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-compare-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-compare-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));
@@ -58,7 +59,8 @@ async function signIn(page: Page, email: string): Promise<void> {
 
 // The page rounds watts to 1 W and areas to 1 ft² or 0.1 m² (the design notes' display rounding), with en-US grouping.
 const watts = (value: string) => `${new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 }).format(Number(value))} W`;
-const area = (value: string, units: 'ip' | 'si') => `${new Intl.NumberFormat('en-US', { maximumFractionDigits: units === 'ip' ? 0 : 1 }).format(Number(value))} ${units === 'ip' ? 'ft²' : 'm²'}`;
+const area = (value: string, units: 'ip' | 'si') =>
+  `${new Intl.NumberFormat('en-US', { maximumFractionDigits: units === 'ip' ? 0 : 1 }).format(Number(value))} ${units === 'ip' ? 'ft²' : 'm²'}`;
 /** What a part of the page says, without its icons' ligature names. */
 const words = (locator: Locator) =>
   locator.evaluate((node) => {
@@ -96,7 +98,9 @@ describe('the Compare editions page', { timeout: 90_000 }, () => {
 
     const all = [comparison.current, ...comparison.editions];
     await expect.poll(() => columns(page).count()).toBe(all.length);
-    expect(await columns(page).evaluateAll((nodes) => nodes.map((node) => node.getAttribute('data-edition')))).toEqual(all.map((edition) => edition.edition));
+    expect(await columns(page).evaluateAll((nodes) => nodes.map((node) => node.getAttribute('data-edition')))).toEqual(
+      all.map((edition) => edition.edition),
+    );
     // The project's own edition is first, and the only one marked so.
     expect(await page.getByTestId('own-edition').count()).toBe(1);
     expect(await column(page, comparison.current.edition).getByTestId('own-edition').isVisible()).toBe(true);
@@ -110,7 +114,8 @@ describe('the Compare editions page', { timeout: 90_000 }, () => {
       const result = edition.result;
       if (!result) {
         expect(await words(figure(place, 'verdict'))).toContain('Not evaluated');
-        for (const entry of edition.unmapped.filter((item) => item.what === 'space')) expect(await words(figure(place, 'unmapped'))).toContain(`${entry.name}: ${entry.type}`);
+        for (const entry of edition.unmapped.filter((item) => item.what === 'space'))
+          expect(await words(figure(place, 'unmapped'))).toContain(`${entry.name}: ${entry.type}`);
         continue;
       }
       expect(await words(figure(place, 'interior-allowance')), edition.edition).toBe(watts(result.allowanceW));
@@ -118,7 +123,9 @@ describe('the Compare editions page', { timeout: 90_000 }, () => {
       expect(await words(figure(place, 'interior-margin'))).toContain(watts(result.marginW));
       // The words say what the figure says: within and what is left, or over by the excess.
       const margin = watts(String(Math.abs(Number(result.marginW))));
-      expect(await words(figure(place, 'interior-margin-words'))).toBe(result.interiorComplies ? `within allowance, ${margin} to spare` : `over by ${margin}`);
+      expect(await words(figure(place, 'interior-margin-words'))).toBe(
+        result.interiorComplies ? `within allowance, ${margin} to spare` : `over by ${margin}`,
+      );
       expect(await words(figure(place, 'interior-status'))).toBe(result.interiorComplies ? 'Within allowance' : 'Over allowance');
       expect(await words(figure(place, 'area'))).toBe(area(result.area, result.units));
       if (result.exterior) {
@@ -149,13 +156,16 @@ describe('the Compare editions page', { timeout: 90_000 }, () => {
 
   it('sets the editions side by side on a wide screen and stacks them as cards on a phone', async () => {
     const { page } = browser;
-    const boxes = () => columns(page).evaluateAll((nodes) => nodes.map((node) => node.getBoundingClientRect()).map(({ x, y, width }) => ({ x, y, width })));
+    const boxes = () =>
+      columns(page).evaluateAll((nodes) => nodes.map((node) => node.getBoundingClientRect()).map(({ x, y, width }) => ({ x, y, width })));
     const wide = await boxes();
     // Side by side: one row of columns, each to the right of the one before.
     expect(new Set(wide.map((box) => Math.round(box.y))).size).toBe(1);
     for (let index = 1; index < wide.length; index++) expect(wide[index]!.x).toBeGreaterThan(wide[index - 1]!.x);
     // The first rows line up across the columns: the interior figures start at the same height.
-    const tops = await page.locator('[data-figure="interior-allowance"]').evaluateAll((nodes) => nodes.map((node) => Math.round(node.getBoundingClientRect().top)));
+    const tops = await page
+      .locator('[data-figure="interior-allowance"]')
+      .evaluateAll((nodes) => nodes.map((node) => Math.round(node.getBoundingClientRect().top)));
     expect(new Set(tops).size).toBe(1);
 
     // A phone held upright, 390 × 844 CSS pixels (common practice for a current mid-size phone).

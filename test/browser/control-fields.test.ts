@@ -16,14 +16,18 @@ beforeAll(async () => {
 });
 
 afterEach(async (context) => {
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-fields-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-fields-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 async function api<Body>(page: Page, method: 'get' | 'post', url: string, data?: unknown): Promise<Body> {
   const session = (await (await page.request.get(`${served.baseUrl}/api/auth/me`)).json()) as { csrfToken: string };
-  const response = await page.request[method](`${served.baseUrl}${url}`, { headers: { 'X-CSRF-Token': session.csrfToken }, ...(data === undefined ? {} : { data }) });
+  const response = await page.request[method](`${served.baseUrl}${url}`, {
+    headers: { 'X-CSRF-Token': session.csrfToken },
+    ...(data === undefined ? {} : { data }),
+  });
   expect(response.status(), `${method} ${url}: ${await response.text()}`).toBeLessThan(300);
   return (await response.json()) as Body;
 }
@@ -32,7 +36,9 @@ async function api<Body>(page: Page, method: 'get' | 'post', url: string, data?:
 async function shownError(scope: Locator, text: string): Promise<Locator> {
   const error = scope.locator('mat-error', { hasText: text });
   await error.waitFor();
-  await expect.poll(() => error.evaluate((node) => getComputedStyle(node.closest('.mat-mdc-form-field-error-wrapper') ?? node).opacity)).toBe('1');
+  await expect
+    .poll(() => error.evaluate((node) => getComputedStyle(node.closest('.mat-mdc-form-field-error-wrapper') ?? node).opacity))
+    .toBe('1');
   return error;
 }
 
@@ -95,13 +101,15 @@ describe('the design fields the service holds, entered through the pages', { tim
     await timeSwitch.getByRole('button', { name: 'Change what is provided' }).click();
     await timeSwitch.getByRole('radio', { name: 'Exception claimed' }).check();
     await timeSwitch.getByRole('combobox', { name: 'Exception' }).click();
-    await expect.poll(() => page.getByRole('option').allInnerTexts()).toEqual([
-      'Security or emergency area that must stay lit continuously',
-      'Interior exit stairway, exit ramp or exit passageway',
-      'Emergency egress lighting that is normally off',
-      'Lighting intended to operate continuously',
-      'Another exception (say which)',
-    ]);
+    await expect
+      .poll(() => page.getByRole('option').allInnerTexts())
+      .toEqual([
+        'Security or emergency area that must stay lit continuously',
+        'Interior exit stairway, exit ramp or exit passageway',
+        'Emergency egress lighting that is normally off',
+        'Lighting intended to operate continuously',
+        'Another exception (say which)',
+      ]);
     await page.getByRole('option', { name: 'Lighting intended to operate continuously' }).click();
     await timeSwitch.getByRole('button', { name: 'Save' }).click();
     await expect.poll(() => statusWords(timeSwitch)).toBe('Exception claimed');
@@ -129,7 +137,9 @@ describe('the design fields the service holds, entered through the pages', { tim
     await expect.poll(() => save.isDisabled()).toBe(true);
 
     await page.goto(`${projectUrl}/results`);
-    await expect.poll(() => basis.innerText()).toContain('Jurisdiction amendment applied over the model code: Washington State Energy Code 2021');
+    await expect
+      .poll(() => basis.innerText())
+      .toContain('Jurisdiction amendment applied over the model code: Washington State Energy Code 2021');
     await browser.screenshot('control-fields-amendment-results');
 
     await page.goto(`${projectUrl}/setup`);
@@ -137,7 +147,9 @@ describe('the design fields the service holds, entered through the pages', { tim
     await page.getByRole('combobox', { name: 'Code edition' }).click();
     await page.getByRole('option', { name: 'ANSI/ASHRAE/IES Standard 90.1-2019' }).click();
     const dropped = page.getByTestId('dropped-amendments');
-    await expect.poll(() => dropped.innerText()).toContain('Dropped with the change of edition, which does not have it: Washington State Energy Code 2021');
+    await expect
+      .poll(() => dropped.innerText())
+      .toContain('Dropped with the change of edition, which does not have it: Washington State Energy Code 2021');
     await browser.screenshot('control-fields-amendment-dropped');
     await page.getByRole('button', { name: 'Discard changes' }).click();
     await expect.poll(() => amendments.innerText()).toContain('Washington State Energy Code 2021');
@@ -146,7 +158,13 @@ describe('the design fields the service holds, entered through the pages', { tim
   it('enters like rooms on one space, checks the size its type names per room in m², and the table says so', async () => {
     const { page } = browser;
     // An invented SI project under an edition whose space types carry sizes (90.1-2019 Table 9.6.1, via PNNL building-energy-standards-data).
-    const created = await api<{ id: string }>(page, 'post', '/api/projects', { name: 'Heron Hall annex', edition: 'ashrae-90.1-2019', method: 'space-by-space', units: 'si', lightingZone: 2 });
+    const created = await api<{ id: string }>(page, 'post', '/api/projects', {
+      name: 'Heron Hall annex',
+      edition: 'ashrae-90.1-2019',
+      method: 'space-by-space',
+      units: 'si',
+      lightingZone: 2,
+    });
     await page.goto(`${served.baseUrl}/projects/${created.id}/spaces`);
     await page.getByRole('button', { name: 'Add space' }).click();
     const dialog = page.getByRole('dialog');

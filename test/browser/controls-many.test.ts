@@ -23,7 +23,10 @@ afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 async function api<Body>(page: Page, method: 'get' | 'post' | 'patch', url: string, data?: unknown): Promise<Body> {
   const session = (await (await page.request.get(`${served.baseUrl}/api/auth/me`)).json()) as { csrfToken: string };
-  const response = await page.request[method](`${served.baseUrl}${url}`, { headers: { 'X-CSRF-Token': session.csrfToken }, ...(data === undefined ? {} : { data }) });
+  const response = await page.request[method](`${served.baseUrl}${url}`, {
+    headers: { 'X-CSRF-Token': session.csrfToken },
+    ...(data === undefined ? {} : { data }),
+  });
   expect(response.status(), `${method} ${url}: ${await response.text()}`).toBeLessThan(300);
   return (await response.json()) as Body;
 }
@@ -53,12 +56,16 @@ describe('one control on many spaces', { timeout: 90_000 }, () => {
     await panel(page).getByText('Record one control on many spaces').click();
     await choose(page, 'Space type', 'Office — Enclosed');
     await choose(page, 'Level', 'Level 2');
-    await expect.poll(() => panel(page).locator('.choices li').allInnerTexts()).toEqual([
-      expect.stringContaining('203 Office'),
-      expect.stringContaining('204 Office'),
-      expect.stringContaining('205 Office, branch manager'),
-    ]);
-    await panel(page).getByRole('checkbox', { name: /Select all shown/ }).check();
+    await expect
+      .poll(() => panel(page).locator('.choices li').allInnerTexts())
+      .toEqual([
+        expect.stringContaining('203 Office'),
+        expect.stringContaining('204 Office'),
+        expect.stringContaining('205 Office, branch manager'),
+      ]);
+    await panel(page)
+      .getByRole('checkbox', { name: /Select all shown/ })
+      .check();
     await expect.poll(() => panel(page).locator('.select-row').innerText()).toContain('3 spaces chosen');
 
     await choose(page, 'Control', /^Occupant sensor/);
@@ -67,16 +74,29 @@ describe('one control on many spaces', { timeout: 90_000 }, () => {
     await choose(page, 'Turns on', 'Manual on');
     await browser.screenshot('controls-many-chosen');
     await panel(page).getByRole('button', { name: 'Record on 3 spaces' }).click();
-    await expect.poll(() => panel(page).getByTestId('bulk-done').innerText()).toContain('“Occupant sensor” recorded as provided on 3 spaces.');
+    await expect
+      .poll(() => panel(page).getByTestId('bulk-done').innerText())
+      .toContain('“Occupant sensor” recorded as provided on 3 spaces.');
 
     // The store and the results follow: each office's card shows what was recorded, the verdict is recomputed.
-    await page.getByRole('navigation', { name: 'Spaces' }).getByRole('button', { name: /205 Office, branch manager/ }).click();
+    await page
+      .getByRole('navigation', { name: 'Spaces' })
+      .getByRole('button', { name: /205 Office, branch manager/ })
+      .click();
     const card = page.locator('al-control-line-card', { has: page.locator('[data-strategy="occupant-sensor"]') });
     await expect.poll(() => card.innerText()).toContain('Provided: Dual-technology ceiling sensor; time-out 15 min; manual on');
     await expect.poll(() => verdict(page).innerText()).toContain('Complies');
-    const spaces = await api<{ name: string; version: number; controls: { strategy: string; device?: string }[] }[]>(page, 'get', `/api/projects/${projectId}/spaces`);
-    const offices = spaces.filter((space) => space.name.startsWith('203 Office') || space.name.startsWith('204 Office') || space.name.startsWith('205 Office'));
-    expect(offices.map((space) => space.controls.find((control) => control.strategy === 'occupant-sensor')?.device)).toEqual(Array(3).fill('Dual-technology ceiling sensor'));
+    const spaces = await api<{ name: string; version: number; controls: { strategy: string; device?: string }[] }[]>(
+      page,
+      'get',
+      `/api/projects/${projectId}/spaces`,
+    );
+    const offices = spaces.filter(
+      (space) => space.name.startsWith('203 Office') || space.name.startsWith('204 Office') || space.name.startsWith('205 Office'),
+    );
+    expect(offices.map((space) => space.controls.find((control) => control.strategy === 'occupant-sensor')?.device)).toEqual(
+      Array(3).fill('Dual-technology ceiling sensor'),
+    );
   });
 
   it('names a space someone changed meanwhile, records nothing, and records on Reload and a second try', async () => {
@@ -89,7 +109,9 @@ describe('one control on many spaces', { timeout: 90_000 }, () => {
     await choose(page, 'Space type', 'Any type');
     await choose(page, 'Level', 'Any level');
     await panel(page).getByLabel('Find spaces').fill('stair');
-    await panel(page).getByRole('checkbox', { name: /Select all shown/ }).check();
+    await panel(page)
+      .getByRole('checkbox', { name: /Select all shown/ })
+      .check();
     await expect.poll(() => panel(page).locator('.select-row').innerText()).toContain('2 spaces chosen');
     await choose(page, 'Control', /^Time-switch control/);
     await panel(page).getByRole('radio', { name: 'Exception claimed' }).check();
@@ -105,16 +127,31 @@ describe('one control on many spaces', { timeout: 90_000 }, () => {
     await expect.poll(() => stale.innerText()).toContain('213 Stair B');
     expect(await stale.innerText()).toContain('Nothing was recorded');
     await browser.screenshot('controls-many-stale');
-    const unchanged = await api<{ name: string; controls: { strategy: string; exceptionReason?: string }[] }[]>(page, 'get', `/api/projects/${projectId}/spaces`);
-    expect(unchanged.find((space) => space.name === '112 Stair A')!.controls.find((control) => control.strategy === 'time-switch')).toBeUndefined();
+    const unchanged = await api<{ name: string; controls: { strategy: string; exceptionReason?: string }[] }[]>(
+      page,
+      'get',
+      `/api/projects/${projectId}/spaces`,
+    );
+    expect(
+      unchanged.find((space) => space.name === '112 Stair A')!.controls.find((control) => control.strategy === 'time-switch'),
+    ).toBeUndefined();
 
     await stale.getByRole('button', { name: 'Reload' }).click();
     await stale.waitFor({ state: 'detached' });
     await panel(page).getByRole('button', { name: 'Record on 2 spaces' }).click();
-    await expect.poll(() => panel(page).getByTestId('bulk-done').innerText()).toContain('An exception to “Time-switch control” recorded on 2 spaces.');
-    const after = await api<{ name: string; controls: { strategy: string; exceptionReason?: string }[] }[]>(page, 'get', `/api/projects/${projectId}/spaces`);
+    await expect
+      .poll(() => panel(page).getByTestId('bulk-done').innerText())
+      .toContain('An exception to “Time-switch control” recorded on 2 spaces.');
+    const after = await api<{ name: string; controls: { strategy: string; exceptionReason?: string }[] }[]>(
+      page,
+      'get',
+      `/api/projects/${projectId}/spaces`,
+    );
     for (const name of ['112 Stair A', '213 Stair B']) {
-      expect(after.find((space) => space.name === name)!.controls.find((control) => control.strategy === 'time-switch')?.exceptionReason, name).toBe('exit-stairway-ramp-passageway');
+      expect(
+        after.find((space) => space.name === name)!.controls.find((control) => control.strategy === 'time-switch')?.exceptionReason,
+        name,
+      ).toBe('exit-stairway-ramp-passageway');
     }
     await page.unroute('**/api/projects/*/events');
   });

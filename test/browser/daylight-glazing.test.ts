@@ -15,14 +15,18 @@ beforeAll(async () => {
 });
 
 afterEach(async (context) => {
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-glazing-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-glazing-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 async function api<Body>(page: Page, method: 'get' | 'post', url: string, data?: unknown): Promise<Body> {
   const session = (await (await page.request.get(`${served.baseUrl}/api/auth/me`)).json()) as { csrfToken: string };
-  const response = await page.request[method](`${served.baseUrl}${url}`, { headers: { 'X-CSRF-Token': session.csrfToken }, ...(data === undefined ? {} : { data }) });
+  const response = await page.request[method](`${served.baseUrl}${url}`, {
+    headers: { 'X-CSRF-Token': session.csrfToken },
+    ...(data === undefined ? {} : { data }),
+  });
   expect(response.status(), `${method} ${url}: ${await response.text()}`).toBeLessThan(300);
   return (await response.json()) as Body;
 }
@@ -65,14 +69,18 @@ describe('the glazing of a window, entered on the Daylight page', { timeout: 120
     await windowRow(page, 1).getByLabel('Visible transmittance').fill('0.1');
     await windowRow(page, 2).getByLabel('Visible transmittance').fill('');
     await save(page);
-    await expect.poll(() => reasons(page)).toContain('window 1 (south wall) has a visible transmittance of 0.1, below 0.2, so it makes no sidelit zone');
+    await expect
+      .poll(() => reasons(page))
+      .toContain('window 1 (south wall) has a visible transmittance of 0.1, below 0.2, so it makes no sidelit zone');
     expect(await reasons(page)).toContain('Sidelighting, to verify: the visible transmittance of window 2 (south wall) is not recorded');
 
     await windowRow(page, 2).getByLabel('Visible transmittance').fill('0.1');
     await save(page);
     await expect.poll(() => reasons(page)).toContain('window 2 (south wall) has a visible transmittance of 0.1, below 0.2');
     expect(await reasons(page)).not.toContain('to verify');
-    expect(await page.locator('.zone-card[data-kind="primary-sidelit"] .required').innerText()).toContain('Sidelighting control not required');
+    expect(await page.locator('.zone-card[data-kind="primary-sidelit"] .required').innerText()).toContain(
+      'Sidelighting control not required',
+    );
 
     // A blocked window (C405.2.4.2 item 4, from memory) makes no sidelit zone either.
     await windowRow(page, 1).getByLabel('Visible transmittance').fill('0.62');
@@ -82,8 +90,14 @@ describe('the glazing of a window, entered on the Daylight page', { timeout: 120
     await expect.poll(() => reasons(page)).toContain('window 1 (south wall) is blocked by an adjacent structure');
     expect(await page.locator('.zone-card[data-kind="primary-sidelit"] .required').innerText()).toContain('Sidelighting control required');
     await browser.screenshot('daylight-glazing');
-    const stored = await api<{ id: string; windows: { visibleTransmittance?: string; daylightBlocked?: boolean }[] }[]>(page, 'get', `/api/projects/${projectId}/spaces`);
-    expect(stored.find((space) => space.id === workroom.id)!.windows.map((window) => [window.visibleTransmittance, window.daylightBlocked])).toEqual([
+    const stored = await api<{ id: string; windows: { visibleTransmittance?: string; daylightBlocked?: boolean }[] }[]>(
+      page,
+      'get',
+      `/api/projects/${projectId}/spaces`,
+    );
+    expect(
+      stored.find((space) => space.id === workroom.id)!.windows.map((window) => [window.visibleTransmittance, window.daylightBlocked]),
+    ).toEqual([
       ['0.62', true],
       ['0.62', false],
     ]);

@@ -22,12 +22,16 @@ async function seriousViolations(page: Page): Promise<string[]> {
   await page.evaluate(axeSource);
   const violations = await page.evaluate(async () => {
     type Violation = { id: string; impact: string | null; nodes: { target: string[] }[] };
-    const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Violation[]; passes: unknown[] }> } }).axe;
+    const axe = (
+      window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Violation[]; passes: unknown[] }> } }
+    ).axe;
     const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } });
     return { violations: result.violations, passed: result.passes.length };
   });
   expect(violations.passed).toBeGreaterThan(5);
-  return violations.violations.filter((violation) => violation.impact === 'serious' || violation.impact === 'critical').map((violation) => `${violation.id}: ${violation.nodes[0]?.target.join(' ')}`);
+  return violations.violations
+    .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
+    .map((violation) => `${violation.id}: ${violation.nodes[0]?.target.join(' ')}`);
 }
 
 /** Writes through the API as the signed-in engineer: the set-up the pages under test stand on. */
@@ -45,20 +49,51 @@ beforeAll(async () => {
   await signInToDemo({ browser, served }, 'engineer@alderbay.example', inject('demoPassword'));
 
   // An invented meeting hall under 90.1-2022: a 400 ft² room with ten 30 W general luminaires and two 25 W decorative pendants (invented wattages).
-  const hall = await post(page, '/api/projects', { name: 'Quayside Hall', edition: 'ashrae-90.1-2022', method: 'space-by-space', units: 'ip', lightingZone: 2 });
-  await post(page, `/api/projects/${hall.id}/luminaire-types`, { tag: 'G', description: 'LED downlight', inputWatts: '30', use: 'general' });
-  await post(page, `/api/projects/${hall.id}/luminaire-types`, { tag: 'P', description: 'Glass pendant', inputWatts: '25', use: 'decorative' });
-  await post(page, `/api/projects/${hall.id}/spaces`, { name: 'Meeting room', spaceType: 'conference-meeting-multipurpose-rooms', area: '400', luminaires: [{ tag: 'G', count: '10' }, { tag: 'P', count: '2' }] });
+  const hall = await post(page, '/api/projects', {
+    name: 'Quayside Hall',
+    edition: 'ashrae-90.1-2022',
+    method: 'space-by-space',
+    units: 'ip',
+    lightingZone: 2,
+  });
+  await post(page, `/api/projects/${hall.id}/luminaire-types`, {
+    tag: 'G',
+    description: 'LED downlight',
+    inputWatts: '30',
+    use: 'general',
+  });
+  await post(page, `/api/projects/${hall.id}/luminaire-types`, {
+    tag: 'P',
+    description: 'Glass pendant',
+    inputWatts: '25',
+    use: 'decorative',
+  });
+  await post(page, `/api/projects/${hall.id}/spaces`, {
+    name: 'Meeting room',
+    spaceType: 'conference-meeting-multipurpose-rooms',
+    area: '400',
+    luminaires: [
+      { tag: 'G', count: '10' },
+      { tag: 'P', count: '2' },
+    ],
+  });
   hallUrl = `${served.baseUrl}/projects/${hall.id}`;
 
   // An invented depot under IECC 2021, zone 2, with one space confirmed unlit: only its exterior is looked at.
-  const depot = await post(page, '/api/projects', { name: 'Quayside Depot', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2 });
+  const depot = await post(page, '/api/projects', {
+    name: 'Quayside Depot',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    lightingZone: 2,
+  });
   await post(page, `/api/projects/${depot.id}/spaces`, { name: 'Store', spaceType: 'lobby-otherwise', area: '400', unlit: true });
   depotUrl = `${served.baseUrl}/projects/${depot.id}`;
 });
 
 afterEach(async (context) => {
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-decorative-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-decorative-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));
@@ -86,7 +121,11 @@ describe('decorative allowance and exempt exterior lighting, through the pages',
     expect(await row.getByTestId('claim-source').getByText('verify', { exact: true }).count()).toBe(1);
     // 0.75 × 400 = 300 W claimed; the two pendants, 2 × 25 = 50 W, use 50 W of it and the rest is lost.
     await expect.poll(() => page.getByTestId('used').textContent()).toContain('50');
-    await page.getByText('50 W of the 300 W claimed is used: the decorative lighting here is 50 W, and the allowance covers decorative lighting only.').waitFor();
+    await page
+      .getByText(
+        '50 W of the 300 W claimed is used: the decorative lighting here is 50 W, and the allowance covers decorative lighting only.',
+      )
+      .waitFor();
     expect(await seriousViolations(page)).toEqual([]);
 
     await page.goto(`${hallUrl}/results`);
@@ -119,7 +158,10 @@ describe('decorative allowance and exempt exterior lighting, through the pages',
     await form.getByRole('button', { name: 'Add application' }).click();
 
     const line = page.locator('tr[data-key="parking-lots-and-drives"]');
-    await line.getByTestId('exempt-line').getByText('Exempt, not counted: 600 W, Lighting of athletic playing areas (section C405.5.1 exception), to verify').waitFor();
+    await line
+      .getByTestId('exempt-line')
+      .getByText('Exempt, not counted: 600 W, Lighting of athletic playing areas (section C405.5.1 exception), to verify')
+      .waitFor();
     // 1,500 W installed less the 600 W exempt: 900 W counted against the allowance.
     await expect.poll(() => line.locator('td').nth(3).textContent()).toContain('900');
     await page.getByText('Exempt (not counted)').waitFor();

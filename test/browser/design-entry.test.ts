@@ -24,7 +24,8 @@ beforeAll(async () => {
 });
 
 afterEach(async (context) => {
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-design-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-design-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(async () => {
@@ -52,9 +53,13 @@ async function settled(page: Page): Promise<void> {
 
 /** A label that fits shows all its text; one cut off with an ellipsis is wider inside than out. */
 async function cutLabels(dialog: Locator): Promise<string[]> {
-  return dialog.locator('mat-label, .mdc-floating-label').evaluateAll((labels) =>
-    labels.filter((label) => label.scrollWidth > label.clientWidth + 1 && getComputedStyle(label).display !== 'none').map((label) => label.textContent?.trim() ?? ''),
-  );
+  return dialog
+    .locator('mat-label, .mdc-floating-label')
+    .evaluateAll((labels) =>
+      labels
+        .filter((label) => label.scrollWidth > label.clientWidth + 1 && getComputedStyle(label).display !== 'none')
+        .map((label) => label.textContent?.trim() ?? ''),
+    );
 }
 
 /** A hint or error that runs into another field's box (where the next field's label sits). */
@@ -87,9 +92,23 @@ describe('an engineer enters a fire station', { timeout: 90_000 }, () => {
     await page.getByTestId('signed-in-user').waitFor();
 
     // An invented fire station; its space types are rows of IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data.
-    projectId = (await send<{ id: string }>(page, 'post', '/projects', { name: 'Fire Station 4', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2 })).id;
+    projectId = (
+      await send<{ id: string }>(page, 'post', '/projects', {
+        name: 'Fire Station 4',
+        edition: 'iecc-2021',
+        method: 'space-by-space',
+        units: 'ip',
+        lightingZone: 2,
+      })
+    ).id;
     // Invented schedule: a high-bay of about 150 W.
-    await send(page, 'post', `/projects/${projectId}/luminaire-types`, { tag: 'H1', description: 'LED high-bay', inputWatts: '151.5', use: 'general', wattageSource: 'Invented demo value' });
+    await send(page, 'post', `/projects/${projectId}/luminaire-types`, {
+      tag: 'H1',
+      description: 'LED high-bay',
+      inputWatts: '151.5',
+      use: 'general',
+      wattageSource: 'Invented demo value',
+    });
     // A 60 × 50 ft bay (3,000 ft²) under a 24 ft ceiling with one 8 × 8 ft skylight in the middle.
     const bay = await send<{ id: string }>(page, 'post', `/projects/${projectId}/spaces`, {
       name: 'Apparatus bay',
@@ -103,7 +122,14 @@ describe('an engineer enters a fire station', { timeout: 90_000 }, () => {
       skylights: [{ length: '8', width: '8' }],
     });
     bayId = bay.id;
-    storeId = (await send<{ id: string }>(page, 'post', `/projects/${projectId}/spaces`, { name: 'Hose store', level: 'Level 1', spaceType: 'storage-room', area: '200' })).id;
+    storeId = (
+      await send<{ id: string }>(page, 'post', `/projects/${projectId}/spaces`, {
+        name: 'Hose store',
+        level: 'Level 1',
+        spaceType: 'storage-room',
+        area: '200',
+      })
+    ).id;
   });
 
   it('splits the high-bays into the toplit zone on Luminaires › Counts, and the Daylight and Controls pages require toplighting control', async () => {
@@ -129,7 +155,9 @@ describe('an engineer enters a fire station', { timeout: 90_000 }, () => {
     await browser.screenshot('design-counts-split');
     await panel.getByRole('button', { name: 'Save counts' }).click();
     await expect.poll(() => panel.getByRole('button', { name: 'Save counts' }).isDisabled()).toBe(true);
-    const stored = async () => ((await (await page.request.get(api(`/projects/${projectId}/spaces/${bayId}`))).json()) as { luminaires: { zone?: string }[] }).luminaires;
+    const stored = async () =>
+      ((await (await page.request.get(api(`/projects/${projectId}/spaces/${bayId}`))).json()) as { luminaires: { zone?: string }[] })
+        .luminaires;
     await expect.poll(async () => (await stored())[0]?.zone).toBe('toplit');
     expect(await page.evaluate(() => (window as unknown as { stillHere?: boolean }).stillHere)).toBe(true);
     expect(page.url()).toContain('tab=counts');
@@ -189,7 +217,11 @@ describe('an engineer enters a fire station', { timeout: 90_000 }, () => {
     await page.setViewportSize({ width: 1280, height: 800 });
     await dialog.getByRole('button', { name: 'Save space' }).click();
     await dialog.waitFor({ state: 'detached' });
-    const stored = (await (await page.request.get(api(`/projects/${projectId}/spaces/${storeId}`))).json()) as { unlit?: boolean; spaceType?: string; buildingAreaType?: string };
+    const stored = (await (await page.request.get(api(`/projects/${projectId}/spaces/${storeId}`))).json()) as {
+      unlit?: boolean;
+      spaceType?: string;
+      buildingAreaType?: string;
+    };
     expect(stored).toMatchObject({ unlit: true, spaceType: 'storage-room', buildingAreaType: 'fire-station' });
   });
 
@@ -217,7 +249,8 @@ describe('an engineer enters a fire station', { timeout: 90_000 }, () => {
     await dialog.waitFor({ state: 'detached' });
     const row = page.getByRole('row').filter({ hasText: 'LED high-bay' });
     await expect.poll(() => row.textContent()).toContain('HB-150-40K');
-    for (const text of ['Invented Lighting Co.', 'LED, 4000 K', '0–10 V dimming', '120–277 V']) expect(await row.textContent()).toContain(text);
+    for (const text of ['Invented Lighting Co.', 'LED, 4000 K', '0–10 V dimming', '120–277 V'])
+      expect(await row.textContent()).toContain(text);
     await browser.screenshot('design-luminaire-schedule');
   });
 
@@ -274,7 +307,11 @@ describe('an engineer enters a fire station', { timeout: 90_000 }, () => {
     await page.getByRole('button', { name: 'Import 4 spaces' }).click();
     await page.getByText('4 spaces imported with 1 luminaire type').waitFor();
 
-    const spaces = (await (await page.request.get(api(`/projects/${projectId}/spaces`))).json()) as { name: string; spaceType: string; luminaires: { tag: string; count: string }[] }[];
+    const spaces = (await (await page.request.get(api(`/projects/${projectId}/spaces`))).json()) as {
+      name: string;
+      spaceType: string;
+      luminaires: { tag: string; count: string }[];
+    }[];
     const byName = new Map(spaces.map((space) => [space.name, space]));
     expect(byName.get('Bay 2')).toMatchObject({ spaceType: 'emergency-vehicle-garage', luminaires: [{ tag: 'H1', count: '8' }] });
     expect(byName.get('Hall 1')).toMatchObject({ spaceType: 'corridor-otherwise', luminaires: [{ tag: 'T1', count: '4' }] });

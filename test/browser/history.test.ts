@@ -17,7 +17,8 @@ beforeAll(async () => {
 });
 
 afterEach(async (context) => {
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-history-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-history-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));
@@ -33,7 +34,10 @@ async function signIn(page: Page, email: string): Promise<void> {
 /** A write through the API as the signed-in person, with the session's CSRF token. */
 async function apiWrite(page: Page, method: 'post' | 'delete', url: string, data?: unknown): Promise<{ status: number; body: unknown }> {
   const session = (await (await page.request.get(`${served.baseUrl}/api/auth/me`)).json()) as { csrfToken: string };
-  const response = await page.request[method](`${served.baseUrl}${url}`, { headers: { 'X-CSRF-Token': session.csrfToken }, ...(data === undefined ? {} : { data }) });
+  const response = await page.request[method](`${served.baseUrl}${url}`, {
+    headers: { 'X-CSRF-Token': session.csrfToken },
+    ...(data === undefined ? {} : { data }),
+  });
   return { status: response.status(), body: response.status() === 204 ? null : await response.json() };
 }
 
@@ -107,7 +111,11 @@ describe('the project history', { timeout: 60_000 }, () => {
 
   it('restores a deleted space from its History entry', async () => {
     const { page } = browser;
-    const spaces = (await (await page.request.get(`${served.baseUrl}${apiUrl}/spaces`)).json()) as { id: string; name: string; version: number }[];
+    const spaces = (await (await page.request.get(`${served.baseUrl}${apiUrl}/spaces`)).json()) as {
+      id: string;
+      name: string;
+      version: number;
+    }[];
     const copyRoom = spaces.find((space) => space.name === '209 Copy and print')!;
     expect((await apiWrite(page, 'delete', `${apiUrl}/spaces/${copyRoom.id}?version=${copyRoom.version}`)).status).toBe(204);
 
@@ -123,7 +131,12 @@ describe('the project history', { timeout: 60_000 }, () => {
 
   it('archives a project from the projects list and brings it back', async () => {
     const { page } = browser;
-    const created = await apiWrite(page, 'post', '/api/projects', { name: 'Boathouse scratch', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
+    const created = await apiWrite(page, 'post', '/api/projects', {
+      name: 'Boathouse scratch',
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+    });
     expect(created.status).toBe(201);
     const row = (name: string) => page.getByRole('row').filter({ has: page.getByRole('link', { name, exact: true }) });
     const scratchUrl = `${served.baseUrl}/projects/${(created.body as { id: string }).id}`;
@@ -132,7 +145,9 @@ describe('the project history', { timeout: 60_000 }, () => {
     await page.goto(`${scratchUrl}/setup`);
     await page.getByLabel('E-mail address', { exact: true }).fill('nobody@alderbay.example');
     await page.getByRole('button', { name: 'Add to the team' }).click();
-    await page.getByText("No one was added for that address. Check it, or ask an administrator to create the person's account first.").waitFor();
+    await page
+      .getByText("No one was added for that address. Check it, or ask an administrator to create the person's account first.")
+      .waitFor();
     expect(await page.getByLabel('E-mail address', { exact: true }).inputValue()).toBe('nobody@alderbay.example');
     await browser.screenshot('team-not-added');
 
@@ -142,7 +157,9 @@ describe('the project history', { timeout: 60_000 }, () => {
     const dialog = page.getByRole('alertdialog', { name: 'Archive “Boathouse scratch”?' });
     await dialog.getByText('Archive “Boathouse scratch”?').waitFor();
     // Focus lands on the confirming button once the dialog has opened.
-    await expect.poll(() => dialog.getByRole('button', { name: 'Archive' }).evaluate((button) => button === document.activeElement)).toBe(true);
+    await expect
+      .poll(() => dialog.getByRole('button', { name: 'Archive' }).evaluate((button) => button === document.activeElement))
+      .toBe(true);
     await browser.screenshot('archive-dialog');
     await dialog.getByRole('button', { name: 'Archive' }).click();
     await page.getByText('“Boathouse scratch” archived').waitFor();

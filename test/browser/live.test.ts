@@ -37,7 +37,13 @@ beforeAll(async () => {
     body: JSON.stringify({ email: 'engineer@alderbay.example', password: inject('demoPassword') }),
   });
   expect(login.status).toBe(200);
-  engineer = { cookie: login.headers.getSetCookie().map((line) => line.split(';')[0]).join('; '), csrf: ((await login.json()) as { csrfToken: string }).csrfToken };
+  engineer = {
+    cookie: login.headers
+      .getSetCookie()
+      .map((line) => line.split(';')[0])
+      .join('; '),
+    csrf: ((await login.json()) as { csrfToken: string }).csrfToken,
+  };
   const projects = (await (await asEngineer('GET', '/api/projects')).json()) as { id: string; name: string }[];
   projectId = projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id;
 
@@ -59,7 +65,10 @@ describe('the workspace follows changes made elsewhere', () => {
     await page.locator('[data-space-id]', { hasText: first!.name }).first().waitFor();
     await expect.poll(() => page.getByTestId('workspace-verdict').textContent()).toContain('Complies');
 
-    const renamed = await asEngineer('PATCH', `/api/projects/${projectId}/spaces/${first!.id}`, { version: first!.version, name: 'Renamed while the reviewer watched' });
+    const renamed = await asEngineer('PATCH', `/api/projects/${projectId}/spaces/${first!.id}`, {
+      version: first!.version,
+      name: 'Renamed while the reviewer watched',
+    });
     expect(renamed.status).toBe(200);
     await page.locator(`[data-space-id="${first!.id}"]`, { hasText: 'Renamed while the reviewer watched' }).first().waitFor();
     expect(page.url()).toContain('/spaces');
@@ -68,7 +77,10 @@ describe('the workspace follows changes made elsewhere', () => {
   it('recomputes the verdict when the engineer takes a required control away', async () => {
     const { page } = browser;
     const withControls = (await spaces()).find((space) => space.controls.length > 0)!;
-    const removed = await asEngineer('PATCH', `/api/projects/${projectId}/spaces/${withControls.id}`, { version: withControls.version, controls: [] });
+    const removed = await asEngineer('PATCH', `/api/projects/${projectId}/spaces/${withControls.id}`, {
+      version: withControls.version,
+      controls: [],
+    });
     expect(removed.status).toBe(200);
     await expect.poll(() => page.getByTestId('workspace-verdict').textContent()).toContain('Does not comply');
   });

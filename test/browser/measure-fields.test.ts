@@ -20,7 +20,10 @@ describe('numeric fields take expressions with units', () => {
   it('reads feet and inches, metres and arithmetic in the space editor, and says what to write when it cannot', async () => {
     const { page } = browser;
     await page.goto(`${projectUrl}/spaces`);
-    await page.getByRole('button', { name: /^Edit / }).first().click();
+    await page
+      .getByRole('button', { name: /^Edit / })
+      .first()
+      .click();
     const editor = page.getByRole('dialog');
     const length = editor.getByLabel(/^Room length/);
     await length.waitFor();

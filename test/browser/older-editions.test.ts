@@ -42,7 +42,9 @@ async function openedDialog(page: Page, firstField: string) {
 async function shownError(scope: ReturnType<Page['getByRole']>, text: string): Promise<void> {
   const error = scope.locator('mat-error', { hasText: text });
   await error.waitFor();
-  await expect.poll(() => error.evaluate((node) => getComputedStyle(node.closest('.mat-mdc-form-field-error-wrapper') ?? node).opacity)).toBe('1');
+  await expect
+    .poll(() => error.evaluate((node) => getComputedStyle(node.closest('.mat-mdc-form-field-error-wrapper') ?? node).opacity))
+    .toBe('1');
 }
 
 describe('a project under an older code edition', { timeout: 60_000 }, () => {

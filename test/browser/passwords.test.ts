@@ -24,7 +24,9 @@ const laterPassword = 'quiet copper meadow 51';
 
 /** The newest message the local mail server kept. */
 async function lastMail() {
-  const files = readdirSync(mailDir).filter((name) => name.endsWith('.eml')).sort();
+  const files = readdirSync(mailDir)
+    .filter((name) => name.endsWith('.eml'))
+    .sort();
   return simpleParser(readFileSync(path.join(mailDir, files.at(-1)!)));
 }
 
@@ -33,7 +35,12 @@ beforeAll(async () => {
   database = await freshDatabase();
   mailDir = mkdtempSync(path.join(tmpdir(), 'allowlight-mail-'));
   catcher = await startMailCatcher({ dir: mailDir });
-  const config = testConfig(database.url, { WEB_DIST: webDist, COOKIE_SECURE: undefined, SMTP_PORT: String(catcher.port), APP_URL: 'http://allowlight.localhost' });
+  const config = testConfig(database.url, {
+    WEB_DIST: webDist,
+    COOKIE_SECURE: undefined,
+    SMTP_PORT: String(catcher.port),
+    APP_URL: 'http://allowlight.localhost',
+  });
   sender = new MailSender(database.db, mailSettingsFrom(config));
   served = await serve(createApp({ db: database.db, config, logger: pino({ level: 'silent' }) }));
   browser = await launchBrowser();
@@ -163,7 +170,11 @@ describe('passwords and accounts', () => {
       await owner.close();
     }
     const signIn = (password: string) =>
-      fetch(`${served.baseUrl}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: 'surveyor@alderbay.example', password }) });
+      fetch(`${served.baseUrl}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json' },
+        body: JSON.stringify({ email: 'surveyor@alderbay.example', password }),
+      });
     expect((await signIn(newPassword)).status).toBe(200);
 
     await row.getByRole('button', { name: 'Disable' }).click();

@@ -17,7 +17,8 @@ beforeAll(async () => {
 });
 
 afterEach(async (context) => {
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-phone-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-phone-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));
@@ -31,10 +32,16 @@ async function crampedParts(): Promise<string[]> {
     const width = document.documentElement.clientWidth;
     const found: string[] = [];
     const reported: Element[] = [];
-    const describe = (element: Element) => `${element.tagName.toLowerCase()}.${[...element.classList].join('.')} “${(element.textContent ?? '').trim().slice(0, 40)}”`;
+    const describe = (element: Element) =>
+      `${element.tagName.toLowerCase()}.${[...element.classList].join('.')} “${(element.textContent ?? '').trim().slice(0, 40)}”`;
     for (const element of document.querySelectorAll('.content *')) {
       // Typed text scrolls in its field and a select shows its choice; a tab not shown is moved aside.
-      if (element.closest('input, textarea, .mat-mdc-select, svg, canvas, mat-tab-body:not(.mat-mdc-tab-body-active), .mat-drawer:not(.mat-drawer-opened)')) continue;
+      if (
+        element.closest(
+          'input, textarea, .mat-mdc-select, svg, canvas, mat-tab-body:not(.mat-mdc-tab-body-active), .mat-drawer:not(.mat-drawer-opened)',
+        )
+      )
+        continue;
       if (reported.some((outer) => outer.contains(element))) continue;
       const style = getComputedStyle(element);
       if (style.display === 'none' || style.visibility === 'hidden') continue;
@@ -46,7 +53,8 @@ async function crampedParts(): Promise<string[]> {
       const rect = element.getBoundingClientRect();
       if (rect.width === 0 || rect.height === 0) continue;
       if (rect.right > width + 1 || rect.left < -1) found.push(`${describe(element)} sticks out`);
-      else if (style.overflowX !== 'visible' && element.scrollWidth > element.clientWidth + 1) found.push(`${describe(element)} is narrower than its content`);
+      else if (style.overflowX !== 'visible' && element.scrollWidth > element.clientWidth + 1)
+        found.push(`${describe(element)} is narrower than its content`);
       else continue;
       reported.push(element);
     }
@@ -130,7 +138,12 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
     browser.page.evaluate(() => {
       const overflow = (element: Element | null) => (element ? element.scrollWidth - element.clientWidth : Number.NaN);
       const list = document.querySelector('[role="list"][aria-label="Luminaire counts by space"]');
-      return { list: overflow(list), grid: overflow(list?.closest('al-count-grid') ?? null), tab: overflow(list?.closest('.mat-mdc-tab-body-content') ?? null), document: overflow(document.documentElement) };
+      return {
+        list: overflow(list),
+        grid: overflow(list?.closest('al-count-grid') ?? null),
+        tab: overflow(list?.closest('.mat-mdc-tab-body-content') ?? null),
+        document: overflow(document.documentElement),
+      };
     });
 
   it('lists the luminaire counts as a card per space that fits the screen, reaches the daylight split, and keeps a changed count', async () => {
@@ -172,7 +185,9 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
     expect(await sidewaysScroll()).toBeLessThanOrEqual(1);
     expect(await crampedParts()).toEqual([]);
     await panel.getByRole('button', { name: "Close the space's counts" }).click();
-    await expect.poll(() => page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toBe('Daylight zones of 102 Main reading room');
+    await expect
+      .poll(() => page.evaluate(() => document.activeElement?.getAttribute('aria-label')))
+      .toBe('Daylight zones of 102 Main reading room');
 
     // A changed count is saved as the field is left: the card's total follows the stored space.
     await downlights.fill('25');

@@ -26,14 +26,24 @@ beforeAll(async () => {
   // Invented storerooms on a third level, confirmed unlit; "storage-room" is an IECC 2021 Table C405.3.2(2) row
   // (via PNNL building-energy-standards-data).
   const csrf = ((await (await page.request.get(`${served.baseUrl}/api/auth/me`)).json()) as { csrfToken: string }).csrfToken;
-  const spaces = Array.from({ length: 60 }, (_, index) => ({ name: `Store ${301 + index}`, level: 'Level 3', spaceType: 'storage-room', area: '40', unlit: true }));
-  const imported = await page.request.post(`${served.baseUrl}/api/projects/${projectId}/spaces/bulk`, { headers: { 'X-CSRF-Token': csrf, 'Idempotency-Key': 'print-test-storerooms' }, data: { spaces } });
+  const spaces = Array.from({ length: 60 }, (_, index) => ({
+    name: `Store ${301 + index}`,
+    level: 'Level 3',
+    spaceType: 'storage-room',
+    area: '40',
+    unlit: true,
+  }));
+  const imported = await page.request.post(`${served.baseUrl}/api/projects/${projectId}/spaces/bulk`, {
+    headers: { 'X-CSRF-Token': csrf, 'Idempotency-Key': 'print-test-storerooms' },
+    data: { spaces },
+  });
   expect(imported.status()).toBe(201);
 });
 
 afterEach(async (context) => {
   await browser.page.emulateMedia({ media: 'screen' });
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-print-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-print-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));
@@ -81,7 +91,9 @@ describe('printing a page of the workspace', { timeout: 60_000 }, () => {
     expect(await navigation().isVisible()).toBe(false);
     expect(await page.getByRole('note', { name: 'Cautions' }).isVisible()).toBe(true);
     expect(await page.getByLabel('Find a space').isVisible()).toBe(false);
-    const breaks = await page.locator('section[aria-labelledby="spaces-heading"], section[aria-labelledby="chart-heading"]').evaluateAll((sections) => sections.map((section) => getComputedStyle(section).breakBefore));
+    const breaks = await page
+      .locator('section[aria-labelledby="spaces-heading"], section[aria-labelledby="chart-heading"]')
+      .evaluateAll((sections) => sections.map((section) => getComputedStyle(section).breakBefore));
     expect(breaks).toEqual(['page', 'page']);
     await page.setViewportSize({ width: 704, height: 1030 });
     // Every column on the sheet.
@@ -109,7 +121,9 @@ describe('printing a page of the workspace', { timeout: 60_000 }, () => {
       expect(await page.getByRole('button', { name: 'Sign out' }).isVisible()).toBe(false);
       expect(await heading.isVisible()).toBe(true);
       // The page's own lists of spaces pick what to show on screen; on paper the chosen space is shown.
-      expect(await page.locator('nav').evaluateAll((lists) => lists.filter((list) => getComputedStyle(list).display !== 'none').length)).toBe(0);
+      expect(
+        await page.locator('nav').evaluateAll((lists) => lists.filter((list) => getComputedStyle(list).display !== 'none').length),
+      ).toBe(0);
     });
   }
 });

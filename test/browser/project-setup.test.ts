@@ -127,10 +127,19 @@ describe('a new project with its permit details and location', { timeout: 60_000
     expect(await page.getByLabel('Gross floor area (ft²)').inputValue()).toBe('9600');
     expect(await page.getByRole('combobox', { name: 'Scope of work' }).textContent()).toContain('New building');
     expect(await page.getByRole('group', { name: 'Designer of record' }).getByLabel('Licence number').inputValue()).toBe('PE-48213');
-    expect(await page.getByRole('group', { name: 'Electrical contractor' }).getByLabel('Contact').inputValue()).toBe('noor@abernathy.example');
+    expect(await page.getByRole('group', { name: 'Electrical contractor' }).getByLabel('Contact').inputValue()).toBe(
+      'noor@abernathy.example',
+    );
 
     const stored = await page.evaluate(async (url) => (await fetch(url)).json(), projectUrl.replace('/projects/', '/api/projects/'));
-    expect(stored).toMatchObject({ latitude: '47.04', longitude: '-122.9', timeZone: 'America/Los_Angeles', scope: 'new-building', grossFloorArea: '9600', designerFirm: 'Halvorsen Lighting Design' });
+    expect(stored).toMatchObject({
+      latitude: '47.04',
+      longitude: '-122.9',
+      timeZone: 'America/Los_Angeles',
+      scope: 'new-building',
+      grossFloorArea: '9600',
+      designerFirm: 'Halvorsen Lighting Design',
+    });
 
     await page.getByLabel('Owner').fill('Alder Bay Fire District');
     await page.getByRole('button', { name: 'Save set-up' }).click();

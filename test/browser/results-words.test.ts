@@ -16,7 +16,8 @@ beforeAll(async () => {
 });
 
 afterEach(async (context) => {
-  if (context.task.result?.state === 'fail') await browser.screenshot(`failed-words-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+  if (context.task.result?.state === 'fail')
+    await browser.screenshot(`failed-words-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
 afterAll(() => closeBrowserSuite({ browser, served, database }));
@@ -31,7 +32,10 @@ async function signIn(page: Page, email: string): Promise<void> {
 
 async function api<Body>(page: Page, method: 'get' | 'post' | 'patch' | 'put', url: string, data?: unknown): Promise<Body> {
   const session = (await (await page.request.get(`${served.baseUrl}/api/auth/me`)).json()) as { csrfToken: string };
-  const response = await page.request[method](`${served.baseUrl}${url}`, { headers: { 'X-CSRF-Token': session.csrfToken }, ...(data === undefined ? {} : { data }) });
+  const response = await page.request[method](`${served.baseUrl}${url}`, {
+    headers: { 'X-CSRF-Token': session.csrfToken },
+    ...(data === undefined ? {} : { data }),
+  });
   expect(response.status(), `${method} ${url}: ${await response.text()}`).toBeLessThan(300);
   return (await response.json()) as Body;
 }
@@ -57,11 +61,17 @@ describe('results in words', { timeout: 90_000 }, () => {
     demoId = projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id;
     const projectId = await demoCopy(page, 'Alder Bay, exterior controls off');
     // The parking lot's daylight shutoff is no longer recorded: only an exterior control fails.
-    const applications = await api<{ id: string; key: string; version: number; description: string; quantity: string; installedWatts: string; controls: { strategy: string }[] }[]>(
-      page,
-      'get',
-      `/api/projects/${projectId}/exterior-applications`,
-    );
+    const applications = await api<
+      {
+        id: string;
+        key: string;
+        version: number;
+        description: string;
+        quantity: string;
+        installedWatts: string;
+        controls: { strategy: string }[];
+      }[]
+    >(page, 'get', `/api/projects/${projectId}/exterior-applications`);
     const parking = applications.find((application) => application.key === 'parking-lots-and-drives')!;
     const { id, version, key, description, quantity, installedWatts, controls } = parking;
     await api(page, 'put', `/api/projects/${projectId}/exterior-applications/${id}`, {
@@ -91,7 +101,16 @@ describe('results in words', { timeout: 90_000 }, () => {
   it('holds the verdict back for a space without luminaires, and lets the engineer confirm it unlit', async () => {
     const { page } = browser;
     const projectId = await demoCopy(page, 'Alder Bay, a new closet');
-    await api(page, 'post', `/api/projects/${projectId}/spaces`, { name: '216 Riser closet', level: 'Level 2', spaceType: 'storage-room', area: '40', luminaires: [], controls: [], windows: [], skylights: [] });
+    await api(page, 'post', `/api/projects/${projectId}/spaces`, {
+      name: '216 Riser closet',
+      level: 'Level 2',
+      spaceType: 'storage-room',
+      area: '40',
+      luminaires: [],
+      controls: [],
+      windows: [],
+      skylights: [],
+    });
 
     await page.goto(`${served.baseUrl}/projects/${projectId}/spaces`);
     await expect.poll(() => verdict(page).innerText()).toContain('Design incomplete');

@@ -44,7 +44,10 @@ describe('leaving unsaved edits', () => {
 
   it('asks before closing the space editor with edits', async () => {
     const { page } = browser;
-    await page.getByRole('button', { name: /^Edit / }).first().click();
+    await page
+      .getByRole('button', { name: /^Edit / })
+      .first()
+      .click();
     const editor = page.getByRole('dialog').filter({ has: page.getByLabel('Name', { exact: true }) });
     await editor.waitFor();
     await editor.getByLabel('Name', { exact: true }).fill('A name not saved');

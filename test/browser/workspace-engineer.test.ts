@@ -52,14 +52,20 @@ async function openedDialog(page: Page, firstField: string) {
 
 const verdict = (page: Page) => page.getByTestId('workspace-verdict');
 
-async function addSpace(page: Page, space: { name: string; level: string; area: string; typeQuery: string; typeLabel: string }): Promise<void> {
+async function addSpace(
+  page: Page,
+  space: { name: string; level: string; area: string; typeQuery: string; typeLabel: string },
+): Promise<void> {
   await page.getByRole('button', { name: 'Add space' }).click();
   const dialog = await openedDialog(page, 'Name');
   await dialog.getByLabel('Name').fill(space.name);
   await dialog.getByLabel('Level').fill(space.level);
   await dialog.getByLabel(/Floor area/).fill(space.area);
   await dialog.getByRole('combobox', { name: 'Space type' }).fill(space.typeQuery);
-  await page.getByRole('option', { name: new RegExp(space.typeLabel) }).first().click();
+  await page
+    .getByRole('option', { name: new RegExp(space.typeLabel) })
+    .first()
+    .click();
   await expect.poll(() => dialog.getByRole('combobox', { name: 'Space type' }).inputValue()).toBe(space.typeLabel);
   await dialog.getByRole('button', { name: 'Add space' }).click();
   await dialog.waitFor({ state: 'detached' });
@@ -152,9 +158,21 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await page.getByRole('link', { name: 'Spaces' }).click();
     // Allowances: IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data:
     // office enclosed 0.74 W/ft² × 200 ft² = 148 W; storage room 0.38 × 100 = 38 W; corridor otherwise 0.41 × 300 = 123 W.
-    await addSpace(page, { name: 'Harbour office', level: 'Level 1', area: '200', typeQuery: 'office encl', typeLabel: 'Office — Enclosed' });
+    await addSpace(page, {
+      name: 'Harbour office',
+      level: 'Level 1',
+      area: '200',
+      typeQuery: 'office encl',
+      typeLabel: 'Office — Enclosed',
+    });
     await addSpace(page, { name: 'Net store', level: 'Level 1', area: '100', typeQuery: 'storage', typeLabel: 'Storage Room' });
-    await addSpace(page, { name: 'Pier corridor', level: 'Level 1', area: '300', typeQuery: 'corridor other', typeLabel: 'Corridor — Otherwise' });
+    await addSpace(page, {
+      name: 'Pier corridor',
+      level: 'Level 1',
+      area: '300',
+      typeQuery: 'corridor other',
+      typeLabel: 'Corridor — Otherwise',
+    });
 
     await page.getByRole('link', { name: 'Luminaires' }).click();
     // Invented demo wattages.
@@ -165,7 +183,14 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await setCount(page, 'A1', 'Harbour office', '4');
     await setCount(page, 'B1', 'Net store', '1');
     await setCount(page, 'B1', 'Pier corridor', '5');
-    await expect.poll(() => page.getByRole('gridcell').filter({ hasText: /^\s*5\s*$/ }).count()).toBeGreaterThan(0);
+    await expect
+      .poll(() =>
+        page
+          .getByRole('gridcell')
+          .filter({ hasText: /^\s*5\s*$/ })
+          .count(),
+      )
+      .toBeGreaterThan(0);
     await page.getByRole('button', { name: 'Counts and daylight zones of Harbour office' }).click();
     await page.getByRole('heading', { name: 'Harbour office' }).waitFor();
     await browser.screenshot('luminaire-counts');
@@ -174,12 +199,34 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     // project records them) so that the verdict turns on lighting power alone.
     const session = await page.request.get(`${served.baseUrl}/api/auth/me`);
     const csrf = ((await session.json()) as { csrfToken: string }).csrfToken;
-    const spaces = (await (await page.request.get(`${projectUrl.replace('/projects/', '/api/projects/')}/spaces`)).json()) as { id: string; name: string; version: number }[];
-    const sensor = (autoOn: string) => ({ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn, device: 'Ceiling occupant sensor' });
+    const spaces = (await (await page.request.get(`${projectUrl.replace('/projects/', '/api/projects/')}/spaces`)).json()) as {
+      id: string;
+      name: string;
+      version: number;
+    }[];
+    const sensor = (autoOn: string) => ({
+      strategy: 'occupant-sensor',
+      provided: true,
+      timeoutMinutes: '20',
+      autoOn,
+      device: 'Ceiling occupant sensor',
+    });
     const controls: Record<string, unknown[]> = {
-      'Harbour office': [sensor('manual'), { strategy: 'light-reduction', provided: true, reductionPercent: '90', device: 'Dimming wall station' }],
+      'Harbour office': [
+        sensor('manual'),
+        { strategy: 'light-reduction', provided: true, reductionPercent: '90', device: 'Dimming wall station' },
+      ],
       'Net store': [sensor('manual')],
-      'Pier corridor': [sensor('full'), { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '50', device: '50 % step when vacant' }],
+      'Pier corridor': [
+        sensor('full'),
+        {
+          strategy: 'automatic-partial-off',
+          provided: true,
+          timeoutMinutes: '20',
+          reductionPercent: '50',
+          device: '50 % step when vacant',
+        },
+      ],
     };
     for (const space of spaces) {
       const response = await page.request.patch(`${projectUrl.replace('/projects/', '/api/projects/')}/spaces/${space.id}`, {
@@ -211,7 +258,9 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
 
     await page.getByRole('link', { name: 'Spaces' }).click();
     // 4 × 60 W = 240 W against 148 W: 92 W over.
-    await expect.poll(() => page.locator('[data-space-id]', { hasText: 'Harbour office' }).textContent()).toContain('Over allowance by 92\u00a0W');
+    await expect
+      .poll(() => page.locator('[data-space-id]', { hasText: 'Harbour office' }).textContent())
+      .toContain('Over allowance by 92\u00a0W');
   });
 
   it('imports 50 spaces from a spreadsheet', async () => {
@@ -221,7 +270,13 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     sheet.addRow(['Room name', 'Floor', 'Space type', 'Area (ft²)', 'Ceiling height']);
     // Invented rooms; the types are IECC 2021 Table C405.3.2(2) rows (via PNNL building-energy-standards-data), by label and by key.
     for (let index = 1; index <= 50; index++) {
-      sheet.addRow([`Study room ${index}`, index <= 25 ? 'Level 2' : 'Level 3', index % 2 ? 'Office — Open plan' : 'restroom-otherwise', 80 + index, 9]);
+      sheet.addRow([
+        `Study room ${index}`,
+        index <= 25 ? 'Level 2' : 'Level 3',
+        index % 2 ? 'Office — Open plan' : 'restroom-otherwise',
+        80 + index,
+        9,
+      ]);
     }
     const file = path.join(scratch, 'rooms.xlsx');
     await workbook.xlsx.writeFile(file);
@@ -258,7 +313,9 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await page.getByText('Area (m²)').first().waitFor();
     // 200 ft² × 0.09290304 m²/ft² = 18.580608 m² (mathjs units), shown to 0.1 m².
     await expect.poll(() => page.locator('[data-space-id]', { hasText: 'Harbour office' }).textContent()).toContain('18.6');
-    await expect.poll(() => page.locator('[data-space-id]', { hasText: 'Harbour office' }).textContent()).toContain('Over allowance by 92\u00a0W');
+    await expect
+      .poll(() => page.locator('[data-space-id]', { hasText: 'Harbour office' }).textContent())
+      .toContain('Over allowance by 92\u00a0W');
   });
 });
 

@@ -48,7 +48,10 @@ describe('the engineer works through controls, daylight, exterior and results', 
     await resultsSettled();
     await page.getByRole('button', { name: /102 Main reading room/ }).click();
     await page.getByRole('heading', { name: '102 Main reading room', level: 3 }).waitFor();
-    const met = page.locator('.detail > .lines > al-control-line-card').filter({ has: page.locator('.status[data-status="met"]') }).first();
+    const met = page
+      .locator('.detail > .lines > al-control-line-card')
+      .filter({ has: page.locator('.status[data-status="met"]') })
+      .first();
     await met.waitFor();
     strategy = (await met.locator('article').getAttribute('data-strategy'))!;
     expect(await met.locator('.status').textContent()).toContain('Met');

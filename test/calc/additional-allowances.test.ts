@@ -3,7 +3,12 @@ import { validateDocument } from '../../service/src/compliance/index.js';
 import type { EvaluationDocumentInput } from '../../service/src/compliance/index.js';
 import { ashrae2022, run } from './fixtures.js';
 
-const led = (tag: string, watts: string, use: 'general' | 'decorative' | 'display' | 'exempt' = 'general') => ({ tag, description: tag, inputWatts: watts, use });
+const led = (tag: string, watts: string, use: 'general' | 'decorative' | 'display' | 'exempt' = 'general') => ({
+  tag,
+  description: tag,
+  inputWatts: watts,
+  use,
+});
 
 /** A 400 ft² meeting room with 300 W of general lighting and the decorative pendants given. */
 const meetingRoom = (decorativeCount: number, claimArea: number): EvaluationDocumentInput => ({
@@ -67,7 +72,9 @@ describe('decorative additional allowance (90.1 space-by-space)', () => {
     expect(result.interior.spaces[0]!.allowanceW).toBe('352');
     const line = result.interior.additional!.lines[0]!;
     expect(line.usableW).toBe('0');
-    expect(line.limitedBy).toBe('The space has no decorative luminaires left to use this allowance, so none of it is counted: it cannot be traded to other lighting (ASHRAE 90.1-2022 §9.5.2.2(a)).');
+    expect(line.limitedBy).toBe(
+      'The space has no decorative luminaires left to use this allowance, so none of it is counted: it cannot be traded to other lighting (ASHRAE 90.1-2022 §9.5.2.2(a)).',
+    );
   });
 
   it('keeps retail display and decorative apart in one sales area', () => {
@@ -82,7 +89,19 @@ describe('decorative additional allowance (90.1 space-by-space)', () => {
         method: 'space-by-space',
         units: 'ip',
         luminaireTypes: [led('D', '100', 'display'), led('P', '25', 'decorative'), led('G', '50')],
-        spaces: [{ id: 's', name: 'Shop', spaceType: 'sales-area', area: 1000, luminaires: [{ tag: 'D', count: 2 }, { tag: 'P', count: 4 }, { tag: 'G', count: 10 }] }],
+        spaces: [
+          {
+            id: 's',
+            name: 'Shop',
+            spaceType: 'sales-area',
+            area: 1000,
+            luminaires: [
+              { tag: 'D', count: 2 },
+              { tag: 'P', count: 4 },
+              { tag: 'G', count: 10 },
+            ],
+          },
+        ],
         retailDisplay: {
           claims: [
             { allowance: 'retail-area-1', spaceId: 's', area: 1000 },
@@ -104,6 +123,12 @@ describe('decorative additional allowance (90.1 space-by-space)', () => {
     const problems = (document: EvaluationDocumentInput) => validateDocument(document, ashrae2022).problems.map((problem) => problem.path);
     expect(problems(meetingRoom(2, 400))).toEqual([]);
     expect(problems(meetingRoom(2, 401))).toEqual(['retailDisplay.claims.0.area']);
-    expect(problems({ ...meetingRoom(2, 100), method: 'building-area', spaces: [{ ...meetingRoom(2, 100).spaces[0]!, spaceType: undefined, buildingAreaType: 'office' }] })).toEqual(['retailDisplay.claims.0']);
+    expect(
+      problems({
+        ...meetingRoom(2, 100),
+        method: 'building-area',
+        spaces: [{ ...meetingRoom(2, 100).spaces[0]!, spaceType: undefined, buildingAreaType: 'office' }],
+      }),
+    ).toEqual(['retailDisplay.claims.0']);
   });
 });

@@ -88,8 +88,15 @@ describe('daylight thresholds', () => {
 
 describe('90.1 table columns', () => {
   const corridor = (controls: SpaceInput['controls']): ControlLine[] =>
-    run({ edition: 'ashrae-90.1-2019', method: 'space-by-space', units: 'ip', spaces: [{ id: 'c', name: 'Corridor', spaceType: 'corridor', area: 400, controls }] }, ashrae2019)
-      .interior.spaces[0]!.controls;
+    run(
+      {
+        edition: 'ashrae-90.1-2019',
+        method: 'space-by-space',
+        units: 'ip',
+        spaces: [{ id: 'c', name: 'Corridor', spaceType: 'corridor', area: 400, controls }],
+      },
+      ashrae2019,
+    ).interior.spaces[0]!.controls;
 
   it('meets a partial-OFF requirement with a full-OFF control, and the ADD2 group with it too', () => {
     // ASHRAE 90.1-2019 Table 9.6.1 via BESD: corridor (g) REQ, (h) ADD2, (i) ADD2.
@@ -119,7 +126,10 @@ describe('90.1 table columns', () => {
     expect(unrecorded.status).toBe('to-verify');
     expect(unrecorded.reason).toContain('time-out is not recorded');
     expect(unrecorded.reason).toContain('at least 50 %');
-    const tooLittle = line(corridor([{ strategy: 'automatic-partial-off', provided: true, timeoutMinutes: 15, reductionPercent: 30 }]), 'automatic-partial-off');
+    const tooLittle = line(
+      corridor([{ strategy: 'automatic-partial-off', provided: true, timeoutMinutes: 15, reductionPercent: 30 }]),
+      'automatic-partial-off',
+    );
     expect(tooLittle.status).toBe('not-met');
   });
 
@@ -163,8 +173,15 @@ describe('90.1 table columns', () => {
 
 describe('IECC 2021 occupant sensors and time switches', () => {
   const space = (input: Partial<SpaceInput>) =>
-    run({ edition: 'iecc-2021', method: 'space-by-space', units: 'ip', spaces: [{ id: 'x', name: 'Room', area: 100, spaceType: 'lobby', ...input }] }, iecc2021)
-      .interior.spaces[0]!.controls;
+    run(
+      {
+        edition: 'iecc-2021',
+        method: 'space-by-space',
+        units: 'ip',
+        spaces: [{ id: 'x', name: 'Room', area: 100, spaceType: 'lobby', ...input }],
+      },
+      iecc2021,
+    ).interior.spaces[0]!.controls;
 
   it('requires occupant sensors in listed space types', () => {
     // IECC 2021 C405.2.1 [S] (zmVault transcription): enclosed offices are listed.
@@ -190,16 +207,26 @@ describe('IECC 2021 occupant sensors and time switches', () => {
     // IECC 2021 C405.2.1.1 [S]: off within 20 min; manual-on or automatic-on to ≤ 50 % except listed spaces.
     const slow = space({ spaceType: 'conference', controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 25 }] });
     expect(line(slow, 'occupant-sensor').status).toBe('not-met');
-    const full = space({ spaceType: 'conference', controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 20, autoOn: 'full' }] });
+    const full = space({
+      spaceType: 'conference',
+      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 20, autoOn: 'full' }],
+    });
     expect(line(full, 'occupant-sensor').status).toBe('not-met');
     // Restrooms may be full automatic-on (C405.2.1.1 exception [S]).
-    const restroom = space({ spaceType: 'restroom', controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 20, autoOn: 'full' }] });
+    const restroom = space({
+      spaceType: 'restroom',
+      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 20, autoOn: 'full' }],
+    });
     expect(line(restroom, 'occupant-sensor').status).toBe('met');
   });
 
   it('needs no time switch where occupant sensors are provided though not required', () => {
     // IECC C405.2.2 (Washington text, WAC 51-11C-405022) [S-ed]: time switches in spaces without occupant sensor controls.
-    const sensed = space({ spaceType: 'library-reading', area: 2000, controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 20, autoOn: 'manual' }] });
+    const sensed = space({
+      spaceType: 'library-reading',
+      area: 2000,
+      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 20, autoOn: 'manual' }],
+    });
     expect(line(sensed, 'time-switch').requirement).toBe('not-required');
     expect(line(sensed, 'time-switch').reason).toContain('occupant sensor controls that meet the sensor rules are provided');
     const unsensed = space({ spaceType: 'library-reading', area: 2000 });
@@ -208,10 +235,18 @@ describe('IECC 2021 occupant sensors and time switches', () => {
 
   it('lets only a sensor that meets C405.2.1.1 stand in for the time switch', () => {
     // C405.2.1.1: off within 20 min; manual-on or automatic-on to at most 50 % (transcription of IECC 2021 C405, named in the data).
-    const slow = space({ spaceType: 'library-reading', area: 2000, controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 30, autoOn: 'manual' }] });
+    const slow = space({
+      spaceType: 'library-reading',
+      area: 2000,
+      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 30, autoOn: 'manual' }],
+    });
     expect(line(slow, 'time-switch').requirement).toBe('required');
     expect(line(slow, 'time-switch').reason).toContain('30 min');
-    const unknownOn = space({ spaceType: 'library-reading', area: 2000, controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 15 }] });
+    const unknownOn = space({
+      spaceType: 'library-reading',
+      area: 2000,
+      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: 15 }],
+    });
     expect(line(unknownOn, 'time-switch').requirement).toBe('required');
     expect(line(unknownOn, 'time-switch').reason).toContain('not recorded');
   });
@@ -224,7 +259,15 @@ describe('IECC 2021 occupant sensors and time switches', () => {
           edition: 'iecc-2021',
           method: 'space-by-space',
           units,
-          spaces: [{ id: 'x', name: 'Reading room', area: 6000, spaceType: 'library-reading', controls: [{ strategy: 'time-switch', provided: true, zoneSize }] }],
+          spaces: [
+            {
+              id: 'x',
+              name: 'Reading room',
+              area: 6000,
+              spaceType: 'library-reading',
+              controls: [{ strategy: 'time-switch', provided: true, zoneSize }],
+            },
+          ],
         },
         iecc2021,
       ).interior.spaces[0]!.controls;

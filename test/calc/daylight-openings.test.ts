@@ -17,7 +17,11 @@ const ashrae: EditionData = {
       ...ashrae2019.rules.daylight,
       openings: {
         // From memory: a primary sidelighted area blocked by an adjacent structure twice as high above the window as its distance needs no control (9.4.1.1(e)).
-        blockedWindow: { excludes: 'primary', section: '9.4.1.1(e), exceptions', provenance: fromMemory('blocked primary sidelighted areas') },
+        blockedWindow: {
+          excludes: 'primary',
+          section: '9.4.1.1(e), exceptions',
+          provenance: fromMemory('blocked primary sidelighted areas'),
+        },
         // From memory: 1,500 daytime hours a year of blocked direct sun (9.4.1.1(f)).
         blockedSkylight: { hours: '1500', section: '9.4.1.1(f), exceptions', provenance: fromMemory('blocked skylights') },
         // From memory: skylights below VT 0.40 (9.4.1.1(f)).
@@ -94,7 +98,8 @@ function toplitRoom(skylight: Partial<SkylightInput>): Partial<SpaceInput> {
 describe('90.1-2019 sidelighting: a window blocked by an adjacent structure (9.4.1.1(e) exception, from memory)', () => {
   // 4 × 50 W = 200 W in the primary sidelit area: at least 150 W (9.4.1.1(e) [I], control-rules.md §1.2).
   it('needs no control in its primary sidelit area where blocked, and needs it where not', () => {
-    const blocked = evaluateSpace(ashrae, sidelitRoom({ daylightBlocked: true, visibleTransmittance: '0.6' }, { primary: 4 })).interior.spaces[0]!;
+    const blocked = evaluateSpace(ashrae, sidelitRoom({ daylightBlocked: true, visibleTransmittance: '0.6' }, { primary: 4 })).interior
+      .spaces[0]!;
     const sidelighting = line(blocked.controls, 'daylight-sidelighting');
     expect(sidelighting.status).toBe('not-required');
     expect(sidelighting.reason).toContain('blocked by an adjacent structure');
@@ -116,7 +121,11 @@ describe('90.1-2019 sidelighting: a window blocked by an adjacent structure (9.4
     expect(room.daylight.reasons.some((reason) => reason.startsWith('Sidelighting, to verify:'))).toBe(true);
     // The zone is drawn and counted as entered: a blank never takes a zone away.
     expect(room.daylight.primarySidelitW).toBe('200');
-    expect(blank.unverifiedValues.some((value) => value.what === 'Daylight exception: primary sidelit areas of windows blocked by an adjacent structure')).toBe(true);
+    expect(
+      blank.unverifiedValues.some(
+        (value) => value.what === 'Daylight exception: primary sidelit areas of windows blocked by an adjacent structure',
+      ),
+    ).toBe(true);
   });
 
   it('a blank does not hold up an answer it cannot change', () => {
@@ -143,11 +152,13 @@ describe('90.1-2019 sidelighting: a window blocked by an adjacent structure (9.4
 describe('90.1-2019 sidelighting: less than 20 ft² of glazing in the space (9.4.1.1(e) Exception 2 [I], control-rules.md §1.2)', () => {
   it('needs no control under 20 ft² and needs it at 20 ft² or more', () => {
     // 4 ft wide, head 8 ft, sill 4 ft: 16 ft² of glazing.
-    const small = evaluateSpace(ashrae, sidelitRoom({ width: 4, sillHeight: 4, daylightBlocked: false }, { primary: 4 })).interior.spaces[0]!;
+    const small = evaluateSpace(ashrae, sidelitRoom({ width: 4, sillHeight: 4, daylightBlocked: false }, { primary: 4 })).interior
+      .spaces[0]!;
     expect(line(small.controls, 'daylight-sidelighting').status).toBe('not-required');
     expect(line(small.controls, 'daylight-sidelighting').reason).toContain('is below 20 ft²');
     // 5 ft wide, head 8 ft, sill 4 ft: 20 ft², not below 20 ft².
-    const enough = evaluateSpace(ashrae, sidelitRoom({ width: 5, sillHeight: 4, daylightBlocked: false }, { primary: 4 })).interior.spaces[0]!;
+    const enough = evaluateSpace(ashrae, sidelitRoom({ width: 5, sillHeight: 4, daylightBlocked: false }, { primary: 4 })).interior
+      .spaces[0]!;
     expect(line(enough.controls, 'daylight-sidelighting').status).toBe('not-met');
   });
 });
@@ -178,7 +189,10 @@ describe('90.1-2019 toplighting exceptions (9.4.1.1(f), from memory)', () => {
     expect(toplighting.status).toBe('to-verify');
     expect(toplighting.reason).toContain('the visible transmittance of skylight 1 is not recorded');
     expect(blank.unverifiedValues.map((value) => value.what)).toEqual(
-      expect.arrayContaining(['Daylight exception: skylights of visible transmittance below 0.4', 'Daylight exception: skylights whose direct sunlight is blocked for more than 1,500 daytime hours a year']),
+      expect.arrayContaining([
+        'Daylight exception: skylights of visible transmittance below 0.4',
+        'Daylight exception: skylights whose direct sunlight is blocked for more than 1,500 daytime hours a year',
+      ]),
     );
     // 2 × 50 W = 100 W toplit, under 150 W: the blanks change nothing.
     const under = evaluateSpace(ashrae, { ...toplitRoom({}), luminaires: [{ tag: 'G', count: 2, zone: 'toplit' }] }).interior.spaces[0]!;
@@ -189,26 +203,33 @@ describe('90.1-2019 toplighting exceptions (9.4.1.1(f), from memory)', () => {
 describe('IECC 2021 minimum glazing of a sidelit zone (C405.2.4.2, from memory)', () => {
   // 4 × 50 W = 200 W in the sidelit zones: more than 150 W (C405.2.4, from memory).
   it('a window below a visible transmittance of 0.20 makes no sidelit zone; one at 0.20 does', () => {
-    const low = evaluateSpace(iecc, sidelitRoom({ visibleTransmittance: '0.15', daylightBlocked: false }, { primary: 4 })).interior.spaces[0]!;
+    const low = evaluateSpace(iecc, sidelitRoom({ visibleTransmittance: '0.15', daylightBlocked: false }, { primary: 4 })).interior
+      .spaces[0]!;
     expect(line(low.controls, 'daylight-sidelighting').status).toBe('not-required');
     expect(line(low.controls, 'daylight-sidelighting').reason).toContain('so it makes no sidelit zone (§C405.2.4.2, item 5)');
     expect(low.daylight.zones).toEqual([]);
-    const enough = evaluateSpace(iecc, sidelitRoom({ visibleTransmittance: '0.2', daylightBlocked: false }, { primary: 4 })).interior.spaces[0]!;
+    const enough = evaluateSpace(iecc, sidelitRoom({ visibleTransmittance: '0.2', daylightBlocked: false }, { primary: 4 })).interior
+      .spaces[0]!;
     expect(line(enough.controls, 'daylight-sidelighting').status).toBe('not-met');
   });
 
   it('a window of less than 24 ft² makes no sidelit zone; one of 24 ft² does', () => {
     // 4 ft wide, head 8 ft, sill 3 ft: 20 ft².
-    const small = evaluateSpace(iecc, sidelitRoom({ width: 4, visibleTransmittance: '0.5', daylightBlocked: false }, { primary: 4 })).interior.spaces[0]!;
+    const small = evaluateSpace(iecc, sidelitRoom({ width: 4, visibleTransmittance: '0.5', daylightBlocked: false }, { primary: 4 }))
+      .interior.spaces[0]!;
     expect(line(small.controls, 'daylight-sidelighting').status).toBe('not-required');
     expect(line(small.controls, 'daylight-sidelighting').reason).toContain('20 ft² of glazing, less than 24 ft²');
     // 6 ft wide, head 8 ft, sill 4 ft: 24 ft².
-    const enough = evaluateSpace(iecc, sidelitRoom({ width: 6, sillHeight: 4, visibleTransmittance: '0.5', daylightBlocked: false }, { primary: 4 })).interior.spaces[0]!;
+    const enough = evaluateSpace(
+      iecc,
+      sidelitRoom({ width: 6, sillHeight: 4, visibleTransmittance: '0.5', daylightBlocked: false }, { primary: 4 }),
+    ).interior.spaces[0]!;
     expect(line(enough.controls, 'daylight-sidelighting').status).toBe('not-met');
   });
 
   it('a blocked window makes no sidelit zone, primary or secondary', () => {
-    const blocked = evaluateSpace(iecc, sidelitRoom({ visibleTransmittance: '0.5', daylightBlocked: true }, { primary: 2, secondary: 2 })).interior.spaces[0]!;
+    const blocked = evaluateSpace(iecc, sidelitRoom({ visibleTransmittance: '0.5', daylightBlocked: true }, { primary: 2, secondary: 2 }))
+      .interior.spaces[0]!;
     expect(line(blocked.controls, 'daylight-sidelighting').status).toBe('not-required');
     expect(blocked.daylight.secondarySidelitW).toBe('0');
   });
@@ -216,7 +237,9 @@ describe('IECC 2021 minimum glazing of a sidelit zone (C405.2.4.2, from memory)'
   it('a blank transmittance is to verify only where it decides', () => {
     const blank = evaluateSpace(iecc, sidelitRoom({ daylightBlocked: false }, { primary: 4 })).interior.spaces[0]!;
     expect(line(blank.controls, 'daylight-sidelighting').status).toBe('to-verify');
-    expect(line(blank.controls, 'daylight-sidelighting').reason).toContain('the visible transmittance of window 1 (south wall) is not recorded');
+    expect(line(blank.controls, 'daylight-sidelighting').reason).toContain(
+      'the visible transmittance of window 1 (south wall) is not recorded',
+    );
     // 2 × 50 W = 100 W: not more than 150 W either way.
     const under = evaluateSpace(iecc, sidelitRoom({}, { primary: 2 })).interior.spaces[0]!;
     expect(line(under.controls, 'daylight-sidelighting').status).toBe('not-required');

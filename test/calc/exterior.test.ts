@@ -3,7 +3,11 @@ import type { EvaluationDocumentInput } from '../../service/src/compliance/index
 import { validateDocument } from '../../service/src/compliance/index.js';
 import { ashrae2022, iecc2021, run } from './fixtures.js';
 
-const site = (applications: NonNullable<EvaluationDocumentInput['exterior']>['applications'], units: 'ip' | 'si' = 'ip', zone = '2'): EvaluationDocumentInput => ({
+const site = (
+  applications: NonNullable<EvaluationDocumentInput['exterior']>['applications'],
+  units: 'ip' | 'si' = 'ip',
+  zone = '2',
+): EvaluationDocumentInput => ({
   edition: 'iecc-2021',
   method: 'building-area',
   units,
@@ -62,10 +66,14 @@ describe('exterior allowance', () => {
     // ASHRAE 90.1-2022 Table 9.4.2-2, via BESD, zone 3: base site 400 W; parking 0.037 W/ft² × 10000 = 370 W;
     // entry canopy 0.18 W/ft² × 500 = 90 W. Pool 460 W + base 400 W = 860 W; installed 861 W → over by 1 W.
     const document: EvaluationDocumentInput = {
-      ...site([
-        { key: 'parking', quantity: 10000, installedWatts: 800 },
-        { key: 'entry-canopy', quantity: 500, installedWatts: 61 },
-      ], 'ip', '3'),
+      ...site(
+        [
+          { key: 'parking', quantity: 10000, installedWatts: 800 },
+          { key: 'entry-canopy', quantity: 500, installedWatts: 61 },
+        ],
+        'ip',
+        '3',
+      ),
       edition: 'ashrae-90.1-2022',
     };
     const result = run(document, ashrae2022);
@@ -108,21 +116,38 @@ describe('exterior exemptions', () => {
     // Parking installed 1500 W of which 600 W lights an athletic playing area beside it (C405.5.1 exception, from memory):
     // counted 900 W → 100 W over the parking allowance, covered from the 400 W base site.
     const result = run(
-      site([{ key: 'parking', quantity: 20000, installedWatts: 1500, exemptWatts: 600, exemptReason: 'athletic-playing-area', exemptNote: 'Tennis court lights on their own switch' }]),
+      site([
+        {
+          key: 'parking',
+          quantity: 20000,
+          installedWatts: 1500,
+          exemptWatts: 600,
+          exemptReason: 'athletic-playing-area',
+          exemptNote: 'Tennis court lights on their own switch',
+        },
+      ]),
       iecc2021,
     );
     const exterior = result.exterior!;
     const parking = exterior.applications[0]!;
     expect(parking.installedW).toBe('900');
     expect(parking.exemptW).toBe('600');
-    expect(parking.exemption).toEqual({ reason: 'athletic-playing-area', label: 'Lighting of athletic playing areas', note: 'Tennis court lights on their own switch', section: 'C405.5.1 exception', verified: false });
+    expect(parking.exemption).toEqual({
+      reason: 'athletic-playing-area',
+      label: 'Lighting of athletic playing areas',
+      note: 'Tennis court lights on their own switch',
+      section: 'C405.5.1 exception',
+      verified: false,
+    });
     expect(exterior.installedW).toBe('900');
     expect(exterior.exemptW).toBe('600');
     expect(exterior.complies).toBe(true);
     // Counted whole (1500 W), the pool would be 700 W over against 400 W of base site: not complying.
     expect(run(site([{ key: 'parking', quantity: 20000, installedWatts: 1500 }]), iecc2021).exterior!.complies).toBe(false);
     const flagged = result.unverifiedValues.find((value) => value.what === 'Exterior exemption: Lighting of athletic playing areas');
-    expect(flagged?.note).toBe('The list of exterior lighting exempt from the allowance was not found in a public source; check this exception in the printed code.');
+    expect(flagged?.note).toBe(
+      'The list of exterior lighting exempt from the allowance was not found in a public source; check this exception in the printed code.',
+    );
     expect(flagged?.citation.checked).toBe(false);
   });
 
@@ -132,12 +157,20 @@ describe('exterior exemptions', () => {
     expect(problems({ key: 'parking', quantity: 100, installedWatts: 50, exemptWatts: 10 })).toEqual([
       { path: 'exterior.applications.0.exemptReason', message: 'Exempt lighting needs the reason it is exempt: choose it from the list.' },
     ]);
-    expect(problems({ key: 'parking', quantity: 100, installedWatts: 50, exemptWatts: 60, exemptReason: 'temporary' }).map((problem) => problem.path)).toEqual(['exterior.applications.0.exemptWatts']);
-    expect(problems({ key: 'parking', quantity: 100, installedWatts: 50, exemptReason: 'temporary' }).map((problem) => problem.path)).toEqual(['exterior.applications.0.exemptWatts']);
+    expect(
+      problems({ key: 'parking', quantity: 100, installedWatts: 50, exemptWatts: 60, exemptReason: 'temporary' }).map(
+        (problem) => problem.path,
+      ),
+    ).toEqual(['exterior.applications.0.exemptWatts']);
+    expect(
+      problems({ key: 'parking', quantity: 100, installedWatts: 50, exemptReason: 'temporary' }).map((problem) => problem.path),
+    ).toEqual(['exterior.applications.0.exemptWatts']);
     // Exit signs are an IECC C405.5.1 exception (from memory); 90.1 §9.4.2's list has no such item.
     expect(problems({ key: 'parking', quantity: 100, installedWatts: 50, exemptWatts: 5, exemptReason: 'exit-signs' })).toEqual([]);
-    expect(problems({ key: 'parking', quantity: 100, installedWatts: 50, exemptWatts: 5, exemptReason: 'exit-signs' }, ashrae2022).map((problem) => problem.message)).toEqual([
-      'ASHRAE 90.1-2022 does not list this exemption; choose another reason.',
-    ]);
+    expect(
+      problems({ key: 'parking', quantity: 100, installedWatts: 50, exemptWatts: 5, exemptReason: 'exit-signs' }, ashrae2022).map(
+        (problem) => problem.message,
+      ),
+    ).toEqual(['ASHRAE 90.1-2022 does not list this exemption; choose another reason.']);
   });
 });

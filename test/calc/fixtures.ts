@@ -59,7 +59,13 @@ const REQ: RequirementCode = 'required';
 const ADD2: RequirementCode = 'one-of:ADD2';
 const daylightReq: Columns = { 'daylight-sidelighting': REQ, 'daylight-toplighting': REQ };
 
-function strategy(key: StrategyKey, label: string, section: string, provenance: Provenance, parameters: ControlStrategy['parameters'] = {}): ControlStrategy {
+function strategy(
+  key: StrategyKey,
+  label: string,
+  section: string,
+  provenance: Provenance,
+  parameters: ControlStrategy['parameters'] = {},
+): ControlStrategy {
   return { key, label, section, parameters, provenance };
 }
 
@@ -70,12 +76,28 @@ function ashraeStrategies(edition: string): ControlStrategy[] {
     strategy('restricted-manual-on', 'Restricted to manual ON', '9.4.1.1(b)', text('[S-ed]')),
     strategy('restricted-partial-auto-on', 'Restricted to partial automatic ON', '9.4.1.1(c)', text('[S-ed]')),
     strategy('bilevel', 'Bilevel lighting control', '9.4.1.1(d)', text('[S-ed]')),
-    strategy('daylight-sidelighting', 'Automatic daylight-responsive control for sidelighting', '9.4.1.1(e)', text('[I] openstudio-standards')),
-    strategy('daylight-toplighting', 'Automatic daylight-responsive control for toplighting', '9.4.1.1(f)', text('[I] openstudio-standards')),
+    strategy(
+      'daylight-sidelighting',
+      'Automatic daylight-responsive control for sidelighting',
+      '9.4.1.1(e)',
+      text('[I] openstudio-standards'),
+    ),
+    strategy(
+      'daylight-toplighting',
+      'Automatic daylight-responsive control for toplighting',
+      '9.4.1.1(f)',
+      text('[I] openstudio-standards'),
+    ),
     // [S-ed] Oregon 90.1-2016-based code summary: 20 min, ≥ 50 % reduction.
-    strategy('automatic-partial-off', 'Automatic partial OFF', '9.4.1.1(g)', text('[S-ed]'), { timeoutMinutes: '20', reductionPercent: '50' }),
+    strategy('automatic-partial-off', 'Automatic partial OFF', '9.4.1.1(g)', text('[S-ed]'), {
+      timeoutMinutes: '20',
+      reductionPercent: '50',
+    }),
     // [I] PNNL ConStrain documentation: off within 20 min, ≤ 5,000 ft² per device.
-    strategy('automatic-full-off', 'Automatic full OFF', '9.4.1.1(h)', text('[I] ConStrain'), { timeoutMinutes: '20', zoneSizeLimitFt2: '5000' }),
+    strategy('automatic-full-off', 'Automatic full OFF', '9.4.1.1(h)', text('[I] ConStrain'), {
+      timeoutMinutes: '20',
+      zoneSizeLimitFt2: '5000',
+    }),
     strategy('scheduled-shutoff', 'Scheduled shutoff', '9.4.1.1(i)', text('[M] override and zone size')),
     strategy('specific-application', 'Specific application control', '9.4.1.3', fromMemory('section number from memory')),
     strategy('exterior-daylight-off', 'Exterior: off when daylight is available', '9.4.1.4', text('[I]')),
@@ -110,7 +132,11 @@ function exteriorApplication(
 const exteriorControls: Columns = { 'exterior-daylight-off': REQ, 'exterior-setback': REQ };
 const facadeControls: Columns = { 'exterior-daylight-off': REQ, 'exterior-facade-landscape-off': REQ };
 
-const lightingZones = [0, 1, 2, 3, 4].map((zone) => ({ zone, description: `Lighting zone ${zone}`, provenance: sourced('Lighting zone table') }));
+const lightingZones = [0, 1, 2, 3, 4].map((zone) => ({
+  zone,
+  description: `Lighting zone ${zone}`,
+  provenance: sourced('Lighting zone table'),
+}));
 
 const ashraeDaylight = (edition: string): EditionData['rules']['daylight'] => ({
   // [I] openstudio-standards ashrae_90_1_2019.Space.rb: ≥ 150 W primary, ≥ 300 W primary + secondary,
@@ -159,32 +185,103 @@ export const ashrae2019: EditionData = {
   ],
   spaceTypes: [
     // ASHRAE 90.1-2019 Table 9.6.1, via BESD: LPD, RCR threshold, columns (e)–(i).
-    ashraeSpace('office-enclosed-small', 'Office, enclosed ≤ 250 ft²', '0.74', '8', { ...daylightReq, 'automatic-full-off': REQ }, T2019_961),
-    ashraeSpace('office-open', 'Office, open plan', '0.61', '4', { ...daylightReq, 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 }, T2019_961),
-    ashraeSpace('conference', 'Conference/meeting/multipurpose room', '0.97', '6', { ...daylightReq, 'automatic-full-off': REQ }, T2019_961),
+    ashraeSpace(
+      'office-enclosed-small',
+      'Office, enclosed ≤ 250 ft²',
+      '0.74',
+      '8',
+      { ...daylightReq, 'automatic-full-off': REQ },
+      T2019_961,
+    ),
+    ashraeSpace(
+      'office-open',
+      'Office, open plan',
+      '0.61',
+      '4',
+      { ...daylightReq, 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 },
+      T2019_961,
+    ),
+    ashraeSpace(
+      'conference',
+      'Conference/meeting/multipurpose room',
+      '0.97',
+      '6',
+      { ...daylightReq, 'automatic-full-off': REQ },
+      T2019_961,
+    ),
     {
-      ...ashraeSpace('corridor', 'Corridor', '0.41', null, { ...daylightReq, 'automatic-partial-off': REQ, 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 }, T2019_961),
+      ...ashraeSpace(
+        'corridor',
+        'Corridor',
+        '0.41',
+        null,
+        { ...daylightReq, 'automatic-partial-off': REQ, 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 },
+        T2019_961,
+      ),
       rcrCondition: 'width < 8 ft', // Table 9.6.1 via BESD annotation "rcr_threshold: width<8 ft"
     },
     ashraeSpace('restroom', 'Restroom', '0.63', '8', { ...daylightReq, 'automatic-full-off': REQ }, T2019_961),
     ashraeSpace('storage-50-plus', 'Storage room ≥ 50 ft²', '0.38', '6', { ...daylightReq, 'automatic-full-off': REQ }, T2019_961),
-    ashraeSpace('library-reading', 'Library reading area', '0.96', '4', { ...daylightReq, 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 }, T2019_961),
+    ashraeSpace(
+      'library-reading',
+      'Library reading area',
+      '0.96',
+      '4',
+      { ...daylightReq, 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 },
+      T2019_961,
+    ),
   ],
   controlStrategies: ashraeStrategies('90.1-2019'),
   exteriorApplications: [
     // ASHRAE 90.1-2019 Table 9.4.2-2, via BESD: zones 0–4.
     exteriorApplication('base-site', 'Base site allowance', 'W', false, ['0', '350', '400', '500', '900'], T2019_EXT),
-    exteriorApplication('parking', 'Parking lots and drives', 'W/ft2', true, ['0', '0.03', '0.04', '0.06', '0.08'], T2019_EXT, exteriorControls),
-    exteriorApplication('walkway-narrow', 'Walkways less than 10 ft wide', 'W/ft', true, ['0', '0.5', '0.5', '0.6', '0.7'], T2019_EXT, exteriorControls),
+    exteriorApplication(
+      'parking',
+      'Parking lots and drives',
+      'W/ft2',
+      true,
+      ['0', '0.03', '0.04', '0.06', '0.08'],
+      T2019_EXT,
+      exteriorControls,
+    ),
+    exteriorApplication(
+      'walkway-narrow',
+      'Walkways less than 10 ft wide',
+      'W/ft',
+      true,
+      ['0', '0.5', '0.5', '0.6', '0.7'],
+      T2019_EXT,
+      exteriorControls,
+    ),
     exteriorApplication('entry-canopy', 'Entry canopies', 'W/ft2', true, ['0', '0.2', '0.2', '0.2', '0.2'], T2019_EXT, exteriorControls),
     exteriorApplication('facade', 'Building facades', 'W/ft2', false, ['0', '0', '0.1', '0.15', '0.2'], T2019_EXT, facadeControls),
-    exteriorApplication('drive-up', 'Drive-up windows at fast food restaurants', 'W', false, ['0', '200', '200', '200', '200'], T2019_EXT, exteriorControls),
+    exteriorApplication(
+      'drive-up',
+      'Drive-up windows at fast food restaurants',
+      'W',
+      false,
+      ['0', '200', '200', '200', '200'],
+      T2019_EXT,
+      exteriorControls,
+    ),
   ],
   lightingZones,
   additionalAllowances: [
     // shared/reference-data/ashrae901-retail-display-additional.csv (2019 rows, BESD, annotated "From 90.1-2013"; low confidence).
-    { key: 'retail-area-1', label: 'Retail area 1', kind: 'retail-display', lpdWPerFt2: '0.45', provenance: unverified(`${BESD}`, 'annotated 90.1-2013; fixed adder missing') },
-    { key: 'retail-area-3', label: 'Retail area 3', kind: 'retail-display', lpdWPerFt2: '1.05', provenance: unverified(`${BESD}`, 'annotated 90.1-2013; fixed adder missing') },
+    {
+      key: 'retail-area-1',
+      label: 'Retail area 1',
+      kind: 'retail-display',
+      lpdWPerFt2: '0.45',
+      provenance: unverified(`${BESD}`, 'annotated 90.1-2013; fixed adder missing'),
+    },
+    {
+      key: 'retail-area-3',
+      label: 'Retail area 3',
+      kind: 'retail-display',
+      lpdWPerFt2: '1.05',
+      provenance: unverified(`${BESD}`, 'annotated 90.1-2013; fixed adder missing'),
+    },
   ],
   rules: {
     daylight: ashraeDaylight('90.1-2019'),
@@ -218,9 +315,30 @@ export const ashrae2022: EditionData = {
   spaceTypes: [
     // ASHRAE 90.1-2022 Tables 9.5.2.1-1/-2, via BESD.
     ashraeSpace('office-enclosed-150', 'Office, enclosed ≤ 150 ft²', '0.73', '8', { 'automatic-full-off': REQ }, T2022_SBS),
-    ashraeSpace('office-over-300', 'Office > 300 ft²', '0.56', '4', { ...daylightReq, 'automatic-partial-off': REQ, 'automatic-full-off': REQ }, T2022_SBS),
-    ashraeSpace('conference', 'Conference/meeting/multipurpose room', '0.88', '6', { ...daylightReq, 'automatic-full-off': REQ }, T2022_SBS),
-    ashraeSpace('corridor', 'Corridor', '0.44', null, { ...daylightReq, 'automatic-partial-off': REQ, 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 }, T2022_SBS),
+    ashraeSpace(
+      'office-over-300',
+      'Office > 300 ft²',
+      '0.56',
+      '4',
+      { ...daylightReq, 'automatic-partial-off': REQ, 'automatic-full-off': REQ },
+      T2022_SBS,
+    ),
+    ashraeSpace(
+      'conference',
+      'Conference/meeting/multipurpose room',
+      '0.88',
+      '6',
+      { ...daylightReq, 'automatic-full-off': REQ },
+      T2022_SBS,
+    ),
+    ashraeSpace(
+      'corridor',
+      'Corridor',
+      '0.44',
+      null,
+      { ...daylightReq, 'automatic-partial-off': REQ, 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 },
+      T2022_SBS,
+    ),
     ashraeSpace('storage-50-plus', 'Storage room ≥ 50 ft²', '0.35', '6', { 'automatic-full-off': REQ }, T2022_SBS),
     // Table 9.5.2.1-2: Sales area = 0.85 W/ft².
     ashraeSpace('sales-area', 'Sales area', '0.85', '6', { 'automatic-full-off': ADD2, 'scheduled-shutoff': ADD2 }, T2022_SBS),
@@ -229,16 +347,53 @@ export const ashrae2022: EditionData = {
   exteriorApplications: [
     // ASHRAE 90.1-2022 Table 9.4.2-2, via BESD.
     exteriorApplication('base-site', 'Base site allowance', 'W', false, ['0', '160', '280', '400', '560'], T2022_EXT),
-    exteriorApplication('parking', 'Parking lots and drives', 'W/ft2', true, ['0', '0.015', '0.026', '0.037', '0.052'], T2022_EXT, exteriorControls),
-    exteriorApplication('entry-canopy', 'Entry canopies', 'W/ft2', true, ['0', '0.072', '0.126', '0.18', '0.252'], T2022_EXT, exteriorControls),
+    exteriorApplication(
+      'parking',
+      'Parking lots and drives',
+      'W/ft2',
+      true,
+      ['0', '0.015', '0.026', '0.037', '0.052'],
+      T2022_EXT,
+      exteriorControls,
+    ),
+    exteriorApplication(
+      'entry-canopy',
+      'Entry canopies',
+      'W/ft2',
+      true,
+      ['0', '0.072', '0.126', '0.18', '0.252'],
+      T2022_EXT,
+      exteriorControls,
+    ),
     exteriorApplication('facade', 'Building facades', 'W/ft2', false, ['0', '0.056', '0.098', '0.14', '0.196'], T2022_EXT, facadeControls),
   ],
   additionalAllowances: [
     // 90.1-2022 §9.5.2.2(b): 750 W + 0.40/0.40/0.70/1.00 W/ft² (pnnl/ruleset-checking-tool section6rule12.py; [S]).
-    { key: 'retail-area-1', label: 'Retail area 1', kind: 'retail-display', lpdWPerFt2: '0.40', fixedW: '750', provenance: sourced('ASHRAE 90.1-2022 §9.5.2.2(b), via pnnl/ruleset-checking-tool') },
-    { key: 'retail-area-3', label: 'Retail area 3', kind: 'retail-display', lpdWPerFt2: '0.70', fixedW: '750', provenance: sourced('ASHRAE 90.1-2022 §9.5.2.2(b), via pnnl/ruleset-checking-tool') },
+    {
+      key: 'retail-area-1',
+      label: 'Retail area 1',
+      kind: 'retail-display',
+      lpdWPerFt2: '0.40',
+      fixedW: '750',
+      provenance: sourced('ASHRAE 90.1-2022 §9.5.2.2(b), via pnnl/ruleset-checking-tool'),
+    },
+    {
+      key: 'retail-area-3',
+      label: 'Retail area 3',
+      kind: 'retail-display',
+      lpdWPerFt2: '0.70',
+      fixedW: '750',
+      provenance: sourced('ASHRAE 90.1-2022 §9.5.2.2(b), via pnnl/ruleset-checking-tool'),
+    },
     // 90.1-2022 §9.5.2.2(a) decorative appearance: 0.75 W/ft² from memory (not in shared/reference-data).
-    { key: 'decorative', label: 'Decorative lighting', kind: 'decorative', section: '9.5.2.2(a)', lpdWPerFt2: '0.75', provenance: fromMemory('decorative allowance rate from memory') },
+    {
+      key: 'decorative',
+      label: 'Decorative lighting',
+      kind: 'decorative',
+      section: '9.5.2.2(a)',
+      lpdWPerFt2: '0.75',
+      provenance: fromMemory('decorative allowance rate from memory'),
+    },
   ],
   rules: { ...ashrae2019.rules, daylight: ashraeDaylight('90.1-2022') },
 };
@@ -307,9 +462,13 @@ export const iecc2021: EditionData = {
   ],
   controlStrategies: [
     // C405.2.1.1 [S]: off within 20 minutes (zmVault transcription).
-    strategy('occupant-sensor', 'Occupant sensor control', 'C405.2.1', sourced('IECC 2021 C405.2.1, zmVault transcription'), { timeoutMinutes: '20' }),
+    strategy('occupant-sensor', 'Occupant sensor control', 'C405.2.1', sourced('IECC 2021 C405.2.1, zmVault transcription'), {
+      timeoutMinutes: '20',
+    }),
     // Override controls at most 5,000 ft²: Washington State Energy Code, WAC 51-11C-405022 [S-ed].
-    strategy('time-switch', 'Time-switch control', 'C405.2.2', unverified('WAC 51-11C-405022', '[S-ed] state text'), { zoneSizeLimitFt2: '5000' }),
+    strategy('time-switch', 'Time-switch control', 'C405.2.2', unverified('WAC 51-11C-405022', '[S-ed] state text'), {
+      zoneSizeLimitFt2: '5000',
+    }),
     // Exceptions: one luminaire under 60 W, installed density under 0.45 W/ft² — Washington 2021 WSEC (WAC 51-11C-405024) [S-ed].
     strategy('light-reduction', 'Light-reduction control', 'C405.2.3', unverified('WAC 51-11C-405024', '[S-ed] state text'), {
       reductionPercent: '50',
@@ -326,11 +485,35 @@ export const iecc2021: EditionData = {
   exteriorApplications: [
     // IECC 2021 Table C405.5.2(2), via BESD: zones 0–4 (zone 0 zeros look like a placeholder).
     exteriorApplication('base-site', 'Base site allowance', 'W', false, ['0', '350', '400', '500', '900'], TI_EXT),
-    exteriorApplication('parking', 'Parking lots and drives', 'W/ft2', true, ['0', '0.03', '0.04', '0.06', '0.08'], TI_EXT, exteriorControls),
-    exteriorApplication('walkway-narrow', 'Walkways less than 10 ft wide', 'W/ft', true, ['0', '0.5', '0.5', '0.6', '0.7'], TI_EXT, exteriorControls),
+    exteriorApplication(
+      'parking',
+      'Parking lots and drives',
+      'W/ft2',
+      true,
+      ['0', '0.03', '0.04', '0.06', '0.08'],
+      TI_EXT,
+      exteriorControls,
+    ),
+    exteriorApplication(
+      'walkway-narrow',
+      'Walkways less than 10 ft wide',
+      'W/ft',
+      true,
+      ['0', '0.5', '0.5', '0.6', '0.7'],
+      TI_EXT,
+      exteriorControls,
+    ),
     exteriorApplication('entry-canopy', 'Entry canopies', 'W/ft2', true, ['0', '0.2', '0.25', '0.4', '0.4'], TI_EXT, exteriorControls),
     exteriorApplication('facade', 'Building facades', 'W/ft2', false, ['0', '0', '0.075', '0.113', '0.15'], TI_EXT, facadeControls),
-    exteriorApplication('drive-up', 'Drive-up windows at fast food restaurants', 'W', false, ['0', '200', '200', '200', '200'], TI_EXT, exteriorControls),
+    exteriorApplication(
+      'drive-up',
+      'Drive-up windows at fast food restaurants',
+      'W',
+      false,
+      ['0', '200', '200', '200', '200'],
+      TI_EXT,
+      exteriorControls,
+    ),
   ],
   lightingZones,
   additionalAllowances: [],
@@ -358,7 +541,6 @@ export const iecc2021: EditionData = {
     baseSiteProvenance: fromMemory('base site allowance usable for tradable or nontradable applications'),
   },
 };
-
 
 /** Validates, fails loudly with the problem list if the document is not valid, then evaluates. */
 export function run(document: EvaluationDocumentInput, edition: EditionData): EvaluationResult {

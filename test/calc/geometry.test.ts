@@ -49,7 +49,9 @@ describe('room cavity ratio (IES Lighting Handbook zonal-cavity method)', () => 
         method: 'space-by-space',
         units: 'ip',
         luminaireTypes: [],
-        spaces: [{ id: 'a', name: 'Office', spaceType: 'office-enclosed-small', area: '120', length: '10', width: '12', ceilingHeight: '9' }],
+        spaces: [
+          { id: 'a', name: 'Office', spaceType: 'office-enclosed-small', area: '120', length: '10', width: '12', ceilingHeight: '9' },
+        ],
       },
       ashrae2019,
     );

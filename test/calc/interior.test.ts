@@ -3,7 +3,12 @@ import { formatLpd, formatPercent, formatWatts, validateDocument } from '../../s
 import type { EvaluationDocumentInput } from '../../service/src/compliance/index.js';
 import { ashrae2019, ashrae2022, iecc2021, run } from './fixtures.js';
 
-const led = (tag: string, watts: string, use: 'general' | 'decorative' | 'display' | 'exempt' = 'general') => ({ tag, description: tag, inputWatts: watts, use });
+const led = (tag: string, watts: string, use: 'general' | 'decorative' | 'display' | 'exempt' = 'general') => ({
+  tag,
+  description: tag,
+  inputWatts: watts,
+  use,
+});
 
 describe('building area method', () => {
   it('sums LPD × area over several building area types (90.1-2019)', () => {
@@ -64,11 +69,17 @@ describe('space-by-space method', () => {
   it('reproduces D-SBS-1 and D-SBS-2 (same spaces under 90.1-2019 and IECC 2021): 5970 W', () => {
     // external-test-cases.csv D-SBS-1, from ASHRAE 90.1-2019 Table 9.6.1 via BESD:
     // 0.74×2000 + 0.61×5000 + 0.97×600 + 0.41×1200 + 0.63×400 + 0.38×300 = 1480 + 3050 + 582 + 492 + 252 + 114 = 5970 W.
-    const ashrae = run(smallOffice('ashrae-90.1-2019', ['office-enclosed-small', 'office-open', 'conference', 'corridor', 'restroom', 'storage-50-plus']), ashrae2019);
+    const ashrae = run(
+      smallOffice('ashrae-90.1-2019', ['office-enclosed-small', 'office-open', 'conference', 'corridor', 'restroom', 'storage-50-plus']),
+      ashrae2019,
+    );
     expect(ashrae.interior.allowanceW).toBe('5970');
     expect(ashrae.interior.spaces.map((space) => space.allowanceW)).toEqual(['1480', '3050', '582', '492', '252', '114']);
     // D-SBS-2, IECC 2021 Table C405.3.2(2) via BESD: same LPDs → 5970 W.
-    const iecc = run(smallOffice('iecc-2021', ['office-enclosed', 'office-open', 'conference', 'corridor', 'restroom', 'storage']), iecc2021);
+    const iecc = run(
+      smallOffice('iecc-2021', ['office-enclosed', 'office-open', 'conference', 'corridor', 'restroom', 'storage']),
+      iecc2021,
+    );
     expect(iecc.interior.allowanceW).toBe('5970');
     // Area-weighted LPD 5970 / 9500 = 0.6284… W/ft² (D-SBS-1).
     expect(formatLpd(String(5970 / 9500))).toBe('0.63');
@@ -111,18 +122,18 @@ describe('space-by-space method', () => {
         edition: 'ashrae-90.1-2019',
         method: 'space-by-space',
         units: 'ip',
-        luminaireTypes: [
-          led('G', '30'),
-          led('D', '20', 'decorative'),
-          { ...led('X', '5', 'exempt'), exemptReason: 'exit sign' },
-        ],
+        luminaireTypes: [led('G', '30'), led('D', '20', 'decorative'), { ...led('X', '5', 'exempt'), exemptReason: 'exit sign' }],
         spaces: [
           {
             id: 'o',
             name: 'Office',
             spaceType: 'office-enclosed-small',
             area: 200,
-            luminaires: [{ tag: 'G', count: 3 }, { tag: 'D', count: 1 }, { tag: 'X', count: 2 }],
+            luminaires: [
+              { tag: 'G', count: 3 },
+              { tag: 'D', count: 1 },
+              { tag: 'X', count: 2 },
+            ],
           },
         ],
       },
@@ -153,7 +164,19 @@ describe('space-by-space method', () => {
           { ...led('T2', '200'), basis: 'line-voltage-track', length: '4' },
           { ...led('T3', '400'), basis: 'line-voltage-track', length: '20', limitWatts: '300' },
         ],
-        spaces: [{ id: 'g', name: 'Gallery', spaceType: 'library-reading', area: 1000, luminaires: [{ tag: 'T1', count: 1 }, { tag: 'T2', count: 1 }, { tag: 'T3', count: 1 }] }],
+        spaces: [
+          {
+            id: 'g',
+            name: 'Gallery',
+            spaceType: 'library-reading',
+            area: 1000,
+            luminaires: [
+              { tag: 'T1', count: 1 },
+              { tag: 'T2', count: 1 },
+              { tag: 'T3', count: 1 },
+            ],
+          },
+        ],
       },
       ashrae2019,
     );
@@ -173,7 +196,18 @@ describe('space-by-space method', () => {
           edition: 'ashrae-90.1-2019',
           method: 'space-by-space',
           units: 'ip',
-          spaces: [{ id: 'o', name: 'Office', spaceType: 'office-enclosed-small', area: 100, length: 10, width: 10, luminaireHeight: height, ceilingHeight: '11' }],
+          spaces: [
+            {
+              id: 'o',
+              name: 'Office',
+              spaceType: 'office-enclosed-small',
+              area: 100,
+              length: 10,
+              width: 10,
+              luminaireHeight: height,
+              ceilingHeight: '11',
+            },
+          ],
         },
         ashrae2019,
       );
@@ -233,7 +267,8 @@ describe('space-by-space method', () => {
       ],
       retailDisplay: { claims },
     });
-    const problems = (claims: Parameters<typeof document>[0]) => validateDocument(document(claims), ashrae2022).problems.map((problem) => problem.path);
+    const problems = (claims: Parameters<typeof document>[0]) =>
+      validateDocument(document(claims), ashrae2022).problems.map((problem) => problem.path);
     expect(problems([{ allowance: 'retail-area-1', spaceId: 'c', area: 300 }])).toEqual(['retailDisplay.claims.0.spaceId']);
     expect(problems([{ allowance: 'retail-area-1', spaceId: 's1', area: 1200 }])).toEqual(['retailDisplay.claims.0.area']);
     expect(
@@ -242,7 +277,12 @@ describe('space-by-space method', () => {
         { allowance: 'retail-area-1', spaceId: 's1', area: 400 },
       ]),
     ).toEqual(['retailDisplay.claims.1.allowance']);
-    expect(problems([{ allowance: 'retail-area-1', spaceId: 's1', area: 400 }, { allowance: 'retail-area-3', spaceId: 's1', area: 600 }])).toEqual([]);
+    expect(
+      problems([
+        { allowance: 'retail-area-1', spaceId: 's1', area: 400 },
+        { allowance: 'retail-area-3', spaceId: 's1', area: 600 },
+      ]),
+    ).toEqual([]);
   });
 
   it('sums per level', () => {

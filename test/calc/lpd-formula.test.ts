@@ -21,11 +21,25 @@ const formulaRow = (key: string, label: string, lpd: string, lpdFormula: SpaceTy
   lpdFormula,
   rcrThreshold: null,
   controls: {},
-  provenance: { source: 'ASHRAE 90.1-2016 Table 9.6.1, via PNNL building-energy-standards-data', confidence: 'medium', verified: false, note: 'per-foot reading from the row notes; from memory' },
+  provenance: {
+    source: 'ASHRAE 90.1-2016 Table 9.6.1, via PNNL building-energy-standards-data',
+    confidence: 'medium',
+    verified: false,
+    note: 'per-foot reading from the row notes; from memory',
+  },
 });
 
-const atriumMid = formulaRow('atrium-mid', 'Atrium — ≥ 20 ft and ≤ 40 ft in height', '0.03', { kind: 'per-foot-of-height', wPerFt2PerFt: '0.03', heightFt: { atLeast: '20', atMost: '40' } });
-const atriumTall = formulaRow('atrium-tall', 'Atrium — > 40 ft in height', '0.4', { kind: 'base-plus-per-foot-of-height', baseWPerFt2: '0.4', wPerFt2PerFt: '0.02', heightFt: { above: '40' } });
+const atriumMid = formulaRow('atrium-mid', 'Atrium — ≥ 20 ft and ≤ 40 ft in height', '0.03', {
+  kind: 'per-foot-of-height',
+  wPerFt2PerFt: '0.03',
+  heightFt: { atLeast: '20', atMost: '40' },
+});
+const atriumTall = formulaRow('atrium-tall', 'Atrium — > 40 ft in height', '0.4', {
+  kind: 'base-plus-per-foot-of-height',
+  baseWPerFt2: '0.4',
+  wPerFt2PerFt: '0.02',
+  heightFt: { above: '40' },
+});
 
 const edition: EditionData = { ...ashrae2019, spaceTypes: [...ashrae2019.spaceTypes, atriumMid, atriumTall] };
 
@@ -34,7 +48,16 @@ const atrium = (type: string, area: string, ceilingHeight: string | undefined, u
   method: 'space-by-space' as const,
   units,
   luminaireTypes: [{ tag: 'A', inputWatts: '100', use: 'general' as const }],
-  spaces: [{ id: 'a', name: 'Atrium', spaceType: type, area, ...(ceilingHeight === undefined ? {} : { ceilingHeight }), luminaires: [{ tag: 'A', count: 10 }] }],
+  spaces: [
+    {
+      id: 'a',
+      name: 'Atrium',
+      spaceType: type,
+      area,
+      ...(ceilingHeight === undefined ? {} : { ceilingHeight }),
+      luminaires: [{ tag: 'A', count: 10 }],
+    },
+  ],
 });
 
 describe('an allowance per foot of height (90.1-2013/2016 and IECC 2018 atrium rows)', () => {
@@ -66,10 +89,15 @@ describe('an allowance per foot of height (90.1-2013/2016 and IECC 2018 atrium r
       { path: 'spaces.0.ceilingHeight', message: "The atrium's allowance depends on its height: give the ceiling height." },
     ]);
     expect(validateDocument(atrium('atrium-tall', '1000', '40'), edition).problems).toEqual([
-      { path: 'spaces.0.ceilingHeight', message: 'This space type is for atria more than 40 ft high; choose the atrium row for a height of 40 ft.' },
+      {
+        path: 'spaces.0.ceilingHeight',
+        message: 'This space type is for atria more than 40 ft high; choose the atrium row for a height of 40 ft.',
+      },
     ]);
     expect(validateDocument(atrium('atrium-mid', '1000', '40'), edition).valid).toBe(true); // "≤ 40 ft" includes 40
-    expect(validateDocument(atrium('atrium-mid', '1000', '19.9'), edition).problems[0]!.message).toBe('This space type is for atria at least 20 ft and at most 40 ft high; choose the atrium row for a height of 19.9 ft.');
+    expect(validateDocument(atrium('atrium-mid', '1000', '19.9'), edition).problems[0]!.message).toBe(
+      'This space type is for atria at least 20 ft and at most 40 ft high; choose the atrium row for a height of 19.9 ft.',
+    );
   });
 
   it('asks nothing of the building area method, which reads the building area type', () => {

@@ -48,7 +48,12 @@ const iecc: EditionData = {
   spaceTypes: [
     ...iecc2021.spaceTypes,
     // IECC 2021: interior parking areas may turn fully on automatically (C405.2.1.1 exception [S]) and have their own sensor function (C405.2.8).
-    garageType('parking-area-interior', 'Parking Area, Interior', '0.15', { occupantSensorListed: false, fullAutoOnAllowed: true, sensorFunction: 'parking-garage', lightReductionExemptItem: null }),
+    garageType('parking-area-interior', 'Parking Area, Interior', '0.15', {
+      occupantSensorListed: false,
+      fullAutoOnAllowed: true,
+      sensorFunction: 'parking-garage',
+      lightReductionExemptItem: null,
+    }),
   ],
   controlStrategies: [...iecc2021.controlStrategies, transition('C405.2.8')],
 };
@@ -75,18 +80,35 @@ describe('parking garage daylight transition lighting (90.1 §9.4.1.2, IECC C405
     expect(transitionLine.status).toBe('to-verify');
     expect(transitionLine.section).toBe('9.4.1.2');
     expect(transitionLine.reason).toContain('reduced automatically from sunset to sunrise');
-    expect(result.unverifiedValues.some((value) => value.what === 'Control strategy: Garage entrance lighting, reduced at night')).toBe(true);
+    expect(result.unverifiedValues.some((value) => value.what === 'Control strategy: Garage entrance lighting, reduced at night')).toBe(
+      true,
+    );
     // Provided, it is met; checked against the adopted code, it is settled as not applying.
-    const provided = garage(ashrae, 'parking-area-interior', [{ strategy: 'parking-daylight-transition', provided: true, device: 'Astronomic time switch on the ramp circuit' }]);
+    const provided = garage(ashrae, 'parking-area-interior', [
+      { strategy: 'parking-daylight-transition', provided: true, device: 'Astronomic time switch on the ramp circuit' },
+    ]);
     expect(line(provided.interior.spaces[0]!.controls, 'parking-daylight-transition')!.status).toBe('met');
-    const checked = garage(ashrae, 'parking-area-interior', [{ strategy: 'parking-daylight-transition', provided: false, exceptionReason: 'verified-not-required', exceptionNote: 'No covered vehicle entrance: open-sided deck, checked against §9.4.1.2' }]);
+    const checked = garage(ashrae, 'parking-area-interior', [
+      {
+        strategy: 'parking-daylight-transition',
+        provided: false,
+        exceptionReason: 'verified-not-required',
+        exceptionNote: 'No covered vehicle entrance: open-sided deck, checked against §9.4.1.2',
+      },
+    ]);
     expect(line(checked.interior.spaces[0]!.controls, 'parking-daylight-transition')!.status).toBe('exception-claimed');
   });
 
   it('90.1-2022-like data: the transition zone space type requires it; the other parking areas do not', () => {
-    const zone = line(garage(ashrae2022Like, 'parking-garage-daylight-transition-zone').interior.spaces[0]!.controls, 'parking-daylight-transition')!;
+    const zone = line(
+      garage(ashrae2022Like, 'parking-garage-daylight-transition-zone').interior.spaces[0]!.controls,
+      'parking-daylight-transition',
+    )!;
     expect(zone.status).toBe('not-met');
-    const rest = line(garage(ashrae2022Like, 'parking-garage-all-other-parking-and-drive-areas').interior.spaces[0]!.controls, 'parking-daylight-transition')!;
+    const rest = line(
+      garage(ashrae2022Like, 'parking-garage-all-other-parking-and-drive-areas').interior.spaces[0]!.controls,
+      'parking-daylight-transition',
+    )!;
     expect(rest.status).toBe('not-required');
     expect(rest.reason).toContain('its own space type');
   });
@@ -99,6 +121,11 @@ describe('parking garage daylight transition lighting (90.1 §9.4.1.2, IECC C405
   });
 
   it('an edition whose data has no such strategy adds no line', () => {
-    expect(line(garage({ ...ashrae, controlStrategies: ashrae2019.controlStrategies }, 'parking-area-interior').interior.spaces[0]!.controls, 'parking-daylight-transition')).toBeUndefined();
+    expect(
+      line(
+        garage({ ...ashrae, controlStrategies: ashrae2019.controlStrategies }, 'parking-area-interior').interior.spaces[0]!.controls,
+        'parking-daylight-transition',
+      ),
+    ).toBeUndefined();
   });
 });

@@ -8,7 +8,8 @@ import { ashrae2019, iecc2021, run } from './fixtures.js';
 const spaceTypes = ['office-enclosed-small', 'office-open', 'conference', 'corridor', 'restroom', 'storage-50-plus', 'library-reading'];
 
 /** Enough rooms per entry that a generated area fits the size a space type's name carries (≤ 250 ft² offices, ≥ 50 ft² storage). */
-const roomsFor = (type: string, area: number) => (type === 'office-enclosed-small' ? Math.ceil(area / 250) : type === 'storage-50-plus' ? 1 : undefined);
+const roomsFor = (type: string, area: number) =>
+  type === 'office-enclosed-small' ? Math.ceil(area / 250) : type === 'storage-50-plus' ? 1 : undefined;
 
 const spaceArbitrary = fc.record({
   type: fc.constantFrom(...spaceTypes),
@@ -57,7 +58,12 @@ describe('properties', () => {
         const base = dec(run(document(specs), ashrae2019).interior.allowanceW);
         const scaled = dec(run(document(specs, factor), ashrae2019).interior.allowanceW);
         // Both are reported to 0.1 W, so they agree within the rounding of each (0.05 W, and 0.05 W × factor).
-        expect(scaled.minus(base.times(factor)).abs().lessThanOrEqualTo(dec('0.05').times(factor + 1))).toBe(true);
+        expect(
+          scaled
+            .minus(base.times(factor))
+            .abs()
+            .lessThanOrEqualTo(dec('0.05').times(factor + 1)),
+        ).toBe(true);
       }),
       { numRuns: 50 },
     );
@@ -68,15 +74,23 @@ describe('properties', () => {
     fc.assert(
       fc.property(fc.array(spaceArbitrary, { minLength: 1, maxLength: 4 }), fc.boolean(), (specs, iecc) => {
         const edition = iecc ? iecc2021 : ashrae2019;
-        const types = iecc ? ['office-enclosed', 'office-open', 'conference', 'corridor', 'restroom', 'storage', 'library-reading'] : spaceTypes;
+        const types = iecc
+          ? ['office-enclosed', 'office-open', 'conference', 'corridor', 'restroom', 'storage', 'library-reading']
+          : spaceTypes;
         const make = (units: 'ip' | 'si'): EvaluationDocumentInput => {
           const length = (feet: number) => (units === 'ip' ? String(feet) : dec(feet).times(metresPerFoot).toFixed());
-          const area = (squareFeet: number) => (units === 'ip' ? String(squareFeet) : dec(squareFeet).times(squareMetresPerSquareFoot).toFixed());
+          const area = (squareFeet: number) =>
+            units === 'ip' ? String(squareFeet) : dec(squareFeet).times(squareMetresPerSquareFoot).toFixed();
           return {
             edition: edition.id,
             method: 'space-by-space',
             units,
-            luminaireTypes: specs.map((spec, index) => ({ tag: `L${index}`, description: '', inputWatts: spec.watts, use: 'general' as const })),
+            luminaireTypes: specs.map((spec, index) => ({
+              tag: `L${index}`,
+              description: '',
+              inputWatts: spec.watts,
+              use: 'general' as const,
+            })),
             spaces: specs.map((spec, index) => ({
               id: `s${index}`,
               name: `Space ${index}`,
@@ -101,7 +115,9 @@ describe('properties', () => {
         expect(b.interior.complies).toBe(a.interior.complies);
         expect(dec(b.interior.allowanceW).minus(dec(a.interior.allowanceW)).abs().lessThan('1e-20')).toBe(true);
         expect(b.interior.installedW).toBe(a.interior.installedW);
-        expect(b.interior.spaces.map((space) => space.roomGeometryIncreaseApplied)).toEqual(a.interior.spaces.map((space) => space.roomGeometryIncreaseApplied));
+        expect(b.interior.spaces.map((space) => space.roomGeometryIncreaseApplied)).toEqual(
+          a.interior.spaces.map((space) => space.roomGeometryIncreaseApplied),
+        );
         expect(b.interior.spaces.map((space) => space.daylight.sidelightingControlRequired)).toEqual(
           a.interior.spaces.map((space) => space.daylight.sidelightingControlRequired),
         );

@@ -21,11 +21,27 @@ const iecc: EditionData = {
   ...iecc2021,
   spaceTypes: [
     ...iecc2021.spaceTypes,
-    ieccType('warehouse', 'Warehouse storage area', '0.58', { occupantSensorListed: true, fullAutoOnAllowed: false, sensorFunction: 'warehouse' }),
-    ieccType('dormitory', 'Dormitory living quarters', '0.54', { occupantSensorListed: false, fullAutoOnAllowed: false, sensorFunction: 'general', timeSwitchExemptItem: 'sleeping units', sleepingUnit: true }, {
-      'daylight-sidelighting': 'not-required',
-      'daylight-toplighting': 'not-required',
+    ieccType('warehouse', 'Warehouse storage area', '0.58', {
+      occupantSensorListed: true,
+      fullAutoOnAllowed: false,
+      sensorFunction: 'warehouse',
     }),
+    ieccType(
+      'dormitory',
+      'Dormitory living quarters',
+      '0.54',
+      {
+        occupantSensorListed: false,
+        fullAutoOnAllowed: false,
+        sensorFunction: 'general',
+        timeSwitchExemptItem: 'sleeping units',
+        sleepingUnit: true,
+      },
+      {
+        'daylight-sidelighting': 'not-required',
+        'daylight-toplighting': 'not-required',
+      },
+    ),
     ieccType('shed', 'Unlisted small room', '0.5', { occupantSensorListed: false, fullAutoOnAllowed: false, sensorFunction: 'general' }),
   ],
   controlStrategies: [
@@ -34,14 +50,27 @@ const iecc: EditionData = {
       key: 'automatic-partial-off',
       label: 'Automatic partial OFF',
       section: 'C405.2.1.2–C405.2.1.4',
-      parameters: { timeoutMinutes: '20', reductionPercent: '50', openOfficeZoneSizeLimitFt2: '600', openOfficeReductionPercent: '80', parkingReductionPercent: '30', parkingZoneSizeLimitFt2: '3600' },
+      parameters: {
+        timeoutMinutes: '20',
+        reductionPercent: '50',
+        openOfficeZoneSizeLimitFt2: '600',
+        openOfficeReductionPercent: '80',
+        parkingReductionPercent: '30',
+        parkingZoneSizeLimitFt2: '3600',
+      },
       provenance: { source: 'secondary summaries (reference/iecc-2021/control-strategies.json)', confidence: 'low', verified: false },
     },
   ],
   rules: { ...iecc2021.rules, daylight: { ...iecc2021.rules.daylight, combinedSidelitThresholdW: '150' } },
 };
 
-function ieccType(key: string, label: string, lpd: string, inputs: NonNullable<SpaceType['iecc']>, controls: SpaceType['controls'] = {}): SpaceType {
+function ieccType(
+  key: string,
+  label: string,
+  lpd: string,
+  inputs: NonNullable<SpaceType['iecc']>,
+  controls: SpaceType['controls'] = {},
+): SpaceType {
   return {
     key,
     label,
@@ -67,16 +96,29 @@ function evaluateSpace(edition: EditionData, space: Partial<SpaceInput>, luminai
 }
 
 /** A 30 × 20 ft room with one south window 10 ft wide, head 8 ft, sill 3 ft (50 ft² of glazing): invented. */
-const sidelit = { length: 30, width: 20, ceilingHeight: 10, windows: [{ width: 10, headHeight: 8, sillHeight: 3, wall: 'south' as const, offset: 10 }] };
+const sidelit = {
+  length: 30,
+  width: 20,
+  ceilingHeight: 10,
+  windows: [{ width: 10, headHeight: 8, sillHeight: 3, wall: 'south' as const, offset: 10 }],
+};
 
 describe('daylight-responsive control', () => {
   it('90.1-2019: primary and secondary together at 300 W require it though the primary alone is under 150 W (9.4.1.1(e))', () => {
     // 9.4.1.1(e): primary ≥ 150 W, or primary + secondary ≥ 300 W [I] openstudio-standards ashrae_90_1_2019.Space.rb.
-    const room = evaluateSpace(ashrae2019, {
-      spaceType: 'office-open',
-      ...sidelit,
-      luminaires: [{ tag: 'G', count: 1, zone: 'primary-sidelit' }, { tag: 'G', count: 2, zone: 'secondary-sidelit' }, { tag: 'G', count: 1 }],
-    }, '100');
+    const room = evaluateSpace(
+      ashrae2019,
+      {
+        spaceType: 'office-open',
+        ...sidelit,
+        luminaires: [
+          { tag: 'G', count: 1, zone: 'primary-sidelit' },
+          { tag: 'G', count: 2, zone: 'secondary-sidelit' },
+          { tag: 'G', count: 1 },
+        ],
+      },
+      '100',
+    );
     expect(room.daylight.primarySidelitW).toBe('100');
     expect(room.daylight.secondarySidelitW).toBe('200');
     expect(room.daylight.sidelightingControlRequired).toBe(true);
@@ -86,9 +128,31 @@ describe('daylight-responsive control', () => {
   });
 
   it('IECC 2021: the sidelit zones count together at more than 150 W (from memory)', () => {
-    const over = evaluateSpace(iecc, { spaceType: 'library-reading', ...sidelit, luminaires: [{ tag: 'G', count: 1, zone: 'primary-sidelit' }, { tag: 'G', count: 1, zone: 'secondary-sidelit' }] }, '80');
+    const over = evaluateSpace(
+      iecc,
+      {
+        spaceType: 'library-reading',
+        ...sidelit,
+        luminaires: [
+          { tag: 'G', count: 1, zone: 'primary-sidelit' },
+          { tag: 'G', count: 1, zone: 'secondary-sidelit' },
+        ],
+      },
+      '80',
+    );
     expect(over.daylight.sidelightingControlRequired).toBe(true); // 80 + 80 = 160 W > 150 W
-    const under = evaluateSpace(iecc, { spaceType: 'library-reading', ...sidelit, luminaires: [{ tag: 'G', count: 1, zone: 'primary-sidelit' }, { tag: 'G', count: 1, zone: 'secondary-sidelit' }] }, '75');
+    const under = evaluateSpace(
+      iecc,
+      {
+        spaceType: 'library-reading',
+        ...sidelit,
+        luminaires: [
+          { tag: 'G', count: 1, zone: 'primary-sidelit' },
+          { tag: 'G', count: 1, zone: 'secondary-sidelit' },
+        ],
+      },
+      '75',
+    );
     expect(under.daylight.sidelightingControlRequired).toBe(false); // 75 + 75 = 150 W, not more than 150 W
   });
 
@@ -106,8 +170,18 @@ describe('daylight-responsive control', () => {
   });
 
   it('90.1: a skylight beside a window leaves the overlap in the primary sidelit area (from memory)', () => {
-    const edition: EditionData = { ...ashrae2019, rules: { ...ashrae2019.rules, daylight: { ...ashrae2019.rules.daylight, overlapPrecedence: ['primary-sidelit', 'toplit', 'secondary-sidelit'] } } };
-    const window = evaluateSpace(edition, { spaceType: 'office-open', ...sidelit, luminaires: [{ tag: 'G', count: 1, zone: 'primary-sidelit' }] });
+    const edition: EditionData = {
+      ...ashrae2019,
+      rules: {
+        ...ashrae2019.rules,
+        daylight: { ...ashrae2019.rules.daylight, overlapPrecedence: ['primary-sidelit', 'toplit', 'secondary-sidelit'] },
+      },
+    };
+    const window = evaluateSpace(edition, {
+      spaceType: 'office-open',
+      ...sidelit,
+      luminaires: [{ tag: 'G', count: 1, zone: 'primary-sidelit' }],
+    });
     const both = evaluateSpace(edition, {
       spaceType: 'office-open',
       ...sidelit,
@@ -135,26 +209,66 @@ describe('IECC space-specific occupant-sensor functions', () => {
   it('a warehouse needs its aisles reduced by at least 50 %: a plain sensor does not pass', () => {
     const plain = evaluateSpace(iecc, { spaceType: 'warehouse', area: 20000, controls: [sensor] });
     expect(line(plain.controls, 'automatic-partial-off').status).toBe('not-met');
-    const unrecorded = evaluateSpace(iecc, { spaceType: 'warehouse', area: 20000, controls: [sensor, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20' }] });
+    const unrecorded = evaluateSpace(iecc, {
+      spaceType: 'warehouse',
+      area: 20000,
+      controls: [sensor, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20' }],
+    });
     expect(line(unrecorded.controls, 'automatic-partial-off').status).toBe('to-verify');
-    const half = evaluateSpace(iecc, { spaceType: 'warehouse', area: 20000, controls: [sensor, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '50' }] });
+    const half = evaluateSpace(iecc, {
+      spaceType: 'warehouse',
+      area: 20000,
+      controls: [sensor, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '50' }],
+    });
     expect(line(half.controls, 'automatic-partial-off').status).toBe('met');
   });
 
   it('an open office needs zones of at most 600 ft², each reduced by at least 80 %: one 5,000 ft² zone fails', () => {
-    const oneZone = evaluateSpace(iecc, { spaceType: 'office-open', area: 5000, controls: [sensor, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '80', zoneSize: '5000' }] });
+    const oneZone = evaluateSpace(iecc, {
+      spaceType: 'office-open',
+      area: 5000,
+      controls: [
+        sensor,
+        { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '80', zoneSize: '5000' },
+      ],
+    });
     expect(line(oneZone.controls, 'automatic-partial-off').status).toBe('not-met');
     expect(line(oneZone.controls, 'automatic-partial-off').reason).toContain('more than 600 ft²');
-    const noZone = evaluateSpace(iecc, { spaceType: 'office-open', area: 5000, controls: [sensor, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '80' }] });
+    const noZone = evaluateSpace(iecc, {
+      spaceType: 'office-open',
+      area: 5000,
+      controls: [sensor, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '80' }],
+    });
     expect(line(noZone.controls, 'automatic-partial-off').status).toBe('to-verify');
-    const zoned = evaluateSpace(iecc, { spaceType: 'office-open', area: 5000, controls: [sensor, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '80', zoneSize: '500' }] });
+    const zoned = evaluateSpace(iecc, {
+      spaceType: 'office-open',
+      area: 5000,
+      controls: [
+        sensor,
+        { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '80', zoneSize: '500' },
+      ],
+    });
     expect(line(zoned.controls, 'automatic-partial-off').status).toBe('met');
-    const tooLittle = evaluateSpace(iecc, { spaceType: 'office-open', area: 5000, controls: [sensor, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '50', zoneSize: '500' }] });
+    const tooLittle = evaluateSpace(iecc, {
+      spaceType: 'office-open',
+      area: 5000,
+      controls: [
+        sensor,
+        { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '50', zoneSize: '500' },
+      ],
+    });
     expect(line(tooLittle.controls, 'automatic-partial-off').status).toBe('not-met');
   });
 
   it('a corridor needs a reduction of at least 50 %', () => {
-    const room = evaluateSpace(iecc, { spaceType: 'corridor', area: 900, controls: [{ ...sensor, autoOn: 'full' }, { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '40' }] });
+    const room = evaluateSpace(iecc, {
+      spaceType: 'corridor',
+      area: 900,
+      controls: [
+        { ...sensor, autoOn: 'full' },
+        { strategy: 'automatic-partial-off', provided: true, timeoutMinutes: '20', reductionPercent: '40' },
+      ],
+    });
     expect(line(room.controls, 'automatic-partial-off').status).toBe('not-met');
   });
 });
@@ -165,7 +279,9 @@ describe('the small enclosed space rule', () => {
     expect(line(blank.controls, 'occupant-sensor').status).toBe('to-verify');
     expect(line(blank.controls, 'occupant-sensor').reason).toContain('not recorded');
     expect(line(evaluateSpace(iecc, { spaceType: 'shed', area: 200, enclosed: true }).controls, 'occupant-sensor').status).toBe('not-met');
-    expect(line(evaluateSpace(iecc, { spaceType: 'shed', area: 200, enclosed: false }).controls, 'occupant-sensor').status).toBe('not-required');
+    expect(line(evaluateSpace(iecc, { spaceType: 'shed', area: 200, enclosed: false }).controls, 'occupant-sensor').status).toBe(
+      'not-required',
+    );
   });
 });
 
@@ -176,11 +292,22 @@ describe('"to verify" needs an answer', () => {
     const checked = evaluateSpace(iecc, {
       spaceType: 'shed',
       area: 200,
-      controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'verified-not-required', exceptionNote: 'Open to the hall above the door: not enclosed (drawing A-201)' }],
+      controls: [
+        {
+          strategy: 'occupant-sensor',
+          provided: false,
+          exceptionReason: 'verified-not-required',
+          exceptionNote: 'Open to the hall above the door: not enclosed (drawing A-201)',
+        },
+      ],
     });
     expect(line(checked.controls, 'occupant-sensor').status).toBe('exception-claimed');
     // The same statement cannot set aside a requirement the tables state.
-    const stated = evaluateSpace(iecc, { spaceType: 'storage', area: 200, controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'verified-not-required', exceptionNote: 'x' }] });
+    const stated = evaluateSpace(iecc, {
+      spaceType: 'storage',
+      area: 200,
+      controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'verified-not-required', exceptionNote: 'x' }],
+    });
     expect(line(stated.controls, 'occupant-sensor').status).toBe('not-met');
   });
 });
@@ -192,8 +319,18 @@ describe('sizes the space type names', () => {
       ...ashrae2019,
       spaceTypes: [
         ...ashrae2019.spaceTypes,
-        { ...ashrae2019.spaceTypes[0]!, key: 'office-enclosed-and-le-250-ft2', label: 'Office — Enclosed and ≤ 250 ft²', sourceLabel: 'Office | Enclosed and <= 250 ft2' },
-        { ...ashrae2019.spaceTypes[0]!, key: 'office-enclosed-and-gt-250-ft2', label: 'Office — Enclosed and > 250 ft²', sourceLabel: 'Office | Enclosed and > 250 ft2' },
+        {
+          ...ashrae2019.spaceTypes[0]!,
+          key: 'office-enclosed-and-le-250-ft2',
+          label: 'Office — Enclosed and ≤ 250 ft²',
+          sourceLabel: 'Office | Enclosed and <= 250 ft2',
+        },
+        {
+          ...ashrae2019.spaceTypes[0]!,
+          key: 'office-enclosed-and-gt-250-ft2',
+          label: 'Office — Enclosed and > 250 ft²',
+          sourceLabel: 'Office | Enclosed and > 250 ft2',
+        },
       ],
     };
     const document = (area: number, units: 'ip' | 'si' = 'ip'): EvaluationDocumentInput => ({
@@ -206,7 +343,8 @@ describe('sizes the space type names', () => {
     expect(outcome.problems).toEqual([
       {
         path: 'spaces.0.spaceType',
-        message: '“Office — Enclosed and ≤ 250 ft²” is for spaces at most 250 ft²; this one is 2000 ft². Choose “Office — Enclosed and > 250 ft²”. If this entry groups several rooms, give how many.',
+        message:
+          '“Office — Enclosed and ≤ 250 ft²” is for spaces at most 250 ft²; this one is 2000 ft². Choose “Office — Enclosed and > 250 ft²”. If this entry groups several rooms, give how many.',
       },
     ]);
     // One entry for ten offices of 200 ft² each fits the row.
@@ -216,11 +354,14 @@ describe('sizes the space type names', () => {
     expect(validateDocument(document(25, 'si'), edition).problems).toEqual([
       {
         path: 'spaces.0.spaceType',
-        message: '“Office — Enclosed and ≤ 250 ft²” is for spaces at most 23.2 m²; this one is 25 m². Choose “Office — Enclosed and > 250 ft²”. If this entry groups several rooms, give how many.',
+        message:
+          '“Office — Enclosed and ≤ 250 ft²” is for spaces at most 23.2 m²; this one is 25 m². Choose “Office — Enclosed and > 250 ft²”. If this entry groups several rooms, give how many.',
       },
     ]);
     // Two offices of 60 m² entered as one: each is 60 m², still over 23.2 m², and the message says it is a room's size.
-    expect(validateDocument({ ...document(120, 'si'), spaces: [{ ...document(120, 'si').spaces[0]!, rooms: 2 }] }, edition).problems[0]!.message).toContain('at most 23.2 m²; this one is 60 m² a room.');
+    expect(
+      validateDocument({ ...document(120, 'si'), spaces: [{ ...document(120, 'si').spaces[0]!, rooms: 2 }] }, edition).problems[0]!.message,
+    ).toContain('at most 23.2 m²; this one is 60 m² a room.');
   });
 });
 
@@ -231,14 +372,34 @@ describe('geometry that does not add up', () => {
       edition: 'iecc-2021',
       method: 'space-by-space',
       units: 'ip',
-      spaces: [{ id: 's', name: 'Room', spaceType: 'office-enclosed', area: 2500, length: 100, width: 20, ceilingHeight: 9, windows: [{ width: 4, headHeight: 10, wall: 'south' }] }],
+      spaces: [
+        {
+          id: 's',
+          name: 'Room',
+          spaceType: 'office-enclosed',
+          area: 2500,
+          length: 100,
+          width: 20,
+          ceilingHeight: 9,
+          windows: [{ width: 4, headHeight: 10, wall: 'south' }],
+        },
+      ],
     };
-    expect(validateDocument(document, iecc2021).problems.map((problem) => problem.path).sort()).toEqual(['spaces.0.area', 'spaces.0.windows.0.headHeight']);
+    expect(
+      validateDocument(document, iecc2021)
+        .problems.map((problem) => problem.path)
+        .sort(),
+    ).toEqual(['spaces.0.area', 'spaces.0.windows.0.headHeight']);
   });
 
   it('cautions where the area is much smaller than the rectangle (an L-shaped room)', () => {
     const room = run(
-      { edition: 'iecc-2021', method: 'space-by-space', units: 'ip', spaces: [{ id: 's', name: 'Odd room', spaceType: 'office-enclosed', area: 100, length: 100, width: 20, unlit: true }] },
+      {
+        edition: 'iecc-2021',
+        method: 'space-by-space',
+        units: 'ip',
+        spaces: [{ id: 's', name: 'Odd room', spaceType: 'office-enclosed', area: 100, length: 100, width: 20, unlit: true }],
+      },
       iecc2021,
     );
     expect(room.cautions.some((caution) => caution.includes('less than half of its length × width'))).toBe(true);
@@ -250,7 +411,9 @@ describe('exterior lighting zones', () => {
     const { validateDocument } = await import('../../service/src/compliance/index.js');
     const edition: EditionData = {
       ...iecc2021,
-      exteriorApplications: iecc2021.exteriorApplications.map((application) => (application.isBaseSiteAllowance ? { ...application, unverifiedZones: ['0'] } : application)),
+      exteriorApplications: iecc2021.exteriorApplications.map((application) =>
+        application.isBaseSiteAllowance ? { ...application, unverifiedZones: ['0'] } : application,
+      ),
     };
     const site = (lightingZone: string): EvaluationDocumentInput => ({
       edition: 'iecc-2021',
@@ -259,7 +422,9 @@ describe('exterior lighting zones', () => {
       spaces: [{ id: 'b', name: 'Building', buildingAreaType: 'library', area: 1000 }],
       exterior: { lightingZone, applications: [{ key: 'parking', quantity: 1000, installedWatts: 10 }] },
     });
-    expect(validateDocument(site(''), edition).problems).toEqual([{ path: 'exterior.lightingZone', message: 'Choose the site’s exterior lighting zone.' }]);
+    expect(validateDocument(site(''), edition).problems).toEqual([
+      { path: 'exterior.lightingZone', message: 'Choose the site’s exterior lighting zone.' },
+    ]);
     expect(validateDocument(site('0'), edition).problems.map((problem) => problem.path)).toEqual(['exterior.lightingZone']);
     expect(validateDocument(site('2'), edition).problems).toEqual([]);
   });

@@ -111,7 +111,9 @@ describe('validateDocument', () => {
       { tag: 'T', description: 'track', inputWatts: 100, use: 'general', basis: 'line-voltage-track' },
       { tag: 'L', description: 'low-voltage', inputWatts: 100, use: 'general', basis: 'low-voltage-track' },
     );
-    expect(paths(document)).toEqual(expect.arrayContaining(['luminaireTypes.1.exemptReason', 'luminaireTypes.2.length', 'luminaireTypes.3.limitWatts']));
+    expect(paths(document)).toEqual(
+      expect.arrayContaining(['luminaireTypes.1.exemptReason', 'luminaireTypes.2.length', 'luminaireTypes.3.limitWatts']),
+    );
   });
 
   it('checks that windows fit their wall and that openings have a room to sit in', () => {

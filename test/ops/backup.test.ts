@@ -31,7 +31,10 @@ afterAll(async () => {
 
 /** Every row of every table, as text and sorted, so two snapshots are equal only when the data is. */
 async function snapshot(db: Database): Promise<Record<string, string[]>> {
-  const tables: string[] = await db('information_schema.tables').where({ table_schema: 'public', table_type: 'BASE TABLE' }).orderBy('table_name').pluck('table_name');
+  const tables: string[] = await db('information_schema.tables')
+    .where({ table_schema: 'public', table_type: 'BASE TABLE' })
+    .orderBy('table_name')
+    .pluck('table_name');
   const result: Record<string, string[]> = {};
   for (const table of tables) {
     const rows: { row: string }[] = await db.select(db.raw('to_jsonb(t)::text as row')).from({ t: table });
@@ -66,7 +69,9 @@ describe('backupDatabase', () => {
 
   it('leaves no file behind when pg_dump fails', async () => {
     const into = path.join(folder, 'failed') + path.sep;
-    await expect(backupDatabase({ url: withDatabase(database.url, 'no_such_database'), bin, file: into })).rejects.toThrow(/backup of no_such_database failed, no archive was written: .*no_such_database/);
+    await expect(backupDatabase({ url: withDatabase(database.url, 'no_such_database'), bin, file: into })).rejects.toThrow(
+      /backup of no_such_database failed, no archive was written: .*no_such_database/,
+    );
     expect(readdirSync(into)).toEqual([]);
   });
 });
@@ -82,12 +87,22 @@ describe('restoreDatabase', () => {
     expect(await snapshot(database.db)).toEqual(before);
     const db = database.db;
     expect((await db('projects').where({ id: projectId }).first<{ name: string }>('name')).name).toBe(demoProjectName);
-    const spaces = await db('spaces').where({ project_id: projectId }).orderBy('position').select<{ name: string; level: string; area: string }[]>('name', 'level', 'area');
+    const spaces = await db('spaces')
+      .where({ project_id: projectId })
+      .orderBy('position')
+      .select<{ name: string; level: string; area: string }[]>('name', 'level', 'area');
     expect(spaces).toHaveLength(demoSpaces.length);
     expect(spaces.map((space) => space.name)).toEqual(demoSpaces.map((space) => space.name));
     expect(spaces[0]).toEqual({ name: '101 Entry lobby', level: 'Level 1', area: '600' });
-    expect(await db('space_windows').join('spaces', 'spaces.id', 'space_windows.space_id').where('spaces.name', '102 Main reading room').count<{ count: string }[]>('* as count')).not.toEqual([{ count: '0' }]);
-    expect((await db('luminaire_types').where({ project_id: projectId }).orderBy('tag').pluck('tag')).sort()).toEqual(demoLuminaireTypes.map((type) => type.tag).sort());
+    expect(
+      await db('space_windows')
+        .join('spaces', 'spaces.id', 'space_windows.space_id')
+        .where('spaces.name', '102 Main reading room')
+        .count<{ count: string }[]>('* as count'),
+    ).not.toEqual([{ count: '0' }]);
+    expect((await db('luminaire_types').where({ project_id: projectId }).orderBy('tag').pluck('tag')).sort()).toEqual(
+      demoLuminaireTypes.map((type) => type.tag).sort(),
+    );
     expect((await db('users').pluck('email')).sort()).toEqual(demoUsers.map((user) => user.email).sort());
   });
 
@@ -102,9 +117,13 @@ describe('restoreDatabase', () => {
 
     const forged = path.join(folder, 'forged.dump');
     writeFileSync(forged, Buffer.concat([Buffer.from('PGDMP'), Buffer.alloc(64, 0xff)]));
-    await expect(restoreDatabase({ url: database.url, bin, file: forged })).rejects.toThrow(/is not a pg_dump custom-format archive .*nothing was restored: pg_restore: error/);
+    await expect(restoreDatabase({ url: database.url, bin, file: forged })).rejects.toThrow(
+      /is not a pg_dump custom-format archive .*nothing was restored: pg_restore: error/,
+    );
 
-    await expect(restoreDatabase({ url: database.url, bin, file: path.join(folder, 'missing.dump') })).rejects.toThrow(/does not exist .*nothing was restored/);
+    await expect(restoreDatabase({ url: database.url, bin, file: path.join(folder, 'missing.dump') })).rejects.toThrow(
+      /does not exist .*nothing was restored/,
+    );
     expect(await snapshot(database.db)).toEqual(before);
   });
 
@@ -117,7 +136,9 @@ describe('restoreDatabase', () => {
     const truncated = path.join(folder, 'truncated.dump');
     writeFileSync(truncated, bytes.subarray(0, Math.floor(bytes.length * 0.6)));
 
-    await expect(restoreDatabase({ url: database.url, bin, file: truncated })).rejects.toThrow(/restore of t_\w+ failed and was rolled back, so the database is as it was before: pg_restore: error/);
+    await expect(restoreDatabase({ url: database.url, bin, file: truncated })).rejects.toThrow(
+      /restore of t_\w+ failed and was rolled back, so the database is as it was before: pg_restore: error/,
+    );
     expect(await snapshot(database.db)).toEqual(before);
   });
 });
@@ -138,7 +159,9 @@ describe('npm run backup and npm run restore', () => {
   const run = (args: string[]) => {
     const env = { ...process.env, DATABASE_URL: database.url, INIT_CWD: folder };
     return new Promise<{ status: number | null; stdout: string; stderr: string }>((resolve) => {
-      execFile(process.execPath, [cli, ...args], { env }, (error, stdout, stderr) => resolve({ status: error ? (error.code as number) : 0, stdout, stderr }));
+      execFile(process.execPath, [cli, ...args], { env }, (error, stdout, stderr) =>
+        resolve({ status: error ? (error.code as number) : 0, stdout, stderr }),
+      );
     });
   };
 

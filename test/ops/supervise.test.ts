@@ -61,7 +61,11 @@ function whenRunning(child: ChildProcess): Promise<ChildProcess> {
   });
 }
 
-function superviseChild(plan: string, policy: Partial<SupervisePolicy>, options: { now?: () => number; onLog?: (line: string) => void; onStart?: (run: number) => void } = {}) {
+function superviseChild(
+  plan: string,
+  policy: Partial<SupervisePolicy>,
+  options: { now?: () => number; onLog?: (line: string) => void; onStart?: (run: number) => void } = {},
+) {
   const lines: string[] = [];
   let announceRunning: (child: ChildProcess) => void = () => {};
   const running = new Promise<ChildProcess>((resolve) => {
@@ -89,7 +93,9 @@ function superviseChild(plan: string, policy: Partial<SupervisePolicy>, options:
 
 describe('restartDelay', () => {
   it('doubles from one second up to thirty by default', () => {
-    expect([1, 2, 3, 4, 5, 6, 7].map((crash) => restartDelay(crash, defaultPolicy))).toEqual([1_000, 2_000, 4_000, 8_000, 16_000, 30_000, 30_000]);
+    expect([1, 2, 3, 4, 5, 6, 7].map((crash) => restartDelay(crash, defaultPolicy))).toEqual([
+      1_000, 2_000, 4_000, 8_000, 16_000, 30_000, 30_000,
+    ]);
   });
 });
 
@@ -118,7 +124,9 @@ describe('supervise', () => {
     expect(outcome).toEqual({ reason: 'gave-up', code: 1, signal: null, runs: 5 });
     expect(runsCounted()).toBe(5);
     expect(lines.map((line) => /restarting in (\d+ ms)$/.exec(line)?.[1])).toEqual(['2 ms', '4 ms', '8 ms', '8 ms', undefined]);
-    expect(lines[4]).toMatch(/^the test child exited with code 1 after \d+ m?s; it ended 5 times within 60 s, so it is not restarted again$/);
+    expect(lines[4]).toMatch(
+      /^the test child exited with code 1 after \d+ m?s; it ended 5 times within 60 s, so it is not restarted again$/,
+    );
   });
 
   it('starts the pauses over after a healthy run, and forgets crashes older than the window', async () => {
@@ -149,7 +157,11 @@ describe('supervise', () => {
     const pause = new Promise<void>((resolve) => {
       paused = resolve;
     });
-    const { service, lines } = superviseChild('exit:4,run', { firstDelayMs: 600_000, maxDelayMs: 600_000 }, { onLog: (line) => line.includes('restarting in 600 s') && paused() });
+    const { service, lines } = superviseChild(
+      'exit:4,run',
+      { firstDelayMs: 600_000, maxDelayMs: 600_000 },
+      { onLog: (line) => line.includes('restarting in 600 s') && paused() },
+    );
     await pause;
     expect(await service.stop()).toEqual({ reason: 'stopped', code: null, signal: null, runs: 1 });
     expect(runsCounted()).toBe(1);
@@ -165,7 +177,12 @@ describe('supervise', () => {
   });
 
   it('counts a command that cannot be started as a crash', async () => {
-    const service = supervise({ name: 'nothing', command: path.join(folder, 'no-such-program'), policy: { firstDelayMs: 1, maxCrashes: 2 }, log: () => {} });
+    const service = supervise({
+      name: 'nothing',
+      command: path.join(folder, 'no-such-program'),
+      policy: { firstDelayMs: 1, maxCrashes: 2 },
+      log: () => {},
+    });
     expect(await service.done).toEqual({ reason: 'gave-up', code: null, signal: null, runs: 2 });
   });
 });

@@ -23,7 +23,16 @@ async function columns(db: knex.Knex): Promise<string[]> {
   const rows = (await db('information_schema.columns')
     .where({ table_schema: 'public' })
     .whereNot('table_name', 'like', 'knex_%')
-    .select('table_name', 'column_name', 'data_type', 'udt_name', 'is_nullable', 'column_default', 'character_maximum_length', 'numeric_precision')) as Record<string, unknown>[];
+    .select(
+      'table_name',
+      'column_name',
+      'data_type',
+      'udt_name',
+      'is_nullable',
+      'column_default',
+      'character_maximum_length',
+      'numeric_precision',
+    )) as Record<string, unknown>[];
   return rows.map((row) => Object.values(row).map(String).join(' | ')).sort();
 }
 
@@ -49,7 +58,9 @@ describe('migrations', () => {
       const constraintsFirst = await constraints(db);
       // Spot checks that the lists read what they should: a typed column and a foreign key.
       expect(columnsFirst).toContain('projects | version | integer | int4 | NO | 1 | null | 32');
-      expect(constraintsFirst.some((line) => /^project_members \S+ FOREIGN KEY \(project_id\) REFERENCES projects\(id\)/.test(line))).toBe(true);
+      expect(constraintsFirst.some((line) => /^project_members \S+ FOREIGN KEY \(project_id\) REFERENCES projects\(id\)/.test(line))).toBe(
+        true,
+      );
 
       await db.migrate.rollback(undefined, true);
       expect(await tables(db)).toEqual([]);

@@ -78,7 +78,10 @@ describe('the administrator and the accounts', () => {
     const disabled = await asAdmin().patch(`/api/admin/users/${id}`, { disabled: true }).expect(200);
     expect(disabled.body.disabled).toBe(true);
     expect((await contractor.agent.get('/api/auth/me')).status).toBe(401);
-    const refused = await request(app).post('/api/auth/login').send({ email: 'contractor@alderbay.example', password: inject('demoPassword') }).expect(403);
+    const refused = await request(app)
+      .post('/api/auth/login')
+      .send({ email: 'contractor@alderbay.example', password: inject('demoPassword') })
+      .expect(403);
     expect(refused.body.error.code).toBe('account_disabled');
     // A wrong password still gets the plain refusal, so a guesser learns nothing.
     await request(app).post('/api/auth/login').send({ email: 'contractor@alderbay.example', password: 'not the password' }).expect(401);
@@ -104,6 +107,10 @@ describe('the administrator and the accounts', () => {
     await asAdmin().patch(`/api/admin/users/${reviewer.user.id}`, {}).expect(400);
     await asAdmin().patch('/api/admin/users/not-an-id', { isAdmin: true }).expect(404);
     expect((await reviewer.agent.get('/api/admin/users')).status).toBe(403);
-    await reviewer.agent.post('/api/admin/users').set('X-CSRF-Token', reviewer.csrfToken).send({ email: 'x@alderbay.example', name: 'X' }).expect(403);
+    await reviewer.agent
+      .post('/api/admin/users')
+      .set('X-CSRF-Token', reviewer.csrfToken)
+      .send({ email: 'x@alderbay.example', name: 'X' })
+      .expect(403);
   });
 });

@@ -33,18 +33,31 @@ describe('jurisdiction amendments', () => {
   it('are listed per edition, with their source', async () => {
     const response = await engineer.agent.get('/api/code-editions/iecc-2021/amendments');
     expect(response.status).toBe(200);
-    expect(response.body).toEqual([expect.objectContaining({ key: 'washington-2021', jurisdiction: 'Washington State', parameters: { 'light-reduction': { exemptSingleLuminaireBelowW: '60', exemptLpdBelowWPerFt2: '0.45' } } })]);
+    expect(response.body).toEqual([
+      expect.objectContaining({
+        key: 'washington-2021',
+        jurisdiction: 'Washington State',
+        parameters: { 'light-reduction': { exemptSingleLuminaireBelowW: '60', exemptLpdBelowWPerFt2: '0.45' } },
+      }),
+    ]);
     expect((await engineer.agent.get('/api/code-editions/ashrae-90.1-2019/amendments')).body).toEqual([]);
   });
 
   it('change the values only for a project that chooses them: one 80 W luminaire needs light reduction in Washington, not under the model code', async () => {
-    const created = await write('post', '/api/projects').send({ name: 'Tacoma annex', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
+    const created = await write('post', '/api/projects').send({
+      name: 'Tacoma annex',
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+    });
     const projectId = created.body.id;
     expect(created.body.amendments).toEqual([]);
     await write('post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'P', inputWatts: '80', use: 'general' });
     await write('post', `/api/projects/${projectId}/spaces`).send(office);
     const lightReduction = async () =>
-      (await engineer.agent.get(`/api/projects/${projectId}/results`)).body.interior.spaces[0].controls.find((line: { strategy: string }) => line.strategy === 'light-reduction');
+      (await engineer.agent.get(`/api/projects/${projectId}/results`)).body.interior.spaces[0].controls.find(
+        (line: { strategy: string }) => line.strategy === 'light-reduction',
+      );
 
     // IECC 2021 C405.2.3 model code exception, from memory: one luminaire of less than 100 W.
     expect((await lightReduction()).status).toBe('not-required');
@@ -60,28 +73,56 @@ describe('jurisdiction amendments', () => {
   });
 
   it('are each chosen once, at most 10, in the set-up and in a document', async () => {
-    const twice = await write('post', '/api/projects').send({ name: 'Twice', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', amendments: ['washington-2021', 'washington-2021'] });
+    const twice = await write('post', '/api/projects').send({
+      name: 'Twice',
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+      amendments: ['washington-2021', 'washington-2021'],
+    });
     expect(twice.status).toBe(400);
     expect(twice.body.error.details).toEqual([{ path: 'amendments.1', message: '“washington-2021” is chosen more than once.' }]);
 
-    const created = await write('post', '/api/projects').send({ name: 'Many', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
+    const created = await write('post', '/api/projects').send({
+      name: 'Many',
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+    });
     const eleven = Array.from({ length: 11 }, (_, index) => `amendment-${index}`);
     const tooMany = await write('patch', `/api/projects/${created.body.id}`).send({ version: created.body.version, amendments: eleven });
     expect(tooMany.status).toBe(400);
     expect(tooMany.body.error.details).toEqual([{ path: 'amendments', message: 'At most 10 amendments.' }]);
-    const again = await write('patch', `/api/projects/${created.body.id}`).send({ version: created.body.version, amendments: ['washington-2021', 'washington-2021'] });
+    const again = await write('patch', `/api/projects/${created.body.id}`).send({
+      version: created.body.version,
+      amendments: ['washington-2021', 'washington-2021'],
+    });
     expect(again.body.error.details).toEqual([{ path: 'amendments.1', message: '“washington-2021” is chosen more than once.' }]);
     expect((await engineer.agent.get(`/api/projects/${created.body.id}`)).body.amendments).toEqual([]);
 
-    const document = { edition: 'iecc-2021', method: 'space-by-space', units: 'ip', spaces: [{ id: 's', name: 'Office', spaceType: 'office-enclosed', area: '150' }] };
+    const document = {
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+      spaces: [{ id: 's', name: 'Office', spaceType: 'office-enclosed', area: '150' }],
+    };
     const evaluated = await write('post', '/api/evaluate').send({ ...document, amendments: ['washington-2021', 'washington-2021'] });
     expect(evaluated.status).toBe(400);
     expect(evaluated.body.error.details).toEqual([{ path: 'amendments.1', message: '“washington-2021” is chosen more than once.' }]);
-    expect((await write('post', '/api/evaluate').send({ ...document, amendments: eleven })).body.error.details).toContainEqual({ path: 'amendments', message: 'At most 10 amendments.' });
+    expect((await write('post', '/api/evaluate').send({ ...document, amendments: eleven })).body.error.details).toContainEqual({
+      path: 'amendments',
+      message: 'At most 10 amendments.',
+    });
   });
 
   it('must belong to the project’s edition', async () => {
-    const created = await write('post', '/api/projects').send({ name: 'Elsewhere', edition: 'ashrae-90.1-2019', method: 'space-by-space', units: 'ip', amendments: ['washington-2021'] });
+    const created = await write('post', '/api/projects').send({
+      name: 'Elsewhere',
+      edition: 'ashrae-90.1-2019',
+      method: 'space-by-space',
+      units: 'ip',
+      amendments: ['washington-2021'],
+    });
     expect(created.status).toBe(400);
     expect(created.body.error.details[0].path).toBe('amendments.0');
   });

@@ -37,10 +37,17 @@ const wrongSignIn = (email = 'engineer@alderbay.example') => ({ email, password:
 describe('POST /api/auth/login', () => {
   it('signs in a demo user and sets an httpOnly, SameSite=Lax session cookie with an expiry', async () => {
     const { app } = testApp(database.db, database.url);
-    const response = await request(app).post('/api/auth/login').send({ email: 'engineer@alderbay.example', password: inject('demoPassword') });
+    const response = await request(app)
+      .post('/api/auth/login')
+      .send({ email: 'engineer@alderbay.example', password: inject('demoPassword') });
 
     expect(response.status).toBe(200);
-    expect(response.body.user).toMatchObject({ email: 'engineer@alderbay.example', name: 'Ines Halvorsen', isAdmin: false, roles: ['engineer'] });
+    expect(response.body.user).toMatchObject({
+      email: 'engineer@alderbay.example',
+      name: 'Ines Halvorsen',
+      isAdmin: false,
+      roles: ['engineer'],
+    });
     expect(response.body.user).not.toHaveProperty('password_hash');
     expect(typeof response.body.csrfToken).toBe('string');
     const cookie = sessionCookieOf(response);
@@ -51,13 +58,17 @@ describe('POST /api/auth/login', () => {
 
   it('accepts the e-mail in any letter case', async () => {
     const { app } = testApp(database.db, database.url);
-    const response = await request(app).post('/api/auth/login').send({ email: 'Engineer@AlderBay.example', password: inject('demoPassword') });
+    const response = await request(app)
+      .post('/api/auth/login')
+      .send({ email: 'Engineer@AlderBay.example', password: inject('demoPassword') });
     expect(response.status).toBe(200);
   });
 
   it('gives the same generic error for a wrong password and for an unknown user', async () => {
     const { app } = testApp(database.db, database.url);
-    const wrongPassword = await request(app).post('/api/auth/login').send({ email: 'engineer@alderbay.example', password: 'not-the-password' });
+    const wrongPassword = await request(app)
+      .post('/api/auth/login')
+      .send({ email: 'engineer@alderbay.example', password: 'not-the-password' });
     const unknownUser = await request(app).post('/api/auth/login').send({ email: 'nobody@alderbay.example', password: 'not-the-password' });
 
     expect(wrongPassword.status).toBe(401);
@@ -119,7 +130,9 @@ describe('sign-in limits', () => {
   it('counts by the connecting address, so a client that invents X-Forwarded-For values is still stopped', async () => {
     const { app } = testApp(database.db, database.url, { LOGIN_RATE_LIMIT: '3' });
     // Addresses from the documentation range (RFC 5737, TEST-NET-3).
-    const attempts = [1, 2, 3, 4, 5].map((host) => () => request(app).post('/api/auth/login').set('X-Forwarded-For', `203.0.113.${host}`).send(wrongSignIn()));
+    const attempts = [1, 2, 3, 4, 5].map(
+      (host) => () => request(app).post('/api/auth/login').set('X-Forwarded-For', `203.0.113.${host}`).send(wrongSignIn()),
+    );
     expect(await statusesOf(attempts)).toEqual([401, 401, 401, 429, 429]);
   });
 
@@ -127,7 +140,9 @@ describe('sign-in limits', () => {
     const { app } = testApp(database.db, database.url, { LOGIN_RATE_LIMIT: '2', TRUST_PROXY: 'loopback' });
     const from = (address: string) => () => request(app).post('/api/auth/login').set('X-Forwarded-For', address).send(wrongSignIn());
     // Documentation addresses (RFC 5737, TEST-NET-3).
-    expect(await statusesOf([from('203.0.113.7'), from('203.0.113.7'), from('203.0.113.7'), from('203.0.113.8')])).toEqual([401, 401, 429, 401]);
+    expect(await statusesOf([from('203.0.113.7'), from('203.0.113.7'), from('203.0.113.7'), from('203.0.113.8')])).toEqual([
+      401, 401, 429, 401,
+    ]);
   });
 
   it('stops guesses at one account whatever the letter case, in the one error shape, while others still sign in', async () => {
@@ -168,7 +183,11 @@ describe('sign-in audit', () => {
     const { app } = testApp(database.db, database.url);
     await request(app).post('/api/auth/login').send({ email: 'nobody@alderbay.example', password: 'a-guess-to-find' });
     const row = await database.db('audit_log').where({ action: 'sign-in-failed' }).orderBy('id', 'desc').first();
-    expect(row).toMatchObject({ user_id: null, entity_id: null, detail: { email: 'nobody@alderbay.example', address: '127.0.0.1', reason: 'unknown-email' } });
+    expect(row).toMatchObject({
+      user_id: null,
+      entity_id: null,
+      detail: { email: 'nobody@alderbay.example', address: '127.0.0.1', reason: 'unknown-email' },
+    });
   });
 
   it('records the sign-in and the sign-out against the session', async () => {
@@ -206,7 +225,10 @@ describe('GET /api/auth/me', () => {
   it('refuses an expired token', async () => {
     const { app, config } = testApp(database.db, database.url);
     const user = (await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id'))!;
-    const expired = jwt.sign({ csrf: 'x', exp: Math.floor(Date.now() / 1000) - 60 }, config.JWT_SECRET, { subject: user.id, issuer: 'allowlight' });
+    const expired = jwt.sign({ csrf: 'x', exp: Math.floor(Date.now() / 1000) - 60 }, config.JWT_SECRET, {
+      subject: user.id,
+      issuer: 'allowlight',
+    });
     const response = await request(app).get('/api/auth/me').set('Cookie', `allowlight_session=${expired}`);
     expect(response.status).toBe(401);
   });
@@ -222,7 +244,10 @@ describe('GET /api/auth/me', () => {
     await me();
     expect(await lastSeen()).toEqual(atSignIn);
 
-    await database.db('sessions').where({ id: jti }).update({ last_seen_at: database.db.raw("now() - interval '5 minutes'") });
+    await database
+      .db('sessions')
+      .where({ id: jti })
+      .update({ last_seen_at: database.db.raw("now() - interval '5 minutes'") });
     const stale = await lastSeen();
     await me();
     expect((await lastSeen()).getTime()).toBeGreaterThan(stale.getTime() + 4 * 60_000);
@@ -231,7 +256,10 @@ describe('GET /api/auth/me', () => {
   it('refuses a well-signed token once its session has expired on the server', async () => {
     const { app } = testApp(database.db, database.url);
     const login = await request(app).post('/api/auth/login').send(demoSignIn());
-    await database.db('sessions').where({ id: claimsOf(login).jti }).update({ expires_at: database.db.raw("now() - interval '1 second'") });
+    await database
+      .db('sessions')
+      .where({ id: claimsOf(login).jti })
+      .update({ expires_at: database.db.raw("now() - interval '1 second'") });
     expect((await request(app).get('/api/auth/me').set('Cookie', cookiePair(login))).status).toBe(401);
   });
 
@@ -248,8 +276,15 @@ describe('GET /api/auth/me', () => {
 
   it('answers 401, not a database error, for a well-signed token whose subject is not a UUID', async () => {
     const { app, config } = testApp(database.db, database.url);
-    for (const claims of [{ sub: 'admin', jti: randomUUID() }, { sub: randomUUID(), jti: 'first-session' }]) {
-      const token = jwt.sign({ csrf: 'x', jti: claims.jti }, config.JWT_SECRET, { subject: claims.sub, issuer: 'allowlight', expiresIn: 600 });
+    for (const claims of [
+      { sub: 'admin', jti: randomUUID() },
+      { sub: randomUUID(), jti: 'first-session' },
+    ]) {
+      const token = jwt.sign({ csrf: 'x', jti: claims.jti }, config.JWT_SECRET, {
+        subject: claims.sub,
+        issuer: 'allowlight',
+        expiresIn: 600,
+      });
       const response = await request(app).get('/api/auth/me').set('Cookie', `allowlight_session=${token}`);
       expect(response.status).toBe(401);
       expect(response.body.error.code).toBe('unauthorized');
@@ -259,7 +294,11 @@ describe('GET /api/auth/me', () => {
   it('refuses a token signed with another secret', async () => {
     const { app } = testApp(database.db, database.url);
     const user = (await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id'))!;
-    const forged = jwt.sign({ csrf: 'x' }, 'another-secret-that-is-long-enough-to-sign', { subject: user.id, issuer: 'allowlight', expiresIn: 600 });
+    const forged = jwt.sign({ csrf: 'x' }, 'another-secret-that-is-long-enough-to-sign', {
+      subject: user.id,
+      issuer: 'allowlight',
+      expiresIn: 600,
+    });
     const response = await request(app).get('/api/auth/me').set('Cookie', `allowlight_session=${forged}`);
     expect(response.status).toBe(401);
   });
@@ -292,7 +331,10 @@ describe('POST /api/auth/logout', () => {
     const replayed = await request(app).get('/api/projects').set('Cookie', kept);
     expect(replayed.status).toBe(401);
     expect(replayed.body.error.code).toBe('unauthorized');
-    const row = (await database.db('sessions').where({ id: claimsOf(login).jti }).first('revoked_at'))!;
+    const row = (await database
+      .db('sessions')
+      .where({ id: claimsOf(login).jti })
+      .first('revoked_at'))!;
     expect(row.revoked_at).toBeInstanceOf(Date);
   });
 });

@@ -22,8 +22,11 @@ beforeAll(async () => {
   database = await freshDatabase();
   ({ app } = testApp(database.db, database.url));
   engineer = await signIn(app, 'engineer@alderbay.example');
-  const send = (method: 'post' | 'patch', url: string, body: object) => engineer.agent[method](url).set('X-CSRF-Token', engineer.csrfToken).send(body);
-  projectId = (await send('post', '/api/projects', { name: 'Generated', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2 })).body.id;
+  const send = (method: 'post' | 'patch', url: string, body: object) =>
+    engineer.agent[method](url).set('X-CSRF-Token', engineer.csrfToken).send(body);
+  projectId = (
+    await send('post', '/api/projects', { name: 'Generated', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2 })
+  ).body.id;
   typeId = (await send('post', `/api/projects/${projectId}/luminaire-types`, luminaireType)).body.id;
   spaceId = (await send('post', `/api/projects/${projectId}/spaces`, space)).body.id;
   exteriorId = (await send('post', `/api/projects/${projectId}/exterior-applications`, exterior)).body.id;
@@ -51,18 +54,52 @@ const space = {
   skylights: [],
 };
 const exterior = { key: 'parking-lots-and-drives', description: 'Lot', quantity: '4000', installedWatts: '160', controls: [] };
-const setup = { name: 'Generated', jurisdiction: 'Alder Bay', latitude: '47.04', longitude: '-122.9', timeZone: 'America/Los_Angeles', method: 'space-by-space', units: 'ip', lightingZone: 2 };
+const setup = {
+  name: 'Generated',
+  jurisdiction: 'Alder Bay',
+  latitude: '47.04',
+  longitude: '-122.9',
+  timeZone: 'America/Los_Angeles',
+  method: 'space-by-space',
+  units: 'ip',
+  lightingZone: 2,
+};
 
 type Kind = 'number' | 'text' | 'key' | 'enum' | 'boolean' | 'list' | 'version' | 'zone' | 'coordinate';
 
 /** Values that no field of the kind accepts. */
 const badValues: Record<Kind, fc.Arbitrary<unknown>> = {
-  number: fc.constantFrom<unknown>('1e100000000', '1e-100000000', '-1', 'twelve', '', '0x10', '1,000', {}, [], true, null, '9'.repeat(60), 'Infinity', '\u0000', 2 ** 60, -0.5),
+  number: fc.constantFrom<unknown>(
+    '1e100000000',
+    '1e-100000000',
+    '-1',
+    'twelve',
+    '',
+    '0x10',
+    '1,000',
+    {},
+    [],
+    true,
+    null,
+    '9'.repeat(60),
+    'Infinity',
+    '\u0000',
+    2 ** 60,
+    -0.5,
+  ),
   text: fc.constantFrom<unknown>(12, {}, [], true, 'x\u0000y', 'a\ud800b', '\udc00', 'x'.repeat(5000), 'line\u0007bell'),
   key: fc.constantFrom<unknown>(12, {}, [], '', '   ', 'k\u0000', 'k'.repeat(5000)),
   enum: fc.constantFrom<unknown>('nope', 3, {}, null, ''),
   boolean: fc.constantFrom<unknown>('yes', 1, {}, null, 'true'),
-  list: fc.constantFrom<unknown>({}, 'x', 3, [null], [{}], [1, 2], Array.from({ length: 600 }, () => ({}))),
+  list: fc.constantFrom<unknown>(
+    {},
+    'x',
+    3,
+    [null],
+    [{}],
+    [1, 2],
+    Array.from({ length: 600 }, () => ({})),
+  ),
   version: fc.constantFrom<unknown>(0, -1, 2 ** 40, 1.5, '1', null, {}, 'latest'),
   // The set-up's lighting zone and coordinates may be cleared (null), so null is not among their bad values.
   zone: fc.constantFrom<unknown>(5, -1, 1.5, '2', {}, 'two', 2 ** 40),
@@ -105,27 +142,114 @@ const spaceFields: Record<string, Kind> = {
   'windows.0.wall': 'enum',
   'windows.0.offset': 'number',
 };
-const typeFields: Record<string, Kind> = { tag: 'key', description: 'text', inputWatts: 'number', use: 'enum', basis: 'enum', wattageSource: 'text', length: 'number', limitWatts: 'number' };
-const exteriorFields: Record<string, Kind> = { key: 'key', description: 'text', quantity: 'number', installedWatts: 'number', controls: 'list' };
+const typeFields: Record<string, Kind> = {
+  tag: 'key',
+  description: 'text',
+  inputWatts: 'number',
+  use: 'enum',
+  basis: 'enum',
+  wattageSource: 'text',
+  length: 'number',
+  limitWatts: 'number',
+};
+const exteriorFields: Record<string, Kind> = {
+  key: 'key',
+  description: 'text',
+  quantity: 'number',
+  installedWatts: 'number',
+  controls: 'list',
+};
 
 const routes: Route[] = [
-  { name: 'create space', method: 'post', url: () => `/api/projects/${projectId}/spaces`, body: space, fields: spaceFields, required: ['name', 'area'] },
-  { name: 'replace space', method: 'put', url: () => `/api/projects/${projectId}/spaces/${spaceId}`, body: { ...space, version: 1 }, fields: { ...spaceFields, version: 'version' }, required: ['name', 'area', 'version'] },
-  { name: 'patch space', method: 'patch', url: () => `/api/projects/${projectId}/spaces/${spaceId}`, body: { ...space, version: 1 }, fields: { ...spaceFields, version: 'version' }, required: ['version'] },
-  { name: 'import spaces', method: 'post', url: () => `/api/projects/${projectId}/spaces/bulk`, body: { spaces: [space, { ...space, name: 'Office 2' }] }, fields: prefixed('spaces.1.', spaceFields), required: ['spaces'] },
-  { name: 'create type', method: 'post', url: () => `/api/projects/${projectId}/luminaire-types`, body: { ...luminaireType, tag: 'B' }, fields: typeFields, required: ['tag', 'inputWatts', 'use'] },
-  { name: 'replace type', method: 'put', url: () => `/api/projects/${projectId}/luminaire-types/${typeId}`, body: { ...luminaireType, version: 1 }, fields: { ...typeFields, version: 'version' }, required: ['tag', 'inputWatts', 'use', 'version'] },
-  { name: 'create exterior', method: 'post', url: () => `/api/projects/${projectId}/exterior-applications`, body: { ...exterior, key: 'walkways-less-than-10-feet-wide' }, fields: exteriorFields, required: ['key', 'quantity', 'installedWatts'] },
-  { name: 'replace exterior', method: 'put', url: () => `/api/projects/${projectId}/exterior-applications/${exteriorId}`, body: { ...exterior, version: 1 }, fields: { ...exteriorFields, version: 'version' }, required: ['key', 'quantity', 'installedWatts', 'version'] },
+  {
+    name: 'create space',
+    method: 'post',
+    url: () => `/api/projects/${projectId}/spaces`,
+    body: space,
+    fields: spaceFields,
+    required: ['name', 'area'],
+  },
+  {
+    name: 'replace space',
+    method: 'put',
+    url: () => `/api/projects/${projectId}/spaces/${spaceId}`,
+    body: { ...space, version: 1 },
+    fields: { ...spaceFields, version: 'version' },
+    required: ['name', 'area', 'version'],
+  },
+  {
+    name: 'patch space',
+    method: 'patch',
+    url: () => `/api/projects/${projectId}/spaces/${spaceId}`,
+    body: { ...space, version: 1 },
+    fields: { ...spaceFields, version: 'version' },
+    required: ['version'],
+  },
+  {
+    name: 'import spaces',
+    method: 'post',
+    url: () => `/api/projects/${projectId}/spaces/bulk`,
+    body: { spaces: [space, { ...space, name: 'Office 2' }] },
+    fields: prefixed('spaces.1.', spaceFields),
+    required: ['spaces'],
+  },
+  {
+    name: 'create type',
+    method: 'post',
+    url: () => `/api/projects/${projectId}/luminaire-types`,
+    body: { ...luminaireType, tag: 'B' },
+    fields: typeFields,
+    required: ['tag', 'inputWatts', 'use'],
+  },
+  {
+    name: 'replace type',
+    method: 'put',
+    url: () => `/api/projects/${projectId}/luminaire-types/${typeId}`,
+    body: { ...luminaireType, version: 1 },
+    fields: { ...typeFields, version: 'version' },
+    required: ['tag', 'inputWatts', 'use', 'version'],
+  },
+  {
+    name: 'create exterior',
+    method: 'post',
+    url: () => `/api/projects/${projectId}/exterior-applications`,
+    body: { ...exterior, key: 'walkways-less-than-10-feet-wide' },
+    fields: exteriorFields,
+    required: ['key', 'quantity', 'installedWatts'],
+  },
+  {
+    name: 'replace exterior',
+    method: 'put',
+    url: () => `/api/projects/${projectId}/exterior-applications/${exteriorId}`,
+    body: { ...exterior, version: 1 },
+    fields: { ...exteriorFields, version: 'version' },
+    required: ['key', 'quantity', 'installedWatts', 'version'],
+  },
   {
     name: 'set-up',
     method: 'patch',
     url: () => `/api/projects/${projectId}`,
     body: { ...setup, version: 1 },
-    fields: { name: 'text', method: 'enum', units: 'enum', latitude: 'coordinate', longitude: 'coordinate', version: 'version', lightingZone: 'zone', timeZone: 'text' },
+    fields: {
+      name: 'text',
+      method: 'enum',
+      units: 'enum',
+      latitude: 'coordinate',
+      longitude: 'coordinate',
+      version: 'version',
+      lightingZone: 'zone',
+      timeZone: 'text',
+    },
     required: ['version'],
   },
-  { name: 'team', method: 'post', url: () => `/api/projects/${projectId}/members`, body: { email: 'reviewer@alderbay.example', role: 'reviewer' }, fields: { email: 'key', role: 'enum' }, required: ['email', 'role'] },
+  {
+    name: 'team',
+    method: 'post',
+    url: () => `/api/projects/${projectId}/members`,
+    body: { email: 'reviewer@alderbay.example', role: 'reviewer' },
+    fields: { email: 'key', role: 'enum' },
+    required: ['email', 'role'],
+  },
 ];
 
 function prefixed(prefix: string, fields: Record<string, Kind>): Record<string, Kind> {
@@ -145,18 +269,51 @@ function withValue(body: Record<string, unknown>, path: string, value: unknown, 
 
 const mutation = fc.constantFrom(...routes).chain((route) =>
   fc.oneof(
-    { weight: 8, arbitrary: fc.constantFrom(...Object.keys(route.fields)).chain((path) => badValues[route.fields[path]!].map((value) => ({ route, body: withValue(route.body, path, value, false) as unknown, what: `${path} = ${JSON.stringify(value)?.slice(0, 40)}` }))) },
-    { weight: 1, arbitrary: fc.constantFrom(...route.required).map((path) => ({ route, body: withValue(route.body, path, undefined, true) as unknown, what: `without ${path}` })) },
-    { weight: 1, arbitrary: fc.constantFrom<unknown>([], 'text', 42, null, [route.body]).map((body) => ({ route, body, what: `body ${JSON.stringify(body).slice(0, 40)}` })) },
+    {
+      weight: 8,
+      arbitrary: fc.constantFrom(...Object.keys(route.fields)).chain((path) =>
+        badValues[route.fields[path]!].map((value) => ({
+          route,
+          body: withValue(route.body, path, value, false) as unknown,
+          what: `${path} = ${JSON.stringify(value)?.slice(0, 40)}`,
+        })),
+      ),
+    },
+    {
+      weight: 1,
+      arbitrary: fc
+        .constantFrom(...route.required)
+        .map((path) => ({ route, body: withValue(route.body, path, undefined, true) as unknown, what: `without ${path}` })),
+    },
+    {
+      weight: 1,
+      arbitrary: fc
+        .constantFrom<unknown>([], 'text', 42, null, [route.body])
+        .map((body) => ({ route, body, what: `body ${JSON.stringify(body).slice(0, 40)}` })),
+    },
   ),
 );
 
 /** Everything the routes could change, as one digest per table. */
 async function snapshot(): Promise<Record<string, string>> {
-  const tables = ['projects', 'project_members', 'spaces', 'space_luminaires', 'space_controls', 'space_windows', 'space_skylights', 'luminaire_types', 'exterior_applications', 'audit_log', 'idempotency_keys'];
+  const tables = [
+    'projects',
+    'project_members',
+    'spaces',
+    'space_luminaires',
+    'space_controls',
+    'space_windows',
+    'space_skylights',
+    'luminaire_types',
+    'exterior_applications',
+    'audit_log',
+    'idempotency_keys',
+  ];
   const digests: Record<string, string> = {};
   for (const table of tables) {
-    const { digest } = await database.db.first(database.db.raw(`coalesce(md5(string_agg(t::text, '|' order by t::text)), '') as digest`)).from(database.db.raw('?? as t', [table]));
+    const { digest } = await database.db
+      .first(database.db.raw(`coalesce(md5(string_agg(t::text, '|' order by t::text)), '') as digest`))
+      .from(database.db.raw('?? as t', [table]));
     digests[table] = digest;
   }
   return digests;
@@ -168,11 +325,16 @@ describe('generated bad requests to the design write routes', () => {
     const statuses = new Map<number, number>();
     await fc.assert(
       fc.asyncProperty(mutation, async ({ route, body, what }) => {
-        const response = await engineer.agent[route.method](route.url()).set('X-CSRF-Token', engineer.csrfToken).set('Content-Type', 'application/json').send(JSON.stringify(body));
+        const response = await engineer.agent[route.method](route.url())
+          .set('X-CSRF-Token', engineer.csrfToken)
+          .set('Content-Type', 'application/json')
+          .send(JSON.stringify(body));
         statuses.set(response.status, (statuses.get(response.status) ?? 0) + 1);
         expect(response.status, `${route.name}: ${what}`).toBeGreaterThanOrEqual(400);
         expect(response.status, `${route.name}: ${what}`).toBeLessThan(500);
-        expect(response.body.error, `${route.name}: ${what}`).toEqual(expect.objectContaining({ code: expect.any(String), message: expect.any(String) }));
+        expect(response.body.error, `${route.name}: ${what}`).toEqual(
+          expect.objectContaining({ code: expect.any(String), message: expect.any(String) }),
+        );
       }),
       { seed, numRuns: 3000 },
     );
@@ -185,7 +347,9 @@ describe('generated bad requests to the design write routes', () => {
     const targets = [`spaces/${spaceId}`, `luminaire-types/${typeId}`, `exterior-applications/${exteriorId}`];
     for (const target of targets) {
       for (const version of ['', 'abc', '0', '-1', '1.5', '1e400', String(2 ** 40), '1&version=1']) {
-        const response = await engineer.agent.delete(`/api/projects/${projectId}/${target}?version=${version}`).set('X-CSRF-Token', engineer.csrfToken);
+        const response = await engineer.agent
+          .delete(`/api/projects/${projectId}/${target}?version=${version}`)
+          .set('X-CSRF-Token', engineer.csrfToken);
         expect(response.status, `${target} ?version=${version}`).toBeGreaterThanOrEqual(400);
         expect(response.status, `${target} ?version=${version}`).toBeLessThan(500);
       }
@@ -196,7 +360,14 @@ describe('generated bad requests to the design write routes', () => {
 
 describe('generated bad documents to POST /api/evaluate', () => {
   it('are each answered 400 with the path of a problem, never 500', async () => {
-    const document = { edition: 'iecc-2021', method: 'space-by-space', units: 'ip', luminaireTypes: [luminaireType], spaces: [{ ...space, id: 's1' }], exterior: { lightingZone: 2, applications: [exterior] } };
+    const document = {
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+      luminaireTypes: [luminaireType],
+      spaces: [{ ...space, id: 's1' }],
+      exterior: { lightingZone: 2, applications: [exterior] },
+    };
     // The document has no descriptions or wattage sources: those are kept by the design records only.
     const { wattageSource: _source, ...documentTypeFields } = typeFields;
     const { description: _description, ...documentExteriorFields } = exteriorFields;
@@ -208,11 +379,17 @@ describe('generated bad documents to POST /api/evaluate', () => {
       units: 'enum',
     };
     await fc.assert(
-      fc.asyncProperty(fc.constantFrom(...Object.keys(fields)).chain((path) => badValues[fields[path]!].map((value) => ({ path, value }))), async ({ path, value }) => {
-        const response = await engineer.agent.post('/api/evaluate').set('X-CSRF-Token', engineer.csrfToken).send(withValue(document, path, value, false));
-        expect(response.status, `${path} = ${JSON.stringify(value)?.slice(0, 40)}`).toBe(400);
-        expect(response.body.error.details.length).toBeGreaterThan(0);
-      }),
+      fc.asyncProperty(
+        fc.constantFrom(...Object.keys(fields)).chain((path) => badValues[fields[path]!].map((value) => ({ path, value }))),
+        async ({ path, value }) => {
+          const response = await engineer.agent
+            .post('/api/evaluate')
+            .set('X-CSRF-Token', engineer.csrfToken)
+            .send(withValue(document, path, value, false));
+          expect(response.status, `${path} = ${JSON.stringify(value)?.slice(0, 40)}`).toBe(400);
+          expect(response.body.error.details.length).toBeGreaterThan(0);
+        },
+      ),
       { seed, numRuns: 500 },
     );
   }, 120_000);

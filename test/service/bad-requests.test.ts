@@ -16,9 +16,17 @@ beforeAll(async () => {
   database = await freshDatabase();
   ({ app } = testApp(database.db, database.url));
   engineer = await signIn(app, 'engineer@alderbay.example');
-  const created = await write('post', '/api/projects').send({ name: 'Bad requests', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2 });
+  const created = await write('post', '/api/projects').send({
+    name: 'Bad requests',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    lightingZone: 2,
+  });
   projectId = created.body.id;
-  expect((await write('post', `/api/projects/${projectId}/spaces`).send({ name: 'Lobby', spaceType: 'lobby-otherwise', area: '400' })).status).toBe(201);
+  expect(
+    (await write('post', `/api/projects/${projectId}/spaces`).send({ name: 'Lobby', spaceType: 'lobby-otherwise', area: '400' })).status,
+  ).toBe(201);
 });
 
 afterAll(async () => {
@@ -46,7 +54,12 @@ describe('child ids that are not UUIDs', () => {
       write('post', `${base}/spaces/12/restore`),
       write('put', `${base}/luminaire-types/x`).send({ tag: 'A', inputWatts: '1', use: 'general', version: 1 }),
       write('delete', `${base}/luminaire-types/x?version=1`),
-      write('put', `${base}/exterior-applications/x`).send({ key: 'parking-lots-and-drives', quantity: '1', installedWatts: '1', version: 1 }),
+      write('put', `${base}/exterior-applications/x`).send({
+        key: 'parking-lots-and-drives',
+        quantity: '1',
+        installedWatts: '1',
+        version: 1,
+      }),
       write('delete', `${base}/exterior-applications/x?version=1`),
       write('post', `${base}/additional-allowances/x/restore`),
       write('delete', `${base}/members/not-a-user`),
@@ -57,14 +70,22 @@ describe('child ids that are not UUIDs', () => {
 
 describe('bodies the parser cannot read', () => {
   it('answers a body in ISO-8859-1 with 415', async () => {
-    const response = await write('post', `/api/projects/${projectId}/spaces`).set('Content-Type', 'application/json; charset=iso-8859-1').send('{"name":"Caf\u00e9"}');
+    const response = await write('post', `/api/projects/${projectId}/spaces`)
+      .set('Content-Type', 'application/json; charset=iso-8859-1')
+      .send('{"name":"Caf\u00e9"}');
     expectErrorShape(response, 415);
   });
 
   it('answers a broken gzip body with 400 and an unknown encoding with 415', async () => {
-    const broken = await write('post', `/api/projects/${projectId}/spaces`).set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').send('this is not gzip');
+    const broken = await write('post', `/api/projects/${projectId}/spaces`)
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'gzip')
+      .send('this is not gzip');
     expectErrorShape(broken, 400);
-    const compress = await write('post', `/api/projects/${projectId}/spaces`).set('Content-Type', 'application/json').set('Content-Encoding', 'compress').send('{}');
+    const compress = await write('post', `/api/projects/${projectId}/spaces`)
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'compress')
+      .send('{}');
     expectErrorShape(compress, 415);
   });
 
@@ -83,34 +104,61 @@ describe('bodies the parser cannot read', () => {
 
 describe('writers racing each other', () => {
   it('ten parallel creates of one luminaire tag: one 201, nine 409', async () => {
-    const responses = await Promise.all(Array.from({ length: 10 }, () => write('post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'R1', inputWatts: '20', use: 'general' })));
+    const responses = await Promise.all(
+      Array.from({ length: 10 }, () =>
+        write('post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'R1', inputWatts: '20', use: 'general' }),
+      ),
+    );
     const statuses = responses.map((response) => response.status).sort();
     expect(statuses).toEqual([201, ...Array(9).fill(409)]);
     for (const response of responses.filter((candidate) => candidate.status === 409)) expect(response.body.error.message).toContain('R1');
   });
 
   it('ten parallel posts of one exterior application: one 201, nine 409, and the project still evaluates', async () => {
-    const post = () => write('post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'parking-lots-and-drives', quantity: '1000', installedWatts: '40' });
+    const post = () =>
+      write('post', `/api/projects/${projectId}/exterior-applications`).send({
+        key: 'parking-lots-and-drives',
+        quantity: '1000',
+        installedWatts: '40',
+      });
     const statuses = (await Promise.all(Array.from({ length: 10 }, post))).map((response) => response.status).sort();
     expect(statuses).toEqual([201, ...Array(9).fill(409)]);
     expect((await engineer.agent.get(`/api/projects/${projectId}/results`)).status).toBe(200);
   });
 
   it('refuses an exterior application the edition does not have, and the base site allowance', async () => {
-    const unknown = await write('post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'moon-base-landing-pad', quantity: '1', installedWatts: '1' });
+    const unknown = await write('post', `/api/projects/${projectId}/exterior-applications`).send({
+      key: 'moon-base-landing-pad',
+      quantity: '1',
+      installedWatts: '1',
+    });
     expectErrorShape(unknown, 400);
     expect(unknown.body.error.details[0].path).toBe('key');
     expect(JSON.stringify(unknown.body)).not.toContain('moon-base-landing-pad');
-    const base = await write('post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'base-site-allowance', quantity: '1', installedWatts: '1' });
+    const base = await write('post', `/api/projects/${projectId}/exterior-applications`).send({
+      key: 'base-site-allowance',
+      quantity: '1',
+      installedWatts: '1',
+    });
     expectErrorShape(base, 400);
   });
 
   it('keeps space positions unique and in order under parallel creates and imports', async () => {
-    const single = (index: number) => write('post', `/api/projects/${projectId}/spaces`).send({ name: `Parallel ${index}`, spaceType: 'office-enclosed', area: '100' });
-    const bulk = (index: number) => write('post', `/api/projects/${projectId}/spaces/bulk`).send({ spaces: [1, 2, 3].map((n) => ({ name: `Batch ${index}.${n}`, spaceType: 'office-enclosed', area: '100' })) });
+    const single = (index: number) =>
+      write('post', `/api/projects/${projectId}/spaces`).send({ name: `Parallel ${index}`, spaceType: 'office-enclosed', area: '100' });
+    const bulk = (index: number) =>
+      write('post', `/api/projects/${projectId}/spaces/bulk`).send({
+        spaces: [1, 2, 3].map((n) => ({ name: `Batch ${index}.${n}`, spaceType: 'office-enclosed', area: '100' })),
+      });
     const responses = await Promise.all([single(1), bulk(1), single(2), bulk(2), single(3), bulk(3)]);
     expect(responses.map((response) => response.status)).toEqual(Array(6).fill(201));
-    const positions = (await database.db('spaces').where({ project_id: projectId }).orderBy('position').select<{ position: number; name: string }[]>('position', 'name')).map((row) => row.position);
+    const positions = (
+      await database
+        .db('spaces')
+        .where({ project_id: projectId })
+        .orderBy('position')
+        .select<{ position: number; name: string }[]>('position', 'name')
+    ).map((row) => row.position);
     expect(new Set(positions).size).toBe(positions.length);
     // Each import's three rows sit together, in the order they were sent.
     const names = (await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.map((row: { name: string }) => row.name);
@@ -152,14 +200,19 @@ describe('numbers in a JSON body', () => {
       .set('Content-Type', 'application/json')
       .send('{"name": "Big count", "spaceType": "office-enclosed", "area": 100, "luminaires": [{"tag": "R1", "count": 9007199254740993}]}');
     expect(count.status).toBe(400);
-    expect(count.body.error.details[0]).toMatchObject({ path: 'luminaires.0.count', message: expect.stringContaining('whole number from 0 to 1,000,000') });
+    expect(count.body.error.details[0]).toMatchObject({
+      path: 'luminaires.0.count',
+      message: expect.stringContaining('whole number from 0 to 1,000,000'),
+    });
   });
 
   it('still refuses a body that is not JSON, and one with a key twice', async () => {
     const broken = await write('post', `/api/projects/${projectId}/spaces`).set('Content-Type', 'application/json').send('{"name": ');
     expectErrorShape(broken, 400);
     expect(broken.body.error.code).toBe('malformed_json');
-    const twice = await write('post', `/api/projects/${projectId}/spaces`).set('Content-Type', 'application/json').send('{"name": "A", "name": "B", "spaceType": "office-enclosed", "area": 10}');
+    const twice = await write('post', `/api/projects/${projectId}/spaces`)
+      .set('Content-Type', 'application/json')
+      .send('{"name": "A", "name": "B", "spaceType": "office-enclosed", "area": 10}');
     expectErrorShape(twice, 400);
   });
 });

@@ -13,7 +13,13 @@ beforeAll(async () => {
   database = await freshDatabase();
   ({ app } = testApp(database.db, database.url));
   engineer = await signIn(app, 'engineer@alderbay.example');
-  const created = await write('post', '/api/projects').send({ name: 'Bounds check', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2 });
+  const created = await write('post', '/api/projects').send({
+    name: 'Bounds check',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    lightingZone: 2,
+  });
   projectId = created.body.id;
   await write('post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'A', inputWatts: '30', use: 'general' });
 });
@@ -33,7 +39,10 @@ function documentWith(change: (document: { spaces: Record<string, unknown>[]; lu
     method: 'space-by-space',
     units: 'ip',
     luminaireTypes: [{ tag: 'A', inputWatts: '30', use: 'general' }],
-    spaces: [{ id: 's1', name: 'Office', spaceType: 'office-enclosed', area: '200', luminaires: [{ tag: 'A', count: 4 }] }] as Record<string, unknown>[],
+    spaces: [{ id: 's1', name: 'Office', spaceType: 'office-enclosed', area: '200', luminaires: [{ tag: 'A', count: 4 }] }] as Record<
+      string,
+      unknown
+    >[],
   };
   change(document);
   return document;
@@ -43,9 +52,15 @@ const space = { name: 'Office', level: 'Level 1', spaceType: 'office-enclosed', 
 
 describe('numbers are bounded before any arithmetic', () => {
   it('answers a huge exponent in POST /api/evaluate at once with a 400 naming the field and its range', async () => {
-    const response = await engineer.agent.post('/api/evaluate').set('X-CSRF-Token', engineer.csrfToken).send(documentWith((d) => (d.spaces[0]!['area'] = '1e100000000')));
+    const response = await engineer.agent
+      .post('/api/evaluate')
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send(documentWith((d) => (d.spaces[0]!['area'] = '1e100000000')));
     expect(response.status).toBe(400);
-    expect(response.body.error.details).toContainEqual({ path: 'spaces.0.area', message: 'Out of range. Enter a number greater than 0 and at most 5,000,000.' });
+    expect(response.body.error.details).toContainEqual({
+      path: 'spaces.0.area',
+      message: 'Out of range. Enter a number greater than 0 and at most 5,000,000.',
+    });
     // The answer is small because nothing was expanded (before the bounds, it was a 60 MB body or a crash).
     expect(JSON.stringify(response.body).length).toBeLessThan(2000);
   });
@@ -59,7 +74,12 @@ describe('numbers are bounded before any arithmetic', () => {
   });
 
   it('accepts numbers in exponent form inside the range, and normalises them', async () => {
-    const response = await write('post', `/api/projects/${projectId}/spaces`).send({ ...space, name: 'Exponent form', area: '2.5e2', ceilingHeight: 9 });
+    const response = await write('post', `/api/projects/${projectId}/spaces`).send({
+      ...space,
+      name: 'Exponent form',
+      area: '2.5e2',
+      ceilingHeight: 9,
+    });
     expect(response.status).toBe(201);
     expect(response.body.area).toBe('250');
   });
@@ -72,7 +92,11 @@ describe('numbers are bounded before any arithmetic', () => {
       [{ luminaires: [{ tag: 'A', count: 2 ** 31 }] }, 'luminaires.0.count', 'a whole number from 0 to 1,000,000'],
       [{ luminaires: [{ tag: 'A', count: '1e50' }] }, 'luminaires.0.count', 'a whole number from 0 to 1,000,000'],
       [{ luminaires: [{ tag: 'A', count: '2.5' }] }, 'luminaires.0.count', 'Must be a whole number'],
-      [{ controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '1441' }] }, 'controls.0.timeoutMinutes', 'from 0 to 1,440'],
+      [
+        { controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '1441' }] },
+        'controls.0.timeoutMinutes',
+        'from 0 to 1,440',
+      ],
       [{ area: '1.000000000000000000001' }, 'area', 'at most 20 decimal places'],
     ];
     for (const [fields, path, words] of cases) {
@@ -87,7 +111,11 @@ describe('numbers are bounded before any arithmetic', () => {
     const watts = await write('post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'W', inputWatts: '1e7', use: 'general' });
     expect(watts.status).toBe(400);
     expect(watts.body.error.details[0]).toMatchObject({ path: 'inputWatts', message: expect.stringContaining('from 0 to 100,000') });
-    const quantity = await write('post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'parking-lots-and-drives', quantity: '1e12', installedWatts: '10' });
+    const quantity = await write('post', `/api/projects/${projectId}/exterior-applications`).send({
+      key: 'parking-lots-and-drives',
+      quantity: '1e12',
+      installedWatts: '10',
+    });
     expect(quantity.status).toBe(400);
     const spaces = (await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body;
     const version = await write('put', `/api/projects/${projectId}/spaces/${spaces[0].id}`).send({ ...space, version: 2 ** 40 });
@@ -106,16 +134,26 @@ describe('text is bounded and storable', () => {
       [{ level: 'x'.repeat(101) }, 'level'],
       [{ name: 'n'.repeat(201) }, 'name'],
       [{ controls: [{ strategy: 'occupant-sensor', provided: true, device: 'd'.repeat(201) }] }, 'controls.0.device'],
-      [{ controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'other', exceptionNote: 'n'.repeat(1001) }] }, 'controls.0.exceptionNote'],
+      [
+        { controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'other', exceptionNote: 'n'.repeat(1001) }] },
+        'controls.0.exceptionNote',
+      ],
     ];
     for (const [fields, path] of cases) {
       const response = await write('post', `/api/projects/${projectId}/spaces`).send({ ...space, ...fields });
       expect(response.status, path).toBe(400);
-      expect(response.body.error.details.map((detail: { path: string }) => detail.path), path).toContain(path);
+      expect(
+        response.body.error.details.map((detail: { path: string }) => detail.path),
+        path,
+      ).toContain(path);
     }
     const project = await write('patch', `/api/projects/${projectId}`).send({ version: 1, jurisdiction: 'Alder Bay\u0000' });
     expect(project.status).toBe(400);
-    const tag = await write('post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'T'.repeat(41), inputWatts: '1', use: 'general' });
+    const tag = await write('post', `/api/projects/${projectId}/luminaire-types`).send({
+      tag: 'T'.repeat(41),
+      inputWatts: '1',
+      use: 'general',
+    });
     expect(tag.status).toBe(400);
   });
 
@@ -133,7 +171,12 @@ describe('text is bounded and storable', () => {
 describe('limits on work', () => {
   it(`refuses a document of more than ${documentLimits.spaces.toLocaleString('en-US')} spaces, and lists at most ${documentLimits.problemsListed} problems`, async () => {
     const many = documentWith((d) => {
-      d.spaces = Array.from({ length: documentLimits.spaces + 1 }, (_, index) => ({ id: `s${index}`, name: `Room ${index}`, spaceType: 'ballroom', area: '10' }));
+      d.spaces = Array.from({ length: documentLimits.spaces + 1 }, (_, index) => ({
+        id: `s${index}`,
+        name: `Room ${index}`,
+        spaceType: 'ballroom',
+        area: '10',
+      }));
     });
     const response = await engineer.agent.post('/api/evaluate').set('X-CSRF-Token', engineer.csrfToken).send(many);
     expect(response.status).toBe(400);

@@ -60,10 +60,21 @@ async function rowCounts(): Promise<Record<string, number>> {
 describe('GET /api/code-editions', () => {
   it('lists the seven editions with their current data version and methods', async () => {
     const body = await get('/api/code-editions');
-    expect(body.map((edition: { id: string }) => edition.id)).toEqual(['ashrae-90.1-2013', 'ashrae-90.1-2016', 'ashrae-90.1-2019', 'ashrae-90.1-2022', 'iecc-2018', 'iecc-2021', 'iecc-2024']);
+    expect(body.map((edition: { id: string }) => edition.id)).toEqual([
+      'ashrae-90.1-2013',
+      'ashrae-90.1-2016',
+      'ashrae-90.1-2019',
+      'ashrae-90.1-2022',
+      'iecc-2018',
+      'iecc-2021',
+      'iecc-2024',
+    ]);
     expect(body.map((edition: { id: string }) => edition.id).sort()).toEqual([...editionIds].sort());
     for (const edition of body) {
-      expect(edition).toMatchObject({ dataVersion: reference[edition.id as EditionId].dataVersion, methods: ['building-area', 'space-by-space'] });
+      expect(edition).toMatchObject({
+        dataVersion: reference[edition.id as EditionId].dataVersion,
+        methods: ['building-area', 'space-by-space'],
+      });
       expect(edition).toHaveProperty('title');
       expect(edition).toHaveProperty('publisher');
       expect(typeof edition.year).toBe('number');
@@ -96,7 +107,10 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
     verified: row.verified,
     note: row.note,
     ...(row.fromMemory ? { fromMemory: row.fromMemory } : {}),
-    citation: expect.objectContaining({ short: expect.stringMatching(new RegExp(`^${name.replace('.', '\\.')} `)), checked: row.verified ? expect.any(Boolean) : false }),
+    citation: expect.objectContaining({
+      short: expect.stringMatching(new RegExp(`^${name.replace('.', '\\.')} `)),
+      checked: row.verified ? expect.any(Boolean) : false,
+    }),
   });
 
   it('building-area-types returns every row of the file, decimals unchanged', async () => {
@@ -133,7 +147,10 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
         row.iecc && row.daylight
           ? Object.fromEntries(
               Object.entries(
-                deriveIeccControls(row.iecc, { sidelighting: row.daylight.sidelighting as RequirementCode, toplighting: row.daylight.toplighting as RequirementCode }),
+                deriveIeccControls(row.iecc, {
+                  sidelighting: row.daylight.sidelighting as RequirementCode,
+                  toplighting: row.daylight.toplighting as RequirementCode,
+                }),
               ).map(([strategy, cell]) => [strategy, cell.requirement]),
             )
           : Object.fromEntries(Object.entries(row.controls ?? {}).map(([strategy, cell]) => [strategy, cell.requirement]));
@@ -224,21 +241,32 @@ describe.each(editionIds)('GET /api/code-editions/%s/…', (id) => {
     expect(body.smallEnclosedSpaceFt2).toBe(edition.rules.smallEnclosedSpace?.ft2 ?? null);
     expect(body.trackMinimumWPerFt).toBe(edition.rules.track.minimumWPerFt);
     expect(body.baseSiteCoversNontradable).toBe(edition.rules.baseSite.coversNontradable);
-    expect(Object.fromEntries(Object.entries(body.sections).map(([key, section]) => [key, (section as { section: string }).section]))).toEqual(
-      Object.fromEntries(Object.entries(edition.rules.sections).map(([key, section]) => [key, section.section])),
-    );
+    expect(
+      Object.fromEntries(Object.entries(body.sections).map(([key, section]) => [key, (section as { section: string }).section])),
+    ).toEqual(Object.fromEntries(Object.entries(edition.rules.sections).map(([key, section]) => [key, section.section])));
   });
 });
 
 describe('citations in the code-table views', () => {
-  const tables = ['building-area-types', 'space-types', 'control-strategies', 'exterior-applications', 'lighting-zones', 'additional-allowances'];
+  const tables = [
+    'building-area-types',
+    'space-types',
+    'control-strategies',
+    'exterior-applications',
+    'lighting-zones',
+    'additional-allowances',
+  ];
 
   it.each(editionIds)('cite every row of %s in words, with none of the files’ markers', async (id) => {
     for (const table of tables) {
-      const body: { citation: { short: string; note: string | null; checked: boolean }; verified: boolean }[] = await get(`/api/code-editions/${id}/${table}`);
+      const body: { citation: { short: string; note: string | null; checked: boolean }; verified: boolean }[] = await get(
+        `/api/code-editions/${id}/${table}`,
+      );
       for (const row of body) {
         const words = `${row.citation.short} ${row.citation.note ?? ''}`;
-        expect(words, `${id}/${table}`).not.toMatch(/\[(S|S-ed|I|M)\b|FLAG:|source annotation|SOURCES\.md|github:|https?:\/\/|from memory/i);
+        expect(words, `${id}/${table}`).not.toMatch(
+          /\[(S|S-ed|I|M)\b|FLAG:|source annotation|SOURCES\.md|github:|https?:\/\/|from memory/i,
+        );
         if (!row.verified) expect(row.citation.checked, `${id}/${table}`).toBe(false);
       }
     }
@@ -247,7 +275,11 @@ describe('citations in the code-table views', () => {
   it('names the table, the kind of source and what is not yet checked', async () => {
     const spaceTypes = await get('/api/code-editions/iecc-2021/space-types');
     // IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data.
-    expect(spaceTypes.find((row: { key: string }) => row.key === 'office-enclosed').citation).toMatchObject({ short: 'IECC 2021 Table C405.3.2(2) — model code', layer: 'model-code', checked: true });
+    expect(spaceTypes.find((row: { key: string }) => row.key === 'office-enclosed').citation).toMatchObject({
+      short: 'IECC 2021 Table C405.3.2(2) — model code',
+      layer: 'model-code',
+      checked: true,
+    });
     const strategies = await get('/api/code-editions/iecc-2021/control-strategies');
     // C405.2.5 specific application controls: the reference files hold it from memory.
     expect(strategies.find((row: { key: string }) => row.key === 'specific-application').citation).toMatchObject({
@@ -281,7 +313,14 @@ describe('loadEditionData', () => {
   it('gives IECC space types their rule inputs and derived controls', async () => {
     const data = await loadEditionData(database.db, 'iecc-2021');
     const enclosed = data!.spaceTypes.find((space) => space.key === 'office-enclosed')!;
-    expect(enclosed.iecc).toEqual({ occupantSensorListed: true, fullAutoOnAllowed: false, sensorFunction: 'general', lightReductionExemptItem: null, timeSwitchExemptItem: null, sleepingUnit: false }); // IECC 2021 C405.2.1 item 5
+    expect(enclosed.iecc).toEqual({
+      occupantSensorListed: true,
+      fullAutoOnAllowed: false,
+      sensorFunction: 'general',
+      lightReductionExemptItem: null,
+      timeSwitchExemptItem: null,
+      sleepingUnit: false,
+    }); // IECC 2021 C405.2.1 item 5
     // C405.2.2 exception and sleeping-unit controls (from memory, flagged in the data's notes).
     const dormitory = data!.spaceTypes.find((space) => space.key === 'dormitory-living-quarters')!;
     expect(dormitory.iecc).toMatchObject({ timeSwitchExemptItem: 'sleeping units', sleepingUnit: true });
@@ -306,7 +345,12 @@ describe('loadEditionData', () => {
     const data = await loadEditionData(database.db, 'ashrae-90.1-2016');
     const atrium = data!.spaceTypes.find((space) => space.key === 'atrium-gt-40-ft-in-height')!;
     // ASHRAE 90.1-2016 Table 9.6.1 atrium > 40 ft: 0.4 plus a supplemental 0.02 per ft of total height (the row notes; from memory "0.40 + 0.02 per ft total height").
-    expect(atrium.lpdFormula).toEqual({ kind: 'base-plus-per-foot-of-height', baseWPerFt2: '0.4', wPerFt2PerFt: '0.02', heightFt: { above: '40' } });
+    expect(atrium.lpdFormula).toEqual({
+      kind: 'base-plus-per-foot-of-height',
+      baseWPerFt2: '0.4',
+      wPerFt2PerFt: '0.02',
+      heightFt: { above: '40' },
+    });
     expect(atrium.provenance.verified).toBe(false);
     expect(data!.spaceTypes.find((space) => space.key === 'office-open-plan')!.lpdFormula).toBeUndefined();
   });
@@ -316,7 +360,8 @@ describe('loadEditionData', () => {
     const enclosed = body.find((row: { key: string }) => row.key === 'office-enclosed');
     expect(enclosed.iecc).toMatchObject({ occupantSensorListed: true, tag: '[S-ed]' });
     expect(enclosed.verified).toBe(true);
-    for (const provenance of Object.values(enclosed.controlProvenance) as Array<{ verified: boolean }>) expect(provenance.verified).toBe(false);
+    for (const provenance of Object.values(enclosed.controlProvenance) as Array<{ verified: boolean }>)
+      expect(provenance.verified).toBe(false);
     const data = await loadEditionData(database.db, 'iecc-2018');
     expect(data!.sections['exteriorAllowance']).toBe('C405.4.2'); // IECC 2018 numbers exterior lighting C405.4 (the source's table labels)
   });

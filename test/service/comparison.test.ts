@@ -25,7 +25,11 @@ interface Comparison {
   unmapped: { what: string; name: string; type: string }[];
   remapped: { space: string; from: string; to: string }[];
   controlsNotCarried: string[];
-  controlChanges: { place: string; exterior: boolean; changes: { control: string; requirement: string; before: string; status: string; section: string }[] }[];
+  controlChanges: {
+    place: string;
+    exterior: boolean;
+    changes: { control: string; requirement: string; before: string; status: string; section: string }[];
+  }[];
   result: {
     verdict: string;
     units: string;
@@ -46,7 +50,14 @@ interface Comparison {
 interface Results {
   verdict: string;
   units: string;
-  interior: { area: string; allowanceW: string; installedW: string; marginW: string; complies: boolean; spaces: { name: string; controls: { label: string; requirement: string }[] }[] };
+  interior: {
+    area: string;
+    allowanceW: string;
+    installedW: string;
+    marginW: string;
+    complies: boolean;
+    spaces: { name: string; controls: { label: string; requirement: string }[] }[];
+  };
   exterior: { allowanceW: string; installedW: string; complies: boolean } | null;
   unverifiedValues: unknown[];
   cautions: string[];
@@ -89,7 +100,9 @@ describe('GET /api/projects/:id/comparison', () => {
     const ashrae = editions.find((edition) => edition.edition === 'ashrae-90.1-2019')!;
     // IECC 2021 rows record the 90.1-2019 row they equal (reference/iecc-2021/space-types.json, equalsRowOf, via BESD).
     expect(ashrae.status).toBe('evaluated');
-    expect(ashrae.remapped).toEqual(expect.arrayContaining([expect.objectContaining({ space: '111 Corridor', to: expect.stringContaining('Corridor') })]));
+    expect(ashrae.remapped).toEqual(
+      expect.arrayContaining([expect.objectContaining({ space: '111 Corridor', to: expect.stringContaining('Corridor') })]),
+    );
     // The installed watts are the design's and do not change with the edition.
     expect(ashrae.result!.installedW).toBe(results.interior.installedW);
     // The IECC controls recorded (occupant sensors, time switches, light reduction) are not 90.1's: said, not carried.
@@ -99,11 +112,13 @@ describe('GET /api/projects/:id/comparison', () => {
     expect(JSON.stringify(response.body)).not.toContain('\\u0000');
   });
 
-  it('names, per space, each control whose requirement is not the one under the project\'s own edition', async () => {
+  it("names, per space, each control whose requirement is not the one under the project's own edition", async () => {
     const { editions } = (await engineer.agent.get(`/api/projects/${demoId}/comparison`)).body as { editions: Comparison[] };
     const results = (await engineer.agent.get(`/api/projects/${demoId}/results`)).body as Results;
     const ownRequirement = (space: string, control: string) => {
-      const line = results.interior.spaces.find((candidate) => candidate.name === space)?.controls.find((candidate) => candidate.label === control);
+      const line = results.interior.spaces
+        .find((candidate) => candidate.name === space)
+        ?.controls.find((candidate) => candidate.label === control);
       if (!line || line.requirement === 'not-required') return 'not-required';
       return line.requirement === 'to-verify' ? 'to-verify' : 'required';
     };
@@ -120,8 +135,12 @@ describe('GET /api/projects/:id/comparison', () => {
     // Occupant sensors are an IECC 2021 §C405.2.1 strategy (reference/iecc-2021/control-strategies.json)
     // that 90.1-2019 does not list; its §9.4.1.1(h) automatic full OFF (reference/ashrae-90.1-2019/
     // control-strategies.json, via PNNL ConStrain) is required in their place.
-    expect(changes).toEqual(expect.arrayContaining([expect.objectContaining({ control: 'Occupant sensor', before: 'required', requirement: 'not-required' })]));
-    expect(changes).toEqual(expect.arrayContaining([expect.objectContaining({ control: 'Automatic full OFF', before: 'not-required', requirement: 'required' })]));
+    expect(changes).toEqual(
+      expect.arrayContaining([expect.objectContaining({ control: 'Occupant sensor', before: 'required', requirement: 'not-required' })]),
+    );
+    expect(changes).toEqual(
+      expect.arrayContaining([expect.objectContaining({ control: 'Automatic full OFF', before: 'not-required', requirement: 'required' })]),
+    );
     // What the tables cannot settle stays to verify: never listed as not required.
     const undecided = changes.filter((entry) => entry.status === 'to-verify');
     expect(undecided.length).toBeGreaterThan(0);
@@ -129,16 +148,26 @@ describe('GET /api/projects/:id/comparison', () => {
   });
 
   it('reports an SI project in m² and W/m²', async () => {
-    const copy = await engineer.agent.post(`/api/projects/${demoId}/copy`).set('X-CSRF-Token', engineer.csrfToken).send({ name: 'Alder Bay in SI' });
+    const copy = await engineer.agent
+      .post(`/api/projects/${demoId}/copy`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ name: 'Alder Bay in SI' });
     expect(copy.status).toBe(201);
     const detail = (await engineer.agent.get(`/api/projects/${copy.body.id}`)).body as { version: number };
-    const converted = await engineer.agent.patch(`/api/projects/${copy.body.id}`).set('X-CSRF-Token', engineer.csrfToken).send({ version: detail.version, units: 'si' });
+    const converted = await engineer.agent
+      .patch(`/api/projects/${copy.body.id}`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ version: detail.version, units: 'si' });
     expect(converted.status).toBe(200);
-    const { current, editions } = (await engineer.agent.get(`/api/projects/${copy.body.id}/comparison`)).body as { current: Comparison; editions: Comparison[] };
+    const { current, editions } = (await engineer.agent.get(`/api/projects/${copy.body.id}/comparison`)).body as {
+      current: Comparison;
+      editions: Comparison[];
+    };
     const results = (await engineer.agent.get(`/api/projects/${copy.body.id}/results`)).body as Results;
     expect(results.units).toBe('si');
     expectSummaryOf(current, results);
-    for (const edition of editions.filter((entry) => entry.result)) expect(edition.result).toMatchObject({ units: 'si', area: results.interior.area });
+    for (const edition of editions.filter((entry) => entry.result))
+      expect(edition.result).toMatchObject({ units: 'si', area: results.interior.area });
   });
 
   it('lists what does not map instead of guessing', async () => {

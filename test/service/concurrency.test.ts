@@ -22,7 +22,13 @@ function write(who: SignedInAgent, method: 'post' | 'put' | 'patch' | 'delete', 
 }
 
 async function newProject(units: 'ip' | 'si', name: string): Promise<string> {
-  const created = await write(engineer, 'post', '/api/projects').send({ name, edition: 'iecc-2021', method: 'space-by-space', units, lightingZone: 2 });
+  const created = await write(engineer, 'post', '/api/projects').send({
+    name,
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units,
+    lightingZone: 2,
+  });
   expect(created.status).toBe(201);
   return created.body.id;
 }
@@ -71,7 +77,11 @@ describe('a change of units', () => {
     const inFeet = (await engineer.agent.get(`/api/projects/${projectId}/spaces/${created.body.id}`)).body;
     // A form saves the whole space back: same (converted) values, a new name and a new ceiling height.
     const { id: _id, position: _position, updatedAt: _at, updatedBy: _by, luminaires: _luminaires, ...fields } = inFeet;
-    const saved = await write(engineer, 'put', `/api/projects/${projectId}/spaces/${created.body.id}`).send({ ...fields, name: 'Plant room 2', ceilingHeight: '10' });
+    const saved = await write(engineer, 'put', `/api/projects/${projectId}/spaces/${created.body.id}`).send({
+      ...fields,
+      name: 'Plant room 2',
+      ceilingHeight: '10',
+    });
     expect(saved.status).toBe(200);
     await changeUnits(projectId, 'si');
     const back = (await engineer.agent.get(`/api/projects/${projectId}/spaces/${created.body.id}`)).body;
@@ -83,26 +93,60 @@ describe('a change of units', () => {
 
   it('gives every converted row a new version, so a writer still holding the old one gets 409', async () => {
     const projectId = await newProject('ip', 'Stale writer');
-    const created = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Office', spaceType: 'office-enclosed', area: '1000' });
-    const typeWithLength = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'T', inputWatts: '100', use: 'general', basis: 'line-voltage-track', length: '8' });
-    const exterior = await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'parking-lots-and-drives', quantity: '5000', installedWatts: '200' });
+    const created = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Office',
+      spaceType: 'office-enclosed',
+      area: '1000',
+    });
+    const typeWithLength = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({
+      tag: 'T',
+      inputWatts: '100',
+      use: 'general',
+      basis: 'line-voltage-track',
+      length: '8',
+    });
+    const exterior = await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({
+      key: 'parking-lots-and-drives',
+      quantity: '5000',
+      installedWatts: '200',
+    });
     expect(created.body.version).toBe(1);
     await changeUnits(projectId, 'si');
-    const stale = await write(engineer, 'put', `/api/projects/${projectId}/spaces/${created.body.id}`).send({ name: 'Office', spaceType: 'office-enclosed', area: '1000', version: 1 });
+    const stale = await write(engineer, 'put', `/api/projects/${projectId}/spaces/${created.body.id}`).send({
+      name: 'Office',
+      spaceType: 'office-enclosed',
+      area: '1000',
+      version: 1,
+    });
     expect(stale.status).toBe(409);
-    expect((await engineer.agent.get(`/api/projects/${projectId}/spaces/${created.body.id}`)).body).toMatchObject({ version: 2, area: '92.90304' });
+    expect((await engineer.agent.get(`/api/projects/${projectId}/spaces/${created.body.id}`)).body).toMatchObject({
+      version: 2,
+      area: '92.90304',
+    });
     const types = (await engineer.agent.get(`/api/projects/${projectId}/luminaire-types`)).body;
     expect(types.find((type: { id: string }) => type.id === typeWithLength.body.id).version).toBe(2);
     const applications = (await engineer.agent.get(`/api/projects/${projectId}/exterior-applications`)).body;
-    expect(applications.find((application: { id: string }) => application.id === exterior.body.id)).toMatchObject({ version: 2, quantity: '464.5152' });
+    expect(applications.find((application: { id: string }) => application.id === exterior.body.id)).toMatchObject({
+      version: 2,
+      quantity: '464.5152',
+    });
   });
 
   it('stops, converting nothing, when a value would leave its range in the new unit', async () => {
     const projectId = await newProject('si', 'Too long in feet');
     // 9,000 m is within the length range; 29,527.6 ft is not.
-    const created = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Runway shed', spaceType: 'electrical-mechanical-room', area: '90000', length: '9000', width: '10' });
+    const created = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Runway shed',
+      spaceType: 'electrical-mechanical-room',
+      area: '90000',
+      length: '9000',
+      width: '10',
+    });
     expect(created.status).toBe(201);
-    const response = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: await projectVersion(projectId), units: 'ip' });
+    const response = await write(engineer, 'patch', `/api/projects/${projectId}`).send({
+      version: await projectVersion(projectId),
+      units: 'ip',
+    });
     expect(response.status).toBe(400);
     expect(response.body.error.details[0].message).toContain('spaces');
     expect((await engineer.agent.get(`/api/projects/${projectId}`)).body.units).toBe('si');
@@ -115,7 +159,10 @@ describe('the team under parallel changes', () => {
     const projectId = await newProject('ip', 'Two engineers');
     const admin = await signIn(app, 'admin@alderbay.example');
     const other = await signIn(app, 'reviewer@alderbay.example');
-    expect((await write(engineer, 'post', `/api/projects/${projectId}/members`).send({ email: 'reviewer@alderbay.example', role: 'engineer' })).status).toBe(200);
+    expect(
+      (await write(engineer, 'post', `/api/projects/${projectId}/members`).send({ email: 'reviewer@alderbay.example', role: 'engineer' }))
+        .status,
+    ).toBe(200);
     const [first, second] = await Promise.all([
       write(engineer, 'delete', `/api/projects/${projectId}/members/${other.user.id}`),
       write(other, 'delete', `/api/projects/${projectId}/members/${engineer.user.id}`),
@@ -135,7 +182,8 @@ describe('imports with an idempotency key', () => {
 
   it('imports once however often the same request is retried, even in parallel', async () => {
     const projectId = await newProject('ip', 'Retried import');
-    const post = () => write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'import-7f3a').send({ spaces });
+    const post = () =>
+      write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'import-7f3a').send({ spaces });
     const [first, second] = await Promise.all([post(), post()]);
     const third = await post();
     for (const response of [first, second, third]) expect(response.status).toBe(201);
@@ -147,13 +195,21 @@ describe('imports with an idempotency key', () => {
 
   it('refuses the same key for a different import, and imports again under a new key', async () => {
     const projectId = await newProject('ip', 'Reused key');
-    expect((await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'k-1').send({ spaces })).status).toBe(201);
-    const reused = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'k-1').send({ spaces: spaces.slice(0, 1) });
+    expect(
+      (await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'k-1').send({ spaces })).status,
+    ).toBe(201);
+    const reused = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`)
+      .set('Idempotency-Key', 'k-1')
+      .send({ spaces: spaces.slice(0, 1) });
     expect(reused.status).toBe(422);
     expect(reused.body.error.code).toBe('idempotency_key_reused');
-    expect((await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'k-2').send({ spaces })).status).toBe(201);
+    expect(
+      (await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'k-2').send({ spaces })).status,
+    ).toBe(201);
     expect((await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body).toHaveLength(6);
-    const bad = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'has space').send({ spaces });
+    const bad = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`)
+      .set('Idempotency-Key', 'has space')
+      .send({ spaces });
     expect(bad.status).toBe(400);
   });
 });

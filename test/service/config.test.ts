@@ -17,7 +17,12 @@ describe('loadConfig', () => {
     expect(loadConfig({ ...required, TRUST_PROXY: '' }).TRUST_PROXY).toBe(false);
     expect(loadConfig({ ...required, TRUST_PROXY: 'false' }).TRUST_PROXY).toBe(false);
     expect(loadConfig({ ...required, TRUST_PROXY: '1' }).TRUST_PROXY).toBe(1);
-    expect(loadConfig({ ...required, TRUST_PROXY: 'loopback, 10.0.0.0/8, fd00::/8, 192.0.2.10' }).TRUST_PROXY).toEqual(['loopback', '10.0.0.0/8', 'fd00::/8', '192.0.2.10']);
+    expect(loadConfig({ ...required, TRUST_PROXY: 'loopback, 10.0.0.0/8, fd00::/8, 192.0.2.10' }).TRUST_PROXY).toEqual([
+      'loopback',
+      '10.0.0.0/8',
+      'fd00::/8',
+      '192.0.2.10',
+    ]);
   });
 
   it('refuses a TRUST_PROXY that would believe anyone, or that is not an address', () => {

@@ -25,7 +25,9 @@ afterAll(async () => {
 });
 
 function unmet(evaluation: EvaluationResult): string[] {
-  return evaluation.interior.spaces.flatMap((space) => space.controls.filter((line) => line.status === 'not-met').map((line) => `${space.name}: ${line.strategy} — ${line.reason}`));
+  return evaluation.interior.spaces.flatMap((space) =>
+    space.controls.filter((line) => line.status === 'not-met').map((line) => `${space.name}: ${line.strategy} — ${line.reason}`),
+  );
 }
 
 describe('the seeded demo project', () => {
@@ -39,14 +41,20 @@ describe('the seeded demo project', () => {
     expect(area).toBeLessThan(20_000);
     expect(document.luminaireTypes.length).toBeGreaterThanOrEqual(8);
     expect(document.luminaireTypes.length).toBeLessThanOrEqual(10);
-    const withWindows = document.spaces.filter((space: { windows: unknown[] }) => space.windows.length > 0).map((space: { name: string }) => space.name);
+    const withWindows = document.spaces
+      .filter((space: { windows: unknown[] }) => space.windows.length > 0)
+      .map((space: { name: string }) => space.name);
     expect(withWindows).toEqual(expect.arrayContaining(['102 Main reading room', '203 Office']));
-    expect(document.exterior.applications.map((application: { key: string }) => application.key)).toEqual(expect.arrayContaining(['parking-lots-and-drives', 'entry-canopies']));
+    expect(document.exterior.applications.map((application: { key: string }) => application.key)).toEqual(
+      expect.arrayContaining(['parking-lots-and-drives', 'entry-canopies']),
+    );
   });
 
   it('complies, inside and out, with a modest margin', () => {
     expect(unmet(result)).toEqual([]);
-    const open = result.interior.spaces.flatMap((space) => space.controls.filter((line) => line.status === 'to-verify').map((line) => `${space.name}: ${line.reason}`));
+    const open = result.interior.spaces.flatMap((space) =>
+      space.controls.filter((line) => line.status === 'to-verify').map((line) => `${space.name}: ${line.reason}`),
+    );
     expect(open).toEqual([]);
     expect(result.openItems).toEqual({ spacesWithoutLuminaires: 0, controlsToVerify: 0 });
     expect(result.interior.complies).toBe(true);
@@ -59,7 +67,9 @@ describe('the seeded demo project', () => {
 
   it('records the glazing of every window, so no daylight line waits on a blank', async () => {
     const document = (await engineer.agent.get(`/api/projects/${projectId}/document`)).body;
-    const windows = document.spaces.flatMap((space: { windows: { visibleTransmittance?: string; daylightBlocked?: boolean }[] }) => space.windows);
+    const windows = document.spaces.flatMap(
+      (space: { windows: { visibleTransmittance?: string; daylightBlocked?: boolean }[] }) => space.windows,
+    );
     expect(windows.length).toBeGreaterThan(0);
     for (const window of windows) expect(window).toMatchObject({ visibleTransmittance: expect.any(String), daylightBlocked: false });
     const daylightLines = result.interior.spaces.flatMap((space) => space.controls.filter((line) => line.strategy.startsWith('daylight-')));
@@ -77,7 +87,9 @@ describe('the seeded demo project', () => {
       expect(value.citation.checked, value.what).toBe(false);
       expect(value.source, value.what).toBe(value.citation.short);
       expect(value.source, value.what).toMatch(/^IECC 2021 /);
-      expect(`${value.what} ${value.source} ${value.note}`, value.what).not.toMatch(/\[(S|S-ed|I|M)\b|FLAG:|source annotation|SOURCES\.md|github:|https?:\/\/|from memory/i);
+      expect(`${value.what} ${value.source} ${value.note}`, value.what).not.toMatch(
+        /\[(S|S-ed|I|M)\b|FLAG:|source annotation|SOURCES\.md|github:|https?:\/\/|from memory/i,
+      );
     }
     // IECC 2021 C405.2.2 time-switch control: the reference data follows Washington's state text (WAC 51-11C-405022).
     expect(result.unverifiedValues.find((value) => value.what === 'Control strategy: Time-switch control')?.citation).toMatchObject({

@@ -12,10 +12,16 @@ beforeAll(async () => {
   const { app } = testApp(database.db, database.url);
   engineer = await signIn(app, 'engineer@alderbay.example');
   reviewer = await signIn(app, 'reviewer@alderbay.example');
-  const created = await engineer.agent
-    .post('/api/projects')
-    .set('X-CSRF-Token', engineer.csrfToken)
-    .send({ name: 'Cedar Row Clinic', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2, timeZone: 'America/Los_Angeles', latitude: '47.04', longitude: '-122.9' });
+  const created = await engineer.agent.post('/api/projects').set('X-CSRF-Token', engineer.csrfToken).send({
+    name: 'Cedar Row Clinic',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    lightingZone: 2,
+    timeZone: 'America/Los_Angeles',
+    latitude: '47.04',
+    longitude: '-122.9',
+  });
   expect(created.status).toBe(201);
   projectId = created.body.id;
   const reviewerId = reviewer.user.id;
@@ -26,21 +32,44 @@ afterAll(async () => {
   await database.drop();
 });
 
-const write = (who: SignedInAgent, method: 'post' | 'put' | 'patch' | 'delete', url: string) => who.agent[method](url).set('X-CSRF-Token', who.csrfToken);
+const write = (who: SignedInAgent, method: 'post' | 'put' | 'patch' | 'delete', url: string) =>
+  who.agent[method](url).set('X-CSRF-Token', who.csrfToken);
 
 describe('POST /api/projects', () => {
   it('makes the creator the engineer and stores the set-up', async () => {
     const detail = await engineer.agent.get(`/api/projects/${projectId}`);
-    expect(detail.body).toMatchObject({ name: 'Cedar Row Clinic', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2, latitude: '47.04', longitude: '-122.9', state: 'draft' });
+    expect(detail.body).toMatchObject({
+      name: 'Cedar Row Clinic',
+      role: 'engineer',
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+      lightingZone: 2,
+      latitude: '47.04',
+      longitude: '-122.9',
+      state: 'draft',
+    });
     expect(detail.body.members.map((member: { role: string }) => member.role).sort()).toEqual(['engineer', 'reviewer']);
   });
 
   it('rejects an unknown edition, a bad time zone and an out-of-range latitude with their paths', async () => {
-    const response = await write(engineer, 'post', '/api/projects').send({ name: 'x', edition: 'iecc-1999', method: 'space-by-space', units: 'ip', timeZone: 'Mars/Olympus', latitude: '91' });
+    const response = await write(engineer, 'post', '/api/projects').send({
+      name: 'x',
+      edition: 'iecc-1999',
+      method: 'space-by-space',
+      units: 'ip',
+      timeZone: 'Mars/Olympus',
+      latitude: '91',
+    });
     expect(response.status).toBe(400);
     const paths = response.body.error.details.map((detail: { path: string }) => detail.path).sort();
     expect(paths).toEqual(['latitude', 'timeZone']);
-    const edition = await write(engineer, 'post', '/api/projects').send({ name: 'x', edition: 'iecc-1999', method: 'space-by-space', units: 'ip' });
+    const edition = await write(engineer, 'post', '/api/projects').send({
+      name: 'x',
+      edition: 'iecc-1999',
+      method: 'space-by-space',
+      units: 'ip',
+    });
     expect(edition.body.error.details).toEqual([{ path: 'edition', message: expect.stringContaining('iecc-2021') }]);
   });
 });
@@ -49,10 +78,19 @@ describe('design data with optimistic locking', () => {
   let spaceId: string;
 
   it('lets the engineer add luminaire types and a space with counts, controls and a window', async () => {
-    const a = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'A', description: '2x4 troffer', inputWatts: '32.5', use: 'general' });
+    const a = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({
+      tag: 'A',
+      description: '2x4 troffer',
+      inputWatts: '32.5',
+      use: 'general',
+    });
     expect(a.status).toBe(201);
     expect(a.body).toMatchObject({ tag: 'A', inputWatts: '32.5', version: 1, updatedBy: 'Ines Halvorsen' });
-    const duplicate = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'A', inputWatts: 10, use: 'general' });
+    const duplicate = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({
+      tag: 'A',
+      inputWatts: 10,
+      use: 'general',
+    });
     expect(duplicate.status).toBe(409);
 
     const space = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
@@ -64,26 +102,46 @@ describe('design data with optimistic locking', () => {
       width: '10',
       ceilingHeight: '9',
       luminaires: [{ tag: 'A', count: 2, zone: 'primary-sidelit' }],
-      controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial', zoneSize: '120', device: 'Ceiling sensor' }],
+      controls: [
+        { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial', zoneSize: '120', device: 'Ceiling sensor' },
+      ],
       windows: [{ width: '4', headHeight: '7', wall: 'south', offset: '4' }],
     });
     expect(space.status).toBe(201);
-    expect(space.body).toMatchObject({ name: 'Exam 1', area: '120', version: 1, luminaires: [{ tag: 'A', count: '2', zone: 'primary-sidelit' }] });
+    expect(space.body).toMatchObject({
+      name: 'Exam 1',
+      area: '120',
+      version: 1,
+      luminaires: [{ tag: 'A', count: '2', zone: 'primary-sidelit' }],
+    });
     expect(space.body.windows).toEqual([{ width: '4', headHeight: '7', wall: 'south', offset: '4' }]);
-    expect(space.body.controls).toEqual([{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial', zoneSize: '120', device: 'Ceiling sensor' }]);
+    expect(space.body.controls).toEqual([
+      { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial', zoneSize: '120', device: 'Ceiling sensor' },
+    ]);
     spaceId = space.body.id;
   });
 
   it('refuses a tag no luminaire type defines, with its path', async () => {
-    const response = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Exam 2', spaceType: 'office-enclosed', area: 100, luminaires: [{ tag: 'Z', count: 1 }] });
+    const response = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Exam 2',
+      spaceType: 'office-enclosed',
+      area: 100,
+      luminaires: [{ tag: 'Z', count: 1 }],
+    });
     expect(response.status).toBe(400);
     expect(response.body.error.details).toEqual([{ path: 'luminaires.0.tag', message: 'No luminaire type has the tag "Z".' }]);
   });
 
   it('refuses a space type the project’s edition does not have, and a space without the type its method needs', async () => {
-    const unknown = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Lab', spaceType: 'no-such-type', area: 100 });
+    const unknown = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Lab',
+      spaceType: 'no-such-type',
+      area: 100,
+    });
     expect(unknown.status).toBe(400);
-    expect(unknown.body.error.details).toEqual([{ path: 'spaceType', message: 'International Energy Conservation Code 2021 (commercial) has no space type “no-such-type”.' }]);
+    expect(unknown.body.error.details).toEqual([
+      { path: 'spaceType', message: 'International Energy Conservation Code 2021 (commercial) has no space type “no-such-type”.' },
+    ]);
     const wrongMethod = await write(engineer, 'post', `/api/projects/${projectId}/spaces/bulk`).send({
       spaces: [
         { name: 'Store', spaceType: 'storage-room', area: 80 },
@@ -95,10 +153,20 @@ describe('design data with optimistic locking', () => {
   });
 
   it('keeps a space’s building area type beside its space type, so switching the method loses nothing', async () => {
-    const both = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Records', spaceType: 'storage-room', buildingAreaType: 'office', area: 90 });
+    const both = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Records',
+      spaceType: 'storage-room',
+      buildingAreaType: 'office',
+      area: 90,
+    });
     expect(both.status).toBe(201);
     expect(both.body).toMatchObject({ spaceType: 'storage-room', buildingAreaType: 'office' });
-    const unknownAreaType = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Records', spaceType: 'storage-room', buildingAreaType: 'spaceport', area: 90 });
+    const unknownAreaType = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Records',
+      spaceType: 'storage-room',
+      buildingAreaType: 'spaceport',
+      area: 90,
+    });
     expect(unknownAreaType.status).toBe(400);
     await write(engineer, 'delete', `/api/projects/${projectId}/spaces/${both.body.id}?version=1`);
   });
@@ -122,14 +190,22 @@ describe('design data with optimistic locking', () => {
 
   it('keeps a luminaire type that spaces still count', async () => {
     const types = await engineer.agent.get(`/api/projects/${projectId}/luminaire-types`);
-    const response = await write(engineer, 'delete', `/api/projects/${projectId}/luminaire-types/${types.body[0].id}?version=${types.body[0].version}`);
+    const response = await write(
+      engineer,
+      'delete',
+      `/api/projects/${projectId}/luminaire-types/${types.body[0].id}?version=${types.body[0].version}`,
+    );
     expect(response.status).toBe(409);
     expect(response.body.error.message).toContain('Exam 1');
   });
 
   it('lets a reviewer read but not write', async () => {
     expect((await reviewer.agent.get(`/api/projects/${projectId}/spaces`)).status).toBe(200);
-    const response = await write(reviewer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Sneaky', spaceType: 'office-enclosed', area: 10 });
+    const response = await write(reviewer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Sneaky',
+      spaceType: 'office-enclosed',
+      area: 10,
+    });
     expect(response.status).toBe(403);
     const setup = await write(reviewer, 'patch', `/api/projects/${projectId}`).send({ version: 1, name: 'Renamed' });
     expect(setup.status).toBe(403);
@@ -161,7 +237,9 @@ describe('design data with optimistic locking', () => {
     const document = await engineer.agent.get(`/api/projects/${projectId}/document`);
     expect(document.status).toBe(200);
     expect(document.body).toMatchObject({ edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
-    expect(document.body.luminaireTypes).toEqual([{ tag: 'A', description: '2x4 troffer', inputWatts: '32.5', use: 'general', basis: 'rated' }]);
+    expect(document.body.luminaireTypes).toEqual([
+      { tag: 'A', description: '2x4 troffer', inputWatts: '32.5', use: 'general', basis: 'rated' },
+    ]);
     const exam = document.body.spaces.find((space: { name: string }) => space.name === 'Exam 1');
     expect(exam).toMatchObject({ id: spaceId, area: '115', luminaires: [{ tag: 'A', count: '2', zone: 'primary-sidelit' }] });
     expect(exam).not.toHaveProperty('version');
@@ -169,8 +247,16 @@ describe('design data with optimistic locking', () => {
   });
 
   it('converts every stored length and area when the units change, and back again without loss', async () => {
-    await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'parking-lots-and-drives', quantity: '1000', installedWatts: '30' });
-    await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'pedestrian-and-vehicular-entrances-and-exits', quantity: '12', installedWatts: '100' });
+    await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({
+      key: 'parking-lots-and-drives',
+      quantity: '1000',
+      installedWatts: '30',
+    });
+    await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({
+      key: 'pedestrian-and-vehicular-entrances-and-exits',
+      quantity: '12',
+      installedWatts: '100',
+    });
     const before = (await engineer.agent.get(`/api/projects/${projectId}/results`)).body;
     const detail = await engineer.agent.get(`/api/projects/${projectId}`);
     const toSi = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version, units: 'si' });
@@ -209,7 +295,10 @@ describe('design data with optimistic locking', () => {
     const exam = (await engineer.agent.get(`/api/projects/${projectId}/spaces/${spaceId}`)).body;
     expect(exam.area).toBe('115');
     expect((await engineer.agent.get(`/api/projects/${projectId}`)).body.units).toBe('ip');
-    const rename = await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.body.version, name: 'Cedar Row Clinic, phase 1' });
+    const rename = await write(engineer, 'patch', `/api/projects/${projectId}`).send({
+      version: detail.body.version,
+      name: 'Cedar Row Clinic, phase 1',
+    });
     expect(rename.body).toMatchObject({ name: 'Cedar Row Clinic, phase 1', version: detail.body.version + 1 });
   });
 });

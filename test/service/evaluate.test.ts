@@ -18,7 +18,11 @@ afterAll(async () => {
   await database.drop();
 });
 
-const evaluate = (document: unknown) => engineer.agent.post('/api/evaluate').set('X-CSRF-Token', engineer.csrfToken).send(document as object);
+const evaluate = (document: unknown) =>
+  engineer.agent
+    .post('/api/evaluate')
+    .set('X-CSRF-Token', engineer.csrfToken)
+    .send(document as object);
 
 /** Two offices by the space-by-space method; LPDs from IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data. */
 function offices(units: 'ip' | 'si' = 'ip') {
@@ -29,8 +33,29 @@ function offices(units: 'ip' | 'si' = 'ip') {
     units,
     luminaireTypes: [{ tag: 'A', description: 'troffer', inputWatts: '30', use: 'general' }],
     spaces: [
-      { id: 'o1', name: 'Office', spaceType: 'office-enclosed', area: area[0], enclosed: true, luminaires: [{ tag: 'A', count: 4 }], controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'manual' }, { strategy: 'light-reduction', provided: true }] },
-      { id: 'o2', name: 'Open office', spaceType: 'office-open-plan', area: area[1], luminaires: [{ tag: 'A', count: 18 }], controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial' }, { strategy: 'light-reduction', provided: true }] },
+      {
+        id: 'o1',
+        name: 'Office',
+        spaceType: 'office-enclosed',
+        area: area[0],
+        enclosed: true,
+        luminaires: [{ tag: 'A', count: 4 }],
+        controls: [
+          { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'manual' },
+          { strategy: 'light-reduction', provided: true },
+        ],
+      },
+      {
+        id: 'o2',
+        name: 'Open office',
+        spaceType: 'office-open-plan',
+        area: area[1],
+        luminaires: [{ tag: 'A', count: 18 }],
+        controls: [
+          { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', autoOn: 'partial' },
+          { strategy: 'light-reduction', provided: true },
+        ],
+      },
     ],
   };
 }

@@ -16,7 +16,13 @@ beforeAll(async () => {
   engineer = await signIn(app, 'engineer@alderbay.example');
   reviewer = await signIn(app, 'reviewer@alderbay.example');
   contractor = await signIn(app, 'contractor@alderbay.example');
-  const created = await write(engineer, 'post', '/api/projects').send({ name: 'Tidewater Clinic', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2 });
+  const created = await write(engineer, 'post', '/api/projects').send({
+    name: 'Tidewater Clinic',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    lightingZone: 2,
+  });
   projectId = created.body.id;
   await write(engineer, 'post', `/api/projects/${projectId}/members`).send({ email: 'reviewer@alderbay.example', role: 'reviewer' });
 });
@@ -48,19 +54,39 @@ async function history(query = '', who = engineer): Promise<{ entries: Entry[]; 
   return response.body;
 }
 
-const exam = { name: 'Exam 1', level: 'Level 1', spaceType: 'office-enclosed', area: '120', luminaires: [{ tag: 'A', count: 3 }], windows: [] };
+const exam = {
+  name: 'Exam 1',
+  level: 'Level 1',
+  spaceType: 'office-enclosed',
+  area: '120',
+  luminaires: [{ tag: 'A', count: 3 }],
+  windows: [],
+};
 
 describe('the audit trail', () => {
   let spaceId: string;
 
   it('records every design write with who, when, and the values before and after', async () => {
-    const type = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'A', inputWatts: '30', use: 'general' });
+    const type = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({
+      tag: 'A',
+      inputWatts: '30',
+      use: 'general',
+    });
     const space = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send(exam);
     spaceId = space.body.id;
     const updated = await write(engineer, 'put', `/api/projects/${projectId}/spaces/${spaceId}`).send({ ...exam, area: '150', version: 1 });
     expect(updated.status).toBe(200);
-    await write(engineer, 'put', `/api/projects/${projectId}/luminaire-types/${type.body.id}`).send({ tag: 'A', inputWatts: '28', use: 'general', version: 1 });
-    const exterior = await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({ key: 'parking-lots-and-drives', quantity: '4000', installedWatts: '150' });
+    await write(engineer, 'put', `/api/projects/${projectId}/luminaire-types/${type.body.id}`).send({
+      tag: 'A',
+      inputWatts: '28',
+      use: 'general',
+      version: 1,
+    });
+    const exterior = await write(engineer, 'post', `/api/projects/${projectId}/exterior-applications`).send({
+      key: 'parking-lots-and-drives',
+      quantity: '4000',
+      installedWatts: '150',
+    });
     await write(engineer, 'delete', `/api/projects/${projectId}/exterior-applications/${exterior.body.id}?version=1`);
 
     const { entries } = await history();
@@ -76,7 +102,10 @@ describe('the audit trail', () => {
     expect(spaceUpdate).toMatchObject({ user: { id: engineer.user.id, name: 'Ines Halvorsen' }, entityId: spaceId, name: 'Exam 1' });
     expect(spaceUpdate.before).toMatchObject({ area: '120', version: 1 });
     expect(spaceUpdate.after).toMatchObject({ area: '150', version: 2 });
-    expect(entries.find((entry) => entry.action === 'update' && entry.entity === 'luminaire-type')).toMatchObject({ before: { inputWatts: '30' }, after: { inputWatts: '28' } });
+    expect(entries.find((entry) => entry.action === 'update' && entry.entity === 'luminaire-type')).toMatchObject({
+      before: { inputWatts: '30' },
+      after: { inputWatts: '28' },
+    });
     expect(entries[0]).toMatchObject({ restorable: true, before: { key: 'parking-lots-and-drives', quantity: '4000' } });
   });
 
@@ -86,24 +115,45 @@ describe('the audit trail', () => {
     await write(engineer, 'patch', `/api/projects/${projectId}`).send({ version: detail.version + 1, units: 'si' });
     await write(engineer, 'post', `/api/projects/${projectId}/members`).send({ email: 'contractor@alderbay.example', role: 'contractor' });
     const { entries } = await history();
-    expect(entries[0]).toMatchObject({ action: 'add-member', entity: 'project_member', name: 'contractor@alderbay.example', after: { role: 'contractor' } });
+    expect(entries[0]).toMatchObject({
+      action: 'add-member',
+      entity: 'project_member',
+      name: 'contractor@alderbay.example',
+      after: { role: 'contractor' },
+    });
     expect(entries[1]).toMatchObject({ action: 'convert-units', entity: 'project', before: { units: 'ip' }, after: { units: 'si' } });
-    expect(entries[2]).toMatchObject({ action: 'update', entity: 'project', before: { jurisdiction: null }, after: { jurisdiction: 'Tidewater County' } });
+    expect(entries[2]).toMatchObject({
+      action: 'update',
+      entity: 'project',
+      before: { jurisdiction: null },
+      after: { jurisdiction: 'Tidewater County' },
+    });
   });
 
   it('names the project a copy was made from', async () => {
     const copied = await write(reviewer, 'post', `/api/projects/${projectId}/copy`).send({ name: 'Tidewater Clinic, option B' });
     expect(copied.status).toBe(201);
     const response = await reviewer.agent.get(`/api/projects/${copied.body.id}/history`);
-    expect(response.body.entries).toEqual([expect.objectContaining({ action: 'copy', entity: 'project', name: 'Tidewater Clinic, option B', copiedFrom: { id: projectId, name: 'Tidewater Clinic' } })]);
+    expect(response.body.entries).toEqual([
+      expect.objectContaining({
+        action: 'copy',
+        entity: 'project',
+        name: 'Tidewater Clinic, option B',
+        copiedFrom: { id: projectId, name: 'Tidewater Clinic' },
+      }),
+    ]);
   });
 
   it('writes nothing for a write that was refused', async () => {
-    const count = async () => Number((await database.db('audit_log').where({ project_id: projectId }).count<{ count: string }[]>('* as count'))[0]!.count);
+    const count = async () =>
+      Number((await database.db('audit_log').where({ project_id: projectId }).count<{ count: string }[]>('* as count'))[0]!.count);
     const before = await count();
     const stale = await write(engineer, 'put', `/api/projects/${projectId}/spaces/${spaceId}`).send({ ...exam, version: 1 });
     expect(stale.status).toBe(409);
-    const unknownTag = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ ...exam, luminaires: [{ tag: 'Z', count: 1 }] });
+    const unknownTag = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      ...exam,
+      luminaires: [{ tag: 'Z', count: 1 }],
+    });
     expect(unknownTag.status).toBe(400);
     expect(await count()).toBe(before);
   });
@@ -131,7 +181,12 @@ describe('the audit trail', () => {
     expect((await engineer.agent.get(`/api/projects/${projectId}/history?since=yesterday`)).status).toBe(400);
     const stranger = await signIn(app, 'admin@alderbay.example');
     expect((await stranger.agent.get(`/api/projects/${projectId}/history`)).status).toBe(200);
-    const outsider = await write(engineer, 'post', '/api/projects').send({ name: 'Other', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
+    const outsider = await write(engineer, 'post', '/api/projects').send({
+      name: 'Other',
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+    });
     expect((await reviewer.agent.get(`/api/projects/${outsider.body.id}/history`)).status).toBe(403);
   });
 });
@@ -167,7 +222,11 @@ describe('restoring what was deleted', () => {
   });
 
   it('refuses to bring back a luminaire type whose tag has been taken since', async () => {
-    const type = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'Q', inputWatts: '12', use: 'general' });
+    const type = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({
+      tag: 'Q',
+      inputWatts: '12',
+      use: 'general',
+    });
     await write(engineer, 'delete', `/api/projects/${projectId}/luminaire-types/${type.body.id}?version=1`);
     await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'Q', inputWatts: '14', use: 'general' });
     const restored = await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types/${type.body.id}/restore`);
@@ -178,7 +237,10 @@ describe('restoring what was deleted', () => {
   it('refuses a delete older than 30 days', async () => {
     const created = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ ...exam, name: 'Old room' });
     await write(engineer, 'delete', `/api/projects/${projectId}/spaces/${created.body.id}?version=1`);
-    await database.db('audit_log').where({ entity_id: created.body.id, action: 'delete' }).update({ at: database.db.raw("now() - interval '31 days'") });
+    await database
+      .db('audit_log')
+      .where({ entity_id: created.body.id, action: 'delete' })
+      .update({ at: database.db.raw("now() - interval '31 days'") });
     expect((await history(`?spaceId=${created.body.id}`)).entries[0]!.restorable).toBe(false);
     const restored = await write(engineer, 'post', `/api/projects/${projectId}/spaces/${created.body.id}/restore`);
     expect(restored.status).toBe(409);
@@ -188,13 +250,19 @@ describe('restoring what was deleted', () => {
 
 describe('archiving a project', () => {
   it('keeps it out of the list, read-only, until it is brought back', async () => {
-    const target = await write(engineer, 'post', '/api/projects').send({ name: 'Boathouse', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
+    const target = await write(engineer, 'post', '/api/projects').send({
+      name: 'Boathouse',
+      edition: 'iecc-2021',
+      method: 'space-by-space',
+      units: 'ip',
+    });
     const id = target.body.id;
     expect((await write(contractor, 'post', `/api/projects/${id}/archive`)).status).toBe(403);
     const archived = await write(engineer, 'post', `/api/projects/${id}/archive`);
     expect(archived.status).toBe(200);
     expect(archived.body.archivedAt).toEqual(expect.any(String));
-    const names = async (query: string) => (await engineer.agent.get(`/api/projects${query}`)).body.map((project: { name: string }) => project.name);
+    const names = async (query: string) =>
+      (await engineer.agent.get(`/api/projects${query}`)).body.map((project: { name: string }) => project.name);
     expect(await names('')).not.toContain('Boathouse');
     expect(await names('?archived=true')).toEqual(['Boathouse']);
     const refused = await write(engineer, 'post', `/api/projects/${id}/spaces`).send({ ...exam, luminaires: [] });

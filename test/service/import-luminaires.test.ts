@@ -29,18 +29,35 @@ async function newProject(name: string): Promise<string> {
 
 // Invented schedule and rooms; the space types are rows of IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data.
 const types = [
-  { tag: 'H1', description: 'High-bay', inputWatts: '151.5', use: 'general', manufacturer: 'Invented Lighting Co.', catalogNumber: 'HB-150' },
+  {
+    tag: 'H1',
+    description: 'High-bay',
+    inputWatts: '151.5',
+    use: 'general',
+    manufacturer: 'Invented Lighting Co.',
+    catalogNumber: 'HB-150',
+  },
   { tag: 'X1', description: 'Exit sign', inputWatts: '2', use: 'exempt', exemptReason: 'Exit sign' },
 ];
 const spaces = [
-  { name: 'Apparatus bay', spaceType: 'emergency-vehicle-garage', area: '3000', luminaires: [{ tag: 'H1', count: '10' }, { tag: 'X1', count: '2' }] },
+  {
+    name: 'Apparatus bay',
+    spaceType: 'emergency-vehicle-garage',
+    area: '3000',
+    luminaires: [
+      { tag: 'H1', count: '10' },
+      { tag: 'X1', count: '2' },
+    ],
+  },
   { name: 'Hose store', spaceType: 'storage-room', area: '200', luminaires: [{ tag: 'H1', count: '1' }] },
 ];
 
 describe('POST /api/projects/:id/spaces/bulk with luminaire types', () => {
   it('creates the types and the spaces that count them in one step, and audits each type as a create', async () => {
     const projectId = await newProject('Station 9');
-    const response = await write('post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'station-9').send({ spaces, luminaireTypes: types });
+    const response = await write('post', `/api/projects/${projectId}/spaces/bulk`)
+      .set('Idempotency-Key', 'station-9')
+      .send({ spaces, luminaireTypes: types });
     expect(response.status).toBe(201);
     expect(response.body.map((space: { name: string }) => space.name)).toEqual(['Apparatus bay', 'Hose store']);
     expect(response.body[0].luminaires).toMatchObject([
@@ -63,7 +80,9 @@ describe('POST /api/projects/:id/spaces/bulk with luminaire types', () => {
     expect(results.interior.spaces.find((space: { name: string }) => space.name === 'Apparatus bay').installedW).toBe('1515');
 
     // A retry of the same import (same key, same body) returns the spaces and creates nothing twice.
-    const retry = await write('post', `/api/projects/${projectId}/spaces/bulk`).set('Idempotency-Key', 'station-9').send({ spaces, luminaireTypes: types });
+    const retry = await write('post', `/api/projects/${projectId}/spaces/bulk`)
+      .set('Idempotency-Key', 'station-9')
+      .send({ spaces, luminaireTypes: types });
     expect(retry.status).toBe(201);
     expect(retry.body.map((space: { id: string }) => space.id)).toEqual(response.body.map((space: { id: string }) => space.id));
     expect((await engineer.agent.get(`/api/projects/${projectId}/luminaire-types`)).body).toHaveLength(2);
@@ -76,24 +95,37 @@ describe('POST /api/projects/:id/spaces/bulk with luminaire types', () => {
 
   it('refuses a tag the project already has with a 409 naming it, and imports nothing', async () => {
     const projectId = await newProject('Station 10');
-    expect((await write('post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'H1', inputWatts: '99', use: 'general' })).status).toBe(201);
+    expect(
+      (await write('post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'H1', inputWatts: '99', use: 'general' })).status,
+    ).toBe(201);
     const response = await write('post', `/api/projects/${projectId}/spaces/bulk`).send({ spaces, luminaireTypes: types });
     expect(response.status).toBe(409);
     expect(response.body.error.message).toContain('"H1"');
     expect(response.body.error.details).toEqual([{ path: 'luminaireTypes.0.tag', message: 'Tags are unique within a project.' }]);
     expect((await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body).toEqual([]);
-    expect((await engineer.agent.get(`/api/projects/${projectId}/luminaire-types`)).body.map((type: { tag: string }) => type.tag)).toEqual(['H1']);
+    expect((await engineer.agent.get(`/api/projects/${projectId}/luminaire-types`)).body.map((type: { tag: string }) => type.tag)).toEqual([
+      'H1',
+    ]);
   });
 
   it('says which imported type is wrong: a tag twice, exempt lighting without its reason, a count of an undefined tag', async () => {
     const projectId = await newProject('Station 11');
-    const twice = await write('post', `/api/projects/${projectId}/spaces/bulk`).send({ spaces, luminaireTypes: [types[0], { ...types[0], description: 'Again' }, types[1]] });
+    const twice = await write('post', `/api/projects/${projectId}/spaces/bulk`).send({
+      spaces,
+      luminaireTypes: [types[0], { ...types[0], description: 'Again' }, types[1]],
+    });
     expect(twice.status).toBe(400);
     expect(twice.body.error.details.map((detail: { path: string }) => detail.path)).toContain('luminaireTypes.1.tag');
 
-    const noReason = await write('post', `/api/projects/${projectId}/spaces/bulk`).send({ spaces, luminaireTypes: [types[0], { tag: 'X1', inputWatts: '2', use: 'exempt' }] });
+    const noReason = await write('post', `/api/projects/${projectId}/spaces/bulk`).send({
+      spaces,
+      luminaireTypes: [types[0], { tag: 'X1', inputWatts: '2', use: 'exempt' }],
+    });
     expect(noReason.status).toBe(400);
-    expect(noReason.body.error.details).toContainEqual({ path: 'luminaireTypes.1.exemptReason', message: 'Exempt lighting needs the reason it is exempt.' });
+    expect(noReason.body.error.details).toContainEqual({
+      path: 'luminaireTypes.1.exemptReason',
+      message: 'Exempt lighting needs the reason it is exempt.',
+    });
 
     const unknownTag = await write('post', `/api/projects/${projectId}/spaces/bulk`).send({ spaces, luminaireTypes: [types[0]] });
     expect(unknownTag.status).toBe(400);

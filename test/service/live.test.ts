@@ -20,10 +20,20 @@ interface Session {
 }
 
 async function signIn(email: string): Promise<Session> {
-  const response = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email, password: inject('demoPassword') }) });
+  const response = await fetch(`${base}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password: inject('demoPassword') }),
+  });
   expect(response.status).toBe(200);
   const body = (await response.json()) as { csrfToken: string };
-  return { cookie: response.headers.getSetCookie().map((line) => line.split(';')[0]).join('; '), csrf: body.csrfToken };
+  return {
+    cookie: response.headers
+      .getSetCookie()
+      .map((line) => line.split(';')[0])
+      .join('; '),
+    csrf: body.csrfToken,
+  };
 }
 
 async function call(who: Session, method: string, path: string, body?: unknown): Promise<Response> {
@@ -57,7 +67,12 @@ function events(response: Response) {
       while ((end = buffer.indexOf('\n\n')) !== -1) {
         const block = buffer.slice(0, end);
         buffer = buffer.slice(end + 2);
-        const fields = Object.fromEntries(block.split('\n').filter((line) => !line.startsWith(':')).map((line) => [line.slice(0, line.indexOf(':')), line.slice(line.indexOf(':') + 1).trim()]));
+        const fields = Object.fromEntries(
+          block
+            .split('\n')
+            .filter((line) => !line.startsWith(':'))
+            .map((line) => [line.slice(0, line.indexOf(':')), line.slice(line.indexOf(':') + 1).trim()]),
+        );
         if (fields['event']) seen.push({ event: fields['event'], data: fields['data'] ?? '' });
       }
     }
@@ -78,9 +93,17 @@ beforeAll(async () => {
   engineer = await signIn('engineer@alderbay.example');
   reviewer = await signIn('reviewer@alderbay.example');
   contractor = await signIn('contractor@alderbay.example');
-  const created = await call(engineer, 'POST', '/api/projects', { name: 'Harbour Depot', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2 });
+  const created = await call(engineer, 'POST', '/api/projects', {
+    name: 'Harbour Depot',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    lightingZone: 2,
+  });
   projectId = ((await created.json()) as { id: string }).id;
-  expect((await call(engineer, 'POST', `/api/projects/${projectId}/members`, { email: 'reviewer@alderbay.example', role: 'reviewer' })).status).toBeLessThan(300);
+  expect(
+    (await call(engineer, 'POST', `/api/projects/${projectId}/members`, { email: 'reviewer@alderbay.example', role: 'reviewer' })).status,
+  ).toBeLessThan(300);
 });
 
 afterAll(async () => {
@@ -91,18 +114,31 @@ afterAll(async () => {
 
 describe('the project change stream', () => {
   it('tells a watching member of each committed write by someone else, with no design data in it', async () => {
-    const response = await fetch(`${base}/api/projects/${projectId}/events`, { headers: { Cookie: reviewer.cookie, Accept: 'text/event-stream' } });
+    const response = await fetch(`${base}/api/projects/${projectId}/events`, {
+      headers: { Cookie: reviewer.cookie, Accept: 'text/event-stream' },
+    });
     expect(response.status).toBe(200);
     expect(response.headers.get('content-type')).toMatch(/^text\/event-stream/);
     const stream = events(response);
     await stream.next('ready');
 
-    const type = await call(engineer, 'POST', `/api/projects/${projectId}/luminaire-types`, { tag: 'HB', inputWatts: '150', use: 'general' });
+    const type = await call(engineer, 'POST', `/api/projects/${projectId}/luminaire-types`, {
+      tag: 'HB',
+      inputWatts: '150',
+      use: 'general',
+    });
     expect(type.status).toBe(201);
     const change = await stream.next('change');
     expect(JSON.parse(change.data)).toEqual({ entity: 'luminaire-type', action: expect.any(String) });
 
-    const space = await call(engineer, 'POST', `/api/projects/${projectId}/spaces`, { name: 'Bay 1', level: 'Ground', spaceType: 'office-enclosed', area: '200', luminaires: [{ tag: 'HB', count: 1 }], windows: [] });
+    const space = await call(engineer, 'POST', `/api/projects/${projectId}/spaces`, {
+      name: 'Bay 1',
+      level: 'Ground',
+      spaceType: 'office-enclosed',
+      area: '200',
+      luminaires: [{ tag: 'HB', count: 1 }],
+      windows: [],
+    });
     expect(space.status).toBe(201);
     expect(JSON.parse((await stream.next('change')).data).entity).toBe('space');
     await stream.cancel();
@@ -114,11 +150,20 @@ describe('the project change stream', () => {
     const stream = events(response);
     await stream.next('ready');
     // A space type the edition does not have: refused before anything is written.
-    const refused = await call(engineer, 'POST', `/api/projects/${projectId}/spaces`, { name: 'Bay 2', level: 'Ground', spaceType: 'no-such-type', area: '200', luminaires: [], windows: [] });
+    const refused = await call(engineer, 'POST', `/api/projects/${projectId}/spaces`, {
+      name: 'Bay 2',
+      level: 'Ground',
+      spaceType: 'no-such-type',
+      area: '200',
+      luminaires: [],
+      windows: [],
+    });
     expect(refused.status).toBe(400);
     await expect(stream.next('change', 1_500)).rejects.toThrow(/no "change" event/);
     // The next good write is the next event.
-    expect((await call(engineer, 'POST', `/api/projects/${projectId}/luminaire-types`, { tag: 'LB', inputWatts: '40', use: 'general' })).status).toBe(201);
+    expect(
+      (await call(engineer, 'POST', `/api/projects/${projectId}/luminaire-types`, { tag: 'LB', inputWatts: '40', use: 'general' })).status,
+    ).toBe(201);
     expect(JSON.parse((await stream.next('change')).data).entity).toBe('luminaire-type');
     await stream.cancel();
   });

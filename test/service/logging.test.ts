@@ -37,7 +37,9 @@ interface LoggedRequest {
 describe('request log', () => {
   it('keeps session cookies, CSRF tokens and authorization headers out of the lines of a failing request', async () => {
     const { app, lines } = appWithCapturedLog();
-    const login = await request(app).post('/api/auth/login').send({ email: 'engineer@alderbay.example', password: inject('demoPassword') });
+    const login = await request(app)
+      .post('/api/auth/login')
+      .send({ email: 'engineer@alderbay.example', password: inject('demoPassword') });
     const cookie = (login.headers['set-cookie'] as unknown as string[])[0]!.split(';')[0]!;
     const token = cookie.slice('allowlight_session='.length);
     const csrf: string = login.body.csrfToken;

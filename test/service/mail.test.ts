@@ -33,11 +33,14 @@ async function freePort(): Promise<number> {
 
 /** Every message the local server kept, parsed, oldest first. */
 async function received(): Promise<ParsedMail[]> {
-  const files = readdirSync(mailDir).filter((name) => name.endsWith('.eml')).sort();
+  const files = readdirSync(mailDir)
+    .filter((name) => name.endsWith('.eml'))
+    .sort();
   return Promise.all(files.map((name) => simpleParser(readFileSync(path.join(mailDir, name)))));
 }
 
-const recipients = (mail: ParsedMail): string[] => [mail.to ?? []].flat().flatMap((to: AddressObject) => to.value.map((entry) => entry.address ?? ''));
+const recipients = (mail: ParsedMail): string[] =>
+  [mail.to ?? []].flat().flatMap((to: AddressObject) => to.value.map((entry) => entry.address ?? ''));
 const tokenIn = (mail: ParsedMail): string => /reset-password\?token=([\w-]+)/.exec(mail.text ?? '')?.[1] ?? '';
 
 beforeAll(async () => {
@@ -93,9 +96,15 @@ describe('a forgotten password', () => {
     await signIn(app, 'reviewer@alderbay.example', strongPassword);
     await request(app).post('/api/auth/login').send({ email: 'reviewer@alderbay.example', password: 'wrong password here' }).expect(401);
 
-    const again = await request(app).post('/api/auth/password-reset/complete').send({ token, password: 'another violet harbour 7' }).expect(400);
+    const again = await request(app)
+      .post('/api/auth/password-reset/complete')
+      .send({ token, password: 'another violet harbour 7' })
+      .expect(400);
     expect(again.body.error.code).toBe('invalid_token');
-    const made = await request(app).post('/api/auth/password-reset/complete').send({ token: 'made-up-token', password: strongPassword }).expect(400);
+    const made = await request(app)
+      .post('/api/auth/password-reset/complete')
+      .send({ token: 'made-up-token', password: strongPassword })
+      .expect(400);
     expect(made.body.error.code).toBe('invalid_token');
 
     await sender.drain();
@@ -103,7 +112,11 @@ describe('a forgotten password', () => {
     expect(notice.subject).toBe('Your Allowlight password was changed');
     expect(recipients(notice)).toEqual(['reviewer@alderbay.example']);
 
-    const audit = await database.db('audit_log').whereIn('action', ['password-reset-requested', 'password-reset']).orderBy('id').pluck('action');
+    const audit = await database
+      .db('audit_log')
+      .whereIn('action', ['password-reset-requested', 'password-reset'])
+      .orderBy('id')
+      .pluck('action');
     expect(audit).toEqual(['password-reset-requested', 'password-reset']);
     // Only the token's digest is stored.
     expect(await database.db('password_resets').where({ token_hash: token }).first()).toBeUndefined();
@@ -154,7 +167,9 @@ describe('the outbox', () => {
       expect(queued.last_error).toMatch(/ECONNREFUSED|connect/i);
       // The reset itself was committed: its token is live although no mail went out.
       const contractor = await database.db('users').where({ email: 'contractor@alderbay.example' }).first('id');
-      expect(await database.db('password_resets').where({ user_id: contractor!.id }).whereNull('used_at').count({ n: '*' })).toEqual([{ n: '1' }]);
+      expect(await database.db('password_resets').where({ user_id: contractor!.id }).whereNull('used_at').count({ n: '*' })).toEqual([
+        { n: '1' },
+      ]);
 
       const back = await startMailCatcher({ dir: mailDir, port });
       try {
@@ -167,7 +182,11 @@ describe('the outbox', () => {
       const after = await received();
       expect(after).toHaveLength(count + 1);
       expect(recipients(after.at(-1)!)).toEqual(['contractor@alderbay.example']);
-      expect(await database.db('mail_outbox').where({ id: queued.id }).first()).toMatchObject({ status: 'sent', attempts: 2, last_error: null });
+      expect(await database.db('mail_outbox').where({ id: queued.id }).first()).toMatchObject({
+        status: 'sent',
+        attempts: 2,
+        last_error: null,
+      });
     } finally {
       await down.stop();
     }
@@ -176,7 +195,13 @@ describe('the outbox', () => {
   it('shows a message that keeps failing as failed, to administrators only', async () => {
     const down = new MailSender(database.db, { ...mailSettingsFrom(config), port: await freePort(), retryBaseMs: 1 });
     try {
-      await database.db('mail_outbox').insert({ kind: 'password-changed', recipients: ['someone@alderbay.example'], subject: 'Undeliverable', text_body: 'Text', html_body: '<p>Text</p>' });
+      await database.db('mail_outbox').insert({
+        kind: 'password-changed',
+        recipients: ['someone@alderbay.example'],
+        subject: 'Undeliverable',
+        text_body: 'Text',
+        html_body: '<p>Text</p>',
+      });
       for (let attempt = 0; attempt < 3; attempt += 1) {
         await new Promise((resolve) => setTimeout(resolve, 5));
         await down.drain();
@@ -185,7 +210,13 @@ describe('the outbox', () => {
       await down.stop();
     }
     const admin = await signIn(app, 'admin@alderbay.example');
-    const list = (await admin.agent.get('/api/admin/outbox').expect(200)).body as { id: string; subject: string; status: string; attempts: number; lastError: string | null }[];
+    const list = (await admin.agent.get('/api/admin/outbox').expect(200)).body as {
+      id: string;
+      subject: string;
+      status: string;
+      attempts: number;
+      lastError: string | null;
+    }[];
     const failed = list.find((entry) => entry.subject === 'Undeliverable')!;
     expect(failed).toMatchObject({ status: 'failed', attempts: 3 });
     expect(failed.lastError).toBeTruthy();

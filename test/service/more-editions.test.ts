@@ -45,7 +45,12 @@ function buildingArea(edition: string, office: string, warehouse: string) {
   };
 }
 
-async function allowance(document: object): Promise<{ allowanceW: string; installedW: string; spaces: Array<{ allowanceW: string; allowedLpd: string }>; body: Record<string, unknown> }> {
+async function allowance(document: object): Promise<{
+  allowanceW: string;
+  installedW: string;
+  spaces: Array<{ allowanceW: string; allowedLpd: string }>;
+  body: Record<string, unknown>;
+}> {
   const response = await evaluate(document);
   expect(response.status, JSON.stringify(response.body.error)).toBe(200);
   expect(evaluationResultSchema.safeParse(response.body).success).toBe(true);
@@ -56,9 +61,32 @@ describe('POST /api/evaluate under ASHRAE 90.1-2016', () => {
   it('space by space: an open office and an atrium allowed by its height', async () => {
     const result = await allowance(
       spaceBySpace('ashrae-90.1-2016', [
-        { id: 's1', name: 'Open office', spaceType: 'office-open-plan', area: '1000', luminaires: [{ tag: 'A', count: 18 }], controls: fullOff },
-        { id: 's2', name: 'Atrium', spaceType: 'atrium-ge-20-ft-and-le-40-ft-in-height', area: '2000', ceilingHeight: '30', luminaires: [{ tag: 'A', count: 40 }], controls: fullOff },
-        { id: 's3', name: 'Tall atrium', spaceType: 'atrium-gt-40-ft-in-height', area: '1000', ceilingHeight: '50', luminaires: [{ tag: 'A', count: 30 }], controls: fullOff },
+        {
+          id: 's1',
+          name: 'Open office',
+          spaceType: 'office-open-plan',
+          area: '1000',
+          luminaires: [{ tag: 'A', count: 18 }],
+          controls: fullOff,
+        },
+        {
+          id: 's2',
+          name: 'Atrium',
+          spaceType: 'atrium-ge-20-ft-and-le-40-ft-in-height',
+          area: '2000',
+          ceilingHeight: '30',
+          luminaires: [{ tag: 'A', count: 40 }],
+          controls: fullOff,
+        },
+        {
+          id: 's3',
+          name: 'Tall atrium',
+          spaceType: 'atrium-gt-40-ft-in-height',
+          area: '1000',
+          ceilingHeight: '50',
+          luminaires: [{ tag: 'A', count: 30 }],
+          controls: fullOff,
+        },
       ]),
     );
     // ASHRAE 90.1-2016 Table 9.6.1, via PNNL building-energy-standards-data: open office 0.81 W/ft² × 1,000 ft² = 810 W.
@@ -72,7 +100,9 @@ describe('POST /api/evaluate under ASHRAE 90.1-2016', () => {
     expect(result.allowanceW).toBe('4010');
     expect(result.installedW).toBe('3520'); // (18 + 40 + 30) × 40 W
     const unverified = (result.body['unverifiedValues'] as Array<{ what: string }>).map((value) => value.what);
-    expect(unverified).toEqual(expect.arrayContaining(['Space type LPD: Atrium — ≥ 20 ft and ≤ 40 ft in height', 'Space type LPD: Atrium — > 40 ft in height']));
+    expect(unverified).toEqual(
+      expect.arrayContaining(['Space type LPD: Atrium — ≥ 20 ft and ≤ 40 ft in height', 'Space type LPD: Atrium — > 40 ft in height']),
+    );
   });
 
   it('building area: office and warehouse', async () => {
@@ -85,7 +115,21 @@ describe('POST /api/evaluate under ASHRAE 90.1-2016', () => {
   it('gives the same atrium allowance for the same room in SI', async () => {
     // 2,000 ft² = 185.80608 m² and 30 ft = 9.144 m exactly (1 ft = 0.3048 m).
     const result = await allowance(
-      spaceBySpace('ashrae-90.1-2016', [{ id: 's2', name: 'Atrium', spaceType: 'atrium-ge-20-ft-and-le-40-ft-in-height', area: '185.80608', ceilingHeight: '9.144', luminaires: [{ tag: 'A', count: 40 }], controls: fullOff }], 'si'),
+      spaceBySpace(
+        'ashrae-90.1-2016',
+        [
+          {
+            id: 's2',
+            name: 'Atrium',
+            spaceType: 'atrium-ge-20-ft-and-le-40-ft-in-height',
+            area: '185.80608',
+            ceilingHeight: '9.144',
+            luminaires: [{ tag: 'A', count: 40 }],
+            controls: fullOff,
+          },
+        ],
+        'si',
+      ),
     );
     expect(result.allowanceW).toBe('1800');
   });
@@ -95,8 +139,23 @@ describe('POST /api/evaluate under ASHRAE 90.1-2013', () => {
   it('space by space: an open office and a low atrium', async () => {
     const result = await allowance(
       spaceBySpace('ashrae-90.1-2013', [
-        { id: 's1', name: 'Open office', spaceType: 'office-open-plan', area: '1000', luminaires: [{ tag: 'A', count: 20 }], controls: fullOff },
-        { id: 's2', name: 'Atrium', spaceType: 'atrium-that-is-lt-20-ft-in-height', area: '1000', ceilingHeight: '15', luminaires: [{ tag: 'A', count: 10 }], controls: fullOff },
+        {
+          id: 's1',
+          name: 'Open office',
+          spaceType: 'office-open-plan',
+          area: '1000',
+          luminaires: [{ tag: 'A', count: 20 }],
+          controls: fullOff,
+        },
+        {
+          id: 's2',
+          name: 'Atrium',
+          spaceType: 'atrium-that-is-lt-20-ft-in-height',
+          area: '1000',
+          ceilingHeight: '15',
+          luminaires: [{ tag: 'A', count: 10 }],
+          controls: fullOff,
+        },
       ]),
     );
     // ASHRAE 90.1-2013 Table 9.6.1, via PNNL building-energy-standards-data: open office 0.98 × 1,000 = 980 W;
@@ -117,7 +176,14 @@ describe('POST /api/evaluate under IECC 2018', () => {
     const result = await allowance(
       spaceBySpace('iecc-2018', [
         { id: 's1', name: 'Office', spaceType: 'office-enclosed', area: '200', enclosed: true, luminaires: [{ tag: 'A', count: 4 }] },
-        { id: 's2', name: 'Atrium', spaceType: 'atrium-greater-than-40-feet-in-height', area: '1500', ceilingHeight: '45', luminaires: [{ tag: 'A', count: 40 }] },
+        {
+          id: 's2',
+          name: 'Atrium',
+          spaceType: 'atrium-greater-than-40-feet-in-height',
+          area: '1500',
+          ceilingHeight: '45',
+          luminaires: [{ tag: 'A', count: 40 }],
+        },
       ]),
     );
     // IECC 2018 Table C405.3.2(2), via PNNL building-energy-standards-data: enclosed office 0.93 × 200 = 186 W;
@@ -157,32 +223,102 @@ describe('POST /api/evaluate under IECC 2024', () => {
 
 describe('an atrium whose allowance depends on its height', () => {
   it('is refused without the ceiling height, naming the field', async () => {
-    const response = await evaluate(spaceBySpace('ashrae-90.1-2016', [{ id: 's2', name: 'Atrium', spaceType: 'atrium-gt-40-ft-in-height', area: '1000', luminaires: [{ tag: 'A', count: 10 }] }]));
+    const response = await evaluate(
+      spaceBySpace('ashrae-90.1-2016', [
+        { id: 's2', name: 'Atrium', spaceType: 'atrium-gt-40-ft-in-height', area: '1000', luminaires: [{ tag: 'A', count: 10 }] },
+      ]),
+    );
     expect(response.status).toBe(400);
-    expect(response.body.error.details).toEqual([{ path: 'spaces.0.ceilingHeight', message: "The atrium's allowance depends on its height: give the ceiling height." }]);
+    expect(response.body.error.details).toEqual([
+      { path: 'spaces.0.ceilingHeight', message: "The atrium's allowance depends on its height: give the ceiling height." },
+    ]);
   });
 
   it('is refused on the row for another height, in the project’s units', async () => {
-    const ip = await evaluate(spaceBySpace('ashrae-90.1-2016', [{ id: 's2', name: 'Atrium', spaceType: 'atrium-gt-40-ft-in-height', area: '1000', ceilingHeight: '30', luminaires: [{ tag: 'A', count: 10 }] }]));
+    const ip = await evaluate(
+      spaceBySpace('ashrae-90.1-2016', [
+        {
+          id: 's2',
+          name: 'Atrium',
+          spaceType: 'atrium-gt-40-ft-in-height',
+          area: '1000',
+          ceilingHeight: '30',
+          luminaires: [{ tag: 'A', count: 10 }],
+        },
+      ]),
+    );
     expect(ip.status).toBe(400);
-    expect(ip.body.error.details).toEqual([{ path: 'spaces.0.ceilingHeight', message: 'This space type is for atria more than 40 ft high; choose the atrium row for a height of 30 ft.' }]);
+    expect(ip.body.error.details).toEqual([
+      {
+        path: 'spaces.0.ceilingHeight',
+        message: 'This space type is for atria more than 40 ft high; choose the atrium row for a height of 30 ft.',
+      },
+    ]);
     // 40 ft = 12.192 m and 20 ft = 6.096 m exactly (1 ft = 0.3048 m).
-    const si = await evaluate(spaceBySpace('ashrae-90.1-2016', [{ id: 's2', name: 'Atrium', spaceType: 'atrium-ge-20-ft-and-le-40-ft-in-height', area: '100', ceilingHeight: '4', luminaires: [{ tag: 'A', count: 10 }] }], 'si'));
-    expect(si.body.error.details).toEqual([{ path: 'spaces.0.ceilingHeight', message: 'This space type is for atria at least 6.096 m and at most 12.192 m high; choose the atrium row for a height of 4 m.' }]);
+    const si = await evaluate(
+      spaceBySpace(
+        'ashrae-90.1-2016',
+        [
+          {
+            id: 's2',
+            name: 'Atrium',
+            spaceType: 'atrium-ge-20-ft-and-le-40-ft-in-height',
+            area: '100',
+            ceilingHeight: '4',
+            luminaires: [{ tag: 'A', count: 10 }],
+          },
+        ],
+        'si',
+      ),
+    );
+    expect(si.body.error.details).toEqual([
+      {
+        path: 'spaces.0.ceilingHeight',
+        message: 'This space type is for atria at least 6.096 m and at most 12.192 m high; choose the atrium row for a height of 4 m.',
+      },
+    ]);
   });
 
   it('is refused when a project space is stored without the height, so the project stays evaluable', async () => {
-    const created = await write('post', '/api/projects').send({ name: 'Heron Hall', edition: 'ashrae-90.1-2016', method: 'space-by-space', units: 'ip' });
+    const created = await write('post', '/api/projects').send({
+      name: 'Heron Hall',
+      edition: 'ashrae-90.1-2016',
+      method: 'space-by-space',
+      units: 'ip',
+    });
     expect(created.status).toBe(201);
-    const space = await write('post', `/api/projects/${created.body.id}/spaces`).send({ name: 'Atrium', spaceType: 'atrium-lt-20-ft-in-height', area: '800' });
+    const space = await write('post', `/api/projects/${created.body.id}/spaces`).send({
+      name: 'Atrium',
+      spaceType: 'atrium-lt-20-ft-in-height',
+      area: '800',
+    });
     expect(space.status).toBe(400);
-    expect(space.body.error.details).toEqual([{ path: 'ceilingHeight', message: "The atrium's allowance depends on its height: give the ceiling height." }]);
-    const withHeight = await write('post', `/api/projects/${created.body.id}/spaces`).send({ name: 'Atrium', spaceType: 'atrium-lt-20-ft-in-height', area: '800', ceilingHeight: '18' });
+    expect(space.body.error.details).toEqual([
+      { path: 'ceilingHeight', message: "The atrium's allowance depends on its height: give the ceiling height." },
+    ]);
+    const withHeight = await write('post', `/api/projects/${created.body.id}/spaces`).send({
+      name: 'Atrium',
+      spaceType: 'atrium-lt-20-ft-in-height',
+      area: '800',
+      ceilingHeight: '18',
+    });
     expect(withHeight.status).toBe(201);
   });
 
   it('needs no height under the building area method, which reads the building area type', async () => {
-    const response = await evaluate({ ...buildingArea('ashrae-90.1-2016', 'office', 'warehouse'), spaces: [{ id: 'b1', name: 'Offices', buildingAreaType: 'office', spaceType: 'atrium-gt-40-ft-in-height', area: '1000', luminaires: [{ tag: 'A', count: 10 }] }] });
+    const response = await evaluate({
+      ...buildingArea('ashrae-90.1-2016', 'office', 'warehouse'),
+      spaces: [
+        {
+          id: 'b1',
+          name: 'Offices',
+          buildingAreaType: 'office',
+          spaceType: 'atrium-gt-40-ft-in-height',
+          area: '1000',
+          luminaires: [{ tag: 'A', count: 10 }],
+        },
+      ],
+    });
     expect(response.status).toBe(200);
   });
 });

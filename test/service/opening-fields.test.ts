@@ -11,10 +11,20 @@ beforeAll(async () => {
   database = await freshDatabase();
   const { app } = testApp(database.db, database.url);
   engineer = await signIn(app, 'engineer@alderbay.example');
-  const created = await write('post', '/api/projects').send({ name: 'Harbor Studio', edition: 'ashrae-90.1-2019', method: 'space-by-space', units: 'ip' });
+  const created = await write('post', '/api/projects').send({
+    name: 'Harbor Studio',
+    edition: 'ashrae-90.1-2019',
+    method: 'space-by-space',
+    units: 'ip',
+  });
   expect(created.status).toBe(201);
   projectId = created.body.id;
-  const type = await write('post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'P', description: 'linear pendant', inputWatts: '50', use: 'general' });
+  const type = await write('post', `/api/projects/${projectId}/luminaire-types`).send({
+    tag: 'P',
+    description: 'linear pendant',
+    inputWatts: '50',
+    use: 'general',
+  });
   expect(type.status).toBe(201);
 });
 
@@ -47,7 +57,9 @@ describe('window and skylight daylight fields', () => {
       skylights: [{ length: '4', width: '4', visibleTransmittance: 0.5, daylightBlocked: true }],
     });
     expect(created.status).toBe(201);
-    expect(created.body.windows).toEqual([{ width: '10', headHeight: '8', sillHeight: '3', wall: 'south', visibleTransmittance: '0.62', daylightBlocked: false }]);
+    expect(created.body.windows).toEqual([
+      { width: '10', headHeight: '8', sillHeight: '3', wall: 'south', visibleTransmittance: '0.62', daylightBlocked: false },
+    ]);
     expect(created.body.skylights).toEqual([{ length: '4', width: '4', visibleTransmittance: '0.5', daylightBlocked: true }]);
     spaceId = created.body.id;
 
@@ -57,15 +69,23 @@ describe('window and skylight daylight fields', () => {
   });
 
   it('a blank stays blank, and the results say what it decides', async () => {
-    const patched = await write('patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 1, windows: [{ width: '10', headHeight: '8', sillHeight: '3', wall: 'south' }] });
+    const patched = await write('patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({
+      version: 1,
+      windows: [{ width: '10', headHeight: '8', sillHeight: '3', wall: 'south' }],
+    });
     expect(patched.status).toBe(200);
     expect(patched.body.windows).toEqual([{ width: '10', headHeight: '8', sillHeight: '3', wall: 'south' }]);
     const results = await engineer.agent.get(`/api/projects/${projectId}/results`);
-    const sidelighting = results.body.interior.spaces[0].controls.find((line: { strategy: string }) => line.strategy === 'daylight-sidelighting');
+    const sidelighting = results.body.interior.spaces[0].controls.find(
+      (line: { strategy: string }) => line.strategy === 'daylight-sidelighting',
+    );
     expect(sidelighting.status).toBe('to-verify');
     expect(sidelighting.reason).toContain('whether an adjacent structure blocks the daylight of window 1 (south wall) is not recorded');
 
-    const blocked = await write('patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 2, windows: [{ width: '10', headHeight: '8', sillHeight: '3', wall: 'south', daylightBlocked: true }] });
+    const blocked = await write('patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({
+      version: 2,
+      windows: [{ width: '10', headHeight: '8', sillHeight: '3', wall: 'south', daylightBlocked: true }],
+    });
     expect(blocked.status).toBe(200);
     const after = await engineer.agent.get(`/api/projects/${projectId}/results`);
     const settled = after.body.interior.spaces[0].controls.find((line: { strategy: string }) => line.strategy === 'daylight-sidelighting');
@@ -74,13 +94,27 @@ describe('window and skylight daylight fields', () => {
   });
 
   it('refuses a transmittance outside 0 to 1 with a readable message at its place', async () => {
-    const high = await write('patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 3, windows: [{ width: '10', headHeight: '8', visibleTransmittance: '1.2' }] });
+    const high = await write('patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({
+      version: 3,
+      windows: [{ width: '10', headHeight: '8', visibleTransmittance: '1.2' }],
+    });
     expect(high.status).toBe(400);
-    expect(high.body.error.details).toEqual([{ path: 'windows.0.visibleTransmittance', message: 'Out of range. Enter a number from 0 to 1.' }]);
-    const negative = await write('post', `/api/projects/${projectId}/spaces`).send({ ...office, name: 'Other', skylights: [{ length: '4', width: '4', visibleTransmittance: '-0.1' }] });
+    expect(high.body.error.details).toEqual([
+      { path: 'windows.0.visibleTransmittance', message: 'Out of range. Enter a number from 0 to 1.' },
+    ]);
+    const negative = await write('post', `/api/projects/${projectId}/spaces`).send({
+      ...office,
+      name: 'Other',
+      skylights: [{ length: '4', width: '4', visibleTransmittance: '-0.1' }],
+    });
     expect(negative.status).toBe(400);
-    expect(negative.body.error.details).toEqual([{ path: 'skylights.0.visibleTransmittance', message: expect.stringContaining('from 0 to 1') }]);
-    const notYesNo = await write('patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({ version: 3, windows: [{ width: '10', headHeight: '8', daylightBlocked: 'maybe' }] });
+    expect(negative.body.error.details).toEqual([
+      { path: 'skylights.0.visibleTransmittance', message: expect.stringContaining('from 0 to 1') },
+    ]);
+    const notYesNo = await write('patch', `/api/projects/${projectId}/spaces/${spaceId}`).send({
+      version: 3,
+      windows: [{ width: '10', headHeight: '8', daylightBlocked: 'maybe' }],
+    });
     expect(notYesNo.status).toBe(400);
     expect(notYesNo.body.error.details[0].path).toBe('windows.0.daylightBlocked');
   });

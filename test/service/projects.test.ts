@@ -11,7 +11,10 @@ beforeAll(async () => {
   database = await freshDatabase();
   app = testApp(database.db, database.url).app;
   const engineer = (await database.db('users').where({ email: 'engineer@alderbay.example' }).first('id'))!;
-  const [project] = await database.db('projects').insert({ name: 'Harbour Annex (engineer only)', created_by: engineer.id }).returning('id');
+  const [project] = await database
+    .db('projects')
+    .insert({ name: 'Harbour Annex (engineer only)', created_by: engineer.id })
+    .returning('id');
   privateProjectId = project.id;
   await database.db('project_members').insert({ project_id: privateProjectId, user_id: engineer.id, role: 'engineer' });
 });
@@ -32,7 +35,10 @@ describe('GET /api/projects', () => {
   it('lists every project for an administrator', async () => {
     const { agent } = await signIn(app, 'admin@alderbay.example');
     const response = await agent.get('/api/projects');
-    expect(response.body.map((project: { name: string }) => project.name).sort()).toEqual(['Alder Bay Library & Makerspace', 'Harbour Annex (engineer only)']);
+    expect(response.body.map((project: { name: string }) => project.name).sort()).toEqual([
+      'Alder Bay Library & Makerspace',
+      'Harbour Annex (engineer only)',
+    ]);
   });
 
   it('needs a session', async () => {
@@ -52,7 +58,11 @@ describe('GET /api/projects/:projectId', () => {
   it('shows the project to a member and to an administrator', async () => {
     const engineer = await signIn(app, 'engineer@alderbay.example');
     const admin = await signIn(app, 'admin@alderbay.example');
-    expect((await engineer.agent.get(`/api/projects/${privateProjectId}`)).body).toMatchObject({ id: privateProjectId, role: 'engineer', state: 'draft' });
+    expect((await engineer.agent.get(`/api/projects/${privateProjectId}`)).body).toMatchObject({
+      id: privateProjectId,
+      role: 'engineer',
+      state: 'draft',
+    });
     expect((await admin.agent.get(`/api/projects/${privateProjectId}`)).status).toBe(200);
   });
 
@@ -86,12 +96,15 @@ describe('unknown API routes', () => {
 describe('the verdict kept for the project list', () => {
   it('is not written by reading the results, and follows every design change', async () => {
     const engineer = await signIn(app, 'engineer@alderbay.example');
-    const listed = async (id: string) => (await engineer.agent.get('/api/projects')).body.find((project: { id: string }) => project.id === id).resultSummary;
+    const listed = async (id: string) =>
+      (await engineer.agent.get('/api/projects')).body.find((project: { id: string }) => project.id === id).resultSummary;
     const results = async (id: string) => {
       const { body } = await engineer.agent.get(`/api/projects/${id}/results`).expect(200);
       return { complies: body.complies, verdict: body.verdict, marginPct: body.interior.marginPct, dataVersion: body.dataVersion };
     };
-    const demo = (await engineer.agent.get('/api/projects')).body.find((project: { name: string }) => project.name === 'Alder Bay Library & Makerspace');
+    const demo = (await engineer.agent.get('/api/projects')).body.find(
+      (project: { name: string }) => project.name === 'Alder Bay Library & Makerspace',
+    );
     expect(demo.resultSummary).toBeNull();
 
     // Reading the results stores nothing.
@@ -124,7 +137,10 @@ describe('the verdict kept for the project list', () => {
 
     // A delete and its restore are design changes too.
     const [space] = (await engineer.agent.get(`/api/projects/${demo.id}/spaces`)).body;
-    await engineer.agent.delete(`/api/projects/${demo.id}/spaces/${space.id}?version=${space.version}`).set('X-CSRF-Token', engineer.csrfToken).expect(204);
+    await engineer.agent
+      .delete(`/api/projects/${demo.id}/spaces/${space.id}?version=${space.version}`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .expect(204);
     expect(await listed(demo.id)).toEqual(await results(demo.id));
     expect(await listed(demo.id)).not.toEqual(seeded);
     await engineer.agent.post(`/api/projects/${demo.id}/spaces/${space.id}/restore`).set('X-CSRF-Token', engineer.csrfToken).expect(201);
@@ -132,9 +148,17 @@ describe('the verdict kept for the project list', () => {
 
     // So is a change of the set-up (here of units, which converts the stored design), and a copy starts with its verdict.
     const detail = (await engineer.agent.get(`/api/projects/${demo.id}`)).body;
-    await engineer.agent.patch(`/api/projects/${demo.id}`).set('X-CSRF-Token', engineer.csrfToken).send({ version: detail.version, units: detail.units === 'ip' ? 'si' : 'ip' }).expect(200);
+    await engineer.agent
+      .patch(`/api/projects/${demo.id}`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ version: detail.version, units: detail.units === 'ip' ? 'si' : 'ip' })
+      .expect(200);
     expect(await listed(demo.id)).toEqual(await results(demo.id));
-    const copy = await engineer.agent.post(`/api/projects/${demo.id}/copy`).set('X-CSRF-Token', engineer.csrfToken).send({ name: 'Alder Bay copy for the list' }).expect(201);
+    const copy = await engineer.agent
+      .post(`/api/projects/${demo.id}/copy`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ name: 'Alder Bay copy for the list' })
+      .expect(201);
     expect(await listed(copy.body.id)).toEqual(await results(copy.body.id));
   });
 });

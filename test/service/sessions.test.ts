@@ -50,7 +50,10 @@ describe('GET /api/auth/sessions', () => {
     expect(Date.parse(fromLaptop[0]!.expiresAt)).toBeGreaterThan(Date.now());
 
     const laptopId = fromLaptop.find((session) => session.current)!.id;
-    await database.db('sessions').where({ id: laptopId }).update({ last_seen_at: database.db.raw("now() - interval '10 minutes'") });
+    await database
+      .db('sessions')
+      .where({ id: laptopId })
+      .update({ last_seen_at: database.db.raw("now() - interval '10 minutes'") });
     const fromPhone = await list(phone);
     const phoneId = fromPhone.find((session) => session.current)!.id;
     expect(phoneId).not.toBe(laptopId);

@@ -14,7 +14,10 @@ beforeAll(async () => {
   engineer = await signIn(app, 'engineer@alderbay.example');
   reviewer = await signIn(app, 'reviewer@alderbay.example');
   admin = await signIn(app, 'admin@alderbay.example');
-  const created = await engineer.agent.post('/api/projects').set('X-CSRF-Token', engineer.csrfToken).send({ name: 'Tidewater Pavilion', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
+  const created = await engineer.agent
+    .post('/api/projects')
+    .set('X-CSRF-Token', engineer.csrfToken)
+    .send({ name: 'Tidewater Pavilion', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
   projectId = created.body.id;
 });
 
@@ -22,7 +25,8 @@ afterAll(async () => {
   await database.drop();
 });
 
-const post = (who: SignedInAgent, body: object) => who.agent.post(`/api/projects/${projectId}/members`).set('X-CSRF-Token', who.csrfToken).send(body);
+const post = (who: SignedInAgent, body: object) =>
+  who.agent.post(`/api/projects/${projectId}/members`).set('X-CSRF-Token', who.csrfToken).send(body);
 
 describe('project team', () => {
   it('lets the engineer add a reviewer by e-mail, who then sees the project', async () => {
@@ -48,7 +52,9 @@ describe('project team', () => {
   it('keeps at least one engineer of record', async () => {
     const demote = await post(engineer, { email: 'engineer@alderbay.example', role: 'reviewer' });
     expect(demote.status).toBe(409);
-    const remove = await engineer.agent.delete(`/api/projects/${projectId}/members/${engineer.user.id}`).set('X-CSRF-Token', engineer.csrfToken);
+    const remove = await engineer.agent
+      .delete(`/api/projects/${projectId}/members/${engineer.user.id}`)
+      .set('X-CSRF-Token', engineer.csrfToken);
     expect(remove.status).toBe(409);
   });
 

@@ -26,7 +26,14 @@ function write(who: SignedInAgent, method: 'post' | 'put' | 'patch' | 'delete', 
 }
 
 async function newProject(fields: Record<string, unknown> = {}): Promise<string> {
-  const created = await write(engineer, 'post', '/api/projects').send({ name: 'Fire Station 4', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', lightingZone: 2, ...fields });
+  const created = await write(engineer, 'post', '/api/projects').send({
+    name: 'Fire Station 4',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    units: 'ip',
+    lightingZone: 2,
+    ...fields,
+  });
   expect(created.status).toBe(201);
   return created.body.id;
 }
@@ -89,7 +96,9 @@ describe('switching the compliance method', () => {
     expect(byArea.status).toBe(200);
     expect(byArea.body.interior.spaces[0].lpdBasis).toMatchObject({ kind: 'building-area-type', key: 'fire-station' });
     // The space type still sets the controls under the building area method.
-    expect(byArea.body.interior.spaces[0].controls.find((line: { strategy: string }) => line.strategy === 'occupant-sensor').status).toBe('met');
+    expect(byArea.body.interior.spaces[0].controls.find((line: { strategy: string }) => line.strategy === 'occupant-sensor').status).toBe(
+      'met',
+    );
 
     expect((await patchSetup(projectId, { method: 'space-by-space' })).status).toBe(200);
     expect((await engineer.agent.get(`/api/projects/${projectId}/results`)).body.interior).toEqual(bySpace.interior);
@@ -100,7 +109,13 @@ describe('copying a project', () => {
   it('makes a new draft with the same design, owned by the person copying', async () => {
     const copied = await write(reviewer, 'post', `/api/projects/${demoId}/copy`).send({ name: 'Alder Bay Library, option B' });
     expect(copied.status).toBe(201);
-    expect(copied.body).toMatchObject({ name: 'Alder Bay Library, option B', state: 'draft', role: 'engineer', edition: 'iecc-2021', jurisdiction: 'Alder Bay Building Department' });
+    expect(copied.body).toMatchObject({
+      name: 'Alder Bay Library, option B',
+      state: 'draft',
+      role: 'engineer',
+      edition: 'iecc-2021',
+      jurisdiction: 'Alder Bay Building Department',
+    });
     expect(copied.body.members).toEqual([expect.objectContaining({ email: 'reviewer@alderbay.example', role: 'engineer' })]);
     const original = (await engineer.agent.get(`/api/projects/${demoId}/results`)).body;
     const copy = (await reviewer.agent.get(`/api/projects/${copied.body.id}/results`)).body;
@@ -124,19 +139,33 @@ describe('one control on many spaces', () => {
     });
     const targets = created.body.map((space: { id: string; version: number }) => ({ id: space.id, version: space.version }));
     const control = { strategy: 'occupant-sensor', provided: true, timeoutMinutes: '15', autoOn: 'manual', device: 'Ceiling sensor' };
-    const stale = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: [...targets.slice(0, 2), { ...targets[2], version: 7 }], control });
+    const stale = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({
+      spaces: [...targets.slice(0, 2), { ...targets[2], version: 7 }],
+      control,
+    });
     expect(stale.status).toBe(409);
     expect(stale.body.error.message).toContain('Dorm 3');
     // Each changed space is named at its place in the request, so the page can say which ones to reload.
     expect(stale.body.error.details).toEqual([{ path: 'spaces.2', message: '“Dorm 3” changed since you read it.' }]);
-    expect((await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.every((space: { controls: unknown[] }) => space.controls.length === 0)).toBe(true);
+    expect(
+      (await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.every(
+        (space: { controls: unknown[] }) => space.controls.length === 0,
+      ),
+    ).toBe(true);
 
     const applied = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: targets, control });
     expect(applied.status).toBe(200);
-    expect(applied.body.map((space: { version: number; controls: unknown[] }) => [space.version, space.controls])).toEqual(targets.map(() => [2, [control]]));
+    expect(applied.body.map((space: { version: number; controls: unknown[] }) => [space.version, space.controls])).toEqual(
+      targets.map(() => [2, [control]]),
+    );
     const history = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries;
-    expect(history.slice(0, 3).map((entry: { action: string; entity: string }) => `${entry.action} ${entry.entity}`)).toEqual(Array(3).fill('update space'));
-    const unknown = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: targets.map((target: { id: string }) => ({ ...target, version: 2 })), control: { ...control, strategy: 'moonlight-dimming' } });
+    expect(history.slice(0, 3).map((entry: { action: string; entity: string }) => `${entry.action} ${entry.entity}`)).toEqual(
+      Array(3).fill('update space'),
+    );
+    const unknown = await write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({
+      spaces: targets.map((target: { id: string }) => ({ ...target, version: 2 })),
+      control: { ...control, strategy: 'moonlight-dimming' },
+    });
     expect(unknown.status).toBe(400);
   });
 
@@ -147,15 +176,24 @@ describe('one control on many spaces', () => {
     });
     expect(created.status).toBe(201);
     const targets = created.body.map((space: { id: string; version: number }) => ({ id: space.id, version: space.version }));
-    const claim = (control: Record<string, unknown>) => write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: targets, control });
+    const claim = (control: Record<string, unknown>) =>
+      write(engineer, 'post', `/api/projects/${projectId}/spaces/controls`).send({ spaces: targets, control });
 
     // A check against the adopted code must say where it was made; continuous operation frees lighting from the time switch only (IECC 2021 C405.2.2, as document.ts holds it).
     const unsaid = await claim({ strategy: 'occupant-sensor', provided: false, exceptionReason: 'verified-not-required' });
     expect(unsaid.status).toBe(400);
-    expect(unsaid.body.error.details).toEqual([{ path: 'control.exceptionNote', message: 'Say where in the adopted code it was checked.' }]);
+    expect(unsaid.body.error.details).toEqual([
+      { path: 'control.exceptionNote', message: 'Say where in the adopted code it was checked.' },
+    ]);
     const misplaced = await claim({ strategy: 'occupant-sensor', provided: false, exceptionReason: 'continuous-operation' });
-    expect(misplaced.body.error.details).toEqual([{ path: 'control.exceptionReason', message: 'Continuous operation frees lighting from the time switch only.' }]);
-    expect((await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.every((space: { controls: unknown[] }) => space.controls.length === 0)).toBe(true);
+    expect(misplaced.body.error.details).toEqual([
+      { path: 'control.exceptionReason', message: 'Continuous operation frees lighting from the time switch only.' },
+    ]);
+    expect(
+      (await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.every(
+        (space: { controls: unknown[] }) => space.controls.length === 0,
+      ),
+    ).toBe(true);
 
     const timeSwitch = await claim({ strategy: 'time-switch', provided: false, exceptionReason: 'continuous-operation' });
     expect(timeSwitch.status).toBe(200);
@@ -179,7 +217,9 @@ describe('names an import matched to a type', () => {
       { name: 'apparatus-bay', spaceType: 'electrical-mechanical-room', buildingAreaType: null },
       { name: 'Bunk room', spaceType: 'office-enclosed', buildingAreaType: null },
     ]);
-    const wrong = await write(engineer, 'put', `/api/projects/${projectId}/import-aliases`).send({ aliases: [{ name: 'Hose tower', spaceType: 'hose-drying-tower' }] });
+    const wrong = await write(engineer, 'put', `/api/projects/${projectId}/import-aliases`).send({
+      aliases: [{ name: 'Hose tower', spaceType: 'hose-drying-tower' }],
+    });
     expect(wrong.status).toBe(400);
     expect((await write(reviewer, 'put', `/api/projects/${projectId}/import-aliases`).send({ aliases: [] })).status).toBe(403);
   });
@@ -200,7 +240,14 @@ describe('luminaire schedule fields', () => {
       voltage: '120–277 V',
     });
     expect(type.status).toBe(201);
-    expect(type.body).toMatchObject({ inputWatts: '151.5', manufacturer: 'Invented Lighting Co.', catalogNumber: 'HB-150-40K', lightSource: 'LED, 4000 K', driver: '0–10 V dimming', voltage: '120–277 V' });
+    expect(type.body).toMatchObject({
+      inputWatts: '151.5',
+      manufacturer: 'Invented Lighting Co.',
+      catalogNumber: 'HB-150-40K',
+      lightSource: 'LED, 4000 K',
+      driver: '0–10 V dimming',
+      voltage: '120–277 V',
+    });
     const document = (await engineer.agent.get(`/api/projects/${projectId}/document`)).body;
     expect(Object.keys(document.luminaireTypes[0]).sort()).toEqual(['basis', 'description', 'inputWatts', 'tag', 'use']);
   });
@@ -210,8 +257,17 @@ describe('additional allowance claims', () => {
   it('are kept per space on the sales floor, at most its area, once per allowance, and count in the results', async () => {
     const projectId = await newProject({ name: 'Chandlery', edition: 'ashrae-90.1-2022' });
     await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'D', inputWatts: '50', use: 'display' });
-    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Sales floor', spaceType: 'sales-area', area: '1000', luminaires: [{ tag: 'D', count: 10 }] });
-    const office = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Office', spaceType: 'office-enclosed-and-gt-150-ft2-and-le-300-ft2', area: '300' });
+    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Sales floor',
+      spaceType: 'sales-area',
+      area: '1000',
+      luminaires: [{ tag: 'D', count: 10 }],
+    });
+    const office = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Office',
+      spaceType: 'office-enclosed-and-gt-150-ft2-and-le-300-ft2',
+      area: '300',
+    });
     expect([sales.status, office.status]).toEqual([201, 201]);
     const url = `/api/projects/${projectId}/additional-allowances`;
 
@@ -228,11 +284,18 @@ describe('additional allowance claims', () => {
 
     const results = (await engineer.agent.get(`/api/projects/${projectId}/results`)).body;
     expect(results.interior.additional.lines).toHaveLength(1);
-    const changed = await write(engineer, 'put', `${url}/${claim.body.id}`).send({ spaceId: sales.body.id, allowance: 'retail-area-2', area: '500', version: 1 });
+    const changed = await write(engineer, 'put', `${url}/${claim.body.id}`).send({
+      spaceId: sales.body.id,
+      allowance: 'retail-area-2',
+      area: '500',
+      version: 1,
+    });
     expect(changed.body).toMatchObject({ allowance: 'retail-area-2', version: 2 });
     expect((await write(engineer, 'delete', `${url}/${claim.body.id}?version=2`)).status).toBe(204);
     expect((await engineer.agent.get(url)).body).toEqual([]);
-    const actions = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries.slice(0, 3).map((entry: { action: string; entity: string }) => `${entry.action} ${entry.entity}`);
+    const actions = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries
+      .slice(0, 3)
+      .map((entry: { action: string; entity: string }) => `${entry.action} ${entry.entity}`);
     expect(actions).toEqual(['delete additional-allowance', 'update additional-allowance', 'create additional-allowance']);
   });
 });
@@ -242,14 +305,23 @@ describe('POST /api/projects/:id/additional-allowances/:claimId/restore', () => 
     const projectId = await newProject({ name: 'Net loft', edition: 'ashrae-90.1-2022' });
     await write(engineer, 'post', `/api/projects/${projectId}/members`).send({ email: 'reviewer@alderbay.example', role: 'reviewer' });
     await write(engineer, 'post', `/api/projects/${projectId}/luminaire-types`).send({ tag: 'D', inputWatts: '50', use: 'display' });
-    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Sales floor', spaceType: 'sales-area', area: '1000', luminaires: [{ tag: 'D', count: 10 }] });
+    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Sales floor',
+      spaceType: 'sales-area',
+      area: '1000',
+      luminaires: [{ tag: 'D', count: 10 }],
+    });
     const url = `/api/projects/${projectId}/additional-allowances`;
     const claim = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '600' });
     expect(claim.status).toBe(201);
     const evaluation = async () => {
       const results = (await engineer.agent.get(`/api/projects/${projectId}/results`)).body;
       const document = (await engineer.agent.get(`/api/projects/${projectId}/document`)).body;
-      return { lines: results.interior.additional?.lines.length ?? 0, spaceW: results.interior.spaces[0].additionalAllowanceW, claims: document.retailDisplay?.claims ?? [] };
+      return {
+        lines: results.interior.additional?.lines.length ?? 0,
+        spaceW: results.interior.spaces[0].additionalAllowanceW,
+        claims: document.retailDisplay?.claims ?? [],
+      };
     };
     const claimed = await evaluation();
     expect(claimed.lines).toBe(1);
@@ -260,7 +332,16 @@ describe('POST /api/projects/:id/additional-allowances/:claimId/restore', () => 
     expect((await engineer.agent.get(url)).body).toEqual([]);
     expect(await evaluation()).toEqual({ lines: 0, spaceW: '0', claims: [] });
     // Deleted is not there to change or delete again.
-    expect((await write(engineer, 'put', `${url}/${claim.body.id}`).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '500', version: 2 })).status).toBe(404);
+    expect(
+      (
+        await write(engineer, 'put', `${url}/${claim.body.id}`).send({
+          spaceId: sales.body.id,
+          allowance: 'retail-area-1',
+          area: '500',
+          version: 2,
+        })
+      ).status,
+    ).toBe(404);
     expect((await write(engineer, 'delete', `${url}/${claim.body.id}?version=2`)).status).toBe(404);
     const deleteEntry = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries[0];
     expect(deleteEntry).toMatchObject({ action: 'delete', entity: 'additional-allowance', entityId: claim.body.id, restorable: true });
@@ -276,9 +357,18 @@ describe('POST /api/projects/:id/additional-allowances/:claimId/restore', () => 
     expect(await evaluation()).toEqual(claimed);
 
     const entries = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries;
-    expect(entries[0]).toMatchObject({ action: 'restore', entity: 'additional-allowance', entityId: claim.body.id, name: 'Sales floor', user: { name: engineer.user.name } });
+    expect(entries[0]).toMatchObject({
+      action: 'restore',
+      entity: 'additional-allowance',
+      entityId: claim.body.id,
+      name: 'Sales floor',
+      user: { name: engineer.user.name },
+    });
     expect(entries[0].after).toMatchObject({ id: claim.body.id, area: '600' });
-    const restoreRow = await database.db('audit_log').where({ entity_id: claim.body.id, action: 'restore' }).first<{ detail: { restoredFrom: string } }>('detail');
+    const restoreRow = await database
+      .db('audit_log')
+      .where({ entity_id: claim.body.id, action: 'restore' })
+      .first<{ detail: { restoredFrom: string } }>('detail');
     expect(restoreRow.detail.restoredFrom).toBe(deleteEntry.id);
     expect(entries[1]).toMatchObject({ action: 'delete', restorable: false });
     expect((await write(engineer, 'post', `${url}/${claim.body.id}/restore`)).status).toBe(404);
@@ -286,7 +376,11 @@ describe('POST /api/projects/:id/additional-allowances/:claimId/restore', () => 
 
   it('comes back in the project’s units after a change of units while it was deleted', async () => {
     const projectId = await newProject({ name: 'Rope walk', edition: 'ashrae-90.1-2022' });
-    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Counter', spaceType: 'sales-area', area: '1000' });
+    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Counter',
+      spaceType: 'sales-area',
+      area: '1000',
+    });
     const url = `/api/projects/${projectId}/additional-allowances`;
     const claim = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '600' });
     await write(engineer, 'delete', `${url}/${claim.body.id}?version=1`);
@@ -298,7 +392,11 @@ describe('POST /api/projects/:id/additional-allowances/:claimId/restore', () => 
 
   it('refuses a claim the project would not take now, and one deleted more than 30 days ago', async () => {
     const projectId = await newProject({ name: 'Sail shop', edition: 'ashrae-90.1-2022' });
-    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({ name: 'Shop', spaceType: 'sales-area', area: '800' });
+    const sales = await write(engineer, 'post', `/api/projects/${projectId}/spaces`).send({
+      name: 'Shop',
+      spaceType: 'sales-area',
+      area: '800',
+    });
     const url = `/api/projects/${projectId}/additional-allowances`;
     const first = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-1', area: '400' });
     expect((await write(engineer, 'delete', `${url}/${first.body.id}?version=1`)).status).toBe(204);
@@ -312,7 +410,10 @@ describe('POST /api/projects/:id/additional-allowances/:claimId/restore', () => 
 
     const second = await write(engineer, 'post', url).send({ spaceId: sales.body.id, allowance: 'retail-area-2', area: '200' });
     await write(engineer, 'delete', `${url}/${second.body.id}?version=1`);
-    await database.db('retail_display_claims').where({ id: second.body.id }).update({ deleted_at: database.db.raw("now() - interval '31 days'") });
+    await database
+      .db('retail_display_claims')
+      .where({ id: second.body.id })
+      .update({ deleted_at: database.db.raw("now() - interval '31 days'") });
     const old = await write(engineer, 'post', `${url}/${second.body.id}/restore`);
     expect(old.status).toBe(409);
     expect(old.body.error.message).toContain('more than 30 days ago');
@@ -320,6 +421,10 @@ describe('POST /api/projects/:id/additional-allowances/:claimId/restore', () => 
     await write(engineer, 'delete', `${url}/${again.body.id}?version=1`);
     expect(await database.db('retail_display_claims').where({ id: second.body.id }).first('id')).toBeUndefined();
     expect((await write(engineer, 'post', `${url}/${second.body.id}/restore`)).status).toBe(404);
-    expect((await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries.find((entry: { entityId: string; action: string }) => entry.entityId === second.body.id && entry.action === 'delete').restorable).toBe(false);
+    expect(
+      (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries.find(
+        (entry: { entityId: string; action: string }) => entry.entityId === second.body.id && entry.action === 'delete',
+      ).restorable,
+    ).toBe(false);
   });
 });

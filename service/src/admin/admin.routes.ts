@@ -62,16 +62,34 @@ export function adminRouter(db: Database, settings: AdminSettings): Router {
     const input = parse(newUserSchema, req.body);
     const created = await db.transaction(async (trx) => {
       if (await emailTaken(trx, input.email)) {
-        throw new AppError(409, 'email_taken', 'Someone already has an account with this e-mail address.', [{ path: 'email', message: 'Already has an account.' }]);
+        throw new AppError(409, 'email_taken', 'Someone already has an account with this e-mail address.', [
+          { path: 'email', message: 'Already has an account.' },
+        ]);
       }
       const user = await createUser(trx, input);
       const token = await createPasswordReset(trx, user.id, newAccountLinkDays * 24 * 60);
-      await queueMail(trx, accountCreatedMail(user.email, user.name, `${settings.appUrl}/reset-password?token=${token}`, newAccountLinkDays));
-      await recordAudit(trx, { userId: admin.id, action: 'create', entity: 'user', entityId: user.id, detail: { name: user.name, after: { email: user.email, isAdmin: user.is_admin } } });
+      await queueMail(
+        trx,
+        accountCreatedMail(user.email, user.name, `${settings.appUrl}/reset-password?token=${token}`, newAccountLinkDays),
+      );
+      await recordAudit(trx, {
+        userId: admin.id,
+        action: 'create',
+        entity: 'user',
+        entityId: user.id,
+        detail: { name: user.name, after: { email: user.email, isAdmin: user.is_admin } },
+      });
       return user;
     });
     settings.mailQueued();
-    res.status(201).json({ id: created.id, email: created.email, name: created.name, isAdmin: created.is_admin, disabled: false, createdAt: created.created_at.toISOString() });
+    res.status(201).json({
+      id: created.id,
+      email: created.email,
+      name: created.name,
+      isAdmin: created.is_admin,
+      disabled: false,
+      createdAt: created.created_at.toISOString(),
+    });
   });
 
   router.patch('/users/:userId', async (req, res) => {
@@ -94,11 +112,22 @@ export function adminRouter(db: Database, settings: AdminSettings): Router {
         action: 'update',
         entity: 'user',
         entityId: id,
-        detail: { name: after.name, before: { isAdmin: before.is_admin, disabled: before.disabled_at !== null }, after: { isAdmin: after.is_admin, disabled: after.disabled_at !== null } },
+        detail: {
+          name: after.name,
+          before: { isAdmin: before.is_admin, disabled: before.disabled_at !== null },
+          after: { isAdmin: after.is_admin, disabled: after.disabled_at !== null },
+        },
       });
       return after;
     });
-    res.json({ id: updated.id, email: updated.email, name: updated.name, isAdmin: updated.is_admin, disabled: updated.disabled_at !== null, createdAt: updated.created_at.toISOString() });
+    res.json({
+      id: updated.id,
+      email: updated.email,
+      name: updated.name,
+      isAdmin: updated.is_admin,
+      disabled: updated.disabled_at !== null,
+      createdAt: updated.created_at.toISOString(),
+    });
   });
 
   router.get('/outbox', async (_req, res) => {

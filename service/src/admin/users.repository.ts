@@ -34,7 +34,9 @@ export async function findUserForUpdate(trx: Knex.Transaction, id: string): Prom
 /** A new account with a password nobody knows: its owner chooses one through the link mailed to them. */
 export async function createUser(trx: Knex.Transaction, user: { email: string; name: string; isAdmin: boolean }): Promise<UserRow> {
   const unusable = await bcrypt.hash(randomBytes(32).toString('base64url'), 10);
-  const [row] = await trx('users').insert({ email: user.email, name: user.name, is_admin: user.isAdmin, password_hash: unusable }).returning('*');
+  const [row] = await trx('users')
+    .insert({ email: user.email, name: user.name, is_admin: user.isAdmin, password_hash: unusable })
+    .returning('*');
   return row as UserRow;
 }
 

@@ -41,7 +41,8 @@ export async function recordAudit(db: Database | Knex.Transaction, entries: Audi
   }
   const changes = new Map<string, ProjectChange>();
   for (const entry of list) {
-    if (entry.projectId && !changes.has(entry.projectId)) changes.set(entry.projectId, { projectId: entry.projectId, entity: entry.entity, action: entry.action });
+    if (entry.projectId && !changes.has(entry.projectId))
+      changes.set(entry.projectId, { projectId: entry.projectId, entity: entry.entity, action: entry.action });
   }
   for (const change of changes.values()) {
     await db.raw('select pg_notify(?, ?)', [changeChannel, JSON.stringify(change)]);

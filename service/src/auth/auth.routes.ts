@@ -51,7 +51,13 @@ function triedEmail(req: Request): string | null {
  * A sign-in limiter. Successful sign-ins are handed back, so people who sign in from many tabs or
  * one shared office address are not locked out; only failures use up the allowance.
  */
-function signInLimiter(name: string, limit: number, windowMinutes: number, logger: Logger, keyedBy?: (req: Request) => string | null): RateLimitRequestHandler {
+function signInLimiter(
+  name: string,
+  limit: number,
+  windowMinutes: number,
+  logger: Logger,
+  keyedBy?: (req: Request) => string | null,
+): RateLimitRequestHandler {
   return rateLimit({
     identifier: name,
     windowMs: windowMinutes * 60_000,
@@ -79,7 +85,13 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
 
   const addressLimiter = signInLimiter('sign-in-address', settings.loginRateLimit, settings.loginRateWindowMinutes, settings.logger);
   // Spreads over many addresses do not get more guesses at one account than a single address would.
-  const accountLimiter = signInLimiter('sign-in-account', settings.loginAccountRateLimit, settings.loginAccountRateWindowMinutes, settings.logger, triedEmail);
+  const accountLimiter = signInLimiter(
+    'sign-in-account',
+    settings.loginAccountRateLimit,
+    settings.loginAccountRateWindowMinutes,
+    settings.logger,
+    triedEmail,
+  );
 
   router.post('/login', addressLimiter, accountLimiter, async (req, res) => {
     const { email, password } = parse(loginSchema, req.body);
@@ -98,7 +110,13 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
     }
     if (user.disabled_at) {
       // Told only to someone who knows the password, so it reveals nothing to a guesser.
-      await recordAudit(db, { userId: user.id, action: 'sign-in-failed', entity: 'user', entityId: user.id, detail: { email, address, reason: 'disabled' } });
+      await recordAudit(db, {
+        userId: user.id,
+        action: 'sign-in-failed',
+        entity: 'user',
+        entityId: user.id,
+        detail: { email, address, reason: 'disabled' },
+      });
       throw new AppError(403, 'account_disabled', 'This account is disabled. Ask your administrator to enable it.');
     }
     const expiresAt = new Date(Date.now() + settings.sessionHours * 3_600_000);

@@ -16,7 +16,8 @@ let checker: ZxcvbnFactory | null = null;
 export function passwordProblem(password: string, personal: string[] = []): string | null {
   if (password.length < passwordMinLength) return `Use at least ${passwordMinLength} characters.`;
   if (password.length > passwordMaxLength) return `Use at most ${passwordMaxLength} characters.`;
-  if (Buffer.byteLength(password, 'utf8') > bcryptMaxBytes) return 'This password is too long to store whole: use fewer accented letters or symbols.';
+  if (Buffer.byteLength(password, 'utf8') > bcryptMaxBytes)
+    return 'This password is too long to store whole: use fewer accented letters or symbols.';
   checker ??= new ZxcvbnFactory({ dictionary: { ...dictionary }, graphs: adjacencyGraphs });
   const words = personal.flatMap((value) => value.toLowerCase().split(/[^\p{L}\p{N}]+/u)).filter((word) => word.length >= 3);
   if (checker.check(password, [...personal, ...words]).score < 3) {

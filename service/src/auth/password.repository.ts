@@ -8,7 +8,11 @@ export const hashToken = (token: string): string => createHash('sha256').update(
 /** A new single-use token for the user, good for `minutes`; returns the token itself, for the link (a new account's first password uses the same). */
 export async function createPasswordReset(trx: Knex.Transaction, userId: string, minutes: number): Promise<string> {
   const token = randomBytes(32).toString('base64url');
-  await trx('password_resets').insert({ user_id: userId, token_hash: hashToken(token), expires_at: new Date(Date.now() + minutes * 60_000) });
+  await trx('password_resets').insert({
+    user_id: userId,
+    token_hash: hashToken(token),
+    expires_at: new Date(Date.now() + minutes * 60_000),
+  });
   return token;
 }
 
@@ -30,7 +34,12 @@ export async function consumePasswordReset(trx: Knex.Transaction, token: string)
 }
 
 /** Sets the password hash and ends the user's sessions but `keepSessionId`; returns the ended ids. */
-export async function replacePassword(trx: Knex.Transaction, userId: string, passwordHash: string, keepSessionId: string | null): Promise<string[]> {
+export async function replacePassword(
+  trx: Knex.Transaction,
+  userId: string,
+  passwordHash: string,
+  keepSessionId: string | null,
+): Promise<string[]> {
   await trx('users').where({ id: userId }).update({ password_hash: passwordHash });
   const live = trx('sessions').where({ user_id: userId }).whereNull('revoked_at');
   if (keepSessionId) live.whereNot({ id: keepSessionId });

@@ -30,7 +30,12 @@ const resetRequestSchema = z.object({ email });
 const resetCompleteSchema = z.object({ token: z.string().min(1, 'The link is incomplete.').max(200), password: newPassword });
 const changeSchema = z.object({ currentPassword: z.string().min(1, 'Enter your current password.').max(200), newPassword });
 
-const invalidToken = () => new AppError(400, 'invalid_token', 'This link to choose a new password has expired or was already used. Ask for a new one from the sign-in page.');
+const invalidToken = () =>
+  new AppError(
+    400,
+    'invalid_token',
+    'This link to choose a new password has expired or was already used. Ask for a new one from the sign-in page.',
+  );
 
 function refuseWeak(password: string, user: UserRow, field: string): void {
   const problem = passwordProblem(password, [user.email, user.name]);
@@ -71,7 +76,10 @@ export function passwordRouter(db: Database, settings: PasswordSettings): Router
     if (user && !user.disabled_at) {
       await db.transaction(async (trx) => {
         const token = await createPasswordReset(trx, user.id, settings.resetMinutes);
-        await queueMail(trx, passwordResetMail(user.email, user.name, `${settings.appUrl}/reset-password?token=${token}`, settings.resetMinutes));
+        await queueMail(
+          trx,
+          passwordResetMail(user.email, user.name, `${settings.appUrl}/reset-password?token=${token}`, settings.resetMinutes),
+        );
         await recordAudit(trx, { userId: user.id, action: 'password-reset-requested', entity: 'user', entityId: user.id });
       });
       settings.mailQueued();
@@ -86,7 +94,13 @@ export function passwordRouter(db: Database, settings: PasswordSettings): Router
       if (!user) throw invalidToken();
       refuseWeak(password, user, 'password');
       const ended = await replacePassword(trx, user.id, await bcrypt.hash(password, bcryptRounds), null);
-      await recordAudit(trx, { userId: user.id, action: 'password-reset', entity: 'user', entityId: user.id, detail: { endedSessions: ended.length } });
+      await recordAudit(trx, {
+        userId: user.id,
+        action: 'password-reset',
+        entity: 'user',
+        entityId: user.id,
+        detail: { endedSessions: ended.length },
+      });
       await queueMail(trx, passwordChangedMail(user.email, user.name, `${settings.appUrl}/sign-in`));
     });
     settings.mailQueued();
@@ -106,7 +120,13 @@ export function passwordRouter(db: Database, settings: PasswordSettings): Router
     const hash = await bcrypt.hash(password, bcryptRounds);
     const ended = await db.transaction(async (trx) => {
       const ids = await replacePassword(trx, user.id, hash, session.id);
-      await recordAudit(trx, { userId: user.id, action: 'password-change', entity: 'user', entityId: user.id, detail: { endedSessions: ids.length } });
+      await recordAudit(trx, {
+        userId: user.id,
+        action: 'password-change',
+        entity: 'user',
+        entityId: user.id,
+        detail: { endedSessions: ids.length },
+      });
       await queueMail(trx, passwordChangedMail(user.email, user.name, `${settings.appUrl}/sign-in`));
       return ids.length;
     });

@@ -43,7 +43,13 @@ export async function createSession(db: Database, session: NewSession): Promise<
       })
       .returning('id');
     const id = row!.id;
-    await recordAudit(trx, { userId: session.userId, action: 'sign-in', entity: 'session', entityId: id, detail: { address: session.address } });
+    await recordAudit(trx, {
+      userId: session.userId,
+      action: 'sign-in',
+      entity: 'session',
+      entityId: id,
+      detail: { address: session.address },
+    });
     return id;
   });
 }
@@ -74,7 +80,10 @@ export async function listActiveSessions(db: Database, userId: string): Promise<
     .where({ user_id: userId })
     .whereNull('revoked_at')
     .andWhere('expires_at', '>', db.fn.now())
-    .orderBy([{ column: 'last_seen_at', order: 'desc' }, { column: 'created_at', order: 'desc' }]);
+    .orderBy([
+      { column: 'last_seen_at', order: 'desc' },
+      { column: 'created_at', order: 'desc' },
+    ]);
   return rows.map((row) => ({
     id: row.id,
     createdAt: row.created_at,
@@ -111,7 +120,13 @@ export async function revokeOtherSessions(db: Database, userId: string, keepSess
       .andWhere('expires_at', '>', trx.fn.now())
       .update({ revoked_at: trx.fn.now() }, ['id']);
     if (ended.length > 0) {
-      await recordAudit(trx, { userId, action: 'end-other-sessions', entity: 'session', entityId: keepSessionId, detail: { ended: ended.map((row: { id: string }) => row.id) } });
+      await recordAudit(trx, {
+        userId,
+        action: 'end-other-sessions',
+        entity: 'session',
+        entityId: keepSessionId,
+        detail: { ended: ended.map((row: { id: string }) => row.id) },
+      });
     }
     return ended.length;
   });

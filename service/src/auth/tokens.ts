@@ -21,7 +21,11 @@ export function newCsrfToken(): string {
 }
 
 /** Signs a token for a stored session; its expiry is the row's, so token and row end together. */
-export function signSession(secret: string, session: { id: string; userId: string; expiresAt: Date }, csrf = newCsrfToken()): { token: string; csrf: string } {
+export function signSession(
+  secret: string,
+  session: { id: string; userId: string; expiresAt: Date },
+  csrf = newCsrfToken(),
+): { token: string; csrf: string } {
   const token = jwt.sign({ csrf, exp: Math.floor(session.expiresAt.getTime() / 1000) }, secret, {
     algorithm: 'HS256',
     subject: session.userId,
@@ -42,7 +46,13 @@ export function verifySession(secret: string, token: string): SessionClaims | nu
     if (typeof payload === 'string' || typeof payload.exp !== 'number') return null;
     const { sub, jti } = payload;
     const csrf: unknown = payload['csrf'];
-    if (typeof sub !== 'string' || !uuidPattern.test(sub) || typeof jti !== 'string' || !uuidPattern.test(jti) || typeof csrf !== 'string') {
+    if (
+      typeof sub !== 'string' ||
+      !uuidPattern.test(sub) ||
+      typeof jti !== 'string' ||
+      !uuidPattern.test(jti) ||
+      typeof csrf !== 'string'
+    ) {
       return null;
     }
     return { sub, sessionId: jti, csrf };

@@ -21,7 +21,15 @@ import type {
   StrategyKey,
 } from '../compliance/edition-data.js';
 import { type Citation, citationOf, editionName, referenceOf, withoutProvenance } from '../compliance/citation.js';
-import type { CodeEditionRow, ControlStrategyRow, ControlStrategySectionRow, ProvenanceColumns, EditionRulesRow, SpaceTypeControlRow, TaggedProvenance } from '../db/tables.js';
+import type {
+  CodeEditionRow,
+  ControlStrategyRow,
+  ControlStrategySectionRow,
+  ProvenanceColumns,
+  EditionRulesRow,
+  SpaceTypeControlRow,
+  TaggedProvenance,
+} from '../db/tables.js';
 
 /** The code tables as the API and the compliance engine read them. NUMERIC columns stay strings. */
 
@@ -136,7 +144,6 @@ export interface RulesView extends EditionRules {
   sections: Record<string, SectionView>;
 }
 
-
 /**
  * A column the seeds always fill where it applies (the reference files require it); a row without
  * it is broken data, answered as an error rather than read as false or left out.
@@ -154,7 +161,10 @@ interface CitationContext {
 
 async function citationContext(db: Database, version: EditionVersion): Promise<CitationContext> {
   const rows = await db('edition_sections').where(scope(version)).select('key', 'section');
-  return { edition: editionName(version.edition.family, version.edition.year), sections: Object.fromEntries(rows.map((row) => [row.key, row.section])) };
+  return {
+    edition: editionName(version.edition.family, version.edition.year),
+    sections: Object.fromEntries(rows.map((row) => [row.key, row.section])),
+  };
 }
 
 /** The table the row's own annotation names, else the section the edition cites for that kind of value. */
@@ -163,8 +173,24 @@ function reference(context: CitationContext, note: string | null | undefined, se
 }
 
 function provenanceOf(row: ProvenanceColumns, context: CitationContext, where: string, tag?: string): RowProvenance {
-  const citation = citationOf({ edition: context.edition, reference: where, source: row.source, confidence: row.confidence, tag, verified: row.verified, note: row.note, fromMemory: row.from_memory });
-  return { source: row.source, confidence: row.confidence, verified: row.verified, note: row.note, ...(row.from_memory ? { fromMemory: row.from_memory } : {}), citation };
+  const citation = citationOf({
+    edition: context.edition,
+    reference: where,
+    source: row.source,
+    confidence: row.confidence,
+    tag,
+    verified: row.verified,
+    note: row.note,
+    fromMemory: row.from_memory,
+  });
+  return {
+    source: row.source,
+    confidence: row.confidence,
+    verified: row.verified,
+    note: row.note,
+    ...(row.from_memory ? { fromMemory: row.from_memory } : {}),
+    citation,
+  };
 }
 
 /** Provenance as the contract holds it: a from-memory text is kept in the note, the citation beside it. */
@@ -180,7 +206,9 @@ export interface EditionVersion {
 }
 
 export async function listEditions(db: Database): Promise<EditionSummary[]> {
-  const rows = await db('code_editions').whereNotNull('current_data_version').orderBy([{ column: 'family' }, { column: 'year' }]);
+  const rows = await db('code_editions')
+    .whereNotNull('current_data_version')
+    .orderBy([{ column: 'family' }, { column: 'year' }]);
   return rows.map((row) => ({
     id: row.id,
     family: row.family,
@@ -205,7 +233,10 @@ function scope(version: EditionVersion) {
 }
 
 export async function listBuildingAreaTypes(db: Database, version: EditionVersion): Promise<BuildingAreaTypeView[]> {
-  const [rows, context] = await Promise.all([db('building_area_types').where(scope(version)).orderBy('position'), citationContext(db, version)]);
+  const [rows, context] = await Promise.all([
+    db('building_area_types').where(scope(version)).orderBy('position'),
+    citationContext(db, version),
+  ]);
   return rows.map((row) => ({
     key: row.key,
     label: row.label,
@@ -281,7 +312,9 @@ export async function listControlStrategies(db: Database, version: EditionVersio
       .where('control_strategy_sections.data_version', version.dataVersion)
       .orderBy('control_strategies.position')
       .select<(ControlStrategySectionRow & Pick<ControlStrategyRow, 'label'>)[]>('control_strategy_sections.*', 'control_strategies.label'),
-    db('control_strategy_parameters').where(scope(version)).orderBy([{ column: 'strategy_key' }, { column: 'position' }]),
+    db('control_strategy_parameters')
+      .where(scope(version))
+      .orderBy([{ column: 'strategy_key' }, { column: 'position' }]),
     citationContext(db, version),
   ]);
   return sections.map((row) => {
@@ -300,7 +333,15 @@ export async function listControlStrategies(db: Database, version: EditionVersio
             source: parameter.source,
             ...(parameter.note ? { note: parameter.note } : {}),
             // A parameter has no verified flag of its own: only a value from the edition's own text counts as checked.
-            citation: citationOf({ edition: context.edition, reference: row.section, source: parameter.source, confidence: '', tag: parameter.tag, verified: parameter.tag === '[S]', note: parameter.note }),
+            citation: citationOf({
+              edition: context.edition,
+              reference: row.section,
+              source: parameter.source,
+              confidence: '',
+              tag: parameter.tag,
+              verified: parameter.tag === '[S]',
+              note: parameter.note,
+            }),
           },
         ]),
       ),
@@ -310,7 +351,10 @@ export async function listControlStrategies(db: Database, version: EditionVersio
 }
 
 export async function listExteriorApplications(db: Database, version: EditionVersion): Promise<ExteriorApplicationView[]> {
-  const [rows, context] = await Promise.all([db('code_exterior_applications').where(scope(version)).orderBy('position'), citationContext(db, version)]);
+  const [rows, context] = await Promise.all([
+    db('code_exterior_applications').where(scope(version)).orderBy('position'),
+    citationContext(db, version),
+  ]);
   return rows.map((row) => ({
     key: row.key,
     label: row.label,
@@ -340,7 +384,10 @@ export async function listLightingZones(db: Database, version: EditionVersion): 
 }
 
 export async function listAdditionalAllowances(db: Database, version: EditionVersion): Promise<AdditionalAllowanceView[]> {
-  const [rows, context] = await Promise.all([db('additional_allowances').where(scope(version)).orderBy('position'), citationContext(db, version)]);
+  const [rows, context] = await Promise.all([
+    db('additional_allowances').where(scope(version)).orderBy('position'),
+    citationContext(db, version),
+  ]);
   return rows.map((row) => ({
     key: row.key,
     label: row.label,
@@ -366,7 +413,13 @@ type StoredOpeningRules = NonNullable<EditionRulesRow['daylight_openings']>;
 function openingRules(stored: StoredOpeningRules, context: CitationContext): DaylightOpeningRules {
   const cited = Object.entries(stored).map(([name, { provenance, ...rule }]) => {
     const citation = citationOf({ edition: context.edition, reference: rule.section, ...provenance });
-    return [name, { ...rule, provenance: contractProvenance({ ...provenance, note: [provenance.tag, provenance.note].filter(Boolean).join(' '), citation }) }];
+    return [
+      name,
+      {
+        ...rule,
+        provenance: contractProvenance({ ...provenance, note: [provenance.tag, provenance.note].filter(Boolean).join(' '), citation }),
+      },
+    ];
   });
   return Object.fromEntries(cited) as DaylightOpeningRules;
 }
@@ -384,7 +437,13 @@ export async function listAmendments(db: Database, version: EditionVersion): Pro
     db('edition_amendments').where({ edition_id: version.edition.id, data_version: version.dataVersion }).orderBy('position'),
     citationContext(db, version),
   ]);
-  return rows.map((row) => ({ key: row.key, title: row.title, jurisdiction: row.jurisdiction, parameters: row.parameters, ...provenanceOf({ ...row, from_memory: null }, context, row.title) }));
+  return rows.map((row) => ({
+    key: row.key,
+    title: row.title,
+    jurisdiction: row.jurisdiction,
+    parameters: row.parameters,
+    ...provenanceOf({ ...row, from_memory: null }, context, row.title),
+  }));
 }
 
 export async function getRules(db: Database, version: EditionVersion): Promise<RulesView> {
@@ -413,12 +472,24 @@ export async function getRules(db: Database, version: EditionVersion): Promise<R
       ...(row.daylight_openings ? { openings: openingRules(row.daylight_openings, context) } : {}),
     },
     roomGeometry:
-      row.room_geometry_increase_percent === null ? null : {
+      row.room_geometry_increase_percent === null
+        ? null
+        : {
             increasePercent: row.room_geometry_increase_percent,
-            provenance: taggedProvenance(stored(row.room_geometry_provenance, `the room-geometry provenance of ${version.edition.id} (${version.dataVersion})`), context, 'roomGeometry'),
+            provenance: taggedProvenance(
+              stored(row.room_geometry_provenance, `the room-geometry provenance of ${version.edition.id} (${version.dataVersion})`),
+              context,
+              'roomGeometry',
+            ),
           },
     smallEnclosedSpaceFt2: row.small_enclosed_space_ft2,
-    smallEnclosedSpaceProvenance: row.small_enclosed_space_provenance ? taggedProvenance(row.small_enclosed_space_provenance, context, context.sections['occupantSensor'] ? 'occupantSensor' : 'controlsGeneral') : null,
+    smallEnclosedSpaceProvenance: row.small_enclosed_space_provenance
+      ? taggedProvenance(
+          row.small_enclosed_space_provenance,
+          context,
+          context.sections['occupantSensor'] ? 'occupantSensor' : 'controlsGeneral',
+        )
+      : null,
     trackMinimumWPerFt: row.track_minimum_w_per_ft,
     trackProvenance: taggedProvenance(row.track_provenance, context, 'trackLighting'),
     baseSiteCoversNontradable: row.base_site_covers_nontradable,
@@ -431,7 +502,15 @@ export async function getRules(db: Database, version: EditionVersion): Promise<R
           tag: section.tag,
           verified: section.verified,
           note: section.note,
-          citation: citationOf({ edition: context.edition, reference: section.section, source: '', confidence: '', tag: section.tag, verified: section.verified, note: section.note }),
+          citation: citationOf({
+            edition: context.edition,
+            reference: section.section,
+            source: '',
+            confidence: '',
+            tag: section.tag,
+            verified: section.verified,
+            note: section.note,
+          }),
         },
       ]),
     ),
@@ -476,55 +555,51 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
     year: version.edition.year,
     dataVersion: version.dataVersion,
     sections: Object.fromEntries(Object.entries(sections).map(([key, section]) => [key, section.section])),
-    buildingAreaTypes: buildingAreaTypes.map(
-      (row): BuildingAreaType => ({
-        key: row.key,
-        label: row.label,
-        sourceLabel: row.sourceLabel,
-        lpdWPerFt2: row.lpdWPerFt2,
-        ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
-        provenance: contractProvenance(row),
+    buildingAreaTypes: buildingAreaTypes.map((row): BuildingAreaType => ({
+      key: row.key,
+      label: row.label,
+      sourceLabel: row.sourceLabel,
+      lpdWPerFt2: row.lpdWPerFt2,
+      ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
+      provenance: contractProvenance(row),
+    })),
+    spaceTypes: spaceTypes.map((row): SpaceType => ({
+      key: row.key,
+      label: row.label,
+      sourceLabel: row.sourceLabel,
+      category: row.category,
+      lpdWPerFt2: row.lpdWPerFt2,
+      ...(row.lpdFormula ? { lpdFormula: row.lpdFormula } : {}),
+      rcrThreshold: row.rcrThreshold,
+      ...(row.rcrCondition ? { rcrCondition: row.rcrCondition } : {}),
+      ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
+      controls: row.controls,
+      ...(row.iecc
+        ? {
+            iecc: {
+              occupantSensorListed: row.iecc.occupantSensorListed,
+              fullAutoOnAllowed: row.iecc.fullAutoOnAllowed,
+              sensorFunction: row.iecc.sensorFunction,
+              lightReductionExemptItem: row.iecc.lightReductionExemptItem,
+              timeSwitchExemptItem: row.iecc.timeSwitchExemptItem,
+              sleepingUnit: row.iecc.sleepingUnit,
+            },
+          }
+        : {}),
+      provenance: contractProvenance(row),
+    })),
+    controlStrategies: strategies.map((row): ControlStrategy => ({
+      key: row.key,
+      label: row.label,
+      section: row.section,
+      parameters: row.parameters,
+      provenance: contractProvenance({
+        ...row,
+        note: [row.note, ...Object.entries(row.parameterSources).map(([name, source]) => `${name} ${source.tag} ${source.source}`)].join(
+          ' | ',
+        ),
       }),
-    ),
-    spaceTypes: spaceTypes.map(
-      (row): SpaceType => ({
-        key: row.key,
-        label: row.label,
-        sourceLabel: row.sourceLabel,
-        category: row.category,
-        lpdWPerFt2: row.lpdWPerFt2,
-        ...(row.lpdFormula ? { lpdFormula: row.lpdFormula } : {}),
-        rcrThreshold: row.rcrThreshold,
-        ...(row.rcrCondition ? { rcrCondition: row.rcrCondition } : {}),
-        ...(row.equalsRowOf ? { equalsRowOf: row.equalsRowOf } : {}),
-        controls: row.controls,
-        ...(row.iecc
-          ? {
-              iecc: {
-                occupantSensorListed: row.iecc.occupantSensorListed,
-                fullAutoOnAllowed: row.iecc.fullAutoOnAllowed,
-                sensorFunction: row.iecc.sensorFunction,
-                lightReductionExemptItem: row.iecc.lightReductionExemptItem,
-                timeSwitchExemptItem: row.iecc.timeSwitchExemptItem,
-                sleepingUnit: row.iecc.sleepingUnit,
-              },
-            }
-          : {}),
-        provenance: contractProvenance(row),
-      }),
-    ),
-    controlStrategies: strategies.map(
-      (row): ControlStrategy => ({
-        key: row.key,
-        label: row.label,
-        section: row.section,
-        parameters: row.parameters,
-        provenance: contractProvenance({
-          ...row,
-          note: [row.note, ...Object.entries(row.parameterSources).map(([name, source]) => `${name} ${source.tag} ${source.source}`)].join(' | '),
-        }),
-      }),
-    ),
+    })),
     exteriorApplications: exterior.flatMap((row): ExteriorApplication[] => {
       if (!isExteriorUnit(row.unit)) return [];
       const zoneNote = row.unverifiedZones.length ? `allowances for zone ${row.unverifiedZones.join(', ')} to verify` : '';
@@ -543,18 +618,20 @@ export async function loadEditionData(db: Database, editionId: string, dataVersi
         },
       ];
     }),
-    lightingZones: zones.map((row): LightingZone => ({ zone: row.zone, description: row.description, provenance: contractProvenance(row) })),
-    additionalAllowances: allowances.map(
-      (row): AdditionalAllowance => ({
-        key: row.key,
-        label: row.label,
-        kind: row.kind,
-        ...(row.section !== null ? { section: row.section } : {}),
-        lpdWPerFt2: row.lpdWPerFt2,
-        ...(row.fixedW !== null ? { fixedW: row.fixedW } : {}),
-        provenance: contractProvenance(row),
-      }),
-    ),
+    lightingZones: zones.map((row): LightingZone => ({
+      zone: row.zone,
+      description: row.description,
+      provenance: contractProvenance(row),
+    })),
+    additionalAllowances: allowances.map((row): AdditionalAllowance => ({
+      key: row.key,
+      label: row.label,
+      kind: row.kind,
+      ...(row.section !== null ? { section: row.section } : {}),
+      lpdWPerFt2: row.lpdWPerFt2,
+      ...(row.fixedW !== null ? { fixedW: row.fixedW } : {}),
+      provenance: contractProvenance(row),
+    })),
     rules: editionRules,
     amendments: amendments.map((row): Amendment => ({
       key: row.key,

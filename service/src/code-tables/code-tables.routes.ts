@@ -41,7 +41,9 @@ export function codeEditionsRouter(db: Database): Router {
       const { dataVersion } = parse(editionQuery, req.query);
       const version = await findEditionVersion(db, editionId, dataVersion);
       if (!version) {
-        throw AppError.notFound(dataVersion ? `No data version ${dataVersion} of code edition ${editionId}.` : `No code edition ${editionId}.`);
+        throw AppError.notFound(
+          dataVersion ? `No data version ${dataVersion} of code edition ${editionId}.` : `No code edition ${editionId}.`,
+        );
       }
       res.setHeader('X-Data-Version', version.dataVersion);
       res.json(await list(db, version));

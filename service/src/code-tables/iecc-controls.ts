@@ -25,10 +25,16 @@ export function deriveIeccControls(
   const cells: Partial<Record<StrategyKey, DerivedCell>> = {};
   if (inputs.occupantSensorListed) {
     cells['occupant-sensor'] = { requirement: 'required', why: 'listed in C405.2.1' };
-    cells['time-switch'] = { requirement: 'not-required', why: 'an occupant sensor is required instead (C405.2.2 applies where there is none)' };
+    cells['time-switch'] = {
+      requirement: 'not-required',
+      why: 'an occupant sensor is required instead (C405.2.2 applies where there is none)',
+    };
   } else {
     const group = 'one-of:OCCUPANT-SENSOR-OR-TIME-SWITCH';
-    cells['occupant-sensor'] = { requirement: group, why: 'not listed in C405.2.1: required only in an enclosed space at or below the small-space area' };
+    cells['occupant-sensor'] = {
+      requirement: group,
+      why: 'not listed in C405.2.1: required only in an enclosed space at or below the small-space area',
+    };
     cells['time-switch'] = { requirement: group, why: 'C405.2.2 applies to spaces without occupant sensors' };
   }
   const specificFunction = inputs.sensorFunction !== 'general';
@@ -38,10 +44,16 @@ export function deriveIeccControls(
   cells['automatic-full-off'] =
     inputs.occupantSensorListed && !specificFunction
       ? { requirement: 'required', why: 'C405.2.1.1 item 1: off within the time-out after occupants leave' }
-      : { requirement: 'not-required', why: specificFunction ? 'the space-specific function applies instead of C405.2.1.1' : 'not listed in C405.2.1' };
+      : {
+          requirement: 'not-required',
+          why: specificFunction ? 'the space-specific function applies instead of C405.2.1.1' : 'not listed in C405.2.1',
+        };
   cells['light-reduction'] = inputs.lightReductionExemptItem
     ? { requirement: 'not-required', why: `C405.2.3 exception: ${inputs.lightReductionExemptItem}` }
-    : { requirement: 'required', why: 'C405.2.3, unless the area has one small luminaire or a low installed density (checked by the engine)' };
+    : {
+        requirement: 'required',
+        why: 'C405.2.3, unless the area has one small luminaire or a low installed density (checked by the engine)',
+      };
   cells['daylight-sidelighting'] = { requirement: daylight.sidelighting, why: "the source dataset's mapping of C405.2.4" };
   cells['daylight-toplighting'] = { requirement: daylight.toplighting, why: "the source dataset's mapping of C405.2.4" };
   return cells;

@@ -107,7 +107,12 @@ export const exteriorApplicationRow = z.object({
   ...provenance,
 });
 
-export const lightingZoneRow = z.object({ zone: z.string().regex(/^\d$/), description: z.string(), sourceLabel: z.string(), ...provenance });
+export const lightingZoneRow = z.object({
+  zone: z.string().regex(/^\d$/),
+  description: z.string(),
+  sourceLabel: z.string(),
+  ...provenance,
+});
 
 export const additionalAllowanceRow = z.object({
   key: z.string(),
@@ -147,7 +152,10 @@ export const rulesFileSchema = z.object({
     primaryDepthHeadHeights: decimal,
     secondaryDepthHeadHeights: decimal,
     toplitExtensionCeilingHeights: decimal,
-    overlapPrecedence: z.array(z.enum(['primary-sidelit', 'secondary-sidelit', 'toplit'])).length(3).optional(),
+    overlapPrecedence: z
+      .array(z.enum(['primary-sidelit', 'secondary-sidelit', 'toplit']))
+      .length(3)
+      .optional(),
     provenance: provenanceObject,
     openings: z
       .strictObject({
@@ -238,7 +246,10 @@ export function readReferenceEdition(id: EditionId, root = defaultReferenceRoot)
   };
   const edition = parsed(editionFileSchema, at('edition.json')) as ReferenceEdition['edition'];
   if (edition.id !== id) throw new Error(`${id}/edition.json names ${edition.id}`);
-  const strategies = parsed(z.object({ edition: z.string(), strategies: z.array(editionStrategyRow) }), at('control-strategies.json')) as ReferenceEdition['controlStrategies'];
+  const strategies = parsed(
+    z.object({ edition: z.string(), strategies: z.array(editionStrategyRow) }),
+    at('control-strategies.json'),
+  ) as ReferenceEdition['controlStrategies'];
   return {
     id,
     dataVersion: dataVersionOf(root, id),

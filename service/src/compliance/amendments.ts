@@ -23,7 +23,10 @@ export function amendedEdition(edition: EditionData, keys: readonly string[]): E
           source: `${titles} (amending ${edition.title})`,
           confidence: layers.every((amendment) => amendment.provenance.verified) ? strategy.provenance.confidence : 'low',
           verified: layers.every((amendment) => amendment.provenance.verified) && strategy.provenance.verified,
-          note: layers.map((amendment) => amendment.provenance.note ?? '').filter(Boolean).join(' '),
+          note: layers
+            .map((amendment) => amendment.provenance.note ?? '')
+            .filter(Boolean)
+            .join(' '),
         },
       };
     }),

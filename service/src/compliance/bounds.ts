@@ -86,7 +86,8 @@ export function boundedDecimal(input: string | number, range: NumberRange): Boun
   if ((shape[4]?.replace(/^0+/, '').length ?? 0) > maxExponentDigits) return { ok: false, message: `Out of range. ${expected}` };
   const value = new Dec(raw);
   if (value.isNegative() && !value.isZero()) return { ok: false, message: `Must not be negative. ${expected}` };
-  if (value.greaterThan(range.max) || (range.min === 'above-zero' && value.isZero())) return { ok: false, message: `Out of range. ${expected}` };
+  if (value.greaterThan(range.max) || (range.min === 'above-zero' && value.isZero()))
+    return { ok: false, message: `Out of range. ${expected}` };
   if (range.integer && !value.isInteger()) return { ok: false, message: `Must be a whole number. ${expected}` };
   if (value.decimalPlaces() > maxDecimalPlaces) return { ok: false, message: `Use at most ${maxDecimalPlaces} decimal places.` };
   const plain = value.toFixed();
@@ -97,7 +98,9 @@ export function boundedDecimal(input: string | number, range: NumberRange): Boun
 export function decimalField(range: NumberRange) {
   // z.custom rather than z.number(), so that NaN and Infinity reach the transform and get a message of their own.
   return z
-    .custom<string | number>((value) => typeof value === 'string' || typeof value === 'number', { message: `Enter ${rangeInWords(range)}.` })
+    .custom<string | number>((value) => typeof value === 'string' || typeof value === 'number', {
+      message: `Enter ${rangeInWords(range)}.`,
+    })
     .transform((value, ctx) => {
       const checked = boundedDecimal(value, range);
       if (checked.ok) return checked.value;
@@ -137,7 +140,10 @@ export function textProblem(value: string, multiline = false): string | null {
 
 /** A trimmed, bounded, storable string; `required` also refuses the empty string. */
 export function textField(max: number, options: { required?: boolean; multiline?: boolean } = {}) {
-  let schema = z.string().trim().max(max, `Use at most ${grouped(String(max))} characters.`);
+  let schema = z
+    .string()
+    .trim()
+    .max(max, `Use at most ${grouped(String(max))} characters.`);
   if (options.required) schema = schema.min(1, 'Required.');
   return schema.superRefine((value, ctx) => {
     const problem = textProblem(value, options.multiline);

@@ -52,9 +52,15 @@ function layerOf(input: CitationInput): CitationLayer {
   if (tag === '[M]') return 'not-checked';
   if (tag === '[S-ed]') return 'other-edition-or-state';
   if (tag === '[I]') return 'modelling-dataset';
-  if (/^(from memory|not found)/i.test(input.source.trim()) || ['from memory', 'none', 'not sourced'].includes(confidence)) return 'not-checked';
+  if (/^(from memory|not found)/i.test(input.source.trim()) || ['from memory', 'none', 'not sourced'].includes(confidence))
+    return 'not-checked';
   if (confidence === 'interpretation' || (tag === '' && /\[I\]/.test(note))) return 'modelling-dataset';
-  if (otherEditionCited(input) !== null || statePatterns.some(([pattern]) => pattern.test(input.source)) || secondaryPattern.test(input.source) || (tag === '' && /\[S-ed\]/.test(note))) {
+  if (
+    otherEditionCited(input) !== null ||
+    statePatterns.some(([pattern]) => pattern.test(input.source)) ||
+    secondaryPattern.test(input.source) ||
+    (tag === '' && /\[S-ed\]/.test(note))
+  ) {
     return 'other-edition-or-state';
   }
   return 'model-code';
@@ -74,7 +80,8 @@ function standInWords(input: CitationInput): string {
   if (sourceState) return `${sourceState} state text standing in for the model code`;
   if (secondaryPattern.test(input.source)) return 'a secondary summary of the code, not its text';
   // Another edition as modelling code reads it (a state named in the note then qualifies a detail, not the value).
-  if (input.confidence.trim().toLowerCase() === 'interpretation' || modellingSourcePattern.test(input.source)) return "another edition's modelling reading standing in for this one";
+  if (input.confidence.trim().toLowerCase() === 'interpretation' || modellingSourcePattern.test(input.source))
+    return "another edition's modelling reading standing in for this one";
   const noteState = stateOf(input.note ?? '');
   if (noteState) return `${noteState} state text standing in for the model code`;
   const other = otherEditionCited(input);
@@ -107,7 +114,10 @@ function referenceWords(reference: string): string {
  * C405.3.2(2)", "ASHRAE 90.1-2022 Table 9.5.2.1-1/9.5.2.1-2"); `fallback` where it names none.
  */
 export function referenceOf(note: string | null | undefined, fallback: string): string {
-  const match = /(?:From\s+(?:ASHRAE\s+)?(?:90\.1|IECC)-?\s?\d{4}\s+|ASHRAE\s+90\.1-\d{4}\s+)(Tables?\s+[0-9A-Z][0-9A-Za-z.\-()/]*[0-9A-Za-z)])/.exec(note ?? '');
+  const match =
+    /(?:From\s+(?:ASHRAE\s+)?(?:90\.1|IECC)-?\s?\d{4}\s+|ASHRAE\s+90\.1-\d{4}\s+)(Tables?\s+[0-9A-Z][0-9A-Za-z.\-()/]*[0-9A-Za-z)])/.exec(
+      note ?? '',
+    );
   return match?.[1] ?? fallback;
 }
 
@@ -149,13 +159,19 @@ const rewrites: Rewrite[] = [
   // A second copy of the same data family (a modelling library's space types) confirms the transcription, not the printed code: nothing a reader acts on.
   [/\s*;?\s*\bopenstudio-standards space-type data\b[^[]*\[github:[^\]]*\]\s*/g, '; '],
   // Which snapshot or commit of a dataset was read: a later version of the same data, in words.
-  [/^read from the public repository at that commit, not in the cloned snapshot @[0-9a-f]+; transcribed field by field$/, 'Transcribed field by field from a later version of the public modelling dataset than the other editions use'],
+  [
+    /^read from the public repository at that commit, not in the cloned snapshot @[0-9a-f]+; transcribed field by field$/,
+    'Transcribed field by field from a later version of the public modelling dataset than the other editions use',
+  ],
   [/\s*\(line read from the public repository at that commit\)/g, ''],
   [/\bread from the public repository at that commit\b/g, 'read from a later version of the public modelling dataset'],
   [/,?\s*not in the cloned snapshot @[0-9a-f]+/g, ''],
   [/\bthe newer source commit [0-9a-f]{7,40}\b/g, 'a later version of the source'],
   [/\b(?:row )?added in commit [0-9a-f]{7,40}(?: \([\d-]+\))?;\s*/g, ''],
-  [/\bthe low-authority (?:\S*\/)?[\w.-]+\.(?:csv|json) value(?: \(unidentified [^)]*\))?/g, 'the value of a low-authority copy of unknown origin'],
+  [
+    /\bthe low-authority (?:\S*\/)?[\w.-]+\.(?:csv|json) value(?: \(unidentified [^)]*\))?/g,
+    'the value of a low-authority copy of unknown origin',
+  ],
   [/\s*\(github:[^\s()]+\)/g, ''],
   [/github:[^\s);,]+/g, 'public modelling code'],
   [/(?:\.\.\/|\b[\w-]+\/)*\b[\w-]+(?:\.[\w-]+)*\.(?:csv|json)\b/g, 'a transcribed table'],
@@ -171,7 +187,10 @@ const rewrites: Rewrite[] = [
   [/\bPNNL rule-checking documentation\b/g, 'public rule-checking documentation'],
   [/\bthe ConStrain documentation\b/g, 'the public rule-checking documentation'],
   [/\bConStrain\b/g, 'public rule-checking'],
-  [/PNNL's Appendix G modelling flag manon_or_partauto/g, 'a public modelling dataset’s Appendix G flag for manual-on or partial automatic-on'],
+  [
+    /PNNL's Appendix G modelling flag manon_or_partauto/g,
+    'a public modelling dataset’s Appendix G flag for manual-on or partial automatic-on',
+  ],
   [/\(row ([^()|]+?) \| ([^()]+?) \| flag=1\)/g, '(its row “$1, $2” is flagged)'],
   [/\bflag=1\b/g, 'flagged'],
   [/^openstudio-standards CSV annotation:\s*/i, 'A public modelling dataset notes: '],
@@ -184,18 +203,37 @@ const rewrites: Rewrite[] = [
   [/(^|[.;]\s+)FLAG LOW:\s*/g, '$1To verify (low confidence): '],
   [/(^|[.;]\s+)FLAG:\s*/g, '$1To verify: '],
   [/^ADDED ROW:\s*/, 'Added row: '],
-  [/^FORMULA ROW: source unit (?:is )?W\/ft(?:;|\s+—)\s*([\d.]+) is W\/ft2 per ft of total (\w+) height, not a flat W\/ft2$/, (_match: string, perFoot: string, space: string) =>
-    `The allowance is ${perFoot} W/ft² for each foot of the ${space}’s total height, not a flat W/ft² (the source gives the unit as W/ft)`],
-  [/^FORMULA ROW: source gives ([\d.]+) (?:\(W\/ft2\)|with unit (W\/ft2?)) plus supplemental ([\d.]+) \(W\/ft\); read as ([\d.]+) W\/ft2 \+ ([\d.]+) W\/ft2 per ft of total (\w+) height\.?(?:\s*lpd_w_ft2 holds only the base term\.?)?/,
-    (_match: string, sourceBase: string, sourceUnit: string | undefined, sourcePerFoot: string, base: string, perFoot: string, space: string) =>
-      `The allowance is ${base} W/ft² plus ${perFoot} W/ft² for each foot of the ${space}’s total height (the source gives ${sourceBase}${sourceUnit ? ` with the unit ${sourceUnit}` : ''} and a supplemental ${sourcePerFoot} per foot).`],
+  [
+    /^FORMULA ROW: source unit (?:is )?W\/ft(?:;|\s+—)\s*([\d.]+) is W\/ft2 per ft of total (\w+) height, not a flat W\/ft2$/,
+    (_match: string, perFoot: string, space: string) =>
+      `The allowance is ${perFoot} W/ft² for each foot of the ${space}’s total height, not a flat W/ft² (the source gives the unit as W/ft)`,
+  ],
+  [
+    /^FORMULA ROW: source gives ([\d.]+) (?:\(W\/ft2\)|with unit (W\/ft2?)) plus supplemental ([\d.]+) \(W\/ft\); read as ([\d.]+) W\/ft2 \+ ([\d.]+) W\/ft2 per ft of total (\w+) height\.?(?:\s*lpd_w_ft2 holds only the base term\.?)?/,
+    (
+      _match: string,
+      sourceBase: string,
+      sourceUnit: string | undefined,
+      sourcePerFoot: string,
+      base: string,
+      perFoot: string,
+      space: string,
+    ) =>
+      `The allowance is ${base} W/ft² plus ${perFoot} W/ft² for each foot of the ${space}’s total height (the source gives ${sourceBase}${sourceUnit ? ` with the unit ${sourceUnit}` : ''} and a supplemental ${sourcePerFoot} per foot).`,
+  ],
   [/^FORMULA ROW:\s*/, 'The allowance depends on the height: '],
   [/\blpd_w_ft2\b/g, 'the table value'],
   [/^Tables? [^,]+ column, /, 'From the control columns of '],
-  [/^(equal to|DIFFERS from) (ASHRAE 90\.1-\d{4}) row "([^"|]+?) \| ([^"]+?)\s*" = ([\d.]+)$/, (_match: string, relation: string, edition: string, type: string, part: string, value: string) =>
-    `${relation === 'equal to' ? 'The same value as' : 'Differs from'} the ${edition} row “${type.trim()} — ${part.trim()}” (${value})`],
+  [
+    /^(equal to|DIFFERS from) (ASHRAE 90\.1-\d{4}) row "([^"|]+?) \| ([^"]+?)\s*" = ([\d.]+)$/,
+    (_match: string, relation: string, edition: string, type: string, part: string, value: string) =>
+      `${relation === 'equal to' ? 'The same value as' : 'Differs from'} the ${edition} row “${type.trim()} — ${part.trim()}” (${value})`,
+  ],
   [/^SOURCES\.md "Rows to verify":\s*/, 'To verify: '],
-  [/^interpretation — verify: YES \(b\/c ADD1 likely\), from/, 'An interpretation to verify: likely required (column (b) or (c), at least one of group ADD1), from'],
+  [
+    /^interpretation — verify: YES \(b\/c ADD1 likely\), from/,
+    'An interpretation to verify: likely required (column (b) or (c), at least one of group ADD1), from',
+  ],
   [/modelling proxy: NO_PROXY \(no matching Table G3\.7 row in the source\)/g, 'no modelling proxy either (no matching Table G3.7 row)'],
   [/modelling proxy: NO \(b and c likely blank\)/g, 'the modelling proxy reads it as not required (columns (b) and (c) likely blank)'],
   // "Of the same repo", "(equal; same repo)": the same dataset, which a bare "(same repo)" only repeats.
@@ -204,10 +242,15 @@ const rewrites: Rewrite[] = [
   [/\bsame (?:source )?repo\b/g, 'same dataset'],
   // Rows of another edition named in a comparison ("vs ASHRAE 90.1-2016: equal to row "Atrium | > 40 ft" = 0.4").
   [/^vs ((?:ASHRAE )?90\.1-\d{4}|IECC \d{4}):\s*/, 'Compared with $1: '],
-  [/\b(IECC \d{4}|(?:ASHRAE )?90\.1-\d{4}) row "([^"|]+?) \| ([^"]+?)\s*" = ([\d.]+) \((equal|differs|DIFFERS)(?:; ([^)]*))?\)/g,
+  [
+    /\b(IECC \d{4}|(?:ASHRAE )?90\.1-\d{4}) row "([^"|]+?) \| ([^"]+?)\s*" = ([\d.]+) \((equal|differs|DIFFERS)(?:; ([^)]*))?\)/g,
     (_match: string, edition: string, type: string, part: string, value: string, relation: string, more: string | undefined) =>
-      `the ${edition} row “${type.trim()} — ${part.trim()}” ${relation === 'equal' ? 'has the same value' : 'differs'} (${[value, more].filter(Boolean).join('; ')})`],
-  [/\brow "([^"|]+?) \| ([^"]+?)\s*" = ([\d.]+)/g, (_match: string, type: string, part: string, value: string) => `the row “${type.trim()} — ${part.trim()}” (${value})`],
+      `the ${edition} row “${type.trim()} — ${part.trim()}” ${relation === 'equal' ? 'has the same value' : 'differs'} (${[value, more].filter(Boolean).join('; ')})`,
+  ],
+  [
+    /\brow "([^"|]+?) \| ([^"]+?)\s*" = ([\d.]+)/g,
+    (_match: string, type: string, part: string, value: string) => `the row “${type.trim()} — ${part.trim()}” (${value})`,
+  ],
   [/\bNOT\b/g, 'not'],
   [/\bDIFFERS?\b/g, (word: string) => word.toLowerCase()],
   [/\bREQ\b/g, 'required'],
@@ -244,7 +287,10 @@ const droppedParts = [
 ];
 
 function sentence(part: string): string {
-  const trimmed = part.replace(/\s{2,}/g, ' ').replace(/\s+([,;.:)])/g, '$1').trim();
+  const trimmed = part
+    .replace(/\s{2,}/g, ' ')
+    .replace(/\s+([,;.:)])/g, '$1')
+    .trim();
   if (trimmed === '') return '';
   const capital = trimmed[0]!.toUpperCase() + trimmed.slice(1);
   return /[.!?]["”)]?$/.test(capital) ? capital : `${capital}.`;
@@ -259,13 +305,16 @@ export function cleanNote(note: string | null | undefined, fromMemory?: string |
   const raw = [...segments(note ?? '')];
   if (fromMemory?.trim()) raw.push(`from memory: ${fromMemory.trim().replace(/^\[M\]\s*/, '')}`);
   // A part that flags the value, or ends by asking to verify it, already says what a "rows to verify" pointer repeats.
-  const flagged = raw.some((part) => /(?:^|[.;]\s+)FLAG\b/.test(part) || (!part.startsWith('SOURCES.md') && /[;:]\s*verify\.?$/.test(part)));
+  const flagged = raw.some(
+    (part) => /(?:^|[.;]\s+)FLAG\b/.test(part) || (!part.startsWith('SOURCES.md') && /[;:]\s*verify\.?$/.test(part)),
+  );
   const parts: string[] = [];
   for (const part of raw) {
     if (flagged && part.startsWith('SOURCES.md')) continue;
     if (droppedParts.some((pattern) => pattern.test(part))) continue;
     let text = part;
-    for (const [pattern, replacement] of rewrites) text = typeof replacement === 'string' ? text.replace(pattern, replacement) : text.replace(pattern, replacement);
+    for (const [pattern, replacement] of rewrites)
+      text = typeof replacement === 'string' ? text.replace(pattern, replacement) : text.replace(pattern, replacement);
     const words = sentence(text);
     if (words !== '' && !parts.includes(words)) parts.push(words);
   }

@@ -128,7 +128,9 @@ function fittingRow(to: EditionData, key: string, area: unknown, rooms: unknown,
   const type = to.spaceTypes.find((row) => row.key === key)!;
   const condition = sizeCondition(type.sourceLabel);
   if (condition?.quantity !== 'area' || (typeof area !== 'string' && typeof area !== 'number')) return key;
-  const each = areaToSquareFeet(dec(String(area)), units).dividedBy(typeof rooms === 'string' || typeof rooms === 'number' ? dec(String(rooms)) : 1);
+  const each = areaToSquareFeet(dec(String(area)), units).dividedBy(
+    typeof rooms === 'string' || typeof rooms === 'number' ? dec(String(rooms)) : 1,
+  );
   if (satisfies(condition, each)) return key;
   const kind = type.sourceLabel.split('|')[0]!.trim();
   const sibling = to.spaceTypes.find((row) => {
@@ -139,13 +141,28 @@ function fittingRow(to: EditionData, key: string, area: unknown, rooms: unknown,
 }
 
 /** `own` is the design's evaluation under `from`, which every other edition's control requirements are set against. */
-export function compareEditions(document: EvaluationDocumentInput, from: EditionData, targets: readonly EditionData[], own: EvaluationResult): EditionComparison[] {
+export function compareEditions(
+  document: EvaluationDocumentInput,
+  from: EditionData,
+  targets: readonly EditionData[],
+  own: EvaluationResult,
+): EditionComparison[] {
   const all = [from, ...targets];
   const spaceEdges = equalities(all, 'space');
   const areaEdges = equalities(all, 'area');
   const units = document.units;
   return targets.map((to): EditionComparison => {
-    const comparison: EditionComparison = { edition: to.id, title: to.title, status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], controlChanges: [], problems: [], result: null };
+    const comparison: EditionComparison = {
+      edition: to.id,
+      title: to.title,
+      status: 'evaluated',
+      unmapped: [],
+      remapped: [],
+      controlsNotCarried: [],
+      controlChanges: [],
+      problems: [],
+      result: null,
+    };
     const strategies = new Set<string>(to.controlStrategies.map((strategy) => strategy.key));
     const dropped = new Set<string>();
     const carry = <Control extends { strategy: string }>(controls: Control[] | undefined): Control[] =>
@@ -156,7 +173,11 @@ export function compareEditions(document: EvaluationDocumentInput, from: Edition
       });
     const spaces = document.spaces.map((space) => {
       const copy = { ...space, controls: carry(space.controls) };
-      for (const [field, kind] of [['spaceType', 'space'], ['controlSpaceType', 'space'], ['buildingAreaType', 'area']] as const) {
+      for (const [field, kind] of [
+        ['spaceType', 'space'],
+        ['controlSpaceType', 'space'],
+        ['buildingAreaType', 'area'],
+      ] as const) {
         const key = space[field];
         if (key === undefined) continue;
         const found = mapped(kind === 'space' ? spaceEdges : areaEdges, from.id, key, to, kind);
@@ -167,7 +188,8 @@ export function compareEditions(document: EvaluationDocumentInput, from: Edition
           continue;
         }
         const fitted = kind === 'space' ? fittingRow(to, found, space.area, space.rooms, units) : found;
-        if (fitted !== key && needed) comparison.remapped.push({ space: space.name, from: labelOf(from, kind, key), to: labelOf(to, kind, fitted) });
+        if (fitted !== key && needed)
+          comparison.remapped.push({ space: space.name, from: labelOf(from, kind, key), to: labelOf(to, kind, fitted) });
         copy[field] = fitted;
       }
       return copy;
@@ -176,11 +198,17 @@ export function compareEditions(document: EvaluationDocumentInput, from: Edition
     const exterior = document.exterior
       ? {
           ...document.exterior,
-          applications: (document.exterior.applications ?? []).filter((application) => {
-            if (applications.has(application.key)) return true;
-            comparison.unmapped.push({ what: 'exterior application', name: from.exteriorApplications.find((row) => row.key === application.key)?.label ?? application.key, type: '' });
-            return false;
-          }).map((application) => ({ ...application, controls: carry(application.controls) })),
+          applications: (document.exterior.applications ?? [])
+            .filter((application) => {
+              if (applications.has(application.key)) return true;
+              comparison.unmapped.push({
+                what: 'exterior application',
+                name: from.exteriorApplications.find((row) => row.key === application.key)?.label ?? application.key,
+                type: '',
+              });
+              return false;
+            })
+            .map((application) => ({ ...application, controls: carry(application.controls) })),
         }
       : undefined;
     comparison.controlsNotCarried = [...dropped];
@@ -194,7 +222,9 @@ export function compareEditions(document: EvaluationDocumentInput, from: Edition
       edition: to.id,
       spaces,
       ...(exterior ? { exterior } : {}),
-      ...(document.retailDisplay ? { retailDisplay: { claims: (document.retailDisplay.claims ?? []).filter((claim) => allowances.has(claim.allowance)) } } : {}),
+      ...(document.retailDisplay
+        ? { retailDisplay: { claims: (document.retailDisplay.claims ?? []).filter((claim) => allowances.has(claim.allowance)) } }
+        : {}),
       // A jurisdiction's amendments belong to the edition it amends.
       amendments: [],
     };
@@ -214,7 +244,9 @@ export function compareEditions(document: EvaluationDocumentInput, from: Edition
 /** What a comparison shows of one evaluation: the figures, and the control lines that fail or wait. */
 export function summary(result: EvaluationResult): NonNullable<EditionComparison['result']> {
   const lines = result.interior.spaces.flatMap((space) => space.controls.map((line) => ({ space: space.name, line })));
-  const exteriorLines = (result.exterior?.applications ?? []).flatMap((application) => application.controls.map((line) => ({ space: application.label, line })));
+  const exteriorLines = (result.exterior?.applications ?? []).flatMap((application) =>
+    application.controls.map((line) => ({ space: application.label, line })),
+  );
   const every = [...lines, ...exteriorLines];
   const { interior, exterior } = result;
   const area = dec(interior.area);
@@ -231,7 +263,12 @@ export function summary(result: EvaluationResult): NonNullable<EditionComparison
     installedLpd: density(interior.installedW),
     interiorComplies: interior.complies,
     exterior: exterior
-      ? { allowanceW: exterior.allowanceW, installedW: exterior.installedW, marginW: reported.watts(dec(exterior.allowanceW).minus(exterior.installedW)), complies: exterior.complies }
+      ? {
+          allowanceW: exterior.allowanceW,
+          installedW: exterior.installedW,
+          marginW: reported.watts(dec(exterior.allowanceW).minus(exterior.installedW)),
+          complies: exterior.complies,
+        }
       : null,
     controls: {
       met: every.filter(({ line }) => line.status === 'met' || line.status === 'exception-claimed').length,
@@ -258,7 +295,12 @@ function requirementKind(line: ControlLine | undefined): RequirementKind {
 export function controlChanges(own: EvaluationResult, other: EvaluationResult): ControlChange[] {
   const places = (result: EvaluationResult) => [
     ...result.interior.spaces.map((space) => ({ id: `space:${space.id}`, place: space.name, exterior: false, lines: space.controls })),
-    ...(result.exterior?.applications ?? []).map((application) => ({ id: `exterior:${application.key}`, place: application.label, exterior: true, lines: application.controls })),
+    ...(result.exterior?.applications ?? []).map((application) => ({
+      id: `exterior:${application.key}`,
+      place: application.label,
+      exterior: true,
+      lines: application.controls,
+    })),
   ];
   const before = new Map(places(own).map((place) => [place.id, place.lines]));
   return places(other).flatMap(({ id, place, exterior, lines }): ControlChange[] => {
@@ -272,7 +314,13 @@ export function controlChanges(own: EvaluationResult, other: EvaluationResult): 
     const listed = new Set(lines.map((line) => line.strategy));
     for (const line of ownLines) {
       if (listed.has(line.strategy) || requirementKind(line) === 'not-required') continue;
-      changes.push({ control: line.label, requirement: 'not-required', before: requirementKind(line), status: 'not-required', section: line.section });
+      changes.push({
+        control: line.label,
+        requirement: 'not-required',
+        before: requirementKind(line),
+        status: 'not-required',
+        section: line.section,
+      });
     }
     return changes.length === 0 ? [] : [{ place, exterior, changes }];
   });

@@ -80,7 +80,12 @@ function tableRequirements(edition: EditionData, facts: SpaceControlFacts): Cont
       strategy === 'automatic-partial-off' && parameter(edition, strategy, 'reductionPercent') !== undefined
         ? { reductionPercent: parameter(edition, strategy, 'reductionPercent'), what: 'automatic partial OFF' }
         : undefined;
-    requirements.push({ strategy, requirement: code, why: `${column} (${edition.title} space type controls)`, ...(needs ? { needs } : {}) });
+    requirements.push({
+      strategy,
+      requirement: code,
+      why: `${column} (${edition.title} space type controls)`,
+      ...(needs ? { needs } : {}),
+    });
   }
   return requirements;
 }
@@ -93,17 +98,29 @@ function sensorFunctionNeeds(edition: EditionData, type: SpaceType): FunctionNee
     case 'warehouse':
       return { reductionPercent: value('reductionPercent'), what: 'in warehouse aisles and open areas, reduced when unoccupied' };
     case 'open-office':
-      return { reductionPercent: value('openOfficeReductionPercent'), zoneSizeLimitFt2: value('openOfficeZoneSizeLimitFt2'), what: 'in open plan offices, each vacant zone reduced' };
+      return {
+        reductionPercent: value('openOfficeReductionPercent'),
+        zoneSizeLimitFt2: value('openOfficeZoneSizeLimitFt2'),
+        what: 'in open plan offices, each vacant zone reduced',
+      };
     case 'corridor':
       return { reductionPercent: value('reductionPercent'), what: 'in corridors and stairways, reduced when unoccupied' };
     case 'parking-garage':
-      return { reductionPercent: value('parkingReductionPercent'), zoneSizeLimitFt2: value('parkingZoneSizeLimitFt2'), what: 'in parking garages, each zone reduced after a time without activity' };
+      return {
+        reductionPercent: value('parkingReductionPercent'),
+        zoneSizeLimitFt2: value('parkingZoneSizeLimitFt2'),
+        what: 'in parking garages, each zone reduced after a time without activity',
+      };
     default:
       return null;
   }
 }
 
-function ruleRequirements(edition: EditionData, facts: SpaceControlFacts, catalogue: ReadonlyMap<string, ControlStrategy>): ControlRequirement[] {
+function ruleRequirements(
+  edition: EditionData,
+  facts: SpaceControlFacts,
+  catalogue: ReadonlyMap<string, ControlStrategy>,
+): ControlRequirement[] {
   const type = facts.spaceType;
   const small = edition.rules.smallEnclosedSpaceFt2 === null ? null : dec(edition.rules.smallEnclosedSpaceFt2);
   const area = (squareFeet: Dec) => areaWords(squareFeet, facts.units);
@@ -111,9 +128,17 @@ function ruleRequirements(edition: EditionData, facts: SpaceControlFacts, catalo
   if (type?.iecc?.occupantSensorListed) {
     occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `${type.label} is a space type listed for occupant sensors` };
   } else if (type === undefined) {
-    occupant = { strategy: 'occupant-sensor', requirement: 'to-verify', why: 'no control space type is given, so the occupant-sensor list cannot be checked' };
+    occupant = {
+      strategy: 'occupant-sensor',
+      requirement: 'to-verify',
+      why: 'no control space type is given, so the occupant-sensor list cannot be checked',
+    };
   } else if (small !== null && facts.areaFt2.lessThanOrEqualTo(small) && facts.enclosed === true) {
-    occupant = { strategy: 'occupant-sensor', requirement: 'required', why: `enclosed space of ${area(facts.areaFt2)}, not more than ${area(small)}` };
+    occupant = {
+      strategy: 'occupant-sensor',
+      requirement: 'required',
+      why: `enclosed space of ${area(facts.areaFt2)}, not more than ${area(small)}`,
+    };
   } else if (small !== null && facts.areaFt2.lessThanOrEqualTo(small) && facts.enclosed === undefined) {
     // The small-space rule turns on whether the room is enclosed: blank is not "no".
     occupant = {
@@ -122,23 +147,44 @@ function ruleRequirements(edition: EditionData, facts: SpaceControlFacts, catalo
       why: `a space of ${area(facts.areaFt2)} (not more than ${area(small)}) needs occupant sensors if it is enclosed by floor-to-ceiling walls, and that is not recorded`,
     };
   } else {
-    const size = small === null ? '' : facts.enclosed === true ? `; enclosed but ${area(facts.areaFt2)} is more than ${area(small)}` : facts.enclosed === false ? '; not an enclosed space' : `; more than ${area(small)}`;
+    const size =
+      small === null
+        ? ''
+        : facts.enclosed === true
+          ? `; enclosed but ${area(facts.areaFt2)} is more than ${area(small)}`
+          : facts.enclosed === false
+            ? '; not an enclosed space'
+            : `; more than ${area(small)}`;
     occupant = { strategy: 'occupant-sensor', requirement: 'not-required', why: `${type.label} is not on the occupant-sensor list${size}` };
   }
 
   const requirements: ControlRequirement[] = [occupant, timeSwitch(facts, occupant, catalogue)];
   const needs = type ? sensorFunctionNeeds(edition, type) : null;
-  if (needs) requirements.push({ strategy: 'automatic-partial-off', requirement: 'required', why: `the occupant-sensor function ${needs.what}`, needs });
+  if (needs)
+    requirements.push({
+      strategy: 'automatic-partial-off',
+      requirement: 'required',
+      why: `the occupant-sensor function ${needs.what}`,
+      needs,
+    });
   requirements.push(lightReduction(edition, facts));
   if (type?.iecc?.sleepingUnit) {
-    requirements.push({ strategy: 'specific-application', requirement: 'required', why: `${type.label} is a sleeping or dwelling unit, whose lighting has its own controls` });
+    requirements.push({
+      strategy: 'specific-application',
+      requirement: 'required',
+      why: `${type.label} is a sleeping or dwelling unit, whose lighting has its own controls`,
+    });
   }
   // The catalogue's daylight mapping excepts some space types (sleeping units, operating and imaging rooms).
   for (const strategy of ['daylight-sidelighting', 'daylight-toplighting'] as const) {
     const trigger = strategy === 'daylight-sidelighting' ? facts.sidelighting : facts.toplighting;
     const mapped = type?.controls[strategy];
     if (mapped === 'not-required') {
-      requirements.push({ strategy, requirement: 'not-required', why: `${type!.label} is excepted from daylight-responsive control in the space type catalogue` });
+      requirements.push({
+        strategy,
+        requirement: 'not-required',
+        why: `${type!.label} is excepted from daylight-responsive control in the space type catalogue`,
+      });
     } else {
       requirements.push({ strategy, requirement: trigger.requirement, why: trigger.why });
     }
@@ -150,22 +196,36 @@ function ruleRequirements(edition: EditionData, facts: SpaceControlFacts, catalo
  * C405.2.2: a time switch where a space has no occupant sensor controls. Only a sensor that meets
  * C405.2.1.1 (its time-out, and manual-on or the automatic-on allowed here) stands in for one.
  */
-function timeSwitch(facts: SpaceControlFacts, occupant: ControlRequirement, catalogue: ReadonlyMap<string, ControlStrategy>): ControlRequirement {
+function timeSwitch(
+  facts: SpaceControlFacts,
+  occupant: ControlRequirement,
+  catalogue: ReadonlyMap<string, ControlStrategy>,
+): ControlRequirement {
   const strategy = 'time-switch';
   const exempt = facts.spaceType?.iecc?.timeSwitchExemptItem;
   if (exempt) return { strategy, requirement: 'not-required', why: `${exempt} are excepted from time-switch control` };
-  if (occupant.requirement === 'required') return { strategy, requirement: 'not-required', why: 'occupant sensors are required here instead' };
+  if (occupant.requirement === 'required')
+    return { strategy, requirement: 'not-required', why: 'occupant sensors are required here instead' };
   const sensor = facts.provided.find((control) => control.strategy === 'occupant-sensor' && control.provided);
   if (sensor) {
     const check = checkProvision('occupant-sensor', facts.provided, catalogue, facts.spaceType, facts.units, facts.areaFt2, undefined);
-    if (check.state === 'ok') return { strategy, requirement: 'not-required', why: 'occupant sensor controls that meet the sensor rules are provided, and time-switch control applies only where there are none' };
+    if (check.state === 'ok')
+      return {
+        strategy,
+        requirement: 'not-required',
+        why: 'occupant sensor controls that meet the sensor rules are provided, and time-switch control applies only where there are none',
+      };
     return {
       strategy,
       requirement: occupant.requirement === 'to-verify' ? 'to-verify' : 'required',
       why: `the occupant sensor recorded cannot stand in for a time switch: ${check.words}`,
     };
   }
-  return { strategy, requirement: occupant.requirement === 'to-verify' ? 'to-verify' : 'required', why: 'a space without occupant sensor controls needs time-switch control' };
+  return {
+    strategy,
+    requirement: occupant.requirement === 'to-verify' ? 'to-verify' : 'required',
+    why: 'a space without occupant sensor controls needs time-switch control',
+  };
 }
 
 /** C405.2.3 with its exceptions, read from the data: listed space types, one small luminaire, a low installed density. */
@@ -178,14 +238,22 @@ function lightReduction(edition: EditionData, facts: SpaceControlFacts): Control
   if (singleBelow !== undefined && luminaires.equals(1)) {
     const only = facts.nonExemptLuminaires.find((group) => group.count.equals(1))!;
     if (only.unitWatts.lessThan(dec(singleBelow))) {
-      return { strategy, requirement: 'not-required', why: `the space has one luminaire of ${only.unitWatts.toFixed()} W, less than ${singleBelow} W` };
+      return {
+        strategy,
+        requirement: 'not-required',
+        why: `the space has one luminaire of ${only.unitWatts.toFixed()} W, less than ${singleBelow} W`,
+      };
     }
   }
   const lpdBelow = parameter(edition, strategy, 'exemptLpdBelowWPerFt2');
   if (lpdBelow !== undefined && facts.areaFt2.greaterThan(0)) {
     const density = facts.installedW.dividedBy(facts.areaFt2);
     if (density.lessThan(dec(lpdBelow))) {
-      return { strategy, requirement: 'not-required', why: `the installed density of ${densityWords(density, facts.units)} is less than ${densityWords(dec(lpdBelow), facts.units)}` };
+      return {
+        strategy,
+        requirement: 'not-required',
+        why: `the installed density of ${densityWords(density, facts.units)} is less than ${densityWords(dec(lpdBelow), facts.units)}`,
+      };
     }
   }
   const reduction = parameter(edition, strategy, 'reductionPercent');
@@ -212,12 +280,21 @@ function isParkingGarage(type: SpaceType): boolean {
  */
 function parkingTransition(type: SpaceType, edition: EditionData): ControlRequirement {
   const strategy = 'parking-daylight-transition';
-  const rule = 'lighting in the daylight transition zone at a covered vehicle entrance or exit is controlled apart from the garage’s other lighting and reduced automatically from sunset to sunrise';
+  const rule =
+    'lighting in the daylight transition zone at a covered vehicle entrance or exit is controlled apart from the garage’s other lighting and reduced automatically from sunset to sunrise';
   if (type.key === transitionZoneType) return { strategy, requirement: 'required', why: `${type.label}: ${rule}` };
   if (edition.spaceTypes.some((candidate) => candidate.key === transitionZoneType)) {
-    return { strategy, requirement: 'not-required', why: `this edition gives the daylight transition zone its own space type, and this space is entered as ${type.label}` };
+    return {
+      strategy,
+      requirement: 'not-required',
+      why: `this edition gives the daylight transition zone its own space type, and this space is entered as ${type.label}`,
+    };
   }
-  return { strategy, requirement: 'to-verify', why: `in a parking garage, ${rule}; whether this space has a covered vehicle entrance or exit with such lighting is not recorded` };
+  return {
+    strategy,
+    requirement: 'to-verify',
+    why: `in a parking garage, ${rule}; whether this space has a covered vehicle entrance or exit with such lighting is not recorded`,
+  };
 }
 
 export function interiorRequirements(edition: EditionData, facts: SpaceControlFacts): ControlRequirement[] {
@@ -277,22 +354,31 @@ function checkProvision(
   const limit = catalogue.get(entry.strategy)?.parameters.timeoutMinutes;
   if (limit !== undefined) {
     if (entry.timeoutMinutes === undefined) open.push(`its time-out is not recorded (at most ${limit} min)`);
-    else if (dec(entry.timeoutMinutes).greaterThan(dec(limit))) return { state: 'failed', words: `${by}${device}, but its time-out of ${entry.timeoutMinutes} min is longer than ${limit} min` };
+    else if (dec(entry.timeoutMinutes).greaterThan(dec(limit)))
+      return { state: 'failed', words: `${by}${device}, but its time-out of ${entry.timeoutMinutes} min is longer than ${limit} min` };
   }
   if (strategy === 'occupant-sensor' && spaceType?.iecc) {
     if (entry.autoOn === 'full' && !spaceType.iecc.fullAutoOnAllowed) {
-      return { state: 'failed', words: `${by}${device}, but full automatic-on is not allowed in ${spaceType.label}: manual-on or automatic-on to at most 50 %` };
+      return {
+        state: 'failed',
+        words: `${by}${device}, but full automatic-on is not allowed in ${spaceType.label}: manual-on or automatic-on to at most 50 %`,
+      };
     }
     if (entry.autoOn === undefined) open.push('how it turns the lighting on is not recorded (manual-on, or automatic-on to at most 50 %)');
   }
-  const zoneLimits = [catalogue.get(entry.strategy)?.parameters['zoneSizeLimitFt2'], needs?.zoneSizeLimitFt2].filter((value): value is string => value !== undefined);
+  const zoneLimits = [catalogue.get(entry.strategy)?.parameters['zoneSizeLimitFt2'], needs?.zoneSizeLimitFt2].filter(
+    (value): value is string => value !== undefined,
+  );
   const zoneLimit = zoneLimits.length === 0 ? undefined : zoneLimits.map(dec).reduce((a, b) => (a.lessThan(b) ? a : b));
   if (zoneLimit !== undefined) {
     if (entry.zoneSize !== undefined) {
       const zoneFt2 = areaToSquareFeet(dec(entry.zoneSize), units);
       if (zoneFt2.greaterThan(zoneLimit)) {
         const served = units === 'ip' ? areaWords(zoneFt2.toDecimalPlaces(0), units) : areaWords(zoneFt2, units);
-        return { state: 'failed', words: `${by}${device}, but one device or zone serves ${served}, more than ${areaWords(zoneLimit, units)}` };
+        return {
+          state: 'failed',
+          words: `${by}${device}, but one device or zone serves ${served}, more than ${areaWords(zoneLimit, units)}`,
+        };
       }
     } else if (areaFt2 === undefined || areaFt2.greaterThan(zoneLimit)) {
       // A zone cannot be larger than its space, so only a space larger than the limit needs the zone size.
@@ -302,12 +388,19 @@ function checkProvision(
   // Full OFF reduces by all of it; otherwise the recorded reduction decides.
   const reduction = entry.strategy === 'automatic-full-off' && strategy !== 'automatic-full-off' ? '100' : entry.reductionPercent;
   if (needs?.reductionPercent !== undefined) {
-    if (reduction === undefined) open.push(`how far it reduces the lighting is not recorded (at least ${needs.reductionPercent} %, ${needs.what})`);
+    if (reduction === undefined)
+      open.push(`how far it reduces the lighting is not recorded (at least ${needs.reductionPercent} %, ${needs.what})`);
     else if (dec(reduction).lessThan(dec(needs.reductionPercent))) {
-      return { state: 'failed', words: `${by}${device}, but it reduces the lighting by ${reduction} %, less than the ${needs.reductionPercent} % required (${needs.what})` };
+      return {
+        state: 'failed',
+        words: `${by}${device}, but it reduces the lighting by ${reduction} %, less than the ${needs.reductionPercent} % required (${needs.what})`,
+      };
     }
   }
-  const details = [entry.timeoutMinutes === undefined ? '' : `time-out ${entry.timeoutMinutes} min`, entry.reductionPercent === undefined ? '' : `reduction ${entry.reductionPercent} %`].filter(Boolean);
+  const details = [
+    entry.timeoutMinutes === undefined ? '' : `time-out ${entry.timeoutMinutes} min`,
+    entry.reductionPercent === undefined ? '' : `reduction ${entry.reductionPercent} %`,
+  ].filter(Boolean);
   const recorded = details.length ? `; ${details.join(', ')}` : '';
   if (open.length > 0) return { state: 'open', words: `${by}${device}${recorded}, but ${open.join('; and ')}` };
   return { state: 'ok', words: `${by}${device}${recorded}` };
@@ -323,7 +416,9 @@ export function resolveControls(
   areaFt2?: Dec,
 ): ControlLine[] {
   const catalogue: ReadonlyMap<string, ControlStrategy> = new Map(edition.controlStrategies.map((strategy) => [strategy.key, strategy]));
-  const checks = new Map(requirements.map((line) => [line.strategy, checkProvision(line.strategy, provided, catalogue, spaceType, units, areaFt2, line.needs)]));
+  const checks = new Map(
+    requirements.map((line) => [line.strategy, checkProvision(line.strategy, provided, catalogue, spaceType, units, areaFt2, line.needs)]),
+  );
   const general = provided.find((control) => control.exceptionReason !== undefined && generalExceptions.has(control.exceptionReason));
   return requirements.map((line) => {
     const strategy = catalogue.get(line.strategy);
@@ -341,12 +436,24 @@ export function resolveControls(
     }
     if (general?.exceptionReason !== undefined && check.state !== 'ok') {
       const words = `exception claimed for every control of this space: ${exceptionWords[general.exceptionReason]}`;
-      return { ...base, met: null, status: 'exception-claimed', reason: `${line.requirement === 'required' ? `Required: ${line.why}; ` : `${capitalised(line.why)}: `}${words}.` };
+      return {
+        ...base,
+        met: null,
+        status: 'exception-claimed',
+        reason: `${line.requirement === 'required' ? `Required: ${line.why}; ` : `${capitalised(line.why)}: `}${words}.`,
+      };
     }
     if (line.requirement === 'to-verify') {
       // Settled by the engineer: provided anyway, or checked against the adopted code.
-      if (check.state === 'ok') return { ...base, met: true, status: 'met', reason: `Provided (${check.words}); whether the code requires it here is not yet checked: ${line.why}.` };
-      if (exception === 'verified-not-required') return { ...base, met: null, status: 'exception-claimed', reason: `To verify: ${line.why}; ${claimedWords}.` };
+      if (check.state === 'ok')
+        return {
+          ...base,
+          met: true,
+          status: 'met',
+          reason: `Provided (${check.words}); whether the code requires it here is not yet checked: ${line.why}.`,
+        };
+      if (exception === 'verified-not-required')
+        return { ...base, met: null, status: 'exception-claimed', reason: `To verify: ${line.why}; ${claimedWords}.` };
       return { ...base, met: null, status: 'to-verify', reason: `To verify: ${line.why}; ${check.words}.` };
     }
     // A "checked: not required" statement answers an open question; it cannot set aside a requirement the tables state.
@@ -369,9 +476,20 @@ export function resolveControls(
       const reason = provided.find((control) => control.strategy === member.strategy)?.exceptionReason;
       return reason !== undefined && reason !== 'verified-not-required';
     });
-    if (groupClaim) return { ...base, met: null, status: 'exception-claimed', reason: `${capitalised(line.why)}: ${group}; ${acceptedClaim || 'exception claimed for the group'}.` };
+    if (groupClaim)
+      return {
+        ...base,
+        met: null,
+        status: 'exception-claimed',
+        reason: `${capitalised(line.why)}: ${group}; ${acceptedClaim || 'exception claimed for the group'}.`,
+      };
     if (members.some((member) => checks.get(member.strategy)!.state === 'open')) {
-      return { ...base, met: null, status: 'to-verify', reason: `${capitalised(line.why)}: ${group}; none settled yet; this one ${check.words}.` };
+      return {
+        ...base,
+        met: null,
+        status: 'to-verify',
+        reason: `${capitalised(line.why)}: ${group}; none settled yet; this one ${check.words}.`,
+      };
     }
     return { ...base, met: false, status: 'not-met', reason: `${capitalised(line.why)}: ${group}; none met; this one ${check.words}.` };
   });

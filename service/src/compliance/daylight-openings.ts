@@ -33,16 +33,27 @@ export function windowAreaFt2(window: WindowOpening, units: UnitSystem): Dec {
   return areaToSquareFeet(dec(window.width).times(dec(window.headHeight).minus(dec(window.sillHeight ?? '0'))), units);
 }
 
-export function windowVerdict(window: WindowOpening, index: number, rules: DaylightOpeningRules, units: UnitSystem, blanksExcept: boolean): OpeningVerdict {
+export function windowVerdict(
+  window: WindowOpening,
+  index: number,
+  rules: DaylightOpeningRules,
+  units: UnitSystem,
+  blanksExcept: boolean,
+): OpeningVerdict {
   const name = `window ${index + 1} (${window.wall} wall)`;
   const verdict: OpeningVerdict = { excludes: 'none', words: [], blanks: [], applied: [] };
   const area = rules.windowMinimumAreaFt2;
   if (area) {
-    verdict.applied.push({ what: `Daylight zones: a window of less than ${areaWords(dec(area.ft2), units)} of glazing makes no sidelit zone`, rule: area });
+    verdict.applied.push({
+      what: `Daylight zones: a window of less than ${areaWords(dec(area.ft2), units)} of glazing makes no sidelit zone`,
+      rule: area,
+    });
     const glazing = windowAreaFt2(window, units);
     if (glazing.lessThan(dec(area.ft2))) {
       verdict.excludes = 'all';
-      verdict.words.push(`${name} has ${areaWords(glazing, units)} of glazing, less than ${areaWords(dec(area.ft2), units)}, so it makes no sidelit zone (${cite(area)})`);
+      verdict.words.push(
+        `${name} has ${areaWords(glazing, units)} of glazing, less than ${areaWords(dec(area.ft2), units)}, so it makes no sidelit zone (${cite(area)})`,
+      );
     }
   }
   const vt = rules.windowMinimumVt;
@@ -53,22 +64,31 @@ export function windowVerdict(window: WindowOpening, index: number, rules: Dayli
       if (blanksExcept) verdict.excludes = 'all';
     } else if (dec(window.visibleTransmittance).lessThan(dec(vt.vt))) {
       verdict.excludes = 'all';
-      verdict.words.push(`${name} has a visible transmittance of ${window.visibleTransmittance}, below ${vt.vt}, so it makes no sidelit zone (${cite(vt)})`);
+      verdict.words.push(
+        `${name} has a visible transmittance of ${window.visibleTransmittance}, below ${vt.vt}, so it makes no sidelit zone (${cite(vt)})`,
+      );
     }
   }
   const blocked = rules.blockedWindow;
   if (blocked) {
     const effect = blocked.excludes === 'primary' ? 'its primary sidelit area needs no control' : 'it makes no sidelit zone';
     verdict.applied.push({
-      what: blocked.excludes === 'primary' ? 'Daylight exception: primary sidelit areas of windows blocked by an adjacent structure' : 'Daylight zones: a window blocked by an adjacent structure makes no sidelit zone',
+      what:
+        blocked.excludes === 'primary'
+          ? 'Daylight exception: primary sidelit areas of windows blocked by an adjacent structure'
+          : 'Daylight zones: a window blocked by an adjacent structure makes no sidelit zone',
       rule: blocked,
     });
     if (window.daylightBlocked === undefined) {
-      verdict.blanks.push(`whether an adjacent structure blocks the daylight of ${name} is not recorded (if it does, ${effect}, ${cite(blocked)})`);
+      verdict.blanks.push(
+        `whether an adjacent structure blocks the daylight of ${name} is not recorded (if it does, ${effect}, ${cite(blocked)})`,
+      );
       if (blanksExcept) verdict.excludes = worst(verdict.excludes, blocked.excludes);
     } else if (window.daylightBlocked) {
       verdict.excludes = worst(verdict.excludes, blocked.excludes);
-      verdict.words.push(`${name} is blocked by an adjacent structure at least twice as high above it as its distance away, so ${effect} (${cite(blocked)})`);
+      verdict.words.push(
+        `${name} is blocked by an adjacent structure at least twice as high above it as its distance away, so ${effect} (${cite(blocked)})`,
+      );
     }
   }
   return verdict;
@@ -81,23 +101,34 @@ export function skylightVerdict(skylight: Skylight, index: number, rules: Daylig
   if (vt) {
     verdict.applied.push({ what: `Daylight exception: skylights of visible transmittance below ${vt.vt}`, rule: vt });
     if (skylight.visibleTransmittance === undefined) {
-      verdict.blanks.push(`the visible transmittance of ${name} is not recorded (below ${vt.vt} its toplit area needs no control, ${cite(vt)})`);
+      verdict.blanks.push(
+        `the visible transmittance of ${name} is not recorded (below ${vt.vt} its toplit area needs no control, ${cite(vt)})`,
+      );
       if (blanksExcept) verdict.excludes = 'all';
     } else if (dec(skylight.visibleTransmittance).lessThan(dec(vt.vt))) {
       verdict.excludes = 'all';
-      verdict.words.push(`${name} has a visible transmittance of ${skylight.visibleTransmittance}, below ${vt.vt}, so its toplit area needs no control (${cite(vt)})`);
+      verdict.words.push(
+        `${name} has a visible transmittance of ${skylight.visibleTransmittance}, below ${vt.vt}, so its toplit area needs no control (${cite(vt)})`,
+      );
     }
   }
   const blocked = rules.blockedSkylight;
   if (blocked) {
     const hours = blocked.hours.replace(/\B(?=(\d{3})+(?!\d))/g, ',');
-    verdict.applied.push({ what: `Daylight exception: skylights whose direct sunlight is blocked for more than ${hours} daytime hours a year`, rule: blocked });
+    verdict.applied.push({
+      what: `Daylight exception: skylights whose direct sunlight is blocked for more than ${hours} daytime hours a year`,
+      rule: blocked,
+    });
     if (skylight.daylightBlocked === undefined) {
-      verdict.blanks.push(`whether nearby structures or natural objects block the direct sunlight of ${name} for more than ${hours} daytime hours a year is not recorded (if they do, its toplit area needs no control, ${cite(blocked)})`);
+      verdict.blanks.push(
+        `whether nearby structures or natural objects block the direct sunlight of ${name} for more than ${hours} daytime hours a year is not recorded (if they do, its toplit area needs no control, ${cite(blocked)})`,
+      );
       if (blanksExcept) verdict.excludes = 'all';
     } else if (skylight.daylightBlocked) {
       verdict.excludes = 'all';
-      verdict.words.push(`nearby structures or natural objects block the direct sunlight of ${name} for more than ${hours} daytime hours a year, so its toplit area needs no control (${cite(blocked)})`);
+      verdict.words.push(
+        `nearby structures or natural objects block the direct sunlight of ${name} for more than ${hours} daytime hours a year, so its toplit area needs no control (${cite(blocked)})`,
+      );
     }
   }
   return verdict;

@@ -2,7 +2,17 @@ import { z } from 'zod';
 import type { EditionData, SpaceType } from './edition-data.js';
 import { conditionWords, satisfies, sizeCondition } from './size-conditions.js';
 import { areaToSquareFeet, areaWords, lengthToFeet, lengthWords } from './units.js';
-import { boundedDecimal, decimalField, distinctKeys, documentLimits, listLimit, maxAmendments, ranges, textField, textLimits } from './bounds.js';
+import {
+  boundedDecimal,
+  decimalField,
+  distinctKeys,
+  documentLimits,
+  listLimit,
+  maxAmendments,
+  ranges,
+  textField,
+  textLimits,
+} from './bounds.js';
 import { lpdFormulaProblems } from './lpd-formula.js';
 import { type Dec, dec } from './numbers.js';
 import { exteriorExemptionReasons, exteriorExemptions } from '../../../contract/editions.js';
@@ -25,7 +35,10 @@ import { exteriorExemptionReasons, exteriorExemptions } from '../../../contract/
  */
 function fields<Shape extends z.core.$ZodLooseShape>(shape: Shape) {
   return z.strictObject(shape, {
-    error: (issue) => (issue.code === 'unrecognized_keys' ? `Unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((name) => `“${name}”`).join(', ')}: check the spelling.` : undefined),
+    error: (issue) =>
+      issue.code === 'unrecognized_keys'
+        ? `Unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((name) => `“${name}”`).join(', ')}: check the spelling.`
+        : undefined,
   });
 }
 
@@ -138,10 +151,22 @@ export const spaceSchema = fields({
   rooms: decimalField(ranges.rooms).optional(),
   /** The engineer confirms the space has no lighting; until then a space without luminaires is an open item, not a pass. */
   unlit: z.boolean().optional(),
-  luminaires: z.array(luminaireGroupSchema).max(documentLimits.luminaireGroupsPerSpace, listLimit(documentLimits.luminaireGroupsPerSpace, 'luminaire types in one space')).default([]),
-  controls: z.array(controlSchema).max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls in one space')).default([]),
-  windows: z.array(windowSchema).max(documentLimits.windowsPerSpace, listLimit(documentLimits.windowsPerSpace, 'windows in one space')).default([]),
-  skylights: z.array(skylightSchema).max(documentLimits.skylightsPerSpace, listLimit(documentLimits.skylightsPerSpace, 'skylights in one space')).default([]),
+  luminaires: z
+    .array(luminaireGroupSchema)
+    .max(documentLimits.luminaireGroupsPerSpace, listLimit(documentLimits.luminaireGroupsPerSpace, 'luminaire types in one space'))
+    .default([]),
+  controls: z
+    .array(controlSchema)
+    .max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls in one space'))
+    .default([]),
+  windows: z
+    .array(windowSchema)
+    .max(documentLimits.windowsPerSpace, listLimit(documentLimits.windowsPerSpace, 'windows in one space'))
+    .default([]),
+  skylights: z
+    .array(skylightSchema)
+    .max(documentLimits.skylightsPerSpace, listLimit(documentLimits.skylightsPerSpace, 'skylights in one space'))
+    .default([]),
 });
 
 export const exteriorApplicationEntrySchema = fields({
@@ -153,12 +178,20 @@ export const exteriorApplicationEntrySchema = fields({
   exemptWatts: decimalField(ranges.exteriorWatts).optional(),
   exemptReason: z.enum(exteriorExemptionReasons, { error: 'Choose the reason from the list.' }).optional(),
   exemptNote: note.optional(),
-  controls: z.array(controlSchema).max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls on one application')).default([]),
+  controls: z
+    .array(controlSchema)
+    .max(documentLimits.controlsPerSpace, listLimit(documentLimits.controlsPerSpace, 'controls on one application'))
+    .default([]),
 });
 
 export const exteriorSchema = fields({
-  lightingZone: z.union([z.string().max(10, 'Give the lighting zone as a number from 0 to 4.'), z.number()]).transform((zone) => String(zone).trim()),
-  applications: z.array(exteriorApplicationEntrySchema).max(documentLimits.exteriorApplications, listLimit(documentLimits.exteriorApplications, 'exterior applications')).default([]),
+  lightingZone: z
+    .union([z.string().max(10, 'Give the lighting zone as a number from 0 to 4.'), z.number()])
+    .transform((zone) => String(zone).trim()),
+  applications: z
+    .array(exteriorApplicationEntrySchema)
+    .max(documentLimits.exteriorApplications, listLimit(documentLimits.exteriorApplications, 'exterior applications'))
+    .default([]),
 });
 
 export const retailDisplaySchema = fields({
@@ -180,8 +213,14 @@ export const evaluationDocumentSchema = fields({
   edition: key,
   method: z.enum(['building-area', 'space-by-space']),
   units: z.enum(['ip', 'si']),
-  luminaireTypes: z.array(luminaireTypeSchema).max(documentLimits.luminaireTypes, listLimit(documentLimits.luminaireTypes, 'luminaire types')).default([]),
-  spaces: z.array(spaceSchema).min(1, 'At least one space is needed.').max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
+  luminaireTypes: z
+    .array(luminaireTypeSchema)
+    .max(documentLimits.luminaireTypes, listLimit(documentLimits.luminaireTypes, 'luminaire types'))
+    .default([]),
+  spaces: z
+    .array(spaceSchema)
+    .min(1, 'At least one space is needed.')
+    .max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
   exterior: exteriorSchema.optional(),
   retailDisplay: retailDisplaySchema.optional(),
   /** Jurisdiction amendments of the edition to apply (their keys); the model code alone when absent. */
@@ -202,9 +241,7 @@ export interface DocumentProblem {
   message: string;
 }
 
-export type ValidationOutcome =
-  | { valid: true; document: EvaluationDocument; problems: [] }
-  | { valid: false; problems: DocumentProblem[] };
+export type ValidationOutcome = { valid: true; document: EvaluationDocument; problems: [] } | { valid: false; problems: DocumentProblem[] };
 
 /**
  * Checks a document against the schema and against one edition's tables. Every problem comes
@@ -330,15 +367,24 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
     const controlType = word(space['controlSpaceType']);
     // A space keeps both its space type and its building area type, so switching the method loses
     // nothing; each method reads the one it needs.
-    if (method === 'building-area' && areaType === undefined) add(`${path}.buildingAreaType`, 'The building area method needs a building area type for every space.');
+    if (method === 'building-area' && areaType === undefined)
+      add(`${path}.buildingAreaType`, 'The building area method needs a building area type for every space.');
     if (method === 'space-by-space') {
       if (spaceType === undefined) add(`${path}.spaceType`, 'The space-by-space method needs a space type for every space.');
-      if (controlType !== undefined && controlType !== spaceType) add(`${path}.controlSpaceType`, 'With the space-by-space method the space type sets the controls; leave the control space type out.');
+      if (controlType !== undefined && controlType !== spaceType)
+        add(
+          `${path}.controlSpaceType`,
+          'With the space-by-space method the space type sets the controls; leave the control space type out.',
+        );
     }
-    if (spaceType !== undefined && !spaceTypes.has(spaceType)) add(`${path}.spaceType`, `${edition.title} has no space type “${spaceType}”.`);
-    if (controlType !== undefined && !spaceTypes.has(controlType)) add(`${path}.controlSpaceType`, `${edition.title} has no space type “${controlType}”.`);
-    if (areaType !== undefined && !buildingAreaTypes.has(areaType)) add(`${path}.buildingAreaType`, `${edition.title} has no building area type “${areaType}”.`);
-    if (spaceType !== undefined && spaceTypes.has(spaceType)) sizeProblem(edition, spaceTypesByKey.get(spaceType)!, space, units, `${path}.spaceType`, add);
+    if (spaceType !== undefined && !spaceTypes.has(spaceType))
+      add(`${path}.spaceType`, `${edition.title} has no space type “${spaceType}”.`);
+    if (controlType !== undefined && !spaceTypes.has(controlType))
+      add(`${path}.controlSpaceType`, `${edition.title} has no space type “${controlType}”.`);
+    if (areaType !== undefined && !buildingAreaTypes.has(areaType))
+      add(`${path}.buildingAreaType`, `${edition.title} has no building area type “${areaType}”.`);
+    if (spaceType !== undefined && spaceTypes.has(spaceType))
+      sizeProblem(edition, spaceTypesByKey.get(spaceType)!, space, units, `${path}.spaceType`, add);
 
     list(space['luminaires']).forEach((group, groupIndex) => {
       const tag = word(group['tag']);
@@ -362,7 +408,10 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       // A zone whose every allowance is a placeholder would price the whole site at zero.
       const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
       if (base?.unverifiedZones?.includes(zoneText) && dec(base.allowanceByZone[zoneText] ?? '0').isZero()) {
-        add('exterior.lightingZone', `${edition.title}’s allowances for lighting zone ${zoneText} were not found in a public source, so the site cannot be priced in that zone; check the zone, or enter the site under the zone the authority having jurisdiction assigns.`);
+        add(
+          'exterior.lightingZone',
+          `${edition.title}’s allowances for lighting zone ${zoneText} were not found in a public source, so the site cannot be priced in that zone; check the zone, or enter the site under the zone the authority having jurisdiction assigns.`,
+        );
       }
     }
     const applications = new Map(edition.exteriorApplications.map((application) => [application.key, application]));
@@ -373,7 +422,8 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       if (applicationKey === undefined) return;
       const application = applications.get(applicationKey);
       if (application === undefined) add(`${path}.key`, `${edition.title} has no exterior application “${applicationKey}”.`);
-      else if (application.isBaseSiteAllowance) add(`${path}.key`, 'The base site allowance is added by the lighting zone; do not list it.');
+      else if (application.isBaseSiteAllowance)
+        add(`${path}.key`, 'The base site allowance is added by the lighting zone; do not list it.');
       if (seen.has(applicationKey)) add(`${path}.key`, `Exterior application "${applicationKey}" is listed more than once.`);
       seen.add(applicationKey);
       for (const problem of exteriorExemptionProblems(entry, edition)) add(`${path}.${problem.path}`, problem.message);
@@ -384,7 +434,8 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
   const known = new Set((edition.amendments ?? []).map((amendment) => amendment.key));
   if (Array.isArray(doc['amendments'])) {
     (doc['amendments'] as unknown[]).forEach((amendment, index) => {
-      if (typeof amendment === 'string' && !known.has(amendment)) add(`amendments.${index}`, `${edition.title} has no jurisdiction amendment “${amendment}” here.`);
+      if (typeof amendment === 'string' && !known.has(amendment))
+        add(`amendments.${index}`, `${edition.title} has no jurisdiction amendment “${amendment}” here.`);
     });
   }
 
@@ -396,16 +447,19 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
       const path = `retailDisplay.claims.${index}`;
       if (method === 'building-area') add(path, 'Additional allowances are part of the space-by-space method.');
       const allowance = word(claim['allowance']);
-      if (allowance !== undefined && !allowances.has(allowance)) add(`${path}.allowance`, `${edition.title} has no additional allowance “${allowance}”.`);
+      if (allowance !== undefined && !allowances.has(allowance))
+        add(`${path}.allowance`, `${edition.title} has no additional allowance “${allowance}”.`);
       const spaceId = word(claim['spaceId']);
       if (spaceId !== undefined && !spaceIds.has(spaceId)) add(`${path}.spaceId`, `No space has the id "${spaceId}".`);
       const space = spaceId === undefined ? undefined : spacesById.get(spaceId);
       if (space !== undefined && method === 'space-by-space') {
         // The retail display allowance is for lighting on a sales floor (90.1 §9.6.2(b), IECC C405.3.2.2.1); the decorative one is for any space.
-        if (allowances.get(allowance ?? '')?.kind === 'retail-display' && word(space['spaceType']) !== salesAreaSpaceType) add(`${path}.spaceId`, `“${word(space['name']) ?? spaceId}” is not a sales area; the display allowance is for sales floors.`);
+        if (allowances.get(allowance ?? '')?.kind === 'retail-display' && word(space['spaceType']) !== salesAreaSpaceType)
+          add(`${path}.spaceId`, `“${word(space['name']) ?? spaceId}” is not a sales area; the display allowance is for sales floors.`);
         const claimArea = decimalOrNull(claim['area']);
         const spaceArea = decimalOrNull(space['area']);
-        if (claimArea !== null && spaceArea !== null && claimArea.greaterThan(spaceArea)) add(`${path}.area`, `The claimed area is larger than the space (${spaceArea.toFixed()}).`);
+        if (claimArea !== null && spaceArea !== null && claimArea.greaterThan(spaceArea))
+          add(`${path}.area`, `The claimed area is larger than the space (${spaceArea.toFixed()}).`);
         const pair = `${spaceId}\u0000${allowance}`;
         if (claimedPairs.has(pair)) add(`${path}.allowance`, 'This allowance is already claimed for this space.');
         claimedPairs.add(pair);
@@ -419,7 +473,14 @@ function referenceProblems(input: unknown, edition: EditionData): DocumentProble
  * A space type whose name carries a size (an enclosed office of at most 250 ft²) fits only spaces
  * of that size; the problem names the row of the same kind that fits, where there is one.
  */
-function sizeProblem(edition: EditionData, type: SpaceType, space: Loose, units: 'ip' | 'si', path: string, add: (path: string, message: string) => void): void {
+function sizeProblem(
+  edition: EditionData,
+  type: SpaceType,
+  space: Loose,
+  units: 'ip' | 'si',
+  path: string,
+  add: (path: string, message: string) => void,
+): void {
   const condition = sizeCondition(type.sourceLabel);
   // A row whose allowance grows with height checks the height itself (lpdFormulaProblems).
   if (condition === null || (condition.quantity === 'height' && type.lpdFormula !== undefined)) return;
@@ -427,7 +488,8 @@ function sizeProblem(edition: EditionData, type: SpaceType, space: Loose, units:
   const value = decimalOrNull(raw);
   if (value === null) return;
   const rooms = condition.quantity === 'area' ? (decimalOrNull(space['rooms']) ?? dec(1)) : dec(1);
-  const measured = condition.quantity === 'area' ? areaToSquareFeet(value, units).dividedBy(rooms.isZero() ? 1 : rooms) : lengthToFeet(value, units);
+  const measured =
+    condition.quantity === 'area' ? areaToSquareFeet(value, units).dividedBy(rooms.isZero() ? 1 : rooms) : lengthToFeet(value, units);
   if (satisfies(condition, measured)) return;
   const kind = type.sourceLabel.split('|')[0]!.trim();
   const fitting = edition.spaceTypes.find((other) => {
@@ -442,7 +504,10 @@ function sizeProblem(edition: EditionData, type: SpaceType, space: Loose, units:
       ? `${units === 'ip' ? `${measured.toDecimalPlaces(0).toFixed()} ft²` : areaWords(measured, units)}${grouped ? ' a room' : ''}`
       : `${units === 'ip' ? `${measured.toDecimalPlaces(1).toFixed()} ft` : lengthWords(measured, units)} high`;
   const hint = condition.quantity === 'area' && !grouped ? ' If this entry groups several rooms, give how many.' : '';
-  add(path, `“${type.label}” is for spaces ${conditionWords(condition, units)}; this one is ${size}.${fitting ? ` Choose “${fitting.label}”.` : ''}${hint}`);
+  add(
+    path,
+    `“${type.label}” is for spaces ${conditionWords(condition, units)}; this one is ${size}.${fitting ? ` Choose “${fitting.label}”.` : ''}${hint}`,
+  );
 }
 
 function controlProblems(
@@ -469,7 +534,10 @@ function controlProblems(
  * its reason), a reason needs the watts it covers, and the exempt part is at most what is installed.
  * Every write of an application passes them.
  */
-export function exteriorExemptionProblems(entry: Record<string, unknown>, edition: Pick<EditionData, 'family' | 'title'>): DocumentProblem[] {
+export function exteriorExemptionProblems(
+  entry: Record<string, unknown>,
+  edition: Pick<EditionData, 'family' | 'title'>,
+): DocumentProblem[] {
   const problems: DocumentProblem[] = [];
   const exempt = exteriorWattsOrNull(entry['exemptWatts']);
   const installed = exteriorWattsOrNull(entry['installedWatts']);
@@ -480,7 +548,11 @@ export function exteriorExemptionProblems(entry: Record<string, unknown>, editio
   if (reason !== undefined && (exempt === null || exempt.isZero())) {
     problems.push({ path: 'exemptWatts', message: 'Give the watts of the exempt lighting, or clear the reason.' });
   }
-  if (reason !== undefined && (exteriorExemptionReasons as readonly string[]).includes(reason) && !exteriorExemptions[edition.family].some((exemption) => exemption.reason === reason)) {
+  if (
+    reason !== undefined &&
+    (exteriorExemptionReasons as readonly string[]).includes(reason) &&
+    !exteriorExemptions[edition.family].some((exemption) => exemption.reason === reason)
+  ) {
     problems.push({ path: 'exemptReason', message: `${edition.title} does not list this exemption; choose another reason.` });
   }
   if (exempt !== null && installed !== null && exempt.greaterThan(installed)) {
@@ -504,7 +576,10 @@ export function exceptionProblems(control: Record<string, unknown>): DocumentPro
   const problems: DocumentProblem[] = [];
   const reason = control['exceptionReason'];
   if ((reason === 'other' || reason === 'verified-not-required') && word(control['exceptionNote']) === undefined) {
-    problems.push({ path: 'exceptionNote', message: reason === 'other' ? 'Say which exception is claimed.' : 'Say where in the adopted code it was checked.' });
+    problems.push({
+      path: 'exceptionNote',
+      message: reason === 'other' ? 'Say which exception is claimed.' : 'Say where in the adopted code it was checked.',
+    });
   }
   if (reason === 'continuous-operation' && word(control['strategy']) !== 'time-switch') {
     problems.push({ path: 'exceptionReason', message: 'Continuous operation frees lighting from the time switch only.' });
@@ -536,25 +611,45 @@ function geometryProblems(doc: EvaluationDocument): DocumentProblem[] {
       if (wallLength !== undefined) {
         const end = dec(window.offset ?? '0').plus(dec(window.width));
         if (end.greaterThan(wallLength)) {
-          problems.push({ path: `${windowPath}.${window.offset === undefined ? 'width' : 'offset'}`, message: 'The window runs past the end of its wall.' });
+          problems.push({
+            path: `${windowPath}.${window.offset === undefined ? 'width' : 'offset'}`,
+            message: 'The window runs past the end of its wall.',
+          });
         }
       }
     });
     space.skylights.forEach((skylight, skylightIndex) => {
       const skylightPath = `${path}.skylights.${skylightIndex}`;
-      if (length !== undefined && dec(skylight.x ?? '0').plus(dec(skylight.length)).greaterThan(length)) {
+      if (
+        length !== undefined &&
+        dec(skylight.x ?? '0')
+          .plus(dec(skylight.length))
+          .greaterThan(length)
+      ) {
         problems.push({ path: `${skylightPath}.x`, message: 'The skylight runs past the room along its length.' });
       }
-      if (width !== undefined && dec(skylight.y ?? '0').plus(dec(skylight.width)).greaterThan(width)) {
+      if (
+        width !== undefined &&
+        dec(skylight.y ?? '0')
+          .plus(dec(skylight.width))
+          .greaterThan(width)
+      ) {
         problems.push({ path: `${skylightPath}.y`, message: 'The skylight runs past the room along its width.' });
       }
     });
-    if (space.luminaireHeight !== undefined && space.ceilingHeight !== undefined && dec(space.luminaireHeight).greaterThan(dec(space.ceilingHeight))) {
+    if (
+      space.luminaireHeight !== undefined &&
+      space.ceilingHeight !== undefined &&
+      dec(space.luminaireHeight).greaterThan(dec(space.ceilingHeight))
+    ) {
       problems.push({ path: `${path}.luminaireHeight`, message: 'Luminaires cannot be above the ceiling.' });
     }
     // A room's floor area cannot exceed the rectangle that holds it (2 % for rounding the dimensions).
     if (length !== undefined && width !== undefined && dec(space.area).greaterThan(length.times(width).times('1.02'))) {
-      problems.push({ path: `${path}.area`, message: `The floor area is larger than the room’s length × width (${length.times(width).toDecimalPlaces(2).toFixed()}); check the area or the dimensions.` });
+      problems.push({
+        path: `${path}.area`,
+        message: `The floor area is larger than the room’s length × width (${length.times(width).toDecimalPlaces(2).toFixed()}); check the area or the dimensions.`,
+      });
     }
     if (space.ceilingHeight !== undefined) {
       space.windows.forEach((window, windowIndex) => {

@@ -21,7 +21,6 @@ export interface Provenance {
   citation?: Citation;
 }
 
-
 export interface ControlStrategy {
   key: StrategyKey;
   label: string;

@@ -21,7 +21,15 @@ import type {
   SpaceResult,
   UnverifiedValue,
 } from './result.js';
-import { type UnitSystem, areaFromSquareFeet, areaToSquareFeet, areaWords, densityFromPerSquareFoot, lengthFromFeet, lengthToFeet } from './units.js';
+import {
+  type UnitSystem,
+  areaFromSquareFeet,
+  areaToSquareFeet,
+  areaWords,
+  densityFromPerSquareFoot,
+  lengthFromFeet,
+  lengthToFeet,
+} from './units.js';
 
 /** The edition section keys the engine cites from `EditionData.sections` (as `reference/<edition>/rules.json` names them). */
 export const sectionKeys = [
@@ -64,7 +72,11 @@ class Unverified {
   /** A value the data cannot settle at all: not yet checked, with the reason in words. */
   unsettled(what: string, reference: string, reason: string, key = what): void {
     if (this.seen.has(key)) return;
-    this.keep(what, citationOf({ edition: this.edition, reference, source: 'not found', confidence: 'none', verified: false, note: reason }), key);
+    this.keep(
+      what,
+      citationOf({ edition: this.edition, reference, source: 'not found', confidence: 'none', verified: false, note: reason }),
+      key,
+    );
   }
 
   merge(values: readonly UnverifiedValue[]): void {
@@ -144,19 +156,42 @@ function spaceWatts(space: Space, document: EvaluationDocument, edition: Edition
   for (const group of space.luminaires) {
     const type = types.get(group.tag)!;
     const wattage = unitWattage(type, edition.rules, document.units);
-    if (wattage.usesTrackRule && type.basis === 'line-voltage-track') unverified.add('Line-voltage track: the least wattage counted per length of track', edition.rules.trackProvenance, edition.sections['trackLighting'] ?? installedSection);
+    if (wattage.usesTrackRule && type.basis === 'line-voltage-track')
+      unverified.add(
+        'Line-voltage track: the least wattage counted per length of track',
+        edition.rules.trackProvenance,
+        edition.sections['trackLighting'] ?? installedSection,
+      );
     if (wattage.fromMemory) {
-      unverified.unsettled('Low-voltage track counted at the transformer rating', edition.sections['trackLighting'] ?? installedSection, 'No public source found for the low-voltage track rule; verify against the printed standard.');
+      unverified.unsettled(
+        'Low-voltage track counted at the transformer rating',
+        edition.sections['trackLighting'] ?? installedSection,
+        'No public source found for the low-voltage track rule; verify against the printed standard.',
+      );
     }
     const count = dec(group.count);
     const watts = count.times(wattage.watts);
     const section = wattage.usesTrackRule ? (edition.sections['trackLighting'] ?? installedSection) : installedSection;
-    const line: LuminaireLine = { tag: type.tag, use: type.use, count: text(count), unitWatts: reported.watts(wattage.watts), watts: reported.watts(watts), basis: wattage.basis, section };
+    const line: LuminaireLine = {
+      tag: type.tag,
+      use: type.use,
+      count: text(count),
+      unitWatts: reported.watts(wattage.watts),
+      watts: reported.watts(watts),
+      basis: wattage.basis,
+      section,
+    };
     if (group.zone !== undefined) line.zone = group.zone;
     result.lines.push(line);
     if (type.use === 'exempt') {
       result.exemptW = result.exemptW.plus(watts);
-      result.exempt.push({ tag: type.tag, count: text(count), watts: reported.watts(watts), reason: type.exemptReason ?? '', section: edition.sections['exemptLighting'] ?? '' });
+      result.exempt.push({
+        tag: type.tag,
+        count: text(count),
+        watts: reported.watts(watts),
+        reason: type.exemptReason ?? '',
+        section: edition.sections['exemptLighting'] ?? '',
+      });
     } else if (type.use === 'decorative') {
       result.decorative = result.decorative.plus(watts);
     } else if (type.use === 'display') {
@@ -175,14 +210,22 @@ interface DaylightOutcome {
   toplighting: DaylightTrigger;
 }
 
-function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: UnitSystem, unverified: Unverified, cautions: string[]): DaylightOutcome {
+function daylight(
+  space: Space,
+  watts: SpaceWatts,
+  edition: EditionData,
+  units: UnitSystem,
+  unverified: Unverified,
+  cautions: string[],
+): DaylightOutcome {
   const rules = edition.rules.daylight;
   const openingRules = rules.openings ?? {};
   const feet = (value: string | undefined) => (value === undefined ? undefined : lengthToFeet(dec(value), units));
   const length = feet(space.length);
   const width = feet(space.width);
   const hasOpenings = space.windows.length > 0 || space.skylights.length > 0;
-  if (hasOpenings) unverified.add('Daylight thresholds and zone geometry', rules.provenance, edition.sections['daylightSidelighting'] ?? '');
+  if (hasOpenings)
+    unverified.add('Daylight thresholds and zone geometry', rules.provenance, edition.sections['daylightSidelighting'] ?? '');
   const geometryEvaluated = length !== undefined && width !== undefined;
   let plan: RoomPlan | undefined;
   if (geometryEvaluated && hasOpenings) {
@@ -190,7 +233,11 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
       length,
       width,
       windows: space.windows.map((window) => {
-        const opening: RoomPlan['windows'][number] = { width: feet(window.width)!, headHeight: feet(window.headHeight)!, wall: window.wall };
+        const opening: RoomPlan['windows'][number] = {
+          width: feet(window.width)!,
+          headHeight: feet(window.headHeight)!,
+          wall: window.wall,
+        };
         if (window.offset !== undefined) opening.offset = feet(window.offset)!;
         return opening;
       }),
@@ -205,7 +252,11 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   }
   // Without a sill the glazing is counted from the floor: the larger area never clears a requirement.
   if (space.windows.some((window) => window.sillHeight === undefined)) {
-    unverified.unsettled('Window sill height', 'common practice', 'No sill height given for some windows: their area is counted from the floor.');
+    unverified.unsettled(
+      'Window sill height',
+      'common practice',
+      'No sill height given for some windows: their area is counted from the floor.',
+    );
   }
   const windowArea = sum(space.windows.map((window) => windowAreaFt2(window, units)));
   const roomArea = length !== undefined && width !== undefined ? length.times(width) : ZERO;
@@ -228,26 +279,35 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
       if (verdict === undefined || verdict.excludes === 'none') return true;
       return verdict.excludes === 'primary' ? rectangle.kind !== 'primary-sidelit' : false;
     };
-    const areas = plan ? daylightAreas(plan, rules, keep) : { primarySidelit: ZERO, secondarySidelit: ZERO, toplit: ZERO, rectangles: [] as ZoneRectangle[] };
+    const areas = plan
+      ? daylightAreas(plan, rules, keep)
+      : { primarySidelit: ZERO, secondarySidelit: ZERO, toplit: ZERO, rectangles: [] as ZoneRectangle[] };
     const gone = {
       'primary-sidelit': windows.length > 0 && windows.every((verdict) => verdict.excludes !== 'none'),
       'secondary-sidelit': windows.length > 0 && windows.every((verdict) => verdict.excludes === 'all'),
       toplit: skylights.length > 0 && skylights.every((verdict) => verdict.excludes === 'all'),
     };
-    const zoneAreas = { 'primary-sidelit': areas.primarySidelit, 'secondary-sidelit': areas.secondarySidelit, toplit: areas.toplit } as const;
+    const zoneAreas = {
+      'primary-sidelit': areas.primarySidelit,
+      'secondary-sidelit': areas.secondarySidelit,
+      toplit: areas.toplit,
+    } as const;
     const assignedW = (kind: keyof typeof zoneAreas) => (gone[kind] ? ZERO : watts.zoneW[kind]);
     const assigned = watts.zoneW['primary-sidelit'].plus(watts.zoneW['secondary-sidelit']).plus(watts.zoneW.toplit);
     // With zones on the plan, general lighting and none of it assigned to a zone, the zone watts are
     // estimated from each zone's share of the floor; an estimate can make a control required, but
     // below the threshold it leaves the question open rather than passing it.
-    const estimated = assigned.isZero() && watts.general.greaterThan(0) && roomArea.greaterThan(0) && sum(Object.values(zoneAreas)).greaterThan(0);
-    const zoneWatts = (kind: keyof typeof zoneAreas): Dec => (estimated ? min(watts.general, watts.general.times(zoneAreas[kind]).dividedBy(roomArea)) : assignedW(kind));
+    const estimated =
+      assigned.isZero() && watts.general.greaterThan(0) && roomArea.greaterThan(0) && sum(Object.values(zoneAreas)).greaterThan(0);
+    const zoneWatts = (kind: keyof typeof zoneAreas): Dec =>
+      estimated ? min(watts.general, watts.general.times(zoneAreas[kind]).dividedBy(roomArea)) : assignedW(kind);
     const primaryW = zoneWatts('primary-sidelit');
     const secondaryW = zoneWatts('secondary-sidelit');
     const toplitW = zoneWatts('toplit');
     const primaryTriggers = comparesAt(primaryW, dec(rules.primarySidelitThresholdW), rules.comparison);
     const combined = primaryW.plus(secondaryW);
-    const combinedTriggers = rules.combinedSidelitThresholdW !== null && comparesAt(combined, dec(rules.combinedSidelitThresholdW), rules.comparison);
+    const combinedTriggers =
+      rules.combinedSidelitThresholdW !== null && comparesAt(combined, dec(rules.combinedSidelitThresholdW), rules.comparison);
     // 90.1 §9.4.1.1(e): the primary area alone at 150 W, or primary and secondary together at 300 W; the
     // edition data says which thresholds apply (IECC's sidelit zones count together).
     const sidelightingRequired = (primaryTriggers || combinedTriggers) && !windowException;
@@ -271,9 +331,12 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
 
   const shown = reading(false, false);
   const { areas, zoneAreas, estimated, primaryW, secondaryW, toplitW, combined } = shown;
-  const estimateWords = estimated ? ' (estimated from the zone’s share of the floor area: no luminaires are assigned to daylight zones)' : '';
+  const estimateWords = estimated
+    ? ' (estimated from the zone’s share of the floor area: no luminaires are assigned to daylight zones)'
+    : '';
   const sidelitThresholds = [`primary sidelit general lighting ${watt(primaryW)}, required at ${at(rules.primarySidelitThresholdW)}`];
-  if (rules.combinedSidelitThresholdW !== null) sidelitThresholds.push(`primary and secondary together ${watt(combined)}, required at ${at(rules.combinedSidelitThresholdW)}`);
+  if (rules.combinedSidelitThresholdW !== null)
+    sidelitThresholds.push(`primary and secondary together ${watt(combined)}, required at ${at(rules.combinedSidelitThresholdW)}`);
   let sidelighting = `${sidelitThresholds.join('; ')}${estimateWords}`;
   if (windowException && (shown.primaryTriggers || shown.combinedTriggers)) {
     sidelighting += `; but the window area of ${areaWords(windowArea, units)} is below ${areaWords(dec(rules.minimumWindowAreaFt2!), units)}`;
@@ -293,7 +356,9 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   const others = [
     ...(windowBlanks.length > 0 ? [{ reading: reading(true, false), blanks: windowBlanks }] : []),
     ...(skylightBlanks.length > 0 ? [{ reading: reading(false, true), blanks: skylightBlanks }] : []),
-    ...(windowBlanks.length > 0 && skylightBlanks.length > 0 ? [{ reading: reading(true, true), blanks: [...windowBlanks, ...skylightBlanks] }] : []),
+    ...(windowBlanks.length > 0 && skylightBlanks.length > 0
+      ? [{ reading: reading(true, true), blanks: [...windowBlanks, ...skylightBlanks] }]
+      : []),
   ];
   const deciding = (required: (outcome: typeof shown) => boolean): string[] => [
     ...new Set(others.filter((other) => required(other.reading) !== required(shown)).flatMap((other) => other.blanks)),
@@ -309,17 +374,25 @@ function daylight(space: Space, watts: SpaceWatts, edition: EditionData, units: 
   };
   const sidelitBlanks = deciding((outcome) => outcome.sidelightingRequired);
   const toplitBlanks = deciding((outcome) => outcome.toplightingRequired);
-  const sidelightingTrigger = trigger(shown.sidelightingRequired, sidelighting, zoneAreas['primary-sidelit'].plus(zoneAreas['secondary-sidelit']).greaterThan(0), sidelitBlanks);
+  const sidelightingTrigger = trigger(
+    shown.sidelightingRequired,
+    sidelighting,
+    zoneAreas['primary-sidelit'].plus(zoneAreas['secondary-sidelit']).greaterThan(0),
+    sidelitBlanks,
+  );
   const toplightingTrigger = trigger(shown.toplightingRequired, toplighting, zoneAreas.toplit.greaterThan(0), toplitBlanks);
 
   const reasons: string[] = [`Sidelighting: ${sidelighting}.`];
-  if (shown.secondaryRequired) reasons.push('Secondary sidelighting: the secondary sidelit zone is controlled separately from the primary.');
+  if (shown.secondaryRequired)
+    reasons.push('Secondary sidelighting: the secondary sidelit zone is controlled separately from the primary.');
   if (sidelitBlanks.length > 0) reasons.push(`Sidelighting, to verify: ${sidelitBlanks.join('; and ')}.`);
   reasons.push(`Toplighting: ${toplighting}.`);
   if (toplitBlanks.length > 0) reasons.push(`Toplighting, to verify: ${toplitBlanks.join('; and ')}.`);
   for (const kind of ['primary-sidelit', 'secondary-sidelit', 'toplit'] as const) {
     if (watts.zoneW[kind].greaterThan(0) && zoneAreas[kind].isZero()) {
-      cautions.push(`“${space.name}”: luminaires are assigned to the ${kind.replace('-', ' ')} zone, but the room's openings give no such zone.`);
+      cautions.push(
+        `“${space.name}”: luminaires are assigned to the ${kind.replace('-', ' ')} zone, but the room's openings give no such zone.`,
+      );
     }
   }
   const out = (value: Dec) => reported.length(lengthFromFeet(value, units));
@@ -355,7 +428,12 @@ function spaceRcr(space: Space, units: UnitSystem, cautions: string[], unverifie
   const mounting = space.luminaireHeight ?? space.ceilingHeight;
   if (mounting === undefined) return null;
   const workPlane = space.workPlaneHeight === undefined ? defaultWorkPlaneFt : lengthToFeet(dec(space.workPlaneHeight), units);
-  if (space.workPlaneHeight === undefined) unverified.unsettled('Work plane height', 'common practice', `No work plane height given for some spaces: ${defaultWorkPlaneFt.toFixed()} ft (0.762 m) above the floor is assumed for the room cavity ratio.`);
+  if (space.workPlaneHeight === undefined)
+    unverified.unsettled(
+      'Work plane height',
+      'common practice',
+      `No work plane height given for some spaces: ${defaultWorkPlaneFt.toFixed()} ft (0.762 m) above the floor is assumed for the room cavity ratio.`,
+    );
   const cavity = lengthToFeet(dec(mounting), units).minus(workPlane);
   if (cavity.lessThanOrEqualTo(0)) {
     cautions.push(`“${space.name}”: luminaires are not above the work plane, so no room cavity ratio is computed.`);
@@ -390,7 +468,13 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     return { claim, allowance, section, claimed: dec(allowance.lpdWPerFt2).times(areaFt2), usable: ZERO, limitedBy: null as string | null };
   });
 
-  const spaces: (SpaceResult & { allowance: Dec; installed: Dec; areaFt2: Dec; uncoveredDisplay: Dec; exact: { exempt: Dec; decorative: Dec; display: Dec; additional: Dec } })[] = document.spaces.map((space) => {
+  const spaces: (SpaceResult & {
+    allowance: Dec;
+    installed: Dec;
+    areaFt2: Dec;
+    uncoveredDisplay: Dec;
+    exact: { exempt: Dec; decorative: Dec; display: Dec; additional: Dec };
+  })[] = document.spaces.map((space) => {
     const spaceUnverified = new Unverified(name);
     const areaFt2 = areaToSquareFeet(dec(space.area), units);
     const watts = spaceWatts(space, document, edition, spaceUnverified);
@@ -413,8 +497,14 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     }
 
     const rcr = spaceRcr(space, units, cautions, spaceUnverified);
-    if (space.length !== undefined && space.width !== undefined && dec(space.area).lessThan(dec(space.length).times(dec(space.width)).times('0.5'))) {
-      cautions.push(`“${space.name}”: the floor area is less than half of its length × width; daylight zones and the room cavity ratio are worked out on the rectangle.`);
+    if (
+      space.length !== undefined &&
+      space.width !== undefined &&
+      dec(space.area).lessThan(dec(space.length).times(dec(space.width)).times('0.5'))
+    ) {
+      cautions.push(
+        `“${space.name}”: the floor area is less than half of its length × width; daylight zones and the room cavity ratio are worked out on the rectangle.`,
+      );
     }
     let allowedLpd = baseLpd;
     let roomGeometryIncreaseApplied = false;
@@ -423,21 +513,34 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       if (controlType.rcrThreshold !== null && rcr !== null && rcr.greaterThanOrEqualTo(dec(controlType.rcrThreshold))) {
         allowedLpd = baseLpd.times(dec(1).plus(dec(geometryRule.increasePercent).dividedBy(100)));
         roomGeometryIncreaseApplied = true;
-        spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance, edition.sections['roomGeometry'] ?? '');
+        spaceUnverified.add(
+          `Room-geometry increase of ${geometryRule.increasePercent} %`,
+          geometryRule.provenance,
+          edition.sections['roomGeometry'] ?? '',
+        );
       } else if (controlType.rcrThreshold === null && controlType.rcrCondition !== undefined) {
         // Corridors carry "width < 8 ft" in the RCR column: a narrow corridor gets the increase.
         const narrower = /width\s*<\s*(\d+(?:\.\d+)?)\s*ft/i.exec(controlType.rcrCondition);
-        const shorterSide = space.length !== undefined && space.width !== undefined ? lengthToFeet(min(dec(space.length), dec(space.width)), units) : null;
+        const shorterSide =
+          space.length !== undefined && space.width !== undefined ? lengthToFeet(min(dec(space.length), dec(space.width)), units) : null;
         if (narrower && shorterSide !== null) {
           if (shorterSide.lessThan(dec(narrower[1]!))) {
             allowedLpd = baseLpd.times(dec(1).plus(dec(geometryRule.increasePercent).dividedBy(100)));
             roomGeometryIncreaseApplied = true;
-            spaceUnverified.add(`Room-geometry increase of ${geometryRule.increasePercent} %`, geometryRule.provenance, edition.sections['roomGeometry'] ?? '');
+            spaceUnverified.add(
+              `Room-geometry increase of ${geometryRule.increasePercent} %`,
+              geometryRule.provenance,
+              edition.sections['roomGeometry'] ?? '',
+            );
           }
         } else if (narrower) {
-          cautions.push(`“${space.name}”: a corridor narrower than ${narrower[1]} ft gets the room-geometry increase; give its length and width to have it applied.`);
+          cautions.push(
+            `“${space.name}”: a corridor narrower than ${narrower[1]} ft gets the room-geometry increase; give its length and width to have it applied.`,
+          );
         } else {
-          cautions.push(`“${space.name}”: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`);
+          cautions.push(
+            `“${space.name}”: the room-geometry condition "${controlType.rcrCondition}" is stated in words and was not applied.`,
+          );
         }
       }
     }
@@ -447,7 +550,9 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     const hasLuminaires = watts.lines.some((line) => dec(line.count).greaterThan(0));
     const lighting: SpaceResult['lighting'] = hasLuminaires ? 'entered' : space.unlit === true ? 'unlit' : 'none-entered';
     if (lighting === 'none-entered') {
-      cautions.push(`“${space.name}” has no luminaires entered: enter them, or confirm the space is unlit. Until then there is no verdict.`);
+      cautions.push(
+        `“${space.name}” has no luminaires entered: enter them, or confirm the space is unlit. Until then there is no verdict.`,
+      );
     }
     const own = claimLines.filter((line) => line.claim.spaceId === space.id);
     const retailOwn = own.filter((line) => line.allowance.kind === 'retail-display');
@@ -474,10 +579,19 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       decorativeW: watts.decorative,
       displayW: watts.display,
       installedW: installed,
-      nonExemptLuminaires: watts.lines.filter((line) => line.use !== 'exempt').map((line) => ({ count: dec(line.count), unitWatts: dec(line.unitWatts) })),
+      nonExemptLuminaires: watts.lines
+        .filter((line) => line.use !== 'exempt')
+        .map((line) => ({ count: dec(line.count), unitWatts: dec(line.unitWatts) })),
       provided: space.controls,
     };
-    let controls: ControlLine[] = resolveControls(interiorRequirements(edition, facts), space.controls, edition, controlType, units, areaFt2);
+    let controls: ControlLine[] = resolveControls(
+      interiorRequirements(edition, facts),
+      space.controls,
+      edition,
+      controlType,
+      units,
+      areaFt2,
+    );
     if (controlType === undefined && edition.family === 'ashrae-90.1') {
       controls = [
         {
@@ -495,14 +609,20 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     }
     // Controls govern lighting: a space confirmed unlit needs none. (An empty one keeps its lines: they say what its lighting will need.)
     if (lighting === 'unlit') {
-      controls = controls.map((line) => ({ ...line, met: null, status: 'not-required', reason: 'Not required: the space is confirmed unlit.' }));
+      controls = controls.map((line) => ({
+        ...line,
+        met: null,
+        status: 'not-required',
+        reason: 'Not required: the space is confirmed unlit.',
+      }));
     }
     for (const line of controls) {
       const strategy = edition.controlStrategies.find((candidate) => candidate.key === line.strategy);
       // A "not required" can rest on an unverified threshold just as a requirement can.
       if (strategy) spaceUnverified.add(`Control strategy: ${strategy.label}`, strategy.provenance, strategy.section);
       // People know a space by its name; the id only keeps two spaces of the same name apart.
-      if (line.status === 'to-verify') spaceUnverified.unsettled(`${space.name}: ${line.label}`, line.section, line.reason, `${space.id}/${line.strategy}`);
+      if (line.status === 'to-verify')
+        spaceUnverified.unsettled(`${space.name}: ${line.label}`, line.section, line.reason, `${space.id}/${line.strategy}`);
     }
     unverified.merge(spaceUnverified.values());
 
@@ -551,7 +671,11 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     }, ZERO);
     fixedUsable = min(fixed, sum(spaces.map((space) => space.uncoveredDisplay)));
     if (retailLines.length > 0 && retailLines.every((line) => line.allowance.fixedW === undefined)) {
-      unverified.unsettled('Retail display fixed adder', edition.sections['additionalAllowances'] ?? '', 'This edition’s fixed wattage added once per building to the retail display allowance was not found; none is counted, which can only understate the allowance.');
+      unverified.unsettled(
+        'Retail display fixed adder',
+        edition.sections['additionalAllowances'] ?? '',
+        'This edition’s fixed wattage added once per building to the retail display allowance was not found; none is counted, which can only understate the allowance.',
+      );
     }
     const claimedSpaces = new Set(retailLines.map((line) => line.claim.spaceId));
     const decorativeSpaces = new Set(claimLines.filter((line) => line.allowance.kind === 'decorative').map((line) => line.claim.spaceId));
@@ -611,7 +735,11 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       const exempt = exterior.applications.find((line) => line.key === entry.key)?.exemption;
       if (exempt) unverified.unsettled(`Exterior exemption: ${exempt.label}`, exempt.section, exteriorExemptionsNote);
       if (application.unverifiedZones?.includes(exterior.lightingZone)) {
-        unverified.unsettled(`Exterior allowance: ${application.label}, zone ${exterior.lightingZone}`, exteriorSection, `The allowance for lighting zone ${exterior.lightingZone} is not the published table as it stands: ${application.provenance.note ?? 'verify it'}`);
+        unverified.unsettled(
+          `Exterior allowance: ${application.label}, zone ${exterior.lightingZone}`,
+          exteriorSection,
+          `The allowance for lighting zone ${exterior.lightingZone} is not the published table as it stands: ${application.provenance.note ?? 'verify it'}`,
+        );
       }
     }
     const base = edition.exteriorApplications.find((application) => application.isBaseSiteAllowance);
@@ -632,7 +760,11 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
 
   const emptySpaces = spaces.filter((space) => space.lighting === 'none-entered').length;
   const passes = interiorComplies && controlsComply && (exterior?.complies ?? true);
-  const verdict: EvaluationResult['verdict'] = !passes ? 'does-not-comply' : emptySpaces > 0 || controlsToVerify > 0 ? 'incomplete' : 'complies';
+  const verdict: EvaluationResult['verdict'] = !passes
+    ? 'does-not-comply'
+    : emptySpaces > 0 || controlsToVerify > 0
+      ? 'incomplete'
+      : 'complies';
 
   return {
     edition: edition.id,
@@ -641,7 +773,9 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
     units,
     complies: verdict === 'complies',
     verdict,
-    amendments: (edition.amendments ?? []).filter((amendment) => document.amendments.includes(amendment.key)).map((amendment) => ({ key: amendment.key, title: amendment.title })),
+    amendments: (edition.amendments ?? [])
+      .filter((amendment) => document.amendments.includes(amendment.key))
+      .map((amendment) => ({ key: amendment.key, title: amendment.title })),
     openItems: { spacesWithoutLuminaires: emptySpaces, controlsToVerify },
     interior: {
       section: allowanceSection,
@@ -655,7 +789,10 @@ export function evaluate(document: EvaluationDocument, modelCode: EditionData): 
       marginPct: percent(interiorMargin, allowanceW),
       complies: interiorComplies,
       additional,
-      spaces: spaces.map(({ allowance: _allowance, installed: _installed, areaFt2: _areaFt2, uncoveredDisplay: _uncovered, exact: _exact, ...space }) => space),
+      spaces: spaces.map(
+        ({ allowance: _allowance, installed: _installed, areaFt2: _areaFt2, uncoveredDisplay: _uncovered, exact: _exact, ...space }) =>
+          space,
+      ),
       levels,
     },
     exterior,

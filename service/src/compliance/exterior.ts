@@ -32,7 +32,11 @@ function exemptionOf(entry: ExteriorApplicationEntry, edition: EditionData): Ext
  * each only for itself. The base site allowance covers tradable excess; it covers nontradable
  * excess only where the edition's data says it may.
  */
-export function evaluateExterior(exterior: NonNullable<EvaluationDocument['exterior']>, edition: EditionData, units: UnitSystem): ExteriorResult {
+export function evaluateExterior(
+  exterior: NonNullable<EvaluationDocument['exterior']>,
+  edition: EditionData,
+  units: UnitSystem,
+): ExteriorResult {
   const zone = exterior.lightingZone;
   const section = edition.sections['exteriorAllowance'] ?? '';
   const catalogue = new Map(edition.exteriorApplications.map((application) => [application.key, application]));
@@ -72,7 +76,11 @@ export function evaluateExterior(exterior: NonNullable<EvaluationDocument['exter
     }
     const requirements: ControlRequirement[] = strategyKeys
       .filter((strategy) => line.application.controls[strategy] !== undefined)
-      .map((strategy) => ({ strategy, requirement: line.application.controls[strategy]!, why: `${line.application.label} exterior lighting` }));
+      .map((strategy) => ({
+        strategy,
+        requirement: line.application.controls[strategy]!,
+        why: `${line.application.label} exterior lighting`,
+      }));
     const shown = rateInDocumentUnits(line.application, line.tableRate, units);
     return {
       key: line.application.key,

@@ -62,13 +62,7 @@ function clip(rectangle: PlanRectangle, room: RoomPlan): PlanRectangle | null {
  * wide as the window plus the side extension each way. Clipping to the room stands for "or the
  * distance to a wall", which the code gives as the lesser of the two.
  */
-function sidelitBand(
-  window: RoomPlan['windows'][number],
-  room: RoomPlan,
-  extension: Dec,
-  near: Dec,
-  far: Dec,
-): PlanRectangle | null {
+function sidelitBand(window: RoomPlan['windows'][number], room: RoomPlan, extension: Dec, near: Dec, far: Dec): PlanRectangle | null {
   const alongX = window.wall === 'north' || window.wall === 'south';
   const wallLength = alongX ? room.length : room.width;
   const offset = window.offset ?? wallLength.minus(window.width).dividedBy(2);
@@ -78,12 +72,8 @@ function sidelitBand(
   const depthFar = far.times(window.headHeight);
   const roomDepth = alongX ? room.width : room.length;
   const [inner, outer] =
-    window.wall === 'south' || window.wall === 'west'
-      ? [depthNear, depthFar]
-      : [roomDepth.minus(depthFar), roomDepth.minus(depthNear)];
-  const rectangle = alongX
-    ? { x0: start, x1: end, y0: inner, y1: outer }
-    : { x0: inner, x1: outer, y0: start, y1: end };
+    window.wall === 'south' || window.wall === 'west' ? [depthNear, depthFar] : [roomDepth.minus(depthFar), roomDepth.minus(depthNear)];
+  const rectangle = alongX ? { x0: start, x1: end, y0: inner, y1: outer } : { x0: inner, x1: outer, y0: start, y1: end };
   return clip(rectangle, room);
 }
 
@@ -133,7 +123,11 @@ function breakpoints(values: Dec[]): Dec[] {
  * zones an edition's glazing rules take away (a blocked window's primary band, a skylight of low
  * transmittance): their floor goes to whichever other zone reaches it.
  */
-export function daylightAreas(room: RoomPlan, rules: EditionRules['daylight'], keep: (rectangle: ZoneRectangle) => boolean = () => true): ZoneAreas {
+export function daylightAreas(
+  room: RoomPlan,
+  rules: EditionRules['daylight'],
+  keep: (rectangle: ZoneRectangle) => boolean = () => true,
+): ZoneAreas {
   const precedence = rules.overlapPrecedence ?? defaultPrecedence;
   const rectangles = zoneRectangles(room, rules).filter(keep);
   const xs = breakpoints(rectangles.flatMap((rectangle) => [rectangle.x0, rectangle.x1]));

@@ -30,7 +30,12 @@ export function unitWattage(type: LuminaireType, rules: EditionRules, units: Uni
       return { watts: specified, basis: `rated input ${specified.toFixed()} W`, fromMemory: false, usesTrackRule: false };
     case 'line-voltage-track': {
       if (type.limitWatts !== undefined) {
-        return { watts: dec(type.limitWatts), basis: `current limiter rating ${type.limitWatts} W`, fromMemory: false, usesTrackRule: true };
+        return {
+          watts: dec(type.limitWatts),
+          basis: `current limiter rating ${type.limitWatts} W`,
+          fromMemory: false,
+          usesTrackRule: true,
+        };
       }
       const feet = lengthToFeet(dec(type.length ?? '0'), units);
       const minimum = dec(rules.trackMinimumWPerFt).times(feet);
@@ -43,8 +48,18 @@ export function unitWattage(type: LuminaireType, rules: EditionRules, units: Uni
       };
     }
     case 'low-voltage-track':
-      return { watts: dec(type.limitWatts ?? '0'), basis: `transformer rating ${type.limitWatts ?? '0'} W`, fromMemory: true, usesTrackRule: true };
+      return {
+        watts: dec(type.limitWatts ?? '0'),
+        basis: `transformer rating ${type.limitWatts ?? '0'} W`,
+        fromMemory: true,
+        usesTrackRule: true,
+      };
     case 'current-limited':
-      return { watts: dec(type.limitWatts ?? '0'), basis: `current limiter rating ${type.limitWatts ?? '0'} W`, fromMemory: false, usesTrackRule: true };
+      return {
+        watts: dec(type.limitWatts ?? '0'),
+        basis: `current limiter rating ${type.limitWatts ?? '0'} W`,
+        fromMemory: false,
+        usesTrackRule: true,
+      };
   }
 }

@@ -61,7 +61,10 @@ export function lpdFormulaProblems(document: EvaluationDocument, edition: Editio
     }
     const heightFt = lengthToFeet(dec(space.ceilingHeight), document.units);
     if (!fits(formula.heightFt, heightFt)) {
-      problems.push({ path, message: `This space type is for atria ${rangeWords(formula.heightFt, document.units)} high; choose the atrium row for a height of ${space.ceilingHeight} ${unitLabels(document.units).length}.` });
+      problems.push({
+        path,
+        message: `This space type is for atria ${rangeWords(formula.heightFt, document.units)} high; choose the atrium row for a height of ${space.ceilingHeight} ${unitLabels(document.units).length}.`,
+      });
     }
   });
   return problems;

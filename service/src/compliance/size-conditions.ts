@@ -18,7 +18,9 @@ const unitOf = (text: string): SizeCondition['quantity'] => (/ft2|ft²|square/i.
 /** The size condition a source label states, or null where it states none. */
 export function sizeCondition(sourceLabel: string): SizeCondition | null {
   const label = sourceLabel.replace(/≤/g, '<=').replace(/≥/g, '>=');
-  const between = new RegExp(`(>=|>)\\s*${number}\\s*(?:ft2|ft²|ft|feet)?\\s*and\\s*(<=|<)\\s*${number}\\s*(ft2|ft²|ft|feet)`, 'i').exec(label);
+  const between = new RegExp(`(>=|>)\\s*${number}\\s*(?:ft2|ft²|ft|feet)?\\s*and\\s*(<=|<)\\s*${number}\\s*(ft2|ft²|ft|feet)`, 'i').exec(
+    label,
+  );
   if (between) {
     return {
       quantity: unitOf(between[5]!),
@@ -27,7 +29,12 @@ export function sizeCondition(sourceLabel: string): SizeCondition | null {
     };
   }
   const range = new RegExp(`${number}\\s*(?:to|-|–)\\s*${number}\\s*(ft2|ft²|ft|feet)`, 'i').exec(label);
-  if (range) return { quantity: unitOf(range[3]!), min: { value: dec(range[1]!), inclusive: true }, max: { value: dec(range[2]!), inclusive: true } };
+  if (range)
+    return {
+      quantity: unitOf(range[3]!),
+      min: { value: dec(range[1]!), inclusive: true },
+      max: { value: dec(range[2]!), inclusive: true },
+    };
   const single = new RegExp(`(<=|>=|<|>|less than|greater than)\\s*${number}\\s*(ft2|ft²|ft|feet)`, 'i').exec(label);
   if (!single) return null;
   const operator = single[1]!.toLowerCase();
@@ -54,6 +61,9 @@ export function conditionWords(condition: SizeCondition, units: UnitSystem = 'ip
   const unit = words(dec(1)).replace(/^\S+ /, '');
   const { min, max } = condition;
   if (min && max && min.inclusive && max.inclusive) return `from ${figure(min.value)} to ${figure(max.value)} ${unit}`;
-  const parts = [min ? `${min.inclusive ? 'at least' : 'more than'} ${words(min.value)}` : '', max ? `${max.inclusive ? 'at most' : 'less than'} ${words(max.value)}` : ''].filter(Boolean);
+  const parts = [
+    min ? `${min.inclusive ? 'at least' : 'more than'} ${words(min.value)}` : '',
+    max ? `${max.inclusive ? 'at most' : 'less than'} ${words(max.value)}` : '',
+  ].filter(Boolean);
   return parts.join(' and ');
 }

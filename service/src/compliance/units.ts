@@ -52,7 +52,5 @@ export function lengthWords(feet: Dec, units: UnitSystem): string {
 }
 
 export function unitLabels(units: UnitSystem): { length: string; area: string; density: string } {
-  return units === 'ip'
-    ? { length: 'ft', area: 'ft²', density: 'W/ft²' }
-    : { length: 'm', area: 'm²', density: 'W/m²' };
+  return units === 'ip' ? { length: 'ft', area: 'ft²', density: 'W/ft²' } : { length: 'm', area: 'm²', density: 'W/m²' };
 }

@@ -9,7 +9,11 @@ export interface VersionedRow {
 }
 
 /** Who last changed a row, for a 409 that tells the person what happened. */
-async function lastChange(trx: Knex, table: string, id: string): Promise<{ version: number; updatedAt: string; updatedBy: string | null } | undefined> {
+async function lastChange(
+  trx: Knex,
+  table: string,
+  id: string,
+): Promise<{ version: number; updatedAt: string; updatedBy: string | null } | undefined> {
   const row = await trx(`${table} as t`)
     .leftJoin('users as u', 'u.id', 't.updated_by')
     .where('t.id', id)
@@ -19,9 +23,11 @@ async function lastChange(trx: Knex, table: string, id: string): Promise<{ versi
 
 export function staleWrite(what: string, change: { version: number; updatedAt: string; updatedBy: string | null }): Stale {
   const who = change.updatedBy ?? 'someone';
-  return new Stale(`${what} was changed by ${who} at ${change.updatedAt} (now version ${change.version}). Reload to see their change, then apply yours again.`, change.version, [
-    { path: 'version', message: `current version is ${change.version}` },
-  ]);
+  return new Stale(
+    `${what} was changed by ${who} at ${change.updatedAt} (now version ${change.version}). Reload to see their change, then apply yours again.`,
+    change.version,
+    [{ path: 'version', message: `current version is ${change.version}` }],
+  );
 }
 
 /**
@@ -48,8 +54,16 @@ export async function updateVersioned(
 }
 
 /** Deletes one row only at the version the writer read. */
-export async function deleteVersioned(trx: Knex, table: string, scope: { id: string; project_id?: string }, expectedVersion: number, what: string): Promise<void> {
-  const deleted = await trx(table).where({ ...scope, version: expectedVersion }).delete();
+export async function deleteVersioned(
+  trx: Knex,
+  table: string,
+  scope: { id: string; project_id?: string },
+  expectedVersion: number,
+  what: string,
+): Promise<void> {
+  const deleted = await trx(table)
+    .where({ ...scope, version: expectedVersion })
+    .delete();
   if (deleted === 1) return;
   const exists = await trx(table).where(scope).first('id');
   if (!exists) throw new NotFound(`${what} does not exist.`);

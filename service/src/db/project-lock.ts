@@ -15,8 +15,15 @@ export interface LockedProject {
  * space position, at least one engineer, a change of units) cannot be raced past by a parallel
  * writer; and since everyone takes the same lock first, they cannot deadlock on each other.
  */
-export async function lockProject(trx: Knex.Transaction, projectId: string, options: { allowArchived?: boolean } = {}): Promise<LockedProject> {
-  const project = await trx('projects').where({ id: projectId }).forUpdate().first<LockedProject | undefined>('id', 'edition_id', 'method', 'units', 'archived_at');
+export async function lockProject(
+  trx: Knex.Transaction,
+  projectId: string,
+  options: { allowArchived?: boolean } = {},
+): Promise<LockedProject> {
+  const project = await trx('projects')
+    .where({ id: projectId })
+    .forUpdate()
+    .first<LockedProject | undefined>('id', 'edition_id', 'method', 'units', 'archived_at');
   if (!project) throw new NotFound('No such project.');
   if (project.archived_at && !options.allowArchived) {
     throw new Archived('This project is archived. Restore it from the projects list to change it.');

@@ -5,7 +5,17 @@
  * repositories declare.
  */
 import type { Knex } from 'knex';
-import type { Amendment, CodeFamily, EditionId, EditionRules, EqualRow, LpdFormula, RequirementCode, SpaceType, StrategyKey } from '../compliance/edition-data.js';
+import type {
+  Amendment,
+  CodeFamily,
+  EditionId,
+  EditionRules,
+  EqualRow,
+  LpdFormula,
+  RequirementCode,
+  SpaceType,
+  StrategyKey,
+} from '../compliance/edition-data.js';
 import type { AdditionalAllowanceKind } from '../../../contract/editions.js';
 
 export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
@@ -273,7 +283,17 @@ declare module 'knex/types/tables.js' {
     code_exterior_applications: CodeTable<CodeExteriorApplicationRow, 'controls' | 'source_control_flags'>;
     lighting_zones: CodeTable<LightingZoneRow>;
     additional_allowances: CodeTable<AdditionalAllowanceRow, 'kind'>;
-    edition_rules: CodeTable<EditionRulesRow, 'daylight_comparison' | 'daylight_side_extension_kind' | 'daylight_provenance' | 'daylight_openings' | 'room_geometry_provenance' | 'small_enclosed_space_provenance' | 'track_provenance' | 'base_site_provenance'>;
+    edition_rules: CodeTable<
+      EditionRulesRow,
+      | 'daylight_comparison'
+      | 'daylight_side_extension_kind'
+      | 'daylight_provenance'
+      | 'daylight_openings'
+      | 'room_geometry_provenance'
+      | 'small_enclosed_space_provenance'
+      | 'track_provenance'
+      | 'base_site_provenance'
+    >;
     edition_sections: CodeTable<EditionSectionRow>;
     edition_amendments: CodeTable<EditionAmendmentRow, 'parameters'>;
   }

@@ -19,7 +19,11 @@ function sameNumber(a: unknown, b: unknown): boolean {
  * The origin a row keeps after a write: only the columns the write left as they were. The write
  * itself often resends every value (a full PUT from a form), so an untouched value keeps its origin.
  */
-export function carriedOrigin(origin: UnitOrigin | null | undefined, stored: Record<string, unknown>, written: Record<string, unknown>): string | null {
+export function carriedOrigin(
+  origin: UnitOrigin | null | undefined,
+  stored: Record<string, unknown>,
+  written: Record<string, unknown>,
+): string | null {
   if (!origin) return null;
   const kept = Object.entries(origin.values).filter(([column]) => column in written && sameNumber(stored[column], written[column]));
   return kept.length === 0 ? null : JSON.stringify({ units: origin.units, values: Object.fromEntries(kept) });

@@ -47,7 +47,10 @@ function claimRecord(row: ClaimRow): AllowanceClaim {
 
 /** Claims with who last changed them; a deleted claim waits out its restore days with `deleted_at` set, and is not one. */
 function claims(db: Knex) {
-  return db('retail_display_claims as t').leftJoin('users as u', 'u.id', 't.updated_by').whereNull('t.deleted_at').select('t.*', 'u.name as updated_by_name');
+  return db('retail_display_claims as t')
+    .leftJoin('users as u', 'u.id', 't.updated_by')
+    .whereNull('t.deleted_at')
+    .select('t.*', 'u.name as updated_by_name');
 }
 
 export async function listAllowanceClaims(db: Knex, projectId: string): Promise<AllowanceClaim[]> {
@@ -60,23 +63,38 @@ async function oneClaim(db: Knex, id: string): Promise<AllowanceClaim> {
 
 /** A live claim of the project, or 404. */
 async function assertClaimExists(trx: Knex, projectId: string, id: string): Promise<void> {
-  if (!(await trx('retail_display_claims').where({ id, project_id: projectId }).whereNull('deleted_at').first('id'))) throw new NotFound('This claim does not exist.');
+  if (!(await trx('retail_display_claims').where({ id, project_id: projectId }).whereNull('deleted_at').first('id')))
+    throw new NotFound('This claim does not exist.');
 }
 
 /** A space claims each allowance once, for at most its own floor area. */
 async function assertClaimFits(trx: Knex, projectId: string, input: AllowanceClaimInput, exceptId?: string): Promise<string> {
-  const space = await trx('spaces').where({ id: input.spaceId, project_id: projectId }).first<{ name: string; area: string } | undefined>('name', 'area');
+  const space = await trx('spaces')
+    .where({ id: input.spaceId, project_id: projectId })
+    .first<{ name: string; area: string } | undefined>('name', 'area');
   if (!space) throw new Refused('This space does not exist.', [{ path: 'spaceId', message: 'Choose a space of the project.' }]);
   if (dec(input.area).greaterThan(dec(space.area))) {
-    throw new Refused('The claimed area is larger than the space.', [{ path: 'area', message: `At most ${text(dec(space.area))}, the space’s floor area.` }]);
+    throw new Refused('The claimed area is larger than the space.', [
+      { path: 'area', message: `At most ${text(dec(space.area))}, the space’s floor area.` },
+    ]);
   }
-  const twice = trx('retail_display_claims').where({ project_id: projectId, space_id: input.spaceId, allowance_key: input.allowance }).whereNull('deleted_at');
+  const twice = trx('retail_display_claims')
+    .where({ project_id: projectId, space_id: input.spaceId, allowance_key: input.allowance })
+    .whereNull('deleted_at');
   if (exceptId) twice.whereNot({ id: exceptId });
-  if (await twice.first('id')) throw new Conflict(`“${space.name}” already claims this allowance.`, [{ path: 'allowance', message: 'Each allowance once per space.' }]);
+  if (await twice.first('id'))
+    throw new Conflict(`“${space.name}” already claims this allowance.`, [
+      { path: 'allowance', message: 'Each allowance once per space.' },
+    ]);
   return space.name;
 }
 
-export async function createAllowanceClaim(db: Database, projectId: string, input: AllowanceClaimInput, userId: string): Promise<AllowanceClaim> {
+export async function createAllowanceClaim(
+  db: Database,
+  projectId: string,
+  input: AllowanceClaimInput,
+  userId: string,
+): Promise<AllowanceClaim> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     const name = await assertClaimFits(trx, projectId, input);
@@ -84,21 +102,50 @@ export async function createAllowanceClaim(db: Database, projectId: string, inpu
       .insert({ project_id: projectId, space_id: input.spaceId, allowance_key: input.allowance, area: input.area, updated_by: userId })
       .returning<{ id: string }[]>('id');
     const created = await oneClaim(trx, row!.id);
-    await recordAudit(trx, { userId, projectId, action: 'create', entity: 'additional-allowance', entityId: created.id, detail: { name, after: created } });
+    await recordAudit(trx, {
+      userId,
+      projectId,
+      action: 'create',
+      entity: 'additional-allowance',
+      entityId: created.id,
+      detail: { name, after: created },
+    });
     await touchProject(trx, projectId);
     return created;
   });
 }
 
-export async function replaceAllowanceClaim(db: Database, projectId: string, id: string, version: number, input: AllowanceClaimInput, userId: string): Promise<AllowanceClaim> {
+export async function replaceAllowanceClaim(
+  db: Database,
+  projectId: string,
+  id: string,
+  version: number,
+  input: AllowanceClaimInput,
+  userId: string,
+): Promise<AllowanceClaim> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     await assertClaimExists(trx, projectId, id);
     const before = await oneClaim(trx, id);
     const name = await assertClaimFits(trx, projectId, input, id);
-    await updateVersioned(trx, 'retail_display_claims', { id, project_id: projectId }, version, { space_id: input.spaceId, allowance_key: input.allowance, area: input.area, unit_origin: null }, userId, 'This claim');
+    await updateVersioned(
+      trx,
+      'retail_display_claims',
+      { id, project_id: projectId },
+      version,
+      { space_id: input.spaceId, allowance_key: input.allowance, area: input.area, unit_origin: null },
+      userId,
+      'This claim',
+    );
     const after = await oneClaim(trx, id);
-    await recordAudit(trx, { userId, projectId, action: 'update', entity: 'additional-allowance', entityId: id, detail: { name, before, after } });
+    await recordAudit(trx, {
+      userId,
+      projectId,
+      action: 'update',
+      entity: 'additional-allowance',
+      entityId: id,
+      detail: { name, before, after },
+    });
     await touchProject(trx, projectId);
     return after;
   });
@@ -111,12 +158,27 @@ export async function deleteAllowanceClaim(db: Database, projectId: string, id: 
     await assertClaimExists(trx, projectId, id);
     const before = await oneClaim(trx, id);
     const space = await trx('spaces').where({ id: before.spaceId }).first<{ name: string }>('name');
-    await updateVersioned(trx, 'retail_display_claims', { id, project_id: projectId }, version, { deleted_at: trx.fn.now() }, userId, 'This claim');
+    await updateVersioned(
+      trx,
+      'retail_display_claims',
+      { id, project_id: projectId },
+      version,
+      { deleted_at: trx.fn.now() },
+      userId,
+      'This claim',
+    );
     await trx('retail_display_claims')
       .where({ project_id: projectId })
       .where('deleted_at', '<', trx.raw(`now() - make_interval(days => ?)`, [restoreDays]))
       .delete();
-    await recordAudit(trx, { userId, projectId, action: 'delete', entity: 'additional-allowance', entityId: id, detail: { name: space.name, before } });
+    await recordAudit(trx, {
+      userId,
+      projectId,
+      action: 'delete',
+      entity: 'additional-allowance',
+      entityId: id,
+      detail: { name: space.name, before },
+    });
     await touchProject(trx, projectId);
   });
 }
@@ -130,7 +192,10 @@ export async function deleteAllowanceClaim(db: Database, projectId: string, id: 
 export async function restoreAllowanceClaim(db: Database, projectId: string, id: string, userId: string): Promise<AllowanceClaim> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
-    const row = await trx('retail_display_claims').where({ id, project_id: projectId }).whereNotNull('deleted_at').first<ClaimRow | undefined>();
+    const row = await trx('retail_display_claims')
+      .where({ id, project_id: projectId })
+      .whereNotNull('deleted_at')
+      .first<ClaimRow | undefined>();
     const entry = await trx('audit_log')
       .where({ project_id: projectId, entity: 'additional-allowance', entity_id: id, action: 'delete' })
       .orderBy('id', 'desc')
@@ -139,7 +204,9 @@ export async function restoreAllowanceClaim(db: Database, projectId: string, id:
     const space = await trx('spaces').where({ id: row.space_id }).first<{ name: string }>('name');
     const what = `The claim on “${space.name}”`;
     if (Date.now() - row.deleted_at!.getTime() > restoreDays * 86_400_000) {
-      throw new NotRestorable(`${what} was deleted more than ${restoreDays} days ago and can no longer be restored; claim it again instead.`);
+      throw new NotRestorable(
+        `${what} was deleted more than ${restoreDays} days ago and can no longer be restored; claim it again instead.`,
+      );
     }
     const input = { spaceId: row.space_id, allowance: row.allowance_key, area: text(dec(row.area)) };
     try {
@@ -155,7 +222,14 @@ export async function restoreAllowanceClaim(db: Database, projectId: string, id:
       .where({ id })
       .update({ deleted_at: null, version: trx.raw('version + 1'), updated_at: trx.fn.now(), updated_by: userId });
     const restored = await oneClaim(trx, id);
-    await recordAudit(trx, { userId, projectId, action: 'restore', entity: 'additional-allowance', entityId: id, detail: { name: space.name, after: restored, restoredFrom: entry.id } });
+    await recordAudit(trx, {
+      userId,
+      projectId,
+      action: 'restore',
+      entity: 'additional-allowance',
+      entityId: id,
+      detail: { name: space.name, after: restored, restoredFrom: entry.id },
+    });
     await touchProject(trx, projectId);
     return restored;
   });

@@ -8,7 +8,14 @@ import { deleteVersioned, updateVersioned, type VersionedRow } from '../db/optim
 import { lockProject } from '../db/project-lock.js';
 import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
 import { Conflict, InUse, KeyReused, NotFound, NotRestorable, Refused, type ErrorDetail } from '../domain-errors.js';
-import { exteriorApplicationInputSchema, luminaireTypeInputSchema, spaceInputSchema, type ExteriorApplicationInput, type LuminaireTypeInput, type SpaceInput } from './design.schema.js';
+import {
+  exteriorApplicationInputSchema,
+  luminaireTypeInputSchema,
+  spaceInputSchema,
+  type ExteriorApplicationInput,
+  type LuminaireTypeInput,
+  type SpaceInput,
+} from './design.schema.js';
 
 /** A NUMERIC column's string in plain form ("12.5000" → "12.5"); absent stays absent. */
 function decimal(value: string | null | undefined): string | undefined {
@@ -116,7 +123,9 @@ async function assertTagFree(trx: Knex, projectId: string, tag: string, exceptId
 }
 
 function tagTaken(tag: string): Conflict {
-  return new Conflict(`A luminaire type tagged "${tag}" already exists in this project.`, [{ path: 'tag', message: 'Tags are unique within a project.' }]);
+  return new Conflict(`A luminaire type tagged "${tag}" already exists in this project.`, [
+    { path: 'tag', message: 'Tags are unique within a project.' },
+  ]);
 }
 
 async function storedLuminaireType(trx: Knex, projectId: string, id: string): Promise<LuminaireTypeRow> {
@@ -125,28 +134,67 @@ async function storedLuminaireType(trx: Knex, projectId: string, id: string): Pr
   return row;
 }
 
-export async function createLuminaireType(db: Database, projectId: string, input: LuminaireTypeInput, userId: string): Promise<LuminaireTypeRecord> {
+export async function createLuminaireType(
+  db: Database,
+  projectId: string,
+  input: LuminaireTypeInput,
+  userId: string,
+): Promise<LuminaireTypeRecord> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     await assertTagFree(trx, projectId, input.tag);
-    const [row] = await trx('luminaire_types').insert({ project_id: projectId, ...luminaireTypeColumns(input), updated_by: userId }).returning<{ id: string }[]>('id');
+    const [row] = await trx('luminaire_types')
+      .insert({ project_id: projectId, ...luminaireTypeColumns(input), updated_by: userId })
+      .returning<{ id: string }[]>('id');
     const created = await oneLuminaireType(trx, row!.id);
-    await recordDesignChange(trx, { userId, projectId, action: 'create', entity: 'luminaire-type', entityId: created.id, name: created.tag, after: created });
+    await recordDesignChange(trx, {
+      userId,
+      projectId,
+      action: 'create',
+      entity: 'luminaire-type',
+      entityId: created.id,
+      name: created.tag,
+      after: created,
+    });
     await touchProject(trx, projectId);
     return created;
   });
 }
 
-export async function replaceLuminaireType(db: Database, projectId: string, id: string, version: number, input: LuminaireTypeInput, userId: string): Promise<LuminaireTypeRecord> {
+export async function replaceLuminaireType(
+  db: Database,
+  projectId: string,
+  id: string,
+  version: number,
+  input: LuminaireTypeInput,
+  userId: string,
+): Promise<LuminaireTypeRecord> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     const stored = await storedLuminaireType(trx, projectId, id);
     const before = await oneLuminaireType(trx, id);
     await assertTagFree(trx, projectId, input.tag, id);
     const columns = luminaireTypeColumns(input);
-    await updateVersioned(trx, 'luminaire_types', { id, project_id: projectId }, version, { ...columns, unit_origin: carriedOrigin(stored.unit_origin, { ...stored }, columns) }, userId, 'This luminaire type');
+    await updateVersioned(
+      trx,
+      'luminaire_types',
+      { id, project_id: projectId },
+      version,
+      { ...columns, unit_origin: carriedOrigin(stored.unit_origin, { ...stored }, columns) },
+      userId,
+      'This luminaire type',
+    );
     const after = await oneLuminaireType(trx, id);
-    await recordDesignChange(trx, { userId, projectId, action: 'update', entity: 'luminaire-type', entityId: id, name: after.tag, before, after });
+    await recordDesignChange(trx, {
+      userId,
+      projectId,
+      action: 'update',
+      entity: 'luminaire-type',
+      entityId: id,
+      name: after.tag,
+      before,
+      after,
+    });
     await touchProject(trx, projectId);
     return after;
   });
@@ -156,7 +204,10 @@ export async function deleteLuminaireType(db: Database, projectId: string, id: s
   await db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     await storedLuminaireType(trx, projectId, id);
-    const users = await trx('space_luminaires as l').join('spaces as s', 's.id', 'l.space_id').where('l.luminaire_type_id', id).distinct<{ name: string }[]>('s.name');
+    const users = await trx('space_luminaires as l')
+      .join('spaces as s', 's.id', 'l.space_id')
+      .where('l.luminaire_type_id', id)
+      .distinct<{ name: string }[]>('s.name');
     if (users.length > 0) {
       const names = users.map((space) => space.name).sort();
       throw new InUse(
@@ -165,7 +216,15 @@ export async function deleteLuminaireType(db: Database, projectId: string, id: s
     }
     const before = await oneLuminaireType(trx, id);
     await deleteVersioned(trx, 'luminaire_types', { id, project_id: projectId }, version, 'This luminaire type');
-    await recordDesignChange(trx, { userId, projectId, action: 'delete', entity: 'luminaire-type', entityId: id, name: before.tag, before });
+    await recordDesignChange(trx, {
+      userId,
+      projectId,
+      action: 'delete',
+      entity: 'luminaire-type',
+      entityId: id,
+      name: before.tag,
+      before,
+    });
     await touchProject(trx, projectId);
   });
 }
@@ -237,7 +296,8 @@ interface SpaceSkylightRow {
   daylight_blocked: boolean | null;
 }
 
-export type SpaceRecord = Omit<SpaceInput, 'luminaires'> & Stamp & { id: string; position: number; luminaires: (SpaceInput['luminaires'][number] & { luminaireTypeId: string })[] };
+export type SpaceRecord = Omit<SpaceInput, 'luminaires'> &
+  Stamp & { id: string; position: number; luminaires: (SpaceInput['luminaires'][number] & { luminaireTypeId: string })[] };
 
 function groupBy<Row extends { space_id: string }>(rows: Row[]): Map<string, Row[]> {
   const groups = new Map<string, Row[]>();
@@ -252,9 +312,16 @@ function groupBy<Row extends { space_id: string }>(rows: Row[]): Map<string, Row
 async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> {
   if (rows.length === 0) return [];
   const ids = rows.map((row) => row.id);
-  const inIds = (query: Knex.QueryBuilder) => (ids.length > 500 ? query.whereIn('space_id', db('spaces').select('id').where('project_id', rows[0]!.project_id)) : query.whereIn('space_id', ids));
+  const inIds = (query: Knex.QueryBuilder) =>
+    ids.length > 500
+      ? query.whereIn('space_id', db('spaces').select('id').where('project_id', rows[0]!.project_id))
+      : query.whereIn('space_id', ids);
   const queries = [
-    () => inIds(db('space_luminaires as l').join('luminaire_types as t', 't.id', 'l.luminaire_type_id').select('l.*', 't.tag')).orderBy(['space_id', 'position']),
+    () =>
+      inIds(db('space_luminaires as l').join('luminaire_types as t', 't.id', 'l.luminaire_type_id').select('l.*', 't.tag')).orderBy([
+        'space_id',
+        'position',
+      ]),
     () => inIds(db('space_controls').select('*')).orderBy(['space_id', 'strategy']),
     () => inIds(db('space_windows').select('*')).orderBy(['space_id', 'position']),
     () => inIds(db('space_skylights').select('*')).orderBy(['space_id', 'position']),
@@ -266,7 +333,12 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
   } else {
     results.push(...(await Promise.all(queries.map((query) => query()))));
   }
-  const [luminaires, controls, windows, skylights] = results as [SpaceLuminaireRow[], SpaceControlRow[], SpaceWindowRow[], SpaceSkylightRow[]];
+  const [luminaires, controls, windows, skylights] = results as [
+    SpaceLuminaireRow[],
+    SpaceControlRow[],
+    SpaceWindowRow[],
+    SpaceSkylightRow[],
+  ];
   const luminairesBySpace = groupBy(luminaires);
   const controlsBySpace = groupBy(controls);
   const windowsBySpace = groupBy(windows);
@@ -290,7 +362,9 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
       rooms: row.rooms === null ? undefined : String(row.rooms),
       unlit: row.unlit,
     }) as Omit<SpaceInput, 'luminaires' | 'controls' | 'windows' | 'skylights'>),
-    luminaires: (luminairesBySpace.get(row.id) ?? []).map((group) => defined({ tag: group.tag, count: String(group.count), zone: group.zone, luminaireTypeId: group.luminaire_type_id })),
+    luminaires: (luminairesBySpace.get(row.id) ?? []).map((group) =>
+      defined({ tag: group.tag, count: String(group.count), zone: group.zone, luminaireTypeId: group.luminaire_type_id }),
+    ),
     controls: (controlsBySpace.get(row.id) ?? []).map((control) =>
       defined({
         strategy: control.strategy,
@@ -305,17 +379,34 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
       }),
     ),
     windows: (windowsBySpace.get(row.id) ?? []).map((opening) =>
-      defined({ width: decimal(opening.width)!, headHeight: decimal(opening.head_height)!, sillHeight: decimal(opening.sill_height), wall: opening.wall ?? 'south', offset: decimal(opening.offset), visibleTransmittance: decimal(opening.visible_transmittance), daylightBlocked: opening.daylight_blocked ?? undefined }),
+      defined({
+        width: decimal(opening.width)!,
+        headHeight: decimal(opening.head_height)!,
+        sillHeight: decimal(opening.sill_height),
+        wall: opening.wall ?? 'south',
+        offset: decimal(opening.offset),
+        visibleTransmittance: decimal(opening.visible_transmittance),
+        daylightBlocked: opening.daylight_blocked ?? undefined,
+      }),
     ),
     skylights: (skylightsBySpace.get(row.id) ?? []).map((skylight) =>
-      defined({ length: decimal(skylight.length)!, width: decimal(skylight.width)!, x: decimal(skylight.x), y: decimal(skylight.y), visibleTransmittance: decimal(skylight.visible_transmittance), daylightBlocked: skylight.daylight_blocked ?? undefined }),
+      defined({
+        length: decimal(skylight.length)!,
+        width: decimal(skylight.width)!,
+        x: decimal(skylight.x),
+        y: decimal(skylight.y),
+        visibleTransmittance: decimal(skylight.visible_transmittance),
+        daylightBlocked: skylight.daylight_blocked ?? undefined,
+      }),
     ),
     ...stamp(row),
   })) as SpaceRecord[];
 }
 
 export async function listSpaces(db: Knex, projectId: string): Promise<SpaceRecord[]> {
-  const rows: SpaceRow[] = await withUpdaterName(db, 'spaces').where('t.project_id', projectId).orderBy([{ column: 't.position' }, { column: 't.name' }]);
+  const rows: SpaceRow[] = await withUpdaterName(db, 'spaces')
+    .where('t.project_id', projectId)
+    .orderBy([{ column: 't.position' }, { column: 't.name' }]);
   return spaceRecords(db, rows);
 }
 
@@ -346,13 +437,22 @@ function spaceColumns(input: Partial<SpaceInput>): Record<string, unknown> {
 }
 
 /** Luminaire tags → the project's type ids; an unknown tag is a 400 with its path. */
-async function resolveTags(trx: Knex, projectId: string, inputs: { luminaires: SpaceInput['luminaires'] }[], pathPrefix: (index: number) => string): Promise<Map<string, string>> {
+async function resolveTags(
+  trx: Knex,
+  projectId: string,
+  inputs: { luminaires: SpaceInput['luminaires'] }[],
+  pathPrefix: (index: number) => string,
+): Promise<Map<string, string>> {
   const types = await trx('luminaire_types').where({ project_id: projectId }).select<{ id: string; tag: string }[]>('id', 'tag');
   const byTag = new Map(types.map((type) => [type.tag, type.id]));
   const problems: ErrorDetail[] = [];
   inputs.forEach((input, index) =>
     input.luminaires.forEach((group, groupIndex) => {
-      if (!byTag.has(group.tag)) problems.push({ path: `${pathPrefix(index)}luminaires.${groupIndex}.tag`, message: `No luminaire type has the tag "${group.tag}".` });
+      if (!byTag.has(group.tag))
+        problems.push({
+          path: `${pathPrefix(index)}luminaires.${groupIndex}.tag`,
+          message: `No luminaire type has the tag "${group.tag}".`,
+        });
     }),
   );
   if (problems.length > 0) throw new Refused('Some luminaire tags are not defined in this project.', problems);
@@ -374,17 +474,47 @@ function controlRow(spaceId: string, control: SpaceInput['controls'][number]): R
   };
 }
 
-const childTables = { luminaires: 'space_luminaires', controls: 'space_controls', windows: 'space_windows', skylights: 'space_skylights' } as const;
+const childTables = {
+  luminaires: 'space_luminaires',
+  controls: 'space_controls',
+  windows: 'space_windows',
+  skylights: 'space_skylights',
+} as const;
 
 /** A space's children as table rows, by kind. */
 type ChildRows = Record<keyof typeof childTables, Record<string, unknown>[]>;
 
 function childRows(spaceId: string, input: SpaceInput, typeIds: Map<string, string>): ChildRows {
   return {
-    luminaires: input.luminaires.map((group, position) => ({ space_id: spaceId, position, luminaire_type_id: typeIds.get(group.tag), count: Number(group.count), zone: group.zone ?? null })),
+    luminaires: input.luminaires.map((group, position) => ({
+      space_id: spaceId,
+      position,
+      luminaire_type_id: typeIds.get(group.tag),
+      count: Number(group.count),
+      zone: group.zone ?? null,
+    })),
     controls: input.controls.map((control) => controlRow(spaceId, control)),
-    windows: input.windows.map((opening, position) => ({ space_id: spaceId, position, width: opening.width, head_height: opening.headHeight, sill_height: opening.sillHeight ?? null, wall: opening.wall, offset: opening.offset ?? null, visible_transmittance: opening.visibleTransmittance ?? null, daylight_blocked: opening.daylightBlocked ?? null })),
-    skylights: input.skylights.map((skylight, position) => ({ space_id: spaceId, position, length: skylight.length, width: skylight.width, x: skylight.x ?? null, y: skylight.y ?? null, visible_transmittance: skylight.visibleTransmittance ?? null, daylight_blocked: skylight.daylightBlocked ?? null })),
+    windows: input.windows.map((opening, position) => ({
+      space_id: spaceId,
+      position,
+      width: opening.width,
+      head_height: opening.headHeight,
+      sill_height: opening.sillHeight ?? null,
+      wall: opening.wall,
+      offset: opening.offset ?? null,
+      visible_transmittance: opening.visibleTransmittance ?? null,
+      daylight_blocked: opening.daylightBlocked ?? null,
+    })),
+    skylights: input.skylights.map((skylight, position) => ({
+      space_id: spaceId,
+      position,
+      length: skylight.length,
+      width: skylight.width,
+      x: skylight.x ?? null,
+      y: skylight.y ?? null,
+      visible_transmittance: skylight.visibleTransmittance ?? null,
+      daylight_blocked: skylight.daylightBlocked ?? null,
+    })),
   };
 }
 
@@ -425,7 +555,9 @@ async function writeChildren(trx: Knex.Transaction, spaceId: string, rows: Child
 }
 
 async function nextPosition(trx: Knex, projectId: string): Promise<number> {
-  const { max } = (await trx('spaces').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? { max: null };
+  const { max } = (await trx('spaces').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? {
+    max: null,
+  };
   return (max ?? -1) + 1;
 }
 
@@ -450,30 +582,48 @@ const importKeyHours = 24;
 async function createImportedTypes(trx: Knex.Transaction, projectId: string, inputs: LuminaireTypeInput[], userId: string): Promise<void> {
   const clashes = await trx('luminaire_types')
     .where({ project_id: projectId })
-    .whereIn('tag', inputs.map((input) => input.tag))
+    .whereIn(
+      'tag',
+      inputs.map((input) => input.tag),
+    )
     .select<{ tag: string }[]>('tag');
   const taken = new Set(clashes.map((row) => row.tag));
   if (taken.size > 0) {
     const tags = [...taken].sort().map((tag) => `"${tag}"`);
-    const message = tags.length === 1 ? `A luminaire type tagged ${tags[0]} already exists in this project.` : `Luminaire types tagged ${tags.join(', ')} already exist in this project.`;
+    const message =
+      tags.length === 1
+        ? `A luminaire type tagged ${tags[0]} already exists in this project.`
+        : `Luminaire types tagged ${tags.join(', ')} already exist in this project.`;
     throw new Conflict(
       `${message} Nothing was imported.`,
-      inputs.flatMap((input, index) => (taken.has(input.tag) ? [{ path: `luminaireTypes.${index}.tag`, message: 'Tags are unique within a project.' }] : [])),
+      inputs.flatMap((input, index) =>
+        taken.has(input.tag) ? [{ path: `luminaireTypes.${index}.tag`, message: 'Tags are unique within a project.' }] : [],
+      ),
     );
   }
-  const { count } = (await trx('luminaire_types').where({ project_id: projectId }).count<{ count: string }>('* as count').first()) ?? { count: '0' };
+  const { count } = (await trx('luminaire_types').where({ project_id: projectId }).count<{ count: string }>('* as count').first()) ?? {
+    count: '0',
+  };
   if (Number(count) + inputs.length > documentLimits.luminaireTypes) {
-    throw new Refused(`A project holds at most ${documentLimits.luminaireTypes.toLocaleString('en-US')} luminaire types; this one has ${Number(count).toLocaleString('en-US')}.`, [
-      { path: 'luminaireTypes', message: 'Too many luminaire types for one project.' },
-    ]);
+    throw new Refused(
+      `A project holds at most ${documentLimits.luminaireTypes.toLocaleString('en-US')} luminaire types; this one has ${Number(count).toLocaleString('en-US')}.`,
+      [{ path: 'luminaireTypes', message: 'Too many luminaire types for one project.' }],
+    );
   }
   const inserted = await trx('luminaire_types')
     .insert(inputs.map((input) => ({ project_id: projectId, ...luminaireTypeColumns(input), updated_by: userId })))
     .returning<{ id: string }[]>('id');
-  const rows: LuminaireTypeRow[] = await withUpdaterName(trx, 'luminaire_types').whereIn('t.id', inserted.map((row) => row.id)).orderBy('t.tag');
+  const rows: LuminaireTypeRow[] = await withUpdaterName(trx, 'luminaire_types')
+    .whereIn(
+      't.id',
+      inserted.map((row) => row.id),
+    )
+    .orderBy('t.tag');
   await recordDesignChanges(
     trx,
-    rows.map(luminaireTypeRecord).map((type) => ({ userId, projectId, action: 'create', entity: 'luminaire-type', entityId: type.id, name: type.tag, after: type })),
+    rows
+      .map(luminaireTypeRecord)
+      .map((type) => ({ userId, projectId, action: 'create', entity: 'luminaire-type', entityId: type.id, name: type.tag, after: type })),
   );
 }
 
@@ -493,8 +643,13 @@ export async function createSpaces(
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     if (importKey) {
-      await trx('idempotency_keys').where({ project_id: projectId }).where('created_at', '<', trx.raw(`now() - interval '${importKeyHours} hours'`)).delete();
-      const earlier = await trx('idempotency_keys').where({ project_id: projectId, user_id: userId, key: importKey.key }).first<{ request_hash: string; space_ids: string[] } | undefined>();
+      await trx('idempotency_keys')
+        .where({ project_id: projectId })
+        .where('created_at', '<', trx.raw(`now() - interval '${importKeyHours} hours'`))
+        .delete();
+      const earlier = await trx('idempotency_keys')
+        .where({ project_id: projectId, user_id: userId, key: importKey.key })
+        .first<{ request_hash: string; space_ids: string[] } | undefined>();
       if (earlier) {
         if (earlier.request_hash !== importKey.requestHash) {
           throw new KeyReused('This import key was already used for a different import. Start a new import.');
@@ -503,12 +658,15 @@ export async function createSpaces(
         return spaceRecords(trx, rows);
       }
     }
-    const { count } = (await trx('spaces').where({ project_id: projectId }).count<{ count: string }>('* as count').first()) ?? { count: '0' };
+    const { count } = (await trx('spaces').where({ project_id: projectId }).count<{ count: string }>('* as count').first()) ?? {
+      count: '0',
+    };
     const room = documentLimits.spaces - Number(count);
     if (inputs.length > room) {
-      throw new Refused(`A project holds at most ${documentLimits.spaces.toLocaleString('en-US')} spaces; this one has ${Number(count).toLocaleString('en-US')}, so at most ${Math.max(room, 0).toLocaleString('en-US')} more.`, [
-        { path: 'spaces', message: 'Too many spaces for one project.' },
-      ]);
+      throw new Refused(
+        `A project holds at most ${documentLimits.spaces.toLocaleString('en-US')} spaces; this one has ${Number(count).toLocaleString('en-US')}, so at most ${Math.max(room, 0).toLocaleString('en-US')} more.`,
+        [{ path: 'spaces', message: 'Too many spaces for one project.' }],
+      );
     }
     if (luminaireTypes.length > 0) await createImportedTypes(trx, projectId, luminaireTypes, userId);
     const typeIds = await resolveTags(trx, projectId, inputs, (index) => (inputs.length === 1 ? '' : `spaces.${index}.`));
@@ -518,20 +676,44 @@ export async function createSpaces(
     for (let start = 0; start < inputs.length; start += chunk) {
       const batch = inputs.slice(start, start + chunk);
       const inserted = await trx('spaces')
-        .insert(batch.map((input, offset) => ({ project_id: projectId, position: first + start + offset, ...spaceColumns(input), updated_by: userId })))
+        .insert(
+          batch.map((input, offset) => ({
+            project_id: projectId,
+            position: first + start + offset,
+            ...spaceColumns(input),
+            updated_by: userId,
+          })),
+        )
         .returning<{ id: string; position: number }[]>(['id', 'position']);
       inserted.sort((a, b) => a.position - b.position);
       ids.push(...inserted.map((row) => row.id));
     }
-    await insertChildren(trx, inputs.map((input, index) => childRows(ids[index]!, input, typeIds)));
+    await insertChildren(
+      trx,
+      inputs.map((input, index) => childRows(ids[index]!, input, typeIds)),
+    );
     const rows: SpaceRow[] = await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position');
     const created = await spaceRecords(trx, rows);
     await recordDesignChanges(
       trx,
-      created.map((space) => ({ userId, projectId, action: importKey || inputs.length > 1 ? 'import' : 'create', entity: 'space', entityId: space.id, name: space.name, after: space })),
+      created.map((space) => ({
+        userId,
+        projectId,
+        action: importKey || inputs.length > 1 ? 'import' : 'create',
+        entity: 'space',
+        entityId: space.id,
+        name: space.name,
+        after: space,
+      })),
     );
     if (importKey) {
-      await trx('idempotency_keys').insert({ project_id: projectId, user_id: userId, key: importKey.key, request_hash: importKey.requestHash, space_ids: ids });
+      await trx('idempotency_keys').insert({
+        project_id: projectId,
+        user_id: userId,
+        key: importKey.key,
+        request_hash: importKey.requestHash,
+        space_ids: ids,
+      });
     }
     await touchProject(trx, projectId);
     return created;
@@ -544,18 +726,44 @@ export async function getSpace(db: Knex, projectId: string, spaceId: string): Pr
   return oneSpace(db, spaceId);
 }
 
-export async function replaceSpace(db: Database, projectId: string, spaceId: string, version: number, input: SpaceInput, userId: string): Promise<SpaceRecord> {
+export async function replaceSpace(
+  db: Database,
+  projectId: string,
+  spaceId: string,
+  version: number,
+  input: SpaceInput,
+  userId: string,
+): Promise<SpaceRecord> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
-    const stored = await trx('spaces').where({ id: spaceId, project_id: projectId }).first<(SpaceRow & { unit_origin: UnitOrigin | null }) | undefined>();
+    const stored = await trx('spaces')
+      .where({ id: spaceId, project_id: projectId })
+      .first<(SpaceRow & { unit_origin: UnitOrigin | null }) | undefined>();
     if (!stored) throw new NotFound('This space does not exist.');
     const before = await oneSpace(trx, spaceId);
     const typeIds = await resolveTags(trx, projectId, [input], () => '');
     const columns = spaceColumns(input);
-    await updateVersioned(trx, 'spaces', { id: spaceId, project_id: projectId }, version, { ...columns, unit_origin: carriedOrigin(stored.unit_origin, { ...stored }, columns) }, userId, 'This space');
+    await updateVersioned(
+      trx,
+      'spaces',
+      { id: spaceId, project_id: projectId },
+      version,
+      { ...columns, unit_origin: carriedOrigin(stored.unit_origin, { ...stored }, columns) },
+      userId,
+      'This space',
+    );
     await writeChildren(trx, spaceId, childRows(spaceId, input, typeIds));
     const after = await oneSpace(trx, spaceId);
-    await recordDesignChange(trx, { userId, projectId, action: 'update', entity: 'space', entityId: spaceId, name: after.name, before, after });
+    await recordDesignChange(trx, {
+      userId,
+      projectId,
+      action: 'update',
+      entity: 'space',
+      entityId: spaceId,
+      name: after.name,
+      before,
+      after,
+    });
     await touchProject(trx, projectId);
     return after;
   });
@@ -582,7 +790,10 @@ export async function setControlOnSpaces(
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     const ids = targets.map((target) => target.id);
-    const stored = await trx('spaces').where({ project_id: projectId }).whereIn('id', ids).select<{ id: string; name: string; version: number }[]>('id', 'name', 'version');
+    const stored = await trx('spaces')
+      .where({ project_id: projectId })
+      .whereIn('id', ids)
+      .select<{ id: string; name: string; version: number }[]>('id', 'name', 'version');
     if (stored.length !== new Set(ids).size) throw new NotFound('Some of these spaces no longer exist. Reload and choose again.');
     const wanted = new Map(targets.map((target) => [target.id, target.version]));
     const stale = stored.filter((row) => wanted.get(row.id) !== row.version);
@@ -591,18 +802,40 @@ export async function setControlOnSpaces(
       const staleIds = new Set(stale.map((row) => row.id));
       const nameOf = new Map(stale.map((row) => [row.id, row.name]));
       // One detail per changed space, at its place in the request, so a client can name each one.
-      const details = targets.flatMap((target, index) => (staleIds.has(target.id) ? [{ path: `spaces.${index}`, message: `“${nameOf.get(target.id)}” changed since you read it.` }] : []));
-      throw new Conflict(`${names.length} of these spaces changed since you read them (${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}). Reload and apply the control again.`, details);
+      const details = targets.flatMap((target, index) =>
+        staleIds.has(target.id) ? [{ path: `spaces.${index}`, message: `“${nameOf.get(target.id)}” changed since you read it.` }] : [],
+      );
+      throw new Conflict(
+        `${names.length} of these spaces changed since you read them (${names.slice(0, 5).join(', ')}${names.length > 5 ? ', …' : ''}). Reload and apply the control again.`,
+        details,
+      );
     }
     const before = await spaceRecords(trx, await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position'));
     await trx('space_controls').whereIn('space_id', ids).where({ strategy: control.strategy }).delete();
-    await trx.batchInsert('space_controls', ids.map((spaceId) => controlRow(spaceId, control)), 1000).transacting(trx);
-    await trx('spaces').whereIn('id', ids).update({ version: trx.raw('version + 1'), updated_at: trx.fn.now(), updated_by: userId });
+    await trx
+      .batchInsert(
+        'space_controls',
+        ids.map((spaceId) => controlRow(spaceId, control)),
+        1000,
+      )
+      .transacting(trx);
+    await trx('spaces')
+      .whereIn('id', ids)
+      .update({ version: trx.raw('version + 1'), updated_at: trx.fn.now(), updated_by: userId });
     const after = await spaceRecords(trx, await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position'));
     const earlier = new Map(before.map((space) => [space.id, space]));
     await recordDesignChanges(
       trx,
-      after.map((space) => ({ userId, projectId, action: 'update', entity: 'space', entityId: space.id, name: space.name, before: earlier.get(space.id), after: space })),
+      after.map((space) => ({
+        userId,
+        projectId,
+        action: 'update',
+        entity: 'space',
+        entityId: space.id,
+        name: space.name,
+        before: earlier.get(space.id),
+        after: space,
+      })),
     );
     await touchProject(trx, projectId);
     return after;
@@ -657,7 +890,9 @@ function exteriorColumns(input: ExteriorApplicationInput): Record<string, unknow
 }
 
 export async function listExteriorApplications(db: Knex, projectId: string): Promise<ExteriorApplicationRecord[]> {
-  const rows: ExteriorRow[] = await withUpdaterName(db, 'exterior_applications').where('t.project_id', projectId).orderBy([{ column: 't.position' }, { column: 't.created_at' }]);
+  const rows: ExteriorRow[] = await withUpdaterName(db, 'exterior_applications')
+    .where('t.project_id', projectId)
+    .orderBy([{ column: 't.position' }, { column: 't.created_at' }]);
   return rows.map(exteriorRecord);
 }
 
@@ -670,24 +905,51 @@ async function assertApplicationFree(trx: Knex, projectId: string, key: string, 
   const query = trx('exterior_applications').where({ project_id: projectId, application_key: key });
   if (exceptId) query.whereNot({ id: exceptId });
   if (await query.first('id')) {
-    throw new Conflict('This exterior application is already on the project; change its quantity and watts there instead.', [{ path: 'key', message: 'Each application appears once.' }]);
+    throw new Conflict('This exterior application is already on the project; change its quantity and watts there instead.', [
+      { path: 'key', message: 'Each application appears once.' },
+    ]);
   }
 }
 
-export async function createExteriorApplication(db: Database, projectId: string, input: ExteriorApplicationInput, userId: string): Promise<ExteriorApplicationRecord> {
+export async function createExteriorApplication(
+  db: Database,
+  projectId: string,
+  input: ExteriorApplicationInput,
+  userId: string,
+): Promise<ExteriorApplicationRecord> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     await assertApplicationFree(trx, projectId, input.key);
-    const { max } = (await trx('exterior_applications').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? { max: null };
-    const [row] = await trx('exterior_applications').insert({ project_id: projectId, position: (max ?? -1) + 1, ...exteriorColumns(input), updated_by: userId }).returning<{ id: string }[]>('id');
+    const { max } = (await trx('exterior_applications')
+      .where({ project_id: projectId })
+      .max<{ max: number | null }>('position as max')
+      .first()) ?? { max: null };
+    const [row] = await trx('exterior_applications')
+      .insert({ project_id: projectId, position: (max ?? -1) + 1, ...exteriorColumns(input), updated_by: userId })
+      .returning<{ id: string }[]>('id');
     const created = await oneExterior(trx, row!.id);
-    await recordDesignChange(trx, { userId, projectId, action: 'create', entity: 'exterior-application', entityId: created.id, name: created.description || created.key, after: created });
+    await recordDesignChange(trx, {
+      userId,
+      projectId,
+      action: 'create',
+      entity: 'exterior-application',
+      entityId: created.id,
+      name: created.description || created.key,
+      after: created,
+    });
     await touchProject(trx, projectId);
     return created;
   });
 }
 
-export async function replaceExteriorApplication(db: Database, projectId: string, id: string, version: number, input: ExteriorApplicationInput, userId: string): Promise<ExteriorApplicationRecord> {
+export async function replaceExteriorApplication(
+  db: Database,
+  projectId: string,
+  id: string,
+  version: number,
+  input: ExteriorApplicationInput,
+  userId: string,
+): Promise<ExteriorApplicationRecord> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first<ExteriorRow | undefined>();
@@ -696,22 +958,53 @@ export async function replaceExteriorApplication(db: Database, projectId: string
     await assertApplicationFree(trx, projectId, input.key, id);
     const columns = exteriorColumns(input);
     const origin = stored.application_key === input.key ? carriedOrigin(stored.unit_origin, { ...stored }, columns) : null;
-    await updateVersioned(trx, 'exterior_applications', { id, project_id: projectId }, version, { ...columns, unit_origin: origin }, userId, 'This exterior application');
+    await updateVersioned(
+      trx,
+      'exterior_applications',
+      { id, project_id: projectId },
+      version,
+      { ...columns, unit_origin: origin },
+      userId,
+      'This exterior application',
+    );
     const after = await oneExterior(trx, id);
-    await recordDesignChange(trx, { userId, projectId, action: 'update', entity: 'exterior-application', entityId: id, name: after.description || after.key, before, after });
+    await recordDesignChange(trx, {
+      userId,
+      projectId,
+      action: 'update',
+      entity: 'exterior-application',
+      entityId: id,
+      name: after.description || after.key,
+      before,
+      after,
+    });
     await touchProject(trx, projectId);
     return after;
   });
 }
 
-export async function deleteExteriorApplication(db: Database, projectId: string, id: string, version: number, userId: string): Promise<void> {
+export async function deleteExteriorApplication(
+  db: Database,
+  projectId: string,
+  id: string,
+  version: number,
+  userId: string,
+): Promise<void> {
   await db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first<ExteriorRow | undefined>();
     if (!stored) throw new NotFound('This exterior application does not exist.');
     const before = exteriorRecord(stored);
     await deleteVersioned(trx, 'exterior_applications', { id, project_id: projectId }, version, 'This exterior application');
-    await recordDesignChange(trx, { userId, projectId, action: 'delete', entity: 'exterior-application', entityId: id, name: before.description || before.key, before });
+    await recordDesignChange(trx, {
+      userId,
+      projectId,
+      action: 'delete',
+      entity: 'exterior-application',
+      entityId: id,
+      name: before.description || before.key,
+      before,
+    });
     await touchProject(trx, projectId);
   });
 }
@@ -738,7 +1031,13 @@ function withoutStamp(record: Record<string, unknown>): Record<string, unknown> 
  * {@link restoreDays} days, with the id, values and (for a space) the position and children it
  * had. It comes back at version 1 of its new life; the history records the restore.
  */
-export async function restoreDeleted(db: Database, projectId: string, entity: DesignEntity, entityId: string, userId: string): Promise<SpaceRecord | LuminaireTypeRecord | ExteriorApplicationRecord> {
+export async function restoreDeleted(
+  db: Database,
+  projectId: string,
+  entity: DesignEntity,
+  entityId: string,
+  userId: string,
+): Promise<SpaceRecord | LuminaireTypeRecord | ExteriorApplicationRecord> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
     const entry = await trx('audit_log')
@@ -750,13 +1049,23 @@ export async function restoreDeleted(db: Database, projectId: string, entity: De
       throw new NotFound('There is nothing deleted here to restore.');
     }
     if (Date.now() - entry.at.getTime() > restoreDays * 86_400_000) {
-      throw new NotRestorable(`“${entry.detail.name}” was deleted more than ${restoreDays} days ago and can no longer be restored; add it again instead.`);
+      throw new NotRestorable(
+        `“${entry.detail.name}” was deleted more than ${restoreDays} days ago and can no longer be restored; add it again instead.`,
+      );
     }
     const fields = withoutStamp(entry.detail.before);
     let restored: SpaceRecord | LuminaireTypeRecord | ExteriorApplicationRecord;
     if (entity === 'space') {
-      const parsed = spaceInputSchema.safeParse({ ...fields, luminaires: ((fields['luminaires'] as Record<string, unknown>[] | undefined) ?? []).map(({ luminaireTypeId: _type, ...group }) => group) });
-      if (!parsed.success) throw new NotRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
+      const parsed = spaceInputSchema.safeParse({
+        ...fields,
+        luminaires: ((fields['luminaires'] as Record<string, unknown>[] | undefined) ?? []).map(
+          ({ luminaireTypeId: _type, ...group }) => group,
+        ),
+      });
+      if (!parsed.success)
+        throw new NotRestorable(
+          `“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`,
+        );
       const typeIds = await resolveTags(trx, projectId, [parsed.data], () => '').catch(() => {
         throw new NotRestorable(`“${entry.detail.name}” counted luminaire types that no longer exist; restore or add them first.`);
       });
@@ -768,19 +1077,48 @@ export async function restoreDeleted(db: Database, projectId: string, entity: De
       restored = await oneSpace(trx, entityId);
     } else if (entity === 'luminaire-type') {
       const parsed = luminaireTypeInputSchema.safeParse(fields);
-      if (!parsed.success) throw new NotRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
+      if (!parsed.success)
+        throw new NotRestorable(
+          `“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`,
+        );
       await assertTagFree(trx, projectId, parsed.data.tag);
-      await trx('luminaire_types').insert({ id: entityId, project_id: projectId, ...luminaireTypeColumns(parsed.data), updated_by: userId });
+      await trx('luminaire_types').insert({
+        id: entityId,
+        project_id: projectId,
+        ...luminaireTypeColumns(parsed.data),
+        updated_by: userId,
+      });
       restored = await oneLuminaireType(trx, entityId);
     } else {
       const parsed = exteriorApplicationInputSchema.safeParse(fields);
-      if (!parsed.success) throw new NotRestorable(`“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`);
+      if (!parsed.success)
+        throw new NotRestorable(
+          `“${entry.detail.name}” holds values that are no longer accepted, so it cannot be restored; add it again instead.`,
+        );
       await assertApplicationFree(trx, projectId, parsed.data.key);
-      const { max } = (await trx('exterior_applications').where({ project_id: projectId }).max<{ max: number | null }>('position as max').first()) ?? { max: null };
-      await trx('exterior_applications').insert({ id: entityId, project_id: projectId, position: (max ?? -1) + 1, ...exteriorColumns(parsed.data), updated_by: userId });
+      const { max } = (await trx('exterior_applications')
+        .where({ project_id: projectId })
+        .max<{ max: number | null }>('position as max')
+        .first()) ?? { max: null };
+      await trx('exterior_applications').insert({
+        id: entityId,
+        project_id: projectId,
+        position: (max ?? -1) + 1,
+        ...exteriorColumns(parsed.data),
+        updated_by: userId,
+      });
       restored = await oneExterior(trx, entityId);
     }
-    await recordDesignChange(trx, { userId, projectId, action: 'restore', entity, entityId, name: entry.detail.name, after: restored, restoredFrom: entry.id });
+    await recordDesignChange(trx, {
+      userId,
+      projectId,
+      action: 'restore',
+      entity,
+      entityId,
+      name: entry.detail.name,
+      after: restored,
+      restoredFrom: entry.id,
+    });
     await touchProject(trx, projectId);
     return restored;
   });
@@ -811,7 +1149,12 @@ function auditEntry(change: DesignChange) {
     action: change.action,
     entity: change.entity,
     entityId: change.entityId,
-    detail: { name, ...(before === undefined ? {} : { before }), ...(after === undefined ? {} : { after }), ...(restoredFrom ? { restoredFrom } : {}) },
+    detail: {
+      name,
+      ...(before === undefined ? {} : { before }),
+      ...(after === undefined ? {} : { after }),
+      ...(restoredFrom ? { restoredFrom } : {}),
+    },
   };
 }
 

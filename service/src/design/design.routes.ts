@@ -38,11 +38,23 @@ import {
   spaceWriteSchema,
   versionQuerySchema,
 } from './design.schema.js';
-import { createAllowanceClaim, deleteAllowanceClaim, listAllowanceClaims, replaceAllowanceClaim, restoreAllowanceClaim } from './allowance-claims.repository.js';
+import {
+  createAllowanceClaim,
+  deleteAllowanceClaim,
+  listAllowanceClaims,
+  replaceAllowanceClaim,
+  restoreAllowanceClaim,
+} from './allowance-claims.repository.js';
 import { listImportAliases, saveImportAliases } from './import-aliases.repository.js';
 import { keepVerdict } from '../evaluation/evaluation.service.js';
 import { projectDocument } from './project-document.js';
-import { assertAliasesFitEdition, assertAllowanceFitsEdition, assertControlFitsEdition, assertExteriorApplicationFitsEdition, assertSpacesFitEdition } from './edition-checks.js';
+import {
+  assertAliasesFitEdition,
+  assertAllowanceFitsEdition,
+  assertControlFitsEdition,
+  assertExteriorApplicationFitsEdition,
+  assertSpacesFitEdition,
+} from './edition-checks.js';
 
 /** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
 export function designRouter(db: Database): Router {
@@ -65,15 +77,25 @@ export function designRouter(db: Database): Router {
     res.json(await listLuminaireTypes(db, projectId(req)));
   });
   router.post('/luminaire-types', edit, async (req, res) => {
-    res.status(201).json(await changed(req, await createLuminaireType(db, projectId(req), parse(luminaireTypeInputSchema, req.body), userId(req))));
+    res
+      .status(201)
+      .json(await changed(req, await createLuminaireType(db, projectId(req), parse(luminaireTypeInputSchema, req.body), userId(req))));
   });
   router.put('/luminaire-types/:typeId', edit, async (req, res) => {
     const { version, ...input } = parse(luminaireTypeWriteSchema, req.body);
-    res.json(await changed(req, await replaceLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, input, userId(req))));
+    res.json(
+      await changed(
+        req,
+        await replaceLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, input, userId(req)),
+      ),
+    );
   });
   router.delete('/luminaire-types/:typeId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await changed(req, await deleteLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, userId(req)));
+    await changed(
+      req,
+      await deleteLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, userId(req)),
+    );
     res.status(204).end();
   });
 
@@ -110,15 +132,23 @@ export function designRouter(db: Database): Router {
   router.put('/spaces/:spaceId', edit, async (req, res) => {
     const { version, ...input } = parse(spaceWriteSchema, req.body);
     await assertSpacesFitEdition(db, projectId(req), [input], true);
-    res.json(await changed(req, await replaceSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'), version, input, userId(req))));
+    res.json(
+      await changed(req, await replaceSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'), version, input, userId(req))),
+    );
   });
   router.patch('/spaces/:spaceId', edit, async (req, res) => {
     // Only the fields the body names change; the rest (children included) stay as stored.
     const { version } = parse(spacePatchSchema, req.body);
     const current = await getSpace(db, projectId(req), idParam(req.params['spaceId'], 'This space'));
     const { id: _id, position: _position, version: _version, updatedAt: _at, updatedBy: _by, ...stored } = current;
-    const named = Object.fromEntries(Object.entries(req.body as Record<string, unknown>).filter(([field]) => field in spaceInputSchema.shape));
-    const merged = parse(spaceInputSchema, { ...stored, luminaires: stored.luminaires.map(({ luminaireTypeId: _type, ...group }) => group), ...named });
+    const named = Object.fromEntries(
+      Object.entries(req.body as Record<string, unknown>).filter(([field]) => field in spaceInputSchema.shape),
+    );
+    const merged = parse(spaceInputSchema, {
+      ...stored,
+      luminaires: stored.luminaires.map(({ luminaireTypeId: _type, ...group }) => group),
+      ...named,
+    });
     await assertSpacesFitEdition(db, projectId(req), [merged], true);
     res.json(await changed(req, await replaceSpace(db, projectId(req), current.id, version, merged, userId(req))));
   });
@@ -139,11 +169,32 @@ export function designRouter(db: Database): Router {
   router.put('/exterior-applications/:applicationId', edit, async (req, res) => {
     const { version, ...input } = parse(exteriorApplicationWriteSchema, req.body);
     await assertExteriorApplicationFitsEdition(db, projectId(req), input);
-    res.json(await changed(req, await replaceExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, input, userId(req))));
+    res.json(
+      await changed(
+        req,
+        await replaceExteriorApplication(
+          db,
+          projectId(req),
+          idParam(req.params['applicationId'], 'This exterior application'),
+          version,
+          input,
+          userId(req),
+        ),
+      ),
+    );
   });
   router.delete('/exterior-applications/:applicationId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await changed(req, await deleteExteriorApplication(db, projectId(req), idParam(req.params['applicationId'], 'This exterior application'), version, userId(req)));
+    await changed(
+      req,
+      await deleteExteriorApplication(
+        db,
+        projectId(req),
+        idParam(req.params['applicationId'], 'This exterior application'),
+        version,
+        userId(req),
+      ),
+    );
     res.status(204).end();
   });
 
@@ -158,7 +209,12 @@ export function designRouter(db: Database): Router {
   router.put('/additional-allowances/:claimId', edit, async (req, res) => {
     const { version, ...input } = parse(allowanceClaimWriteSchema, req.body);
     await assertAllowanceFitsEdition(db, projectId(req), input);
-    res.json(await changed(req, await replaceAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), version, input, userId(req))));
+    res.json(
+      await changed(
+        req,
+        await replaceAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), version, input, userId(req)),
+      ),
+    );
   });
   router.delete('/additional-allowances/:claimId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
@@ -168,16 +224,42 @@ export function designRouter(db: Database): Router {
 
   // Undo of a delete, from the snackbar or the History page: the thing comes back with its id.
   router.post('/spaces/:spaceId/restore', edit, async (req, res) => {
-    res.status(201).json(await changed(req, await restoreDeleted(db, projectId(req), 'space', idParam(req.params['spaceId'], 'This space'), userId(req))));
+    res
+      .status(201)
+      .json(
+        await changed(req, await restoreDeleted(db, projectId(req), 'space', idParam(req.params['spaceId'], 'This space'), userId(req))),
+      );
   });
   router.post('/luminaire-types/:typeId/restore', edit, async (req, res) => {
-    res.status(201).json(await changed(req, await restoreDeleted(db, projectId(req), 'luminaire-type', idParam(req.params['typeId'], 'This luminaire type'), userId(req))));
+    res
+      .status(201)
+      .json(
+        await changed(
+          req,
+          await restoreDeleted(db, projectId(req), 'luminaire-type', idParam(req.params['typeId'], 'This luminaire type'), userId(req)),
+        ),
+      );
   });
   router.post('/exterior-applications/:applicationId/restore', edit, async (req, res) => {
-    res.status(201).json(await changed(req, await restoreDeleted(db, projectId(req), 'exterior-application', idParam(req.params['applicationId'], 'This exterior application'), userId(req))));
+    res
+      .status(201)
+      .json(
+        await changed(
+          req,
+          await restoreDeleted(
+            db,
+            projectId(req),
+            'exterior-application',
+            idParam(req.params['applicationId'], 'This exterior application'),
+            userId(req),
+          ),
+        ),
+      );
   });
   router.post('/additional-allowances/:claimId/restore', edit, async (req, res) => {
-    res.status(201).json(await changed(req, await restoreAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), userId(req))));
+    res
+      .status(201)
+      .json(await changed(req, await restoreAllowanceClaim(db, projectId(req), idParam(req.params['claimId'], 'This claim'), userId(req))));
   });
 
   return router;
@@ -190,7 +272,9 @@ function importKey(req: Request): ImportKey | undefined {
   const key = req.get('idempotency-key');
   if (key === undefined) return undefined;
   if (!importKeyPattern.test(key)) {
-    throw AppError.badRequest('The Idempotency-Key header must be 1 to 200 visible ASCII characters.', [{ path: 'Idempotency-Key', message: 'Not a usable key.' }]);
+    throw AppError.badRequest('The Idempotency-Key header must be 1 to 200 visible ASCII characters.', [
+      { path: 'Idempotency-Key', message: 'Not a usable key.' },
+    ]);
   }
   return { key, requestHash: requestDigest(req.body) };
 }

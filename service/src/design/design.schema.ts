@@ -24,7 +24,10 @@ export const luminaireTypeWriteSchema = luminaireTypeInputSchema.extend({ versio
 
 /** An import: its spaces, and the luminaire types their counts name that the project does not have yet (created with them). */
 export const bulkSpacesSchema = z.object({
-  spaces: z.array(spaceInputSchema).min(1, 'Send at least one space.').max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
+  spaces: z
+    .array(spaceInputSchema)
+    .min(1, 'Send at least one space.')
+    .max(documentLimits.spaces, listLimit(documentLimits.spaces, 'spaces in one project')),
   luminaireTypes: z
     .array(luminaireTypeInputSchema)
     .max(documentLimits.luminaireTypes, listLimit(documentLimits.luminaireTypes, 'luminaire types in one project'))
@@ -32,13 +35,20 @@ export const bulkSpacesSchema = z.object({
     .superRefine((types, ctx) => {
       const seen = new Set<string>();
       types.forEach((type, index) => {
-        if (seen.has(type.tag)) ctx.addIssue({ code: 'custom', path: [index, 'tag'], message: `The tag "${type.tag}" is on an earlier type of this import too.` });
+        if (seen.has(type.tag))
+          ctx.addIssue({
+            code: 'custom',
+            path: [index, 'tag'],
+            message: `The tag "${type.tag}" is on an earlier type of this import too.`,
+          });
         seen.add(type.tag);
       });
     }),
 });
 
-export const exteriorApplicationInputSchema = exteriorApplicationEntrySchema.extend({ description: textField(textLimits.description).default('') });
+export const exteriorApplicationInputSchema = exteriorApplicationEntrySchema.extend({
+  description: textField(textLimits.description).default(''),
+});
 export const exteriorApplicationWriteSchema = exteriorApplicationInputSchema.extend({ version });
 
 /** The same control recorded on many spaces: each with the version its writer read. */
@@ -53,7 +63,13 @@ export const spaceControlsSchema = z.object({
 const typeKey = textField(textLimits.key, { required: true });
 export const importAliasesSchema = z.object({
   aliases: z
-    .array(z.object({ name: textField(textLimits.name, { required: true }), spaceType: typeKey.nullable().default(null), buildingAreaType: typeKey.nullable().default(null) }))
+    .array(
+      z.object({
+        name: textField(textLimits.name, { required: true }),
+        spaceType: typeKey.nullable().default(null),
+        buildingAreaType: typeKey.nullable().default(null),
+      }),
+    )
     .max(1000, listLimit(1000, 'names in one step')),
 });
 

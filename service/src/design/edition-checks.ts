@@ -12,8 +12,20 @@ import type { ExteriorApplicationInput, LuminaireTypeInput, SpaceInput } from '.
  * openings, defined luminaire tags), so a bad key is refused when it is typed, not later.
  * `single` reports paths relative to the one space (`spaceType`), otherwise `spaces.N.spaceType`.
  */
-export async function assertSpacesFitEdition(db: Database, projectId: string, spaces: SpaceInput[], single: boolean, newTypes: readonly LuminaireTypeInput[] = []): Promise<void> {
-  const project = await db('projects').where({ id: projectId }).first<{ edition_id: string | null; method: 'building-area' | 'space-by-space' | null; units: 'ip' | 'si' } | undefined>('edition_id', 'method', 'units');
+export async function assertSpacesFitEdition(
+  db: Database,
+  projectId: string,
+  spaces: SpaceInput[],
+  single: boolean,
+  newTypes: readonly LuminaireTypeInput[] = [],
+): Promise<void> {
+  const project = await db('projects')
+    .where({ id: projectId })
+    .first<{ edition_id: string | null; method: 'building-area' | 'space-by-space' | null; units: 'ip' | 'si' } | undefined>(
+      'edition_id',
+      'method',
+      'units',
+    );
   if (!project?.edition_id || !project.method) return;
   const edition = await loadEditionData(db, project.edition_id);
   if (!edition) return;
@@ -25,9 +37,22 @@ export async function assertSpacesFitEdition(db: Database, projectId: string, sp
       edition: project.edition_id,
       method: project.method,
       units: project.units,
-      luminaireTypes: types.map(({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts }) => ({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts })),
+      luminaireTypes: types.map(({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts }) => ({
+        tag,
+        description,
+        inputWatts,
+        use,
+        exemptReason,
+        basis,
+        length,
+        limitWatts,
+      })),
       // The building area method's control space type is kept when the project uses the other method, unchecked until it is used.
-      spaces: spaces.map((space, index) => ({ ...space, ...(project.method === 'space-by-space' ? { controlSpaceType: undefined } : {}), id: `space-${index}` })),
+      spaces: spaces.map((space, index) => ({
+        ...space,
+        ...(project.method === 'space-by-space' ? { controlSpaceType: undefined } : {}),
+        id: `space-${index}`,
+      })),
     },
     edition,
   );
@@ -44,14 +69,22 @@ export async function assertSpacesFitEdition(db: Database, projectId: string, sp
  * lighting zone adds that): an unknown key would make the project impossible to evaluate. An exempt
  * part needs its reason from the edition's list, and is at most the installed watts.
  */
-export async function assertExteriorApplicationFitsEdition(db: Database, projectId: string, input: ExteriorApplicationInput): Promise<void> {
+export async function assertExteriorApplicationFitsEdition(
+  db: Database,
+  projectId: string,
+  input: ExteriorApplicationInput,
+): Promise<void> {
   const edition = await projectEdition(db, projectId);
   const application = edition.exteriorApplications.find((candidate) => candidate.key === input.key);
   if (!application) {
-    throw new Refused('This exterior application is not one of the project’s code edition.', [{ path: 'key', message: 'Choose an application from the edition’s list.' }]);
+    throw new Refused('This exterior application is not one of the project’s code edition.', [
+      { path: 'key', message: 'Choose an application from the edition’s list.' },
+    ]);
   }
   if (application.isBaseSiteAllowance) {
-    throw new Refused('The base site allowance comes with the lighting zone; it is not entered as an application.', [{ path: 'key', message: 'Choose another application.' }]);
+    throw new Refused('The base site allowance comes with the lighting zone; it is not entered as an application.', [
+      { path: 'key', message: 'Choose another application.' },
+    ]);
   }
   const problems = exteriorExemptionProblems(input, edition);
   if (problems.length > 0) throw new Refused('The exempt lighting is not complete.', problems);
@@ -60,7 +93,10 @@ export async function assertExteriorApplicationFitsEdition(db: Database, project
 async function projectEdition(db: Database, projectId: string): Promise<EditionData> {
   const project = await db('projects').where({ id: projectId }).first<{ edition_id: string | null } | undefined>('edition_id');
   const edition = project?.edition_id ? await loadEditionData(db, project.edition_id) : undefined;
-  if (!edition) throw new Refused('Choose the code edition in the set-up first.', [{ path: 'edition', message: 'The project has no code edition yet.' }]);
+  if (!edition)
+    throw new Refused('Choose the code edition in the set-up first.', [
+      { path: 'edition', message: 'The project has no code edition yet.' },
+    ]);
   return edition;
 }
 
@@ -68,21 +104,37 @@ async function projectEdition(db: Database, projectId: string): Promise<EditionD
 export async function assertControlFitsEdition(db: Database, projectId: string, control: SpaceInput['controls'][number]): Promise<void> {
   const edition = await projectEdition(db, projectId);
   if (!edition.controlStrategies.some((candidate) => candidate.key === control.strategy)) {
-    throw new Refused('This control is not one of the project’s code edition.', [{ path: 'control.strategy', message: 'Choose a control from the edition’s list.' }]);
+    throw new Refused('This control is not one of the project’s code edition.', [
+      { path: 'control.strategy', message: 'Choose a control from the edition’s list.' },
+    ]);
   }
   const problems = exceptionProblems(control);
-  if (problems.length > 0) throw new Refused('The exception claimed is not complete.', problems.map((problem) => ({ path: `control.${problem.path}`, message: problem.message })));
+  if (problems.length > 0)
+    throw new Refused(
+      'The exception claimed is not complete.',
+      problems.map((problem) => ({ path: `control.${problem.path}`, message: problem.message })),
+    );
 }
 
 /** Remembered import names must point at types the edition has. */
-export async function assertAliasesFitEdition(db: Database, projectId: string, aliases: { spaceType: string | null; buildingAreaType: string | null }[]): Promise<void> {
+export async function assertAliasesFitEdition(
+  db: Database,
+  projectId: string,
+  aliases: { spaceType: string | null; buildingAreaType: string | null }[],
+): Promise<void> {
   const edition = await projectEdition(db, projectId);
   const spaceTypes = new Set(edition.spaceTypes.map((type) => type.key));
   const areaTypes = new Set(edition.buildingAreaTypes.map((type) => type.key));
   const details = aliases.flatMap((alias, index) => [
-    ...(alias.spaceType !== null && !spaceTypes.has(alias.spaceType) ? [{ path: `aliases.${index}.spaceType`, message: 'Not a space type of the project’s edition.' }] : []),
-    ...(alias.buildingAreaType !== null && !areaTypes.has(alias.buildingAreaType) ? [{ path: `aliases.${index}.buildingAreaType`, message: 'Not a building area type of the project’s edition.' }] : []),
-    ...(alias.spaceType === null && alias.buildingAreaType === null ? [{ path: `aliases.${index}`, message: 'Match the name to a space type or a building area type.' }] : []),
+    ...(alias.spaceType !== null && !spaceTypes.has(alias.spaceType)
+      ? [{ path: `aliases.${index}.spaceType`, message: 'Not a space type of the project’s edition.' }]
+      : []),
+    ...(alias.buildingAreaType !== null && !areaTypes.has(alias.buildingAreaType)
+      ? [{ path: `aliases.${index}.buildingAreaType`, message: 'Not a building area type of the project’s edition.' }]
+      : []),
+    ...(alias.spaceType === null && alias.buildingAreaType === null
+      ? [{ path: `aliases.${index}`, message: 'Match the name to a space type or a building area type.' }]
+      : []),
   ]);
   if (details.length > 0) throw new Refused('Some matches do not fit the project’s code edition.', details);
 }
@@ -91,20 +143,32 @@ export async function assertAliasesFitEdition(db: Database, projectId: string, a
  * An additional-allowance claim: one of the edition's allowances, under the space-by-space method;
  * a retail display claim on a space whose type is the sales area (90.1 §9.6.2(b), IECC C405.3.2.2.1).
  */
-export async function assertAllowanceFitsEdition(db: Database, projectId: string, input: { spaceId: string; allowance: string }): Promise<void> {
+export async function assertAllowanceFitsEdition(
+  db: Database,
+  projectId: string,
+  input: { spaceId: string; allowance: string },
+): Promise<void> {
   const edition = await projectEdition(db, projectId);
   const project = await db('projects').where({ id: projectId }).first<{ method: string | null }>('method');
   if (project?.method !== 'space-by-space') {
-    throw new Refused('Additional allowances are part of the space-by-space method.', [{ path: 'allowance', message: 'Switch the project to the space-by-space method first.' }]);
+    throw new Refused('Additional allowances are part of the space-by-space method.', [
+      { path: 'allowance', message: 'Switch the project to the space-by-space method first.' },
+    ]);
   }
   const allowance = edition.additionalAllowances.find((candidate) => candidate.key === input.allowance);
   if (!allowance) {
-    throw new Refused('This allowance is not one of the project’s code edition.', [{ path: 'allowance', message: 'Choose an allowance from the edition’s list.' }]);
+    throw new Refused('This allowance is not one of the project’s code edition.', [
+      { path: 'allowance', message: 'Choose an allowance from the edition’s list.' },
+    ]);
   }
   // The decorative allowance is for any space (90.1 §9.6.2(a)); only retail display needs a sales floor.
   if (allowance.kind !== 'retail-display') return;
-  const space = await db('spaces').where({ id: input.spaceId, project_id: projectId }).first<{ space_type: string | null } | undefined>('space_type');
+  const space = await db('spaces')
+    .where({ id: input.spaceId, project_id: projectId })
+    .first<{ space_type: string | null } | undefined>('space_type');
   if (space && space.space_type !== salesAreaSpaceType) {
-    throw new Refused('The display allowance is for sales floors.', [{ path: 'spaceId', message: 'Choose a space whose type is the sales area.' }]);
+    throw new Refused('The display allowance is for sales floors.', [
+      { path: 'spaceId', message: 'Choose a space whose type is the sales area.' },
+    ]);
   }
 }

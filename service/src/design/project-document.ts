@@ -16,7 +16,9 @@ interface ProjectSetupRow {
  * so evaluating it gives exactly the stored project's results.
  */
 export async function projectDocument(db: Knex, projectId: string): Promise<EvaluationDocumentInput> {
-  const project = await db('projects').where({ id: projectId }).first<ProjectSetupRow | undefined>('edition_id', 'method', 'units', 'lighting_zone', 'amendments');
+  const project = await db('projects')
+    .where({ id: projectId })
+    .first<ProjectSetupRow | undefined>('edition_id', 'method', 'units', 'lighting_zone', 'amendments');
   if (!project) throw new NotFound('No such project.');
   if (!project.edition_id || !project.method) {
     throw new Refused('Choose the code edition and compliance method in the set-up first.', [
@@ -29,29 +31,49 @@ export async function projectDocument(db: Knex, projectId: string): Promise<Eval
     listSpaces(db, projectId),
     listExteriorApplications(db, projectId),
     // A deleted claim (kept for its restore days) is no claim.
-    db('retail_display_claims').where({ project_id: projectId }).whereNull('deleted_at').orderBy('created_at').select<{ allowance_key: string; space_id: string; area: string }[]>('allowance_key', 'space_id', 'area'),
+    db('retail_display_claims')
+      .where({ project_id: projectId })
+      .whereNull('deleted_at')
+      .orderBy('created_at')
+      .select<{ allowance_key: string; space_id: string; area: string }[]>('allowance_key', 'space_id', 'area'),
   ]);
   const document: EvaluationDocumentInput = {
     edition: project.edition_id,
     method: project.method,
     units: project.units,
-    luminaireTypes: types.map(({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts }) => defined({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts })),
-    spaces: spaces.map(({ position: _position, version: _version, updatedAt: _updatedAt, updatedBy: _updatedBy, luminaires, controlSpaceType, ...space }) => ({
-      ...space,
-      // Kept for the building area method; with the space-by-space method the space type sets the controls.
-      ...(project.method === 'building-area' && controlSpaceType !== undefined ? { controlSpaceType } : {}),
-      luminaires: luminaires.map(({ luminaireTypeId: _typeId, ...group }) => group),
-    })),
+    luminaireTypes: types.map(({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts }) =>
+      defined({ tag, description, inputWatts, use, exemptReason, basis, length, limitWatts }),
+    ),
+    spaces: spaces.map(
+      ({
+        position: _position,
+        version: _version,
+        updatedAt: _updatedAt,
+        updatedBy: _updatedBy,
+        luminaires,
+        controlSpaceType,
+        ...space
+      }) => ({
+        ...space,
+        // Kept for the building area method; with the space-by-space method the space type sets the controls.
+        ...(project.method === 'building-area' && controlSpaceType !== undefined ? { controlSpaceType } : {}),
+        luminaires: luminaires.map(({ luminaireTypeId: _typeId, ...group }) => group),
+      }),
+    ),
   };
   if (project.lighting_zone !== null || exterior.length > 0) {
     document.exterior = {
       lightingZone: String(project.lighting_zone ?? ''),
-      applications: exterior.map(({ key, quantity, installedWatts, exemptWatts, exemptReason, exemptNote, controls }) => defined({ key, quantity, installedWatts, exemptWatts, exemptReason, exemptNote, controls })),
+      applications: exterior.map(({ key, quantity, installedWatts, exemptWatts, exemptReason, exemptNote, controls }) =>
+        defined({ key, quantity, installedWatts, exemptWatts, exemptReason, exemptNote, controls }),
+      ),
     };
   }
   if (project.amendments.length > 0) document.amendments = project.amendments;
   if (claims.length > 0) {
-    document.retailDisplay = { claims: claims.map((claim) => ({ allowance: claim.allowance_key, spaceId: claim.space_id, area: claim.area })) };
+    document.retailDisplay = {
+      claims: claims.map((claim) => ({ allowance: claim.allowance_key, spaceId: claim.space_id, area: claim.area })),
+    };
   }
   return document;
 }

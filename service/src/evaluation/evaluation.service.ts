@@ -44,7 +44,11 @@ export async function projectResults(db: Database, projectId: string): Promise<E
  * write cleared the old verdict, so the list shows none). A failure here is logged and leaves the
  * write as it was: the write itself succeeded.
  */
-export async function keepVerdict(db: Database, projectId: string, log?: { error: (context: object, message: string) => void }): Promise<void> {
+export async function keepVerdict(
+  db: Database,
+  projectId: string,
+  log?: { error: (context: object, message: string) => void },
+): Promise<void> {
   try {
     const designAt = await designChangedAt(db, projectId);
     if (designAt === null) return;
@@ -55,7 +59,12 @@ export async function keepVerdict(db: Database, projectId: string, log?: { error
       if (error instanceof DomainError) return;
       throw error;
     }
-    await keepResultSummary(db, projectId, designAt, { complies: result.complies, verdict: result.verdict, marginPct: result.interior.marginPct, dataVersion: result.dataVersion });
+    await keepResultSummary(db, projectId, designAt, {
+      complies: result.complies,
+      verdict: result.verdict,
+      marginPct: result.interior.marginPct,
+      dataVersion: result.dataVersion,
+    });
   } catch (err) {
     log?.error({ err, projectId }, 'the verdict for the project list was not kept');
   }
@@ -66,14 +75,29 @@ export async function keepVerdict(db: Database, projectId: string, log?: { error
  * row (GET /api/projects/:id/comparison), with the cautions of its own evaluation. The project's own
  * evaluation keeps its amendments, and every other edition's control requirements are set against it.
  */
-export async function compareProject(db: Database, projectId: string): Promise<{ current: EditionComparison; editions: EditionComparison[]; cautions: string[] }> {
+export async function compareProject(
+  db: Database,
+  projectId: string,
+): Promise<{ current: EditionComparison; editions: EditionComparison[]; cautions: string[] }> {
   const document = await projectDocument(db, projectId);
   const own = await loadEditionData(db, document.edition);
   if (!own) throw new Refused('The project’s code edition is not loaded.');
-  const others = (await Promise.all(editionIds.filter((id) => id !== own.id).map((id) => loadEditionData(db, id)))).filter((edition): edition is EditionData => edition !== undefined);
+  const others = (await Promise.all(editionIds.filter((id) => id !== own.id).map((id) => loadEditionData(db, id)))).filter(
+    (edition): edition is EditionData => edition !== undefined,
+  );
   const result = await evaluateDocument(db, document);
   return {
-    current: { edition: own.id, title: own.title, status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], controlChanges: [], problems: [], result: summary(result) },
+    current: {
+      edition: own.id,
+      title: own.title,
+      status: 'evaluated',
+      unmapped: [],
+      remapped: [],
+      controlsNotCarried: [],
+      controlChanges: [],
+      problems: [],
+      result: summary(result),
+    },
     editions: compareEditions(document, own, others, result),
     cautions: result.cautions,
   };

@@ -12,7 +12,10 @@ const errorSchema = {
       properties: {
         code: { type: 'string' },
         message: { type: 'string' },
-        details: { type: 'array', items: { type: 'object', required: ['path', 'message'], properties: { path: { type: 'string' }, message: { type: 'string' } } } },
+        details: {
+          type: 'array',
+          items: { type: 'object', required: ['path', 'message'], properties: { path: { type: 'string' }, message: { type: 'string' } } },
+        },
       },
     },
   },
@@ -23,7 +26,10 @@ function jsonSchema(schema: z.ZodType, io: 'input' | 'output'): Record<string, u
   return rest;
 }
 
-const errorResponse = (description: string) => ({ description, content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } });
+const errorResponse = (description: string) => ({
+  description,
+  content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } },
+});
 
 /** The API description of the evaluation: the project document, the result, and where they travel. */
 export function openApiDocument(): Record<string, unknown> {
@@ -50,7 +56,10 @@ export function openApiDocument(): Record<string, unknown> {
           summary: 'Evaluate a project document; nothing is stored.',
           requestBody: { required: true, content: { 'application/json': { schema: { $ref: '#/components/schemas/EvaluationDocument' } } } },
           responses: {
-            '200': { description: 'The evaluation.', content: { 'application/json': { schema: { $ref: '#/components/schemas/EvaluationResult' } } } },
+            '200': {
+              description: 'The evaluation.',
+              content: { 'application/json': { schema: { $ref: '#/components/schemas/EvaluationResult' } } },
+            },
             '400': errorResponse('The document is not valid; `details` lists the path of every problem.'),
             '401': errorResponse('Not signed in.'),
             '403': errorResponse('Missing or wrong X-CSRF-Token.'),
@@ -62,7 +71,10 @@ export function openApiDocument(): Record<string, unknown> {
           summary: 'A stored project as an evaluation document.',
           parameters: [{ name: 'projectId', in: 'path', required: true, schema: { type: 'string', format: 'uuid' } }],
           responses: {
-            '200': { description: 'The document.', content: { 'application/json': { schema: { $ref: '#/components/schemas/EvaluationDocument' } } } },
+            '200': {
+              description: 'The document.',
+              content: { 'application/json': { schema: { $ref: '#/components/schemas/EvaluationDocument' } } },
+            },
             '403': errorResponse('Not a member of the project.'),
             '404': errorResponse('No such project.'),
           },
@@ -73,7 +85,10 @@ export function openApiDocument(): Record<string, unknown> {
           summary: 'The evaluation of a stored project: the same as evaluating its document.',
           parameters: [{ name: 'projectId', in: 'path', required: true, schema: { type: 'string', format: 'uuid' } }],
           responses: {
-            '200': { description: 'The evaluation.', content: { 'application/json': { schema: { $ref: '#/components/schemas/EvaluationResult' } } } },
+            '200': {
+              description: 'The evaluation.',
+              content: { 'application/json': { schema: { $ref: '#/components/schemas/EvaluationResult' } } },
+            },
             '400': errorResponse('The stored design is incomplete; `details` lists what is missing.'),
             '403': errorResponse('Not a member of the project.'),
             '404': errorResponse('No such project.'),

@@ -68,9 +68,15 @@ export async function listHistory(db: Knex, projectId: string, filter: HistoryFi
     for (const row of later) restored.add(row.restored_from);
   }
   // A deleted claim waits in its table; one gone with its space (or past its days) cannot come back.
-  const claimIds = page.filter((row) => row.action === 'delete' && row.entity === 'additional-allowance' && row.entity_id).map((row) => row.entity_id!);
+  const claimIds = page
+    .filter((row) => row.action === 'delete' && row.entity === 'additional-allowance' && row.entity_id)
+    .map((row) => row.entity_id!);
   const waitingClaims = new Set(
-    claimIds.length > 0 ? (await db('retail_display_claims').whereIn('id', claimIds).whereNotNull('deleted_at').select<{ id: string }[]>('id')).map((row) => row.id) : [],
+    claimIds.length > 0
+      ? (await db('retail_display_claims').whereIn('id', claimIds).whereNotNull('deleted_at').select<{ id: string }[]>('id')).map(
+          (row) => row.id,
+        )
+      : [],
   );
   const oldest = Date.now() - restoreDays * 86_400_000;
   return {

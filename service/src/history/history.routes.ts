@@ -10,8 +10,13 @@ const uuid = z.string().refine(isUuid, 'Not an id.');
 const historyQuerySchema = z.object({
   spaceId: uuid.optional(),
   userId: uuid.optional(),
-  since: z.union([z.iso.datetime({ offset: true }), z.iso.date()], { message: 'Give a date (2026-12-01) or a date and time with its offset.' }).optional(),
-  before: z.string().regex(/^\d{1,18}$/, 'Not a history entry.').optional(),
+  since: z
+    .union([z.iso.datetime({ offset: true }), z.iso.date()], { message: 'Give a date (2026-12-01) or a date and time with its offset.' })
+    .optional(),
+  before: z
+    .string()
+    .regex(/^\d{1,18}$/, 'Not a history entry.')
+    .optional(),
   limit: z.coerce.number().int().min(1).max(200).default(50),
 });
 

@@ -25,12 +25,16 @@ export const notFoundHandler: RequestHandler = (req, res) => {
 /** Seconds a client should wait before trying again while the database is unreachable. */
 export const databaseRetryAfterSeconds = 5;
 
-type Failure = { status?: unknown; statusCode?: unknown; type?: unknown; code?: unknown; name?: unknown; message?: unknown; expose?: unknown } | null | undefined;
+type Failure =
+  | { status?: unknown; statusCode?: unknown; type?: unknown; code?: unknown; name?: unknown; message?: unknown; expose?: unknown }
+  | null
+  | undefined;
 
 /** Connection-level failures of PostgreSQL or of the pool in front of it: the service is up, its database is not. */
 function isDatabaseUnavailable(err: Failure): boolean {
   const code = typeof err?.code === 'string' ? err.code : '';
-  if (['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'ENOTFOUND', 'EAI_AGAIN', 'EPIPE', '57P01', '57P02', '57P03', '53300'].includes(code)) return true;
+  if (['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'ENOTFOUND', 'EAI_AGAIN', 'EPIPE', '57P01', '57P02', '57P03', '53300'].includes(code))
+    return true;
   if (code.startsWith('08')) return true;
   if (err?.name === 'KnexTimeoutError') return true;
   const message = typeof err?.message === 'string' ? err.message : '';
@@ -40,11 +44,19 @@ function isDatabaseUnavailable(err: Failure): boolean {
 /** How a request the body parser refused is answered: always a 4xx, in words. */
 function bodyParserAnswer(err: Failure, status: number): { status: number; code: string; message: string } {
   if (status === 413) return { status, code: 'payload_too_large', message: 'The request body is too large.' };
-  if (err?.type === 'charset.unsupported') return { status: 415, code: 'unsupported_charset', message: 'Send the request body as JSON in UTF-8.' };
-  if (err?.type === 'encoding.unsupported') return { status: 415, code: 'unsupported_encoding', message: 'The request body’s Content-Encoding is not supported; send it uncompressed, or as gzip, deflate or br.' };
+  if (err?.type === 'charset.unsupported')
+    return { status: 415, code: 'unsupported_charset', message: 'Send the request body as JSON in UTF-8.' };
+  if (err?.type === 'encoding.unsupported')
+    return {
+      status: 415,
+      code: 'unsupported_encoding',
+      message: 'The request body’s Content-Encoding is not supported; send it uncompressed, or as gzip, deflate or br.',
+    };
   if (err?.type === 'entity.parse.failed') return { status: 400, code: 'malformed_json', message: 'The request body is not valid JSON.' };
-  if (typeof err?.code === 'string' && err.code.startsWith('Z_')) return { status: 400, code: 'malformed_body', message: 'The compressed request body could not be read.' };
-  if (err?.type === 'request.aborted') return { status: 400, code: 'request_aborted', message: 'The request ended before its body arrived.' };
+  if (typeof err?.code === 'string' && err.code.startsWith('Z_'))
+    return { status: 400, code: 'malformed_body', message: 'The compressed request body could not be read.' };
+  if (err?.type === 'request.aborted')
+    return { status: 400, code: 'request_aborted', message: 'The request ended before its body arrived.' };
   if (status === 404) return { status, code: 'not_found', message: 'Not found.' };
   return { status, code: 'bad_request', message: 'The request could not be read.' };
 }

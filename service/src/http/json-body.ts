@@ -19,7 +19,8 @@ function failure(status: number, type: string, message: string): Error {
 /** JSON is UTF-8 (RFC 8259 §8.1): another declared charset is refused rather than decoded. */
 const utf8Only: RequestHandler = (req, _res, next) => {
   const charset = /charset\s*=\s*"?([^";\s]+)/i.exec(req.get('content-type') ?? '')?.[1]?.toLowerCase();
-  if (charset !== undefined && charset !== 'utf-8' && charset !== 'utf8') throw failure(415, 'charset.unsupported', `unsupported charset "${charset}"`);
+  if (charset !== undefined && charset !== 'utf-8' && charset !== 'utf8')
+    throw failure(415, 'charset.unsupported', `unsupported charset "${charset}"`);
   next();
 };
 

@@ -86,7 +86,12 @@ export class MailSender {
   async drain(): Promise<void> {
     const startedAt = new Date();
     try {
-      while (await sendNextDue(this.db, startedAt, (row) => this.send(row), { maxAttempts: this.settings.maxAttempts, delayAfter: (attempts) => this.delayAfter(attempts) })) {
+      while (
+        await sendNextDue(this.db, startedAt, (row) => this.send(row), {
+          maxAttempts: this.settings.maxAttempts,
+          delayAfter: (attempts) => this.delayAfter(attempts),
+        })
+      ) {
         // next one
       }
     } catch (error) {

@@ -4,7 +4,13 @@ const escapes: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;'
 const escapeHtml = (text: string): string => text.replace(/[&<>"']/g, (character) => escapes[character] ?? character);
 
 /** One message in text and HTML from the same paragraphs, with at most one link, in our words. */
-function compose(kind: OutgoingMail['kind'], to: string, subject: string, paragraphs: string[], link?: { label: string; url: string }): OutgoingMail {
+function compose(
+  kind: OutgoingMail['kind'],
+  to: string,
+  subject: string,
+  paragraphs: string[],
+  link?: { label: string; url: string },
+): OutgoingMail {
   const text = [...paragraphs, ...(link ? [`${link.label}: ${link.url}`] : []), '— Allowlight'].join('\n\n');
   const html = [
     '<!doctype html><html><body style="font-family: sans-serif; line-height: 1.5">',

@@ -82,7 +82,12 @@ function toEntry(row: OutboxRow): OutboxEntry {
 }
 
 export async function listOutbox(db: Database, limit: number): Promise<OutboxEntry[]> {
-  const rows: OutboxRow[] = await db('mail_outbox').orderBy([{ column: 'created_at', order: 'desc' }, { column: 'id', order: 'desc' }]).limit(limit);
+  const rows: OutboxRow[] = await db('mail_outbox')
+    .orderBy([
+      { column: 'created_at', order: 'desc' },
+      { column: 'id', order: 'desc' },
+    ])
+    .limit(limit);
   return rows.map(toEntry);
 }
 

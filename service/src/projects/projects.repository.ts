@@ -76,7 +76,9 @@ interface ProjectRow {
 }
 
 function permitFields(row: Record<string, unknown>): PermitFields {
-  const fields = Object.fromEntries(Object.entries(permitColumns).map(([field, column]) => [field, (row[column] as string | null | undefined) ?? null])) as PermitFields;
+  const fields = Object.fromEntries(
+    Object.entries(permitColumns).map(([field, column]) => [field, (row[column] as string | null | undefined) ?? null]),
+  ) as PermitFields;
   fields.grossFloorArea = plain(fields.grossFloorArea);
   return fields;
 }
@@ -91,18 +93,11 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
     .leftJoin('project_members as m', function joinMembership() {
       this.on('m.project_id', '=', 'p.id').andOn('m.user_id', '=', db.raw('?', [userId]));
     })
-    .select<(Pick<ProjectRow, 'id' | 'name' | 'state' | 'version' | 'updated_at' | 'edition_id' | 'method' | 'result_summary' | 'archived_at'> & { role: ProjectRole | null })[]>(
-      'p.id',
-      'p.name',
-      'p.state',
-      'p.version',
-      'p.updated_at',
-      'p.edition_id',
-      'p.method',
-      'p.result_summary',
-      'p.archived_at',
-      'm.role',
-    )
+    .select<
+      (Pick<ProjectRow, 'id' | 'name' | 'state' | 'version' | 'updated_at' | 'edition_id' | 'method' | 'result_summary' | 'archived_at'> & {
+        role: ProjectRole | null;
+      })[]
+    >('p.id', 'p.name', 'p.state', 'p.version', 'p.updated_at', 'p.edition_id', 'p.method', 'p.result_summary', 'p.archived_at', 'm.role')
     .orderBy('p.name');
   if (archived) query.whereNotNull('p.archived_at');
   else query.whereNull('p.archived_at');
@@ -182,7 +177,9 @@ function setupColumns(input: Partial<ProjectCreate>): Record<string, unknown> {
  * microseconds that `keepResultSummary` compares); null for no such project.
  */
 export async function designChangedAt(db: Database, projectId: string): Promise<string | null> {
-  const row = await db('projects').where({ id: projectId }).first<{ design_at: string } | undefined>(db.raw('updated_at::text as design_at'));
+  const row = await db('projects')
+    .where({ id: projectId })
+    .first<{ design_at: string } | undefined>(db.raw('updated_at::text as design_at'));
   return row?.design_at ?? null;
 }
 
@@ -197,15 +194,24 @@ export interface ProjectForAccess {
 }
 
 /** The project and the person's role on it (null when not a member), in one query; undefined for no such project. */
-export async function projectForMember(db: Database, projectId: string, userId: string): Promise<{ project: ProjectForAccess; role: ProjectRole | null } | undefined> {
+export async function projectForMember(
+  db: Database,
+  projectId: string,
+  userId: string,
+): Promise<{ project: ProjectForAccess; role: ProjectRole | null } | undefined> {
   const row = await db('projects as p')
     .leftJoin('project_members as m', function joinMembership() {
       this.on('m.project_id', '=', 'p.id').andOn('m.user_id', '=', db.raw('?', [userId]));
     })
     .where('p.id', projectId)
-    .first<(Pick<ProjectRow, 'id' | 'name' | 'edition_id' | 'method' | 'units' | 'archived_at'> & { role: ProjectRole | null }) | undefined>('p.id', 'p.name', 'p.edition_id', 'p.method', 'p.units', 'p.archived_at', 'm.role');
+    .first<
+      (Pick<ProjectRow, 'id' | 'name' | 'edition_id' | 'method' | 'units' | 'archived_at'> & { role: ProjectRole | null }) | undefined
+    >('p.id', 'p.name', 'p.edition_id', 'p.method', 'p.units', 'p.archived_at', 'm.role');
   if (!row) return undefined;
-  return { project: { id: row.id, name: row.name, editionId: row.edition_id, method: row.method, units: row.units, archivedAt: row.archived_at }, role: row.role };
+  return {
+    project: { id: row.id, name: row.name, editionId: row.edition_id, method: row.method, units: row.units, archivedAt: row.archived_at },
+    role: row.role,
+  };
 }
 
 /**
@@ -213,15 +219,27 @@ export async function projectForMember(db: Database, projectId: string, userId: 
  * being computed (then the stored project no longer matches and nothing is kept).
  */
 export async function keepResultSummary(db: Database, projectId: string, designAt: string, summary: ResultSummary): Promise<void> {
-  await db('projects').where({ id: projectId }).whereRaw('updated_at = ?::timestamptz', [designAt]).update({ result_summary: JSON.stringify(summary) });
+  await db('projects')
+    .where({ id: projectId })
+    .whereRaw('updated_at = ?::timestamptz', [designAt])
+    .update({ result_summary: JSON.stringify(summary) });
 }
 
 /** A new project; its creator is its engineer. */
 export async function createProject(db: Database, input: ProjectCreate, userId: string): Promise<string> {
   return db.transaction(async (trx) => {
-    const [row] = await trx('projects').insert({ ...setupColumns(input), created_by: userId, updated_by: userId }).returning<{ id: string }[]>('id');
+    const [row] = await trx('projects')
+      .insert({ ...setupColumns(input), created_by: userId, updated_by: userId })
+      .returning<{ id: string }[]>('id');
     await trx('project_members').insert({ project_id: row!.id, user_id: userId, role: 'engineer' });
-    await recordAudit(trx, { userId, projectId: row!.id, action: 'create', entity: 'project', entityId: row!.id, detail: { name: input.name, after: await setupRecord(trx, row!.id) } });
+    await recordAudit(trx, {
+      userId,
+      projectId: row!.id,
+      action: 'create',
+      entity: 'project',
+      entityId: row!.id,
+      detail: { name: input.name, after: await setupRecord(trx, row!.id) },
+    });
     return row!.id;
   });
 }
@@ -264,7 +282,15 @@ export async function updateProjectSetup(
     const before = await setupRecord(trx, projectId);
     const columns = setupColumns(fields);
     const origin = carriedOrigin(stored.unit_origin, { ...stored }, { gross_floor_area: stored.gross_floor_area, ...columns });
-    await updateVersioned(trx, 'projects', { id: projectId }, version, { ...columns, unit_origin: origin, result_summary: null }, userId, 'The project set-up');
+    await updateVersioned(
+      trx,
+      'projects',
+      { id: projectId },
+      version,
+      { ...columns, unit_origin: origin, result_summary: null },
+      userId,
+      'The project set-up',
+    );
     const conversion = alongside ? await alongside(trx) : undefined;
     const after = await setupRecord(trx, projectId);
     await recordAudit(trx, {
@@ -283,14 +309,28 @@ export async function setProjectArchived(db: Database, projectId: string, archiv
   await db.transaction(async (trx) => {
     const project = await lockProject(trx, projectId, { allowArchived: true });
     if ((project.archived_at !== null) === archived) return;
-    await trx('projects').where({ id: projectId }).update({ archived_at: archived ? trx.fn.now() : null, archived_by: archived ? userId : null });
+    await trx('projects')
+      .where({ id: projectId })
+      .update({ archived_at: archived ? trx.fn.now() : null, archived_by: archived ? userId : null });
     const { name } = await trx('projects').where({ id: projectId }).first<{ name: string }>('name');
-    await recordAudit(trx, { userId, projectId, action: archived ? 'archive' : 'unarchive', entity: 'project', entityId: projectId, detail: { name } });
+    await recordAudit(trx, {
+      userId,
+      projectId,
+      action: archived ? 'archive' : 'unarchive',
+      entity: 'project',
+      entityId: projectId,
+      detail: { name },
+    });
   });
 }
 
 /** Copies rows of one project's table to another, keeping every column but the ones given. */
-async function copyRows(trx: Knex.Transaction, table: string, rows: Record<string, unknown>[], change: (row: Record<string, unknown>) => Record<string, unknown>): Promise<void> {
+async function copyRows(
+  trx: Knex.Transaction,
+  table: string,
+  rows: Record<string, unknown>[],
+  change: (row: Record<string, unknown>) => Record<string, unknown>,
+): Promise<void> {
   if (rows.length === 0) return;
   await trx.batchInsert(table, rows.map(change), 500).transacting(trx);
 }
@@ -304,19 +344,43 @@ export async function copyProject(db: Database, sourceId: string, name: string, 
   return db.transaction(async (trx) => {
     const source = await lockProject(trx, sourceId, { allowArchived: true });
     const row = await trx('projects').where({ id: source.id }).first<Record<string, unknown>>();
-    const { id: _id, state: _state, version: _version, created_by: _createdBy, created_at: _createdAt, updated_at: _updatedAt, updated_by: _updatedBy, result_summary: _summary, archived_at: _archivedAt, archived_by: _archivedBy, ...setup } = row;
-    const [copy] = await trx('projects').insert({ ...setup, name, created_by: userId, updated_by: userId }).returning<{ id: string }[]>('id');
+    const {
+      id: _id,
+      state: _state,
+      version: _version,
+      created_by: _createdBy,
+      created_at: _createdAt,
+      updated_at: _updatedAt,
+      updated_by: _updatedBy,
+      result_summary: _summary,
+      archived_at: _archivedAt,
+      archived_by: _archivedBy,
+      ...setup
+    } = row;
+    const [copy] = await trx('projects')
+      .insert({ ...setup, name, created_by: userId, updated_by: userId })
+      .returning<{ id: string }[]>('id');
     const projectId = copy!.id;
     await trx('project_members').insert({ project_id: projectId, user_id: userId, role: 'engineer' });
 
     const stamp = { version: 1, updated_by: userId, created_at: trx.fn.now(), updated_at: trx.fn.now() };
     const types = await trx('luminaire_types').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
     const typeIds = new Map(types.map((type) => [type['id'] as string, randomUUID()]));
-    await copyRows(trx, 'luminaire_types', types, (type) => ({ ...type, ...stamp, id: typeIds.get(type['id'] as string), project_id: projectId }));
+    await copyRows(trx, 'luminaire_types', types, (type) => ({
+      ...type,
+      ...stamp,
+      id: typeIds.get(type['id'] as string),
+      project_id: projectId,
+    }));
 
     const spaces = await trx('spaces').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
     const spaceIds = new Map(spaces.map((space) => [space['id'] as string, randomUUID()]));
-    await copyRows(trx, 'spaces', spaces, (space) => ({ ...space, ...stamp, id: spaceIds.get(space['id'] as string), project_id: projectId }));
+    await copyRows(trx, 'spaces', spaces, (space) => ({
+      ...space,
+      ...stamp,
+      id: spaceIds.get(space['id'] as string),
+      project_id: projectId,
+    }));
     const sourceSpaces = trx('spaces').select('id').where({ project_id: sourceId });
     for (const table of ['space_luminaires', 'space_controls', 'space_windows', 'space_skylights']) {
       const children = await trx(table).whereIn('space_id', sourceSpaces).select<Record<string, unknown>[]>('*');
@@ -327,9 +391,24 @@ export async function copyProject(db: Database, sourceId: string, name: string, 
       }));
     }
     const exterior = await trx('exterior_applications').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
-    await copyRows(trx, 'exterior_applications', exterior, (application) => ({ ...application, ...stamp, id: randomUUID(), project_id: projectId, controls: JSON.stringify(application['controls']) }));
-    const claims = await trx('retail_display_claims').where({ project_id: sourceId }).whereNull('deleted_at').select<Record<string, unknown>[]>('*');
-    await copyRows(trx, 'retail_display_claims', claims, (claim) => ({ ...claim, ...stamp, id: randomUUID(), project_id: projectId, space_id: spaceIds.get(claim['space_id'] as string) }));
+    await copyRows(trx, 'exterior_applications', exterior, (application) => ({
+      ...application,
+      ...stamp,
+      id: randomUUID(),
+      project_id: projectId,
+      controls: JSON.stringify(application['controls']),
+    }));
+    const claims = await trx('retail_display_claims')
+      .where({ project_id: sourceId })
+      .whereNull('deleted_at')
+      .select<Record<string, unknown>[]>('*');
+    await copyRows(trx, 'retail_display_claims', claims, (claim) => ({
+      ...claim,
+      ...stamp,
+      id: randomUUID(),
+      project_id: projectId,
+      space_id: spaceIds.get(claim['space_id'] as string),
+    }));
     const aliases = await trx('project_import_aliases').where({ project_id: sourceId }).select<Record<string, unknown>[]>('*');
     await copyRows(trx, 'project_import_aliases', aliases, (alias) => ({ ...alias, project_id: projectId, updated_by: userId }));
 

@@ -9,7 +9,14 @@ import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
 import { keepVerdict } from '../evaluation/evaluation.service.js';
-import { copyProject, createProject, getProjectDetail, listProjectsFor, setProjectArchived, updateProjectSetup } from './projects.repository.js';
+import {
+  copyProject,
+  createProject,
+  getProjectDetail,
+  listProjectsFor,
+  setProjectArchived,
+  updateProjectSetup,
+} from './projects.repository.js';
 import { projectCreateSchema, projectSetupPatchSchema } from './projects.schema.js';
 import { convertProjectUnits } from './unit-conversion.js';
 
@@ -24,7 +31,9 @@ async function assertAmendments(db: Database, edition: string | null | undefined
   if (!amendments?.length) return;
   const data = edition ? await loadEditionData(db, edition) : undefined;
   const known = new Set((data?.amendments ?? []).map((amendment) => amendment.key));
-  const details = amendments.flatMap((key, index) => (known.has(key) ? [] : [{ path: `amendments.${index}`, message: 'Not an amendment of the project’s code edition.' }]));
+  const details = amendments.flatMap((key, index) =>
+    known.has(key) ? [] : [{ path: `amendments.${index}`, message: 'Not an amendment of the project’s code edition.' }],
+  );
   if (details.length) throw AppError.badRequest('Some amendments do not belong to the project’s code edition.', details);
 }
 
@@ -88,7 +97,10 @@ export function projectsRouter(db: Database): Router {
   });
 
   /** Archiving keeps everything and makes the project read-only; unarchiving brings it back. */
-  for (const [path, archived] of [['archive', true], ['unarchive', false]] as const) {
+  for (const [path, archived] of [
+    ['archive', true],
+    ['unarchive', false],
+  ] as const) {
     router.post(`/:projectId/${path}`, requireProjectAction('archive'), async (req, res) => {
       const access = projectAccess(req);
       await setProjectArchived(db, access.projectId, archived, currentSession(req).user.id);

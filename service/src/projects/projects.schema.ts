@@ -1,5 +1,14 @@
 import { z } from 'zod';
-import { decimalField, distinctKeys, maxAmendments, maxNumberLength, ranges, textField, textLimits, versionField } from '../compliance/bounds.js';
+import {
+  decimalField,
+  distinctKeys,
+  maxAmendments,
+  maxNumberLength,
+  ranges,
+  textField,
+  textLimits,
+  versionField,
+} from '../compliance/bounds.js';
 
 function boundedDecimal(min: number, max: number, what: string) {
   return z.union([z.string(), z.number()]).transform((value, ctx) => {

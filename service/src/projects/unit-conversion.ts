@@ -41,16 +41,35 @@ function convertedTables(exteriorUnits: ReadonlyMap<string, string>): ConvertedT
         work_plane_height: length(ranges.heightAboveFloor),
       },
     },
-    { table: 'space_windows',
-      label: 'windows', scope: 'space', versioned: false, columns: { width: length(ranges.length), head_height: length(ranges.height), sill_height: length(ranges.heightAboveFloor), offset: length(ranges.offset) } },
-    { table: 'space_skylights',
-      label: 'skylights', scope: 'space', versioned: false, columns: { length: length(ranges.length), width: length(ranges.length), x: length(ranges.offset), y: length(ranges.offset) } },
-    { table: 'space_controls',
-      label: 'controls', scope: 'space', versioned: false, columns: { zone_size: area } },
-    { table: 'luminaire_types',
-      label: 'luminaire types', scope: 'project', versioned: true, columns: { length: length(ranges.length) }, where: (query) => query.whereNotNull('length') },
-    { table: 'retail_display_claims',
-      label: 'sales area claims', scope: 'project', versioned: true, columns: { area } },
+    {
+      table: 'space_windows',
+      label: 'windows',
+      scope: 'space',
+      versioned: false,
+      columns: {
+        width: length(ranges.length),
+        head_height: length(ranges.height),
+        sill_height: length(ranges.heightAboveFloor),
+        offset: length(ranges.offset),
+      },
+    },
+    {
+      table: 'space_skylights',
+      label: 'skylights',
+      scope: 'space',
+      versioned: false,
+      columns: { length: length(ranges.length), width: length(ranges.length), x: length(ranges.offset), y: length(ranges.offset) },
+    },
+    { table: 'space_controls', label: 'controls', scope: 'space', versioned: false, columns: { zone_size: area } },
+    {
+      table: 'luminaire_types',
+      label: 'luminaire types',
+      scope: 'project',
+      versioned: true,
+      columns: { length: length(ranges.length) },
+      where: (query) => query.whereNotNull('length'),
+    },
+    { table: 'retail_display_claims', label: 'sales area claims', scope: 'project', versioned: true, columns: { area } },
     {
       table: 'exterior_applications',
       label: 'exterior applications',
@@ -112,11 +131,19 @@ export async function convertProjectUnits(
     for (const name of names) {
       const kind = columns[name]!.kind;
       const converted =
-        to === 'si' ? trx.raw('round(?? * ?::numeric, ?)', [name, factors[kind], maxDecimalPlaces]) : trx.raw('round(?? / ?::numeric, ?)', [name, factors[kind], ipScale]);
-      changes[name] = trx.raw(`case when unit_origin->>'units' = ? and unit_origin->'values'->>?::text is not null then (unit_origin->'values'->>?::text)::numeric else ? end`, [to, name, name, converted]);
+        to === 'si'
+          ? trx.raw('round(?? * ?::numeric, ?)', [name, factors[kind], maxDecimalPlaces])
+          : trx.raw('round(?? / ?::numeric, ?)', [name, factors[kind], ipScale]);
+      changes[name] = trx.raw(
+        `case when unit_origin->>'units' = ? and unit_origin->'values'->>?::text is not null then (unit_origin->'values'->>?::text)::numeric else ? end`,
+        [to, name, name, converted],
+      );
     }
     // The origin for the next change back: the values as they are now, except those this change restores.
-    const current = trx.raw(`jsonb_build_object(${names.map(() => '?::text, ??').join(', ')})`, names.flatMap((name) => [name, name]));
+    const current = trx.raw(
+      `jsonb_build_object(${names.map(() => '?::text, ??').join(', ')})`,
+      names.flatMap((name) => [name, name]),
+    );
     changes['unit_origin'] = trx.raw(
       `jsonb_build_object('units', ?::text, 'values', jsonb_strip_nulls(? - (case when unit_origin->>'units' = ? then array(select jsonb_object_keys(unit_origin->'values')) else '{}'::text[] end)))`,
       [from, current, to],

@@ -29,12 +29,21 @@ export async function setMember(db: Database, projectId: string, email: string, 
     await lockProject(trx, projectId, { allowArchived: true });
     const user = await trx('users').whereRaw('lower(email) = lower(?)', [email]).first('id');
     if (!user) {
-      await recordAudit(trx, { userId: actorId, projectId, action: 'add-member-no-account', entity: 'project_member', detail: { name: email, role } });
+      await recordAudit(trx, {
+        userId: actorId,
+        projectId,
+        action: 'add-member-no-account',
+        entity: 'project_member',
+        detail: { name: email, role },
+      });
       return;
     }
     const current = await trx('project_members').where({ project_id: projectId, user_id: user.id }).first('role');
     if (current?.role === 'engineer' && role !== 'engineer') await assertAnotherEngineer(trx, projectId, user.id);
-    await trx('project_members').insert({ project_id: projectId, user_id: user.id, role }).onConflict(['project_id', 'user_id']).merge({ role });
+    await trx('project_members')
+      .insert({ project_id: projectId, user_id: user.id, role })
+      .onConflict(['project_id', 'user_id'])
+      .merge({ role });
     await recordAudit(trx, {
       userId: actorId,
       projectId,
@@ -58,13 +67,23 @@ export async function removeMember(db: Database, projectId: string, userId: stri
     if (!current) throw new NotFound('That person is not on this project.');
     if (current.role === 'engineer') await assertAnotherEngineer(trx, projectId, userId);
     await trx('project_members').where({ project_id: projectId, user_id: userId }).delete();
-    await recordAudit(trx, { userId: actorId, projectId, action: 'remove-member', entity: 'project_member', entityId: userId, detail: { name: current.email, before: { role: current.role } } });
+    await recordAudit(trx, {
+      userId: actorId,
+      projectId,
+      action: 'remove-member',
+      entity: 'project_member',
+      entityId: userId,
+      detail: { name: current.email, before: { role: current.role } },
+    });
   });
   return listMembers(db, projectId);
 }
 
 /** A project always keeps an engineer of record. */
 async function assertAnotherEngineer(trx: Database, projectId: string, leavingUserId: string): Promise<void> {
-  const others = await trx('project_members').where({ project_id: projectId, role: 'engineer' }).whereNot({ user_id: leavingUserId }).first('user_id');
+  const others = await trx('project_members')
+    .where({ project_id: projectId, role: 'engineer' })
+    .whereNot({ user_id: leavingUserId })
+    .first('user_id');
   if (!others) throw new Conflict('A project keeps at least one engineer; add another engineer first.');
 }

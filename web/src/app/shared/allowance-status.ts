@@ -35,13 +35,36 @@ export interface SpaceAllowanceStatus {
   hasMargin: boolean;
 }
 
-export function spaceAllowanceStatus(space: Pick<SpaceResult, 'lighting' | 'withinAllowance' | 'marginW' | 'marginPct'>): SpaceAllowanceStatus {
+export function spaceAllowanceStatus(
+  space: Pick<SpaceResult, 'lighting' | 'withinAllowance' | 'marginW' | 'marginPct'>,
+): SpaceAllowanceStatus {
   if (space.lighting === 'none-entered') {
-    return { kind: 'none-entered', icon: 'pending', label: 'No luminaires entered', words: 'enter its luminaires, or confirm it is unlit', over: false, hasMargin: false };
+    return {
+      kind: 'none-entered',
+      icon: 'pending',
+      label: 'No luminaires entered',
+      words: 'enter its luminaires, or confirm it is unlit',
+      over: false,
+      hasMargin: false,
+    };
   }
   if (space.lighting === 'unlit') {
-    return { kind: 'unlit', icon: 'dark_mode', label: 'Unlit (confirmed)', words: 'no lighting, so no allowance is counted', over: false, hasMargin: false };
+    return {
+      kind: 'unlit',
+      icon: 'dark_mode',
+      label: 'Unlit (confirmed)',
+      words: 'no lighting, so no allowance is counted',
+      over: false,
+      hasMargin: false,
+    };
   }
   const status = allowanceStatus(space.withinAllowance, space.marginW, space.marginPct);
-  return { kind: status.within ? 'within' : 'over', icon: status.icon, label: status.label, words: status.words, over: !status.within, hasMargin: true };
+  return {
+    kind: status.within ? 'within' : 'over',
+    icon: status.icon,
+    label: status.label,
+    words: status.words,
+    over: !status.within,
+    hasMargin: true,
+  };
 }

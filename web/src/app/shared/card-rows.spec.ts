@@ -12,7 +12,10 @@ describe('the labels of a table read as cards', () => {
       </tbody>
       <tfoot><tr><th scope="row">Total</th><td colspan="2">21,591</td><td></td></tr></tfoot>`;
     labelCells(table);
-    const cells = (row: number) => Array.from(table.querySelectorAll('tbody tr, tfoot tr')[row]!.children).map((cell) => `${(cell as HTMLElement).dataset['card']}:${(cell as HTMLElement).dataset['label']}`);
+    const cells = (row: number) =>
+      Array.from(table.querySelectorAll('tbody tr, tfoot tr')[row]!.children).map(
+        (cell) => `${(cell as HTMLElement).dataset['card']}:${(cell as HTMLElement).dataset['label']}`,
+      );
     expect(cells(0)).toEqual(['title:', 'value:Area (ft²)', 'value:Allowance (W)', 'value:']);
     expect(cells(1)).toEqual(['whole:']);
     expect(cells(2)).toEqual(['title:', 'value:Area (ft²)', 'value:']);

@@ -45,8 +45,10 @@ export function siteNotation(text: string): string {
 const allowedOperators = new Set(['add', 'subtract', 'multiply', 'divide', 'unaryMinus', 'unaryPlus']);
 
 function words(kind: MeasureKind, units: UnitSystem): string {
-  if (kind === 'length') return units === 'si' ? 'a length (for example 3.2 m, or 12 ft 6 in)' : 'a length (for example 12 ft 6 in, or 3.2 m)';
-  if (kind === 'area') return units === 'si' ? 'an area (for example 12 * 8.5, or 20 m²)' : 'an area (for example 30 * 20, or 20 ft * 30 ft)';
+  if (kind === 'length')
+    return units === 'si' ? 'a length (for example 3.2 m, or 12 ft 6 in)' : 'a length (for example 12 ft 6 in, or 3.2 m)';
+  if (kind === 'area')
+    return units === 'si' ? 'an area (for example 12 * 8.5, or 20 m²)' : 'an area (for example 30 * 20, or 20 ft * 30 ft)';
   return 'a number (for example 4 * 6)';
 }
 
@@ -75,7 +77,15 @@ export async function readMeasure(text: string, kind: MeasureKind, units: UnitSy
     // Powers only of a unit, squared or cubed (ft², m³): never a number's, which could be made to cost anything.
     if (math.isOperatorNode(part) && part.fn === 'pow') {
       const [base, exponent] = part.args;
-      if (base && exponent && math.isSymbolNode(base) && math.Unit.isValuelessUnit(base.name) && math.isConstantNode(exponent) && ['2', '3'].includes(String(exponent.value))) return;
+      if (
+        base &&
+        exponent &&
+        math.isSymbolNode(base) &&
+        math.Unit.isValuelessUnit(base.name) &&
+        math.isConstantNode(exponent) &&
+        ['2', '3'].includes(String(exponent.value))
+      )
+        return;
     }
     if (math.isSymbolNode(part) && math.Unit.isValuelessUnit(part.name)) return;
     safe = false;

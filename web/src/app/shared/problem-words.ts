@@ -81,7 +81,13 @@ const luminaireFields: Record<string, string> = {
   wattageSource: 'Where the wattage comes from',
 };
 
-const exteriorFields: Record<string, string> = { key: 'Application', description: 'Description', quantity: 'Quantity', installedWatts: 'Installed watts', controls: 'Controls' };
+const exteriorFields: Record<string, string> = {
+  key: 'Application',
+  description: 'Description',
+  quantity: 'Quantity',
+  installedWatts: 'Installed watts',
+  controls: 'Controls',
+};
 
 const setupFields: Record<string, string> = {
   edition: 'Code edition',
@@ -124,7 +130,12 @@ function spaceLine(index: string, rest: string[], message: string, context: Prob
   if (field === 'windows' || field === 'skylights') {
     const kind = field === 'windows' ? 'Window' : 'Skylight';
     const detail = sub ? openingFields[sub] : undefined;
-    return { subject, field: item === undefined ? spaceFields[field]! : `${kind} ${ordinal(item)}${detail ? `: ${detail}` : ''}`, message, link: { page: 'daylight', query: query() } };
+    return {
+      subject,
+      field: item === undefined ? spaceFields[field]! : `${kind} ${ordinal(item)}${detail ? `: ${detail}` : ''}`,
+      message,
+      link: { page: 'daylight', query: query() },
+    };
   }
   if (field === 'controls') return { subject, field: controlField(rest.slice(1)), message, link: { page: 'controls', query: query() } };
   if (field === 'luminaires') {
@@ -147,7 +158,12 @@ export function problemLine(detail: ApiErrorDetail, context: ProblemContext = {}
   if (head === 'spaces' && index !== undefined && /^\d+$/.test(index)) return spaceLine(index, rest, message, context);
   if (head === 'luminaireTypes' && index !== undefined && /^\d+$/.test(index)) {
     const tag = context.luminaireTags?.[Number(index)];
-    return { subject: tag ? `Luminaire type ${tag}` : `Luminaire type ${ordinal(index)}`, field: rest[0] ? (luminaireFields[rest[0]] ?? null) : null, message, link: { page: 'luminaires' } };
+    return {
+      subject: tag ? `Luminaire type ${tag}` : `Luminaire type ${ordinal(index)}`,
+      field: rest[0] ? (luminaireFields[rest[0]] ?? null) : null,
+      message,
+      link: { page: 'luminaires' },
+    };
   }
   if (head === 'exterior' && index === 'applications' && rest[0] !== undefined) {
     const application = context.exteriorApplications?.[Number(rest[0])];

@@ -22,9 +22,18 @@ const lengthRange = new RegExp(String.raw`(${number})(\s*(?:-|–|to)\s*)(${numb
 
 /** Replacements for IP quantities written in words, in the order they must run (areas before lengths). */
 const quantities: [RegExp, (value: number) => string][] = [
-  [new RegExp(String.raw`(${number})\s*W\s*(?:/|per)\s*(?:ft²|ft2|sq\.? ?ft|square f(?:oo|ee)t)`, 'g'), (value) => `${hundredths.format(value / squareMetresPerSquareFoot)} W/m²`],
-  [new RegExp(String.raw`(${number})\s*W\s*(?:/|per)\s*(?:lin(?:ear|\.)?\s*)?(?:ft|foot|feet)\b`, 'g'), (value) => `${hundredths.format(value / metresPerFoot)} W/m`],
-  [new RegExp(String.raw`(${number})\s*(?:ft²|ft2|sq\.? ?ft|square f(?:oo|ee)t)`, 'g'), (value) => `${tenths.format(value * squareMetresPerSquareFoot)} m²`],
+  [
+    new RegExp(String.raw`(${number})\s*W\s*(?:/|per)\s*(?:ft²|ft2|sq\.? ?ft|square f(?:oo|ee)t)`, 'g'),
+    (value) => `${hundredths.format(value / squareMetresPerSquareFoot)} W/m²`,
+  ],
+  [
+    new RegExp(String.raw`(${number})\s*W\s*(?:/|per)\s*(?:lin(?:ear|\.)?\s*)?(?:ft|foot|feet)\b`, 'g'),
+    (value) => `${hundredths.format(value / metresPerFoot)} W/m`,
+  ],
+  [
+    new RegExp(String.raw`(${number})\s*(?:ft²|ft2|sq\.? ?ft|square f(?:oo|ee)t)`, 'g'),
+    (value) => `${tenths.format(value * squareMetresPerSquareFoot)} m²`,
+  ],
   [new RegExp(String.raw`(${number})\s*(?:-foot|-ft|ft|feet|foot)\b(?!²)`, 'g'), (value) => `${length(value)} m`],
 ];
 
@@ -44,7 +53,10 @@ const bareUnits: [RegExp, string][] = [
 export function inProjectUnits(text: string, units: UnitSystem): string {
   if (units === 'ip') return text;
   // A range of lengths ("25 to 50 ft") names its unit once: both ends convert, the words between stay.
-  let converted = text.replace(lengthRange, (_match, from: string, between: string, to: string) => `${length(parse(from))}${between}${length(parse(to))} m`);
+  let converted = text.replace(
+    lengthRange,
+    (_match, from: string, between: string, to: string) => `${length(parse(from))}${between}${length(parse(to))} m`,
+  );
   for (const [pattern, convert] of quantities) converted = converted.replace(pattern, (_match, value: string) => convert(parse(value)));
   for (const [pattern, replacement] of bareUnits) converted = converted.replace(pattern, replacement);
   return converted;

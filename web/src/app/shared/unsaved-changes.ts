@@ -10,4 +10,6 @@ export interface HasUnsavedChanges {
 }
 
 export const unsavedChangesGuard: CanDeactivateFn<HasUnsavedChanges> = (page) =>
-  !page?.hasUnsavedChanges?.() ? of(true) : askToDiscard(inject(MatDialog), 'You have changes on this page that are not saved. Leave it and lose them?');
+  !page?.hasUnsavedChanges?.()
+    ? of(true)
+    : askToDiscard(inject(MatDialog), 'You have changes on this page that are not saved. Leave it and lose them?');

@@ -9,8 +9,8 @@ import { MatIconModule } from '@angular/material/icon';
     @if (count() > 0) {
       <p class="unverified-count" data-testid="unverified-count">
         <mat-icon aria-hidden="true">rule</mat-icon>
-        {{ count() === 1 ? '1 value on this page rests' : count() + ' values on this page rest' }} on a source not yet confirmed against the printed code; each
-        carries a “verify” mark that names it.
+        {{ count() === 1 ? '1 value on this page rests' : count() + ' values on this page rest' }} on a source not yet confirmed against the
+        printed code; each carries a “verify” mark that names it.
       </p>
     }
   `,

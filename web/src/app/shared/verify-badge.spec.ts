@@ -17,7 +17,9 @@ describe('VerifyBadge', () => {
     await fixture.whenStable();
     const badge = (fixture.nativeElement as HTMLElement).querySelector('.badge')!;
     expect(badge.textContent).toBe('verify');
-    expect(badge.getAttribute('aria-label')).toBe('Verify: IECC 2021 Section C405.2.2 — Washington state text standing in for the model code. Override controlling at most 5,000 ft².');
+    expect(badge.getAttribute('aria-label')).toBe(
+      'Verify: IECC 2021 Section C405.2.2 — Washington state text standing in for the model code. Override controlling at most 5,000 ft².',
+    );
     fixture.componentRef.setInput('units', 'si');
     await fixture.whenStable();
     // 5,000 ft² × 0.09290304 m²/ft² (exact) = 464.5 m².

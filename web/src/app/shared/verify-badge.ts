@@ -10,7 +10,9 @@ import { inProjectUnits } from './unit-words';
 @Component({
   selector: 'al-verify-badge',
   imports: [MatTooltipModule],
-  template: `<span class="badge" tabindex="0" [matTooltip]="text()" matTooltipClass="al-source-note" [attr.aria-label]="'Verify: ' + text()">verify</span>`,
+  template: `<span class="badge" tabindex="0" [matTooltip]="text()" matTooltipClass="al-source-note" [attr.aria-label]="'Verify: ' + text()"
+    >verify</span
+  >`,
   styles: `
     .badge {
       display: inline-block;

@@ -73,7 +73,9 @@ describe('WriteFailure.save', () => {
     request.error(new ApiError(409, 'conflict', 'Someone changed this space since you opened it.'));
     expect(saving()).toBe(false);
     expect(await snackBarText()).toContain('Someone changed this space since you opened it.');
-    const reload = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-snack-bar-container button')).find((button) => button.textContent?.includes('Reload'));
+    const reload = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-snack-bar-container button')).find((button) =>
+      button.textContent?.includes('Reload'),
+    );
     reload!.click();
     expect(log).toEqual(['reload']);
   });

@@ -91,7 +91,10 @@ export function fieldErrors(error: unknown, prefix = ''): Record<string, string>
  * Puts each 400 detail beside its field (as a `server` error the field's message shows) and
  * returns the messages no field of the form takes. `controlFor` maps a service path to a control.
  */
-export function placeServerErrors(details: readonly ApiErrorDetail[], controlFor: (path: string) => AbstractControl | null): ApiErrorDetail[] {
+export function placeServerErrors(
+  details: readonly ApiErrorDetail[],
+  controlFor: (path: string) => AbstractControl | null,
+): ApiErrorDetail[] {
   const unplaced: ApiErrorDetail[] = [];
   const placed = new Set<string>();
   for (const detail of details) {

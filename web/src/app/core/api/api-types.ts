@@ -3,10 +3,28 @@
  * exact decimal string; the app formats for display and never does arithmetic on floats it sends back.
  */
 
-import type { AdditionalAllowanceKind, ComplianceMethod, EditionId, ExteriorExemptionReason, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
+import type {
+  AdditionalAllowanceKind,
+  ComplianceMethod,
+  EditionId,
+  ExteriorExemptionReason,
+  LuminaireUse,
+  RequirementCode,
+  UnitSystem,
+  ZoneKind as DaylightZoneKind,
+} from '../../../../../contract/editions';
 import type { Citation, ControlStatus, Verdict } from '../../../../../contract/result';
 
-export type { AdditionalAllowanceKind, ComplianceMethod, EditionId, ExteriorExemptionReason, LuminaireUse, RequirementCode, UnitSystem, ZoneKind as DaylightZoneKind } from '../../../../../contract/editions';
+export type {
+  AdditionalAllowanceKind,
+  ComplianceMethod,
+  EditionId,
+  ExteriorExemptionReason,
+  LuminaireUse,
+  RequirementCode,
+  UnitSystem,
+  ZoneKind as DaylightZoneKind,
+} from '../../../../../contract/editions';
 export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
 export type ProjectState = 'draft' | 'in-review' | 'returned' | 'accepted' | 'issued';
 export type WattageBasis = 'rated' | 'line-voltage-track' | 'low-voltage-track' | 'current-limited';
@@ -255,8 +273,20 @@ export type HistoryEntry = HistoryEntryBase &
   (
     | { entity: 'space'; action: DesignHistoryAction; before: SpaceRecord | null; after: SpaceRecord | null }
     | { entity: 'luminaire-type'; action: DesignHistoryAction; before: LuminaireTypeRecord | null; after: LuminaireTypeRecord | null }
-    | { entity: 'exterior-application'; action: DesignHistoryAction; before: ExteriorApplicationRecord | null; after: ExteriorApplicationRecord | null }
-    | { entity: 'project'; action: ProjectHistoryAction; before: SetupSnapshot | null; after: SetupSnapshot | null; conversion?: UnitConversion; copiedFrom?: { id: string; name: string } }
+    | {
+        entity: 'exterior-application';
+        action: DesignHistoryAction;
+        before: ExteriorApplicationRecord | null;
+        after: ExteriorApplicationRecord | null;
+      }
+    | {
+        entity: 'project';
+        action: ProjectHistoryAction;
+        before: SetupSnapshot | null;
+        after: SetupSnapshot | null;
+        conversion?: UnitConversion;
+        copiedFrom?: { id: string; name: string };
+      }
     | { entity: 'additional-allowance'; action: ClaimHistoryAction; before: AllowanceClaim | null; after: AllowanceClaim | null }
     | { entity: 'project_member'; action: TeamHistoryAction; before: { role: ProjectRole } | null; after: { role: ProjectRole } | null }
   );

@@ -33,7 +33,9 @@ describe('authGuard', () => {
 
   it('sends a visitor without a session to the sign-in page with the return URL', async () => {
     const decision = runGuard('/projects/42');
-    http.expectOne('/api/auth/me').flush({ error: { code: 'unauthorized', message: 'Sign in to continue.' } }, { status: 401, statusText: 'Unauthorized' });
+    http
+      .expectOne('/api/auth/me')
+      .flush({ error: { code: 'unauthorized', message: 'Sign in to continue.' } }, { status: 401, statusText: 'Unauthorized' });
     const tree = await decision;
     expect(tree).toBeInstanceOf(UrlTree);
     expect(TestBed.inject(Router).serializeUrl(tree as UrlTree)).toBe('/sign-in?returnUrl=%2Fprojects%2F42');
@@ -41,14 +43,19 @@ describe('authGuard', () => {
 
   it('lets a restored session through and keeps its CSRF token for later writes', async () => {
     const decision = runGuard('/');
-    http.expectOne('/api/auth/me').flush({ user: { id: 'u1', email: 'reviewer@alderbay.example', name: 'Dario Quint', isAdmin: false, roles: ['reviewer'] }, csrfToken: 'abc' });
+    http.expectOne('/api/auth/me').flush({
+      user: { id: 'u1', email: 'reviewer@alderbay.example', name: 'Dario Quint', isAdmin: false, roles: ['reviewer'] },
+      csrfToken: 'abc',
+    });
     expect(await decision).toBe(true);
     expect(TestBed.inject(CsrfToken).value()).toBe('abc');
   });
 
   it('asks the service only once per page load', async () => {
     const first = runGuard('/');
-    http.expectOne('/api/auth/me').flush({ user: { id: 'u1', email: 'a@b.example', name: 'A', isAdmin: true, roles: [] }, csrfToken: 'abc' });
+    http
+      .expectOne('/api/auth/me')
+      .flush({ user: { id: 'u1', email: 'a@b.example', name: 'A', isAdmin: true, roles: [] }, csrfToken: 'abc' });
     await first;
     expect(await runGuard('/')).toBe(true);
     http.expectNone('/api/auth/me');

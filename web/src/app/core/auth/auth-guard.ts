@@ -7,9 +7,7 @@ import { AuthStore } from './auth-store';
 export const authGuard: CanActivateFn = (_route, state) => {
   const auth = inject(AuthStore);
   const router = inject(Router);
-  return auth.restore().pipe(
-    map((user) => (user ? true : router.createUrlTree(['/sign-in'], { queryParams: { returnUrl: state.url } }))),
-  );
+  return auth.restore().pipe(map((user) => (user ? true : router.createUrlTree(['/sign-in'], { queryParams: { returnUrl: state.url } }))));
 };
 
 /** Administrators only (after `authGuard`); anyone else lands on the projects. The service checks again. */

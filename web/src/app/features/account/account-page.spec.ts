@@ -15,9 +15,33 @@ const windowsFirefox = 'Mozilla/5.0 (Windows NT 10.0; Win64; x64; rv:131.0) Geck
 const minutesAgo = (minutes: number) => new Date(Date.now() - minutes * 60_000).toISOString();
 
 // Addresses from the documentation ranges (RFC 5737).
-const thisBrowser: ActiveSession = { id: 's-here', createdAt: minutesAgo(90), lastSeenAt: minutesAgo(0), expiresAt: minutesAgo(-400), userAgent: linuxChrome, address: '192.0.2.10', current: true };
-const laptop: ActiveSession = { id: 's-laptop', createdAt: minutesAgo(300), lastSeenAt: minutesAgo(5), expiresAt: minutesAgo(-180), userAgent: windowsFirefox, address: '198.51.100.4', current: false };
-const script: ActiveSession = { id: 's-script', createdAt: minutesAgo(30), lastSeenAt: minutesAgo(30), expiresAt: minutesAgo(-450), userAgent: null, address: null, current: false };
+const thisBrowser: ActiveSession = {
+  id: 's-here',
+  createdAt: minutesAgo(90),
+  lastSeenAt: minutesAgo(0),
+  expiresAt: minutesAgo(-400),
+  userAgent: linuxChrome,
+  address: '192.0.2.10',
+  current: true,
+};
+const laptop: ActiveSession = {
+  id: 's-laptop',
+  createdAt: minutesAgo(300),
+  lastSeenAt: minutesAgo(5),
+  expiresAt: minutesAgo(-180),
+  userAgent: windowsFirefox,
+  address: '198.51.100.4',
+  current: false,
+};
+const script: ActiveSession = {
+  id: 's-script',
+  createdAt: minutesAgo(30),
+  lastSeenAt: minutesAgo(30),
+  expiresAt: minutesAgo(-450),
+  userAgent: null,
+  address: null,
+  current: false,
+};
 
 describe('AccountPage', () => {
   let fixture: ComponentFixture<AccountPage>;
@@ -27,7 +51,12 @@ describe('AccountPage', () => {
   beforeEach(async () => {
     TestBed.configureTestingModule({
       imports: [AccountPage],
-      providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting()],
+      providers: [
+        provideZonelessChangeDetection(),
+        provideRouter([]),
+        provideHttpClient(withInterceptors([apiInterceptor])),
+        provideHttpClientTesting(),
+      ],
     });
     TestBed.inject(CsrfToken).value.set('csrf-of-this-session');
     fixture = TestBed.createComponent(AccountPage);
@@ -103,21 +132,33 @@ describe('AccountPage', () => {
     await answerList([thisBrowser, laptop, script]);
     button('End session', rows()[1])!.click();
     await fixture.whenStable();
-    http.expectOne('/api/auth/sessions/s-laptop').flush({ error: { code: 'not_found', message: 'No such session.' } }, { status: 404, statusText: 'Not Found' });
+    http
+      .expectOne('/api/auth/sessions/s-laptop')
+      .flush({ error: { code: 'not_found', message: 'No such session.' } }, { status: 404, statusText: 'Not Found' });
     await fixture.whenStable();
     await answerList([thisBrowser, script]);
     expect(element.querySelector('[role="status"]')!.textContent).toContain('had already ended');
 
     button('End session', rows()[1])!.click();
     await fixture.whenStable();
-    http.expectOne('/api/auth/sessions/s-script').flush({ error: { code: 'internal', message: 'Something went wrong on our side. The error has been logged.' } }, { status: 500, statusText: 'Server Error' });
+    http
+      .expectOne('/api/auth/sessions/s-script')
+      .flush(
+        { error: { code: 'internal', message: 'Something went wrong on our side. The error has been logged.' } },
+        { status: 500, statusText: 'Server Error' },
+      );
     await fixture.whenStable();
     expect(element.querySelector('[role="alert"]')!.textContent).toContain('Something went wrong on our side.');
     expect(button('End session', rows()[1])!.disabled).toBe(false);
   });
 
   it('says so when the list cannot be loaded', async () => {
-    http.expectOne('/api/auth/sessions').flush({ error: { code: 'internal', message: 'Something went wrong on our side. The error has been logged.' } }, { status: 500, statusText: 'Server Error' });
+    http
+      .expectOne('/api/auth/sessions')
+      .flush(
+        { error: { code: 'internal', message: 'Something went wrong on our side. The error has been logged.' } },
+        { status: 500, statusText: 'Server Error' },
+      );
     await fixture.whenStable();
     expect(element.querySelector('[role="alert"]')!.textContent).toContain('Something went wrong on our side.');
     expect(rows()).toHaveLength(0);

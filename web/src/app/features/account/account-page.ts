@@ -62,7 +62,12 @@ export class AccountPage {
             const now = new Date();
             return { status: 'ready', sessions: sessions.map((session) => toView(session, now)) };
           }),
-          catchError((error: unknown) => of<SessionsState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'Your sessions could not be loaded.' })),
+          catchError((error: unknown) =>
+            of<SessionsState>({
+              status: 'failed',
+              message: error instanceof ApiError ? error.message : 'Your sessions could not be loaded.',
+            }),
+          ),
         ),
       ),
     ),
@@ -81,7 +86,9 @@ export class AccountPage {
     this.api.endSession(session.id).subscribe({
       next: () => this.ended(`The session on ${session.device} has ended. It must sign in again.`),
       error: (error: unknown) =>
-        error instanceof ApiError && error.status === 404 ? this.ended(`The session on ${session.device} had already ended.`) : this.failed(error),
+        error instanceof ApiError && error.status === 404
+          ? this.ended(`The session on ${session.device} had already ended.`)
+          : this.failed(error),
     });
   }
 

@@ -28,7 +28,14 @@ import { sameAsPassword } from '../sign-in/reset-password-page';
         </mat-form-field>
         <mat-form-field appearance="outline">
           <mat-label>New password</mat-label>
-          <input matInput type="password" formControlName="password" autocomplete="new-password" aria-describedby="new-password-rules" required />
+          <input
+            matInput
+            type="password"
+            formControlName="password"
+            autocomplete="new-password"
+            aria-describedby="new-password-rules"
+            required
+          />
           @if (form.controls.password.hasError('required')) {
             <mat-error>Enter the new password.</mat-error>
           } @else if (form.controls.password.hasError('minlength')) {
@@ -124,7 +131,8 @@ export class PasswordChange {
         this.busy.set(false);
         // Through the directive, so the emptied fields are not shown as a submitted form's errors.
         this.formDirective().resetForm();
-        const others = endedSessions === 0 ? '' : endedSessions === 1 ? ' One other session has ended.' : ` ${endedSessions} other sessions have ended.`;
+        const others =
+          endedSessions === 0 ? '' : endedSessions === 1 ? ' One other session has ended.' : ` ${endedSessions} other sessions have ended.`;
         this.done.set(`Your password is changed.${others}`);
         this.changed.emit(endedSessions);
       },

@@ -40,7 +40,14 @@ export function describeDevice(userAgent: string | null): DeviceWords {
   const text = userAgent ?? '';
   const browser = first(browsers, text);
   const system = first(systems, text);
-  const icon: DeviceIcon = system === 'iPad' ? 'tablet' : system === 'iPhone' || (system === 'Android' && /\bMobile\b/.test(text)) ? 'smartphone' : system === 'Android' ? 'tablet' : 'computer';
+  const icon: DeviceIcon =
+    system === 'iPad'
+      ? 'tablet'
+      : system === 'iPhone' || (system === 'Android' && /\bMobile\b/.test(text))
+        ? 'smartphone'
+        : system === 'Android'
+          ? 'tablet'
+          : 'computer';
   if (browser && system) return { name: `${browser} on ${system}`, icon };
   if (browser) return { name: browser, icon };
   if (system) return { name: `A browser on ${system}`, icon };

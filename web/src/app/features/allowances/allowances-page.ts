@@ -1,4 +1,15 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal, untracked, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  linkedSignal,
+  signal,
+  untracked,
+  viewChild,
+} from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -107,7 +118,10 @@ export class AllowancesPage implements HasUnsavedChanges {
       .map((claim) => ({ claim, spaceName: names.get(claim.spaceId) ?? 'A deleted space', label: this.allowanceLabel(claim.allowance) }));
   });
 
-  private readonly chosenId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
+  private readonly chosenId = linkedSignal<string | undefined, string | null>({
+    source: this.space,
+    computation: (space, previous) => space ?? previous?.value ?? null,
+  });
   protected readonly selected = computed<SpaceRecord | null>(() => {
     const floors = this.claimable();
     return floors.find((space) => space.id === this.chosenId()) ?? floors[0] ?? null;
@@ -137,8 +151,12 @@ export class AllowancesPage implements HasUnsavedChanges {
     const decorative = lines.filter((line) => line.allowance?.kind === 'decorative');
     const display = lines.filter((line) => line.allowance?.kind !== 'decorative');
     const words = [
-      ...(display.length > 0 ? [usageWords(total(display, 'claimedW'), total(display, 'usableW'), Number(result.displayW), watts, 'display')] : []),
-      ...(decorative.length > 0 ? [usageWords(total(decorative, 'claimedW'), total(decorative, 'usableW'), Number(result.decorativeW), watts, 'decorative')] : []),
+      ...(display.length > 0
+        ? [usageWords(total(display, 'claimedW'), total(display, 'usableW'), Number(result.displayW), watts, 'display')]
+        : []),
+      ...(decorative.length > 0
+        ? [usageWords(total(decorative, 'claimedW'), total(decorative, 'usableW'), Number(result.decorativeW), watts, 'decorative')]
+        : []),
     ];
     return {
       displayW: result.displayW,
@@ -157,14 +175,25 @@ export class AllowancesPage implements HasUnsavedChanges {
   private readonly formDirective = viewChild(FormGroupDirective);
   protected readonly form = new FormGroup({
     allowance: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
-    area: new FormControl('', { nonNullable: true, validators: [Validators.required, claimAreaValidator(() => this.selected(), () => this.store.units())] }),
+    area: new FormControl('', {
+      nonNullable: true,
+      validators: [
+        Validators.required,
+        claimAreaValidator(
+          () => this.selected(),
+          () => this.store.units(),
+        ),
+      ],
+    }),
   });
   /** Each allowance once per space: what is left to claim here (and the one being changed); retail display on a sales floor only. */
   protected readonly choices = computed(() => {
     const claimed = new Set(this.lines().map((line) => line.claim.allowance));
     const editing = this.editing()?.allowance;
     const onSalesFloor = this.selected()?.spaceType === salesFloorType;
-    return this.catalogue().filter((allowance) => (onSalesFloor || allowance.kind === 'decorative') && (!claimed.has(allowance.key) || allowance.key === editing));
+    return this.catalogue().filter(
+      (allowance) => (onSalesFloor || allowance.kind === 'decorative') && (!claimed.has(allowance.key) || allowance.key === editing),
+    );
   });
   /** The kind of the allowance chosen in the form, for the words of the area's hint. */
   private readonly chosenAllowance = toSignal(this.form.controls.allowance.valueChanges, { initialValue: '' });
@@ -254,13 +283,17 @@ export class AllowancesPage implements HasUnsavedChanges {
       saved: (saved) => {
         this.claims.update((claims) => {
           const list = claims ?? [];
-          return list.some((claim) => claim.id === saved.id) ? list.map((claim) => (claim.id === saved.id ? saved : claim)) : [...list, saved];
+          return list.some((claim) => claim.id === saved.id)
+            ? list.map((claim) => (claim.id === saved.id ? saved : claim))
+            : [...list, saved];
         });
         this.cancel();
         this.store.refreshResults();
       },
       invalid: (error) => {
-        const unplaced = placeServerErrors(error.details, (path) => (path === 'area' ? this.form.controls.area : path === 'allowance' ? this.form.controls.allowance : null));
+        const unplaced = placeServerErrors(error.details, (path) =>
+          path === 'area' ? this.form.controls.area : path === 'allowance' ? this.form.controls.allowance : null,
+        );
         if (unplaced.length) this.snackBar.open(unplaced.map((detail) => detail.message).join(' '), 'Dismiss', { duration: 8000 });
       },
       reload: () => this.reload(),
@@ -277,7 +310,9 @@ export class AllowancesPage implements HasUnsavedChanges {
         this.store.refreshResults();
         const words = `Claim on “${this.allowanceLabel(claim.allowance)}” removed`;
         // Undo brings the claim back with its id; one the evaluation could not take (retail display off a sales floor) is not offered back.
-        const takeable = this.spaceBySpace() && (this.kindOf(claim.allowance) === 'decorative' || this.salesFloors().some((space) => space.id === claim.spaceId));
+        const takeable =
+          this.spaceBySpace() &&
+          (this.kindOf(claim.allowance) === 'decorative' || this.salesFloors().some((space) => space.id === claim.spaceId));
         this.snackBar
           .open(words, takeable ? 'Undo' : undefined, { duration: 8000 })
           .onAction()

@@ -17,7 +17,12 @@ export interface ClaimLine {
 }
 
 /** A space's claims with the evaluation's figures for each. */
-export function claimLines(spaceId: string, claims: readonly AllowanceClaim[], catalogue: readonly AdditionalAllowanceView[], result: EvaluationResult | null): ClaimLine[] {
+export function claimLines(
+  spaceId: string,
+  claims: readonly AllowanceClaim[],
+  catalogue: readonly AdditionalAllowanceView[],
+  result: EvaluationResult | null,
+): ClaimLine[] {
   const byKey = new Map(catalogue.map((allowance) => [allowance.key, allowance]));
   const counted = result?.interior.additional?.lines ?? [];
   return claims
@@ -33,10 +38,18 @@ export function claimLines(spaceId: string, claims: readonly AllowanceClaim[], c
  * only and a decorative one decorative lighting only, so a claim larger than that lighting of the
  * space is partly unused (use it or lose it).
  */
-export function usageWords(claimedW: number, usedW: number, lightingW: number, watts: (value: number) => string, use: 'display' | 'decorative' = 'display'): string {
+export function usageWords(
+  claimedW: number,
+  usedW: number,
+  lightingW: number,
+  watts: (value: number) => string,
+  use: 'display' | 'decorative' = 'display',
+): string {
   if (claimedW === 0) return 'Nothing claimed yet.';
-  if (lightingW === 0) return `${watts(claimedW)} claimed, none used: no luminaire in this space is entered as ${use} lighting, and the allowance covers ${use} lighting only.`;
-  if (usedW < claimedW) return `${watts(usedW)} of the ${watts(claimedW)} claimed is used: the ${use} lighting here is ${watts(lightingW)}, and the allowance covers ${use} lighting only.`;
+  if (lightingW === 0)
+    return `${watts(claimedW)} claimed, none used: no luminaire in this space is entered as ${use} lighting, and the allowance covers ${use} lighting only.`;
+  if (usedW < claimedW)
+    return `${watts(usedW)} of the ${watts(claimedW)} claimed is used: the ${use} lighting here is ${watts(lightingW)}, and the allowance covers ${use} lighting only.`;
   return `All ${watts(claimedW)} claimed is used, against ${watts(lightingW)} of ${use} lighting.`;
 }
 
@@ -48,7 +61,8 @@ export function claimAreaValidator(space: () => SpaceRecord | null, units: () =>
     const problem = numberProblem(raw, ranges.area);
     if (problem) return { area: problem };
     const current = space();
-    if (current && Number(raw) > Number(current.area)) return { area: `At most ${formatArea(current.area, units())}, the space’s floor area.` };
+    if (current && Number(raw) > Number(current.area))
+      return { area: `At most ${formatArea(current.area, units())}, the space’s floor area.` };
     return null;
   };
 }

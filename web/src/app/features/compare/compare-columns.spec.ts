@@ -26,7 +26,18 @@ function summary(overrides: Partial<ComparisonSummary> = {}): ComparisonSummary 
 }
 
 function edition(overrides: Partial<EditionComparison>): EditionComparison {
-  return { edition: 'iecc-2021', title: 'International Energy Conservation Code 2021 (commercial)', status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], controlChanges: [], problems: [], result: summary(), ...overrides };
+  return {
+    edition: 'iecc-2021',
+    title: 'International Energy Conservation Code 2021 (commercial)',
+    status: 'evaluated',
+    unmapped: [],
+    remapped: [],
+    controlsNotCarried: [],
+    controlChanges: [],
+    problems: [],
+    result: summary(),
+    ...overrides,
+  };
 }
 
 const comparison: ProjectComparison = {
@@ -48,9 +59,27 @@ const comparison: ProjectComparison = {
             { control: 'Occupant sensor', requirement: 'not-required', before: 'required', status: 'not-required', section: 'C405.2.1' },
           ],
         },
-        { place: 'Stacks', exterior: false, changes: [{ control: 'Automatic full OFF', requirement: 'required', before: 'not-required', status: 'not-met', section: '9.4.1.1(h)' }] },
-        { place: 'Office 1', exterior: false, changes: [{ control: 'Automatic full OFF', requirement: 'required', before: 'not-required', status: 'met', section: '9.4.1.1(h)' }] },
-        { place: 'Office 2', exterior: false, changes: [{ control: 'Automatic full OFF', requirement: 'required', before: 'not-required', status: 'not-met', section: '9.4.1.1(h)' }] },
+        {
+          place: 'Stacks',
+          exterior: false,
+          changes: [
+            { control: 'Automatic full OFF', requirement: 'required', before: 'not-required', status: 'not-met', section: '9.4.1.1(h)' },
+          ],
+        },
+        {
+          place: 'Office 1',
+          exterior: false,
+          changes: [
+            { control: 'Automatic full OFF', requirement: 'required', before: 'not-required', status: 'met', section: '9.4.1.1(h)' },
+          ],
+        },
+        {
+          place: 'Office 2',
+          exterior: false,
+          changes: [
+            { control: 'Automatic full OFF', requirement: 'required', before: 'not-required', status: 'not-met', section: '9.4.1.1(h)' },
+          ],
+        },
       ],
       result: summary({
         verdict: 'does-not-comply',
@@ -70,7 +99,11 @@ const comparison: ProjectComparison = {
       unmapped: [{ what: 'space', name: 'Reading room', type: 'Library — In a Reading area' }],
       result: null,
     }),
-    edition({ edition: 'iecc-2024', title: 'International Energy Conservation Code 2024 (commercial)', result: summary({ unverifiedValues: 0 }) }),
+    edition({
+      edition: 'iecc-2024',
+      title: 'International Energy Conservation Code 2024 (commercial)',
+      result: summary({ unverifiedValues: 0 }),
+    }),
   ],
   cautions: ['Energy-code compliance only.'],
 };
@@ -89,12 +122,20 @@ describe('compareView', () => {
     expect(ashrae!.title).toBe('ANSI/ASHRAE/IES Standard 90.1-2019');
     expect(view.ownLabel).toBe('IECC 2021');
     // An edition the app has no short name for goes by the service's title, never its key.
-    const unknown = compareView({ ...comparison, editions: [edition({ edition: 'iecc-2027', title: 'International Energy Conservation Code 2027 (commercial)' })] }, context).columns[1]!;
+    const unknown = compareView(
+      { ...comparison, editions: [edition({ edition: 'iecc-2027', title: 'International Energy Conservation Code 2027 (commercial)' })] },
+      context,
+    ).columns[1]!;
     expect(unknown.label).toBe('International Energy Conservation Code 2027 (commercial)');
   });
 
   it('gives each margin as a figure and in words that agree: what is left, or the excess', () => {
-    expect(own!.interior).toMatchObject({ allowance: '10,250 W', installed: '8,400 W', margin: '1,850 W (18.1 %)', marginWords: 'within allowance, 1,850 W to spare' });
+    expect(own!.interior).toMatchObject({
+      allowance: '10,250 W',
+      installed: '8,400 W',
+      margin: '1,850 W (18.1 %)',
+      marginWords: 'within allowance, 1,850 W to spare',
+    });
     expect(own!.interior!.status).toEqual({ within: true, icon: 'check_circle', label: 'Within allowance' });
     expect(ashrae!.interior).toMatchObject({ margin: '-400 W (-5.0 %)', marginWords: 'over by 400 W' });
     expect(ashrae!.interior!.status).toEqual({ within: false, icon: 'warning', label: 'Over allowance' });
@@ -103,22 +144,52 @@ describe('compareView', () => {
 
   it('says why an edition’s verdict fails, and what holds one back', () => {
     expect(own!.verdict).toEqual({ icon: 'check_circle', words: 'Complies', detail: '' });
-    expect(ashrae!.verdict).toEqual({ icon: 'warning', words: 'Does not comply', detail: 'interior power over allowance; 3 control requirements not met' });
-    const incomplete = compareView({ ...comparison, editions: [edition({ result: summary({ verdict: 'incomplete', controls: { met: 3, notMet: 0, toVerify: 1 } }) })] }, context).columns[1]!;
-    expect(incomplete.verdict).toEqual({ icon: 'edit_note', words: 'Design incomplete', detail: 'no verdict yet: 1 control requirement to verify' });
+    expect(ashrae!.verdict).toEqual({
+      icon: 'warning',
+      words: 'Does not comply',
+      detail: 'interior power over allowance; 3 control requirements not met',
+    });
+    const incomplete = compareView(
+      { ...comparison, editions: [edition({ result: summary({ verdict: 'incomplete', controls: { met: 3, notMet: 0, toVerify: 1 } }) })] },
+      context,
+    ).columns[1]!;
+    expect(incomplete.verdict).toEqual({
+      icon: 'edit_note',
+      words: 'Design incomplete',
+      detail: 'no verdict yet: 1 control requirement to verify',
+    });
   });
 
   it('names the exterior applications an edition does not list, whose watts are then not counted', () => {
-    expect(ashrae!.exterior).toMatchObject({ allowance: '700 W', installed: '580 W', margin: '120 W', marginWords: 'within allowance, 120 W to spare', notCounted: ['Building facades'] });
+    expect(ashrae!.exterior).toMatchObject({
+      allowance: '700 W',
+      installed: '580 W',
+      margin: '120 W',
+      marginWords: 'within allowance, 120 W to spare',
+      notCounted: ['Building facades'],
+    });
     expect(own!.exterior!.notCounted).toEqual([]);
     expect(view.hasExterior).toBe(true);
-    const overOneApplication = compareView({ ...comparison, editions: [edition({ result: summary({ exterior: { allowanceW: '900', installedW: '850', marginW: '50', complies: false } }) })] }, context).columns[1]!;
-    expect(overOneApplication.exterior).toMatchObject({ marginWords: 'over: an application is over its own allowance', status: { within: false, label: 'Over allowance' } });
+    const overOneApplication = compareView(
+      {
+        ...comparison,
+        editions: [edition({ result: summary({ exterior: { allowanceW: '900', installedW: '850', marginW: '50', complies: false } }) })],
+      },
+      context,
+    ).columns[1]!;
+    expect(overOneApplication.exterior).toMatchObject({
+      marginWords: 'over: an application is over its own allowance',
+      status: { within: false, label: 'Over allowance' },
+    });
   });
 
   it('does not evaluate an edition where a space has no matching type, and names the space and its type in words', () => {
     expect(notMapped).toMatchObject({ evaluated: false, interior: null, exterior: null, controls: null, unverified: null });
-    expect(notMapped!.verdict).toEqual({ icon: 'block', words: 'Not evaluated', detail: '1 space has no matching space type in this edition' });
+    expect(notMapped!.verdict).toEqual({
+      icon: 'block',
+      words: 'Not evaluated',
+      detail: '1 space has no matching space type in this edition',
+    });
     expect(notMapped!.mapping).toBe('1 space has no matching space type in this edition:');
     expect(notMapped!.unmapped).toEqual(['Reading room: Library — In a Reading area']);
     expect(ashrae!.mapping).toBe('Every space maps to a space type of this edition; 1 space takes a row of another name.');
@@ -126,30 +197,69 @@ describe('compareView', () => {
   });
 
   it('counts the controls and says which controls the project’s edition recorded that this one does not carry', () => {
-    expect(ashrae!.controls).toMatchObject({ counts: '5 met · 3 not met · 1 to verify', notCarried: 'Recorded under IECC 2021, not in this edition: Occupant sensor, Time-switch control.', unchanged: null });
-    expect(own!.controls).toMatchObject({ changes: [], notCarried: null, unchanged: 'The requirements the other editions are set against.' });
+    expect(ashrae!.controls).toMatchObject({
+      counts: '5 met · 3 not met · 1 to verify',
+      notCarried: 'Recorded under IECC 2021, not in this edition: Occupant sensor, Time-switch control.',
+      unchanged: null,
+    });
+    expect(own!.controls).toMatchObject({
+      changes: [],
+      notCarried: null,
+      unchanged: 'The requirements the other editions are set against.',
+    });
     expect(iecc2024!.controls).toMatchObject({ changes: [], unchanged: 'Every requirement as under IECC 2021.' });
   });
 
   it('lists each control whose requirement changes, with every space it changes for', () => {
     expect(ashrae!.controls!.changes).toEqual([
-      { kind: 'now-required', heading: 'Becomes required', items: [{ control: 'Automatic full OFF', places: '4 spaces: all but Corridor', statuses: '3 not met, 1 met' }] },
-      { kind: 'to-verify', heading: 'Requirement to verify (the tables do not settle it)', items: [{ control: 'Local control', places: 'Reading room', statuses: '' }] },
-      { kind: 'no-longer-required', heading: 'No longer required', items: [{ control: 'Occupant sensor', places: 'Reading room', statuses: '' }] },
+      {
+        kind: 'now-required',
+        heading: 'Becomes required',
+        items: [{ control: 'Automatic full OFF', places: '4 spaces: all but Corridor', statuses: '3 not met, 1 met' }],
+      },
+      {
+        kind: 'to-verify',
+        heading: 'Requirement to verify (the tables do not settle it)',
+        items: [{ control: 'Local control', places: 'Reading room', statuses: '' }],
+      },
+      {
+        kind: 'no-longer-required',
+        heading: 'No longer required',
+        items: [{ control: 'Occupant sensor', places: 'Reading room', statuses: '' }],
+      },
     ]);
   });
 
   it('counts the unverified values with the app’s “verify” words', () => {
-    expect(own!.unverified).toEqual({ count: 4, words: '4 values to verify', note: '4 values this evaluation used rest on a source not yet confirmed against the printed code; the Results page names each one.' });
-    expect(ashrae!.unverified).toEqual({ count: 1, words: '1 value to verify', note: '1 value this evaluation used rests on a source not yet confirmed against the printed code.' });
+    expect(own!.unverified).toEqual({
+      count: 4,
+      words: '4 values to verify',
+      note: '4 values this evaluation used rest on a source not yet confirmed against the printed code; the Results page names each one.',
+    });
+    expect(ashrae!.unverified).toEqual({
+      count: 1,
+      words: '1 value to verify',
+      note: '1 value this evaluation used rests on a source not yet confirmed against the printed code.',
+    });
     expect(iecc2024!.unverified!.words).toBe('None: every value used comes from a verified published source');
   });
 
   it('speaks an SI project’s units: m², W/m², and code-table words converted', () => {
-    const si = (overrides: Partial<ComparisonSummary> = {}) => summary({ units: 'si', area: '1161.29', allowanceLpd: '8.827', installedLpd: '7.233', ...overrides });
+    const si = (overrides: Partial<ComparisonSummary> = {}) =>
+      summary({ units: 'si', area: '1161.29', allowanceLpd: '8.827', installedLpd: '7.233', ...overrides });
     const body: ProjectComparison = {
       current: edition({ result: si() }),
-      editions: [edition({ edition: 'ashrae-90.1-2019', status: 'not-mapped', result: null, unmapped: [{ what: 'space', name: 'Office 1', type: 'Office — Enclosed ≤ 250 ft²' }, { what: 'exterior application', name: 'Walkways less than 10 feet wide', type: '' }] })],
+      editions: [
+        edition({
+          edition: 'ashrae-90.1-2019',
+          status: 'not-mapped',
+          result: null,
+          unmapped: [
+            { what: 'space', name: 'Office 1', type: 'Office — Enclosed ≤ 250 ft²' },
+            { what: 'exterior application', name: 'Walkways less than 10 feet wide', type: '' },
+          ],
+        }),
+      ],
       cautions: [],
     };
     const columns = compareView(body, { ...context, units: 'si' }).columns;
@@ -162,11 +272,25 @@ describe('compareView', () => {
   it('reads the problems of a design that does not fit an edition in words, each with its space', () => {
     const body: ProjectComparison = {
       ...comparison,
-      editions: [edition({ edition: 'ashrae-90.1-2013', status: 'not-valid', result: null, problems: [{ path: 'spaces.1.ceilingHeight', message: 'Give the ceiling height: this edition’s allowance depends on it.' }] })],
+      editions: [
+        edition({
+          edition: 'ashrae-90.1-2013',
+          status: 'not-valid',
+          result: null,
+          problems: [{ path: 'spaces.1.ceilingHeight', message: 'Give the ceiling height: this edition’s allowance depends on it.' }],
+        }),
+      ],
     };
     const column = compareView(body, context).columns[1]!;
     expect(column.verdict.words).toBe('Not evaluated');
-    expect(column.problems).toEqual([{ subject: 'Stacks', field: 'Ceiling height', message: 'Give the ceiling height: this edition’s allowance depends on it.', link: { page: 'spaces', query: { space: 's2', field: 'ceilingHeight' } } }]);
+    expect(column.problems).toEqual([
+      {
+        subject: 'Stacks',
+        field: 'Ceiling height',
+        message: 'Give the ceiling height: this edition’s allowance depends on it.',
+        link: { page: 'spaces', query: { space: 's2', field: 'ceilingHeight' } },
+      },
+    ]);
   });
 });
 
@@ -182,7 +306,10 @@ describe('placesWords', () => {
 
   it('names the first spaces of a long list and counts the rest', () => {
     const many = Array.from({ length: 100 }, (_, index) => `Store ${index + 1}`);
-    const words = placesWords(many.slice(0, 60).map((place) => ({ place, exterior: false })), many);
+    const words = placesWords(
+      many.slice(0, 60).map((place) => ({ place, exterior: false })),
+      many,
+    );
     expect(words).toMatch(/^60 spaces: Store 1, Store 2, .*Store 40 and 20 more$/);
     expect(words).not.toContain('Store 41');
   });
@@ -196,8 +323,20 @@ describe('changeGroups', () => {
           place: 'Corridor',
           exterior: false,
           changes: [
-            { control: 'Bilevel lighting control', requirement: 'to-verify', before: 'required', status: 'to-verify', section: '9.4.1.1(d)' },
-            { control: 'Light-reduction control', requirement: 'not-required', before: 'to-verify', status: 'not-required', section: 'C405.2.3' },
+            {
+              control: 'Bilevel lighting control',
+              requirement: 'to-verify',
+              before: 'required',
+              status: 'to-verify',
+              section: '9.4.1.1(d)',
+            },
+            {
+              control: 'Light-reduction control',
+              requirement: 'not-required',
+              before: 'to-verify',
+              status: 'not-required',
+              section: 'C405.2.3',
+            },
           ],
         },
       ],

@@ -1,4 +1,11 @@
-import type { ComparisonSummary, ControlChange, ControlStatus, EditionComparison, ProjectComparison, UnitSystem } from '../../core/api/api-types';
+import type {
+  ComparisonSummary,
+  ControlChange,
+  ControlStatus,
+  EditionComparison,
+  ProjectComparison,
+  UnitSystem,
+} from '../../core/api/api-types';
 import { editionLabel } from '../../shared/edition-labels';
 import { formatArea, formatDensity, formatPercent, formatWatts } from '../../shared/format';
 import { problemLine, type ProblemLine } from '../../shared/problem-words';
@@ -128,7 +135,10 @@ function interiorFigures(result: ComparisonSummary): InteriorFigures {
 function exteriorFigures(exterior: NonNullable<ComparisonSummary['exterior']>, notCounted: string[]): ExteriorFigures {
   // The site's total can leave watts to spare while one nontradable application is over its own
   // allowance, which nothing else may cover: the words say so rather than "over by 0 W".
-  const words = !exterior.complies && Number(exterior.marginW) >= 0 ? 'over: an application is over its own allowance' : marginWords(exterior.complies, exterior.marginW);
+  const words =
+    !exterior.complies && Number(exterior.marginW) >= 0
+      ? 'over: an application is over its own allowance'
+      : marginWords(exterior.complies, exterior.marginW);
   return {
     allowance: formatWatts(exterior.allowanceW),
     installed: formatWatts(exterior.installedW),
@@ -144,12 +154,19 @@ function verdictOf(comparison: EditionComparison): EditionColumn['verdict'] {
   if (comparison.status === 'not-mapped' || result === null) {
     const spaces = comparison.unmapped.filter((entry) => entry.what === 'space').length;
     return comparison.status === 'not-mapped'
-      ? { icon: 'block', words: 'Not evaluated', detail: `${plural(spaces, 'space has', 'spaces have')} no matching space type in this edition` }
+      ? {
+          icon: 'block',
+          words: 'Not evaluated',
+          detail: `${plural(spaces, 'space has', 'spaces have')} no matching space type in this edition`,
+        }
       : { icon: 'block', words: 'Not evaluated', detail: 'the design does not fit this edition’s tables; the problems are listed below' };
   }
   if (result.verdict === 'complies') return { icon: 'check_circle', words: 'Complies', detail: '' };
   if (result.verdict === 'incomplete') {
-    const waiting = result.controls.toVerify > 0 ? `${plural(result.controls.toVerify, 'control requirement')} to verify` : 'a space has no luminaires entered';
+    const waiting =
+      result.controls.toVerify > 0
+        ? `${plural(result.controls.toVerify, 'control requirement')} to verify`
+        : 'a space has no luminaires entered';
     return { icon: 'edit_note', words: 'Design incomplete', detail: `no verdict yet: ${waiting}` };
   }
   const reasons = [
@@ -175,8 +192,10 @@ export function placesWords(places: readonly { place: string; exterior: boolean 
   let words = '';
   if (spaces.length === 1) words = spaces[0]!;
   else if (spaces.length > 1 && others.length === 0 && spaces.length === spaceNames.length) words = `all ${spaces.length} spaces`;
-  else if (spaces.length > 1 && others.length <= 3 && others.length < spaces.length) words = `${spaces.length} spaces: all but ${others.join(', ')}`;
-  else if (spaces.length > namedPlaces) words = `${spaces.length} spaces: ${spaces.slice(0, namedPlaces).join(', ')} and ${spaces.length - namedPlaces} more`;
+  else if (spaces.length > 1 && others.length <= 3 && others.length < spaces.length)
+    words = `${spaces.length} spaces: all but ${others.join(', ')}`;
+  else if (spaces.length > namedPlaces)
+    words = `${spaces.length} spaces: ${spaces.slice(0, namedPlaces).join(', ')} and ${spaces.length - namedPlaces} more`;
   else if (spaces.length > 1) words = `${spaces.length} spaces: ${spaces.join(', ')}`;
   return [words, ...exterior].filter(Boolean).join('; ');
 }
@@ -239,7 +258,9 @@ function column(comparison: EditionComparison, own: boolean, ownLabel: string, u
   const spaceNames = context.spaces.map((space) => space.name);
   const inUnits = (text: string) => inProjectUnits(text, units);
   const unmapped = comparison.unmapped.filter((entry) => entry.what === 'space').map((entry) => `${entry.name}: ${inUnits(entry.type)}`);
-  const exteriorNotCounted = comparison.unmapped.filter((entry) => entry.what === 'exterior application').map((entry) => inUnits(entry.name));
+  const exteriorNotCounted = comparison.unmapped
+    .filter((entry) => entry.what === 'exterior application')
+    .map((entry) => inUnits(entry.name));
   const remapped = comparison.remapped.length;
   const mapping = own
     ? 'The project’s own space types.'
@@ -262,15 +283,23 @@ function column(comparison: EditionComparison, own: boolean, ownLabel: string, u
     controls: result
       ? {
           counts: `${result.controls.met} met · ${result.controls.notMet} not met · ${result.controls.toVerify} to verify`,
-          notCarried: comparison.controlsNotCarried.length > 0 ? `Recorded under ${ownLabel}, not in this edition: ${comparison.controlsNotCarried.join(', ')}.` : null,
+          notCarried:
+            comparison.controlsNotCarried.length > 0
+              ? `Recorded under ${ownLabel}, not in this edition: ${comparison.controlsNotCarried.join(', ')}.`
+              : null,
           changes,
-          unchanged: own ? 'The requirements the other editions are set against.' : changes.length === 0 ? `Every requirement as under ${ownLabel}.` : null,
+          unchanged: own
+            ? 'The requirements the other editions are set against.'
+            : changes.length === 0
+              ? `Every requirement as under ${ownLabel}.`
+              : null,
         }
       : null,
     unverified: result
       ? {
           count: unverified,
-          words: unverified === 0 ? 'None: every value used comes from a verified published source' : `${plural(unverified, 'value')} to verify`,
+          words:
+            unverified === 0 ? 'None: every value used comes from a verified published source' : `${plural(unverified, 'value')} to verify`,
           note: `${plural(unverified, 'value')} this evaluation used ${unverified === 1 ? 'rests' : 'rest'} on a source not yet confirmed against the printed code${own ? '; the Results page names each one' : ''}.`,
         }
       : null,
@@ -290,6 +319,9 @@ export function compareView(comparison: ProjectComparison, context: CompareConte
     ownLabel,
     units,
     hasExterior: comparison.current.result?.exterior != null || comparison.editions.some((edition) => edition.result?.exterior != null),
-    columns: [column(comparison.current, true, ownLabel, units, context), ...comparison.editions.map((edition) => column(edition, false, ownLabel, units, context))],
+    columns: [
+      column(comparison.current, true, ownLabel, units, context),
+      ...comparison.editions.map((edition) => column(edition, false, ownLabel, units, context)),
+    ],
   };
 }

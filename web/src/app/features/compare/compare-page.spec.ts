@@ -10,7 +10,18 @@ import { ComparePage } from './compare-page';
 import { evaluation } from '../results/results-fixture';
 
 // An invented project and invented figures.
-const project = { id: 'p1', name: 'Harbour Pavilion', state: 'draft', role: 'reviewer', edition: 'iecc-2021', method: 'space-by-space', units: 'si', version: 3, members: [], archivedAt: null } as unknown as ProjectDetail;
+const project = {
+  id: 'p1',
+  name: 'Harbour Pavilion',
+  state: 'draft',
+  role: 'reviewer',
+  edition: 'iecc-2021',
+  method: 'space-by-space',
+  units: 'si',
+  version: 3,
+  members: [],
+  archivedAt: null,
+} as unknown as ProjectDetail;
 
 const summary: ComparisonSummary = {
   verdict: 'complies',
@@ -29,11 +40,26 @@ const summary: ComparisonSummary = {
   unverifiedValues: 2,
 };
 
-const own: EditionComparison = { edition: 'iecc-2021', title: 'International Energy Conservation Code 2021 (commercial)', status: 'evaluated', unmapped: [], remapped: [], controlsNotCarried: [], controlChanges: [], problems: [], result: summary };
+const own: EditionComparison = {
+  edition: 'iecc-2021',
+  title: 'International Energy Conservation Code 2021 (commercial)',
+  status: 'evaluated',
+  unmapped: [],
+  remapped: [],
+  controlsNotCarried: [],
+  controlChanges: [],
+  problems: [],
+  result: summary,
+};
 const body: ProjectComparison = {
   current: own,
   editions: [
-    { ...own, edition: 'ashrae-90.1-2019', title: 'ANSI/ASHRAE/IES Standard 90.1-2019', result: { ...summary, allowanceW: '8000', marginW: '-400', marginPct: '-5', interiorComplies: false, verdict: 'does-not-comply' } },
+    {
+      ...own,
+      edition: 'ashrae-90.1-2019',
+      title: 'ANSI/ASHRAE/IES Standard 90.1-2019',
+      result: { ...summary, allowanceW: '8000', marginW: '-400', marginPct: '-5', interiorComplies: false, verdict: 'does-not-comply' },
+    },
   ],
   cautions: ['Energy-code compliance only: an invented caution.'],
 };
@@ -46,7 +72,13 @@ describe('ComparePage', () => {
   beforeEach(async () => {
     TestBed.configureTestingModule({
       imports: [ComparePage],
-      providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting(), ProjectStore],
+      providers: [
+        provideZonelessChangeDetection(),
+        provideRouter([]),
+        provideHttpClient(withInterceptors([apiInterceptor])),
+        provideHttpClientTesting(),
+        ProjectStore,
+      ],
     });
     const store = TestBed.inject(ProjectStore);
     // The page compares once the project's own results are in (any result will do here).
@@ -59,7 +91,8 @@ describe('ComparePage', () => {
 
   afterEach(() => http.verify());
 
-  const text = (selector: string) => Array.from(element.querySelectorAll(selector)).map((node) => node.textContent?.replace(/\s+/g, ' ').trim());
+  const text = (selector: string) =>
+    Array.from(element.querySelectorAll(selector)).map((node) => node.textContent?.replace(/\s+/g, ' ').trim());
 
   it('lays out one column per edition, the project’s own first and marked, with its cautions', async () => {
     expect(element.textContent).toContain('Evaluating the design under every edition');
@@ -78,12 +111,16 @@ describe('ComparePage', () => {
   });
 
   it('says the editions cannot be compared while the design cannot be evaluated, and leads to Results', async () => {
-    http
-      .expectOne('/api/projects/p1/comparison')
-      .flush(
-        { error: { code: 'validation_failed', message: 'The results cannot be computed until the problems below are fixed.', details: [{ path: 'spaces.0.area', message: 'Give the floor area.' }] } },
-        { status: 400, statusText: 'Bad Request' },
-      );
+    http.expectOne('/api/projects/p1/comparison').flush(
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'The results cannot be computed until the problems below are fixed.',
+          details: [{ path: 'spaces.0.area', message: 'Give the floor area.' }],
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
     const problem = element.querySelector('[data-testid="compare-problem"]');
     expect(problem?.textContent).toContain('The editions cannot be compared yet');

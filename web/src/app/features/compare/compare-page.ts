@@ -70,7 +70,11 @@ export class ComparePage {
   protected readonly view = computed(() => {
     const state = this.state();
     if (state.status !== 'ready') return null;
-    return compareView(state.comparison, { spaces: this.store.spaces(), luminaireTags: this.store.luminaireTypes().map((type) => type.tag), units: this.store.units() });
+    return compareView(state.comparison, {
+      spaces: this.store.spaces(),
+      luminaireTags: this.store.luminaireTypes().map((type) => type.tag),
+      units: this.store.units(),
+    });
   });
   protected readonly cautions = computed(() => {
     const state = this.state();

@@ -10,13 +10,42 @@ import { ProjectStore } from '../workspace/project-store';
 import { BulkControlPanel } from './bulk-control-panel';
 
 // Invented fire station: three bunk rooms on two levels and an office.
-const project = { id: 'p1', name: 'Fire Station 4', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', units: 'si', version: 1, members: [] } as unknown as ProjectDetail;
+const project = {
+  id: 'p1',
+  name: 'Fire Station 4',
+  state: 'draft',
+  role: 'engineer',
+  edition: 'iecc-2021',
+  method: 'space-by-space',
+  units: 'si',
+  version: 1,
+  members: [],
+} as unknown as ProjectDetail;
 
 function space(id: string, name: string, level: string, spaceType: string, version = 1): SpaceRecord {
-  return { id, name, level, position: 1, area: '20', spaceType, luminaires: [], controls: [], windows: [], skylights: [], version, updatedAt: '', updatedBy: null };
+  return {
+    id,
+    name,
+    level,
+    position: 1,
+    area: '20',
+    spaceType,
+    luminaires: [],
+    controls: [],
+    windows: [],
+    skylights: [],
+    version,
+    updatedAt: '',
+    updatedBy: null,
+  };
 }
 
-const spaces = [space('b1', 'Bunk 1', 'Level 2', 'dormitory'), space('b2', 'Bunk 2', 'Level 2', 'dormitory'), space('b3', 'Bunk 3', 'Level 1', 'dormitory'), space('o1', 'Office', 'Level 1', 'office-enclosed')];
+const spaces = [
+  space('b1', 'Bunk 1', 'Level 2', 'dormitory'),
+  space('b2', 'Bunk 2', 'Level 2', 'dormitory'),
+  space('b3', 'Bunk 3', 'Level 1', 'dormitory'),
+  space('o1', 'Office', 'Level 1', 'office-enclosed'),
+];
 const spaceTypes = [
   { key: 'dormitory', label: 'Dormitory — Living quarters', verified: true },
   { key: 'office-enclosed', label: 'Office — Enclosed', verified: true },
@@ -26,7 +55,12 @@ const strategies = [
   { key: 'occupant-sensor', label: 'Occupant sensor', section: 'C405.2.1', parameters: { timeoutMinutes: '20' } },
   { key: 'time-switch', label: 'Time-switch control', section: 'C405.2.2', parameters: { zoneSizeLimitFt2: '5000' } },
   // IECC 2021 C405.2.1.2–C405.2.1.4 as the reference data holds it ([S-ed] secondary summaries): at least 50 % in warehouses and corridors.
-  { key: 'automatic-partial-off', label: 'Automatic partial OFF', section: 'C405.2.1.2–C405.2.1.4', parameters: { timeoutMinutes: '20', reductionPercent: '50' } },
+  {
+    key: 'automatic-partial-off',
+    label: 'Automatic partial OFF',
+    section: 'C405.2.1.2–C405.2.1.4',
+    parameters: { timeoutMinutes: '20', reductionPercent: '50' },
+  },
 ] as unknown as ControlStrategyView[];
 
 const result: EvaluationResult = {
@@ -56,13 +90,21 @@ describe('BulkControlPanel', () => {
   beforeEach(async () => {
     TestBed.configureTestingModule({
       imports: [BulkControlPanel],
-      providers: [provideZonelessChangeDetection(), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting(), provideRouter([]), ProjectStore],
+      providers: [
+        provideZonelessChangeDetection(),
+        provideHttpClient(withInterceptors([apiInterceptor])),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        ProjectStore,
+      ],
     });
     store = TestBed.inject(ProjectStore);
     http = TestBed.inject(HttpTestingController);
     store.seed({ project });
     store.seed({ spaces });
-    store.seed({ tables: { spaceTypes, buildingAreaTypes: [], controlStrategies: strategies, exteriorApplications: [], lightingZones: [] } });
+    store.seed({
+      tables: { spaceTypes, buildingAreaTypes: [], controlStrategies: strategies, exteriorApplications: [], lightingZones: [] },
+    });
     store.seed({ results: { status: 'ready', result } });
     fixture = TestBed.createComponent(BulkControlPanel);
     element = fixture.nativeElement as HTMLElement;
@@ -72,18 +114,26 @@ describe('BulkControlPanel', () => {
   });
 
   const checkbox = (label: string) =>
-    Array.from(element.querySelectorAll<HTMLElement>('mat-checkbox')).find((box) => box.textContent?.includes(label))!.querySelector<HTMLInputElement>('input')!;
+    Array.from(element.querySelectorAll<HTMLElement>('mat-checkbox'))
+      .find((box) => box.textContent?.includes(label))!
+      .querySelector<HTMLInputElement>('input')!;
 
   async function choose(label: string, option: string): Promise<void> {
-    const field = Array.from(element.querySelectorAll('mat-form-field')).find((entry) => entry.querySelector('mat-label')?.textContent?.trim() === label)!;
+    const field = Array.from(element.querySelectorAll('mat-form-field')).find(
+      (entry) => entry.querySelector('mat-label')?.textContent?.trim() === label,
+    )!;
     field.querySelector<HTMLElement>('mat-select')!.click();
     await fixture.whenStable();
-    Array.from(document.querySelectorAll<HTMLElement>('mat-option')).find((entry) => entry.textContent?.includes(option))!.click();
+    Array.from(document.querySelectorAll<HTMLElement>('mat-option'))
+      .find((entry) => entry.textContent?.includes(option))!
+      .click();
     await fixture.whenStable();
   }
 
   async function fill(label: string, value: string): Promise<void> {
-    const field = Array.from(element.querySelectorAll('mat-form-field')).find((entry) => entry.querySelector('mat-label')?.textContent?.trim().startsWith(label))!;
+    const field = Array.from(element.querySelectorAll('mat-form-field')).find((entry) =>
+      entry.querySelector('mat-label')?.textContent?.trim().startsWith(label),
+    )!;
     const input = field.querySelector<HTMLInputElement>('input')!;
     input.value = value;
     input.dispatchEvent(new Event('input'));
@@ -130,8 +180,12 @@ describe('BulkControlPanel', () => {
     const saved = spaces.map((entry) => ({ ...entry, version: 2, controls: [request.request.body.control] }));
     request.flush(saved);
     await fixture.whenStable();
-    expect(store.spaces().map((entry) => [entry.id, entry.version, entry.controls.length])).toEqual(spaces.map((entry) => [entry.id, 2, 1]));
-    expect(element.querySelector('[data-testid="bulk-done"]')?.textContent).toContain('“Time-switch control” recorded as provided on 4 spaces.');
+    expect(store.spaces().map((entry) => [entry.id, entry.version, entry.controls.length])).toEqual(
+      spaces.map((entry) => [entry.id, 2, 1]),
+    );
+    expect(element.querySelector('[data-testid="bulk-done"]')?.textContent).toContain(
+      '“Time-switch control” recorded as provided on 4 spaces.',
+    );
   });
 
   it('asks how far the lighting is reduced only for a control whose check reads it, bounded like the service', async () => {
@@ -180,7 +234,12 @@ describe('BulkControlPanel', () => {
     await fill('Note', 'Invented reason for the test');
     await submit();
     const request = http.expectOne('/api/projects/p1/spaces/controls');
-    expect(request.request.body.control).toEqual({ strategy: 'occupant-sensor', provided: false, exceptionReason: 'other', exceptionNote: 'Invented reason for the test' });
+    expect(request.request.body.control).toEqual({
+      strategy: 'occupant-sensor',
+      provided: false,
+      exceptionReason: 'other',
+      exceptionNote: 'Invented reason for the test',
+    });
     request.flush([{ ...spaces[0], version: 2 }]);
   });
 
@@ -197,11 +256,19 @@ describe('BulkControlPanel', () => {
     const request = http.expectOne('/api/projects/p1/spaces/controls');
     expect(request.request.body.control).toEqual({ strategy: 'time-switch', provided: false, exceptionReason: 'continuous-operation' });
     request.flush(
-      { error: { code: 'validation_failed', message: 'The exception claimed is not complete.', details: [{ path: 'control.exceptionNote', message: 'Invented refusal for the test.' }] } },
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'The exception claimed is not complete.',
+          details: [{ path: 'control.exceptionNote', message: 'Invented refusal for the test.' }],
+        },
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     await fixture.whenStable();
-    const note = Array.from(element.querySelectorAll('mat-form-field')).find((field) => field.querySelector('mat-label')?.textContent?.trim() === 'Note')!;
+    const note = Array.from(element.querySelectorAll('mat-form-field')).find(
+      (field) => field.querySelector('mat-label')?.textContent?.trim() === 'Note',
+    )!;
     expect(note.querySelector('mat-error')?.textContent?.trim()).toBe('Invented refusal for the test.');
 
     // Chosen for another control, the reason is refused beside the field before anything is sent.
@@ -215,19 +282,27 @@ describe('BulkControlPanel', () => {
     checkbox('Select all shown').click();
     await choose('Control', 'Time-switch control');
     await submit();
-    http
-      .expectOne('/api/projects/p1/spaces/controls')
-      .flush(
-        { error: { code: 'conflict', message: '1 of these spaces changed since you read them (Bunk 3). Reload and apply the control again.', details: [{ path: 'spaces.2', message: '“Bunk 3” changed since you read it.' }] } },
-        { status: 409, statusText: 'Conflict' },
-      );
+    http.expectOne('/api/projects/p1/spaces/controls').flush(
+      {
+        error: {
+          code: 'conflict',
+          message: '1 of these spaces changed since you read them (Bunk 3). Reload and apply the control again.',
+          details: [{ path: 'spaces.2', message: '“Bunk 3” changed since you read it.' }],
+        },
+      },
+      { status: 409, statusText: 'Conflict' },
+    );
     await fixture.whenStable();
     const stale = element.querySelector('[data-testid="bulk-stale"]')!;
     expect(stale.getAttribute('role')).toBe('alert');
     expect(stale.textContent).toContain('Nothing was recorded: this space was changed by someone else since you read it: Bunk 3.');
     expect(store.spaces().every((entry) => entry.version === 1)).toBe(true);
-    Array.from(stale.querySelectorAll('button')).find((button) => button.textContent?.includes('Reload'))!.click();
-    http.expectOne((entry) => entry.method === 'GET' && entry.url === '/api/projects/p1/spaces').flush(spaces.map((entry) => (entry.id === 'b3' ? { ...entry, version: 3 } : entry)));
+    Array.from(stale.querySelectorAll('button'))
+      .find((button) => button.textContent?.includes('Reload'))!
+      .click();
+    http
+      .expectOne((entry) => entry.method === 'GET' && entry.url === '/api/projects/p1/spaces')
+      .flush(spaces.map((entry) => (entry.id === 'b3' ? { ...entry, version: 3 } : entry)));
     await fixture.whenStable();
     expect(store.spaces().find((entry) => entry.id === 'b3')?.version).toBe(3);
     expect(element.querySelector('[data-testid="bulk-stale"]')).toBeNull();

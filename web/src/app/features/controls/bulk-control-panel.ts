@@ -39,7 +39,19 @@ function provisionForm(strategy: () => string) {
  */
 @Component({
   selector: 'al-bulk-control-panel',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatExpansionModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ControlFields, InUnits, ProblemList],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatExpansionModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatSelectModule,
+    ControlFields,
+    InUnits,
+    ProblemList,
+  ],
   templateUrl: './bulk-control-panel.html',
   styleUrl: './bulk-control-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -81,9 +93,18 @@ export class BulkControlPanel {
   });
   /** The types and levels the project's spaces use, for the filters. */
   protected readonly types = computed(() =>
-    [...new Map(this.choices().flatMap((choice) => (choice.typeKey ? [[choice.typeKey, choice.type] as const] : []))).entries()].sort((a, b) => a[1].localeCompare(b[1])),
+    [...new Map(this.choices().flatMap((choice) => (choice.typeKey ? [[choice.typeKey, choice.type] as const] : []))).entries()].sort(
+      (a, b) => a[1].localeCompare(b[1]),
+    ),
   );
-  protected readonly levels = computed(() => [...new Set(this.store.spaces().map((space) => space.level).filter((level): level is string => !!level))]);
+  protected readonly levels = computed(() => [
+    ...new Set(
+      this.store
+        .spaces()
+        .map((space) => space.level)
+        .filter((level): level is string => !!level),
+    ),
+  ]);
   protected readonly shown = computed(() => {
     const { type, level, text } = this.filterValue();
     const words = (text ?? '').trim().toLocaleLowerCase();
@@ -94,7 +115,9 @@ export class BulkControlPanel {
         (words === '' || `${choice.space.name} ${choice.type} ${choice.space.level ?? ''}`.toLocaleLowerCase().includes(words)),
     );
   });
-  protected readonly allShown = computed(() => this.shown().length > 0 && this.shown().every((choice) => this.selected().has(choice.space.id)));
+  protected readonly allShown = computed(
+    () => this.shown().length > 0 && this.shown().every((choice) => this.selected().has(choice.space.id)),
+  );
   protected readonly someShown = computed(() => !this.allShown() && this.shown().some((choice) => this.selected().has(choice.space.id)));
   private readonly chosenSpaces = computed(() => this.store.spaces().filter((space) => this.selected().has(space.id)));
 
@@ -103,9 +126,14 @@ export class BulkControlPanel {
     const all = this.store.tables()?.controlStrategies ?? [];
     const results = this.store.resultBySpace();
     const applied = new Set<string>([...results.values()].flatMap((result) => result.controls.map((line) => line.strategy)));
-    const listed = applied.size > 0 ? all.filter((strategy) => applied.has(strategy.key)) : all.filter((strategy) => !strategy.key.startsWith('exterior-'));
+    const listed =
+      applied.size > 0
+        ? all.filter((strategy) => applied.has(strategy.key))
+        : all.filter((strategy) => !strategy.key.startsWith('exterior-'));
     return listed.map((strategy) => {
-      const needed = this.chosenSpaces().filter((space) => results.get(space.id)?.controls.some((line) => line.strategy === strategy.key && line.status !== 'not-required')).length;
+      const needed = this.chosenSpaces().filter((space) =>
+        results.get(space.id)?.controls.some((line) => line.strategy === strategy.key && line.status !== 'not-required'),
+      ).length;
       return { view: strategy, needed };
     });
   });
@@ -113,7 +141,9 @@ export class BulkControlPanel {
   /** "Checked against the adopted code" is offered where a chosen space's requirement is still to verify. */
   protected readonly offerChecked = computed(() => {
     const results = this.store.resultBySpace();
-    return this.chosenSpaces().some((space) => results.get(space.id)?.controls.some((line) => line.strategy === this.strategyKey() && line.requirement === 'to-verify'));
+    return this.chosenSpaces().some((space) =>
+      results.get(space.id)?.controls.some((line) => line.strategy === this.strategyKey() && line.requirement === 'to-verify'),
+    );
   });
 
   constructor() {

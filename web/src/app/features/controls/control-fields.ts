@@ -36,9 +36,14 @@ export class ControlFields {
 
   protected readonly reasonLabels = exceptionReasonLabels;
   protected readonly reasons = computed(() => reasonsFor(this.strategyKey(), this.offerChecked()));
-  private readonly reason = toSignal(toObservable(this.form).pipe(switchMap((form) => form.controls.exceptionReason.valueChanges.pipe(startWith(form.controls.exceptionReason.value)))), {
-    initialValue: '' as const,
-  });
+  private readonly reason = toSignal(
+    toObservable(this.form).pipe(
+      switchMap((form) => form.controls.exceptionReason.valueChanges.pipe(startWith(form.controls.exceptionReason.value))),
+    ),
+    {
+      initialValue: '' as const,
+    },
+  );
   /** The reason chosen in words, also when the control chosen no longer offers it (the field then says why). */
   protected readonly reasonLabel = computed(() => {
     const reason = this.reason();

@@ -61,7 +61,9 @@ export function controlForm(current: ProvidedControl | undefined, strategy: () =
   const reductionRule = whenMode('provided', (control) => (reducesLighting(strategy()) ? percent(control) : null));
   const reasonRule = whenMode('exception', (control) => {
     if (control.value === '') return { required: true };
-    return control.value === 'continuous-operation' && strategy() !== 'time-switch' ? { timeSwitchOnly: 'Continuous operation frees lighting from the time switch only.' } : null;
+    return control.value === 'continuous-operation' && strategy() !== 'time-switch'
+      ? { timeSwitchOnly: 'Continuous operation frees lighting from the time switch only.' }
+      : null;
   });
   const mode: ProvisionMode = current?.provided ? 'provided' : current?.exceptionReason ? 'exception' : 'none';
   const form: ControlForm = new FormGroup({
@@ -71,7 +73,10 @@ export function controlForm(current: ProvidedControl | undefined, strategy: () =
     autoOn: new FormControl<AutoOn>(current?.autoOn ?? '', { nonNullable: true }),
     zoneSize: new FormControl(current?.zoneSize ?? '', { nonNullable: true, validators: [nonNegativeDecimal] }),
     reductionPercent: new FormControl(current?.reductionPercent ?? '', { nonNullable: true, validators: [reductionRule] }),
-    exceptionReason: new FormControl<ControlExceptionReason | ''>(current?.exceptionReason ?? '', { nonNullable: true, validators: [reasonRule] }),
+    exceptionReason: new FormControl<ControlExceptionReason | ''>(current?.exceptionReason ?? '', {
+      nonNullable: true,
+      validators: [reasonRule],
+    }),
     exceptionNote: new FormControl(current?.exceptionNote ?? '', { nonNullable: true, validators: [noteRequired] }),
   });
   const revalidate = () => {

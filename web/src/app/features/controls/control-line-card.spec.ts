@@ -20,7 +20,10 @@ describe('ControlLineCard', () => {
   });
 
   async function show(status: 'met' | 'not-met' | 'exception-claimed' | 'to-verify', canEdit = false): Promise<void> {
-    fixture.componentRef.setInput('line', controlLine({ status, met: status === 'met' ? true : status === 'not-met' ? false : null, verified: status !== 'to-verify' }));
+    fixture.componentRef.setInput(
+      'line',
+      controlLine({ status, met: status === 'met' ? true : status === 'not-met' ? false : null, verified: status !== 'to-verify' }),
+    );
     fixture.componentRef.setInput('canEdit', canEdit);
     await fixture.whenStable();
   }
@@ -45,8 +48,16 @@ describe('ControlLineCard', () => {
   });
 
   it('says how far a recorded light-reduction control reduces the lighting, and offers the field when editing', async () => {
-    fixture.componentRef.setInput('line', controlLine({ strategy: 'light-reduction', label: 'Light-reduction control', status: 'met', met: true }));
-    fixture.componentRef.setInput('provided', { strategy: 'light-reduction', provided: true, device: 'Invented dimmer', reductionPercent: '50' });
+    fixture.componentRef.setInput(
+      'line',
+      controlLine({ strategy: 'light-reduction', label: 'Light-reduction control', status: 'met', met: true }),
+    );
+    fixture.componentRef.setInput('provided', {
+      strategy: 'light-reduction',
+      provided: true,
+      device: 'Invented dimmer',
+      reductionPercent: '50',
+    });
     fixture.componentRef.setInput('canEdit', true);
     await fixture.whenStable();
     expect(element.querySelector('.recorded')?.textContent?.trim()).toBe('buildProvided: Invented dimmer; reduces by 50 %');
@@ -72,12 +83,16 @@ describe('ControlLineCard', () => {
     element.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
     await fixture.whenStable();
     expect(saved).toEqual([]);
-    expect(Array.from(element.querySelectorAll('mat-error')).map((error) => error.textContent?.trim())).toContain('Say which exception is claimed.');
+    expect(Array.from(element.querySelectorAll('mat-error')).map((error) => error.textContent?.trim())).toContain(
+      'Say which exception is claimed.',
+    );
 
     form.controls.exceptionNote.setValue('Invented note for the test');
     element.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
     await fixture.whenStable();
-    expect(saved).toEqual([{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'other', exceptionNote: 'Invented note for the test' }]);
+    expect(saved).toEqual([
+      { strategy: 'occupant-sensor', provided: false, exceptionReason: 'other', exceptionNote: 'Invented note for the test' },
+    ]);
   });
 });
 
@@ -141,7 +156,14 @@ describe('ControlLineCard exceptions', () => {
     expect(errors()).toContain('Say where in the adopted code it was checked.');
     form.controls.exceptionNote.setValue('Invented: city amendment 12-3, checked on the adopted text');
     await submit();
-    expect(saved).toEqual([{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'verified-not-required', exceptionNote: 'Invented: city amendment 12-3, checked on the adopted text' }]);
+    expect(saved).toEqual([
+      {
+        strategy: 'occupant-sensor',
+        provided: false,
+        exceptionReason: 'verified-not-required',
+        exceptionNote: 'Invented: city amendment 12-3, checked on the adopted text',
+      },
+    ]);
   });
 
   it('does not offer it where the requirement is stated', async () => {
@@ -157,7 +179,9 @@ describe('ControlLineCard exceptions', () => {
     fixture.componentInstance.refused([{ path: 'exceptionNote', message: 'Invented refusal for the test.' }], 'Some values do not fit.');
     await fixture.whenStable();
     expect(element.querySelector('form.editor')).not.toBeNull();
-    const note = Array.from(element.querySelectorAll('mat-form-field')).find((field) => field.querySelector('mat-label')?.textContent?.trim() === 'Note')!;
+    const note = Array.from(element.querySelectorAll('mat-form-field')).find(
+      (field) => field.querySelector('mat-label')?.textContent?.trim() === 'Note',
+    )!;
     expect(note.querySelector('mat-error')?.textContent?.trim()).toBe('Invented refusal for the test.');
     fixture.componentInstance.refused([], 'The space could not be saved.');
     await fixture.whenStable();
@@ -191,7 +215,11 @@ describe('control form rules', () => {
     expect(form.controls.reductionPercent.errors).toEqual({ quantity: 'Out of range. Enter a number from 0 to 100.' });
     form.controls.reductionPercent.setValue(' 80 ');
     expect(form.valid).toBe(true);
-    expect(providedControl('light-reduction', form.getRawValue())).toEqual({ strategy: 'light-reduction', provided: true, reductionPercent: '80' });
+    expect(providedControl('light-reduction', form.getRawValue())).toEqual({
+      strategy: 'light-reduction',
+      provided: true,
+      reductionPercent: '80',
+    });
     // A strategy whose check does not read it gets none.
     expect(providedControl('time-switch', form.getRawValue())).toEqual({ strategy: 'time-switch', provided: true });
   });
@@ -202,15 +230,26 @@ describe('control form rules', () => {
     expect(form.valid).toBe(true);
     strategy = 'occupant-sensor';
     form.updateValueAndValidity();
-    expect(form.controls.exceptionReason.errors).toEqual({ timeSwitchOnly: 'Continuous operation frees lighting from the time switch only.' });
+    expect(form.controls.exceptionReason.errors).toEqual({
+      timeSwitchOnly: 'Continuous operation frees lighting from the time switch only.',
+    });
   });
 
   it('sends only what was recorded, and replaces just that strategy', () => {
     const form = controlForm(undefined, () => 'occupant-sensor');
     form.patchValue({ mode: 'provided', device: ' Invented sensor ', timeoutMinutes: '15', autoOn: 'partial' });
     const next = providedControl('occupant-sensor', form.getRawValue());
-    expect(next).toEqual({ strategy: 'occupant-sensor', provided: true, device: 'Invented sensor', timeoutMinutes: '15', autoOn: 'partial' });
-    const others: ProvidedControl[] = [{ strategy: 'time-switch', provided: true }, { strategy: 'occupant-sensor', provided: false }];
+    expect(next).toEqual({
+      strategy: 'occupant-sensor',
+      provided: true,
+      device: 'Invented sensor',
+      timeoutMinutes: '15',
+      autoOn: 'partial',
+    });
+    const others: ProvidedControl[] = [
+      { strategy: 'time-switch', provided: true },
+      { strategy: 'occupant-sensor', provided: false },
+    ];
     expect(replaceControl(others, 'occupant-sensor', next)).toEqual([{ strategy: 'time-switch', provided: true }, next]);
     expect(replaceControl(others, 'occupant-sensor', null)).toEqual([{ strategy: 'time-switch', provided: true }]);
   });

@@ -40,7 +40,9 @@ export class ControlLineCard {
   protected readonly undecided = computed(() => this.line().requirement === 'to-verify');
   protected readonly areaUnit = computed(() => (this.units() === 'ip' ? 'ft²' : 'm²'));
   /** "Checked against the adopted code" answers a requirement the data cannot settle, and nothing else. */
-  protected readonly offerChecked = computed(() => this.line().requirement === 'to-verify' || this.provided()?.exceptionReason === 'verified-not-required');
+  protected readonly offerChecked = computed(
+    () => this.line().requirement === 'to-verify' || this.provided()?.exceptionReason === 'verified-not-required',
+  );
 
   /** An open form with edits not yet saved. */
   hasUnsavedChanges(): boolean {

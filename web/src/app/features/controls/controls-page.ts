@@ -21,7 +21,18 @@ import { outstandingLines } from './control-status';
 /** Per space: the control requirements the evaluation derives, and what the engineer records as provided or excepted. */
 @Component({
   selector: 'al-controls-page',
-  imports: [MatIconModule, MatListModule, MatProgressBarModule, MatSlideToggleModule, RouterLink, BulkControlPanel, ControlLineCard, InUnits, SpacePicker, UnverifiedCount],
+  imports: [
+    MatIconModule,
+    MatListModule,
+    MatProgressBarModule,
+    MatSlideToggleModule,
+    RouterLink,
+    BulkControlPanel,
+    ControlLineCard,
+    InUnits,
+    SpacePicker,
+    UnverifiedCount,
+  ],
   templateUrl: './controls-page.html',
   styleUrl: './controls-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -47,15 +58,25 @@ export class ControlsPage implements HasUnsavedChanges {
       return { space, result, outstanding: result ? outstandingLines(result.controls).length : 0 };
     });
   });
-  protected readonly visibleRows = computed(() => (this.outstandingOnly() ? this.rows().filter((row) => row.outstanding > 0) : this.rows()));
+  protected readonly visibleRows = computed(() =>
+    this.outstandingOnly() ? this.rows().filter((row) => row.outstanding > 0) : this.rows(),
+  );
   /** The engineer's choice; follows `?space=` when the link changes, and survives results arriving. */
-  private readonly chosenId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
+  private readonly chosenId = linkedSignal<string | undefined, string | null>({
+    source: this.space,
+    computation: (space, previous) => space ?? previous?.value ?? null,
+  });
   protected readonly selectedId = computed(() => this.chosenId() ?? this.rows()[0]?.space.id ?? null);
   protected readonly selected = computed(() => this.rows().find((row) => row.space.id === this.selectedId()) ?? null);
-  protected readonly strategyByKey = computed(() => new Map((this.store.tables()?.controlStrategies ?? []).map((strategy) => [strategy.key, strategy])));
+  protected readonly strategyByKey = computed(
+    () => new Map((this.store.tables()?.controlStrategies ?? []).map((strategy) => [strategy.key, strategy])),
+  );
   protected readonly lines = computed(() => {
     const lines = this.selected()?.result?.controls ?? [];
-    return { applicable: lines.filter((line) => line.status !== 'not-required'), notRequired: lines.filter((line) => line.status === 'not-required') };
+    return {
+      applicable: lines.filter((line) => line.status !== 'not-required'),
+      notRequired: lines.filter((line) => line.status === 'not-required'),
+    };
   });
 
   /** The requirements shown for the space that carry a "verify" mark (those not required sit folded away). */
@@ -65,7 +86,8 @@ export class ControlsPage implements HasUnsavedChanges {
     if (row.result) return row.result.lpdBasis.label;
     const byArea = this.store.project()?.method === 'building-area';
     const key = byArea ? row.space.buildingAreaType : row.space.spaceType;
-    const types: readonly { key: string; label: string }[] = (byArea ? this.store.tables()?.buildingAreaTypes : this.store.tables()?.spaceTypes) ?? [];
+    const types: readonly { key: string; label: string }[] =
+      (byArea ? this.store.tables()?.buildingAreaTypes : this.store.tables()?.spaceTypes) ?? [];
     return types.find((type) => type.key === key)?.label ?? 'No type chosen';
   }
 
@@ -95,7 +117,9 @@ export class ControlsPage implements HasUnsavedChanges {
       invalid: (error) => {
         // The service names the entry by its place in the list sent: `controls.2.exceptionNote`.
         const prefix = `controls.${controls.findIndex((control) => control.strategy === strategy)}.`;
-        const details = error.details.map((detail) => (detail.path.startsWith(prefix) ? { ...detail, path: detail.path.slice(prefix.length) } : detail));
+        const details = error.details.map((detail) =>
+          detail.path.startsWith(prefix) ? { ...detail, path: detail.path.slice(prefix.length) } : detail,
+        );
         card()?.refused(details, error.message);
       },
       reload: () => this.reload(space.id),

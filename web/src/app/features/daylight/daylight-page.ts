@@ -67,21 +67,53 @@ export class DaylightPage implements HasUnsavedChanges {
   protected readonly fieldMessage = fieldMessage;
   protected readonly walls = ['north', 'east', 'south', 'west'] as const;
 
-  protected zoneCards(daylight: DaylightResult): { kind: DaylightZoneKind; name: string; area: string; watts: string; required: boolean; what: string }[] {
+  protected zoneCards(
+    daylight: DaylightResult,
+  ): { kind: DaylightZoneKind; name: string; area: string; watts: string; required: boolean; what: string }[] {
     return [
-      { kind: 'primary-sidelit', name: zoneNames['primary-sidelit'], area: daylight.primarySidelitArea, watts: daylight.primarySidelitW, required: daylight.sidelightingControlRequired, what: 'Sidelighting control' },
-      { kind: 'secondary-sidelit', name: zoneNames['secondary-sidelit'], area: daylight.secondarySidelitArea, watts: daylight.secondarySidelitW, required: daylight.secondarySidelightingControlRequired, what: 'Separate secondary control' },
-      { kind: 'toplit', name: zoneNames.toplit, area: daylight.toplitArea, watts: daylight.toplitW, required: daylight.toplightingControlRequired, what: 'Toplighting control' },
+      {
+        kind: 'primary-sidelit',
+        name: zoneNames['primary-sidelit'],
+        area: daylight.primarySidelitArea,
+        watts: daylight.primarySidelitW,
+        required: daylight.sidelightingControlRequired,
+        what: 'Sidelighting control',
+      },
+      {
+        kind: 'secondary-sidelit',
+        name: zoneNames['secondary-sidelit'],
+        area: daylight.secondarySidelitArea,
+        watts: daylight.secondarySidelitW,
+        required: daylight.secondarySidelightingControlRequired,
+        what: 'Separate secondary control',
+      },
+      {
+        kind: 'toplit',
+        name: zoneNames.toplit,
+        area: daylight.toplitArea,
+        watts: daylight.toplitW,
+        required: daylight.toplightingControlRequired,
+        what: 'Toplighting control',
+      },
     ];
   }
 
   protected readonly rows = computed(() =>
-    this.store.spaces().map((space) => ({ space, openings: space.windows.length + space.skylights.length, result: this.store.resultBySpace().get(space.id) })),
+    this.store.spaces().map((space) => ({
+      space,
+      openings: space.windows.length + space.skylights.length,
+      result: this.store.resultBySpace().get(space.id),
+    })),
   );
   protected readonly visibleRows = computed(() => (this.withOpeningsOnly() ? this.rows().filter((row) => row.openings > 0) : this.rows()));
   /** The engineer's choice; follows `?space=` when the link changes, and survives results arriving. */
-  private readonly chosenId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
-  protected readonly selectedId = computed(() => this.chosenId() ?? (this.rows().find((row) => row.openings > 0) ?? this.rows()[0])?.space.id ?? null);
+  private readonly chosenId = linkedSignal<string | undefined, string | null>({
+    source: this.space,
+    computation: (space, previous) => space ?? previous?.value ?? null,
+  });
+  protected readonly selectedId = computed(
+    () => this.chosenId() ?? (this.rows().find((row) => row.openings > 0) ?? this.rows()[0])?.space.id ?? null,
+  );
   protected readonly selected = computed(() => this.rows().find((row) => row.space.id === this.selectedId()) ?? null);
   /** The stored record only: changes when another space is chosen or this one is saved, not when results arrive. */
   protected readonly selectedSpace = computed(() => this.store.spaces().find((space) => space.id === this.selectedId()) ?? null);
@@ -134,7 +166,10 @@ export class DaylightPage implements HasUnsavedChanges {
 
   protected select(spaceId: string): void {
     if (!this.form.dirty) this.chosenId.set(spaceId);
-    else askToDiscard(this.dialogs, 'The changes to the windows and skylights of this space are not saved.').subscribe((discard) => discard && this.chosenId.set(spaceId));
+    else
+      askToDiscard(this.dialogs, 'The changes to the windows and skylights of this space are not saved.').subscribe(
+        (discard) => discard && this.chosenId.set(spaceId),
+      );
   }
 
   protected addWindow(): void {

@@ -9,7 +9,12 @@ const room = { length: 60, width: 40 };
 describe('daylight plan geometry', () => {
   it('scales zone rectangles to the room, north up (plan y grows upward, SVG y downward)', () => {
     const plan = planGeometry(
-      { ...room, windows: [], skylights: [], zones: [{ kind: 'primary-sidelit', source: 'windows.0', x: '4', y: '0', length: '16', width: '10' }] },
+      {
+        ...room,
+        windows: [],
+        skylights: [],
+        zones: [{ kind: 'primary-sidelit', source: 'windows.0', x: '4', y: '0', length: '16', width: '10' }],
+      },
       600,
       400,
     );
@@ -22,7 +27,11 @@ describe('daylight plan geometry', () => {
   });
 
   it('draws an east window on the right-hand wall, its offset from the south end', () => {
-    const plan = planGeometry({ ...room, windows: [{ wall: 'east', width: '10', headHeight: '8', offset: '5' }], skylights: [], zones: [] }, 600, 400);
+    const plan = planGeometry(
+      { ...room, windows: [{ wall: 'east', width: '10', headHeight: '8', offset: '5' }], skylights: [], zones: [] },
+      600,
+      400,
+    );
     const window = plan.windows[0]!;
     expect(window.x1).toBe(planPadding.left + 600);
     expect(window.x2).toBe(planPadding.left + 600);

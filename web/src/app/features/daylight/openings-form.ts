@@ -126,7 +126,12 @@ export function openingsForm(room: () => Room, windows: readonly WindowOpening[]
 }
 
 /** Starts the form again from stored openings: the same form, so whatever follows its events keeps following it. */
-export function fillOpenings(form: OpeningsForm, room: () => Room, windows: readonly WindowOpening[], skylights: readonly Skylight[]): void {
+export function fillOpenings(
+  form: OpeningsForm,
+  room: () => Room,
+  windows: readonly WindowOpening[],
+  skylights: readonly Skylight[],
+): void {
   form.controls.windows.clear({ emitEvent: false });
   form.controls.skylights.clear({ emitEvent: false });
   for (const opening of windows) form.controls.windows.push(windowForm(room, opening), { emitEvent: false });
@@ -139,7 +144,10 @@ export function fillOpenings(form: OpeningsForm, room: () => Room, windows: read
 const optional = (text: string) => (text.trim() === '' ? undefined : text.trim());
 
 /** The glazing fields of either opening, leaving out what is not recorded. */
-function glazing(value: { visibleTransmittance: string; daylightBlocked: Blocked }): { visibleTransmittance?: string; daylightBlocked?: boolean } {
+function glazing(value: { visibleTransmittance: string; daylightBlocked: Blocked }): {
+  visibleTransmittance?: string;
+  daylightBlocked?: boolean;
+} {
   const entry: { visibleTransmittance?: string; daylightBlocked?: boolean } = {};
   const vt = optional(value.visibleTransmittance);
   if (vt !== undefined) entry.visibleTransmittance = vt;

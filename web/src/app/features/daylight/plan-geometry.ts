@@ -76,7 +76,12 @@ export function planGeometry(input: PlanInput, drawingWidth = 560, drawingHeight
   const top = planPadding.top;
   const toX = (x: number) => left + x * scale;
   const toY = (y: number) => top + (input.width - y) * scale;
-  const rect = (x: number, y: number, along: number, across: number): PlanRect => ({ x: toX(x), y: toY(y + across), width: along * scale, height: across * scale });
+  const rect = (x: number, y: number, along: number, across: number): PlanRect => ({
+    x: toX(x),
+    y: toY(y + across),
+    width: along * scale,
+    height: across * scale,
+  });
 
   const zones = [...input.zones]
     .sort((a, b) => drawOrder[a.kind] - drawOrder[b.kind])

@@ -7,7 +7,15 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { startWith } from 'rxjs';
-import type { EditionId, ExteriorApplicationInput, ExteriorApplicationRecord, ExteriorApplicationView, ExteriorExemptionReason, ProvidedControl, UnitSystem } from '../../core/api/api-types';
+import type {
+  EditionId,
+  ExteriorApplicationInput,
+  ExteriorApplicationRecord,
+  ExteriorApplicationView,
+  ExteriorExemptionReason,
+  ProvidedControl,
+  UnitSystem,
+} from '../../core/api/api-types';
 import { editionFamilyOf, exteriorExemptions } from '../../../../../contract/editions';
 import { InUnits } from '../../shared/in-units';
 import type { MeasureKind } from '../../shared/measure';
@@ -49,7 +57,16 @@ function exemptWattsValidator(control: AbstractControl<string>): ValidationError
 /** Add or change one lighted exterior application: which one (from the edition's catalogue), how much of it, its installed watts, any exempt part, and controls. */
 @Component({
   selector: 'al-exterior-application-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, InUnits, MeasureInput],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    InUnits,
+    MeasureInput,
+  ],
   templateUrl: './exterior-application-form.html',
   styleUrl: './exterior-application-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -74,7 +91,10 @@ export class ExteriorApplicationForm implements OnInit {
     installedWatts: new FormControl('', { nonNullable: true, validators: [nonNegative] }),
     exempt: new FormControl(false, { nonNullable: true }),
     exemptWatts: new FormControl({ value: '', disabled: true }, { nonNullable: true, validators: [exemptWattsValidator] }),
-    exemptReason: new FormControl<ExteriorExemptionReason | ''>({ value: '', disabled: true }, { nonNullable: true, validators: [Validators.required] }),
+    exemptReason: new FormControl<ExteriorExemptionReason | ''>(
+      { value: '', disabled: true },
+      { nonNullable: true, validators: [Validators.required] },
+    ),
     exemptNote: new FormControl({ value: '', disabled: true }, { nonNullable: true, validators: [Validators.maxLength(1000)] }),
     controls: new FormGroup({
       'exterior-daylight-off': controlGroup(undefined),
@@ -117,15 +137,27 @@ export class ExteriorApplicationForm implements OnInit {
     const chosen = this.chosen();
     const zone = this.lightingZone();
     // The tables hold IP rates; an SI project reads them in its own units.
-    return chosen && zone !== null ? `${inProjectUnits(`${chosen.allowanceByZone[String(zone)] ?? '—'} ${chosen.unit.replace('ft2', 'ft²')}`, this.units())} in zone ${zone}` : null;
+    return chosen && zone !== null
+      ? `${inProjectUnits(`${chosen.allowanceByZone[String(zone)] ?? '—'} ${chosen.unit.replace('ft2', 'ft²')}`, this.units())} in zone ${zone}`
+      : null;
   });
 
   ngOnInit(): void {
     const record = this.record();
     if (!record) return;
-    this.form.patchValue({ key: record.key, description: record.description, quantity: record.quantity, installedWatts: record.installedWatts });
+    this.form.patchValue({
+      key: record.key,
+      description: record.description,
+      quantity: record.quantity,
+      installedWatts: record.installedWatts,
+    });
     if (record.exemptReason !== undefined) {
-      this.form.patchValue({ exempt: true, exemptWatts: record.exemptWatts ?? '', exemptReason: record.exemptReason, exemptNote: record.exemptNote ?? '' });
+      this.form.patchValue({
+        exempt: true,
+        exemptWatts: record.exemptWatts ?? '',
+        exemptReason: record.exemptReason,
+        exemptNote: record.exemptNote ?? '',
+      });
     }
     for (const { strategy } of exteriorControls) {
       const current = record.controls.find((control) => control.strategy === strategy);
@@ -141,26 +173,45 @@ export class ExteriorApplicationForm implements OnInit {
         else control.disable({ emitEvent: false });
       }
     });
-    this.form.controls.installedWatts.valueChanges.subscribe(() => this.form.controls.exemptWatts.updateValueAndValidity({ emitEvent: false }));
+    this.form.controls.installedWatts.valueChanges.subscribe(() =>
+      this.form.controls.exemptWatts.updateValueAndValidity({ emitEvent: false }),
+    );
   }
 
   protected submit(): void {
     this.form.markAllAsTouched();
     if (this.form.invalid) return;
     const value = this.form.getRawValue();
-    const kept = (this.record()?.controls ?? []).filter((control) => !exteriorControls.some((known) => known.strategy === control.strategy));
+    const kept = (this.record()?.controls ?? []).filter(
+      (control) => !exteriorControls.some((known) => known.strategy === control.strategy),
+    );
     const controls: ProvidedControl[] = [
       ...kept,
       ...exteriorControls
         .map(({ strategy }) => ({ strategy, ...value.controls[strategy] }))
         .filter((control) => control.provided)
-        .map((control) => (control.device.trim() ? { strategy: control.strategy, provided: true, device: control.device.trim() } : { strategy: control.strategy, provided: true })),
+        .map((control) =>
+          control.device.trim()
+            ? { strategy: control.strategy, provided: true, device: control.device.trim() }
+            : { strategy: control.strategy, provided: true },
+        ),
     ];
     const exempt =
       value.exempt && value.exemptReason !== ''
-        ? { exemptWatts: value.exemptWatts.trim(), exemptReason: value.exemptReason, ...(value.exemptNote.trim() ? { exemptNote: value.exemptNote.trim() } : {}) }
+        ? {
+            exemptWatts: value.exemptWatts.trim(),
+            exemptReason: value.exemptReason,
+            ...(value.exemptNote.trim() ? { exemptNote: value.exemptNote.trim() } : {}),
+          }
         : {};
-    this.save.emit({ key: value.key, description: value.description.trim(), quantity: value.quantity.trim(), installedWatts: value.installedWatts.trim(), ...exempt, controls });
+    this.save.emit({
+      key: value.key,
+      description: value.description.trim(),
+      quantity: value.quantity.trim(),
+      installedWatts: value.installedWatts.trim(),
+      ...exempt,
+      controls,
+    });
   }
 
   protected message(control: AbstractControl): string {

@@ -11,7 +11,14 @@ export interface ExteriorLine {
 
 export interface ExteriorGroups {
   /** Tradable applications share one pool, with the base site allowance behind it. */
-  tradable: { lines: ExteriorLine[]; allowanceW: string; installedW: string; marginW: string; baseSiteUsedW: string; status: AllowanceStatus };
+  tradable: {
+    lines: ExteriorLine[];
+    allowanceW: string;
+    installedW: string;
+    marginW: string;
+    baseSiteUsedW: string;
+    status: AllowanceStatus;
+  };
   /** Each nontradable application stands on its own allowance (and the base site allowance where the edition lets it). */
   nontradable: ExteriorLine[];
   baseSite: { allowanceW: string; remainingW: string; coversNontradable: boolean };
@@ -53,8 +60,18 @@ export function exteriorGroups(exterior: ExteriorResult, records: readonly Exter
       status: allowanceStatus(exterior.tradable.complies, exterior.tradable.marginW),
     },
     nontradable: exterior.applications.filter((application) => !application.tradable).map(line),
-    baseSite: { allowanceW: exterior.baseSiteAllowanceW, remainingW: exterior.baseSiteRemainingW, coversNontradable: exterior.baseSiteCoversNontradable },
-    total: { allowanceW: exterior.allowanceW, installedW: exterior.installedW, exemptW: exterior.exemptW, marginW: totalMargin, status: siteStatus(exterior.complies, totalMargin) },
+    baseSite: {
+      allowanceW: exterior.baseSiteAllowanceW,
+      remainingW: exterior.baseSiteRemainingW,
+      coversNontradable: exterior.baseSiteCoversNontradable,
+    },
+    total: {
+      allowanceW: exterior.allowanceW,
+      installedW: exterior.installedW,
+      exemptW: exterior.exemptW,
+      marginW: totalMargin,
+      status: siteStatus(exterior.complies, totalMargin),
+    },
   };
 }
 

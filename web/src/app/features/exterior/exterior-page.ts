@@ -27,7 +27,22 @@ import { CardRows } from '../../shared/card-rows';
 /** The site's lighting zone, its lighted applications, and the exterior allowance: tradable pooled, nontradable each alone. */
 @Component({
   selector: 'al-exterior-page',
-  imports: [CardRows, NgTemplateOutlet, FormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, MatTooltipModule, CautionsBanner, InUnits, UnverifiedCount, VerifyBadge, ExteriorApplicationForm],
+  imports: [
+    CardRows,
+    NgTemplateOutlet,
+    FormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatTooltipModule,
+    CautionsBanner,
+    InUnits,
+    UnverifiedCount,
+    VerifyBadge,
+    ExteriorApplicationForm,
+  ],
   templateUrl: './exterior-page.html',
   styleUrl: './exterior-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -40,7 +55,9 @@ export class ExteriorPage implements HasUnsavedChanges {
 
   protected readonly figures = { watts: wattsFigure, quantity: quantityFigure, rate: rateFigure };
   protected readonly statusView = statusView;
-  protected readonly controlNames: Partial<Record<string, string>> = Object.fromEntries(exteriorControls.map((control) => [control.strategy, control.label]));
+  protected readonly controlNames: Partial<Record<string, string>> = Object.fromEntries(
+    exteriorControls.map((control) => [control.strategy, control.label]),
+  );
   protected readonly quantityUnit = quantityUnit;
   private readonly forms = viewChildren(ExteriorApplicationForm);
   protected readonly saving = signal(false);
@@ -63,7 +80,9 @@ export class ExteriorPage implements HasUnsavedChanges {
   });
   protected readonly zones = computed(() => this.store.tables()?.lightingZones ?? []);
   protected readonly zone = linkedSignal(() => this.store.project()?.lightingZone ?? null);
-  protected readonly currentZone = computed(() => this.zones().find((zone) => Number(zone.zone) === this.store.project()?.lightingZone) ?? null);
+  protected readonly currentZone = computed(
+    () => this.zones().find((zone) => Number(zone.zone) === this.store.project()?.lightingZone) ?? null,
+  );
   protected readonly catalogue = computed(() => this.store.tables()?.exteriorApplications ?? []);
   protected readonly usedKeys = computed(() => this.store.exterior().map((application) => application.key));
   /** Applications saved but not in the result shown (a result is being recomputed). */
@@ -72,10 +91,19 @@ export class ExteriorPage implements HasUnsavedChanges {
     return this.store.exterior().filter((application) => !shown.has(application.key));
   });
 
-  private readonly unverifiedApplications = computed(() => new Map(this.catalogue().filter((entry) => !entry.verified).map((entry) => [entry.key, entry.citation])));
+  private readonly unverifiedApplications = computed(
+    () =>
+      new Map(
+        this.catalogue()
+          .filter((entry) => !entry.verified)
+          .map((entry) => [entry.key, entry.citation]),
+      ),
+  );
   /** The lighting zones and the project's applications whose values are not checked: each shows a "verify" mark. */
   protected readonly unverifiedCount = computed(
-    () => this.zones().filter((zone) => !zone.verified).length + this.store.exterior().filter((application) => this.unverifiedApplications().has(application.key)).length,
+    () =>
+      this.zones().filter((zone) => !zone.verified).length +
+      this.store.exterior().filter((application) => this.unverifiedApplications().has(application.key)).length,
   );
 
   protected citationOf(key: string): Citation | null {
@@ -122,7 +150,9 @@ export class ExteriorPage implements HasUnsavedChanges {
       saved: () => {
         this.store.removeExterior(record.id);
         this.snackBar
-          .open(`${inProjectUnits(label, this.store.units())}${record.description ? ` (${record.description})` : ''} removed`, 'Undo', { duration: 8000 })
+          .open(`${inProjectUnits(label, this.store.units())}${record.description ? ` (${record.description})` : ''} removed`, 'Undo', {
+            duration: 8000,
+          })
           .onAction()
           .subscribe(() =>
             this.api.restoreExteriorApplication(projectId, record.id).subscribe({

@@ -1,5 +1,15 @@
 import type { ExteriorApplicationRecord, HistoryEntry, LuminaireTypeRecord, SetupSnapshot, SpaceRecord } from '../../core/api/api-types';
-import { describeEntry, describeImport, historyItems, noLabels, relativeTime, restoredWords, unitsAtEntry, unitsChanges, type HistoryLabels } from './history-entry';
+import {
+  describeEntry,
+  describeImport,
+  historyItems,
+  noLabels,
+  relativeTime,
+  restoredWords,
+  unitsAtEntry,
+  unitsChanges,
+  type HistoryLabels,
+} from './history-entry';
 
 // Invented people, spaces and values throughout; the labels are those our code tables give.
 const ines = { id: 'u1', name: 'Ines Halvorsen' };
@@ -36,15 +46,34 @@ function space(changes: Partial<SpaceRecord> = {}): SpaceRecord {
     ceilingHeight: '9',
     luminaires: [{ tag: 'A', count: '4', luminaireTypeId: 'a1' }],
     controls: [],
-    windows: [{ width: '4', headHeight: '7', wall: 'east' }, { width: '4', headHeight: '7', wall: 'south' }],
+    windows: [
+      { width: '4', headHeight: '7', wall: 'east' },
+      { width: '4', headHeight: '7', wall: 'south' },
+    ],
     skylights: [],
     ...stamp,
     ...changes,
   };
 }
 
-const typeA: LuminaireTypeRecord = { id: 'a1', tag: 'A', description: '2×4 troffer', inputWatts: '30', use: 'general', basis: 'rated', ...stamp };
-const lot: ExteriorApplicationRecord = { id: 'e1', key: 'parking-lots-and-drives', description: 'North lot', quantity: '4000', installedWatts: '150', controls: [], ...stamp };
+const typeA: LuminaireTypeRecord = {
+  id: 'a1',
+  tag: 'A',
+  description: '2×4 troffer',
+  inputWatts: '30',
+  use: 'general',
+  basis: 'rated',
+  ...stamp,
+};
+const lot: ExteriorApplicationRecord = {
+  id: 'e1',
+  key: 'parking-lots-and-drives',
+  description: 'North lot',
+  quantity: '4000',
+  installedWatts: '150',
+  controls: [],
+  ...stamp,
+};
 const setup: SetupSnapshot = {
   name: 'Tidewater Clinic',
   address: null,
@@ -60,8 +89,18 @@ const setup: SetupSnapshot = {
 };
 
 let nextId = 100;
-function entry(fields: Omit<HistoryEntry, 'id' | 'at' | 'user' | 'restorable' | 'entityId' | 'name'> & Partial<HistoryEntry>): HistoryEntry {
-  return { id: String(nextId++), at: '2026-03-02T10:15:00Z', user: ines, entityId: 'x', name: null, restorable: false, ...fields } as HistoryEntry;
+function entry(
+  fields: Omit<HistoryEntry, 'id' | 'at' | 'user' | 'restorable' | 'entityId' | 'name'> & Partial<HistoryEntry>,
+): HistoryEntry {
+  return {
+    id: String(nextId++),
+    at: '2026-03-02T10:15:00Z',
+    user: ines,
+    entityId: 'x',
+    name: null,
+    restorable: false,
+    ...fields,
+  } as HistoryEntry;
 }
 
 const say = (item: HistoryEntry, units: 'ip' | 'si' = 'ip') => describeEntry(item, labels, units).sentence;
@@ -69,7 +108,13 @@ const say = (item: HistoryEntry, units: 'ip' | 'si' = 'ip') => describeEntry(ite
 describe('a history entry in words', () => {
   describe('spaces', () => {
     it('lists only the changed fields, with labels and the project units', () => {
-      const change = entry({ entity: 'space', action: 'update', name: 'Exam 1', before: space(), after: space({ area: '150', ceilingHeight: '10', version: 2 }) });
+      const change = entry({
+        entity: 'space',
+        action: 'update',
+        name: 'Exam 1',
+        before: space(),
+        after: space({ area: '150', ceilingHeight: '10', version: 2 }),
+      });
       expect(say(change)).toBe('Ines Halvorsen changed space “Exam 1”: floor area 120 → 150 ft²; ceiling height 9 → 10 ft');
       expect(say(change, 'si')).toBe('Ines Halvorsen changed space “Exam 1”: floor area 120 → 150 m²; ceiling height 9 → 10 m');
     });
@@ -95,7 +140,11 @@ describe('a history entry in words', () => {
 
     it('says what changed inside a control, and names the type and level in words', () => {
       const before = space({ controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '15', device: 'Wall sensor' }] });
-      const after = space({ level: 'Level 2', spaceType: 'storage-room', controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', reductionPercent: '50', device: 'Ceiling sensor' }] });
+      const after = space({
+        level: 'Level 2',
+        spaceType: 'storage-room',
+        controls: [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '20', reductionPercent: '50', device: 'Ceiling sensor' }],
+      });
       expect(describeEntry(entry({ entity: 'space', action: 'update', name: 'Exam 1', before, after }), labels, 'ip').changes).toEqual([
         'level “Level 1” → “Level 2”',
         'space type Office — Enclosed → Storage Room',
@@ -114,41 +163,61 @@ describe('a history entry in words', () => {
     });
 
     it('reads a save that changed nothing shown as such', () => {
-      expect(say(entry({ entity: 'space', action: 'update', name: 'Exam 1', before: space(), after: space({ version: 2, updatedAt: '2026-03-03T09:00:00Z' }) }))).toBe(
-        'Ines Halvorsen saved space “Exam 1” without a change',
-      );
+      expect(
+        say(
+          entry({
+            entity: 'space',
+            action: 'update',
+            name: 'Exam 1',
+            before: space(),
+            after: space({ version: 2, updatedAt: '2026-03-03T09:00:00Z' }),
+          }),
+        ),
+      ).toBe('Ines Halvorsen saved space “Exam 1” without a change');
     });
 
     it('adds, imports, deletes and restores', () => {
-      expect(say(entry({ entity: 'space', action: 'create', name: 'Exam 1', before: null, after: space() }))).toBe('Ines Halvorsen added space “Exam 1” (Level 1, 120 ft², Office — Enclosed)');
+      expect(say(entry({ entity: 'space', action: 'create', name: 'Exam 1', before: null, after: space() }))).toBe(
+        'Ines Halvorsen added space “Exam 1” (Level 1, 120 ft², Office — Enclosed)',
+      );
       expect(say(entry({ entity: 'space', action: 'import', name: 'Exam 1', before: null, after: space() }), 'si')).toBe(
         'Ines Halvorsen imported space “Exam 1” from a spreadsheet (Level 1, 120 m², Office — Enclosed)',
       );
       expect(say(entry({ entity: 'space', action: 'delete', name: 'Exam 1', before: space(), after: null, restorable: true }))).toBe(
         'Ines Halvorsen deleted space “Exam 1” (Level 1, 120 ft², Office — Enclosed)',
       );
-      expect(say(entry({ entity: 'space', action: 'restore', name: 'Exam 1', before: null, after: space() }))).toBe('Ines Halvorsen restored space “Exam 1”');
+      expect(say(entry({ entity: 'space', action: 'restore', name: 'Exam 1', before: null, after: space() }))).toBe(
+        'Ines Halvorsen restored space “Exam 1”',
+      );
     });
 
     it('reads one import as one line', () => {
       const at = '2026-03-02T11:00:00Z';
       // Newest first, as the history lists them.
-      const rows = ['Exam 1', 'Exam 2', 'Exam 3', 'Exam 4', 'Exam 5'].map((name) => entry({ entity: 'space', action: 'import', name, at, before: null, after: space({ name }) })).reverse();
+      const rows = ['Exam 1', 'Exam 2', 'Exam 3', 'Exam 4', 'Exam 5']
+        .map((name) => entry({ entity: 'space', action: 'import', name, at, before: null, after: space({ name }) }))
+        .reverse();
       const other = entry({ entity: 'space', action: 'delete', name: 'Store', before: space({ name: 'Store' }), after: null });
       const items = historyItems([...rows, other]);
       expect(items.map((item) => (item.kind === 'import' ? item.entries.length : item.kind))).toEqual([5, 'entry']);
-      expect(describeImport(rows, labels, 'ip').sentence).toBe('Ines Halvorsen imported 5 spaces from a spreadsheet: “Exam 1”, “Exam 2”, “Exam 3” and 2 more');
+      expect(describeImport(rows, labels, 'ip').sentence).toBe(
+        'Ines Halvorsen imported 5 spaces from a spreadsheet: “Exam 1”, “Exam 2”, “Exam 3” and 2 more',
+      );
     });
   });
 
   describe('luminaire types and exterior applications', () => {
     it('reads a luminaire type by its tag, its watts and words for its use and basis', () => {
-      expect(say(entry({ entity: 'luminaire-type', action: 'create', name: 'A', before: null, after: typeA }))).toBe('Ines Halvorsen added luminaire type “A” (30 W, general lighting)');
+      expect(say(entry({ entity: 'luminaire-type', action: 'create', name: 'A', before: null, after: typeA }))).toBe(
+        'Ines Halvorsen added luminaire type “A” (30 W, general lighting)',
+      );
       const changed = { ...typeA, inputWatts: '28', basis: 'line-voltage-track' as const, length: '12', version: 2 };
       expect(say(entry({ entity: 'luminaire-type', action: 'update', name: 'A', before: typeA, after: changed }))).toBe(
         'Ines Halvorsen changed luminaire type “A”: rated input 30 → 28 W; wattage basis rated input watts → line-voltage track (by length or limiter); track length set to 12 ft',
       );
-      expect(say(entry({ entity: 'luminaire-type', action: 'delete', name: 'A', before: typeA, after: null }))).toBe('Ines Halvorsen deleted luminaire type “A” (30 W, general lighting)');
+      expect(say(entry({ entity: 'luminaire-type', action: 'delete', name: 'A', before: typeA, after: null }))).toBe(
+        'Ines Halvorsen deleted luminaire type “A” (30 W, general lighting)',
+      );
     });
 
     it('reads an exterior application by its description and catalogue name, the quantity in its unit', () => {
@@ -173,19 +242,45 @@ describe('a history entry in words', () => {
 
   describe('the project and its team', () => {
     it('reads set-up changes with the edition and method in words', () => {
-      const after = { ...setup, jurisdiction: 'Tidewater County', edition: 'ashrae-90.1-2019' as const, method: 'building-area' as const, lightingZone: 3, version: 4 };
+      const after = {
+        ...setup,
+        jurisdiction: 'Tidewater County',
+        edition: 'ashrae-90.1-2019' as const,
+        method: 'building-area' as const,
+        lightingZone: 3,
+        version: 4,
+      };
       expect(say(entry({ entity: 'project', action: 'update', name: 'Tidewater Clinic', before: setup, after }))).toBe(
         'Ines Halvorsen changed the set-up: jurisdiction set to “Tidewater County”; code edition IECC 2021 → ASHRAE/IES 90.1-2019; compliance method space-by-space method → building area method; exterior lighting zone 2 → 3',
       );
-      const amended = describeEntry(entry({ entity: 'project', action: 'update', name: 'x', before: { ...setup, amendments: [] }, after: { ...setup, amendments: ['washington-2021'] } }), labels, 'ip');
+      const amended = describeEntry(
+        entry({
+          entity: 'project',
+          action: 'update',
+          name: 'x',
+          before: { ...setup, amendments: [] },
+          after: { ...setup, amendments: ['washington-2021'] },
+        }),
+        labels,
+        'ip',
+      );
       expect(amended.changes).toEqual(['jurisdiction amendments: model code only → 1 chosen']);
-      expect(say(entry({ entity: 'project', action: 'create', name: 'Tidewater Clinic', before: null, after: setup }))).toBe('Ines Halvorsen created the project “Tidewater Clinic”');
+      expect(say(entry({ entity: 'project', action: 'create', name: 'Tidewater Clinic', before: null, after: setup }))).toBe(
+        'Ines Halvorsen created the project “Tidewater Clinic”',
+      );
     });
 
     it('reads the permit fields and the time zone in words, and a copy with its original', () => {
       // Invented permit details; America/Los_Angeles keeps UTC−8 as standard time (IANA tz database).
       const before = { ...setup, timeZone: 'America/Denver', permitNumber: null, scope: null, grossFloorArea: '2400' };
-      const after = { ...setup, permitNumber: 'BP-2026-0417', owner: 'Town of Tidewater', scope: 'alteration' as const, grossFloorArea: '2600', contractorLicence: 'EC-7731' };
+      const after = {
+        ...setup,
+        permitNumber: 'BP-2026-0417',
+        owner: 'Town of Tidewater',
+        scope: 'alteration' as const,
+        grossFloorArea: '2600',
+        contractorLicence: 'EC-7731',
+      };
       const words = describeEntry(entry({ entity: 'project', action: 'update', name: 'Tidewater Clinic', before, after }), labels, 'ip');
       expect(words.changes).toEqual([
         expect.stringMatching(/^time zone Denver \(America\) — Mountain Time, UTC−7 → Los Angeles \(America\) — Pacific Time, UTC−8$/),
@@ -196,66 +291,177 @@ describe('a history entry in words', () => {
         'contractor’s licence number set to “EC-7731”',
       ]);
       // An entry written before the permit fields existed has none of them: nothing is said about them.
-      expect(describeEntry(entry({ entity: 'project', action: 'update', name: 'x', before: setup, after: { ...setup, permitNumber: null } }), labels, 'ip').summary).toBe('saved the set-up without a change');
-      expect(say(entry({ entity: 'project', action: 'copy', name: 'Tidewater Clinic (copy)', before: null, after: setup, copiedFrom: { id: 'p1', name: 'Tidewater Clinic' } }))).toBe(
-        'Ines Halvorsen made this project “Tidewater Clinic (copy)” as a copy of “Tidewater Clinic”',
-      );
+      expect(
+        describeEntry(
+          entry({ entity: 'project', action: 'update', name: 'x', before: setup, after: { ...setup, permitNumber: null } }),
+          labels,
+          'ip',
+        ).summary,
+      ).toBe('saved the set-up without a change');
+      expect(
+        say(
+          entry({
+            entity: 'project',
+            action: 'copy',
+            name: 'Tidewater Clinic (copy)',
+            before: null,
+            after: setup,
+            copiedFrom: { id: 'p1', name: 'Tidewater Clinic' },
+          }),
+        ),
+      ).toBe('Ines Halvorsen made this project “Tidewater Clinic (copy)” as a copy of “Tidewater Clinic”');
     });
 
     it('reads a sales floor’s claims on an additional allowance', () => {
       const claim = { id: 'c1', spaceId: 's1', allowance: 'retail-area-3', area: '800', ...stamp };
-      expect(say(entry({ entity: 'additional-allowance', action: 'create', name: 'Sales floor', before: null, after: claim }))).toBe('Ines Halvorsen claimed an additional allowance on “Sales floor” for 800 ft²');
-      expect(say(entry({ entity: 'additional-allowance', action: 'update', name: 'Sales floor', before: claim, after: { ...claim, area: '1000' } }))).toBe(
-        'Ines Halvorsen changed an additional allowance claimed on “Sales floor”: area claimed 800 → 1,000 ft²',
+      expect(say(entry({ entity: 'additional-allowance', action: 'create', name: 'Sales floor', before: null, after: claim }))).toBe(
+        'Ines Halvorsen claimed an additional allowance on “Sales floor” for 800 ft²',
       );
-      expect(say(entry({ entity: 'additional-allowance', action: 'delete', name: 'Sales floor', before: claim, after: null }))).toBe('Ines Halvorsen removed an additional allowance claimed on “Sales floor” for 800 ft²');
-      expect(say(entry({ entity: 'additional-allowance', action: 'restore', name: 'Sales floor', before: null, after: claim }))).toBe('Ines Halvorsen restored an additional allowance claimed on “Sales floor” for 800 ft²');
+      expect(
+        say(
+          entry({
+            entity: 'additional-allowance',
+            action: 'update',
+            name: 'Sales floor',
+            before: claim,
+            after: { ...claim, area: '1000' },
+          }),
+        ),
+      ).toBe('Ines Halvorsen changed an additional allowance claimed on “Sales floor”: area claimed 800 → 1,000 ft²');
+      expect(say(entry({ entity: 'additional-allowance', action: 'delete', name: 'Sales floor', before: claim, after: null }))).toBe(
+        'Ines Halvorsen removed an additional allowance claimed on “Sales floor” for 800 ft²',
+      );
+      expect(say(entry({ entity: 'additional-allowance', action: 'restore', name: 'Sales floor', before: null, after: claim }))).toBe(
+        'Ines Halvorsen restored an additional allowance claimed on “Sales floor” for 800 ft²',
+      );
     });
 
     it('reads a change of units with what was converted', () => {
-      const conversion = { from: 'ip' as const, to: 'si' as const, rows: { spaces: 29, space_windows: 4, space_skylights: 0, luminaire_types: 1 } };
-      expect(say(entry({ entity: 'project', action: 'convert-units', name: 'Tidewater Clinic', before: setup, after: { ...setup, units: 'si', version: 4 }, conversion }))).toBe(
-        'Ines Halvorsen changed the units from IP to SI (29 spaces, 4 windows and 1 luminaire type converted)',
-      );
+      const conversion = {
+        from: 'ip' as const,
+        to: 'si' as const,
+        rows: { spaces: 29, space_windows: 4, space_skylights: 0, luminaire_types: 1 },
+      };
+      expect(
+        say(
+          entry({
+            entity: 'project',
+            action: 'convert-units',
+            name: 'Tidewater Clinic',
+            before: setup,
+            after: { ...setup, units: 'si', version: 4 },
+            conversion,
+          }),
+        ),
+      ).toBe('Ines Halvorsen changed the units from IP to SI (29 spaces, 4 windows and 1 luminaire type converted)');
       const empty = { from: 'si' as const, to: 'ip' as const, rows: { spaces: 0 } };
-      expect(say(entry({ entity: 'project', action: 'convert-units', name: 'x', before: { ...setup, units: 'si' }, after: setup, conversion: empty }))).toBe(
-        'Ines Halvorsen changed the units from SI to IP (nothing stored needed converting)',
-      );
+      expect(
+        say(
+          entry({
+            entity: 'project',
+            action: 'convert-units',
+            name: 'x',
+            before: { ...setup, units: 'si' },
+            after: setup,
+            conversion: empty,
+          }),
+        ),
+      ).toBe('Ines Halvorsen changed the units from SI to IP (nothing stored needed converting)');
     });
 
     it('reads archiving and bringing back', () => {
-      expect(say(entry({ entity: 'project', action: 'archive', name: 'Tidewater Clinic', before: null, after: null }))).toBe('Ines Halvorsen archived the project');
-      expect(say(entry({ entity: 'project', action: 'unarchive', name: 'Tidewater Clinic', before: null, after: null }))).toBe('Ines Halvorsen unarchived the project');
+      expect(say(entry({ entity: 'project', action: 'archive', name: 'Tidewater Clinic', before: null, after: null }))).toBe(
+        'Ines Halvorsen archived the project',
+      );
+      expect(say(entry({ entity: 'project', action: 'unarchive', name: 'Tidewater Clinic', before: null, after: null }))).toBe(
+        'Ines Halvorsen unarchived the project',
+      );
     });
 
     it('reads team changes with the role in words, and an address that added no one in neutral words', () => {
-      const member = (action: 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account', before: { role: 'reviewer' } | null, after: { role: 'contractor' | 'engineer' } | null) =>
-        say(entry({ entity: 'project_member', action, name: 'contractor@alderbay.example', before, after }));
-      expect(member('add-member', null, { role: 'contractor' })).toBe('Ines Halvorsen added contractor@alderbay.example to the team as contractor');
-      expect(member('change-role', { role: 'reviewer' }, { role: 'engineer' })).toBe('Ines Halvorsen changed the role of contractor@alderbay.example from reviewer to engineer');
-      expect(member('remove-member', { role: 'reviewer' }, null)).toBe('Ines Halvorsen removed contractor@alderbay.example from the team (was reviewer)');
-      expect(member('add-member-no-account', null, null)).toBe('Ines Halvorsen asked to add contractor@alderbay.example to the team; no one was added');
+      const member = (
+        action: 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account',
+        before: { role: 'reviewer' } | null,
+        after: { role: 'contractor' | 'engineer' } | null,
+      ) => say(entry({ entity: 'project_member', action, name: 'contractor@alderbay.example', before, after }));
+      expect(member('add-member', null, { role: 'contractor' })).toBe(
+        'Ines Halvorsen added contractor@alderbay.example to the team as contractor',
+      );
+      expect(member('change-role', { role: 'reviewer' }, { role: 'engineer' })).toBe(
+        'Ines Halvorsen changed the role of contractor@alderbay.example from reviewer to engineer',
+      );
+      expect(member('remove-member', { role: 'reviewer' }, null)).toBe(
+        'Ines Halvorsen removed contractor@alderbay.example from the team (was reviewer)',
+      );
+      expect(member('add-member-no-account', null, null)).toBe(
+        'Ines Halvorsen asked to add contractor@alderbay.example to the team; no one was added',
+      );
     });
 
     it('names someone whose account is gone without an id', () => {
-      expect(say(entry({ entity: 'project', action: 'archive', user: null, name: 'x', before: null, after: null }))).toBe('Someone archived the project');
+      expect(say(entry({ entity: 'project', action: 'archive', user: null, name: 'x', before: null, after: null }))).toBe(
+        'Someone archived the project',
+      );
     });
   });
 
   it('never shows a key, field name, id or table name, even with no labels at hand', () => {
     const all: HistoryEntry[] = [
-      entry({ entity: 'space', action: 'update', name: 'Exam 1', before: space({ controls: [{ strategy: 'occupant-sensor', provided: true }] }), after: space({ spaceType: 'storage-room', controlSpaceType: 'office-enclosed', controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'exit-stairway-ramp-passageway' }] }) }),
+      entry({
+        entity: 'space',
+        action: 'update',
+        name: 'Exam 1',
+        before: space({ controls: [{ strategy: 'occupant-sensor', provided: true }] }),
+        after: space({
+          spaceType: 'storage-room',
+          controlSpaceType: 'office-enclosed',
+          controls: [{ strategy: 'occupant-sensor', provided: false, exceptionReason: 'exit-stairway-ramp-passageway' }],
+        }),
+      }),
       entry({ entity: 'space', action: 'delete', name: 'Exam 1', before: space(), after: null }),
-      entry({ entity: 'luminaire-type', action: 'update', name: 'A', before: typeA, after: { ...typeA, use: 'exempt', exemptReason: 'Exit signs' } }),
-      entry({ entity: 'exterior-application', action: 'create', name: 'parking-lots-and-drives', before: null, after: { ...lot, description: '' } }),
-      entry({ entity: 'project', action: 'convert-units', name: 'x', before: setup, after: { ...setup, units: 'si' }, conversion: { from: 'ip', to: 'si', rows: { spaces: 2, some_new_table: 3 } } }),
-      entry({ entity: 'project', action: 'update', name: 'x', before: setup, after: { ...setup, timeZone: 'America/Los_Angeles', edition: 'ashrae-90.1-2022' } }),
-      entry({ entity: 'project_member', action: 'add-member', name: 'reviewer@alderbay.example', before: null, after: { role: 'reviewer' } }),
+      entry({
+        entity: 'luminaire-type',
+        action: 'update',
+        name: 'A',
+        before: typeA,
+        after: { ...typeA, use: 'exempt', exemptReason: 'Exit signs' },
+      }),
+      entry({
+        entity: 'exterior-application',
+        action: 'create',
+        name: 'parking-lots-and-drives',
+        before: null,
+        after: { ...lot, description: '' },
+      }),
+      entry({
+        entity: 'project',
+        action: 'convert-units',
+        name: 'x',
+        before: setup,
+        after: { ...setup, units: 'si' },
+        conversion: { from: 'ip', to: 'si', rows: { spaces: 2, some_new_table: 3 } },
+      }),
+      entry({
+        entity: 'project',
+        action: 'update',
+        name: 'x',
+        before: setup,
+        after: { ...setup, timeZone: 'America/Los_Angeles', edition: 'ashrae-90.1-2022' },
+      }),
+      entry({
+        entity: 'project_member',
+        action: 'add-member',
+        name: 'reviewer@alderbay.example',
+        before: null,
+        after: { role: 'reviewer' },
+      }),
     ];
     for (const item of all) {
       const words = describeEntry(item, noLabels, 'ip').sentence;
       expect(words, words).not.toMatch(/\b[a-z0-9]+(-[a-z0-9]+){2,}\b/); // no-hyphen-keys
-      expect(words, words).not.toMatch(/_|luminaire-type|exterior-application|project_member|convert-units|controlSpaceType|spaceType|ceilingHeight|inputWatts|7d3f0e7c/);
+      expect(words, words).not.toMatch(
+        /_|luminaire-type|exterior-application|project_member|convert-units|controlSpaceType|spaceType|ceilingHeight|inputWatts|7d3f0e7c/,
+      );
     }
     expect(describeEntry(all[0]!, noLabels, 'ip').changes).toEqual([
       'space type office enclosed → storage room',
@@ -265,15 +471,27 @@ describe('a history entry in words', () => {
   });
 
   it('names the item brought back', () => {
-    expect(restoredWords(entry({ entity: 'space', action: 'delete', name: 'Exam 3', before: space({ name: 'Exam 3' }), after: null }), labels)).toBe('Space “Exam 3” restored');
+    expect(
+      restoredWords(entry({ entity: 'space', action: 'delete', name: 'Exam 3', before: space({ name: 'Exam 3' }), after: null }), labels),
+    ).toBe('Space “Exam 3” restored');
     const claim = { id: 'c1', spaceId: 's1', allowance: 'retail-area-3', area: '800', ...stamp };
-    expect(restoredWords(entry({ entity: 'additional-allowance', action: 'delete', name: 'Sales floor', before: claim, after: null }), labels)).toBe('The claim on “Sales floor” restored');
+    expect(
+      restoredWords(entry({ entity: 'additional-allowance', action: 'delete', name: 'Sales floor', before: claim, after: null }), labels),
+    ).toBe('The claim on “Sales floor” restored');
   });
 });
 
 describe('the units of an entry', () => {
   const conversion = (id: string, from: 'ip' | 'si', to: 'ip' | 'si') =>
-    entry({ id, entity: 'project', action: 'convert-units', name: 'x', before: { ...setup, units: from }, after: { ...setup, units: to }, conversion: { from, to, rows: {} } });
+    entry({
+      id,
+      entity: 'project',
+      action: 'convert-units',
+      name: 'x',
+      before: { ...setup, units: from },
+      after: { ...setup, units: to },
+      conversion: { from, to, rows: {} },
+    });
 
   it('are those the project has, unless the units were changed since', () => {
     const changes = unitsChanges([conversion('500', 'ip', 'si')]);

@@ -35,7 +35,13 @@ export interface HistoryLabels {
   editions: ReadonlyMap<string, string>;
 }
 
-export const noLabels: HistoryLabels = { spaceTypes: new Map(), buildingAreaTypes: new Map(), controlStrategies: new Map(), exteriorApplications: new Map(), editions: new Map() };
+export const noLabels: HistoryLabels = {
+  spaceTypes: new Map(),
+  buildingAreaTypes: new Map(),
+  controlStrategies: new Map(),
+  exteriorApplications: new Map(),
+  editions: new Map(),
+};
 
 export interface EntryWords {
   /** The person, or "Someone" when their account is gone. */
@@ -144,7 +150,11 @@ function units(system: UnitSystem) {
 
 // ---------------------------------------------------------------- children
 
-const zoneWords: Record<string, string> = { 'primary-sidelit': 'primary sidelit zone', 'secondary-sidelit': 'secondary sidelit zone', toplit: 'toplit zone' };
+const zoneWords: Record<string, string> = {
+  'primary-sidelit': 'primary sidelit zone',
+  'secondary-sidelit': 'secondary sidelit zone',
+  toplit: 'toplit zone',
+};
 
 function groupKey(group: LuminaireGroup): string {
   return group.zone ? `${group.tag} (${zoneWords[group.zone] ?? spelt(group.zone)})` : group.tag;
@@ -200,7 +210,12 @@ function controlDetails(before: ProvidedControl | undefined, after: ProvidedCont
 }
 
 /** One line per control that changed: "controls: occupant sensor added". */
-function controlChanges(before: readonly ProvidedControl[], after: readonly ProvidedControl[], labels: HistoryLabels, areaUnit: string): string[] {
+function controlChanges(
+  before: readonly ProvidedControl[],
+  after: readonly ProvidedControl[],
+  labels: HistoryLabels,
+  areaUnit: string,
+): string[] {
   const was = new Map(before.map((control) => [control.strategy, control]));
   const now = new Map(after.map((control) => [control.strategy, control]));
   const lines: string[] = [];
@@ -209,7 +224,8 @@ function controlChanges(before: readonly ProvidedControl[], after: readonly Prov
     const old = was.get(strategy);
     if (!old) {
       if (control.provided) lines.push(`controls: ${label} added`);
-      else if (control.exceptionReason) lines.push(`controls: ${label} not provided, exception claimed (${reasonWords(control.exceptionReason)})`);
+      else if (control.exceptionReason)
+        lines.push(`controls: ${label} not provided, exception claimed (${reasonWords(control.exceptionReason)})`);
       else lines.push(`controls: ${label} marked not provided`);
     } else if (!same(old, control)) {
       const details = controlDetails(old, control, areaUnit);
@@ -261,7 +277,9 @@ function luminaireTypeChanges(before: LuminaireTypeRecord, after: LuminaireTypeR
     measured('rated input', before.inputWatts, after.inputWatts, 'W'),
     choice('use', before.use, after.use, (value) => lowerFirst(useLabels[value as keyof typeof useLabels] ?? spelt(value))),
     text('reason for the exemption', before.exemptReason, after.exemptReason),
-    choice('wattage basis', before.basis, after.basis, (value) => lowerFirst(basisLabels[value as keyof typeof basisLabels] ?? spelt(value))),
+    choice('wattage basis', before.basis, after.basis, (value) =>
+      lowerFirst(basisLabels[value as keyof typeof basisLabels] ?? spelt(value)),
+    ),
     measured('track length', before.length, after.length, units(system).length),
     measured('limiter rating', before.limitWatts, after.limitWatts, 'W'),
     text('wattage from', before.wattageSource, after.wattageSource),
@@ -274,7 +292,12 @@ function exteriorQuantityUnit(key: string, labels: HistoryLabels, system: UnitSy
   return unit ? quantityUnit(unit, system) : '';
 }
 
-function exteriorChanges(before: ExteriorApplicationRecord, after: ExteriorApplicationRecord, labels: HistoryLabels, system: UnitSystem): string[] {
+function exteriorChanges(
+  before: ExteriorApplicationRecord,
+  after: ExteriorApplicationRecord,
+  labels: HistoryLabels,
+  system: UnitSystem,
+): string[] {
   const changes = [
     choice('application', before.key, after.key, (key) => exteriorLabel(key, labels)),
     text('description', before.description, after.description),
@@ -317,7 +340,9 @@ function setupChanges(before: SetupSnapshot, after: SetupSnapshot, labels: Histo
     choice('time zone', before.timeZone, after.timeZone, timeZoneLabel),
     text('jurisdiction', before.jurisdiction, after.jurisdiction),
     choice('code edition', before.edition, after.edition, named(labels.editions)),
-    choice('compliance method', before.method, after.method, (method) => lowerFirst(methodLabels[method as keyof typeof methodLabels] ?? spelt(method))),
+    choice('compliance method', before.method, after.method, (method) =>
+      lowerFirst(methodLabels[method as keyof typeof methodLabels] ?? spelt(method)),
+    ),
     choice('units', before.units, after.units, (system) => unitNames[system as UnitSystem] ?? spelt(system)),
     choice('exterior lighting zone', before.lightingZone, after.lightingZone, (zone) => zone),
     amendmentChange(before.amendments, after.amendments),
@@ -384,7 +409,11 @@ const icons: Record<string, string> = {
  * What a person calls a design item in a sentence: space “Exam 1”, exterior application “North
  * lot” (Parking lots and drives). `briefed` leaves the catalogue name to the brief that follows.
  */
-function itemName(entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-type' | 'exterior-application' }>, labels: HistoryLabels, briefed = false): string {
+function itemName(
+  entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-type' | 'exterior-application' }>,
+  labels: HistoryLabels,
+  briefed = false,
+): string {
   if (entry.entity === 'exterior-application') {
     const record = entry.after ?? entry.before;
     if (!record) return `an ${entityWords[entry.entity]}`;
@@ -393,19 +422,28 @@ function itemName(entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-ty
     return `${entityWords[entry.entity]} ${quoted(record.description)}${briefed ? '' : ` (${label})`}`;
   }
   const record = entry.after ?? entry.before;
-  const name = entry.name ?? (entry.entity === 'space' ? (record as SpaceRecord | null)?.name : (record as LuminaireTypeRecord | null)?.tag);
+  const name =
+    entry.name ?? (entry.entity === 'space' ? (record as SpaceRecord | null)?.name : (record as LuminaireTypeRecord | null)?.tag);
   return name ? `${entityWords[entry.entity]} ${quoted(name)}` : `a ${entityWords[entry.entity]}`;
 }
 
 /** A short description of a design item as it was added or deleted: "(Level 1, 120 ft², Office — Enclosed)". */
-function itemBrief(entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-type' | 'exterior-application' }>, labels: HistoryLabels, system: UnitSystem): string {
+function itemBrief(
+  entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-type' | 'exterior-application' }>,
+  labels: HistoryLabels,
+  system: UnitSystem,
+): string {
   const parts: string[] = [];
   if (entry.entity === 'space') {
     const space = entry.after ?? entry.before;
     if (!space) return '';
     if (space.level) parts.push(space.level);
     if (!blank(space.area)) parts.push(`${figure(space.area)} ${units(system).area}`);
-    const type = space.spaceType ? named(labels.spaceTypes)(space.spaceType) : space.buildingAreaType ? named(labels.buildingAreaTypes)(space.buildingAreaType) : null;
+    const type = space.spaceType
+      ? named(labels.spaceTypes)(space.spaceType)
+      : space.buildingAreaType
+        ? named(labels.buildingAreaTypes)(space.buildingAreaType)
+        : null;
     if (type) parts.push(type);
   } else if (entry.entity === 'luminaire-type') {
     const type = entry.after ?? entry.before;
@@ -416,13 +454,18 @@ function itemBrief(entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-t
     const application = entry.after ?? entry.before;
     if (!application) return '';
     if (application.description) parts.push(exteriorLabel(application.key, labels));
-    if (!blank(application.quantity)) parts.push(`${figure(application.quantity)} ${exteriorQuantityUnit(application.key, labels, system)}`.trim());
+    if (!blank(application.quantity))
+      parts.push(`${figure(application.quantity)} ${exteriorQuantityUnit(application.key, labels, system)}`.trim());
     if (!blank(application.installedWatts)) parts.push(`${figure(application.installedWatts)} W installed`);
   }
   return parts.length ? ` (${parts.join(', ')})` : '';
 }
 
-function designWords(entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-type' | 'exterior-application' }>, labels: HistoryLabels, system: UnitSystem): { summary: string; changes: string[] } {
+function designWords(
+  entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-type' | 'exterior-application' }>,
+  labels: HistoryLabels,
+  system: UnitSystem,
+): { summary: string; changes: string[] } {
   const name = itemName(entry, labels);
   const briefed = `${itemName(entry, labels, true)}${itemBrief(entry, labels, system)}`;
   switch (entry.action) {
@@ -443,7 +486,11 @@ function designWords(entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire
   }
 }
 
-function designChanges(entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-type' | 'exterior-application' }>, labels: HistoryLabels, system: UnitSystem): string[] {
+function designChanges(
+  entry: Extract<HistoryEntry, { entity: 'space' | 'luminaire-type' | 'exterior-application' }>,
+  labels: HistoryLabels,
+  system: UnitSystem,
+): string[] {
   switch (entry.entity) {
     case 'space':
       return spaceChanges(entry.before!, entry.after!, labels, system);
@@ -460,7 +507,10 @@ function projectWords(entry: Extract<HistoryEntry, { entity: 'project' }>, label
     case 'create':
       return { summary: `created the project${entry.name ? ` ${quoted(entry.name)}` : ''}`, changes: [] };
     case 'copy':
-      return { summary: `made this project${entry.name ? ` ${quoted(entry.name)}` : ''} as a copy${entry.copiedFrom ? ` of ${quoted(entry.copiedFrom.name)}` : ''}`, changes: [] };
+      return {
+        summary: `made this project${entry.name ? ` ${quoted(entry.name)}` : ''} as a copy${entry.copiedFrom ? ` of ${quoted(entry.copiedFrom.name)}` : ''}`,
+        changes: [],
+      };
     case 'archive':
       return { summary: 'archived the project', changes: [] };
     case 'unarchive':
@@ -468,7 +518,10 @@ function projectWords(entry: Extract<HistoryEntry, { entity: 'project' }>, label
     case 'convert-units': {
       const from = entry.conversion?.from ?? entry.before?.units;
       const to = entry.conversion?.to ?? entry.after?.units;
-      const summary = from && to ? `changed the units from ${unitNames[from]} to ${unitNames[to]}${conversionWords(entry.conversion)}` : 'changed the units';
+      const summary =
+        from && to
+          ? `changed the units from ${unitNames[from]} to ${unitNames[to]}${conversionWords(entry.conversion)}`
+          : 'changed the units';
       return { summary, changes: changes.filter((change) => !change.startsWith('units ')) };
     }
     default:
@@ -477,7 +530,10 @@ function projectWords(entry: Extract<HistoryEntry, { entity: 'project' }>, label
 }
 
 /** A sales floor's claim on an additional allowance; `name` is the space's. */
-function claimWords(entry: Extract<HistoryEntry, { entity: 'additional-allowance' }>, system: UnitSystem): { summary: string; changes: string[] } {
+function claimWords(
+  entry: Extract<HistoryEntry, { entity: 'additional-allowance' }>,
+  system: UnitSystem,
+): { summary: string; changes: string[] } {
   const where = entry.name ? ` on ${quoted(entry.name)}` : '';
   const area = (claim: { area: string } | null) => (claim ? ` for ${figure(claim.area)} ${units(system).area}` : '');
   switch (entry.action) {
@@ -488,7 +544,12 @@ function claimWords(entry: Extract<HistoryEntry, { entity: 'additional-allowance
     case 'restore':
       return { summary: `restored an additional allowance claimed${where}${area(entry.after)}`, changes: [] };
     default: {
-      const changes = entry.before && entry.after ? [measured('area claimed', entry.before.area, entry.after.area, units(system).area)].filter((change): change is string => change !== null) : [];
+      const changes =
+        entry.before && entry.after
+          ? [measured('area claimed', entry.before.area, entry.after.area, units(system).area)].filter(
+              (change): change is string => change !== null,
+            )
+          : [];
       return { summary: `changed an additional allowance claimed${where}`, changes };
     }
   }
@@ -560,7 +621,12 @@ export function historyItems(entries: readonly HistoryEntry[]): HistoryItem[] {
   const items: HistoryItem[] = [];
   for (const entry of entries) {
     const last = items[items.length - 1];
-    if (entry.action === 'import' && last?.kind === 'import' && last.entries[0]!.at === entry.at && last.entries[0]!.user?.id === entry.user?.id) {
+    if (
+      entry.action === 'import' &&
+      last?.kind === 'import' &&
+      last.entries[0]!.at === entry.at &&
+      last.entries[0]!.user?.id === entry.user?.id
+    ) {
       last.entries.push(entry);
     } else if (entry.action === 'import') {
       items.push({ kind: 'import', entries: [entry] });

@@ -65,7 +65,17 @@ function isoDate(date: Date): string {
 /** Who changed what in the project and when, newest first, with filters, paging and Restore for deleted items. */
 @Component({
   selector: 'al-history-page',
-  imports: [ReactiveFormsModule, MatAutocompleteModule, MatButtonModule, MatDatepickerModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule],
+  imports: [
+    ReactiveFormsModule,
+    MatAutocompleteModule,
+    MatButtonModule,
+    MatDatepickerModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+  ],
   providers: [provideNativeDateAdapter()],
   templateUrl: './history-page.html',
   styleUrl: './history-page.scss',
@@ -100,11 +110,21 @@ export class HistoryPage {
   /** Changes of units seen so far, so older figures read in the units of their time. */
   private readonly conversions = signal<readonly UnitsChange[]>([]);
 
-  private readonly filterValue = toSignal(this.filters.valueChanges.pipe(startWith(this.filters.getRawValue()), map(() => this.filters.getRawValue())), { requireSync: true });
+  private readonly filterValue = toSignal(
+    this.filters.valueChanges.pipe(
+      startWith(this.filters.getRawValue()),
+      map(() => this.filters.getRawValue()),
+    ),
+    { requireSync: true },
+  );
   protected readonly query = computed<HistoryQuery>(
     () => {
       const { space, person, since } = this.filterValue();
-      return { spaceId: space && typeof space === 'object' ? space.id : undefined, userId: person || undefined, since: since ? isoDate(since) : undefined };
+      return {
+        spaceId: space && typeof space === 'object' ? space.id : undefined,
+        userId: person || undefined,
+        since: since ? isoDate(since) : undefined,
+      };
     },
     { equal: (a, b) => a.spaceId === b.spaceId && a.userId === b.userId && a.since === b.since },
   );
@@ -120,7 +140,9 @@ export class HistoryPage {
       spaceTypes: new Map((tables?.spaceTypes ?? []).map((type) => [type.key, type.label])),
       buildingAreaTypes: new Map((tables?.buildingAreaTypes ?? []).map((type) => [type.key, type.label])),
       controlStrategies: new Map((tables?.controlStrategies ?? []).map((strategy) => [strategy.key, strategy.label])),
-      exteriorApplications: new Map((tables?.exteriorApplications ?? []).map((application) => [application.key, { label: application.label, unit: application.unit }])),
+      exteriorApplications: new Map(
+        (tables?.exteriorApplications ?? []).map((application) => [application.key, { label: application.label, unit: application.unit }]),
+      ),
       editions: new Map(this.editions().map((edition) => [edition.id, edition.title])),
     };
   });
@@ -136,7 +158,13 @@ export class HistoryPage {
       const units = unitsAtEntry(first.id, current, conversions);
       const words = item.kind === 'entry' ? describeEntry(item.entry, labels, units) : describeImport(item.entries, labels, units);
       const restorable = item.kind === 'entry' && item.entry.action === 'delete' && item.entry.restorable ? item.entry : null;
-      return { key: first.id, at: `${relativeTime(first.at, now)} · ${exactTime(first.at)}`, words, restorable, restoreLabel: restorable ? `Restore ${itemWords(restorable, labels)}` : '' };
+      return {
+        key: first.id,
+        at: `${relativeTime(first.at, now)} · ${exactTime(first.at)}`,
+        words,
+        restorable,
+        restoreLabel: restorable ? `Restore ${itemWords(restorable, labels)}` : '',
+      };
     });
   });
 
@@ -150,7 +178,8 @@ export class HistoryPage {
     return options.filter((option) => option.name.toLocaleLowerCase().includes(text)).slice(0, spaceOptionLimit);
   });
 
-  protected readonly spaceName = (option: SpaceOption | string | null): string => (typeof option === 'object' && option ? option.name : (option ?? ''));
+  protected readonly spaceName = (option: SpaceOption | string | null): string =>
+    typeof option === 'object' && option ? option.name : (option ?? '');
 
   constructor() {
     this.requests
@@ -206,7 +235,9 @@ export class HistoryPage {
         request = this.workspaceApi.restoreLuminaireType(projectId, id).pipe(tap((type) => this.store.upsertLuminaireType(type)));
         break;
       case 'exterior-application':
-        request = this.workspaceApi.restoreExteriorApplication(projectId, id).pipe(tap((application) => this.store.upsertExterior(application)));
+        request = this.workspaceApi
+          .restoreExteriorApplication(projectId, id)
+          .pipe(tap((application) => this.store.upsertExterior(application)));
         break;
       case 'additional-allowance':
         // The claims are read by the Allowances page itself; the results count the claim again.
@@ -244,13 +275,17 @@ export class HistoryPage {
     // Newest first: a space's latest name is the first one met, and a fresh first page is newer than anything kept.
     this.spacesSeen.update((seen) => {
       const next = new Map(older ? seen : []);
-      for (const entry of page.entries) if (entry.entity === 'space' && entry.entityId && entry.name && !next.has(entry.entityId)) next.set(entry.entityId, entry.name);
+      for (const entry of page.entries)
+        if (entry.entity === 'space' && entry.entityId && entry.name && !next.has(entry.entityId)) next.set(entry.entityId, entry.name);
       if (!older) for (const [id, name] of seen) if (!next.has(id)) next.set(id, name);
       return next;
     });
     const conversions = unitsChanges(page.entries);
     if (conversions.length) {
-      this.conversions.update((known) => [...known.filter((change) => !conversions.some((added) => added.id === change.id)), ...conversions]);
+      this.conversions.update((known) => [
+        ...known.filter((change) => !conversions.some((added) => added.id === change.id)),
+        ...conversions,
+      ]);
     }
   }
 }

@@ -8,10 +8,34 @@ import { CountGrid, type CountEdit } from './count-grid';
 
 // Invented spaces and types.
 const stamp = { version: 1, updatedAt: '', updatedBy: null };
-const types: LuminaireTypeRecord[] = [{ id: 't1', tag: 'A1', description: 'Troffer', inputWatts: '30', use: 'general', basis: 'rated', ...stamp }];
+const types: LuminaireTypeRecord[] = [
+  { id: 't1', tag: 'A1', description: 'Troffer', inputWatts: '30', use: 'general', basis: 'rated', ...stamp },
+];
 const spaces: SpaceRecord[] = [
-  { id: 's1', name: 'Office 1', position: 1, area: '200', spaceType: 'office-enclosed', luminaires: [{ tag: 'A1', count: '4', luminaireTypeId: 't1' }], controls: [], windows: [], skylights: [], ...stamp },
-  { id: 's2', name: 'Office 2', position: 2, area: '200', spaceType: 'office-enclosed', luminaires: [], controls: [], windows: [], skylights: [], ...stamp },
+  {
+    id: 's1',
+    name: 'Office 1',
+    position: 1,
+    area: '200',
+    spaceType: 'office-enclosed',
+    luminaires: [{ tag: 'A1', count: '4', luminaireTypeId: 't1' }],
+    controls: [],
+    windows: [],
+    skylights: [],
+    ...stamp,
+  },
+  {
+    id: 's2',
+    name: 'Office 2',
+    position: 2,
+    area: '200',
+    spaceType: 'office-enclosed',
+    luminaires: [],
+    controls: [],
+    windows: [],
+    skylights: [],
+    ...stamp,
+  },
 ];
 
 describe('CountGrid', () => {
@@ -94,14 +118,42 @@ describe('CountGrid', () => {
 });
 
 /** A phone held upright: only the phone's query matches (jsdom has no matchMedia of its own). */
-const onPhone = { provide: MediaMatcher, useValue: { matchMedia: (query: string) => ({ matches: query === phoneScreen, media: query, addListener: () => undefined, removeListener: () => undefined }) } };
+const onPhone = {
+  provide: MediaMatcher,
+  useValue: {
+    matchMedia: (query: string) => ({
+      matches: query === phoneScreen,
+      media: query,
+      addListener: () => undefined,
+      removeListener: () => undefined,
+    }),
+  },
+};
 
 describe('CountGrid on a phone', () => {
   // Invented types: a troffer, a track run without a limiter, and a circuit counted at its limiter.
   const phoneTypes: LuminaireTypeRecord[] = [
     ...types,
-    { id: 't2', tag: 'T', description: 'Line-voltage track, 8 ft', inputWatts: '180', use: 'general', basis: 'line-voltage-track', length: '8', ...stamp },
-    { id: 't3', tag: 'L', description: 'Display case circuit', inputWatts: '0', use: 'display', basis: 'current-limited', limitWatts: '240', ...stamp },
+    {
+      id: 't2',
+      tag: 'T',
+      description: 'Line-voltage track, 8 ft',
+      inputWatts: '180',
+      use: 'general',
+      basis: 'line-voltage-track',
+      length: '8',
+      ...stamp,
+    },
+    {
+      id: 't3',
+      tag: 'L',
+      description: 'Display case circuit',
+      inputWatts: '0',
+      use: 'display',
+      basis: 'current-limited',
+      limitWatts: '240',
+      ...stamp,
+    },
   ];
   // Office 1 keeps its four troffers; the reading room has its troffers split across two daylight zones.
   const phoneSpaces: SpaceRecord[] = [
@@ -142,10 +194,15 @@ describe('CountGrid on a phone', () => {
     await fixture.whenStable();
   }
 
-  const card = (name: string) => Array.from(element.querySelectorAll<HTMLElement>('[role="listitem"]')).find((item) => item.querySelector('h3')?.textContent?.trim() === name)!;
+  const card = (name: string) =>
+    Array.from(element.querySelectorAll<HTMLElement>('[role="listitem"]')).find(
+      (item) => item.querySelector('h3')?.textContent?.trim() === name,
+    )!;
   /** A count field by the words of its label, the way a person finds it. */
   const field = (within: HTMLElement, tag: string) => {
-    const label = Array.from(within.querySelectorAll<HTMLLabelElement>('label')).find((candidate) => candidate.querySelector('.field-tag')?.textContent?.trim() === tag)!;
+    const label = Array.from(within.querySelectorAll<HTMLLabelElement>('label')).find(
+      (candidate) => candidate.querySelector('.field-tag')?.textContent?.trim() === tag,
+    )!;
     return { label, input: label.control as HTMLInputElement | null, text: (label.textContent ?? '').replace(/\s+/g, ' ').trim() };
   };
   const problem = () => document.querySelector<HTMLElement>('.cdk-overlay-container #count-problem');

@@ -1,6 +1,17 @@
 import { createRepositionScrollStrategy, OverlayModule, type ConnectedPosition } from '@angular/cdk/overlay';
 import { CdkVirtualScrollViewport, ScrollingModule } from '@angular/cdk/scrolling';
-import { ChangeDetectionStrategy, Component, computed, ElementRef, inject, Injector, input, output, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  ElementRef,
+  inject,
+  Injector,
+  input,
+  output,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTooltipModule } from '@angular/material/tooltip';
@@ -62,8 +73,12 @@ export class CountGrid {
 
   private readonly viewport = viewChild(CdkVirtualScrollViewport);
   protected readonly phone = screenMatches(phoneScreen);
-  protected readonly cardSize = computed(() => countCard.heading + this.types().length * countCard.field + countCard.actions + countCard.border + countCard.gap);
-  protected readonly cardRows = computed(() => `${countCard.heading}px repeat(${this.types().length}, ${countCard.field}px) ${countCard.actions}px`);
+  protected readonly cardSize = computed(
+    () => countCard.heading + this.types().length * countCard.field + countCard.actions + countCard.border + countCard.gap,
+  );
+  protected readonly cardRows = computed(
+    () => `${countCard.heading}px repeat(${this.types().length}, ${countCard.field}px) ${countCard.actions}px`,
+  );
   protected readonly cardGap = countCard.gap;
   protected readonly eachWords = eachWords;
   protected readonly columns = computed(() => `minmax(160px, 1.5fr) repeat(${this.types().length}, 76px) 72px`);

@@ -41,7 +41,9 @@ export function eachWords(type: LuminaireTypeRecord): string {
     case 'rated':
       return `${ratedWattsFigure(type.inputWatts)} W each`;
     case 'line-voltage-track':
-      return type.limitWatts ? `${formatWatts(type.limitWatts)} a run (limiter rating)` : `at least ${ratedWattsFigure(type.inputWatts)} W a run`;
+      return type.limitWatts
+        ? `${formatWatts(type.limitWatts)} a run (limiter rating)`
+        : `at least ${ratedWattsFigure(type.inputWatts)} W a run`;
     case 'low-voltage-track':
       return `${formatWatts(type.limitWatts)} a run (transformer rating)`;
     case 'current-limited':

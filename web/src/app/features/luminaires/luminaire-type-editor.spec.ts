@@ -23,7 +23,10 @@ describe('LuminaireTypeEditor', () => {
         provideHttpClient(withInterceptors([apiInterceptor])),
         provideHttpClientTesting(),
         { provide: MAT_DIALOG_DATA, useValue: data },
-        { provide: MatDialogRef, useValue: { disableClose: false, close: () => undefined, backdropClick: () => EMPTY, keydownEvents: () => EMPTY } },
+        {
+          provide: MatDialogRef,
+          useValue: { disableClose: false, close: () => undefined, backdropClick: () => EMPTY, keydownEvents: () => EMPTY },
+        },
       ],
     });
     http = TestBed.inject(HttpTestingController);
@@ -33,7 +36,9 @@ describe('LuminaireTypeEditor', () => {
   });
 
   function fill(label: string, value: string): void {
-    const field = Array.from(element.querySelectorAll('mat-form-field')).find((candidate) => candidate.querySelector('mat-label')?.textContent?.trim() === label)!;
+    const field = Array.from(element.querySelectorAll('mat-form-field')).find(
+      (candidate) => candidate.querySelector('mat-label')?.textContent?.trim() === label,
+    )!;
     const input = field.querySelector('input')!;
     input.value = value;
     input.dispatchEvent(new Event('input'));
@@ -48,7 +53,9 @@ describe('LuminaireTypeEditor', () => {
     fill('Light source', 'LED, 4000 K');
     fill('Driver', '0–10 V dimming');
     fill('Voltage', '120–277 V');
-    Array.from(element.querySelectorAll<HTMLButtonElement>('button')).find((button) => button.textContent?.includes('Add type'))!.click();
+    Array.from(element.querySelectorAll<HTMLButtonElement>('button'))
+      .find((button) => button.textContent?.includes('Add type'))!
+      .click();
     await fixture.whenStable();
     const request = http.expectOne((candidate) => candidate.method === 'POST' && candidate.url === '/api/projects/p1/luminaire-types');
     expect(request.request.body).toMatchObject({
@@ -62,10 +69,12 @@ describe('LuminaireTypeEditor', () => {
     });
   });
 
-  it('refuses a rated input out of the service\'s range beside the field', async () => {
+  it("refuses a rated input out of the service's range beside the field", async () => {
     fill('Type tag', 'H1');
     fill('Rated input (W)', '250000');
-    Array.from(element.querySelectorAll<HTMLButtonElement>('button')).find((button) => button.textContent?.includes('Add type'))!.click();
+    Array.from(element.querySelectorAll<HTMLButtonElement>('button'))
+      .find((button) => button.textContent?.includes('Add type'))!
+      .click();
     await fixture.whenStable();
     http.expectNone('/api/projects/p1/luminaire-types');
     expect(element.querySelector('mat-error')?.textContent).toContain('Out of range. Enter a number from 0 to 100,000.');

@@ -37,18 +37,53 @@ export interface LuminaireTypeEditorData {
 
 @Component({
   selector: 'al-luminaire-type-editor',
-  imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatDialogModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+  ],
   templateUrl: './luminaire-type-editor.html',
   // A hint or message that wraps pushes the next row down instead of running over its label.
   providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { subscriptSizing: 'dynamic' } }],
   styles: `
-    .fields { display: grid; grid-template-columns: repeat(auto-fill, minmax(180px, 1fr)); align-items: start; gap: 12px 16px; padding-top: 8px !important; }
-    .wide { grid-column: 1 / -1; }
-    .double { grid-column: span 2; }
-    .group-heading { margin: 8px 0 0; font: var(--mat-sys-title-small); color: var(--mat-sys-on-surface-variant); }
-    @media (max-width: 599px) { .double { grid-column: 1 / -1; } }
-    .failure { display: flex; align-items: center; gap: 8px; color: var(--mat-sys-error); }
-    .note { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
+    .fields {
+      display: grid;
+      grid-template-columns: repeat(auto-fill, minmax(180px, 1fr));
+      align-items: start;
+      gap: 12px 16px;
+      padding-top: 8px !important;
+    }
+    .wide {
+      grid-column: 1 / -1;
+    }
+    .double {
+      grid-column: span 2;
+    }
+    .group-heading {
+      margin: 8px 0 0;
+      font: var(--mat-sys-title-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    @media (max-width: 599px) {
+      .double {
+        grid-column: 1 / -1;
+      }
+    }
+    .failure {
+      display: flex;
+      align-items: center;
+      gap: 8px;
+      color: var(--mat-sys-error);
+    }
+    .note {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -86,7 +121,10 @@ export class LuminaireTypeEditor {
 
   protected cancel(): void {
     if (!this.form.dirty) this.dialog.close();
-    else askToDiscard(this.dialogs, 'The changes to this luminaire type are not saved.').subscribe((discard) => discard && this.dialog.close());
+    else
+      askToDiscard(this.dialogs, 'The changes to this luminaire type are not saved.').subscribe(
+        (discard) => discard && this.dialog.close(),
+      );
   }
 
   protected save(): void {
@@ -98,7 +136,9 @@ export class LuminaireTypeEditor {
     }
     const { projectId, type } = this.data;
     const body = luminaireTypeFromForm(this.form);
-    const request: Observable<LuminaireTypeRecord> = type ? this.api.replaceLuminaireType(projectId, type.id, type.version, body) : this.api.createLuminaireType(projectId, body);
+    const request: Observable<LuminaireTypeRecord> = type
+      ? this.api.replaceLuminaireType(projectId, type.id, type.version, body)
+      : this.api.createLuminaireType(projectId, body);
     this.failure.set(null);
     this.writeFailure.save(request, {
       saving: this.saving,

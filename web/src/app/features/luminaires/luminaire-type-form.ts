@@ -27,8 +27,18 @@ function luminaireRules(group: AbstractControl): ValidationErrors | null {
     else delete errors[key];
     control.setErrors(Object.keys(errors).length ? errors : null, { emitEvent: false });
   };
-  set(exemptReason, 'rule', use.value === 'exempt' && exemptReason.value.trim() === '' ? 'Exempt lighting needs the reason it is exempt.' : null);
-  set(length, 'rule', basis.value === 'line-voltage-track' && length.value.trim() === '' && limitWatts.value.trim() === '' ? 'Line-voltage track needs its length (or the current limiter rating).' : null);
+  set(
+    exemptReason,
+    'rule',
+    use.value === 'exempt' && exemptReason.value.trim() === '' ? 'Exempt lighting needs the reason it is exempt.' : null,
+  );
+  set(
+    length,
+    'rule',
+    basis.value === 'line-voltage-track' && length.value.trim() === '' && limitWatts.value.trim() === ''
+      ? 'Line-voltage track needs its length (or the current limiter rating).'
+      : null,
+  );
   const needsLimit = basis.value === 'low-voltage-track' || basis.value === 'current-limited';
   set(
     limitWatts,

@@ -9,7 +9,18 @@ import { ProjectStore } from '../workspace/project-store';
 import { LuminairesPage } from './luminaires-page';
 
 // Invented project and luminaire types.
-const project = { id: 'p1', name: 'Harbour Pavilion', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', version: 1, members: [], archivedAt: null } as unknown as ProjectDetail;
+const project = {
+  id: 'p1',
+  name: 'Harbour Pavilion',
+  state: 'draft',
+  role: 'engineer',
+  edition: 'iecc-2021',
+  method: 'space-by-space',
+  units: 'ip',
+  version: 1,
+  members: [],
+  archivedAt: null,
+} as unknown as ProjectDetail;
 const stamp = { version: 2, updatedAt: '', updatedBy: null };
 const types: LuminaireTypeRecord[] = [
   { id: 't1', tag: 'A', description: '2×4 troffer', inputWatts: '30', use: 'general', basis: 'rated', ...stamp },
@@ -52,7 +63,13 @@ describe('LuminairesPage', () => {
   beforeEach(async () => {
     TestBed.configureTestingModule({
       imports: [LuminairesPage],
-      providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting(), ProjectStore],
+      providers: [
+        provideZonelessChangeDetection(),
+        provideRouter([]),
+        provideHttpClient(withInterceptors([apiInterceptor])),
+        provideHttpClientTesting(),
+        ProjectStore,
+      ],
     });
     store = TestBed.inject(ProjectStore);
     vi.spyOn(store, 'refreshResults').mockImplementation(() => undefined);
@@ -76,9 +93,13 @@ describe('LuminairesPage', () => {
     expect(store.luminaireTypes().map((type) => type.tag)).toEqual(['B', 'H']);
     expect(snackBar()?.textContent).toContain('Luminaire type “A” deleted');
 
-    Array.from(snackBar()!.querySelectorAll<HTMLButtonElement>('button')).find((button) => button.textContent?.includes('Undo'))!.click();
+    Array.from(snackBar()!.querySelectorAll<HTMLButtonElement>('button'))
+      .find((button) => button.textContent?.includes('Undo'))!
+      .click();
     http.expectNone((request) => request.method === 'POST' && request.url === '/api/projects/p1/luminaire-types');
-    http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/luminaire-types/t1/restore').flush(types[0]!, { status: 201, statusText: 'Created' });
+    http
+      .expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/luminaire-types/t1/restore')
+      .flush(types[0]!, { status: 201, statusText: 'Created' });
     await fixture.whenStable();
     expect(store.luminaireTypes().map((type) => type.id)).toEqual(['t1', 't2', 't3']);
   });
@@ -87,7 +108,10 @@ describe('LuminairesPage', () => {
     element.querySelector<HTMLButtonElement>('button[aria-label="Delete type B"]')!.click();
     http
       .expectOne((request) => request.url === '/api/projects/p1/luminaire-types/t2')
-      .flush({ error: { code: 'in_use', message: 'This luminaire type is still counted in 1 space(s): Exam 1. Remove those counts first.' } }, { status: 409, statusText: 'Conflict' });
+      .flush(
+        { error: { code: 'in_use', message: 'This luminaire type is still counted in 1 space(s): Exam 1. Remove those counts first.' } },
+        { status: 409, statusText: 'Conflict' },
+      );
     await fixture.whenStable();
     expect(snackBar()?.textContent).toContain('still counted in 1 space(s): Exam 1');
     expect(snackBar()?.textContent).not.toContain('Reload');
@@ -122,9 +146,13 @@ describe('LuminairesPage', () => {
       .find((option) => option.textContent?.trim() === 'Toplit')!
       .click();
     await fixture.whenStable();
-    const save = Array.from(panel.querySelectorAll<HTMLButtonElement>('button')).find((button) => button.textContent?.includes('Save counts'))!;
+    const save = Array.from(panel.querySelectorAll<HTMLButtonElement>('button')).find((button) =>
+      button.textContent?.includes('Save counts'),
+    )!;
     expect(save.disabled).toBe(false);
-    const submitted = new Promise<SubmitEvent>((resolve) => panel.querySelector('form')!.addEventListener('submit', (event) => resolve(event as SubmitEvent), { once: true }));
+    const submitted = new Promise<SubmitEvent>((resolve) =>
+      panel.querySelector('form')!.addEventListener('submit', (event) => resolve(event as SubmitEvent), { once: true }),
+    );
     save.click();
     // The form is the app's, not the browser's: no page load.
     expect((await submitted).defaultPrevented).toBe(true);

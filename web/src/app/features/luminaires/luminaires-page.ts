@@ -1,4 +1,15 @@
-import { afterNextRender, ChangeDetectionStrategy, Component, computed, inject, Injector, input, linkedSignal, signal, viewChild } from '@angular/core';
+import {
+  afterNextRender,
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  Injector,
+  input,
+  linkedSignal,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -51,13 +62,25 @@ export class LuminairesPage implements HasUnsavedChanges {
   /** The space whose counts panel to open, from `?space=`. */
   readonly space = input<string>();
 
-  protected readonly columns = computed(() => ['tag', 'description', 'product', 'source', 'inputWatts', 'use', 'basis', ...(this.store.canEdit() ? ['actions'] : [])]);
+  protected readonly columns = computed(() => [
+    'tag',
+    'description',
+    'product',
+    'source',
+    'inputWatts',
+    'use',
+    'basis',
+    ...(this.store.canEdit() ? ['actions'] : []),
+  ]);
   protected readonly useLabels = useLabels;
   protected readonly basisLabels = basisLabels;
   protected readonly ratedWatts = ratedWattsFigure;
   protected readonly saving = signal<ReadonlySet<string>>(new Set());
   protected readonly tabIndex = linkedSignal<number>(() => (this.tab() === 'counts' ? 1 : 0));
-  protected readonly selectedId = linkedSignal<string | undefined, string | null>({ source: this.space, computation: (space, previous) => space ?? previous?.value ?? null });
+  protected readonly selectedId = linkedSignal<string | undefined, string | null>({
+    source: this.space,
+    computation: (space, previous) => space ?? previous?.value ?? null,
+  });
   protected readonly selected = computed(() => this.store.spaces().find((space) => space.id === this.selectedId()) ?? null);
   private readonly openPanel = viewChild(SpaceCounts);
   private readonly countGrid = viewChild(CountGrid);
@@ -76,7 +99,10 @@ export class LuminairesPage implements HasUnsavedChanges {
   }
 
   hasUnsavedChanges(): boolean {
-    return this.dialogs.openDialogs.some((dialog) => (dialog.componentInstance as Partial<HasUnsavedChanges>).hasUnsavedChanges?.() ?? false) || (this.openPanel()?.hasUnsavedChanges() ?? false);
+    return (
+      this.dialogs.openDialogs.some((dialog) => (dialog.componentInstance as Partial<HasUnsavedChanges>).hasUnsavedChanges?.() ?? false) ||
+      (this.openPanel()?.hasUnsavedChanges() ?? false)
+    );
   }
 
   protected showTab(index: number): void {
@@ -122,7 +148,11 @@ export class LuminairesPage implements HasUnsavedChanges {
     if (!projectId) return;
     const data: LuminaireTypeEditorData = { projectId, type, units: this.store.units(), reload: () => this.reloadTypes() };
     this.dialogs
-      .open<LuminaireTypeEditor, LuminaireTypeEditorData, LuminaireTypeRecord>(LuminaireTypeEditor, { data, width: '680px', maxWidth: '96vw' })
+      .open<LuminaireTypeEditor, LuminaireTypeEditorData, LuminaireTypeRecord>(LuminaireTypeEditor, {
+        data,
+        width: '680px',
+        maxWidth: '96vw',
+      })
       .afterClosed()
       .subscribe((saved) => {
         if (!saved) return;

@@ -40,7 +40,8 @@ const statusWords: Record<MailStatus, string> = { queued: 'Waiting to send', sen
 
 /** The state of one message in words, with what the mail server said when it did not take it. */
 export function mailStatusWords(entry: OutboxEntry): string {
-  if (entry.status === 'queued' && entry.attempts > 0) return `Waiting to send (tried ${entry.attempts} time${entry.attempts === 1 ? '' : 's'})`;
+  if (entry.status === 'queued' && entry.attempts > 0)
+    return `Waiting to send (tried ${entry.attempts} time${entry.attempts === 1 ? '' : 's'})`;
   if (entry.status === 'failed') return `Failed after ${entry.attempts} attempt${entry.attempts === 1 ? '' : 's'}`;
   return statusWords[entry.status];
 }

@@ -17,10 +17,22 @@ import { PeopleApi, type AccountView } from './people-api';
 /** For administrators: every account, a new one (its owner chooses the password by mail), and who may administer. */
 @Component({
   selector: 'al-people-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, CardRows],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    CardRows,
+  ],
   template: `
     <header class="heading"><h1>People</h1></header>
-    <p class="hint">Everyone with an Allowlight account. A new account gets a message with a link to choose its password. A disabled account cannot sign in and its sessions end; its work stays in the projects.</p>
+    <p class="hint">
+      Everyone with an Allowlight account. A new account gets a message with a link to choose its password. A disabled account cannot sign
+      in and its sessions end; its work stays in the projects.
+    </p>
     <section class="new" aria-labelledby="new-heading">
       <h2 id="new-heading">New account</h2>
       <form [formGroup]="form" (ngSubmit)="create()" novalidate>
@@ -57,9 +69,17 @@ import { PeopleApi, type AccountView } from './people-api';
     }
     @if (accounts.hasValue()) {
       <table alCardRows class="accounts">
-        <caption class="visually-hidden">Accounts</caption>
+        <caption class="visually-hidden">
+          Accounts
+        </caption>
         <thead>
-          <tr><th scope="col">Name</th><th scope="col">E-mail</th><th scope="col">Role</th><th scope="col">State</th><th scope="col"><span class="visually-hidden">Changes</span></th></tr>
+          <tr>
+            <th scope="col">Name</th>
+            <th scope="col">E-mail</th>
+            <th scope="col">Role</th>
+            <th scope="col">State</th>
+            <th scope="col"><span class="visually-hidden">Changes</span></th>
+          </tr>
         </thead>
         <tbody>
           @for (account of accounts.value(); track account.id) {
@@ -87,20 +107,66 @@ import { PeopleApi, type AccountView } from './people-api';
     }
   `,
   styles: `
-    :host { display: block; max-width: 1100px; }
-    .heading h1 { font: var(--mat-sys-headline-medium); margin: 0 0 8px; }
-    h2 { font: var(--mat-sys-title-large); margin: 0 0 8px; }
-    .hint { color: var(--mat-sys-on-surface-variant); }
-    .new { padding: 16px; border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; margin-bottom: 16px; }
-    form { display: flex; flex-wrap: wrap; gap: 0 16px; align-items: baseline; }
-    mat-form-field { flex: 1 1 240px; }
-    .accounts { width: 100%; border-collapse: collapse; }
-    .accounts th, .accounts td { text-align: left; padding: 6px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); }
-    .actions { display: flex; gap: 8px; flex-wrap: wrap; }
-    tr.disabled td:not(.actions) { color: var(--mat-sys-on-surface-variant); }
-    .notice, .failure { display: flex; align-items: center; gap: 8px; }
-    .notice { color: var(--mat-sys-primary); }
-    .failure { color: var(--mat-sys-error); }
+    :host {
+      display: block;
+      max-width: 1100px;
+    }
+    .heading h1 {
+      font: var(--mat-sys-headline-medium);
+      margin: 0 0 8px;
+    }
+    h2 {
+      font: var(--mat-sys-title-large);
+      margin: 0 0 8px;
+    }
+    .hint {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .new {
+      padding: 16px;
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+      margin-bottom: 16px;
+    }
+    form {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0 16px;
+      align-items: baseline;
+    }
+    mat-form-field {
+      flex: 1 1 240px;
+    }
+    .accounts {
+      width: 100%;
+      border-collapse: collapse;
+    }
+    .accounts th,
+    .accounts td {
+      text-align: left;
+      padding: 6px 8px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    .actions {
+      display: flex;
+      gap: 8px;
+      flex-wrap: wrap;
+    }
+    tr.disabled td:not(.actions) {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .notice,
+    .failure {
+      display: flex;
+      align-items: center;
+      gap: 8px;
+    }
+    .notice {
+      color: var(--mat-sys-primary);
+    }
+    .failure {
+      color: var(--mat-sys-error);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -142,7 +208,11 @@ export class PeoplePage {
   }
 
   protected toggleAdmin(account: AccountView): void {
-    this.change(account, { isAdmin: !account.isAdmin }, account.isAdmin ? `${account.name} is no longer an administrator.` : `${account.name} is an administrator now.`);
+    this.change(
+      account,
+      { isAdmin: !account.isAdmin },
+      account.isAdmin ? `${account.name} is no longer an administrator.` : `${account.name} is an administrator now.`,
+    );
   }
 
   protected toggleDisabled(account: AccountView): void {

@@ -26,8 +26,8 @@ export interface CopyProjectData {
     <form [formGroup]="form" (ngSubmit)="copy()" novalidate>
       <mat-dialog-content>
         <p class="note">
-          The copy is a new draft with this project's whole set-up and design, for a similar building or to try another method. You become its
-          engineer; the team and the history stay with the original.
+          The copy is a new draft with this project's whole set-up and design, for a similar building or to try another method. You become
+          its engineer; the team and the history stay with the original.
         </p>
         <mat-form-field appearance="outline" subscriptSizing="dynamic" class="name">
           <mat-label>Name of the copy</mat-label>
@@ -108,6 +108,10 @@ export class CopyProjectDialog {
 /** Opens the dialog for a project; emits the copy once made, or undefined when the person cancels. */
 export function openCopyDialog(dialogs: MatDialog, project: { id: string; name: string }): Observable<ProjectDetail | undefined> {
   return dialogs
-    .open<CopyProjectDialog, CopyProjectData, ProjectDetail>(CopyProjectDialog, { data: { projectId: project.id, name: project.name }, width: '520px', maxWidth: '96vw' })
+    .open<CopyProjectDialog, CopyProjectData, ProjectDetail>(CopyProjectDialog, {
+      data: { projectId: project.id, name: project.name },
+      width: '520px',
+      maxWidth: '96vw',
+    })
     .afterClosed();
 }

@@ -10,9 +10,42 @@ import { ProjectsPage } from './projects-page';
 
 // Invented demo projects.
 const projects: ProjectSummary[] = [
-  { id: 'p1', name: 'Cedar Hall', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', version: 1, updatedAt: '2026-03-01T10:00:00Z', resultSummary: null, archivedAt: null },
-  { id: 'p2', name: 'Alder Bay Library', state: 'in-review', role: 'reviewer', edition: 'iecc-2021', method: 'space-by-space', version: 3, updatedAt: '2026-03-02T10:00:00Z', resultSummary: null, archivedAt: null },
-  { id: 'p3', name: 'Birch Annex', state: 'accepted', role: 'engineer', edition: 'ashrae-90.1-2019', method: 'building-area', version: 2, updatedAt: '2026-03-03T10:00:00Z', resultSummary: null, archivedAt: null },
+  {
+    id: 'p1',
+    name: 'Cedar Hall',
+    state: 'draft',
+    role: 'engineer',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    version: 1,
+    updatedAt: '2026-03-01T10:00:00Z',
+    resultSummary: null,
+    archivedAt: null,
+  },
+  {
+    id: 'p2',
+    name: 'Alder Bay Library',
+    state: 'in-review',
+    role: 'reviewer',
+    edition: 'iecc-2021',
+    method: 'space-by-space',
+    version: 3,
+    updatedAt: '2026-03-02T10:00:00Z',
+    resultSummary: null,
+    archivedAt: null,
+  },
+  {
+    id: 'p3',
+    name: 'Birch Annex',
+    state: 'accepted',
+    role: 'engineer',
+    edition: 'ashrae-90.1-2019',
+    method: 'building-area',
+    version: 2,
+    updatedAt: '2026-03-03T10:00:00Z',
+    resultSummary: null,
+    archivedAt: null,
+  },
 ];
 
 describe('ProjectsPage', () => {
@@ -49,11 +82,18 @@ describe('ProjectsPage', () => {
     expect(element.textContent).toContain('In review');
     const pending = http.match((request) => request.url.endsWith('/results'));
     expect(pending.length).toBe(3);
-    pending.find((request) => request.request.url.includes('p1'))!.flush({ complies: true, verdict: 'complies', interior: { marginPct: '12.345' } });
-    pending.find((request) => request.request.url.includes('p2'))!.flush({ complies: false, verdict: 'does-not-comply', interior: { marginPct: '-4.2' } });
+    pending
+      .find((request) => request.request.url.includes('p1'))!
+      .flush({ complies: true, verdict: 'complies', interior: { marginPct: '12.345' } });
+    pending
+      .find((request) => request.request.url.includes('p2'))!
+      .flush({ complies: false, verdict: 'does-not-comply', interior: { marginPct: '-4.2' } });
     pending
       .find((request) => request.request.url.includes('p3'))!
-      .flush({ error: { code: 'validation_failed', message: 'At least one space is needed.' } }, { status: 400, statusText: 'Bad Request' });
+      .flush(
+        { error: { code: 'validation_failed', message: 'At least one space is needed.' } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await fixture.whenStable();
     const text = element.textContent ?? '';
     expect(text).toContain('12.3');
@@ -101,12 +141,17 @@ describe('ProjectsPage', () => {
   });
 
   it('archives a project the user engineers after a confirm dialog, and lists archived projects with Unarchive', async () => {
-    http.match((request) => request.url.endsWith('/results')).forEach((request) => request.flush({ complies: true, verdict: 'complies', interior: { marginPct: '1' } }));
+    http
+      .match((request) => request.url.endsWith('/results'))
+      .forEach((request) => request.flush({ complies: true, verdict: 'complies', interior: { marginPct: '1' } }));
     await fixture.whenStable();
     // A reviewer on the project may not archive it.
     expect(element.querySelector('button[aria-label="Archive Alder Bay Library"]')).toBeNull();
 
-    const dialogButton = (text: string) => Array.from(document.querySelectorAll<HTMLButtonElement>('mat-dialog-container button')).find((button) => button.textContent?.trim() === text);
+    const dialogButton = (text: string) =>
+      Array.from(document.querySelectorAll<HTMLButtonElement>('mat-dialog-container button')).find(
+        (button) => button.textContent?.trim() === text,
+      );
     element.querySelector<HTMLButtonElement>('button[aria-label="Archive Cedar Hall"]')!.click();
     await fixture.whenStable();
     expect(document.querySelector('mat-dialog-container')?.textContent).toContain('Archive “Cedar Hall”?');
@@ -118,7 +163,9 @@ describe('ProjectsPage', () => {
     await fixture.whenStable();
     dialogButton('Archive')!.click();
     await fixture.whenStable();
-    http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/archive').flush({ ...projects[0], archivedAt: '2026-03-04T10:00:00Z', members: [] });
+    http
+      .expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/archive')
+      .flush({ ...projects[0], archivedAt: '2026-03-04T10:00:00Z', members: [] });
     await fixture.whenStable();
     http.expectOne('/api/projects').flush([projects[1], projects[2]]);
     await fixture.whenStable();
@@ -133,7 +180,9 @@ describe('ProjectsPage', () => {
     expect(names()).toEqual(['Cedar Hall']);
     expect(element.querySelector('table')?.getAttribute('aria-label')).toBe('Your archived projects');
     element.querySelector<HTMLButtonElement>('button[aria-label="Unarchive Cedar Hall"]')!.click();
-    http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/unarchive').flush({ ...projects[0], members: [] });
+    http
+      .expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/unarchive')
+      .flush({ ...projects[0], members: [] });
     await fixture.whenStable();
     http.expectOne((request) => request.url === '/api/projects' && request.params.get('archived') === 'true').flush([]);
     await fixture.whenStable();

@@ -35,7 +35,22 @@ const verdictConcurrency = 3;
 
 @Component({
   selector: 'al-projects-page',
-  imports: [CardRows, DatePipe, RouterLink, MatButtonModule, MatChipsModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatProgressBarModule, MatSlideToggleModule, MatSortModule, MatTableModule, MatTooltipModule],
+  imports: [
+    CardRows,
+    DatePipe,
+    RouterLink,
+    MatButtonModule,
+    MatChipsModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSlideToggleModule,
+    MatSortModule,
+    MatTableModule,
+    MatTooltipModule,
+  ],
   templateUrl: './projects-page.html',
   styleUrl: './projects-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -64,7 +79,9 @@ export class ProjectsPage {
       switchMap(({ archived }) =>
         this.api.list(archived).pipe(
           map((projects): ListState => ({ status: 'ready', projects })),
-          catchError((error: unknown) => of<ListState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'The projects could not be loaded.' })),
+          catchError((error: unknown) =>
+            of<ListState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'The projects could not be loaded.' }),
+          ),
           startWith<ListState>({ status: 'loading' }),
         ),
       ),
@@ -95,7 +112,10 @@ export class ProjectsPage {
       }
     };
     this.dataSource.filterPredicate = (project, filter) =>
-      [project.name, stateLabels[project.state], this.editionLabel(project), project.role ?? ''].join(' ').toLocaleLowerCase().includes(filter);
+      [project.name, stateLabels[project.state], this.editionLabel(project), project.role ?? '']
+        .join(' ')
+        .toLocaleLowerCase()
+        .includes(filter);
 
     effect(() => {
       const state = this.list();
@@ -143,12 +163,17 @@ export class ProjectsPage {
     (archived ? this.api.archive(project.id) : this.api.unarchive(project.id)).subscribe({
       next: () => {
         this.busy.set(null);
-        this.snackBar.open(archived ? `“${project.name}” archived` : `“${project.name}” is back among the current projects`, undefined, { duration: 4000 });
+        this.snackBar.open(archived ? `“${project.name}” archived` : `“${project.name}” is back among the current projects`, undefined, {
+          duration: 4000,
+        });
         this.reloads.update((count) => count + 1);
       },
       error: (error: unknown) => {
         this.busy.set(null);
-        this.snackBar.open(error instanceof ApiError ? error.message : 'The project could not be changed.', 'Dismiss', { duration: 8000, politeness: 'assertive' });
+        this.snackBar.open(error instanceof ApiError ? error.message : 'The project could not be changed.', 'Dismiss', {
+          duration: 8000,
+          politeness: 'assertive',
+        });
       },
     });
   }
@@ -190,7 +215,13 @@ export class ProjectsPage {
     const kept = new Map<string, ProjectVerdict>();
     for (const project of projects) {
       const summary = project.resultSummary;
-      if (summary) kept.set(project.id, summary.verdict === 'incomplete' ? { status: 'incomplete' } : { status: summary.complies ? 'complies' : 'does-not-comply', marginPct: summary.marginPct });
+      if (summary)
+        kept.set(
+          project.id,
+          summary.verdict === 'incomplete'
+            ? { status: 'incomplete' }
+            : { status: summary.complies ? 'complies' : 'does-not-comply', marginPct: summary.marginPct },
+        );
     }
     this.verdicts.set(kept);
     from(projects.filter((project) => project.edition && !project.resultSummary))

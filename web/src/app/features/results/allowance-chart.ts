@@ -31,12 +31,24 @@ export function chartBars(result: EvaluationResult, by: ChartGrouping): ChartBar
     return result.interior.spaces.map((space) => {
       // A space without luminaires has no margin to speak of: its words say what it waits for.
       const status = spaceAllowanceStatus(space);
-      return { label: space.name, allowanceW: Number(space.allowanceW), installedW: Number(space.installedW), within: !status.over, words: `${status.label}, ${status.words}` };
+      return {
+        label: space.name,
+        allowanceW: Number(space.allowanceW),
+        installedW: Number(space.installedW),
+        within: !status.over,
+        words: `${status.label}, ${status.words}`,
+      };
     });
   }
   return (result.interior.levels ?? []).map((level) => {
     const status = allowanceStatus(Number(level.marginW) >= 0, level.marginW);
-    return { label: level.level, allowanceW: Number(level.allowanceW), installedW: Number(level.installedW), within: status.within, words: `${status.label}, ${status.words}` };
+    return {
+      label: level.level,
+      allowanceW: Number(level.allowanceW),
+      installedW: Number(level.installedW),
+      within: status.within,
+      words: `${status.label}, ${status.words}`,
+    };
   });
 }
 
@@ -122,7 +134,11 @@ export class AllowanceChart {
       maintainAspectRatio: false,
       animation: false,
       scales: {
-        x: { title: { display: true, text: 'Watts (W)', color: palette.text }, ticks: { color: palette.text, maxTicksLimit: phone ? 4 : 11 }, grid: { color: palette.grid } },
+        x: {
+          title: { display: true, text: 'Watts (W)', color: palette.text },
+          ticks: { color: palette.text, maxTicksLimit: phone ? 4 : 11 },
+          grid: { color: palette.grid },
+        },
         // The full name is in the tooltip and in the table below.
         y: { ticks: { color: palette.text, autoSkip: false, callback: (_value, index) => label(index) }, grid: { display: false } },
       },

@@ -10,7 +10,12 @@ export const invented: UnverifiedValue = {
   what: 'Invented value',
   source: 'IECC 2021 Section C405.9.9 — not yet checked against the printed code',
   note: 'An invented note about 5,000 ft² zones.',
-  citation: { short: 'IECC 2021 Section C405.9.9 — not yet checked against the printed code', layer: 'not-checked', checked: false, note: 'An invented note about 5,000 ft² zones.' },
+  citation: {
+    short: 'IECC 2021 Section C405.9.9 — not yet checked against the printed code',
+    layer: 'not-checked',
+    checked: false,
+    note: 'An invented note about 5,000 ft² zones.',
+  },
 };
 
 export function controlLine(overrides: Partial<ControlLine>): ControlLine {
@@ -109,7 +114,16 @@ export function evaluation(): EvaluationResult {
           withinAllowance: false,
           marginW: '-30',
           marginPct: '-6',
-          controls: [controlLine({ strategy: 'light-reduction', label: 'Light-reduction control', status: 'not-met', met: false, section: 'C405.2.3', verified: false })],
+          controls: [
+            controlLine({
+              strategy: 'light-reduction',
+              label: 'Light-reduction control',
+              status: 'not-met',
+              met: false,
+              section: 'C405.2.3',
+              verified: false,
+            }),
+          ],
           unverified: [invented.id],
         }),
       ],

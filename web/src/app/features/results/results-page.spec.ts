@@ -10,7 +10,18 @@ import { ResultsPage } from './results-page';
 import { evaluation } from './results-fixture';
 
 // Invented project.
-const project = { id: 'p1', name: 'Tacoma annex', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', version: 1, members: [], amendments: [] } as unknown as ProjectDetail;
+const project = {
+  id: 'p1',
+  name: 'Tacoma annex',
+  state: 'draft',
+  role: 'engineer',
+  edition: 'iecc-2021',
+  method: 'space-by-space',
+  units: 'ip',
+  version: 1,
+  members: [],
+  amendments: [],
+} as unknown as ProjectDetail;
 
 describe('ResultsPage', () => {
   let fixture: ComponentFixture<ResultsPage>;
@@ -20,7 +31,13 @@ describe('ResultsPage', () => {
   beforeEach(async () => {
     TestBed.configureTestingModule({
       imports: [ResultsPage],
-      providers: [provideZonelessChangeDetection(), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting(), provideRouter([]), ProjectStore],
+      providers: [
+        provideZonelessChangeDetection(),
+        provideHttpClient(withInterceptors([apiInterceptor])),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        ProjectStore,
+      ],
     });
     store = TestBed.inject(ProjectStore);
     store.seed({ project });
@@ -38,9 +55,19 @@ describe('ResultsPage', () => {
 
   it('names each jurisdiction amendment the result applied, by its title', async () => {
     // The title as reference/iecc-2021/amendments.json holds it (Washington State Energy Code 2021).
-    store.seed({ results: { status: 'ready', result: { ...evaluation(), amendments: [{ key: 'washington-2021', title: "Washington State Energy Code 2021 (Washington's amendments to IECC 2021)" }] } } });
+    store.seed({
+      results: {
+        status: 'ready',
+        result: {
+          ...evaluation(),
+          amendments: [{ key: 'washington-2021', title: "Washington State Energy Code 2021 (Washington's amendments to IECC 2021)" }],
+        },
+      },
+    });
     await fixture.whenStable();
-    expect(basis()).toBe("gavel Jurisdiction amendment applied over the model code: Washington State Energy Code 2021 (Washington's amendments to IECC 2021).");
+    expect(basis()).toBe(
+      "gavel Jurisdiction amendment applied over the model code: Washington State Energy Code 2021 (Washington's amendments to IECC 2021).",
+    );
     expect(basis()).not.toContain('washington-2021');
   });
 });

@@ -46,7 +46,9 @@ export class ResultsPage {
     this.failure.save(this.api.patchSpace(projectId, space.id, space.version, { unlit: true }), {
       saved: (saved) => {
         this.store.upsertSpace(saved);
-        this.snackBar.open(`“${saved.name}” is confirmed unlit: it adds no allowance and no longer holds the verdict back.`, undefined, { duration: 5000 });
+        this.snackBar.open(`“${saved.name}” is confirmed unlit: it adds no allowance and no longer holds the verdict back.`, undefined, {
+          duration: 5000,
+        });
       },
       reload: () => this.store.reloadSpaces().subscribe(),
     });

@@ -76,7 +76,15 @@ describe('ResultsSummary', () => {
           baseSiteUsedW: '100',
           marginW: '0',
           withinAllowance: true,
-          controls: [controlLine({ strategy: 'exterior-daylight-off', label: 'Exterior daylight shutoff', status: 'not-met', met: false, section: 'C405.2.7.1' })],
+          controls: [
+            controlLine({
+              strategy: 'exterior-daylight-off',
+              label: 'Exterior daylight shutoff',
+              status: 'not-met',
+              met: false,
+              section: 'C405.2.7.1',
+            }),
+          ],
           section: 'C405.5.2',
         },
       ],
@@ -108,13 +116,34 @@ describe('ResultsSummary', () => {
       baseSiteRemainingW: '0',
       baseSiteCoversNontradable: false,
       applications: [
-        { key: 'facades', label: 'Building facades', tradable: false, unit: 'W/ft²', quantity: '1000', rate: '0.1', allowanceW: '100', installedW: '200', exemptW: '0', exemption: null, baseSiteUsedW: '0', marginW: '-100', withinAllowance: false, controls: [], section: 'C405.5.2' },
+        {
+          key: 'facades',
+          label: 'Building facades',
+          tradable: false,
+          unit: 'W/ft²',
+          quantity: '1000',
+          rate: '0.1',
+          allowanceW: '100',
+          installedW: '200',
+          exemptW: '0',
+          exemption: null,
+          baseSiteUsedW: '0',
+          marginW: '-100',
+          withinAllowance: false,
+          controls: [],
+          section: 'C405.5.2',
+        },
       ],
     };
     const reasons = verdictReasons(result);
     expect(reasons.map((reason) => reason.kind)).toEqual(['interior-power', 'interior-controls', 'exterior-power']);
-    expect(reasons[0]!.items.map((item) => [item.text, item.link])).toEqual([['Storage: 30 W over its allowance', { page: 'spaces', query: { space: 's2' } }]]);
-    expect(reasons[2]!.items.map((item) => item.text)).toEqual(['Tradable applications together: 200 W over their pooled allowance', 'Building facades: 100 W over its own allowance']);
+    expect(reasons[0]!.items.map((item) => [item.text, item.link])).toEqual([
+      ['Storage: 30 W over its allowance', { page: 'spaces', query: { space: 's2' } }],
+    ]);
+    expect(reasons[2]!.items.map((item) => item.text)).toEqual([
+      'Tradable applications together: 200 W over their pooled allowance',
+      'Building facades: 100 W over its own allowance',
+    ]);
   });
 
   it('holds the verdict back for a space without luminaires, linked to it, with both ways out', async () => {
@@ -122,7 +151,18 @@ describe('ResultsSummary', () => {
     result.verdict = 'incomplete';
     result.complies = false;
     result.controlsComply = true;
-    result.interior.spaces = [result.interior.spaces[0]!, { ...result.interior.spaces[1]!, controls: [], lighting: 'none-entered', installedW: '0', marginW: '500', marginPct: '100', withinAllowance: true }];
+    result.interior.spaces = [
+      result.interior.spaces[0]!,
+      {
+        ...result.interior.spaces[1]!,
+        controls: [],
+        lighting: 'none-entered',
+        installedW: '0',
+        marginW: '500',
+        marginPct: '100',
+        withinAllowance: true,
+      },
+    ];
     result.openItems = { spacesWithoutLuminaires: 1, controlsToVerify: 0 };
     fixture.componentRef.setInput('result', result);
     fixture.componentRef.setInput('canEdit', true);
@@ -134,7 +174,9 @@ describe('ResultsSummary', () => {
     expect(item.textContent).toContain('Enter luminaires');
     const confirmed: string[] = [];
     fixture.componentInstance.confirmUnlit.subscribe((id) => confirmed.push(id));
-    Array.from(item.querySelectorAll('button')).find((button) => button.textContent?.includes('Confirm unlit'))!.click();
+    Array.from(item.querySelectorAll('button'))
+      .find((button) => button.textContent?.includes('Confirm unlit'))!
+      .click();
     expect(confirmed).toEqual(['s2']);
   });
 
@@ -143,7 +185,13 @@ describe('ResultsSummary', () => {
     result.verdict = 'incomplete';
     result.complies = false;
     result.controlsComply = true;
-    const open = { ...result.interior.spaces[0]!.controls[0]!, status: 'to-verify' as const, met: null, label: 'Occupant sensor control', reason: 'To verify: whether the room is enclosed is not recorded.' };
+    const open = {
+      ...result.interior.spaces[0]!.controls[0]!,
+      status: 'to-verify' as const,
+      met: null,
+      label: 'Occupant sensor control',
+      reason: 'To verify: whether the room is enclosed is not recorded.',
+    };
     result.interior.spaces = [{ ...result.interior.spaces[0]!, controls: [open] }];
     result.openItems = { spacesWithoutLuminaires: 0, controlsToVerify: 1 };
     fixture.componentRef.setInput('result', result);
@@ -165,11 +213,15 @@ describe('ResultsSummary', () => {
     expect(text('.unverified')).toContain('Invented value');
     expect(text('.unverified')).toContain('Source: IECC 2021 Section C405.9.9 — not yet checked against the printed code');
     const badge = element.querySelector('.unverified al-verify-badge .badge')!;
-    expect(badge.getAttribute('aria-label')).toBe('Verify: IECC 2021 Section C405.9.9 — not yet checked against the printed code. An invented note about 5,000 ft² zones.');
+    expect(badge.getAttribute('aria-label')).toBe(
+      'Verify: IECC 2021 Section C405.9.9 — not yet checked against the printed code. An invented note about 5,000 ft² zones.',
+    );
     fixture.componentRef.setInput('result', { ...evaluation(), units: 'si' });
     await fixture.whenStable();
     // 5,000 ft² × 0.09290304 m²/ft² (exact) = 464.5 m².
-    expect(element.querySelector('.unverified al-verify-badge .badge')!.getAttribute('aria-label')).toContain('An invented note about 464.5 m² zones.');
+    expect(element.querySelector('.unverified al-verify-badge .badge')!.getAttribute('aria-label')).toContain(
+      'An invented note about 464.5 m² zones.',
+    );
   });
 
   it('withholds the verdict while results are being recomputed', async () => {

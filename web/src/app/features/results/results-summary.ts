@@ -24,10 +24,20 @@ export interface UnmetLine {
 /** Every control line that still needs the engineer (not met, or to verify): spaces first, then exterior applications. */
 export function unmetControls(result: EvaluationResult): UnmetLine[] {
   const interior = result.interior.spaces.flatMap((space) =>
-    outstandingLines(space.controls).map((line): UnmetLine => ({ key: `${space.id}:${line.strategy}`, name: space.name, line, link: { page: 'controls', query: { space: space.id } } })),
+    outstandingLines(space.controls).map((line): UnmetLine => ({
+      key: `${space.id}:${line.strategy}`,
+      name: space.name,
+      line,
+      link: { page: 'controls', query: { space: space.id } },
+    })),
   );
   const exterior = (result.exterior?.applications ?? []).flatMap((application) =>
-    outstandingLines(application.controls).map((line): UnmetLine => ({ key: `${application.key}:${line.strategy}`, name: application.label, line, link: { page: 'exterior' } })),
+    outstandingLines(application.controls).map((line): UnmetLine => ({
+      key: `${application.key}:${line.strategy}`,
+      name: application.label,
+      line,
+      link: { page: 'exterior' },
+    })),
   );
   return [...interior, ...exterior];
 }
@@ -58,7 +68,9 @@ export class ResultsSummary {
   protected readonly statusView = statusView;
   protected readonly units = computed<UnitSystem>(() => this.result().units);
   protected readonly interior = computed(() => this.result().interior);
-  protected readonly interiorStatus = computed(() => allowanceStatus(this.interior().complies, this.interior().marginW, this.interior().marginPct));
+  protected readonly interiorStatus = computed(() =>
+    allowanceStatus(this.interior().complies, this.interior().marginW, this.interior().marginPct),
+  );
   protected readonly exteriorStatus = computed(() => {
     const exterior = this.result().exterior;
     return exterior ? exteriorGroups(exterior, []).total.status : null;
@@ -84,7 +96,15 @@ export class ResultsSummary {
     return (result.exterior?.applications ?? []).flatMap((application) =>
       application.exemption === null
         ? []
-        : [{ application, exemption: application.exemption, unverified: result.unverifiedValues.find((value) => value.what === `Exterior exemption: ${application.exemption!.label}`)?.citation ?? null }],
+        : [
+            {
+              application,
+              exemption: application.exemption,
+              unverified:
+                result.unverifiedValues.find((value) => value.what === `Exterior exemption: ${application.exemption!.label}`)?.citation ??
+                null,
+            },
+          ],
     );
   });
   protected readonly reasons = computed(() => verdictReasons(this.result()));

@@ -16,7 +16,8 @@ describe('SpaceResultsTable', () => {
     ]);
     await fixture.whenStable();
     const element = fixture.nativeElement as HTMLElement;
-    const row = (name: string) => Array.from(element.querySelectorAll('tr.mat-mdc-row')).find((entry) => entry.textContent?.includes(name))!;
+    const row = (name: string) =>
+      Array.from(element.querySelectorAll('tr.mat-mdc-row')).find((entry) => entry.textContent?.includes(name))!;
     expect(row('Storage').textContent).toContain('No luminaires entered');
     expect(row('Storage').textContent).not.toContain('to spare');
     expect(row('Storage').textContent).not.toContain('100.0');
@@ -30,11 +31,15 @@ describe('SpaceResultsTable', () => {
   it('marks a row whose figures rest on an unverified value, named by id in the result’s list', async () => {
     const fixture = TestBed.createComponent(SpaceResultsTable);
     const control = { ...invented, id: 'Control strategy: Occupant sensor', what: 'Control strategy: Occupant sensor' };
-    fixture.componentRef.setInput('spaces', [spaceResult({ unverified: [invented.id, control.id] }), spaceResult({ id: 's2', name: 'Storage', unverified: [] })]);
+    fixture.componentRef.setInput('spaces', [
+      spaceResult({ unverified: [invented.id, control.id] }),
+      spaceResult({ id: 's2', name: 'Storage', unverified: [] }),
+    ]);
     fixture.componentRef.setInput('unverifiedValues', [invented, control]);
     await fixture.whenStable();
     const element = fixture.nativeElement as HTMLElement;
-    const row = (name: string) => Array.from(element.querySelectorAll('tr.mat-mdc-row')).find((entry) => entry.textContent?.includes(name))!;
+    const row = (name: string) =>
+      Array.from(element.querySelectorAll('tr.mat-mdc-row')).find((entry) => entry.textContent?.includes(name))!;
     const badge = row('Reading room').querySelector('al-verify-badge .badge')!;
     // The row's figures rest on the invented value; the control's value belongs to the Controls page.
     expect(badge.getAttribute('aria-label')).toContain(`Invented value: ${invented.citation.short}`);

@@ -28,7 +28,10 @@ function figureValues(space: SpaceResult, byId: ReadonlyMap<string, UnverifiedVa
   return space.unverified
     .map((id) => byId.get(id))
     .filter((value): value is UnverifiedValue => value !== undefined)
-    .filter((value) => !value.what.startsWith('Control strategy:') && !value.what.startsWith('Daylight ') && !value.what.startsWith(`${space.name}: `));
+    .filter(
+      (value) =>
+        !value.what.startsWith('Control strategy:') && !value.what.startsWith('Daylight ') && !value.what.startsWith(`${space.name}: `),
+    );
 }
 
 /** `values` is the result's `unverifiedValues`, which the spaces name by id. */
@@ -60,7 +63,18 @@ const numericColumns: Record<string, (space: SpaceResult) => string | null> = {
 /** Each space's allowance, installed power, LPDs, margin and status; sortable, and filterable to the spaces over allowance. */
 @Component({
   selector: 'al-space-results-table',
-  imports: [CardRows, MatTableModule, MatSortModule, MatSlideToggleModule, MatFormFieldModule, MatInputModule, MatIconModule, FormsModule, VerifyBadge, InUnits],
+  imports: [
+    CardRows,
+    MatTableModule,
+    MatSortModule,
+    MatSlideToggleModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatIconModule,
+    FormsModule,
+    VerifyBadge,
+    InUnits,
+  ],
   templateUrl: './space-results-table.html',
   styleUrl: './space-results-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -76,7 +90,18 @@ export class SpaceResultsTable {
   protected readonly search = signal('');
   protected readonly labels = computed(() => unitLabels(this.units()));
   protected readonly figures = { watts: wattsFigure, density: densityFigure, percent: percentFigure, area: areaFigure };
-  protected readonly columns = ['name', 'level', 'area', 'allowedLpd', 'installedLpd', 'allowanceW', 'installedW', 'marginW', 'marginPct', 'status'];
+  protected readonly columns = [
+    'name',
+    'level',
+    'area',
+    'allowedLpd',
+    'installedLpd',
+    'allowanceW',
+    'installedW',
+    'marginW',
+    'marginPct',
+    'status',
+  ];
   protected readonly overCount = computed(() => this.spaces().filter((space) => spaceAllowanceStatus(space).over).length);
 
   protected readonly dataSource = new MatTableDataSource<SpaceRow>([]);
@@ -86,7 +111,10 @@ export class SpaceResultsTable {
     this.dataSource.sortingDataAccessor = (row, column) => {
       const numeric = numericColumns[column];
       // A margin without luminaires means nothing: those rows sort with the empty ones.
-      if (numeric) return !row.status.hasMargin && column.startsWith('margin') ? Number.NEGATIVE_INFINITY : Number(numeric(row.space) ?? Number.NEGATIVE_INFINITY);
+      if (numeric)
+        return !row.status.hasMargin && column.startsWith('margin')
+          ? Number.NEGATIVE_INFINITY
+          : Number(numeric(row.space) ?? Number.NEGATIVE_INFINITY);
       if (column === 'level') return row.space.level ?? '';
       if (column === 'status') return statusOrder[row.status.kind];
       return row.space.name;

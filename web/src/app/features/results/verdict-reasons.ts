@@ -47,36 +47,58 @@ export function verdictReasons(result: EvaluationResult): VerdictReason[] {
     });
   }
   // A space without luminaires waits out of the verdict (the open items name it), its lines with it.
-  const interiorLines = interior.spaces.filter((space) => space.lighting !== 'none-entered').flatMap((space) => notMet(space.controls).map((line) => ({ space, line })));
+  const interiorLines = interior.spaces
+    .filter((space) => space.lighting !== 'none-entered')
+    .flatMap((space) => notMet(space.controls).map((line) => ({ space, line })));
   if (interiorLines.length > 0) {
     reasons.push({
       kind: 'interior-controls',
       title: 'Interior controls not met',
       summary: `${plural(interiorLines.length, 'requirement')} in ${plural(new Set(interiorLines.map((entry) => entry.space.id)).size, 'space')}`,
       link: { page: 'controls' },
-      items: interiorLines.map(({ space, line }) => ({ text: `${space.name}: ${line.label} (${line.section || 'no section'})`, link: { page: 'controls', query: { space: space.id } } })),
+      items: interiorLines.map(({ space, line }) => ({
+        text: `${space.name}: ${line.label} (${line.section || 'no section'})`,
+        link: { page: 'controls', query: { space: space.id } },
+      })),
     });
   }
   const exterior = result.exterior;
   if (exterior) {
     const items: ReasonItem[] = [];
     if (!exterior.tradable.complies) {
-      items.push({ text: `Tradable applications together: ${formatWatts(String(-Number(exterior.tradable.marginW)))} over their pooled allowance`, link: { page: 'exterior' } });
+      items.push({
+        text: `Tradable applications together: ${formatWatts(String(-Number(exterior.tradable.marginW)))} over their pooled allowance`,
+        link: { page: 'exterior' },
+      });
     }
     for (const application of exterior.applications.filter((entry) => !entry.tradable && !entry.withinAllowance)) {
-      items.push({ text: `${application.label}: ${formatWatts(String(-Number(application.marginW)))} over its own allowance`, link: { page: 'exterior' } });
+      items.push({
+        text: `${application.label}: ${formatWatts(String(-Number(application.marginW)))} over its own allowance`,
+        link: { page: 'exterior' },
+      });
     }
     if (!exterior.complies || items.length > 0) {
-      reasons.push({ kind: 'exterior-power', title: 'Exterior power over allowance', summary: `zone ${exterior.lightingZone}: ${plural(items.length, 'part')} over`, link: { page: 'exterior' }, items });
+      reasons.push({
+        kind: 'exterior-power',
+        title: 'Exterior power over allowance',
+        summary: `zone ${exterior.lightingZone}: ${plural(items.length, 'part')} over`,
+        link: { page: 'exterior' },
+        items,
+      });
     }
-    const exteriorLines = exterior.applications.flatMap((application) => notMet(application.controls).map((line) => ({ application, line })));
+    const exteriorLines = exterior.applications.flatMap((application) =>
+      notMet(application.controls).map((line) => ({ application, line })),
+    );
     if (exteriorLines.length > 0) {
       reasons.push({
         kind: 'exterior-controls',
         title: 'Exterior controls not met',
         summary: `${plural(exteriorLines.length, 'requirement')} on ${plural(new Set(exteriorLines.map((entry) => entry.application.key)).size, 'application')}`,
         link: { page: 'exterior' },
-        items: exteriorLines.map(({ application, line }) => ({ text: `${application.label}: ${line.label} ${statusView(line.status).words.toLowerCase()} (${line.section || 'no section'})`, link: { page: 'exterior' } })),
+        items: exteriorLines.map(({ application, line }) => ({
+          text: `${application.label}: ${line.label} ${statusView(line.status).words.toLowerCase()} (${line.section || 'no section'})`,
+          link: { page: 'exterior' },
+        })),
       });
     }
   }
@@ -103,9 +125,15 @@ export interface OpenControl {
 export function controlsToVerify(result: EvaluationResult): OpenControl[] {
   const interior = result.interior.spaces
     .filter((space) => space.lighting !== 'none-entered')
-    .flatMap((space) => space.controls.filter((line) => line.status === 'to-verify').map((line) => ({ spaceId: space.id, place: space.name, control: line.label, reason: line.reason })));
+    .flatMap((space) =>
+      space.controls
+        .filter((line) => line.status === 'to-verify')
+        .map((line) => ({ spaceId: space.id, place: space.name, control: line.label, reason: line.reason })),
+    );
   const exterior = (result.exterior?.applications ?? []).flatMap((application) =>
-    application.controls.filter((line) => line.status === 'to-verify').map((line) => ({ spaceId: null, place: application.label, control: line.label, reason: line.reason })),
+    application.controls
+      .filter((line) => line.status === 'to-verify')
+      .map((line) => ({ spaceId: null, place: application.label, control: line.label, reason: line.reason })),
   );
   return [...interior, ...exterior];
 }

@@ -21,14 +21,29 @@ describe('coordinates as people write them', () => {
   });
 
   it('says what is wrong in words', () => {
-    expect(parseCoordinate('-222', 'longitude')).toEqual({ kind: 'invalid', message: 'Longitude is from 180° W to 180° E: −180 to 180 in decimal degrees.' });
-    expect(parseCoordinate('91 N', 'latitude')).toEqual({ kind: 'invalid', message: 'Latitude is from 90° S to 90° N: −90 to 90 in decimal degrees.' });
+    expect(parseCoordinate('-222', 'longitude')).toEqual({
+      kind: 'invalid',
+      message: 'Longitude is from 180° W to 180° E: −180 to 180 in decimal degrees.',
+    });
+    expect(parseCoordinate('91 N', 'latitude')).toEqual({
+      kind: 'invalid',
+      message: 'Latitude is from 90° S to 90° N: −90 to 90 in decimal degrees.',
+    });
     expect(parseCoordinate('47 61 N', 'latitude')).toEqual({ kind: 'invalid', message: 'Minutes and seconds are each less than 60.' });
-    expect(parseCoordinate('122 54 N', 'longitude')).toEqual({ kind: 'invalid', message: 'E or W for a longitude; N and S are for the latitude.' });
-    expect(parseCoordinate('-122 54 W', 'longitude')).toEqual({ kind: 'invalid', message: 'Give a minus sign or a hemisphere letter, not both.' });
+    expect(parseCoordinate('122 54 N', 'longitude')).toEqual({
+      kind: 'invalid',
+      message: 'E or W for a longitude; N and S are for the latitude.',
+    });
+    expect(parseCoordinate('-122 54 W', 'longitude')).toEqual({
+      kind: 'invalid',
+      message: 'Give a minus sign or a hemisphere letter, not both.',
+    });
     expect(parseCoordinate('47.5 30 N', 'latitude').kind).toBe('invalid');
     expect(parseCoordinate('4e1', 'latitude').kind).toBe('invalid');
-    expect(parseCoordinate('forty-seven', 'latitude')).toEqual({ kind: 'invalid', message: 'Enter decimal degrees or degrees, minutes and seconds, e.g. 47.04, 47°02′24″N or 47 2 24 N.' });
+    expect(parseCoordinate('forty-seven', 'latitude')).toEqual({
+      kind: 'invalid',
+      message: 'Enter decimal degrees or degrees, minutes and seconds, e.g. 47.04, 47°02′24″N or 47 2 24 N.',
+    });
   });
 
   it('reads a decimal back with its hemisphere', () => {
@@ -64,7 +79,7 @@ describe('the map-free check of the site', () => {
     expect(siteWarnings(null, '-157.4', 'Pacific/Kiritimati', 2025)).toEqual([]);
   });
 
-  it('warns of a latitude in the other hemisphere from the zone\'s summer time', () => {
+  it("warns of a latitude in the other hemisphere from the zone's summer time", () => {
     const [warning] = siteWarnings('-47.04', '-122.9', 'America/Los_Angeles', 2025);
     expect(warning).toContain('The latitude may have the wrong sign');
     expect(warning).toContain('47.04° S');

@@ -3,9 +3,7 @@ import { seasonalOffsets, timeZoneChoice } from './time-zones';
 export type Axis = 'latitude' | 'longitude';
 
 export type ParsedCoordinate =
-  | { kind: 'empty' }
-  | { kind: 'ok'; decimal: string; converted: boolean }
-  | { kind: 'invalid'; message: string };
+  { kind: 'empty' } | { kind: 'ok'; decimal: string; converted: boolean } | { kind: 'invalid'; message: string };
 
 const limits: Record<Axis, number> = { latitude: 90, longitude: 180 };
 const hemispheres: Record<Axis, { positive: string; negative: string }> = {
@@ -52,7 +50,9 @@ export function parseCoordinate(raw: string, axis: Axis): ParsedCoordinate {
   let text = raw.trim().toUpperCase();
   if (text === '') return { kind: 'empty' };
   if (/^[+-]?\d+(\.\d+)?$/.test(text)) {
-    return Math.abs(Number(text)) <= limits[axis] ? { kind: 'ok', decimal: text.replace(/^\+/, ''), converted: false } : { kind: 'invalid', message: rangeMessage(axis) };
+    return Math.abs(Number(text)) <= limits[axis]
+      ? { kind: 'ok', decimal: text.replace(/^\+/, ''), converted: false }
+      : { kind: 'invalid', message: rangeMessage(axis) };
   }
   text = text.replace(/[−–]/g, '-').replace(/\b(NORTH|SOUTH|EAST|WEST)\b/g, (word) => hemisphereWords[word]!);
 
@@ -66,7 +66,13 @@ export function parseCoordinate(raw: string, axis: Axis): ParsedCoordinate {
   if (hemisphere) {
     const { positive, negative } = hemispheres[axis];
     if (hemisphere !== positive && hemisphere !== negative) {
-      return { kind: 'invalid', message: axis === 'latitude' ? 'N or S for a latitude; E and W are for the longitude.' : 'E or W for a longitude; N and S are for the latitude.' };
+      return {
+        kind: 'invalid',
+        message:
+          axis === 'latitude'
+            ? 'N or S for a latitude; E and W are for the longitude.'
+            : 'E or W for a longitude; N and S are for the latitude.',
+      };
     }
   }
 
@@ -125,7 +131,12 @@ function hours(value: number): string {
  * standard offset against longitude ÷ 15° per hour, and the season in which the zone keeps daylight
  * saving time against the latitude's hemisphere. Either value may be missing; then nothing is said.
  */
-export function siteWarnings(latitude: string | null, longitude: string | null, timeZone: string | null, year = new Date().getUTCFullYear()): string[] {
+export function siteWarnings(
+  latitude: string | null,
+  longitude: string | null,
+  timeZone: string | null,
+  year = new Date().getUTCFullYear(),
+): string[] {
   if (!timeZone) return [];
   const zone = timeZoneChoice(timeZone, year);
   const warnings: string[] = [];

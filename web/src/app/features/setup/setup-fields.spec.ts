@@ -9,11 +9,23 @@ import { setupForm, setupValue, showServerErrors, type SetupForm } from './setup
 
 const editions = [
   { id: 'iecc-2021', title: 'IECC 2021', publisher: 'ICC', year: 2021, dataVersion: 'test', methods: ['building-area', 'space-by-space'] },
-  { id: 'ashrae-90.1-2019', title: 'ASHRAE/IES 90.1-2019', publisher: 'ASHRAE', year: 2019, dataVersion: 'test', methods: ['building-area', 'space-by-space'] },
+  {
+    id: 'ashrae-90.1-2019',
+    title: 'ASHRAE/IES 90.1-2019',
+    publisher: 'ASHRAE',
+    year: 2019,
+    dataVersion: 'test',
+    methods: ['building-area', 'space-by-space'],
+  },
 ] as EditionSummary[];
 // The amendment reference/iecc-2021/amendments.json holds (Washington's WAC 51-11C-405024), and a second, invented one.
 const amendments = [
-  { key: 'washington-2021', title: "Washington State Energy Code 2021 (Washington's amendments to IECC 2021)", jurisdiction: 'Washington State', verified: true },
+  {
+    key: 'washington-2021',
+    title: "Washington State Energy Code 2021 (Washington's amendments to IECC 2021)",
+    jurisdiction: 'Washington State',
+    verified: true,
+  },
   { key: 'alder-bay-2021', title: 'Alder Bay lighting amendments (invented)', jurisdiction: 'Town of Alder Bay', verified: true },
 ] as AmendmentView[];
 
@@ -24,7 +36,10 @@ describe('SetupFields: jurisdiction amendments', () => {
   let form: SetupForm;
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({ imports: [SetupFields], providers: [provideZonelessChangeDetection(), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting()] });
+    TestBed.configureTestingModule({
+      imports: [SetupFields],
+      providers: [provideZonelessChangeDetection(), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting()],
+    });
     http = TestBed.inject(HttpTestingController);
     form = setupForm();
     fixture = TestBed.createComponent(SetupFields);
@@ -44,7 +59,8 @@ describe('SetupFields: jurisdiction amendments', () => {
   }
 
   const trigger = () => element.querySelector('mat-select[formcontrolname="amendments"] .mat-mdc-select-value')?.textContent?.trim();
-  const placeholder = () => element.querySelector('mat-select[formcontrolname="amendments"] .mat-mdc-select-placeholder')?.textContent?.trim();
+  const placeholder = () =>
+    element.querySelector('mat-select[formcontrolname="amendments"] .mat-mdc-select-placeholder')?.textContent?.trim();
 
   it('offers every amendment of the edition with its title and jurisdiction in words, "Model code only" when none is chosen', async () => {
     await chooseEdition('iecc-2021', amendments);
@@ -60,7 +76,9 @@ describe('SetupFields: jurisdiction amendments', () => {
     options[1]!.click();
     await fixture.whenStable();
     expect(form.controls.code.controls.amendments.value).toEqual(['washington-2021', 'alder-bay-2021']);
-    expect(trigger()).toBe("Washington State Energy Code 2021 (Washington's amendments to IECC 2021); Alder Bay lighting amendments (invented)");
+    expect(trigger()).toBe(
+      "Washington State Energy Code 2021 (Washington's amendments to IECC 2021); Alder Bay lighting amendments (invented)",
+    );
     expect(setupValue(form).amendments).toEqual(['washington-2021', 'alder-bay-2021']);
   });
 

@@ -31,17 +31,34 @@ export const scopeLabels: Record<ProjectScope, string> = {
 
 /** A control's value as a signal, following the form input when it is replaced. */
 function controlValue<T>(form: Signal<SetupForm>, pick: (form: SetupForm) => AbstractControl<T>, initialValue: T): Signal<T> {
-  return toSignal(toObservable(form).pipe(switchMap((current) => pick(current).valueChanges.pipe(startWith(pick(current).value)))), { initialValue });
+  return toSignal(toObservable(form).pipe(switchMap((current) => pick(current).valueChanges.pipe(startWith(pick(current).value)))), {
+    initialValue,
+  });
 }
 
 /** One section of the project set-up fields; the wizard shows one per step, the set-up page all. */
 @Component({
   selector: 'al-setup-fields',
-  imports: [ReactiveFormsModule, MatAutocompleteModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, MatSelectModule, UnverifiedCount, VerifyBadge],
+  imports: [
+    ReactiveFormsModule,
+    MatAutocompleteModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatRadioModule,
+    MatSelectModule,
+    UnverifiedCount,
+    VerifyBadge,
+  ],
   templateUrl: './setup-fields.html',
   styleUrl: './setup-fields.scss',
   // Hints and messages take the lines they need, so a long one never runs under the next field.
-  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } satisfies MatFormFieldDefaultOptions }],
+  providers: [
+    {
+      provide: MAT_FORM_FIELD_DEFAULT_OPTIONS,
+      useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } satisfies MatFormFieldDefaultOptions,
+    },
+  ],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SetupFields {
@@ -98,7 +115,11 @@ export class SetupFields {
       switchMap((edition) =>
         edition
           ? this.api.amendments(edition).pipe(
-              map((amendments): { status: 'ready'; edition: string; amendments: AmendmentView[] } => ({ status: 'ready', edition, amendments })),
+              map((amendments): { status: 'ready'; edition: string; amendments: AmendmentView[] } => ({
+                status: 'ready',
+                edition,
+                amendments,
+              })),
               catchError(() => of({ status: 'failed' as const })),
               startWith({ status: 'loading' as const }),
             )
@@ -131,13 +152,20 @@ export class SetupFields {
   protected readonly zoneLabel = timeZoneLabel;
 
   /** Each coordinate read back in words, so a converted or flipped value shows before it is saved. */
-  protected readonly reading = computed(() => ({ latitude: this.read(this.latitude(), 'latitude'), longitude: this.read(this.longitude(), 'longitude') }));
+  protected readonly reading = computed(() => ({
+    latitude: this.read(this.latitude(), 'latitude'),
+    longitude: this.read(this.longitude(), 'longitude'),
+  }));
 
   protected readonly siteWarnings = computed(() => {
     const latitude = parseCoordinate(this.latitude(), 'latitude');
     const longitude = parseCoordinate(this.longitude(), 'longitude');
     const zone = this.timeZone().trim();
-    return siteWarnings(latitude.kind === 'ok' ? latitude.decimal : null, longitude.kind === 'ok' ? longitude.decimal : null, zone !== '' && isTimeZone(zone) ? zone : null);
+    return siteWarnings(
+      latitude.kind === 'ok' ? latitude.decimal : null,
+      longitude.kind === 'ok' ? longitude.decimal : null,
+      zone !== '' && isTimeZone(zone) ? zone : null,
+    );
   });
 
   constructor() {

@@ -40,7 +40,9 @@ describe('the set-up form', () => {
     site.timeZone.setValue('Pacific/Nowhere');
     expect(site.latitude.errors).toEqual({ coordinate: 'Latitude is from 90° S to 90° N: −90 to 90 in decimal degrees.' });
     expect(site.longitude.errors).toBeNull();
-    expect(site.timeZone.errors).toEqual({ timeZone: 'Choose a time zone from the list: type a city, a region or a name such as Pacific.' });
+    expect(site.timeZone.errors).toEqual({
+      timeZone: 'Choose a time zone from the list: type a city, a region or a name such as Pacific.',
+    });
     site.latitude.setValue('4e1');
     expect(site.latitude.errors).not.toBeNull();
     expect(form.controls.identity.controls.name.errors).toEqual({ required: true });
@@ -94,7 +96,7 @@ describe('the set-up form', () => {
     expect(setupValue(form)).toMatchObject({ latitude: '47.04', longitude: '-122.9' });
   });
 
-  it('puts the service\'s messages beside the fields they name and returns the rest', () => {
+  it("puts the service's messages beside the fields they name and returns the rest", () => {
     const form = setupForm();
     const unplaced = showServerErrors(form, [
       { path: 'edition', message: 'Choose one of ashrae-90.1-2019, ashrae-90.1-2022, iecc-2021.' },

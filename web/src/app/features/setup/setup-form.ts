@@ -17,7 +17,9 @@ export function coordinateValidator(axis: Axis): ValidatorFn {
 
 export const timeZoneValidator: ValidatorFn = (control: AbstractControl<string>) => {
   const zone = (control.value ?? '').trim();
-  return zone === '' || isTimeZone(zone) ? null : { timeZone: 'Choose a time zone from the list: type a city, a region or a name such as Pacific.' };
+  return zone === '' || isTimeZone(zone)
+    ? null
+    : { timeZone: 'Choose a time zone from the list: type a city, a region or a name such as Pacific.' };
 };
 
 /** As the service says: at most 10 amendments (compliance/bounds.ts maxAmendments); the choice cannot repeat one. */
@@ -141,7 +143,13 @@ export function fillSetup(form: SetupForm, project: ProjectDetail): void {
   form.reset({
     identity: { name: project.name, address: project.address ?? '', permitNumber: project.permitNumber ?? '', owner: project.owner ?? '' },
     site: { latitude: project.latitude ?? '', longitude: project.longitude ?? '', timeZone: project.timeZone ?? '' },
-    code: { jurisdiction: project.jurisdiction ?? '', edition: project.edition ?? '', method: project.method ?? 'space-by-space', units: project.units, amendments: project.amendments ?? [] },
+    code: {
+      jurisdiction: project.jurisdiction ?? '',
+      edition: project.edition ?? '',
+      method: project.method ?? 'space-by-space',
+      units: project.units,
+      amendments: project.amendments ?? [],
+    },
     building: { occupancy: project.occupancy ?? '', scope: project.scope, grossFloorArea: project.grossFloorArea ?? '' },
     exterior: { lightingZone: project.lightingZone },
     people: {

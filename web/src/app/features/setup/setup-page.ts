@@ -112,7 +112,13 @@ export class SetupPage implements HasUnsavedChanges {
       },
       error: (error: unknown) => {
         this.teamBusy.set(false);
-        this.teamError.set(error instanceof ApiError ? (error.details[0]?.message ? `${error.message} ${error.details[0].message}` : error.message) : 'The team could not be changed.');
+        this.teamError.set(
+          error instanceof ApiError
+            ? error.details[0]?.message
+              ? `${error.message} ${error.details[0].message}`
+              : error.message
+            : 'The team could not be changed.',
+        );
       },
     });
   }

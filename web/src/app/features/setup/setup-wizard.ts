@@ -19,7 +19,16 @@ import { setupForm, setupValue, showServerErrors } from './setup-form';
 /** A new project, step by step; creating it makes the signed-in person its engineer. */
 @Component({
   selector: 'al-setup-wizard',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, MatStepperModule, SetupFields, TeamEditor],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    MatStepperModule,
+    SetupFields,
+    TeamEditor,
+  ],
   templateUrl: './setup-wizard.html',
   styleUrl: './setup-wizard.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -89,7 +98,9 @@ export class SetupWizard implements HasUnsavedChanges {
           .pipe(
             concatMap((entry) =>
               this.api.setMember(project.id, entry.email, entry.role).pipe(
-                map((members): string | null => (members.some((member) => member.email.toLocaleLowerCase() === entry.email.toLocaleLowerCase()) ? null : entry.email)),
+                map((members): string | null =>
+                  members.some((member) => member.email.toLocaleLowerCase() === entry.email.toLocaleLowerCase()) ? null : entry.email,
+                ),
                 catchError(() => of(entry.email)),
               ),
             ),
@@ -111,7 +122,11 @@ export class SetupWizard implements HasUnsavedChanges {
         this.saving.set(false);
         if (error instanceof ApiError && error.status === 400) {
           const unplaced = showServerErrors(this.form, error.details);
-          this.failure.set(unplaced.length ? unplaced.map((detail) => detail.message).join(' ') : 'Some fields need attention; see the messages beside them.');
+          this.failure.set(
+            unplaced.length
+              ? unplaced.map((detail) => detail.message).join(' ')
+              : 'Some fields need attention; see the messages beside them.',
+          );
         } else {
           this.failure.set(error instanceof ApiError ? error.message : 'The project could not be created.');
         }

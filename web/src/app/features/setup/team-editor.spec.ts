@@ -84,7 +84,10 @@ describe('TeamEditor', () => {
 
     await submit('contractor@alderbay.example');
     fixture.componentRef.setInput('notAdded', null);
-    fixture.componentRef.setInput('members', [...members, { userId: 'u3', name: 'Noor Abernathy', email: 'contractor@alderbay.example', role: 'reviewer' }]);
+    fixture.componentRef.setInput('members', [
+      ...members,
+      { userId: 'u3', name: 'Noor Abernathy', email: 'contractor@alderbay.example', role: 'reviewer' },
+    ]);
     await fixture.whenStable();
     expect(input.value).toBe('');
     expect(element.querySelector('mat-error')).toBeNull();

@@ -39,7 +39,14 @@ const roleIcons: Record<ProjectRole, string> = { engineer: 'engineering', review
             <span class="email">{{ member.email }}</span>
           }
           @if (canManage() && removable(member)) {
-            <button mat-icon-button type="button" (click)="removed.emit(member)" [disabled]="busy()" [attr.aria-label]="'Remove ' + (member.name ?? member.email)" matTooltip="Remove from the project">
+            <button
+              mat-icon-button
+              type="button"
+              (click)="removed.emit(member)"
+              [disabled]="busy()"
+              [attr.aria-label]="'Remove ' + (member.name ?? member.email)"
+              matTooltip="Remove from the project"
+            >
               <mat-icon>person_remove</mat-icon>
             </button>
           }
@@ -52,9 +59,11 @@ const roleIcons: Record<ProjectRole, string> = { engineer: 'engineering', review
           <mat-label>E-mail address</mat-label>
           <input matInput type="email" formControlName="email" autocomplete="off" />
           <mat-hint
-            ><span role="status" class="not-added">{{ notAddedShown() ? notAddedMessage : '' }}</span
-            >@if (!notAddedShown()) {<span>The person needs an account</span>}</mat-hint
-          >
+            ><span role="status" class="not-added">{{ notAddedShown() ? notAddedMessage : '' }}</span>
+            @if (!notAddedShown()) {
+              <span>The person needs an account</span>
+            }
+          </mat-hint>
           @if (form.controls.email.hasError('required')) {
             <mat-error>Enter an e-mail address.</mat-error>
           } @else if (form.controls.email.hasError('email')) {
@@ -142,7 +151,8 @@ export class TeamEditor {
   private readonly formDirective = viewChild(FormGroupDirective);
   private readonly engineers = computed(() => this.members().filter((member) => member.role === 'engineer').length);
   private readonly typed = toSignal(this.form.controls.email.valueChanges, { initialValue: '' });
-  protected readonly notAddedMessage = "No one was added for that address. Check it, or ask an administrator to create the person's account first.";
+  protected readonly notAddedMessage =
+    "No one was added for that address. Check it, or ask an administrator to create the person's account first.";
   /** Shown while the field still holds that address; typing another one clears it. */
   protected readonly notAddedShown = computed(() => {
     const address = this.notAdded();

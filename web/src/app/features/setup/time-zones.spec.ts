@@ -3,7 +3,13 @@ import { offsetInWords, searchTimeZones, timeZoneChoice, timeZoneLabel } from '.
 describe('time zones picked by words', () => {
   it('names a zone by its city, region, everyday name and standard offset', () => {
     // America/Los_Angeles: standard time UTC−8 (IANA tz database); "Pacific Time" is the browser's (ICU) name.
-    expect(timeZoneChoice('America/Los_Angeles', 2025)).toMatchObject({ city: 'Los Angeles', region: 'America', name: 'Pacific Time', standardOffset: -480, label: 'Los Angeles (America) — Pacific Time, UTC−8' });
+    expect(timeZoneChoice('America/Los_Angeles', 2025)).toMatchObject({
+      city: 'Los Angeles',
+      region: 'America',
+      name: 'Pacific Time',
+      standardOffset: -480,
+      label: 'Los Angeles (America) — Pacific Time, UTC−8',
+    });
     expect(timeZoneLabel('America/Los_Angeles')).toBe(timeZoneChoice('America/Los_Angeles').label);
     expect(timeZoneLabel('somewhere')).toBe('somewhere');
     // Asia/Kathmandu keeps UTC+5:45 (IANA tz database).

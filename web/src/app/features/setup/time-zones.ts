@@ -15,7 +15,10 @@ export interface TimeZoneChoice {
 }
 
 function zoneName(id: string, style: 'longGeneric' | 'longOffset', at: Date): string {
-  return new Intl.DateTimeFormat('en-US', { timeZone: id, timeZoneName: style }).formatToParts(at).find((part) => part.type === 'timeZoneName')?.value ?? '';
+  return (
+    new Intl.DateTimeFormat('en-US', { timeZone: id, timeZoneName: style }).formatToParts(at).find((part) => part.type === 'timeZoneName')
+      ?.value ?? ''
+  );
 }
 
 /** "GMT-08:00" → −480; "GMT" → 0. */
@@ -66,7 +69,9 @@ let allChoices: readonly TimeZoneChoice[] | null = null;
 
 /** Every zone the browser knows, built once: a few hundred formatters are cheap, but not on every keystroke. */
 export function timeZoneChoices(): readonly TimeZoneChoice[] {
-  allChoices ??= (typeof Intl.supportedValuesOf === 'function' ? Intl.supportedValuesOf('timeZone') : ['UTC']).map((id) => timeZoneChoice(id)).sort((a, b) => a.label.localeCompare(b.label));
+  allChoices ??= (typeof Intl.supportedValuesOf === 'function' ? Intl.supportedValuesOf('timeZone') : ['UTC'])
+    .map((id) => timeZoneChoice(id))
+    .sort((a, b) => a.label.localeCompare(b.label));
   return allChoices;
 }
 
@@ -93,7 +98,11 @@ export function timeZoneLabel(value: string | null | undefined): string {
  * the islands of the Pacific region.
  */
 export function searchTimeZones(query: string, choices: readonly TimeZoneChoice[] = timeZoneChoices()): TimeZoneChoice[] {
-  const text = query.trim().toLocaleLowerCase().replace(/[/_,()]+/g, ' ').replace(/\s+/g, ' ');
+  const text = query
+    .trim()
+    .toLocaleLowerCase()
+    .replace(/[/_,()]+/g, ' ')
+    .replace(/\s+/g, ' ');
   if (text === '' || choices.some((choice) => choice.id.toLocaleLowerCase() === query.trim().toLocaleLowerCase())) return [...choices];
   const tokens = text.split(' ');
   const rank = (choice: TimeZoneChoice): number => {

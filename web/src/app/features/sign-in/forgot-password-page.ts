@@ -12,7 +12,16 @@ import { PasswordApi } from './password-api';
 
 @Component({
   selector: 'al-forgot-password-page',
-  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatCardModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+  ],
   template: `
     <section class="page">
       <mat-card appearance="outlined" class="card">
@@ -56,7 +65,9 @@ import { PasswordApi } from './password-api';
 })
 export class ForgotPasswordPage {
   private readonly api = inject(PasswordApi);
-  protected readonly form = inject(NonNullableFormBuilder).group({ email: ['', [Validators.required, Validators.email, Validators.maxLength(320)]] });
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    email: ['', [Validators.required, Validators.email, Validators.maxLength(320)]],
+  });
   protected readonly busy = signal(false);
   protected readonly sent = signal<string | null>(null);
   protected readonly failure = signal<string | null>(null);

@@ -21,4 +21,5 @@ export class PasswordApi {
 }
 
 /** The rules the service applies, said before the person types (it also refuses common and guessable ones). */
-export const passwordRuleWords = 'At least 12 characters. Common passwords, keyboard runs and your own name or e-mail are refused; a few unrelated words make a strong one.';
+export const passwordRuleWords =
+  'At least 12 characters. Common passwords, keyboard runs and your own name or e-mail are refused; a few unrelated words make a strong one.';

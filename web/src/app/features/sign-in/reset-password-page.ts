@@ -18,7 +18,16 @@ export function sameAsPassword(control: AbstractControl): ValidationErrors | nul
 
 @Component({
   selector: 'al-reset-password-page',
-  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatCardModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+  ],
   template: `
     <section class="page">
       <mat-card appearance="outlined" class="card">
@@ -32,17 +41,29 @@ export function sameAsPassword(control: AbstractControl): ValidationErrors | nul
         </mat-card-header>
         <mat-card-content>
           @if (done()) {
-            <p class="sent" role="status"><mat-icon aria-hidden="true">check_circle</mat-icon>Your new password is saved. Every session of the account was ended.</p>
+            <p class="sent" role="status">
+              <mat-icon aria-hidden="true">check_circle</mat-icon>Your new password is saved. Every session of the account was ended.
+            </p>
             <a mat-flat-button routerLink="/sign-in">Sign in</a>
           } @else if (!token()) {
-            <p class="failure" role="alert"><mat-icon aria-hidden="true">error</mat-icon>This link is incomplete. Open the whole link from the message, or ask for a new one.</p>
+            <p class="failure" role="alert">
+              <mat-icon aria-hidden="true">error</mat-icon>This link is incomplete. Open the whole link from the message, or ask for a new
+              one.
+            </p>
             <a mat-stroked-button routerLink="/forgot-password">Ask for a new link</a>
           } @else {
             <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
               <p class="hint" id="password-rules">{{ rules }}</p>
               <mat-form-field appearance="outline">
                 <mat-label>New password</mat-label>
-                <input matInput type="password" formControlName="password" autocomplete="new-password" aria-describedby="password-rules" required />
+                <input
+                  matInput
+                  type="password"
+                  formControlName="password"
+                  autocomplete="new-password"
+                  aria-describedby="password-rules"
+                  required
+                />
                 @if (form.controls.password.hasError('required')) {
                   <mat-error>Enter the new password.</mat-error>
                 } @else if (form.controls.password.hasError('minlength')) {

@@ -67,7 +67,10 @@ describe('SignInPage', () => {
 
     const request = http.expectOne('/api/auth/login');
     expect(request.request.body).toEqual({ email: 'engineer@alderbay.example', password: 'secret' });
-    request.flush({ user: { id: 'u1', email: 'engineer@alderbay.example', name: 'Ines Halvorsen', isAdmin: false, roles: ['engineer'] }, csrfToken: 'token' });
+    request.flush({
+      user: { id: 'u1', email: 'engineer@alderbay.example', name: 'Ines Halvorsen', isAdmin: false, roles: ['engineer'] },
+      csrfToken: 'token',
+    });
     await fixture.whenStable();
     expect(navigate).toHaveBeenCalledWith('/projects/1');
   });
@@ -79,7 +82,10 @@ describe('SignInPage', () => {
     await submit();
     http
       .expectOne('/api/auth/login')
-      .flush({ error: { code: 'invalid_credentials', message: 'The e-mail or password is not correct.' } }, { status: 401, statusText: 'Unauthorized' });
+      .flush(
+        { error: { code: 'invalid_credentials', message: 'The e-mail or password is not correct.' } },
+        { status: 401, statusText: 'Unauthorized' },
+      );
     fixture.detectChanges();
     await fixture.whenStable();
     expect(element.querySelector('[role="alert"]')?.textContent).toContain('The e-mail or password is not correct.');

@@ -12,14 +12,34 @@ import { SpaceEditor, type SpaceEditorData } from './space-editor';
 // IECC 2021 Tables C405.3.2(1) and C405.3.2(2), via PNNL building-energy-standards-data: library 0.78 W/ft² (building
 // area); library reading area 0.96 W/ft², storage room 0.38 W/ft² (space by space). The rooms are invented.
 const spaceTypes = [
-  { key: 'library-in-a-reading-area', label: 'Library — In a Reading area', sourceLabel: 'Library | In a Reading area', category: 'building-specific', lpdWPerFt2: '0.96', verified: true },
+  {
+    key: 'library-in-a-reading-area',
+    label: 'Library — In a Reading area',
+    sourceLabel: 'Library | In a Reading area',
+    category: 'building-specific',
+    lpdWPerFt2: '0.96',
+    verified: true,
+  },
   { key: 'storage-room', label: 'Storage Room', sourceLabel: 'Storage Room', category: 'common', lpdWPerFt2: '0.38', verified: true },
 ] as SpaceTypeView[];
-const buildingAreaTypes = [{ key: 'library', label: 'Library', sourceLabel: 'Library', lpdWPerFt2: '0.78', verified: true }] as BuildingAreaTypeView[];
+const buildingAreaTypes = [
+  { key: 'library', label: 'Library', sourceLabel: 'Library', lpdWPerFt2: '0.78', verified: true },
+] as BuildingAreaTypeView[];
 const stamp = { version: 4, updatedAt: '', updatedBy: null };
 
 function room(fields: Partial<SpaceRecord>): SpaceRecord {
-  return { id: 's1', name: 'Reading room', position: 1, area: '1200', luminaires: [], controls: [], windows: [], skylights: [], ...stamp, ...fields };
+  return {
+    id: 's1',
+    name: 'Reading room',
+    position: 1,
+    area: '1200',
+    luminaires: [],
+    controls: [],
+    windows: [],
+    skylights: [],
+    ...stamp,
+    ...fields,
+  };
 }
 
 describe('SpaceEditor', () => {
@@ -28,7 +48,16 @@ describe('SpaceEditor', () => {
   let element: HTMLElement;
 
   async function open(method: ComplianceMethod, space: SpaceRecord | null, units: UnitSystem = 'ip'): Promise<void> {
-    const data: SpaceEditorData = { projectId: 'p1', space, method, units, spaceTypes, buildingAreaTypes, levels: [], reload: () => undefined };
+    const data: SpaceEditorData = {
+      projectId: 'p1',
+      space,
+      method,
+      units,
+      spaceTypes,
+      buildingAreaTypes,
+      levels: [],
+      reload: () => undefined,
+    };
     TestBed.configureTestingModule({
       imports: [SpaceEditor],
       providers: [
@@ -37,7 +66,10 @@ describe('SpaceEditor', () => {
         provideHttpClient(withInterceptors([apiInterceptor])),
         provideHttpClientTesting(),
         { provide: MAT_DIALOG_DATA, useValue: data },
-        { provide: MatDialogRef, useValue: { disableClose: false, close: () => undefined, backdropClick: () => EMPTY, keydownEvents: () => EMPTY } },
+        {
+          provide: MatDialogRef,
+          useValue: { disableClose: false, close: () => undefined, backdropClick: () => EMPTY, keydownEvents: () => EMPTY },
+        },
       ],
     });
     http = TestBed.inject(HttpTestingController);
@@ -46,13 +78,17 @@ describe('SpaceEditor', () => {
     await fixture.whenStable();
   }
 
-  const button = (text: string) => Array.from(element.querySelectorAll<HTMLButtonElement>('button')).find((candidate) => candidate.textContent?.includes(text))!;
+  const button = (text: string) =>
+    Array.from(element.querySelectorAll<HTMLButtonElement>('button')).find((candidate) => candidate.textContent?.includes(text))!;
   const labels = () => Array.from(element.querySelectorAll('mat-label')).map((label) => label.textContent?.trim());
 
   async function save(): Promise<Record<string, unknown>> {
     button('Save space').click();
     await fixture.whenStable();
-    return http.expectOne((request) => request.method === 'PUT' && request.url === '/api/projects/p1/spaces/s1').request.body as Record<string, unknown>;
+    return http.expectOne((request) => request.method === 'PUT' && request.url === '/api/projects/p1/spaces/s1').request.body as Record<
+      string,
+      unknown
+    >;
   }
 
   it('keeps the building area type under the space-by-space method, folded away for the other method', async () => {
@@ -77,9 +113,16 @@ describe('SpaceEditor', () => {
     expect((await save())['spaceType']).toBe('storage-room');
     TestBed.resetTestingModule();
 
-    await open('building-area', room({ spaceType: 'library-in-a-reading-area', buildingAreaType: 'library', controlSpaceType: 'storage-room' }));
+    await open(
+      'building-area',
+      room({ spaceType: 'library-in-a-reading-area', buildingAreaType: 'library', controlSpaceType: 'storage-room' }),
+    );
     expect(labels()).toEqual(expect.arrayContaining(['Space type (sets the controls)', 'Space type (space-by-space method)']));
-    expect(await save()).toMatchObject({ spaceType: 'library-in-a-reading-area', controlSpaceType: 'storage-room', buildingAreaType: 'library' });
+    expect(await save()).toMatchObject({
+      spaceType: 'library-in-a-reading-area',
+      controlSpaceType: 'storage-room',
+      buildingAreaType: 'library',
+    });
   });
 
   it('offers "No lighting in this space" when no luminaires are counted, and writes it as unlit', async () => {
@@ -124,14 +167,20 @@ describe('SpaceEditor', () => {
     button('Save space').click();
     await fixture.whenStable();
     // The service writes the row's own label (with its ft²) inside a message already in the project's units.
-    http
-      .expectOne('/api/projects/p1/spaces/s1')
-      .flush(
-        { error: { code: 'validation_failed', message: 'Some values do not fit.', details: [{ path: 'spaceType', message: '“Office — Enclosed and ≤ 250 ft²” is for spaces at most 23.2 m²; this one is 25 m².' }] } },
-        { status: 400, statusText: 'Bad Request' },
-      );
+    http.expectOne('/api/projects/p1/spaces/s1').flush(
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'Some values do not fit.',
+          details: [{ path: 'spaceType', message: '“Office — Enclosed and ≤ 250 ft²” is for spaces at most 23.2 m²; this one is 25 m².' }],
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
-    expect(Array.from(element.querySelectorAll('mat-error')).map((error) => error.textContent?.trim())).toContain('“Office — Enclosed and ≤ 23.2 m²” is for spaces at most 23.2 m²; this one is 25 m².');
+    expect(Array.from(element.querySelectorAll('mat-error')).map((error) => error.textContent?.trim())).toContain(
+      '“Office — Enclosed and ≤ 23.2 m²” is for spaces at most 23.2 m²; this one is 25 m².',
+    );
 
     // Giving the like rooms answers it: the refusal goes, and the next save asks the service again.
     const rooms = element.querySelector<HTMLInputElement>('input[formcontrolname="rooms"]')!;

@@ -82,14 +82,16 @@ export class SpaceEditor {
   });
   protected readonly offerUnlit = canConfirmUnlit(this.data.space);
   /** Under the building area method, a control space type stored apart from the space type keeps its own picker. */
-  protected readonly separateControlType = this.data.method === 'building-area' && this.data.space !== null && this.form.controls.controlSpaceType.value !== '';
+  protected readonly separateControlType =
+    this.data.method === 'building-area' && this.data.space !== null && this.form.controls.controlSpaceType.value !== '';
   /** The other method's type is folded away; opened when the service has something to say about it. */
   protected readonly otherMethodOpen = signal(false);
   private readonly otherType = toSignal(this.otherControl().valueChanges, { initialValue: this.otherControl().value });
   protected readonly otherTypeLabel = computed(() => {
     const key = this.otherType();
     if (!key) return 'not chosen';
-    const types: readonly { key: string; label: string }[] = this.data.method === 'building-area' ? this.data.spaceTypes : this.data.buildingAreaTypes;
+    const types: readonly { key: string; label: string }[] =
+      this.data.method === 'building-area' ? this.data.spaceTypes : this.data.buildingAreaTypes;
     return types.find((type) => type.key === key)?.label ?? key;
   });
 
@@ -140,7 +142,9 @@ export class SpaceEditor {
     }
     const { projectId, space } = this.data;
     const body = spaceFromForm(this.form, space ? spaceInput(space) : emptySpace());
-    const request: Observable<SpaceRecord> = space ? this.api.replaceSpace(projectId, space.id, space.version, body) : this.api.createSpace(projectId, body);
+    const request: Observable<SpaceRecord> = space
+      ? this.api.replaceSpace(projectId, space.id, space.version, body)
+      : this.api.createSpace(projectId, body);
     this.failure.set(null);
     this.writeFailure.save(request, {
       saving: this.saving,

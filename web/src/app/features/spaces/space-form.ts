@@ -48,7 +48,9 @@ export function requireHeightForFormula(form: SpaceForm, spaceTypes: readonly Sp
   const ceiling = form.controls.ceilingHeight;
   ceiling.addValidators((control: AbstractControl<string>): ValidationErrors | null => {
     const type = spaceTypes.find((candidate) => candidate.key === form.controls.spaceType.value);
-    return type?.lpdFormula && control.value.trim() === '' ? { heightNeeded: "The atrium's allowance depends on its height: give the ceiling height." } : null;
+    return type?.lpdFormula && control.value.trim() === ''
+      ? { heightNeeded: "The atrium's allowance depends on its height: give the ceiling height." }
+      : null;
   });
   form.controls.spaceType.valueChanges.subscribe(() => {
     ceiling.updateValueAndValidity();

@@ -57,7 +57,8 @@ describe('SpaceImportDialog', () => {
     await fixture.whenStable();
   }
 
-  const button = (text: string) => Array.from(element.querySelectorAll<HTMLButtonElement>('button')).find((candidate) => candidate.textContent?.includes(text))!;
+  const button = (text: string) =>
+    Array.from(element.querySelectorAll<HTMLButtonElement>('button')).find((candidate) => candidate.textContent?.includes(text))!;
   const post = () => http.expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/spaces/bulk');
   const ready = [
     ['Name', 'Space type', 'Area'],
@@ -108,7 +109,14 @@ describe('SpaceImportDialog', () => {
       ['Tag', 'Description', 'Rated input (W)', 'Use'],
       ['H1', 'High-bay', '151.5', 'General lighting'],
     ];
-    await open([{ name: 'Bunk room', spaceType: 'office-enclosed', buildingAreaType: null }], [{ name: 'Rooms', table: rooms }, { name: 'Luminaires', table: schedule }], ['name', 'spaceType', 'area', 'count:H1', 'count:A1']);
+    await open(
+      [{ name: 'Bunk room', spaceType: 'office-enclosed', buildingAreaType: null }],
+      [
+        { name: 'Rooms', table: rooms },
+        { name: 'Luminaires', table: schedule },
+      ],
+      ['name', 'spaceType', 'area', 'count:H1', 'count:A1'],
+    );
     expect(element.textContent).toContain('2 rows with problems');
     expect(button('Import 3 spaces').disabled).toBe(true);
     const picker = element.querySelector('al-space-import-name-picker')!;
@@ -131,12 +139,18 @@ describe('SpaceImportDialog', () => {
 
     button('Import 3 spaces').click();
     const remember = http.expectOne((request) => request.method === 'PUT' && request.url === '/api/projects/p1/import-aliases');
-    expect(remember.request.body).toEqual({ aliases: [{ name: 'Apparatus bay', spaceType: 'emergency-vehicle-garage', buildingAreaType: null }] });
+    expect(remember.request.body).toEqual({
+      aliases: [{ name: 'Apparatus bay', spaceType: 'emergency-vehicle-garage', buildingAreaType: null }],
+    });
     http.expectNone((request) => request.url === '/api/projects/p1/spaces/bulk');
     remember.flush([]);
     const bulk = post();
-    expect(bulk.request.body.luminaireTypes).toEqual([{ tag: 'H1', description: 'High-bay', inputWatts: '151.5', use: 'general', basis: 'rated' }]);
-    expect(bulk.request.body.spaces.map((space: { spaceType: string; luminaires: unknown[] }) => [space.spaceType, space.luminaires])).toEqual([
+    expect(bulk.request.body.luminaireTypes).toEqual([
+      { tag: 'H1', description: 'High-bay', inputWatts: '151.5', use: 'general', basis: 'rated' },
+    ]);
+    expect(
+      bulk.request.body.spaces.map((space: { spaceType: string; luminaires: unknown[] }) => [space.spaceType, space.luminaires]),
+    ).toEqual([
       ['emergency-vehicle-garage', [{ tag: 'H1', count: '10' }]],
       ['emergency-vehicle-garage', [{ tag: 'H1', count: '8' }]],
       ['corridor-otherwise', [{ tag: 'A1', count: '4' }]],
@@ -146,22 +160,61 @@ describe('SpaceImportDialog', () => {
   });
 
   it('applies the names the project remembered, so they need no matching again', async () => {
-    await open([{ name: 'APPARATUS BAY', spaceType: 'emergency-vehicle-garage', buildingAreaType: null }], [{ name: 'Rooms', table: [['Name', 'Space type', 'Area'], ['Bay 1', 'Apparatus bay', '3000']] }], ['name', 'spaceType', 'area']);
+    await open(
+      [{ name: 'APPARATUS BAY', spaceType: 'emergency-vehicle-garage', buildingAreaType: null }],
+      [
+        {
+          name: 'Rooms',
+          table: [
+            ['Name', 'Space type', 'Area'],
+            ['Bay 1', 'Apparatus bay', '3000'],
+          ],
+        },
+      ],
+      ['name', 'spaceType', 'area'],
+    );
     expect(element.querySelector('al-space-import-name-picker')).toBeNull();
     expect(element.textContent).toContain('Emergency Vehicle Garage');
     expect(element.textContent).toContain('all ready to import');
   });
 
   it('puts a tag clash the service reports on the type row, and imports nothing', async () => {
-    await open([], [{ name: 'Rooms', table: [['Name', 'Space type', 'Area', 'H1'], ['Bay 1', 'office-enclosed', '300', '2']] }, { name: 'Luminaires', table: [['Tag', 'Description', 'Rated input (W)', 'Use'], ['H1', 'High-bay', '150', '']] }], ['name', 'spaceType', 'area', 'count:H1']);
+    await open(
+      [],
+      [
+        {
+          name: 'Rooms',
+          table: [
+            ['Name', 'Space type', 'Area', 'H1'],
+            ['Bay 1', 'office-enclosed', '300', '2'],
+          ],
+        },
+        {
+          name: 'Luminaires',
+          table: [
+            ['Tag', 'Description', 'Rated input (W)', 'Use'],
+            ['H1', 'High-bay', '150', ''],
+          ],
+        },
+      ],
+      ['name', 'spaceType', 'area', 'count:H1'],
+    );
     button('Import 1 space').click();
     post().flush(
-      { error: { code: 'conflict', message: 'A luminaire type tagged "H1" already exists in this project. Nothing was imported.', details: [{ path: 'luminaireTypes.0.tag', message: 'Tags are unique within a project.' }] } },
+      {
+        error: {
+          code: 'conflict',
+          message: 'A luminaire type tagged "H1" already exists in this project. Nothing was imported.',
+          details: [{ path: 'luminaireTypes.0.tag', message: 'Tags are unique within a project.' }],
+        },
+      },
       { status: 409, statusText: 'Conflict' },
     );
     await fixture.whenStable();
     expect(element.textContent).toContain('already exists in this project. Nothing was imported.');
-    expect(element.querySelector('[aria-label="Luminaire types to import"] .has-problem')?.textContent).toContain('Tags are unique within a project.');
+    expect(element.querySelector('[aria-label="Luminaire types to import"] .has-problem')?.textContent).toContain(
+      'Tags are unique within a project.',
+    );
     expect(closed).toEqual([]);
   });
 });

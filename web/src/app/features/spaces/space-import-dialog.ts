@@ -68,7 +68,16 @@ const kindLabels: Record<TypeKind, string> = { spaceType: 'Space type', building
 /** Spreadsheet → column mapping → checked preview, with unknown type names matched → one all-or-nothing write. */
 @Component({
   selector: 'al-space-import-dialog',
-  imports: [ScrollingModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, SpaceImportNamePicker],
+  imports: [
+    ScrollingModule,
+    MatButtonModule,
+    MatDialogModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    SpaceImportNamePicker,
+  ],
   templateUrl: './space-import-dialog.html',
   styleUrl: './space-import-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -107,9 +116,17 @@ export class SpaceImportDialog {
   protected readonly typeHeaders = computed(() => this.typeTable()[0] ?? []);
   protected readonly typeSample = computed(() => this.typeTable()[1] ?? []);
   private readonly projectTags = new Set(this.data.luminaireTags);
-  protected readonly typeRows = computed(() => this.serverTypeRows() ?? (this.typesSheet() === null ? [] : buildTypeRows(this.typeTable(), this.typeMapping(), this.projectTags)));
+  protected readonly typeRows = computed(
+    () =>
+      this.serverTypeRows() ?? (this.typesSheet() === null ? [] : buildTypeRows(this.typeTable(), this.typeMapping(), this.projectTags)),
+  );
   /** Tags a count column may name: the project's and the imported ones. */
-  protected readonly tags = computed(() => [...this.data.luminaireTags, ...this.typeRows().map((row) => row.type.tag).filter((tag) => tag !== '' && !this.projectTags.has(tag))]);
+  protected readonly tags = computed(() => [
+    ...this.data.luminaireTags,
+    ...this.typeRows()
+      .map((row) => row.type.tag)
+      .filter((tag) => tag !== '' && !this.projectTags.has(tag)),
+  ]);
   protected readonly fields = computed<ImportField[]>(() => [...importFields.map((entry) => entry.field), ...this.tags().map(countField)]);
   private readonly chosen = computed(() => {
     const byKind: Record<TypeKind, Map<string, string>> = { spaceType: new Map(), buildingAreaType: new Map() };
@@ -117,7 +134,9 @@ export class SpaceImportDialog {
     return byKind;
   });
   protected readonly rows = computed(
-    () => this.serverRows() ?? buildRows(this.table(), this.mapping(), { ...this.data, aliases: this.aliases(), chosen: this.chosen(), tags: new Set(this.tags()) }),
+    () =>
+      this.serverRows() ??
+      buildRows(this.table(), this.mapping(), { ...this.data, aliases: this.aliases(), chosen: this.chosen(), tags: new Set(this.tags()) }),
   );
   /** Names still unknown, and those matched in this dialog (so a chosen match can be changed again). */
   protected readonly namesToMatch = computed(() => {
@@ -130,10 +149,18 @@ export class SpaceImportDialog {
     return [...matched, ...open];
   });
   /** Rows with problems first, so they are what the preview opens on. */
-  protected readonly orderedRows = computed(() => [...this.rows()].sort((a, b) => Number(b.problems.length > 0) - Number(a.problems.length > 0) || a.line - b.line));
-  protected readonly problemCount = computed(() => this.rows().filter((row) => row.problems.length > 0).length + this.typeRows().filter((row) => row.problems.length > 0).length);
+  protected readonly orderedRows = computed(() =>
+    [...this.rows()].sort((a, b) => Number(b.problems.length > 0) - Number(a.problems.length > 0) || a.line - b.line),
+  );
+  protected readonly problemCount = computed(
+    () => this.rows().filter((row) => row.problems.length > 0).length + this.typeRows().filter((row) => row.problems.length > 0).length,
+  );
   protected readonly missingName = computed(() => !this.mapping().includes('name') || !this.mapping().includes('area'));
-  protected readonly otherSheets = computed(() => this.sheets().slice(1).map((sheet, index) => ({ index: index + 1, name: sheet.name })));
+  protected readonly otherSheets = computed(() =>
+    this.sheets()
+      .slice(1)
+      .map((sheet, index) => ({ index: index + 1, name: sheet.name })),
+  );
   protected readonly typeSheetIncomplete = computed(() => this.typesSheet() !== null && !isTypeSheet(this.typeMapping()));
   protected readonly trackRow = (_index: number, row: ImportRow) => row.line;
   /** The key of an import whose outcome is unknown (no answer, or a server failure), with the rows it sent. */
@@ -142,7 +169,9 @@ export class SpaceImportDialog {
   constructor() {
     this.dialog.disableClose = true;
     // Without the remembered names the import still works; the engineer then matches them again.
-    this.api.importAliases(this.data.projectId).subscribe({ next: (aliases) => this.aliases.set(aliases), error: () => this.aliases.set([]) });
+    this.api
+      .importAliases(this.data.projectId)
+      .subscribe({ next: (aliases) => this.aliases.set(aliases), error: () => this.aliases.set([]) });
   }
 
   protected async choose(event: Event): Promise<void> {
@@ -206,7 +235,10 @@ export class SpaceImportDialog {
 
   protected matchName(kind: TypeKind, name: string, key: string): void {
     const folded = foldTypeName(name);
-    this.matchedNames.update((matched) => [...matched.filter((match) => match.kind !== kind || foldTypeName(match.name) !== folded), { kind, name, key }]);
+    this.matchedNames.update((matched) => [
+      ...matched.filter((match) => match.kind !== kind || foldTypeName(match.name) !== folded),
+      { kind, name, key },
+    ]);
     this.serverRows.set(null);
   }
 
@@ -240,13 +272,25 @@ export class SpaceImportDialog {
     const { projectId } = this.data;
     const remembered: Observable<unknown> = remember.length > 0 ? this.api.saveImportAliases(projectId, remember) : of(null);
     remembered
-      .pipe(switchMap(() => this.api.createSpaces(projectId, rows.map((row) => row.space), key, typeRows.map((row) => row.type))))
+      .pipe(
+        switchMap(() =>
+          this.api.createSpaces(
+            projectId,
+            rows.map((row) => row.space),
+            key,
+            typeRows.map((row) => row.type),
+          ),
+        ),
+      )
       .subscribe({
         next: (created) => this.dialog.close({ spaces: created, luminaireTypes: typeRows.length }),
         error: (error: unknown) => {
           this.busy.set(false);
           if (error instanceof ApiError && (error.status === 0 || error.status >= 500)) this.unanswered = { key, rows };
-          if (error instanceof ApiError && (error.status === 400 || (error.status === 409 && error.details.some((detail) => detail.path.startsWith('luminaireTypes.'))))) {
+          if (
+            error instanceof ApiError &&
+            (error.status === 400 || (error.status === 409 && error.details.some((detail) => detail.path.startsWith('luminaireTypes.'))))
+          ) {
             this.serverRows.set(attachServerProblems(rows, error.details));
             this.serverTypeRows.set(attachServerTypeProblems(typeRows, error.details));
             this.failure.set(`${error.message} Nothing was imported.`);
@@ -260,9 +304,12 @@ export class SpaceImportDialog {
   protected close(): void {
     if (this.stage() === 'choose') this.dialog.close();
     else
-      askToConfirm(this.dialogs, { title: 'Stop importing?', message: 'Nothing has been saved yet.', confirm: 'Stop importing', cancel: 'Keep importing' }).subscribe(
-        (stop) => stop && this.dialog.close(),
-      );
+      askToConfirm(this.dialogs, {
+        title: 'Stop importing?',
+        message: 'Nothing has been saved yet.',
+        confirm: 'Stop importing',
+        cancel: 'Keep importing',
+      }).subscribe((stop) => stop && this.dialog.close());
   }
 
   protected downloadCsv(): void {
@@ -271,7 +318,10 @@ export class SpaceImportDialog {
 
   protected async downloadXlsx(): Promise<void> {
     const buffer = await templateXlsx();
-    this.download(new Blob([buffer], { type: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet' }), 'allowlight-spaces-template.xlsx');
+    this.download(
+      new Blob([buffer], { type: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet' }),
+      'allowlight-spaces-template.xlsx',
+    );
   }
 
   private download(blob: Blob, name: string): void {

@@ -2,7 +2,11 @@ import { foldTypeName, matchTypeName, rememberedNames, searchTypes, type TypeOpt
 
 // Rows of IECC 2021 Table C405.3.2(2), via PNNL building-energy-standards-data (key, label, the edition's own label).
 const types: TypeOption[] = [
-  { key: 'conference-meeting-multipurpose-room', label: 'Conference/Meeting/Multipurpose Room', sourceLabel: 'Conference/Meeting/Multipurpose Room' },
+  {
+    key: 'conference-meeting-multipurpose-room',
+    label: 'Conference/Meeting/Multipurpose Room',
+    sourceLabel: 'Conference/Meeting/Multipurpose Room',
+  },
   { key: 'corridor-in-a-hospital', label: 'Corridor — In a Hospital', sourceLabel: 'Corridor | In a Hospital' },
   { key: 'corridor-otherwise', label: 'Corridor — Otherwise', sourceLabel: 'Corridor | Otherwise' },
   { key: 'electrical-mechanical-room', label: 'Electrical/Mechanical Room', sourceLabel: 'Electrical/Mechanical Room' },
@@ -10,7 +14,11 @@ const types: TypeOption[] = [
   { key: 'office-open-plan', label: 'Office — Open plan', sourceLabel: 'Office | Open plan' },
   { key: 'restroom-otherwise', label: 'Restroom — Otherwise', sourceLabel: 'Restroom | Otherwise' },
   { key: 'storage-room', label: 'Storage Room', sourceLabel: 'Storage Room' },
-  { key: 'warehouse-storage-area-for-smaller-hand-carried-items', label: 'Warehouse - Storage Area — For Smaller, hand-carried items', sourceLabel: 'Warehouse - Storage Area | For Smaller, hand-carried items' },
+  {
+    key: 'warehouse-storage-area-for-smaller-hand-carried-items',
+    label: 'Warehouse - Storage Area — For Smaller, hand-carried items',
+    sourceLabel: 'Warehouse - Storage Area | For Smaller, hand-carried items',
+  },
 ];
 
 const key = (name: string) => matchTypeName(name, types)?.type.key ?? null;
@@ -70,7 +78,10 @@ describe('foldTypeName', () => {
 
 describe('searchTypes', () => {
   it('finds the types whose words start with every word typed', () => {
-    expect(searchTypes(types, 'stor').map((type) => type.key)).toEqual(['storage-room', 'warehouse-storage-area-for-smaller-hand-carried-items']);
+    expect(searchTypes(types, 'stor').map((type) => type.key)).toEqual([
+      'storage-room',
+      'warehouse-storage-area-for-smaller-hand-carried-items',
+    ]);
     expect(searchTypes(types, 'off open').map((type) => type.key)).toEqual(['office-open-plan']);
     expect(searchTypes(types, '')).toHaveLength(types.length);
   });

@@ -61,7 +61,11 @@ function optionWords(type: TypeOption): string[][] {
  * remembered; a key or label as written; the same words, in any order, once folded; the words of
  * exactly one type, or of several where exactly one is the table's general ("Otherwise") row.
  */
-export function matchTypeName<T extends TypeOption>(name: string, types: readonly T[], remembered: ReadonlyMap<string, string> = new Map()): TypeMatch<T> | null {
+export function matchTypeName<T extends TypeOption>(
+  name: string,
+  types: readonly T[],
+  remembered: ReadonlyMap<string, string> = new Map(),
+): TypeMatch<T> | null {
   const words = nameWords(name);
   if (words.length === 0) return null;
   const rememberedKey = remembered.get(words.join(' '));

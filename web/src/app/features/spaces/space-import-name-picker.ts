@@ -26,19 +26,51 @@ import { searchTypes, type TypeOption } from './space-import-match';
         }
       </mat-autocomplete>
       @if (chosen(); as type) {
-        <mat-hint><mat-icon aria-hidden="true" class="ok">check</mat-icon>Matched to {{ type.label }}; remembered for this project when you import.</mat-hint>
+        <mat-hint
+          ><mat-icon aria-hidden="true" class="ok">check</mat-icon>Matched to {{ type.label }}; remembered for this project when you
+          import.</mat-hint
+        >
       }
     </mat-form-field>
   `,
   styles: `
-    :host { display: grid; grid-template-columns: minmax(160px, 1fr) minmax(240px, 2fr); gap: 12px; align-items: center; }
-    .name { display: flex; flex-direction: column; }
-    .sheet-name { font: var(--mat-sys-title-small); overflow-wrap: anywhere; }
-    .rows { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
-    .picker { width: 100%; }
-    mat-hint { display: inline-flex; align-items: center; gap: 4px; }
-    .ok { font-size: 16px; width: 16px; height: 16px; color: var(--mat-sys-primary); }
-    @media (max-width: 599px) { :host { grid-template-columns: 1fr; } }
+    :host {
+      display: grid;
+      grid-template-columns: minmax(160px, 1fr) minmax(240px, 2fr);
+      gap: 12px;
+      align-items: center;
+    }
+    .name {
+      display: flex;
+      flex-direction: column;
+    }
+    .sheet-name {
+      font: var(--mat-sys-title-small);
+      overflow-wrap: anywhere;
+    }
+    .rows {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .picker {
+      width: 100%;
+    }
+    mat-hint {
+      display: inline-flex;
+      align-items: center;
+      gap: 4px;
+    }
+    .ok {
+      font-size: 16px;
+      width: 16px;
+      height: 16px;
+      color: var(--mat-sys-primary);
+    }
+    @media (max-width: 599px) {
+      :host {
+        grid-template-columns: 1fr;
+      }
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -66,7 +98,8 @@ export class SpaceImportNamePicker {
     this.query.valueChanges.subscribe((value) => this.queryText.set(typeof value === 'string' ? value : ''));
   }
 
-  protected readonly display = (value: string | TypeOption | null): string => (value && typeof value !== 'string' ? value.label : (value ?? ''));
+  protected readonly display = (value: string | TypeOption | null): string =>
+    value && typeof value !== 'string' ? value.label : (value ?? '');
 
   protected choose(event: MatAutocompleteSelectedEvent): void {
     const type = event.option.value as TypeOption;

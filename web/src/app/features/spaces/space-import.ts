@@ -1,5 +1,13 @@
 import Papa from 'papaparse';
-import type { BuildingAreaTypeView, ComplianceMethod, ImportAlias, LuminaireTypeInput, LuminaireUse, SpaceInput, SpaceTypeView } from '../../core/api/api-types';
+import type {
+  BuildingAreaTypeView,
+  ComplianceMethod,
+  ImportAlias,
+  LuminaireTypeInput,
+  LuminaireUse,
+  SpaceInput,
+  SpaceTypeView,
+} from '../../core/api/api-types';
 import type { ApiErrorDetail } from '../../core/http/api-error';
 import { numberProblem, ranges } from '../../shared/number-range';
 import { foldTypeName, matchTypeName, rememberedNames, type MatchKind, type TypeOption } from './space-import-match';
@@ -152,13 +160,23 @@ function headerTag(text: string, tags: readonly string[]): string | undefined {
 }
 
 /** Each header to the field whose name or alias it matches, or to the counts of a tag it names; every field is used at most once. */
-export function guessMapping(headers: readonly string[], method: ComplianceMethod = 'space-by-space', tags: readonly string[] = []): ColumnMapping {
+export function guessMapping(
+  headers: readonly string[],
+  method: ComplianceMethod = 'space-by-space',
+  tags: readonly string[] = [],
+): ColumnMapping {
   const used = new Set<ImportField>();
   return headers.map((header) => {
     const text = normalise(header);
-    const exact = importFields.find(({ field, label, aliases }) => !used.has(field) && (normalise(label) === text || normalise(field) === text || aliases.includes(text)));
+    const exact = importFields.find(
+      ({ field, label, aliases }) => !used.has(field) && (normalise(label) === text || normalise(field) === text || aliases.includes(text)),
+    );
     const tag = exact ? undefined : headerTag(text, tags);
-    const loose = exact ?? (tag === undefined ? importFields.find(({ field, aliases }) => !used.has(field) && aliases.some((alias) => alias.length > 3 && text.includes(alias))) : undefined);
+    const loose =
+      exact ??
+      (tag === undefined
+        ? importFields.find(({ field, aliases }) => !used.has(field) && aliases.some((alias) => alias.length > 3 && text.includes(alias)))
+        : undefined);
     let field: ImportField | null = loose?.field ?? (tag !== undefined && !used.has(countField(tag)) ? countField(tag) : null);
     // A plain "type" column means whichever type the method uses.
     if (field === 'spaceType' && method === 'building-area' && !used.has('buildingAreaType') && text === 'type') field = 'buildingAreaType';
@@ -190,7 +208,14 @@ export function buildRows(table: ImportTable, mapping: ColumnMapping, context: I
     });
     const problems: ImportRowProblem[] = [];
     const matches: ImportRow['matches'] = {};
-    const space: SpaceInput = { name: values.name ?? '', area: values.area ?? '', luminaires: [], controls: [], windows: [], skylights: [] };
+    const space: SpaceInput = {
+      name: values.name ?? '',
+      area: values.area ?? '',
+      luminaires: [],
+      controls: [],
+      windows: [],
+      skylights: [],
+    };
     if (values.level) space.level = values.level;
 
     if (!space.name) problems.push({ field: 'name', message: 'A name is required.' });
@@ -211,7 +236,11 @@ export function buildRows(table: ImportTable, mapping: ColumnMapping, context: I
     for (const kind of ['spaceType', 'buildingAreaType'] as const) {
       const text = values[kind] ?? '';
       if (!text) {
-        if (kind === required) problems.push({ field: kind, message: `The ${context.method === 'space-by-space' ? 'space-by-space' : 'building area'} method needs a ${typeKindWords[kind]}.` });
+        if (kind === required)
+          problems.push({
+            field: kind,
+            message: `The ${context.method === 'space-by-space' ? 'space-by-space' : 'building area'} method needs a ${typeKindWords[kind]}.`,
+          });
         continue;
       }
       const chosenKey = context.chosen?.[kind].get(foldTypeName(text));
@@ -221,7 +250,11 @@ export function buildRows(table: ImportTable, mapping: ColumnMapping, context: I
         space[kind] = match.type.key;
         matches[kind] = { label: match.type.label, kind: match.kind };
       } else {
-        problems.push({ field: kind, message: `No ${typeKindWords[kind]} is called “${text}”: choose the type it means above.`, unknownName: { kind, name: text } });
+        problems.push({
+          field: kind,
+          message: `No ${typeKindWords[kind]} is called “${text}”: choose the type it means above.`,
+          unknownName: { kind, name: text },
+        });
       }
     }
 
@@ -257,7 +290,10 @@ export function unknownNames(rows: readonly ImportRow[]): { kind: TypeKind; name
  * The names matched in the dialog, merged into what the project remembered under the same name,
  * so that remembering a space type keeps the building area type matched to that name (and back).
  */
-export function aliasesToRemember(matched: readonly { kind: TypeKind; name: string; key: string }[], remembered: readonly ImportAlias[]): ImportAlias[] {
+export function aliasesToRemember(
+  matched: readonly { kind: TypeKind; name: string; key: string }[],
+  remembered: readonly ImportAlias[],
+): ImportAlias[] {
   const byName = new Map<string, ImportAlias>(remembered.map((alias) => [foldTypeName(alias.name), alias]));
   const changed = new Map<string, ImportAlias>();
   for (const match of matched) {
@@ -289,7 +325,11 @@ export type TypeMapping = (TypeField | null)[];
 export const typeFields: readonly { field: TypeField; label: string; aliases: readonly string[] }[] = [
   { field: 'tag', label: 'Tag', aliases: ['tag', 'type', 'type tag', 'mark', 'luminaire', 'luminaire type', 'fixture type'] },
   { field: 'description', label: 'Description', aliases: ['description', 'desc', 'luminaire description'] },
-  { field: 'inputWatts', label: 'Rated input (W)', aliases: ['rated input', 'rated input watts', 'input watts', 'watts', 'w', 'wattage', 'input'] },
+  {
+    field: 'inputWatts',
+    label: 'Rated input (W)',
+    aliases: ['rated input', 'rated input watts', 'input watts', 'watts', 'w', 'wattage', 'input'],
+  },
   { field: 'use', label: 'Use', aliases: ['use', 'lighting use', 'purpose'] },
   { field: 'exemptReason', label: 'Reason it is exempt', aliases: ['exempt reason', 'reason', 'exemption', 'reason exempt'] },
 ];
@@ -335,7 +375,11 @@ export function buildTypeRows(table: ImportTable, mapping: TypeMapping, projectT
     const problems: ImportTypeRow['problems'] = [];
     const tag = values.tag ?? '';
     if (!tag) problems.push({ field: 'tag', message: 'A tag is required.' });
-    else if (projectTags.has(tag)) problems.push({ field: 'tag', message: `The project already has a type tagged “${tag}”: rename it in the sheet or leave the row out.` });
+    else if (projectTags.has(tag))
+      problems.push({
+        field: 'tag',
+        message: `The project already has a type tagged “${tag}”: rename it in the sheet or leave the row out.`,
+      });
     else if (seen.has(tag)) problems.push({ field: 'tag', message: `The tag “${tag}” is on an earlier row too.` });
     seen.add(tag);
     const watts = values.inputWatts ?? '';
@@ -345,7 +389,13 @@ export function buildTypeRows(table: ImportTable, mapping: TypeMapping, projectT
     const useText = normalise(values.use ?? '');
     const use = useText === '' ? 'general' : useWords[useText];
     if (!use) problems.push({ field: 'use', message: `“${values.use}” is not a use: write general, decorative, display or exempt.` });
-    const type: LuminaireTypeInput = { tag, description: values.description ?? '', inputWatts: watts, use: use ?? 'general', basis: 'rated' };
+    const type: LuminaireTypeInput = {
+      tag,
+      description: values.description ?? '',
+      inputWatts: watts,
+      use: use ?? 'general',
+      basis: 'rated',
+    };
     if (use === 'exempt') {
       if (values.exemptReason) type.exemptReason = values.exemptReason;
       else problems.push({ field: 'exemptReason', message: 'Exempt lighting needs the reason it is exempt.' });
@@ -389,7 +439,9 @@ export async function templateXlsx(): Promise<ArrayBuffer> {
   const sheet = workbook.addWorksheet('Spaces');
   const tags = templateTypeRows.map(([tag]) => tag!);
   sheet.addRow([...templateHeader, ...tags]).font = { bold: true };
-  templateRows.forEach((row, index) => sheet.addRow([...row, templateCounts[index]!].map((cell, column) => (column >= 4 && cell !== '' ? Number(cell) : cell))));
+  templateRows.forEach((row, index) =>
+    sheet.addRow([...row, templateCounts[index]!].map((cell, column) => (column >= 4 && cell !== '' ? Number(cell) : cell))),
+  );
   sheet.columns.forEach((column) => (column.width = 20));
   const types = workbook.addWorksheet('Luminaire types');
   types.addRow(templateTypeHeader).font = { bold: true };

@@ -5,8 +5,7 @@ import { metresPerFoot, squareMetresPerSquareFoot } from '../../shared/unit-word
 export const noLevel = 'No level';
 
 export type SpaceRow =
-  | { kind: 'level'; id: string; level: string; count: number; area: number }
-  | { kind: 'space'; id: string; space: SpaceRecord };
+  { kind: 'level'; id: string; level: string; count: number; area: number } | { kind: 'space'; id: string; space: SpaceRecord };
 
 /**
  * Level headers and spaces in one flat list, so a single virtual scroll can carry thousands of rows.
@@ -76,7 +75,9 @@ export function spaceTypeAllowance(type: SpaceTypeView, units: UnitSystem): stri
   // Per foot of height becomes per metre: 1 m = 1 / 0.3048 ft exactly (NIST SP 811).
   const perLength = units === 'ip' ? formula.wPerFt2PerFt : String(Number(densityInUnits(formula.wPerFt2PerFt, units)) / metresPerFoot);
   const perHeight = `${formatDensity(perLength, units)} per ${unitLabels(units).length} of height`;
-  return formula.kind === 'per-foot-of-height' ? perHeight : `${formatDensity(densityInUnits(formula.baseWPerFt2, units), units)} + ${perHeight}`;
+  return formula.kind === 'per-foot-of-height'
+    ? perHeight
+    : `${formatDensity(densityInUnits(formula.baseWPerFt2, units), units)} + ${perHeight}`;
 }
 
 /** A stored space as the body of a write (what PUT and POST take back). */

@@ -11,10 +11,34 @@ import { groupByLevel, spaceStatus } from './space-rows';
 import { SpacesPage } from './spaces-page';
 
 // Invented demo project and spaces.
-const project = { id: 'p1', name: 'Harbour Pavilion', state: 'draft', role: 'engineer', edition: 'iecc-2021', method: 'space-by-space', units: 'ip', version: 1, members: [] } as unknown as ProjectDetail;
+const project = {
+  id: 'p1',
+  name: 'Harbour Pavilion',
+  state: 'draft',
+  role: 'engineer',
+  edition: 'iecc-2021',
+  method: 'space-by-space',
+  units: 'ip',
+  version: 1,
+  members: [],
+} as unknown as ProjectDetail;
 
 function space(id: string, name: string, level: string | undefined, position: number, area: string, spaceType: string): SpaceRecord {
-  return { id, name, level, position, area, spaceType, luminaires: [], controls: [], windows: [], skylights: [], version: 1, updatedAt: '', updatedBy: null };
+  return {
+    id,
+    name,
+    level,
+    position,
+    area,
+    spaceType,
+    luminaires: [],
+    controls: [],
+    windows: [],
+    skylights: [],
+    version: 1,
+    updatedAt: '',
+    updatedBy: null,
+  };
 }
 
 const spaces = [
@@ -39,7 +63,15 @@ function designOf(change: (space: SpecDocument['spaces'][number]) => SpecDocumen
     method: 'space-by-space',
     units: 'ip',
     luminaireTypes: [{ tag: 'A', description: 'Troffer', inputWatts: '10', use: 'general' }],
-    spaces: spaces.map((entry) => change({ id: entry.id, name: entry.name, area: entry.area, spaceType: entry.spaceType, luminaires: [{ tag: 'A', count: counts[entry.id]! }] })),
+    spaces: spaces.map((entry) =>
+      change({
+        id: entry.id,
+        name: entry.name,
+        area: entry.area,
+        spaceType: entry.spaceType,
+        luminaires: [{ tag: 'A', count: counts[entry.id]! }],
+      }),
+    ),
   };
 }
 
@@ -66,7 +98,10 @@ describe('the space table', () => {
     await fixture.whenStable();
   });
 
-  const rowText = (name: string) => Array.from(element.querySelectorAll('[role="row"]')).find((row) => row.textContent?.includes(name))?.textContent?.replace(/\s+/g, ' ') ?? '';
+  const rowText = (name: string) =>
+    Array.from(element.querySelectorAll('[role="row"]'))
+      .find((row) => row.textContent?.includes(name))
+      ?.textContent?.replace(/\s+/g, ' ') ?? '';
 
   it('flattens levels and spaces into one list, levels in the order first entered', () => {
     expect(groupByLevel(spaces).map((row) => (row.kind === 'level' ? `# ${row.level} (${row.count})` : row.space.name))).toEqual([
@@ -94,7 +129,11 @@ describe('the space table', () => {
 
   it('says a space without luminaires has none entered, and a confirmed one is unlit, never "to spare"', async () => {
     // Store 102 has no luminaires yet, Office 101 is confirmed unlit.
-    const result = evaluated(designOf((entry) => (entry.id === 's2' ? { ...entry, luminaires: [], unlit: true } : entry.id === 's3' ? { ...entry, luminaires: [] } : entry)));
+    const result = evaluated(
+      designOf((entry) =>
+        entry.id === 's2' ? { ...entry, luminaires: [], unlit: true } : entry.id === 's3' ? { ...entry, luminaires: [] } : entry,
+      ),
+    );
     store.seed({ results: { status: 'ready', result } });
     await fixture.whenStable();
     expect(rowText('Store 102')).toContain('No luminaires entered');
@@ -130,7 +169,9 @@ describe('the space table', () => {
   });
 
   it('renders only the rows in view when the project has 5,000 spaces', async () => {
-    const many = Array.from({ length: 5000 }, (_, index) => space(`m${index}`, `Room ${index}`, `Level ${Math.floor(index / 500) + 1}`, index, '100', 'office-enclosed'));
+    const many = Array.from({ length: 5000 }, (_, index) =>
+      space(`m${index}`, `Room ${index}`, `Level ${Math.floor(index / 500) + 1}`, index, '100', 'office-enclosed'),
+    );
     store.seed({ spaces: many });
     await fixture.whenStable();
     const rendered = element.querySelectorAll('cdk-virtual-scroll-viewport [role="row"]').length;
@@ -143,7 +184,9 @@ describe('the space table', () => {
     const http = TestBed.inject(HttpTestingController);
     element.querySelector<HTMLButtonElement>('button[aria-label="More for Store 102"]')!.click();
     await fixture.whenStable();
-    const remove = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-item')).find((item) => item.textContent?.includes('Delete'))!;
+    const remove = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-item')).find((item) =>
+      item.textContent?.includes('Delete'),
+    )!;
     remove.click();
     const deletion = http.expectOne((request) => request.method === 'DELETE' && request.url === '/api/projects/p1/spaces/s3');
     expect(deletion.request.params.get('version')).toBe('1');
@@ -151,7 +194,9 @@ describe('the space table', () => {
     await fixture.whenStable();
     expect(store.spaces().map((kept) => kept.id)).toEqual(['s1', 's2']);
 
-    const undo = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-snack-bar-container button')).find((button) => button.textContent?.includes('Undo'))!;
+    const undo = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-snack-bar-container button')).find((button) =>
+      button.textContent?.includes('Undo'),
+    )!;
     expect(document.querySelector('.mat-mdc-snack-bar-container')?.textContent).toContain('Space “Store 102” deleted');
     undo.click();
     // The restore route, not a new space: the same id keeps its history and the counts that name it.

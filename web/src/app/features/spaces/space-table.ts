@@ -45,7 +45,8 @@ export class SpaceTable {
   /** The template names the unit labels `units`; the badge takes the system itself. */
   protected readonly unitSystem = computed(() => this.units());
   private readonly typeViews = computed(() => {
-    const types: readonly (SpaceTypeView | BuildingAreaTypeView)[] = this.method() === 'building-area' ? this.buildingAreaTypes() : this.spaceTypes();
+    const types: readonly (SpaceTypeView | BuildingAreaTypeView)[] =
+      this.method() === 'building-area' ? this.buildingAreaTypes() : this.spaceTypes();
     return new Map(types.map((type) => [type.key, type]));
   });
 

@@ -41,7 +41,15 @@ export function groupSpaceTypes(types: readonly SpaceTypeView[], query: string):
   template: `
     <mat-form-field appearance="outline" class="picker">
       <mat-label>{{ label() }}</mat-label>
-      <input matInput [formControl]="query" [matAutocomplete]="list" [errorStateMatcher]="outerError" [required]="required()" (blur)="settle()" autocomplete="off" />
+      <input
+        matInput
+        [formControl]="query"
+        [matAutocomplete]="list"
+        [errorStateMatcher]="outerError"
+        [required]="required()"
+        (blur)="settle()"
+        autocomplete="off"
+      />
       <mat-autocomplete #list="matAutocomplete" [displayWith]="display" (optionSelected)="choose($event)" class="space-type-options">
         @for (group of groups(); track group.category) {
           <mat-optgroup [label]="group.label">
@@ -73,12 +81,30 @@ export function groupSpaceTypes(types: readonly SpaceTypeView[], query: string):
     </mat-form-field>
   `,
   styles: `
-    :host { display: block; }
-    .picker { width: 100%; }
-    .option { display: flex; align-items: center; gap: 8px; }
-    .name { flex: 1; }
-    .lpd { font-variant-numeric: tabular-nums; color: var(--mat-sys-on-surface-variant); white-space: nowrap; }
-    .source-label { display: block; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
+    :host {
+      display: block;
+    }
+    .picker {
+      width: 100%;
+    }
+    .option {
+      display: flex;
+      align-items: center;
+      gap: 8px;
+    }
+    .name {
+      flex: 1;
+    }
+    .lpd {
+      font-variant-numeric: tabular-nums;
+      color: var(--mat-sys-on-surface-variant);
+      white-space: nowrap;
+    }
+    .source-label {
+      display: block;
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -125,7 +151,8 @@ export class SpaceTypePicker {
     });
   }
 
-  protected readonly display = (value: string | SpaceTypeView | null): string => (value && typeof value !== 'string' ? inProjectUnits(value.label, this.units()) : (value ?? ''));
+  protected readonly display = (value: string | SpaceTypeView | null): string =>
+    value && typeof value !== 'string' ? inProjectUnits(value.label, this.units()) : (value ?? '');
 
   protected density(type: SpaceTypeView): string {
     return spaceTypeAllowance(type, this.units());
@@ -146,7 +173,9 @@ export class SpaceTypePicker {
     const value = this.query.value;
     if (typeof value !== 'string') return;
     const text = value.trim().toLocaleLowerCase();
-    const match = this.spaceTypes().find((type) => [type.key, type.label, type.sourceLabel].some((name) => name.toLocaleLowerCase() === text));
+    const match = this.spaceTypes().find((type) =>
+      [type.key, type.label, type.sourceLabel].some((name) => name.toLocaleLowerCase() === text),
+    );
     if (match) {
       this.query.setValue(match, { emitEvent: false });
       if (control.value !== match.key) {

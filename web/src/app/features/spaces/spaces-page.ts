@@ -36,11 +36,19 @@ export class SpacesPage implements HasUnsavedChanges {
   protected readonly method = computed(() => this.store.project()?.method ?? 'space-by-space');
   protected readonly resultsStatus = computed(() => this.store.results().status);
   protected readonly totalArea = computed(() => this.store.spaces().reduce((sum, space) => sum + Number(space.area), 0));
-  private readonly levels = computed(() => [...new Set(this.store.spaces().map((space) => space.level).filter((level): level is string => !!level))]);
+  private readonly levels = computed(() => [
+    ...new Set(
+      this.store
+        .spaces()
+        .map((space) => space.level)
+        .filter((level): level is string => !!level),
+    ),
+  ]);
   /** The unverified types the spaces use under the project's method: each carries a "verify" mark in the table. */
   protected readonly unverifiedTypes = computed(() => {
     const tables = this.store.tables();
-    const types: readonly { key: string; verified: boolean }[] = (this.method() === 'building-area' ? tables?.buildingAreaTypes : tables?.spaceTypes) ?? [];
+    const types: readonly { key: string; verified: boolean }[] =
+      (this.method() === 'building-area' ? tables?.buildingAreaTypes : tables?.spaceTypes) ?? [];
     const unverified = new Set(types.filter((type) => !type.verified).map((type) => type.key));
     const used = this.store.spaces().map((space) => (this.method() === 'building-area' ? space.buildingAreaType : space.spaceType));
     return [...new Set(used.filter((key): key is string => key !== undefined && unverified.has(key)))];
@@ -60,13 +68,20 @@ export class SpacesPage implements HasUnsavedChanges {
       untracked(() => {
         if (this.dialogs.openDialogs.length === 0) this.openEditor(target, field);
         // Opened once: the link's parameters go, so saving the space does not open it again.
-        void this.router.navigate([], { relativeTo: this.route, queryParams: { space: null, field: null }, queryParamsHandling: 'merge', replaceUrl: true });
+        void this.router.navigate([], {
+          relativeTo: this.route,
+          queryParams: { space: null, field: null },
+          queryParamsHandling: 'merge',
+          replaceUrl: true,
+        });
       });
     });
   }
 
   hasUnsavedChanges(): boolean {
-    return this.dialogs.openDialogs.some((dialog) => (dialog.componentInstance as Partial<HasUnsavedChanges>).hasUnsavedChanges?.() ?? false);
+    return this.dialogs.openDialogs.some(
+      (dialog) => (dialog.componentInstance as Partial<HasUnsavedChanges>).hasUnsavedChanges?.() ?? false,
+    );
   }
 
   protected add(): void {

@@ -52,7 +52,11 @@ export function sameWhereUnchanged<T extends { id: string; version: number }>(he
  * newer (a change read back from the stream may arrive before the answer to the write), and the
  * rest are added.
  */
-function upsertInto<T extends { id: string; version: number }>(list: WritableSignal<T[]>, records: readonly T[], order?: (a: T, b: T) => number): void {
+function upsertInto<T extends { id: string; version: number }>(
+  list: WritableSignal<T[]>,
+  records: readonly T[],
+  order?: (a: T, b: T) => number,
+): void {
   list.update((held) => {
     const incoming = new Map(records.map((record) => [record.id, record]));
     const next = held.map((record) => {
@@ -110,15 +114,29 @@ export class ProjectStore {
     // Edits come in bursts: wait for a pause, and let a newer request cancel the one in flight.
     this.recompute
       .pipe(
-        tap(() => this.resultState.update((state) => ({ status: 'updating', previous: state.status === 'ready' ? state.result : state.status === 'updating' ? state.previous : null }))),
+        tap(() =>
+          this.resultState.update((state) => ({
+            status: 'updating',
+            previous: state.status === 'ready' ? state.result : state.status === 'updating' ? state.previous : null,
+          })),
+        ),
         debounceTime(350),
         switchMap((projectId) =>
           this.api.results(projectId).pipe(
             map((result): ResultsState => ({ status: 'ready', result })),
             catchError((error: unknown) =>
               error instanceof ApiError && error.status === 400
-                ? this.problemContext(projectId).pipe(map((context): ResultsState => ({ status: 'incomplete', problems: error.details.map((detail) => problemLine(detail, context)), message: error.message })))
-                : of<ResultsState>({ status: 'failed', message: error instanceof ApiError ? error.message : 'The results could not be computed.' }),
+                ? this.problemContext(projectId).pipe(
+                    map((context): ResultsState => ({
+                      status: 'incomplete',
+                      problems: error.details.map((detail) => problemLine(detail, context)),
+                      message: error.message,
+                    })),
+                  )
+                : of<ResultsState>({
+                    status: 'failed',
+                    message: error instanceof ApiError ? error.message : 'The results could not be computed.',
+                  }),
             ),
           ),
         ),
@@ -197,13 +215,13 @@ export class ProjectStore {
     const labels = new Map((this.tables()?.exteriorApplications ?? []).map((application) => [application.key, application.label]));
     const fallback: ProblemContext = { spaces: this.spaces(), luminaireTags: this.luminaireTypes().map((type) => type.tag) };
     return this.api.document(projectId).pipe(
-      map(
-        (document): ProblemContext => ({
-          spaces: document.spaces,
-          luminaireTags: document.luminaireTypes.map((type) => type.tag),
-          exteriorApplications: (document.exterior?.applications ?? []).map((application) => ({ label: labels.get(application.key) ?? 'An exterior application' })),
-        }),
-      ),
+      map((document): ProblemContext => ({
+        spaces: document.spaces,
+        luminaireTags: document.luminaireTypes.map((type) => type.tag),
+        exteriorApplications: (document.exterior?.applications ?? []).map((application) => ({
+          label: labels.get(application.key) ?? 'An exterior application',
+        })),
+      })),
       catchError(() => of(fallback)),
     );
   }
@@ -324,7 +342,14 @@ export class ProjectStore {
    * Puts data in place without asking the service: for component tests, which give a page the
    * store's state directly.
    */
-  seed(state: { project?: ProjectDetail; spaces?: SpaceRecord[]; luminaireTypes?: LuminaireTypeRecord[]; exterior?: ExteriorApplicationRecord[]; tables?: EditionTables; results?: ResultsState }): void {
+  seed(state: {
+    project?: ProjectDetail;
+    spaces?: SpaceRecord[];
+    luminaireTypes?: LuminaireTypeRecord[];
+    exterior?: ExteriorApplicationRecord[];
+    tables?: EditionTables;
+    results?: ResultsState;
+  }): void {
     if (state.project) this.projectState.set(state.project);
     if (state.spaces) this.spaceList.set(state.spaces);
     if (state.luminaireTypes) this.typeList.set(state.luminaireTypes);

@@ -75,7 +75,12 @@ export class WorkspaceApi {
    * One import, all or nothing, with the luminaire types its counts name; a retry with the same
    * `importKey` returns the first import's spaces instead of adding them (and the types) twice.
    */
-  createSpaces(projectId: string, spaces: SpaceInput[], importKey: string, luminaireTypes: LuminaireTypeInput[] = []): Observable<SpaceRecord[]> {
+  createSpaces(
+    projectId: string,
+    spaces: SpaceInput[],
+    importKey: string,
+    luminaireTypes: LuminaireTypeInput[] = [],
+  ): Observable<SpaceRecord[]> {
     const body = luminaireTypes.length > 0 ? { spaces, luminaireTypes } : { spaces };
     return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/bulk`, body, { headers: { 'Idempotency-Key': importKey } });
   }
@@ -134,8 +139,16 @@ export class WorkspaceApi {
     return this.http.post<ExteriorApplicationRecord>(`/api/projects/${projectId}/exterior-applications`, application);
   }
 
-  replaceExteriorApplication(projectId: string, applicationId: string, version: number, application: ExteriorApplicationInput): Observable<ExteriorApplicationRecord> {
-    return this.http.put<ExteriorApplicationRecord>(`/api/projects/${projectId}/exterior-applications/${applicationId}`, { ...application, version });
+  replaceExteriorApplication(
+    projectId: string,
+    applicationId: string,
+    version: number,
+    application: ExteriorApplicationInput,
+  ): Observable<ExteriorApplicationRecord> {
+    return this.http.put<ExteriorApplicationRecord>(`/api/projects/${projectId}/exterior-applications/${applicationId}`, {
+      ...application,
+      version,
+    });
   }
 
   deleteExteriorApplication(projectId: string, applicationId: string, version: number): Observable<void> {
@@ -147,8 +160,15 @@ export class WorkspaceApi {
   }
 
   /** Records one control (provided, or an exception) on many spaces at once; all or nothing, 409 naming the stale ones. */
-  setControlOnSpaces(projectId: string, spaces: readonly Pick<SpaceRecord, 'id' | 'version'>[], control: ProvidedControl): Observable<SpaceRecord[]> {
-    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/controls`, { spaces: spaces.map(({ id, version }) => ({ id, version })), control });
+  setControlOnSpaces(
+    projectId: string,
+    spaces: readonly Pick<SpaceRecord, 'id' | 'version'>[],
+    control: ProvidedControl,
+  ): Observable<SpaceRecord[]> {
+    return this.http.post<SpaceRecord[]>(`/api/projects/${projectId}/spaces/controls`, {
+      spaces: spaces.map(({ id, version }) => ({ id, version })),
+      control,
+    });
   }
 
   /** The stored project as the evaluation reads it: the order its problem paths count in. */

@@ -43,7 +43,20 @@ export const workspaceAreas: readonly WorkspaceArea[] = [
 
 @Component({
   selector: 'al-workspace-page',
-  imports: [NgTemplateOutlet, MatButtonModule, MatSidenavModule, MatListModule, MatIconModule, MatChipsModule, MatProgressBarModule, MatToolbarModule, MatTooltipModule, RouterLink, RouterLinkActive, RouterOutlet],
+  imports: [
+    NgTemplateOutlet,
+    MatButtonModule,
+    MatSidenavModule,
+    MatListModule,
+    MatIconModule,
+    MatChipsModule,
+    MatProgressBarModule,
+    MatToolbarModule,
+    MatTooltipModule,
+    RouterLink,
+    RouterLinkActive,
+    RouterOutlet,
+  ],
   providers: [ProjectStore],
   templateUrl: './workspace-page.html',
   styleUrl: './workspace-page.scss',
