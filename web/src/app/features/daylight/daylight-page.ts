@@ -64,6 +64,11 @@ export class DaylightPage implements HasUnsavedChanges {
   protected readonly labels = computed(() => unitLabels(this.store.units()));
   protected readonly figures = { watts: wattsFigure, area: areaFigure };
   protected readonly format = { area: formatArea, length: formatLength };
+
+  /** ", 2 skylights" after the window count; nothing without skylights. */
+  protected skylightWords(count: number): string {
+    return count === 0 ? '' : `, ${count} skylight${count === 1 ? '' : 's'}`;
+  }
   protected readonly fieldMessage = fieldMessage;
   protected readonly walls = ['north', 'east', 'south', 'west'] as const;
 

@@ -120,6 +120,11 @@ export class SpaceImportDialog {
     () =>
       this.serverTypeRows() ?? (this.typesSheet() === null ? [] : buildTypeRows(this.typeTable(), this.typeMapping(), this.projectTags)),
   );
+  /** ", 3 luminaire types" after the space count, when the workbook brings types. */
+  protected readonly typeCountWords = computed(() => {
+    const count = this.typeRows().length;
+    return count === 0 ? '' : `, ${count} luminaire type${count === 1 ? '' : 's'}`;
+  });
   /** Tags a count column may name: the project's and the imported ones. */
   protected readonly tags = computed(() => [
     ...this.data.luminaireTags,
