@@ -57,6 +57,18 @@ export async function listAllowanceClaims(db: Knex, projectId: string): Promise<
   return (await claims(db).where('t.project_id', projectId).orderBy('t.created_at')).map(claimRecord);
 }
 
+/** The project's live claims as an evaluation document lists them, oldest first (a deleted claim, kept for its restore days, is no claim). */
+export async function liveClaimsForDocument(
+  db: Knex,
+  projectId: string,
+): Promise<{ allowance_key: string; space_id: string; area: string }[]> {
+  return db('retail_display_claims')
+    .where({ project_id: projectId })
+    .whereNull('deleted_at')
+    .orderBy('created_at')
+    .select<{ allowance_key: string; space_id: string; area: string }[]>('allowance_key', 'space_id', 'area');
+}
+
 async function oneClaim(db: Knex, id: string): Promise<AllowanceClaim> {
   return claimRecord(await claims(db).where('t.id', id).first());
 }

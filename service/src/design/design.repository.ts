@@ -1170,3 +1170,11 @@ async function recordDesignChanges(trx: Knex.Transaction, changes: DesignChange[
 export async function touchProject(trx: Knex, projectId: string): Promise<void> {
   await trx('projects').where({ id: projectId }).update({ updated_at: trx.fn.now(), result_summary: null });
 }
+
+/** A space's type, or undefined when the project has no such space. */
+export async function spaceTypeOf(db: Knex, projectId: string, spaceId: string): Promise<string | null | undefined> {
+  const space = await db('spaces')
+    .where({ id: spaceId, project_id: projectId })
+    .first<{ space_type: string | null } | undefined>('space_type');
+  return space?.space_type;
+}

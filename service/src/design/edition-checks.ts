@@ -3,7 +3,8 @@ import { exceptionProblems, exteriorExemptionProblems, salesAreaSpaceType } from
 import { validateDocument, type EditionData } from '../compliance/index.js';
 import type { Database } from '../db/database.js';
 import { Refused, type ErrorDetail } from '../domain-errors.js';
-import { listLuminaireTypes } from './design.repository.js';
+import { projectSetup } from '../projects/projects.repository.js';
+import { listLuminaireTypes, spaceTypeOf } from './design.repository.js';
 import type { ExteriorApplicationInput, LuminaireTypeInput, SpaceInput } from './design.schema.js';
 
 /**
@@ -19,13 +20,7 @@ export async function assertSpacesFitEdition(
   single: boolean,
   newTypes: readonly LuminaireTypeInput[] = [],
 ): Promise<void> {
-  const project = await db('projects')
-    .where({ id: projectId })
-    .first<{ edition_id: string | null; method: 'building-area' | 'space-by-space' | null; units: 'ip' | 'si' } | undefined>(
-      'edition_id',
-      'method',
-      'units',
-    );
+  const project = await projectSetup(db, projectId);
   if (!project?.edition_id || !project.method) return;
   const edition = await loadEditionData(db, project.edition_id);
   if (!edition) return;
@@ -91,7 +86,7 @@ export async function assertExteriorApplicationFitsEdition(
 }
 
 async function projectEdition(db: Database, projectId: string): Promise<EditionData> {
-  const project = await db('projects').where({ id: projectId }).first<{ edition_id: string | null } | undefined>('edition_id');
+  const project = await projectSetup(db, projectId);
   const edition = project?.edition_id ? await loadEditionData(db, project.edition_id) : undefined;
   if (!edition)
     throw new Refused('Choose the code edition in the set-up first.', [
@@ -149,7 +144,7 @@ export async function assertAllowanceFitsEdition(
   input: { spaceId: string; allowance: string },
 ): Promise<void> {
   const edition = await projectEdition(db, projectId);
-  const project = await db('projects').where({ id: projectId }).first<{ method: string | null }>('method');
+  const project = await projectSetup(db, projectId);
   if (project?.method !== 'space-by-space') {
     throw new Refused('Additional allowances are part of the space-by-space method.', [
       { path: 'allowance', message: 'Switch the project to the space-by-space method first.' },
@@ -163,10 +158,8 @@ export async function assertAllowanceFitsEdition(
   }
   // The decorative allowance is for any space (90.1 §9.6.2(a)); only retail display needs a sales floor.
   if (allowance.kind !== 'retail-display') return;
-  const space = await db('spaces')
-    .where({ id: input.spaceId, project_id: projectId })
-    .first<{ space_type: string | null } | undefined>('space_type');
-  if (space && space.space_type !== salesAreaSpaceType) {
+  const spaceType = await spaceTypeOf(db, projectId, input.spaceId);
+  if (spaceType !== undefined && spaceType !== salesAreaSpaceType) {
     throw new Refused('The display allowance is for sales floors.', [
       { path: 'spaceId', message: 'Choose a space whose type is the sales area.' },
     ]);

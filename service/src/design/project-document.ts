@@ -1,24 +1,16 @@
 import type { Knex } from 'knex';
 import type { EvaluationDocumentInput } from '../compliance/document.js';
 import { NotFound, Refused } from '../domain-errors.js';
+import { projectSetup } from '../projects/projects.repository.js';
+import { liveClaimsForDocument } from './allowance-claims.repository.js';
 import { listExteriorApplications, listLuminaireTypes, listSpaces } from './design.repository.js';
-
-interface ProjectSetupRow {
-  edition_id: string | null;
-  amendments: string[];
-  method: 'building-area' | 'space-by-space' | null;
-  units: 'ip' | 'si';
-  lighting_zone: number | null;
-}
 
 /**
  * The stored project as an evaluation document: the same document `POST /api/evaluate` takes,
  * so evaluating it gives exactly the stored project's results.
  */
 export async function projectDocument(db: Knex, projectId: string): Promise<EvaluationDocumentInput> {
-  const project = await db('projects')
-    .where({ id: projectId })
-    .first<ProjectSetupRow | undefined>('edition_id', 'method', 'units', 'lighting_zone', 'amendments');
+  const project = await projectSetup(db, projectId);
   if (!project) throw new NotFound('No such project.');
   if (!project.edition_id || !project.method) {
     throw new Refused('Choose the code edition and compliance method in the set-up first.', [
@@ -30,12 +22,7 @@ export async function projectDocument(db: Knex, projectId: string): Promise<Eval
     listLuminaireTypes(db, projectId),
     listSpaces(db, projectId),
     listExteriorApplications(db, projectId),
-    // A deleted claim (kept for its restore days) is no claim.
-    db('retail_display_claims')
-      .where({ project_id: projectId })
-      .whereNull('deleted_at')
-      .orderBy('created_at')
-      .select<{ allowance_key: string; space_id: string; area: string }[]>('allowance_key', 'space_id', 'area'),
+    liveClaimsForDocument(db, projectId),
   ]);
   const document: EvaluationDocumentInput = {
     edition: project.edition_id,

@@ -176,6 +176,21 @@ function setupColumns(input: Partial<ProjectCreate>): Record<string, unknown> {
  * When the project's design last changed, as PostgreSQL's text (a JavaScript Date would drop the
  * microseconds that `keepResultSummary` compares); null for no such project.
  */
+/** What an evaluation of the project needs from its set-up. */
+export interface ProjectSetup {
+  edition_id: string | null;
+  amendments: string[];
+  method: 'building-area' | 'space-by-space' | null;
+  units: 'ip' | 'si';
+  lighting_zone: number | null;
+}
+
+export async function projectSetup(db: Knex, projectId: string): Promise<ProjectSetup | undefined> {
+  return db('projects')
+    .where({ id: projectId })
+    .first<ProjectSetup | undefined>('edition_id', 'method', 'units', 'lighting_zone', 'amendments');
+}
+
 export async function designChangedAt(db: Database, projectId: string): Promise<string | null> {
   const row = await db('projects')
     .where({ id: projectId })

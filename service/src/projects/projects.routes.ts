@@ -18,7 +18,7 @@ import {
   updateProjectSetup,
 } from './projects.repository.js';
 import { projectCreateSchema, projectSetupPatchSchema } from './projects.schema.js';
-import { convertProjectUnits } from './unit-conversion.js';
+import { convertProjectUnits } from './unit-conversion.repository.js';
 
 function assertEdition(edition: string | undefined): void {
   if (edition !== undefined && !editionIds.includes(edition as EditionId)) {
