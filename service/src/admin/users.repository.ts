@@ -3,17 +3,9 @@ import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
 import type { Database } from '../db/database.js';
 import type { UserRow } from '../db/tables.js';
+import type { AccountView } from '../../../contract/accounts.js';
 
-export interface AdminUserView {
-  id: string;
-  email: string;
-  name: string;
-  isAdmin: boolean;
-  disabled: boolean;
-  createdAt: string;
-}
-
-const toView = (row: UserRow): AdminUserView => ({
+const toView = (row: UserRow): AccountView => ({
   id: row.id,
   email: row.email,
   name: row.name,
@@ -22,7 +14,7 @@ const toView = (row: UserRow): AdminUserView => ({
   createdAt: row.created_at.toISOString(),
 });
 
-export async function listUsers(db: Database): Promise<AdminUserView[]> {
+export async function listUsers(db: Database): Promise<AccountView[]> {
   const rows: UserRow[] = await db('users').orderByRaw('lower(name), lower(email)');
   return rows.map(toView);
 }

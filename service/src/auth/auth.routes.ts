@@ -1,11 +1,12 @@
 import bcrypt from 'bcryptjs';
-import { Router, type CookieOptions, type NextFunction, type Request, type Response } from 'express';
-import { rateLimit, type RateLimitRequestHandler } from 'express-rate-limit';
+import { Router, type CookieOptions, type Request } from 'express';
+import type { RateLimitRequestHandler } from 'express-rate-limit';
 import type { Logger } from 'pino';
 import { z } from 'zod';
 import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import { AppError } from '../http/app-error.js';
+import { emailInBody, requestLimiter } from '../http/rate-limit.js';
 import { csrfHeader, currentSession, requireSignIn, sessionCookie } from '../http/session.js';
 import { parse, uuidPattern } from '../http/validate.js';
 import { findUserByEmail, toPublicUser } from './auth.repository.js';
@@ -41,12 +42,6 @@ function clientAddress(req: Request): string | null {
   return address.startsWith('::ffff:') && address.includes('.') ? address.slice('::ffff:'.length) : address;
 }
 
-/** The e-mail a sign-in tries, lower-cased, or null when the body carries none (it then fails validation). */
-function triedEmail(req: Request): string | null {
-  const email: unknown = (req.body as { email?: unknown } | undefined)?.email;
-  return typeof email === 'string' && email.trim().length > 0 ? email.trim().toLowerCase() : null;
-}
-
 /**
  * A sign-in limiter. Successful sign-ins are handed back, so people who sign in from many tabs or
  * one shared office address are not locked out; only failures use up the allowance.
@@ -58,19 +53,14 @@ function signInLimiter(
   logger: Logger,
   keyedBy?: (req: Request) => string | null,
 ): RateLimitRequestHandler {
-  return rateLimit({
-    identifier: name,
-    windowMs: windowMinutes * 60_000,
+  return requestLimiter({
+    name,
     limit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    skipSuccessfulRequests: true,
+    windowMinutes,
     logger,
-    ...(keyedBy ? { keyGenerator: (req: Request) => keyedBy(req) ?? '', skip: (req: Request) => keyedBy(req) === null } : {}),
-    // Answered by the error handler, so the refusal has the same shape as every other error.
-    handler: (_req: Request, _res: Response, next: NextFunction) => {
-      next(new AppError(429, 'rate_limited', 'Too many sign-in attempts. Wait a few minutes and try again.'));
-    },
+    keyedBy,
+    countFailuresOnly: true,
+    message: 'Too many sign-in attempts. Wait a few minutes and try again.',
   });
 }
 
@@ -90,7 +80,7 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
     settings.loginAccountRateLimit,
     settings.loginAccountRateWindowMinutes,
     settings.logger,
-    triedEmail,
+    emailInBody,
   );
 
   router.post('/login', addressLimiter, accountLimiter, async (req, res) => {

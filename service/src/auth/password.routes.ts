@@ -1,12 +1,13 @@
 import bcrypt from 'bcryptjs';
-import { Router, type NextFunction, type Request, type Response } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { Router } from 'express';
+import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import { z } from 'zod';
 import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import type { UserRow } from '../db/tables.js';
 import { AppError } from '../http/app-error.js';
+import { emailInBody, requestLimiter } from '../http/rate-limit.js';
 import { currentSession, requireSignIn } from '../http/session.js';
 import { parse } from '../http/validate.js';
 import { passwordChangedMail, passwordResetMail } from '../mail/messages.js';
@@ -42,32 +43,33 @@ function refuseWeak(password: string, user: UserRow, field: string): void {
   if (problem) throw AppError.badRequest(problem, [{ path: field, message: problem }]);
 }
 
-function limiter(name: string, limit: number, windowMinutes: number, logger: Logger, keyedBy?: (req: Request) => string | null) {
-  return rateLimit({
-    identifier: name,
-    windowMs: windowMinutes * 60_000,
-    limit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    logger,
-    ...(keyedBy ? { keyGenerator: (req: Request) => keyedBy(req) ?? '', skip: (req: Request) => keyedBy(req) === null } : {}),
-    // Answered by the error handler, so the refusal has the same shape as every other error.
-    handler: (_req: Request, _res: Response, next: NextFunction) => {
-      next(new AppError(429, 'rate_limited', 'Too many requests for a new password. Wait a while and try again.'));
-    },
-  });
-}
-
-const requestedEmail = (req: Request): string | null => {
-  const value: unknown = (req.body as { email?: unknown } | undefined)?.email;
-  return typeof value === 'string' && value.trim() ? value.trim().toLowerCase() : null;
-};
-
 /** Choosing a new password: by a link sent by mail when it is forgotten, or by the signed-in person. */
 export function passwordRouter(db: Database, settings: PasswordSettings): Router {
   const router = Router();
-  const byAddress = limiter('password-reset-address', 10, 15, settings.logger);
-  const byAccount = limiter('password-reset-account', 3, 60, settings.logger, requestedEmail);
+  const message = 'Too many requests for a new password. Wait a while and try again.';
+  const byAddress = requestLimiter({ name: 'password-reset-address', limit: 10, windowMinutes: 15, message, logger: settings.logger });
+  const byAccount = requestLimiter({
+    name: 'password-reset-account',
+    limit: 3,
+    windowMinutes: 60,
+    message,
+    logger: settings.logger,
+    keyedBy: emailInBody,
+  });
+
+  /** Stores the new password, ends the sessions but `keepSessionId`, audits it and tells the owner by mail; returns how many sessions ended. */
+  async function setNewPassword(
+    trx: Knex.Transaction,
+    user: UserRow,
+    password: string,
+    keepSessionId: string | null,
+    action: 'password-reset' | 'password-change',
+  ): Promise<number> {
+    const ended = await replacePassword(trx, user.id, await bcrypt.hash(password, bcryptRounds), keepSessionId);
+    await recordAudit(trx, { userId: user.id, action, entity: 'user', entityId: user.id, detail: { endedSessions: ended.length } });
+    await queueMail(trx, passwordChangedMail(user.email, user.name, `${settings.appUrl}/sign-in`));
+    return ended.length;
+  }
 
   // The same answer whether or not the address has an account, so it cannot be used to find them.
   router.post('/password-reset', byAddress, byAccount, async (req, res) => {
@@ -93,15 +95,7 @@ export function passwordRouter(db: Database, settings: PasswordSettings): Router
       const user = await consumePasswordReset(trx, token);
       if (!user) throw invalidToken();
       refuseWeak(password, user, 'password');
-      const ended = await replacePassword(trx, user.id, await bcrypt.hash(password, bcryptRounds), null);
-      await recordAudit(trx, {
-        userId: user.id,
-        action: 'password-reset',
-        entity: 'user',
-        entityId: user.id,
-        detail: { endedSessions: ended.length },
-      });
-      await queueMail(trx, passwordChangedMail(user.email, user.name, `${settings.appUrl}/sign-in`));
+      await setNewPassword(trx, user, password, null, 'password-reset');
     });
     settings.mailQueued();
     res.status(204).end();
@@ -117,19 +111,7 @@ export function passwordRouter(db: Database, settings: PasswordSettings): Router
       throw AppError.badRequest(message, [{ path: 'currentPassword', message }]);
     }
     refuseWeak(password, user, 'newPassword');
-    const hash = await bcrypt.hash(password, bcryptRounds);
-    const ended = await db.transaction(async (trx) => {
-      const ids = await replacePassword(trx, user.id, hash, session.id);
-      await recordAudit(trx, {
-        userId: user.id,
-        action: 'password-change',
-        entity: 'user',
-        entityId: user.id,
-        detail: { endedSessions: ids.length },
-      });
-      await queueMail(trx, passwordChangedMail(user.email, user.name, `${settings.appUrl}/sign-in`));
-      return ids.length;
-    });
+    const ended = await db.transaction((trx) => setNewPassword(trx, user, password, session.id, 'password-change'));
     settings.mailQueued();
     res.json({ endedSessions: ended });
   });

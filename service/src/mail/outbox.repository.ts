@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
 import type { Database } from '../db/database.js';
+import type { MailKind, MailStatus, OutboxEntry, OutboxMessage } from '../../../contract/accounts.js';
 
-export type MailStatus = 'queued' | 'sent' | 'failed';
-export type MailKind = 'password-reset' | 'password-changed' | 'account-created';
+export type { MailKind, MailStatus, OutboxEntry, OutboxMessage };
 
 export interface OutgoingMail {
   kind: MailKind;
@@ -27,25 +27,6 @@ export interface OutboxRow {
   last_error: string | null;
   created_at: Date;
   sent_at: Date | null;
-}
-
-/** What the Outbox page lists: no bodies, which the detail carries. */
-export interface OutboxEntry {
-  id: string;
-  kind: MailKind;
-  to: string[];
-  subject: string;
-  status: MailStatus;
-  attempts: number;
-  createdAt: string;
-  sentAt: string | null;
-  nextAttemptAt: string | null;
-  lastError: string | null;
-}
-
-export interface OutboxMessage extends OutboxEntry {
-  text: string;
-  html: string;
 }
 
 /**

@@ -6,12 +6,12 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { ApiError } from '../../core/http/api-error';
 import { PasswordApi, passwordRuleWords } from '../sign-in/password-api';
-import { sameAsPassword } from '../sign-in/reset-password-page';
+import { NewPasswordFields, newPasswordGroup } from '../sign-in/new-password-fields';
 
 /** The Account page's password change: the current password, the new one twice. */
 @Component({
   selector: 'al-password-change',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, NewPasswordFields],
   template: `
     <form [formGroup]="form" (ngSubmit)="submit()" novalidate aria-labelledby="password-heading">
       <h2 id="password-heading">Password</h2>
@@ -26,35 +26,7 @@ import { sameAsPassword } from '../sign-in/reset-password-page';
             <mat-error>{{ form.controls.currentPassword.getError('service') }}</mat-error>
           }
         </mat-form-field>
-        <mat-form-field appearance="outline">
-          <mat-label>New password</mat-label>
-          <input
-            matInput
-            type="password"
-            formControlName="password"
-            autocomplete="new-password"
-            aria-describedby="new-password-rules"
-            required
-          />
-          @if (form.controls.password.hasError('required')) {
-            <mat-error>Enter the new password.</mat-error>
-          } @else if (form.controls.password.hasError('minlength')) {
-            <mat-error>Use at least 12 characters.</mat-error>
-          } @else if (form.controls.password.hasError('maxlength')) {
-            <mat-error>Use at most 64 characters.</mat-error>
-          } @else if (form.controls.password.hasError('service')) {
-            <mat-error>{{ form.controls.password.getError('service') }}</mat-error>
-          }
-        </mat-form-field>
-        <mat-form-field appearance="outline">
-          <mat-label>New password again</mat-label>
-          <input matInput type="password" formControlName="repeat" autocomplete="new-password" required />
-          @if (form.controls.repeat.hasError('required')) {
-            <mat-error>Enter the new password again.</mat-error>
-          } @else if (form.controls.repeat.hasError('mismatch')) {
-            <mat-error>The two passwords differ.</mat-error>
-          }
-        </mat-form-field>
+        <al-new-password-fields class="row" [group]="form.controls.next" rulesId="new-password-rules" />
       </div>
       @if (failure(); as message) {
         <p class="failure" role="alert"><mat-icon aria-hidden="true">error</mat-icon>{{ message }}</p>
@@ -105,24 +77,20 @@ export class PasswordChange {
   protected readonly rules = passwordRuleWords;
   protected readonly form = inject(NonNullableFormBuilder).group({
     currentPassword: ['', [Validators.required, Validators.maxLength(200)]],
-    password: ['', [Validators.required, Validators.minLength(12), Validators.maxLength(64)]],
-    repeat: ['', [Validators.required, sameAsPassword]],
+    next: newPasswordGroup(inject(NonNullableFormBuilder)),
   });
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
   protected readonly done = signal<string | null>(null);
   private readonly formDirective = viewChild.required(FormGroupDirective);
 
-  constructor() {
-    this.form.controls.password.valueChanges.subscribe(() => this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }));
-  }
-
   protected submit(): void {
     if (this.form.invalid) {
       this.form.markAllAsTouched();
       return;
     }
-    const { currentPassword, password } = this.form.getRawValue();
+    const { currentPassword, next } = this.form.getRawValue();
+    const password = next.password;
     this.busy.set(true);
     this.failure.set(null);
     this.done.set(null);
@@ -139,11 +107,16 @@ export class PasswordChange {
       error: (error: unknown) => {
         this.busy.set(false);
         const detail = error instanceof ApiError ? error.details[0] : undefined;
-        const field = detail?.path === 'currentPassword' ? 'currentPassword' : detail?.path === 'newPassword' ? 'password' : null;
-        if (field && detail) {
+        const control =
+          detail?.path === 'currentPassword'
+            ? this.form.controls.currentPassword
+            : detail?.path === 'newPassword'
+              ? this.form.controls.next.controls.password
+              : null;
+        if (control && detail) {
           // The service's sentence shown on the field it is about.
-          this.form.controls[field].setErrors({ service: detail.message });
-          this.form.controls[field].markAsTouched();
+          control.setErrors({ service: detail.message });
+          control.markAsTouched();
         } else {
           this.failure.set(error instanceof ApiError ? error.message : 'The password could not be changed. Try again.');
         }

@@ -1,26 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type { Observable } from 'rxjs';
+import type { MailStatus, OutboxEntry, OutboxMessage } from '../../../../../contract/accounts';
 
-export type MailStatus = 'queued' | 'sent' | 'failed';
-
-export interface OutboxEntry {
-  id: string;
-  kind: string;
-  to: string[];
-  subject: string;
-  status: MailStatus;
-  attempts: number;
-  createdAt: string;
-  sentAt: string | null;
-  nextAttemptAt: string | null;
-  lastError: string | null;
-}
-
-export interface OutboxMessage extends OutboxEntry {
-  text: string;
-  html: string;
-}
+export type { OutboxEntry, OutboxMessage };
 
 /** The administrator's view of the mail the app queued. */
 @Injectable({ providedIn: 'root' })

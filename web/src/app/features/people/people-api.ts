@@ -1,15 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type { Observable } from 'rxjs';
+import type { AccountView } from '../../../../../contract/accounts';
 
-export interface AccountView {
-  id: string;
-  email: string;
-  name: string;
-  isAdmin: boolean;
-  disabled: boolean;
-  createdAt: string;
-}
+export type { AccountView };
 
 /** The administrator's calls on accounts. */
 @Injectable({ providedIn: 'root' })
