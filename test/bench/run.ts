@@ -237,6 +237,22 @@ try {
         agent.post('/api/evaluate').set('X-CSRF-Token', csrf).set('Content-Type', 'application/json').send(documentBody).expect(200),
     },
     {
+      // A write keeps the project's verdict (the projects list reads it), so it pays for an evaluation.
+      name: `PATCH one space of the ${spaceCount}-space project (the write, its audit and the kept verdict)`,
+      targetMs: 3000,
+      run: async () => {
+        const space = await db('spaces')
+          .where({ project_id: project!.id })
+          .orderBy('position')
+          .first<{ id: string; version: number }>('id', 'version');
+        return agent
+          .patch(`/api/projects/${project!.id}/spaces/${space.id}`)
+          .set('X-CSRF-Token', csrf)
+          .send({ version: space.version, name: `Room 1 (${space.version})` })
+          .expect(200);
+      },
+    },
+    {
       name: 'GET /results of the demo project',
       targetMs: 150,
       run: async () => {

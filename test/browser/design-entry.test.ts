@@ -291,6 +291,11 @@ describe('an engineer enters a fire station', { timeout: 90_000 }, () => {
     await page.getByTestId('import-file').setInputFiles(first);
     await page.getByText('Spaces: station.xlsx, 4 rows').waitFor();
     await expect.poll(() => page.getByRole('combobox', { name: 'Luminaire types from' }).textContent()).toContain('Luminaire types');
+    // Both count columns are read as counts of their type: the project's H1 and the workbook's T1.
+    for (const tag of ['H1', 'T1'])
+      await expect
+        .poll(() => page.getByRole('combobox', { name: `Field for column ${tag}`, exact: true }).textContent())
+        .toContain(`Count of type ${tag}`);
     await browser.screenshot('design-import-columns');
     await page.getByRole('button', { name: 'Check rows' }).click();
     await page.getByText('1 row with problems').waitFor();
@@ -303,6 +308,7 @@ describe('an engineer enters a fire station', { timeout: 90_000 }, () => {
     const preview = page.getByRole('table', { name: 'Rows to import' });
     await preview.scrollIntoViewIfNeeded();
     await preview.getByText('from “Corr”').waitFor();
+    await preview.getByRole('row').filter({ hasText: 'Bay 2' }).getByText('H1 × 8').waitFor();
     await browser.screenshot('design-import-preview-rows');
     await page.getByRole('button', { name: 'Import 4 spaces' }).click();
     await page.getByText('4 spaces imported with 1 luminaire type').waitFor();
