@@ -23,7 +23,10 @@ export interface TransitionRequest {
   comment?: string;
 }
 
-/** What a 409 from a transition carries in its details, besides the message. */
+/**
+ * What a 409 from a transition tells besides its message: the error's details hold an entry with
+ * path `state` and one with path `version`, whose messages are the project's present values.
+ */
 export interface TransitionRefusal {
   state: ProjectState;
   version: number;

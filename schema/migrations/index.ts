@@ -18,6 +18,7 @@ import * as decorativeAndExteriorExemptions from './20261202001500_decorative_an
 import * as openingDaylightFields from './20261202001600_opening_daylight_fields.js';
 import * as mailOutboxPasswordResets from './20261202002000_mail_outbox_password_resets.js';
 import * as userDisable from './20261202002100_user_disable.js';
+import * as projectRevision from './20261202003000_project_revision.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -45,6 +46,7 @@ const migrations: Record<string, Migration> = {
   '20261202001600_opening_daylight_fields': openingDaylightFields,
   '20261202002000_mail_outbox_password_resets': mailOutboxPasswordResets,
   '20261202002100_user_disable': userDisable,
+  '20261202003000_project_revision': projectRevision,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

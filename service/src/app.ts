@@ -23,6 +23,7 @@ import { designRouter } from './design/design.routes.js';
 import { evaluateRouter, openApiRouter, projectResultsRouter } from './evaluation/evaluation.routes.js';
 import { teamRouter } from './team/team.routes.js';
 import { liveRouter } from './live/live.routes.js';
+import { reviewRouter } from './review/review.routes.js';
 import { ProjectChanges } from './live/project-changes.js';
 import type { Knex } from 'knex';
 import type { ClientConfig as PgClientConfig } from 'pg';
@@ -112,6 +113,7 @@ export function createApp({
   api.use('/projects/:projectId', projectResultsRouter(db));
   api.use('/projects/:projectId', teamRouter(db));
   api.use('/projects/:projectId', historyRouter(db));
+  api.use('/projects/:projectId', reviewRouter(db));
   api.use('/projects/:projectId', liveRouter(db, changes));
   api.use('/evaluate', evaluateRouter(db));
   api.use('/openapi.json', openApiRouter());

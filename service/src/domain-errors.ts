@@ -55,5 +55,8 @@ export class NotRestorable extends DomainError {
 /** The project is archived, so it is read-only. */
 export class Archived extends DomainError {}
 
+/** The design is under review, accepted or issued: it changes only in a draft or after it is returned. */
+export class Locked extends DomainError {}
+
 /** An import key sent again with another import. */
 export class KeyReused extends DomainError {}

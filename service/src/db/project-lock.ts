@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
-import { Archived, NotFound } from '../domain-errors.js';
+import { editableStates, type ProjectState } from '../../../contract/review.js';
+import { Archived, Locked, NotFound } from '../domain-errors.js';
 
 export interface LockedProject {
   id: string;
@@ -7,7 +8,19 @@ export interface LockedProject {
   method: 'building-area' | 'space-by-space' | null;
   units: 'ip' | 'si';
   archived_at: Date | null;
+  state: ProjectState;
+  version: number;
+  revision: number;
 }
+
+/** Why a design in each state that is not a draft cannot change, and what to do. */
+const lockedWords: Record<ProjectState, string> = {
+  draft: '',
+  returned: '',
+  'in-review': 'This design is in review: it cannot change until the reviewer returns it.',
+  accepted: 'This design is accepted: reopen it as a draft to change it (that starts a new revision).',
+  issued: 'This design is issued: reopen it as a draft to change it (that starts a new revision).',
+};
 
 /**
  * Takes the project's row lock for the rest of the transaction. Every design write takes it first,
@@ -18,15 +31,16 @@ export interface LockedProject {
 export async function lockProject(
   trx: Knex.Transaction,
   projectId: string,
-  options: { allowArchived?: boolean } = {},
+  options: { allowArchived?: boolean; anyState?: boolean } = {},
 ): Promise<LockedProject> {
   const project = await trx('projects')
     .where({ id: projectId })
     .forUpdate()
-    .first<LockedProject | undefined>('id', 'edition_id', 'method', 'units', 'archived_at');
+    .first<LockedProject | undefined>('id', 'edition_id', 'method', 'units', 'archived_at', 'state', 'version', 'revision');
   if (!project) throw new NotFound('No such project.');
   if (project.archived_at && !options.allowArchived) {
     throw new Archived('This project is archived. Restore it from the projects list to change it.');
   }
+  if (!options.anyState && !editableStates.includes(project.state)) throw new Locked(lockedWords[project.state]);
   return project;
 }

@@ -25,6 +25,8 @@ export interface HistoryEntry {
   conversion?: unknown;
   /** On a copy: the project it was made from. */
   copiedFrom?: unknown;
+  /** On a move of the review state: from, to, the revision, the move in words and the comment. */
+  transition?: unknown;
   /** A deleted space, luminaire type, exterior application or allowance claim that can still be brought back. */
   restorable: boolean;
 }
@@ -37,7 +39,15 @@ interface AuditRow {
   action: string;
   entity: string;
   entity_id: string | null;
-  detail: { name?: string; before?: unknown; after?: unknown; conversion?: unknown; copiedFrom?: unknown; restoredFrom?: string } | null;
+  detail: {
+    name?: string;
+    before?: unknown;
+    after?: unknown;
+    conversion?: unknown;
+    copiedFrom?: unknown;
+    transition?: unknown;
+    restoredFrom?: string;
+  } | null;
 }
 
 const restorableEntities = new Set(['space', 'luminaire-type', 'exterior-application', 'additional-allowance']);
@@ -92,6 +102,7 @@ export async function listHistory(db: Knex, projectId: string, filter: HistoryFi
       after: row.detail?.after ?? null,
       ...(row.detail?.conversion ? { conversion: row.detail.conversion } : {}),
       ...(row.detail?.copiedFrom ? { copiedFrom: row.detail.copiedFrom } : {}),
+      ...(row.detail?.transition ? { transition: row.detail.transition } : {}),
       restorable:
         row.action === 'delete' &&
         restorableEntities.has(row.entity) &&

@@ -1,6 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
-import { Archived, DomainError, InUse, KeyReused, NotFound, NotRestorable, Refused, Stale, Conflict } from '../domain-errors.js';
+import { Archived, DomainError, InUse, KeyReused, Locked, NotFound, NotRestorable, Refused, Stale, Conflict } from '../domain-errors.js';
 import { AppError, type ErrorDetail } from './app-error.js';
 
 export interface ErrorBody {
@@ -69,6 +69,7 @@ function domainAnswer(err: DomainError): { status: number; code: string } {
   if (err instanceof Stale || err instanceof Conflict) return { status: 409, code: 'conflict' };
   if (err instanceof NotRestorable) return { status: 409, code: 'not_restorable' };
   if (err instanceof Archived) return { status: 409, code: 'archived' };
+  if (err instanceof Locked) return { status: 409, code: 'locked' };
   if (err instanceof KeyReused) return { status: 422, code: 'idempotency_key_reused' };
   return { status: 500, code: 'internal' };
 }

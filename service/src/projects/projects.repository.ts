@@ -27,6 +27,7 @@ export interface ProjectSummary {
   edition: string | null;
   method: string | null;
   version: number;
+  revision: number;
   updatedAt: string;
   resultSummary: ResultSummary | null;
   /** When the project was archived; archived projects are read-only and listed apart. */
@@ -57,6 +58,7 @@ interface ProjectRow {
   name: string;
   state: string;
   version: number;
+  revision: number;
   updated_at: Date;
   address: string | null;
   latitude: string | null;
@@ -94,10 +96,25 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
       this.on('m.project_id', '=', 'p.id').andOn('m.user_id', '=', db.raw('?', [userId]));
     })
     .select<
-      (Pick<ProjectRow, 'id' | 'name' | 'state' | 'version' | 'updated_at' | 'edition_id' | 'method' | 'result_summary' | 'archived_at'> & {
+      (Pick<
+        ProjectRow,
+        'id' | 'name' | 'state' | 'version' | 'revision' | 'updated_at' | 'edition_id' | 'method' | 'result_summary' | 'archived_at'
+      > & {
         role: ProjectRole | null;
       })[]
-    >('p.id', 'p.name', 'p.state', 'p.version', 'p.updated_at', 'p.edition_id', 'p.method', 'p.result_summary', 'p.archived_at', 'm.role')
+    >(
+      'p.id',
+      'p.name',
+      'p.state',
+      'p.version',
+      'p.revision',
+      'p.updated_at',
+      'p.edition_id',
+      'p.method',
+      'p.result_summary',
+      'p.archived_at',
+      'm.role',
+    )
     .orderBy('p.name');
   if (archived) query.whereNotNull('p.archived_at');
   else query.whereNull('p.archived_at');
@@ -112,6 +129,7 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
     edition: row.edition_id,
     method: row.method,
     version: row.version,
+    revision: row.revision,
     updatedAt: row.updated_at.toISOString(),
     resultSummary: row.result_summary,
     archivedAt: row.archived_at?.toISOString() ?? null,
@@ -137,6 +155,7 @@ export async function getProjectDetail(db: Knex, projectId: string, role: Projec
     edition: row.edition_id,
     method: row.method,
     version: row.version,
+    revision: row.revision,
     updatedAt: row.updated_at.toISOString(),
     resultSummary: row.result_summary,
     archivedAt: row.archived_at?.toISOString() ?? null,
@@ -322,7 +341,7 @@ export async function updateProjectSetup(
 /** Archives a project (read-only, listed apart) or brings it back. */
 export async function setProjectArchived(db: Database, projectId: string, archived: boolean, userId: string): Promise<void> {
   await db.transaction(async (trx) => {
-    const project = await lockProject(trx, projectId, { allowArchived: true });
+    const project = await lockProject(trx, projectId, { allowArchived: true, anyState: true });
     if ((project.archived_at !== null) === archived) return;
     await trx('projects')
       .where({ id: projectId })
@@ -357,12 +376,13 @@ async function copyRows(
  */
 export async function copyProject(db: Database, sourceId: string, name: string, userId: string): Promise<string> {
   return db.transaction(async (trx) => {
-    const source = await lockProject(trx, sourceId, { allowArchived: true });
+    const source = await lockProject(trx, sourceId, { allowArchived: true, anyState: true });
     const row = await trx('projects').where({ id: source.id }).first<Record<string, unknown>>();
     const {
       id: _id,
       state: _state,
       version: _version,
+      revision: _revision,
       created_by: _createdBy,
       created_at: _createdAt,
       updated_at: _updatedAt,

@@ -26,7 +26,7 @@ export async function listMembers(db: Database, projectId: string): Promise<Memb
  */
 export async function setMember(db: Database, projectId: string, email: string, role: ProjectRole, actorId: string): Promise<Member[]> {
   await db.transaction(async (trx) => {
-    await lockProject(trx, projectId, { allowArchived: true });
+    await lockProject(trx, projectId, { allowArchived: true, anyState: true });
     const user = await trx('users').whereRaw('lower(email) = lower(?)', [email]).first('id');
     if (!user) {
       await recordAudit(trx, {
@@ -59,7 +59,7 @@ export async function setMember(db: Database, projectId: string, email: string, 
 export async function removeMember(db: Database, projectId: string, userId: string, actorId: string): Promise<Member[]> {
   await db.transaction(async (trx) => {
     // The project's lock serialises team changes: two engineers removing each other at once cannot both pass the check below.
-    await lockProject(trx, projectId, { allowArchived: true });
+    await lockProject(trx, projectId, { allowArchived: true, anyState: true });
     const current = await trx('project_members as m')
       .join('users as u', 'u.id', 'm.user_id')
       .where({ 'm.project_id': projectId, 'm.user_id': userId })

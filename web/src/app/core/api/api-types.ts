@@ -54,6 +54,8 @@ export interface ProjectSummary {
   edition: EditionId | null;
   method: ComplianceMethod | null;
   version: number;
+  /** The design revision: 1 at first, one more each time an accepted or issued design is reopened. */
+  revision: number;
   updatedAt: string;
   /** The last evaluation's verdict; null until the project is evaluated after its latest change. */
   resultSummary: { complies: boolean; verdict?: Verdict; marginPct: string | null; dataVersion: string } | null;
@@ -229,7 +231,7 @@ export interface ExteriorApplicationRecord extends ExteriorApplicationInput, Sta
 // ---------------------------------------------------------------- history
 
 export type DesignHistoryAction = 'create' | 'import' | 'update' | 'delete' | 'restore';
-export type ProjectHistoryAction = 'create' | 'copy' | 'update' | 'convert-units' | 'archive' | 'unarchive';
+export type ProjectHistoryAction = 'create' | 'copy' | 'update' | 'convert-units' | 'archive' | 'unarchive' | 'transition';
 export type ClaimHistoryAction = 'create' | 'update' | 'delete' | 'restore';
 export type TeamHistoryAction = 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account';
 
@@ -286,6 +288,8 @@ export type HistoryEntry = HistoryEntryBase &
         after: SetupSnapshot | null;
         conversion?: UnitConversion;
         copiedFrom?: { id: string; name: string };
+        /** On a move of the review state. */
+        transition?: { from: ProjectState; to: ProjectState; revision: number; words: string; comment?: string };
       }
     | { entity: 'additional-allowance'; action: ClaimHistoryAction; before: AllowanceClaim | null; after: AllowanceClaim | null }
     | { entity: 'project_member'; action: TeamHistoryAction; before: { role: ProjectRole } | null; after: { role: ProjectRole } | null }

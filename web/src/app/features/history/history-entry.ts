@@ -390,6 +390,7 @@ function roleWord(role: string | undefined): string {
 }
 
 const icons: Record<string, string> = {
+  transition: 'rule',
   create: 'add_circle',
   import: 'upload_file',
   update: 'edit',
@@ -511,6 +512,12 @@ function projectWords(entry: Extract<HistoryEntry, { entity: 'project' }>, label
         summary: `made this project${entry.name ? ` ${quoted(entry.name)}` : ''} as a copy${entry.copiedFrom ? ` of ${quoted(entry.copiedFrom.name)}` : ''}`,
         changes: [],
       };
+    case 'transition': {
+      const move = entry.transition;
+      if (!move) return { summary: 'moved the project’s review state', changes: [] };
+      const revision = move.to === 'draft' ? ` (revision ${move.revision})` : '';
+      return { summary: `${move.words.toLowerCase()}${revision}`, changes: move.comment ? [`comment: ${quoted(move.comment)}`] : [] };
+    }
     case 'archive':
       return { summary: 'archived the project', changes: [] };
     case 'unarchive':
