@@ -1,6 +1,6 @@
 import type { EvaluationDocumentInput } from '../../../service/src/compliance/index';
 import { ashrae2019, ashrae2022, iecc2021, run } from '../../../test/calc/fixtures';
-import type { EvaluationResult } from '../app/core/api/api-types';
+import type { ControlLine, EvaluationResult, SpaceResult } from '../app/core/api/api-types';
 
 /**
  * A result for a spec from the service's own engine (`service/src/compliance/`, pure functions over
@@ -15,4 +15,18 @@ export type SpecDocument = EvaluationDocumentInput & { edition: keyof typeof edi
 /** Validates the document (a problem fails the spec with the list) and evaluates it. */
 export function evaluated(document: SpecDocument): EvaluationResult {
   return run(document, editions[document.edition]);
+}
+
+/** The space of that id in a result; fails the spec when the evaluation has none. */
+export function spaceOf(result: EvaluationResult, id: string): SpaceResult {
+  const space = result.interior.spaces.find((entry) => entry.id === id);
+  if (space === undefined) throw new Error(`the evaluation has no space ${id}`);
+  return space;
+}
+
+/** The line of that strategy among a space's or an exterior application's control lines; fails the spec when there is none. */
+export function lineOf(owner: { controls: readonly ControlLine[] }, strategy: string): ControlLine {
+  const line = owner.controls.find((entry) => entry.strategy === strategy);
+  if (line === undefined) throw new Error(`the evaluation gives no ${strategy} line here`);
+  return line;
 }

@@ -6,8 +6,9 @@ import { provideRouter } from '@angular/router';
 import type { ComparisonSummary, EditionComparison, ProjectComparison, ProjectDetail } from '../../core/api/api-types';
 import { apiInterceptor } from '../../core/http/api-interceptor';
 import { ProjectStore } from '../workspace/project-store';
+import { libraryAnnex } from '../../../testing/demo-building';
+import { evaluated } from '../../../testing/evaluate';
 import { ComparePage } from './compare-page';
-import { evaluation } from '../results/results-fixture';
 
 // An invented project and invented figures.
 const project = {
@@ -81,8 +82,9 @@ describe('ComparePage', () => {
       ],
     });
     const store = TestBed.inject(ProjectStore);
-    // The page compares once the project's own results are in (any result will do here).
-    store.seed({ project, results: { status: 'ready', result: evaluation() } });
+    // The page compares once the project's own results are in; it reads none of their figures, so any result will do:
+    // the invented library annex of testing/demo-building.ts, evaluated by the engine.
+    store.seed({ project, results: { status: 'ready', result: evaluated(libraryAnnex()) } });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(ComparePage);
     element = fixture.nativeElement as HTMLElement;

@@ -3,16 +3,16 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { ControlStrategyView, EvaluationResult, ProjectDetail, SpaceRecord, SpaceTypeView } from '../../core/api/api-types';
+import type { ControlStrategyView, ProjectDetail, SpaceRecord, SpaceTypeView } from '../../core/api/api-types';
 import { apiInterceptor } from '../../core/http/api-interceptor';
-import { controlLine, evaluation, spaceResult } from '../results/results-fixture';
+import { evaluated, lineOf } from '../../../testing/evaluate';
 import { ProjectStore } from '../workspace/project-store';
 import { BulkControlPanel } from './bulk-control-panel';
 
-// Invented fire station: three bunk rooms on two levels and an office.
+// Invented office floor: three open-plan offices on two levels and a corridor.
 const project = {
   id: 'p1',
-  name: 'Fire Station 4',
+  name: 'Harbour Offices',
   state: 'draft',
   role: 'engineer',
   edition: 'iecc-2021',
@@ -41,14 +41,15 @@ function space(id: string, name: string, level: string, spaceType: string, versi
 }
 
 const spaces = [
-  space('b1', 'Bunk 1', 'Level 2', 'dormitory'),
-  space('b2', 'Bunk 2', 'Level 2', 'dormitory'),
-  space('b3', 'Bunk 3', 'Level 1', 'dormitory'),
-  space('o1', 'Office', 'Level 1', 'office-enclosed'),
+  space('o1', 'Open office 1', 'Level 2', 'office-open'),
+  space('o2', 'Open office 2', 'Level 2', 'office-open'),
+  space('o3', 'Open office 3', 'Level 1', 'office-open'),
+  space('c1', 'Corridor', 'Level 1', 'corridor'),
 ];
+// The labels of the calculation tests' IECC 2021 edition (test/calc/fixtures.ts), which evaluates these spaces below.
 const spaceTypes = [
-  { key: 'dormitory', label: 'Dormitory — Living quarters', verified: true },
-  { key: 'office-enclosed', label: 'Office — Enclosed', verified: true },
+  { key: 'office-open', label: 'Office, open plan', verified: true },
+  { key: 'corridor', label: 'Corridor', verified: true },
 ] as SpaceTypeView[];
 // IECC 2021 C405.2.2 (as the reference data holds it, [S-ed] Washington text): one override serves at most 5,000 ft².
 const strategies = [
@@ -63,23 +64,15 @@ const strategies = [
   },
 ] as unknown as ControlStrategyView[];
 
-const result: EvaluationResult = {
-  ...evaluation(),
-  interior: {
-    ...evaluation().interior,
-    spaces: spaces.map((entry) =>
-      spaceResult({
-        id: entry.id,
-        name: entry.name,
-        controls: [
-          controlLine({ status: 'not-required', met: null }),
-          controlLine({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false }),
-          controlLine({ strategy: 'automatic-partial-off', label: 'Automatic partial OFF', status: 'not-met', met: false }),
-        ],
-      }),
-    ),
-  },
-};
+// The spaces as the engine evaluates them, nothing provided yet. Open offices and corridors are listed for occupant
+// sensors, so no time switch is needed (IECC 2021 C405.2.1, C405.2.2), and their occupant-sensor function asks for an
+// automatic partial OFF (C405.2.1.2–C405.2.1.4, as the edition holds them).
+const result = evaluated({
+  edition: 'iecc-2021',
+  method: 'space-by-space',
+  units: 'si',
+  spaces: spaces.map((entry) => ({ id: entry.id, name: entry.name, level: entry.level, spaceType: entry.spaceType, area: entry.area })),
+});
 
 describe('BulkControlPanel', () => {
   let fixture: ComponentFixture<BulkControlPanel>;
@@ -145,19 +138,39 @@ describe('BulkControlPanel', () => {
     await fixture.whenStable();
   };
 
+  it('offers the controls the evaluation applies to the spaces', async () => {
+    for (const entry of result.interior.spaces) {
+      expect([lineOf(entry, 'time-switch').status, lineOf(entry, 'automatic-partial-off').status]).toEqual(['not-required', 'not-met']);
+    }
+    checkbox('Select all shown').click();
+    const field = Array.from(element.querySelectorAll('mat-form-field')).find(
+      (entry) => entry.querySelector('mat-label')?.textContent?.trim() === 'Control',
+    )!;
+    field.querySelector<HTMLElement>('mat-select')!.click();
+    await fixture.whenStable();
+    const options = Array.from(document.querySelectorAll<HTMLElement>('mat-option')).map((entry) =>
+      entry.textContent?.replace(/\s+/g, ' ').trim(),
+    );
+    expect(options).toEqual([
+      'Occupant sensor · applies to 4 of 4 chosen',
+      'Time-switch control · applies to 0 of 4 chosen',
+      'Automatic partial OFF · applies to 4 of 4 chosen',
+    ]);
+  });
+
   it('chooses spaces by type, level or name, and all those shown at once', async () => {
-    await choose('Space type', 'Dormitory — Living quarters');
+    await choose('Space type', 'Office, open plan');
     await choose('Level', 'Level 2');
     expect(Array.from(element.querySelectorAll('.choices li')).map((item) => item.textContent?.replace(/\s+/g, ' ').trim())).toEqual([
-      'Bunk 1Dormitory — Living quarters · Level 2',
-      'Bunk 2Dormitory — Living quarters · Level 2',
+      'Open office 1Office, open plan · Level 2',
+      'Open office 2Office, open plan · Level 2',
     ]);
     checkbox('Select all shown').click();
     await fixture.whenStable();
     expect(element.textContent).toContain('2 spaces chosen');
     await choose('Level', 'Any level');
-    await fill('Find spaces', 'bunk 3');
-    checkbox('Bunk 3').click();
+    await fill('Find spaces', 'office 3');
+    checkbox('Open office 3').click();
     await fixture.whenStable();
     expect(element.textContent).toContain('3 spaces chosen');
     expect(element.querySelector('button[type="submit"]')?.textContent?.trim()).toBe('Record on 3 spaces');
@@ -189,7 +202,7 @@ describe('BulkControlPanel', () => {
   });
 
   it('asks how far the lighting is reduced only for a control whose check reads it, bounded like the service', async () => {
-    checkbox('Bunk 1').click();
+    checkbox('Open office 1').click();
     await choose('Control', 'Time-switch control');
     const labelsShown = () => Array.from(element.querySelectorAll('mat-label')).map((label) => label.textContent?.trim());
     expect(labelsShown()).not.toContain('Reduces the lighting by (%)');
@@ -208,7 +221,7 @@ describe('BulkControlPanel', () => {
   });
 
   it('neither checks nor sends a reduction once another control is chosen', async () => {
-    checkbox('Bunk 1').click();
+    checkbox('Open office 1').click();
     await choose('Control', 'Automatic partial OFF');
     await fill('Reduces the lighting by', '120');
     await choose('Control', 'Time-switch control');
@@ -219,7 +232,7 @@ describe('BulkControlPanel', () => {
   });
 
   it('records the same exception with its reason', async () => {
-    checkbox('Bunk 1').click();
+    checkbox('Open office 1').click();
     await choose('Control', 'Occupant sensor');
     Array.from(element.querySelectorAll<HTMLElement>('mat-radio-button'))
       .find((radio) => radio.textContent?.includes('Exception claimed'))!
@@ -244,7 +257,7 @@ describe('BulkControlPanel', () => {
   });
 
   it('offers continuous operation for the time switch, and puts the service’s refusal beside the field it names', async () => {
-    checkbox('Bunk 1').click();
+    checkbox('Open office 1').click();
     await choose('Control', 'Time-switch control');
     Array.from(element.querySelectorAll<HTMLElement>('mat-radio-button'))
       .find((radio) => radio.textContent?.includes('Exception claimed'))!
@@ -286,8 +299,8 @@ describe('BulkControlPanel', () => {
       {
         error: {
           code: 'conflict',
-          message: '1 of these spaces changed since you read them (Bunk 3). Reload and apply the control again.',
-          details: [{ path: 'spaces.2', message: '“Bunk 3” changed since you read it.' }],
+          message: '1 of these spaces changed since you read them (Open office 3). Reload and apply the control again.',
+          details: [{ path: 'spaces.2', message: '“Open office 3” changed since you read it.' }],
         },
       },
       { status: 409, statusText: 'Conflict' },
@@ -295,19 +308,19 @@ describe('BulkControlPanel', () => {
     await fixture.whenStable();
     const stale = element.querySelector('[data-testid="bulk-stale"]')!;
     expect(stale.getAttribute('role')).toBe('alert');
-    expect(stale.textContent).toContain('Nothing was recorded: this space was changed by someone else since you read it: Bunk 3.');
+    expect(stale.textContent).toContain('Nothing was recorded: this space was changed by someone else since you read it: Open office 3.');
     expect(store.spaces().every((entry) => entry.version === 1)).toBe(true);
     Array.from(stale.querySelectorAll('button'))
       .find((button) => button.textContent?.includes('Reload'))!
       .click();
     http
       .expectOne((entry) => entry.method === 'GET' && entry.url === '/api/projects/p1/spaces')
-      .flush(spaces.map((entry) => (entry.id === 'b3' ? { ...entry, version: 3 } : entry)));
+      .flush(spaces.map((entry) => (entry.id === 'o3' ? { ...entry, version: 3 } : entry)));
     await fixture.whenStable();
-    expect(store.spaces().find((entry) => entry.id === 'b3')?.version).toBe(3);
+    expect(store.spaces().find((entry) => entry.id === 'o3')?.version).toBe(3);
     expect(element.querySelector('[data-testid="bulk-stale"]')).toBeNull();
     // The choice stays, so the next try sends the fresh version.
     await submit();
-    expect(http.expectOne('/api/projects/p1/spaces/controls').request.body.spaces[2]).toEqual({ id: 'b3', version: 3 });
+    expect(http.expectOne('/api/projects/p1/spaces/controls').request.body.spaces[2]).toEqual({ id: 'o3', version: 3 });
   });
 });

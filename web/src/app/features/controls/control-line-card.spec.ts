@@ -1,10 +1,51 @@
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import type { ProvidedControl } from '../../core/api/api-types';
-import { controlLine } from '../results/results-fixture';
+import type { ControlLine, ProvidedControl } from '../../core/api/api-types';
+import { troffer, type SpecSpace } from '../../../testing/demo-building';
+import { evaluated, lineOf, spaceOf } from '../../../testing/evaluate';
 import { controlForm, providedControl, replaceControl } from './control-form';
 import { ControlLineCard } from './control-line-card';
 import { statusView } from './control-status';
+
+// Invented demo spaces under the calculation tests' IECC 2021 edition (test/calc/fixtures.ts), each giving a control
+// line the state a case needs. A storage room is listed for occupant sensors (IECC 2021 C405.2.1, zmVault transcription);
+// a library reading area is not, and at 200 ft² it needs them only if it is enclosed (C405.2.1 item 12, at most 300 ft²),
+// which is not recorded. A reading room without occupant sensors needs a time switch (C405.2.2).
+const dimmer: ProvidedControl = { strategy: 'light-reduction', provided: true, device: 'Invented dimmer', reductionPercent: '50' };
+const store = (id: string, controls: SpecSpace['controls']): SpecSpace => ({
+  id,
+  name: `Store ${id}`,
+  spaceType: 'storage',
+  area: '500',
+  luminaires: [{ tag: 'A', count: '6' }],
+  controls,
+});
+const result = evaluated({
+  edition: 'iecc-2021',
+  method: 'space-by-space',
+  units: 'ip',
+  luminaireTypes: [troffer],
+  spaces: [
+    store('met', [{ strategy: 'occupant-sensor', provided: true, timeoutMinutes: '15', autoOn: 'manual' }]),
+    store('not-met', []),
+    store('exception-claimed', [
+      { strategy: 'occupant-sensor', provided: false, exceptionReason: 'other', exceptionNote: 'Invented note' },
+    ]),
+    { id: 'to-verify', name: 'Study room', spaceType: 'library-reading', area: '200', luminaires: [{ tag: 'A', count: '4' }] },
+    {
+      id: 'reading',
+      name: 'Reading room',
+      spaceType: 'library-reading',
+      area: '1000',
+      luminaires: [{ tag: 'A', count: '20' }],
+      controls: [dimmer],
+    },
+  ],
+});
+/** The occupant-sensor line of the store or study room named by its state. */
+const sensorLine = (status: 'met' | 'not-met' | 'exception-claimed' | 'to-verify') => lineOf(spaceOf(result, status), 'occupant-sensor');
+const timeSwitchLine = lineOf(spaceOf(result, 'reading'), 'time-switch');
+const reductionLine = lineOf(spaceOf(result, 'reading'), 'light-reduction');
 
 describe('ControlLineCard', () => {
   let fixture: ComponentFixture<ControlLineCard>;
@@ -20,10 +61,8 @@ describe('ControlLineCard', () => {
   });
 
   async function show(status: 'met' | 'not-met' | 'exception-claimed' | 'to-verify', canEdit = false): Promise<void> {
-    fixture.componentRef.setInput(
-      'line',
-      controlLine({ status, met: status === 'met' ? true : status === 'not-met' ? false : null, verified: status !== 'to-verify' }),
-    );
+    expect(sensorLine(status).status).toBe(status);
+    fixture.componentRef.setInput('line', sensorLine(status));
     fixture.componentRef.setInput('canEdit', canEdit);
     await fixture.whenStable();
   }
@@ -41,6 +80,7 @@ describe('ControlLineCard', () => {
 
   it('highlights an outstanding requirement and carries the verify badge when the source is unverified', async () => {
     await show('to-verify');
+    expect(sensorLine('to-verify').verified).toBe(false);
     expect(element.querySelector('.line')?.classList).toContain('outstanding');
     expect(element.querySelector('al-verify-badge')).not.toBeNull();
     expect(statusView('not-met').outstanding).toBe(true);
@@ -48,16 +88,9 @@ describe('ControlLineCard', () => {
   });
 
   it('says how far a recorded light-reduction control reduces the lighting, and offers the field when editing', async () => {
-    fixture.componentRef.setInput(
-      'line',
-      controlLine({ strategy: 'light-reduction', label: 'Light-reduction control', status: 'met', met: true }),
-    );
-    fixture.componentRef.setInput('provided', {
-      strategy: 'light-reduction',
-      provided: true,
-      device: 'Invented dimmer',
-      reductionPercent: '50',
-    });
+    expect(reductionLine.status).toBe('met');
+    fixture.componentRef.setInput('line', reductionLine);
+    fixture.componentRef.setInput('provided', dimmer);
     fixture.componentRef.setInput('canEdit', true);
     await fixture.whenStable();
     expect(element.querySelector('.recorded')?.textContent?.trim()).toBe('buildProvided: Invented dimmer; reduces by 50 %');
@@ -101,13 +134,13 @@ describe('ControlLineCard exceptions', () => {
   let element: HTMLElement;
   let saved: (ProvidedControl | null)[];
 
-  async function edit(line: Parameters<typeof controlLine>[0]): Promise<ReturnType<typeof controlForm>> {
+  async function edit(line: ControlLine): Promise<ReturnType<typeof controlForm>> {
     TestBed.configureTestingModule({ imports: [ControlLineCard], providers: [provideZonelessChangeDetection()] });
     fixture = TestBed.createComponent(ControlLineCard);
     element = fixture.nativeElement as HTMLElement;
     saved = [];
     fixture.componentInstance.save.subscribe((value) => saved.push(value));
-    fixture.componentRef.setInput('line', controlLine(line));
+    fixture.componentRef.setInput('line', line);
     fixture.componentRef.setInput('canEdit', true);
     await fixture.whenStable();
     element.querySelector<HTMLButtonElement>('button')!.click();
@@ -134,7 +167,8 @@ describe('ControlLineCard exceptions', () => {
   };
 
   it('offers continuous operation for the time switch only, and every general exception in words', async () => {
-    await edit({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false });
+    expect([timeSwitchLine.status, sensorLine('not-met').status]).toEqual(['not-met', 'not-met']);
+    await edit(timeSwitchLine);
     expect(await offered()).toEqual([
       'Security or emergency area that must stay lit continuously',
       'Interior exit stairway, exit ramp or exit passageway',
@@ -143,12 +177,13 @@ describe('ControlLineCard exceptions', () => {
       'Another exception (say which)',
     ]);
     TestBed.resetTestingModule();
-    await edit({ strategy: 'occupant-sensor', status: 'not-met', met: false });
+    await edit(sensorLine('not-met'));
     expect(await offered()).not.toContain('Lighting intended to operate continuously');
   });
 
   it('offers "checked against the adopted code" for a requirement to verify, and then needs the note saying where', async () => {
-    const form = await edit({ strategy: 'occupant-sensor', requirement: 'to-verify', status: 'to-verify', met: null, verified: false });
+    expect(sensorLine('to-verify').requirement).toBe('to-verify');
+    const form = await edit(sensorLine('to-verify'));
     expect(await offered()).toContain('Checked against the adopted code: not required here (say where)');
     form.controls.exceptionReason.setValue('verified-not-required');
     await submit();
@@ -167,12 +202,13 @@ describe('ControlLineCard exceptions', () => {
   });
 
   it('does not offer it where the requirement is stated', async () => {
-    await edit({ strategy: 'occupant-sensor', requirement: 'required', status: 'not-met', met: false });
+    expect(sensorLine('not-met').requirement).toBe('required');
+    await edit(sensorLine('not-met'));
     expect(await offered()).not.toContain('Checked against the adopted code: not required here (say where)');
   });
 
   it('stays open on a refusal and shows the service’s message beside the field it names', async () => {
-    const form = await edit({ strategy: 'time-switch', label: 'Time-switch control', status: 'not-met', met: false });
+    const form = await edit(timeSwitchLine);
     form.controls.exceptionReason.setValue('continuous-operation');
     await submit();
     expect(saved).toEqual([{ strategy: 'time-switch', provided: false, exceptionReason: 'continuous-operation' }]);

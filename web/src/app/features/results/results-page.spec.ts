@@ -6,8 +6,9 @@ import { provideRouter } from '@angular/router';
 import type { ProjectDetail } from '../../core/api/api-types';
 import { apiInterceptor } from '../../core/http/api-interceptor';
 import { ProjectStore } from '../workspace/project-store';
+import { libraryAnnex } from '../../../testing/demo-building';
+import { evaluated } from '../../../testing/evaluate';
 import { ResultsPage } from './results-page';
-import { evaluation } from './results-fixture';
 
 // Invented project.
 const project = {
@@ -22,6 +23,9 @@ const project = {
   members: [],
   amendments: [],
 } as unknown as ProjectDetail;
+
+// The invented library annex (testing/demo-building.ts), evaluated under the model code alone.
+const result = evaluated(libraryAnnex());
 
 describe('ResultsPage', () => {
   let fixture: ComponentFixture<ResultsPage>;
@@ -41,7 +45,7 @@ describe('ResultsPage', () => {
     });
     store = TestBed.inject(ProjectStore);
     store.seed({ project });
-    store.seed({ results: { status: 'ready', result: evaluation() } });
+    store.seed({ results: { status: 'ready', result } });
     fixture = TestBed.createComponent(ResultsPage);
     element = fixture.nativeElement as HTMLElement;
     await fixture.whenStable();
@@ -50,20 +54,19 @@ describe('ResultsPage', () => {
   const basis = () => element.querySelector('[data-testid="results-amendments"]')?.textContent?.replace(/\s+/g, ' ').trim();
 
   it('says the model code alone applies when the result carries no amendment', () => {
+    expect(result.amendments).toEqual([]);
     expect(basis()).toBe('gavel Model code only: no jurisdiction amendment is applied.');
   });
 
   it('names each jurisdiction amendment the result applied, by its title', async () => {
-    // The title as reference/iecc-2021/amendments.json holds it (Washington State Energy Code 2021).
-    store.seed({
-      results: {
-        status: 'ready',
-        result: {
-          ...evaluation(),
-          amendments: [{ key: 'washington-2021', title: "Washington State Energy Code 2021 (Washington's amendments to IECC 2021)" }],
-        },
-      },
-    });
+    // Override on the engine's result: the calculation tests' editions carry no jurisdiction amendment, so the engine
+    // cannot apply one here; the list of amendments applied is set by hand. The title as reference/iecc-2021/amendments.json
+    // holds it (Washington State Energy Code 2021).
+    const amended = {
+      ...result,
+      amendments: [{ key: 'washington-2021', title: "Washington State Energy Code 2021 (Washington's amendments to IECC 2021)" }],
+    };
+    store.seed({ results: { status: 'ready', result: amended } });
     await fixture.whenStable();
     expect(basis()).toBe(
       "gavel Jurisdiction amendment applied over the model code: Washington State Energy Code 2021 (Washington's amendments to IECC 2021).",
