@@ -35,10 +35,11 @@ async function crampedParts(): Promise<string[]> {
     const describe = (element: Element) =>
       `${element.tagName.toLowerCase()}.${[...element.classList].join('.')} “${(element.textContent ?? '').trim().slice(0, 40)}”`;
     for (const element of document.querySelectorAll('.content *')) {
-      // Typed text scrolls in its field and a select shows its choice; a tab not shown is moved aside.
+      // Typed text scrolls in its field and a select shows its choice; a tab not shown is moved aside;
+      // a pressed control's ripple is a decoration that clips its own wave while it fades.
       if (
         element.closest(
-          'input, textarea, .mat-mdc-select, svg, canvas, mat-tab-body:not(.mat-mdc-tab-body-active), .mat-drawer:not(.mat-drawer-opened)',
+          'input, textarea, .mat-mdc-select, svg, canvas, .mat-ripple, mat-tab-body:not(.mat-mdc-tab-body-active), .mat-drawer:not(.mat-drawer-opened)',
         )
       )
         continue;
