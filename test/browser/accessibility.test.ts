@@ -24,6 +24,16 @@ interface Violation {
 /** axe-core's WCAG 2.1 A/AA rules on the page as it stands; serious and critical findings fail. */
 async function seriousViolations(): Promise<string[]> {
   const { page } = browser;
+  // Colours measured mid-transition (a tab label fading to the dark scheme's colour) are neither
+  // scheme's: let every finite animation and transition end first; a spinner's endless one is left.
+  await page.evaluate(() =>
+    Promise.all(
+      document
+        .getAnimations()
+        .filter((animation) => animation.effect?.getComputedTiming().iterations !== Infinity)
+        .map((animation) => animation.finished.catch(() => undefined)),
+    ),
+  );
   await page.evaluate(axeSource);
   const violations = await page.evaluate(async () => {
     const axe = (
