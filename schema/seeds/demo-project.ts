@@ -14,7 +14,7 @@ export const demoSetup = {
   method: 'space-by-space',
   units: 'ip',
   lighting_zone: 2,
-};
+} as const;
 
 export const demoLuminaireTypes = [
   { tag: 'A', description: '2×4 LED troffer, 4000 K', inputWatts: '33', use: 'general' },

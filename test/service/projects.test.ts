@@ -15,7 +15,7 @@ beforeAll(async () => {
     .db('projects')
     .insert({ name: 'Harbour Annex (engineer only)', created_by: engineer.id })
     .returning('id');
-  privateProjectId = project.id;
+  privateProjectId = project!.id;
   await database.db('project_members').insert({ project_id: privateProjectId, user_id: engineer.id, role: 'engineer' });
 });
 

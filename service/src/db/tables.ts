@@ -1,8 +1,7 @@
 /**
  * Row shapes as the repositories read them. NUMERIC columns arrive as strings and stay strings.
- * The tables named in Knex's `Tables` below are typed wherever `db('name')` is written; the
- * project's own and its design's tables are not named yet, and read as the rows their
- * repositories declare.
+ * The tables named in Knex's `Tables` below are typed wherever `db('name')` is written: users and
+ * sessions, projects and their design, the audit log and every code table.
  */
 import type { Knex } from 'knex';
 import type {
@@ -17,6 +16,10 @@ import type {
   StrategyKey,
 } from '../compliance/edition-data.js';
 import type { AdditionalAllowanceKind } from '../../../contract/editions.js';
+import type { ProjectState } from '../../../contract/review.js';
+import type { ExteriorApplicationInput, LuminaireTypeInput, SpaceInput } from '../design/design.schema.js';
+import type { ResultSummary } from '../projects/projects.repository.js';
+import type { UnitOrigin } from './unit-origin.js';
 
 export type ProjectRole = 'engineer' | 'reviewer' | 'contractor';
 export const projectRoles: readonly ProjectRole[] = ['engineer', 'reviewer', 'contractor'];
@@ -47,11 +50,41 @@ export interface SessionRow {
 export interface ProjectRow {
   id: string;
   name: string;
-  state: string;
+  state: ProjectState;
   version: number;
+  /** Starts at 1; reopening an accepted or issued design starts the next. */
+  revision: number;
   created_by: string | null;
   created_at: Date;
   updated_at: Date;
+  updated_by: string | null;
+  address: string | null;
+  latitude: string | null;
+  longitude: string | null;
+  time_zone: string | null;
+  jurisdiction: string | null;
+  edition_id: string | null;
+  method: string | null;
+  units: 'ip' | 'si';
+  lighting_zone: number | null;
+  /** The jurisdiction amendments the project follows over the model code. */
+  amendments: string[];
+  result_summary: ResultSummary | null;
+  archived_at: Date | null;
+  archived_by: string | null;
+  permit_number: string | null;
+  owner_name: string | null;
+  occupancy: string | null;
+  scope: string | null;
+  designer_name: string | null;
+  designer_firm: string | null;
+  designer_licence: string | null;
+  contractor_name: string | null;
+  contractor_firm: string | null;
+  contractor_licence: string | null;
+  contractor_contact: string | null;
+  gross_floor_area: string | null;
+  unit_origin: UnitOrigin | null;
 }
 
 export interface ProjectMemberRow {
@@ -257,6 +290,150 @@ export interface EditionAmendmentRow extends VersionedCodeRow {
   note: string;
 }
 
+// ---------------------------------------------------------------- a project's design
+
+/** The columns every design row that is edited on its own carries, for optimistic locking and "changed by". */
+interface DesignStamp {
+  id: string;
+  project_id: string;
+  version: number;
+  created_at: Date;
+  updated_at: Date;
+  updated_by: string | null;
+  /** The values before the last change of units (see `db/unit-origin.ts`). */
+  unit_origin: UnitOrigin | null;
+}
+
+export interface LuminaireTypeRow extends DesignStamp {
+  tag: string;
+  description: string;
+  input_watts: string;
+  use: LuminaireTypeInput['use'];
+  exempt_reason: string | null;
+  basis: LuminaireTypeInput['basis'];
+  length: string | null;
+  limit_watts: string | null;
+  wattage_source: string | null;
+  manufacturer: string | null;
+  catalog_number: string | null;
+  light_source: string | null;
+  driver: string | null;
+  voltage: string | null;
+}
+
+export interface SpaceRow extends DesignStamp {
+  position: number;
+  name: string;
+  level: string;
+  space_type: string | null;
+  building_area_type: string | null;
+  control_space_type: string | null;
+  area: string;
+  ceiling_height: string | null;
+  length: string | null;
+  width: string | null;
+  luminaire_height: string | null;
+  work_plane_height: string | null;
+  enclosed: boolean | null;
+  rooms: number | null;
+  unlit: boolean | null;
+}
+
+export interface SpaceLuminaireRow {
+  space_id: string;
+  position: number;
+  luminaire_type_id: string;
+  count: number;
+  zone: SpaceInput['luminaires'][number]['zone'] | null;
+}
+
+export interface SpaceControlRow {
+  space_id: string;
+  strategy: string;
+  provided: boolean;
+  timeout_minutes: string | null;
+  zone_size: string | null;
+  reduction_percent: string | null;
+  auto_on: SpaceInput['controls'][number]['autoOn'] | null;
+  device: string | null;
+  exception_reason: SpaceInput['controls'][number]['exceptionReason'] | null;
+  exception_note: string | null;
+  unit_origin: UnitOrigin | null;
+}
+
+export interface SpaceWindowRow {
+  space_id: string;
+  position: number;
+  width: string;
+  head_height: string;
+  sill_height: string | null;
+  wall: SpaceInput['windows'][number]['wall'] | null;
+  offset: string | null;
+  visible_transmittance: string | null;
+  daylight_blocked: boolean | null;
+  unit_origin: UnitOrigin | null;
+}
+
+export interface SpaceSkylightRow {
+  space_id: string;
+  position: number;
+  length: string;
+  width: string;
+  x: string | null;
+  y: string | null;
+  visible_transmittance: string | null;
+  daylight_blocked: boolean | null;
+  unit_origin: UnitOrigin | null;
+}
+
+export interface ExteriorApplicationRow extends DesignStamp {
+  position: number;
+  application_key: string;
+  description: string;
+  quantity: string;
+  installed_watts: string;
+  exempt_watts: string | null;
+  exempt_reason: ExteriorApplicationInput['exemptReason'] | null;
+  exempt_note: string | null;
+  controls: ExteriorApplicationInput['controls'];
+}
+
+export interface RetailDisplayClaimRow extends DesignStamp {
+  space_id: string;
+  allowance_key: string;
+  area: string;
+  /** Set while a deleted claim waits out its restore days. */
+  deleted_at: Date | null;
+}
+
+export interface ImportAliasRow {
+  project_id: string;
+  name_key: string;
+  name: string;
+  space_type: string | null;
+  building_area_type: string | null;
+  updated_by: string | null;
+  updated_at: Date;
+}
+
+export interface IdempotencyKeyRow {
+  project_id: string;
+  user_id: string;
+  key: string;
+  request_hash: string;
+  space_ids: string[];
+  created_at: Date;
+}
+
+/**
+ * How a project or design row is written: NUMERIC columns as decimal text (as they are read), JSON
+ * columns as JSON text, and any column may be left out for its default or be a database expression.
+ */
+type Written<Row, Json extends keyof Row> = Partial<{
+  [Column in keyof Row]: (Column extends Json ? string | null : Row[Column]) | Knex.Raw;
+}>;
+type StoredTable<Row, Json extends keyof Row = never> = Knex.CompositeTableType<Row, Written<Row, Json>>;
+
 /**
  * How the seeds write a code-table row: JSON columns as JSON text, and columns the service reads as
  * narrower types (a strategy key, a requirement) as the reference files' text, which the reference
@@ -270,6 +447,17 @@ declare module 'knex/types/tables.js' {
   interface Tables {
     users: UserRow;
     sessions: SessionRow;
+    projects: StoredTable<ProjectRow, 'result_summary' | 'unit_origin'>;
+    luminaire_types: StoredTable<LuminaireTypeRow, 'unit_origin'>;
+    spaces: StoredTable<SpaceRow, 'unit_origin'>;
+    space_luminaires: StoredTable<SpaceLuminaireRow>;
+    space_controls: StoredTable<SpaceControlRow, 'unit_origin'>;
+    space_windows: StoredTable<SpaceWindowRow, 'unit_origin'>;
+    space_skylights: StoredTable<SpaceSkylightRow, 'unit_origin'>;
+    exterior_applications: StoredTable<ExteriorApplicationRow, 'controls' | 'unit_origin'>;
+    retail_display_claims: StoredTable<RetailDisplayClaimRow, 'unit_origin'>;
+    project_import_aliases: ImportAliasRow;
+    idempotency_keys: IdempotencyKeyRow;
     project_members: ProjectMemberRow;
     audit_log: AuditLogRow;
     code_editions: CodeTable<CodeEditionRow>;

@@ -2,7 +2,8 @@ import type { Knex } from 'knex';
 import { recordAudit } from '../audit/audit.repository.js';
 import { dec, text } from '../compliance/numbers.js';
 import type { Database } from '../db/database.js';
-import { updateVersioned, type VersionedRow } from '../db/optimistic.js';
+import { updateVersioned } from '../db/optimistic.js';
+import type { RetailDisplayClaimRow } from '../db/tables.js';
 import { lockProject } from '../db/project-lock.js';
 import { Conflict, NotFound, NotRestorable, Refused } from '../domain-errors.js';
 import { restoreDays, touchProject } from './design.repository.js';
@@ -25,15 +26,10 @@ export interface AllowanceClaimInput {
   area: string;
 }
 
-interface ClaimRow extends VersionedRow {
-  space_id: string;
-  allowance_key: string;
-  area: string;
-  deleted_at: Date | null;
-  updated_by_name: string | null;
-}
+/** A claim as read, with the name of who last changed it. */
+type ClaimRead = RetailDisplayClaimRow & { updated_by_name: string | null };
 
-function claimRecord(row: ClaimRow): AllowanceClaim {
+function claimRecord(row: ClaimRead): AllowanceClaim {
   return {
     id: row.id,
     spaceId: row.space_id,
@@ -207,7 +203,7 @@ export async function restoreAllowanceClaim(db: Database, projectId: string, id:
     const row = await trx('retail_display_claims')
       .where({ id, project_id: projectId })
       .whereNotNull('deleted_at')
-      .first<ClaimRow | undefined>();
+      .first<ClaimRead | undefined>();
     const entry = await trx('audit_log')
       .where({ project_id: projectId, entity: 'additional-allowance', entity_id: id, action: 'delete' })
       .orderBy('id', 'desc')

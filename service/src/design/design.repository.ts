@@ -6,6 +6,15 @@ import { dec, text } from '../compliance/numbers.js';
 import type { Database } from '../db/database.js';
 import { deleteVersioned, updateVersioned, type VersionedRow } from '../db/optimistic.js';
 import { lockProject } from '../db/project-lock.js';
+import type {
+  ExteriorApplicationRow,
+  LuminaireTypeRow,
+  SpaceControlRow,
+  SpaceLuminaireRow,
+  SpaceRow,
+  SpaceSkylightRow,
+  SpaceWindowRow,
+} from '../db/tables.js';
 import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
 import { Conflict, InUse, KeyReused, NotFound, NotRestorable, Refused, type ErrorDetail } from '../domain-errors.js';
 import {
@@ -38,29 +47,12 @@ function stamp(row: VersionedRow & { updated_by_name?: string | null }): Stamp {
 
 // ---------------------------------------------------------------- luminaire types
 
-interface LuminaireTypeRow extends VersionedRow {
-  project_id: string;
-  tag: string;
-  description: string;
-  input_watts: string;
-  use: LuminaireTypeInput['use'];
-  exempt_reason: string | null;
-  basis: LuminaireTypeInput['basis'];
-  length: string | null;
-  limit_watts: string | null;
-  wattage_source: string | null;
-  manufacturer: string | null;
-  catalog_number: string | null;
-  light_source: string | null;
-  driver: string | null;
-  voltage: string | null;
-  unit_origin: UnitOrigin | null;
-  updated_by_name?: string | null;
-}
+/** A luminaire type as read, with the name of who last changed it. */
+type LuminaireTypeRead = LuminaireTypeRow & { updated_by_name?: string | null };
 
 export type LuminaireTypeRecord = LuminaireTypeInput & Stamp & { id: string };
 
-function luminaireTypeRecord(row: LuminaireTypeRow): LuminaireTypeRecord {
+function luminaireTypeRecord(row: LuminaireTypeRead): LuminaireTypeRecord {
   return {
     id: row.id,
     ...defined({
@@ -107,12 +99,12 @@ function withUpdaterName(db: Knex, table: string) {
 }
 
 export async function listLuminaireTypes(db: Knex, projectId: string): Promise<LuminaireTypeRecord[]> {
-  const rows: LuminaireTypeRow[] = await withUpdaterName(db, 'luminaire_types').where('t.project_id', projectId).orderBy('t.tag');
+  const rows: LuminaireTypeRead[] = await withUpdaterName(db, 'luminaire_types').where('t.project_id', projectId).orderBy('t.tag');
   return rows.map(luminaireTypeRecord);
 }
 
 async function oneLuminaireType(db: Knex, id: string): Promise<LuminaireTypeRecord> {
-  const row: LuminaireTypeRow = await withUpdaterName(db, 'luminaire_types').where('t.id', id).first();
+  const row: LuminaireTypeRead = await withUpdaterName(db, 'luminaire_types').where('t.id', id).first();
   return luminaireTypeRecord(row);
 }
 
@@ -129,7 +121,7 @@ function tagTaken(tag: string): Conflict {
 }
 
 async function storedLuminaireType(trx: Knex, projectId: string, id: string): Promise<LuminaireTypeRow> {
-  const row = await trx('luminaire_types').where({ id, project_id: projectId }).first<LuminaireTypeRow | undefined>();
+  const row = await trx('luminaire_types').where({ id, project_id: projectId }).first();
   if (!row) throw new NotFound('This luminaire type does not exist.');
   return row;
 }
@@ -231,70 +223,11 @@ export async function deleteLuminaireType(db: Database, projectId: string, id: s
 
 // ---------------------------------------------------------------- spaces
 
-interface SpaceRow extends VersionedRow {
-  project_id: string;
-  position: number;
-  name: string;
-  level: string;
-  space_type: string | null;
-  building_area_type: string | null;
-  control_space_type: string | null;
-  area: string;
-  ceiling_height: string | null;
-  length: string | null;
-  width: string | null;
-  luminaire_height: string | null;
-  work_plane_height: string | null;
-  enclosed: boolean | null;
-  rooms: number | null;
-  unlit: boolean | null;
-  updated_by_name?: string | null;
-}
+/** A space as read, with the name of who last changed it. */
+type SpaceRead = SpaceRow & { updated_by_name?: string | null };
 
-interface SpaceLuminaireRow {
-  space_id: string;
-  position: number;
-  luminaire_type_id: string;
-  tag: string;
-  count: number;
-  zone: SpaceInput['luminaires'][number]['zone'] | null;
-}
-
-interface SpaceControlRow {
-  space_id: string;
-  strategy: string;
-  provided: boolean;
-  timeout_minutes: string | null;
-  zone_size: string | null;
-  reduction_percent: string | null;
-  auto_on: SpaceInput['controls'][number]['autoOn'] | null;
-  device: string | null;
-  exception_reason: SpaceInput['controls'][number]['exceptionReason'] | null;
-  exception_note: string | null;
-}
-
-interface SpaceWindowRow {
-  space_id: string;
-  position: number;
-  width: string;
-  head_height: string;
-  sill_height: string | null;
-  wall: SpaceInput['windows'][number]['wall'] | null;
-  offset: string | null;
-  visible_transmittance: string | null;
-  daylight_blocked: boolean | null;
-}
-
-interface SpaceSkylightRow {
-  space_id: string;
-  position: number;
-  length: string;
-  width: string;
-  x: string | null;
-  y: string | null;
-  visible_transmittance: string | null;
-  daylight_blocked: boolean | null;
-}
+/** A luminaire count with its type's tag, joined. */
+type SpaceLuminaireRead = SpaceLuminaireRow & { tag: string };
 
 export type SpaceRecord = Omit<SpaceInput, 'luminaires'> &
   Stamp & { id: string; position: number; luminaires: (SpaceInput['luminaires'][number] & { luminaireTypeId: string })[] };
@@ -309,7 +242,7 @@ function groupBy<Row extends { space_id: string }>(rows: Row[]): Map<string, Row
   return groups;
 }
 
-async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> {
+async function spaceRecords(db: Knex, rows: SpaceRead[]): Promise<SpaceRecord[]> {
   if (rows.length === 0) return [];
   const ids = rows.map((row) => row.id);
   const inIds = (query: Knex.QueryBuilder) =>
@@ -334,7 +267,7 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
     results.push(...(await Promise.all(queries.map((query) => query()))));
   }
   const [luminaires, controls, windows, skylights] = results as [
-    SpaceLuminaireRow[],
+    SpaceLuminaireRead[],
     SpaceControlRow[],
     SpaceWindowRow[],
     SpaceSkylightRow[],
@@ -404,14 +337,14 @@ async function spaceRecords(db: Knex, rows: SpaceRow[]): Promise<SpaceRecord[]> 
 }
 
 export async function listSpaces(db: Knex, projectId: string): Promise<SpaceRecord[]> {
-  const rows: SpaceRow[] = await withUpdaterName(db, 'spaces')
+  const rows: SpaceRead[] = await withUpdaterName(db, 'spaces')
     .where('t.project_id', projectId)
     .orderBy([{ column: 't.position' }, { column: 't.name' }]);
   return spaceRecords(db, rows);
 }
 
 async function oneSpace(db: Knex, id: string): Promise<SpaceRecord> {
-  const rows: SpaceRow[] = await withUpdaterName(db, 'spaces').where('t.id', id);
+  const rows: SpaceRead[] = await withUpdaterName(db, 'spaces').where('t.id', id);
   const [record] = await spaceRecords(db, rows);
   return record!;
 }
@@ -613,7 +546,7 @@ async function createImportedTypes(trx: Knex.Transaction, projectId: string, inp
   const inserted = await trx('luminaire_types')
     .insert(inputs.map((input) => ({ project_id: projectId, ...luminaireTypeColumns(input), updated_by: userId })))
     .returning<{ id: string }[]>('id');
-  const rows: LuminaireTypeRow[] = await withUpdaterName(trx, 'luminaire_types')
+  const rows: LuminaireTypeRead[] = await withUpdaterName(trx, 'luminaire_types')
     .whereIn(
       't.id',
       inserted.map((row) => row.id),
@@ -654,7 +587,7 @@ export async function createSpaces(
         if (earlier.request_hash !== importKey.requestHash) {
           throw new KeyReused('This import key was already used for a different import. Start a new import.');
         }
-        const rows: SpaceRow[] = await withUpdaterName(trx, 'spaces').whereIn('t.id', earlier.space_ids).orderBy('t.position');
+        const rows: SpaceRead[] = await withUpdaterName(trx, 'spaces').whereIn('t.id', earlier.space_ids).orderBy('t.position');
         return spaceRecords(trx, rows);
       }
     }
@@ -692,7 +625,7 @@ export async function createSpaces(
       trx,
       inputs.map((input, index) => childRows(ids[index]!, input, typeIds)),
     );
-    const rows: SpaceRow[] = await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position');
+    const rows: SpaceRead[] = await withUpdaterName(trx, 'spaces').whereIn('t.id', ids).orderBy('t.position');
     const created = await spaceRecords(trx, rows);
     await recordDesignChanges(
       trx,
@@ -736,9 +669,7 @@ export async function replaceSpace(
 ): Promise<SpaceRecord> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
-    const stored = await trx('spaces')
-      .where({ id: spaceId, project_id: projectId })
-      .first<(SpaceRow & { unit_origin: UnitOrigin | null }) | undefined>();
+    const stored = await trx('spaces').where({ id: spaceId, project_id: projectId }).first<SpaceRow | undefined>();
     if (!stored) throw new NotFound('This space does not exist.');
     const before = await oneSpace(trx, spaceId);
     const typeIds = await resolveTags(trx, projectId, [input], () => '');
@@ -844,24 +775,12 @@ export async function setControlOnSpaces(
 
 // ---------------------------------------------------------------- exterior applications
 
-interface ExteriorRow extends VersionedRow {
-  project_id: string;
-  position: number;
-  application_key: string;
-  description: string;
-  quantity: string;
-  installed_watts: string;
-  exempt_watts: string | null;
-  exempt_reason: ExteriorApplicationInput['exemptReason'] | null;
-  exempt_note: string | null;
-  controls: ExteriorApplicationInput['controls'];
-  unit_origin: UnitOrigin | null;
-  updated_by_name?: string | null;
-}
+/** An exterior application as read, with the name of who last changed it. */
+type ExteriorRead = ExteriorApplicationRow & { updated_by_name?: string | null };
 
 export type ExteriorApplicationRecord = ExteriorApplicationInput & Stamp & { id: string };
 
-function exteriorRecord(row: ExteriorRow): ExteriorApplicationRecord {
+function exteriorRecord(row: ExteriorRead): ExteriorApplicationRecord {
   return {
     id: row.id,
     key: row.application_key,
@@ -890,7 +809,7 @@ function exteriorColumns(input: ExteriorApplicationInput): Record<string, unknow
 }
 
 export async function listExteriorApplications(db: Knex, projectId: string): Promise<ExteriorApplicationRecord[]> {
-  const rows: ExteriorRow[] = await withUpdaterName(db, 'exterior_applications')
+  const rows: ExteriorRead[] = await withUpdaterName(db, 'exterior_applications')
     .where('t.project_id', projectId)
     .orderBy([{ column: 't.position' }, { column: 't.created_at' }]);
   return rows.map(exteriorRecord);
@@ -952,7 +871,7 @@ export async function replaceExteriorApplication(
 ): Promise<ExteriorApplicationRecord> {
   return db.transaction(async (trx) => {
     await lockProject(trx, projectId);
-    const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first<ExteriorRow | undefined>();
+    const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first();
     if (!stored) throw new NotFound('This exterior application does not exist.');
     const before = exteriorRecord(stored);
     await assertApplicationFree(trx, projectId, input.key, id);
@@ -992,7 +911,7 @@ export async function deleteExteriorApplication(
 ): Promise<void> {
   await db.transaction(async (trx) => {
     await lockProject(trx, projectId);
-    const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first<ExteriorRow | undefined>();
+    const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first();
     if (!stored) throw new NotFound('This exterior application does not exist.');
     const before = exteriorRecord(stored);
     await deleteVersioned(trx, 'exterior_applications', { id, project_id: projectId }, version, 'This exterior application');

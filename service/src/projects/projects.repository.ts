@@ -5,9 +5,9 @@ import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import { updateVersioned } from '../db/optimistic.js';
 import { lockProject } from '../db/project-lock.js';
-import type { ProjectRole } from '../db/tables.js';
+import type { ProjectRole, ProjectRow } from '../db/tables.js';
 import { NotFound } from '../domain-errors.js';
-import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
+import { carriedOrigin } from '../db/unit-origin.js';
 import { permitColumns, type ProjectCreate, type ProjectSetupPatch } from './projects.schema.js';
 
 /** The last evaluation's verdict, kept for lists; null until the project is evaluated after its latest change. */
@@ -53,29 +53,8 @@ export interface ProjectDetail extends ProjectSummary, PermitFields {
   members: { userId: string; name: string; email: string; role: ProjectRole }[];
 }
 
-interface ProjectRow {
-  id: string;
-  name: string;
-  state: string;
-  version: number;
-  revision: number;
-  updated_at: Date;
-  address: string | null;
-  latitude: string | null;
-  longitude: string | null;
-  time_zone: string | null;
-  jurisdiction: string | null;
-  edition_id: string | null;
-  method: string | null;
-  units: 'ip' | 'si';
-  lighting_zone: number | null;
-  amendments: string[];
-  result_summary: ResultSummary | null;
-  gross_floor_area: string | null;
-  archived_at: Date | null;
-  updated_by_name: string | null;
-  unit_origin: UnitOrigin | null;
-}
+/** A project as read, with the name of who last changed it. */
+type ProjectRead = ProjectRow & { updated_by_name: string | null };
 
 function permitFields(row: Record<string, unknown>): PermitFields {
   const fields = Object.fromEntries(
@@ -140,7 +119,7 @@ export async function getProjectDetail(db: Knex, projectId: string, role: Projec
   const row = await db('projects as p')
     .leftJoin('users as u', 'u.id', 'p.updated_by')
     .where('p.id', projectId)
-    .first<ProjectRow | undefined>('p.*', 'u.name as updated_by_name');
+    .first<ProjectRead | undefined>('p.*', 'u.name as updated_by_name');
   if (!row) throw new NotFound('No such project.');
   const members = await db('project_members as m')
     .join('users as u', 'u.id', 'm.user_id')
@@ -280,7 +259,8 @@ export async function createProject(db: Database, input: ProjectCreate, userId: 
 
 /** The set-up as the history keeps it, before and after a change. */
 async function setupRecord(trx: Knex, projectId: string): Promise<Record<string, unknown>> {
-  const row = await trx('projects').where({ id: projectId }).first<ProjectRow>();
+  const row = await trx('projects').where({ id: projectId }).first();
+  if (!row) throw new NotFound('No such project.');
   return {
     name: row.name,
     address: row.address,
@@ -312,7 +292,8 @@ export async function updateProjectSetup(
   const { version, ...fields } = patch;
   await db.transaction(async (trx) => {
     await lockProject(trx, projectId);
-    const stored = await trx('projects').where({ id: projectId }).first<ProjectRow>();
+    const stored = await trx('projects').where({ id: projectId }).first();
+    if (!stored) throw new NotFound('No such project.');
     const before = await setupRecord(trx, projectId);
     const columns = setupColumns(fields);
     const origin = carriedOrigin(stored.unit_origin, { ...stored }, { gross_floor_area: stored.gross_floor_area, ...columns });
@@ -457,4 +438,19 @@ export async function copyProject(db: Database, sourceId: string, name: string, 
     });
     return projectId;
   });
+}
+
+/** Writes a project's review state with the revision and version the move gives it; answers the version written. */
+export async function setReviewState(
+  trx: Knex,
+  projectId: string,
+  next: { state: ProjectRow['state']; revision: number; version: number },
+  userId: string,
+): Promise<number> {
+  const [updated] = await trx('projects')
+    .where({ id: projectId })
+    .update({ ...next, updated_at: trx.fn.now(), updated_by: userId })
+    .returning('version');
+  if (!updated) throw new NotFound('No such project.');
+  return updated.version;
 }

@@ -5,6 +5,7 @@ import type { Database } from '../db/database.js';
 import { lockProject } from '../db/project-lock.js';
 import type { ProjectRole } from '../db/tables.js';
 import { Conflict, DomainError } from '../domain-errors.js';
+import { setReviewState } from '../projects/projects.repository.js';
 
 /** Who makes a move: the project's role that may, with what the move means in words. */
 interface Move {
@@ -104,11 +105,8 @@ export async function applyTransition(
       throw here('Issuing needs a submittal package revision of this design, and packages cannot be made yet.');
     }
     const revision = move.newRevision ? project.revision + 1 : project.revision;
-    const [updated] = await trx('projects')
-      .where({ id: projectId })
-      .update({ state: move.to, revision, version: project.version + 1, updated_at: trx.fn.now(), updated_by: actor.userId })
-      .returning<{ version: number }[]>('version');
-    const outcome: TransitionOutcome = { from, to: move.to, revision, version: updated!.version };
+    const version = await setReviewState(trx, projectId, { state: move.to, revision, version: project.version + 1 }, actor.userId);
+    const outcome: TransitionOutcome = { from, to: move.to, revision, version };
     await recordAudit(trx, {
       userId: actor.userId,
       projectId,
