@@ -428,3 +428,56 @@ describe('POST /api/projects/:id/additional-allowances/:claimId/restore', () => 
     ).toBe(false);
   });
 });
+
+describe('a thing deleted before a change of units', () => {
+  // 1 ft = 0.3048 m exactly, so 1 ft² = 0.09290304 m² (mathjs units; the international foot).
+  it('comes back in the project’s present units: a space with its window, a track type’s length, an exterior area', async () => {
+    const projectId = await newProject({ name: 'Net loft' });
+    const base = `/api/projects/${projectId}`;
+    const track = await write(engineer, 'post', `${base}/luminaire-types`).send({
+      tag: 'T9',
+      description: 'Line-voltage track',
+      use: 'general',
+      inputWatts: '120',
+      basis: 'line-voltage-track',
+      length: '10',
+    });
+    expect(track.status, JSON.stringify(track.body)).toBe(201);
+    const space = await write(engineer, 'post', `${base}/spaces`).send({
+      name: 'Drying room',
+      spaceType: 'storage-room',
+      area: '1000',
+      ceilingHeight: '10',
+      length: '40',
+      width: '25',
+      windows: [{ width: '20', headHeight: '8' }],
+    });
+    expect(space.status, JSON.stringify(space.body)).toBe(201);
+    const lot = await write(engineer, 'post', `${base}/exterior-applications`).send({
+      key: 'parking-lots-and-drives',
+      quantity: '5000',
+      installedWatts: '300',
+    });
+    expect(lot.status, JSON.stringify(lot.body)).toBe(201);
+    expect((await write(engineer, 'delete', `${base}/spaces/${space.body.id}?version=1`)).status).toBe(204);
+    expect((await write(engineer, 'delete', `${base}/luminaire-types/${track.body.id}?version=1`)).status).toBe(204);
+    expect((await write(engineer, 'delete', `${base}/exterior-applications/${lot.body.id}?version=1`)).status).toBe(204);
+    expect((await patchSetup(projectId, { units: 'si' })).status).toBe(200);
+
+    const restoredSpace = await write(engineer, 'post', `${base}/spaces/${space.body.id}/restore`);
+    expect(restoredSpace.status).toBe(201);
+    expect(restoredSpace.body).toMatchObject({ area: '92.90304', ceilingHeight: '3.048', length: '12.192', width: '7.62' });
+    expect(restoredSpace.body.windows[0]).toMatchObject({ width: '6.096', headHeight: '2.4384' });
+    const restoredTrack = await write(engineer, 'post', `${base}/luminaire-types/${track.body.id}/restore`);
+    expect(restoredTrack.status).toBe(201);
+    expect(restoredTrack.body.length).toBe('3.048');
+    const restoredLot = await write(engineer, 'post', `${base}/exterior-applications/${lot.body.id}/restore`);
+    expect(restoredLot.status).toBe(201);
+    expect(restoredLot.body.quantity).toBe('464.5152');
+
+    // Back to feet, every value is what was entered: the restored rows keep their origin as the others do.
+    expect((await patchSetup(projectId, { units: 'ip' })).status).toBe(200);
+    const again = await engineer.agent.get(`${base}/spaces/${space.body.id}`);
+    expect(again.body).toMatchObject({ area: '1000', ceilingHeight: '10' });
+  });
+});

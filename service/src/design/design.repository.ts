@@ -16,6 +16,7 @@ import type {
   SpaceWindowRow,
 } from '../db/tables.js';
 import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
+import { convertProjectUnits } from '../projects/unit-conversion.repository.js';
 import { Conflict, InUse, KeyReused, NotFound, NotRestorable, Refused, type ErrorDetail } from '../domain-errors.js';
 import {
   exteriorApplicationInputSchema,
@@ -194,7 +195,7 @@ export async function replaceLuminaireType(
 
 export async function deleteLuminaireType(db: Database, projectId: string, id: string, version: number, userId: string): Promise<void> {
   await db.transaction(async (trx) => {
-    await lockProject(trx, projectId);
+    const { units } = await lockProject(trx, projectId);
     await storedLuminaireType(trx, projectId, id);
     const users = await trx('space_luminaires as l')
       .join('spaces as s', 's.id', 'l.space_id')
@@ -216,6 +217,7 @@ export async function deleteLuminaireType(db: Database, projectId: string, id: s
       entityId: id,
       name: before.tag,
       before,
+      units,
     });
     await touchProject(trx, projectId);
   });
@@ -702,10 +704,19 @@ export async function replaceSpace(
 
 export async function deleteSpace(db: Database, projectId: string, spaceId: string, version: number, userId: string): Promise<void> {
   await db.transaction(async (trx) => {
-    await lockProject(trx, projectId);
+    const { units } = await lockProject(trx, projectId);
     const before = await getSpace(trx, projectId, spaceId);
     await deleteVersioned(trx, 'spaces', { id: spaceId, project_id: projectId }, version, 'This space');
-    await recordDesignChange(trx, { userId, projectId, action: 'delete', entity: 'space', entityId: spaceId, name: before.name, before });
+    await recordDesignChange(trx, {
+      userId,
+      projectId,
+      action: 'delete',
+      entity: 'space',
+      entityId: spaceId,
+      name: before.name,
+      before,
+      units,
+    });
     await touchProject(trx, projectId);
   });
 }
@@ -910,7 +921,7 @@ export async function deleteExteriorApplication(
   userId: string,
 ): Promise<void> {
   await db.transaction(async (trx) => {
-    await lockProject(trx, projectId);
+    const { units } = await lockProject(trx, projectId);
     const stored = await trx('exterior_applications').where({ id, project_id: projectId }).first();
     if (!stored) throw new NotFound('This exterior application does not exist.');
     const before = exteriorRecord(stored);
@@ -923,6 +934,7 @@ export async function deleteExteriorApplication(
       entityId: id,
       name: before.description || before.key,
       before,
+      units,
     });
     await touchProject(trx, projectId);
   });
@@ -936,7 +948,8 @@ export const restoreDays = 30;
 interface DeleteEntry {
   id: string;
   at: Date;
-  detail: { name: string; before: Record<string, unknown> };
+  /** `units` is absent in deletes recorded before it was kept: those are taken as in the present units. */
+  detail: { name: string; before: Record<string, unknown>; units?: 'ip' | 'si' };
 }
 
 /** The stored fields of a record as the history kept it, without its stamp. */
@@ -956,9 +969,11 @@ export async function restoreDeleted(
   entity: DesignEntity,
   entityId: string,
   userId: string,
+  /** The unit of each exterior application of the project's edition, for converting a restored one. */
+  exteriorUnits: ReadonlyMap<string, string> = new Map(),
 ): Promise<SpaceRecord | LuminaireTypeRecord | ExteriorApplicationRecord> {
   return db.transaction(async (trx) => {
-    await lockProject(trx, projectId);
+    const { units } = await lockProject(trx, projectId);
     const entry = await trx('audit_log')
       .where({ project_id: projectId, entity, entity_id: entityId, action: 'delete' })
       .orderBy('id', 'desc')
@@ -973,6 +988,11 @@ export async function restoreDeleted(
       );
     }
     const fields = withoutStamp(entry.detail.before);
+    // Deleted before a change of units: the values come back converted, as every kept row was.
+    const convert = async () => {
+      const deletedIn = entry.detail.units ?? units;
+      if (deletedIn !== units) await convertProjectUnits(trx, projectId, deletedIn, units, exteriorUnits, userId, [entityId]);
+    };
     let restored: SpaceRecord | LuminaireTypeRecord | ExteriorApplicationRecord;
     if (entity === 'space') {
       const parsed = spaceInputSchema.safeParse({
@@ -993,6 +1013,7 @@ export async function restoreDeleted(
       const position = taken ? await nextPosition(trx, projectId) : wanted;
       await trx('spaces').insert({ id: entityId, project_id: projectId, position, ...spaceColumns(parsed.data), updated_by: userId });
       await insertChildren(trx, [childRows(entityId, parsed.data, typeIds)]);
+      await convert();
       restored = await oneSpace(trx, entityId);
     } else if (entity === 'luminaire-type') {
       const parsed = luminaireTypeInputSchema.safeParse(fields);
@@ -1007,6 +1028,7 @@ export async function restoreDeleted(
         ...luminaireTypeColumns(parsed.data),
         updated_by: userId,
       });
+      await convert();
       restored = await oneLuminaireType(trx, entityId);
     } else {
       const parsed = exteriorApplicationInputSchema.safeParse(fields);
@@ -1026,6 +1048,7 @@ export async function restoreDeleted(
         ...exteriorColumns(parsed.data),
         updated_by: userId,
       });
+      await convert();
       restored = await oneExterior(trx, entityId);
     }
     await recordDesignChange(trx, {
@@ -1055,13 +1078,15 @@ interface DesignChange {
   entityId: string;
   /** What a person calls the thing (its name or tag), kept so the history reads after it is gone. */
   name: string;
+  /** A delete keeps the units its values are in, so a restore after a change of units converts them. */
+  units?: 'ip' | 'si';
   before?: unknown;
   after?: unknown;
   restoredFrom?: string;
 }
 
 function auditEntry(change: DesignChange) {
-  const { before, after, name, restoredFrom } = change;
+  const { before, after, name, restoredFrom, units } = change;
   return {
     userId: change.userId,
     projectId: change.projectId,
@@ -1073,6 +1098,7 @@ function auditEntry(change: DesignChange) {
       ...(before === undefined ? {} : { before }),
       ...(after === undefined ? {} : { after }),
       ...(restoredFrom ? { restoredFrom } : {}),
+      ...(units ? { units } : {}),
     },
   };
 }

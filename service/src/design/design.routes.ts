@@ -54,6 +54,7 @@ import {
   assertControlFitsEdition,
   assertExteriorApplicationFitsEdition,
   assertSpacesFitEdition,
+  exteriorUnitsOf,
 } from './edition-checks.js';
 
 /** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
@@ -252,6 +253,7 @@ export function designRouter(db: Database): Router {
             'exterior-application',
             idParam(req.params['applicationId'], 'This exterior application'),
             userId(req),
+            await exteriorUnitsOf(db, projectId(req)),
           ),
         ),
       );

@@ -85,6 +85,13 @@ export async function assertExteriorApplicationFitsEdition(
   if (problems.length > 0) throw new Refused('The exempt lighting is not complete.', problems);
 }
 
+/** The unit of each exterior application of the project's edition (none before an edition is chosen). */
+export async function exteriorUnitsOf(db: Database, projectId: string): Promise<ReadonlyMap<string, string>> {
+  const project = await projectSetup(db, projectId);
+  const edition = project?.edition_id ? await loadEditionData(db, project.edition_id) : undefined;
+  return new Map((edition?.exteriorApplications ?? []).map((application) => [application.key, application.unit]));
+}
+
 async function projectEdition(db: Database, projectId: string): Promise<EditionData> {
   const project = await projectSetup(db, projectId);
   const edition = project?.edition_id ? await loadEditionData(db, project.edition_id) : undefined;

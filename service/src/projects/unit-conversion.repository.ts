@@ -107,6 +107,8 @@ export interface ConversionSummary {
  * `unit_origin`; converting back restores those exactly, so SI → IP → SI returns what was entered
  * (a write in between keeps the origin only of the values it left unchanged). Every converted row
  * gets a new version. A value that would leave its plausible range in the new unit stops the change.
+ * With `only`, just those rows (and a space's openings and controls) convert: a thing deleted
+ * before a change of units comes back in the project's present units.
  */
 export async function convertProjectUnits(
   trx: Knex.Transaction,
@@ -115,6 +117,7 @@ export async function convertProjectUnits(
   to: 'ip' | 'si',
   exteriorUnits: ReadonlyMap<string, string>,
   userId: string,
+  only?: readonly string[],
 ): Promise<ConversionSummary> {
   const summary: ConversionSummary = { from, to, rows: {} };
   if (from === to) return summary;
@@ -124,8 +127,11 @@ export async function convertProjectUnits(
     if (scope === 'self') query.where({ id: projectId });
     else if (scope === 'project') query.where({ project_id: projectId });
     else query.whereIn('space_id', spaceIds);
+    if (only && scope === 'project') query.whereIn('id', only);
+    if (only && scope === 'space') query.whereIn('space_id', only);
   };
   for (const { table, label, scope, versioned, columns, where } of convertedTables(exteriorUnits)) {
+    if (only && scope === 'self') continue;
     const names = Object.keys(columns);
     const changes: Record<string, Knex.Raw> = {};
     for (const name of names) {
