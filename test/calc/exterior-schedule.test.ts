@@ -266,7 +266,9 @@ describe('bounds', () => {
   it('refuses more than 366 days, a latitude past a pole, an offset over two hours and an unknown zone', () => {
     expect(() => exteriorSchedule(newYork, { from: '2026-01-01', days: 367 })).toThrow();
     expect(() => exteriorSchedule({ ...newYork, latitude: 91 }, { from: '2026-01-01', days: 1 })).toThrow();
-    expect(() => exteriorSchedule(newYork, { from: '2026-01-01', days: 1 }, { ...defaultScheduleSettings, offMinutesAfterSunrise: 121 })).toThrow();
+    expect(() =>
+      exteriorSchedule(newYork, { from: '2026-01-01', days: 1 }, { ...defaultScheduleSettings, offMinutesAfterSunrise: 121 }),
+    ).toThrow();
     expect(() => exteriorSchedule({ ...newYork, timeZone: 'Mars/Olympus' }, { from: '2026-01-01', days: 1 })).toThrow();
     expect(() => exteriorSchedule(newYork, { from: '2026-02-30', days: 1 })).toThrow();
   });

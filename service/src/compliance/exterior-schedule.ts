@@ -235,7 +235,14 @@ function sunDay(clock: ZoneClock, place: SchedulePlace, settings: ScheduleSettin
   const altitude = (SunCalc.getPosition(new Date(transit), place.latitude, place.longitude).altitude * 180) / Math.PI;
   if (altitude > horizonDegrees) {
     // Above the horizon the whole solar day: off from one solar midnight to the next.
-    return { pattern: 'sun-never-sets', sunrise: null, sunset: null, off: null, on: null, dark: [transit - 12 * 60 * minute, transit + 12 * 60 * minute] };
+    return {
+      pattern: 'sun-never-sets',
+      sunrise: null,
+      sunset: null,
+      off: null,
+      on: null,
+      dark: [transit - 12 * 60 * minute, transit + 12 * 60 * minute],
+    };
   }
   return { pattern: 'sun-never-rises', sunrise: null, sunset: null, off: null, on: null, dark: null };
 }
@@ -273,7 +280,11 @@ function overlap(intervals: readonly [number, number][], windows: readonly [numb
  * minutes the lights burn that day (midnight to midnight), the dark stretches of the neighbouring
  * solar days counted too, so a sunset after midnight (near the polar summer) is not lost.
  */
-export function exteriorSchedule(place: SchedulePlace, range: ScheduleRange, settings: ScheduleSettings = defaultScheduleSettings): ScheduleDay[] {
+export function exteriorSchedule(
+  place: SchedulePlace,
+  range: ScheduleRange,
+  settings: ScheduleSettings = defaultScheduleSettings,
+): ScheduleDay[] {
   schedulePlaceSchema.parse(place);
   scheduleRangeSchema.parse(range);
   scheduleSettingsSchema.parse(settings);
@@ -516,10 +527,12 @@ export function exteriorScheduleSummary(
   const rows = applications.map((application): ApplicationEnergy => {
     const choice = setbackChoice(application.key, tables, settings);
     const watts = dec(application.installedWatts);
-    const without = kWhOf(watts, lit);
-    const saved = kWhOf(watts, inSetback).times(choice.percent).dividedBy(100);
+    // Rounded to 0.1 kWh before the difference, so the figures shown add up.
+    const without = kWhOf(watts, lit).toDecimalPlaces(1);
+    const saved = kWhOf(watts, inSetback).times(choice.percent).dividedBy(100).toDecimalPlaces(1);
     const label = tables.exteriorApplications.find((entry) => entry.key === application.key)?.label ?? 'An application not in this edition';
-    if (!choice.verified && choice.rule !== 'none') unverified.add(`${label}: ${choice.note} The value is not checked against the published code.`);
+    if (!choice.verified && choice.rule !== 'none')
+      unverified.add(`${label}: ${choice.note} The value is not checked against the published code.`);
     return {
       id: application.id,
       key: application.key,
@@ -531,9 +544,9 @@ export function exteriorScheduleSummary(
       ...(choice.section ? { section: choice.section } : {}),
       hours: hoursText(litMinutes),
       setbackHours: hoursText(choice.rule === 'off' || choice.rule === 'reduced' ? setbackMinutes : 0),
-      kWh: text(without.minus(saved).toDecimalPlaces(1)),
-      kWhWithoutSetback: text(without.toDecimalPlaces(1)),
-      savingKWh: text(saved.toDecimalPlaces(1)),
+      kWh: text(without.minus(saved)),
+      kWhWithoutSetback: text(without),
+      savingKWh: text(saved),
       note: choice.note,
       verified: choice.verified,
     };
