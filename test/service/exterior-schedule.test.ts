@@ -17,18 +17,15 @@ beforeAll(async () => {
   contractor = await signIn(app, 'contractor@alderbay.example');
   demoId = (await database.db('projects').where({ name: 'Alder Bay Library & Makerspace' }).first<{ id: string }>('id')).id;
   // A project of the engineer's own, which the contractor is not on.
-  const created = await engineer.agent
-    .post('/api/projects')
-    .set('X-CSRF-Token', engineer.csrfToken)
-    .send({
-      name: 'Quay Kiosk',
-      edition: 'iecc-2021',
-      method: 'building-area',
-      units: 'ip',
-      latitude: '47.04',
-      longitude: '-122.9',
-      timeZone: 'America/Los_Angeles',
-    });
+  const created = await engineer.agent.post('/api/projects').set('X-CSRF-Token', engineer.csrfToken).send({
+    name: 'Quay Kiosk',
+    edition: 'iecc-2021',
+    method: 'building-area',
+    units: 'ip',
+    latitude: '47.04',
+    longitude: '-122.9',
+    timeZone: 'America/Los_Angeles',
+  });
   expect(created.status).toBe(201);
   privateId = created.body.id;
 });
