@@ -11,6 +11,7 @@ import { RouterLink } from '@angular/router';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
 import type { ExteriorScheduleDay, ExteriorScheduleSettings, ExteriorScheduleSummary, SetbackRule } from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
+import { CardRows } from '../../shared/card-rows';
 import { wattsFigure } from '../../shared/format';
 import { inProjectUnits } from '../../shared/unit-words';
 import { ProjectStore } from '../workspace/project-store';
@@ -77,6 +78,7 @@ function failure(error: unknown, fallback: string): string {
 @Component({
   selector: 'al-exterior-schedule',
   imports: [
+    CardRows,
     FormsModule,
     MatButtonModule,
     MatCheckboxModule,
