@@ -189,6 +189,26 @@ export async function projectSetup(db: Knex, projectId: string): Promise<Project
     .first<ProjectSetup | undefined>('edition_id', 'method', 'units', 'lighting_zone', 'amendments');
 }
 
+/** Where the site is, for its astronomical clock: null where the set-up leaves it blank. */
+export interface ProjectSite {
+  latitude: string | null;
+  longitude: string | null;
+  timeZone: string | null;
+  editionId: string | null;
+}
+
+export async function projectSite(db: Knex, projectId: string): Promise<ProjectSite | undefined> {
+  const row = await db('projects')
+    .where({ id: projectId })
+    .first<Pick<ProjectRow, 'latitude' | 'longitude' | 'time_zone' | 'edition_id'> | undefined>(
+      'latitude',
+      'longitude',
+      'time_zone',
+      'edition_id',
+    );
+  return row && { latitude: row.latitude, longitude: row.longitude, timeZone: row.time_zone, editionId: row.edition_id };
+}
+
 export async function designChangedAt(db: Database, projectId: string): Promise<string | null> {
   const row = await db('projects')
     .where({ id: projectId })

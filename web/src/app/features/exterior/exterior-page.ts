@@ -23,6 +23,7 @@ import { WorkspaceApi } from '../workspace/workspace-api';
 import { ExteriorApplicationForm, exteriorControls } from './exterior-application-form';
 import { exteriorGroups, quantityUnit } from './exterior-groups';
 import { CardRows } from '../../shared/card-rows';
+import { ExteriorSchedule } from './exterior-schedule';
 
 /** The site's lighting zone, its lighted applications, and the exterior allowance: tradable pooled, nontradable each alone. */
 @Component({
@@ -42,6 +43,7 @@ import { CardRows } from '../../shared/card-rows';
     UnverifiedCount,
     VerifyBadge,
     ExteriorApplicationForm,
+    ExteriorSchedule,
   ],
   templateUrl: './exterior-page.html',
   styleUrl: './exterior-page.scss',
