@@ -25,8 +25,8 @@ export async function up(knex: Knex): Promise<void> {
   await knex.raw('alter table review_rounds add constraint review_rounds_number_check check (number between 1 and 100000)');
   await knex.raw('alter table review_rounds add constraint review_rounds_revision_check check (revision between 1 and 100000)');
   await knex.raw(
-    `alter table review_rounds add constraint review_rounds_outcome_check check (
-       (closed_at is null and outcome is null) or (closed_at is not null and outcome in ('returned', 'accepted')))`,
+    // A round closes when the reviewer returns or accepts the design; one left open when the next opens closes without an outcome.
+    "alter table review_rounds add constraint review_rounds_outcome_check check (outcome is null or (closed_at is not null and outcome in ('returned', 'accepted')))",
   );
 
   await knex.schema.createTable('review_items', (table) => {
@@ -44,6 +44,8 @@ export async function up(knex: Knex): Promise<void> {
     table.jsonb('values').notNullable();
     table.string('fingerprint', 64).notNullable();
     table.integer('round').notNullable();
+    // The order of the round that last generated it: the spaces as the design lists them, then the site.
+    table.integer('position').notNullable();
     table.boolean('changed').notNullable().defaultTo(false);
     table.string('verdict', 20);
     table.integer('removed_in_round');
@@ -64,6 +66,7 @@ export async function up(knex: Knex): Promise<void> {
   );
   await knex.raw('alter table review_items add constraint review_items_reasoning_check check (char_length(reasoning) <= 20000)');
   await knex.raw('alter table review_items add constraint review_items_round_check check (round between 1 and 100000)');
+  await knex.raw('alter table review_items add constraint review_items_position_check check (position between 0 and 1000000)');
   await knex.raw(
     'alter table review_items add constraint review_items_removed_check check (removed_in_round is null or removed_in_round between 1 and 100000)',
   );

@@ -24,6 +24,7 @@ import { evaluateRouter, openApiRouter, projectResultsRouter } from './evaluatio
 import { teamRouter } from './team/team.routes.js';
 import { liveRouter } from './live/live.routes.js';
 import { reviewRouter } from './review/review.routes.js';
+import { reviewDeskRouter, reviewItemsRouter } from './review/review-items.routes.js';
 import { ProjectChanges } from './live/project-changes.js';
 import type { Knex } from 'knex';
 import type { ClientConfig as PgClientConfig } from 'pg';
@@ -114,6 +115,8 @@ export function createApp({
   api.use('/projects/:projectId', teamRouter(db));
   api.use('/projects/:projectId', historyRouter(db));
   api.use('/projects/:projectId', reviewRouter(db));
+  api.use('/projects/:projectId', reviewItemsRouter(db));
+  api.use('/review-desk', reviewDeskRouter(db));
   api.use('/projects/:projectId', liveRouter(db, changes));
   api.use('/evaluate', evaluateRouter(db));
   api.use('/openapi.json', openApiRouter());

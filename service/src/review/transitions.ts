@@ -5,6 +5,7 @@ import type { Database } from '../db/database.js';
 import { lockProject } from '../db/project-lock.js';
 import type { ProjectRole } from '../db/tables.js';
 import { Conflict, DomainError } from '../domain-errors.js';
+import { moveRound } from './rounds.js';
 
 /** Who makes a move: the project's role that may, with what the move means in words. */
 interface Move {
@@ -103,6 +104,8 @@ export async function applyTransition(
       // The package feature records submittal revisions; issuing checks for one here once it exists.
       throw here('Issuing needs a submittal package revision of this design, and packages cannot be made yet.');
     }
+    // The check items: a submission opens a round on the evaluation as it now is; accepting needs a verdict on each item.
+    await moveRound(trx, { projectId, from, to: move.to, revision: project.revision, userId: actor.userId }, here);
     const revision = move.newRevision ? project.revision + 1 : project.revision;
     const [updated] = await trx('projects')
       .where({ id: projectId })
