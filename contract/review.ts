@@ -38,6 +38,8 @@ export const reviewItemKinds = [
   'automatic-shutoff',
   'daylight-response',
   'light-reduction',
+  /** A space's controls that none of the four above covers: local control, and the separate control of specific applications. */
+  'other-controls',
   'exterior-power',
   'exterior-controls',
 ] as const;
@@ -49,6 +51,7 @@ export const reviewItemKindLabels: Record<ReviewItemKind, string> = {
   'automatic-shutoff': 'Automatic shutoff',
   'daylight-response': 'Daylight response',
   'light-reduction': 'Light reduction',
+  'other-controls': 'Other controls',
   'exterior-power': 'Exterior power',
   'exterior-controls': 'Exterior controls',
 };

@@ -56,7 +56,7 @@ export async function up(knex: Knex): Promise<void> {
   await knex.raw(
     `alter table review_items add constraint review_items_kind_check check (kind in (
        'power-allowance', 'occupancy-sensing', 'automatic-shutoff', 'daylight-response', 'light-reduction',
-       'exterior-power', 'exterior-controls'))`,
+       'other-controls', 'exterior-power', 'exterior-controls'))`,
   );
   await knex.raw(
     "alter table review_items add constraint review_items_outcome_check check (outcome in ('met', 'not-met', 'to-verify', 'not-required'))",

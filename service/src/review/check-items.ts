@@ -29,15 +29,16 @@ export interface CheckItem {
   fingerprint: string;
 }
 
-/** Which strategies each control item covers. Local control and the specific-application controls belong to none of them. */
+/** Which strategies each control item covers; every interior strategy belongs to one, so no line the engine assessed goes unreviewed. */
 export const strategiesByKind: Partial<Record<ReviewItemKind, readonly (StrategyKey | 'control-space-type')[]>> = {
   'occupancy-sensing': ['occupant-sensor', 'restricted-manual-on', 'restricted-partial-auto-on'],
   'automatic-shutoff': ['automatic-partial-off', 'automatic-full-off', 'scheduled-shutoff', 'time-switch'],
   'daylight-response': ['daylight-sidelighting', 'daylight-toplighting', 'parking-daylight-transition'],
   'light-reduction': ['bilevel', 'light-reduction'],
+  'other-controls': ['local-control', 'specific-application'],
 };
 
-const spaceControlKinds = ['occupancy-sensing', 'automatic-shutoff', 'daylight-response', 'light-reduction'] as const;
+const spaceControlKinds = ['occupancy-sensing', 'automatic-shutoff', 'daylight-response', 'light-reduction', 'other-controls'] as const;
 
 const statusWords: Record<ControlLine['status'], string> = {
   met: 'Met',
