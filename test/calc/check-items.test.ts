@@ -150,6 +150,28 @@ describe('check items from an evaluation', () => {
     expect(fingerprint({ a: 1, b: [1, { c: 2, d: 3 }] })).toBe(fingerprint({ b: [1, { d: 3, c: 2 }], a: 1 }));
   });
 
+  it('keeps the print of a space over its own allowance when only the building’s totals move', () => {
+    const over = library();
+    // 30 × 20 W = 600 W in the 504 W lobby: over its own allowance, covered by the building's total while that has room.
+    over.spaces[0]!.luminaires = [{ tag: 'B', count: '30' }];
+    over.spaces.push({
+      id: 'space-4',
+      name: '201 Office',
+      spaceType: 'office-enclosed',
+      area: '1000',
+      luminaires: [{ tag: 'A', count: '2' }],
+    });
+    const first = checkItems(over, run(over, iecc2021));
+    const lobby = first.find((item) => item.key === 'power-allowance:space-1')!;
+    expect(lobby.outcome).toBe('met');
+    expect(lobby.reasoning).toMatch(/building’s total allowance of [\d,]+ W covers it/);
+    const more = structuredClone(over);
+    more.spaces[3]!.luminaires = [{ tag: 'A', count: '3' }];
+    const second = checkItems(more, run(more, iecc2021)).find((item) => item.key === 'power-allowance:space-1')!;
+    expect(second.reasoning).not.toBe(lobby.reasoning);
+    expect(second.fingerprint).toBe(lobby.fingerprint);
+  });
+
   it('a luminaire type’s new wattage changes the items of the spaces that use it', () => {
     const changed = library();
     changed.luminaireTypes![1]!.inputWatts = '22';

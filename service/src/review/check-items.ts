@@ -107,7 +107,12 @@ export function checkItems(document: EvaluationDocumentInput, result: Evaluation
 
 // ---------------------------------------------------------------- interior power
 
-function powerItem(space: SpaceResult, result: EvaluationResult, edition: string, units: UnitWords): Omit<CheckItem, 'fingerprint'> {
+function powerItem(
+  space: SpaceResult,
+  result: EvaluationResult,
+  edition: string,
+  units: UnitWords,
+): Omit<CheckItem, 'fingerprint'> & { ownWords: string } {
   const values: ReviewValue[] = [
     { label: space.lpdBasis.kind === 'space-type' ? 'Space type' : 'Building area type', value: space.lpdBasis.label },
     { label: 'Floor area', value: `${figure(space.area, units.areaPlaces)} ${units.area}` },
@@ -127,6 +132,7 @@ function powerItem(space: SpaceResult, result: EvaluationResult, edition: string
   })`;
   let outcome: ReviewOutcome;
   let reasoning: string;
+  let ownWords: string | undefined;
   if (space.lighting === 'unlit') {
     outcome = 'not-required';
     reasoning = 'The space is confirmed unlit, so it has no lighted floor area and adds nothing to the building’s allowance.';
@@ -138,6 +144,7 @@ function powerItem(space: SpaceResult, result: EvaluationResult, edition: string
     reasoning = `Installed ${figure(space.installedW, 0)} W is within the allowance of ${allowance}, a margin of ${figure(space.marginW, 0)} W.`;
   } else {
     const over = `Installed ${figure(space.installedW, 0)} W is more than the space’s allowance of ${allowance}, by ${figure(dec(space.marginW).negated().toString(), 0)} W`;
+    ownWords = over;
     if (result.interior.complies) {
       outcome = 'met';
       reasoning = `${over}; the building’s total allowance of ${figure(result.interior.allowanceW, 0)} W covers it (installed ${figure(result.interior.installedW, 0)} W in all), and the total is what the code limits.`;
@@ -155,6 +162,7 @@ function powerItem(space: SpaceResult, result: EvaluationResult, edition: string
     outcome,
     reasoning,
     values,
+    ownWords: ownWords ?? reasoning,
   };
 }
 
@@ -263,8 +271,14 @@ function exteriorPowerItem(exterior: ExteriorResult, edition: string): Omit<Chec
 
 // ---------------------------------------------------------------- words and figures
 
-function withFingerprint(item: Omit<CheckItem, 'fingerprint'>, basis: unknown): CheckItem {
-  return { ...item, fingerprint: fingerprint({ item, basis }) };
+/**
+ * The print of the item as generated and of the data it rests on. A power allowance's words also
+ * quote the building's totals, which every change anywhere moves: they are left out (`ownWords`),
+ * so only the space's own change, or a change of outcome, marks it changed.
+ */
+function withFingerprint(item: Omit<CheckItem, 'fingerprint'> & { ownWords?: string }, basis: unknown): CheckItem {
+  const { ownWords, ...shown } = item;
+  return { ...shown, fingerprint: fingerprint({ item: { ...shown, reasoning: ownWords ?? shown.reasoning }, basis }) };
 }
 
 /** SHA-256 of the value as JSON with its keys in order, so the same data gives the same print. */
