@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ProjectState, ReviewDeskEntry, ReviewItem } from '../../contract/review.js';
 import { signIn, testApp, type SignedInAgent } from '../support/app.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
+import { reviewDeskEntrySchema, reviewItemSchema } from '../../service/src/review/review.schema.js';
 
 /**
  * The reviewer's check items on the seeded demo project (IECC 2021, space by space): generated on
@@ -104,6 +105,8 @@ describe('check items', () => {
   it('are generated when the engineer submits, with the section, the values and the engine’s reasoning', async () => {
     expect((await move(engineer, 'in-review')).status).toBe(200);
     const list = await items(contractor);
+    // The answer is what the served description says, field for field.
+    reviewItemSchema.array().parse(list);
     const document = (await engineer.agent.get(`/api/projects/${projectId}/document`)).body as { spaces: unknown[] };
     expect(list.filter((entry) => entry.kind === 'power-allowance')).toHaveLength(document.spaces.length);
     expect(list.every((entry) => entry.round === 1 && entry.verdict === null && !entry.changed && entry.thread.length === 0)).toBe(true);
@@ -195,6 +198,7 @@ describe('check items', () => {
   it('shows on the reviewer’s desk with its counts, in review first; nobody else’s desk lists it', async () => {
     const list = await items();
     const entries = await desk(reviewer);
+    reviewDeskEntrySchema.array().parse(entries);
     expect(entries.map((entry) => entry.projectId)).toEqual([projectId, otherId]);
     expect(entries[0]).toMatchObject({
       name: 'Alder Bay Library & Makerspace',
@@ -349,5 +353,19 @@ describe('check items', () => {
       titles: expect.arrayContaining(['102 Main reading room: Daylight response']),
     });
     expect(reviewEntries.some((entry) => entry.action === 'bulk-confirm' && entry.review?.['unchanged'] === true)).toBe(true);
+  });
+
+  it('are in the served API description', async () => {
+    const description = (await engineer.agent.get('/api/openapi.json')).body;
+    expect(Object.keys(description.paths)).toEqual(
+      expect.arrayContaining([
+        '/api/projects/{projectId}/review-items',
+        '/api/projects/{projectId}/review-items/{itemId}',
+        '/api/projects/{projectId}/review-items/{itemId}/replies',
+        '/api/projects/{projectId}/review-items/bulk',
+        '/api/review-desk',
+      ]),
+    );
+    expect(description.components.schemas.ReviewItem.properties).toHaveProperty('thread');
   });
 });

@@ -1,36 +1,10 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { reviewItemKinds, reviewVerdicts } from '../../../contract/review.js';
-import { textField } from '../compliance/bounds.js';
 import type { Database } from '../db/database.js';
 import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { idParam, parse } from '../http/validate.js';
+import { bulkSchema, replySchema, verdictSchema } from './review.schema.js';
 import { confirmInBulk, listReviewItems, recordVerdict, replyToItem, reviewDesk } from './review-items.repository.js';
-
-const commentLimit = 2000;
-
-const verdictSchema = z
-  .object({
-    verdict: z.enum(reviewVerdicts, { error: 'Choose Confirmed, Needs revision or Not applicable.' }),
-    comment: textField(commentLimit, { multiline: true }).optional(),
-  })
-  .superRefine((input, ctx) => {
-    if (input.verdict === 'needs-revision' && !input.comment)
-      ctx.addIssue({ code: 'custom', path: ['comment'], message: 'Say what needs revision: the engineer reads it in the item’s thread.' });
-  });
-
-const replySchema = z.object({ text: textField(commentLimit, { required: true, multiline: true }) });
-
-const bulkSchema = z.object({
-  confirm: z.union(
-    [
-      z.strictObject({ kind: z.enum(reviewItemKinds, { error: 'Choose one kind of check item.' }) }),
-      z.strictObject({ unchanged: z.literal(true) }),
-    ],
-    { error: 'Confirm the items of one kind, or every unchanged item.' },
-  ),
-});
 
 /**
  * The reviewer's check items of a project, under /api/projects/:projectId: the members read them,
