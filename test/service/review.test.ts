@@ -280,11 +280,21 @@ describe('check items', () => {
       .set('X-CSRF-Token', engineer.csrfToken)
       .expect(204);
 
+    const added = await engineer.agent
+      .post(`/api/projects/${projectId}/spaces`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ name: '216 Quiet room', level: 'Level 2', spaceType: 'library-in-a-reading-area', area: '200', unlit: true });
+    expect(added.status, added.text).toBe(201);
+
     expect((await move(engineer, 'in-review')).status).toBe(200);
     const after = await items();
+    // A space new in this round: its items are new to the reviewer, so they count as changed.
+    const fresh = after.filter((entry) => entry.spaceId === added.body.id);
+    expect(fresh.length).toBeGreaterThan(0);
+    expect(fresh.every((entry) => entry.changed && entry.verdict === null && entry.thread.length === 0)).toBe(true);
     expect(after.every((entry) => entry.round === 2)).toBe(true);
     expect(after.some((entry) => entry.spaceId === closet.id)).toBe(false);
-    expect(after).toHaveLength(before.filter((entry) => entry.spaceId !== closet.id).length);
+    expect(after).toHaveLength(before.filter((entry) => entry.spaceId !== closet.id).length + fresh.length);
 
     const corridorItems = after.filter((entry) => entry.spaceId === corridor.id);
     expect(corridorItems.length).toBeGreaterThan(0);
@@ -292,7 +302,7 @@ describe('check items', () => {
     // The thread keeps its history from the first round.
     expect(item(after, corridorSensing).thread.map((entry) => entry.round)).toEqual([1, 1, 1, 1]);
 
-    const others = after.filter((entry) => entry.spaceId !== corridor.id);
+    const others = after.filter((entry) => entry.spaceId !== corridor.id && entry.spaceId !== added.body.id);
     expect(others.filter((entry) => entry.changed).map((entry) => entry.title)).toEqual([]);
     for (const entry of others) {
       expect(entry.verdict, entry.title).toBe(before.find((old) => old.id === entry.id)!.verdict);

@@ -78,6 +78,9 @@ const itemColumns = [
   'removed_in_round',
 ] as const;
 
+/** Rows per upsert statement: 17 columns each, well inside PostgreSQL's 65,535 parameters. */
+const upsertChunk = 1000;
+
 /** The project's latest round, open or closed; undefined before its first submission. */
 async function latestRound(db: Knex, projectId: string): Promise<RoundRow | undefined> {
   return db('review_rounds')
@@ -113,39 +116,53 @@ export async function openRound(
     result: JSON.stringify(round.result),
   });
 
-  const existing = new Map(
-    (await trx('review_items').where({ project_id: projectId }).select<ItemRow[]>(itemColumns)).map((row) => [row.key, row]),
-  );
-  const generated = new Set<string>();
-  for (const [position, item] of items.entries()) {
-    generated.add(item.key);
-    const fields = {
-      kind: item.kind,
-      space_id: item.spaceId,
-      title: item.title,
-      section: item.section,
-      outcome: item.outcome,
-      reasoning: item.reasoning,
-      values: JSON.stringify(item.values),
-      fingerprint: item.fingerprint,
-      round: number,
-      position,
-      removed_in_round: null,
-      updated_at: trx.fn.now(),
-    };
-    const before = existing.get(item.key);
-    if (!before) {
-      // New in a later round: the reviewer has not seen it, so it counts as changed.
-      await trx('review_items').insert({ project_id: projectId, key: item.key, ...fields, changed: number > 1, verdict: null });
-    } else {
-      const changed = before.fingerprint !== item.fingerprint;
-      await trx('review_items')
-        .where({ id: before.id })
-        .update({ ...fields, changed, ...(changed ? { verdict: null } : {}) });
-    }
+  // One upsert per chunk, so a project of thousands of spaces takes a few statements, not one per item.
+  // In the update, `review_items.*` is the row as it was, so the verdict is cleared only where the print moved.
+  const rows = items.map((item, position) => ({
+    project_id: projectId,
+    key: item.key,
+    kind: item.kind,
+    space_id: item.spaceId,
+    title: item.title,
+    section: item.section,
+    outcome: item.outcome,
+    reasoning: item.reasoning,
+    values: JSON.stringify(item.values),
+    fingerprint: item.fingerprint,
+    round: number,
+    position,
+    // New in a later round: the reviewer has not seen it, so it counts as changed.
+    changed: number > 1,
+    verdict: null,
+    removed_in_round: null,
+  }));
+  for (let start = 0; start < rows.length; start += upsertChunk) {
+    await trx('review_items')
+      .insert(rows.slice(start, start + upsertChunk))
+      .onConflict(['project_id', 'key'])
+      .merge({
+        kind: trx.raw('excluded.kind'),
+        space_id: trx.raw('excluded.space_id'),
+        title: trx.raw('excluded.title'),
+        section: trx.raw('excluded.section'),
+        outcome: trx.raw('excluded.outcome'),
+        reasoning: trx.raw('excluded.reasoning'),
+        values: trx.raw('excluded.values'),
+        fingerprint: trx.raw('excluded.fingerprint'),
+        round: trx.raw('excluded.round'),
+        position: trx.raw('excluded.position'),
+        changed: trx.raw('review_items.fingerprint <> excluded.fingerprint'),
+        verdict: trx.raw('case when review_items.fingerprint = excluded.fingerprint then review_items.verdict end'),
+        removed_in_round: null,
+        updated_at: trx.fn.now(),
+      });
   }
-  const gone = [...existing.values()].filter((row) => !generated.has(row.key) && row.removed_in_round === null).map((row) => row.id);
-  if (gone.length > 0) await trx('review_items').whereIn('id', gone).update({ removed_in_round: number, updated_at: trx.fn.now() });
+  // What this round did not generate (a deleted space's items) is removed from the list, thread and all kept.
+  await trx('review_items')
+    .where({ project_id: projectId })
+    .where('round', '<', number)
+    .whereNull('removed_in_round')
+    .update({ removed_in_round: number, updated_at: trx.fn.now() });
   return number;
 }
 
