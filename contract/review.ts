@@ -38,6 +38,8 @@ export const reviewItemKinds = [
   'automatic-shutoff',
   'daylight-response',
   'light-reduction',
+  /** A space's controls that none of the four above covers: local control, and the separate control of specific applications. */
+  'other-controls',
   'exterior-power',
   'exterior-controls',
 ] as const;
@@ -49,6 +51,7 @@ export const reviewItemKindLabels: Record<ReviewItemKind, string> = {
   'automatic-shutoff': 'Automatic shutoff',
   'daylight-response': 'Daylight response',
   'light-reduction': 'Light reduction',
+  'other-controls': 'Other controls',
   'exterior-power': 'Exterior power',
   'exterior-controls': 'Exterior controls',
 };
@@ -119,17 +122,43 @@ export interface ReviewBulkRequest {
   confirm: { kind: ReviewItemKind } | { unchanged: true };
 }
 
+/** What the bulk confirmation answers: how many items it confirmed, and the round's items as they now are. */
+export interface ReviewBulkResult {
+  confirmed: number;
+  items: ReviewItem[];
+}
+
+/**
+ * A check item's step as the project's history keeps it (`review` on the entry): a verdict with its
+ * comment, a reply's text, or a bulk confirmation with the kind (or "unchanged") and the titles it
+ * confirmed. `name` on the entry is the item's title.
+ */
+export interface ReviewHistoryDetail {
+  round: number;
+  verdict?: ReviewVerdict;
+  comment?: string;
+  text?: string;
+  kind?: ReviewItemKind;
+  unchanged?: true;
+  count?: number;
+  titles?: string[];
+}
+
 /** One row of `GET /api/review-desk`. */
 export interface ReviewDeskEntry {
   projectId: string;
   name: string;
   state: ProjectState;
   revision: number;
+  /** The latest round (1 for the first submission); 0 before the design was ever submitted. */
   round: number;
+  /** When the latest round was submitted, and by whom. */
   submittedAt: string | null;
   submittedBy: string | null;
   /** Items without a verdict in the current round. */
   open: number;
+  /** Items of the current round marked Needs revision. */
   needsRevision: number;
+  /** Every item of the current round. */
   total: number;
 }

@@ -25,6 +25,7 @@ import { teamRouter } from './team/team.routes.js';
 import { liveRouter } from './live/live.routes.js';
 import { reviewRouter } from './review/review.routes.js';
 import { exteriorScheduleRouter } from './exterior-schedule/exterior-schedule.routes.js';
+import { reviewDeskRouter, reviewItemsRouter } from './review/review-items.routes.js';
 import { ProjectChanges } from './live/project-changes.js';
 import type { Knex } from 'knex';
 import type { ClientConfig as PgClientConfig } from 'pg';
@@ -116,6 +117,8 @@ export function createApp({
   api.use('/projects/:projectId', historyRouter(db));
   api.use('/projects/:projectId', reviewRouter(db));
   api.use('/projects/:projectId', exteriorScheduleRouter(db));
+  api.use('/projects/:projectId', reviewItemsRouter(db));
+  api.use('/review-desk', reviewDeskRouter(db));
   api.use('/projects/:projectId', liveRouter(db, changes));
   api.use('/evaluate', evaluateRouter(db));
   api.use('/openapi.json', openApiRouter());

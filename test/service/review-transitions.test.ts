@@ -32,6 +32,12 @@ beforeAll(async () => {
       .set('X-CSRF-Token', engineer.csrfToken)
       .send({ email: who, role })
       .expect(200);
+  // A submission freezes the design's evaluation, which needs at least one space.
+  await engineer.agent
+    .post(`/api/projects/${projectId}/spaces`)
+    .set('X-CSRF-Token', engineer.csrfToken)
+    .send({ name: 'Waiting room', level: '1', spaceType: 'lobby-otherwise', area: '800' })
+    .expect(201);
 });
 
 afterAll(async () => {

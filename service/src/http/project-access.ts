@@ -7,13 +7,16 @@ import { currentSession } from './session.js';
 import { isUuid } from './validate.js';
 
 /** What a person can do inside a project; each route names the action it performs. */
-export type ProjectAction = 'read' | 'edit-design' | 'submit' | 'review' | 'export' | 'record-field-tests' | 'manage-team' | 'archive';
+export type ProjectAction =
+  'read' | 'edit-design' | 'submit' | 'review' | 'discuss-review' | 'export' | 'record-field-tests' | 'manage-team' | 'archive';
 
 const allowedRoles: Record<ProjectAction, readonly ProjectRole[]> = {
   read: ['engineer', 'reviewer', 'contractor'],
   'edit-design': ['engineer'],
   submit: ['engineer'],
   review: ['reviewer'],
+  /** Replies in a check item's thread: the engineer answers the reviewer. */
+  'discuss-review': ['engineer', 'reviewer'],
   export: ['engineer', 'reviewer', 'contractor'],
   'record-field-tests': ['contractor'],
   'manage-team': ['engineer'],

@@ -6,6 +6,7 @@ import { lockProject } from '../db/project-lock.js';
 import type { ProjectRole } from '../db/tables.js';
 import { Conflict, DomainError } from '../domain-errors.js';
 import { setReviewState } from '../projects/projects.repository.js';
+import { moveRound } from './rounds.js';
 
 /** Who makes a move: the project's role that may, with what the move means in words. */
 interface Move {
@@ -104,6 +105,8 @@ export async function applyTransition(
       // The package feature records submittal revisions; issuing checks for one here once it exists.
       throw here('Issuing needs a submittal package revision of this design, and packages cannot be made yet.');
     }
+    // The check items: a submission opens a round on the evaluation as it now is; accepting needs a verdict on each item.
+    await moveRound(trx, { projectId, from, to: move.to, revision: project.revision, userId: actor.userId }, here);
     const revision = move.newRevision ? project.revision + 1 : project.revision;
     const version = await setReviewState(trx, projectId, { state: move.to, revision, version: project.version + 1 }, actor.userId);
     const outcome: TransitionOutcome = { from, to: move.to, revision, version };

@@ -14,6 +14,7 @@ import type {
   ZoneKind as DaylightZoneKind,
 } from '../../../../../contract/editions';
 import type { Citation, ControlStatus, Verdict } from '../../../../../contract/result';
+import type { ReviewHistoryDetail } from '../../../../../contract/review';
 
 export type {
   AdditionalAllowanceKind,
@@ -234,6 +235,8 @@ export type DesignHistoryAction = 'create' | 'import' | 'update' | 'delete' | 'r
 export type ProjectHistoryAction = 'create' | 'copy' | 'update' | 'convert-units' | 'archive' | 'unarchive' | 'transition';
 export type ClaimHistoryAction = 'create' | 'update' | 'delete' | 'restore';
 export type TeamHistoryAction = 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account';
+/** A reviewer's verdict on a check item, a reply in its thread, a bulk confirmation. */
+export type ReviewHistoryAction = 'verdict' | 'reply' | 'bulk-confirm';
 
 /** The set-up as the history keeps it before and after a change of the project (entries from before the permit fields lack them). */
 export interface SetupSnapshot extends Partial<PermitFields> {
@@ -293,6 +296,14 @@ export type HistoryEntry = HistoryEntryBase &
       }
     | { entity: 'additional-allowance'; action: ClaimHistoryAction; before: AllowanceClaim | null; after: AllowanceClaim | null }
     | { entity: 'project_member'; action: TeamHistoryAction; before: { role: ProjectRole } | null; after: { role: ProjectRole } | null }
+    | {
+        entity: 'review-item';
+        action: ReviewHistoryAction;
+        before: null;
+        after: null;
+        /** The verdict and comment, the reply, or what a bulk confirmation confirmed; `name` is the item's title. */
+        review?: ReviewHistoryDetail;
+      }
   );
 
 export interface HistoryPage {

@@ -398,6 +398,28 @@ describe('a history entry in words', () => {
       );
     });
 
+    it('reads a verdict with its comment, a reply and a bulk confirmation of the check items', () => {
+      const title = '101 Entry lobby: Occupancy sensing';
+      const review = (action: 'verdict' | 'reply' | 'bulk-confirm', detail: object, name: string | null = title) =>
+        entry({ entity: 'review-item', action, name, before: null, after: null, review: { round: 1, ...detail } });
+      expect(say(review('verdict', { verdict: 'needs-revision', comment: 'Show the sensor’s time-out.' }))).toBe(
+        'Ines Halvorsen marked the check item “101 Entry lobby: Occupancy sensing” as ‘Needs revision’: comment: “Show the sensor’s time-out.”',
+      );
+      expect(say(review('verdict', { verdict: 'not-applicable' }))).toBe(
+        'Ines Halvorsen marked the check item “101 Entry lobby: Occupancy sensing” as ‘Not applicable’',
+      );
+      expect(say(review('reply', { text: 'Changed to 15 minutes.' }))).toBe(
+        'Ines Halvorsen replied on the check item “101 Entry lobby: Occupancy sensing”: “Changed to 15 minutes.”',
+      );
+      expect(say(review('bulk-confirm', { verdict: 'confirmed', kind: 'daylight-response', count: 4 }, 'Daylight response'))).toBe(
+        'Ines Halvorsen confirmed every Daylight response item that had no verdict (4 items)',
+      );
+      expect(say(review('bulk-confirm', { verdict: 'confirmed', unchanged: true, count: 1 }, 'unchanged items'))).toBe(
+        'Ines Halvorsen confirmed every unchanged check item that had no verdict (1 item)',
+      );
+      expect(describeEntry(review('reply', { text: 'x' }), labels, 'ip').icon).toBe('forum');
+    });
+
     it('names someone whose account is gone without an id', () => {
       expect(say(entry({ entity: 'project', action: 'archive', user: null, name: 'x', before: null, after: null }))).toBe(
         'Someone archived the project',
@@ -454,6 +476,22 @@ describe('a history entry in words', () => {
         name: 'reviewer@alderbay.example',
         before: null,
         after: { role: 'reviewer' },
+      }),
+      entry({
+        entity: 'review-item',
+        action: 'bulk-confirm',
+        name: 'Automatic shutoff',
+        before: null,
+        after: null,
+        review: { round: 2, verdict: 'confirmed', kind: 'automatic-shutoff', count: 3 },
+      }),
+      entry({
+        entity: 'review-item',
+        action: 'verdict',
+        name: null,
+        before: null,
+        after: null,
+        review: { round: 1, verdict: 'needs-revision' },
       }),
     ];
     for (const item of all) {

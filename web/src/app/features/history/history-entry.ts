@@ -18,6 +18,7 @@ import { exceptionReasonLabels } from '../controls/control-status';
 import { methodLabels, scopeLabels } from '../setup/setup-fields';
 import { timeZoneLabel } from '../setup/time-zones';
 import { exteriorExemptions } from '../../../../../contract/editions';
+import { reviewItemKindLabels, reviewVerdictLabels } from '../../../../../contract/review';
 
 /**
  * A history entry in words: who did what, and which fields changed from what to what, in the units
@@ -404,6 +405,9 @@ const icons: Record<string, string> = {
   'change-role': 'manage_accounts',
   'remove-member': 'person_remove',
   'add-member-no-account': 'person_search',
+  verdict: 'fact_check',
+  reply: 'forum',
+  'bulk-confirm': 'done_all',
 };
 
 /**
@@ -578,6 +582,30 @@ function teamWords(entry: Extract<HistoryEntry, { entity: 'project_member' }>): 
   }
 }
 
+/** A reviewer's verdict on a check item, a reply in its thread, or a bulk confirmation; `name` is the item's title. */
+function reviewWords(entry: Extract<HistoryEntry, { entity: 'review-item' }>): { summary: string; changes: string[] } {
+  const review = entry.review;
+  const item = entry.name ? `the check item ${quoted(entry.name)}` : 'a check item';
+  switch (entry.action) {
+    case 'verdict': {
+      const verdict = review?.verdict ? reviewVerdictLabels[review.verdict] : null;
+      return {
+        summary: verdict ? `marked ${item} as ‘${verdict}’` : `recorded a verdict on ${item}`,
+        changes: review?.comment ? [`comment: ${quoted(review.comment)}`] : [],
+      };
+    }
+    case 'reply':
+      return { summary: `replied on ${item}`, changes: review?.text ? [quoted(review.text)] : [] };
+    case 'bulk-confirm': {
+      const which = review?.kind ? `every ${reviewItemKindLabels[review.kind]} item` : 'every unchanged check item';
+      const count = review?.count === undefined ? '' : ` (${plural(review.count, 'item')})`;
+      return { summary: `confirmed ${which} that had no verdict${count}`, changes: [] };
+    }
+    default:
+      return { summary: `changed ${item}`, changes: [] };
+  }
+}
+
 /** One entry in words, with `system` the units the project had when it was made (see {@link unitsAtEntry}). */
 export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system: UnitSystem): EntryWords {
   const actor = entry.user?.name || 'Someone';
@@ -596,6 +624,9 @@ export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system
       break;
     case 'additional-allowance':
       words = claimWords(entry, system);
+      break;
+    case 'review-item':
+      words = reviewWords(entry);
       break;
     default:
       words = { summary: 'changed the project', changes: [] };
