@@ -42,7 +42,11 @@ interface Recipient {
  * move happen, and a message to themselves would only repeat it. Disabled accounts get nothing.
  * Returns how many messages were queued.
  */
-export async function queueTransitionMail(trx: Knex.Transaction, input: TransitionMailInput, settings: TransitionMailSettings): Promise<number> {
+export async function queueTransitionMail(
+  trx: Knex.Transaction,
+  input: TransitionMailInput,
+  settings: TransitionMailSettings,
+): Promise<number> {
   const { kind, roles } = audience[input.to];
   const project = await trx('projects').where({ id: input.projectId }).first<{ name: string } | undefined>('name');
   const actor = await trx('users').where({ id: input.actorId }).first('name');

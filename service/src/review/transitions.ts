@@ -119,7 +119,11 @@ export async function applyTransition(
       entityId: projectId,
       detail: { transition: { from, to: move.to, revision, words: move.words, ...(comment ? { comment } : {}) } },
     });
-    await queueTransitionMail(trx, { projectId, from, to: move.to, revision, actorId: actor.userId, ...(comment ? { comment } : {}) }, mail);
+    await queueTransitionMail(
+      trx,
+      { projectId, from, to: move.to, revision, actorId: actor.userId, ...(comment ? { comment } : {}) },
+      mail,
+    );
     if (alongside) await alongside(trx, outcome);
     return outcome;
   });
