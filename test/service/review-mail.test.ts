@@ -183,7 +183,9 @@ describe('the mail of each review move', () => {
     await sender.drain();
     const mails = await takeReceived();
     expect(allRecipients(mails)).toEqual(reviewers);
-    expect(mails[0]!.text).toContain(`made the changes asked for and submitted ${projectName} (revision 1) for review again.`);
+    expect(mails[0]!.text).toContain(
+      `Ines Halvorsen submitted ${projectName} (revision 1) for review again, after it was returned for changes.`,
+    );
   });
 
   it('tells the engineers and the contractor of an acceptance', async () => {

@@ -102,7 +102,7 @@ function reviewWords(event: ReviewEvent): { subject: string; paragraphs: string[
         subject: `Ready for your review: ${project}`,
         paragraphs: [
           event.again
-            ? `${event.by} made the changes asked for and submitted ${project} (${revision}) for review again.`
+            ? `${event.by} submitted ${project} (${revision}) for review again, after it was returned for changes.`
             : `${event.by} submitted ${project} (${revision}) for review.`,
           'Its design cannot change while it is in review: return it with your comments, or accept it.',
         ],
