@@ -20,6 +20,7 @@ import * as mailOutboxPasswordResets from './20261202002000_mail_outbox_password
 import * as userDisable from './20261202002100_user_disable.js';
 import * as projectRevision from './20261202003000_project_revision.js';
 import * as reviewItems from './20261203001000_review_items.js';
+import * as reviewDigest from './20261203002000_review_digest.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -49,6 +50,7 @@ const migrations: Record<string, Migration> = {
   '20261202002100_user_disable': userDisable,
   '20261202003000_project_revision': projectRevision,
   '20261203001000_review_items': reviewItems,
+  '20261203002000_review_digest': reviewDigest,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

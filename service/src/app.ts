@@ -7,6 +7,7 @@ import { pino, type Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import { authRouter } from './auth/auth.routes.js';
 import { passwordRouter } from './auth/password.routes.js';
+import { mailSettingsRouter } from './auth/mail-settings.routes.js';
 import { adminRouter } from './admin/admin.routes.js';
 import { codeEditionsRouter } from './code-tables/code-tables.routes.js';
 import type { Config } from './config.js';
@@ -106,6 +107,7 @@ export function createApp({
   );
   api.use('/auth', passwordRouter(db, { appUrl: config.APP_URL, resetMinutes: config.PASSWORD_RESET_MINUTES, mailQueued, logger }));
   api.use(requireSignIn);
+  api.use('/auth', mailSettingsRouter(db));
   api.use('/admin', adminRouter(db, { appUrl: config.APP_URL, mailQueued }));
   api.use('/code-editions', codeEditionsRouter(db));
   // Every route under one project reads it, and the caller's role on it, from what this loads once.
@@ -115,7 +117,7 @@ export function createApp({
   api.use('/projects/:projectId', projectResultsRouter(db));
   api.use('/projects/:projectId', teamRouter(db));
   api.use('/projects/:projectId', historyRouter(db));
-  api.use('/projects/:projectId', reviewRouter(db));
+  api.use('/projects/:projectId', reviewRouter(db, { appUrl: config.APP_URL, mailQueued }));
   api.use('/projects/:projectId', exteriorScheduleRouter(db));
   api.use('/projects/:projectId', reviewItemsRouter(db));
   api.use('/review-desk', reviewDeskRouter(db));

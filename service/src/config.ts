@@ -40,6 +40,15 @@ const trustProxy = z
     return entries;
   });
 
+function knownTimeZone(zone: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 const configSchema = z
   .object({
     NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -76,6 +85,16 @@ const configSchema = z
     MAIL_RETRY_SECONDS: z.coerce.number().positive().max(3600).default(60),
     MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
     MAIL_POLL_SECONDS: z.coerce.number().positive().max(3600).default(5),
+    /** The local hour from which each day's review digest goes out, in REVIEW_DIGEST_TIME_ZONE. */
+    REVIEW_DIGEST_HOUR: z.coerce.number().int().min(0).max(23).default(7),
+    /** Unset: the server's own time zone. */
+    REVIEW_DIGEST_TIME_ZONE: z
+      .string()
+      .trim()
+      .max(100)
+      .optional()
+      .refine((zone) => zone === undefined || zone === '' || knownTimeZone(zone), 'expected a time zone name such as America/Chicago'),
+    REVIEW_DIGEST_CHECK_MINUTES: z.coerce.number().positive().max(1440).default(15),
     PASSWORD_RESET_MINUTES: z.coerce
       .number()
       .int()
@@ -86,6 +105,7 @@ const configSchema = z
   .transform((config) => ({
     ...config,
     COOKIE_SECURE: config.COOKIE_SECURE ?? config.NODE_ENV !== 'development',
+    REVIEW_DIGEST_TIME_ZONE: config.REVIEW_DIGEST_TIME_ZONE || Intl.DateTimeFormat().resolvedOptions().timeZone,
     APP_URL: (config.APP_URL ?? `http://127.0.0.1:${config.PORT}`).replace(/\/+$/, ''),
   }));
 

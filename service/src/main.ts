@@ -3,24 +3,27 @@ import { createApp } from './app.js';
 import { loadConfig } from './config.js';
 import { createDatabase } from './db/database.js';
 import type { ProjectChanges } from './live/project-changes.js';
+import { ReviewDigest, digestSettingsFrom } from './mail/digest.js';
 import { MailSender, mailSettingsFrom } from './mail/mail-sender.js';
 
 const config = loadConfig();
 const logger = pino({ level: config.LOG_LEVEL });
 const db = createDatabase(config.DATABASE_URL);
 const mail = new MailSender(db, mailSettingsFrom(config), logger);
+const digest = new ReviewDigest(db, digestSettingsFrom(config), () => mail.kick(), logger);
 const app = createApp({ db, config, logger, mailQueued: () => mail.kick() });
 
 const server = app.listen(config.PORT, config.HOST, () => {
   logger.info({ url: `http://${config.HOST}:${config.PORT}` }, 'Allowlight is listening');
   mail.start();
+  digest.start();
 });
 
 function shutdown(signal: string): void {
   logger.info({ signal }, 'shutting down');
   // Open event streams would hold the server open: end them first.
   void (app.locals['changes'] as ProjectChanges).close();
-  void mail.stop();
+  void digest.stop().then(() => mail.stop());
   server.close(() => {
     void db.destroy().finally(() => process.exit(0));
   });

@@ -1,7 +1,7 @@
 /// <reference lib="dom" />
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Served } from '../support/browser.js';
-import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
+import { closeBrowserSuite, openBrowserSuite, signInToDemo } from '../support/browser-suite.js';
 import type { TestDatabase } from '../support/database.js';
 
 let database: TestDatabase;
@@ -98,5 +98,25 @@ describe('the Account page', () => {
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL(/\/sign-in/);
     expect(await statusWith(kept)).toBe(401);
+  });
+
+  it('offers a reviewer the daily review digest, and keeps the choice', async () => {
+    const { page } = browser;
+    await signInToDemo({ browser, served }, 'reviewer@alderbay.example', inject('demoPassword'));
+    await page.goto(`${served.baseUrl}/account`);
+    const digest = page.getByRole('switch', { name: 'Send me the daily review digest' });
+    await digest.waitFor();
+    expect(await digest.getAttribute('aria-checked')).toBe('false');
+    await digest.click();
+    await expect
+      .poll(() => page.getByRole('status').filter({ hasText: 'review digest' }).textContent())
+      .toContain('The daily review digest is on.');
+    await browser.screenshot('account-review-digest');
+    await page.reload();
+    await expect
+      .poll(() => page.getByRole('switch', { name: 'Send me the daily review digest' }).getAttribute('aria-checked'))
+      .toBe('true');
+    const stored = await database.db('users').where({ email: 'reviewer@alderbay.example' }).first('review_digest');
+    expect(stored).toEqual({ review_digest: true });
   });
 });

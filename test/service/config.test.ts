@@ -35,4 +35,14 @@ describe('loadConfig', () => {
     const config = loadConfig({ ...required, LOGIN_ACCOUNT_RATE_LIMIT: '3', LOGIN_ACCOUNT_RATE_WINDOW_MINUTES: '30' });
     expect(config).toMatchObject({ LOGIN_ACCOUNT_RATE_LIMIT: 3, LOGIN_ACCOUNT_RATE_WINDOW_MINUTES: 30, LOGIN_RATE_LIMIT: 10 });
   });
+
+  it("counts the review digest in a named time zone, the server's own unless told", () => {
+    expect(loadConfig(required).REVIEW_DIGEST_TIME_ZONE).toBe(Intl.DateTimeFormat().resolvedOptions().timeZone);
+    expect(loadConfig({ ...required, REVIEW_DIGEST_TIME_ZONE: 'America/Chicago', REVIEW_DIGEST_HOUR: '6' })).toMatchObject({
+      REVIEW_DIGEST_TIME_ZONE: 'America/Chicago',
+      REVIEW_DIGEST_HOUR: 6,
+    });
+    expect(() => loadConfig({ ...required, REVIEW_DIGEST_TIME_ZONE: 'Mars/Olympus' })).toThrow(/REVIEW_DIGEST_TIME_ZONE/);
+    expect(() => loadConfig({ ...required, REVIEW_DIGEST_HOUR: '24' })).toThrow(/REVIEW_DIGEST_HOUR/);
+  });
 });

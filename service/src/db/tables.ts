@@ -33,6 +33,8 @@ export interface UserRow {
   created_at: Date;
   /** Set while an administrator has the account disabled. */
   disabled_at: Date | null;
+  /** The person chose the daily digest of projects waiting for their review. */
+  review_digest: boolean;
 }
 
 export interface SessionRow {

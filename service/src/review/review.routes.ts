@@ -16,8 +16,15 @@ const transitionSchema = z.object({
   comment: textField(2000, { multiline: true }).optional(),
 });
 
+export interface ReviewSettings {
+  /** The address people reach the app at: the links in the review mail. */
+  appUrl: string;
+  /** Told once a move committed, so its mail goes out at once rather than at the next poll. */
+  mailQueued: () => void;
+}
+
 /** The review state's moves, under /api/projects/:projectId. Each move checks its own role. */
-export function reviewRouter(db: Database): Router {
+export function reviewRouter(db: Database, settings: ReviewSettings): Router {
   const router = Router({ mergeParams: true });
 
   router.post('/transitions', requireProjectAction('read'), async (req, res) => {
@@ -30,6 +37,7 @@ export function reviewRouter(db: Database): Router {
         projectId,
         { ...input, comment: input.comment ?? undefined },
         { userId: user.id, role, isAdmin: user.isAdmin },
+        { appUrl: settings.appUrl },
       );
     } catch (error) {
       if (error instanceof NotYourMove) throw AppError.forbidden(error.message);
@@ -41,6 +49,7 @@ export function reviewRouter(db: Database): Router {
       }
       throw error;
     }
+    settings.mailQueued();
     res.json(await getProjectDetail(db, projectId, role));
   });
 

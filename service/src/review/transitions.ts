@@ -7,6 +7,7 @@ import type { ProjectRole } from '../db/tables.js';
 import { Conflict, DomainError } from '../domain-errors.js';
 import { setReviewState } from '../projects/projects.repository.js';
 import { moveRound } from './rounds.js';
+import { queueTransitionMail, type TransitionMailSettings } from './transition-mail.js';
 
 /** Who makes a move: the project's role that may, with what the move means in words. */
 interface Move {
@@ -68,13 +69,14 @@ const roleWords: Record<ProjectRole, string> = { engineer: 'the engineer', revie
  * Moves the project's review state, in one transaction under the project's row lock: the caller's
  * role (an administrator may make any role's move), the present state and the version the caller
  * read are checked first; the move bumps the version, a reopening the revision, and writes the
- * audit record the history shows.
+ * audit record the history shows; the people the move concerns are mailed in the same transaction.
  */
 export async function applyTransition(
   db: Database,
   projectId: string,
   input: TransitionInput,
   actor: { userId: string; role: ProjectRole | null; isAdmin: boolean },
+  mail: TransitionMailSettings,
   alongside?: (trx: Knex.Transaction, outcome: TransitionOutcome) => Promise<void>,
 ): Promise<TransitionOutcome> {
   return db.transaction(async (trx) => {
@@ -118,6 +120,11 @@ export async function applyTransition(
       entityId: projectId,
       detail: { transition: { from, to: move.to, revision, words: move.words, ...(comment ? { comment } : {}) } },
     });
+    await queueTransitionMail(
+      trx,
+      { projectId, from, to: move.to, revision, actorId: actor.userId, ...(comment ? { comment } : {}) },
+      mail,
+    );
     if (alongside) await alongside(trx, outcome);
     return outcome;
   });

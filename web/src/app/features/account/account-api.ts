@@ -1,6 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type { Observable } from 'rxjs';
+import type { MailSettingsView } from '../../../../../contract/accounts';
+
+export type { MailSettingsView };
 
 /** A live session of the signed-in person, as `/api/auth/sessions` lists it. */
 export interface ActiveSession {
@@ -14,7 +17,7 @@ export interface ActiveSession {
   current: boolean;
 }
 
-/** The Account page's calls: the person's sessions, and ending them. */
+/** The Account page's calls: the person's sessions and ending them, and the optional mail they chose. */
 @Injectable({ providedIn: 'root' })
 export class AccountApi {
   private readonly http = inject(HttpClient);
@@ -29,5 +32,13 @@ export class AccountApi {
 
   endOtherSessions(): Observable<{ ended: number }> {
     return this.http.post<{ ended: number }>('/api/auth/sessions/end-others', {});
+  }
+
+  mailSettings(): Observable<MailSettingsView> {
+    return this.http.get<MailSettingsView>('/api/auth/mail-settings');
+  }
+
+  saveMailSettings(settings: MailSettingsView): Observable<MailSettingsView> {
+    return this.http.patch<MailSettingsView>('/api/auth/mail-settings', settings);
   }
 }

@@ -9,6 +9,7 @@ import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import { AccountApi, type ActiveSession } from './account-api';
 import { PasswordChange } from './password-change';
+import { ReviewDigestSetting } from './review-digest-setting';
 import { describeDevice, timeAgo, type DeviceIcon } from './session-words';
 
 interface SessionView {
@@ -39,7 +40,7 @@ function toView(session: ActiveSession, now: Date): SessionView {
 
 @Component({
   selector: 'al-account-page',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, PasswordChange],
+  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, PasswordChange, ReviewDigestSetting],
   templateUrl: './account-page.html',
   styleUrl: './account-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
