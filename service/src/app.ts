@@ -22,6 +22,7 @@ import { projectsRouter } from './projects/projects.routes.js';
 import { designRouter } from './design/design.routes.js';
 import { evaluateRouter, openApiRouter, projectResultsRouter } from './evaluation/evaluation.routes.js';
 import { teamRouter } from './team/team.routes.js';
+import { projectInvitationsRouter, publicInvitationsRouter } from './team/invitations.routes.js';
 import { liveRouter } from './live/live.routes.js';
 import { reviewRouter } from './review/review.routes.js';
 import { ProjectChanges } from './live/project-changes.js';
@@ -103,6 +104,15 @@ export function createApp({
     }),
   );
   api.use('/auth', passwordRouter(db, { appUrl: config.APP_URL, resetMinutes: config.PASSWORD_RESET_MINUTES, mailQueued, logger }));
+  api.use(
+    '/invitations',
+    publicInvitationsRouter(db, {
+      secret: config.JWT_SECRET,
+      sessionHours: config.SESSION_HOURS,
+      cookieSecure: config.COOKIE_SECURE,
+      logger,
+    }),
+  );
   api.use(requireSignIn);
   api.use('/admin', adminRouter(db, { appUrl: config.APP_URL, mailQueued }));
   api.use('/code-editions', codeEditionsRouter(db));
@@ -112,6 +122,7 @@ export function createApp({
   api.use('/projects/:projectId', designRouter(db));
   api.use('/projects/:projectId', projectResultsRouter(db));
   api.use('/projects/:projectId', teamRouter(db));
+  api.use('/projects/:projectId', projectInvitationsRouter(db, { appUrl: config.APP_URL, days: config.INVITATION_DAYS, mailQueued }));
   api.use('/projects/:projectId', historyRouter(db));
   api.use('/projects/:projectId', reviewRouter(db));
   api.use('/projects/:projectId', liveRouter(db, changes));
