@@ -234,6 +234,7 @@ export type DesignHistoryAction = 'create' | 'import' | 'update' | 'delete' | 'r
 export type ProjectHistoryAction = 'create' | 'copy' | 'update' | 'convert-units' | 'archive' | 'unarchive' | 'transition';
 export type ClaimHistoryAction = 'create' | 'update' | 'delete' | 'restore';
 export type TeamHistoryAction = 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account';
+export type InvitationHistoryAction = 'invite' | 'withdraw-invitation' | 'accept-invitation';
 
 /** The set-up as the history keeps it before and after a change of the project (entries from before the permit fields lack them). */
 export interface SetupSnapshot extends Partial<PermitFields> {
@@ -293,6 +294,13 @@ export type HistoryEntry = HistoryEntryBase &
       }
     | { entity: 'additional-allowance'; action: ClaimHistoryAction; before: AllowanceClaim | null; after: AllowanceClaim | null }
     | { entity: 'project_member'; action: TeamHistoryAction; before: { role: ProjectRole } | null; after: { role: ProjectRole } | null }
+    | {
+        /** `name` is the address invited. */
+        entity: 'invitation';
+        action: InvitationHistoryAction;
+        before: { role: ProjectRole } | null;
+        after: { role: ProjectRole; expiresAt?: string } | null;
+      }
   );
 
 export interface HistoryPage {
