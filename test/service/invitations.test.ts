@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -102,8 +103,8 @@ describe('invitations to a project', () => {
     expect(mail.text).toContain('7 days');
     const token = tokenIn(mail);
     expect(mail.html).toContain(`href="http://allowlight.localhost/invitation?token=${token}"`);
-    const stored = await database.db('invitations').where({ project_id: projectId }).first();
-    expect(stored.token_hash).not.toContain(token);
+    const stored = (await database.db('invitations').where({ project_id: projectId }).first())!;
+    expect(stored.token_hash).toBe(createHash('sha256').update(token).digest('hex'));
     expect(JSON.stringify(stored)).not.toContain(token);
 
     const listed = await reviewer.agent.get(`/api/projects/${projectId}/invitations`).expect(200);
