@@ -21,6 +21,7 @@ import * as userDisable from './20261202002100_user_disable.js';
 import * as projectRevision from './20261202003000_project_revision.js';
 import * as reviewItems from './20261203001000_review_items.js';
 import * as reviewDigest from './20261203002000_review_digest.js';
+import * as invitations from './20261203003000_invitations.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -51,6 +52,7 @@ const migrations: Record<string, Migration> = {
   '20261202003000_project_revision': projectRevision,
   '20261203001000_review_items': reviewItems,
   '20261203002000_review_digest': reviewDigest,
+  '20261203003000_invitations': invitations,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -23,6 +23,7 @@ import { projectsRouter } from './projects/projects.routes.js';
 import { designRouter } from './design/design.routes.js';
 import { evaluateRouter, openApiRouter, projectResultsRouter } from './evaluation/evaluation.routes.js';
 import { teamRouter } from './team/team.routes.js';
+import { projectInvitationsRouter, publicInvitationsRouter } from './team/invitations.routes.js';
 import { liveRouter } from './live/live.routes.js';
 import { reviewRouter } from './review/review.routes.js';
 import { exteriorScheduleRouter } from './exterior-schedule/exterior-schedule.routes.js';
@@ -106,6 +107,15 @@ export function createApp({
     }),
   );
   api.use('/auth', passwordRouter(db, { appUrl: config.APP_URL, resetMinutes: config.PASSWORD_RESET_MINUTES, mailQueued, logger }));
+  api.use(
+    '/invitations',
+    publicInvitationsRouter(db, {
+      secret: config.JWT_SECRET,
+      sessionHours: config.SESSION_HOURS,
+      cookieSecure: config.COOKIE_SECURE,
+      logger,
+    }),
+  );
   api.use(requireSignIn);
   api.use('/auth', mailSettingsRouter(db));
   api.use('/admin', adminRouter(db, { appUrl: config.APP_URL, mailQueued }));
@@ -116,6 +126,7 @@ export function createApp({
   api.use('/projects/:projectId', designRouter(db));
   api.use('/projects/:projectId', projectResultsRouter(db));
   api.use('/projects/:projectId', teamRouter(db));
+  api.use('/projects/:projectId', projectInvitationsRouter(db, { appUrl: config.APP_URL, days: config.INVITATION_DAYS, mailQueued }));
   api.use('/projects/:projectId', historyRouter(db));
   api.use('/projects/:projectId', reviewRouter(db, { appUrl: config.APP_URL, mailQueued }));
   api.use('/projects/:projectId', exteriorScheduleRouter(db));

@@ -101,6 +101,8 @@ const configSchema = z
       .min(5)
       .max(24 * 60)
       .default(60),
+    /** How long an invitation to a project's team works. */
+    INVITATION_DAYS: z.coerce.number().int().min(1).max(30).default(7),
   })
   .transform((config) => ({
     ...config,

@@ -146,7 +146,9 @@ describe('the project history', { timeout: 60_000 }, () => {
     await page.getByLabel('E-mail address', { exact: true }).fill('nobody@alderbay.example');
     await page.getByRole('button', { name: 'Add to the team' }).click();
     await page
-      .getByText("No one was added for that address. Check it, or ask an administrator to create the person's account first.")
+      .getByText(
+        'No one was added for that address. Check it, or invite the person by e-mail on the Set-up page: the invitation makes their account.',
+      )
       .waitFor();
     expect(await page.getByLabel('E-mail address', { exact: true }).inputValue()).toBe('nobody@alderbay.example');
     await browser.screenshot('team-not-added');

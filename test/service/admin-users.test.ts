@@ -113,4 +113,38 @@ describe('the administrator and the accounts', () => {
       .send({ email: 'x@alderbay.example', name: 'X' })
       .expect(403);
   });
+
+  it('lists the changes to accounts, newest first, for administrators only', async () => {
+    const reviewer = await signIn(app, 'reviewer@alderbay.example');
+    await asAdmin().patch(`/api/admin/users/${reviewer.user.id}`, { isAdmin: true }).expect(200);
+    const changes = (await asAdmin().get('/api/admin/audit').expect(200)).body as {
+      action: string;
+      by: { name: string } | null;
+      account: { email: string } | null;
+      before: { isAdmin?: boolean } | null;
+      after: { isAdmin?: boolean } | null;
+    }[];
+    expect(changes[0]).toMatchObject({
+      action: 'update',
+      by: { name: admin.user.name },
+      account: { email: 'reviewer@alderbay.example' },
+      before: { isAdmin: false },
+      after: { isAdmin: true },
+    });
+    // Everything the tests above changed is there, and nothing else: no sign-ins, no passwords.
+    expect(new Set(changes.map((change) => change.action))).toEqual(new Set(['create', 'update']));
+    expect(changes.find((change) => change.action === 'create')?.account?.email).toBe('Surveyor@Alderbay.example');
+    const paged = (await asAdmin().get('/api/admin/audit?limit=1').expect(200)).body as { id: string }[];
+    expect(paged).toHaveLength(1);
+    const older = (await asAdmin().get(`/api/admin/audit?before=${paged[0]!.id}`).expect(200)).body;
+    expect(older).toEqual(changes.slice(1));
+    await asAdmin().get('/api/admin/audit?limit=0').expect(400);
+    await asAdmin().get('/api/admin/audit?before=drop').expect(400);
+
+    // The last administrator cannot remove themself; once another is made, the guard is the own-account rule.
+    await asAdmin().patch(`/api/admin/users/${reviewer.user.id}`, { isAdmin: false }).expect(200);
+    const last = await asAdmin().patch(`/api/admin/users/${admin.user.id}`, { isAdmin: false }).expect(409);
+    expect(last.body.error.message).toMatch(/administrator/);
+    expect((await reviewer.agent.get('/api/admin/audit')).status).toBe(403);
+  });
 });

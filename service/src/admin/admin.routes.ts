@@ -8,7 +8,15 @@ import { currentSession } from '../http/session.js';
 import { parse, uuidPattern } from '../http/validate.js';
 import { accountCreatedMail } from '../mail/messages.js';
 import { findOutboxMessage, listOutbox, queueMail } from '../mail/outbox.repository.js';
-import { createUser, emailTaken, findUserForUpdate, listUsers, otherActiveAdmins, updateUser } from './users.repository.js';
+import {
+  createUser,
+  emailTaken,
+  findUserForUpdate,
+  listAccountChanges,
+  listUsers,
+  otherActiveAdmins,
+  updateUser,
+} from './users.repository.js';
 
 export interface AdminSettings {
   appUrl: string;
@@ -33,6 +41,17 @@ const userChangeSchema = z
   .object({ isAdmin: z.boolean().optional(), disabled: z.boolean().optional() })
   .strict()
   .refine((change) => change.isAdmin !== undefined || change.disabled !== undefined, 'Say what changes: administrator, disabled, or both.');
+
+const auditQuerySchema = z
+  .object({
+    limit: z.coerce.number().int().min(1).max(500).default(100),
+    // Audit ids are a bigint sequence.
+    before: z
+      .string()
+      .regex(/^\d{1,18}$/, 'Send the id of the last change listed.')
+      .optional(),
+  })
+  .strict();
 
 /**
  * A link that acts for its recipient (a password reset) is not for the administrator's eyes: it
@@ -128,6 +147,11 @@ export function adminRouter(db: Database, settings: AdminSettings): Router {
       disabled: updated.disabled_at !== null,
       createdAt: updated.created_at.toISOString(),
     });
+  });
+
+  router.get('/audit', async (req, res) => {
+    const page = parse(auditQuerySchema, req.query);
+    res.json(await listAccountChanges(db, page));
   });
 
   router.get('/outbox', async (_req, res) => {

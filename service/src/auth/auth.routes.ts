@@ -9,9 +9,9 @@ import { AppError } from '../http/app-error.js';
 import { emailInBody, requestLimiter } from '../http/rate-limit.js';
 import { csrfHeader, currentSession, requireSignIn, sessionCookie } from '../http/session.js';
 import { parse, uuidPattern } from '../http/validate.js';
-import { findUserByEmail, toPublicUser } from './auth.repository.js';
-import { createSession, listActiveSessions, revokeOtherSessions, revokeSession } from './session.repository.js';
-import { signSession } from './tokens.js';
+import { findUserByEmail } from './auth.repository.js';
+import { listActiveSessions, revokeOtherSessions, revokeSession } from './session.repository.js';
+import { clientAddress, sessionCookieOptions, startSession } from './start-session.js';
 
 export interface AuthSettings {
   secret: string;
@@ -34,13 +34,6 @@ const loginSchema = z.object({
 const unknownUserHash = bcrypt.hashSync('allowlight-unknown-user', 10);
 
 const wrongCredentials = () => new AppError(401, 'invalid_credentials', 'The e-mail or password is not correct.');
-
-/** The client's address as Express resolved it, with IPv4 written plainly rather than IPv6-mapped. */
-function clientAddress(req: Request): string | null {
-  const address = req.ip;
-  if (!address) return null;
-  return address.startsWith('::ffff:') && address.includes('.') ? address.slice('::ffff:'.length) : address;
-}
 
 /**
  * A sign-in limiter. Successful sign-ins are handed back, so people who sign in from many tabs or
@@ -66,12 +59,7 @@ function signInLimiter(
 
 export function authRouter(db: Database, settings: AuthSettings): Router {
   const router = Router();
-  const cookieOptions: CookieOptions = {
-    httpOnly: true,
-    sameSite: 'lax',
-    secure: settings.cookieSecure,
-    path: '/',
-  };
+  const cookieOptions: CookieOptions = sessionCookieOptions(settings);
 
   const addressLimiter = signInLimiter('sign-in-address', settings.loginRateLimit, settings.loginRateWindowMinutes, settings.logger);
   // Spreads over many addresses do not get more guesses at one account than a single address would.
@@ -109,11 +97,7 @@ export function authRouter(db: Database, settings: AuthSettings): Router {
       });
       throw new AppError(403, 'account_disabled', 'This account is disabled. Ask your administrator to enable it.');
     }
-    const expiresAt = new Date(Date.now() + settings.sessionHours * 3_600_000);
-    const sessionId = await createSession(db, { userId: user.id, expiresAt, userAgent: req.get('user-agent') ?? null, address });
-    const { token, csrf } = signSession(settings.secret, { id: sessionId, userId: user.id, expiresAt });
-    res.cookie(sessionCookie, token, { ...cookieOptions, expires: expiresAt });
-    res.json({ user: await toPublicUser(db, user), csrfToken: csrf });
+    res.json(await startSession(db, req, res, user, settings));
   });
 
   router.post('/logout', async (req, res) => {

@@ -96,6 +96,22 @@ export interface ProjectMemberRow {
   added_at: Date;
 }
 
+/** An invitation to a project's team; only the SHA-256 of its token is kept. */
+export interface InvitationRow {
+  id: string;
+  project_id: string;
+  email: string;
+  role: ProjectRole;
+  token_hash: string;
+  invited_by: string | null;
+  created_at: Date;
+  expires_at: Date;
+  accepted_at: Date | null;
+  accepted_user_id: string | null;
+  withdrawn_at: Date | null;
+  withdrawn_by: string | null;
+}
+
 export interface AuditLogRow {
   id: string;
   at: Date;
@@ -462,6 +478,7 @@ declare module 'knex/types/tables.js' {
     idempotency_keys: IdempotencyKeyRow;
     project_members: ProjectMemberRow;
     audit_log: AuditLogRow;
+    invitations: InvitationRow;
     code_editions: CodeTable<CodeEditionRow>;
     code_edition_versions: CodeTable<CodeEditionVersionRow>;
     building_area_types: CodeTable<BuildingAreaTypeRow, 'equals_row_of'>;

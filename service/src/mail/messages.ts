@@ -204,3 +204,48 @@ export function reviewDigestMail(to: string, name: string, lines: DigestLine[], 
   ].join('\n');
   return { kind: 'review-digest', to: [to], subject, text, html };
 }
+
+/** A name in a subject line, which the outbox keeps to 300 characters. */
+const clipped = (text: string): string => (text.length > 100 ? `${text.slice(0, 99)}…` : text);
+
+const roleWords: Record<string, string> = {
+  engineer: 'an engineer',
+  reviewer: 'a reviewer',
+  contractor: 'a contractor',
+};
+
+export function invitationMail(
+  to: string,
+  invitation: { inviter: string; projectName: string; role: string; days: number; url: string },
+): OutgoingMail {
+  const role = roleWords[invitation.role] ?? 'a member';
+  return compose(
+    'invitation',
+    to,
+    `${clipped(invitation.inviter)} invites you to ${clipped(invitation.projectName)} on Allowlight`,
+    [
+      'Hello,',
+      `${invitation.inviter} invites you to join the team of the project “${invitation.projectName}” on Allowlight as ${role}. Allowlight checks a building's lighting design against the energy code.`,
+      `Open the link below to choose your name and a password; that makes your account and opens the project. The link works once, for the next ${invitation.days} days.`,
+      'If you did not expect this, you can ignore this message: no account is made.',
+    ],
+    { label: 'Accept the invitation', url: invitation.url },
+  );
+}
+
+export function addedToTeamMail(
+  to: string,
+  name: string,
+  added: { by: string; projectName: string; role: string; url: string },
+): OutgoingMail {
+  return compose(
+    'added-to-team',
+    to,
+    `You are on the team of ${clipped(added.projectName)}`,
+    [
+      `Hello ${name},`,
+      `${added.by} added you to the team of the project “${added.projectName}” on Allowlight as ${roleWords[added.role] ?? 'a member'}.`,
+    ],
+    { label: 'Open the project', url: added.url },
+  );
+}

@@ -19,6 +19,11 @@ export const routes: Routes = [
     loadComponent: () => import('./features/sign-in/reset-password-page').then((m) => m.ResetPasswordPage),
   },
   {
+    path: 'invitation',
+    title: 'Join a project · Allowlight',
+    loadComponent: () => import('./features/sign-in/invitation-page').then((m) => m.InvitationPage),
+  },
+  {
     path: '',
     canActivate: [authGuard],
     loadComponent: () => import('./core/layout/shell').then((m) => m.Shell),

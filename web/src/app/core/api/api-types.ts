@@ -237,6 +237,7 @@ export type ClaimHistoryAction = 'create' | 'update' | 'delete' | 'restore';
 export type TeamHistoryAction = 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account';
 /** A reviewer's verdict on a check item, a reply in its thread, a bulk confirmation. */
 export type ReviewHistoryAction = 'verdict' | 'reply' | 'bulk-confirm';
+export type InvitationHistoryAction = 'invite' | 'withdraw-invitation' | 'accept-invitation';
 
 /** The set-up as the history keeps it before and after a change of the project (entries from before the permit fields lack them). */
 export interface SetupSnapshot extends Partial<PermitFields> {
@@ -303,6 +304,13 @@ export type HistoryEntry = HistoryEntryBase &
         after: null;
         /** The verdict and comment, the reply, or what a bulk confirmation confirmed; `name` is the item's title. */
         review?: ReviewHistoryDetail;
+      }
+    | {
+        /** `name` is the address invited. */
+        entity: 'invitation';
+        action: InvitationHistoryAction;
+        before: { role: ProjectRole } | null;
+        after: { role: ProjectRole; expiresAt?: string } | null;
       }
   );
 

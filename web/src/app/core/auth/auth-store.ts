@@ -43,6 +43,16 @@ export class AuthStore {
     );
   }
 
+  /** Accepts an invitation: the service makes the account and signs it in; answers the project to open. */
+  acceptInvitation(token: string, name: string, password: string): Observable<string> {
+    return this.http
+      .post<SessionResponse & { projectId: string }>(`/api/invitations/${encodeURIComponent(token)}/accept`, { name, password })
+      .pipe(
+        tap((session) => this.accept(session)),
+        map((session) => session.projectId),
+      );
+  }
+
   /** Asks the service once per page load whether the cookie still carries a session. */
   restore(): Observable<SignedInUser | null> {
     if (this.restored || this.current()) {

@@ -420,6 +420,24 @@ describe('a history entry in words', () => {
       expect(describeEntry(review('reply', { text: 'x' }), labels, 'ip').icon).toBe('forum');
     });
 
+    it('reads invitations: sent, withdrawn, and accepted by the person who joined', () => {
+      const invitation = (
+        action: 'invite' | 'withdraw-invitation' | 'accept-invitation',
+        before: { role: 'reviewer' } | null,
+        after: { role: 'reviewer'; expiresAt?: string } | null,
+        user = ines,
+      ) => say(entry({ entity: 'invitation', action, name: 'surveyor@elsewhere.example', before, after, user }));
+      expect(invitation('invite', null, { role: 'reviewer', expiresAt: '2026-03-09T10:15:00Z' })).toBe(
+        'Ines Halvorsen invited surveyor@elsewhere.example by e-mail to join the team as reviewer',
+      );
+      expect(invitation('withdraw-invitation', { role: 'reviewer' }, null)).toBe(
+        'Ines Halvorsen withdrew the invitation of surveyor@elsewhere.example (as reviewer)',
+      );
+      expect(invitation('accept-invitation', null, { role: 'reviewer' }, { id: 'u9', name: 'Noor Castellanos' })).toBe(
+        'Noor Castellanos accepted the invitation sent to surveyor@elsewhere.example and joined the team as reviewer',
+      );
+    });
+
     it('names someone whose account is gone without an id', () => {
       expect(say(entry({ entity: 'project', action: 'archive', user: null, name: 'x', before: null, after: null }))).toBe(
         'Someone archived the project',

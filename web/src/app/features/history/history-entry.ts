@@ -408,6 +408,9 @@ const icons: Record<string, string> = {
   verdict: 'fact_check',
   reply: 'forum',
   'bulk-confirm': 'done_all',
+  invite: 'forward_to_inbox',
+  'withdraw-invitation': 'cancel_schedule_send',
+  'accept-invitation': 'how_to_reg',
 };
 
 /**
@@ -606,6 +609,23 @@ function reviewWords(entry: Extract<HistoryEntry, { entity: 'review-item' }>): {
   }
 }
 
+function invitationWords(entry: Extract<HistoryEntry, { entity: 'invitation' }>): { summary: string; changes: string[] } {
+  const who = entry.name ?? 'a person';
+  switch (entry.action) {
+    case 'invite':
+      return { summary: `invited ${who} by e-mail to join the team as ${roleWord(entry.after?.role)}`, changes: [] };
+    case 'withdraw-invitation':
+      return {
+        summary: `withdrew the invitation of ${who}${entry.before?.role ? ` (as ${roleWord(entry.before.role)})` : ''}`,
+        changes: [],
+      };
+    case 'accept-invitation':
+      return { summary: `accepted the invitation sent to ${who} and joined the team as ${roleWord(entry.after?.role)}`, changes: [] };
+    default:
+      return { summary: 'changed an invitation to the team', changes: [] };
+  }
+}
+
 /** One entry in words, with `system` the units the project had when it was made (see {@link unitsAtEntry}). */
 export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system: UnitSystem): EntryWords {
   const actor = entry.user?.name || 'Someone';
@@ -621,6 +641,9 @@ export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system
       break;
     case 'project_member':
       words = teamWords(entry);
+      break;
+    case 'invitation':
+      words = invitationWords(entry);
       break;
     case 'additional-allowance':
       words = claimWords(entry, system);

@@ -1,9 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { AccountView } from '../../../../../contract/accounts';
+import type { AccountChange, AccountView } from '../../../../../contract/accounts';
 
-export type { AccountView };
+export type { AccountChange, AccountView };
 
 /** The administrator's calls on accounts. */
 @Injectable({ providedIn: 'root' })
@@ -16,6 +16,11 @@ export class PeopleApi {
 
   create(account: { email: string; name: string; isAdmin: boolean }): Observable<AccountView> {
     return this.http.post<AccountView>('/api/admin/users', account);
+  }
+
+  /** The changes to accounts, newest first. */
+  changes(): Observable<AccountChange[]> {
+    return this.http.get<AccountChange[]>('/api/admin/audit', { params: { limit: 100 } });
   }
 
   change(id: string, change: { isAdmin?: boolean; disabled?: boolean }): Observable<AccountView> {

@@ -12,7 +12,10 @@ import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import { CardRows } from '../../shared/card-rows';
 import { askToConfirm } from '../../shared/confirm-dialog';
+import { accountChangeWords } from './account-change-words';
 import { PeopleApi, type AccountView } from './people-api';
+
+const moment = new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeStyle: 'short' });
 
 /** For administrators: every account, a new one (its owner chooses the password by mail), and who may administer. */
 @Component({
@@ -105,6 +108,28 @@ import { PeopleApi, type AccountView } from './people-api';
         </tbody>
       </table>
     }
+    <section class="changes" aria-labelledby="changes-heading">
+      <h2 id="changes-heading">Changes to accounts</h2>
+      <p class="hint">Newest first: accounts made, administrators made or removed, accounts disabled or enabled.</p>
+      @if (changes.hasValue()) {
+        @if (changes.value().length === 0) {
+          <p class="hint">No account has changed yet.</p>
+        } @else {
+          <ol class="change-list">
+            @for (change of changes.value(); track change.id) {
+              <li>
+                <span>{{ words(change) }}</span>
+                <time class="hint" [attr.datetime]="change.at">{{ when(change.at) }}</time>
+              </li>
+            }
+          </ol>
+        }
+      } @else if (changes.error()) {
+        <p class="failure" role="alert">
+          <mat-icon aria-hidden="true">error</mat-icon>The changes could not be read. Reload the page to try again.
+        </p>
+      }
+    </section>
   `,
   styles: `
     :host {
@@ -155,6 +180,23 @@ import { PeopleApi, type AccountView } from './people-api';
     tr.disabled td:not(.actions) {
       color: var(--mat-sys-on-surface-variant);
     }
+    .changes {
+      margin-top: 24px;
+    }
+    .change-list {
+      list-style: none;
+      margin: 0;
+      padding: 0;
+      display: grid;
+      gap: 8px;
+    }
+    .change-list li {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 4px 12px;
+      padding-bottom: 8px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
     .notice,
     .failure {
       display: flex;
@@ -175,6 +217,8 @@ export class PeoplePage {
   private readonly dialog = inject(MatDialog);
   protected readonly auth = inject(AuthStore);
   protected readonly accounts = rxResource({ stream: () => this.api.list() });
+  protected readonly changes = rxResource({ stream: () => this.api.changes() });
+  protected readonly words = accountChangeWords;
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: ['', [Validators.required, Validators.maxLength(200)]],
     email: ['', [Validators.required, Validators.email, Validators.maxLength(320)]],
@@ -244,6 +288,11 @@ export class PeoplePage {
     this.busy.set(false);
     this.notice.set(words);
     this.accounts.reload();
+    this.changes.reload();
+  }
+
+  protected when(at: string): string {
+    return moment.format(new Date(at));
   }
 
   private failed(error: unknown): void {

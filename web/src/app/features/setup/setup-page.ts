@@ -11,13 +11,14 @@ import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { SetupFields } from './setup-fields';
+import { InvitationsPanel } from './invitations-panel';
 import { TeamEditor, type TeamEntry } from './team-editor';
 import { fillSetup, setupForm, setupValue, showServerErrors } from './setup-form';
 
 /** The project's set-up, editable after the wizard: the same fields, saved with the version read. */
 @Component({
   selector: 'al-setup-page',
-  imports: [ReactiveFormsModule, MatButtonModule, MatIconModule, MatProgressBarModule, SetupFields, TeamEditor],
+  imports: [ReactiveFormsModule, MatButtonModule, MatIconModule, MatProgressBarModule, SetupFields, TeamEditor, InvitationsPanel],
   templateUrl: './setup-page.html',
   styleUrl: './setup-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -98,6 +99,12 @@ export class SetupPage implements HasUnsavedChanges {
   protected removeMember(member: TeamEntry): void {
     const project = this.store.project();
     if (project && member.userId) this.changeTeam(this.api.removeMember(project.id, member.userId));
+  }
+
+  /** Someone was added through the invitation form: the team as it is now. */
+  protected readTeam(): void {
+    const project = this.store.project();
+    if (project) this.changeTeam(this.api.members(project.id));
   }
 
   private changeTeam(request: ReturnType<WorkspaceApi['members']>, check?: (members: ProjectMember[]) => void): void {

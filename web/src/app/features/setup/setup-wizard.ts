@@ -110,7 +110,7 @@ export class SetupWizard implements HasUnsavedChanges {
             const missing = outcomes.filter((email): email is string => email !== null);
             if (missing.length) {
               this.snackBar.open(
-                `No one was added for ${missing.join(', ')}. Check ${missing.length === 1 ? 'it' : 'them'} on the Set-up page, or ask an administrator to create ${missing.length === 1 ? "the person's account" : 'their accounts'} first.`,
+                `No one was added for ${missing.join(', ')}. Check ${missing.length === 1 ? 'it' : 'them'} on the Set-up page, or invite ${missing.length === 1 ? 'the person' : 'them'} by e-mail there: the invitation makes the account.`,
                 'Dismiss',
                 { duration: 12_000 },
               );

@@ -74,7 +74,9 @@ describe('TeamEditor', () => {
     fixture.componentRef.setInput('notAdded', 'newcomer@alderbay.example');
     await fixture.whenStable();
     expect(input.value).toBe('newcomer@alderbay.example');
-    expect(notice()).toBe("No one was added for that address. Check it, or ask an administrator to create the person's account first.");
+    expect(notice()).toBe(
+      'No one was added for that address. Check it, or invite the person by e-mail on the Set-up page: the invitation makes their account.',
+    );
     expect(element.textContent).not.toMatch(/no account|does not exist|unknown/i);
 
     input.value = 'contractor@alderbay.example';

@@ -152,7 +152,7 @@ export class TeamEditor {
   private readonly engineers = computed(() => this.members().filter((member) => member.role === 'engineer').length);
   private readonly typed = toSignal(this.form.controls.email.valueChanges, { initialValue: '' });
   protected readonly notAddedMessage =
-    "No one was added for that address. Check it, or ask an administrator to create the person's account first.";
+    'No one was added for that address. Check it, or invite the person by e-mail on the Set-up page: the invitation makes their account.';
   /** Shown while the field still holds that address; typing another one clears it. */
   protected readonly notAddedShown = computed(() => {
     const address = this.notAdded();
