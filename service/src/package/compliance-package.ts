@@ -25,6 +25,7 @@ import { dec, sum, ZERO } from '../compliance/numbers.js';
 import type { PackageInput, PackageRevisionStamp } from './package-input.js';
 import {
   basisWords,
+  citedWords,
   confidenceWords,
   controlStatusWords,
   dateWords,
@@ -33,6 +34,7 @@ import {
   levelWords,
   marginWords,
   methodWords,
+  noteWords,
   orderedSpaces,
   providedWords,
   quantityUnit,
@@ -796,9 +798,9 @@ function unverifiedPart(input: PackageInput): FileChild[] {
       values.map((value) => ({
         cells: [
           value.what,
-          [value.citation.short, value.source].filter((part) => part !== '').join('\n'),
+          citedWords(value),
           confidenceWords(value),
-          [value.citation.note, value.note].filter((part): part is string => part !== null && part !== '').join(' '),
+          noteWords(value),
         ] as CellText[],
       })),
       portraitWidth,

@@ -12,6 +12,7 @@ import {
   editionWords,
   levelWords,
   methodWords,
+  noteWords,
   orderedSpaces,
   providedWords,
   quantityUnit,
@@ -655,7 +656,7 @@ function writeSources(sheet: ExcelJS.Worksheet, input: PackageInput): void {
     value.citation.short,
     value.source,
     confidenceWords(value),
-    [value.citation.note, value.note].filter((text) => text !== null && text !== '' && text !== undefined).join(' '),
+    noteWords(value),
   ]);
   writeTable(sheet, {
     name: 'ValueSources',

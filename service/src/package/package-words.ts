@@ -249,6 +249,24 @@ export function confidenceWords(value: UnverifiedValue): string {
   return value.citation.checked ? 'Checked against its source' : layerNames[value.citation.layer];
 }
 
+/** Where a value comes from, in words: its citation, and the source where it says more. */
+export function citedWords(value: UnverifiedValue): string {
+  const source = value.source.trim();
+  return source === '' || source === value.citation.short || value.citation.short.includes(source)
+    ? value.citation.short
+    : `${value.citation.short}. ${source}`;
+}
+
+/** The value's notes, each said once. */
+export function noteWords(value: UnverifiedValue): string {
+  const notes: string[] = [];
+  for (const note of [value.citation.note, value.note]) {
+    const text = note?.trim() ?? '';
+    if (text !== '' && !notes.some((kept) => kept.includes(text))) notes.push(text);
+  }
+  return notes.join(' ');
+}
+
 /** Exterior quantities: ft² or m², linear ft or m, or a count, as the application's unit says. */
 export function quantityUnit(rateUnit: string): string {
   const per = /^W\/(.+)$/.exec(rateUnit.trim());
