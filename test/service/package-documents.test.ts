@@ -35,7 +35,14 @@ const reviewItem: ReviewItem = {
   changed: false,
   round: 1,
   thread: [
-    { by: 'Riley Reviewer', role: 'reviewer', at: '2025-03-10T16:00:00Z', text: 'Show the sensor on the plan.', verdict: 'needs-revision', round: 1 },
+    {
+      by: 'Riley Reviewer',
+      role: 'reviewer',
+      at: '2025-03-10T16:00:00Z',
+      text: 'Show the sensor on the plan.',
+      verdict: 'needs-revision',
+      round: 1,
+    },
     { by: 'Dana Engineer', role: 'engineer', at: '2025-03-11T09:30:00Z', text: 'Added to sheet E-201.', round: 1 },
   ],
 };
@@ -86,8 +93,11 @@ async function readWord(buffer: Buffer): Promise<WordParts> {
   const zip = await JSZip.loadAsync(buffer);
   const documentXml = await zip.file('word/document.xml')!.async('string');
   const relations = await zip.file('word/_rels/document.xml.rels')!.async('string');
-  const targets = new Map([...relations.matchAll(/<Relationship [^>]*Id="([^"]+)"[^>]*Target="([^"]+)"/g)].map((match) => [match[1]!, match[2]!]));
-  const part = async (id: string | undefined) => (id === undefined ? '' : words(await zip.file(`word/${targets.get(id)}`)!.async('string')));
+  const targets = new Map(
+    [...relations.matchAll(/<Relationship [^>]*Id="([^"]+)"[^>]*Target="([^"]+)"/g)].map((match) => [match[1]!, match[2]!]),
+  );
+  const part = async (id: string | undefined) =>
+    id === undefined ? '' : words(await zip.file(`word/${targets.get(id)}`)!.async('string'));
   const sections: WordParts['sections'] = [];
   for (const sectPr of documentXml.match(/<w:sectPr[\s\S]*?<\/w:sectPr>/g) ?? []) {
     const header = /<w:headerReference w:type="default" r:id="([^"]+)"/.exec(sectPr)?.[1];
@@ -144,9 +154,12 @@ describe('the Word compliance package', () => {
   beforeAll(async () => {
     draft = await readWord(await buildCompliancePackage(input));
     final = await readWord(
-      await buildCompliancePackage({ ...input, revision: { ...input.revision, draft: false }, review: undefined }, {
-        cutSheets: new Map([[input.document.luminaireTypes[0]!.tag, 'Downlight cut sheet.pdf']]),
-      }),
+      await buildCompliancePackage(
+        { ...input, revision: { ...input.revision, draft: false }, review: undefined },
+        {
+          cutSheets: new Map([[input.document.luminaireTypes[0]!.tag, 'Downlight cut sheet.pdf']]),
+        },
+      ),
     );
   });
 
@@ -243,7 +256,15 @@ describe('the Word compliance package', () => {
   });
 
   it('shows no internal keys or enum values', () => {
-    for (const code of ['does-not-comply', 'not-met', 'to-verify', 'exception-claimed', 'primary-sidelit', 'iecc-2021', 'building-area-type']) {
+    for (const code of [
+      'does-not-comply',
+      'not-met',
+      'to-verify',
+      'exception-claimed',
+      'primary-sidelit',
+      'iecc-2021',
+      'building-area-type',
+    ]) {
       expect(draft.body).not.toContain(code);
     }
   });
@@ -271,6 +292,8 @@ describe('the Excel compliance workbook', () => {
     ]);
     for (const sheet of workbook.worksheets) {
       expect(sheet.views[0], sheet.name).toMatchObject({ state: 'frozen', ySplit: 1 });
+      expect(sheet.headerFooter.oddFooter, sheet.name).toContain(fingerprint);
+      expect(sheet.headerFooter.oddHeader, sheet.name).toContain('DRAFT — not for permit');
     }
   });
 
@@ -365,7 +388,9 @@ describe('the Excel compliance workbook', () => {
       while (row <= sheet.rowCount && sheet.getCell(row, 1).value !== level.level) row++;
       expect(row, level.level).toBeLessThanOrEqual(sheet.rowCount);
       const allowance = sheet.getCell(row, 3);
-      expect(formulaOf(allowance)).toBe(`SUMIFS(Spaces!$I$2:$I$${1 + result.interior.spaces.length},Spaces!$B$2:$B$${1 + result.interior.spaces.length},A${row})`);
+      expect(formulaOf(allowance)).toBe(
+        `SUMIFS(Spaces!$I$2:$I$${1 + result.interior.spaces.length},Spaces!$B$2:$B$${1 + result.interior.spaces.length},A${row})`,
+      );
       expect(cached(allowance)).toBe(Number(level.allowanceW));
       expect(cached(sheet.getCell(row, 4))).toBe(Number(level.installedW));
     }

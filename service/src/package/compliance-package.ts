@@ -22,6 +22,7 @@ import {
 import type { ControlLine, EvaluationResult, SpaceResult } from '../../../contract/result.js';
 import { reviewItemKindLabels, reviewVerdictLabels, type ReviewItem, type ReviewOutcome } from '../../../contract/review.js';
 import { dec, sum, ZERO } from '../compliance/numbers.js';
+import type { ProvidedControl } from '../compliance/document.js';
 import type { PackageInput, PackageRevisionStamp } from './package-input.js';
 import {
   basisWords,
@@ -84,9 +85,18 @@ export async function buildCompliancePackage(input: PackageInput, options: Compl
     description: `Fingerprint ${revision.fingerprint}`,
     styles: {
       default: { document: { run: { font: 'Calibri', size: 20 } } },
+      paragraphStyles: [
+        { id: 'Cell', name: 'Table text', run: { size: tableSize }, paragraph: { spacing: { before: 0, after: 0 } } },
+        { id: 'CellRight', name: 'Table figure', basedOn: 'Cell', paragraph: { alignment: AlignmentType.RIGHT } },
+      ],
     },
     sections: [
-      { properties: portrait, headers, footers, children: [...cover(input), new Paragraph({ children: [new PageBreak()] }), ...summary(input)] },
+      {
+        properties: portrait,
+        headers,
+        footers,
+        children: [...cover(input), new Paragraph({ children: [new PageBreak()] }), ...summary(input)],
+      },
       {
         properties: landscape,
         headers,
@@ -135,7 +145,9 @@ function pageHeader(input: PackageInput): Header {
   children.push(
     new Paragraph({
       alignment: AlignmentType.RIGHT,
-      children: [new TextRun({ text: `${project.name} · Lighting compliance package · Revision ${revision.number}`, size: 16, color: '555555' })],
+      children: [
+        new TextRun({ text: `${project.name} · Lighting compliance package · Revision ${revision.number}`, size: 16, color: '555555' }),
+      ],
     }),
   );
   return new Header({ children });
@@ -184,17 +196,22 @@ interface CellOptions {
 
 type CellText = string | { text: string; options: CellOptions };
 
+/**
+ * One table cell, kept light (a 5,000-space package has hundreds of thousands): the paragraph
+ * style carries the size and alignment, the table its cell margins; only bold and shading are
+ * set per cell.
+ */
 function cellOf(content: CellText, base: CellOptions = {}): TableCell {
   const text = typeof content === 'string' ? content : content.text;
   const options = typeof content === 'string' ? base : { ...base, ...content.options };
+  const style = options.right ? 'CellRight' : 'Cell';
   return new TableCell({
-    shading: options.shade ? { type: ShadingType.CLEAR, color: 'auto', fill: options.shade } : undefined,
-    margins: { top: 40, bottom: 40, left: 80, right: 80 },
+    ...(options.shade ? { shading: { type: ShadingType.CLEAR, color: 'auto', fill: options.shade } } : {}),
     children: text.split('\n').map(
       (line) =>
         new Paragraph({
-          alignment: options.right ? AlignmentType.RIGHT : AlignmentType.LEFT,
-          children: [new TextRun({ text: line, bold: options.bold, size: tableSize })],
+          style,
+          children: line === '' ? [] : [options.bold ? new TextRun({ text: line, bold: true }) : new TextRun(line)],
         }),
     ),
   });
@@ -219,6 +236,7 @@ function table(columns: Column[], rows: { cells: CellText[]; shade?: string; bol
     width: { size: width, type: WidthType.DXA },
     columnWidths,
     layout: TableLayoutType.FIXED,
+    margins: { top: 30, bottom: 30, left: 80, right: 80 },
     rows: [
       new TableRow({
         tableHeader: true,
@@ -275,7 +293,10 @@ function cover(input: PackageInput): FileChild[] {
       ? editionWords(result.edition)
       : `${editionWords(result.edition)}, with ${result.amendments.map((amendment) => amendment.title).join('; ')}`;
   const children: FileChild[] = [
-    new Paragraph({ spacing: { before: 1200, after: 120 }, children: [new TextRun({ text: 'Lighting energy compliance package', size: 28, color: '00696B' })] }),
+    new Paragraph({
+      spacing: { before: 1200, after: 120 },
+      children: [new TextRun({ text: 'Lighting energy compliance package', size: 28, color: '00696B' })],
+    }),
     new Paragraph({ spacing: { after: 480 }, children: [new TextRun({ text: project.name, bold: true, size: 44 })] }),
     facts([
       ['Project', project.name],
@@ -296,9 +317,7 @@ function cover(input: PackageInput): FileChild[] {
     gap(),
   ];
   if (revision.draft) {
-    children.push(
-      para(`${draftMark}. This package was made before the design was accepted; it is for coordination only.`, { bold: true }),
-    );
+    children.push(para(`${draftMark}. This package was made before the design was accepted; it is for coordination only.`, { bold: true }));
   }
   children.push(
     para(
@@ -314,13 +333,11 @@ function cover(input: PackageInput): FileChild[] {
 function summary(input: PackageInput): FileChild[] {
   const { result } = input;
   const interior = result.interior;
-  const children: FileChild[] = [
-    heading('Summary'),
-    para(`Overall result: ${verdictWords(result.verdict)}`, { bold: true, size: 24 }),
-  ];
+  const children: FileChild[] = [heading('Summary'), para(`Overall result: ${verdictWords(result.verdict)}`, { bold: true, size: 24 })];
   if (result.verdict === 'incomplete') {
     const open: string[] = [];
-    if (result.openItems.spacesWithoutLuminaires > 0) open.push(`${result.openItems.spacesWithoutLuminaires} space(s) have no luminaires entered`);
+    if (result.openItems.spacesWithoutLuminaires > 0)
+      open.push(`${result.openItems.spacesWithoutLuminaires} space(s) have no luminaires entered`);
     if (result.openItems.controlsToVerify > 0) open.push(`${result.openItems.controlsToVerify} control requirement(s) are to verify`);
     children.push(para(`Open items: ${open.join('; ')}.`));
   }
@@ -357,7 +374,10 @@ function summary(input: PackageInput): FileChild[] {
         ['Installed (counted)', withUnits.watts(exterior.installedW)],
         ['Exempt (not counted)', withUnits.watts(exterior.exemptW)],
         ['Margin', marginWords(margin)],
-        ['Tradable applications', `${withUnits.watts(exterior.tradable.installedW)} installed against ${withUnits.watts(exterior.tradable.allowanceW)}: ${withinWords(exterior.tradable.complies).toLowerCase()}`],
+        [
+          'Tradable applications',
+          `${withUnits.watts(exterior.tradable.installedW)} installed against ${withUnits.watts(exterior.tradable.allowanceW)}: ${withinWords(exterior.tradable.complies).toLowerCase()}`,
+        ],
         ['Result', withinWords(exterior.complies)],
         ['Section', exterior.section],
       ]),
@@ -411,7 +431,8 @@ function spacesPart(input: PackageInput): FileChild[] {
   const rows: { cells: CellText[]; shade?: string; bold?: boolean }[] = [];
   const groups = spacesByLevel(result);
   for (const group of groups) {
-    if (groups.length > 1 || group.level !== null) rows.push({ cells: [strong(levelWords(group.level)), '', '', '', '', '', '', '', ''], shade: subtotalShade });
+    if (groups.length > 1 || group.level !== null)
+      rows.push({ cells: [strong(levelWords(group.level)), '', '', '', '', '', '', '', ''], shade: subtotalShade });
     for (const space of group.spaces) rows.push({ cells: spaceCells(space, result) });
     const counted = group.spaces.map((space) => (space.lighting === 'unlit' ? ZERO : dec(space.allowanceW)));
     const allowance = sum(counted);
@@ -449,9 +470,13 @@ function spacesPart(input: PackageInput): FileChild[] {
     ],
   });
   const children: FileChild[] = [heading('Interior lighting power by space'), table(columns, rows, landscapeWidth)];
-  const fixed = dec(interior.allowanceW).minus(sum(interior.spaces.map((space) => (space.lighting === 'unlit' ? ZERO : dec(space.allowanceW)))));
+  const fixed = dec(interior.allowanceW).minus(
+    sum(interior.spaces.map((space) => (space.lighting === 'unlit' ? ZERO : dec(space.allowanceW)))),
+  );
   if (fixed.greaterThan('0.05')) {
-    children.push(para(`The building total includes ${withUnits.watts(fixed.toString())} of the retail display adder, granted once per building.`));
+    children.push(
+      para(`The building total includes ${withUnits.watts(fixed.toString())} of the retail display adder, granted once per building.`),
+    );
   }
   if (interior.spaces.some((space) => space.lighting === 'unlit')) {
     children.push(para('A space confirmed unlit has no lighted floor area: its allowance is shown but not counted in the subtotals.'));
@@ -516,56 +541,49 @@ function controlsPart(input: PackageInput): FileChild[] {
   const documentSpaces = new Map(input.document.spaces.map((space) => [space.id, space]));
   const columns: Column[] = [
     { header: 'Space', weight: 3 },
-    { header: 'Requirement', weight: 3 },
-    { header: 'Required', weight: 2 },
-    { header: 'Provided', weight: 4 },
-    { header: 'Status', weight: 2 },
-    { header: 'Why', weight: 5 },
+    { header: 'Requirement', weight: 4 },
+    { header: 'Provided', weight: 5 },
+    { header: 'Status', weight: 6 },
     { header: 'Section', weight: 2 },
   ];
   const rows: { cells: CellText[]; shade?: string }[] = [];
+  const lineRow = (name: string, first: boolean, line: ControlLine, provided: ProvidedControl[]) => ({
+    cells: [
+      first ? strong(name) : '',
+      `${line.label} (${requirementWords(line.requirement).toLowerCase()})`,
+      providedWords(provided.find((control) => control.strategy === line.strategy)),
+      statusCell(line),
+      line.section,
+    ],
+  });
   for (const group of spacesByLevel(input.result)) {
-    rows.push({ cells: [strong(levelWords(group.level)), '', '', '', '', '', ''], shade: subtotalShade });
+    rows.push({ cells: [strong(levelWords(group.level)), '', '', '', ''], shade: subtotalShade });
     for (const space of group.spaces) {
       const provided = documentSpaces.get(space.id)?.controls ?? [];
-      space.controls.forEach((line, index) => {
-        rows.push({
-          cells: [
-            index === 0 ? strong(space.name) : '',
-            line.label,
-            requirementWords(line.requirement),
-            providedWords(provided.find((control) => control.strategy === line.strategy)),
-            strong(controlStatusWords(line.status)),
-            line.reason,
-            line.section,
-          ],
-        });
-      });
-      if (space.controls.length === 0) rows.push({ cells: [strong(space.name), 'None applies', '', '', '', '', ''] });
+      space.controls.forEach((line, index) => rows.push(lineRow(space.name, index === 0, line, provided)));
+      if (space.controls.length === 0) rows.push({ cells: [strong(space.name), 'None applies', '', '', ''] });
     }
   }
   const entries = new Map(input.document.exterior?.applications.map((entry) => [entry.key, entry]) ?? []);
   const exterior = input.result.exterior?.applications.filter((application) => application.controls.length > 0) ?? [];
   if (exterior.length > 0) {
-    rows.push({ cells: [strong('Exterior'), '', '', '', '', '', ''], shade: subtotalShade });
+    rows.push({ cells: [strong('Exterior'), '', '', '', ''], shade: subtotalShade });
     for (const application of exterior) {
       const provided = entries.get(application.key)?.controls ?? [];
-      application.controls.forEach((line, index) => {
-        rows.push({
-          cells: [
-            index === 0 ? strong(application.label) : '',
-            line.label,
-            requirementWords(line.requirement),
-            providedWords(provided.find((control) => control.strategy === line.strategy)),
-            strong(controlStatusWords(line.status)),
-            line.reason,
-            line.section,
-          ],
-        });
-      });
+      application.controls.forEach((line, index) => rows.push(lineRow(application.label, index === 0, line, provided)));
     }
   }
-  return [heading('Lighting controls by space'), table(columns, rows, landscapeWidth)];
+  return [
+    heading('Lighting controls by space'),
+    para('A requirement met says so; any other status gives the reason.', { size: 18 }),
+    table(columns, rows, landscapeWidth),
+  ];
+}
+
+/** The status in words, with the reason where it is anything but met. */
+function statusCell(line: ControlLine): CellText {
+  const words = controlStatusWords(line.status);
+  return line.status === 'met' ? strong(words) : `${words}: ${line.reason}`;
 }
 
 // ---------------------------------------------------------------- daylight
@@ -766,7 +784,11 @@ function reviewItem(item: ReviewItem, timeZone: string | null): FileChild[] {
         indent: { left: 360 },
         spacing: { after: 40 },
         children: [
-          new TextRun({ text: `${entry.by}, ${roleNames[entry.role]}, ${dateWords(entry.at, timeZone)}, round ${entry.round}${mark}: `, bold: true, size: 18 }),
+          new TextRun({
+            text: `${entry.by}, ${roleNames[entry.role]}, ${dateWords(entry.at, timeZone)}, round ${entry.round}${mark}: `,
+            bold: true,
+            size: 18,
+          }),
           new TextRun({ text: entry.text, size: 18 }),
         ],
       }),
@@ -796,12 +818,7 @@ function unverifiedPart(input: PackageInput): FileChild[] {
         { header: 'Note', weight: 5 },
       ],
       values.map((value) => ({
-        cells: [
-          value.what,
-          citedWords(value),
-          confidenceWords(value),
-          noteWords(value),
-        ] as CellText[],
+        cells: [value.what, citedWords(value), confidenceWords(value), noteWords(value)] as CellText[],
       })),
       portraitWidth,
     ),
