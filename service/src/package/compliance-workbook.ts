@@ -1,0 +1,871 @@
+import ExcelJS from 'exceljs';
+import type { Decimal } from 'decimal.js';
+import type { ControlLine, ExteriorApplicationResult, SpaceResult } from '../../../contract/result.js';
+import { squareMetresPerSquareFootText } from '../../../contract/editions.js';
+import { dec, sum, ZERO } from '../compliance/numbers.js';
+import type { PackageInput } from './package-input.js';
+import {
+  basisWords,
+  confidenceWords,
+  controlStatusWords,
+  dateWords,
+  editionWords,
+  levelWords,
+  methodWords,
+  noteWords,
+  orderedSpaces,
+  providedWords,
+  quantityUnit,
+  requirementWords,
+  spaceStatusWords,
+  stateWords,
+  unitSystemWords,
+  unitWords,
+  useWords,
+  verdictWords,
+  withinWords,
+} from './package-words.js';
+
+/**
+ * The compliance workbook: one sheet per part of the evaluation, the allowances, installed watts,
+ * margins and totals as live formulas (area × LPD, count × watts, SUMIFS by space and by level,
+ * SUM over each table's column) whose cached results are the engine's values, so the file opens
+ * with the engine's figures and a reviewer who changes an input sees the effect.
+ *
+ * Pure: reads only its input, no clock, no network.
+ */
+export async function buildComplianceWorkbook(input: PackageInput): Promise<Buffer> {
+  const { project, result, revision } = input;
+  const workbook = new ExcelJS.Workbook();
+  workbook.creator = revision.madeBy;
+  workbook.title = `${project.name}: lighting compliance workbook, revision ${revision.number}`;
+  workbook.created = new Date(revision.madeAt);
+  workbook.modified = new Date(revision.madeAt);
+  workbook.calcProperties.fullCalcOnLoad = true;
+
+  const formats = numberFormats(result.units);
+  // The sheets in reading order; each is filled below, the Summary last because it refers to the others.
+  const summary = workbook.addWorksheet('Summary');
+  const spacesSheet = workbook.addWorksheet('Spaces');
+  const luminairesSheet = workbook.addWorksheet('Luminaires');
+  const countsSheet = workbook.addWorksheet('Counts');
+  const controlsSheet = workbook.addWorksheet('Controls');
+  const daylightSheet = workbook.addWorksheet('Daylight');
+  const exteriorSheet = workbook.addWorksheet('Exterior');
+  const sourcesSheet = workbook.addWorksheet('Sources');
+
+  const spaces = orderedSpaces(result);
+  const numberOf = new Map(spaces.map((space, index) => [space.id, index + 1]));
+
+  const counts = writeCounts(countsSheet, spaces, formats);
+  const spaceTable = writeSpaces(spacesSheet, spaces, counts, formats, result.units);
+  writeLuminaires(luminairesSheet, input, counts, formats);
+  const controls = writeControls(controlsSheet, input, numberOf);
+  writeDaylight(daylightSheet, spaces, formats);
+  const exterior = writeExterior(exteriorSheet, input, formats);
+  writeSources(sourcesSheet, input);
+  writeSummary(summary, input, spaceTable, controls, exterior, formats);
+  for (const sheet of workbook.worksheets) printed(sheet, input);
+
+  // Light compression: a large workbook is written in a fraction of the time, for a file a little larger.
+  const buffer = await workbook.xlsx.writeBuffer({
+    zip: { compression: 'DEFLATE', compressionOptions: { level: 1 } },
+  } as ExcelJS.XlsxWriteOptions);
+  return Buffer.from(buffer);
+}
+
+// ---------------------------------------------------------------- printing
+
+/** The draft mark in the printed header of a draft, the fingerprint in every printed footer, landscape and one page wide. */
+function printed(sheet: ExcelJS.Worksheet, input: PackageInput): void {
+  const escape = (text: string) => text.replace(/&/g, '&&');
+  const title = `${escape(input.project.name)} · ${sheet.name} · Revision ${input.revision.number}`;
+  sheet.headerFooter = {
+    oddHeader: input.revision.draft ? `&L${title}&R&"-,Bold"DRAFT — not for permit` : `&L${title}`,
+    oddFooter: `&LFingerprint ${input.revision.fingerprint}&RPage &P of &N`,
+  };
+  sheet.pageSetup = { ...sheet.pageSetup, orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: '1:1' };
+}
+
+// ---------------------------------------------------------------- formats and cells
+
+interface Formats {
+  watts: string;
+  area: string;
+  density: string;
+  count: string;
+  unitWatts: string;
+  percent: string;
+  length: string;
+  quantity: string;
+  rate: string;
+}
+
+function numberFormats(units: PackageInput['result']['units']): Formats {
+  const words = unitWords(units);
+  return {
+    watts: '#,##0 "W"',
+    area: units === 'ip' ? `#,##0 "${words.area}"` : `#,##0.0 "${words.area}"`,
+    density: `0.00 "${words.density}"`,
+    count: '#,##0.##',
+    unitWatts: '#,##0.0 "W"',
+    percent: '0.0%',
+    length: `#,##0.00 "${words.length}"`,
+    quantity: '#,##0.##',
+    rate: '#,##0.000',
+  };
+}
+
+type Cell = ExcelJS.CellValue;
+
+function formula(text: string, result: number | string): Cell {
+  return { formula: text, result } as ExcelJS.CellFormulaValue;
+}
+
+function num(value: string | Decimal): number {
+  return Number(typeof value === 'string' ? value : value.toString());
+}
+
+function letter(column: number): string {
+  let text = '';
+  let rest = column;
+  while (rest > 0) {
+    const digit = (rest - 1) % 26;
+    text = String.fromCharCode(65 + digit) + text;
+    rest = Math.floor((rest - 1) / 26);
+  }
+  return text;
+}
+
+/** Words for the verdict cells; the conditional formats colour them by these. */
+const goodWords = ['Within allowance', 'Met', 'Complies', 'Exception claimed'];
+const badWords = ['Over allowance', 'Not met', 'Does not comply'];
+const openWords = ['To verify', 'No luminaires entered', 'Incomplete'];
+
+const fills = {
+  good: 'FFCDEBE4',
+  bad: 'FFF6CFC4',
+  open: 'FFFFF0BF',
+};
+
+function verdictFormatting(sheet: ExcelJS.Worksheet, ref: string): void {
+  const first = ref.split(':')[0]!;
+  const rule = (words: string[], color: string, priority: number): ExcelJS.ConditionalFormattingRule => ({
+    type: 'expression',
+    priority,
+    formulae: [`OR(${words.map((word) => `LEFT(${first},${word.length})="${word}"`).join(',')})`],
+    style: { fill: { type: 'pattern', pattern: 'solid', bgColor: { argb: color } }, font: { bold: true } },
+  });
+  sheet.addConditionalFormatting({
+    ref,
+    rules: [rule(badWords, fills.bad, 1), rule(openWords, fills.open, 2), rule(goodWords, fills.good, 3)],
+  });
+}
+
+interface ColumnSpec {
+  header: string;
+  width: number;
+  numFmt?: string;
+  /** A SUM over the column in the table's totals row, with the engine's value as its cached result. */
+  total?: number;
+  wrap?: boolean;
+}
+
+interface TableSpec {
+  name: string;
+  /** The header row's number. */
+  top: number;
+  columns: ColumnSpec[];
+  rows: Cell[][];
+  /** What the sheet says in place of an empty table. */
+  empty: string;
+  freezeColumns?: number;
+}
+
+interface WrittenTable {
+  /** First and last data rows; last < first when the table is empty. */
+  first: number;
+  last: number;
+  totalsRow: number | null;
+  /** `Sheet!$C$2:$C$9` for a column, by its 1-based index; null when the table is empty. */
+  range(column: number): string | null;
+  cell(column: number, row: number): string;
+}
+
+/**
+ * A named Excel table with a header row (filter buttons), the data, and a totals row where a
+ * column asks for one, its column widths and number formats set and the header row frozen.
+ */
+function writeTable(sheet: ExcelJS.Worksheet, spec: TableSpec): WrittenTable {
+  spec.columns.forEach((column, index) => {
+    sheet.getColumn(index + 1).width = column.width;
+  });
+  sheet.views = [{ state: 'frozen', ySplit: spec.top, xSplit: spec.freezeColumns ?? 0 }];
+  const first = spec.top + 1;
+  const last = spec.top + spec.rows.length;
+  const sheetName = sheet.name;
+  const written: WrittenTable = {
+    first,
+    last,
+    totalsRow: null,
+    range: (column) => (last < first ? null : `${sheetName}!$${letter(column)}$${first}:$${letter(column)}$${last}`),
+    cell: (column, row) => `${letter(column)}${row}`,
+  };
+  if (spec.rows.length === 0) {
+    const header = sheet.getRow(spec.top);
+    spec.columns.forEach((column, index) => {
+      header.getCell(index + 1).value = column.header;
+    });
+    header.font = { bold: true };
+    sheet.getCell(first, 1).value = spec.empty;
+    return written;
+  }
+  const withTotals = spec.columns.some((column) => column.total !== undefined);
+  sheet.addTable({
+    name: spec.name,
+    ref: `A${spec.top}`,
+    headerRow: true,
+    totalsRow: withTotals,
+    style: { theme: 'TableStyleLight9', showRowStripes: true },
+    columns: spec.columns.map((column, index) => ({
+      name: column.header,
+      filterButton: true,
+      ...(withTotals && index === 0 ? { totalsRowLabel: 'Total' } : {}),
+      ...(column.total !== undefined ? { totalsRowFunction: 'custom' as const, totalsRowFormula: sumOf(index + 1, first, last) } : {}),
+    })),
+    rows: spec.rows,
+  });
+  spec.columns.forEach((column, index) => {
+    if (column.numFmt === undefined && !column.wrap) return;
+    for (let row = first; row <= last + (withTotals ? 1 : 0); row++) {
+      const cell = sheet.getCell(row, index + 1);
+      if (column.numFmt !== undefined) cell.numFmt = column.numFmt;
+      if (column.wrap) cell.alignment = { wrapText: true, vertical: 'top' };
+    }
+  });
+  if (withTotals) {
+    const totals = last + 1;
+    written.totalsRow = totals;
+    spec.columns.forEach((column, index) => {
+      if (column.total === undefined) return;
+      sheet.getCell(totals, index + 1).value = formula(sumOf(index + 1, first, last), column.total);
+    });
+    sheet.getRow(totals).font = { bold: true };
+  }
+  return written;
+}
+
+function sumOf(column: number, first: number, last: number): string {
+  return `SUM(${letter(column)}${first}:${letter(column)}${last})`;
+}
+
+// ---------------------------------------------------------------- the factors behind the formulas
+
+/**
+ * The factor a formula multiplies by (an LPD, a unit wattage, an exterior rate) so that
+ * quantity × factor (+ extra) gives the engine's watts to its reported 0.1 W. The result carries
+ * each factor rounded (LPDs to 0.001, unit watts to 0.1 W); where that rounding would move the
+ * product by more than the engine's own rounding, the factor is taken from the engine's watts.
+ */
+function factorFor(quantity: Decimal, candidates: Decimal[], target: Decimal, extra: Decimal = ZERO): number {
+  for (const candidate of candidates) {
+    if (quantity.times(candidate).plus(extra).minus(target).abs().lessThanOrEqualTo('0.05')) return num(candidate);
+  }
+  if (quantity.isZero()) return num(candidates[0] ?? ZERO);
+  return target.minus(extra).dividedBy(quantity).toNumber();
+}
+
+/** A space's allowed LPD in the project's units, such that area × LPD + additional is the engine's allowance. */
+function lpdFactor(space: SpaceResult, units: PackageInput['result']['units']): number {
+  const area = dec(space.area);
+  const reportedLpd = dec(space.allowedLpd);
+  const candidates = [reportedLpd];
+  if (units === 'si') {
+    // The tables are per ft²: the SI figure converted back and rounded to 0.0001 W/ft² is the table's value.
+    const squareMetres = dec(squareMetresPerSquareFootText);
+    const tableLpd = reportedLpd.times(squareMetres).toDecimalPlaces(4);
+    candidates.push(tableLpd.dividedBy(squareMetres));
+  }
+  return factorFor(area, candidates, dec(space.allowanceW), dec(space.additionalAllowanceW));
+}
+
+// ---------------------------------------------------------------- Counts
+
+interface CountsTable {
+  table: WrittenTable;
+  /** Column numbers. */
+  columns: { number: number; tag: number; use: number; count: number; watts: number };
+}
+
+const exemptUse = 'Exempt';
+
+function writeCounts(sheet: ExcelJS.Worksheet, spaces: SpaceResult[], formats: Formats): CountsTable {
+  const rows: Cell[][] = [];
+  let total = ZERO;
+  spaces.forEach((space, index) => {
+    for (const line of space.luminaires) {
+      const row = 2 + rows.length;
+      const count = dec(line.count);
+      const unitWatts = factorFor(count, [dec(line.unitWatts)], dec(line.watts));
+      total = total.plus(line.watts);
+      rows.push([
+        index + 1,
+        levelWords(space.level),
+        space.name,
+        line.tag,
+        useWords(line.use),
+        num(count),
+        unitWatts,
+        formula(`F${row}*G${row}`, num(line.watts)),
+        line.basis,
+        line.zone ? zoneName(line.zone) : '',
+      ]);
+    }
+  });
+  const table = writeTable(sheet, {
+    name: 'LuminaireCounts',
+    top: 1,
+    freezeColumns: 4,
+    empty: 'No luminaires are entered in any space.',
+    columns: [
+      { header: 'Space no.', width: 10 },
+      { header: 'Level', width: 14 },
+      { header: 'Space', width: 30 },
+      { header: 'Type', width: 10 },
+      { header: 'Use', width: 16 },
+      { header: 'Count', width: 10, numFmt: formats.count },
+      { header: 'Watts each', width: 13, numFmt: formats.unitWatts },
+      { header: 'Watts', width: 12, numFmt: formats.watts, total: num(total) },
+      { header: 'How the watts are counted', width: 44, wrap: true },
+      { header: 'Daylight zone', width: 18 },
+    ],
+    rows,
+  });
+  return { table, columns: { number: 1, tag: 4, use: 5, count: 6, watts: 8 } };
+}
+
+function zoneName(zone: string): string {
+  return zone === 'primary-sidelit' ? 'Primary sidelit' : zone === 'secondary-sidelit' ? 'Secondary sidelit' : 'Toplit';
+}
+
+// ---------------------------------------------------------------- Spaces
+
+interface SpacesTable {
+  table: WrittenTable;
+  columns: { level: number; area: number; counted: number; installed: number; exempt: number; margin: number };
+}
+
+function writeSpaces(
+  sheet: ExcelJS.Worksheet,
+  spaces: SpaceResult[],
+  counts: CountsTable,
+  formats: Formats,
+  units: PackageInput['result']['units'],
+): SpacesTable {
+  const watts = counts.table.range(counts.columns.watts);
+  const numbers = counts.table.range(counts.columns.number);
+  const uses = counts.table.range(counts.columns.use);
+  const unlit = spaceStatusWords({ lighting: 'unlit', withinAllowance: true });
+  const noneEntered = spaceStatusWords({ lighting: 'none-entered', withinAllowance: true });
+  const rows: Cell[][] = spaces.map((space, index) => {
+    const row = 2 + index;
+    const counted = space.lighting === 'unlit' ? '0' : space.allowanceW;
+    const installedFormula = watts === null ? '0' : `SUMIFS(${watts},${numbers},A${row},${uses},"<>${exemptUse}")`;
+    const exemptFormula = watts === null ? '0' : `SUMIFS(${watts},${numbers},A${row},${uses},"${exemptUse}")`;
+    return [
+      index + 1,
+      levelWords(space.level),
+      space.name,
+      space.lpdBasis.label,
+      num(space.area),
+      lpdFactor(space, units),
+      num(space.additionalAllowanceW),
+      formula(`E${row}*F${row}+G${row}`, num(space.allowanceW)),
+      formula(`IF(P${row}="${unlit}",0,H${row})`, num(counted)),
+      formula(installedFormula, num(space.installedW)),
+      formula(exemptFormula, num(space.exemptW)),
+      formula(`IF(E${row}>0,J${row}/E${row},0)`, num(space.installedLpd)),
+      formula(`H${row}-J${row}`, num(space.marginW)),
+      formula(`IF(H${row}>0,M${row}/H${row},"")`, space.marginPct === null ? '' : num(dec(space.marginPct).dividedBy(100))),
+      space.roomGeometryIncreaseApplied ? 'Yes' : 'No',
+      // The lighting state is an input; the status follows the watts while luminaires are entered.
+      space.lighting === 'entered'
+        ? formula(`IF(J${row}<=H${row},"${withinWords(true)}","${withinWords(false)}")`, spaceStatusWords(space))
+        : space.lighting === 'unlit'
+          ? unlit
+          : noneEntered,
+    ];
+  });
+  const total = (pick: (space: SpaceResult) => string) => num(sum(spaces.map((space) => dec(pick(space)))));
+  const table = writeTable(sheet, {
+    name: 'SpaceAllowances',
+    top: 1,
+    freezeColumns: 3,
+    empty: 'The project has no spaces.',
+    columns: [
+      { header: 'Space no.', width: 10 },
+      { header: 'Level', width: 14 },
+      { header: 'Space', width: 30 },
+      { header: 'LPD basis', width: 30 },
+      { header: 'Area', width: 12, numFmt: formats.area, total: num(sum(spaces.map((space) => dec(space.area)))) },
+      { header: 'Allowed LPD', width: 14, numFmt: formats.density },
+      { header: 'Additional allowance', width: 14, numFmt: formats.watts, total: total((space) => space.additionalAllowanceW) },
+      { header: 'Allowance', width: 13, numFmt: formats.watts, total: total((space) => space.allowanceW) },
+      {
+        header: 'Allowance counted',
+        width: 14,
+        numFmt: formats.watts,
+        total: total((space) => (space.lighting === 'unlit' ? '0' : space.allowanceW)),
+      },
+      { header: 'Installed', width: 13, numFmt: formats.watts, total: total((space) => space.installedW) },
+      { header: 'Exempt', width: 12, numFmt: formats.watts, total: total((space) => space.exemptW) },
+      { header: 'Installed LPD', width: 14, numFmt: formats.density },
+      { header: 'Margin', width: 12, numFmt: formats.watts, total: total((space) => space.marginW) },
+      { header: 'Margin share', width: 12, numFmt: formats.percent },
+      { header: 'Room-geometry increase', width: 14 },
+      { header: 'Status', width: 22 },
+    ],
+    rows,
+  });
+  if (rows.length > 0) verdictFormatting(sheet, `P2:P${table.last}`);
+  return { table, columns: { level: 2, area: 5, counted: 9, installed: 10, exempt: 11, margin: 13 } };
+}
+
+// ---------------------------------------------------------------- Luminaires
+
+function writeLuminaires(sheet: ExcelJS.Worksheet, input: PackageInput, counts: CountsTable, formats: Formats): void {
+  const tags = counts.table.range(counts.columns.tag);
+  const countRange = counts.table.range(counts.columns.count);
+  const watts = counts.table.range(counts.columns.watts);
+  const lines = input.result.interior.spaces.flatMap((space) => space.luminaires);
+  const types = [...input.document.luminaireTypes].sort((a, b) => a.tag.localeCompare(b.tag, 'en-US', { numeric: true }));
+  const rows: Cell[][] = types.map((type, index) => {
+    const row = 2 + index;
+    const own = lines.filter((line) => line.tag === type.tag);
+    const count = sum(own.map((line) => dec(line.count)));
+    const total = sum(own.map((line) => dec(line.watts)));
+    return [
+      type.tag,
+      type.description,
+      num(type.inputWatts),
+      basisWords(type.basis),
+      useWords(type.use),
+      type.exemptReason ?? '',
+      tags === null ? 0 : formula(`SUMIFS(${countRange},${tags},A${row})`, num(count)),
+      tags === null ? 0 : formula(`SUMIFS(${watts},${tags},A${row})`, num(total)),
+    ];
+  });
+  writeTable(sheet, {
+    name: 'LuminaireSchedule',
+    top: 1,
+    freezeColumns: 1,
+    empty: 'No luminaire types are entered.',
+    columns: [
+      { header: 'Type', width: 10 },
+      { header: 'Description', width: 40, wrap: true },
+      { header: 'Rated input', width: 13, numFmt: formats.unitWatts },
+      { header: 'Wattage basis', width: 30 },
+      { header: 'Use', width: 16 },
+      { header: 'Why exempt', width: 30, wrap: true },
+      { header: 'Count in spaces', width: 14, numFmt: formats.count },
+      { header: 'Watts in spaces', width: 14, numFmt: formats.watts, total: num(sum(lines.map((line) => dec(line.watts)))) },
+    ],
+    rows,
+  });
+}
+
+// ---------------------------------------------------------------- Controls
+
+interface ControlsTable {
+  table: WrittenTable;
+  status: number;
+  lines: ControlLine[];
+}
+
+function writeControls(sheet: ExcelJS.Worksheet, input: PackageInput, numberOf: Map<string, number>): ControlsTable {
+  const documentSpaces = new Map(input.document.spaces.map((space) => [space.id, space]));
+  const rows: Cell[][] = [];
+  const lines: ControlLine[] = [];
+  for (const space of orderedSpaces(input.result)) {
+    const provided = documentSpaces.get(space.id)?.controls ?? [];
+    for (const line of space.controls) {
+      lines.push(line);
+      rows.push([
+        numberOf.get(space.id) ?? '',
+        levelWords(space.level),
+        space.name,
+        line.label,
+        requirementWords(line.requirement),
+        providedWords(provided.find((control) => control.strategy === line.strategy)),
+        controlStatusWords(line.status),
+        line.reason,
+        line.section,
+      ]);
+    }
+  }
+  const entries = new Map(input.document.exterior?.applications.map((entry) => [entry.key, entry]) ?? []);
+  for (const application of input.result.exterior?.applications ?? []) {
+    const provided = entries.get(application.key)?.controls ?? [];
+    for (const line of application.controls) {
+      lines.push(line);
+      rows.push([
+        '',
+        'Exterior',
+        application.label,
+        line.label,
+        requirementWords(line.requirement),
+        providedWords(provided.find((control) => control.strategy === line.strategy)),
+        controlStatusWords(line.status),
+        line.reason,
+        line.section,
+      ]);
+    }
+  }
+  const table = writeTable(sheet, {
+    name: 'ControlRequirements',
+    top: 1,
+    freezeColumns: 3,
+    empty: 'No control requirements apply.',
+    columns: [
+      { header: 'Space no.', width: 10 },
+      { header: 'Level', width: 14 },
+      { header: 'Space or application', width: 30 },
+      { header: 'Requirement', width: 30 },
+      { header: 'Required', width: 16 },
+      { header: 'Provided', width: 40, wrap: true },
+      { header: 'Status', width: 18 },
+      { header: 'Why', width: 60, wrap: true },
+      { header: 'Section', width: 22 },
+    ],
+    rows,
+  });
+  if (rows.length > 0) verdictFormatting(sheet, `G2:G${table.last}`);
+  return { table, status: 7, lines };
+}
+
+// ---------------------------------------------------------------- Daylight
+
+function writeDaylight(sheet: ExcelJS.Worksheet, spaces: SpaceResult[], formats: Formats): void {
+  const withDaylight = spaces.filter(
+    (space) =>
+      !dec(space.daylight.windowArea).isZero() ||
+      !dec(space.daylight.primarySidelitArea).isZero() ||
+      !dec(space.daylight.toplitArea).isZero() ||
+      space.daylight.zones.length > 0,
+  );
+  const yesNo = (value: boolean) => (value ? 'Required' : 'Not required');
+  const rows: Cell[][] = withDaylight.map((space) => {
+    const daylight = space.daylight;
+    return [
+      spaces.indexOf(space) + 1,
+      levelWords(space.level),
+      space.name,
+      num(daylight.windowArea),
+      num(daylight.primarySidelitArea),
+      num(daylight.secondarySidelitArea),
+      num(daylight.toplitArea),
+      num(daylight.primarySidelitW),
+      num(daylight.secondarySidelitW),
+      num(daylight.toplitW),
+      yesNo(daylight.sidelightingControlRequired),
+      yesNo(daylight.secondarySidelightingControlRequired),
+      yesNo(daylight.toplightingControlRequired),
+      daylight.geometryEvaluated ? daylight.reasons.join(' ') : 'No room rectangle (length × width) is given, so no zones are drawn.',
+      daylight.section,
+    ];
+  });
+  writeTable(sheet, {
+    name: 'DaylightZones',
+    top: 1,
+    freezeColumns: 3,
+    empty: 'No space has windows or skylights.',
+    columns: [
+      { header: 'Space no.', width: 10 },
+      { header: 'Level', width: 14 },
+      { header: 'Space', width: 30 },
+      { header: 'Window area', width: 12, numFmt: formats.area },
+      { header: 'Primary sidelit area', width: 14, numFmt: formats.area },
+      { header: 'Secondary sidelit area', width: 14, numFmt: formats.area },
+      { header: 'Toplit area', width: 12, numFmt: formats.area },
+      { header: 'Primary sidelit watts', width: 14, numFmt: formats.watts },
+      { header: 'Secondary sidelit watts', width: 14, numFmt: formats.watts },
+      { header: 'Toplit watts', width: 12, numFmt: formats.watts },
+      { header: 'Sidelighting control', width: 16 },
+      { header: 'Secondary sidelighting control', width: 16 },
+      { header: 'Toplighting control', width: 16 },
+      { header: 'Why', width: 60, wrap: true },
+      { header: 'Section', width: 22 },
+    ],
+    rows,
+  });
+}
+
+// ---------------------------------------------------------------- Exterior
+
+interface ExteriorTable {
+  table: WrittenTable;
+  columns: { allowance: number; installed: number; exempt: number };
+}
+
+function writeExterior(sheet: ExcelJS.Worksheet, input: PackageInput, formats: Formats): ExteriorTable | null {
+  const exterior = input.result.exterior;
+  if (exterior === null) {
+    sheet.getColumn(1).width = 60;
+    sheet.getCell('A1').value = 'The project has no exterior lighting.';
+    return null;
+  }
+  const rows: Cell[][] = exterior.applications.map((application, index) => {
+    const row = 2 + index;
+    const quantity = dec(application.quantity);
+    const rate = factorFor(quantity, [dec(application.rate)], dec(application.allowanceW));
+    return [
+      application.label,
+      application.tradable ? 'Tradable' : 'Nontradable',
+      num(quantity),
+      quantityUnit(application.unit),
+      rate,
+      formula(`C${row}*E${row}`, num(application.allowanceW)),
+      num(application.installedW),
+      num(application.exemptW),
+      application.exemption ? application.exemption.label : '',
+      num(application.baseSiteUsedW),
+      formula(`F${row}+J${row}-G${row}`, num(application.marginW)),
+      withinWords(application.withinAllowance),
+      application.section,
+    ];
+  });
+  const total = (pick: (application: ExteriorApplicationResult) => string) =>
+    num(sum(exterior.applications.map((application) => dec(pick(application)))));
+  const table = writeTable(sheet, {
+    name: 'ExteriorApplications',
+    top: 1,
+    freezeColumns: 1,
+    empty: 'No exterior applications are entered.',
+    columns: [
+      { header: 'Application', width: 36 },
+      { header: 'Kind', width: 14 },
+      { header: 'Quantity', width: 12, numFmt: formats.quantity },
+      { header: 'Unit', width: 12 },
+      { header: 'Allowance rate (W per unit)', width: 16, numFmt: formats.rate },
+      { header: 'Allowance', width: 13, numFmt: formats.watts, total: total((application) => application.allowanceW) },
+      { header: 'Installed counted', width: 14, numFmt: formats.watts, total: total((application) => application.installedW) },
+      { header: 'Exempt', width: 12, numFmt: formats.watts, total: total((application) => application.exemptW) },
+      { header: 'Why exempt', width: 30, wrap: true },
+      { header: 'Base site allowance used', width: 16, numFmt: formats.watts },
+      { header: 'Margin', width: 12, numFmt: formats.watts },
+      { header: 'Status', width: 20 },
+      { header: 'Section', width: 22 },
+    ],
+    rows,
+  });
+  if (rows.length > 0) verdictFormatting(sheet, `L2:L${table.last}`);
+  const note = (table.totalsRow ?? table.first) + 2;
+  sheet.getCell(note, 1).value =
+    'Tradable applications are judged together with the base site allowance; each status says how its pool or the application itself stands.';
+  return { table, columns: { allowance: 6, installed: 7, exempt: 8 } };
+}
+
+// ---------------------------------------------------------------- Sources
+
+function writeSources(sheet: ExcelJS.Worksheet, input: PackageInput): void {
+  const rows: Cell[][] = input.result.unverifiedValues.map((value) => [
+    value.what,
+    value.citation.short,
+    value.source,
+    confidenceWords(value),
+    noteWords(value),
+  ]);
+  writeTable(sheet, {
+    name: 'ValueSources',
+    top: 1,
+    freezeColumns: 1,
+    empty: 'Every code value this evaluation used is checked against its published source.',
+    columns: [
+      { header: 'Value used', width: 44, wrap: true },
+      { header: 'Cited as', width: 44, wrap: true },
+      { header: 'Source', width: 40, wrap: true },
+      { header: 'Confidence', width: 36, wrap: true },
+      { header: 'Note', width: 70, wrap: true },
+    ],
+    rows,
+  });
+  const after = Math.max(rows.length, 1) + 3;
+  sheet.getCell(after, 1).value = `Code tables: ${editionWords(input.result.edition)}, data version ${input.result.dataVersion}.`;
+  sheet.getCell(after + 1, 1).value = 'The engineer of record verifies every value listed here before relying on the result.';
+}
+
+// ---------------------------------------------------------------- Summary
+
+function writeSummary(
+  sheet: ExcelJS.Worksheet,
+  input: PackageInput,
+  spaces: SpacesTable,
+  controls: ControlsTable,
+  exterior: ExteriorTable | null,
+  formats: Formats,
+): void {
+  const { project, result, revision } = input;
+  sheet.getColumn(1).width = 34;
+  sheet.getColumn(2).width = 40;
+  sheet.getColumn(3).width = 16;
+  sheet.getColumn(4).width = 16;
+  sheet.getColumn(5).width = 16;
+  sheet.views = [{ state: 'frozen', ySplit: 1 }];
+  let row = 1;
+  const title = sheet.getCell(row, 1);
+  title.value = revision.draft ? `${project.name} — DRAFT — not for permit` : project.name;
+  title.font = { bold: true, size: 14 };
+  row += 2;
+
+  const fact = (label: string, value: Cell, numFmt?: string) => {
+    sheet.getCell(row, 1).value = label;
+    const cell = sheet.getCell(row, 2);
+    cell.value = value;
+    if (numFmt) cell.numFmt = numFmt;
+    row += 1;
+    return `B${row - 1}`;
+  };
+  const heading = (text: string) => {
+    row += 1;
+    const cell = sheet.getCell(row, 1);
+    cell.value = text;
+    cell.font = { bold: true, size: 12 };
+    row += 1;
+  };
+
+  fact('Project', project.name);
+  fact('Address', project.address ?? 'Not entered');
+  fact('Jurisdiction', project.jurisdiction ?? 'Not entered');
+  fact('Code edition', editionWords(result.edition));
+  fact('Method', methodWords(result.method));
+  fact('Units', unitSystemWords(result.units));
+  fact('Lighting zone', result.exterior?.lightingZone ?? (project.lightingZone === null ? 'Not entered' : String(project.lightingZone)));
+  fact('Revision', revision.draft ? `${revision.number} (draft)` : String(revision.number));
+  fact('Date', dateWords(revision.madeAt, project.timeZone));
+  fact('Design state', stateWords(project.state));
+  fact('Fingerprint', revision.fingerprint);
+
+  const sumRange = (range: string | null) => (range === null ? '0' : `SUM(${range})`);
+
+  heading('Interior lighting power');
+  const counted = num(sum(result.interior.spaces.map((space) => (space.lighting === 'unlit' ? ZERO : dec(space.allowanceW)))));
+  // The retail display fixed adder, used once per building, is the part of the total no space carries.
+  const fixedW = dec(result.interior.allowanceW).minus(counted);
+  const fixed = fixedW.abs().lessThanOrEqualTo('0.05') ? 0 : num(fixedW);
+  const fixedCell = fact('Retail display adder used (once per building)', fixed, formats.watts);
+  const allowanceCell = fact(
+    'Allowance',
+    formula(`${sumRange(spaces.table.range(spaces.columns.counted))}+${fixedCell}`, num(result.interior.allowanceW)),
+    formats.watts,
+  );
+  const installedCell = fact(
+    'Installed',
+    formula(sumRange(spaces.table.range(spaces.columns.installed)), num(result.interior.installedW)),
+    formats.watts,
+  );
+  fact('Exempt (not counted)', formula(sumRange(spaces.table.range(spaces.columns.exempt)), num(result.interior.exemptW)), formats.watts);
+  const marginCell = fact('Margin', formula(`${allowanceCell}-${installedCell}`, num(result.interior.marginW)), formats.watts);
+  fact(
+    'Margin share',
+    formula(
+      `IF(${allowanceCell}>0,${marginCell}/${allowanceCell},"")`,
+      result.interior.marginPct === null ? '' : num(dec(result.interior.marginPct).dividedBy(100)),
+    ),
+    formats.percent,
+  );
+  const interiorVerdict = fact(
+    'Interior power',
+    formula(`IF(${installedCell}<=${allowanceCell},"${withinWords(true)}","${withinWords(false)}")`, withinWords(result.interior.complies)),
+  );
+  const verdictCells = [interiorVerdict];
+
+  if (result.exterior !== null && exterior !== null) {
+    heading('Exterior lighting power');
+    const base = fact('Base site allowance', num(result.exterior.baseSiteAllowanceW), formats.watts);
+    const allowance = fact(
+      'Allowance',
+      formula(`${base}+${sumRange(exterior.table.range(exterior.columns.allowance))}`, num(result.exterior.allowanceW)),
+      formats.watts,
+    );
+    const installed = fact(
+      'Installed counted',
+      formula(sumRange(exterior.table.range(exterior.columns.installed)), num(result.exterior.installedW)),
+      formats.watts,
+    );
+    fact(
+      'Exempt (not counted)',
+      formula(sumRange(exterior.table.range(exterior.columns.exempt)), num(result.exterior.exemptW)),
+      formats.watts,
+    );
+    fact(
+      'Margin',
+      formula(`${allowance}-${installed}`, num(dec(result.exterior.allowanceW).minus(result.exterior.installedW))),
+      formats.watts,
+    );
+    verdictCells.push(fact('Exterior power', withinWords(result.exterior.complies)));
+  }
+
+  heading('Controls');
+  const statusRange = controls.table.range(controls.status);
+  const countOf = (status: ControlLine['status']) => {
+    const words = controlStatusWords(status);
+    const cached = controls.lines.filter((line) => line.status === status).length;
+    return statusRange === null ? 0 : formula(`COUNTIF(${statusRange},"${words}")`, cached);
+  };
+  fact('Met', countOf('met'));
+  fact('Exception claimed', countOf('exception-claimed'));
+  fact('Not met', countOf('not-met'));
+  fact('To verify', countOf('to-verify'));
+  fact('Not required', countOf('not-required'));
+  verdictCells.push(fact('Controls', result.controlsComply ? 'Met' : 'Not met'));
+
+  heading('Result');
+  verdictCells.push(fact('Overall', verdictWords(result.verdict)));
+  fact('Spaces without luminaires', result.openItems.spacesWithoutLuminaires);
+  fact('Control requirements to verify', result.openItems.controlsToVerify);
+  for (const cell of verdictCells) verdictFormatting(sheet, `${cell}:${cell}`);
+
+  // Subtotals by level: SUMIFS over the Spaces sheet.
+  const levels = result.interior.levels;
+  if (levels !== null && levels.length > 0 && spaces.table.range(1) !== null) {
+    heading('By level');
+    const levelRange = spaces.table.range(spaces.columns.level)!;
+    const ordered = [...new Set(orderedSpaces(result).map((space) => space.level ?? ''))];
+    const levelRows: Cell[][] = ordered.map((level, index) => {
+      const line = levels.find((candidate) => candidate.level === level)!;
+      const at = row + 1 + index;
+      const sumif = (column: number) => `SUMIFS(${spaces.table.range(column)},${levelRange},A${at})`;
+      return [
+        levelWords(level === '' ? null : level),
+        formula(sumif(spaces.columns.area), num(line.area)),
+        formula(sumif(spaces.columns.counted), num(line.allowanceW)),
+        formula(sumif(spaces.columns.installed), num(line.installedW)),
+        formula(`C${at}-D${at}`, num(line.marginW)),
+      ];
+    });
+    const top = row;
+    const written = writeTable(sheet, {
+      name: 'LevelSubtotals',
+      top,
+      empty: '',
+      columns: [
+        { header: 'Level', width: 34 },
+        { header: 'Area', width: 40, numFmt: formats.area },
+        { header: 'Allowance', width: 16, numFmt: formats.watts },
+        { header: 'Installed', width: 16, numFmt: formats.watts },
+        { header: 'Margin', width: 16, numFmt: formats.watts },
+      ],
+      rows: levelRows,
+    });
+    // writeTable freezes its header row; the summary keeps only its title row frozen.
+    sheet.views = [{ state: 'frozen', ySplit: 1 }];
+    row = written.last + 2;
+  }
+
+  row += 1;
+  for (const caution of [...new Set(result.cautions)]) {
+    const cell = sheet.getCell(row, 1);
+    cell.value = caution;
+    row += 1;
+  }
+}

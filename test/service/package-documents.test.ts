@@ -1,0 +1,443 @@
+import { createHash } from 'node:crypto';
+import ExcelJS from 'exceljs';
+import JSZip from 'jszip';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { EvaluationResult } from '../../contract/result.js';
+import type { ReviewItem } from '../../contract/review.js';
+import { loadEditionData } from '../../service/src/code-tables/code-tables.repository.js';
+import { evaluate, validateDocument, type EditionData } from '../../service/src/compliance/index.js';
+import type { EvaluationDocument } from '../../service/src/compliance/document.js';
+import { projectDocument } from '../../service/src/design/project-document.js';
+import { buildCompliancePackage, draftMark } from '../../service/src/package/compliance-package.js';
+import { buildComplianceWorkbook } from '../../service/src/package/compliance-workbook.js';
+import type { PackageInput } from '../../service/src/package/package-input.js';
+import { orderedSpaces, withUnits } from '../../service/src/package/package-words.js';
+import { getProjectDetail } from '../../service/src/projects/projects.repository.js';
+import { demoProjectName } from '../../schema/seeds/demo-data.js';
+import { freshDatabase, type TestDatabase } from '../support/database.js';
+
+let database: TestDatabase;
+let input: PackageInput;
+let tables: EditionData;
+
+const fingerprint = createHash('sha256').update('package documents test').digest('hex');
+const earlier = createHash('sha256').update('an earlier revision').digest('hex');
+
+const reviewItem: ReviewItem = {
+  id: 'item-1',
+  kind: 'occupancy-sensing',
+  title: '104 Staff workroom: Occupancy sensing',
+  section: 'IECC 2021 §C405.2.1',
+  outcome: 'met',
+  reasoning: 'An occupant sensor is provided with a 20-minute time-out.',
+  values: [{ label: 'Time-out', value: '20 min' }],
+  verdict: 'needs-revision',
+  changed: false,
+  round: 1,
+  thread: [
+    {
+      by: 'Riley Reviewer',
+      role: 'reviewer',
+      at: '2025-03-10T16:00:00Z',
+      text: 'Show the sensor on the plan.',
+      verdict: 'needs-revision',
+      round: 1,
+    },
+    { by: 'Dana Engineer', role: 'engineer', at: '2025-03-11T09:30:00Z', text: 'Added to sheet E-201.', round: 1 },
+  ],
+};
+
+beforeAll(async () => {
+  database = await freshDatabase();
+  const row = await database.db('projects').where({ name: demoProjectName }).first<{ id: string }>('id');
+  const project = await getProjectDetail(database.db, row!.id, 'engineer');
+  const raw = await projectDocument(database.db, row!.id);
+  tables = (await loadEditionData(database.db, raw.edition))!;
+  const outcome = validateDocument(raw, tables);
+  if (!outcome.valid) throw new Error(JSON.stringify(outcome.problems));
+  input = {
+    project,
+    document: outcome.document,
+    result: evaluate(outcome.document, tables),
+    revision: { number: 2, fingerprint, madeAt: '2025-03-14T15:00:00Z', madeBy: 'Dana Engineer', draft: true },
+    history: [{ number: 1, fingerprint: earlier, madeAt: '2025-03-01T15:00:00Z', madeBy: 'Dana Engineer', draft: true }],
+    review: { round: 1, items: [reviewItem] },
+  };
+});
+
+afterAll(async () => {
+  await database.drop();
+});
+
+// ---------------------------------------------------------------- reading a .docx back
+
+interface WordParts {
+  body: string;
+  /** Each section's default header and footer, as text. */
+  sections: { header: string; footer: string }[];
+}
+
+function words(xml: string): string {
+  return xml
+    .replace(/<w:tab\/>/g, '\t')
+    .replace(/<\/w:p>/g, '\n')
+    .replace(/<[^>]+>/g, '')
+    .replace(/&lt;/g, '<')
+    .replace(/&gt;/g, '>')
+    .replace(/&quot;/g, '"')
+    .replace(/&apos;/g, "'")
+    .replace(/&amp;/g, '&');
+}
+
+async function readWord(buffer: Buffer): Promise<WordParts> {
+  const zip = await JSZip.loadAsync(buffer);
+  const documentXml = await zip.file('word/document.xml')!.async('string');
+  const relations = await zip.file('word/_rels/document.xml.rels')!.async('string');
+  const targets = new Map(
+    [...relations.matchAll(/<Relationship [^>]*Id="([^"]+)"[^>]*Target="([^"]+)"/g)].map((match) => [match[1]!, match[2]!]),
+  );
+  const part = async (id: string | undefined) =>
+    id === undefined ? '' : words(await zip.file(`word/${targets.get(id)}`)!.async('string'));
+  const sections: WordParts['sections'] = [];
+  for (const sectPr of documentXml.match(/<w:sectPr[\s\S]*?<\/w:sectPr>/g) ?? []) {
+    const header = /<w:headerReference w:type="default" r:id="([^"]+)"/.exec(sectPr)?.[1];
+    const footer = /<w:footerReference w:type="default" r:id="([^"]+)"/.exec(sectPr)?.[1];
+    sections.push({ header: await part(header), footer: await part(footer) });
+  }
+  return { body: words(documentXml), sections };
+}
+
+// ---------------------------------------------------------------- reading a .xlsx back
+
+async function readWorkbook(buffer: Buffer): Promise<ExcelJS.Workbook> {
+  const workbook = new ExcelJS.Workbook();
+  await workbook.xlsx.load(buffer as unknown as ArrayBuffer);
+  return workbook;
+}
+
+function formulaOf(cell: ExcelJS.Cell): string {
+  const value = cell.value as ExcelJS.CellFormulaValue;
+  expect(value, `${cell.address} holds a formula`).toHaveProperty('formula');
+  return value.formula;
+}
+
+function cached(cell: ExcelJS.Cell): number {
+  const value = cell.value as ExcelJS.CellFormulaValue;
+  return Number(value.result);
+}
+
+function numberIn(cell: ExcelJS.Cell): number {
+  const value = cell.value;
+  if (typeof value === 'number') return value;
+  return cached(cell);
+}
+
+/** The value cell (column B) of the first row labelled `label` at or after the row labelled `after`. */
+function summaryCell(sheet: ExcelJS.Worksheet, after: string, label: string): ExcelJS.Cell {
+  let seen = false;
+  for (let row = 1; row <= sheet.rowCount; row++) {
+    const text = sheet.getCell(row, 1).value;
+    if (text === after) seen = true;
+    if (seen && text === label) return sheet.getCell(row, 2);
+  }
+  throw new Error(`no “${label}” after “${after}” on the summary`);
+}
+
+function tableNames(sheet: ExcelJS.Worksheet): string[] {
+  return Object.keys((sheet as unknown as { tables: Record<string, unknown> }).tables ?? {});
+}
+
+describe('the Word compliance package', () => {
+  let draft: WordParts;
+  let final: WordParts;
+
+  beforeAll(async () => {
+    draft = await readWord(await buildCompliancePackage(input));
+    final = await readWord(
+      await buildCompliancePackage(
+        { ...input, revision: { ...input.revision, draft: false }, review: undefined },
+        {
+          cutSheets: new Map([[input.document.luminaireTypes[0]!.tag, 'Downlight cut sheet.pdf']]),
+        },
+      ),
+    );
+  });
+
+  it('has the project’s set-up and the revision on the cover', () => {
+    const { project } = input;
+    for (const text of [
+      'Lighting energy compliance package',
+      project.name,
+      project.address!,
+      project.jurisdiction!,
+      'IECC 2021',
+      'Space-by-space method',
+      'Inch-pound (ft², W/ft²)',
+      `Zone ${input.result.exterior!.lightingZone}`,
+      'Prepared by',
+      '2 (draft)',
+      'March 14, 2025',
+      'Draft',
+      fingerprint,
+    ]) {
+      expect(draft.body, text).toContain(text);
+    }
+    expect(final.body).not.toContain('2 (draft)');
+  });
+
+  it('gives the summary totals in the words and units of the web app', () => {
+    const { interior } = input.result;
+    expect(draft.body).toContain(withUnits.watts(interior.allowanceW));
+    expect(draft.body).toContain(withUnits.watts(interior.installedW));
+    expect(draft.body).toMatch(/Overall result: Complies/);
+    expect(draft.body).toContain(`(${withUnits.percent(interior.marginPct)}) to spare`);
+    // Thousands separators, as the web app shows them.
+    expect(withUnits.watts(interior.allowanceW)).toMatch(/^\d{1,3}(,\d{3})+ W$/);
+  });
+
+  it('lists every space, grouped by level with subtotals', () => {
+    for (const space of input.result.interior.spaces) expect(draft.body).toContain(space.name);
+    expect(draft.body).toContain('Subtotal, Level 1');
+    expect(draft.body).toContain('Subtotal, Level 2');
+    expect(draft.body.indexOf('Subtotal, Level 1')).toBeLessThan(draft.body.indexOf('Subtotal, Level 2'));
+    expect(draft.body).toContain('Building total');
+  });
+
+  it('lists the luminaire schedule with the cut sheet where one is on file', () => {
+    for (const type of input.document.luminaireTypes) expect(draft.body).toContain(type.description);
+    expect(draft.body).toContain('None on file');
+    expect(final.body).toContain('Downlight cut sheet.pdf');
+  });
+
+  it('carries the fingerprint in the footer of every section and the draft mark in every header of a draft only', () => {
+    expect(draft.sections.length).toBeGreaterThanOrEqual(3);
+    for (const section of draft.sections) {
+      expect(section.footer).toContain(fingerprint);
+      expect(section.header).toContain(draftMark);
+    }
+    for (const section of final.sections) {
+      expect(section.footer).toContain(fingerprint);
+      expect(section.header).not.toContain('DRAFT');
+    }
+    expect(final.body).not.toContain('DRAFT');
+  });
+
+  it('carries the cautions and every unverified value with its source', () => {
+    expect(input.result.cautions.length).toBeGreaterThanOrEqual(3);
+    for (const caution of input.result.cautions) expect(draft.body).toContain(caution);
+    expect(draft.body).toMatch(/emergency or egress lighting/);
+    expect(draft.body).toMatch(/authority having jurisdiction govern/);
+    expect(input.result.unverifiedValues.length).toBeGreaterThan(0);
+    for (const value of input.result.unverifiedValues) {
+      expect(draft.body).toContain(value.what);
+      expect(draft.body).toContain(value.citation.short);
+    }
+  });
+
+  it('has the controls with what is provided, the daylight zones, the exterior, the statement and the history', () => {
+    const controlled = input.document.spaces.flatMap((space) => space.controls).find((control) => control.device !== undefined);
+    expect(controlled).toBeDefined();
+    expect(draft.body).toContain(controlled!.device!);
+    expect(draft.body).toContain('Daylight zones');
+    expect(draft.body).toContain('Primary sidelit');
+    for (const application of input.result.exterior!.applications) expect(draft.body).toContain(application.label);
+    expect(draft.body).toContain('Statement of the designer of record');
+    expect(draft.body).toContain('Signature');
+    expect(draft.body).toContain('Revision history');
+    expect(draft.body).toContain(earlier);
+  });
+
+  it('has the review record when there is one', () => {
+    expect(draft.body).toContain('Review record, round 1');
+    expect(draft.body).toContain(reviewItem.title);
+    expect(draft.body).toContain('Needs revision');
+    expect(draft.body).toContain('Added to sheet E-201.');
+    expect(final.body).not.toContain('Review record');
+  });
+
+  it('shows no internal keys or enum values', () => {
+    for (const code of [
+      'does-not-comply',
+      'not-met',
+      'to-verify',
+      'exception-claimed',
+      'primary-sidelit',
+      'iecc-2021',
+      'building-area-type',
+    ]) {
+      expect(draft.body).not.toContain(code);
+    }
+  });
+});
+
+describe('the Excel compliance workbook', () => {
+  let workbook: ExcelJS.Workbook;
+  let result: EvaluationResult;
+
+  beforeAll(async () => {
+    result = input.result;
+    workbook = await readWorkbook(await buildComplianceWorkbook(input));
+  });
+
+  it('has the eight sheets, each with its header row frozen', () => {
+    expect(workbook.worksheets.map((sheet) => sheet.name)).toEqual([
+      'Summary',
+      'Spaces',
+      'Luminaires',
+      'Counts',
+      'Controls',
+      'Daylight',
+      'Exterior',
+      'Sources',
+    ]);
+    for (const sheet of workbook.worksheets) {
+      expect(sheet.views[0], sheet.name).toMatchObject({ state: 'frozen', ySplit: 1 });
+      expect(sheet.headerFooter.oddFooter, sheet.name).toContain(fingerprint);
+      expect(sheet.headerFooter.oddHeader, sheet.name).toContain('DRAFT — not for permit');
+    }
+  });
+
+  it('has a named table on each sheet of rows', () => {
+    expect(tableNames(workbook.getWorksheet('Spaces')!)).toEqual(['SpaceAllowances']);
+    expect(tableNames(workbook.getWorksheet('Counts')!)).toEqual(['LuminaireCounts']);
+    expect(tableNames(workbook.getWorksheet('Luminaires')!)).toEqual(['LuminaireSchedule']);
+    expect(tableNames(workbook.getWorksheet('Controls')!)).toEqual(['ControlRequirements']);
+    expect(tableNames(workbook.getWorksheet('Daylight')!)).toEqual(['DaylightZones']);
+    expect(tableNames(workbook.getWorksheet('Exterior')!)).toEqual(['ExteriorApplications']);
+    expect(tableNames(workbook.getWorksheet('Sources')!)).toEqual(['ValueSources']);
+    expect(tableNames(workbook.getWorksheet('Summary')!)).toEqual(['LevelSubtotals']);
+  });
+
+  it('computes each space’s allowance as area × LPD with the engine’s value cached', () => {
+    const sheet = workbook.getWorksheet('Spaces')!;
+    const spaces = orderedSpaces(result);
+    spaces.forEach((space, index) => {
+      const row = 2 + index;
+      expect(sheet.getCell(row, 3).value).toBe(space.name);
+      const allowance = sheet.getCell(row, 8);
+      expect(formulaOf(allowance)).toBe(`E${row}*F${row}+G${row}`);
+      expect(cached(allowance)).toBe(Number(space.allowanceW));
+      // The formula's inputs recompute the engine's allowance to its reported 0.1 W.
+      const recomputed = numberIn(sheet.getCell(row, 5)) * numberIn(sheet.getCell(row, 6)) + numberIn(sheet.getCell(row, 7));
+      expect(Math.abs(recomputed - Number(space.allowanceW))).toBeLessThanOrEqual(0.05 + 1e-9);
+      const installed = sheet.getCell(row, 10);
+      expect(formulaOf(installed)).toMatch(new RegExp(`^SUMIFS\\(Counts!\\$H\\$2:\\$H\\$\\d+,Counts!\\$A\\$2:\\$A\\$\\d+,A${row},`));
+      expect(cached(installed)).toBe(Number(space.installedW));
+      expect(formulaOf(sheet.getCell(row, 13))).toBe(`H${row}-J${row}`);
+      expect(cached(sheet.getCell(row, 13))).toBe(Number(space.marginW));
+    });
+    expect(sheet.getCell(2, 8).numFmt).toBe('#,##0 "W"');
+    expect(sheet.getCell(2, 6).numFmt).toBe('0.00 "W/ft²"');
+    expect(sheet.getCell(2, 5).numFmt).toBe('#,##0 "ft²"');
+    const totals = 2 + spaces.length;
+    expect(sheet.getCell(totals, 1).value).toBe('Total');
+    expect(formulaOf(sheet.getCell(totals, 8))).toBe(`SUM(H2:H${totals - 1})`);
+  });
+
+  it('computes each luminaire line as count × watts each, the engine’s watts cached', () => {
+    const sheet = workbook.getWorksheet('Counts')!;
+    const lines = orderedSpaces(result).flatMap((space) => space.luminaires);
+    let installed = 0;
+    lines.forEach((line, index) => {
+      const row = 2 + index;
+      expect(sheet.getCell(row, 4).value).toBe(line.tag);
+      expect(formulaOf(sheet.getCell(row, 8))).toBe(`F${row}*G${row}`);
+      expect(cached(sheet.getCell(row, 8))).toBe(Number(line.watts));
+      if (line.use !== 'exempt') installed += numberIn(sheet.getCell(row, 6)) * numberIn(sheet.getCell(row, 7));
+    });
+    expect(Math.abs(installed - Number(result.interior.installedW))).toBeLessThanOrEqual(0.05 + 1e-9);
+    expect(sheet.getCell(2, 8).numFmt).toBe('#,##0 "W"');
+  });
+
+  it('totals the interior and exterior on the summary with live formulas and the engine’s values cached', () => {
+    const sheet = workbook.getWorksheet('Summary')!;
+    const allowance = summaryCell(sheet, 'Interior lighting power', 'Allowance');
+    expect(formulaOf(allowance)).toMatch(/^SUM\(Spaces!\$I\$2:\$I\$\d+\)\+B\d+$/);
+    expect(cached(allowance)).toBe(Number(result.interior.allowanceW));
+    const installed = summaryCell(sheet, 'Interior lighting power', 'Installed');
+    expect(formulaOf(installed)).toMatch(/^SUM\(Spaces!\$J\$2:\$J\$\d+\)$/);
+    expect(cached(installed)).toBe(Number(result.interior.installedW));
+    const margin = summaryCell(sheet, 'Interior lighting power', 'Margin');
+    expect(formulaOf(margin)).toBe(`${allowance.address}-${installed.address}`);
+    expect(cached(margin)).toBe(Number(result.interior.marginW));
+    expect(margin.numFmt).toBe('#,##0 "W"');
+    const verdict = summaryCell(sheet, 'Interior lighting power', 'Interior power');
+    expect((verdict.value as ExcelJS.CellFormulaValue).result).toBe('Within allowance');
+    expect(summaryCell(sheet, 'Result', 'Overall').value).toBe('Complies');
+
+    // The spaces' own allowances, recomputed from their area and LPD cells, add up to the engine's total.
+    const spaces = workbook.getWorksheet('Spaces')!;
+    let total = 0;
+    orderedSpaces(result).forEach((space, index) => {
+      if (space.lighting === 'unlit') return;
+      const row = 2 + index;
+      total += numberIn(spaces.getCell(row, 5)) * numberIn(spaces.getCell(row, 6)) + numberIn(spaces.getCell(row, 7));
+    });
+    total += numberIn(summaryCell(sheet, 'Interior lighting power', 'Retail display adder used (once per building)'));
+    expect(Math.abs(total - Number(result.interior.allowanceW))).toBeLessThanOrEqual(0.05 + 1e-9);
+
+    const exterior = summaryCell(sheet, 'Exterior lighting power', 'Allowance');
+    expect(formulaOf(exterior)).toMatch(/^B\d+\+SUM\(Exterior!\$F\$2:\$F\$\d+\)$/);
+    expect(cached(exterior)).toBe(Number(result.exterior!.allowanceW));
+  });
+
+  it('subtotals by level with SUMIFS over the spaces', () => {
+    const sheet = workbook.getWorksheet('Summary')!;
+    for (const level of result.interior.levels!) {
+      let row = 1;
+      while (row <= sheet.rowCount && sheet.getCell(row, 1).value !== level.level) row++;
+      expect(row, level.level).toBeLessThanOrEqual(sheet.rowCount);
+      const allowance = sheet.getCell(row, 3);
+      expect(formulaOf(allowance)).toBe(
+        `SUMIFS(Spaces!$I$2:$I$${1 + result.interior.spaces.length},Spaces!$B$2:$B$${1 + result.interior.spaces.length},A${row})`,
+      );
+      expect(cached(allowance)).toBe(Number(level.allowanceW));
+      expect(cached(sheet.getCell(row, 4))).toBe(Number(level.installedW));
+    }
+  });
+
+  it('counts the controls by status and colours the verdict words', () => {
+    const sheet = workbook.getWorksheet('Summary')!;
+    const met = summaryCell(sheet, 'Controls', 'Met');
+    expect(formulaOf(met)).toMatch(/^COUNTIF\(Controls!\$G\$2:\$G\$\d+,"Met"\)$/);
+    const lines = [
+      ...result.interior.spaces.flatMap((space) => space.controls),
+      ...result.exterior!.applications.flatMap((application) => application.controls),
+    ];
+    expect(cached(met)).toBe(lines.filter((line) => line.status === 'met').length);
+    const spaces = workbook.getWorksheet('Spaces')!;
+    const rules = (spaces as unknown as { conditionalFormattings: { ref: string; rules: unknown[] }[] }).conditionalFormattings;
+    expect(rules.map((rule) => rule.ref)).toContain(`P2:P${1 + result.interior.spaces.length}`);
+  });
+
+  it('lists every unverified value with its source on the Sources sheet', () => {
+    const sheet = workbook.getWorksheet('Sources')!;
+    result.unverifiedValues.forEach((value, index) => {
+      expect(sheet.getCell(2 + index, 1).value).toBe(value.what);
+      expect(sheet.getCell(2 + index, 2).value).toBe(value.citation.short);
+      expect(sheet.getCell(2 + index, 4).value).toEqual(expect.any(String));
+    });
+  });
+
+  it('writes SI formats and reproduces SI allowances where the project is in SI', async () => {
+    // The demo's figures read as metres: a different building, but a valid SI document for the same tables.
+    const siDocument = validateDocument({ ...input.document, units: 'si' }, tables);
+    expect(siDocument.valid, JSON.stringify(siDocument.valid ? [] : siDocument.problems)).toBe(true);
+    const document = (siDocument as { document: EvaluationDocument }).document;
+    const siResult = evaluate(document, tables);
+    const si = await readWorkbook(
+      await buildComplianceWorkbook({ ...input, project: { ...input.project, units: 'si' }, document, result: siResult }),
+    );
+    const sheet = si.getWorksheet('Spaces')!;
+    expect(sheet.getCell(2, 6).numFmt).toBe('0.00 "W/m²"');
+    expect(sheet.getCell(2, 5).numFmt).toBe('#,##0.0 "m²"');
+    orderedSpaces(siResult).forEach((space, index) => {
+      const row = 2 + index;
+      const recomputed = numberIn(sheet.getCell(row, 5)) * numberIn(sheet.getCell(row, 6)) + numberIn(sheet.getCell(row, 7));
+      expect(Math.abs(recomputed - Number(space.allowanceW)), space.name).toBeLessThanOrEqual(0.05 + 1e-9);
+      expect(cached(sheet.getCell(row, 8))).toBe(Number(space.allowanceW));
+    });
+    const summary = si.getWorksheet('Summary')!;
+    expect(cached(summaryCell(summary, 'Interior lighting power', 'Allowance'))).toBe(Number(siResult.interior.allowanceW));
+  });
+});
