@@ -76,12 +76,31 @@ const configSchema = z
     MAIL_RETRY_SECONDS: z.coerce.number().positive().max(3600).default(60),
     MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
     MAIL_POLL_SECONDS: z.coerce.number().positive().max(3600).default(5),
+    /**
+     * Where submittal package files are kept: an S3 bucket. Unset endpoint: AWS's own for the region.
+     * `npm start` and the tests run a local S3-compatible server on loopback and point these at it.
+     */
+    S3_ENDPOINT: z.string().url().optional(),
+    S3_REGION: z.string().min(1).max(64).default('us-east-1'),
+    S3_BUCKET: z
+      .string()
+      .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'an S3 bucket name: 3 to 63 lower-case letters, digits, dots and dashes')
+      .default('allowlight-packages'),
+    /** Unset: the SDK's usual chain (environment, instance role …). */
+    S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+    S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+    /** Bucket in the path rather than the host name: what local and most self-hosted servers need. */
+    S3_FORCE_PATH_STYLE: booleanFromString.default(false),
     PASSWORD_RESET_MINUTES: z.coerce
       .number()
       .int()
       .min(5)
       .max(24 * 60)
       .default(60),
+  })
+  .refine((config) => (config.S3_ACCESS_KEY_ID === undefined) === (config.S3_SECRET_ACCESS_KEY === undefined), {
+    message: 'S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY go together: set both or neither',
+    path: ['S3_SECRET_ACCESS_KEY'],
   })
   .transform((config) => ({
     ...config,
