@@ -19,6 +19,7 @@ import * as openingDaylightFields from './20261202001600_opening_daylight_fields
 import * as mailOutboxPasswordResets from './20261202002000_mail_outbox_password_resets.js';
 import * as userDisable from './20261202002100_user_disable.js';
 import * as projectRevision from './20261202003000_project_revision.js';
+import * as packageRevisions from './20261203005000_package_revisions.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -47,6 +48,7 @@ const migrations: Record<string, Migration> = {
   '20261202002000_mail_outbox_password_resets': mailOutboxPasswordResets,
   '20261202002100_user_disable': userDisable,
   '20261202003000_project_revision': projectRevision,
+  '20261203005000_package_revisions': packageRevisions,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
