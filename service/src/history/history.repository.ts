@@ -27,6 +27,8 @@ export interface HistoryEntry {
   copiedFrom?: unknown;
   /** On a move of the review state: from, to, the revision, the move in words and the comment. */
   transition?: unknown;
+  /** On a submittal package made: its revision number, whether a draft, and its fingerprint. */
+  package?: unknown;
   /** A deleted space, luminaire type, exterior application or allowance claim that can still be brought back. */
   restorable: boolean;
 }
@@ -46,6 +48,7 @@ interface AuditRow {
     conversion?: unknown;
     copiedFrom?: unknown;
     transition?: unknown;
+    package?: unknown;
     restoredFrom?: string;
   } | null;
 }
@@ -103,6 +106,7 @@ export async function listHistory(db: Knex, projectId: string, filter: HistoryFi
       ...(row.detail?.conversion ? { conversion: row.detail.conversion } : {}),
       ...(row.detail?.copiedFrom ? { copiedFrom: row.detail.copiedFrom } : {}),
       ...(row.detail?.transition ? { transition: row.detail.transition } : {}),
+      ...(row.detail?.package ? { package: row.detail.package } : {}),
       restorable:
         row.action === 'delete' &&
         restorableEntities.has(row.entity) &&

@@ -1,5 +1,4 @@
 import { createHash } from 'node:crypto';
-import type { z } from 'zod';
 import { decimalPattern } from '../../../contract/editions.js';
 import { evaluationResultSchema, type EvaluationResult } from '../../../contract/result.js';
 
@@ -49,7 +48,18 @@ export function fixedDecimal(text: string): string {
   return negative && plain !== '0' ? `-${plain}` : plain;
 }
 
-type Schema = z.ZodType & { _zod: { def: { type: string; shape?: Record<string, Schema>; element?: Schema; innerType?: Schema; checks?: { _zod: { def: { pattern?: RegExp } } }[] } } };
+/** The parts of a zod schema's definition the walk reads (zod 4's `_zod.def`). */
+interface Schema {
+  _zod: {
+    def: {
+      type: string;
+      shape?: Record<string, Schema>;
+      element?: Schema;
+      innerType?: Schema;
+      checks?: { _zod: { def: { pattern?: RegExp } } }[];
+    };
+  };
+}
 
 /** The result with every decimal field (the fields the result's schema types as decimals, and only those) in its fixed spelling. */
 function withFixedDecimals(schema: Schema, value: unknown): unknown {
