@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createHash } from 'node:crypto';
 import { compareResults } from '../../service/src/package/compare.js';
+import { attachment } from '../../service/src/package/content-disposition.js';
 import { canonicalJson, canonicalResult, fixedDecimal, resultFingerprint } from '../../service/src/package/fingerprint.js';
 import type { EvaluationDocumentInput } from '../../service/src/compliance/index.js';
 import { ashrae2019, run } from '../calc/fixtures.js';
@@ -14,7 +15,13 @@ const office = (overrides: { area?: string; count?: number; extra?: boolean } = 
   units: 'ip',
   luminaireTypes: [led('A', '40')],
   spaces: [
-    { id: 'o', name: 'Offices', buildingAreaType: 'office', area: overrides.area ?? '8000', luminaires: [{ tag: 'A', count: overrides.count ?? 120 }] },
+    {
+      id: 'o',
+      name: 'Offices',
+      buildingAreaType: 'office',
+      area: overrides.area ?? '8000',
+      luminaires: [{ tag: 'A', count: overrides.count ?? 120 }],
+    },
     { id: 'r', name: 'Shop', buildingAreaType: 'retail', area: '2000', luminaires: [{ tag: 'A', count: 40 }] },
     ...(overrides.extra ? [{ id: 'x', name: 'Annex', buildingAreaType: 'office', area: '500', luminaires: [{ tag: 'A', count: 5 }] }] : []),
   ],
@@ -114,5 +121,16 @@ describe('the comparison of two results', () => {
     const over = compareResults(run(office(), ashrae2019), run(office({ count: 250 }), ashrae2019));
     expect(over.verdict?.to).toBe('does-not-comply');
     expect(over.totals).toContainEqual(expect.objectContaining({ field: 'interior.complies', from: 'yes', to: 'no' }));
+  });
+});
+
+describe('the download name', () => {
+  it('gives an ASCII filename and the name as written in filename*', () => {
+    // RFC 6266 §4.3 and RFC 8187 §3.2: filename* carries UTF-8, percent-encoded.
+    expect(attachment('Café “Nord”/Süd - submittal revision 2.pdf')).toBe(
+      `attachment; filename="Cafe _Nord__Sud - submittal revision 2.pdf"; filename*=UTF-8''Caf%C3%A9%20%E2%80%9CNord%E2%80%9D_S%C3%BCd%20-%20submittal%20revision%202.pdf`,
+    );
+    // A quote, a semicolon or a line break cannot end the parameter or the header.
+    expect(attachment('"; evil=1\r\n.pdf')).toBe(`attachment; filename="__ evil=1__.pdf"; filename*=UTF-8''_%3B%20evil%3D1__.pdf`);
   });
 });

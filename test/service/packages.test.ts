@@ -147,25 +147,29 @@ describe('submittal packages', () => {
     expect((await download(reviewer, draft.files[0]!.url)).status).toBe(200);
   });
 
-  it('issues an accepted design when its package is made: a final revision, the state Issued, both in the history', { timeout: 90_000 }, async () => {
-    await putInState('accepted');
-    const response = await makePackage();
-    expect(response.status, JSON.stringify(response.body)).toBe(201);
-    final = response.body;
-    expect(final).toMatchObject({ revision: 3, draft: false, fingerprint: draft.fingerprint });
-    const project = await database.db('projects').where({ id: projectId }).first('state');
-    expect(project!.state).toBe('issued');
-    const history = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries as {
-      action: string;
-      entity: string;
-      package?: { revision: number; draft: boolean };
-      transition?: { to: string };
-    }[];
-    expect(history[0]).toMatchObject({ action: 'transition', transition: { to: 'issued' } });
-    expect(history[1]).toMatchObject({ action: 'create', entity: 'package', package: { revision: 3, draft: false } });
-    const pdf = await pdfPages((await download(engineer, final.files.find((file) => file.format === 'pdf')!.url)).body);
-    expect(pdf.join('')).not.toContain('DRAFT');
-  });
+  it(
+    'issues an accepted design when its package is made: a final revision, the state Issued, both in the history',
+    { timeout: 90_000 },
+    async () => {
+      await putInState('accepted');
+      const response = await makePackage();
+      expect(response.status, JSON.stringify(response.body)).toBe(201);
+      final = response.body;
+      expect(final).toMatchObject({ revision: 3, draft: false, fingerprint: draft.fingerprint });
+      const project = await database.db('projects').where({ id: projectId }).first('state');
+      expect(project!.state).toBe('issued');
+      const history = (await engineer.agent.get(`/api/projects/${projectId}/history`)).body.entries as {
+        action: string;
+        entity: string;
+        package?: { revision: number; draft: boolean };
+        transition?: { to: string };
+      }[];
+      expect(history[0]).toMatchObject({ action: 'transition', transition: { to: 'issued' } });
+      expect(history[1]).toMatchObject({ action: 'create', entity: 'package', package: { revision: 3, draft: false } });
+      const pdf = await pdfPages((await download(engineer, final.files.find((file) => file.format === 'pdf')!.url)).body);
+      expect(pdf.join('')).not.toContain('DRAFT');
+    },
+  );
 
   it('lets the contractor list and download the final package', async () => {
     const listed = (await contractor.agent.get(`/api/projects/${projectId}/packages`)).body.revisions;
@@ -193,7 +197,12 @@ describe('submittal packages', () => {
       .set('X-CSRF-Token', engineer.csrfToken)
       .send({ to: 'draft', version: (await database.db('projects').where({ id: projectId }).first('version'))!.version });
     expect(reopened.status, JSON.stringify(reopened.body)).toBe(200);
-    const spaces = (await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body as { id: string; name: string; area: string; version: number }[];
+    const spaces = (await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body as {
+      id: string;
+      name: string;
+      area: string;
+      version: number;
+    }[];
     const space = spaces[0]!;
     const area = String(Number(space.area) - 10);
     const patched = await engineer.agent
@@ -219,7 +228,9 @@ describe('submittal packages', () => {
     expect([Number(areaChange.from), Number(areaChange.to)]).toEqual([Number(space.area), Number(area)]);
     expect(comparison.body.totals).toContainEqual(expect.objectContaining({ field: 'interior.area' }));
     // The contractor compares final packages only.
-    expect((await contractor.agent.get(`/api/projects/${projectId}/packages/compare?from=${final.id}&to=${changed.body.id}`)).status).toBe(404);
+    expect((await contractor.agent.get(`/api/projects/${projectId}/packages/compare?from=${final.id}&to=${changed.body.id}`)).status).toBe(
+      404,
+    );
   });
 
   it('tells anyone, without signing in, that a fingerprint was issued, for which project and revision, and when', async () => {
@@ -238,7 +249,9 @@ describe('submittal packages', () => {
   });
 
   it('finds no issued package for an unknown fingerprint, a draft-only one, or text that is not a fingerprint', async () => {
-    const unknown = await request(app).get(`/verify/${'0'.repeat(64)}`).set('Accept', 'application/json');
+    const unknown = await request(app)
+      .get(`/verify/${'0'.repeat(64)}`)
+      .set('Accept', 'application/json');
     expect(unknown.status).toBe(404);
     expect(unknown.body).toEqual({ fingerprint: '0'.repeat(64), issued: false, packages: [] });
     const draftOnly = (await database.db('package_revisions').where({ number: 4 }).first('fingerprint'))!.fingerprint;

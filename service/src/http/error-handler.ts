@@ -1,6 +1,18 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
-import { Archived, DomainError, InUse, KeyReused, Locked, NotFound, NotRestorable, Refused, Stale, Conflict, Unavailable } from '../domain-errors.js';
+import {
+  Archived,
+  DomainError,
+  InUse,
+  KeyReused,
+  Locked,
+  NotFound,
+  NotRestorable,
+  Refused,
+  Stale,
+  Conflict,
+  Unavailable,
+} from '../domain-errors.js';
 import { AppError, type ErrorDetail } from './app-error.js';
 
 export interface ErrorBody {

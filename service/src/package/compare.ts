@@ -44,7 +44,8 @@ type Figure = string | number | boolean | null | undefined;
 const decimalLike = /^-?\d+(\.\d+)?$/;
 
 function same(a: Figure, b: Figure): boolean {
-  if (typeof a === 'string' && typeof b === 'string' && decimalLike.test(a) && decimalLike.test(b)) return fixedDecimal(a) === fixedDecimal(b);
+  if (typeof a === 'string' && typeof b === 'string' && decimalLike.test(a) && decimalLike.test(b))
+    return fixedDecimal(a) === fixedDecimal(b);
   return (a ?? null) === (b ?? null);
 }
 

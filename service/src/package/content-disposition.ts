@@ -11,9 +11,9 @@ export function attachment(name: string): string {
       .replace(/[^\x20-\x7e]|["\\/:*?<>|%;]/g, '_')
       .replace(/\s+/g, ' ')
       .trim() || 'package';
-  const encoded = encodeURIComponent(name.replace(/[\\/:*?<>|"\u0000-\u001f\u007f]/g, '_')).replace(
-    /['()*]/g,
-    (character) => `%${character.charCodeAt(0).toString(16).toUpperCase()}`,
-  );
+  const safe = Array.from(name, (character) =>
+    character.charCodeAt(0) < 0x20 || character === '\u007f' || '\\/:*?<>|"'.includes(character) ? '_' : character,
+  ).join('');
+  const encoded = encodeURIComponent(safe).replace(/['()*]/g, (character) => `%${character.charCodeAt(0).toString(16).toUpperCase()}`);
   return `attachment; filename="${ascii}"; filename*=UTF-8''${encoded}`;
 }

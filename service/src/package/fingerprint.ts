@@ -75,11 +75,16 @@ function withFixedDecimals(schema: Schema, value: unknown): unknown {
       if (typeof value !== 'object' || Array.isArray(value)) return value;
       const shape = def.shape!;
       return Object.fromEntries(
-        Object.entries(value as Record<string, unknown>).map(([key, member]) => [key, shape[key] ? withFixedDecimals(shape[key], member) : member]),
+        Object.entries(value as Record<string, unknown>).map(([key, member]) => [
+          key,
+          shape[key] ? withFixedDecimals(shape[key], member) : member,
+        ]),
       );
     }
     case 'string':
-      return typeof value === 'string' && def.checks?.some((check) => check._zod.def.pattern === decimalPattern) && decimalPattern.test(value)
+      return typeof value === 'string' &&
+        def.checks?.some((check) => check._zod.def.pattern === decimalPattern) &&
+        decimalPattern.test(value)
         ? fixedDecimal(value)
         : value;
     default:

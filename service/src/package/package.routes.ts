@@ -29,7 +29,12 @@ function listed(projectId: string, revision: PackageRevisionSummary) {
     fingerprint: revision.fingerprint,
     madeAt: revision.madeAt,
     madeBy: revision.madeBy,
-    files: revision.files.map((file) => ({ format: file.format, size: file.size, sha256: file.sha256, url: fileUrl(projectId, revision.id, file.format) })),
+    files: revision.files.map((file) => ({
+      format: file.format,
+      size: file.size,
+      sha256: file.sha256,
+      url: fileUrl(projectId, revision.id, file.format),
+    })),
   };
 }
 
@@ -92,7 +97,9 @@ export function packageRouter(db: Database, storage: FileStorage): Router {
     const file = revision?.files.find((candidate) => candidate.format === format);
     if (!revision || !file || !format) throw AppError.notFound('That package file does not exist.');
     if (!mayOpen(role, user.isAdmin, revision.draft)) {
-      throw AppError.forbidden('Draft packages are for the design team; the contractor receives the final package once the design is accepted.');
+      throw AppError.forbidden(
+        'Draft packages are for the design team; the contractor receives the final package once the design is accepted.',
+      );
     }
     const body = await storage.get(file.key);
     res.setHeader('Content-Type', contentTypes[format]);

@@ -54,7 +54,9 @@ export function verifyRouter(db: Database): Router {
       return;
     }
     const items = issued
-      .map((found) => `<li>${escape(found.projectName)}, submittal revision ${found.number}, issued ${escape(dateWords(found.issuedAt))}</li>`)
+      .map(
+        (found) => `<li>${escape(found.projectName)}, submittal revision ${found.number}, issued ${escape(dateWords(found.issuedAt))}</li>`,
+      )
       .join('');
     res.send(
       page(
