@@ -1,43 +1,6 @@
-import type { ControlStatus, EvaluationResult, SpaceResult, Verdict } from '../../../contract/result.js';
+import type { ControlChange, RevisionComparison, SpaceMention, ValueChange } from '../../../contract/package.js';
+import type { EvaluationResult, SpaceResult } from '../../../contract/result.js';
 import { fixedDecimal } from './fingerprint.js';
-
-/** One figure or word that differs between two revisions. */
-export interface ValueChange {
-  field: string;
-  /** The figure's name in words, for people. */
-  label: string;
-  from: string | null;
-  to: string | null;
-}
-
-export interface SpaceMention {
-  id: string;
-  name: string;
-  level: string | null;
-}
-
-export interface ControlChange {
-  spaceId: string;
-  spaceName: string;
-  /** The control in words, as the result names it. */
-  control: string;
-  /** Null where the control was not listed for the space in that revision. */
-  from: ControlStatus | null;
-  to: ControlStatus | null;
-}
-
-export interface RevisionComparison {
-  verdict: { from: Verdict; to: Verdict } | null;
-  /** The building's figures: interior and exterior allowance, installed, margin. */
-  totals: ValueChange[];
-  spaces: {
-    added: SpaceMention[];
-    removed: SpaceMention[];
-    changed: (SpaceMention & { changes: ValueChange[] })[];
-  };
-  controls: ControlChange[];
-  exterior: { key: string; label: string; change: 'added' | 'removed' | 'changed'; changes: ValueChange[] }[];
-}
 
 type Figure = string | number | boolean | null | undefined;
 

@@ -7,12 +7,11 @@ import { currentSession } from '../http/session.js';
 import { idParam, parse } from '../http/validate.js';
 import { compareResults } from './compare.js';
 import { attachment } from './content-disposition.js';
-import type { PackageFormat } from './package-input.js';
+import { packageFormats, type MadePackage, type PackageComparison, type PackageFormat, type PackageRevision } from '../../../contract/package.js';
 import { getRevision, listRevisions, type PackageRevisionSummary } from './package.repository.js';
 import { contentTypes, makePackage } from './package.service.js';
 import type { FileStorage } from './storage.js';
 
-const formats = ['docx', 'xlsx', 'pdf'] as const satisfies readonly PackageFormat[];
 
 const compareQuery = z.object({ from: z.string().max(64), to: z.string().max(64) });
 
@@ -20,7 +19,7 @@ function fileUrl(projectId: string, revisionId: string, format: PackageFormat): 
   return `/api/projects/${projectId}/packages/${revisionId}/files/${format}`;
 }
 
-function listed(projectId: string, revision: PackageRevisionSummary) {
+function listed(projectId: string, revision: PackageRevisionSummary): PackageRevision {
   return {
     id: revision.id,
     revision: revision.number,
@@ -68,7 +67,7 @@ export function packageRouter(db: Database, storage: FileStorage): Router {
       draft: made.draft,
       fingerprint: made.fingerprint,
       files: made.files.map((file) => ({ format: file.format, url: fileUrl(projectId, made.id, file.format) })),
-    });
+    } satisfies MadePackage);
   });
 
   router.get('/packages/compare', async (req, res) => {
@@ -86,13 +85,13 @@ export function packageRouter(db: Database, storage: FileStorage): Router {
       from: { id: from!.id, revision: from!.number, draft: from!.draft, fingerprint: from!.fingerprint },
       to: { id: to!.id, revision: to!.number, draft: to!.draft, fingerprint: to!.fingerprint },
       ...compareResults(from!.result, to!.result),
-    });
+    } satisfies PackageComparison);
   });
 
   router.get('/packages/:revisionId/files/:format', async (req, res) => {
     const { projectId, role, project } = projectAccess(req);
     const { user } = currentSession(req);
-    const format = formats.find((candidate) => candidate === req.params['format']);
+    const format = packageFormats.find((candidate) => candidate === req.params['format']);
     const revision = await getRevision(db, projectId, idParam(req.params['revisionId'], 'That package revision'));
     const file = revision?.files.find((candidate) => candidate.format === format);
     if (!revision || !file || !format) throw AppError.notFound('That package file does not exist.');
