@@ -7,11 +7,16 @@ import { currentSession } from '../http/session.js';
 import { idParam, parse } from '../http/validate.js';
 import { compareResults } from './compare.js';
 import { attachment } from './content-disposition.js';
-import { packageFormats, type MadePackage, type PackageComparison, type PackageFormat, type PackageRevision } from '../../../contract/package.js';
+import {
+  packageFormats,
+  type MadePackage,
+  type PackageComparison,
+  type PackageFormat,
+  type PackageRevision,
+} from '../../../contract/package.js';
 import { getRevision, listRevisions, type PackageRevisionSummary } from './package.repository.js';
 import { contentTypes, makePackage } from './package.service.js';
 import type { FileStorage } from './storage.js';
-
 
 const compareQuery = z.object({ from: z.string().max(64), to: z.string().max(64) });
 

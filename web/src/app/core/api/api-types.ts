@@ -293,6 +293,14 @@ export type HistoryEntry = HistoryEntryBase &
       }
     | { entity: 'additional-allowance'; action: ClaimHistoryAction; before: AllowanceClaim | null; after: AllowanceClaim | null }
     | { entity: 'project_member'; action: TeamHistoryAction; before: { role: ProjectRole } | null; after: { role: ProjectRole } | null }
+    | {
+        entity: 'package';
+        action: 'create';
+        before: null;
+        after: null;
+        /** The submittal package made: its revision number, whether a draft, and its fingerprint. */
+        package?: { revision: number; draft: boolean; fingerprint: string };
+      }
   );
 
 export interface HistoryPage {

@@ -578,6 +578,16 @@ function teamWords(entry: Extract<HistoryEntry, { entity: 'project_member' }>): 
   }
 }
 
+/** A submittal package made: its revision, draft or final, and the start of its fingerprint as printed. */
+function packageWords(entry: Extract<HistoryEntry, { entity: 'package' }>): { summary: string; changes: string[] } {
+  const made = entry.package;
+  if (!made) return { summary: 'made a submittal package', changes: [] };
+  return {
+    summary: `made ${made.draft ? 'a draft' : 'the final'} submittal package, revision ${made.revision}`,
+    changes: [`fingerprint ${made.fingerprint.slice(0, 12)}…`],
+  };
+}
+
 /** One entry in words, with `system` the units the project had when it was made (see {@link unitsAtEntry}). */
 export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system: UnitSystem): EntryWords {
   const actor = entry.user?.name || 'Someone';
@@ -596,6 +606,9 @@ export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system
       break;
     case 'additional-allowance':
       words = claimWords(entry, system);
+      break;
+    case 'package':
+      words = packageWords(entry);
       break;
     default:
       words = { summary: 'changed the project', changes: [] };
