@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { createHash } from 'node:crypto';
 import { compareResults } from '../../service/src/package/compare.js';
 import { attachment } from '../../service/src/package/content-disposition.js';
+import { figure } from '../../service/src/package/package-pdf.js';
 import { canonicalJson, canonicalResult, fixedDecimal, resultFingerprint } from '../../service/src/package/fingerprint.js';
 import type { EvaluationDocumentInput } from '../../service/src/compliance/index.js';
 import { ashrae2019, run } from '../calc/fixtures.js';
@@ -132,5 +133,14 @@ describe('the download name', () => {
     );
     // A quote, a semicolon or a line break cannot end the parameter or the header.
     expect(attachment('"; evil=1\r\n.pdf')).toBe(`attachment; filename="__ evil=1__.pdf"; filename*=UTF-8''_%3B%20evil%3D1__.pdf`);
+  });
+});
+
+describe('the PDF’s figures', () => {
+  it('round to two places, half away from zero, with thousands grouped', () => {
+    expect(figure('12345.675', 'W')).toBe('12,345.68 W');
+    expect(figure('-1234.5')).toBe('−1,234.5');
+    expect(figure('0.004')).toBe('0');
+    expect(figure(null)).toBe('—');
   });
 });

@@ -7,6 +7,7 @@ import request from 'supertest';
 import type { ProjectState } from '../../contract/review.js';
 import { freePort } from '../../service/ops/postgres.mjs';
 import { localS3Credentials } from '../../service/ops/s3-server.mjs';
+import { figure } from '../../service/src/package/package-pdf.js';
 import { signIn, testApp, type SignedInAgent } from '../support/app.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
 import { startTestS3, type TestS3 } from '../support/s3.js';
@@ -126,6 +127,12 @@ describe('submittal packages', () => {
       expect(page).toContain(draft.fingerprint);
       expect(page).toContain(demoName);
       expect(page).toContain('DRAFT — not for permit');
+    }
+    // The building's totals as the engine computes them, in the PDF's own rounding.
+    const result = (await engineer.agent.get(`/api/projects/${projectId}/results`)).body;
+    const text = pages.join('');
+    for (const total of [result.interior.allowanceW, result.interior.installedW, result.exterior.allowanceW]) {
+      expect(text).toContain(figure(total, 'W'));
     }
   });
 

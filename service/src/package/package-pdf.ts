@@ -1,3 +1,4 @@
+import { Decimal } from 'decimal.js';
 import { chromium } from 'playwright-core';
 import type { ControlStatus, Verdict } from '../../../contract/result.js';
 import { projectStateLabels, type ProjectState } from '../../../contract/review.js';
@@ -40,13 +41,14 @@ function editionTitle(id: string): string {
   return iecc ? `IECC ${iecc[1]}` : id;
 }
 
-/** A decimal as people read it: grouped thousands, the digits the result carries. */
-function figure(value: string | null | undefined, unit = ''): string {
+/** A decimal as people read it: rounded to two places at most (half away from zero), thousands grouped. */
+export function figure(value: string | null | undefined, unit = ''): string {
   if (value === null || value === undefined) return '—';
-  const [whole = '', fraction] = value.replace(/^-/, '').split('.');
+  const rounded = text(dec(value).toDecimalPlaces(2, Decimal.ROUND_HALF_UP));
+  const [whole = '', fraction] = rounded.replace(/^-/, '').split('.');
   const grouped = whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',');
-  const text = `${value.startsWith('-') ? '−' : ''}${grouped}${fraction ? `.${fraction.slice(0, 2)}` : ''}`;
-  return unit ? `${text} ${unit}` : text;
+  const shown = `${rounded.startsWith('-') ? '−' : ''}${grouped}${fraction ? `.${fraction}` : ''}`;
+  return unit ? `${shown} ${unit}` : shown;
 }
 
 function rows(cells: (string | null | undefined)[][]): string {

@@ -54,11 +54,18 @@ export async function makePackage(
   projectId: string,
   actor: { userId: string; name: string; role: ProjectRole | null; isAdmin: boolean },
 ): Promise<MadePackage> {
-  const project = await getProjectDetail(db, projectId, actor.role);
+  // One snapshot: the project, its design and its earlier revisions as of one moment, even while someone edits a draft.
+  const { project, document, earlier } = await db.transaction(
+    async (trx) => ({
+      project: await getProjectDetail(trx, projectId, actor.role),
+      document: await projectDocument(trx, projectId),
+      earlier: await listRevisions(trx, projectId),
+    }),
+    { isolationLevel: 'repeatable read', readOnly: true },
+  );
   const state = project.state as ProjectState;
   const draft = !isFinalState(state);
 
-  const document = await projectDocument(db, projectId);
   const tables = document.edition ? await loadEditionData(db, document.edition) : undefined;
   if (!tables) throw new Refused(notComputedMessage, [{ path: 'edition', message: 'No code edition is chosen.' }]);
   const outcome = validateDocument(document, tables);
@@ -66,7 +73,6 @@ export async function makePackage(
   const result = evaluate(outcome.document, tables);
   const fingerprint = resultFingerprint(result);
 
-  const earlier = await listRevisions(db, projectId);
   const history: PackageRevisionStamp[] = earlier.map((revision) => ({
     number: revision.number,
     fingerprint: revision.fingerprint,
@@ -92,43 +98,48 @@ export async function makePackage(
     ['pdf', await buildPackagePdf(input)],
   ];
   const files: PackageFileRecord[] = [];
-  for (const [format, body] of built) {
-    const key = fileKey(projectId, id, format);
-    await storage.put(key, body, contentTypes[format]);
-    files.push({ format, key, size: body.length, sha256: createHash('sha256').update(body).digest('hex') });
+  try {
+    for (const [format, body] of built) {
+      const key = fileKey(projectId, id, format);
+      files.push({ format, key, size: body.length, sha256: createHash('sha256').update(body).digest('hex') });
+      await storage.put(key, body, contentTypes[format]);
+    }
+    await db.transaction(async (trx) => {
+      const locked = await lockProject(trx, projectId, { anyState: true });
+      if (locked.version !== project.version || (await nextRevisionNumber(trx, projectId)) !== number) {
+        throw new Conflict('The project changed while its package was being made. Make the package again.');
+      }
+      await insertRevision(trx, {
+        id,
+        projectId,
+        number,
+        draft,
+        projectName: project.name,
+        designRevision: project.revision,
+        fingerprint,
+        document,
+        result,
+        files,
+        madeBy: actor.userId,
+        madeAt,
+      });
+      await recordAudit(trx, {
+        userId: actor.userId,
+        projectId,
+        action: 'create',
+        entity: 'package',
+        entityId: id,
+        detail: { name: `Submittal revision ${number}`, package: { revision: number, draft, fingerprint } },
+      });
+      // Nested: a savepoint in this transaction, so the revision and the move commit together.
+      if (state === 'accepted') {
+        await applyTransition(trx, projectId, { to: 'issued', version: locked.version }, actor);
+      }
+    });
+  } catch (error) {
+    // No revision names these files: they go, as far as the store lets them (a key left behind is never read).
+    await Promise.allSettled(files.map((file) => storage.remove(file.key)));
+    throw error;
   }
-
-  await db.transaction(async (trx) => {
-    const locked = await lockProject(trx, projectId, { anyState: true });
-    if (locked.version !== project.version || (await nextRevisionNumber(trx, projectId)) !== number) {
-      throw new Conflict('The project changed while its package was being made. Make the package again.');
-    }
-    await insertRevision(trx, {
-      id,
-      projectId,
-      number,
-      draft,
-      projectName: project.name,
-      designRevision: project.revision,
-      fingerprint,
-      document,
-      result,
-      files,
-      madeBy: actor.userId,
-      madeAt,
-    });
-    await recordAudit(trx, {
-      userId: actor.userId,
-      projectId,
-      action: 'create',
-      entity: 'package',
-      entityId: id,
-      detail: { name: `Submittal revision ${number}`, package: { revision: number, draft, fingerprint } },
-    });
-    // Nested: a savepoint in this transaction, so the revision and the move commit together.
-    if (state === 'accepted') {
-      await applyTransition(trx, projectId, { to: 'issued', version: locked.version }, actor);
-    }
-  });
   return { id, number, draft, fingerprint, files };
 }

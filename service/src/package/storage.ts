@@ -1,4 +1,4 @@
-import { GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import type { Config } from '../config.js';
 import { Unavailable } from '../domain-errors.js';
 
@@ -6,6 +6,8 @@ import { Unavailable } from '../domain-errors.js';
 export interface FileStorage {
   put(key: string, body: Buffer, contentType: string): Promise<void>;
   get(key: string): Promise<Buffer>;
+  /** Removes a file no revision names (after a failed record); a key that is not there is no error. */
+  remove(key: string): Promise<void>;
 }
 
 /** How long one request to the store may take before it counts as down. */
@@ -40,6 +42,9 @@ export function s3Storage(config: Config): FileStorage {
       } catch (error) {
         throw new Unavailable('The file could not be read from the file store. Try again in a minute.', error);
       }
+    },
+    async remove(key) {
+      await client.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
     },
   };
 }
