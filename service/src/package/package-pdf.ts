@@ -51,8 +51,13 @@ export function figure(value: string | null | undefined, unit = ''): string {
   return unit ? `${shown} ${unit}` : shown;
 }
 
+/** A figure with its unit, or a level's short name, reads on one line. */
+const unbroken = /^(−?[\d,.]+( [^\s]+)?|Level \d+)$/;
+
 function rows(cells: (string | null | undefined)[][]): string {
-  return cells.map((row) => `<tr>${row.map((cell) => `<td>${escape(cell)}</td>`).join('')}</tr>`).join('');
+  return cells
+    .map((row) => `<tr>${row.map((cell) => `<td${unbroken.test(cell ?? '') ? ' class="figure"' : ''}>${escape(cell)}</td>`).join('')}</tr>`)
+    .join('');
 }
 
 function dateWords(iso: string): string {
@@ -89,7 +94,7 @@ export function packageHtml(input: PackageInput): string {
   table { border-collapse: collapse; width: 100%; } th, td { border: 1px solid #b5b5b5; padding: 1.2mm 1.6mm; text-align: left; vertical-align: top; }
   th { background: #e8efee; } thead { display: table-header-group; } tr { break-inside: avoid; }
   .draft { font-weight: bold; color: #8a1c1c; font-size: 12pt; }
-  .cover th { width: 45mm; } .fingerprint { font-family: 'DejaVu Sans Mono', monospace; word-break: break-all; }
+  .cover th { width: 45mm; } td.figure { white-space: nowrap; } .fingerprint { font-family: 'DejaVu Sans Mono', monospace; word-break: break-all; }
 </style></head><body>
 ${revision.draft ? '<p class="draft">DRAFT — not for permit</p>' : ''}
 <h1>${escape(project.name)}</h1>
