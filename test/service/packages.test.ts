@@ -136,6 +136,11 @@ describe('submittal packages', () => {
     }
   });
 
+  it('keeps a revision as it was made: the database refuses to change it', async () => {
+    await expect(database.db('package_revisions').where({ id: draft.id }).update({ draft: false })).rejects.toThrow(/never changed/);
+    expect((await database.db('package_revisions').where({ id: draft.id }).first('draft'))!.draft).toBe(true);
+  });
+
   it('gives the same unchanged project the same fingerprint', { timeout: 90_000 }, async () => {
     const again = await makePackage();
     expect(again.status).toBe(201);
