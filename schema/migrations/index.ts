@@ -22,6 +22,7 @@ import * as projectRevision from './20261202003000_project_revision.js';
 import * as reviewItems from './20261203001000_review_items.js';
 import * as reviewDigest from './20261203002000_review_digest.js';
 import * as invitations from './20261203003000_invitations.js';
+import * as packageRevisions from './20261203005000_package_revisions.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -53,6 +54,7 @@ const migrations: Record<string, Migration> = {
   '20261203001000_review_items': reviewItems,
   '20261203002000_review_digest': reviewDigest,
   '20261203003000_invitations': invitations,
+  '20261203005000_package_revisions': packageRevisions,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -5,13 +5,15 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { clusterLocation, startCluster } from './postgres.mjs';
 import { supervise } from './supervise.mjs';
-import { ensureDependencies, log, run } from './system.mjs';
+import { ensureChromium, ensureDependencies, log, run } from './system.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const dataDir = path.join(root, '.data');
 mkdirSync(dataDir, { recursive: true });
 
 ensureDependencies(root);
+// The submittal package's PDF is printed by headless Chromium from Debian's package.
+ensureChromium();
 
 /** Secrets generated once and kept under .data/, so a second start signs in with the same password. */
 function localSecrets() {
@@ -126,6 +128,28 @@ if (!process.env.SMTP_HOST) {
   log(`mail the app sends is kept in .data/mail/ (a local SMTP server on 127.0.0.1:${mailCatcher.port})`);
 }
 
+// Package files go to a local S3-compatible server keeping them under .data/s3/, unless
+// S3_ENDPOINT or S3_BUCKET names a real store.
+let localS3 = null;
+if (!process.env.S3_ENDPOINT && !process.env.S3_BUCKET) {
+  const { startLocalS3, localS3Credentials } = await import('./s3-server.mjs');
+  const dir = path.join(dataDir, 's3');
+  const bucket = 'allowlight-packages';
+  const wanted = Number(process.env.S3_LOCAL_PORT || 4568);
+  localS3 = await startLocalS3({ dir, bucket, port: wanted }).catch((error) => {
+    if (error?.code !== 'EADDRINUSE') throw error;
+    return startLocalS3({ dir, bucket, port: 0 });
+  });
+  localS3.env = {
+    S3_ENDPOINT: localS3.endpoint,
+    S3_BUCKET: bucket,
+    S3_FORCE_PATH_STYLE: 'true',
+    S3_ACCESS_KEY_ID: localS3Credentials.accessKeyId,
+    S3_SECRET_ACCESS_KEY: localS3Credentials.secretAccessKey,
+  };
+  log(`package files are kept in .data/s3/ (a local S3 server on 127.0.0.1:${localS3.port})`);
+}
+
 const service = supervise({
   name: 'the server',
   command: process.execPath,
@@ -145,6 +169,7 @@ const service = supervise({
       WEB_DIST: path.join(root, 'dist', 'web', 'browser'),
       LOG_LEVEL: process.env.LOG_LEVEL || 'warn',
       APP_URL: process.env.APP_URL || url,
+      ...(localS3 ? localS3.env : {}),
       ...(mailCatcher ? { SMTP_HOST: '127.0.0.1', SMTP_PORT: String(mailCatcher.port), SMTP_SECURE: 'false' } : {}),
     },
   },
@@ -164,5 +189,6 @@ for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
 
 const outcome = await service.done;
 await mailCatcher?.close();
+await localS3?.close();
 stopCluster();
 process.exit(outcome.reason === 'stopped' ? 0 : 1);

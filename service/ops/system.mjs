@@ -66,6 +66,6 @@ export const chromiumPath = '/usr/bin/chromium';
 
 export function ensureChromium() {
   if (!existsSync(chromiumPath)) {
-    aptInstall(['chromium'], 'the browser tests');
+    aptInstall(['chromium'], 'the package PDF and the browser tests');
   }
 }

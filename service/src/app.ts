@@ -28,6 +28,9 @@ import { liveRouter } from './live/live.routes.js';
 import { reviewRouter } from './review/review.routes.js';
 import { exteriorScheduleRouter } from './exterior-schedule/exterior-schedule.routes.js';
 import { reviewDeskRouter, reviewItemsRouter } from './review/review-items.routes.js';
+import { packageRouter } from './package/package.routes.js';
+import { s3Storage, type FileStorage } from './package/storage.js';
+import { verifyRouter } from './package/verify.routes.js';
 import { ProjectChanges } from './live/project-changes.js';
 import type { Knex } from 'knex';
 import type { ClientConfig as PgClientConfig } from 'pg';
@@ -40,6 +43,8 @@ export interface AppDeps {
   changes?: ProjectChanges;
   /** Told when a message was queued in the outbox (the server's mail sender); nothing by default. */
   mailQueued?: () => void;
+  /** Where package files are kept; the S3 bucket the settings name when not given. */
+  storage?: FileStorage;
 }
 
 /** The connection the change listener opens: the same database as the pool's. */
@@ -53,6 +58,7 @@ export function createApp({
   logger = pino({ level: config.LOG_LEVEL }),
   changes = new ProjectChanges(connectionOf(db), logger),
   mailQueued = () => {},
+  storage = s3Storage(config),
 }: AppDeps): Express {
   const app = express();
   app.locals['changes'] = changes;
@@ -132,11 +138,14 @@ export function createApp({
   api.use('/projects/:projectId', exteriorScheduleRouter(db));
   api.use('/projects/:projectId', reviewItemsRouter(db));
   api.use('/review-desk', reviewDeskRouter(db));
+  api.use('/projects/:projectId', packageRouter(db, storage, { appUrl: config.APP_URL, mailQueued }));
   api.use('/projects/:projectId', liveRouter(db, changes));
   api.use('/evaluate', evaluateRouter(db));
   api.use('/openapi.json', openApiRouter());
   api.use(notFoundHandler);
   app.use('/api', api);
+  // Open to anyone: a permit office checks a printed package's fingerprint without an account.
+  app.use('/verify', verifyRouter(db));
 
   if (config.WEB_DIST && existsSync(config.WEB_DIST)) {
     const webDist = path.resolve(config.WEB_DIST);

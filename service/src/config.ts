@@ -95,6 +95,21 @@ const configSchema = z
       .optional()
       .refine((zone) => zone === undefined || zone === '' || knownTimeZone(zone), 'expected a time zone name such as America/Chicago'),
     REVIEW_DIGEST_CHECK_MINUTES: z.coerce.number().positive().max(1440).default(15),
+    /**
+     * Where submittal package files are kept: an S3 bucket. Unset endpoint: AWS's own for the region.
+     * `npm start` and the tests run a local S3-compatible server on loopback and point these at it.
+     */
+    S3_ENDPOINT: z.string().url().optional(),
+    S3_REGION: z.string().min(1).max(64).default('us-east-1'),
+    S3_BUCKET: z
+      .string()
+      .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'an S3 bucket name: 3 to 63 lower-case letters, digits, dots and dashes')
+      .default('allowlight-packages'),
+    /** Unset: the SDK's usual chain (environment, instance role …). */
+    S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+    S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+    /** Bucket in the path rather than the host name: what local and most self-hosted servers need. */
+    S3_FORCE_PATH_STYLE: booleanFromString.default(false),
     PASSWORD_RESET_MINUTES: z.coerce
       .number()
       .int()
@@ -103,6 +118,10 @@ const configSchema = z
       .default(60),
     /** How long an invitation to a project's team works. */
     INVITATION_DAYS: z.coerce.number().int().min(1).max(30).default(7),
+  })
+  .refine((config) => (config.S3_ACCESS_KEY_ID === undefined) === (config.S3_SECRET_ACCESS_KEY === undefined), {
+    message: 'S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY go together: set both or neither',
+    path: ['S3_SECRET_ACCESS_KEY'],
   })
   .transform((config) => ({
     ...config,

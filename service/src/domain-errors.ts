@@ -60,3 +60,11 @@ export class Locked extends DomainError {}
 
 /** An import key sent again with another import. */
 export class KeyReused extends DomainError {}
+
+/** A service the write depends on (the file store) did not answer; nothing was recorded. */
+export class Unavailable extends DomainError {
+  constructor(message: string, cause?: unknown) {
+    super(message);
+    this.cause = cause;
+  }
+}

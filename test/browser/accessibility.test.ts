@@ -100,7 +100,19 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
     expect(await seriousViolations()).toEqual([]);
   });
 
-  for (const area of ['setup', 'spaces', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'results', 'compare', 'history']) {
+  for (const area of [
+    'setup',
+    'spaces',
+    'luminaires',
+    'allowances',
+    'controls',
+    'daylight',
+    'exterior',
+    'results',
+    'compare',
+    'package',
+    'history',
+  ]) {
     it(`the ${area} page`, async () => {
       const { page } = browser;
       await page.goto(`${projectUrl}/${area}`);
@@ -108,6 +120,7 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
       // The history and the comparison arrive apart from the design: wait for them.
       if (area === 'history') await page.locator('.entry').first().waitFor();
       if (area === 'compare') await page.getByTestId('edition-column').first().waitFor();
+      if (area === 'package') await page.getByText('No package has been made yet.').waitFor();
       expect(await seriousViolations()).toEqual([]);
     });
   }

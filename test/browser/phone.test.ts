@@ -92,6 +92,7 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
     ['Exterior', 'exterior'],
     ['Results', 'results'],
     ['Compare', 'compare'],
+    ['Package', 'package'],
     ['History', 'history'],
   ];
   for (const [label, path] of areas) {

@@ -26,7 +26,18 @@ beforeAll(async () => {
 afterAll(() => closeBrowserSuite({ browser, served, database }));
 
 describe('the workspace at a tablet width (800 px)', () => {
-  for (const area of ['spaces', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'results', 'compare', 'history']) {
+  for (const area of [
+    'spaces',
+    'luminaires',
+    'allowances',
+    'controls',
+    'daylight',
+    'exterior',
+    'results',
+    'compare',
+    'package',
+    'history',
+  ]) {
     it(`lays out ${area} without a sideways scroll of the page`, async () => {
       const { page } = browser;
       await page.goto(`${projectUrl}/${area}`);
@@ -34,6 +45,7 @@ describe('the workspace at a tablet width (800 px)', () => {
       // The history arrives apart from the design: wait for its entries.
       if (area === 'history') await page.locator('.entry').first().waitFor();
       if (area === 'compare') await page.getByTestId('edition-column').first().waitFor();
+      if (area === 'package') await page.getByText('No package has been made yet.').waitFor();
       const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
       await browser.screenshot(`tablet-${area}`);
       expect(overflow).toBeLessThanOrEqual(1);

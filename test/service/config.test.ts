@@ -45,4 +45,19 @@ describe('loadConfig', () => {
     expect(() => loadConfig({ ...required, REVIEW_DIGEST_TIME_ZONE: 'Mars/Olympus' })).toThrow(/REVIEW_DIGEST_TIME_ZONE/);
     expect(() => loadConfig({ ...required, REVIEW_DIGEST_HOUR: '24' })).toThrow(/REVIEW_DIGEST_HOUR/);
   });
+
+  it('points the package files at AWS S3 by default, or at the endpoint, bucket and keys it is given', () => {
+    expect(loadConfig(required)).toMatchObject({ S3_REGION: 'us-east-1', S3_BUCKET: 'allowlight-packages', S3_FORCE_PATH_STYLE: false });
+    expect(loadConfig(required).S3_ENDPOINT).toBeUndefined();
+    const local = loadConfig({
+      ...required,
+      S3_ENDPOINT: 'http://127.0.0.1:4568',
+      S3_FORCE_PATH_STYLE: 'true',
+      S3_ACCESS_KEY_ID: 'key',
+      S3_SECRET_ACCESS_KEY: 'secret',
+    });
+    expect(local).toMatchObject({ S3_ENDPOINT: 'http://127.0.0.1:4568', S3_FORCE_PATH_STYLE: true, S3_ACCESS_KEY_ID: 'key' });
+    expect(() => loadConfig({ ...required, S3_ACCESS_KEY_ID: 'key' })).toThrow(/S3_SECRET_ACCESS_KEY/);
+    expect(() => loadConfig({ ...required, S3_BUCKET: 'Not A Bucket' })).toThrow(/S3_BUCKET/);
+  });
 });

@@ -129,11 +129,30 @@ describe('the review state machine', () => {
     expect(last.transition).toMatchObject({ words: 'Returned to the engineer', comment: 'Corridor 1 needs its occupant sensors.' });
   });
 
-  it('refuses to issue until a submittal package revision exists, in words', async () => {
+  it('refuses to issue until a final submittal package of the design exists, in words; a draft package does not count', async () => {
     await putInState('accepted');
     const refused = await move(engineer, 'issued');
     expect(refused.status).toBe(409);
-    expect(refused.body.error.message).toMatch(/submittal package/);
+    expect(refused.body.error.message).toMatch(/final submittal package/);
+
+    const { revision } = await current();
+    const packageRow = (number: number, draft: boolean) => ({
+      project_id: projectId,
+      number,
+      draft,
+      project_name: 'Harbour Ferry Terminal',
+      design_revision: revision,
+      fingerprint: 'a'.repeat(64),
+      document: '{}',
+      result: '{}',
+      files: '[]',
+    });
+    await database.db('package_revisions').insert(packageRow(1, true));
+    expect((await move(engineer, 'issued')).status).toBe(409);
+    await database.db('package_revisions').insert(packageRow(2, false));
+    const issued = await move(engineer, 'issued');
+    expect(issued.status, JSON.stringify(issued.body)).toBe(200);
+    expect(issued.body.state).toBe('issued');
   });
 });
 

@@ -443,6 +443,30 @@ export interface IdempotencyKeyRow {
   created_at: Date;
 }
 
+/** One file of a submittal package as kept in the file store. */
+export interface PackageFileRecord {
+  format: 'docx' | 'xlsx' | 'pdf';
+  key: string;
+  size: number;
+  sha256: string;
+}
+
+/** A submittal package revision: written once, never updated (a trigger refuses it). */
+export interface PackageRevisionRow {
+  id: string;
+  project_id: string;
+  number: number;
+  draft: boolean;
+  project_name: string;
+  design_revision: number;
+  fingerprint: string;
+  document: unknown;
+  result: unknown;
+  files: PackageFileRecord[];
+  made_by: string | null;
+  made_at: Date;
+}
+
 /**
  * How a project or design row is written: NUMERIC columns as decimal text (as they are read), JSON
  * columns as JSON text, and any column may be left out for its default or be a database expression.
@@ -477,6 +501,7 @@ declare module 'knex/types/tables.js' {
     project_import_aliases: ImportAliasRow;
     idempotency_keys: IdempotencyKeyRow;
     project_members: ProjectMemberRow;
+    package_revisions: StoredTable<PackageRevisionRow, 'document' | 'result' | 'files'>;
     audit_log: AuditLogRow;
     invitations: InvitationRow;
     code_editions: CodeTable<CodeEditionRow>;

@@ -29,6 +29,8 @@ export interface HistoryEntry {
   transition?: unknown;
   /** On a check item's verdict, reply or bulk confirmation (`ReviewHistoryDetail`); `name` is the item's title. */
   review?: unknown;
+  /** On a submittal package made: its revision number, whether a draft, and its fingerprint. */
+  package?: unknown;
   /** A deleted space, luminaire type, exterior application or allowance claim that can still be brought back. */
   restorable: boolean;
 }
@@ -49,6 +51,7 @@ interface AuditRow {
     copiedFrom?: unknown;
     transition?: unknown;
     review?: unknown;
+    package?: unknown;
     restoredFrom?: string;
   } | null;
 }
@@ -107,6 +110,7 @@ export async function listHistory(db: Knex, projectId: string, filter: HistoryFi
       ...(row.detail?.copiedFrom ? { copiedFrom: row.detail.copiedFrom } : {}),
       ...(row.detail?.transition ? { transition: row.detail.transition } : {}),
       ...(row.detail?.review ? { review: row.detail.review } : {}),
+      ...(row.detail?.package ? { package: row.detail.package } : {}),
       restorable:
         row.action === 'delete' &&
         restorableEntities.has(row.entity) &&

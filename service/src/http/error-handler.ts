@@ -1,6 +1,18 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
-import { Archived, DomainError, InUse, KeyReused, Locked, NotFound, NotRestorable, Refused, Stale, Conflict } from '../domain-errors.js';
+import {
+  Archived,
+  DomainError,
+  InUse,
+  KeyReused,
+  Locked,
+  NotFound,
+  NotRestorable,
+  Refused,
+  Stale,
+  Conflict,
+  Unavailable,
+} from '../domain-errors.js';
 import { AppError, type ErrorDetail } from './app-error.js';
 
 export interface ErrorBody {
@@ -71,6 +83,7 @@ function domainAnswer(err: DomainError): { status: number; code: string } {
   if (err instanceof Archived) return { status: 409, code: 'archived' };
   if (err instanceof Locked) return { status: 409, code: 'locked' };
   if (err instanceof KeyReused) return { status: 422, code: 'idempotency_key_reused' };
+  if (err instanceof Unavailable) return { status: 503, code: 'unavailable' };
   return { status: 500, code: 'internal' };
 }
 

@@ -226,6 +226,12 @@ function toItem(row: ItemRow, thread: ReviewThreadEntry[]): ReviewItem {
   };
 }
 
+/** The latest round's number and its items with verdicts and threads, for the package's review record; undefined before any submission. */
+export async function reviewRecord(db: Knex, projectId: string): Promise<{ round: number; items: ReviewItem[] } | undefined> {
+  const round = await latestRound(db, projectId);
+  return round ? { round: round.number, items: await listReviewItems(db, projectId) } : undefined;
+}
+
 /** The check items of the latest round, in the order they were generated (spaces in their order, then the site). */
 export async function listReviewItems(db: Knex, projectId: string, only?: readonly string[]): Promise<ReviewItem[]> {
   const query = db('review_items')

@@ -5,6 +5,7 @@ import type { Database } from '../db/database.js';
 import { lockProject } from '../db/project-lock.js';
 import type { ProjectRole } from '../db/tables.js';
 import { Conflict, DomainError } from '../domain-errors.js';
+import { hasFinalPackage } from '../package/package.repository.js';
 import { setReviewState } from '../projects/projects.repository.js';
 import { moveRound } from './rounds.js';
 import { queueTransitionMail, type TransitionMailSettings } from './transition-mail.js';
@@ -23,8 +24,8 @@ interface Move {
 }
 
 /**
- * The review states and the moves between them. Issuing needs a submittal package revision, which
- * the package feature records; until it exists the move is refused with that reason.
+ * The review states and the moves between them. Issuing needs a final submittal package of the
+ * design's revision (making the package of an accepted design records one and issues it).
  */
 export const moves: readonly Move[] = [
   { from: 'draft', to: 'in-review', role: 'engineer', words: 'Submitted for review' },
@@ -103,9 +104,8 @@ export async function applyTransition(
     if (move.commentRequired && comment === '') {
       throw here('Say what needs revision: a return needs a comment for the engineer.');
     }
-    if (move.to === 'issued') {
-      // The package feature records submittal revisions; issuing checks for one here once it exists.
-      throw here('Issuing needs a submittal package revision of this design, and packages cannot be made yet.');
+    if (move.to === 'issued' && !(await hasFinalPackage(trx, projectId, project.revision))) {
+      throw here('Issuing needs a final submittal package of this design: make the package from the Package page.');
     }
     // The check items: a submission opens a round on the evaluation as it now is; accepting needs a verdict on each item.
     await moveRound(trx, { projectId, from, to: move.to, revision: project.revision, userId: actor.userId }, here);

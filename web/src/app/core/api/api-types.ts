@@ -312,6 +312,14 @@ export type HistoryEntry = HistoryEntryBase &
         before: { role: ProjectRole } | null;
         after: { role: ProjectRole; expiresAt?: string } | null;
       }
+    | {
+        entity: 'package';
+        action: 'create';
+        before: null;
+        after: null;
+        /** The submittal package made: its revision number, whether a draft, and its fingerprint. */
+        package?: { revision: number; draft: boolean; fingerprint: string };
+      }
   );
 
 export interface HistoryPage {

@@ -240,6 +240,21 @@ describe('a history entry in words', () => {
     });
   });
 
+  describe('submittal packages', () => {
+    it('tells a draft from the final package, with its revision and the start of its fingerprint', () => {
+      const made = (draft: boolean) =>
+        entry({
+          entity: 'package',
+          action: 'create',
+          before: null,
+          after: null,
+          package: { revision: 3, draft, fingerprint: 'ab'.repeat(32) },
+        });
+      expect(say(made(true))).toBe('Ines Halvorsen made a draft submittal package, revision 3: fingerprint abababababab…');
+      expect(say(made(false))).toBe('Ines Halvorsen made the final submittal package, revision 3: fingerprint abababababab…');
+    });
+  });
+
   describe('the project and its team', () => {
     it('reads set-up changes with the edition and method in words', () => {
       const after = {

@@ -626,6 +626,16 @@ function invitationWords(entry: Extract<HistoryEntry, { entity: 'invitation' }>)
   }
 }
 
+/** A submittal package made: its revision, draft or final, and the start of its fingerprint as printed. */
+function packageWords(entry: Extract<HistoryEntry, { entity: 'package' }>): { summary: string; changes: string[] } {
+  const made = entry.package;
+  if (!made) return { summary: 'made a submittal package', changes: [] };
+  return {
+    summary: `made ${made.draft ? 'a draft' : 'the final'} submittal package, revision ${made.revision}`,
+    changes: [`fingerprint ${made.fingerprint.slice(0, 12)}…`],
+  };
+}
+
 /** One entry in words, with `system` the units the project had when it was made (see {@link unitsAtEntry}). */
 export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system: UnitSystem): EntryWords {
   const actor = entry.user?.name || 'Someone';
@@ -650,6 +660,9 @@ export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system
       break;
     case 'review-item':
       words = reviewWords(entry);
+      break;
+    case 'package':
+      words = packageWords(entry);
       break;
     default:
       words = { summary: 'changed the project', changes: [] };

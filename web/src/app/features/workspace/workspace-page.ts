@@ -27,7 +27,7 @@ interface WorkspaceArea {
   icon: string;
 }
 
-/** The project's areas, in the order the work goes, the design under other editions, then its history. Review, Package, Field tests and Team follow. */
+/** The project's areas, in the order the work goes, the design under other editions, the submittal package, then its history. Review, Field tests and Team follow. */
 export const workspaceAreas: readonly WorkspaceArea[] = [
   { path: 'setup', label: 'Set-up', icon: 'tune' },
   { path: 'spaces', label: 'Spaces', icon: 'floor_lamp' },
@@ -38,6 +38,7 @@ export const workspaceAreas: readonly WorkspaceArea[] = [
   { path: 'exterior', label: 'Exterior', icon: 'nightlight' },
   { path: 'results', label: 'Results', icon: 'fact_check' },
   { path: 'compare', label: 'Compare', icon: 'compare_arrows' },
+  { path: 'package', label: 'Package', icon: 'inventory_2' },
   { path: 'history', label: 'History', icon: 'history' },
 ];
 

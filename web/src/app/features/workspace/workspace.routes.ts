@@ -51,5 +51,6 @@ export const workspaceRoutes: Routes = [
     title: 'Compare editions · Allowlight',
     loadComponent: () => import('../compare/compare-page').then((m) => m.ComparePage),
   },
+  { path: 'package', title: 'Package · Allowlight', loadComponent: () => import('../package/package-page').then((m) => m.PackagePage) },
   { path: 'history', title: 'History · Allowlight', loadComponent: () => import('../history/history-page').then((m) => m.HistoryPage) },
 ];
