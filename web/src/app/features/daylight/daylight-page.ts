@@ -163,6 +163,11 @@ export class DaylightPage implements HasUnsavedChanges {
         this.resetForm(space);
       });
     });
+    // The design locked (submitted for review) or unlocked (returned) while the page is open.
+    effect(() => {
+      const canEdit = this.store.canEdit();
+      untracked(() => (canEdit ? this.form.enable() : this.form.disable()));
+    });
   }
 
   hasUnsavedChanges(): boolean {
