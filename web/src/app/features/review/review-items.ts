@@ -55,11 +55,6 @@ export function stepItem(order: readonly ReviewItem[], currentId: string | null,
   return order[Math.min(order.length - 1, Math.max(0, index + step))]!.id;
 }
 
-/** The marker's words on a space, for people who do not see its icon. */
-export function revisionWords(count: number): string {
-  return count === 1 ? '1 item needs revision' : `${count} items need revision`;
-}
-
 export interface KindCount {
   kind: ReviewItemKind;
   label: string;
