@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialog, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -32,12 +32,12 @@ export function openReturnDialog(dialogs: MatDialog, data: ReturnDialogData): Ob
   imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule],
   template: `
     <h2 mat-dialog-title>Return “{{ data.projectName }}” to the engineer</h2>
-    <form (ngSubmit)="send()" novalidate>
+    <form [formGroup]="form" (ngSubmit)="send()" novalidate>
       <mat-dialog-content>
         <p class="note">Say what needs revision. The engineer reads it with the project, and can change the design again.</p>
         <mat-form-field appearance="outline" class="comment">
           <mat-label>What needs revision</mat-label>
-          <textarea matInput [formControl]="comment" rows="5" required cdkFocusInitial></textarea>
+          <textarea matInput formControlName="comment" rows="5" required cdkFocusInitial></textarea>
           <mat-hint align="end">{{ comment.value.length }} / {{ limit }}</mat-hint>
           @if (comment.hasError('required') || comment.hasError('pattern')) {
             <mat-error>Write what needs revision: a return needs a comment.</mat-error>
@@ -84,6 +84,7 @@ export class ReturnDialog {
     nonNullable: true,
     validators: [Validators.required, Validators.pattern(/\S/), Validators.maxLength(returnCommentLimit)],
   });
+  protected readonly form = new FormGroup({ comment: this.comment });
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
 

@@ -9,7 +9,7 @@ import {
   signal,
   viewChild,
 } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -145,6 +145,8 @@ export class ReviewPage {
 
   protected readonly comment = new FormControl('', { nonNullable: true, validators: [Validators.maxLength(reviewTextLimit)] });
   protected readonly reply = new FormControl('', { nonNullable: true, validators: [Validators.maxLength(reviewTextLimit)] });
+  protected readonly verdictForm = new FormGroup({ comment: this.comment });
+  protected readonly replyForm = new FormGroup({ reply: this.reply });
   /** A verdict asked for (its button or its key) that waits for the comment it needs. */
   protected readonly pending = linkedSignal<string | null, WordedVerdict | null>({ source: this.selectedId, computation: () => null });
   protected readonly commentMissing = signal(false);
