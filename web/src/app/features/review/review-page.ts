@@ -1,10 +1,12 @@
 import { DatePipe } from '@angular/common';
 import {
+  afterNextRender,
   ChangeDetectionStrategy,
   Component,
   computed,
   type ElementRef,
   inject,
+  Injector,
   linkedSignal,
   signal,
   viewChild,
@@ -79,6 +81,7 @@ export class ReviewPage {
   protected readonly store = inject(ProjectStore);
   private readonly api = inject(ReviewApi);
   private readonly auth = inject(AuthStore);
+  private readonly injector = inject(Injector);
   protected readonly kindLabels = reviewItemKindLabels;
   protected readonly verdictLabels = reviewVerdictLabels;
   protected readonly outcomeLabels = outcomeLabels;
@@ -169,7 +172,9 @@ export class ReviewPage {
     const next = stepItem(this.order(), this.selected()?.id ?? null, by);
     if (!next) return;
     this.choose(next);
-    queueMicrotask(() => this.list()?.nativeElement.querySelector('[aria-current="true"]')?.scrollIntoView({ block: 'nearest' }));
+    afterNextRender(() => this.list()?.nativeElement.querySelector('[aria-current="true"]')?.scrollIntoView({ block: 'nearest' }), {
+      injector: this.injector,
+    });
   }
 
   /** j / k and the arrows move; c, r and n give a verdict. Never while typing in a field, and never with a modifier held. */
@@ -209,7 +214,7 @@ export class ReviewPage {
     if (verdict !== 'confirmed' && text === '') {
       this.pending.set(verdict);
       this.commentMissing.set(true);
-      queueMicrotask(() => this.commentField()?.nativeElement.focus());
+      afterNextRender(() => this.commentField()?.nativeElement.focus(), { injector: this.injector });
       return;
     }
     if (this.comment.invalid) return;

@@ -38,7 +38,7 @@ describe('ReviewStateBar', () => {
 
   afterEach(() => http.verify());
 
-  const buttons = () => [...element.querySelectorAll('button')].map((button) => button.textContent?.trim());
+  const buttons = () => Array.from(element.querySelectorAll('button')).map((button) => button.textContent?.trim());
 
   it('shows the engineer’s draft with Submit for review, and after the move the state and the lock in words', async () => {
     await open({ role: 'engineer', state: 'draft', version: 3 });
