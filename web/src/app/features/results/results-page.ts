@@ -16,7 +16,16 @@ import { ReviewSummaryCard } from '../review/review-summary-card';
 /** The project's evaluation: the summary, a chart, and every space; recomputed as the design changes. */
 @Component({
   selector: 'al-results-page',
-  imports: [MatIconModule, MatProgressBarModule, CautionsBanner, ProblemList, ResultsSummary, SpaceResultsTable, AllowanceChart, ReviewSummaryCard],
+  imports: [
+    MatIconModule,
+    MatProgressBarModule,
+    CautionsBanner,
+    ProblemList,
+    ResultsSummary,
+    SpaceResultsTable,
+    AllowanceChart,
+    ReviewSummaryCard,
+  ],
   templateUrl: './results-page.html',
   styleUrl: './results-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -31,7 +31,9 @@ import { ageInDays } from './review-items';
         <table mat-table alCardRows [dataSource]="rows()" aria-label="Projects you review">
           <ng-container matColumnDef="name">
             <th mat-header-cell *matHeaderCellDef>Project</th>
-            <td mat-cell *matCellDef="let row"><a [routerLink]="['/projects', row.projectId, 'review']">{{ row.name }}</a></td>
+            <td mat-cell *matCellDef="let row">
+              <a [routerLink]="['/projects', row.projectId, 'review']">{{ row.name }}</a>
+            </td>
           </ng-container>
           <ng-container matColumnDef="state">
             <th mat-header-cell *matHeaderCellDef>State</th>
@@ -57,7 +59,9 @@ import { ageInDays } from './review-items';
           </ng-container>
           <ng-container matColumnDef="age">
             <th mat-header-cell *matHeaderCellDef>Waiting</th>
-            <td mat-cell *matCellDef="let row" class="numeric">{{ row.age === null ? '—' : row.age === 1 ? '1 day' : row.age + ' days' }}</td>
+            <td mat-cell *matCellDef="let row" class="numeric">
+              {{ row.age === null ? '—' : row.age === 1 ? '1 day' : row.age + ' days' }}
+            </td>
           </ng-container>
           <tr mat-header-row *matHeaderRowDef="columns"></tr>
           <tr mat-row *matRowDef="let row; columns: columns" [class.waiting]="asRow(row).state === 'in-review'"></tr>

@@ -18,7 +18,8 @@ describe('movesFrom', () => {
   });
 
   it('offers a contractor nothing, and an administrator every role’s moves', () => {
-    for (const state of ['draft', 'in-review', 'returned', 'accepted', 'issued'] as const) expect(labels(state, 'contractor', false)).toEqual([]);
+    for (const state of ['draft', 'in-review', 'returned', 'accepted', 'issued'] as const)
+      expect(labels(state, 'contractor', false)).toEqual([]);
     expect(labels('in-review', null, true)).toEqual(['Return to the engineer', 'Accept']);
     expect(labels('draft', null, true)).toEqual(['Submit for review']);
   });

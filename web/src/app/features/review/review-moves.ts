@@ -26,8 +26,24 @@ interface RoleMove extends ReviewMove {
  * it needs a submittal package, which cannot be made yet, so the button would only be refused.
  */
 const roleMoves: readonly RoleMove[] = [
-  { from: 'draft', to: 'in-review', role: 'engineer', label: 'Submit for review', icon: 'send', done: 'Submitted for review.', primary: true },
-  { from: 'returned', to: 'in-review', role: 'engineer', label: 'Submit again', icon: 'send', done: 'Submitted again for review.', primary: true },
+  {
+    from: 'draft',
+    to: 'in-review',
+    role: 'engineer',
+    label: 'Submit for review',
+    icon: 'send',
+    done: 'Submitted for review.',
+    primary: true,
+  },
+  {
+    from: 'returned',
+    to: 'in-review',
+    role: 'engineer',
+    label: 'Submit again',
+    icon: 'send',
+    done: 'Submitted again for review.',
+    primary: true,
+  },
   {
     from: 'in-review',
     to: 'returned',

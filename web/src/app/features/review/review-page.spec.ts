@@ -47,7 +47,11 @@ describe('ReviewPage', () => {
     });
     store = TestBed.inject(ProjectStore);
     vi.spyOn(store, 'refreshResults').mockImplementation(() => undefined);
-    store.seed({ project: { ...reviewProject, role }, spaces: [reviewSpace('s1', 'Hose store'), reviewSpace('s2', 'Office')], reviewItems: items });
+    store.seed({
+      project: { ...reviewProject, role },
+      spaces: [reviewSpace('s1', 'Hose store'), reviewSpace('s2', 'Office')],
+      reviewItems: items,
+    });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(ReviewPage);
     element = fixture.nativeElement as HTMLElement;
@@ -137,10 +141,7 @@ describe('ReviewPage', () => {
     await fixture.whenStable();
     http
       .expectOne('/api/projects/p1/review-items/i3')
-      .flush(
-        { error: { code: 'conflict', message: 'The design is no longer in review.' } },
-        { status: 409, statusText: 'Conflict' },
-      );
+      .flush({ error: { code: 'conflict', message: 'The design is no longer in review.' } }, { status: 409, statusText: 'Conflict' });
     itemsRead().flush(items);
     await fixture.whenStable();
     expect(element.querySelector('.failure[role="alert"]')?.textContent).toContain('The design is no longer in review.');

@@ -21,12 +21,7 @@ import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import type { Observable } from 'rxjs';
-import {
-  reviewItemKindLabels,
-  reviewVerdictLabels,
-  type ReviewItemKind,
-  type ReviewVerdict,
-} from '../../../../../contract/review';
+import { reviewItemKindLabels, reviewVerdictLabels, type ReviewItemKind, type ReviewVerdict } from '../../../../../contract/review';
 import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import { formatArea, formatWatts } from '../../shared/format';
@@ -116,7 +111,9 @@ export class ReviewPage {
     return key ? (this.store.spaceTypeByKey().get(key)?.label ?? 'Space type not in this edition') : '';
   });
   protected readonly controlLines = computed(() => (this.spaceResult()?.controls ?? []).filter((line) => line.status !== 'not-required'));
-  protected readonly strategyByKey = computed(() => new Map((this.store.tables()?.controlStrategies ?? []).map((each) => [each.key, each])));
+  protected readonly strategyByKey = computed(
+    () => new Map((this.store.tables()?.controlStrategies ?? []).map((each) => [each.key, each])),
+  );
   protected readonly room = computed(() => {
     const space = this.space();
     const length = space?.length ? Number(space.length) : NaN;
@@ -181,7 +178,8 @@ export class ReviewPage {
   protected key(event: KeyboardEvent): void {
     if (event.ctrlKey || event.metaKey || event.altKey || event.defaultPrevented) return;
     const target = event.target as HTMLElement | null;
-    if (target?.closest('input, textarea, select, [contenteditable=""], [contenteditable="true"], mat-select, .cdk-overlay-container')) return;
+    if (target?.closest('input, textarea, select, [contenteditable=""], [contenteditable="true"], mat-select, .cdk-overlay-container'))
+      return;
     const act = (run: () => void) => {
       event.preventDefault();
       run();

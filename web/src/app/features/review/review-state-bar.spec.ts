@@ -53,7 +53,9 @@ describe('ReviewStateBar', () => {
     await fixture.whenStable();
     expect(element.querySelector('[data-testid="review-state"]')?.textContent).toContain('In review');
     expect(buttons()).toEqual([]);
-    expect(element.querySelector('[data-testid="locked-banner"]')?.textContent).toContain('cannot be changed until the reviewer returns it');
+    expect(element.querySelector('[data-testid="locked-banner"]')?.textContent).toContain(
+      'cannot be changed until the reviewer returns it',
+    );
   });
 
   it('shows a refusal in words and reads the project again when it moved meanwhile', async () => {

@@ -19,7 +19,9 @@ import { countsByKind } from './review-items';
           <ul>
             @for (count of counts(); track count.kind) {
               <li>
-                {{ count.label }}: {{ count.open }} open{{ count.needsRevision > 0 ? ', ' + count.needsRevision + ' needing revision' : '' }}
+                {{ count.label }}: {{ count.open }} open{{
+                  count.needsRevision > 0 ? ', ' + count.needsRevision + ' needing revision' : ''
+                }}
               </li>
             }
           </ul>

@@ -21,7 +21,16 @@ export const spaceCardHeight = 136;
 /** The project's spaces grouped by level, in one virtual-scrolled list that stays smooth at thousands of rows. */
 @Component({
   selector: 'al-space-table',
-  imports: [NgTemplateOutlet, ScrollingModule, MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule, VerifyBadge, RevisionMarker],
+  imports: [
+    NgTemplateOutlet,
+    ScrollingModule,
+    MatButtonModule,
+    MatIconModule,
+    MatMenuModule,
+    MatTooltipModule,
+    VerifyBadge,
+    RevisionMarker,
+  ],
   templateUrl: './space-table.html',
   styleUrl: './space-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

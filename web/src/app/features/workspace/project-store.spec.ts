@@ -40,7 +40,12 @@ describe('ProjectStore and the review state', () => {
 
   beforeEach(() => {
     TestBed.configureTestingModule({
-      providers: [provideZonelessChangeDetection(), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting(), ProjectStore],
+      providers: [
+        provideZonelessChangeDetection(),
+        provideHttpClient(withInterceptors([apiInterceptor])),
+        provideHttpClientTesting(),
+        ProjectStore,
+      ],
     });
     store = TestBed.inject(ProjectStore);
     http = TestBed.inject(HttpTestingController);

@@ -33,9 +33,7 @@ export type ResultsState =
 
 /** The project's check items as last read; `failed` keeps the words of why they could not be read. */
 export type ReviewItemsState =
-  | { status: 'loading' }
-  | { status: 'ready'; items: readonly ReviewItem[] }
-  | { status: 'failed'; message: string };
+  { status: 'loading' } | { status: 'ready'; items: readonly ReviewItem[] } | { status: 'failed'; message: string };
 
 /** Why the design cannot be changed in a state that locks it, in words for the banner. */
 export const lockedWords: Partial<Record<ProjectState, string>> = {
