@@ -6,8 +6,8 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { projectStateLabels, type ReviewDeskEntry } from '../../../../../contract/review';
-import { ApiError } from '../../core/http/api-error';
 import { CardRows } from '../../shared/card-rows';
+import { reviewReadFailure } from '../workspace/project-store';
 import { ReviewApi } from './review-api';
 import { ageInDays } from './review-items';
 
@@ -103,7 +103,7 @@ export class ReviewDeskPage {
   protected readonly failure = computed(() => {
     const error = this.desk.error();
     if (!error) return null;
-    return error instanceof ApiError ? error.message : 'The review desk could not be read.';
+    return reviewReadFailure(error, 'The review desk could not be read.');
   });
 
   /** Projects waiting in review first, the longest waiting at the top; then the rest by name. */

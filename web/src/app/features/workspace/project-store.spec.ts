@@ -6,7 +6,8 @@ import type { ProjectState } from '../../../../../contract/review';
 import type { ProjectDetail } from '../../core/api/api-types';
 import { apiInterceptor } from '../../core/http/api-interceptor';
 import { reviewItem, reviewProject } from '../../../testing/review-items';
-import { ProjectStore, sameWhereUnchanged } from './project-store';
+import { ApiError } from '../../core/http/api-error';
+import { ProjectStore, reviewReadFailure, sameWhereUnchanged } from './project-store';
 
 // Invented records: only id and version matter here.
 const record = (id: string, version: number, name: string) => ({ id, version, name });
@@ -105,5 +106,16 @@ describe('ProjectStore and the review state', () => {
       .expectOne('/api/projects/p1/review-items')
       .flush({ error: { code: 'forbidden', message: 'You are not on this project.' } }, { status: 403, statusText: 'Forbidden' });
     expect(store.reviewItems()).toEqual({ status: 'failed', message: 'You are not on this project.' });
+  });
+});
+
+describe('reviewReadFailure', () => {
+  it('keeps the service’s words, but never the route a 404 names', () => {
+    const missing = new ApiError(404, 'not_found', 'No route for GET /api/review-desk.');
+    expect(reviewReadFailure(missing, 'The review desk could not be read.')).toBe(
+      'The review desk could not be read. The service did not find what was asked for.',
+    );
+    expect(reviewReadFailure(new ApiError(403, 'forbidden', 'You are not on this project.'), 'x')).toBe('You are not on this project.');
+    expect(reviewReadFailure(new Error('boom'), 'The check items could not be read.')).toBe('The check items could not be read.');
   });
 });

@@ -42,6 +42,16 @@ export const lockedWords: Partial<Record<ProjectState, string>> = {
   issued: 'The design is issued: it cannot be changed unless the engineer reopens it as a draft, which starts a new revision.',
 };
 
+/**
+ * Why a review reading failed, in words. A 404 names the route it missed (a service without the
+ * review's routes, or a project gone), which is not for people to read.
+ */
+export function reviewReadFailure(error: unknown, fallback: string): string {
+  if (!(error instanceof ApiError)) return fallback;
+  if (error.status === 404) return `${fallback} The service did not find what was asked for.`;
+  return error.message;
+}
+
 export interface EditionTables {
   spaceTypes: SpaceTypeView[];
   buildingAreaTypes: BuildingAreaTypeView[];
@@ -196,10 +206,7 @@ export class ProjectStore {
           this.reviewApi.items(projectId).pipe(
             map((items): ReviewItemsState => ({ status: 'ready', items })),
             catchError((error: unknown) =>
-              of<ReviewItemsState>({
-                status: 'failed',
-                message: error instanceof ApiError ? error.message : 'The check items could not be read.',
-              }),
+              of<ReviewItemsState>({ status: 'failed', message: reviewReadFailure(error, 'The check items could not be read.') }),
             ),
             map((state) => ({ projectId, state })),
           ),
