@@ -100,7 +100,19 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
     expect(await seriousViolations()).toEqual([]);
   });
 
-  for (const area of ['setup', 'spaces', 'luminaires', 'allowances', 'controls', 'daylight', 'exterior', 'results', 'review', 'compare', 'history']) {
+  for (const area of [
+    'setup',
+    'spaces',
+    'luminaires',
+    'allowances',
+    'controls',
+    'daylight',
+    'exterior',
+    'results',
+    'review',
+    'compare',
+    'history',
+  ]) {
     it(`the ${area} page`, async () => {
       const { page } = browser;
       await page.goto(`${projectUrl}/${area}`);
