@@ -85,6 +85,10 @@ describe('the review states in the workspace', () => {
     expect(await page.getByTestId('locked-banner').count()).toBe(0);
     await expect.poll(() => page.getByRole('button', { name: 'Add space' }).isEnabled()).toBe(true);
     expect(await stateBar().getByRole('button', { name: 'Submit again' }).count()).toBe(1);
+    const note = page.getByTestId('return-note');
+    await note.waitFor();
+    expect(await note.textContent()).toContain('Returned by Dario Quint');
+    expect(await note.textContent()).toContain('The main reading room needs its daylight control described.');
     await page.getByRole('button', { name: 'Add space' }).click();
     await page.getByRole('dialog').waitFor();
     await browser.screenshot('review-states-engineer-returned');

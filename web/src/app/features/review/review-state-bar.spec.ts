@@ -33,7 +33,9 @@ describe('ReviewStateBar', () => {
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(ReviewStateBar);
     element = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    // A returned design reads its history, and the page is stable only once that is answered.
+    if (project.state === 'returned') TestBed.tick();
+    else await fixture.whenStable();
   }
 
   afterEach(() => http.verify());
@@ -60,6 +62,9 @@ describe('ReviewStateBar', () => {
 
   it('shows a refusal in words and reads the project again when it moved meanwhile', async () => {
     await open({ role: 'engineer', state: 'returned', version: 5 });
+    http.expectOne((request) => request.url === '/api/projects/p1/history').flush({ entries: [], more: false, people: [] });
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="return-note"]')).toBeNull();
     const readAgain = vi.spyOn(store, 'readAgain').mockImplementation(() => undefined);
     element.querySelector('button')!.click();
     http.expectOne('/api/projects/p1/transitions').flush(
@@ -97,8 +102,34 @@ describe('ReviewStateBar', () => {
     expect(request.request.body).toEqual({ to: 'returned', version: 8, comment: 'Describe the daylight control of the reading room.' });
     request.flush({ ...reviewProject, state: 'returned', version: 9 });
     http.expectOne('/api/projects/p1/review-items').flush([]);
-    await fixture.whenStable();
+    TestBed.tick();
     expect(element.querySelector('[data-testid="review-state"]')?.textContent).toContain('Returned');
+    // Who returned it and why, from the newest return in the history.
+    const history = http.expectOne((each) => each.url === '/api/projects/p1/history');
+    expect(history.request.params.get('limit')).toBe('50');
+    history.flush({
+      entries: [
+        {
+          id: '9',
+          at: '2026-03-04T09:00:00Z',
+          user: { id: 'u2', name: 'Dario Quint' },
+          entity: 'project',
+          entityId: 'p1',
+          action: 'transition',
+          name: 'Harbour Pavilion',
+          before: null,
+          after: null,
+          restorable: false,
+          transition: { from: 'in-review', to: 'returned', revision: 1, words: 'Returned to the engineer', comment: 'Describe it.' },
+        },
+      ],
+      more: false,
+      people: [],
+    });
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="return-note"]')?.textContent?.replace(/\s+/g, ' ')).toContain(
+      'Returned by Dario Quint on Mar 4, 2026: “Describe it.”',
+    );
   });
 
   it('offers a contractor no move, and none on an archived project', async () => {

@@ -1,13 +1,16 @@
+import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { EMPTY, switchMap } from 'rxjs';
+import { catchError, EMPTY, map, of, switchMap } from 'rxjs';
 import { projectStateLabels } from '../../../../../contract/review';
 import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import { askToConfirm } from '../../shared/confirm-dialog';
+import { HistoryApi } from '../history/history-api';
 import { ProjectStore } from '../workspace/project-store';
 import { movesFrom, type ReviewMove } from './review-moves';
 import { openReturnDialog } from './return-dialog';
@@ -18,7 +21,7 @@ import { openReturnDialog } from './return-dialog';
  */
 @Component({
   selector: 'al-review-state-bar',
-  imports: [MatButtonModule, MatIconModule],
+  imports: [DatePipe, MatButtonModule, MatIconModule],
   template: `
     @if (store.project(); as project) {
       <section class="state-bar" aria-label="Review state" data-testid="review-state">
@@ -42,6 +45,12 @@ import { openReturnDialog } from './return-dialog';
           </div>
         }
       </section>
+      @if (returnNote(); as note) {
+        <p class="return-note" role="note" data-testid="return-note">
+          <mat-icon aria-hidden="true">undo</mat-icon>
+          <span>Returned by {{ note.by }} on {{ note.at | date: 'mediumDate' }}{{ note.comment ? ': “' + note.comment + '”' : '' }}</span>
+        </p>
+      }
       @if (refusal(); as message) {
         <p class="refusal" role="alert"><mat-icon aria-hidden="true">error</mat-icon>{{ message }}</p>
       }
@@ -79,6 +88,13 @@ import { openReturnDialog } from './return-dialog';
       flex-wrap: wrap;
       gap: 8px;
     }
+    .return-note {
+      display: flex;
+      align-items: flex-start;
+      gap: 8px;
+      margin: 0 0 12px;
+      white-space: pre-wrap;
+    }
     .refusal,
     .locked {
       display: flex;
@@ -109,6 +125,7 @@ export class ReviewStateBar {
   private readonly auth = inject(AuthStore);
   private readonly dialogs = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly history = inject(HistoryApi);
   protected readonly busy = signal(false);
   protected readonly refusal = signal<string | null>(null);
 
@@ -116,6 +133,33 @@ export class ReviewStateBar {
     const project = this.store.project();
     return project ? projectStateLabels[project.state] : '';
   });
+
+  /**
+   * While the design is returned, who returned it and why: the last return in the project's
+   * history (read again at each new version). Not shown when the history cannot be read or does
+   * not hold it within its newest page.
+   */
+  private readonly lastReturn = rxResource({
+    params: () => {
+      const project = this.store.project();
+      return project?.state === 'returned' ? { id: project.id, version: project.version } : undefined;
+    },
+    stream: ({ params }) =>
+      this.history.history(params.id, { limit: 50 }).pipe(
+        map((page) => {
+          for (const entry of page.entries) {
+            if (entry.entity === 'project' && entry.transition?.to === 'returned') {
+              return { by: entry.user?.name ?? 'a reviewer no longer registered', at: entry.at, comment: entry.transition.comment ?? '' };
+            }
+          }
+          return null;
+        }),
+        catchError(() => of(null)),
+      ),
+  });
+  protected readonly returnNote = computed(() =>
+    this.store.project()?.state === 'returned' && this.lastReturn.hasValue() ? this.lastReturn.value() : null,
+  );
 
   /** None on an archived project: it cannot change at all. */
   protected readonly moves = computed(() => {
