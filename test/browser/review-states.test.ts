@@ -89,8 +89,8 @@ describe('the review states in the workspace', () => {
     await note.waitFor();
     expect(await note.textContent()).toContain('Returned by Dario Quint');
     expect(await note.textContent()).toContain('The main reading room needs its daylight control described.');
+    await browser.screenshot('review-states-engineer-returned');
     await page.getByRole('button', { name: 'Add space' }).click();
     await page.getByRole('dialog').waitFor();
-    await browser.screenshot('review-states-engineer-returned');
   }, 60_000);
 });

@@ -6,7 +6,7 @@ export function revisionWords(count: number): string {
   return count === 1 ? '1 item needs revision' : `${count} items need revision`;
 }
 
-/** On a space whose check items need revision: an icon with the count, and the words for screen readers. */
+/** Before the name of a space whose check items need revision (a long name's end is cut off): an icon with the count, and the words for screen readers. */
 @Component({
   selector: 'al-revision-marker',
   imports: [MatIconModule],
@@ -23,7 +23,7 @@ export function revisionWords(count: number): string {
       display: inline-flex;
       align-items: center;
       gap: 2px;
-      margin-inline-start: 6px;
+      margin-inline-end: 6px;
       padding: 0 6px;
       border-radius: 10px;
       color: var(--mat-sys-on-error-container);

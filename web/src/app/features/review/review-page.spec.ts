@@ -67,6 +67,14 @@ describe('ReviewPage', () => {
     const rows = Array.from(element.querySelectorAll('.item-list button')).map((row) => row.textContent?.replace(/\s+/g, ' ').trim());
     expect(rows[0]).toContain('Not met · Needs revision');
     expect(rows[2]).toMatch(/No verdict yet · (change_circle)?Changed/);
+    // Under a check, each item is named by its space; under a space, by its check.
+    expect(rows.map((row) => row?.split(/Met|Not met/)[0]?.trim())).toEqual(['Hose store', 'Hose store', 'Office']);
+    element.querySelectorAll<HTMLButtonElement>('mat-button-toggle button')[1]!.click();
+    await fixture.whenStable();
+    expect(Array.from(element.querySelectorAll('h3.group')).map((group) => group.textContent?.trim())).toEqual(['Hose store', 'Office']);
+    expect(element.querySelector('.item-list button [matListItemTitle]')?.textContent?.trim()).toBe('Occupancy sensing');
+    element.querySelectorAll<HTMLButtonElement>('mat-button-toggle button')[0]!.click();
+    await fixture.whenStable();
     expect(heading()).toBe('Hose store: Power allowance');
     await press('j');
     expect(heading()).toBe('Hose store: Occupancy sensing');

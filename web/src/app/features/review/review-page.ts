@@ -21,7 +21,13 @@ import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import type { Observable } from 'rxjs';
-import { reviewItemKindLabels, reviewVerdictLabels, type ReviewItemKind, type ReviewVerdict } from '../../../../../contract/review';
+import {
+  reviewItemKindLabels,
+  reviewVerdictLabels,
+  type ReviewItem,
+  type ReviewItemKind,
+  type ReviewVerdict,
+} from '../../../../../contract/review';
 import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import { formatArea, formatWatts } from '../../shared/format';
@@ -93,6 +99,7 @@ export class ReviewPage {
   /** The items in the order shown: what j and k step through. */
   private readonly order = computed(() => this.groups().flatMap((group) => group.items));
   private readonly chosenId = signal<string | null>(null);
+  private readonly spaceNames = computed(() => new Map(this.store.spaces().map((space) => [space.id, space.name])));
   protected readonly selected = computed(() => {
     const order = this.order();
     return order.find((item) => item.id === this.chosenId()) ?? order[0] ?? null;
@@ -155,6 +162,13 @@ export class ReviewPage {
   protected readonly notice = signal<string | null>(null);
   private readonly commentField = viewChild<ElementRef<HTMLTextAreaElement>>('commentField');
   private readonly list = viewChild<ElementRef<HTMLElement>>('itemList');
+
+  /** In a group of one check, each item is named by its space (the site's by the site); in a space's group, by its check. */
+  protected itemName(item: ReviewItem): string {
+    if (this.grouping() === 'space') return reviewItemKindLabels[item.kind];
+    if (!item.spaceId) return 'Site';
+    return this.spaceNames().get(item.spaceId) ?? item.title;
+  }
 
   protected choose(id: string): void {
     if (id === this.selected()?.id) return;
