@@ -109,6 +109,7 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
     'daylight',
     'exterior',
     'results',
+    'review',
     'compare',
     'package',
     'history',
@@ -121,9 +122,19 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
       if (area === 'history') await page.locator('.entry').first().waitFor();
       if (area === 'compare') await page.getByTestId('edition-column').first().waitFor();
       if (area === 'package') await page.getByText('No package has been made yet.').waitFor();
+      // The check items too: their list, or the words of why there is none.
+      if (area === 'review') await page.locator('al-review-page').locator('.item-list, p.empty, p.failure').first().waitFor();
       expect(await seriousViolations()).toEqual([]);
     });
   }
+
+  it('the review desk', async () => {
+    const { page } = browser;
+    await page.goto(`${served.baseUrl}/review`);
+    await page.getByRole('heading', { name: 'Review desk', level: 1 }).waitFor();
+    await page.locator('al-review-desk-page').locator('table, p.message').first().waitFor();
+    expect(await seriousViolations()).toEqual([]);
+  });
 
   it('the compare page in the dark colour scheme', async () => {
     const { page } = browser;

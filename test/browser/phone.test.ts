@@ -91,6 +91,7 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
     ['Daylight', 'daylight'],
     ['Exterior', 'exterior'],
     ['Results', 'results'],
+    ['Review', 'review'],
     ['Compare', 'compare'],
     ['Package', 'package'],
     ['History', 'history'],
@@ -116,6 +117,7 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
       if (path === 'history') await page.locator('.entry').first().waitFor();
       if (path === 'results') await page.locator('td[data-label="Allowance (W)"]').first().waitFor();
       if (path === 'compare') await page.getByTestId('edition-column').first().waitFor();
+      if (path === 'review') await page.locator('al-review-page').locator('.item-list, p.empty, p.failure').first().waitFor();
       await browser.screenshot(`phone-${path}`);
       expect(await sidewaysScroll()).toBeLessThanOrEqual(1);
       expect(await crampedParts()).toEqual([]);

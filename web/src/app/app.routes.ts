@@ -39,6 +39,11 @@ export const routes: Routes = [
         loadComponent: () => import('./features/account/account-page').then((m) => m.AccountPage),
       },
       {
+        path: 'review',
+        title: 'Review desk · Allowlight',
+        loadComponent: () => import('./features/review/review-desk-page').then((m) => m.ReviewDeskPage),
+      },
+      {
         path: 'people',
         title: 'People · Allowlight',
         canActivate: [adminGuard],

@@ -17,11 +17,13 @@ import { BulkControlPanel } from './bulk-control-panel';
 import { replaceControl } from './control-form';
 import { ControlLineCard } from './control-line-card';
 import { outstandingLines } from './control-status';
+import { RevisionMarker } from '../../shared/revision-marker';
 
 /** Per space: the control requirements the evaluation derives, and what the engineer records as provided or excepted. */
 @Component({
   selector: 'al-controls-page',
   imports: [
+    RevisionMarker,
     MatIconModule,
     MatListModule,
     MatProgressBarModule,

@@ -24,11 +24,13 @@ import { fillOpenings, openingsForm, openingsValue, skylightForm, windowForm, ty
 import { askToDiscard } from '../../shared/confirm-dialog';
 import { MeasureInput } from '../../shared/measure-input';
 import { SpacePicker } from '../../shared/space-picker';
+import { RevisionMarker } from '../../shared/revision-marker';
 
 /** Windows and skylights per space, the daylight zones they make, and whether daylight-responsive control is required. */
 @Component({
   selector: 'al-daylight-page',
   imports: [
+    RevisionMarker,
     ReactiveFormsModule,
     MatButtonModule,
     MatFormFieldModule,
@@ -162,6 +164,11 @@ export class DaylightPage implements HasUnsavedChanges {
         if (space && this.formBase?.id === space.id && this.form.dirty) return;
         this.resetForm(space);
       });
+    });
+    // The design locked (submitted for review) or unlocked (returned) while the page is open.
+    effect(() => {
+      const canEdit = this.store.canEdit();
+      untracked(() => (canEdit ? this.form.enable() : this.form.disable()));
     });
   }
 

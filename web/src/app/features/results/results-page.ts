@@ -11,11 +11,21 @@ import { WorkspaceApi } from '../workspace/workspace-api';
 import { AllowanceChart } from './allowance-chart';
 import { ResultsSummary } from './results-summary';
 import { SpaceResultsTable } from './space-results-table';
+import { ReviewSummaryCard } from '../review/review-summary-card';
 
 /** The project's evaluation: the summary, a chart, and every space; recomputed as the design changes. */
 @Component({
   selector: 'al-results-page',
-  imports: [MatIconModule, MatProgressBarModule, CautionsBanner, ProblemList, ResultsSummary, SpaceResultsTable, AllowanceChart],
+  imports: [
+    MatIconModule,
+    MatProgressBarModule,
+    CautionsBanner,
+    ProblemList,
+    ResultsSummary,
+    SpaceResultsTable,
+    AllowanceChart,
+    ReviewSummaryCard,
+  ],
   templateUrl: './results-page.html',
   styleUrl: './results-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -6,6 +6,7 @@ import { MatDialog } from '@angular/material/dialog';
 import { provideRouter } from '@angular/router';
 import type { ProjectDetail, SpaceRecord, SpaceTypeView } from '../../core/api/api-types';
 import { evaluated, type SpecDocument } from '../../../testing/evaluate';
+import { reviewItem } from '../../../testing/review-items';
 import { ProjectStore } from '../workspace/project-store';
 import { groupByLevel, spaceStatus } from './space-rows';
 import { SpacesPage } from './spaces-page';
@@ -218,5 +219,23 @@ describe('the space table', () => {
     expect(element.querySelector('button[aria-label="More for Office 101"]')).toBeNull();
     expect(element.textContent).not.toContain('Add space');
     expect(element.textContent).not.toContain('Import spreadsheet');
+  });
+
+  it('shows the engineer the editing disabled while the design is in review, and marks a space with items that need revision', async () => {
+    store.seed({
+      project: { ...project, state: 'in-review' },
+      reviewItems: [
+        reviewItem('i1', { spaceId: 's2', verdict: 'needs-revision' }),
+        reviewItem('i2', { spaceId: 's1', verdict: 'confirmed' }),
+      ],
+    });
+    await fixture.whenStable();
+    const add = Array.from(element.querySelectorAll<HTMLButtonElement>('button')).find((button) =>
+      button.textContent?.includes('Add space'),
+    );
+    expect(add?.disabled).toBe(true);
+    expect(element.querySelector('button[aria-label="Edit Office 101"]')).toBeNull();
+    expect(rowText('Office 101')).toContain('1 item needs revision');
+    expect(rowText('Reading room')).not.toContain('needs revision');
   });
 });

@@ -11,6 +11,7 @@ import { phoneScreen, printing, screenMatches } from '../../shared/media-queries
 import { inProjectUnits } from '../../shared/unit-words';
 import { VerifyBadge } from '../../shared/verify-badge';
 import { groupByLevel, spaceStatus, type SpaceRow, type SpaceStatus } from './space-rows';
+import { RevisionMarker } from '../../shared/revision-marker';
 
 /** Row height in px; the virtual scroll needs it fixed. */
 export const spaceRowHeight = 48;
@@ -20,7 +21,16 @@ export const spaceCardHeight = 136;
 /** The project's spaces grouped by level, in one virtual-scrolled list that stays smooth at thousands of rows. */
 @Component({
   selector: 'al-space-table',
-  imports: [NgTemplateOutlet, ScrollingModule, MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule, VerifyBadge],
+  imports: [
+    NgTemplateOutlet,
+    ScrollingModule,
+    MatButtonModule,
+    MatIconModule,
+    MatMenuModule,
+    MatTooltipModule,
+    VerifyBadge,
+    RevisionMarker,
+  ],
   templateUrl: './space-table.html',
   styleUrl: './space-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,6 +45,8 @@ export class SpaceTable {
   readonly spaceTypes = input<readonly SpaceTypeView[]>([]);
   readonly buildingAreaTypes = input<readonly BuildingAreaTypeView[]>([]);
   readonly canEdit = input(false);
+  /** Per space, its check items that need revision in the present round. */
+  readonly revisions = input<ReadonlyMap<string, number>>(new Map());
 
   readonly edit = output<SpaceRecord>();
   readonly duplicate = output<SpaceRecord>();

@@ -16,6 +16,8 @@ import type {
 import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import { problemLine, type ProblemContext, type ProblemLine } from '../../shared/problem-words';
+import { editableStates, projectStateLabels, type ProjectState, type ReviewItem } from '../../../../../contract/review';
+import { ReviewApi } from '../review/review-api';
 import { WorkspaceApi } from './workspace-api';
 
 /**
@@ -28,6 +30,27 @@ export type ResultsState =
   | { status: 'ready'; result: EvaluationResult }
   | { status: 'incomplete'; problems: readonly ProblemLine[]; message: string }
   | { status: 'failed'; message: string };
+
+/** The project's check items as last read; `failed` keeps the words of why they could not be read. */
+export type ReviewItemsState =
+  { status: 'loading' } | { status: 'ready'; items: readonly ReviewItem[] } | { status: 'failed'; message: string };
+
+/** Why the design cannot be changed in a state that locks it, in words for the banner. */
+export const lockedWords: Partial<Record<ProjectState, string>> = {
+  'in-review': 'The design is in review: it cannot be changed until the reviewer returns it.',
+  accepted: 'The design is accepted: it cannot be changed unless the engineer reopens it as a draft, which starts a new revision.',
+  issued: 'The design is issued: it cannot be changed unless the engineer reopens it as a draft, which starts a new revision.',
+};
+
+/**
+ * Why a review reading failed, in words. A 404 names the route it missed (a service without the
+ * review's routes, or a project gone), which is not for people to read.
+ */
+export function reviewReadFailure(error: unknown, fallback: string): string {
+  if (!(error instanceof ApiError)) return fallback;
+  if (error.status === 404) return `${fallback} The service did not find what was asked for.`;
+  return error.message;
+}
 
 export interface EditionTables {
   spaceTypes: SpaceTypeView[];
@@ -74,6 +97,8 @@ function upsertInto<T extends { id: string; version: number }>(
 @Injectable()
 export class ProjectStore {
   private readonly api = inject(WorkspaceApi);
+  private readonly reviewApi = inject(ReviewApi);
+  private readonly reviewRead = new Subject<string>();
   private readonly auth = inject(AuthStore);
   private readonly recompute = new Subject<string>();
   /** A change someone made (another tab, another person, the API): the project is read again. */
@@ -88,6 +113,7 @@ export class ProjectStore {
   private readonly tableState = signal<EditionTables | null>(null);
   private readonly resultState = signal<ResultsState>({ status: 'idle' });
   private readonly loadErrorState = signal<string | null>(null);
+  private readonly reviewState = signal<ReviewItemsState>({ status: 'loading' });
   readonly project = this.projectState.asReadonly();
   readonly spaces = this.spaceList.asReadonly();
   readonly luminaireTypes = this.typeList.asReadonly();
@@ -95,14 +121,37 @@ export class ProjectStore {
   readonly tables = this.tableState.asReadonly();
   readonly results = this.resultState.asReadonly();
   readonly loadError = this.loadErrorState.asReadonly();
+  readonly reviewItems = this.reviewState.asReadonly();
 
   readonly projectId = computed(() => this.project()?.id ?? null);
   readonly units = computed(() => this.project()?.units ?? 'ip');
   /** Engineers (and administrators) archive a project and bring it back. */
   readonly canArchive = computed(() => this.project()?.role === 'engineer' || (this.auth.user()?.isAdmin ?? false));
   readonly archived = computed(() => !!this.project()?.archivedAt);
-  /** The same people edit, unless the project is archived; everyone else reads. The server refuses the rest anyway. */
-  readonly canEdit = computed(() => this.canArchive() && !this.archived());
+  /** The same people change the design, unless the project is archived; everyone else reads. */
+  readonly mayEdit = computed(() => this.canArchive() && !this.archived());
+  /** The review state lets the design change: a draft or a returned design; in review, accepted and issued lock it. */
+  readonly editable = computed(() => {
+    const state = this.project()?.state;
+    return state !== undefined && editableStates.includes(state);
+  });
+  /** Why the design is locked, in words; null while it is editable. */
+  readonly lockedReason = computed(() => {
+    const state = this.project()?.state;
+    return state && !this.editable() ? (lockedWords[state] ?? `The design is ${projectStateLabels[state].toLowerCase()}.`) : null;
+  });
+  /** What every editing control follows: the person may change the design, and its state lets it change. The server refuses the rest anyway. */
+  readonly canEdit = computed(() => this.mayEdit() && this.editable());
+  /** Per space, how many of its check items need revision in the present round (only spaces with any). */
+  readonly needsRevisionBySpace = computed(() => {
+    const state = this.reviewItems();
+    const counts = new Map<string, number>();
+    if (state.status !== 'ready') return counts;
+    for (const item of state.items) {
+      if (item.spaceId && item.verdict === 'needs-revision') counts.set(item.spaceId, (counts.get(item.spaceId) ?? 0) + 1);
+    }
+    return counts;
+  });
   readonly spaceTypeByKey = computed(() => new Map((this.tables()?.spaceTypes ?? []).map((type) => [type.key, type])));
   readonly resultBySpace = computed(() => {
     const state = this.results();
@@ -150,6 +199,23 @@ export class ProjectStore {
         takeUntilDestroyed(inject(DestroyRef)),
       )
       .subscribe();
+    // The last reading asked for wins; a project that has none yet (never submitted) answers an empty list.
+    this.reviewRead
+      .pipe(
+        switchMap((projectId) =>
+          this.reviewApi.items(projectId).pipe(
+            map((items): ReviewItemsState => ({ status: 'ready', items })),
+            catchError((error: unknown) =>
+              of<ReviewItemsState>({ status: 'failed', message: reviewReadFailure(error, 'The check items could not be read.') }),
+            ),
+            map((state) => ({ projectId, state })),
+          ),
+        ),
+        takeUntilDestroyed(inject(DestroyRef)),
+      )
+      .subscribe(({ projectId, state }) => {
+        if (this.projectId() === projectId) this.reviewState.set(state);
+      });
     inject(DestroyRef).onDestroy(() => this.unfollow());
   }
 
@@ -195,6 +261,7 @@ export class ProjectStore {
         this.exteriorList.set(sameWhereUnchanged(this.exterior(), loaded.exterior));
         if (editionChanged && loaded.project.edition) this.loadTables(loaded.project.edition).subscribe();
         this.refreshResults();
+        this.reloadReviewItems();
       }),
       catchError((error: unknown) => {
         // Taken off the team, or the project gone: say so; anything else waits for the next change.
@@ -240,6 +307,8 @@ export class ProjectStore {
         this.typeList.set(loaded.luminaireTypes);
         this.exteriorList.set(loaded.exterior);
         this.refreshResults();
+        this.reviewState.set({ status: 'loading' });
+        this.reloadReviewItems();
         return loaded.project.edition ? this.loadTables(loaded.project.edition) : of(undefined);
       }),
       catchError((error: unknown) => {
@@ -266,6 +335,34 @@ export class ProjectStore {
   refreshResults(): void {
     const id = this.projectId();
     if (id) this.recompute.next(id);
+  }
+
+  /** Reads the project again, as after someone else's change: after a refusal that says it moved meanwhile. */
+  readAgain(): void {
+    const id = this.projectId();
+    if (id) this.changed.next(id);
+  }
+
+  /** Reads the check items again: after a verdict, a reply, a bulk confirmation or a move of the state. */
+  reloadReviewItems(): void {
+    const id = this.projectId();
+    if (id) this.reviewRead.next(id);
+  }
+
+  /**
+   * Moves the project's review state from the version held; the project that comes back replaces
+   * it, and the check items are read again (a submission makes a new round). A refusal is the
+   * caller's to show.
+   */
+  move(to: ProjectState, comment?: string): Observable<ProjectDetail> {
+    const project = this.project();
+    if (!project) return of();
+    return this.reviewApi.transition(project.id, { to, version: project.version, ...(comment ? { comment } : {}) }).pipe(
+      tap((moved) => {
+        this.setProject(moved);
+        this.reloadReviewItems();
+      }),
+    );
   }
 
   setProject(project: ProjectDetail): void {
@@ -349,6 +446,7 @@ export class ProjectStore {
     exterior?: ExteriorApplicationRecord[];
     tables?: EditionTables;
     results?: ResultsState;
+    reviewItems?: readonly ReviewItem[];
   }): void {
     if (state.project) this.projectState.set(state.project);
     if (state.spaces) this.spaceList.set(state.spaces);
@@ -356,5 +454,6 @@ export class ProjectStore {
     if (state.exterior) this.exteriorList.set(state.exterior);
     if (state.tables) this.tableState.set(state.tables);
     if (state.results) this.resultState.set(state.results);
+    if (state.reviewItems) this.reviewState.set({ status: 'ready', items: state.reviewItems });
   }
 }

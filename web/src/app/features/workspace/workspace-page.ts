@@ -19,6 +19,7 @@ import { openCopyDialog } from '../projects/copy-project-dialog';
 import { ProjectApi } from '../projects/project-api';
 import { stateLabels } from '../projects/project-states';
 import { openItemWords, reasonTitles } from '../results/verdict-reasons';
+import { ReviewStateBar } from '../review/review-state-bar';
 import { ProjectStore } from './project-store';
 
 interface WorkspaceArea {
@@ -27,7 +28,7 @@ interface WorkspaceArea {
   icon: string;
 }
 
-/** The project's areas, in the order the work goes, the design under other editions, the submittal package, then its history. Review, Field tests and Team follow. */
+/** The project's areas, in the order the work goes: the design, its results and review, the design under other editions, the submittal package, then its history. Field tests and Team follow. */
 export const workspaceAreas: readonly WorkspaceArea[] = [
   { path: 'setup', label: 'Set-up', icon: 'tune' },
   { path: 'spaces', label: 'Spaces', icon: 'floor_lamp' },
@@ -37,6 +38,7 @@ export const workspaceAreas: readonly WorkspaceArea[] = [
   { path: 'daylight', label: 'Daylight', icon: 'wb_sunny' },
   { path: 'exterior', label: 'Exterior', icon: 'nightlight' },
   { path: 'results', label: 'Results', icon: 'fact_check' },
+  { path: 'review', label: 'Review', icon: 'rate_review' },
   { path: 'compare', label: 'Compare', icon: 'compare_arrows' },
   { path: 'package', label: 'Package', icon: 'inventory_2' },
   { path: 'history', label: 'History', icon: 'history' },
@@ -57,6 +59,7 @@ export const workspaceAreas: readonly WorkspaceArea[] = [
     RouterLink,
     RouterLinkActive,
     RouterOutlet,
+    ReviewStateBar,
   ],
   providers: [ProjectStore],
   templateUrl: './workspace-page.html',

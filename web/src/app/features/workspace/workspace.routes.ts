@@ -46,6 +46,7 @@ export const workspaceRoutes: Routes = [
     loadComponent: () => import('../exterior/exterior-page').then((m) => m.ExteriorPage),
   },
   { path: 'results', title: 'Results · Allowlight', loadComponent: () => import('../results/results-page').then((m) => m.ResultsPage) },
+  { path: 'review', title: 'Review · Allowlight', loadComponent: () => import('../review/review-page').then((m) => m.ReviewPage) },
   {
     path: 'compare',
     title: 'Compare editions · Allowlight',
