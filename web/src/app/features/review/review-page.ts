@@ -51,6 +51,7 @@ const fixedOn: Record<ReviewItemKind, { path: string; label: string }> = {
   'automatic-shutoff': { path: '../controls', label: 'Controls' },
   'light-reduction': { path: '../controls', label: 'Controls' },
   'daylight-response': { path: '../daylight', label: 'Daylight' },
+  'other-controls': { path: '../controls', label: 'Controls' },
   'exterior-power': { path: '../exterior', label: 'Exterior' },
   'exterior-controls': { path: '../exterior', label: 'Exterior' },
 };
