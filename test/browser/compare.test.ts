@@ -87,11 +87,12 @@ describe('the Compare editions page', { timeout: 90_000 }, () => {
     await page.goto(`${projectUrl}/results`);
     const link = page.getByRole('link', { name: 'Compare', exact: true });
     await link.waitFor();
-    // The area comes right after Results in the project's navigation (each link's text ends with its label, after its icon's).
+    // The area comes after Results and its Review in the project's navigation (each link's text ends with its label, after its icon's).
     const labels = await page.getByRole('navigation', { name: 'Project areas' }).getByRole('link').allInnerTexts();
     const position = (label: string) => labels.findIndex((text) => text.trim().endsWith(label));
     expect(position('Compare')).toBeGreaterThan(0);
-    expect(position('Compare')).toBe(position('Results') + 1);
+    expect(position('Review')).toBe(position('Results') + 1);
+    expect(position('Compare')).toBe(position('Review') + 1);
     await link.click();
     await page.waitForURL(/\/compare$/);
     await page.getByRole('heading', { name: 'Compare editions', level: 2 }).waitFor();

@@ -147,7 +147,9 @@ describe('the engineer builds a design in the workspace', { timeout: 60_000 }, (
     await expect.poll(() => page.getByRole('button', { name: 'Save set-up' }).isDisabled()).toBe(true);
     await page.getByText('Dario Quint').waitFor();
     await page.getByLabel('E-mail address', { exact: true }).fill('contractor@alderbay.example');
-    await choose(page, 'Role', 'Contractor');
+    // The team form's own role, not the invitation form's ("Role of the invited") beside it.
+    await page.getByRole('combobox', { name: 'Role', exact: true }).click();
+    await page.getByRole('option', { name: 'Contractor' }).click();
     await page.getByRole('button', { name: 'Add to the team' }).click();
     await page.getByText('Noor Abernathy').waitFor();
     await browser.screenshot('setup');
