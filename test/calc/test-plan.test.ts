@@ -142,7 +142,7 @@ describe('the widened sample after failures (IECC 2021 C408.3.1.1: 30 % or more 
     expect(sensors(after).filter((item) => item.required)).toHaveLength(8);
     expect(sampled(after)).toEqual([expect.objectContaining({ id: chosen.id })]);
     expect(after.groups[0]).toMatchObject({ widened: true, sampleSize: 1, population: 8 });
-    expect(after.groups[0]!.words).toMatch(/1 of the 1 sensors in the sample failed.*every sensor of this combination/);
+    expect(after.groups[0]!.words).toBe('The sensor chosen for the sample failed: every sensor of this combination is now to be tested.');
   });
 });
 
@@ -250,5 +250,19 @@ describe('the other tests of the plan', () => {
     const built90 = buildTestPlan('p', outcome.document, evaluate(outcome.document, ashrae2019));
     expect(built90.items[0]).toMatchObject({ kind: 'occupant-sensor' });
     expect(built90.items[0]!.section).toMatch(/^ASHRAE 90\.1-2019 §9\.9 \(number from memory\)/);
+  });
+});
+
+describe('the widening words for a larger sample', () => {
+  it('counts the failures: 3 of 8 sampled from 71 fail (37.5 %, 30 % or more)', () => {
+    const spaces = storageRooms(71);
+    const chosen = sampled(plan(documentOf(spaces))).slice(0, 3);
+    const results = chosen.map((item, index) => ({ itemId: item.id, result: 'fail' as const, at: `2026-12-03T10:0${index}:00.000Z` }));
+    const after = plan(documentOf(spaces), 'project-a', results);
+    expect(after.groups[0]).toMatchObject({ widened: true, sampleSize: 8 });
+    expect(after.groups[0]!.words).toBe('3 of the 8 sensors in the sample failed, 30 % or more: every sensor of this combination is now to be tested.');
+    expect(sensors(after).filter((item) => item.required)).toHaveLength(71);
+    // 2 of 8 is 25 %: below 30 %, the sample stays.
+    expect(plan(documentOf(spaces), 'project-a', results.slice(0, 2)).groups[0]!.widened).toBe(false);
   });
 });

@@ -434,9 +434,13 @@ export function buildTestPlan(
       totalSensors <= testEachUpTo
         ? `The project has ${totalSensors} occupant sensors, ${testEachUpTo} or fewer: each one is tested.`
         : widening.widened
-          ? `${widening.failed} of the ${size} sensors in the sample failed, ${widenAtFailPercent} % or more: every sensor of this combination is now to be tested.`
-          : size === units.length
-            ? `Each of the ${units.length} sensors is tested.`
+          ? size === 1
+            ? 'The sensor chosen for the sample failed: every sensor of this combination is now to be tested.'
+            : `${widening.failed} of the ${size} sensors in the sample failed, ${widenAtFailPercent} % or more: every sensor of this combination is now to be tested.`
+          : units.length === 1
+            ? 'The only sensor of this combination is tested.'
+            : size === units.length
+              ? `Each of the ${units.length} sensors is tested.`
             : `${size} of ${units.length} sensors (at least ${samplePercent} %, rounded up), chosen by a fixed draw for this project.`;
     groups.push({
       kind: 'occupant-sensor',
@@ -486,7 +490,7 @@ export function buildTestPlan(
       population: list.length,
       sampleSize: list.length,
       widened: false,
-      words: `Each of the ${list.length} is tested.`,
+      words: list.length === 1 ? 'The only one is tested.' : `Each of the ${list.length} is tested.`,
       itemIds: list.map((item) => item.id),
     });
   }
