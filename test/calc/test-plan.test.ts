@@ -260,7 +260,9 @@ describe('the widening words for a larger sample', () => {
     const results = chosen.map((item, index) => ({ itemId: item.id, result: 'fail' as const, at: `2026-12-03T10:0${index}:00.000Z` }));
     const after = plan(documentOf(spaces), 'project-a', results);
     expect(after.groups[0]).toMatchObject({ widened: true, sampleSize: 8 });
-    expect(after.groups[0]!.words).toBe('3 of the 8 sensors in the sample failed, 30 % or more: every sensor of this combination is now to be tested.');
+    expect(after.groups[0]!.words).toBe(
+      '3 of the 8 sensors in the sample failed, 30 % or more: every sensor of this combination is now to be tested.',
+    );
     expect(sensors(after).filter((item) => item.required)).toHaveLength(71);
     // 2 of 8 is 25 %: below 30 %, the sample stays.
     expect(plan(documentOf(spaces), 'project-a', results.slice(0, 2)).groups[0]!.widened).toBe(false);

@@ -40,7 +40,14 @@ interface Plan {
   items: Item[];
   groups: Group[];
   notices: string[];
-  progress: { required: number; passed: number; failed: number; untested: number; complete: boolean; kinds: { kind: string; required: number }[] };
+  progress: {
+    required: number;
+    passed: number;
+    failed: number;
+    untested: number;
+    complete: boolean;
+    kinds: { kind: string; required: number }[];
+  };
 }
 
 beforeAll(async () => {
@@ -63,7 +70,7 @@ async function planFor(who: SignedInAgent): Promise<Plan> {
   return response.body;
 }
 
-function record(who: SignedInAgent, itemId: string, body: unknown) {
+function record(who: SignedInAgent, itemId: string, body: object) {
   return who.agent
     .patch(`/api/projects/${projectId}/test-plan/items/${encodeURIComponent(itemId)}`)
     .set('X-CSRF-Token', who.csrfToken)
@@ -163,7 +170,9 @@ describe('recording the tests', () => {
     const members = after.items.filter((item) => group.itemIds.includes(item.id));
     expect(members.map((item) => item.required)).toEqual([true, true, true]);
     expect(count(after, 'occupant-sensor', 'required')).toBe(16);
-    expect(after.notices).toEqual([expect.stringMatching(/^The sensor chosen for the sample failed: every sensor of this combination is now to be tested/)]);
+    expect(after.notices).toEqual([
+      expect.stringMatching(/^The sensor chosen for the sample failed: every sensor of this combination is now to be tested/),
+    ]);
     // A passing retest after the repair does not take the finding back.
     await record(contractor, chosen.id, { result: 'pass' });
     expect((await planFor(reviewer)).groups.find((entry) => entry.combination === group.combination)!.widened).toBe(true);
@@ -177,8 +186,15 @@ describe('recording the tests', () => {
     expect(tests[3]).toMatchObject({
       user: { name: 'Noor Abernathy' },
       name: expect.stringMatching(/^Time-switch control in /),
-      fieldTest: { result: 'fail', measured: { overrideMinutes: '180' }, notes: 'Override held the lights for three hours.', retest: false },
+      fieldTest: {
+        result: 'fail',
+        measured: { overrideMinutes: '180' },
+        notes: 'Override held the lights for three hours.',
+        retest: false,
+      },
     });
-    expect(tests[1]).toMatchObject({ fieldTest: { result: 'fail', measured: { timeoutMinutes: '35', lightLevel: '42.5' }, lightLevelUnit: 'fc' } });
+    expect(tests[1]).toMatchObject({
+      fieldTest: { result: 'fail', measured: { timeoutMinutes: '35', lightLevel: '42.5' }, lightLevelUnit: 'fc' },
+    });
   });
 });

@@ -150,7 +150,8 @@ function testSection(edition: string, kind: TestKind, requirementSection: string
     const number = year === '2013' ? '9.4.3' : '9.9';
     return `ASHRAE 90.1-${year} §${number} (number from memory)${own}`;
   }
-  const sub = kind === 'occupant-sensor' ? 'C408.3.1.1' : kind === 'time-switch' ? 'C408.3.1.2' : kind === 'daylight' ? 'C408.3.1.3' : 'C408.3.1';
+  const sub =
+    kind === 'occupant-sensor' ? 'C408.3.1.1' : kind === 'time-switch' ? 'C408.3.1.2' : kind === 'daylight' ? 'C408.3.1.3' : 'C408.3.1';
   return `IECC ${year} ${sub} (sub-section number from memory)${own}`;
 }
 
@@ -192,7 +193,8 @@ function timeSwitchSteps(): { steps: string[]; expected: string } {
       'During an off period press the override: time how long the lights stay on.',
       'Hand the schedule and how to change it to the owner.',
     ],
-    expected: 'Lights follow every program; the program survives a power cut; an override keeps them on for no more than 2 hours (120 minutes).',
+    expected:
+      'Lights follow every program; the program survives a power cut; an override keeps them on for no more than 2 hours (120 minutes).',
   };
 }
 
@@ -307,7 +309,9 @@ export function widenedSample(
   }
   const failed = group.sampleIds.filter((id) => first.get(id)?.result === 'fail').length;
   const widened =
-    group.sampleIds.length > 0 && group.sampleIds.length < group.itemIds.length && failed * 100 >= widenAtFailPercent * group.sampleIds.length;
+    group.sampleIds.length > 0 &&
+    group.sampleIds.length < group.itemIds.length &&
+    failed * 100 >= widenAtFailPercent * group.sampleIds.length;
   return { widened, failed, required: widened ? [...group.itemIds] : [...group.sampleIds] };
 }
 
@@ -441,7 +445,7 @@ export function buildTestPlan(
             ? 'The only sensor of this combination is tested.'
             : size === units.length
               ? `Each of the ${units.length} sensors is tested.`
-            : `${size} of ${units.length} sensors (at least ${samplePercent} %, rounded up), chosen by a fixed draw for this project.`;
+              : `${size} of ${units.length} sensors (at least ${samplePercent} %, rounded up), chosen by a fixed draw for this project.`;
     groups.push({
       kind: 'occupant-sensor',
       combination,
