@@ -197,4 +197,16 @@ describe('recording the tests', () => {
       fieldTest: { result: 'fail', measured: { timeoutMinutes: '35', lightLevel: '42.5' }, lightLevelUnit: 'fc' },
     });
   });
+
+  it('refuses a test on an archived project (409), which still shows its plan and results', async () => {
+    const item = (await planFor(contractor)).items.find((entry) => entry.kind === 'daylight')!;
+    const archive = await engineer.agent.post(`/api/projects/${projectId}/archive`).set('X-CSRF-Token', engineer.csrfToken);
+    expect(archive.status).toBe(200);
+    const refused = await record(contractor, item.id, { result: 'pass' });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('archived');
+    // The time switch and the office sensor retested above.
+    expect((await planFor(contractor)).progress.passed).toBe(2);
+    await engineer.agent.post(`/api/projects/${projectId}/unarchive`).set('X-CSRF-Token', engineer.csrfToken);
+  });
 });
