@@ -23,6 +23,7 @@ import * as reviewItems from './20261203001000_review_items.js';
 import * as reviewDigest from './20261203002000_review_digest.js';
 import * as invitations from './20261203003000_invitations.js';
 import * as packageRevisions from './20261203005000_package_revisions.js';
+import * as fieldTests from './20261203006000_field_tests.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -55,6 +56,7 @@ const migrations: Record<string, Migration> = {
   '20261203002000_review_digest': reviewDigest,
   '20261203003000_invitations': invitations,
   '20261203005000_package_revisions': packageRevisions,
+  '20261203006000_field_tests': fieldTests,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -29,6 +29,7 @@ import { reviewRouter } from './review/review.routes.js';
 import { exteriorScheduleRouter } from './exterior-schedule/exterior-schedule.routes.js';
 import { reviewDeskRouter, reviewItemsRouter } from './review/review-items.routes.js';
 import { packageRouter } from './package/package.routes.js';
+import { fieldTestsRouter } from './field-tests/field-tests.routes.js';
 import { s3Storage, type FileStorage } from './package/storage.js';
 import { verifyRouter } from './package/verify.routes.js';
 import { ProjectChanges } from './live/project-changes.js';
@@ -138,6 +139,7 @@ export function createApp({
   api.use('/projects/:projectId', exteriorScheduleRouter(db));
   api.use('/projects/:projectId', reviewItemsRouter(db));
   api.use('/review-desk', reviewDeskRouter(db));
+  api.use('/projects/:projectId', fieldTestsRouter(db));
   api.use('/projects/:projectId', packageRouter(db, storage, { appUrl: config.APP_URL, mailQueued }));
   api.use('/projects/:projectId', liveRouter(db, changes));
   api.use('/evaluate', evaluateRouter(db));

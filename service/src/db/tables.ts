@@ -467,6 +467,23 @@ export interface PackageRevisionRow {
   made_at: Date;
 }
 
+/** One test of a functional test plan item, kept with every retest (the latest counts); never updated. */
+export interface FieldTestResultRow {
+  id: string;
+  project_id: string;
+  /** The plan item's stable key. */
+  item_id: string;
+  result: 'pass' | 'fail';
+  timeout_minutes: string | null;
+  light_level: string | null;
+  override_minutes: string | null;
+  /** The project's units when recorded: the light level is foot-candles ('ip') or lux ('si'). */
+  light_unit: 'ip' | 'si';
+  notes: string | null;
+  recorded_by: string | null;
+  recorded_at: Date;
+}
+
 /**
  * How a project or design row is written: NUMERIC columns as decimal text (as they are read), JSON
  * columns as JSON text, and any column may be left out for its default or be a database expression.
@@ -502,6 +519,7 @@ declare module 'knex/types/tables.js' {
     idempotency_keys: IdempotencyKeyRow;
     project_members: ProjectMemberRow;
     package_revisions: StoredTable<PackageRevisionRow, 'document' | 'result' | 'files'>;
+    field_test_results: StoredTable<FieldTestResultRow>;
     audit_log: AuditLogRow;
     invitations: InvitationRow;
     code_editions: CodeTable<CodeEditionRow>;

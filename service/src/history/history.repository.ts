@@ -31,6 +31,8 @@ export interface HistoryEntry {
   review?: unknown;
   /** On a submittal package made: its revision number, whether a draft, and its fingerprint. */
   package?: unknown;
+  /** On a field test recorded or repeated: the result, the measured values, the notes; `name` is the test item's title. */
+  fieldTest?: unknown;
   /** A deleted space, luminaire type, exterior application or allowance claim that can still be brought back. */
   restorable: boolean;
 }
@@ -52,6 +54,7 @@ interface AuditRow {
     transition?: unknown;
     review?: unknown;
     package?: unknown;
+    fieldTest?: unknown;
     restoredFrom?: string;
   } | null;
 }
@@ -111,6 +114,7 @@ export async function listHistory(db: Knex, projectId: string, filter: HistoryFi
       ...(row.detail?.transition ? { transition: row.detail.transition } : {}),
       ...(row.detail?.review ? { review: row.detail.review } : {}),
       ...(row.detail?.package ? { package: row.detail.package } : {}),
+      ...(row.detail?.fieldTest ? { fieldTest: row.detail.fieldTest } : {}),
       restorable:
         row.action === 'delete' &&
         restorableEntities.has(row.entity) &&

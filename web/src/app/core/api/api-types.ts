@@ -237,6 +237,19 @@ export type ClaimHistoryAction = 'create' | 'update' | 'delete' | 'restore';
 export type TeamHistoryAction = 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account';
 /** A reviewer's verdict on a check item, a reply in its thread, a bulk confirmation. */
 export type ReviewHistoryAction = 'verdict' | 'reply' | 'bulk-confirm';
+/** A functional test recorded on a plan item: its first test, or a retest. */
+export type FieldTestHistoryAction = 'record' | 'retest';
+
+/** What a recorded functional test carries into the history (the service's audit detail). */
+export interface FieldTestHistoryDetail {
+  result: 'pass' | 'fail';
+  measured?: { timeoutMinutes?: string; lightLevel?: string; overrideMinutes?: string };
+  /** The light level's unit: foot-candles or lux, from the project's units when recorded. */
+  lightLevelUnit?: 'fc' | 'lux';
+  notes?: string;
+  retest: boolean;
+  role?: ProjectRole | null;
+}
 export type InvitationHistoryAction = 'invite' | 'withdraw-invitation' | 'accept-invitation';
 
 /** The set-up as the history keeps it before and after a change of the project (entries from before the permit fields lack them). */
@@ -311,6 +324,14 @@ export type HistoryEntry = HistoryEntryBase &
         action: InvitationHistoryAction;
         before: { role: ProjectRole } | null;
         after: { role: ProjectRole; expiresAt?: string } | null;
+      }
+    | {
+        /** `name` is the test item's title, e.g. “Occupant sensor in 201 Makerspace”. */
+        entity: 'field-test';
+        action: FieldTestHistoryAction;
+        before: null;
+        after: null;
+        fieldTest?: FieldTestHistoryDetail;
       }
     | {
         entity: 'package';

@@ -1,4 +1,11 @@
-import type { ExteriorApplicationRecord, HistoryEntry, LuminaireTypeRecord, SetupSnapshot, SpaceRecord } from '../../core/api/api-types';
+import type {
+  ExteriorApplicationRecord,
+  FieldTestHistoryDetail,
+  HistoryEntry,
+  LuminaireTypeRecord,
+  SetupSnapshot,
+  SpaceRecord,
+} from '../../core/api/api-types';
 import {
   describeEntry,
   describeImport,
@@ -433,6 +440,31 @@ describe('a history entry in words', () => {
         'Ines Halvorsen confirmed every unchanged check item that had no verdict (1 item)',
       );
       expect(describeEntry(review('reply', { text: 'x' }), labels, 'ip').icon).toBe('forum');
+    });
+
+    it('reads a functional test and its retest, with the measured values and notes', () => {
+      const test = (action: 'record' | 'retest', fieldTest: FieldTestHistoryDetail) =>
+        entry({ entity: 'field-test', action, name: 'Occupant sensor in 201 Makerspace', before: null, after: null, fieldTest });
+      expect(
+        say(
+          test('record', {
+            result: 'fail',
+            measured: { timeoutMinutes: '35', lightLevel: '42.5' },
+            lightLevelUnit: 'fc',
+            notes: 'Stays on.',
+            retest: false,
+          }),
+        ),
+      ).toBe(
+        'Ines Halvorsen tested “Occupant sensor in 201 Makerspace”, which failed: time-out 35 min; light level 42.5 fc; notes: “Stays on.”',
+      );
+      expect(say(test('retest', { result: 'pass', measured: { overrideMinutes: '120' }, retest: true }))).toBe(
+        'Ines Halvorsen retested “Occupant sensor in 201 Makerspace”, which passed: override 120 min',
+      );
+      expect(say(test('record', { result: 'pass', measured: { lightLevel: '300' }, lightLevelUnit: 'lux', retest: false }))).toBe(
+        'Ines Halvorsen tested “Occupant sensor in 201 Makerspace”, which passed: light level 300 lx',
+      );
+      expect(describeEntry(test('retest', { result: 'pass', retest: true }), labels, 'ip').icon).toBe('replay');
     });
 
     it('reads invitations: sent, withdrawn, and accepted by the person who joined', () => {

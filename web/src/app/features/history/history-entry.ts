@@ -411,6 +411,8 @@ const icons: Record<string, string> = {
   invite: 'forward_to_inbox',
   'withdraw-invitation': 'cancel_schedule_send',
   'accept-invitation': 'how_to_reg',
+  record: 'checklist',
+  retest: 'replay',
 };
 
 /**
@@ -636,6 +638,23 @@ function packageWords(entry: Extract<HistoryEntry, { entity: 'package' }>): { su
   };
 }
 
+/** A functional test recorded by the contractor, or a retest; `name` is the test item's title. */
+function fieldTestWords(entry: Extract<HistoryEntry, { entity: 'field-test' }>): { summary: string; changes: string[] } {
+  const test = entry.fieldTest;
+  const item = entry.name ? quoted(entry.name) : 'a functional test item';
+  const outcome = test?.result === 'pass' ? 'passed' : test?.result === 'fail' ? 'failed' : null;
+  const verb = entry.action === 'retest' ? 'retested' : 'tested';
+  const summary = outcome ? `${verb} ${item}, which ${outcome}` : `recorded a functional test of ${item}`;
+  const measured = test?.measured ?? {};
+  const changes = [
+    blank(measured.timeoutMinutes) ? null : `time-out ${figure(measured.timeoutMinutes)} min`,
+    blank(measured.lightLevel) ? null : `light level ${figure(measured.lightLevel)} ${test?.lightLevelUnit === 'lux' ? 'lx' : 'fc'}`,
+    blank(measured.overrideMinutes) ? null : `override ${figure(measured.overrideMinutes)} min`,
+    test?.notes ? `notes: ${quoted(test.notes)}` : null,
+  ].filter((change): change is string => change !== null);
+  return { summary, changes };
+}
+
 /** One entry in words, with `system` the units the project had when it was made (see {@link unitsAtEntry}). */
 export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system: UnitSystem): EntryWords {
   const actor = entry.user?.name || 'Someone';
@@ -663,6 +682,9 @@ export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system
       break;
     case 'package':
       words = packageWords(entry);
+      break;
+    case 'field-test':
+      words = fieldTestWords(entry);
       break;
     default:
       words = { summary: 'changed the project', changes: [] };

@@ -1,0 +1,140 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { loadEditionData } from '../code-tables/code-tables.repository.js';
+import { boundedDecimal, textField } from '../compliance/bounds.js';
+import { evaluate, validateDocument } from '../compliance/index.js';
+import type { Database } from '../db/database.js';
+import { projectDocument } from '../design/project-document.js';
+import { NotFound, Refused } from '../domain-errors.js';
+import { notComputedMessage } from '../evaluation/evaluation.service.js';
+import { projectAccess, requireProjectAction } from '../http/project-access.js';
+import { currentSession } from '../http/session.js';
+import { parse } from '../http/validate.js';
+import { listFieldTests, recordFieldTest, type FieldTestRecord } from './field-tests.repository.js';
+import { buildTestPlan, testKindLabels, testKinds, type TestKind, type TestPlanGroup, type TestPlanItem } from './test-plan.js';
+
+/** A measured value: a number (or decimal text) within its range, at most two decimal places. */
+const measuredValue = (what: string, max: string) =>
+  z
+    .custom<string | number>((value) => typeof value === 'string' || typeof value === 'number', {
+      message: `Give the ${what} as a number.`,
+    })
+    .transform((value, ctx) => {
+      const checked = boundedDecimal(value, { min: 'zero', max });
+      if (!checked.ok) {
+        ctx.addIssue({ code: 'custom', message: `The ${what}: ${checked.message}` });
+        return z.NEVER;
+      }
+      if (/\.\d{3,}$/.test(checked.value)) {
+        ctx.addIssue({ code: 'custom', message: `Give the ${what} with at most two decimal places.` });
+        return z.NEVER;
+      }
+      return checked.value;
+    });
+
+export const fieldTestSchema = z.strictObject({
+  result: z.enum(['pass', 'fail'], { error: 'Choose pass or fail.' }),
+  measured: z
+    .strictObject({
+      timeoutMinutes: measuredValue('time-out in minutes', '1440').optional(),
+      lightLevel: measuredValue('light level', '100000').optional(),
+      overrideMinutes: measuredValue('override time in minutes', '1440').optional(),
+    })
+    .optional(),
+  notes: textField(2000, { multiline: true }).optional(),
+});
+
+/** A plan item's key as the plan makes it: the kind, the strategy, a space id or application key, maybe a room. */
+const itemIdSchema = z
+  .string()
+  .max(300)
+  .regex(/^[a-z-]+:[a-z-]+:[A-Za-z0-9._-]+(:\d{1,6})?$/);
+
+interface ItemView extends TestPlanItem {
+  /** The latest test, which counts; absent until the item is tested. */
+  result?: FieldTestRecord;
+  /** Every test of the item, oldest first. */
+  history: FieldTestRecord[];
+}
+
+interface KindProgress {
+  kind: TestKind;
+  label: string;
+  required: number;
+  passed: number;
+  failed: number;
+  untested: number;
+}
+
+function progressOf(items: readonly ItemView[], kind?: TestKind): Omit<KindProgress, 'kind' | 'label'> {
+  const required = items.filter((item) => item.required && (kind === undefined || item.kind === kind));
+  const passed = required.filter((item) => item.result?.result === 'pass').length;
+  const failed = required.filter((item) => item.result?.result === 'fail').length;
+  return { required: required.length, passed, failed, untested: required.length - passed - failed };
+}
+
+/** The plan of the project as its design now is, with the results recorded so far attached by item id. */
+async function planView(db: Database, projectId: string) {
+  const input = await projectDocument(db, projectId);
+  const tables = await loadEditionData(db, input.edition);
+  if (!tables) throw new Refused('The project’s code edition is not loaded.');
+  const outcome = validateDocument(input, tables);
+  if (!outcome.valid) throw new Refused(notComputedMessage, outcome.problems);
+  const result = evaluate(outcome.document, tables);
+  const records = await listFieldTests(db, projectId);
+  const plan = buildTestPlan(projectId, outcome.document, result, records);
+  const byItem = new Map<string, FieldTestRecord[]>();
+  for (const record of records) byItem.set(record.itemId, [...(byItem.get(record.itemId) ?? []), record]);
+  const items: ItemView[] = plan.items.map((item) => {
+    const history = byItem.get(item.id) ?? [];
+    const latest = history[history.length - 1];
+    return { ...item, ...(latest ? { result: latest } : {}), history };
+  });
+  const kinds = testKinds.filter((kind) => items.some((item) => item.kind === kind));
+  const overall = progressOf(items);
+  const progress = {
+    ...overall,
+    complete: overall.required > 0 && overall.passed === overall.required,
+    kinds: kinds.map((kind) => ({ kind, label: testKindLabels[kind], ...progressOf(items, kind) })),
+  };
+  const notices = [...plan.groups.filter((group) => group.widened).map((group) => group.words), ...plan.gaps];
+  return { items, groups: plan.groups, gaps: plan.gaps, notices, progress };
+}
+
+/**
+ * The functional test plan, under /api/projects/:projectId: `GET /test-plan` (members; made from
+ * the current design on each read, the recorded results attached) and `PATCH
+ * /test-plan/items/:itemId` (the contractor records a test: pass or fail, measured values, notes;
+ * a retest adds to the item's history).
+ */
+export function fieldTestsRouter(db: Database): Router {
+  const router = Router({ mergeParams: true });
+
+  router.get('/test-plan', requireProjectAction('read'), async (req, res) => {
+    res.json(await planView(db, projectAccess(req).projectId));
+  });
+
+  router.patch('/test-plan/items/:itemId', requireProjectAction('record-field-tests'), async (req, res) => {
+    const { projectId, role } = projectAccess(req);
+    const parsedId = itemIdSchema.safeParse(req.params['itemId']);
+    if (!parsedId.success) throw new NotFound('That test item is not in the plan.');
+    const input = parse(fieldTestSchema, req.body);
+    const before = await planView(db, projectId);
+    const item = before.items.find((entry) => entry.id === parsedId.data);
+    if (!item) throw new NotFound('That test item is not in the plan.');
+    const measured = Object.fromEntries(Object.entries(input.measured ?? {}).filter(([, value]) => value !== undefined));
+    await recordFieldTest(
+      db,
+      projectId,
+      item,
+      { result: input.result, measured, ...(input.notes ? { notes: input.notes } : {}) },
+      { userId: currentSession(req).user.id, role, retest: item.history.length > 0 },
+    );
+    const after = await planView(db, projectId);
+    const updated = after.items.find((entry) => entry.id === item.id)!;
+    const group: TestPlanGroup | undefined = after.groups.find((entry) => entry.itemIds.includes(item.id));
+    res.json({ item: updated, group, notices: after.notices, progress: after.progress });
+  });
+
+  return router;
+}
