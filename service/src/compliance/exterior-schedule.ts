@@ -1,3 +1,11 @@
+import type {
+  ApplicationEnergy,
+  ExteriorScheduleSettings,
+  ScheduleDay,
+  ScheduleSummary,
+  SetbackRule,
+  SunPattern,
+} from '../../../contract/exterior-schedule.js';
 import SunCalc from 'suncalc';
 import { z } from 'zod';
 import type { RequirementCode } from '../../../contract/editions.js';
@@ -43,6 +51,13 @@ export const scheduleSettingsSchema = z.object({
     .nullable(),
 });
 export type ScheduleSettings = z.output<typeof scheduleSettingsSchema>;
+// The settings the contract names are the ones this schema reads: a change to one side fails the type check.
+const settingsMatch: ExteriorScheduleSettings extends ScheduleSettings
+  ? ScheduleSettings extends ExteriorScheduleSettings
+    ? true
+    : never
+  : never = true;
+void settingsMatch;
 
 /**
  * On 10 minutes before sunset, off 10 minutes after sunrise (common practice: offsets of about
@@ -80,31 +95,6 @@ export function isTimeZone(zone: string): boolean {
   } catch {
     return false;
   }
-}
-
-/** Whether the Sun rises and sets on a day, or stays below or above the horizon all day long. */
-export type SunPattern = 'rises-and-sets' | 'sun-never-rises' | 'sun-never-sets';
-
-export interface ScheduleDay {
-  /** The local date, YYYY-MM-DD. */
-  date: string;
-  /** Local ISO 8601 with the zone's offset at that moment, to the minute; null when the Sun does not rise (or set) this day. */
-  sunrise: string | null;
-  sunset: string | null;
-  /** Lights on (before sunset) and off (after sunrise) by the schedule; null on a day without sunset or sunrise. */
-  on: string | null;
-  off: string | null;
-  /** The setback window that begins this day, when the schedule has one. */
-  setbackStart?: string;
-  setbackEnd?: string;
-  sun: SunPattern;
-  /** The zone's offset from UTC at the start of the day and at its end, e.g. "-05:00"; they differ on a change day. */
-  utcOffset: string;
-  /** Said on a day the clocks change and on a polar day or night, in words. */
-  note?: string;
-  /** Minutes of this local day (midnight to midnight) the lights are on, and how many of those fall in the setback window. */
-  litMinutes: number;
-  setbackMinutes: number;
 }
 
 // ---------------------------------------------------------------- the zone's clock
@@ -363,9 +353,6 @@ export function exteriorSchedule(
 
 // ---------------------------------------------------------------- the year's hours and energy
 
-/** What the edition asks of an application in the setback hours. */
-export type SetbackRule = 'off' | 'reduced' | 'none' | 'to-verify';
-
 export interface ScheduledApplication {
   /** The design's own id for the application, handed back unchanged. */
   id: string;
@@ -374,45 +361,6 @@ export interface ScheduledApplication {
   description?: string;
   /** Installed watts, an exact decimal string. */
   installedWatts: string;
-}
-
-export interface ApplicationEnergy {
-  id: string;
-  key: string;
-  label: string;
-  description?: string;
-  installedWatts: string;
-  setback: SetbackRule;
-  /** The share of the power cut in the setback hours, %; 0 when none applies. */
-  reductionPercent: string;
-  /** The section that states the setback rule; absent when none applies. */
-  section?: string;
-  /** Hours the lights are on in the range, and of those in the setback window. */
-  hours: string;
-  setbackHours: string;
-  /** kWh with the setback (what the schedule uses), without it, and the difference. */
-  kWh: string;
-  kWhWithoutSetback: string;
-  savingKWh: string;
-  /** In words: what the rule is and where it comes from, or what is to verify. */
-  note: string;
-  verified: boolean;
-}
-
-export interface ScheduleSummary {
-  from: string;
-  days: number;
-  settings: ScheduleSettings;
-  /** Hours the lights are on over the range, and of those in the setback window. */
-  hours: string;
-  setbackHours: string;
-  /** Days the sun does not rise, and days it does not set. */
-  polarNightDays: number;
-  polarDays: number;
-  applications: ApplicationEnergy[];
-  totals: { installedWatts: string; kWh: string; kWhWithoutSetback: string; savingKWh: string };
-  /** Values the result rests on that are not checked against the published code, in words. */
-  unverified: string[];
 }
 
 function hoursText(minutes: number): string {
@@ -576,3 +524,5 @@ export function yearRange(year: number): ScheduleRange {
   const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
   return { from: `${String(year).padStart(4, '0')}-01-01`, days: leap ? 366 : 365 };
 }
+
+export type { ApplicationEnergy, ScheduleDay, ScheduleSummary, SetbackRule, SunPattern };

@@ -14,6 +14,7 @@ import type {
   ZoneKind as DaylightZoneKind,
 } from '../../../../../contract/editions';
 import type { Citation, ControlStatus, Verdict } from '../../../../../contract/result';
+import type { ScheduleSummary } from '../../../../../contract/exterior-schedule';
 import type { ReviewHistoryDetail } from '../../../../../contract/review';
 
 export type {
@@ -527,63 +528,12 @@ export interface ImportAlias {
   buildingAreaType: string | null;
 }
 
-/** Whether the Sun rises and sets on a day, or stays below or above the horizon all day. */
-export type SunPattern = 'rises-and-sets' | 'sun-never-rises' | 'sun-never-sets';
-
-/** One day of the exterior lighting's astronomical schedule; times are local ISO 8601 with the zone's offset. */
-export interface ExteriorScheduleDay {
-  date: string;
-  sunrise: string | null;
-  sunset: string | null;
-  on: string | null;
-  off: string | null;
-  setbackStart?: string;
-  setbackEnd?: string;
-  sun: SunPattern;
-  /** "-05:00", or "-05:00 to -04:00" on the day the clocks change. */
-  utcOffset: string;
-  note?: string;
-  litMinutes: number;
-  setbackMinutes: number;
-}
-
-/** The schedule's settings, as the page sends them: offsets in minutes, the setback window as HH:MM. */
-export interface ExteriorScheduleSettings {
-  onMinutesBeforeSunset: number;
-  offMinutesAfterSunrise: number;
-  setback: { start: string; end: string; reductionPercent?: number } | null;
-}
-
-export type SetbackRule = 'off' | 'reduced' | 'none' | 'to-verify';
-
-export interface ExteriorApplicationEnergy {
-  id: string;
-  key: string;
-  label: string;
-  description?: string;
-  installedWatts: string;
-  setback: SetbackRule;
-  reductionPercent: string;
-  section?: string;
-  hours: string;
-  setbackHours: string;
-  kWh: string;
-  kWhWithoutSetback: string;
-  savingKWh: string;
-  note: string;
-  verified: boolean;
-}
-
-export interface ExteriorScheduleSummary {
-  year: number;
-  from: string;
-  days: number;
-  settings: ExteriorScheduleSettings;
-  hours: string;
-  setbackHours: string;
-  polarNightDays: number;
-  polarDays: number;
-  applications: ExteriorApplicationEnergy[];
-  totals: { installedWatts: string; kWh: string; kWhWithoutSetback: string; savingKWh: string };
-  unverified: string[];
-}
+/** The astronomical schedule's day, settings and year, as contract/exterior-schedule.ts has them; the summary adds the year asked for. */
+export type {
+  ApplicationEnergy as ExteriorApplicationEnergy,
+  ExteriorScheduleSettings,
+  ScheduleDay as ExteriorScheduleDay,
+  SetbackRule,
+  SunPattern,
+} from '../../../../../contract/exterior-schedule';
+export type ExteriorScheduleSummary = ScheduleSummary & { year: number };
