@@ -1,21 +1,12 @@
 /// <reference lib="dom" />
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
-import { simpleParser } from 'mailparser';
-import { pino } from 'pino';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
-import { startMailCatcher, type MailCatcher } from '../../service/ops/mail-catcher.mjs';
-import { createApp } from '../../service/src/app.js';
-import { MailSender, mailSettingsFrom } from '../../service/src/mail/mail-sender.js';
-import { testConfig } from '../support/app.js';
-import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
-import { freshDatabase, type TestDatabase } from '../support/database.js';
+import type { MailSender } from '../../service/src/mail/mail-sender.js';
+import type { Browser, Served } from '../support/browser.js';
+import { closeMailBrowserSuite, keptMails, openMailBrowserSuite, type MailBrowserSuite } from '../support/browser-suite.js';
 
-let database: TestDatabase;
+let suite: MailBrowserSuite;
 let served: Served;
 let browser: Browser;
-let catcher: MailCatcher;
 let sender: MailSender;
 let mailDir: string;
 
@@ -23,27 +14,13 @@ const password = 'copper heron lantern 73';
 
 /** The newest message the local mail server kept for an address. */
 async function lastMailTo(address: string) {
-  const files = readdirSync(mailDir)
-    .filter((name) => name.endsWith('.eml'))
-    .sort();
-  const mails = await Promise.all(files.map((name) => simpleParser(readFileSync(path.join(mailDir, name)))));
+  const mails = await keptMails(mailDir);
   return mails.filter((mail) => (Array.isArray(mail.to) ? mail.to : [mail.to]).some((to) => to?.text.includes(address))).at(-1);
 }
 
 beforeAll(async () => {
-  requireBuiltWebApp();
-  database = await freshDatabase();
-  mailDir = mkdtempSync(path.join(tmpdir(), 'allowlight-mail-'));
-  catcher = await startMailCatcher({ dir: mailDir });
-  const config = testConfig(database.url, {
-    WEB_DIST: webDist,
-    COOKIE_SECURE: undefined,
-    SMTP_PORT: String(catcher.port),
-    APP_URL: 'http://allowlight.localhost',
-  });
-  sender = new MailSender(database.db, mailSettingsFrom(config));
-  served = await serve(createApp({ db: database.db, config, logger: pino({ level: 'silent' }) }));
-  browser = await launchBrowser();
+  suite = await openMailBrowserSuite();
+  ({ served, browser, sender, mailDir } = suite);
   browser.page.setDefaultTimeout(10_000);
 });
 
@@ -52,17 +29,7 @@ afterEach(async (context) => {
     await browser.screenshot(`failed-invitations-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
-afterAll(async () => {
-  try {
-    await browser?.close();
-  } finally {
-    await served?.close();
-    await sender?.stop();
-    await catcher?.close();
-    rmSync(mailDir, { recursive: true, force: true });
-    await database?.drop();
-  }
-});
+afterAll(() => closeMailBrowserSuite(suite));
 
 describe('an invitation to the team', () => {
   it('is sent from the team panel, withdrawn after asking, and accepted from the mailed link into the project', async () => {

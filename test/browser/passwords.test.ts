@@ -1,21 +1,12 @@
 /// <reference lib="dom" />
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
-import { simpleParser } from 'mailparser';
-import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { startMailCatcher, type MailCatcher } from '../../service/ops/mail-catcher.mjs';
-import { createApp } from '../../service/src/app.js';
-import { MailSender, mailSettingsFrom } from '../../service/src/mail/mail-sender.js';
-import { testConfig } from '../support/app.js';
-import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
-import { freshDatabase, type TestDatabase } from '../support/database.js';
+import type { MailSender } from '../../service/src/mail/mail-sender.js';
+import type { Browser, Served } from '../support/browser.js';
+import { closeMailBrowserSuite, keptMails, openMailBrowserSuite, type MailBrowserSuite } from '../support/browser-suite.js';
 
-let database: TestDatabase;
+let suite: MailBrowserSuite;
 let served: Served;
 let browser: Browser;
-let catcher: MailCatcher;
 let sender: MailSender;
 let mailDir: string;
 
@@ -24,39 +15,15 @@ const laterPassword = 'quiet copper meadow 51';
 
 /** The newest message the local mail server kept. */
 async function lastMail() {
-  const files = readdirSync(mailDir)
-    .filter((name) => name.endsWith('.eml'))
-    .sort();
-  return simpleParser(readFileSync(path.join(mailDir, files.at(-1)!)));
+  return (await keptMails(mailDir)).at(-1)!;
 }
 
 beforeAll(async () => {
-  requireBuiltWebApp();
-  database = await freshDatabase();
-  mailDir = mkdtempSync(path.join(tmpdir(), 'allowlight-mail-'));
-  catcher = await startMailCatcher({ dir: mailDir });
-  const config = testConfig(database.url, {
-    WEB_DIST: webDist,
-    COOKIE_SECURE: undefined,
-    SMTP_PORT: String(catcher.port),
-    APP_URL: 'http://allowlight.localhost',
-  });
-  sender = new MailSender(database.db, mailSettingsFrom(config));
-  served = await serve(createApp({ db: database.db, config, logger: pino({ level: 'silent' }) }));
-  browser = await launchBrowser();
+  suite = await openMailBrowserSuite();
+  ({ served, browser, sender, mailDir } = suite);
 });
 
-afterAll(async () => {
-  try {
-    await browser?.close();
-  } finally {
-    await served?.close();
-    await sender?.stop();
-    await catcher?.close();
-    rmSync(mailDir, { recursive: true, force: true });
-    await database?.drop();
-  }
-});
+afterAll(() => closeMailBrowserSuite(suite));
 
 describe('passwords and accounts', () => {
   it('a forgotten password is replaced through the link the mail carries', async () => {

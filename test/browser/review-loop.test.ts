@@ -1,38 +1,14 @@
 /// <reference lib="dom" />
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
-import { simpleParser, type ParsedMail } from 'mailparser';
-import { pino } from 'pino';
+import type { ParsedMail } from 'mailparser';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
-import { startMailCatcher, type MailCatcher } from '../../service/ops/mail-catcher.mjs';
-import { createApp } from '../../service/src/app.js';
-import { MailSender, mailSettingsFrom } from '../../service/src/mail/mail-sender.js';
-import { testConfig } from '../support/app.js';
-import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
-import { signInToDemo } from '../support/browser-suite.js';
-import { freshDatabase, type TestDatabase } from '../support/database.js';
+import { closeMailBrowserSuite, keptMails, openMailBrowserSuite, signInToDemo, type MailBrowserSuite } from '../support/browser-suite.js';
 
-let database: TestDatabase;
-let served: Served;
-let browser: Browser;
-let catcher: MailCatcher;
-let sender: MailSender;
-let mailDir: string;
+let suite: MailBrowserSuite;
 let projectUrl = '';
 
-const appUrl = 'http://allowlight.localhost';
 const engineerEmail = 'engineer@alderbay.example';
 const reviewerEmail = 'reviewer@alderbay.example';
 const checkedItem = '101 Entry lobby: Power allowance';
-
-/** Every message the local mail server kept, oldest first. */
-async function mails(): Promise<ParsedMail[]> {
-  const files = readdirSync(mailDir)
-    .filter((name) => name.endsWith('.eml'))
-    .sort();
-  return Promise.all(files.map((name) => simpleParser(readFileSync(path.join(mailDir, name)))));
-}
 
 /** Waits until the sender has handed over a message with this subject to this address; answers it. */
 async function mailArrives(address: string, subject: RegExp): Promise<ParsedMail> {
@@ -40,8 +16,8 @@ async function mailArrives(address: string, subject: RegExp): Promise<ParsedMail
   await expect
     .poll(
       async () => {
-        await sender.drain();
-        found = (await mails()).find(
+        await suite.sender.drain();
+        found = (await keptMails(suite.mailDir)).find(
           (mail) => subject.test(mail.subject ?? '') && [mail.to ?? []].flat().some((to) => to.text.includes(address)),
         );
         return found !== undefined;
@@ -53,73 +29,52 @@ async function mailArrives(address: string, subject: RegExp): Promise<ParsedMail
 }
 
 beforeAll(async () => {
-  requireBuiltWebApp();
-  database = await freshDatabase();
-  mailDir = mkdtempSync(path.join(tmpdir(), 'allowlight-review-loop-'));
-  catcher = await startMailCatcher({ dir: mailDir });
-  const config = testConfig(database.url, {
-    WEB_DIST: webDist,
-    COOKIE_SECURE: undefined,
-    SMTP_PORT: String(catcher.port),
-    APP_URL: appUrl,
-  });
-  sender = new MailSender(database.db, mailSettingsFrom(config));
-  served = await serve(createApp({ db: database.db, config, logger: pino({ level: 'silent' }) }));
-  browser = await launchBrowser();
-  browser.page.setDefaultTimeout(15_000);
+  suite = await openMailBrowserSuite();
+  suite.browser.page.setDefaultTimeout(15_000);
 });
 
 afterEach(async (context) => {
   if (context.task.result?.state === 'fail')
-    await browser.screenshot(`failed-review-loop-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
+    await suite.browser.screenshot(`failed-review-loop-${context.task.name.slice(0, 24).replace(/\W+/g, '-')}`);
 });
 
-afterAll(async () => {
-  try {
-    await browser?.close();
-  } finally {
-    await served?.close();
-    await sender?.stop();
-    await catcher?.close();
-    rmSync(mailDir, { recursive: true, force: true });
-    await database?.drop();
-  }
-});
+afterAll(() => closeMailBrowserSuite(suite));
 
 async function signIn(email: string): Promise<void> {
-  projectUrl = await signInToDemo({ browser, served }, email, inject('demoPassword'));
+  projectUrl = await signInToDemo(suite, email, inject('demoPassword'));
 }
 
 async function signOut(): Promise<void> {
-  await browser.page.getByRole('button', { name: 'Sign out' }).click();
-  await browser.page.waitForURL(/\/sign-in/);
+  await suite.browser.page.getByRole('button', { name: 'Sign out' }).click();
+  await suite.browser.page.waitForURL(/\/sign-in/);
 }
 
-const stateBar = () => browser.page.getByTestId('review-state');
+const stateBar = () => suite.browser.page.getByTestId('review-state');
 /** The button of one check item in the review page's list. */
-const itemButton = (title: string) => browser.page.locator('.item-list button', { has: browser.page.locator(`[title="${title}"]`) });
-const detail = () => browser.page.getByTestId('review-detail');
+const itemButton = (title: string) =>
+  suite.browser.page.locator('.item-list button', { has: suite.browser.page.locator(`[title="${title}"]`) });
+const detail = () => suite.browser.page.getByTestId('review-detail');
 
 describe('a review from submission to acceptance', () => {
   it('the engineer submits the demo project, and the reviewers are told by mail', async () => {
     await signIn(engineerEmail);
-    const { page } = browser;
+    const { page } = suite.browser;
     await page.goto(`${projectUrl}/results`);
     await stateBar().getByRole('button', { name: 'Submit for review' }).click();
     await expect.poll(() => stateBar().textContent()).toContain('In review');
     const mail = await mailArrives(reviewerEmail, /review/i);
     expect(mail.text).toContain('Alder Bay Library & Makerspace');
-    expect(mail.text).toMatch(new RegExp(`${appUrl}/projects/[0-9a-f-]+/review`));
+    expect(mail.text).toMatch(new RegExp(`${suite.appUrl}/projects/[0-9a-f-]+/review`));
     await signOut();
   }, 90_000);
 
   it('the reviewer finds it on the desk, marks one item as needing revision by keyboard, and returns it', async () => {
     await signIn(reviewerEmail);
-    const { page } = browser;
-    await page.goto(`${served.baseUrl}/review`);
+    const { page } = suite.browser;
+    await page.goto(`${suite.served.baseUrl}/review`);
     const row = page.getByRole('link', { name: 'Alder Bay Library & Makerspace' });
     await row.waitFor();
-    await browser.screenshot('review-desk');
+    await suite.browser.screenshot('review-desk');
     await row.click();
     await page.waitForURL(/\/review$/);
     await itemButton(checkedItem).click();
@@ -133,7 +88,7 @@ describe('a review from submission to acceptance', () => {
     await comment.fill('The lobby is larger on the latest plan; enter its measured area.');
     await comment.press('Control+Enter');
     await expect.poll(() => itemButton(checkedItem).getAttribute('data-verdict')).toBe('needs-revision');
-    await browser.screenshot('review-page');
+    await suite.browser.screenshot('review-page');
 
     await stateBar().getByRole('button', { name: 'Return to the engineer' }).click();
     const dialog = page.getByRole('dialog');
@@ -148,7 +103,7 @@ describe('a review from submission to acceptance', () => {
 
   it('the engineer sees the marker on the space, fixes it and submits again', async () => {
     await signIn(engineerEmail);
-    const { page } = browser;
+    const { page } = suite.browser;
     await page.goto(`${projectUrl}/spaces`);
     const marker = page.getByTestId('revision-marker');
     await marker.first().waitFor();
@@ -169,7 +124,7 @@ describe('a review from submission to acceptance', () => {
 
   it('the reviewer sees the item changed, confirms every item and accepts; the engineer is told', async () => {
     await signIn(reviewerEmail);
-    const { page } = browser;
+    const { page } = suite.browser;
     await page.goto(`${projectUrl}/review`);
     await itemButton(checkedItem).waitFor();
     // Its data changed since the last round: the verdict was cleared and it says so.
@@ -199,7 +154,7 @@ describe('a review from submission to acceptance', () => {
     // Every move, verdict and reply is in the project's history.
     const history = await page.evaluate(
       async (url) => (await fetch(`${url}/history?limit=200`)).json(),
-      projectUrl.replace(served.baseUrl, '/api'),
+      projectUrl.replace(suite.served.baseUrl, '/api'),
     );
     const actions = (history as { entries: { action: string }[] }).entries.map((entry) => entry.action);
     expect(actions).toEqual(expect.arrayContaining(['transition', 'verdict', 'bulk-confirm']));

@@ -1,4 +1,12 @@
-import { testApp } from './app.js';
+import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { simpleParser, type ParsedMail } from 'mailparser';
+import { pino } from 'pino';
+import { startMailCatcher, type MailCatcher } from '../../service/ops/mail-catcher.mjs';
+import { createApp } from '../../service/src/app.js';
+import { MailSender, mailSettingsFrom } from '../../service/src/mail/mail-sender.js';
+import { testApp, testConfig } from './app.js';
 import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from './browser.js';
 import { freshDatabase, type TestDatabase } from './database.js';
 
@@ -38,4 +46,50 @@ export async function signInToDemo(suite: Pick<BrowserSuite, 'browser' | 'served
   await page.getByTestId('signed-in-user').waitFor();
   const projects = await page.evaluate(async () => (await fetch('/api/projects')).json() as Promise<{ id: string; name: string }[]>);
   return `${suite.served.baseUrl}/projects/${projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id}`;
+}
+
+/** A browser suite whose app sends its mail to a local mail server of its own, kept as `.eml` files in `mailDir`. */
+export interface MailBrowserSuite extends BrowserSuite {
+  catcher: MailCatcher;
+  sender: MailSender;
+  mailDir: string;
+  appUrl: string;
+}
+
+/** As {@link openBrowserSuite}, with the mail server and the sender that drains the outbox into it. */
+export async function openMailBrowserSuite(appUrl = 'http://allowlight.localhost'): Promise<MailBrowserSuite> {
+  requireBuiltWebApp();
+  const database = await freshDatabase();
+  const mailDir = mkdtempSync(path.join(tmpdir(), 'allowlight-mail-'));
+  const catcher = await startMailCatcher({ dir: mailDir });
+  const config = testConfig(database.url, {
+    WEB_DIST: webDist,
+    COOKIE_SECURE: undefined,
+    SMTP_PORT: String(catcher.port),
+    APP_URL: appUrl,
+  });
+  const sender = new MailSender(database.db, mailSettingsFrom(config));
+  const served = await serve(createApp({ db: database.db, config, logger: pino({ level: 'silent' }) }));
+  const browser = await launchBrowser();
+  return { database, served, browser, catcher, sender, mailDir, appUrl };
+}
+
+export async function closeMailBrowserSuite(suite: Partial<MailBrowserSuite>): Promise<void> {
+  try {
+    await suite.browser?.close();
+  } finally {
+    await suite.served?.close();
+    await suite.sender?.stop();
+    await suite.catcher?.close();
+    if (suite.mailDir) rmSync(suite.mailDir, { recursive: true, force: true });
+    await suite.database?.drop();
+  }
+}
+
+/** Every message the suite's mail server kept, oldest first. */
+export async function keptMails(mailDir: string): Promise<ParsedMail[]> {
+  const files = readdirSync(mailDir)
+    .filter((name) => name.endsWith('.eml'))
+    .sort();
+  return Promise.all(files.map((name) => simpleParser(readFileSync(path.join(mailDir, name)))));
 }
