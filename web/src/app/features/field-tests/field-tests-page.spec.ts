@@ -187,6 +187,39 @@ describe('FieldTestsPage', () => {
     expect(element.querySelector('[data-testid="record-refusal"]')?.textContent).toContain('The project is archived');
   });
 
+  it('refuses a time-out over a day before sending it', async () => {
+    await open('contractor', plan([sensorItem()]));
+    element.querySelector<HTMLButtonElement>('[data-testid="record-test"]')!.click();
+    await fixture.whenStable();
+    element.querySelector<HTMLButtonElement>('[data-testid="record-fail"] button')!.click();
+    const timeout = element.querySelector<HTMLInputElement>('[data-testid="measured-timeoutMinutes"]')!;
+    timeout.value = '1441';
+    timeout.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    element.querySelector<HTMLButtonElement>('[data-testid="record-save"]')!.click();
+    await fixture.whenStable();
+    http.expectNone((candidate) => candidate.method === 'PATCH');
+    expect(element.querySelector('[data-testid="record-refusal"]')?.textContent).toContain('Time-out: at most 1,440.');
+  });
+
+  it('says testing is complete when every required test has passed', async () => {
+    const passed: FieldTestRecord = {
+      id: '1',
+      itemId: sensorId,
+      result: 'pass',
+      measured: {},
+      lightLevelUnit: null,
+      notes: null,
+      by: null,
+      at: '2026-03-02T10:15:00Z',
+    };
+    const view = plan([sensorItem([passed])]);
+    await open('engineer', { ...view, progress: { ...view.progress, complete: true } });
+    expect(element.querySelector('[data-testid="testing-complete"]')?.textContent).toContain('Testing complete');
+    expect(text()).toContain('All tests: 1 of 1 passed.');
+    expect(text()).toContain('by someone no longer on the team');
+  });
+
   it('gives a member who is not the contractor no recording controls', async () => {
     await open('reviewer', plan([sensorItem()]));
     expect(element.querySelectorAll('[data-testid="field-test-item"]').length).toBe(1);
