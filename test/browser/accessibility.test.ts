@@ -112,6 +112,7 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
     'review',
     'compare',
     'package',
+    'field-tests',
     'history',
   ]) {
     it(`the ${area} page`, async () => {
@@ -122,6 +123,7 @@ describe('accessibility (axe-core, WCAG 2.1 AA)', () => {
       if (area === 'history') await page.locator('.entry').first().waitFor();
       if (area === 'compare') await page.getByTestId('edition-column').first().waitFor();
       if (area === 'package') await page.getByText('No package has been made yet.').waitFor();
+      if (area === 'field-tests') await page.getByTestId('field-test-item').first().waitFor();
       // The check items too: their list, or the words of why there is none.
       if (area === 'review') await page.locator('al-review-page').locator('.item-list, p.empty, p.failure').first().waitFor();
       expect(await seriousViolations()).toEqual([]);

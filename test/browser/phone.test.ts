@@ -94,6 +94,7 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
     ['Review', 'review'],
     ['Compare', 'compare'],
     ['Package', 'package'],
+    ['Field tests', 'field-tests'],
     ['History', 'history'],
   ];
   for (const [label, path] of areas) {
@@ -117,6 +118,7 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
       if (path === 'history') await page.locator('.entry').first().waitFor();
       if (path === 'results') await page.locator('td[data-label="Allowance (W)"]').first().waitFor();
       if (path === 'compare') await page.getByTestId('edition-column').first().waitFor();
+      if (path === 'field-tests') await page.getByTestId('field-test-item').first().waitFor();
       if (path === 'review') await page.locator('al-review-page').locator('.item-list, p.empty, p.failure').first().waitFor();
       await browser.screenshot(`phone-${path}`);
       expect(await sidewaysScroll()).toBeLessThanOrEqual(1);

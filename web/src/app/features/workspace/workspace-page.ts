@@ -41,6 +41,7 @@ export const workspaceAreas: readonly WorkspaceArea[] = [
   { path: 'review', label: 'Review', icon: 'rate_review' },
   { path: 'compare', label: 'Compare', icon: 'compare_arrows' },
   { path: 'package', label: 'Package', icon: 'inventory_2' },
+  { path: 'field-tests', label: 'Field tests', icon: 'checklist' },
   { path: 'history', label: 'History', icon: 'history' },
 ];
 

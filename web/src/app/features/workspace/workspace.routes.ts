@@ -53,5 +53,10 @@ export const workspaceRoutes: Routes = [
     loadComponent: () => import('../compare/compare-page').then((m) => m.ComparePage),
   },
   { path: 'package', title: 'Package · Allowlight', loadComponent: () => import('../package/package-page').then((m) => m.PackagePage) },
+  {
+    path: 'field-tests',
+    title: 'Field tests · Allowlight',
+    loadComponent: () => import('../field-tests/field-tests-page').then((m) => m.FieldTestsPage),
+  },
   { path: 'history', title: 'History · Allowlight', loadComponent: () => import('../history/history-page').then((m) => m.HistoryPage) },
 ];

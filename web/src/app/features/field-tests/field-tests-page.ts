@@ -1,0 +1,202 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { failureWords } from '../../shared/write-failure';
+import { ProjectStore } from '../workspace/project-store';
+import { FieldTestsApi, type MeasuredValues, type TestKind, type TestPlanItem, type TestPlanView } from './field-tests-api';
+import {
+  checkMeasured,
+  groupWords,
+  lightUnit,
+  measuredByKind,
+  measuredFields,
+  measuredWords,
+  progressPercent,
+  progressWords,
+  resultWords,
+  type MeasuredField,
+} from './field-tests-words';
+
+type PlanState = { status: 'loading' } | { status: 'ready'; plan: TestPlanView } | { status: 'failed'; message: string };
+
+interface Draft {
+  itemId: string;
+  result: 'pass' | 'fail' | null;
+  measured: Record<MeasuredField, string>;
+  notes: string;
+}
+
+const emptyMeasured = (): Record<MeasuredField, string> => ({ timeoutMinutes: '', lightLevel: '', overrideMinutes: '' });
+
+/** The functional test plan of the built design: every member reads it; the contractor records each test on site. */
+@Component({
+  selector: 'al-field-tests-page',
+  imports: [
+    DatePipe,
+    FormsModule,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+  ],
+  templateUrl: './field-tests-page.html',
+  styleUrl: './field-tests-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class FieldTestsPage {
+  protected readonly store = inject(ProjectStore);
+  private readonly api = inject(FieldTestsApi);
+  private readonly destroyRef = inject(DestroyRef);
+
+  protected readonly measuredFields = measuredFields;
+  protected readonly measuredWords = measuredWords;
+  protected readonly resultWords = resultWords;
+  protected readonly groupWords = groupWords;
+  protected readonly progressWords = progressWords;
+  protected readonly progressPercent = progressPercent;
+
+  protected readonly state = signal<PlanState>({ status: 'loading' });
+  protected readonly plan = computed(() => {
+    const state = this.state();
+    return state.status === 'ready' ? state.plan : null;
+  });
+  /** The one test being recorded, if any. */
+  protected readonly draft = signal<Draft | null>(null);
+  protected readonly saving = signal(false);
+  /** Why the last record was not taken, beside its item. */
+  protected readonly refusal = signal<{ itemId: string; message: string } | null>(null);
+
+  protected readonly canRecord = computed(() => {
+    const project = this.store.project();
+    return !!project && project.role === 'contractor' && !project.archivedAt;
+  });
+  protected readonly isContractor = computed(() => this.store.project()?.role === 'contractor');
+  protected readonly lightUnit = computed(() => lightUnit(this.store.units()));
+
+  /** The items by kind, in the order of the progress (the service's order of kinds). */
+  protected readonly sections = computed(() => {
+    const plan = this.plan();
+    if (!plan) return [];
+    return plan.progress.kinds.map((kind) => ({
+      ...kind,
+      groups: plan.groups.filter((group) => group.kind === kind.kind),
+      items: plan.items.filter((item) => item.kind === kind.kind),
+    }));
+  });
+
+  private readonly spaceNames = computed(() => new Map(this.store.spaces().map((space) => [space.id, space.name])));
+
+  constructor() {
+    effect(() => {
+      const projectId = this.store.projectId();
+      if (projectId) untracked(() => this.load(projectId));
+    });
+  }
+
+  private load(projectId: string): void {
+    this.api
+      .plan(projectId)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (plan) => this.state.set({ status: 'ready', plan }),
+        error: (error: unknown) => this.state.set({ status: 'failed', message: failureWords(error) }),
+      });
+  }
+
+  protected spacesWords(item: TestPlanItem): string {
+    if (item.spaceIds.length === 0) return '';
+    const names = item.spaceIds.map((id) => this.spaceNames().get(id) ?? 'a space no longer in the design');
+    return names.join(', ');
+  }
+
+  protected fieldsOf(kind: TestKind): MeasuredField[] {
+    return measuredByKind[kind];
+  }
+
+  protected unitOf(field: MeasuredField): string {
+    return field === 'lightLevel' ? this.lightUnit() : 'minutes';
+  }
+
+  /** The draft being recorded, when it is this item's. */
+  protected openDraft(itemId: string): Draft | null {
+    const draft = this.draft();
+    return draft?.itemId === itemId ? draft : null;
+  }
+
+  protected open(item: TestPlanItem): void {
+    this.refusal.set(null);
+    this.draft.set({ itemId: item.id, result: null, measured: emptyMeasured(), notes: '' });
+  }
+
+  protected cancel(): void {
+    this.draft.set(null);
+    this.refusal.set(null);
+  }
+
+  protected setResult(result: 'pass' | 'fail'): void {
+    this.draft.update((draft) => (draft ? { ...draft, result } : draft));
+  }
+
+  protected setMeasured(field: MeasuredField, value: unknown): void {
+    const text = value === null || value === undefined ? '' : String(value);
+    this.draft.update((draft) => (draft ? { ...draft, measured: { ...draft.measured, [field]: text } } : draft));
+  }
+
+  protected setNotes(notes: string): void {
+    this.draft.update((draft) => (draft ? { ...draft, notes } : draft));
+  }
+
+  protected save(item: TestPlanItem): void {
+    const projectId = this.store.projectId();
+    const draft = this.draft();
+    if (!projectId || !draft || draft.itemId !== item.id || this.saving()) return;
+    if (!draft.result) {
+      this.refusal.set({ itemId: item.id, message: 'Choose pass or fail.' });
+      return;
+    }
+    const measured: MeasuredValues = {};
+    for (const field of this.fieldsOf(item.kind)) {
+      const checked = checkMeasured(field, draft.measured[field]);
+      if (!checked.ok) {
+        this.refusal.set({ itemId: item.id, message: checked.message });
+        return;
+      }
+      if (checked.value !== undefined) measured[field] = checked.value;
+    }
+    const notes = draft.notes.trim();
+    if (notes.length > 2000) {
+      this.refusal.set({ itemId: item.id, message: 'Notes: at most 2,000 characters.' });
+      return;
+    }
+    this.saving.set(true);
+    this.refusal.set(null);
+    this.api
+      .record(projectId, item.id, {
+        result: draft.result,
+        ...(Object.keys(measured).length > 0 ? { measured } : {}),
+        ...(notes ? { notes } : {}),
+      })
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: () => {
+          this.saving.set(false);
+          this.draft.set(null);
+          // The whole plan again: a failed sample may have widened its combination.
+          this.load(projectId);
+        },
+        error: (error: unknown) => {
+          this.saving.set(false);
+          this.refusal.set({ itemId: item.id, message: failureWords(error) });
+        },
+      });
+  }
+}
