@@ -1,59 +1,17 @@
 /// <reference lib="dom" />
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Served } from '../support/browser.js';
 import { closeBrowserSuite, openBrowserSuite } from '../support/browser-suite.js';
 import type { TestDatabase } from '../support/database.js';
-
-/** Evaluated through the browser's debugging protocol, so the app's own Content-Security-Policy stays in force. */
-const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+import { seriousViolations as violationsOn } from '../support/axe.js';
 
 let database: TestDatabase;
 let served: Served;
 let browser: Browser;
 let projectUrl: string;
 
-interface Violation {
-  id: string;
-  impact: string | null;
-  help: string;
-  nodes: { target: string[] }[];
-}
-
-/** axe-core's WCAG 2.1 A/AA rules on the page as it stands; serious and critical findings fail. */
-async function seriousViolations(): Promise<string[]> {
-  const { page } = browser;
-  // Colours measured mid-transition (a tab label fading to the dark scheme's colour) are neither
-  // scheme's: let every finite animation and transition end first; a spinner's endless one is left.
-  await page.evaluate(() =>
-    Promise.all(
-      document
-        .getAnimations()
-        .filter((animation) => animation.effect?.getComputedTiming().iterations !== Infinity)
-        .map((animation) => animation.finished.catch(() => undefined)),
-    ),
-  );
-  await page.evaluate(axeSource);
-  const violations = await page.evaluate(async () => {
-    const axe = (
-      window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Violation[]; passes: unknown[] }> } }
-    ).axe;
-    const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } });
-    return { violations: result.violations, passed: result.passes.length };
-  });
-  // The rules ran on real content (a blank page would pass every rule by having nothing to check).
-  expect(violations.passed).toBeGreaterThan(5);
-  return violations.violations
-    .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
-    .map(
-      (violation) =>
-        `${violation.id} (${violation.impact}): ${violation.help} — ${violation.nodes
-          .slice(0, 3)
-          .map((node) => node.target.join(' '))
-          .join('; ')}`,
-    );
-}
+/** The axe findings on the suite's page. */
+const seriousViolations = () => violationsOn(browser.page);
 
 beforeAll(async () => {
   ({ database, served, browser } = await openBrowserSuite());

@@ -1,38 +1,17 @@
 /// <reference lib="dom" />
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
 import type { Browser, Served } from '../support/browser.js';
 import { closeBrowserSuite, openBrowserSuite, signInToDemo } from '../support/browser-suite.js';
 import type { TestDatabase } from '../support/database.js';
+import { seriousViolations } from '../support/axe.js';
 
 let database: TestDatabase;
 let served: Served;
 let browser: Browser;
 let hallUrl = '';
 let depotUrl = '';
-
-/** Evaluated through the browser's debugging protocol, so the app's own Content-Security-Policy stays in force (as in accessibility.test.ts). */
-const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
-
-/** axe-core's WCAG 2.1 A/AA rules on the page as it stands: its serious and critical findings. */
-async function seriousViolations(page: Page): Promise<string[]> {
-  await page.evaluate(axeSource);
-  const violations = await page.evaluate(async () => {
-    type Violation = { id: string; impact: string | null; nodes: { target: string[] }[] };
-    const axe = (
-      window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Violation[]; passes: unknown[] }> } }
-    ).axe;
-    const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } });
-    return { violations: result.violations, passed: result.passes.length };
-  });
-  expect(violations.passed).toBeGreaterThan(5);
-  return violations.violations
-    .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
-    .map((violation) => `${violation.id}: ${violation.nodes[0]?.target.join(' ')}`);
-}
 
 /** Writes through the API as the signed-in engineer: the set-up the pages under test stand on. */
 async function post(page: Page, url: string, data: unknown): Promise<{ id: string }> {
@@ -141,7 +120,10 @@ describe('decorative allowance and exempt exterior lighting, through the pages',
     await page.goto(`${depotUrl}/exterior`);
     await page.getByRole('button', { name: 'Add an exterior application' }).click();
     const form = page.getByRole('form', { name: 'Add an exterior application' });
-    await form.getByRole('combobox', { name: 'Application' }).click();
+    // The form opens in a long page: bring it into view first, so the list of applications opens beside it.
+    const application = form.getByRole('combobox', { name: 'Application' });
+    await application.scrollIntoViewIfNeeded();
+    await application.click();
     await page.getByRole('option', { name: 'Parking lots and drives · tradable' }).click();
     await form.getByLabel('Quantity (ft²)').fill('20000');
     await form.getByLabel('Installed (W)').fill('1500');
