@@ -21,6 +21,7 @@ import { loadProject } from './http/project-access.js';
 import { readSession, requireSignIn } from './http/session.js';
 import { projectsRouter } from './projects/projects.routes.js';
 import { designRouter } from './design/design.routes.js';
+import { cutSheetsRouter } from './design/cut-sheets.routes.js';
 import { evaluateRouter, openApiRouter, projectResultsRouter } from './evaluation/evaluation.routes.js';
 import { teamRouter } from './team/team.routes.js';
 import { projectInvitationsRouter, publicInvitationsRouter } from './team/invitations.routes.js';
@@ -131,6 +132,7 @@ export function createApp({
   api.use('/projects/:projectId', loadProject(db));
   api.use('/projects', projectsRouter(db));
   api.use('/projects/:projectId', designRouter(db));
+  api.use('/projects/:projectId', cutSheetsRouter(db, storage));
   api.use('/projects/:projectId', projectResultsRouter(db));
   api.use('/projects/:projectId', teamRouter(db));
   api.use('/projects/:projectId', projectInvitationsRouter(db, { appUrl: config.APP_URL, days: config.INVITATION_DAYS, mailQueued }));

@@ -467,6 +467,19 @@ export interface PackageRevisionRow {
   made_at: Date;
 }
 
+/** The cut sheet on file for a luminaire type: a PDF in the file store under a key the service made. */
+export interface LuminaireCutSheetRow {
+  luminaire_type_id: string;
+  project_id: string;
+  storage_key: string;
+  size: number;
+  sha256: string;
+  /** As uploaded, cleaned and at most 200 characters; only ever shown, never used as a key. */
+  file_name: string;
+  uploaded_by: string | null;
+  uploaded_at: Date;
+}
+
 /** One test of a functional test plan item, kept with every retest (the latest counts); never updated. */
 export interface FieldTestResultRow {
   id: string;
@@ -520,6 +533,7 @@ declare module 'knex/types/tables.js' {
     project_members: ProjectMemberRow;
     package_revisions: StoredTable<PackageRevisionRow, 'document' | 'result' | 'files'>;
     field_test_results: StoredTable<FieldTestResultRow>;
+    luminaire_cut_sheets: StoredTable<LuminaireCutSheetRow>;
     audit_log: AuditLogRow;
     invitations: InvitationRow;
     code_editions: CodeTable<CodeEditionRow>;

@@ -33,6 +33,9 @@ export interface HistoryEntry {
   package?: unknown;
   /** On a field test recorded or repeated: the result, the measured values, the notes; `name` is the test item's title. */
   fieldTest?: unknown;
+  /** On a cut sheet attached to or removed from a luminaire type: its file name, size and SHA-256, and the one it replaced. */
+  cutSheet?: unknown;
+  replaced?: unknown;
   /** A deleted space, luminaire type, exterior application or allowance claim that can still be brought back. */
   restorable: boolean;
 }
@@ -55,6 +58,8 @@ interface AuditRow {
     review?: unknown;
     package?: unknown;
     fieldTest?: unknown;
+    cutSheet?: unknown;
+    replaced?: unknown;
     restoredFrom?: string;
   } | null;
 }
@@ -115,6 +120,8 @@ export async function listHistory(db: Knex, projectId: string, filter: HistoryFi
       ...(row.detail?.review ? { review: row.detail.review } : {}),
       ...(row.detail?.package ? { package: row.detail.package } : {}),
       ...(row.detail?.fieldTest ? { fieldTest: row.detail.fieldTest } : {}),
+      ...(row.detail?.cutSheet ? { cutSheet: row.detail.cutSheet } : {}),
+      ...(row.detail?.replaced ? { replaced: row.detail.replaced } : {}),
       restorable:
         row.action === 'delete' &&
         restorableEntities.has(row.entity) &&

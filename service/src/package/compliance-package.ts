@@ -23,7 +23,7 @@ import type { ControlLine, EvaluationResult, SpaceResult } from '../../../contra
 import { reviewItemKindLabels, reviewVerdictLabels, type ReviewItem, type ReviewOutcome } from '../../../contract/review.js';
 import { dec, sum, ZERO } from '../compliance/numbers.js';
 import type { ProvidedControl } from '../compliance/document.js';
-import type { PackageInput, PackageRevisionStamp } from './package-input.js';
+import type { CompliancePackageOptions, PackageInput, PackageRevisionStamp } from './package-input.js';
 import {
   basisWords,
   citedWords,
@@ -51,11 +51,6 @@ import {
   withUnits,
   zoneWords,
 } from './package-words.js';
-
-/** What a package may add beyond the evaluation: the cut sheet on file for a luminaire type, by tag. */
-export interface CompliancePackageOptions {
-  cutSheets?: ReadonlyMap<string, string>;
-}
 
 /** The mark every page of a draft package carries in its header. */
 export const draftMark = 'DRAFT — not for permit';

@@ -3,7 +3,7 @@ import type { Decimal } from 'decimal.js';
 import type { ControlLine, ExteriorApplicationResult, SpaceResult } from '../../../contract/result.js';
 import { squareMetresPerSquareFootText } from '../../../contract/editions.js';
 import { dec, sum, ZERO } from '../compliance/numbers.js';
-import type { PackageInput } from './package-input.js';
+import type { CompliancePackageOptions, PackageInput } from './package-input.js';
 import {
   basisWords,
   confidenceWords,
@@ -34,7 +34,7 @@ import {
  *
  * Pure: reads only its input, no clock, no network.
  */
-export async function buildComplianceWorkbook(input: PackageInput): Promise<Buffer> {
+export async function buildComplianceWorkbook(input: PackageInput, options: CompliancePackageOptions = {}): Promise<Buffer> {
   const { project, result, revision } = input;
   const workbook = new ExcelJS.Workbook();
   workbook.creator = revision.madeBy;
@@ -59,7 +59,7 @@ export async function buildComplianceWorkbook(input: PackageInput): Promise<Buff
 
   const counts = writeCounts(countsSheet, spaces, formats);
   const spaceTable = writeSpaces(spacesSheet, spaces, counts, formats, result.units);
-  writeLuminaires(luminairesSheet, input, counts, formats);
+  writeLuminaires(luminairesSheet, input, counts, formats, options);
   const controls = writeControls(controlsSheet, input, numberOf);
   writeDaylight(daylightSheet, spaces, formats);
   const exterior = writeExterior(exteriorSheet, input, formats);
@@ -433,7 +433,13 @@ function writeSpaces(
 
 // ---------------------------------------------------------------- Luminaires
 
-function writeLuminaires(sheet: ExcelJS.Worksheet, input: PackageInput, counts: CountsTable, formats: Formats): void {
+function writeLuminaires(
+  sheet: ExcelJS.Worksheet,
+  input: PackageInput,
+  counts: CountsTable,
+  formats: Formats,
+  options: CompliancePackageOptions,
+): void {
   const tags = counts.table.range(counts.columns.tag);
   const countRange = counts.table.range(counts.columns.count);
   const watts = counts.table.range(counts.columns.watts);
@@ -453,6 +459,7 @@ function writeLuminaires(sheet: ExcelJS.Worksheet, input: PackageInput, counts: 
       type.exemptReason ?? '',
       tags === null ? 0 : formula(`SUMIFS(${countRange},${tags},A${row})`, num(count)),
       tags === null ? 0 : formula(`SUMIFS(${watts},${tags},A${row})`, num(total)),
+      options.cutSheets?.get(type.tag) ?? 'None on file',
     ];
   });
   writeTable(sheet, {
@@ -469,6 +476,7 @@ function writeLuminaires(sheet: ExcelJS.Worksheet, input: PackageInput, counts: 
       { header: 'Why exempt', width: 30, wrap: true },
       { header: 'Count in spaces', width: 14, numFmt: formats.count },
       { header: 'Watts in spaces', width: 14, numFmt: formats.watts, total: num(sum(lines.map((line) => dec(line.watts)))) },
+      { header: 'Cut sheet', width: 30, wrap: true },
     ],
     rows,
   });

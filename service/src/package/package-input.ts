@@ -31,4 +31,12 @@ export interface PackageInput {
   review?: { round: number; items: ReviewItem[] };
 }
 
+/**
+ * What the Word and Excel files add beyond the evaluation: the file name of the cut sheet on file
+ * for a luminaire type, by its tag (a type without one is listed as having none on file).
+ */
+export interface CompliancePackageOptions {
+  cutSheets?: ReadonlyMap<string, string>;
+}
+
 export type PackageFormat = 'docx' | 'xlsx' | 'pdf';

@@ -6,6 +6,7 @@ import { evaluate, validateDocument } from '../compliance/index.js';
 import type { Database } from '../db/database.js';
 import { lockProject } from '../db/project-lock.js';
 import type { PackageFileRecord, ProjectRole } from '../db/tables.js';
+import { cutSheetNamesByTag } from '../design/cut-sheets.repository.js';
 import { projectDocument } from '../design/project-document.js';
 import { Conflict, Refused } from '../domain-errors.js';
 import { notComputedMessage } from '../evaluation/evaluation.service.js';
@@ -58,10 +59,11 @@ export async function makePackage(
   mail: TransitionMailSettings,
 ): Promise<MadePackage> {
   // One snapshot: the project, its design and its earlier revisions as of one moment, even while someone edits a draft.
-  const { project, document, earlier, review } = await db.transaction(
+  const { project, document, earlier, review, cutSheets } = await db.transaction(
     async (trx) => ({
       project: await getProjectDetail(trx, projectId, actor.role),
       document: await projectDocument(trx, projectId),
+      cutSheets: await cutSheetNamesByTag(trx, projectId),
       earlier: await listRevisions(trx, projectId),
       review: await reviewRecord(trx, projectId),
     }),
@@ -98,8 +100,8 @@ export async function makePackage(
 
   const id = randomUUID();
   const built: [PackageFormat, Buffer][] = [
-    ['docx', await buildCompliancePackage(input)],
-    ['xlsx', await buildComplianceWorkbook(input)],
+    ['docx', await buildCompliancePackage(input, { cutSheets })],
+    ['xlsx', await buildComplianceWorkbook(input, { cutSheets })],
     ['pdf', await buildPackagePdf(input)],
   ];
   const files: PackageFileRecord[] = [];

@@ -233,6 +233,12 @@ export interface ExteriorApplicationRecord extends ExteriorApplicationInput, Sta
 // ---------------------------------------------------------------- history
 
 export type DesignHistoryAction = 'create' | 'import' | 'update' | 'delete' | 'restore';
+export type CutSheetHistoryAction = 'attach-cut-sheet' | 'remove-cut-sheet';
+export interface CutSheetHistoryDetail {
+  fileName: string;
+  size: number;
+  sha256: string;
+}
 export type ProjectHistoryAction = 'create' | 'copy' | 'update' | 'convert-units' | 'archive' | 'unarchive' | 'transition';
 export type ClaimHistoryAction = 'create' | 'update' | 'delete' | 'restore';
 export type TeamHistoryAction = 'add-member' | 'change-role' | 'remove-member' | 'add-member-no-account';
@@ -293,6 +299,15 @@ export type HistoryEntry = HistoryEntryBase &
   (
     | { entity: 'space'; action: DesignHistoryAction; before: SpaceRecord | null; after: SpaceRecord | null }
     | { entity: 'luminaire-type'; action: DesignHistoryAction; before: LuminaireTypeRecord | null; after: LuminaireTypeRecord | null }
+    | {
+        entity: 'luminaire-type';
+        action: CutSheetHistoryAction;
+        before: null;
+        after: null;
+        /** The cut sheet attached or removed, and on a replacement the one it replaced; `name` is the type's tag. */
+        cutSheet?: CutSheetHistoryDetail;
+        replaced?: CutSheetHistoryDetail;
+      }
     | {
         entity: 'exterior-application';
         action: DesignHistoryAction;

@@ -413,6 +413,8 @@ const icons: Record<string, string> = {
   'accept-invitation': 'how_to_reg',
   record: 'checklist',
   retest: 'replay',
+  'attach-cut-sheet': 'attach_file',
+  'remove-cut-sheet': 'link_off',
 };
 
 /**
@@ -655,6 +657,21 @@ function fieldTestWords(entry: Extract<HistoryEntry, { entity: 'field-test' }>):
   return { summary, changes };
 }
 
+type CutSheetEntry = Extract<HistoryEntry, { action: 'attach-cut-sheet' | 'remove-cut-sheet' }>;
+
+function isCutSheetEntry(entry: HistoryEntry): entry is CutSheetEntry {
+  return entry.action === 'attach-cut-sheet' || entry.action === 'remove-cut-sheet';
+}
+
+/** A cut sheet attached to, replaced on or removed from a luminaire type; `name` is the type's tag. */
+function cutSheetWords(entry: CutSheetEntry): { summary: string; changes: string[] } {
+  const type = entry.name ? `luminaire type ${quoted(entry.name)}` : 'a luminaire type';
+  const file = entry.cutSheet ? ` ${quoted(entry.cutSheet.fileName)}` : '';
+  if (entry.action === 'remove-cut-sheet') return { summary: `removed the cut sheet${file} from ${type}`, changes: [] };
+  if (entry.replaced) return { summary: `replaced the cut sheet of ${type} with${file}`, changes: [`was ${quoted(entry.replaced.fileName)}`] };
+  return { summary: `attached the cut sheet${file} to ${type}`, changes: [] };
+}
+
 /** One entry in words, with `system` the units the project had when it was made (see {@link unitsAtEntry}). */
 export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system: UnitSystem): EntryWords {
   const actor = entry.user?.name || 'Someone';
@@ -663,7 +680,7 @@ export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system
     case 'space':
     case 'luminaire-type':
     case 'exterior-application':
-      words = designWords(entry, labels, system);
+      words = isCutSheetEntry(entry) ? cutSheetWords(entry) : designWords(entry, labels, system);
       break;
     case 'project':
       words = projectWords(entry, labels);

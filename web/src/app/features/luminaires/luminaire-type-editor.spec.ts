@@ -79,4 +79,9 @@ describe('LuminaireTypeEditor', () => {
     http.expectNone('/api/projects/p1/luminaire-types');
     expect(element.querySelector('mat-error')?.textContent).toContain('Out of range. Enter a number from 0 to 100,000.');
   });
+
+  it('offers the cut sheet once the type is added', () => {
+    expect(element.textContent).toContain('Attach the manufacturer’s cut sheet once the type is added.');
+    expect(element.querySelector('al-cut-sheet-panel')).toBeNull();
+  });
 });

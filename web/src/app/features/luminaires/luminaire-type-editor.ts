@@ -16,6 +16,7 @@ import { fieldMessage } from '../../shared/field-message';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { basisLabels, fillLuminaireType, luminaireTypeForm, luminaireTypeFromForm, useLabels } from './luminaire-type-form';
 import { askToDiscard } from '../../shared/confirm-dialog';
+import { CutSheetPanel } from './cut-sheet-panel';
 
 type CatalogueField = 'manufacturer' | 'catalogNumber' | 'lightSource' | 'driver' | 'voltage';
 
@@ -38,6 +39,7 @@ export interface LuminaireTypeEditorData {
 @Component({
   selector: 'al-luminaire-type-editor',
   imports: [
+    CutSheetPanel,
     ReactiveFormsModule,
     MatButtonModule,
     MatDialogModule,
