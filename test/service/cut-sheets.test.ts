@@ -154,7 +154,13 @@ describe('PUT /api/projects/:id/luminaire-types/:typeId/cut-sheet', () => {
     const taken = await upload(engineer, limit, 'Exactly twenty.pdf', types[1]!.id);
     expect(taken.status, JSON.stringify(taken.body)).toBe(200);
     expect(taken.body.size).toBe(20 * 1024 * 1024);
-    expect((await engineer.agent.delete(`/api/projects/${projectId}/luminaire-types/${types[1]!.id}/cut-sheet`).set('X-CSRF-Token', engineer.csrfToken)).status).toBe(204);
+    expect(
+      (
+        await engineer.agent
+          .delete(`/api/projects/${projectId}/luminaire-types/${types[1]!.id}/cut-sheet`)
+          .set('X-CSRF-Token', engineer.csrfToken)
+      ).status,
+    ).toBe(204);
   });
 
   it('lets a reviewer read it but not attach or remove one', async () => {

@@ -668,7 +668,8 @@ function cutSheetWords(entry: CutSheetEntry): { summary: string; changes: string
   const type = entry.name ? `luminaire type ${quoted(entry.name)}` : 'a luminaire type';
   const file = entry.cutSheet ? ` ${quoted(entry.cutSheet.fileName)}` : '';
   if (entry.action === 'remove-cut-sheet') return { summary: `removed the cut sheet${file} from ${type}`, changes: [] };
-  if (entry.replaced) return { summary: `replaced the cut sheet of ${type} with${file}`, changes: [`was ${quoted(entry.replaced.fileName)}`] };
+  if (entry.replaced)
+    return { summary: `replaced the cut sheet of ${type} with${file}`, changes: [`was ${quoted(entry.replaced.fileName)}`] };
   return { summary: `attached the cut sheet${file} to ${type}`, changes: [] };
 }
 

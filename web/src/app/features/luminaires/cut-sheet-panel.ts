@@ -39,9 +39,8 @@ const tooLargeWords = `This file is larger than ${sizeWords(cutSheetMaxBytes)}. 
           <span>
             <strong class="name">{{ sheet.fileName }}</strong>
             <span class="note"
-              >{{ size(sheet.size) }} · attached {{ sheet.uploadedAt | date: 'mediumDate' }}{{
-                sheet.uploadedBy ? ' by ' + sheet.uploadedBy : ''
-              }}</span
+              >{{ size(sheet.size) }} · attached {{ sheet.uploadedAt | date: 'mediumDate'
+              }}{{ sheet.uploadedBy ? ' by ' + sheet.uploadedBy : '' }}</span
             >
           </span>
         </p>
@@ -59,9 +58,7 @@ const tooLargeWords = `This file is larger than ${sizeWords(cutSheetMaxBytes)}. 
       }
       <div class="actions">
         @if (sheet(); as sheet) {
-          <a mat-stroked-button [href]="sheet.url" download>
-            <mat-icon aria-hidden="true">download</mat-icon>Download
-          </a>
+          <a mat-stroked-button [href]="sheet.url" download> <mat-icon aria-hidden="true">download</mat-icon>Download </a>
         }
         @if (canEdit()) {
           <input #picker type="file" accept="application/pdf,.pdf" hidden (change)="chosen(picker)" />
