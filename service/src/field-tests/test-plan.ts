@@ -1,3 +1,4 @@
+import { testKindLabels, testKinds, type TestKind, type TestPlanGroup, type TestPlanItem } from '../../../contract/field-tests.js';
 import type { EvaluationResult, ControlLine } from '../../../contract/result.js';
 import type { EvaluationDocument, ProvidedControl } from '../compliance/document.js';
 import { dec } from '../compliance/numbers.js';
@@ -16,26 +17,7 @@ import { areaToSquareFeet } from '../compliance/units.js';
  * so is ASHRAE 90.1's functional testing section (§9.9 in 90.1-2016, 2019 and 2022; §9.4.3 in 2013).
  */
 
-export const testKinds = [
-  'occupant-sensor',
-  'time-switch',
-  'daylight',
-  'light-reduction',
-  'partial-off',
-  'exterior-daylight-off',
-  'exterior-setback',
-] as const;
-export type TestKind = (typeof testKinds)[number];
-
-export const testKindLabels: Record<TestKind, string> = {
-  'occupant-sensor': 'Occupant sensors',
-  'time-switch': 'Time switches',
-  daylight: 'Daylight-responsive controls',
-  'light-reduction': 'Light reduction',
-  'partial-off': 'Automatic partial off',
-  'exterior-daylight-off': 'Exterior daylight off',
-  'exterior-setback': 'Exterior setback and shutoff',
-};
+export { testKindLabels, testKinds, type TestKind, type TestPlanGroup, type TestPlanItem };
 
 /** Which strategy of the design each kind of test checks. */
 const kindOfStrategy: Partial<Record<string, TestKind>> = {
@@ -89,38 +71,6 @@ export function sensorType(device: string | undefined): string {
     .trim()
     .replace(/\s+/g, ' ');
   return folded === '' ? 'sensor type not recorded' : folded;
-}
-
-export interface TestPlanItem {
-  /** Stable: the kind, the strategy, the space or application key (and the room, for a grouped entry). */
-  id: string;
-  kind: TestKind;
-  /** What is tested, in words: “Occupant sensor in 201 Makerspace”. */
-  title: string;
-  spaceIds: string[];
-  /** The exterior application's key, for an exterior item. */
-  applicationKey?: string;
-  /** The occupant sensors' combination (sensor type and space geometry) this item belongs to. */
-  combination?: string;
-  /** Chosen for the sample (every item that is not an occupant sensor in a sampled combination is). */
-  sample: boolean;
-  /** Must be tested: in the sample, or its combination widened after failures. */
-  required: boolean;
-  steps: string[];
-  expected: string;
-  section: string;
-}
-
-export interface TestPlanGroup {
-  kind: TestKind;
-  /** In words: “ceiling dual technology occupant sensor · Office — enclosed · up to 300 ft²”, or “each one”. */
-  combination: string;
-  population: number;
-  sampleSize: number;
-  widened: boolean;
-  /** Why the sample widened, or how it was chosen, in words. */
-  words: string;
-  itemIds: string[];
 }
 
 /** One recorded result; the latest of an item counts, the first tells whether its sample failed. */
