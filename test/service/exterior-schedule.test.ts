@@ -108,7 +108,7 @@ describe('GET /api/projects/:id/exterior-schedule', () => {
 
   it('is closed to a non-member', async () => {
     const response = await contractor.agent.get(`/api/projects/${privateId}/exterior-schedule`);
-    expect(response.status).toBe(403);
+    expect(response.status).toBe(404);
   });
 });
 
