@@ -484,6 +484,16 @@ export interface FieldTestResultRow {
   recorded_at: Date;
 }
 
+/** The exterior schedule a project saved (one row per project; none: the defaults). */
+export interface ExteriorScheduleSettingsRow {
+  project_id: string;
+  /** `scheduleSettingsSchema`'s output, checked again when read. */
+  settings: unknown;
+  version: number;
+  updated_by: string | null;
+  updated_at: Date;
+}
+
 /**
  * How a project or design row is written: NUMERIC columns as decimal text (as they are read), JSON
  * columns as JSON text, and any column may be left out for its default or be a database expression.
@@ -520,6 +530,7 @@ declare module 'knex/types/tables.js' {
     project_members: ProjectMemberRow;
     package_revisions: StoredTable<PackageRevisionRow, 'document' | 'result' | 'files'>;
     field_test_results: StoredTable<FieldTestResultRow>;
+    exterior_schedule_settings: StoredTable<ExteriorScheduleSettingsRow, 'settings'>;
     audit_log: AuditLogRow;
     invitations: InvitationRow;
     code_editions: CodeTable<CodeEditionRow>;
