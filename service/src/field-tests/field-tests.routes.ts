@@ -21,6 +21,7 @@ import {
   type TestPlanItemView,
   type TestPlanView,
 } from '../../../contract/field-tests.js';
+import { scheduleSettings } from '../exterior-schedule/schedule-settings.repository.js';
 import { listFieldTests, recordFieldTest } from './field-tests.repository.js';
 import { buildTestPlan } from './test-plan.js';
 
@@ -76,8 +77,8 @@ async function planView(db: Database, projectId: string): Promise<TestPlanView> 
   const outcome = validateDocument(input, tables);
   if (!outcome.valid) throw new Refused(notComputedMessage, outcome.problems);
   const result = evaluate(outcome.document, tables);
-  const records = await listFieldTests(db, projectId);
-  const plan = buildTestPlan(projectId, outcome.document, result, records);
+  const [records, schedule] = await Promise.all([listFieldTests(db, projectId), scheduleSettings(db, projectId)]);
+  const plan = buildTestPlan(projectId, outcome.document, result, records, schedule.settings);
   const byItem = new Map<string, FieldTestRecord[]>();
   for (const record of records) byItem.set(record.itemId, [...(byItem.get(record.itemId) ?? []), record]);
   const items: TestPlanItemView[] = plan.items.map((item) => {

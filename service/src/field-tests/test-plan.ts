@@ -1,6 +1,7 @@
 import { testKindLabels, testKinds, type TestKind, type TestPlanGroup, type TestPlanItem } from '../../../contract/field-tests.js';
 import type { EvaluationResult, ControlLine } from '../../../contract/result.js';
 import type { EvaluationDocument, ProvidedControl } from '../compliance/document.js';
+import type { ScheduleSettings } from '../compliance/exterior-schedule.js';
 import { dec } from '../compliance/numbers.js';
 import { areaToSquareFeet } from '../compliance/units.js';
 
@@ -188,29 +189,40 @@ function partialOffSteps(control: ProvidedControl): { steps: string[]; expected:
   };
 }
 
-function exteriorDaylightSteps(): { steps: string[]; expected: string } {
+function exteriorDaylightSteps(schedule: ScheduleSettings | undefined): { steps: string[]; expected: string } {
+  const offsets = schedule
+    ? `: on ${schedule.onMinutesBeforeSunset} min before sunset, off ${schedule.offMinutesAfterSunrise} min after sunrise, as the project’s schedule sets`
+    : ', within the schedule’s offsets';
   return {
     steps: [
       'Check the astronomical clock’s location, date, time and time zone match the site, or find the photosensor and check it faces away from the lights it controls.',
       'Cover the photosensor, or set the clock to just after sunset: the lights come on.',
       'Uncover it, or set the clock to just after sunrise: the lights go off.',
     ],
-    expected: 'The lights are off whenever there is daylight and on only after sunset, within the schedule’s offsets.',
+    expected: `The lights are off whenever there is daylight and on only after sunset${offsets}.`,
   };
 }
 
-function exteriorSetbackSteps(strategy: string): { steps: string[]; expected: string } {
+function exteriorSetbackSteps(strategy: string, schedule: ScheduleSettings | undefined): { steps: string[]; expected: string } {
   const off = strategy === 'exterior-facade-landscape-off';
+  const window = schedule?.setback;
+  const reduction = window?.reductionPercent !== undefined ? `${window.reductionPercent} %` : 'at least the edition’s figure';
   return {
     steps: [
-      'Read the setback or shutoff window on the controller against the owner’s closing and opening hours.',
-      'Set the clock to a minute before the window starts and watch the lights.',
+      window
+        ? `Read the setback window on the controller: the project’s schedule sets it from ${window.start} to ${window.end}; check it against the owner’s closing and opening hours.`
+        : 'Read the setback or shutoff window on the controller against the owner’s closing and opening hours.',
+      window
+        ? `Set the clock to a minute before ${window.start} and watch the lights.`
+        : 'Set the clock to a minute before the window starts and watch the lights.',
       off ? 'Check the lights go off.' : 'Measure the lighting power or light level before and after the step.',
-      'Set the clock to a minute before the window ends and watch the lights return.',
+      window
+        ? `Set the clock to a minute before ${window.end} and watch the lights return.`
+        : 'Set the clock to a minute before the window ends and watch the lights return.',
     ],
     expected: off
-      ? 'The facade or landscape lighting is off through the whole window (midnight or closing to 6 a.m. or opening).'
-      : 'The lighting is reduced by at least the edition’s figure through the whole window, then returns.',
+      ? `The facade or landscape lighting is off through the whole window (${window ? `${window.start} to ${window.end}` : 'midnight or closing to 6 a.m. or opening'}).`
+      : `The lighting is reduced by ${reduction} through the whole window${window ? ` (${window.start} to ${window.end})` : ''}, then returns.`,
   };
 }
 
@@ -294,6 +306,8 @@ export function buildTestPlan(
   document: EvaluationDocument,
   result: EvaluationResult,
   results: readonly RecordedResult[] = [],
+  /** The project's saved exterior schedule: the exterior tests name its offsets and window. */
+  schedule?: ScheduleSettings,
 ): TestPlan {
   const items: TestPlanItem[] = [];
   const groups: TestPlanGroup[] = [];
@@ -423,7 +437,7 @@ export function buildTestPlan(
         title: `${line?.label ?? testKindLabels[kind]}: ${label}`,
         spaceIds: [],
         applicationKey: application.key,
-        ...(kind === 'exterior-daylight-off' ? exteriorDaylightSteps() : exteriorSetbackSteps(control.strategy)),
+        ...(kind === 'exterior-daylight-off' ? exteriorDaylightSteps(schedule) : exteriorSetbackSteps(control.strategy, schedule)),
         section: testSection(document.edition, kind, line?.section),
       });
     }
