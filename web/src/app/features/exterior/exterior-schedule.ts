@@ -84,7 +84,7 @@ export function savedWords(stored: StoredExteriorSchedule): string {
     return 'The project runs the common-practice schedule until one is saved.';
   }
   const when = new Intl.DateTimeFormat('en-US', { dateStyle: 'medium' }).format(new Date(stored.updatedAt));
-  return `The project's schedule, saved ${when}${stored.updatedBy ? ` by ${stored.updatedBy}` : ''}.`;
+  return `The project’s schedule, saved ${when}${stored.updatedBy ? ` by ${stored.updatedBy}` : ''}.`;
 }
 
 function hoursText(value: string): string {
