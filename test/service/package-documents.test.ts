@@ -268,6 +268,20 @@ describe('the Word compliance package', () => {
       expect(draft.body).not.toContain(code);
     }
   });
+
+  it('writes its table rows as the very markup docx writes for them, text escaped', async () => {
+    // A name with every character XML escapes, and one XML 1.0 cannot hold (dropped: docx would write it and break the file).
+    const name = `Lobby & <Stair> "A" 'B'\u0007`;
+    const spaces = input.result.interior.spaces.map((space, index) => (index === 0 ? { ...space, name } : space));
+    const named = { ...input, result: { ...input.result, interior: { ...input.result.interior, spaces } } };
+    const documentXml = async (buffer: Buffer) => (await JSZip.loadAsync(buffer)).file('word/document.xml')!.async('string');
+    const fast = await documentXml(await buildCompliancePackage(named));
+    const reference = await documentXml(await buildCompliancePackage(named, { tablesViaDocx: true }));
+    expect(fast).toContain('Lobby &amp; &lt;Stair&gt; &quot;A&quot; &apos;B&apos;</w:t>');
+    expect(fast).not.toContain('\u0007');
+    expect(fast).not.toContain('TableBodyRows');
+    expect(fast).toBe(reference.replace('\u0007', ''));
+  });
 });
 
 describe('the Excel compliance workbook', () => {
