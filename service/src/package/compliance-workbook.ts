@@ -82,13 +82,14 @@ export async function buildComplianceWorkbook(input: PackageInput): Promise<Buff
  * a later change to one cell's style would reach every cell sharing it.
  */
 function shareStyles(workbook: ExcelJS.Workbook): void {
-  const ids = new WeakMap<object, number>();
-  const idOf = (part: object | undefined): number | string => {
+  // Each part (font, alignment …) by its content; an object several cells share is read once.
+  const words = new WeakMap<object, string>();
+  const idOf = (part: object | undefined): string => {
     if (part === undefined) return '';
-    let id = ids.get(part);
+    let id = words.get(part);
     if (id === undefined) {
-      id = ids.size;
-      ids.set(part, id);
+      id = JSON.stringify(part);
+      words.set(part, id);
     }
     return id;
   };
@@ -108,7 +109,7 @@ function shareStyles(workbook: ExcelJS.Workbook): void {
           idOf(style.fill),
           idOf(style.border),
           idOf(style.protection),
-        ].join('|');
+        ].join('\u0000');
         const known = shared.get(key);
         if (known === undefined) shared.set(key, style);
         else cell.style = known;
