@@ -157,7 +157,9 @@ function packageFigures(input: PackageInput, folder: string): string[] {
     });
     if (child.status !== 0) {
       failed = true;
-      rows.push(`MISS ${target.name}, ${spaceCount} spaces: the builder failed (${child.stderr.trim().split('\n').at(-1) ?? 'no message'})`);
+      rows.push(
+        `MISS ${target.name}, ${spaceCount} spaces: the builder failed (${child.stderr.trim().split('\n').at(-1) ?? 'no message'})`,
+      );
       continue;
     }
     const figures = JSON.parse(child.stdout.trim().split('\n').at(-1)!) as { ms: number; peakRssMb: number; bytes: number };

@@ -306,6 +306,7 @@ function table(columns: Column[], rows: TableRowText[], width: number): Table {
 }
 
 /** XML 1.0 has no place for these characters; docx would write them and break the file. */
+// eslint-disable-next-line no-control-regex -- these very characters are what is matched
 const notInXml = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g;
 
 function escapeXml(text: string): string {
@@ -333,7 +334,8 @@ function rowMarkup(row: TableRowText, columns: Column[], cellWidths: number[]): 
     xml += '</w:tcPr>';
     for (const line of text.split('\n')) {
       xml += `<w:p><w:pPr><w:pStyle w:val="${style}"/></w:pPr>`;
-      if (line !== '') xml += `<w:r>${options.bold ? '<w:rPr><w:b/><w:bCs/></w:rPr>' : ''}<w:t xml:space="preserve">${escapeXml(line)}</w:t></w:r>`;
+      if (line !== '')
+        xml += `<w:r>${options.bold ? '<w:rPr><w:b/><w:bCs/></w:rPr>' : ''}<w:t xml:space="preserve">${escapeXml(line)}</w:t></w:r>`;
       xml += '</w:p>';
     }
     xml += '</w:tc>';
