@@ -281,11 +281,15 @@ function writeTable(sheet: ExcelJS.Worksheet, spec: TableSpec): WrittenTable {
   });
   spec.columns.forEach((column, index) => {
     if (column.numFmt === undefined && !column.wrap) return;
-    for (let row = first; row <= last + (withTotals ? 1 : 0); row++) {
-      const cell = sheet.getCell(row, index + 1);
-      if (column.numFmt !== undefined) cell.numFmt = column.numFmt;
-      if (column.wrap) cell.alignment = { wrapText: true, vertical: 'top' };
-    }
+    const style = (): Partial<ExcelJS.Style> => ({
+      ...(column.numFmt !== undefined ? { numFmt: column.numFmt } : {}),
+      ...(column.wrap ? { alignment: { wrapText: true, vertical: 'top' } } : {}),
+    });
+    // One style object for the column's data cells (nothing changes their style afterwards), so
+    // exceljs renders it once; the totals row's cells get their own, as the row is made bold below.
+    const shared = style();
+    for (let row = first; row <= last; row++) sheet.getCell(row, index + 1).style = shared;
+    if (withTotals) sheet.getCell(last + 1, index + 1).style = style();
   });
   if (withTotals) {
     const totals = last + 1;
