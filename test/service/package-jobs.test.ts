@@ -169,4 +169,16 @@ describe('a package job that fails', () => {
     expect((again.body as PackageJobAnswer).job.id).not.toBe((response.body as PackageJobAnswer).job.id);
     await follow(engineer, (again.body as PackageJobAnswer).job.id);
   });
+
+  it('fails, in words, a job a stopped server left running, so the project may ask again', { timeout: 60_000 }, async () => {
+    await stopJobs();
+    const left = '11111111-1111-4111-8111-111111111111';
+    await database.db('package_jobs').insert({ id: left, project_id: projectId, state: 'running', step: 'pdf', progress: 70 });
+    const { engineer } = await appWithJobs();
+    const answer = await engineer.agent.get(`/api/projects/${projectId}/packages/jobs/${left}`);
+    expect(answer.body.job).toMatchObject({
+      state: 'failed',
+      error: 'The server stopped while the package was being made. Make the package again.',
+    });
+  });
 });
