@@ -24,6 +24,7 @@ import * as reviewDigest from './20261203002000_review_digest.js';
 import * as invitations from './20261203003000_invitations.js';
 import * as packageRevisions from './20261203005000_package_revisions.js';
 import * as fieldTests from './20261203006000_field_tests.js';
+import * as packageJobs from './20261203009000_package_jobs.js';
 import * as exteriorScheduleSettings from './20261203011000_exterior_schedule_settings.js';
 
 interface Migration {
@@ -58,6 +59,7 @@ const migrations: Record<string, Migration> = {
   '20261203003000_invitations': invitations,
   '20261203005000_package_revisions': packageRevisions,
   '20261203006000_field_tests': fieldTests,
+  '20261203009000_package_jobs': packageJobs,
   '20261203011000_exterior_schedule_settings': exteriorScheduleSettings,
 };
 

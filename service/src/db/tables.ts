@@ -467,6 +467,21 @@ export interface PackageRevisionRow {
   made_at: Date;
 }
 
+/** A background job making a large project's package (pg-boss carries it; this row is what the route answers). */
+export interface PackageJobRow {
+  id: string;
+  project_id: string;
+  state: 'queued' | 'running' | 'done' | 'failed';
+  step: 'evaluate' | 'docx' | 'xlsx' | 'pdf' | 'store' | null;
+  progress: number;
+  revision_id: string | null;
+  /** Why it failed, in words for people. */
+  error: string | null;
+  requested_by: string | null;
+  requested_at: Date;
+  finished_at: Date | null;
+}
+
 /** One test of a functional test plan item, kept with every retest (the latest counts); never updated. */
 export interface FieldTestResultRow {
   id: string;
@@ -531,6 +546,7 @@ declare module 'knex/types/tables.js' {
     package_revisions: StoredTable<PackageRevisionRow, 'document' | 'result' | 'files'>;
     field_test_results: StoredTable<FieldTestResultRow>;
     exterior_schedule_settings: StoredTable<ExteriorScheduleSettingsRow, 'settings'>;
+    package_jobs: StoredTable<PackageJobRow>;
     audit_log: AuditLogRow;
     invitations: InvitationRow;
     code_editions: CodeTable<CodeEditionRow>;

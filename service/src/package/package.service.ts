@@ -1,4 +1,5 @@
 import { createHash, randomUUID } from 'node:crypto';
+import type { PackageStep } from '../../../contract/package.js';
 import type { ProjectState } from '../../../contract/review.js';
 import { recordAudit } from '../audit/audit.repository.js';
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
@@ -56,7 +57,10 @@ export async function makePackage(
   projectId: string,
   actor: { userId: string; name: string; role: ProjectRole | null; isAdmin: boolean },
   mail: TransitionMailSettings,
+  /** Told as each step begins (a background job keeps its progress by it). */
+  onStep: (step: PackageStep) => Promise<void> | void = () => {},
 ): Promise<MadePackage> {
+  await onStep('evaluate');
   // One snapshot: the project, its design and its earlier revisions as of one moment, even while someone edits a draft.
   const { project, document, earlier, review } = await db.transaction(
     async (trx) => ({
@@ -97,11 +101,14 @@ export async function makePackage(
   };
 
   const id = randomUUID();
-  const built: [PackageFormat, Buffer][] = [
-    ['docx', await buildCompliancePackage(input)],
-    ['xlsx', await buildComplianceWorkbook(input)],
-    ['pdf', await buildPackagePdf(input)],
-  ];
+  const built: [PackageFormat, Buffer][] = [];
+  await onStep('docx');
+  built.push(['docx', await buildCompliancePackage(input)]);
+  await onStep('xlsx');
+  built.push(['xlsx', await buildComplianceWorkbook(input)]);
+  await onStep('pdf');
+  built.push(['pdf', await buildPackagePdf(input)]);
+  await onStep('store');
   const files: PackageFileRecord[] = [];
   try {
     for (const [format, body] of built) {
