@@ -58,6 +58,34 @@ export interface ApplicationEnergy {
   verified: boolean;
 }
 
+/** How the schedule stands against one of the code's exterior control requirements. */
+export type ScheduleCheckStatus = 'met' | 'not-met' | 'to-verify' | 'exception' | 'not-required';
+
+/** One exterior application's daylight shutoff or night setback, checked against the project's schedule. */
+export interface ScheduleCheck {
+  check: 'daylight-off' | 'setback';
+  applicationId: string;
+  /** The application's name in the edition, as the result names it. */
+  label: string;
+  status: ScheduleCheckStatus;
+  /** The section that states the requirement; absent when none applies. */
+  section?: string;
+  /** What the schedule does and what the code asks, in words; for "to verify", what to check. */
+  words: string;
+  /** False where the requirement rests on values not checked against the published code. */
+  verified: boolean;
+}
+
+/** `GET /api/projects/:id/exterior-schedule/settings`, and the answer to saving them. */
+export interface StoredExteriorSchedule {
+  settings: ExteriorScheduleSettings;
+  /** 0 until the project saves a schedule (the defaults run until then); each save adds one. */
+  version: number;
+  saved: boolean;
+  updatedAt: string | null;
+  updatedBy: string | null;
+}
+
 export interface ScheduleSummary {
   from: string;
   days: number;
@@ -70,6 +98,8 @@ export interface ScheduleSummary {
   polarDays: number;
   applications: ApplicationEnergy[];
   totals: { installedWatts: string; kWh: string; kWhWithoutSetback: string; savingKWh: string };
+  /** The exterior control requirements the schedule answers, per application. */
+  checks: ScheduleCheck[];
   /** Values the result rests on that are not checked against the published code, in words. */
   unverified: string[];
 }

@@ -17,6 +17,45 @@ export interface MadePackage {
   files: { format: PackageFormat; url: string }[];
 }
 
+/** The steps of making a package, in order, with the progress (0–100) each starts at. */
+export const packageSteps = ['evaluate', 'docx', 'xlsx', 'pdf', 'store'] as const;
+export type PackageStep = (typeof packageSteps)[number];
+export const packageStepStart: Record<PackageStep, number> = { evaluate: 0, docx: 10, xlsx: 50, pdf: 70, store: 90 };
+
+/** Each step in words, as the progress bar says it. */
+export const packageStepLabels: Record<PackageStep, string> = {
+  evaluate: 'Evaluating the design',
+  docx: 'Building the Word file',
+  xlsx: 'Building the Excel file',
+  pdf: 'Building the PDF',
+  store: 'Storing the files',
+};
+
+export const packageJobStates = ['queued', 'running', 'done', 'failed'] as const;
+export type PackageJobState = (typeof packageJobStates)[number];
+
+/**
+ * A background job making a large project's package: `POST /api/projects/:id/packages` answers
+ * 202 with it (or with the job already queued or running for the project), and
+ * `GET /api/projects/:id/packages/jobs/:jobId` follows it.
+ */
+export interface PackageJob {
+  id: string;
+  state: PackageJobState;
+  /** 0–100. */
+  progress: number;
+  /** The step under way; null while queued. */
+  step: PackageStep | null;
+  /** The package made, once done. */
+  package?: MadePackage;
+  /** Why it failed, in words, once failed. */
+  error?: string;
+}
+
+export interface PackageJobAnswer {
+  job: PackageJob;
+}
+
 /** One revision of `GET /api/projects/:id/packages`, oldest first. */
 export interface PackageRevision {
   id: string;

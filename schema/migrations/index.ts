@@ -25,6 +25,8 @@ import * as invitations from './20261203003000_invitations.js';
 import * as packageRevisions from './20261203005000_package_revisions.js';
 import * as fieldTests from './20261203006000_field_tests.js';
 import * as luminaireCutSheets from './20261203007000_luminaire_cut_sheets.js';
+import * as packageJobs from './20261203009000_package_jobs.js';
+import * as exteriorScheduleSettings from './20261203011000_exterior_schedule_settings.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -59,6 +61,8 @@ const migrations: Record<string, Migration> = {
   '20261203005000_package_revisions': packageRevisions,
   '20261203006000_field_tests': fieldTests,
   '20261203007000_luminaire_cut_sheets': luminaireCutSheets,
+  '20261203009000_package_jobs': packageJobs,
+  '20261203011000_exterior_schedule_settings': exteriorScheduleSettings,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { createExteriorApplication, createLuminaireType, createSpaces } from '../../service/src/design/design.repository.js';
+import { saveScheduleSettings } from '../../service/src/exterior-schedule/schedule-settings.repository.js';
 import { exteriorApplicationInputSchema, luminaireTypeInputSchema, spaceInputSchema } from '../../service/src/design/design.schema.js';
 import { demoProjectName } from './demo-data.js';
 import { demoExterior, demoLuminaireTypes, demoSetup, demoSpaces } from './demo-project.js';
@@ -32,6 +33,14 @@ export async function seed(knex: Knex): Promise<void> {
       engineerId,
     );
   }
+  // The schedule the exterior controls above describe: set back from 11 p.m. to 6 a.m., by 50 %.
+  await saveScheduleSettings(
+    knex,
+    project.id,
+    { onMinutesBeforeSunset: 10, offMinutesAfterSunrise: 10, setback: { start: '23:00', end: '06:00', reductionPercent: 50 } },
+    0,
+    engineerId,
+  );
 }
 
 function exteriorControls(key: string) {

@@ -31,6 +31,7 @@ import { exteriorScheduleRouter } from './exterior-schedule/exterior-schedule.ro
 import { reviewDeskRouter, reviewItemsRouter } from './review/review-items.routes.js';
 import { packageRouter } from './package/package.routes.js';
 import { fieldTestsRouter } from './field-tests/field-tests.routes.js';
+import type { PackageJobs } from './package/package-jobs.js';
 import { s3Storage, type FileStorage } from './package/storage.js';
 import { verifyRouter } from './package/verify.routes.js';
 import { ProjectChanges } from './live/project-changes.js';
@@ -47,6 +48,8 @@ export interface AppDeps {
   mailQueued?: () => void;
   /** Where package files are kept; the S3 bucket the settings name when not given. */
   storage?: FileStorage;
+  /** The background jobs that make large packages (started beside the mail sender); without them every package is made at once. */
+  packageJobs?: PackageJobs;
 }
 
 /** The connection the change listener opens: the same database as the pool's. */
@@ -61,6 +64,7 @@ export function createApp({
   changes = new ProjectChanges(connectionOf(db), logger),
   mailQueued = () => {},
   storage = s3Storage(config),
+  packageJobs,
 }: AppDeps): Express {
   const app = express();
   app.locals['changes'] = changes;
@@ -142,7 +146,10 @@ export function createApp({
   api.use('/projects/:projectId', reviewItemsRouter(db));
   api.use('/review-desk', reviewDeskRouter(db));
   api.use('/projects/:projectId', fieldTestsRouter(db));
-  api.use('/projects/:projectId', packageRouter(db, storage, { appUrl: config.APP_URL, mailQueued }));
+  api.use(
+    '/projects/:projectId',
+    packageRouter(db, storage, { appUrl: config.APP_URL, mailQueued, jobs: packageJobs, jobMinSpaces: config.PACKAGE_JOB_MIN_SPACES }),
+  );
   api.use('/projects/:projectId', liveRouter(db, changes));
   api.use('/evaluate', evaluateRouter(db));
   api.use('/openapi.json', openApiRouter());

@@ -95,6 +95,8 @@ const configSchema = z
       .optional()
       .refine((zone) => zone === undefined || zone === '' || knownTimeZone(zone), 'expected a time zone name such as America/Chicago'),
     REVIEW_DIGEST_CHECK_MINUTES: z.coerce.number().positive().max(1440).default(15),
+    /** Packages of projects with at least this many spaces are made by a background job (pg-boss); smaller ones at once. */
+    PACKAGE_JOB_MIN_SPACES: z.coerce.number().int().min(1).max(1_000_000).default(500),
     /**
      * Where submittal package files are kept: an S3 bucket. Unset endpoint: AWS's own for the region.
      * `npm start` and the tests run a local S3-compatible server on loopback and point these at it.

@@ -4,8 +4,9 @@
  * target and exits non-zero when one is missed. Timings vary with the machine; targets are set
  * for the 2-core machines the project runs on, with room to spare.
  */
+import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -21,6 +22,8 @@ import { createDatabase } from '../../service/src/db/database.js';
 import { createLuminaireType, createSpaces } from '../../service/src/design/design.repository.js';
 import { luminaireTypeInputSchema, spaceInputSchema } from '../../service/src/design/design.schema.js';
 import { projectDocument } from '../../service/src/design/project-document.js';
+import type { PackageInput } from '../../service/src/package/package-input.js';
+import { getProjectDetail } from '../../service/src/projects/projects.repository.js';
 import { freePort, startCluster } from '../../service/ops/postgres.mjs';
 import { launchBrowser, serve, webDist } from '../support/browser.js';
 import { existsSync } from 'node:fs';
@@ -131,6 +134,44 @@ async function browserFigures(app: Parameters<typeof serve>[0], projectId: strin
     await browser.close();
     await served.close();
   }
+}
+
+/** Targets of the submittal package's builders, for a 5,000-space project on the 2-core machines. */
+const packageTargets = { xlsx: { name: 'Excel workbook', ms: 3000 }, docx: { name: 'Word package', ms: 8000 }, peakRssMb: 512 };
+
+/**
+ * The Word and Excel builders on the generated project, each in a fresh process
+ * (`package-builder.ts`) so its time and peak memory are its own. `BENCH_PACKAGE_INPUT` names a
+ * file to keep the package input in (for profiling a builder on its own); else it goes with the
+ * bench's folder.
+ */
+function packageFigures(input: PackageInput, folder: string): string[] {
+  const file = process.env['BENCH_PACKAGE_INPUT'] ?? path.join(folder, 'package-input.json');
+  writeFileSync(file, JSON.stringify(input));
+  const rows: string[] = [];
+  for (const format of ['xlsx', 'docx'] as const) {
+    const target = packageTargets[format];
+    const child = spawnSync(process.execPath, ['--import', 'tsx', 'test/bench/package-builder.ts', file, format], {
+      encoding: 'utf8',
+      maxBuffer: 1024 * 1024,
+    });
+    if (child.status !== 0) {
+      failed = true;
+      rows.push(
+        `MISS ${target.name}, ${spaceCount} spaces: the builder failed (${child.stderr.trim().split('\n').at(-1) ?? 'no message'})`,
+      );
+      continue;
+    }
+    const figures = JSON.parse(child.stdout.trim().split('\n').at(-1)!) as { ms: number; peakRssMb: number; bytes: number };
+    const timeOk = figures.ms <= target.ms;
+    const memoryOk = figures.peakRssMb <= packageTargets.peakRssMb;
+    if (!timeOk || !memoryOk) failed = true;
+    rows.push(
+      `${timeOk ? 'ok  ' : 'MISS'} ${target.name}, ${spaceCount} spaces: built in ${figures.ms.toFixed(0)} ms (target ${target.ms} ms), ${(figures.bytes / 1e6).toFixed(1)} MB`,
+      `${memoryOk ? 'ok  ' : 'MISS'} ${target.name}, ${spaceCount} spaces: peak memory of its process ${figures.peakRssMb.toFixed(0)} MB (target ${packageTargets.peakRssMb} MB)`,
+    );
+  }
+  return rows;
 }
 
 const baseDir = mkdtempSync(path.join(os.tmpdir(), 'allowlight-bench-pg-'));
@@ -276,6 +317,22 @@ try {
     if (!ok) failed = true;
     rows.push(`${ok ? 'ok  ' : 'MISS'} ${measure.name}: median ${ms.toFixed(0)} ms of ${repeats} (target ${measure.targetMs} ms)`);
   }
+  const detail = await getProjectDetail(db, project!.id, 'engineer');
+  const checked = validateDocument(document, edition);
+  if (!checked.valid) throw new Error(JSON.stringify(checked.problems.slice(0, 3)));
+  const fingerprint = randomBytes(32).toString('hex');
+  rows.push(
+    ...packageFigures(
+      {
+        project: detail,
+        document: checked.document,
+        result: evaluate(checked.document, edition),
+        revision: { number: 1, fingerprint, madeAt: new Date().toISOString(), madeBy: 'Bench Engineer', draft: true },
+        history: [],
+      },
+      baseDir,
+    ),
+  );
   if (existsSync(path.join(webDist, 'index.html'))) {
     rows.push(...(await browserFigures(app, project!.id)));
   } else {

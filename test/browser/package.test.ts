@@ -6,6 +6,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vi
 import { testApp } from '../support/app.js';
 import { launchBrowser, outputDir, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
+import { pdfPageScreenshots } from '../support/pdf-pages.js';
 import { startTestS3, type TestS3 } from '../support/s3.js';
 
 let database: TestDatabase;
@@ -102,5 +103,12 @@ describe('the Package page', { timeout: 120_000 }, () => {
     // Word files are zip packages: "PK" first (ECMA-376 Part 2, Open Packaging Conventions).
     expect(word.bytes.subarray(0, 2).toString()).toBe('PK');
     await browser.screenshot('package-page-contractor');
+    const pdf = await download(page, card, 'PDF');
+    // The first two pages of the PDF as pdf.js draws them (pdfjs-dist, the reader Firefox uses).
+    const { files, texts } = await pdfPageScreenshots(browser.context, pdf.bytes, [1, 2], 'package-pdf-page');
+    expect(files).toHaveLength(2);
+    expect(texts[0]).toContain('Alder Bay Library & Makerspace');
+    expect(texts.join(' ')).not.toContain('DRAFT');
+    for (const file of files) expect(readFileSync(file).length).toBeGreaterThan(10_000);
   });
 });

@@ -4,6 +4,7 @@ import {
   defaultScheduleSettings,
   exteriorSchedule,
   exteriorScheduleSummary,
+  spansMidnightToSix,
   yearRange,
   type SchedulePlace,
   type ScheduleDay,
@@ -271,5 +272,20 @@ describe('bounds', () => {
     ).toThrow();
     expect(() => exteriorSchedule({ ...newYork, timeZone: 'Mars/Olympus' }, { from: '2026-01-01', days: 1 })).toThrow();
     expect(() => exteriorSchedule(newYork, { from: '2026-02-30', days: 1 })).toThrow();
+  });
+});
+
+describe('spansMidnightToSix', () => {
+  // The night hours of the setback: from midnight to 6 a.m. (IECC C405.2.7.3; 90.1 §9.4.1.4).
+  it('takes a window that covers midnight to 6 a.m., across midnight or from it', () => {
+    expect(spansMidnightToSix({ start: '00:00', end: '06:00' })).toBe(true);
+    expect(spansMidnightToSix({ start: '23:00', end: '06:00' })).toBe(true);
+    expect(spansMidnightToSix({ start: '22:00', end: '07:30' })).toBe(true);
+  });
+  it('refuses one that starts after midnight, ends before six, or is a daytime window', () => {
+    expect(spansMidnightToSix({ start: '00:30', end: '06:00' })).toBe(false);
+    expect(spansMidnightToSix({ start: '23:00', end: '05:59' })).toBe(false);
+    expect(spansMidnightToSix({ start: '06:00', end: '00:00' })).toBe(false);
+    expect(spansMidnightToSix({ start: '01:00', end: '05:00' })).toBe(false);
   });
 });

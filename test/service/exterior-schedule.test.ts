@@ -108,7 +108,7 @@ describe('GET /api/projects/:id/exterior-schedule', () => {
 
   it('is closed to a non-member', async () => {
     const response = await contractor.agent.get(`/api/projects/${privateId}/exterior-schedule`);
-    expect(response.status).toBe(403);
+    expect(response.status).toBe(404);
   });
 });
 
@@ -156,5 +156,119 @@ describe('GET /api/projects/:id/exterior-schedule/summary', () => {
   it('refuses a year out of range', async () => {
     const response = await engineer.agent.get(`/api/projects/${demoId}/exterior-schedule/summary?year=99999`);
     expect(response.status).toBe(400);
+  });
+});
+
+interface Check {
+  check: 'daylight-off' | 'setback';
+  applicationId: string;
+  label: string;
+  status: string;
+  section?: string;
+  words: string;
+}
+
+describe('the project’s saved schedule', () => {
+  let kioskApplicationId: string;
+
+  beforeAll(async () => {
+    // IECC 2021 sets back parking lots (C405.2.7.3, code table in reference/iecc-2021) and asks facades off (C405.2.7.2).
+    const parking = await engineer.agent
+      .post(`/api/projects/${privateId}/exterior-applications`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ key: 'parking-lots-and-drives', quantity: '4000', installedWatts: '300' });
+    expect(parking.status).toBe(201);
+    kioskApplicationId = parking.body.id;
+    const facade = await engineer.agent
+      .post(`/api/projects/${privateId}/exterior-applications`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({
+        key: 'building-facades',
+        quantity: '200',
+        installedWatts: '40',
+        controls: [{ strategy: 'exterior-facade-landscape-off', provided: false, exceptionReason: 'security-or-emergency-continuous' }],
+      });
+    expect(facade.status).toBe(201);
+  });
+
+  const checksOf = async (query = '') => {
+    const response = await engineer.agent.get(`/api/projects/${privateId}/exterior-schedule/summary?year=2026${query}`);
+    expect(response.status).toBe(200);
+    return response.body.checks as Check[];
+  };
+  const parkingSetback = (checks: Check[]) =>
+    checks.find((check) => check.applicationId === kioskApplicationId && check.check === 'setback')!;
+
+  it('runs on the defaults until the engineer saves one, and the demo runs the one its controls describe', async () => {
+    const fresh = await engineer.agent.get(`/api/projects/${privateId}/exterior-schedule/settings`);
+    expect(fresh.body).toMatchObject({
+      saved: false,
+      version: 0,
+      settings: { onMinutesBeforeSunset: 10, offMinutesAfterSunrise: 10, setback: { start: '00:00', end: '06:00' } },
+    });
+    const demo = await contractor.agent.get(`/api/projects/${demoId}/exterior-schedule/settings`);
+    expect(demo.body).toMatchObject({ saved: true, settings: { setback: { start: '23:00', end: '06:00', reductionPercent: 50 } } });
+  });
+
+  it('checks the daylight shutoff and the setback of each application, and carries an exception over', async () => {
+    const checks = await checksOf();
+    const parking = parkingSetback(checks);
+    expect(parking).toMatchObject({ status: 'met', section: 'C405.2.7.3', label: 'Parking lots and drives' });
+    expect(parking.words).toContain('00:00–06:00');
+    const daylight = checks.find((check) => check.applicationId === kioskApplicationId && check.check === 'daylight-off')!;
+    expect(daylight.status).toBe('met');
+    expect(daylight.words).toContain('10 min after sunrise');
+    const facade = checks.find((check) => check.label === 'Building facades' && check.check === 'setback')!;
+    expect(facade.status).toBe('exception');
+    expect(facade.words).toContain('security or emergency area');
+  });
+
+  it('says what is not met and what is to verify, in words', async () => {
+    // IECC 2021 C405.2.7.3 asks for at least 30 % (reference/iecc-2021/control-strategies.json, reductionPercent).
+    const weak = parkingSetback(await checksOf('&reduction=20'));
+    expect(weak.status).toBe('not-met');
+    expect(weak.words).toContain('at least 30 %');
+    const none = parkingSetback(await checksOf('&setback=none'));
+    expect(none.status).toBe('not-met');
+    expect(none.words).toContain('no night setback');
+    const short = parkingSetback(await checksOf('&setbackFrom=01:00&setbackTo=05:00'));
+    expect(short.status).toBe('to-verify');
+    expect(short.words).toContain('does not span midnight to 6 a.m.');
+    const evening = parkingSetback(await checksOf('&setbackFrom=22:00&setbackTo=07:00'));
+    expect(evening.status).toBe('met');
+  });
+
+  it('is saved by the engineer with the version read, refused when stale or from another role, and used by every answer', async () => {
+    const settings = {
+      onMinutesBeforeSunset: 15,
+      offMinutesAfterSunrise: 20,
+      setback: { start: '23:30', end: '06:00', reductionPercent: 40 },
+    };
+    const put = (who: SignedInAgent, version: number, body: object = { settings, version }) =>
+      who.agent.put(`/api/projects/${privateId}/exterior-schedule/settings`).set('X-CSRF-Token', who.csrfToken).send(body);
+    const saved = await put(engineer, 0);
+    expect(saved.status).toBe(200);
+    expect(saved.body).toMatchObject({ saved: true, version: 1, settings, updatedBy: expect.any(String) });
+    const stale = await put(engineer, 0);
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.message).toContain('reload');
+    const bad = await put(engineer, 1, { settings: { ...settings, offMinutesAfterSunrise: 500 }, version: 1 });
+    expect(bad.status).toBe(400);
+    const days = await engineer.agent.get(`/api/projects/${privateId}/exterior-schedule?from=2026-06-21&days=1`);
+    const [day] = days.body as Day[];
+    expect((Date.parse(day!.off!) - Date.parse(day!.sunrise!)) / 60_000).toBe(20);
+    expect(day!.setbackStart).toBe('2026-06-21T23:30:00-07:00');
+    expect(parkingSetback(await checksOf()).words).toContain('by 40 %');
+    const history = await engineer.agent.get(`/api/projects/${privateId}/history`);
+    expect(history.body.entries[0]).toMatchObject({ entity: 'exterior-schedule', action: 'create', after: settings });
+  });
+
+  it('is closed to the contractor for writing and to non-members for reading', async () => {
+    const demoContractor = await contractor.agent
+      .put(`/api/projects/${demoId}/exterior-schedule/settings`)
+      .set('X-CSRF-Token', contractor.csrfToken)
+      .send({ settings: { onMinutesBeforeSunset: 10, offMinutesAfterSunrise: 10, setback: null }, version: 1 });
+    expect(demoContractor.status).toBe(403);
+    expect((await contractor.agent.get(`/api/projects/${privateId}/exterior-schedule/settings`)).status).toBe(404);
   });
 });

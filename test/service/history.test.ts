@@ -187,7 +187,7 @@ describe('the audit trail', () => {
       method: 'space-by-space',
       units: 'ip',
     });
-    expect((await reviewer.agent.get(`/api/projects/${outsider.body.id}/history`)).status).toBe(403);
+    expect((await reviewer.agent.get(`/api/projects/${outsider.body.id}/history`)).status).toBe(404);
   });
 });
 
@@ -257,7 +257,7 @@ describe('archiving a project', () => {
       units: 'ip',
     });
     const id = target.body.id;
-    expect((await write(contractor, 'post', `/api/projects/${id}/archive`)).status).toBe(403);
+    expect((await write(contractor, 'post', `/api/projects/${id}/archive`)).status).toBe(404);
     const archived = await write(engineer, 'post', `/api/projects/${id}/archive`);
     expect(archived.status).toBe(200);
     expect(archived.body.archivedAt).toEqual(expect.any(String));

@@ -180,7 +180,7 @@ describe('the project change stream', () => {
 
   it('is for members only', async () => {
     const outsider = await fetch(`${base}/api/projects/${projectId}/events`, { headers: { Cookie: contractor.cookie } });
-    expect(outsider.status).toBe(403);
+    expect(outsider.status).toBe(404);
     const nobody = await fetch(`${base}/api/projects/${projectId}/events`);
     expect(nobody.status).toBe(401);
   });

@@ -15,6 +15,7 @@ import { orderedSpaces, withUnits } from '../../service/src/package/package-word
 import { getProjectDetail } from '../../service/src/projects/projects.repository.js';
 import { demoProjectName } from '../../schema/seeds/demo-data.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
+import { recomputeWorkbook, type RecomputedCell } from '../support/workbook-formulas.js';
 
 let database: TestDatabase;
 let input: PackageInput;
@@ -126,12 +127,6 @@ function cached(cell: ExcelJS.Cell): number {
   return Number(value.result);
 }
 
-function numberIn(cell: ExcelJS.Cell): number {
-  const value = cell.value;
-  if (typeof value === 'number') return value;
-  return cached(cell);
-}
-
 /** The value cell (column B) of the first row labelled `label` at or after the row labelled `after`. */
 function summaryCell(sheet: ExcelJS.Worksheet, after: string, label: string): ExcelJS.Cell {
   let seen = false;
@@ -141,6 +136,29 @@ function summaryCell(sheet: ExcelJS.Worksheet, after: string, label: string): Ex
     if (seen && text === label) return sheet.getCell(row, 2);
   }
   throw new Error(`no “${label}” after “${after}” on the summary`);
+}
+
+function recomputedIn(cells: RecomputedCell[]): (sheet: string, address: string) => number {
+  const byAddress = new Map(cells.map((cell) => [`${cell.sheet}!${cell.address}`, cell.recomputed]));
+  return (sheet, address) => {
+    const value = byAddress.get(`${sheet}!${address}`);
+    if (typeof value !== 'number') throw new Error(`${sheet}!${address} recomputes to no number: ${String(value)}`);
+    return value;
+  };
+}
+
+/**
+ * How far a recomputed figure may lie from the one cached: half a unit in the cached figure's last
+ * decimal, as the engine rounds what it reports, and never more than half its 0.1 W.
+ */
+function cachedRounding(cached: number): number {
+  const decimals = Math.max(1, String(cached).split('.')[1]?.length ?? 0);
+  return 0.5 * 10 ** -decimals + 1e-9;
+}
+
+/** The Summary's exterior allowance cell. */
+function exteriorTotal(sheet: ExcelJS.Worksheet): string {
+  return summaryCell(sheet, 'Exterior lighting power', 'Allowance').address;
 }
 
 function tableNames(sheet: ExcelJS.Worksheet): string[] {
@@ -268,15 +286,55 @@ describe('the Word compliance package', () => {
       expect(draft.body).not.toContain(code);
     }
   });
+
+  it('writes its table rows as the very markup docx writes for them, text escaped', async () => {
+    // A name with every character XML escapes, and one XML 1.0 cannot hold (dropped: docx would write it and break the file).
+    const name = `Lobby & <Stair> "A" 'B'\u0007`;
+    const spaces = input.result.interior.spaces.map((space, index) => (index === 0 ? { ...space, name } : space));
+    const named = { ...input, result: { ...input.result, interior: { ...input.result.interior, spaces } } };
+    const documentXml = async (buffer: Buffer) => (await JSZip.loadAsync(buffer)).file('word/document.xml')!.async('string');
+    const fast = await documentXml(await buildCompliancePackage(named));
+    const reference = await documentXml(await buildCompliancePackage(named, { tablesViaDocx: true }));
+    expect(fast).toContain('Lobby &amp; &lt;Stair&gt; &quot;A&quot; &apos;B&apos;</w:t>');
+    expect(fast).not.toContain('\u0007');
+    expect(fast).not.toContain('TableBodyRows');
+    expect(fast).toBe(reference.replace('\u0007', ''));
+  });
 });
 
 describe('the Excel compliance workbook', () => {
   let workbook: ExcelJS.Workbook;
   let result: EvaluationResult;
 
+  let formulas: RecomputedCell[];
+  /** A cell's value as the formula engine recomputed it from the workbook's entered figures. */
+  let recomputed: (sheet: string, address: string) => number;
+
   beforeAll(async () => {
     result = input.result;
-    workbook = await readWorkbook(await buildComplianceWorkbook(input));
+    const file = await buildComplianceWorkbook(input);
+    workbook = await readWorkbook(file);
+    formulas = await recomputeWorkbook(workbook, file);
+    recomputed = recomputedIn(formulas);
+  });
+
+  it('recomputes every formula with a formula engine to the value cached in the file', () => {
+    // fast-formula-parser is the engine (its README: an Excel formula parser and evaluator); see test/support/workbook-formulas.ts.
+    expect(formulas.length).toBeGreaterThan(100);
+    const used = new Set(formulas.flatMap((cell) => [...cell.formula.matchAll(/([A-Z]+)\(/g)].map((match) => match[1])));
+    expect([...used].sort()).toEqual(['COUNTIF', 'IF', 'SUM', 'SUMIFS']);
+    expect(formulas.some((cell) => /![$A-Z]+\d/.test(cell.formula))).toBe(true);
+    for (const cell of formulas) {
+      const where = `${cell.sheet}!${cell.address} ${cell.formula}`;
+      expect(cell.recomputed, where).not.toBeInstanceOf(Error);
+      expect(cell.cached, `${where} has a cached value`).toBeDefined();
+      if (typeof cell.cached === 'number') {
+        expect(typeof cell.recomputed, where).toBe('number');
+        expect(Math.abs((cell.recomputed as number) - cell.cached), where).toBeLessThanOrEqual(cachedRounding(cell.cached));
+      } else {
+        expect(cell.recomputed, where).toBe(cell.cached);
+      }
+    }
   });
 
   it('has the eight sheets, each with its header row frozen', () => {
@@ -317,9 +375,9 @@ describe('the Excel compliance workbook', () => {
       const allowance = sheet.getCell(row, 8);
       expect(formulaOf(allowance)).toBe(`E${row}*F${row}+G${row}`);
       expect(cached(allowance)).toBe(Number(space.allowanceW));
-      // The formula's inputs recompute the engine's allowance to its reported 0.1 W.
-      const recomputed = numberIn(sheet.getCell(row, 5)) * numberIn(sheet.getCell(row, 6)) + numberIn(sheet.getCell(row, 7));
-      expect(Math.abs(recomputed - Number(space.allowanceW))).toBeLessThanOrEqual(0.05 + 1e-9);
+      // The formula engine recomputes the engine's allowance and installed watts to their reported 0.1 W.
+      expect(Math.abs(recomputed('Spaces', `H${row}`) - Number(space.allowanceW))).toBeLessThanOrEqual(0.05 + 1e-9);
+      expect(Math.abs(recomputed('Spaces', `J${row}`) - Number(space.installedW))).toBeLessThanOrEqual(0.05 + 1e-9);
       const installed = sheet.getCell(row, 10);
       expect(formulaOf(installed)).toMatch(new RegExp(`^SUMIFS\\(Counts!\\$H\\$2:\\$H\\$\\d+,Counts!\\$A\\$2:\\$A\\$\\d+,A${row},`));
       expect(cached(installed)).toBe(Number(space.installedW));
@@ -343,7 +401,7 @@ describe('the Excel compliance workbook', () => {
       expect(sheet.getCell(row, 4).value).toBe(line.tag);
       expect(formulaOf(sheet.getCell(row, 8))).toBe(`F${row}*G${row}`);
       expect(cached(sheet.getCell(row, 8))).toBe(Number(line.watts));
-      if (line.use !== 'exempt') installed += numberIn(sheet.getCell(row, 6)) * numberIn(sheet.getCell(row, 7));
+      if (line.use !== 'exempt') installed += recomputed('Counts', `H${row}`);
     });
     expect(Math.abs(installed - Number(result.interior.installedW))).toBeLessThanOrEqual(0.05 + 1e-9);
     expect(sheet.getCell(2, 8).numFmt).toBe('#,##0 "W"');
@@ -365,16 +423,10 @@ describe('the Excel compliance workbook', () => {
     expect((verdict.value as ExcelJS.CellFormulaValue).result).toBe('Within allowance');
     expect(summaryCell(sheet, 'Result', 'Overall').value).toBe('Complies');
 
-    // The spaces' own allowances, recomputed from their area and LPD cells, add up to the engine's total.
-    const spaces = workbook.getWorksheet('Spaces')!;
-    let total = 0;
-    orderedSpaces(result).forEach((space, index) => {
-      if (space.lighting === 'unlit') return;
-      const row = 2 + index;
-      total += numberIn(spaces.getCell(row, 5)) * numberIn(spaces.getCell(row, 6)) + numberIn(spaces.getCell(row, 7));
-    });
-    total += numberIn(summaryCell(sheet, 'Interior lighting power', 'Retail display adder used (once per building)'));
-    expect(Math.abs(total - Number(result.interior.allowanceW))).toBeLessThanOrEqual(0.05 + 1e-9);
+    // The totals as the formula engine recomputes them from the spaces' areas, LPDs and counts are the engine's.
+    expect(Math.abs(recomputed('Summary', allowance.address) - Number(result.interior.allowanceW))).toBeLessThanOrEqual(0.05 + 1e-9);
+    expect(Math.abs(recomputed('Summary', installed.address) - Number(result.interior.installedW))).toBeLessThanOrEqual(0.05 + 1e-9);
+    expect(Math.abs(recomputed('Summary', exteriorTotal(sheet)) - Number(result.exterior!.allowanceW))).toBeLessThanOrEqual(0.05 + 1e-9);
 
     const exterior = summaryCell(sheet, 'Exterior lighting power', 'Allowance');
     expect(formulaOf(exterior)).toMatch(/^B\d+\+SUM\(Exterior!\$F\$2:\$F\$\d+\)$/);
@@ -393,6 +445,7 @@ describe('the Excel compliance workbook', () => {
       );
       expect(cached(allowance)).toBe(Number(level.allowanceW));
       expect(cached(sheet.getCell(row, 4))).toBe(Number(level.installedW));
+      expect(Math.abs(recomputed('Summary', allowance.address) - Number(level.allowanceW)), level.level).toBeLessThanOrEqual(0.05 + 1e-9);
     }
   });
 
@@ -425,16 +478,15 @@ describe('the Excel compliance workbook', () => {
     expect(siDocument.valid, JSON.stringify(siDocument.valid ? [] : siDocument.problems)).toBe(true);
     const document = (siDocument as { document: EvaluationDocument }).document;
     const siResult = evaluate(document, tables);
-    const si = await readWorkbook(
-      await buildComplianceWorkbook({ ...input, project: { ...input.project, units: 'si' }, document, result: siResult }),
-    );
+    const siFile = await buildComplianceWorkbook({ ...input, project: { ...input.project, units: 'si' }, document, result: siResult });
+    const si = await readWorkbook(siFile);
+    const siRecomputed = recomputedIn(await recomputeWorkbook(si, siFile));
     const sheet = si.getWorksheet('Spaces')!;
     expect(sheet.getCell(2, 6).numFmt).toBe('0.00 "W/m²"');
     expect(sheet.getCell(2, 5).numFmt).toBe('#,##0.0 "m²"');
     orderedSpaces(siResult).forEach((space, index) => {
       const row = 2 + index;
-      const recomputed = numberIn(sheet.getCell(row, 5)) * numberIn(sheet.getCell(row, 6)) + numberIn(sheet.getCell(row, 7));
-      expect(Math.abs(recomputed - Number(space.allowanceW)), space.name).toBeLessThanOrEqual(0.05 + 1e-9);
+      expect(Math.abs(siRecomputed('Spaces', `H${row}`) - Number(space.allowanceW)), space.name).toBeLessThanOrEqual(0.05 + 1e-9);
       expect(cached(sheet.getCell(row, 8))).toBe(Number(space.allowanceW));
     });
     const summary = si.getWorksheet('Summary')!;

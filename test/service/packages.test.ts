@@ -189,14 +189,14 @@ describe('submittal packages', () => {
     for (const file of final.files) expect((await download(contractor, file.url)).status).toBe(200);
   });
 
-  it('answers a non-member 403 and a revision of another project 404', async () => {
+  it('answers a non-member 404, as for no such project, and a revision of another project 404', async () => {
     const other = await engineer.agent
       .post('/api/projects')
       .set('X-CSRF-Token', engineer.csrfToken)
       .send({ name: 'Harbour Ferry Terminal', edition: 'iecc-2021', method: 'space-by-space', units: 'ip' });
     expect(other.status).toBe(201);
     const outside = await reviewer.agent.get(`/api/projects/${other.body.id}/packages`);
-    expect(outside.status).toBe(403);
+    expect(outside.status).toBe(404);
     const elsewhere = await engineer.agent.get(`/api/projects/${other.body.id}/packages/${final.id}/files/pdf`);
     expect(elsewhere.status).toBe(404);
     expect((await engineer.agent.get(`/api/projects/${projectId}/packages/${final.id}/files/exe`)).status).toBe(404);

@@ -48,11 +48,11 @@ describe('GET /api/projects', () => {
 });
 
 describe('GET /api/projects/:projectId', () => {
-  it('answers 403 to a signed-in user who is not a member', async () => {
+  it('answers 404 to a signed-in user who is not a member, as for no such project', async () => {
     const { agent } = await signIn(app, 'reviewer@alderbay.example');
     const response = await agent.get(`/api/projects/${privateProjectId}`);
-    expect(response.status).toBe(403);
-    expect(response.body.error.code).toBe('forbidden');
+    expect(response.status).toBe(404);
+    expect(response.body.error.code).toBe('not_found');
   });
 
   it('shows the project to a member and to an administrator', async () => {

@@ -30,7 +30,7 @@ const post = (who: SignedInAgent, body: object) =>
 
 describe('project team', () => {
   it('lets the engineer add a reviewer by e-mail, who then sees the project', async () => {
-    expect((await reviewer.agent.get(`/api/projects/${projectId}`)).status).toBe(403);
+    expect((await reviewer.agent.get(`/api/projects/${projectId}`)).status).toBe(404);
     const response = await post(engineer, { email: 'Reviewer@AlderBay.example', role: 'reviewer' });
     expect(response.status).toBe(200);
     expect(response.body.map((member: { role: string }) => member.role).sort()).toEqual(['engineer', 'reviewer']);
@@ -63,6 +63,6 @@ describe('project team', () => {
     expect(changed.body.find((member: { email: string }) => member.email === 'reviewer@alderbay.example').role).toBe('contractor');
     const removed = await admin.agent.delete(`/api/projects/${projectId}/members/${reviewer.user.id}`).set('X-CSRF-Token', admin.csrfToken);
     expect(removed.status).toBe(200);
-    expect((await reviewer.agent.get(`/api/projects/${projectId}`)).status).toBe(403);
+    expect((await reviewer.agent.get(`/api/projects/${projectId}`)).status).toBe(404);
   });
 });

@@ -113,6 +113,16 @@ describe('the demo project’s test plan', () => {
     }
   });
 
+  it('names the project’s saved exterior schedule in the exterior tests', async () => {
+    // The demo's schedule (schema/seeds/02_demo_project.ts): set back from 23:00 to 06:00 by 50 %, on and off 10 min from sunset and sunrise.
+    const plan = await planFor(contractor);
+    const setback = plan.items.find((item) => item.kind === 'exterior-setback' && !item.title.includes('facade'))!;
+    expect(setback.expected).toContain('reduced by 50 % through the whole window (23:00 to 06:00)');
+    expect(setback.steps.join(' ')).toContain('a minute before 23:00');
+    const daylight = plan.items.find((item) => item.kind === 'exterior-daylight-off')!;
+    expect(daylight.expected).toContain('off 10 min after sunrise');
+  });
+
   it('draws the same sample on every read', async () => {
     const first = (await planFor(engineer)).items.filter((item) => item.sample).map((item) => item.id);
     const again = (await planFor(contractor)).items.filter((item) => item.sample).map((item) => item.id);

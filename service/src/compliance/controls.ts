@@ -48,7 +48,7 @@ export interface DaylightTrigger {
 /** The general exceptions free a space from every interior control requirement (90.1 §9.4.1.1, IECC C405.2). */
 const generalExceptions = new Set<string>(['security-or-emergency-continuous', 'exit-stairway-ramp-passageway', 'egress-normally-off']);
 
-const exceptionWords: Record<NonNullable<ProvidedControl['exceptionReason']>, string> = {
+export const controlExceptionWords: Record<NonNullable<ProvidedControl['exceptionReason']>, string> = {
   'security-or-emergency-continuous': 'security or emergency area that must stay lit continuously',
   'exit-stairway-ramp-passageway': 'interior exit stairway, exit ramp or exit passageway',
   'egress-normally-off': 'emergency egress lighting that is normally off',
@@ -427,7 +427,7 @@ export function resolveControls(
     const check = checks.get(line.strategy)!;
     const entry = provided.find((control) => control.strategy === line.strategy);
     const exception = entry?.exceptionReason;
-    const claimed = exception === undefined ? '' : `exception claimed: ${exceptionWords[exception]}`;
+    const claimed = exception === undefined ? '' : `exception claimed: ${controlExceptionWords[exception]}`;
     const claimedWords = entry?.exceptionNote ? `${claimed} (${entry.exceptionNote})` : claimed;
     const verified = (strategy?.provenance.verified ?? false) && line.requirement !== 'to-verify';
     const base = { strategy: line.strategy, label, requirement: line.requirement, section, verified };
@@ -435,7 +435,7 @@ export function resolveControls(
       return { ...base, met: null, status: 'not-required', reason: `Not required: ${line.why}.` };
     }
     if (general?.exceptionReason !== undefined && check.state !== 'ok') {
-      const words = `exception claimed for every control of this space: ${exceptionWords[general.exceptionReason]}`;
+      const words = `exception claimed for every control of this space: ${controlExceptionWords[general.exceptionReason]}`;
       return {
         ...base,
         met: null,

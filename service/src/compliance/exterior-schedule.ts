@@ -1,6 +1,7 @@
 import type {
   ApplicationEnergy,
   ExteriorScheduleSettings,
+  ScheduleCheck,
   ScheduleDay,
   ScheduleSummary,
   SetbackRule,
@@ -9,6 +10,8 @@ import type {
 import SunCalc from 'suncalc';
 import { z } from 'zod';
 import type { RequirementCode } from '../../../contract/editions.js';
+import { controlExceptionWords } from './controls.js';
+import type { ProvidedControl } from './document.js';
 import type { EditionData } from './edition-data.js';
 import { dec, text, type Dec } from './numbers.js';
 
@@ -361,6 +364,8 @@ export interface ScheduledApplication {
   description?: string;
   /** Installed watts, an exact decimal string. */
   installedWatts: string;
+  /** The controls the design shows for the application; an exception claimed there carries over to the schedule's checks. */
+  controls?: readonly Pick<ProvidedControl, 'strategy' | 'provided' | 'exceptionReason'>[];
 }
 
 function hoursText(minutes: number): string {
@@ -454,6 +459,159 @@ function setbackChoice(key: string, tables: EditionData, settings: ScheduleSetti
   };
 }
 
+/** Minutes after midnight of a local HH:MM. */
+function clockMinutes(clock: string): number {
+  return Number(clock.slice(0, 2)) * 60 + Number(clock.slice(3, 5));
+}
+
+/**
+ * Whether the setback window (an end at or before its start is the next morning) spans midnight to
+ * 6 a.m., the night hours both families name for the setback (IECC C405.2.7.3; 90.1 §9.4.1.4: from
+ * not later than midnight, or business closing, to not earlier than 6 a.m., or business opening).
+ */
+export function spansMidnightToSix(window: { start: string; end: string }): boolean {
+  const start = clockMinutes(window.start);
+  const length = (clockMinutes(window.end) - start + 1440) % 1440;
+  const toMidnight = (1440 - start) % 1440;
+  return toMidnight + 360 <= length;
+}
+
+function provided(application: ScheduledApplication, strategies: readonly string[]) {
+  return application.controls?.find((control) => strategies.includes(control.strategy));
+}
+
+/**
+ * The exterior control requirements the schedule answers, for each application: the daylight
+ * shutoff (the astronomical clock turns the lights off after sunrise) and the night setback (the
+ * window spans midnight to 6 a.m. and cuts at least the edition's reduction, or turns facade and
+ * landscape lighting off). An exception the design claims for the control is carried over in words;
+ * where the edition's tables leave the requirement open, the check says what to verify.
+ */
+export function scheduleChecks(
+  settings: ScheduleSettings,
+  applications: readonly ScheduledApplication[],
+  tables: EditionData,
+): ScheduleCheck[] {
+  const strategy = (key: string) => tables.controlStrategies.find((entry) => entry.key === key);
+  const daylightOff = strategy('exterior-daylight-off');
+  const setbackStrategy = strategy('exterior-setback');
+  const checks: ScheduleCheck[] = [];
+  for (const application of applications) {
+    const row = tables.exteriorApplications.find((entry) => entry.key === application.key);
+    const label = row?.label ?? 'An application not in this edition';
+    const base = { applicationId: application.id, label };
+    if (!row) {
+      checks.push({
+        ...base,
+        check: 'setback',
+        status: 'to-verify',
+        words: 'To verify: this application is not in the edition’s exterior table, so its daylight shutoff and setback cannot be checked.',
+        verified: false,
+      });
+      continue;
+    }
+    const exceptionOf = (strategies: readonly string[]) => {
+      const control = provided(application, strategies);
+      return control?.exceptionReason ? controlExceptionWords[control.exceptionReason] : undefined;
+    };
+
+    const daylightCode = row.controls['exterior-daylight-off'];
+    const daylightException = exceptionOf(['exterior-daylight-off']);
+    const daylightVerified = row.provenance.verified && (daylightOff?.provenance.verified ?? false);
+    if (daylightCode === undefined || daylightCode === 'not-required') {
+      checks.push({
+        ...base,
+        check: 'daylight-off',
+        status: 'not-required',
+        words: 'The edition asks no daylight shutoff of this application.',
+        verified: row.provenance.verified,
+      });
+    } else if (daylightException) {
+      checks.push({
+        ...base,
+        check: 'daylight-off',
+        status: 'exception',
+        ...(daylightOff ? { section: daylightOff.section } : {}),
+        words: `Exception claimed in the design: ${daylightException}. The schedule’s daylight shutoff is not counted for it.`,
+        verified: daylightVerified,
+      });
+    } else {
+      const schedule = `The astronomical schedule turns the lights off ${settings.offMinutesAfterSunrise} min after sunrise and on ${settings.onMinutesBeforeSunset} min before sunset`;
+      checks.push({
+        ...base,
+        check: 'daylight-off',
+        status: daylightCode === 'required' ? 'met' : 'to-verify',
+        ...(daylightOff ? { section: daylightOff.section } : {}),
+        words:
+          daylightCode === 'required'
+            ? `${schedule}, so they are off while daylight is present${daylightOff ? ` (${daylightOff.section})` : ''}.`
+            : `${schedule}. To verify: the edition’s tables leave open whether this application needs a daylight shutoff.`,
+        verified: daylightVerified,
+      });
+    }
+
+    const choice = setbackChoice(application.key, tables, settings);
+    const setbackException = exceptionOf(['exterior-setback', 'exterior-facade-landscape-off']);
+    const facadeCode = row.controls['exterior-facade-landscape-off'];
+    const setbackCode = row.controls['exterior-setback'];
+    const requires = facadeCode === 'required' || setbackCode === 'required';
+    const open = facadeCode === 'to-verify' || setbackCode === 'to-verify' || choice.rule === 'to-verify';
+    const section = choice.section ?? setbackStrategy?.section;
+    const setbackBase = { ...base, check: 'setback' as const, ...(section ? { section } : {}), verified: choice.verified };
+    if (!requires && !open) {
+      checks.push({ ...setbackBase, status: 'not-required', words: 'The edition asks no night setback of this application.' });
+      continue;
+    }
+    if (setbackException) {
+      checks.push({
+        ...setbackBase,
+        status: 'exception',
+        words: `Exception claimed in the design: ${setbackException}. The schedule’s setback is not counted for it.`,
+      });
+      continue;
+    }
+    const needs =
+      facadeCode === 'required'
+        ? 'off'
+        : `reduced by at least ${setbackStrategy?.parameters['reductionPercent'] ?? 'the edition’s figure'} %`;
+    if (!settings.setback) {
+      checks.push({
+        ...setbackBase,
+        status: requires ? 'not-met' : 'to-verify',
+        words: requires
+          ? `The schedule has no night setback; ${section ?? 'the edition'} asks for this lighting ${needs} at night.`
+          : 'The schedule has no night setback. To verify: the edition’s tables leave open whether this application needs one.',
+      });
+      continue;
+    }
+    const window = `${settings.setback.start}–${settings.setback.end}`;
+    if (choice.rule === 'to-verify' || !requires) {
+      checks.push({ ...setbackBase, status: 'to-verify', words: `The schedule sets back from ${window}. ${choice.note}` });
+      continue;
+    }
+    const stated = setbackStrategy?.parameters['reductionPercent'];
+    if (choice.rule === 'reduced' && stated !== undefined && dec(choice.percent).lessThan(stated)) {
+      checks.push({
+        ...setbackBase,
+        status: 'not-met',
+        words: `The schedule reduces this lighting by ${choice.percent} % from ${window}; ${section} asks for at least ${stated} %.`,
+      });
+      continue;
+    }
+    const does = choice.rule === 'off' ? 'turns this lighting off' : `reduces this lighting by ${choice.percent} %`;
+    checks.push(
+      spansMidnightToSix(settings.setback)
+        ? { ...setbackBase, status: 'met', words: `The schedule ${does} from ${window}, which spans midnight to 6 a.m. (${section}).` }
+        : {
+            ...setbackBase,
+            status: 'to-verify',
+            words: `The schedule ${does} from ${window}, which does not span midnight to 6 a.m. To verify: ${section} accepts it only if the window runs from business closing to opening (the edition’s text gives the allowance around those hours); check the business hours.`,
+          },
+    );
+  }
+  return checks;
+}
+
 /**
  * The hours and energy of each exterior application over the range (a year: from Jan 1, 365 or
  * 366 days): all its installed watts for the hours the lights are on, less the edition's reduction
@@ -509,6 +667,7 @@ export function exteriorScheduleSummary(
     polarNightDays: days.filter((day) => day.sun === 'sun-never-rises').length,
     polarDays: days.filter((day) => day.sun === 'sun-never-sets').length,
     applications: rows,
+    checks: scheduleChecks(settings, applications, tables),
     totals: {
       installedWatts: total((row) => row.installedWatts),
       kWh: total((row) => row.kWh),

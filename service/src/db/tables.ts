@@ -480,6 +480,21 @@ export interface LuminaireCutSheetRow {
   uploaded_at: Date;
 }
 
+/** A background job making a large project's package (pg-boss carries it; this row is what the route answers). */
+export interface PackageJobRow {
+  id: string;
+  project_id: string;
+  state: 'queued' | 'running' | 'done' | 'failed';
+  step: 'evaluate' | 'docx' | 'xlsx' | 'pdf' | 'store' | null;
+  progress: number;
+  revision_id: string | null;
+  /** Why it failed, in words for people. */
+  error: string | null;
+  requested_by: string | null;
+  requested_at: Date;
+  finished_at: Date | null;
+}
+
 /** One test of a functional test plan item, kept with every retest (the latest counts); never updated. */
 export interface FieldTestResultRow {
   id: string;
@@ -495,6 +510,16 @@ export interface FieldTestResultRow {
   notes: string | null;
   recorded_by: string | null;
   recorded_at: Date;
+}
+
+/** The exterior schedule a project saved (one row per project; none: the defaults). */
+export interface ExteriorScheduleSettingsRow {
+  project_id: string;
+  /** `scheduleSettingsSchema`'s output, checked again when read. */
+  settings: unknown;
+  version: number;
+  updated_by: string | null;
+  updated_at: Date;
 }
 
 /**
@@ -534,6 +559,8 @@ declare module 'knex/types/tables.js' {
     package_revisions: StoredTable<PackageRevisionRow, 'document' | 'result' | 'files'>;
     field_test_results: StoredTable<FieldTestResultRow>;
     luminaire_cut_sheets: StoredTable<LuminaireCutSheetRow>;
+    exterior_schedule_settings: StoredTable<ExteriorScheduleSettingsRow, 'settings'>;
+    package_jobs: StoredTable<PackageJobRow>;
     audit_log: AuditLogRow;
     invitations: InvitationRow;
     code_editions: CodeTable<CodeEditionRow>;

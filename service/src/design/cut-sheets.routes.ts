@@ -15,15 +15,6 @@ const tooLargeWords = 'The cut sheet is larger than 20 MB. Send a smaller PDF (a
 
 const uploadQuery = z.object({ name: z.string().max(1000).optional() });
 
-/**
- * Anyone who is not on the project (an administrator aside) is told it does not exist, not that
- * they may not see it: a cut sheet's address names the project.
- */
-const membersOnly: RequestHandler = (req, _res, next) => {
-  if (!currentSession(req).user.isAdmin && projectAccess(req).role === null) throw AppError.notFound('No such project.');
-  next();
-};
-
 /** The body, read only up to 20 MB: a declared length over it is refused before a byte is read, and so is a longer stream. */
 function pdfBody(): RequestHandler {
   const raw = express.raw({ type: () => true, limit: cutSheetMaxBytes });
@@ -47,19 +38,19 @@ export function cutSheetsRouter(db: Database, storage: FileStorage): Router {
   const edit = requireProjectAction('edit-design');
   const typeId = (value: string | string[] | undefined) => idParam(value, 'This luminaire type');
 
-  router.get('/cut-sheets', membersOnly, read, async (req, res) => {
+  router.get('/cut-sheets', read, async (req, res) => {
     const { projectId } = projectAccess(req);
     res.json((await listCutSheets(db, projectId)).map((row) => cutSheetView(projectId, row)));
   });
 
-  router.put('/luminaire-types/:typeId/cut-sheet', membersOnly, edit, pdfBody(), async (req, res) => {
+  router.put('/luminaire-types/:typeId/cut-sheet', edit, pdfBody(), async (req, res) => {
     const { projectId } = projectAccess(req);
     const { name } = parse(uploadQuery, req.query);
     const body = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0);
     res.json(await attachCutSheet(db, storage, projectId, typeId(req.params['typeId']), body, name, currentSession(req).user.id));
   });
 
-  router.get('/luminaire-types/:typeId/cut-sheet', membersOnly, read, async (req, res) => {
+  router.get('/luminaire-types/:typeId/cut-sheet', read, async (req, res) => {
     const { projectId } = projectAccess(req);
     const row = await getCutSheet(db, projectId, typeId(req.params['typeId']));
     if (!row) throw AppError.notFound('This luminaire type has no cut sheet on file.');
@@ -70,7 +61,7 @@ export function cutSheetsRouter(db: Database, storage: FileStorage): Router {
     res.send(body);
   });
 
-  router.delete('/luminaire-types/:typeId/cut-sheet', membersOnly, edit, async (req, res) => {
+  router.delete('/luminaire-types/:typeId/cut-sheet', edit, async (req, res) => {
     const { projectId } = projectAccess(req);
     await removeCutSheet(db, storage, projectId, typeId(req.params['typeId']), currentSession(req).user.id);
     res.status(204).end();

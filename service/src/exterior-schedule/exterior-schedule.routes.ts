@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import type { StoredExteriorSchedule } from '../../../contract/exterior-schedule.js';
 import { z } from 'zod';
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import {
@@ -7,6 +8,7 @@ import {
   exteriorScheduleSummary,
   maxScheduleDays,
   schedulePlaceSchema,
+  scheduleSettingsSchema,
   yearRange,
   type SchedulePlace,
   type ScheduleSettings,
@@ -15,8 +17,10 @@ import type { Database } from '../db/database.js';
 import { listExteriorApplications } from '../design/design.repository.js';
 import { Refused } from '../domain-errors.js';
 import { projectAccess, requireProjectAction } from '../http/project-access.js';
+import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
 import { projectSite } from '../projects/projects.repository.js';
+import { saveScheduleSettings, scheduleSettings } from './schedule-settings.repository.js';
 
 const minutes = (what: string) =>
   z.coerce
@@ -53,20 +57,44 @@ const summaryQuerySchema = z.object({
   ...settingsQuery,
 });
 
-function settingsFrom(query: z.output<z.ZodObject<typeof settingsQuery>>): ScheduleSettings {
-  const base = defaultScheduleSettings.setback!;
+/**
+ * The settings an answer uses: the project's saved schedule (or the defaults), each query parameter
+ * given replacing its part, so a setting can be tried before it is saved.
+ */
+function settingsFrom(query: z.output<z.ZodObject<typeof settingsQuery>>, saved: ScheduleSettings): ScheduleSettings {
+  const base = saved.setback ?? defaultScheduleSettings.setback!;
   const start = query.setbackFrom ?? base.start;
   const end = query.setbackTo ?? base.end;
+  const tried = query.setbackFrom !== undefined || query.setbackTo !== undefined || query.reduction !== undefined;
+  if (query.setback === undefined && saved.setback === null && !tried) {
+    return {
+      onMinutesBeforeSunset: query.onBefore ?? saved.onMinutesBeforeSunset,
+      offMinutesAfterSunrise: query.offAfter ?? saved.offMinutesAfterSunrise,
+      setback: null,
+    };
+  }
   if (query.setback !== 'none' && start === end) {
     throw new Refused('The setback must start and end at different times.', [{ path: 'setbackTo', message: 'Choose another end time.' }]);
   }
   return {
-    onMinutesBeforeSunset: query.onBefore ?? defaultScheduleSettings.onMinutesBeforeSunset,
-    offMinutesAfterSunrise: query.offAfter ?? defaultScheduleSettings.offMinutesAfterSunrise,
+    onMinutesBeforeSunset: query.onBefore ?? saved.onMinutesBeforeSunset,
+    offMinutesAfterSunrise: query.offAfter ?? saved.offMinutesAfterSunrise,
     setback:
-      query.setback === 'none' ? null : { start, end, ...(query.reduction !== undefined ? { reductionPercent: query.reduction } : {}) },
+      query.setback === 'none'
+        ? null
+        : { start, end, ...reductionOf(query.reduction ?? (tried ? undefined : saved.setback?.reductionPercent)) },
   };
 }
+
+function reductionOf(percent: number | undefined): { reductionPercent?: number } {
+  return percent === undefined ? {} : { reductionPercent: percent };
+}
+
+const saveSchema = z.strictObject({
+  settings: scheduleSettingsSchema,
+  /** The version read: 0 when the project had no saved schedule. */
+  version: z.number({ error: 'Give the version of the schedule you read.' }).int().min(0).max(2_147_483_647),
+});
 
 /** The site's place, or a refusal in words that sends the engineer to the set-up. */
 async function siteOf(db: Database, projectId: string): Promise<{ place: SchedulePlace; editionId: string | null }> {
@@ -103,20 +131,39 @@ function siteToday(timeZone: string): string {
 /**
  * `GET /api/projects/:projectId/exterior-schedule?from=&days=` (each day's sunrise, sunset, on, off
  * and setback window, local times with the offset) and `…/exterior-schedule/summary?year=` (the
- * year's hours and kWh per exterior application, with and without the setback). Members read.
+ * year's hours and kWh per exterior application, with and without the setback, and the exterior
+ * control requirements the schedule answers). Members read. `GET/PUT …/exterior-schedule/settings`:
+ * the project's saved schedule (the defaults until one is saved); the engineer saves it, under the
+ * design lock, with the version read.
  */
 export function exteriorScheduleRouter(db: Database): Router {
   const router = Router({ mergeParams: true });
+  router.get('/exterior-schedule/settings', requireProjectAction('read'), async (req, res) => {
+    const answer: StoredExteriorSchedule = await scheduleSettings(db, projectAccess(req).projectId);
+    res.json(answer);
+  });
+  router.put('/exterior-schedule/settings', requireProjectAction('edit-design'), async (req, res) => {
+    const input = parse(saveSchema, req.body);
+    const answer: StoredExteriorSchedule = await saveScheduleSettings(
+      db,
+      projectAccess(req).projectId,
+      input.settings,
+      input.version,
+      currentSession(req).user.id,
+    );
+    res.json(answer);
+  });
   router.get('/exterior-schedule', requireProjectAction('read'), async (req, res) => {
     const query = parse(scheduleQuerySchema, req.query);
-    const settings = settingsFrom(query);
-    const { place } = await siteOf(db, projectAccess(req).projectId);
+    const projectId = projectAccess(req).projectId;
+    const settings = settingsFrom(query, (await scheduleSettings(db, projectId)).settings);
+    const { place } = await siteOf(db, projectId);
     res.json(exteriorSchedule(place, { from: query.from ?? siteToday(place.timeZone), days: query.days }, settings));
   });
   router.get('/exterior-schedule/summary', requireProjectAction('read'), async (req, res) => {
     const query = parse(summaryQuerySchema, req.query);
-    const settings = settingsFrom(query);
     const projectId = projectAccess(req).projectId;
+    const settings = settingsFrom(query, (await scheduleSettings(db, projectId)).settings);
     const { place, editionId } = await siteOf(db, projectId);
     if (!editionId) {
       throw new Refused('Choose the code edition in the set-up first: the setback each application needs comes from it.', [
@@ -133,7 +180,7 @@ export function exteriorScheduleRouter(db: Database): Router {
         place,
         yearRange(year),
         settings,
-        applications.map(({ id, key, description, installedWatts }) => ({ id, key, description, installedWatts })),
+        applications.map(({ id, key, description, installedWatts, controls }) => ({ id, key, description, installedWatts, controls })),
         tables,
       ),
     });

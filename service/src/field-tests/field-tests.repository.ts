@@ -1,27 +1,11 @@
 import type { Knex } from 'knex';
+import type { FieldTestRecord, MeasuredValues } from '../../../contract/field-tests.js';
 import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
 import { lockProject } from '../db/project-lock.js';
 import type { ProjectRole } from '../db/tables.js';
 
-export interface MeasuredValues {
-  timeoutMinutes?: string;
-  lightLevel?: string;
-  overrideMinutes?: string;
-}
-
-/** One recorded test of a plan item, as the plan shows it in the item's history. */
-export interface FieldTestRecord {
-  id: string;
-  itemId: string;
-  result: 'pass' | 'fail';
-  measured: MeasuredValues;
-  /** 'fc' or 'lux': the light level's unit, from the project's units when it was recorded. */
-  lightLevelUnit: 'fc' | 'lux' | null;
-  notes: string | null;
-  by: { id: string; name: string } | null;
-  at: string;
-}
+export type { FieldTestRecord, MeasuredValues };
 
 interface ResultRead {
   id: string;

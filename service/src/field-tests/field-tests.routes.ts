@@ -10,8 +10,20 @@ import { notComputedMessage } from '../evaluation/evaluation.service.js';
 import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
-import { listFieldTests, recordFieldTest, type FieldTestRecord } from './field-tests.repository.js';
-import { buildTestPlan, testKindLabels, testKinds, type TestKind, type TestPlanGroup, type TestPlanItem } from './test-plan.js';
+import {
+  testKindLabels,
+  testKinds,
+  type FieldTestRecord,
+  type KindProgress,
+  type RecordedFieldTest,
+  type TestKind,
+  type TestPlanGroup,
+  type TestPlanItemView,
+  type TestPlanView,
+} from '../../../contract/field-tests.js';
+import { scheduleSettings } from '../exterior-schedule/schedule-settings.repository.js';
+import { listFieldTests, recordFieldTest } from './field-tests.repository.js';
+import { buildTestPlan } from './test-plan.js';
 
 /** A measured value: a number (or decimal text) within its range, at most two decimal places. */
 const measuredValue = (what: string, max: string) =>
@@ -50,23 +62,7 @@ const itemIdSchema = z
   .max(300)
   .regex(/^[a-z-]+:[a-z-]+:[A-Za-z0-9._-]+(:\d{1,6})?$/);
 
-interface ItemView extends TestPlanItem {
-  /** The latest test, which counts; absent until the item is tested. */
-  result?: FieldTestRecord;
-  /** Every test of the item, oldest first. */
-  history: FieldTestRecord[];
-}
-
-interface KindProgress {
-  kind: TestKind;
-  label: string;
-  required: number;
-  passed: number;
-  failed: number;
-  untested: number;
-}
-
-function progressOf(items: readonly ItemView[], kind?: TestKind): Omit<KindProgress, 'kind' | 'label'> {
+function progressOf(items: readonly TestPlanItemView[], kind?: TestKind): Omit<KindProgress, 'kind' | 'label'> {
   const required = items.filter((item) => item.required && (kind === undefined || item.kind === kind));
   const passed = required.filter((item) => item.result?.result === 'pass').length;
   const failed = required.filter((item) => item.result?.result === 'fail').length;
@@ -74,18 +70,18 @@ function progressOf(items: readonly ItemView[], kind?: TestKind): Omit<KindProgr
 }
 
 /** The plan of the project as its design now is, with the results recorded so far attached by item id. */
-async function planView(db: Database, projectId: string) {
+async function planView(db: Database, projectId: string): Promise<TestPlanView> {
   const input = await projectDocument(db, projectId);
   const tables = await loadEditionData(db, input.edition);
   if (!tables) throw new Refused('The project’s code edition is not loaded.');
   const outcome = validateDocument(input, tables);
   if (!outcome.valid) throw new Refused(notComputedMessage, outcome.problems);
   const result = evaluate(outcome.document, tables);
-  const records = await listFieldTests(db, projectId);
-  const plan = buildTestPlan(projectId, outcome.document, result, records);
+  const [records, schedule] = await Promise.all([listFieldTests(db, projectId), scheduleSettings(db, projectId)]);
+  const plan = buildTestPlan(projectId, outcome.document, result, records, schedule.settings);
   const byItem = new Map<string, FieldTestRecord[]>();
   for (const record of records) byItem.set(record.itemId, [...(byItem.get(record.itemId) ?? []), record]);
-  const items: ItemView[] = plan.items.map((item) => {
+  const items: TestPlanItemView[] = plan.items.map((item) => {
     const history = byItem.get(item.id) ?? [];
     const latest = history[history.length - 1];
     return { ...item, ...(latest ? { result: latest } : {}), history };
@@ -133,7 +129,8 @@ export function fieldTestsRouter(db: Database): Router {
     const after = await planView(db, projectId);
     const updated = after.items.find((entry) => entry.id === item.id)!;
     const group: TestPlanGroup | undefined = after.groups.find((entry) => entry.itemIds.includes(item.id));
-    res.json({ item: updated, group, notices: after.notices, progress: after.progress });
+    const answer: RecordedFieldTest = { item: updated, ...(group ? { group } : {}), notices: after.notices, progress: after.progress };
+    res.json(answer);
   });
 
   return router;

@@ -1,5 +1,7 @@
+import { testKindLabels, testKinds, type TestKind, type TestPlanGroup, type TestPlanItem } from '../../../contract/field-tests.js';
 import type { EvaluationResult, ControlLine } from '../../../contract/result.js';
 import type { EvaluationDocument, ProvidedControl } from '../compliance/document.js';
+import type { ScheduleSettings } from '../compliance/exterior-schedule.js';
 import { dec } from '../compliance/numbers.js';
 import { areaToSquareFeet } from '../compliance/units.js';
 
@@ -16,26 +18,7 @@ import { areaToSquareFeet } from '../compliance/units.js';
  * so is ASHRAE 90.1's functional testing section (§9.9 in 90.1-2016, 2019 and 2022; §9.4.3 in 2013).
  */
 
-export const testKinds = [
-  'occupant-sensor',
-  'time-switch',
-  'daylight',
-  'light-reduction',
-  'partial-off',
-  'exterior-daylight-off',
-  'exterior-setback',
-] as const;
-export type TestKind = (typeof testKinds)[number];
-
-export const testKindLabels: Record<TestKind, string> = {
-  'occupant-sensor': 'Occupant sensors',
-  'time-switch': 'Time switches',
-  daylight: 'Daylight-responsive controls',
-  'light-reduction': 'Light reduction',
-  'partial-off': 'Automatic partial off',
-  'exterior-daylight-off': 'Exterior daylight off',
-  'exterior-setback': 'Exterior setback and shutoff',
-};
+export { testKindLabels, testKinds, type TestKind, type TestPlanGroup, type TestPlanItem };
 
 /** Which strategy of the design each kind of test checks. */
 const kindOfStrategy: Partial<Record<string, TestKind>> = {
@@ -89,38 +72,6 @@ export function sensorType(device: string | undefined): string {
     .trim()
     .replace(/\s+/g, ' ');
   return folded === '' ? 'sensor type not recorded' : folded;
-}
-
-export interface TestPlanItem {
-  /** Stable: the kind, the strategy, the space or application key (and the room, for a grouped entry). */
-  id: string;
-  kind: TestKind;
-  /** What is tested, in words: “Occupant sensor in 201 Makerspace”. */
-  title: string;
-  spaceIds: string[];
-  /** The exterior application's key, for an exterior item. */
-  applicationKey?: string;
-  /** The occupant sensors' combination (sensor type and space geometry) this item belongs to. */
-  combination?: string;
-  /** Chosen for the sample (every item that is not an occupant sensor in a sampled combination is). */
-  sample: boolean;
-  /** Must be tested: in the sample, or its combination widened after failures. */
-  required: boolean;
-  steps: string[];
-  expected: string;
-  section: string;
-}
-
-export interface TestPlanGroup {
-  kind: TestKind;
-  /** In words: “ceiling dual technology occupant sensor · Office — enclosed · up to 300 ft²”, or “each one”. */
-  combination: string;
-  population: number;
-  sampleSize: number;
-  widened: boolean;
-  /** Why the sample widened, or how it was chosen, in words. */
-  words: string;
-  itemIds: string[];
 }
 
 /** One recorded result; the latest of an item counts, the first tells whether its sample failed. */
@@ -238,29 +189,40 @@ function partialOffSteps(control: ProvidedControl): { steps: string[]; expected:
   };
 }
 
-function exteriorDaylightSteps(): { steps: string[]; expected: string } {
+function exteriorDaylightSteps(schedule: ScheduleSettings | undefined): { steps: string[]; expected: string } {
+  const offsets = schedule
+    ? `: on ${schedule.onMinutesBeforeSunset} min before sunset, off ${schedule.offMinutesAfterSunrise} min after sunrise, as the project’s schedule sets`
+    : ', within the schedule’s offsets';
   return {
     steps: [
       'Check the astronomical clock’s location, date, time and time zone match the site, or find the photosensor and check it faces away from the lights it controls.',
       'Cover the photosensor, or set the clock to just after sunset: the lights come on.',
       'Uncover it, or set the clock to just after sunrise: the lights go off.',
     ],
-    expected: 'The lights are off whenever there is daylight and on only after sunset, within the schedule’s offsets.',
+    expected: `The lights are off whenever there is daylight and on only after sunset${offsets}.`,
   };
 }
 
-function exteriorSetbackSteps(strategy: string): { steps: string[]; expected: string } {
+function exteriorSetbackSteps(strategy: string, schedule: ScheduleSettings | undefined): { steps: string[]; expected: string } {
   const off = strategy === 'exterior-facade-landscape-off';
+  const window = schedule?.setback;
+  const reduction = window?.reductionPercent !== undefined ? `${window.reductionPercent} %` : 'at least the edition’s figure';
   return {
     steps: [
-      'Read the setback or shutoff window on the controller against the owner’s closing and opening hours.',
-      'Set the clock to a minute before the window starts and watch the lights.',
+      window
+        ? `Read the setback window on the controller: the project’s schedule sets it from ${window.start} to ${window.end}; check it against the owner’s closing and opening hours.`
+        : 'Read the setback or shutoff window on the controller against the owner’s closing and opening hours.',
+      window
+        ? `Set the clock to a minute before ${window.start} and watch the lights.`
+        : 'Set the clock to a minute before the window starts and watch the lights.',
       off ? 'Check the lights go off.' : 'Measure the lighting power or light level before and after the step.',
-      'Set the clock to a minute before the window ends and watch the lights return.',
+      window
+        ? `Set the clock to a minute before ${window.end} and watch the lights return.`
+        : 'Set the clock to a minute before the window ends and watch the lights return.',
     ],
     expected: off
-      ? 'The facade or landscape lighting is off through the whole window (midnight or closing to 6 a.m. or opening).'
-      : 'The lighting is reduced by at least the edition’s figure through the whole window, then returns.',
+      ? `The facade or landscape lighting is off through the whole window (${window ? `${window.start} to ${window.end}` : 'midnight or closing to 6 a.m. or opening'}).`
+      : `The lighting is reduced by ${reduction} through the whole window${window ? ` (${window.start} to ${window.end})` : ''}, then returns.`,
   };
 }
 
@@ -344,6 +306,8 @@ export function buildTestPlan(
   document: EvaluationDocument,
   result: EvaluationResult,
   results: readonly RecordedResult[] = [],
+  /** The project's saved exterior schedule: the exterior tests name its offsets and window. */
+  schedule?: ScheduleSettings,
 ): TestPlan {
   const items: TestPlanItem[] = [];
   const groups: TestPlanGroup[] = [];
@@ -473,7 +437,7 @@ export function buildTestPlan(
         title: `${line?.label ?? testKindLabels[kind]}: ${label}`,
         spaceIds: [],
         applicationKey: application.key,
-        ...(kind === 'exterior-daylight-off' ? exteriorDaylightSteps() : exteriorSetbackSteps(control.strategy)),
+        ...(kind === 'exterior-daylight-off' ? exteriorDaylightSteps(schedule) : exteriorSetbackSteps(control.strategy, schedule)),
         section: testSection(document.edition, kind, line?.section),
       });
     }

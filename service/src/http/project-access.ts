@@ -72,15 +72,16 @@ export function projectAccess(req: { projectAccess?: ProjectAccess }): ProjectAc
 }
 
 /**
- * Guards a route under `/projects/:projectId`: 403 for a non-member or a member whose role may
- * not perform the action. Admin passes.
+ * Guards a route under `/projects/:projectId`: 404 for a non-member, as for a project that does not
+ * exist (so an outsider learns nothing of it, not even that it exists), 403 for a member whose role
+ * may not perform the action. Admin passes.
  */
 export function requireProjectAction(action: ProjectAction): RequestHandler {
   return (req, _res, next) => {
     const { user } = currentSession(req);
     const { role } = projectAccess(req);
     if (!user.isAdmin && role === null) {
-      throw AppError.forbidden('You are not a member of this project.');
+      throw AppError.notFound('No such project.');
     }
     if (!roleMay(role, user.isAdmin, action)) {
       throw AppError.forbidden(`Your role on this project (${role}) may not do this.`);

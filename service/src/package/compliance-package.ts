@@ -19,6 +19,7 @@ import {
   WidthType,
   type FileChild,
 } from 'docx';
+import JSZip from 'jszip';
 import type { ControlLine, EvaluationResult, SpaceResult } from '../../../contract/result.js';
 import { reviewItemKindLabels, reviewVerdictLabels, type ReviewItem, type ReviewOutcome } from '../../../contract/review.js';
 import { dec, sum, ZERO } from '../compliance/numbers.js';
@@ -65,6 +66,19 @@ export const draftMark = 'DRAFT — not for permit';
  * Pure: reads only its input (the date printed is the revision's), no network.
  */
 export async function buildCompliancePackage(input: PackageInput, options: CompliancePackageOptions = {}): Promise<Buffer> {
+  bodies = { viaDocx: options.tablesViaDocx === true, rows: [] };
+  let document: Document;
+  let rows: string[];
+  try {
+    document = packageDocument(input, options);
+    rows = bodies.rows;
+  } finally {
+    bodies = null;
+  }
+  return withTableBodies(await Packer.toBuffer(document), rows);
+}
+
+function packageDocument(input: PackageInput, options: CompliancePackageOptions): Document {
   const { project, revision } = input;
   const header = pageHeader(input);
   const headers = { default: header };
@@ -72,8 +86,7 @@ export async function buildCompliancePackage(input: PackageInput, options: Compl
   const wideFooters = { default: pageFooter(revision, landscapeWidth) };
   const portrait = { page: { size: { width: 12240, height: 15840 }, margin: margins } };
   const landscape = { page: { size: { width: 12240, height: 15840, orientation: PageOrientation.LANDSCAPE }, margin: margins } };
-
-  const document = new Document({
+  return new Document({
     creator: revision.madeBy,
     lastModifiedBy: revision.madeBy,
     title: `${project.name}: lighting compliance package, revision ${revision.number}`,
@@ -112,7 +125,6 @@ export async function buildCompliancePackage(input: PackageInput, options: Compl
       },
     ],
   });
-  return Packer.toBuffer(document);
 }
 
 // ---------------------------------------------------------------- layout helpers
@@ -191,10 +203,26 @@ interface CellOptions {
 
 type CellText = string | { text: string; options: CellOptions };
 
+function strong(text: string): CellText {
+  return { text, options: { bold: true } };
+}
+
+interface Column {
+  header: string;
+  /** Relative width. */
+  weight: number;
+  right?: boolean;
+}
+
+interface TableRowText {
+  cells: CellText[];
+  shade?: string;
+  bold?: boolean;
+}
+
 /**
- * One table cell, kept light (a 5,000-space package has hundreds of thousands): the paragraph
- * style carries the size and alignment, the table its cell margins; only bold and shading are
- * set per cell.
+ * One table cell, kept light: the paragraph style carries the size and alignment, the table its
+ * cell margins; only bold and shading are set per cell.
  */
 function cellOf(content: CellText, base: CellOptions = {}): TableCell {
   const text = typeof content === 'string' ? content : content.text;
@@ -212,43 +240,123 @@ function cellOf(content: CellText, base: CellOptions = {}): TableCell {
   });
 }
 
-function strong(text: string): CellText {
-  return { text, options: { bold: true } };
+/**
+ * How a build writes its tables' rows below the header. A 5,000-space package has hundreds of
+ * thousands of cells, and docx's objects for them cost tens of seconds and gigabytes; so the body
+ * rows are written as WordprocessingML text, the very markup docx writes for the same cells (a
+ * test compares the two), and put in place of a marker row once docx has packed the rest.
+ * `viaDocx` builds them with docx's objects instead: the reference the test compares with.
+ */
+interface TableBodies {
+  viaDocx: boolean;
+  /** The body rows of each table as markup, by the number its marker row carries. */
+  rows: string[];
 }
 
-interface Column {
-  header: string;
-  /** Relative width. */
-  weight: number;
-  right?: boolean;
-}
+/** The tables of the build in progress. Documents are put together synchronously, so one build fills it at a time. */
+let bodies: TableBodies | null = null;
+
+/** The marker row's paragraph style: a style name no text of a person can produce. */
+const markerStyle = 'TableBodyRows';
 
 /** A table with a header row that repeats on every page, figures aligned right. */
-function table(columns: Column[], rows: { cells: CellText[]; shade?: string; bold?: boolean }[], width: number): Table {
+function table(columns: Column[], rows: TableRowText[], width: number): Table {
   const totalWeight = columns.reduce((total, column) => total + column.weight, 0);
   const columnWidths = columns.map((column) => Math.floor((width * column.weight) / totalWeight));
+  const header = new TableRow({
+    tableHeader: true,
+    cantSplit: true,
+    children: columns.map((column) => cellOf(column.header, { bold: true, shade: headerShade, right: column.right })),
+  });
+  if (bodies === null) throw new Error('table() is called only while a package is built');
+  let body: TableRow[];
+  if (bodies.viaDocx) {
+    body = rows.map(
+      (row) =>
+        new TableRow({
+          cantSplit: true,
+          children: row.cells.map((content, index) => cellOf(content, { right: columns[index]?.right, shade: row.shade, bold: row.bold })),
+        }),
+    );
+  } else {
+    // docx widens the columns to the table's width, each cell's width rounded (Table.setCellWidths).
+    const total = columnWidths.reduce((sum, columnWidth) => sum + columnWidth, 0);
+    const scale = total > 0 && width > total ? width / total : 1;
+    const cellWidths = columnWidths.map((columnWidth) => Math.round(columnWidth * scale));
+    bodies.rows.push(rows.map((row) => rowMarkup(row, columns, cellWidths)).join(''));
+    const marker = new TableRow({
+      children: [new TableCell({ children: [new Paragraph({ style: `${markerStyle}${bodies.rows.length - 1}` })] })],
+    });
+    body = rows.length === 0 ? [] : [marker];
+  }
   return new Table({
     width: { size: width, type: WidthType.DXA },
     columnWidths,
     layout: TableLayoutType.FIXED,
     margins: { top: 30, bottom: 30, left: 80, right: 80 },
-    rows: [
-      new TableRow({
-        tableHeader: true,
-        cantSplit: true,
-        children: columns.map((column) => cellOf(column.header, { bold: true, shade: headerShade, right: column.right })),
-      }),
-      ...rows.map(
-        (row) =>
-          new TableRow({
-            cantSplit: true,
-            children: row.cells.map((content, index) =>
-              cellOf(content, { right: columns[index]?.right, shade: row.shade, bold: row.bold }),
-            ),
-          }),
-      ),
-    ],
+    rows: [header, ...body],
   });
+}
+
+/** XML 1.0 has no place for these characters; docx would write them and break the file. */
+// eslint-disable-next-line no-control-regex -- these very characters are what is matched
+const notInXml = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g;
+
+function escapeXml(text: string): string {
+  return text
+    .replace(notInXml, '')
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;')
+    .replace(/'/g, '&apos;');
+}
+
+/** One body row as docx writes it: cantSplit, each cell's width and shading, a paragraph per line, bold runs marked. */
+function rowMarkup(row: TableRowText, columns: Column[], cellWidths: number[]): string {
+  let xml = '<w:tr><w:trPr><w:cantSplit/></w:trPr>';
+  row.cells.forEach((content, index) => {
+    const text = typeof content === 'string' ? content : content.text;
+    const base: CellOptions = { right: columns[index]?.right, shade: row.shade, bold: row.bold };
+    const options = typeof content === 'string' ? base : { ...base, ...content.options };
+    const style = options.right ? 'CellRight' : 'Cell';
+    const cellWidth = cellWidths[index];
+    xml += '<w:tc><w:tcPr>';
+    if (cellWidth !== undefined && cellWidth > 0) xml += `<w:tcW w:type="dxa" w:w="${cellWidth}"/>`;
+    if (options.shade) xml += `<w:shd w:fill="${options.shade}" w:color="auto" w:val="clear"/>`;
+    xml += '</w:tcPr>';
+    for (const line of text.split('\n')) {
+      xml += `<w:p><w:pPr><w:pStyle w:val="${style}"/></w:pPr>`;
+      if (line !== '')
+        xml += `<w:r>${options.bold ? '<w:rPr><w:b/><w:bCs/></w:rPr>' : ''}<w:t xml:space="preserve">${escapeXml(line)}</w:t></w:r>`;
+      xml += '</w:p>';
+    }
+    xml += '</w:tc>';
+  });
+  return `${xml}</w:tr>`;
+}
+
+/** Puts each table's body rows in place of its marker row in the packed file. */
+async function withTableBodies(packed: Buffer, rows: string[]): Promise<Buffer> {
+  if (rows.length === 0) return packed;
+  const zip = await JSZip.loadAsync(packed);
+  const entry = zip.file('word/document.xml');
+  if (entry === null) throw new Error('the packed document has no word/document.xml');
+  const xml = await entry.async('string');
+  const parts: string[] = [];
+  let from = 0;
+  rows.forEach((markup, index) => {
+    if (markup === '') return;
+    const at = xml.indexOf(`<w:pStyle w:val="${markerStyle}${index}"/>`, from);
+    const start = at < 0 ? -1 : xml.lastIndexOf('<w:tr>', at);
+    const end = at < 0 ? -1 : xml.indexOf('</w:tr>', at);
+    if (start < from || end < 0) throw new Error(`the marker row of table ${index} is missing from the packed document`);
+    parts.push(xml.slice(from, start), markup);
+    from = end + '</w:tr>'.length;
+  });
+  parts.push(xml.slice(from));
+  zip.file('word/document.xml', parts.join(''));
+  return zip.generateAsync({ type: 'nodebuffer', compression: 'DEFLATE', compressionOptions: { level: 6 } });
 }
 
 /** A two-column table of labels and values. */
@@ -423,7 +531,7 @@ function spacesPart(input: PackageInput): FileChild[] {
     { header: 'Margin (W)', weight: 2, right: true },
     { header: 'Status', weight: 3 },
   ];
-  const rows: { cells: CellText[]; shade?: string; bold?: boolean }[] = [];
+  const rows: TableRowText[] = [];
   const groups = spacesByLevel(result);
   for (const group of groups) {
     if (groups.length > 1 || group.level !== null)
@@ -541,7 +649,7 @@ function controlsPart(input: PackageInput): FileChild[] {
     { header: 'Status', weight: 6 },
     { header: 'Section', weight: 2 },
   ];
-  const rows: { cells: CellText[]; shade?: string }[] = [];
+  const rows: TableRowText[] = [];
   const lineRow = (name: string, first: boolean, line: ControlLine, provided: ProvidedControl[]) => ({
     cells: [
       first ? strong(name) : '',
@@ -683,7 +791,7 @@ function exteriorPart(input: PackageInput): FileChild[] {
     children.push(para('The project has no exterior lighting.'));
     return children;
   }
-  const rows: { cells: CellText[]; shade?: string; bold?: boolean }[] = exterior.applications.map((application) => ({
+  const rows: TableRowText[] = exterior.applications.map((application) => ({
     cells: [
       strong(application.label),
       application.tradable ? 'Tradable' : 'Nontradable',

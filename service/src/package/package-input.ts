@@ -36,7 +36,10 @@ export interface PackageInput {
  * for a luminaire type, by its tag (a type without one is listed as having none on file).
  */
 export interface CompliancePackageOptions {
+  /** The cut sheet on file for a luminaire type, by tag: its file name. */
   cutSheets?: ReadonlyMap<string, string>;
+  /** Word only: every table row built with docx's objects: slow on a large project; the reference the tests compare the fast path with. */
+  tablesViaDocx?: boolean;
 }
 
 export type PackageFormat = 'docx' | 'xlsx' | 'pdf';

@@ -10,11 +10,15 @@ import { attachment } from './content-disposition.js';
 import {
   packageFormats,
   type MadePackage,
+  type PackageJob,
+  type PackageJobAnswer,
   type PackageComparison,
   type PackageFormat,
   type PackageRevision,
 } from '../../../contract/package.js';
 import { getRevision, listRevisions, type PackageRevisionSummary } from './package.repository.js';
+import { getPackageJob, type PackageJobRecord } from './package-jobs.repository.js';
+import type { PackageJobs } from './package-jobs.js';
 import { contentTypes, makePackage } from './package.service.js';
 import type { FileStorage } from './storage.js';
 
@@ -22,6 +26,35 @@ const compareQuery = z.object({ from: z.string().max(64), to: z.string().max(64)
 
 function fileUrl(projectId: string, revisionId: string, format: PackageFormat): string {
   return `/api/projects/${projectId}/packages/${revisionId}/files/${format}`;
+}
+
+function madeAnswer(
+  projectId: string,
+  made: { id: string; number: number; draft: boolean; fingerprint: string; files: { format: PackageFormat }[] },
+): MadePackage {
+  return {
+    id: made.id,
+    revision: made.number,
+    draft: made.draft,
+    fingerprint: made.fingerprint,
+    files: made.files.map((file) => ({ format: file.format, url: fileUrl(projectId, made.id, file.format) })),
+  };
+}
+
+function jobAnswer(job: PackageJobRecord): PackageJobAnswer {
+  const answer: PackageJob = { id: job.id, state: job.state, progress: job.progress, step: job.step };
+  if (job.state === 'done' && job.made) answer.package = madeAnswer(job.projectId, job.made);
+  if (job.state === 'failed') answer.error = job.error ?? 'The package could not be made.';
+  return { job: answer };
+}
+
+export interface PackageRouteSettings {
+  appUrl: string;
+  mailQueued: () => void;
+  /** The background jobs; without them every package is made at once. */
+  jobs?: PackageJobs | undefined;
+  /** Projects with at least this many spaces go to a background job. */
+  jobMinSpaces: number;
 }
 
 function listed(projectId: string, revision: PackageRevisionSummary): PackageRevision {
@@ -47,7 +80,7 @@ function listed(projectId: string, revision: PackageRevisionSummary): PackageRev
  * downloads them, except that the contractor sees only final packages (of accepted or issued
  * designs), never drafts.
  */
-export function packageRouter(db: Database, storage: FileStorage, settings: { appUrl: string; mailQueued: () => void }): Router {
+export function packageRouter(db: Database, storage: FileStorage, settings: PackageRouteSettings): Router {
   const router = Router({ mergeParams: true });
   router.use('/packages', requireProjectAction('export'));
 
@@ -65,22 +98,25 @@ export function packageRouter(db: Database, storage: FileStorage, settings: { ap
     const { projectId, role } = projectAccess(req);
     const { user } = currentSession(req);
     if (!user.isAdmin && role !== 'engineer') throw AppError.forbidden('Only the engineer may make a submittal package.');
-    const made = await makePackage(
-      db,
-      storage,
-      projectId,
-      { userId: user.id, name: user.name, role, isAdmin: user.isAdmin },
-      { appUrl: settings.appUrl },
-    );
+    const actor = { userId: user.id, name: user.name, role, isAdmin: user.isAdmin };
+    if (settings.jobs && (await spaceCount(db, projectId)) >= settings.jobMinSpaces) {
+      const job = await settings.jobs.request(projectId, actor);
+      res.status(202).json(jobAnswer(job) satisfies PackageJobAnswer);
+      return;
+    }
+    const made = await makePackage(db, storage, projectId, actor, { appUrl: settings.appUrl });
     // Making the final package of an accepted design issues it, and the issue's mail is queued with it.
     settings.mailQueued();
-    res.status(201).json({
-      id: made.id,
-      revision: made.number,
-      draft: made.draft,
-      fingerprint: made.fingerprint,
-      files: made.files.map((file) => ({ format: file.format, url: fileUrl(projectId, made.id, file.format) })),
-    } satisfies MadePackage);
+    res.status(201).json(madeAnswer(projectId, made) satisfies MadePackage);
+  });
+
+  router.get('/packages/jobs/:jobId', async (req, res) => {
+    const { projectId, role } = projectAccess(req);
+    const { user } = currentSession(req);
+    if (!user.isAdmin && role !== 'engineer') throw AppError.forbidden('Only the engineer may follow the making of a submittal package.');
+    const job = await getPackageJob(db, projectId, idParam(req.params['jobId'], 'That package job'));
+    if (!job) throw AppError.notFound('That package job does not exist.');
+    res.json(jobAnswer(job) satisfies PackageJobAnswer);
   });
 
   router.get('/packages/compare', async (req, res) => {
@@ -124,4 +160,9 @@ export function packageRouter(db: Database, storage: FileStorage, settings: { ap
   });
 
   return router;
+}
+
+async function spaceCount(db: Database, projectId: string): Promise<number> {
+  const row = await db('spaces').where({ project_id: projectId }).count<{ count: string }[]>('* as count').first();
+  return Number(row?.count ?? 0);
 }

@@ -1,4 +1,5 @@
 import { createHash, randomUUID } from 'node:crypto';
+import type { PackageStep } from '../../../contract/package.js';
 import type { ProjectState } from '../../../contract/review.js';
 import { recordAudit } from '../audit/audit.repository.js';
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
@@ -57,7 +58,10 @@ export async function makePackage(
   projectId: string,
   actor: { userId: string; name: string; role: ProjectRole | null; isAdmin: boolean },
   mail: TransitionMailSettings,
+  /** Told as each step begins (a background job keeps its progress by it). */
+  onStep: (step: PackageStep) => Promise<void> | void = () => {},
 ): Promise<MadePackage> {
+  await onStep('evaluate');
   // One snapshot: the project, its design and its earlier revisions as of one moment, even while someone edits a draft.
   const { project, document, earlier, review, cutSheets } = await db.transaction(
     async (trx) => ({
@@ -99,11 +103,14 @@ export async function makePackage(
   };
 
   const id = randomUUID();
-  const built: [PackageFormat, Buffer][] = [
-    ['docx', await buildCompliancePackage(input, { cutSheets })],
-    ['xlsx', await buildComplianceWorkbook(input, { cutSheets })],
-    ['pdf', await buildPackagePdf(input)],
-  ];
+  const built: [PackageFormat, Buffer][] = [];
+  await onStep('docx');
+  built.push(['docx', await buildCompliancePackage(input, { cutSheets })]);
+  await onStep('xlsx');
+  built.push(['xlsx', await buildComplianceWorkbook(input, { cutSheets })]);
+  await onStep('pdf');
+  built.push(['pdf', await buildPackagePdf(input)]);
+  await onStep('store');
   const files: PackageFileRecord[] = [];
   try {
     for (const [format, body] of built) {

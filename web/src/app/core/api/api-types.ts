@@ -14,7 +14,7 @@ import type {
   ZoneKind as DaylightZoneKind,
 } from '../../../../../contract/editions';
 import type { Citation, ControlStatus, Verdict } from '../../../../../contract/result';
-import type { ScheduleSummary } from '../../../../../contract/exterior-schedule';
+import type { ExteriorScheduleSettings, ScheduleSummary } from '../../../../../contract/exterior-schedule';
 import type { ReviewHistoryDetail } from '../../../../../contract/review';
 
 export type {
@@ -350,6 +350,13 @@ export type HistoryEntry = HistoryEntryBase &
         fieldTest?: FieldTestHistoryDetail;
       }
     | {
+        /** The project's exterior schedule saved: the settings before (the defaults the first time) and after. */
+        entity: 'exterior-schedule';
+        action: 'create' | 'update';
+        before: ExteriorScheduleSettings | null;
+        after: ExteriorScheduleSettings | null;
+      }
+    | {
         entity: 'package';
         action: 'create';
         before: null;
@@ -547,8 +554,11 @@ export interface ImportAlias {
 export type {
   ApplicationEnergy as ExteriorApplicationEnergy,
   ExteriorScheduleSettings,
+  ScheduleCheck,
+  ScheduleCheckStatus,
   ScheduleDay as ExteriorScheduleDay,
   SetbackRule,
+  StoredExteriorSchedule,
   SunPattern,
 } from '../../../../../contract/exterior-schedule';
 export type ExteriorScheduleSummary = ScheduleSummary & { year: number };

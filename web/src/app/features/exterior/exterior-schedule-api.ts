@@ -1,7 +1,12 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { ExteriorScheduleDay, ExteriorScheduleSettings, ExteriorScheduleSummary } from '../../core/api/api-types';
+import type {
+  ExteriorScheduleDay,
+  ExteriorScheduleSettings,
+  ExteriorScheduleSummary,
+  StoredExteriorSchedule,
+} from '../../core/api/api-types';
 
 /** The schedule's settings as the service's query parameters. */
 export function settingsParams(settings: ExteriorScheduleSettings): Record<string, string> {
@@ -32,6 +37,16 @@ export class ExteriorScheduleApi {
       fromObject: { from: `${year}-01-01`, days: String(daysInYear(year)), ...settingsParams(settings) },
     });
     return this.http.get<ExteriorScheduleDay[]>(`/api/projects/${projectId}/exterior-schedule`, { params });
+  }
+
+  /** The project's saved schedule, or the defaults (version 0) until one is saved. */
+  stored(projectId: string): Observable<StoredExteriorSchedule> {
+    return this.http.get<StoredExteriorSchedule>(`/api/projects/${projectId}/exterior-schedule/settings`);
+  }
+
+  /** Saves the schedule with the version read; a stale version is refused (409). */
+  save(projectId: string, settings: ExteriorScheduleSettings, version: number): Observable<StoredExteriorSchedule> {
+    return this.http.put<StoredExteriorSchedule>(`/api/projects/${projectId}/exterior-schedule/settings`, { settings, version });
   }
 
   summary(projectId: string, year: number, settings: ExteriorScheduleSettings): Observable<ExteriorScheduleSummary> {

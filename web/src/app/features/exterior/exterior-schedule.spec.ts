@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting, type TestRequest } fro
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { ExteriorScheduleDay, ExteriorScheduleSummary, ProjectDetail } from '../../core/api/api-types';
+import type { ExteriorScheduleDay, ExteriorScheduleSummary, ProjectDetail, StoredExteriorSchedule } from '../../core/api/api-types';
 import { apiInterceptor } from '../../core/http/api-interceptor';
 import { ProjectStore } from '../workspace/project-store';
 import { clockText, ExteriorSchedule } from './exterior-schedule';
@@ -114,6 +114,17 @@ const summary: ExteriorScheduleSummary = {
     },
   ],
   totals: { installedWatts: '1000', kWh: '3664.5', kWhWithoutSetback: '4321.5', savingKWh: '657' },
+  checks: [
+    {
+      check: 'setback',
+      applicationId: 'a1',
+      label: 'Parking lots and drives',
+      status: 'not-met',
+      section: 'C405.2.7.3',
+      words: 'The schedule reduces this lighting by 20 % from 00:00–06:00; C405.2.7.3 asks for at least 30 %.',
+      verified: false,
+    },
+  ],
   unverified: ['Parking lots and drives: reduced by 30 %. The value is not checked against the published code.'],
 };
 
@@ -140,11 +151,24 @@ describe('ExteriorSchedule', () => {
 
   afterEach(() => http.verify());
 
-  async function open(project: ProjectDetail): Promise<void> {
+  const notSaved: StoredExteriorSchedule = {
+    settings: { onMinutesBeforeSunset: 10, offMinutesAfterSunrise: 10, setback: { start: '00:00', end: '06:00' } },
+    version: 0,
+    saved: false,
+    updatedAt: null,
+    updatedBy: null,
+  };
+
+  /** Opens the schedule; the project's saved schedule is read first, and answered with `stored` unless it is null. */
+  async function open(project: ProjectDetail, stored: StoredExteriorSchedule | null = notSaved): Promise<void> {
     store.seed({ project });
     fixture = TestBed.createComponent(ExteriorSchedule);
     element = fixture.nativeElement as HTMLElement;
     await fixture.whenStable();
+    if (stored !== null) {
+      http.expectOne((request) => request.url === '/api/projects/p1/exterior-schedule/settings').flush(stored);
+      await fixture.whenStable();
+    }
   }
 
   const requests = (): { year: TestRequest; summary: TestRequest } => ({
@@ -153,7 +177,7 @@ describe('ExteriorSchedule', () => {
   });
 
   it('sends the engineer to the set-up when the site has no coordinates, without asking the service', async () => {
-    await open({ ...site, latitude: null, timeZone: null });
+    await open({ ...site, latitude: null, timeZone: null }, null);
     const notice = element.querySelector('.notice');
     expect(notice?.textContent?.replace(/\s+/g, ' ')).toContain("needs the site's latitude, time zone: fill them in on the Set-up page");
     expect(notice?.querySelector('a')?.getAttribute('href')).toMatch(/setup$/);
@@ -188,6 +212,75 @@ describe('ExteriorSchedule', () => {
     expect(annualText).toContain('4,322');
     expect(annualText).toContain('657');
     expect(element.textContent).toContain('To verify: these figures rest on values not checked');
+    const checks = element.querySelector('[data-testid="schedule-checks"]')!.textContent!.replace(/\s+/g, ' ');
+    expect(checks).toContain('Night setback (C405.2.7.3)');
+    expect(checks).toContain('Not met');
+    expect(checks).toContain('asks for at least 30 %');
+    expect(element.querySelector('[data-testid="schedule-saved"]')?.textContent).toContain('common-practice schedule until one is saved');
+  });
+
+  it('opens on the project’s saved schedule, saves the engineer’s change with the version read, and offers to read again when stale', async () => {
+    const saved: StoredExteriorSchedule = {
+      settings: { onMinutesBeforeSunset: 15, offMinutesAfterSunrise: 5, setback: { start: '23:00', end: '06:00', reductionPercent: 50 } },
+      version: 2,
+      saved: true,
+      updatedAt: '2026-11-30T18:00:00Z',
+      updatedBy: 'Dana Engineer',
+    };
+    await open(site, saved);
+    let pending = requests();
+    expect(pending.year.request.params.get('onBefore')).toBe('15');
+    expect(pending.year.request.params.get('setbackFrom')).toBe('23:00');
+    expect(pending.year.request.params.get('reduction')).toBe('50');
+    pending.year.flush([]);
+    pending.summary.flush(summary);
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="schedule-saved"]')?.textContent).toContain('by Dana Engineer');
+    const saveButton = () =>
+      Array.from(element.querySelectorAll<HTMLButtonElement>('button')).find((button) =>
+        button.textContent?.includes('Save as the project'),
+      )!;
+    expect(saveButton().disabled).toBe(true);
+
+    const input = element.querySelector<HTMLInputElement>('input[name="offAfter"]')!;
+    input.value = '20';
+    input.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(saveButton().disabled).toBe(false);
+    saveButton().click();
+    const put = http.expectOne((request) => request.method === 'PUT' && request.url === '/api/projects/p1/exterior-schedule/settings');
+    expect(put.request.body).toEqual({ settings: { ...saved.settings, offMinutesAfterSunrise: 20 }, version: 2 });
+    put.flush(
+      { error: { code: 'conflict', message: 'Someone saved the schedule since you opened it: reload to see their settings.' } },
+      { status: 409, statusText: 'Conflict' },
+    );
+    await fixture.whenStable();
+    expect(element.querySelector('.save-status')?.textContent).toContain('Someone saved the schedule');
+    const again = Array.from(element.querySelectorAll<HTMLButtonElement>('.save-status button')).find((button) =>
+      button.textContent?.includes('Read the saved schedule'),
+    )!;
+    again.click();
+    http
+      .expectOne((request) => request.method === 'GET' && request.url === '/api/projects/p1/exterior-schedule/settings')
+      .flush({ ...saved, version: 3, settings: { ...saved.settings, offMinutesAfterSunrise: 30 } });
+    await fixture.whenStable();
+    expect(element.querySelector<HTMLInputElement>('input[name="offAfter"]')!.value).toBe('30');
+    pending = requests();
+    expect(pending.year.request.params.get('offAfter')).toBe('30');
+    pending.year.flush([]);
+    pending.summary.flush(summary);
+  });
+
+  it('lets a reviewer try settings but not save them', async () => {
+    await open({ ...site, role: 'reviewer' } as ProjectDetail);
+    const pending = requests();
+    pending.year.flush([]);
+    pending.summary.flush(summary);
+    await fixture.whenStable();
+    expect(Array.from(element.querySelectorAll('button')).some((button) => button.textContent?.includes('Save as the project'))).toBe(
+      false,
+    );
+    expect(element.querySelector('button[type="submit"]')).not.toBeNull();
   });
 
   it('asks again with the offsets the engineer tries', async () => {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -9,7 +9,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
-import type { ExteriorScheduleDay, ExteriorScheduleSettings, ExteriorScheduleSummary, SetbackRule } from '../../core/api/api-types';
+import type {
+  ExteriorScheduleDay,
+  ExteriorScheduleSettings,
+  ExteriorScheduleSummary,
+  ScheduleCheckStatus,
+  SetbackRule,
+  StoredExteriorSchedule,
+} from '../../core/api/api-types';
 import { ApiError } from '../../core/http/api-error';
 import { CardRows } from '../../shared/card-rows';
 import { wattsFigure } from '../../shared/format';
@@ -58,6 +65,28 @@ export const setbackWords: Record<SetbackRule, string> = {
   'to-verify': 'To verify',
 };
 
+export const checkStatusWords: Record<ScheduleCheckStatus, string> = {
+  met: 'Met',
+  'not-met': 'Not met',
+  'to-verify': 'To verify',
+  exception: 'Exception claimed',
+  'not-required': 'Not required',
+};
+
+export const checkWords: Record<'daylight-off' | 'setback', string> = {
+  'daylight-off': 'Daylight shutoff',
+  setback: 'Night setback',
+};
+
+/** When and by whom the schedule was saved, in words. */
+export function savedWords(stored: StoredExteriorSchedule): string {
+  if (!stored.saved || stored.updatedAt === null) {
+    return 'The project runs the common-practice schedule until one is saved.';
+  }
+  const when = new Intl.DateTimeFormat('en-US', { dateStyle: 'medium' }).format(new Date(stored.updatedAt));
+  return `The project’s schedule, saved ${when}${stored.updatedBy ? ` by ${stored.updatedBy}` : ''}.`;
+}
+
 function hoursText(value: string): string {
   return new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 }).format(Number(value));
 }
@@ -73,7 +102,9 @@ function failure(error: unknown, fallback: string): string {
 /**
  * The astronomical schedule of the site's exterior lighting: the year as a picture, a month's
  * schedule as a table, and the year's hours and energy per application with and without the
- * setback. The settings here are tried, not stored: the service computes each answer from them.
+ * setback, and the exterior control requirements the schedule answers. The form opens on the
+ * project's saved schedule; other settings can be tried, and the engineer saves them as the
+ * project's (with the version read, so a save made on an older read is refused).
  */
 @Component({
   selector: 'al-exterior-schedule',
@@ -99,6 +130,9 @@ export class ExteriorSchedule {
 
   protected readonly monthNames = monthNames;
   protected readonly setbackWords = setbackWords;
+  protected readonly checkStatusWords = checkStatusWords;
+  protected readonly checkWords = checkWords;
+  protected readonly savedWords = savedWords;
   protected readonly clockText = clockText;
   protected readonly shortDate = shortDate;
   protected readonly watts = wattsFigure;
@@ -119,6 +153,30 @@ export class ExteriorSchedule {
   /** Blank: the edition's reduction. */
   protected readonly reduction = signal<number | null>(null);
   protected readonly settings = signal<ExteriorScheduleSettings>(defaultSettings);
+  /** The project's saved schedule as last read or saved; null until read. */
+  protected readonly stored = signal<StoredExteriorSchedule | null>(null);
+  protected readonly saving = signal(false);
+  /** The last save's outcome, or why the saved schedule could not be read, in words. */
+  protected readonly saveMessage = signal<string | null>(null);
+  /** The save was refused because someone saved the schedule since it was read: offer to read it again. */
+  protected readonly staleSave = signal(false);
+
+  constructor() {
+    effect((onCleanup) => {
+      const id = this.store.projectId();
+      if (id === null || this.missingSite().length > 0) return;
+      untracked(() => {
+        const subscription = this.api.stored(id).subscribe({
+          next: (stored) => this.useStored(stored),
+          error: (error: unknown) => {
+            this.saveMessage.set(failure(error, 'The project’s saved schedule could not be read; the common-practice one is shown.'));
+            this.stored.set({ settings: defaultSettings, version: 0, saved: false, updatedAt: null, updatedBy: null });
+          },
+        });
+        onCleanup(() => subscription.unsubscribe());
+      });
+    });
+  }
 
   /** The set-up fields the schedule needs and the project leaves blank, in words. */
   protected readonly missingSite = computed(() => {
@@ -134,7 +192,7 @@ export class ExteriorSchedule {
   private readonly request = computed(() => {
     const id = this.store.projectId();
     const project = this.store.project();
-    if (id === null || !project || this.missingSite().length > 0) return null;
+    if (id === null || !project || this.missingSite().length > 0 || this.stored() === null) return null;
     // Asked again when the site or the design's exterior applications change.
     return {
       id,
@@ -225,17 +283,69 @@ export class ExteriorSchedule {
     };
   }
 
+  /** The form differs from the project's saved schedule. */
+  protected readonly differsFromSaved = computed(() => {
+    const stored = this.stored();
+    return stored !== null && (!stored.saved || JSON.stringify(stored.settings) !== JSON.stringify(this.formSettings()));
+  });
+
+  private useStored(stored: StoredExteriorSchedule): void {
+    this.stored.set(stored);
+    this.fill(stored.settings);
+    this.settings.set(stored.settings);
+  }
+
+  private fill(settings: ExteriorScheduleSettings): void {
+    this.onBefore.set(settings.onMinutesBeforeSunset);
+    this.offAfter.set(settings.offMinutesAfterSunrise);
+    this.withSetback.set(settings.setback !== null);
+    this.setbackFrom.set(settings.setback?.start ?? defaultSettings.setback!.start);
+    this.setbackTo.set(settings.setback?.end ?? defaultSettings.setback!.end);
+    this.reduction.set(settings.setback?.reductionPercent ?? null);
+  }
+
+  /** Saves the form as the project's schedule, and shows the figures for it. */
+  protected save(): void {
+    const id = this.store.projectId();
+    const stored = this.stored();
+    if (id === null || stored === null || this.saving()) return;
+    this.saving.set(true);
+    this.saveMessage.set(null);
+    this.staleSave.set(false);
+    this.api.save(id, this.formSettings(), stored.version).subscribe({
+      next: (saved) => {
+        this.saving.set(false);
+        this.useStored(saved);
+        this.saveMessage.set('Saved as the project’s schedule.');
+      },
+      error: (error: unknown) => {
+        this.saving.set(false);
+        this.staleSave.set(error instanceof ApiError && error.status === 409 && error.code === 'conflict');
+        this.saveMessage.set(failure(error, 'The schedule could not be saved.'));
+      },
+    });
+  }
+
+  /** Reads the saved schedule again (after someone else saved one). */
+  protected reload(): void {
+    const id = this.store.projectId();
+    if (id === null) return;
+    this.api.stored(id).subscribe({
+      next: (stored) => {
+        this.useStored(stored);
+        this.saveMessage.set(null);
+        this.staleSave.set(false);
+      },
+      error: (error: unknown) => this.saveMessage.set(failure(error, 'The saved schedule could not be read.')),
+    });
+  }
+
   protected apply(): void {
     this.settings.set(this.formSettings());
   }
 
   protected reset(): void {
-    this.onBefore.set(defaultSettings.onMinutesBeforeSunset);
-    this.offAfter.set(defaultSettings.offMinutesAfterSunrise);
-    this.withSetback.set(true);
-    this.setbackFrom.set(defaultSettings.setback!.start);
-    this.setbackTo.set(defaultSettings.setback!.end);
-    this.reduction.set(null);
+    this.fill(defaultSettings);
     this.settings.set(defaultSettings);
   }
 

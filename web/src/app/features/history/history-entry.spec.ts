@@ -467,6 +467,21 @@ describe('a history entry in words', () => {
       expect(describeEntry(test('retest', { result: 'pass', retest: true }), labels, 'ip').icon).toBe('replay');
     });
 
+    it('reads a saved exterior schedule, from what it was to what it is', () => {
+      const before = { onMinutesBeforeSunset: 10, offMinutesAfterSunrise: 10, setback: { start: '00:00', end: '06:00' } };
+      const after = {
+        onMinutesBeforeSunset: 15,
+        offMinutesAfterSunrise: 20,
+        setback: { start: '23:00', end: '06:00', reductionPercent: 50 },
+      };
+      expect(say(entry({ entity: 'exterior-schedule', action: 'update', before, after }))).toBe(
+        'Ines Halvorsen saved the exterior schedule: from on 10 min before sunset, off 10 min after sunrise, set back 00:00–06:00 by the edition’s reduction; to on 15 min before sunset, off 20 min after sunrise, set back 23:00–06:00 by 50 %',
+      );
+      expect(say(entry({ entity: 'exterior-schedule', action: 'create', before: null, after: { ...after, setback: null } }))).toBe(
+        'Ines Halvorsen saved the exterior schedule: to on 15 min before sunset, off 20 min after sunrise, no night setback',
+      );
+    });
+
     it('reads invitations: sent, withdrawn, and accepted by the person who joined', () => {
       const invitation = (
         action: 'invite' | 'withdraw-invitation' | 'accept-invitation',

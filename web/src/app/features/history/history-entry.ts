@@ -1,5 +1,6 @@
 import type {
   ExteriorApplicationRecord,
+  ExteriorScheduleSettings,
   HistoryEntry,
   LuminaireGroup,
   LuminaireTypeRecord,
@@ -673,6 +674,22 @@ function cutSheetWords(entry: CutSheetEntry): { summary: string; changes: string
   return { summary: `attached the cut sheet${file} to ${type}`, changes: [] };
 }
 
+/** The exterior schedule's settings in words: the offsets, and the setback window with its reduction. */
+function scheduleSettingsWords(settings: ExteriorScheduleSettings): string {
+  const setback = settings.setback
+    ? `set back ${settings.setback.start}–${settings.setback.end}${settings.setback.reductionPercent !== undefined ? ` by ${settings.setback.reductionPercent} %` : ' by the edition’s reduction'}`
+    : 'no night setback';
+  return `on ${settings.onMinutesBeforeSunset} min before sunset, off ${settings.offMinutesAfterSunrise} min after sunrise, ${setback}`;
+}
+
+/** The project's exterior schedule saved. */
+function scheduleWords(entry: Extract<HistoryEntry, { entity: 'exterior-schedule' }>): { summary: string; changes: string[] } {
+  const changes: string[] = [];
+  if (entry.after)
+    changes.push(entry.before ? `from ${scheduleSettingsWords(entry.before)}` : '', `to ${scheduleSettingsWords(entry.after)}`);
+  return { summary: 'saved the exterior schedule', changes: changes.filter((change) => change !== '') };
+}
+
 /** One entry in words, with `system` the units the project had when it was made (see {@link unitsAtEntry}). */
 export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system: UnitSystem): EntryWords {
   const actor = entry.user?.name || 'Someone';
@@ -703,6 +720,9 @@ export function describeEntry(entry: HistoryEntry, labels: HistoryLabels, system
       break;
     case 'field-test':
       words = fieldTestWords(entry);
+      break;
+    case 'exterior-schedule':
+      words = scheduleWords(entry);
       break;
     default:
       words = { summary: 'changed the project', changes: [] };

@@ -135,4 +135,72 @@ describe('PackagePage', () => {
     expect(shown).toContain('Exam 1, Occupant sensing: met → not met');
     expect(shown).not.toMatch(/interior\.installedW|not-met/);
   });
+
+  /** The next read of the job, once the page's timer asks for it. */
+  async function nextJobRead() {
+    let request: ReturnType<HttpTestingController['expectOne']> | undefined;
+    await vi.waitFor(() => (request = http.expectOne('/api/projects/p1/packages/jobs/j1')), { timeout: 5000, interval: 50 });
+    return request!;
+  }
+
+  it("follows a large project's package job with a progress bar in words, then shows the revision made", async () => {
+    await open('engineer', 'draft', []);
+    element.querySelector<HTMLButtonElement>('[data-testid="make-package"]')!.click();
+    await fixture.whenStable();
+    http
+      .expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/packages')
+      .flush({ job: { id: 'j1', state: 'queued', progress: 0, step: null } }, { status: 202, statusText: 'Accepted' });
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="package-progress-words"]')?.textContent).toContain('Waiting for the server to start — 0 %');
+
+    (await nextJobRead()).flush({ job: { id: 'j1', state: 'running', progress: 10, step: 'docx' } });
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="package-progress-words"]')?.textContent?.trim()).toBe('Building the Word file — 10 %');
+    const bar = element.querySelector('[data-testid="package-progress"]')!;
+    expect(bar.getAttribute('aria-valuenow')).toBe('10');
+    expect(bar.getAttribute('aria-label')).toBe('Building the Word file — 10 %');
+
+    (await nextJobRead()).flush({ job: { id: 'j1', state: 'running', progress: 50, step: 'xlsx' } });
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="package-progress-words"]')?.textContent?.trim()).toBe('Building the Excel file — 50 %');
+
+    (await nextJobRead()).flush({
+      job: {
+        id: 'j1',
+        state: 'done',
+        progress: 100,
+        step: null,
+        package: { id: 'r1', revision: 1, draft: true, fingerprint: '1'.repeat(64), files: [] },
+      },
+    });
+    http.expectOne('/api/projects/p1/packages').flush({ revisions: [revision(1, true)] });
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="package-progress"]')).toBeNull();
+    expect(element.querySelector('[data-testid="package-revision"] strong')?.textContent?.trim()).toBe('Revision 1 (draft)');
+    expect(element.querySelector<HTMLButtonElement>('[data-testid="make-package"]')!.disabled).toBe(false);
+  });
+
+  it('says in words why a package job failed, and lets the engineer try again', async () => {
+    await open('engineer', 'draft', []);
+    element.querySelector<HTMLButtonElement>('[data-testid="make-package"]')!.click();
+    await fixture.whenStable();
+    http
+      .expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/packages')
+      .flush({ job: { id: 'j1', state: 'running', progress: 70, step: 'pdf' } }, { status: 202, statusText: 'Accepted' });
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="package-progress-words"]')?.textContent?.trim()).toBe('Building the PDF — 70 %');
+    (await nextJobRead()).flush({
+      job: {
+        id: 'j1',
+        state: 'failed',
+        progress: 90,
+        step: 'store',
+        error: 'The file store cannot be reached. Try again in a few minutes.',
+      },
+    });
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="package-progress"]')).toBeNull();
+    expect(element.querySelector('[data-testid="package-failure"]')?.textContent).toContain('The file store cannot be reached.');
+    expect(element.querySelector<HTMLButtonElement>('[data-testid="make-package"]')!.disabled).toBe(false);
+  });
 });

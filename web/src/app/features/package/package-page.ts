@@ -8,13 +8,24 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { packageFormatLabels, type PackageComparison, type PackageRevision } from '../../../../../contract/package';
+import { switchMap, takeWhile, timer } from 'rxjs';
+import {
+  packageFormatLabels,
+  packageStepLabels,
+  type MadePackage,
+  type PackageComparison,
+  type PackageJob,
+  type PackageRevision,
+} from '../../../../../contract/package';
 import { AuthStore } from '../../core/auth/auth-store';
 import { failureWords } from '../../shared/write-failure';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { PackageApi } from './package-api';
 import { changeValue, changeWords, controlStatusWords, fingerprintGroups, makeWords, revisionName, verdictChange } from './package-words';
+
+/** How often a package job is read while it runs. */
+const pollMs = 1000;
 
 type ListState = { status: 'loading' } | { status: 'ready' } | { status: 'failed'; message: string };
 type CompareState =
@@ -49,6 +60,17 @@ export class PackagePage {
   /** Newest first, as people look for the latest. */
   protected readonly newestFirst = computed(() => [...this.revisions()].reverse());
   protected readonly making = signal(false);
+  /** The background job making a large project's package, while it runs. */
+  protected readonly job = signal<PackageJob | null>(null);
+  /** Where the job is, in words: the step and the share done. */
+  protected readonly jobWords = computed(() => {
+    const job = this.job();
+    if (!job) return null;
+    if (job.state === 'queued' || job.step === null) return `Waiting for the server to start — ${job.progress} %`;
+    return `${packageStepLabels[job.step]} — ${job.progress} %`;
+  });
+  /** What the last package job's failure said, shown beside the button. */
+  protected readonly jobFailure = signal<string | null>(null);
   protected readonly from = signal<string | null>(null);
   protected readonly to = signal<string | null>(null);
   protected readonly comparison = signal<CompareState>({ status: 'idle' });
@@ -89,28 +111,64 @@ export class PackagePage {
     const projectId = this.store.projectId();
     if (!projectId || this.making()) return;
     this.making.set(true);
+    this.jobFailure.set(null);
     this.api
       .make(projectId)
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({
-        next: (made) => {
-          this.making.set(false);
-          this.snackBar.open(
-            made.draft ? `Draft package made: revision ${made.revision}.` : `Final package made: revision ${made.revision}.`,
-            'Dismiss',
-            { duration: 6000 },
-          );
-          this.from.set(this.to());
-          this.to.set(made.id);
-          this.load(projectId);
-          // A final package of an accepted design issues it: the workspace shows the new state.
-          if (!made.draft) this.workspaceApi.project(projectId).subscribe((project) => this.store.setProject(project));
+        next: (answer) => {
+          if ('job' in answer) this.follow(projectId, answer.job);
+          else this.made(projectId, answer);
+        },
+        error: (error: unknown) => this.failed(failureWords(error)),
+      });
+  }
+
+  /** Reads a large project's job every second until it is done or failed. */
+  private follow(projectId: string, job: PackageJob): void {
+    this.job.set(job);
+    timer(pollMs, pollMs)
+      .pipe(
+        switchMap(() => this.api.job(projectId, job.id)),
+        takeWhile(({ job: current }) => current.state === 'queued' || current.state === 'running', true),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: ({ job: current }) => {
+          this.job.set(current);
+          if (current.state === 'done' && current.package) {
+            this.job.set(null);
+            this.made(projectId, current.package);
+          } else if (current.state === 'failed') {
+            this.job.set(null);
+            this.failed(current.error ?? 'The package could not be made.');
+          }
         },
         error: (error: unknown) => {
-          this.making.set(false);
-          this.snackBar.open(failureWords(error), 'Dismiss', { duration: 10000, politeness: 'assertive' });
+          this.job.set(null);
+          this.failed(failureWords(error));
         },
       });
+  }
+
+  private made(projectId: string, made: MadePackage): void {
+    this.making.set(false);
+    this.snackBar.open(
+      made.draft ? `Draft package made: revision ${made.revision}.` : `Final package made: revision ${made.revision}.`,
+      'Dismiss',
+      { duration: 6000 },
+    );
+    this.from.set(this.to());
+    this.to.set(made.id);
+    this.load(projectId);
+    // A final package of an accepted design issues it: the workspace shows the new state.
+    if (!made.draft) this.workspaceApi.project(projectId).subscribe((project) => this.store.setProject(project));
+  }
+
+  private failed(message: string): void {
+    this.making.set(false);
+    this.jobFailure.set(message);
+    this.snackBar.open(message, 'Dismiss', { duration: 10000, politeness: 'assertive' });
   }
 
   protected compare(): void {
