@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import ExcelJS from 'exceljs';
 import JSZip from 'jszip';
+import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { EvaluationResult } from '../../contract/result.js';
 import type { ReviewItem } from '../../contract/review.js';
@@ -265,6 +266,28 @@ describe('the Word compliance package', () => {
     expect(draft.body).toContain(earlier);
   });
 
+  it('draws the plan of each daylit room with a rectangle as a picture, as the Daylight page does', async () => {
+    const zip = await JSZip.loadAsync(await buildCompliancePackage(input));
+    const drawn = input.result.interior.spaces.filter((space) => space.daylight.geometryEvaluated && space.daylight.zones.length > 0);
+    expect(drawn.length).toBeGreaterThan(0);
+    const media = Object.keys(zip.files).filter((name) => name.startsWith('word/media/') && name.endsWith('.png'));
+    const documentXml = await zip.file('word/document.xml')!.async('string');
+    // One picture per daylit room; rooms drawn alike share one image file.
+    expect(documentXml.match(/<w:drawing>/g)).toHaveLength(drawn.length);
+    expect(media.length).toBeGreaterThan(0);
+    expect(media.length).toBeLessThanOrEqual(drawn.length);
+    expect(documentXml).toContain(`Plan of ${drawn[0]!.name}`);
+    for (const name of media) {
+      const picture = await sharp(await zip.file(name)!.async('nodebuffer')).metadata();
+      expect(picture.format).toBe('png');
+      // Drawn at twice the page's 560 × 320 drawing size at most, plus its margins (contract/daylight-plan.ts).
+      expect(picture.width).toBeGreaterThan(400);
+      expect(picture.width).toBeLessThanOrEqual(2 * (560 + 44 + 64));
+      expect(picture.height).toBeLessThanOrEqual(2 * (320 + 28 + 56));
+    }
+    expect(words(documentXml)).toContain('Plans of the daylit rooms');
+  });
+
   it('has the review record when there is one', () => {
     expect(draft.body).toContain('Review record, round 1');
     expect(draft.body).toContain(reviewItem.title);
@@ -292,7 +315,12 @@ describe('the Word compliance package', () => {
     const name = `Lobby & <Stair> "A" 'B'\u0007`;
     const spaces = input.result.interior.spaces.map((space, index) => (index === 0 ? { ...space, name } : space));
     const named = { ...input, result: { ...input.result, interior: { ...input.result.interior, spaces } } };
-    const documentXml = async (buffer: Buffer) => (await JSZip.loadAsync(buffer)).file('word/document.xml')!.async('string');
+    // The plans' pictures get a new random name in each build (docx names them): compared without them.
+    const documentXml = async (buffer: Buffer) =>
+      (await (await JSZip.loadAsync(buffer)).file('word/document.xml')!.async('string')).replace(
+        /<w:drawing>[\s\S]*?<\/w:drawing>/g,
+        '<w:drawing/>',
+      );
     const fast = await documentXml(await buildCompliancePackage(named));
     const reference = await documentXml(await buildCompliancePackage(named, { tablesViaDocx: true }));
     expect(fast).toContain('Lobby &amp; &lt;Stair&gt; &quot;A&quot; &apos;B&apos;</w:t>');

@@ -5,6 +5,7 @@ import {
   Footer,
   Header,
   HeadingLevel,
+  ImageRun,
   Packer,
   PageBreak,
   PageNumber,
@@ -24,6 +25,7 @@ import type { ControlLine, EvaluationResult, SpaceResult } from '../../../contra
 import { reviewItemKindLabels, reviewVerdictLabels, type ReviewItem, type ReviewOutcome } from '../../../contract/review.js';
 import { dec, sum, ZERO } from '../compliance/numbers.js';
 import type { ProvidedControl } from '../compliance/document.js';
+import { maxPlanDrawings, planDrawing, type PlanDrawing } from './daylight-drawing.js';
 import type { CompliancePackageOptions, PackageInput, PackageRevisionStamp } from './package-input.js';
 import {
   basisWords,
@@ -66,11 +68,12 @@ export const draftMark = 'DRAFT — not for permit';
  * Pure: reads only its input (the date printed is the revision's), no network.
  */
 export async function buildCompliancePackage(input: PackageInput, options: CompliancePackageOptions = {}): Promise<Buffer> {
+  const drawings = await planDrawings(input);
   bodies = { viaDocx: options.tablesViaDocx === true, rows: [] };
   let document: Document;
   let rows: string[];
   try {
-    document = packageDocument(input, options);
+    document = packageDocument(input, options, drawings);
     rows = bodies.rows;
   } finally {
     bodies = null;
@@ -78,7 +81,33 @@ export async function buildCompliancePackage(input: PackageInput, options: Compl
   return withTableBodies(await Packer.toBuffer(document), rows);
 }
 
-function packageDocument(input: PackageInput, options: CompliancePackageOptions): Document {
+/**
+ * The plans of the daylit rooms, in the spaces' order, drawn as the Daylight page draws them: a
+ * room with a rectangle (length × width) and at least one zone, at most {@link maxPlanDrawings}.
+ */
+async function planDrawings(input: PackageInput): Promise<Map<string, PlanDrawing>> {
+  const { result, document } = input;
+  const units = unitWords(result.units);
+  const byId = new Map(document.spaces.map((space) => [space.id, space]));
+  const drawn = orderedSpaces(result)
+    .filter((space) => space.daylight.geometryEvaluated && space.daylight.zones.length > 0)
+    .flatMap((space) => {
+      const entry = byId.get(space.id);
+      return entry?.length !== undefined && entry.width !== undefined ? [{ space, entry, length: entry.length, width: entry.width }] : [];
+    })
+    .slice(0, maxPlanDrawings);
+  const drawings = await Promise.all(
+    drawn.map(({ space, entry, length, width }) =>
+      planDrawing(
+        { length: Number(length), width: Number(width), windows: entry.windows, skylights: entry.skylights, zones: space.daylight.zones },
+        { length: withUnits.length(length, result.units), width: withUnits.length(width, result.units), unit: units.length },
+      ),
+    ),
+  );
+  return new Map(drawn.map(({ space }, index) => [space.id, drawings[index]!]));
+}
+
+function packageDocument(input: PackageInput, options: CompliancePackageOptions, drawings: ReadonlyMap<string, PlanDrawing>): Document {
   const { project, revision } = input;
   const header = pageHeader(input);
   const headers = { default: header };
@@ -113,7 +142,7 @@ function packageDocument(input: PackageInput, options: CompliancePackageOptions)
           ...spacesPart(input),
           ...luminairePart(input, options),
           ...controlsPart(input),
-          ...daylightPart(input),
+          ...daylightPart(input, drawings),
           ...exteriorPart(input),
         ],
       },
@@ -691,7 +720,7 @@ function statusCell(line: ControlLine): CellText {
 
 // ---------------------------------------------------------------- daylight
 
-function daylightPart(input: PackageInput): FileChild[] {
+function daylightPart(input: PackageInput, drawings: ReadonlyMap<string, PlanDrawing>): FileChild[] {
   const { result } = input;
   const units = unitWords(result.units);
   const spaces = orderedSpaces(result).filter((space) => !dec(space.daylight.windowArea).isZero() || space.daylight.zones.length > 0);
@@ -770,6 +799,45 @@ function daylightPart(input: PackageInput): FileChild[] {
         landscapeWidth,
       ),
     );
+  }
+  if (drawings.size > 0) {
+    children.push(
+      heading('Plans of the daylit rooms', 2),
+      para(
+        'Each room to scale, north up, as the Daylight page draws it: windows in blue on their walls, skylights crossed, the zones hatched (P primary sidelit, S secondary sidelit, T toplit).',
+      ),
+    );
+    for (const space of zoned) {
+      const drawing = drawings.get(space.id);
+      if (!drawing) continue;
+      // About 6.5 in wide on the page, whatever the pixels.
+      const shown = { width: 624, height: Math.round((624 * drawing.height) / drawing.width) };
+      children.push(
+        new Paragraph({ keepNext: true, spacing: { before: 120, after: 40 }, children: [new TextRun({ text: space.name, bold: true })] }),
+        new Paragraph({
+          children: [
+            new ImageRun({
+              type: 'png',
+              data: drawing.png,
+              transformation: shown,
+              altText: {
+                name: `Plan of ${space.name}`,
+                title: `Daylight zones of ${space.name}`,
+                description: `The daylight zones of ${space.name} on its plan.`,
+              },
+            }),
+          ],
+        }),
+      );
+    }
+    const undrawn = zoned.filter((space) => space.daylight.geometryEvaluated && !drawings.has(space.id)).length;
+    if (undrawn > 0) {
+      children.push(
+        para(
+          `The package draws the plans of the first ${maxPlanDrawings} daylit rooms; the other ${undrawn} are given by their zone outlines above and drawn on the Daylight page.`,
+        ),
+      );
+    }
   }
   const unevaluated = spaces.filter((space) => !space.daylight.geometryEvaluated);
   if (unevaluated.length > 0) {
