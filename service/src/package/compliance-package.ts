@@ -96,15 +96,18 @@ async function planDrawings(input: PackageInput): Promise<Map<string, PlanDrawin
       return entry?.length !== undefined && entry.width !== undefined ? [{ space, entry, length: entry.length, width: entry.width }] : [];
     })
     .slice(0, maxPlanDrawings);
-  const drawings = await Promise.all(
-    drawn.map(({ space, entry, length, width }) =>
-      planDrawing(
+  // One at a time: a handful of milliseconds each, and libvips holds one picture's pixels at once.
+  const drawings = new Map<string, PlanDrawing>();
+  for (const { space, entry, length, width } of drawn) {
+    drawings.set(
+      space.id,
+      await planDrawing(
         { length: Number(length), width: Number(width), windows: entry.windows, skylights: entry.skylights, zones: space.daylight.zones },
         { length: withUnits.length(length, result.units), width: withUnits.length(width, result.units), unit: units.length },
       ),
-    ),
-  );
-  return new Map(drawn.map(({ space }, index) => [space.id, drawings[index]!]));
+    );
+  }
+  return drawings;
 }
 
 function packageDocument(input: PackageInput, options: CompliancePackageOptions, drawings: ReadonlyMap<string, PlanDrawing>): Document {
