@@ -74,11 +74,11 @@ export function planSvg(plan: Plan, labels: { length: string; width: string; uni
   return parts.join('');
 }
 
-/** The plan rendered at 1.25 times its drawing size (about 800 px wide), sharp enough to print at the page's width. */
+/** The plan rendered at 1.25 times its drawing size (SVG is read at 72 dpi: density 90), about 800 px wide, sharp enough to print at the page's width. */
 export async function planDrawing(input: PlanInput, labels: { length: string; width: string; unit: string }): Promise<PlanDrawing> {
   const plan = planGeometry(input);
   const svg = planSvg(plan, labels);
-  const png = await sharp(Buffer.from(svg), { density: 120 }).png({ compressionLevel: 6 }).toBuffer();
+  const png = await sharp(Buffer.from(svg), { density: 90 }).png({ compressionLevel: 6 }).toBuffer();
   const meta = await sharp(png).metadata();
   return { png, width: meta.width ?? Math.round(plan.viewWidth * 2), height: meta.height ?? Math.round(plan.viewHeight * 2) };
 }
