@@ -8,6 +8,7 @@ import { apiInterceptor } from '../../core/http/api-interceptor';
 import { ProjectStore } from '../workspace/project-store';
 import type { FieldTestRecord, TestPlanItem, TestPlanView } from './field-tests-api';
 import { FieldTestsPage } from './field-tests-page';
+import { completedAt } from './field-tests-words';
 
 // An invented project, its spaces and a small plan.
 const project = {
@@ -215,9 +216,29 @@ describe('FieldTestsPage', () => {
     };
     const view = plan([sensorItem([passed])]);
     await open('engineer', { ...view, progress: { ...view.progress, complete: true } });
-    expect(element.querySelector('[data-testid="testing-complete"]')?.textContent).toContain('Testing complete');
+    const banner = element.querySelector('[data-testid="testing-complete"]')!.textContent!.replace(/\s+/g, ' ');
+    expect(banner).toContain('Testing complete: every required test has passed, the last on Mar 2, 2026.');
     expect(text()).toContain('All tests: 1 of 1 passed.');
     expect(text()).toContain('by someone no longer on the team');
+  });
+
+  it('dates the completion by the last required pass, not by a later test of an item outside the sample', () => {
+    const at = (id: string, when: string): FieldTestRecord => ({
+      id,
+      itemId: sensorId,
+      result: 'pass',
+      measured: {},
+      lightLevelUnit: null,
+      notes: null,
+      by: null,
+      at: when,
+    });
+    const required = sensorItem([at('1', '2026-03-04T09:00:00Z')]);
+    const earlier = { ...sensorItem([at('2', '2026-03-01T09:00:00Z')]), id: 'other' };
+    const optional = { ...sensorItem([at('3', '2026-03-09T09:00:00Z')]), id: 'optional', required: false, sample: false };
+    const view = plan([earlier, required, optional]);
+    expect(completedAt({ ...view, progress: { ...view.progress, complete: true } })).toBe('2026-03-04T09:00:00Z');
+    expect(completedAt(view)).toBeNull();
   });
 
   it('gives a member who is not the contractor no recording controls', async () => {

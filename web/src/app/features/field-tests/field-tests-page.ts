@@ -13,6 +13,7 @@ import { ProjectStore } from '../workspace/project-store';
 import { FieldTestsApi, type MeasuredValues, type TestKind, type TestPlanItem, type TestPlanView } from './field-tests-api';
 import {
   checkMeasured,
+  completedAt,
   groupWords,
   lightUnit,
   measuredByKind,
@@ -63,6 +64,7 @@ export class FieldTestsPage {
   protected readonly groupWords = groupWords;
   protected readonly progressWords = progressWords;
   protected readonly progressPercent = progressPercent;
+  protected readonly completedAt = completedAt;
 
   protected readonly state = signal<PlanState>({ status: 'loading' });
   protected readonly plan = computed(() => {
