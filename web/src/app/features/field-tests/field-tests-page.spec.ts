@@ -8,6 +8,7 @@ import { apiInterceptor } from '../../core/http/api-interceptor';
 import { ProjectStore } from '../workspace/project-store';
 import type { FieldTestRecord, TestPlanItem, TestPlanView } from './field-tests-api';
 import { FieldTestsPage } from './field-tests-page';
+import { completedAt } from './field-tests-words';
 
 // An invented project, its spaces and a small plan.
 const project = {
@@ -215,9 +216,71 @@ describe('FieldTestsPage', () => {
     };
     const view = plan([sensorItem([passed])]);
     await open('engineer', { ...view, progress: { ...view.progress, complete: true } });
-    expect(element.querySelector('[data-testid="testing-complete"]')?.textContent).toContain('Testing complete');
+    const banner = element.querySelector('[data-testid="testing-complete"]')!.textContent!.replace(/\s+/g, ' ');
+    expect(banner).toContain('Testing complete: every required test has passed, the last on Mar 2, 2026.');
     expect(text()).toContain('All tests: 1 of 1 passed.');
     expect(text()).toContain('by someone no longer on the team');
+  });
+
+  it('dates the completion by the last required pass, not by a later test of an item outside the sample', () => {
+    const at = (id: string, when: string): FieldTestRecord => ({
+      id,
+      itemId: sensorId,
+      result: 'pass',
+      measured: {},
+      lightLevelUnit: null,
+      notes: null,
+      by: null,
+      at: when,
+    });
+    const required = sensorItem([at('1', '2026-03-04T09:00:00Z')]);
+    const earlier = { ...sensorItem([at('2', '2026-03-01T09:00:00Z')]), id: 'other' };
+    const optional = { ...sensorItem([at('3', '2026-03-09T09:00:00Z')]), id: 'optional', required: false, sample: false };
+    const view = plan([earlier, required, optional]);
+    expect(completedAt({ ...view, progress: { ...view.progress, complete: true } })).toBe('2026-03-04T09:00:00Z');
+    expect(completedAt(view)).toBeNull();
+  });
+
+  it('keeps a result taken without a connection, says it waits, and sends it when the connection returns', async () => {
+    await open('contractor', plan([sensorItem()]));
+    element.querySelector<HTMLButtonElement>('[data-testid="record-test"]')!.click();
+    await fixture.whenStable();
+    element.querySelector<HTMLButtonElement>('[data-testid="record-fail"] button')!.click();
+    await fixture.whenStable();
+    element.querySelector<HTMLButtonElement>('[data-testid="record-save"]')!.click();
+    await fixture.whenStable();
+    http.expectOne((candidate) => candidate.method === 'PATCH').error(new ProgressEvent('error'), { status: 0, statusText: '' });
+
+    const waiting = () => element.querySelector('[data-testid="queue-waiting"]')?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
+    await expect.poll(async () => (await fixture.whenStable(), waiting())).toContain('1 result waits for a connection.');
+    expect(element.querySelector('[data-testid="queued-result"]')?.textContent).toContain('Failed, waiting to be sent');
+    expect(element.querySelector('[data-testid="record-form"]')).toBeNull();
+
+    window.dispatchEvent(new Event('online'));
+    const failed: FieldTestRecord = {
+      id: '1',
+      itemId: sensorId,
+      result: 'fail',
+      measured: {},
+      lightLevelUnit: null,
+      notes: null,
+      by: { id: 'u1', name: 'Tomas Reyes' },
+      at: new Date().toISOString(),
+    };
+    const after = plan([sensorItem([failed])], true);
+    let resent: ReturnType<HttpTestingController['match']> = [];
+    await expect.poll(() => (resent = http.match((candidate) => candidate.method === 'PATCH')).length).toBe(1);
+    expect(resent[0]!.request.body).toEqual({ result: 'fail' });
+    resent[0]!.flush({ item: after.items[0], group: after.groups[0], notices: after.notices, progress: after.progress });
+    let reread: ReturnType<HttpTestingController['match']> = [];
+    await expect.poll(() => (reread = http.match('/api/projects/p1/test-plan')).length).toBe(1);
+    reread[0]!.flush(after);
+    await expect
+      .poll(async () => (await fixture.whenStable(), element.querySelector('[data-testid="queue-sent"]')?.textContent ?? ''))
+      .toContain('1 waiting result was sent.');
+    expect(waiting()).toBe('');
+    expect(element.querySelector('[data-testid="queued-result"]')).toBeNull();
+    expect(element.querySelector('[data-testid="latest-result"]')?.textContent).toContain('Failed');
   });
 
   it('gives a member who is not the contractor no recording controls', async () => {

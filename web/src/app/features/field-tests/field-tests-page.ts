@@ -1,6 +1,7 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { firstValueFrom } from 'rxjs';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -10,9 +11,18 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { failureWords } from '../../shared/write-failure';
 import { ProjectStore } from '../workspace/project-store';
-import { FieldTestsApi, type MeasuredValues, type TestKind, type TestPlanItem, type TestPlanView } from './field-tests-api';
+import { FieldTestQueue, isOffline, queueLimit } from './field-test-queue';
+import {
+  FieldTestsApi,
+  type FieldTestInput,
+  type MeasuredValues,
+  type TestKind,
+  type TestPlanItem,
+  type TestPlanView,
+} from './field-tests-api';
 import {
   checkMeasured,
+  completedAt,
   groupWords,
   lightUnit,
   measuredByKind,
@@ -56,6 +66,7 @@ export class FieldTestsPage {
   protected readonly store = inject(ProjectStore);
   private readonly api = inject(FieldTestsApi);
   private readonly destroyRef = inject(DestroyRef);
+  protected readonly queue = inject(FieldTestQueue);
 
   protected readonly measuredFields = measuredFields;
   protected readonly measuredWords = measuredWords;
@@ -63,6 +74,7 @@ export class FieldTestsPage {
   protected readonly groupWords = groupWords;
   protected readonly progressWords = progressWords;
   protected readonly progressPercent = progressPercent;
+  protected readonly completedAt = completedAt;
 
   protected readonly state = signal<PlanState>({ status: 'loading' });
   protected readonly plan = computed(() => {
@@ -93,13 +105,68 @@ export class FieldTestsPage {
     }));
   });
 
+  /** This project's results waiting for a connection, and what sending the others met. */
+  protected readonly waiting = computed(() => this.queue.waiting().filter((entry) => entry.projectId === this.store.projectId()));
+  protected readonly conflicts = computed(() => this.queue.conflicts().filter((entry) => entry.projectId === this.store.projectId()));
+  private readonly waitingByItem = computed(() => new Map(this.waiting().map((entry) => [entry.itemId, entry])));
+  protected readonly waitingWords = computed(() => {
+    const count = this.waiting().length;
+    if (count === 0) return '';
+    const words = count === 1 ? '1 result waits for a connection.' : `${count.toLocaleString('en-US')} results wait for a connection.`;
+    return this.queue.lasting ? words : `${words} This browser keeps them only while the page stays open.`;
+  });
+  /** How many the last sending took, in words, until the next result is taken. */
+  protected readonly sentWords = signal('');
+
   private readonly spaceNames = computed(() => new Map(this.store.spaces().map((space) => [space.id, space.name])));
 
   constructor() {
     effect(() => {
       const projectId = this.store.projectId();
-      if (projectId) untracked(() => this.load(projectId));
+      if (projectId)
+        untracked(() => {
+          this.load(projectId);
+          void this.sendWaiting(projectId);
+        });
     });
+    const online = () => {
+      const projectId = this.store.projectId();
+      if (projectId) void this.sendWaiting(projectId);
+    };
+    window.addEventListener('online', online);
+    this.destroyRef.onDestroy(() => window.removeEventListener('online', online));
+  }
+
+  /** The queued result of an item, while it waits to be sent. */
+  protected waitingOf(itemId: string): FieldTestInput | null {
+    return this.waitingByItem().get(itemId)?.input ?? null;
+  }
+
+  /** Sends the results kept while offline, in order; the plan is read again when any was taken. */
+  protected async sendWaiting(projectId: string): Promise<void> {
+    const conflictsBefore = this.conflicts().length;
+    const sent = await this.queue.flush(projectId, (entry) => firstValueFrom(this.api.record(entry.projectId, entry.itemId, entry.input)));
+    if (sent > 0)
+      this.sentWords.set(sent === 1 ? '1 waiting result was sent.' : `${sent.toLocaleString('en-US')} waiting results were sent.`);
+    if (sent > 0 || this.conflicts().length !== conflictsBefore) this.load(projectId);
+  }
+
+  protected dismiss(id: string): void {
+    void this.queue.dismiss(id);
+  }
+
+  /** Keeps the result in the browser until the connection returns. */
+  private async keep(projectId: string, item: TestPlanItem, input: FieldTestInput): Promise<void> {
+    const kept = await this.queue.add({ projectId, itemId: item.id, itemTitle: item.title, input, takenAt: new Date().toISOString() });
+    this.saving.set(false);
+    if (!kept) {
+      this.refusal.set({
+        itemId: item.id,
+        message: `This browser already keeps ${queueLimit} results waiting for a connection: send those before taking more.`,
+      });
+      return;
+    }
+    this.draft.set(null);
   }
 
   private load(projectId: string): void {
@@ -179,12 +246,21 @@ export class FieldTestsPage {
     }
     this.saving.set(true);
     this.refusal.set(null);
+    this.sentWords.set('');
+    const input: FieldTestInput = {
+      result: draft.result,
+      ...(Object.keys(measured).length > 0 ? { measured } : {}),
+      ...(notes ? { notes } : {}),
+    };
+    // Offline, or earlier results still waiting: this one waits behind them, so they are sent in the order taken.
+    if (navigator.onLine === false || this.waiting().length > 0) {
+      void this.keep(projectId, item, input).then(() => {
+        if (navigator.onLine !== false) void this.sendWaiting(projectId);
+      });
+      return;
+    }
     this.api
-      .record(projectId, item.id, {
-        result: draft.result,
-        ...(Object.keys(measured).length > 0 ? { measured } : {}),
-        ...(notes ? { notes } : {}),
-      })
+      .record(projectId, item.id, input)
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({
         next: () => {
@@ -194,6 +270,10 @@ export class FieldTestsPage {
           this.load(projectId);
         },
         error: (error: unknown) => {
+          if (isOffline(error)) {
+            void this.keep(projectId, item, input);
+            return;
+          }
           this.saving.set(false);
           this.refusal.set({ itemId: item.id, message: failureWords(error) });
         },

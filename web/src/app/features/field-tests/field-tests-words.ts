@@ -1,4 +1,4 @@
-import type { FieldTestRecord, KindProgress, MeasuredValues, TestKind, TestPlanGroup, TestProgress } from './field-tests-api';
+import type { FieldTestRecord, KindProgress, MeasuredValues, TestKind, TestPlanGroup, TestPlanView, TestProgress } from './field-tests-api';
 
 export type MeasuredField = keyof MeasuredValues;
 
@@ -77,4 +77,15 @@ export function checkMeasured(field: MeasuredField, text: string): { ok: true; v
   if (/\.\d{3,}$/.test(trimmed)) return { ok: false, message: `${label}: at most two decimal places.` };
   if (Number(trimmed) > max) return { ok: false, message: `${label}: at most ${max.toLocaleString('en-US')}.` };
   return { ok: true, value: trimmed };
+}
+
+/** When the last required item passed, once every required item has: the time of the latest of their passing results. */
+export function completedAt(plan: Pick<TestPlanView, 'items' | 'progress'>): string | null {
+  if (!plan.progress.complete) return null;
+  let latest: string | null = null;
+  for (const item of plan.items) {
+    if (!item.required || item.result?.result !== 'pass') continue;
+    if (latest === null || Date.parse(item.result.at) > Date.parse(latest)) latest = item.result.at;
+  }
+  return latest;
 }
