@@ -24,6 +24,7 @@ import * as reviewDigest from './20261203002000_review_digest.js';
 import * as invitations from './20261203003000_invitations.js';
 import * as packageRevisions from './20261203005000_package_revisions.js';
 import * as fieldTests from './20261203006000_field_tests.js';
+import * as fieldTestPhotos from './20261203008000_field_test_photos.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -57,6 +58,7 @@ const migrations: Record<string, Migration> = {
   '20261203003000_invitations': invitations,
   '20261203005000_package_revisions': packageRevisions,
   '20261203006000_field_tests': fieldTests,
+  '20261203008000_field_test_photos': fieldTestPhotos,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

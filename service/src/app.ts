@@ -139,7 +139,7 @@ export function createApp({
   api.use('/projects/:projectId', exteriorScheduleRouter(db));
   api.use('/projects/:projectId', reviewItemsRouter(db));
   api.use('/review-desk', reviewDeskRouter(db));
-  api.use('/projects/:projectId', fieldTestsRouter(db));
+  api.use('/projects/:projectId', fieldTestsRouter(db, storage));
   api.use('/projects/:projectId', packageRouter(db, storage, { appUrl: config.APP_URL, mailQueued }));
   api.use('/projects/:projectId', liveRouter(db, changes));
   api.use('/evaluate', evaluateRouter(db));
