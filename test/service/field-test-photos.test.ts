@@ -1,4 +1,5 @@
 import type { Express } from 'express';
+import JSZip from 'jszip';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { freePort } from '../../service/ops/postgres.mjs';
@@ -210,4 +211,36 @@ describe('field test photos', () => {
     expect(await photoCount()).toBe(before);
     expect(await database.db('audit_log').where({ action: 'add-photo' }).count<{ count: string }[]>('id as count')).toEqual(auditBefore);
   });
+});
+
+describe('the field test record', () => {
+  it(
+    'is a Word document with every item’s title and result, a photo as media, the cautions and signature lines',
+    { timeout: 90_000 },
+    async () => {
+      const response = await reviewer.agent.get(`/api/projects/${projectId}/test-plan/record`).responseType('blob');
+      expect(response.status).toBe(200);
+      expect(response.headers['content-disposition']).toContain('Alder Bay Library');
+      expect(response.headers['content-disposition']).toContain('field test record.docx');
+      const zip = await JSZip.loadAsync(response.body as Buffer);
+      const xml = await zip.file('word/document.xml')!.async('string');
+      const text = xml
+        .replace(/<[^>]+>/g, ' ')
+        .replace(/&amp;/g, '&')
+        .replace(/&apos;|&#39;/g, "'")
+        .replace(/\s+/g, ' ');
+      const plan = await reviewer.agent.get(`/api/projects/${projectId}/test-plan`);
+      for (const item of plan.body.items as { title: string; result?: { result: string } }[]) {
+        expect(text).toContain(item.title.replace(/\s+/g, ' '));
+      }
+      expect(text).toContain('Result: Passed');
+      expect(text).toContain('Result: Not tested yet');
+      expect(text).toContain('Sensor above the door');
+      expect(text).toContain('Commissioning agent');
+      expect(text).toContain('Owner’s representative');
+      expect(text).toContain('Cautions');
+      const media = Object.keys(zip.files).filter((name) => name.startsWith('word/media/'));
+      expect(media.length).toBeGreaterThan(0);
+    },
+  );
 });

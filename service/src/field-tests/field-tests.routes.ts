@@ -11,7 +11,10 @@ import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { AppError } from '../http/app-error.js';
 import { idParam, parse } from '../http/validate.js';
+import { attachment } from '../package/content-disposition.js';
+import { packageCautions } from '../package/package-words.js';
 import type { FileStorage } from '../package/storage.js';
+import { fieldTestRecordDocx, recordPhotoLimit } from './field-test-record.js';
 import {
   testKindLabels,
   testKinds,
@@ -25,7 +28,7 @@ import {
   photoCaptionMax,
   photoMaxBytes,
 } from '../../../contract/field-tests.js';
-import { addPhoto, listPhotos, readPhoto, removePhoto, type PhotoSize } from './field-test-photos.js';
+import { addPhoto, displayCopies, listPhotos, readPhoto, removePhoto, type PhotoSize } from './field-test-photos.js';
 import { listFieldTests, recordFieldTest } from './field-tests.repository.js';
 import { buildTestPlan } from './test-plan.js';
 
@@ -99,6 +102,11 @@ function progressOf(items: readonly TestPlanItemView[], kind?: TestKind): Omit<K
 
 /** The plan of the project as its design now is, with the results recorded so far attached by item id. */
 async function planView(db: Database, projectId: string): Promise<TestPlanView> {
+  return (await planContext(db, projectId)).view;
+}
+
+/** The plan view with the evaluation it was made from and the edition's title. */
+async function planContext(db: Database, projectId: string) {
   const input = await projectDocument(db, projectId);
   const tables = await loadEditionData(db, input.edition);
   if (!tables) throw new Refused('The project’s code edition is not loaded.');
@@ -123,7 +131,8 @@ async function planView(db: Database, projectId: string): Promise<TestPlanView> 
     kinds: kinds.map((kind) => ({ kind, label: testKindLabels[kind], ...progressOf(items, kind) })),
   };
   const notices = [...plan.groups.filter((group) => group.widened).map((group) => group.words), ...plan.gaps];
-  return { items, groups: plan.groups, gaps: plan.gaps, notices, progress };
+  const view: TestPlanView = { items, groups: plan.groups, gaps: plan.gaps, notices, progress };
+  return { view, result, edition: tables.title };
 }
 
 /**
@@ -201,6 +210,24 @@ export function fieldTestsRouter(db: Database, storage: FileStorage): Router {
     const title = plan.items.find((item) => item.id === itemId.data)?.title ?? itemId.data;
     await removePhoto(db, storage, projectId, { id: itemId.data, title }, photoId, { userId: currentSession(req).user.id, role });
     res.status(204).end();
+  });
+
+  router.get('/test-plan/record', requireProjectAction('read'), async (req, res) => {
+    const { projectId } = projectAccess(req);
+    const context = await planContext(db, projectId);
+    const project = await db('projects').where({ id: projectId }).first('name', 'address');
+    const photos = await displayCopies(db, storage, projectId, recordPhotoLimit);
+    const data = await fieldTestRecordDocx({
+      project: { name: project!.name, address: project!.address, edition: context.edition },
+      plan: context.view,
+      cautions: packageCautions(context.result),
+      photos,
+      madeAt: new Date(),
+    });
+    res
+      .set('Content-Type', 'application/vnd.openxmlformats-officedocument.wordprocessingml.document')
+      .set('Content-Disposition', attachment(`${project!.name} - field test record.docx`))
+      .send(data);
   });
 
   return router;
