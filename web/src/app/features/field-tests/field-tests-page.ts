@@ -10,6 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { failureWords } from '../../shared/write-failure';
 import { ProjectStore } from '../workspace/project-store';
+import { FieldTestPhotos } from './field-test-photos';
 import { FieldTestsApi, type MeasuredValues, type TestKind, type TestPlanItem, type TestPlanView } from './field-tests-api';
 import {
   checkMeasured,
@@ -40,6 +41,7 @@ const emptyMeasured = (): Record<MeasuredField, string> => ({ timeoutMinutes: ''
   selector: 'al-field-tests-page',
   imports: [
     DatePipe,
+    FieldTestPhotos,
     FormsModule,
     MatButtonModule,
     MatButtonToggleModule,
