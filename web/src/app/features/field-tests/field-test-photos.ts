@@ -13,9 +13,9 @@ import { failureWords } from '../../shared/write-failure';
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <div class="photos" data-testid="field-test-photos">
-      @if (photos().length > 0) {
+      @if (shown().length > 0) {
         <ul class="thumbs">
-          @for (photo of photos(); track photo.id) {
+          @for (photo of shown(); track photo.id) {
             <li>
               <a [href]="url(photo, 'display')" target="_blank" rel="noopener">
                 <img [src]="url(photo, 'thumb')" [alt]="altOf(photo)" loading="lazy" data-testid="field-test-thumb" />
@@ -30,7 +30,7 @@ import { failureWords } from '../../shared/write-failure';
         </ul>
       }
       @if (canRecord()) {
-        @if (photos().length < max) {
+        @if (shown().length < max) {
           <label class="add" mat-stroked-button>
             <mat-icon aria-hidden="true">add_a_photo</mat-icon>
             <span>Add photo</span>
@@ -105,19 +105,20 @@ export class FieldTestPhotos {
   readonly projectId = input.required<string>();
   readonly itemId = input.required<string>();
   readonly itemTitle = input.required<string>();
-  readonly initial = input<FieldTestPhoto[]>([], { alias: 'photos' });
+  readonly photos = input<FieldTestPhoto[]>([]);
   readonly canRecord = input(false);
 
   protected readonly max = photosPerItem;
-  protected readonly photos = signal<FieldTestPhoto[]>([]);
+  /** The photos as shown: the plan's, then what was added or removed here. */
+  protected readonly shown = signal<FieldTestPhoto[]>([]);
   protected readonly busy = signal(false);
   protected readonly message = signal<string | null>(null);
   private readonly base = computed(() => `/api/projects/${this.projectId()}/test-plan/items/${encodeURIComponent(this.itemId())}/photos`);
 
   constructor() {
     effect(() => {
-      const photos = this.initial();
-      untracked(() => this.photos.set(photos));
+      const photos = this.photos();
+      untracked(() => this.shown.set(photos));
     });
   }
 
@@ -147,7 +148,7 @@ export class FieldTestPhotos {
     this.http.post<FieldTestPhoto>(this.base(), file, { headers: new HttpHeaders({ 'Content-Type': file.type }) }).subscribe({
       next: (photo) => {
         this.busy.set(false);
-        this.photos.update((photos) => [...photos, photo]);
+        this.shown.update((photos) => [...photos, photo]);
       },
       error: (error: unknown) => {
         this.busy.set(false);
@@ -162,7 +163,7 @@ export class FieldTestPhotos {
     this.http.delete(`${this.base()}/${photo.id}`).subscribe({
       next: () => {
         this.busy.set(false);
-        this.photos.update((photos) => photos.filter((entry) => entry.id !== photo.id));
+        this.shown.update((photos) => photos.filter((entry) => entry.id !== photo.id));
       },
       error: (error: unknown) => {
         this.busy.set(false);
