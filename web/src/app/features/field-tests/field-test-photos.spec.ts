@@ -90,17 +90,15 @@ describe('FieldTestPhotos', () => {
     expect(refusal()).toContain('larger than 10 MB');
     pick(new File([new Uint8Array([1, 2, 3])], 'fake.png', { type: 'image/png' }));
     await fixture.whenStable();
-    http
-      .expectOne(base)
-      .flush(
-        {
-          error: {
-            code: 'validation_failed',
-            message: 'This file is not a JPEG or PNG photo. Take the photo again or choose a JPEG or PNG file.',
-          },
+    http.expectOne(base).flush(
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'This file is not a JPEG or PNG photo. Take the photo again or choose a JPEG or PNG file.',
         },
-        { status: 400, statusText: 'Bad Request' },
-      );
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
     expect(refusal()).toContain('This file is not a JPEG or PNG photo');
     expect(refusal()).not.toMatch(/validation_failed|\/api\//);
