@@ -74,8 +74,30 @@ export interface TestPlanGroup {
   itemIds: string[];
 }
 
+/** The most photos one plan item keeps. */
+export const photosPerItem = 20;
+/** The largest photo accepted, in bytes (10 MB). */
+export const photoMaxBytes = 10 * 1024 * 1024;
+/** The longest caption, in characters. */
+export const photoCaptionMax = 300;
+
+/** A photo of a plan item, as the plan lists it; its copies are read at `…/photos/:id?size=thumb|display|original`. */
+export interface FieldTestPhoto {
+  id: string;
+  caption: string | null;
+  at: string;
+  by: { id: string; name: string } | null;
+  /** The display copy's size in pixels. */
+  width: number;
+  height: number;
+  /** The test the item had when the photo was added, if any. */
+  resultId: string | null;
+}
+
 /** A plan item with what the field record holds for it. */
 export interface TestPlanItemView extends TestPlanItem {
+  /** The item's photos, oldest first. */
+  photos: FieldTestPhoto[];
   /** The latest test, which counts; absent until the item is tested. */
   result?: FieldTestRecord;
   /** Every test of the item, oldest first. */

@@ -27,6 +27,7 @@ import * as fieldTests from './20261203006000_field_tests.js';
 import * as luminaireCutSheets from './20261203007000_luminaire_cut_sheets.js';
 import * as packageJobs from './20261203009000_package_jobs.js';
 import * as exteriorScheduleSettings from './20261203011000_exterior_schedule_settings.js';
+import * as fieldTestPhotos from './20261203008000_field_test_photos.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -63,6 +64,7 @@ const migrations: Record<string, Migration> = {
   '20261203007000_luminaire_cut_sheets': luminaireCutSheets,
   '20261203009000_package_jobs': packageJobs,
   '20261203011000_exterior_schedule_settings': exteriorScheduleSettings,
+  '20261203008000_field_test_photos': fieldTestPhotos,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

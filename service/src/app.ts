@@ -145,7 +145,7 @@ export function createApp({
   api.use('/projects/:projectId', exteriorScheduleRouter(db));
   api.use('/projects/:projectId', reviewItemsRouter(db));
   api.use('/review-desk', reviewDeskRouter(db));
-  api.use('/projects/:projectId', fieldTestsRouter(db));
+  api.use('/projects/:projectId', fieldTestsRouter(db, storage));
   api.use(
     '/projects/:projectId',
     packageRouter(db, storage, { appUrl: config.APP_URL, mailQueued, jobs: packageJobs, jobMinSpaces: config.PACKAGE_JOB_MIN_SPACES }),

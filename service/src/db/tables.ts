@@ -522,6 +522,27 @@ export interface ExteriorScheduleSettingsRow {
   updated_at: Date;
 }
 
+/** A photo of a plan item: the original and its two copies in the file store, under keys the service made. */
+export interface FieldTestPhotoRow {
+  id: string;
+  project_id: string;
+  item_id: string;
+  /** The item's latest test when the photo was added, if it had one. */
+  result_id: string | null;
+  caption: string | null;
+  content_type: 'image/jpeg' | 'image/png';
+  size_bytes: number;
+  sha256: string;
+  /** The display copy's size in pixels. */
+  width: number;
+  height: number;
+  original_key: string;
+  display_key: string;
+  thumb_key: string;
+  added_by: string | null;
+  added_at: Date;
+}
+
 /**
  * How a project or design row is written: NUMERIC columns as decimal text (as they are read), JSON
  * columns as JSON text, and any column may be left out for its default or be a database expression.
@@ -561,6 +582,7 @@ declare module 'knex/types/tables.js' {
     luminaire_cut_sheets: StoredTable<LuminaireCutSheetRow>;
     exterior_schedule_settings: StoredTable<ExteriorScheduleSettingsRow, 'settings'>;
     package_jobs: StoredTable<PackageJobRow>;
+    field_test_photos: StoredTable<FieldTestPhotoRow>;
     audit_log: AuditLogRow;
     invitations: InvitationRow;
     code_editions: CodeTable<CodeEditionRow>;

@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import express, { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
 import { loadEditionData } from '../code-tables/code-tables.repository.js';
 import { boundedDecimal, textField } from '../compliance/bounds.js';
@@ -9,7 +9,12 @@ import { NotFound, Refused } from '../domain-errors.js';
 import { notComputedMessage } from '../evaluation/evaluation.service.js';
 import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
-import { parse } from '../http/validate.js';
+import { AppError } from '../http/app-error.js';
+import { idParam, parse } from '../http/validate.js';
+import { attachment } from '../package/content-disposition.js';
+import { packageCautions } from '../package/package-words.js';
+import type { FileStorage } from '../package/storage.js';
+import { fieldTestRecordDocx, recordPhotoLimit } from './field-test-record.js';
 import {
   testKindLabels,
   testKinds,
@@ -20,8 +25,11 @@ import {
   type TestPlanGroup,
   type TestPlanItemView,
   type TestPlanView,
+  photoCaptionMax,
+  photoMaxBytes,
 } from '../../../contract/field-tests.js';
 import { scheduleSettings } from '../exterior-schedule/schedule-settings.repository.js';
+import { addPhoto, displayCopies, listPhotos, readPhoto, removePhoto, type PhotoSize } from './field-test-photos.js';
 import { listFieldTests, recordFieldTest } from './field-tests.repository.js';
 import { buildTestPlan } from './test-plan.js';
 
@@ -62,6 +70,30 @@ const itemIdSchema = z
   .max(300)
   .regex(/^[a-z-]+:[a-z-]+:[A-Za-z0-9._-]+(:\d{1,6})?$/);
 
+const photoTooLarge = () =>
+  new AppError(413, 'payload_too_large', 'This photo is larger than 10 MB. Take it at a smaller size, or choose a smaller file.');
+
+/**
+ * A photo's bytes as they arrive (JPEG or PNG), at most 10 MB: a declared length over that is
+ * refused before anything is read, and a body that turns out longer is cut off at the limit.
+ */
+const photoBody: RequestHandler[] = [
+  (req, _res, next) => {
+    const declared = Number(req.get('content-length') ?? '0');
+    if (Number.isFinite(declared) && declared > photoMaxBytes) throw photoTooLarge();
+    if (!req.is(['image/jpeg', 'image/png'])) throw AppError.badRequest('Send the photo as a JPEG or PNG image.');
+    next();
+  },
+  (req, res, next) =>
+    express.raw({ type: ['image/jpeg', 'image/png'], limit: photoMaxBytes })(req, res, (error?: unknown) => {
+      if (error && (error as { status?: number }).status === 413) return next(photoTooLarge());
+      next(error);
+    }),
+];
+
+const captionSchema = z.strictObject({ caption: textField(photoCaptionMax).optional() });
+const sizeSchema = z.enum(['thumb', 'display', 'original'], { error: 'Ask for the thumb, display or original size.' });
+
 function progressOf(items: readonly TestPlanItemView[], kind?: TestKind): Omit<KindProgress, 'kind' | 'label'> {
   const required = items.filter((item) => item.required && (kind === undefined || item.kind === kind));
   const passed = required.filter((item) => item.result?.result === 'pass').length;
@@ -71,20 +103,29 @@ function progressOf(items: readonly TestPlanItemView[], kind?: TestKind): Omit<K
 
 /** The plan of the project as its design now is, with the results recorded so far attached by item id. */
 async function planView(db: Database, projectId: string): Promise<TestPlanView> {
+  return (await planContext(db, projectId)).view;
+}
+
+/** The plan view with the evaluation it was made from and the edition's title. */
+async function planContext(db: Database, projectId: string) {
   const input = await projectDocument(db, projectId);
   const tables = await loadEditionData(db, input.edition);
   if (!tables) throw new Refused('The project’s code edition is not loaded.');
   const outcome = validateDocument(input, tables);
   if (!outcome.valid) throw new Refused(notComputedMessage, outcome.problems);
   const result = evaluate(outcome.document, tables);
-  const [records, schedule] = await Promise.all([listFieldTests(db, projectId), scheduleSettings(db, projectId)]);
+  const [records, schedule, photos] = await Promise.all([
+    listFieldTests(db, projectId),
+    scheduleSettings(db, projectId),
+    listPhotos(db, projectId),
+  ]);
   const plan = buildTestPlan(projectId, outcome.document, result, records, schedule.settings);
   const byItem = new Map<string, FieldTestRecord[]>();
   for (const record of records) byItem.set(record.itemId, [...(byItem.get(record.itemId) ?? []), record]);
   const items: TestPlanItemView[] = plan.items.map((item) => {
     const history = byItem.get(item.id) ?? [];
     const latest = history[history.length - 1];
-    return { ...item, ...(latest ? { result: latest } : {}), history };
+    return { ...item, ...(latest ? { result: latest } : {}), history, photos: photos.get(item.id) ?? [] };
   });
   const kinds = testKinds.filter((kind) => items.some((item) => item.kind === kind));
   const overall = progressOf(items);
@@ -94,7 +135,8 @@ async function planView(db: Database, projectId: string): Promise<TestPlanView> 
     kinds: kinds.map((kind) => ({ kind, label: testKindLabels[kind], ...progressOf(items, kind) })),
   };
   const notices = [...plan.groups.filter((group) => group.widened).map((group) => group.words), ...plan.gaps];
-  return { items, groups: plan.groups, gaps: plan.gaps, notices, progress };
+  const view: TestPlanView = { items, groups: plan.groups, gaps: plan.gaps, notices, progress };
+  return { view, result, edition: tables.title };
 }
 
 /**
@@ -103,7 +145,7 @@ async function planView(db: Database, projectId: string): Promise<TestPlanView> 
  * /test-plan/items/:itemId` (the contractor records a test: pass or fail, measured values, notes;
  * a retest adds to the item's history).
  */
-export function fieldTestsRouter(db: Database): Router {
+export function fieldTestsRouter(db: Database, storage: FileStorage): Router {
   const router = Router({ mergeParams: true });
 
   router.get('/test-plan', requireProjectAction('read'), async (req, res) => {
@@ -131,6 +173,65 @@ export function fieldTestsRouter(db: Database): Router {
     const group: TestPlanGroup | undefined = after.groups.find((entry) => entry.itemIds.includes(item.id));
     const answer: RecordedFieldTest = { item: updated, ...(group ? { group } : {}), notices: after.notices, progress: after.progress };
     res.json(answer);
+  });
+
+  router.post('/test-plan/items/:itemId/photos', requireProjectAction('record-field-tests'), ...photoBody, async (req, res) => {
+    const { projectId, role } = projectAccess(req);
+    const parsedId = itemIdSchema.safeParse(req.params['itemId']);
+    if (!parsedId.success) throw new NotFound('That test item is not in the plan.');
+    const { caption } = parse(captionSchema, req.query);
+    if (!Buffer.isBuffer(req.body) || req.body.length === 0) throw AppError.badRequest('Send the photo as a JPEG or PNG image.');
+    const plan = await planView(db, projectId);
+    const item = plan.items.find((entry) => entry.id === parsedId.data);
+    if (!item) throw new NotFound('That test item is not in the plan.');
+    const added = await addPhoto(
+      db,
+      storage,
+      projectId,
+      { id: item.id, title: item.title, latestResultId: item.result?.id ?? null },
+      { body: req.body, ...(caption ? { caption } : {}) },
+      { userId: currentSession(req).user.id, role },
+    );
+    res.status(201).json(added);
+  });
+
+  router.get('/test-plan/items/:itemId/photos/:photoId', requireProjectAction('read'), async (req, res) => {
+    const { projectId } = projectAccess(req);
+    const itemId = itemIdSchema.safeParse(req.params['itemId']);
+    if (!itemId.success) throw new NotFound('That photo does not exist.');
+    const photoId = idParam(req.params['photoId'], 'That photo');
+    const size: PhotoSize = parse(z.object({ size: sizeSchema.default('display') }), req.query).size;
+    const file = await readPhoto(db, storage, projectId, { itemId: itemId.data, photoId }, size);
+    res.set('Content-Type', file.contentType).set('Cache-Control', 'private, no-store').send(file.data);
+  });
+
+  router.delete('/test-plan/items/:itemId/photos/:photoId', requireProjectAction('record-field-tests'), async (req, res) => {
+    const { projectId, role } = projectAccess(req);
+    const itemId = itemIdSchema.safeParse(req.params['itemId']);
+    if (!itemId.success) throw new NotFound('That photo does not exist.');
+    const photoId = idParam(req.params['photoId'], 'That photo');
+    const plan = await planView(db, projectId);
+    const title = plan.items.find((item) => item.id === itemId.data)?.title ?? itemId.data;
+    await removePhoto(db, storage, projectId, { id: itemId.data, title }, photoId, { userId: currentSession(req).user.id, role });
+    res.status(204).end();
+  });
+
+  router.get('/test-plan/record', requireProjectAction('read'), async (req, res) => {
+    const { projectId } = projectAccess(req);
+    const context = await planContext(db, projectId);
+    const project = await db('projects').where({ id: projectId }).first('name', 'address');
+    const photos = await displayCopies(db, storage, projectId, recordPhotoLimit);
+    const data = await fieldTestRecordDocx({
+      project: { name: project!.name, address: project!.address, edition: context.edition },
+      plan: context.view,
+      cautions: packageCautions(context.result),
+      photos,
+      madeAt: new Date(),
+    });
+    res
+      .set('Content-Type', 'application/vnd.openxmlformats-officedocument.wordprocessingml.document')
+      .set('Content-Disposition', attachment(`${project!.name} - field test record.docx`))
+      .send(data);
   });
 
   return router;

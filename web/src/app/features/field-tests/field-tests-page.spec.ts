@@ -44,6 +44,7 @@ function sensorItem(history: FieldTestRecord[] = []): TestPlanItem {
     expected: 'The lights go off within 20 minutes of the room emptying.',
     section: 'IECC 2021 C408.3.1.1',
     history,
+    photos: [],
     ...(history.length > 0 ? { result: history[history.length - 1] } : {}),
   };
 }

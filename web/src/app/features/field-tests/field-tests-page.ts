@@ -11,6 +11,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { failureWords } from '../../shared/write-failure';
 import { ProjectStore } from '../workspace/project-store';
+import { FieldTestPhotos } from './field-test-photos';
 import { FieldTestQueue, isOffline, queueLimit } from './field-test-queue';
 import {
   FieldTestsApi,
@@ -50,6 +51,7 @@ const emptyMeasured = (): Record<MeasuredField, string> => ({ timeoutMinutes: ''
   selector: 'al-field-tests-page',
   imports: [
     DatePipe,
+    FieldTestPhotos,
     FormsModule,
     MatButtonModule,
     MatButtonToggleModule,
