@@ -1,26 +1,19 @@
 /// <reference lib="dom" />
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import type { Page } from 'playwright-core';
 import JSZip from 'jszip';
 import sharp from 'sharp';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
-import { testApp } from '../support/app.js';
-import { launchBrowser, outputDir, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
-import { freshDatabase, type TestDatabase } from '../support/database.js';
-import { startTestS3, type TestS3 } from '../support/s3.js';
+import { outputDir, type Browser, type Served } from '../support/browser.js';
+import { closeStorageBrowserSuite, openStorageBrowserSuite, signInAs, type StorageBrowserSuite } from '../support/browser-suite.js';
 
-let database: TestDatabase;
-let s3: TestS3;
+let suite: StorageBrowserSuite;
 let served: Served;
 let browser: Browser;
 
 beforeAll(async () => {
-  requireBuiltWebApp();
-  database = await freshDatabase();
-  s3 = await startTestS3();
-  served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist, COOKIE_SECURE: undefined, ...s3.settings }).app);
-  browser = await launchBrowser();
+  suite = await openStorageBrowserSuite();
+  ({ served, browser } = suite);
   browser.page.setDefaultTimeout(30_000);
   // A phone held upright, 390 × 844 CSS pixels.
   await browser.page.setViewportSize({ width: 390, height: 844 });
@@ -32,28 +25,15 @@ afterEach(async (context) => {
 });
 
 afterAll(async () => {
-  try {
-    await browser?.close();
-  } finally {
-    await served?.close();
-    await s3?.stop();
-    await database?.drop();
-  }
+  await closeStorageBrowserSuite(suite);
 });
 
-async function signIn(page: Page, email: string): Promise<void> {
-  await page.context().clearCookies();
-  await page.goto(`${served.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(inject('demoPassword'));
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByTestId('signed-in-user').waitFor();
-}
+const signIn = (email: string) => signInAs(suite, email, inject('demoPassword'));
 
 describe('field test photos on a phone', { timeout: 120_000 }, () => {
   it('lets the contractor add a photo to an item, see its thumbnail and download the record', async () => {
     const { page } = browser;
-    await signIn(page, 'contractor@alderbay.example');
+    await signIn('contractor@alderbay.example');
     const projects = (await (await page.request.get(`${served.baseUrl}/api/projects`)).json()) as { id: string; name: string }[];
     const projectId = projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id;
     await page.goto(`${served.baseUrl}/projects/${projectId}/field-tests`);

@@ -13,7 +13,7 @@ let workspace: string;
 
 beforeAll(async () => {
   ({ database, served, browser } = await openBrowserSuite());
-  browser.page.setDefaultTimeout(8000);
+  browser.page.setDefaultTimeout(30_000);
   // A phone held upright, 390 × 844 CSS pixels (common practice for a current mid-size phone).
   await browser.page.setViewportSize({ width: 390, height: 844 });
 });
@@ -126,7 +126,7 @@ describe('field tests on a phone (390 × 844), with the connection lost for a wh
     await browser.screenshot('field-tests-offline');
 
     await context.setOffline(false);
-    await expect.poll(() => text('queue-sent'), { timeout: 10_000 }).toContain('1 waiting result was sent.');
+    await expect.poll(() => text('queue-sent'), { timeout: 30_000 }).toContain('1 waiting result was sent.');
     expect(await page.getByTestId('queue-waiting').count()).toBe(0);
     await expect.poll(() => text('field-progress')).toContain('All tests: 3 of 59 passed, 1 failed');
     await expect.poll(async () => (await card(switchTitles[2]!).getByTestId('latest-result').textContent())?.trim()).toContain('Passed');

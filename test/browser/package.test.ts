@@ -3,25 +3,21 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
-import { testApp } from '../support/app.js';
-import { launchBrowser, outputDir, requireBuiltWebApp, serve, webDist, type Browser, type Served } from '../support/browser.js';
-import { freshDatabase, type TestDatabase } from '../support/database.js';
+import { outputDir, type Browser, type Served } from '../support/browser.js';
+import { closeStorageBrowserSuite, openStorageBrowserSuite, signInAs, type StorageBrowserSuite } from '../support/browser-suite.js';
+import type { TestDatabase } from '../support/database.js';
 import { pdfPageScreenshots } from '../support/pdf-pages.js';
-import { startTestS3, type TestS3 } from '../support/s3.js';
 
+let suite: StorageBrowserSuite;
 let database: TestDatabase;
-let s3: TestS3;
 let served: Served;
 let browser: Browser;
 let projectUrl = '';
 let projectId = '';
 
 beforeAll(async () => {
-  requireBuiltWebApp();
-  database = await freshDatabase();
-  s3 = await startTestS3();
-  served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist, COOKIE_SECURE: undefined, ...s3.settings }).app);
-  browser = await launchBrowser();
+  suite = await openStorageBrowserSuite();
+  ({ database, served, browser } = suite);
   browser.page.setDefaultTimeout(30_000);
 });
 
@@ -31,23 +27,10 @@ afterEach(async (context) => {
 });
 
 afterAll(async () => {
-  try {
-    await browser?.close();
-  } finally {
-    await served?.close();
-    await s3?.stop();
-    await database?.drop();
-  }
+  await closeStorageBrowserSuite(suite);
 });
 
-async function signIn(page: Page, email: string): Promise<void> {
-  await page.context().clearCookies();
-  await page.goto(`${served.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(inject('demoPassword'));
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByTestId('signed-in-user').waitFor();
-}
+const signIn = (email: string) => signInAs(suite, email, inject('demoPassword'));
 
 const revisionCard = (page: Page, name: string) => page.getByTestId('package-revision').filter({ hasText: name });
 
@@ -62,7 +45,7 @@ async function download(page: Page, card: ReturnType<typeof revisionCard>, label
 describe('the Package page', { timeout: 120_000 }, () => {
   it('lets the engineer make a draft package and download it', async () => {
     const { page } = browser;
-    await signIn(page, 'engineer@alderbay.example');
+    await signIn('engineer@alderbay.example');
     const projects = (await (await page.request.get(`${served.baseUrl}/api/projects`)).json()) as { id: string; name: string }[];
     projectId = projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id;
     projectUrl = `${served.baseUrl}/projects/${projectId}`;
@@ -92,7 +75,7 @@ describe('the Package page', { timeout: 120_000 }, () => {
 
   it('lets the contractor download the final package of the issued design, and shows no draft', async () => {
     const { page } = browser;
-    await signIn(page, 'contractor@alderbay.example');
+    await signIn('contractor@alderbay.example');
     await page.goto(`${projectUrl}/package`);
     const card = revisionCard(page, 'Revision 2 (final)');
     await card.waitFor();

@@ -9,6 +9,7 @@ import { MailSender, mailSettingsFrom } from '../../service/src/mail/mail-sender
 import { testApp, testConfig } from './app.js';
 import { launchBrowser, requireBuiltWebApp, serve, webDist, type Browser, type Served } from './browser.js';
 import { freshDatabase, type TestDatabase } from './database.js';
+import { startTestS3, type TestS3 } from './s3.js';
 
 export interface BrowserSuite {
   database: TestDatabase;
@@ -26,6 +27,29 @@ export async function openBrowserSuite(): Promise<BrowserSuite> {
   return { database, served, browser };
 }
 
+/** A browser suite whose app keeps its files (packages, cut sheets, photos) in a local S3 server of its own. */
+export interface StorageBrowserSuite extends BrowserSuite {
+  s3: TestS3;
+}
+
+/** As {@link openBrowserSuite}, with the suite's own S3 server. */
+export async function openStorageBrowserSuite(): Promise<StorageBrowserSuite> {
+  requireBuiltWebApp();
+  const database = await freshDatabase();
+  const s3 = await startTestS3();
+  const served = await serve(testApp(database.db, database.url, { WEB_DIST: webDist, COOKIE_SECURE: undefined, ...s3.settings }).app);
+  const browser = await launchBrowser();
+  return { database, served, browser, s3 };
+}
+
+export async function closeStorageBrowserSuite(suite: Partial<StorageBrowserSuite>): Promise<void> {
+  try {
+    await closeBrowserSuite(suite);
+  } finally {
+    await suite.s3?.stop();
+  }
+}
+
 /** Closes everything; errors the page reported are thrown after the server and database are gone. */
 export async function closeBrowserSuite(suite: Partial<BrowserSuite>): Promise<void> {
   try {
@@ -36,14 +60,21 @@ export async function closeBrowserSuite(suite: Partial<BrowserSuite>): Promise<v
   }
 }
 
-/** Signs a demo person in through the sign-in page and answers the demo project's workspace address. */
-export async function signInToDemo(suite: Pick<BrowserSuite, 'browser' | 'served'>, email: string, password: string): Promise<string> {
+/** Signs a person in through the sign-in page, whoever was signed in before. */
+export async function signInAs(suite: Pick<BrowserSuite, 'browser' | 'served'>, email: string, password: string): Promise<void> {
   const { page } = suite.browser;
+  await page.context().clearCookies();
   await page.goto(`${suite.served.baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password', { exact: true }).fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByTestId('signed-in-user').waitFor();
+}
+
+/** Signs a demo person in through the sign-in page and answers the demo project's workspace address. */
+export async function signInToDemo(suite: Pick<BrowserSuite, 'browser' | 'served'>, email: string, password: string): Promise<string> {
+  const { page } = suite.browser;
+  await signInAs(suite, email, password);
   const projects = await page.evaluate(async () => (await fetch('/api/projects')).json() as Promise<{ id: string; name: string }[]>);
   return `${suite.served.baseUrl}/projects/${projects.find((project) => project.name === 'Alder Bay Library & Makerspace')!.id}`;
 }
