@@ -148,3 +148,19 @@ export interface RecordedFieldTest {
   notices: string[];
   progress: TestProgress;
 }
+
+/**
+ * Where the project's field tests stand, as the project list and the state bar show it: kept on
+ * the project each time its plan is read, and dropped when the design changes (the plan is then
+ * made again from the new design before anything is said about it).
+ */
+export interface FieldTestSummary {
+  required: number;
+  passed: number;
+  failed: number;
+  untested: number;
+  /** Every required item has passed. */
+  complete: boolean;
+  /** When the last required item passed, once testing is complete. */
+  completedAt: string | null;
+}

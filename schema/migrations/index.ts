@@ -28,6 +28,7 @@ import * as luminaireCutSheets from './20261203007000_luminaire_cut_sheets.js';
 import * as packageJobs from './20261203009000_package_jobs.js';
 import * as exteriorScheduleSettings from './20261203011000_exterior_schedule_settings.js';
 import * as fieldTestPhotos from './20261203008000_field_test_photos.js';
+import * as fieldTestSummary from './20261203012000_field_test_summary.js';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -64,6 +65,7 @@ const migrations: Record<string, Migration> = {
   '20261203007000_luminaire_cut_sheets': luminaireCutSheets,
   '20261203009000_package_jobs': packageJobs,
   '20261203011000_exterior_schedule_settings': exteriorScheduleSettings,
+  '20261203012000_field_test_summary': fieldTestSummary,
   '20261203008000_field_test_photos': fieldTestPhotos,
 };
 

@@ -220,3 +220,76 @@ describe('recording the tests', () => {
     await engineer.agent.post(`/api/projects/${projectId}/unarchive`).set('X-CSRF-Token', engineer.csrfToken);
   });
 });
+
+describe('where testing stands, on the project', () => {
+  interface Summary {
+    required: number;
+    passed: number;
+    failed: number;
+    untested: number;
+    complete: boolean;
+    completedAt: string | null;
+  }
+  async function listed(): Promise<Summary | null> {
+    const response = await engineer.agent.get('/api/projects');
+    expect(response.status).toBe(200);
+    return response.body.find((project: { id: string }) => project.id === projectId).fieldTests;
+  }
+  async function detail(who: SignedInAgent): Promise<Summary | null> {
+    const response = await who.agent.get(`/api/projects/${projectId}`);
+    expect(response.status).toBe(200);
+    return response.body.fieldTests;
+  }
+
+  it('lists the plan’s progress with the project once the plan is read, and says testing is complete when every required test passed', async () => {
+    const plan = await planFor(contractor);
+    const { required, passed, failed, untested } = plan.progress;
+    expect(passed).toBeGreaterThan(0);
+    expect(await listed()).toEqual({ required, passed, failed, untested, complete: false, completedAt: null });
+
+    let last = '';
+    for (const item of plan.items.filter((entry) => entry.required && entry.result?.result !== 'pass')) {
+      const response = await record(contractor, item.id, { result: 'pass' });
+      expect(response.status, JSON.stringify(response.body)).toBe(200);
+      last = response.body.item.result.at;
+    }
+    const after = await planFor(contractor);
+    expect(after.progress.complete).toBe(true);
+    const complete = {
+      required: after.progress.required,
+      passed: after.progress.required,
+      failed: 0,
+      untested: 0,
+      complete: true,
+      completedAt: last,
+    };
+    expect(await listed()).toEqual(complete);
+    expect(await detail(reviewer)).toEqual(complete);
+  });
+
+  it('drops the summary from the list when the design changes, and makes the plan again when the project is read', async () => {
+    const space = (await engineer.agent.get(`/api/projects/${projectId}/spaces`)).body.find(
+      (entry: { name: string }) => entry.name === '201 Makerspace',
+    ) as { id: string; version: number };
+    const changed = await engineer.agent
+      .patch(`/api/projects/${projectId}/spaces/${space.id}`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ version: space.version, name: '201 Makerspace and lab' });
+    expect(changed.status, JSON.stringify(changed.body)).toBe(200);
+    expect(await listed()).toBeNull();
+    // The project read makes the plan from the design as it now is; the renamed room keeps its tests.
+    expect(await detail(contractor)).toMatchObject({ complete: true, untested: 0 });
+    expect(await listed()).toMatchObject({ complete: true });
+  });
+
+  it('says nothing about testing for a project where no test is recorded', async () => {
+    const copied = await engineer.agent
+      .post(`/api/projects/${projectId}/copy`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ name: 'Alder Bay copy for testing' });
+    expect(copied.status, JSON.stringify(copied.body)).toBe(201);
+    expect(copied.body.fieldTests).toBeNull();
+    const read = await engineer.agent.get(`/api/projects/${copied.body.id}`);
+    expect(read.body.fieldTests).toBeNull();
+  });
+});

@@ -16,6 +16,7 @@ import type {
   StrategyKey,
 } from '../compliance/edition-data.js';
 import type { AdditionalAllowanceKind } from '../../../contract/editions.js';
+import type { FieldTestSummary } from '../../../contract/field-tests.js';
 import type { ProjectState } from '../../../contract/review.js';
 import type { ExteriorApplicationInput, LuminaireTypeInput, SpaceInput } from '../design/design.schema.js';
 import type { ResultSummary } from '../projects/projects.repository.js';
@@ -72,6 +73,7 @@ export interface ProjectRow {
   /** The jurisdiction amendments the project follows over the model code. */
   amendments: string[];
   result_summary: ResultSummary | null;
+  field_test_summary: FieldTestSummary | null;
   archived_at: Date | null;
   archived_by: string | null;
   permit_number: string | null;
@@ -565,7 +567,7 @@ declare module 'knex/types/tables.js' {
   interface Tables {
     users: UserRow;
     sessions: SessionRow;
-    projects: StoredTable<ProjectRow, 'result_summary' | 'unit_origin'>;
+    projects: StoredTable<ProjectRow, 'result_summary' | 'field_test_summary' | 'unit_origin'>;
     luminaire_types: StoredTable<LuminaireTypeRow, 'unit_origin'>;
     spaces: StoredTable<SpaceRow, 'unit_origin'>;
     space_luminaires: StoredTable<SpaceLuminaireRow>;

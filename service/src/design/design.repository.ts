@@ -1113,7 +1113,7 @@ async function recordDesignChanges(trx: Knex.Transaction, changes: DesignChange[
 
 /** Any design write marks the project as changed, so lists sort by it. */
 export async function touchProject(trx: Knex, projectId: string): Promise<void> {
-  await trx('projects').where({ id: projectId }).update({ updated_at: trx.fn.now(), result_summary: null });
+  await trx('projects').where({ id: projectId }).update({ updated_at: trx.fn.now(), result_summary: null, field_test_summary: null });
 }
 
 /** A space's type, or undefined when the project has no such space. */

@@ -6,6 +6,7 @@ import { evaluate, validateDocument } from '../compliance/index.js';
 import type { Database } from '../db/database.js';
 import { projectDocument } from '../design/project-document.js';
 import { NotFound, Refused } from '../domain-errors.js';
+import { designChangedAt, keepFieldTestSummary } from '../projects/projects.repository.js';
 import { notComputedMessage } from '../evaluation/evaluation.service.js';
 import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
@@ -19,6 +20,7 @@ import {
   testKindLabels,
   testKinds,
   type FieldTestRecord,
+  type FieldTestSummary,
   type KindProgress,
   type RecordedFieldTest,
   type TestKind,
@@ -108,6 +110,7 @@ async function planView(db: Database, projectId: string): Promise<TestPlanView> 
 
 /** The plan view with the evaluation it was made from and the edition's title. */
 async function planContext(db: Database, projectId: string) {
+  const designAt = await designChangedAt(db, projectId);
   const input = await projectDocument(db, projectId);
   const tables = await loadEditionData(db, input.edition);
   if (!tables) throw new Refused('The project’s code edition is not loaded.');
@@ -136,7 +139,36 @@ async function planContext(db: Database, projectId: string) {
   };
   const notices = [...plan.groups.filter((group) => group.widened).map((group) => group.words), ...plan.gaps];
   const view: TestPlanView = { items, groups: plan.groups, gaps: plan.gaps, notices, progress };
+  if (designAt) await keepFieldTestSummary(db, projectId, designAt, summaryOf(view));
   return { view, result, edition: tables.title };
+}
+
+/** Where the plan stands, in the few figures the project list and the state bar show. */
+export function summaryOf(view: Pick<TestPlanView, 'items' | 'progress'>): FieldTestSummary {
+  const { required, passed, failed, untested, complete } = view.progress;
+  let completedAt: string | null = null;
+  if (complete) {
+    for (const item of view.items) {
+      if (!item.required || item.result?.result !== 'pass') continue;
+      if (completedAt === null || Date.parse(item.result.at) > Date.parse(completedAt)) completedAt = item.result.at;
+    }
+  }
+  return { required, passed, failed, untested, complete, completedAt };
+}
+
+/**
+ * Makes the project's plan again when tests have been recorded, so the project read says where
+ * testing stands as the design now is (a project with no recorded test says nothing). A design
+ * that cannot be evaluated leaves the summary unset: the Field tests page says why.
+ */
+export async function refreshFieldTestSummary(db: Database, projectId: string): Promise<void> {
+  const recorded = await db('field_test_results').where({ project_id: projectId }).first('id');
+  if (!recorded) return;
+  try {
+    await planContext(db, projectId);
+  } catch (error) {
+    if (!(error instanceof Refused)) throw error;
+  }
 }
 
 /**

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
+import type { FieldTestSummary } from '../../../contract/field-tests.js';
 import { dec, text } from '../compliance/numbers.js';
 import { recordAudit } from '../audit/audit.repository.js';
 import type { Database } from '../db/database.js';
@@ -30,6 +31,8 @@ export interface ProjectSummary {
   revision: number;
   updatedAt: string;
   resultSummary: ResultSummary | null;
+  /** Where the field tests stand, as last read from the test plan; null until then or after a design change. */
+  fieldTests: FieldTestSummary | null;
   /** When the project was archived; archived projects are read-only and listed apart. */
   archivedAt: string | null;
 }
@@ -77,7 +80,17 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
     .select<
       (Pick<
         ProjectRow,
-        'id' | 'name' | 'state' | 'version' | 'revision' | 'updated_at' | 'edition_id' | 'method' | 'result_summary' | 'archived_at'
+        | 'id'
+        | 'name'
+        | 'state'
+        | 'version'
+        | 'revision'
+        | 'updated_at'
+        | 'edition_id'
+        | 'method'
+        | 'result_summary'
+        | 'field_test_summary'
+        | 'archived_at'
       > & {
         role: ProjectRole | null;
       })[]
@@ -91,6 +104,7 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
       'p.edition_id',
       'p.method',
       'p.result_summary',
+      'p.field_test_summary',
       'p.archived_at',
       'm.role',
     )
@@ -111,6 +125,7 @@ export async function listProjectsFor(db: Database, userId: string, isAdmin: boo
     revision: row.revision,
     updatedAt: row.updated_at.toISOString(),
     resultSummary: row.result_summary,
+    fieldTests: row.field_test_summary,
     archivedAt: row.archived_at?.toISOString() ?? null,
   }));
 }
@@ -137,6 +152,7 @@ export async function getProjectDetail(db: Knex, projectId: string, role: Projec
     revision: row.revision,
     updatedAt: row.updated_at.toISOString(),
     resultSummary: row.result_summary,
+    fieldTests: row.field_test_summary,
     archivedAt: row.archived_at?.toISOString() ?? null,
     address: row.address,
     latitude: plain(row.latitude),
@@ -258,6 +274,17 @@ export async function keepResultSummary(db: Database, projectId: string, designA
     .update({ result_summary: JSON.stringify(summary) });
 }
 
+/**
+ * Keeps where the field tests stand for the project list, unless the design changed while the
+ * plan was being made (then the stored project no longer matches and nothing is kept).
+ */
+export async function keepFieldTestSummary(db: Database, projectId: string, designAt: string, summary: FieldTestSummary): Promise<void> {
+  await db('projects')
+    .where({ id: projectId })
+    .whereRaw('updated_at = ?::timestamptz', [designAt])
+    .update({ field_test_summary: JSON.stringify(summary) });
+}
+
 /** A new project; its creator is its engineer. */
 export async function createProject(db: Database, input: ProjectCreate, userId: string): Promise<string> {
   return db.transaction(async (trx) => {
@@ -322,7 +349,7 @@ export async function updateProjectSetup(
       'projects',
       { id: projectId },
       version,
-      { ...columns, unit_origin: origin, result_summary: null },
+      { ...columns, unit_origin: origin, result_summary: null, field_test_summary: null },
       userId,
       'The project set-up',
     );
@@ -389,6 +416,7 @@ export async function copyProject(db: Database, sourceId: string, name: string, 
       updated_at: _updatedAt,
       updated_by: _updatedBy,
       result_summary: _summary,
+      field_test_summary: _fieldTests,
       archived_at: _archivedAt,
       archived_by: _archivedBy,
       ...setup

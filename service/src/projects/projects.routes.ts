@@ -9,6 +9,7 @@ import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { parse } from '../http/validate.js';
 import { keepVerdict } from '../evaluation/evaluation.service.js';
+import { refreshFieldTestSummary } from '../field-tests/field-tests.routes.js';
 import {
   copyProject,
   createProject,
@@ -62,6 +63,7 @@ export function projectsRouter(db: Database): Router {
 
   router.get('/:projectId', requireProjectAction('read'), async (req, res) => {
     const access = projectAccess(req);
+    await refreshFieldTestSummary(db, access.projectId);
     res.json(await getProjectDetail(db, access.projectId, access.role));
   });
 

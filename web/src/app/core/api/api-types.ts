@@ -16,6 +16,7 @@ import type {
 import type { Citation, ControlStatus, Verdict } from '../../../../../contract/result';
 import type { ExteriorScheduleSettings, ScheduleSummary } from '../../../../../contract/exterior-schedule';
 import type { ReviewHistoryDetail } from '../../../../../contract/review';
+import type { FieldTestSummary } from '../../../../../contract/field-tests';
 
 export type {
   AdditionalAllowanceKind,
@@ -61,6 +62,8 @@ export interface ProjectSummary {
   updatedAt: string;
   /** The last evaluation's verdict; null until the project is evaluated after its latest change. */
   resultSummary: { complies: boolean; verdict?: Verdict; marginPct: string | null; dataVersion: string } | null;
+  /** Where the field tests stand, as the test plan was last read; null before any test is recorded or after a design change. */
+  fieldTests: FieldTestSummary | null;
   /** When the project was archived: it can be read but not changed until it is unarchived. */
   archivedAt: string | null;
 }

@@ -21,6 +21,7 @@ const projects: ProjectSummary[] = [
     revision: 1,
     updatedAt: '2026-03-01T10:00:00Z',
     resultSummary: null,
+    fieldTests: null,
     archivedAt: null,
   },
   {
@@ -34,6 +35,7 @@ const projects: ProjectSummary[] = [
     revision: 1,
     updatedAt: '2026-03-02T10:00:00Z',
     resultSummary: null,
+    fieldTests: null,
     archivedAt: null,
   },
   {
@@ -47,6 +49,7 @@ const projects: ProjectSummary[] = [
     revision: 1,
     updatedAt: '2026-03-03T10:00:00Z',
     resultSummary: null,
+    fieldTests: null,
     archivedAt: null,
   },
 ];
@@ -122,6 +125,28 @@ describe('ProjectsPage', () => {
     expect(pending.length).toBe(0);
     expect(element.textContent).toContain('7.3');
     expect(element.textContent).toContain('Complies');
+  });
+
+  it('says under the state where the field tests stand, and finds “testing complete” by the filter', async () => {
+    TestBed.resetTestingModule();
+    await render([
+      {
+        ...projects[0]!,
+        fieldTests: { required: 8, passed: 8, failed: 0, untested: 0, complete: true, completedAt: '2026-11-20T15:30:00Z' },
+      },
+      { ...projects[1]!, fieldTests: { required: 8, passed: 3, failed: 2, untested: 3, complete: false, completedAt: null } },
+      projects[2]!,
+    ]);
+    http.match(() => true).forEach((request) => request.flush({ complies: true, verdict: 'complies', interior: { marginPct: '1' } }));
+    await fixture.whenStable();
+    const shown = () => Array.from(element.querySelectorAll('[data-testid="project-field-tests"]')).map((cell) => cell.textContent?.trim());
+    // Sorted by name: Alder Bay Library (the second), then Cedar Hall (the first).
+    expect(shown()).toEqual(['fact_checkField tests: 3 of 8 passed, 2 failed', 'task_altTesting complete']);
+    const filter = element.querySelector<HTMLInputElement>('input[matInput]')!;
+    filter.value = 'testing complete';
+    filter.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(names()).toEqual(['Cedar Hall']);
   });
 
   it('sorts by a column header and filters by text', async () => {

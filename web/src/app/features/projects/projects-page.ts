@@ -24,6 +24,7 @@ import { formatPercent } from '../../shared/format';
 import { openCopyDialog } from './copy-project-dialog';
 import { ProjectApi } from './project-api';
 import { stateLabels } from './project-states';
+import { fieldTestStatus, type FieldTestStatus } from '../field-tests/field-test-status';
 import { verdictOf, type ProjectVerdict } from './project-verdict';
 import { CardRows } from '../../shared/card-rows';
 import { editionLabel } from '../../shared/edition-labels';
@@ -112,7 +113,13 @@ export class ProjectsPage {
       }
     };
     this.dataSource.filterPredicate = (project, filter) =>
-      [project.name, stateLabels[project.state], this.editionLabel(project), project.role ?? '']
+      [
+        project.name,
+        stateLabels[project.state],
+        this.editionLabel(project),
+        project.role ?? '',
+        fieldTestStatus(project.fieldTests)?.words ?? '',
+      ]
         .join(' ')
         .toLocaleLowerCase()
         .includes(filter);
@@ -191,6 +198,10 @@ export class ProjectsPage {
 
   protected open(project: ProjectSummary): void {
     void this.router.navigate(['/projects', project.id]);
+  }
+
+  protected fieldTests(project: ProjectSummary): FieldTestStatus | null {
+    return fieldTestStatus(project.fieldTests);
   }
 
   protected stateLabel(project: ProjectSummary): string {

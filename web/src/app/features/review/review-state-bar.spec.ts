@@ -42,6 +42,34 @@ describe('ReviewStateBar', () => {
 
   const buttons = () => Array.from(element.querySelectorAll('button')).map((button) => button.textContent?.trim());
 
+  it('says where the field tests stand, and that testing is complete with the date of the last pass', async () => {
+    await open({
+      role: 'contractor',
+      state: 'issued',
+      fieldTests: { required: 12, passed: 9, failed: 1, untested: 2, complete: false, completedAt: null },
+    });
+    expect(element.querySelector('[data-testid="state-field-tests"]')?.textContent?.trim()).toBe(
+      'fact_checkField tests: 9 of 12 passed, 1 failed',
+    );
+    store.seed({
+      project: {
+        ...reviewProject,
+        role: 'contractor',
+        state: 'issued',
+        fieldTests: { required: 12, passed: 12, failed: 0, untested: 0, complete: true, completedAt: '2026-11-20T15:30:00Z' },
+      },
+    });
+    await fixture.whenStable();
+    expect(element.querySelector('[data-testid="state-field-tests"]')?.textContent?.trim()).toBe(
+      'task_altTesting complete on Nov 20, 2026',
+    );
+  });
+
+  it('says nothing about field tests before any is recorded', async () => {
+    await open({ role: 'engineer', state: 'issued', fieldTests: null });
+    expect(element.querySelector('[data-testid="state-field-tests"]')).toBeNull();
+  });
+
   it('shows the engineer’s draft with Submit for review, and after the move the state and the lock in words', async () => {
     await open({ role: 'engineer', state: 'draft', version: 3 });
     expect(element.querySelector('[data-testid="review-state"]')?.textContent).toContain('Draft');

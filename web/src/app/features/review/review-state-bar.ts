@@ -10,6 +10,7 @@ import { projectStateLabels } from '../../../../../contract/review';
 import { AuthStore } from '../../core/auth/auth-store';
 import { ApiError } from '../../core/http/api-error';
 import { askToConfirm } from '../../shared/confirm-dialog';
+import { fieldTestStatus } from '../field-tests/field-test-status';
 import { HistoryApi } from '../history/history-api';
 import { ProjectStore } from '../workspace/project-store';
 import { movesFrom, type ReviewMove } from './review-moves';
@@ -28,6 +29,12 @@ import { openReturnDialog } from './return-dialog';
         <p class="state">
           <span class="label">{{ stateLabel() }}</span>
           <span class="meta">Revision {{ project.revision }}</span>
+          @if (fieldTests(); as tests) {
+            <span class="field-tests" [class.complete]="tests.complete" data-testid="state-field-tests"
+              ><mat-icon aria-hidden="true">{{ tests.complete ? 'task_alt' : 'fact_check' }}</mat-icon
+              >{{ tests.words }}{{ tests.completedAt ? ' on ' + (tests.completedAt | date: 'mediumDate') : '' }}</span
+            >
+          }
         </p>
         @if (moves().length > 0) {
           <div class="moves">
@@ -83,6 +90,21 @@ import { openReturnDialog } from './return-dialog';
     .meta {
       color: var(--mat-sys-on-surface-variant);
     }
+    .field-tests {
+      display: inline-flex;
+      align-items: center;
+      gap: 4px;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .field-tests.complete {
+      color: var(--mat-sys-primary);
+    }
+    .field-tests mat-icon {
+      align-self: center;
+      font-size: 18px;
+      width: 18px;
+      height: 18px;
+    }
     .moves {
       display: flex;
       flex-wrap: wrap;
@@ -127,6 +149,7 @@ export class ReviewStateBar {
   private readonly snackBar = inject(MatSnackBar);
   private readonly history = inject(HistoryApi);
   protected readonly busy = signal(false);
+  protected readonly fieldTests = computed(() => fieldTestStatus(this.store.project()?.fieldTests));
   protected readonly refusal = signal<string | null>(null);
 
   protected readonly stateLabel = computed(() => {
