@@ -135,7 +135,7 @@ export function createApp({
   // Every route under one project reads it, and the caller's role on it, from what this loads once.
   api.use('/projects/:projectId', loadProject(db));
   api.use('/projects', projectsRouter(db));
-  api.use('/projects/:projectId', designRouter(db));
+  api.use('/projects/:projectId', designRouter(db, storage));
   api.use('/projects/:projectId', cutSheetsRouter(db, storage));
   api.use('/projects/:projectId', projectResultsRouter(db));
   api.use('/projects/:projectId', teamRouter(db));

@@ -265,4 +265,22 @@ describe('DELETE /api/projects/:id/luminaire-types/:typeId/cut-sheet', () => {
     expect((await cutSheetAudits()).at(-1)).toMatchObject({ action: 'remove-cut-sheet', entity_id: type.id });
     expect(await inStore(row!.storage_key)).toBe(false);
   });
+
+  it('takes the file out of the store when its luminaire type is deleted', async () => {
+    const created = await engineer.agent
+      .post(`/api/projects/${projectId}/luminaire-types`)
+      .set('X-CSRF-Token', engineer.csrfToken)
+      .send({ tag: 'Z9', inputWatts: '20', use: 'general' });
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    expect((await upload(engineer, pdf, 'Spare type.pdf', created.body.id)).status).toBe(200);
+    const [row] = await rowsOf(created.body.id);
+    expect(await inStore(row!.storage_key)).toBe(true);
+    const deleted = await engineer.agent
+      .delete(`/api/projects/${projectId}/luminaire-types/${created.body.id}`)
+      .query({ version: created.body.version })
+      .set('X-CSRF-Token', engineer.csrfToken);
+    expect(deleted.status, JSON.stringify(deleted.body)).toBe(204);
+    expect(await rowsOf(created.body.id)).toEqual([]);
+    expect(await inStore(row!.storage_key)).toBe(false);
+  });
 });

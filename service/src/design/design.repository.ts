@@ -17,6 +17,7 @@ import type {
 } from '../db/tables.js';
 import { carriedOrigin, type UnitOrigin } from '../db/unit-origin.js';
 import { convertProjectUnits } from '../projects/unit-conversion.repository.js';
+import { getCutSheet } from './cut-sheets.repository.js';
 import { Conflict, InUse, KeyReused, NotFound, NotRestorable, Refused, type ErrorDetail } from '../domain-errors.js';
 import {
   exteriorApplicationInputSchema,
@@ -193,8 +194,18 @@ export async function replaceLuminaireType(
   });
 }
 
-export async function deleteLuminaireType(db: Database, projectId: string, id: string, version: number, userId: string): Promise<void> {
-  await db.transaction(async (trx) => {
+/**
+ * Deletes an unused luminaire type; its cut sheet's record goes with it (the foreign key cascades),
+ * and the answer is the stored file's key, for the caller to remove from the store once committed.
+ */
+export async function deleteLuminaireType(
+  db: Database,
+  projectId: string,
+  id: string,
+  version: number,
+  userId: string,
+): Promise<{ cutSheetKey: string | null }> {
+  return db.transaction(async (trx) => {
     const { units } = await lockProject(trx, projectId);
     await storedLuminaireType(trx, projectId, id);
     const users = await trx('space_luminaires as l')
@@ -208,6 +219,7 @@ export async function deleteLuminaireType(db: Database, projectId: string, id: s
       );
     }
     const before = await oneLuminaireType(trx, id);
+    const cutSheet = await getCutSheet(trx, projectId, id);
     await deleteVersioned(trx, 'luminaire_types', { id, project_id: projectId }, version, 'This luminaire type');
     await recordDesignChange(trx, {
       userId,
@@ -220,6 +232,7 @@ export async function deleteLuminaireType(db: Database, projectId: string, id: s
       units,
     });
     await touchProject(trx, projectId);
+    return { cutSheetKey: cutSheet?.storage_key ?? null };
   });
 }
 

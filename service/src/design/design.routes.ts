@@ -1,6 +1,7 @@
 import { Router, type Request } from 'express';
 import { AppError } from '../http/app-error.js';
 import type { Database } from '../db/database.js';
+import type { FileStorage } from '../package/storage.js';
 import { projectAccess, requireProjectAction } from '../http/project-access.js';
 import { currentSession } from '../http/session.js';
 import { idParam, parse } from '../http/validate.js';
@@ -58,7 +59,7 @@ import {
 } from './edition-checks.js';
 
 /** The design data of one project, mounted under /api/projects/:projectId. Engineers write; members read. */
-export function designRouter(db: Database): Router {
+export function designRouter(db: Database, storage: FileStorage): Router {
   const router = Router({ mergeParams: true });
   const read = requireProjectAction('read');
   const edit = requireProjectAction('edit-design');
@@ -93,10 +94,12 @@ export function designRouter(db: Database): Router {
   });
   router.delete('/luminaire-types/:typeId', edit, async (req, res) => {
     const { version } = parse(versionQuerySchema, req.query);
-    await changed(
+    const { cutSheetKey } = await changed(
       req,
       await deleteLuminaireType(db, projectId(req), idParam(req.params['typeId'], 'This luminaire type'), version, userId(req)),
     );
+    // No row names the cut sheet's file any longer: it goes, as far as the store lets it.
+    if (cutSheetKey) await storage.remove(cutSheetKey).catch(() => undefined);
     res.status(204).end();
   });
 

@@ -1,8 +1,9 @@
 import { provideHttpClient, withInterceptors } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, provideHttpClientTesting, type TestRequest } from '@angular/common/http/testing';
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
+import type { CutSheet } from '../../../../../contract/cut-sheets';
 import type { LuminaireTypeRecord, ProjectDetail, SpaceRecord } from '../../core/api/api-types';
 import { apiInterceptor } from '../../core/http/api-interceptor';
 import { ProjectStore } from '../workspace/project-store';
@@ -59,6 +60,7 @@ describe('LuminairesPage', () => {
   let http: HttpTestingController;
   let store: ProjectStore;
   let element: HTMLElement;
+  let cutSheetsRead: TestRequest;
 
   beforeEach(async () => {
     TestBed.configureTestingModule({
@@ -79,12 +81,20 @@ describe('LuminairesPage', () => {
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(LuminairesPage);
     element = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    TestBed.tick();
+    cutSheetsRead = http.expectOne('/api/projects/p1/cut-sheets');
   });
+
+  /** Answers the page's reading of the cut sheets on file (none unless given) and lets it settle. */
+  async function answerCutSheets(sheets: CutSheet[] = []): Promise<void> {
+    cutSheetsRead.flush(sheets);
+    await fixture.whenStable();
+  }
 
   const snackBar = () => document.querySelector('.mat-mdc-snack-bar-container');
 
   it('deletes a luminaire type at once and brings it back with its id on Undo', async () => {
+    await answerCutSheets();
     element.querySelector<HTMLButtonElement>('button[aria-label="Delete type A"]')!.click();
     const deletion = http.expectOne((request) => request.method === 'DELETE' && request.url === '/api/projects/p1/luminaire-types/t1');
     expect(deletion.request.params.get('version')).toBe('2');
@@ -105,6 +115,7 @@ describe('LuminairesPage', () => {
   });
 
   it('says why a type still counted in spaces is kept, with no offer to reload', async () => {
+    await answerCutSheets();
     element.querySelector<HTMLButtonElement>('button[aria-label="Delete type B"]')!.click();
     http
       .expectOne((request) => request.url === '/api/projects/p1/luminaire-types/t2')
@@ -118,7 +129,18 @@ describe('LuminairesPage', () => {
     expect(store.luminaireTypes().map((type) => type.tag)).toEqual(['A', 'B', 'H']);
   });
 
-  it('lists the schedule with rated input to 0.1 W and the product columns, and no cut-sheet placeholder', () => {
+  it('lists the schedule with rated input to 0.1 W and the product columns, and each type’s cut sheet', async () => {
+    await answerCutSheets([
+      {
+        luminaireTypeId: 't3',
+        fileName: 'High-bay data.pdf',
+        size: 1200,
+        sha256: 'a'.repeat(64),
+        uploadedAt: '2026-11-20T15:30:00Z',
+        uploadedBy: 'Invented Engineer',
+        url: '/api/projects/p1/luminaire-types/t3/cut-sheet',
+      },
+    ]);
     const row = Array.from(element.querySelectorAll('tr')).find((candidate) => candidate.textContent?.includes('High-bay'))!;
     const cells = Array.from(row.querySelectorAll('td')).map((cell) => cell.textContent?.trim());
     expect(cells).toContain('151.5');
@@ -129,11 +151,24 @@ describe('LuminairesPage', () => {
     expect(row.textContent).toContain('120–277 V');
     const headers = Array.from(element.querySelectorAll('th')).map((header) => header.textContent?.trim());
     expect(headers).toEqual(expect.arrayContaining(['Product', 'Light source and driver', 'Rated input (W)']));
-    expect(element.textContent).not.toContain('Cut sheet');
-    expect(element.textContent).not.toContain('With the submittal package');
+    const link = row.querySelector<HTMLAnchorElement>('td.cut-sheet a')!;
+    expect(link.getAttribute('href')).toBe('/api/projects/p1/luminaire-types/t3/cut-sheet');
+    expect(link.getAttribute('aria-label')).toBe('Download the cut sheet of type H: High-bay data.pdf');
+    const other = Array.from(element.querySelectorAll('tr')).find((candidate) => candidate.textContent?.includes('Strip'))!;
+    expect(other.querySelector('td.cut-sheet')?.textContent?.trim()).toBe('None on file');
+    expect(headers).toContain('Cut sheet');
+  });
+
+  it('gives a reviewer the cut sheet links too, and says so in words when the list cannot be read', async () => {
+    store.seed({ project: { ...project, role: 'reviewer' } });
+    cutSheetsRead.flush({ error: { code: 'unavailable', message: 'down' } }, { status: 503, statusText: 'Unavailable' });
+    await fixture.whenStable();
+    expect(element.querySelector('[role="alert"]')?.textContent).toContain('The cut sheets on file could not be read.');
+    expect(element.querySelector('button[aria-label="Delete type A"]')).toBeNull();
   });
 
   it('saves a daylight-zone split from the counts panel through the service and stays on the Counts tab', async () => {
+    await answerCutSheets();
     fixture.componentRef.setInput('tab', 'counts');
     fixture.componentRef.setInput('space', 's1');
     await fixture.whenStable();

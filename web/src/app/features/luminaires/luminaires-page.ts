@@ -10,7 +10,7 @@ import {
   signal,
   viewChild,
 } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { rxResource, takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
@@ -28,6 +28,7 @@ import type { HasUnsavedChanges } from '../../shared/unsaved-changes';
 import { ProjectStore } from '../workspace/project-store';
 import { WorkspaceApi } from '../workspace/workspace-api';
 import { CountGrid, type CountEdit } from './count-grid';
+import { CutSheetApi } from './cut-sheet-api';
 import { groupsOf, withCount } from './luminaire-counts';
 import { LuminaireTypeEditor, type LuminaireTypeEditorData } from './luminaire-type-editor';
 import { basisLabels, useLabels } from './luminaire-type-form';
@@ -56,6 +57,7 @@ export class LuminairesPage implements HasUnsavedChanges {
   private readonly route = inject(ActivatedRoute);
   private readonly injector = inject(Injector);
   private readonly writes = new Subject<CountWrite>();
+  private readonly cutSheetApi = inject(CutSheetApi);
 
   /** The tab to show, from `?tab=counts`: links from other pages open the counts, and a reload keeps the tab. */
   readonly tab = input<string>();
@@ -70,8 +72,17 @@ export class LuminairesPage implements HasUnsavedChanges {
     'inputWatts',
     'use',
     'basis',
+    'cutSheet',
     ...(this.store.canEdit() ? ['actions'] : []),
   ]);
+  /** The cut sheets on file, read for every member: each row links its type's file. */
+  protected readonly cutSheets = rxResource({
+    params: () => this.store.projectId() ?? undefined,
+    stream: ({ params }) => this.cutSheetApi.list(params),
+  });
+  protected readonly cutSheetOf = computed(
+    () => new Map((this.cutSheets.hasValue() ? this.cutSheets.value() : []).map((sheet) => [sheet.luminaireTypeId, sheet])),
+  );
   protected readonly useLabels = useLabels;
   protected readonly basisLabels = basisLabels;
   protected readonly ratedWatts = ratedWattsFigure;
@@ -155,6 +166,8 @@ export class LuminairesPage implements HasUnsavedChanges {
       })
       .afterClosed()
       .subscribe((saved) => {
+        // The editor attaches and removes cut sheets by itself, saved or not.
+        this.cutSheets.reload();
         if (!saved) return;
         this.store.upsertLuminaireType(saved);
         if (type && type.tag !== saved.tag) this.reloadSpaces();
