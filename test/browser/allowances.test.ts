@@ -22,7 +22,7 @@ async function post(page: Page, url: string, data: unknown): Promise<{ id: strin
 beforeAll(async () => {
   ({ database, served, browser } = await openBrowserSuite());
   const { page } = browser;
-  page.setDefaultTimeout(8000);
+  page.setDefaultTimeout(20_000);
   await page.goto(`${served.baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill('engineer@alderbay.example');
   await page.getByLabel('Password', { exact: true }).fill(inject('demoPassword'));

@@ -13,7 +13,7 @@ let apiUrl = '';
 
 beforeAll(async () => {
   ({ database, served, browser } = await openBrowserSuite());
-  browser.page.setDefaultTimeout(8000);
+  browser.page.setDefaultTimeout(20_000);
 });
 
 afterEach(async (context) => {
@@ -55,7 +55,7 @@ describe('the project history', { timeout: 60_000 }, () => {
     apiUrl = `/api/projects/${demo.id}`;
 
     await page.goto(`${projectUrl}/spaces`);
-    await expect.poll(() => verdict(page).textContent(), { timeout: 10_000 }).toContain('Complies');
+    await expect.poll(() => verdict(page).textContent(), { timeout: 20_000 }).toContain('Complies');
     await page.getByRole('button', { name: 'Edit 114 Storage' }).click();
     const dialog = page.getByRole('dialog');
     // Typing waits until the dialog has moved focus into itself, so it goes where the test means.

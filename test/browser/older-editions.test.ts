@@ -12,7 +12,7 @@ let projectUrl = '';
 
 beforeAll(async () => {
   ({ database, served, browser } = await openBrowserSuite());
-  browser.page.setDefaultTimeout(8000);
+  browser.page.setDefaultTimeout(20_000);
 });
 
 afterEach(async (context) => {

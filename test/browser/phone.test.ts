@@ -11,7 +11,7 @@ let browser: Browser;
 
 beforeAll(async () => {
   ({ database, served, browser } = await openBrowserSuite());
-  browser.page.setDefaultTimeout(8000);
+  browser.page.setDefaultTimeout(20_000);
   // A phone held upright, 390 × 844 CSS pixels (common practice for a current mid-size phone).
   await browser.page.setViewportSize({ width: 390, height: 844 });
 });
@@ -113,7 +113,7 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
       // The menu closes on its own, and the bar names the area.
       await expect.poll(() => link.isVisible()).toBe(false);
       await expect.poll(() => page.locator('.area-bar').textContent()).toContain(label);
-      await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 10_000 }).toContain('Complies');
+      await expect.poll(() => page.getByTestId('workspace-verdict').textContent(), { timeout: 20_000 }).toContain('Complies');
       // The history arrives apart from the design: wait for its entries.
       if (path === 'history') await page.locator('.entry').first().waitFor();
       if (path === 'results') await page.locator('td[data-label="Allowance (W)"]').first().waitFor();

@@ -14,7 +14,7 @@ const spaceCount = 89;
 beforeAll(async () => {
   ({ database, served, browser } = await openBrowserSuite());
   const { page } = browser;
-  page.setDefaultTimeout(8000);
+  page.setDefaultTimeout(20_000);
   await page.goto(`${served.baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill('engineer@alderbay.example');
   await page.getByLabel('Password', { exact: true }).fill(inject('demoPassword'));
