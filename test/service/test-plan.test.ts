@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { FieldTestSummary } from '../../contract/field-tests.js';
 import { signIn, testApp, type SignedInAgent } from '../support/app.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
 
@@ -222,20 +223,12 @@ describe('recording the tests', () => {
 });
 
 describe('where testing stands, on the project', () => {
-  interface Summary {
-    required: number;
-    passed: number;
-    failed: number;
-    untested: number;
-    complete: boolean;
-    completedAt: string | null;
-  }
-  async function listed(): Promise<Summary | null> {
+  async function listed(): Promise<FieldTestSummary | null> {
     const response = await engineer.agent.get('/api/projects');
     expect(response.status).toBe(200);
     return response.body.find((project: { id: string }) => project.id === projectId).fieldTests;
   }
-  async function detail(who: SignedInAgent): Promise<Summary | null> {
+  async function detail(who: SignedInAgent): Promise<FieldTestSummary | null> {
     const response = await who.agent.get(`/api/projects/${projectId}`);
     expect(response.status).toBe(200);
     return response.body.fieldTests;
