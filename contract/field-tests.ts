@@ -164,3 +164,20 @@ export interface FieldTestSummary {
   /** When the last required item passed, once testing is complete. */
   completedAt: string | null;
 }
+
+/**
+ * Where the plan stands, in the few figures the project list and the state bar show; once every
+ * required item has passed, when: the latest of their passing results (a later test of an item
+ * outside the sample does not move it).
+ */
+export function fieldTestSummaryOf(view: Pick<TestPlanView, 'items' | 'progress'>): FieldTestSummary {
+  const { required, passed, failed, untested, complete } = view.progress;
+  let completedAt: string | null = null;
+  if (complete) {
+    for (const item of view.items) {
+      if (!item.required || item.result?.result !== 'pass') continue;
+      if (completedAt === null || Date.parse(item.result.at) > Date.parse(completedAt)) completedAt = item.result.at;
+    }
+  }
+  return { required, passed, failed, untested, complete, completedAt };
+}

@@ -118,7 +118,11 @@ describe('the demo on a phone (390 × 844)', { timeout: 60_000 }, () => {
       if (path === 'history') await page.locator('.entry').first().waitFor();
       if (path === 'results') await page.locator('td[data-label="Allowance (W)"]').first().waitFor();
       if (path === 'compare') await page.getByTestId('edition-column').first().waitFor();
-      if (path === 'field-tests') await page.getByTestId('field-test-item').first().waitFor();
+      if (path === 'field-tests') {
+        // Each kind folded to its heading on a phone: the first opened, so its cards are laid out too.
+        await page.getByTestId('field-test-kind').first().click();
+        await page.getByTestId('field-test-item').first().waitFor();
+      }
       if (path === 'review') await page.locator('al-review-page').locator('.item-list, p.empty, p.failure').first().waitFor();
       await browser.screenshot(`phone-${path}`);
       expect(await sidewaysScroll()).toBeLessThanOrEqual(1);

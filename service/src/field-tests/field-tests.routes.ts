@@ -20,7 +20,7 @@ import {
   testKindLabels,
   testKinds,
   type FieldTestRecord,
-  type FieldTestSummary,
+  fieldTestSummaryOf,
   type KindProgress,
   type RecordedFieldTest,
   type TestKind,
@@ -139,21 +139,8 @@ async function planContext(db: Database, projectId: string) {
   };
   const notices = [...plan.groups.filter((group) => group.widened).map((group) => group.words), ...plan.gaps];
   const view: TestPlanView = { items, groups: plan.groups, gaps: plan.gaps, notices, progress };
-  if (designAt) await keepFieldTestSummary(db, projectId, designAt, summaryOf(view));
+  if (designAt) await keepFieldTestSummary(db, projectId, designAt, fieldTestSummaryOf(view));
   return { view, result, edition: tables.title };
-}
-
-/** Where the plan stands, in the few figures the project list and the state bar show. */
-export function summaryOf(view: Pick<TestPlanView, 'items' | 'progress'>): FieldTestSummary {
-  const { required, passed, failed, untested, complete } = view.progress;
-  let completedAt: string | null = null;
-  if (complete) {
-    for (const item of view.items) {
-      if (!item.required || item.result?.result !== 'pass') continue;
-      if (completedAt === null || Date.parse(item.result.at) > Date.parse(completedAt)) completedAt = item.result.at;
-    }
-  }
-  return { required, passed, failed, untested, complete, completedAt };
 }
 
 /**

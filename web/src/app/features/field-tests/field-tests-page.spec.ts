@@ -8,7 +8,8 @@ import { apiInterceptor } from '../../core/http/api-interceptor';
 import { ProjectStore } from '../workspace/project-store';
 import type { FieldTestRecord, TestPlanItem, TestPlanView } from './field-tests-api';
 import { FieldTestsPage } from './field-tests-page';
-import { completedAt } from './field-tests-words';
+import { fieldTestSummaryOf } from '../../../../../contract/field-tests';
+import { filterMatches, searchMatches, searchTerms } from './field-tests-words';
 
 // An invented project, its spaces and a small plan.
 const project = {
@@ -221,6 +222,8 @@ describe('FieldTestsPage', () => {
     expect(banner).toContain('Testing complete: every required test has passed, the last on Mar 2, 2026.');
     expect(text()).toContain('All tests: 1 of 1 passed.');
     expect(text()).toContain('by someone no longer on the team');
+    // The state bar reads the project: it follows the plan just read.
+    expect(TestBed.inject(ProjectStore).project()?.fieldTests).toMatchObject({ complete: true, passed: 1, required: 1 });
   });
 
   it('dates the completion by the last required pass, not by a later test of an item outside the sample', () => {
@@ -238,8 +241,8 @@ describe('FieldTestsPage', () => {
     const earlier = { ...sensorItem([at('2', '2026-03-01T09:00:00Z')]), id: 'other' };
     const optional = { ...sensorItem([at('3', '2026-03-09T09:00:00Z')]), id: 'optional', required: false, sample: false };
     const view = plan([earlier, required, optional]);
-    expect(completedAt({ ...view, progress: { ...view.progress, complete: true } })).toBe('2026-03-04T09:00:00Z');
-    expect(completedAt(view)).toBeNull();
+    expect(fieldTestSummaryOf({ ...view, progress: { ...view.progress, complete: true } }).completedAt).toBe('2026-03-04T09:00:00Z');
+    expect(fieldTestSummaryOf(view).completedAt).toBeNull();
   });
 
   it('keeps a result taken without a connection, says it waits, and sends it when the connection returns', async () => {
@@ -286,8 +289,106 @@ describe('FieldTestsPage', () => {
 
   it('gives a member who is not the contractor no recording controls', async () => {
     await open('reviewer', plan([sensorItem()]));
+    // Nothing recorded yet: the project says nothing of field tests.
+    expect(TestBed.inject(ProjectStore).project()?.fieldTests).toBeUndefined();
     expect(element.querySelectorAll('[data-testid="field-test-item"]').length).toBe(1);
     expect(element.querySelector('[data-testid="record-test"]')).toBeNull();
     expect(element.querySelector('[data-testid="record-form"]')).toBeNull();
+  });
+
+  describe('showing some of the tests', () => {
+    const passed: FieldTestRecord = {
+      id: 'r1',
+      itemId: 'time-switch:s2',
+      result: 'pass',
+      measured: {},
+      lightLevelUnit: null,
+      notes: null,
+      at: '2026-11-02T15:00:00Z',
+      by: { id: 'u1', name: 'Dana Contractor' },
+    };
+    const lobbySwitch: TestPlanItem = {
+      ...sensorItem([passed]),
+      id: 'time-switch:s2',
+      kind: 'time-switch',
+      title: 'Time switch of the Lobby',
+      spaceIds: ['s2'],
+      combination: undefined,
+      section: 'IECC 2021 C408.3.1.2',
+    } as TestPlanItem;
+    function twoKinds(): TestPlanView {
+      const view = plan([sensorItem(), lobbySwitch]);
+      const kind = (k: 'occupant-sensor' | 'time-switch', label: string, passedCount: number) => ({
+        kind: k,
+        label,
+        required: 1,
+        passed: passedCount,
+        failed: 0,
+        untested: 1 - passedCount,
+      });
+      view.progress.kinds = [kind('occupant-sensor', 'Occupant sensors', 0), kind('time-switch', 'Time switches', 1)];
+      return view;
+    }
+    const titles = () => Array.from(element.querySelectorAll('.item-title')).map((title) => title.textContent?.trim());
+    const button = (testId: string) => element.querySelector<HTMLElement>(`[data-testid="${testId}"] button`)!;
+
+    it('counts each choice, and shows what is still to do, what passed, or nothing failed', async () => {
+      await open('contractor', twoKinds());
+      expect(titles()).toEqual(['Occupant sensor in Exam 1', 'Time switch of the Lobby']);
+      expect(button('filter-to-do').textContent?.replace(/\s+/g, ' ').trim()).toBe('To do 1');
+      button('filter-to-do').click();
+      await fixture.whenStable();
+      expect(titles()).toEqual(['Occupant sensor in Exam 1']);
+      expect(text()).toContain('1 of 2 tests shown.');
+      button('filter-passed').click();
+      await fixture.whenStable();
+      expect(titles()).toEqual(['Time switch of the Lobby']);
+      button('filter-failed').click();
+      await fixture.whenStable();
+      expect(titles()).toEqual([]);
+      expect(text()).toContain('No test is shown by this choice.');
+      (Array.from(element.querySelectorAll('button')).find((b) => b.textContent?.includes('Show every test')) as HTMLElement).click();
+      await fixture.whenStable();
+      expect(titles()).toHaveLength(2);
+    });
+
+    it('finds a test by a space’s name, and folds and opens a kind', async () => {
+      await open('contractor', twoKinds());
+      const search = element.querySelector<HTMLInputElement>('[data-testid="field-test-search"]')!;
+      search.value = '  LOBBY ';
+      search.dispatchEvent(new Event('input'));
+      await fixture.whenStable();
+      expect(titles()).toEqual(['Time switch of the Lobby']);
+      search.value = 'Exam';
+      search.dispatchEvent(new Event('input'));
+      await fixture.whenStable();
+      expect(titles()).toEqual(['Occupant sensor in Exam 1']);
+      search.value = '';
+      search.dispatchEvent(new Event('input'));
+      await fixture.whenStable();
+      const toggles = () => Array.from(element.querySelectorAll<HTMLElement>('[data-testid="field-test-kind"]'));
+      expect(toggles().map((toggle) => toggle.getAttribute('aria-expanded'))).toEqual(['true', 'true']);
+      toggles()[0]!.click();
+      await fixture.whenStable();
+      expect(toggles()[0]!.getAttribute('aria-expanded')).toBe('false');
+      expect(toggles()[0]!.textContent).toContain('Occupant sensors');
+      expect(toggles()[0]!.textContent).toContain('0 of 1 passed, 1 not tested yet.');
+      expect(titles()).toEqual(['Time switch of the Lobby']);
+      toggles()[0]!.click();
+      await fixture.whenStable();
+      expect(titles()).toHaveLength(2);
+    });
+
+    it('reads a search bounded, trimmed and in any case, and a filter by the latest result', () => {
+      expect(searchTerms('  Lobby   East ')).toBe('lobby east');
+      expect(searchTerms('x'.repeat(5000))).toHaveLength(100);
+      expect(searchMatches({ title: 'Time switch', combination: undefined }, ['Lobby  East'], 'lobby east')).toBe(true);
+      expect(searchMatches({ title: 'Time switch', combination: undefined }, ['Lobby'], 'exam')).toBe(false);
+      const failedItem = { required: true, result: { ...passed, result: 'fail' as const } };
+      expect(filterMatches(failedItem, 'to-do')).toBe(true);
+      expect(filterMatches(failedItem, 'failed')).toBe(true);
+      expect(filterMatches({ required: false }, 'to-do')).toBe(false);
+      expect(filterMatches({ required: true, result: passed }, 'to-do')).toBe(false);
+    });
   });
 });

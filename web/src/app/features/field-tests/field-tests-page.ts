@@ -9,9 +9,11 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { phoneScreen, screenMatches } from '../../shared/media-queries';
 import { failureWords } from '../../shared/write-failure';
 import { ProjectStore } from '../workspace/project-store';
 import { FieldTestPhotos } from './field-test-photos';
+import { fieldTestSummaryOf } from '../../../../../contract/field-tests';
 import { FieldTestQueue, isOffline, queueLimit } from './field-test-queue';
 import {
   FieldTestsApi,
@@ -23,7 +25,6 @@ import {
 } from './field-tests-api';
 import {
   checkMeasured,
-  completedAt,
   groupWords,
   lightUnit,
   measuredByKind,
@@ -32,7 +33,13 @@ import {
   progressPercent,
   progressWords,
   resultWords,
+  searchLimit,
+  searchMatches,
+  searchTerms,
+  filterMatches,
+  testFilters,
   type MeasuredField,
+  type TestFilter,
 } from './field-tests-words';
 
 type PlanState = { status: 'loading' } | { status: 'ready'; plan: TestPlanView } | { status: 'failed'; message: string };
@@ -76,7 +83,7 @@ export class FieldTestsPage {
   protected readonly groupWords = groupWords;
   protected readonly progressWords = progressWords;
   protected readonly progressPercent = progressPercent;
-  protected readonly completedAt = completedAt;
+  protected readonly completedAt = (plan: TestPlanView) => fieldTestSummaryOf(plan).completedAt;
 
   protected readonly state = signal<PlanState>({ status: 'loading' });
   protected readonly plan = computed(() => {
@@ -96,15 +103,78 @@ export class FieldTestsPage {
   protected readonly isContractor = computed(() => this.store.project()?.role === 'contractor');
   protected readonly lightUnit = computed(() => lightUnit(this.store.units()));
 
-  /** The items by kind, in the order of the progress (the service's order of kinds). */
+  protected readonly testFilters = testFilters;
+  protected readonly searchLimit = searchLimit;
+  /** Which tests are shown, and the search typed. */
+  protected readonly filter = signal<TestFilter>('all');
+  protected readonly search = signal('');
+  private readonly terms = computed(() => searchTerms(this.search()));
+  /** On a phone each kind starts folded to its heading and progress, so the page is a list of kinds to open; filtered, open. */
+  private readonly phone = screenMatches(phoneScreen);
+  /** The kinds the person opened or folded, over the default of the screen. */
+  private readonly foldedByPerson = signal<ReadonlyMap<TestKind, boolean>>(new Map());
+
+  /** How many items each filter shows, for its label. */
+  protected readonly filterCounts = computed(() => {
+    const items = this.plan()?.items ?? [];
+    return new Map(testFilters.map(({ value }) => [value, items.filter((item) => filterMatches(item, value)).length]));
+  });
+
+  private readonly shownItems = computed(() => {
+    const plan = this.plan();
+    if (!plan) return [];
+    const filter = this.filter();
+    const terms = this.terms();
+    return plan.items.filter(
+      (item) =>
+        filterMatches(item, filter) &&
+        searchMatches(
+          item,
+          item.spaceIds.map((id) => this.spaceNames().get(id) ?? ''),
+          terms,
+        ),
+    );
+  });
+
+  /** Whether the filter or the search hides some items. */
+  protected readonly narrowed = computed(() => this.filter() !== 'all' || this.terms() !== '');
+  protected readonly shownWords = computed(() => {
+    const total = this.plan()?.items.length ?? 0;
+    const shown = this.shownItems().length;
+    if (!this.narrowed()) return '';
+    if (shown === 0)
+      return this.terms() ? `No test matches “${this.search().trim()}” among those shown.` : 'No test is shown by this choice.';
+    return `${shown.toLocaleString('en-US')} of ${total.toLocaleString('en-US')} ${total === 1 ? 'test' : 'tests'} shown.`;
+  });
+
+  /**
+   * The shown items by kind, in the order of the progress (the service's order of kinds); a kind
+   * with none shown is left out. A search opens the kinds it finds something in; a filter opens
+   * those the person has not folded.
+   */
   protected readonly sections = computed(() => {
     const plan = this.plan();
     if (!plan) return [];
-    return plan.progress.kinds.map((kind) => ({
-      ...kind,
-      groups: plan.groups.filter((group) => group.kind === kind.kind),
-      items: plan.items.filter((item) => item.kind === kind.kind),
-    }));
+    const shown = this.shownItems();
+    const searching = this.terms() !== '';
+    const narrowed = this.narrowed();
+    return plan.progress.kinds
+      .map((kind) => {
+        const items = shown.filter((item) => item.kind === kind.kind);
+        const folded = !searching && (this.foldedByPerson().get(kind.kind) ?? (narrowed ? false : this.phone()));
+        return {
+          ...kind,
+          folded,
+          shown: items.length,
+          total: plan.items.filter((item) => item.kind === kind.kind).length,
+          // Narrowed, only the samples of the items shown.
+          groups: plan.groups.filter(
+            (group) => group.kind === kind.kind && (!narrowed || items.some((item) => group.itemIds.includes(item.id))),
+          ),
+          items: folded ? [] : items,
+        };
+      })
+      .filter((section) => section.shown > 0);
   });
 
   /** This project's results waiting for a connection, and what sending the others met. */
@@ -137,6 +207,23 @@ export class FieldTestsPage {
     };
     window.addEventListener('online', online);
     this.destroyRef.onDestroy(() => window.removeEventListener('online', online));
+  }
+
+  protected toggle(kind: TestKind, folded: boolean): void {
+    this.foldedByPerson.update((map) => new Map(map).set(kind, !folded));
+  }
+
+  protected setFilter(filter: TestFilter): void {
+    this.filter.set(filter);
+  }
+
+  protected setSearch(text: string): void {
+    this.search.set(text.slice(0, searchLimit));
+  }
+
+  protected showAll(): void {
+    this.filter.set('all');
+    this.search.set('');
   }
 
   /** The queued result of an item, while it waits to be sent. */
@@ -176,7 +263,11 @@ export class FieldTestsPage {
       .plan(projectId)
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({
-        next: (plan) => this.state.set({ status: 'ready', plan }),
+        next: (plan) => {
+          this.state.set({ status: 'ready', plan });
+          // As the service keeps it on the project: nothing to say before any test is recorded.
+          if (plan.items.some((item) => item.history.length > 0)) this.store.setFieldTests(fieldTestSummaryOf(plan));
+        },
         error: (error: unknown) => this.state.set({ status: 'failed', message: failureWords(error) }),
       });
   }

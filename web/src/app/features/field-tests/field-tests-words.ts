@@ -1,4 +1,4 @@
-import type { FieldTestRecord, KindProgress, MeasuredValues, TestKind, TestPlanGroup, TestPlanView, TestProgress } from './field-tests-api';
+import type { FieldTestRecord, KindProgress, MeasuredValues, TestKind, TestPlanGroup, TestPlanItem, TestProgress } from './field-tests-api';
 
 export type MeasuredField = keyof MeasuredValues;
 
@@ -79,13 +79,43 @@ export function checkMeasured(field: MeasuredField, text: string): { ok: true; v
   return { ok: true, value: trimmed };
 }
 
-/** When the last required item passed, once every required item has: the time of the latest of their passing results. */
-export function completedAt(plan: Pick<TestPlanView, 'items' | 'progress'>): string | null {
-  if (!plan.progress.complete) return null;
-  let latest: string | null = null;
-  for (const item of plan.items) {
-    if (!item.required || item.result?.result !== 'pass') continue;
-    if (latest === null || Date.parse(item.result.at) > Date.parse(latest)) latest = item.result.at;
+/** Which tests the page shows: all of them, those still to do (required and not passed), or by their latest result. */
+export type TestFilter = 'all' | 'to-do' | 'failed' | 'passed';
+
+export const testFilters: readonly { value: TestFilter; label: string }[] = [
+  { value: 'all', label: 'All' },
+  { value: 'to-do', label: 'To do' },
+  { value: 'failed', label: 'Failed' },
+  { value: 'passed', label: 'Passed' },
+];
+
+/** The longest search the page reads: a space's name or a test's title fits well within it. */
+export const searchLimit = 100;
+
+type FilteredItem = Pick<TestPlanItem, 'required' | 'result'>;
+
+/** Whether an item is among those a filter shows; “to do” is what testing still needs: untested or failed, and required. */
+export function filterMatches(item: FilteredItem, filter: TestFilter): boolean {
+  switch (filter) {
+    case 'all':
+      return true;
+    case 'to-do':
+      return item.required && item.result?.result !== 'pass';
+    case 'failed':
+      return item.result?.result === 'fail';
+    case 'passed':
+      return item.result?.result === 'pass';
   }
-  return latest;
+}
+
+/** A search as typed, ready to compare: trimmed, bounded, lower case, spaces run together. */
+export function searchTerms(text: string): string {
+  return text.slice(0, searchLimit).trim().replace(/\s+/g, ' ').toLocaleLowerCase('en-US');
+}
+
+/** Whether an item's title, its combination or one of its spaces' names holds the search (already through `searchTerms`). */
+export function searchMatches(item: Pick<TestPlanItem, 'title' | 'combination'>, spaceNames: readonly string[], terms: string): boolean {
+  if (terms === '') return true;
+  const holds = (text: string | undefined) => !!text && text.replace(/\s+/g, ' ').toLocaleLowerCase('en-US').includes(terms);
+  return holds(item.title) || holds(item.combination) || spaceNames.some(holds);
 }

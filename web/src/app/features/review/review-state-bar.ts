@@ -80,12 +80,17 @@ import { openReturnDialog } from './return-dialog';
     }
     .state {
       display: flex;
+      flex-wrap: wrap;
       align-items: baseline;
-      gap: 12px;
+      gap: 4px 12px;
       margin: 0;
     }
     .label {
       font: var(--mat-sys-title-medium);
+    }
+    .label,
+    .meta {
+      white-space: nowrap;
     }
     .meta {
       color: var(--mat-sys-on-surface-variant);

@@ -372,6 +372,11 @@ export class ProjectStore {
     this.refreshResults();
   }
 
+  /** Where the field tests stand, as the test plan just read says: the state bar follows the tests recorded. */
+  setFieldTests(summary: ProjectDetail['fieldTests']): void {
+    this.projectState.update((project) => (project ? { ...project, fieldTests: summary } : project));
+  }
+
   /** The project's team changed: the rest of the set-up is as it was. */
   setMembers(members: ProjectDetail['members']): void {
     this.projectState.update((project) => (project ? { ...project, members } : project));
