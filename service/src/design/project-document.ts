@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { EvaluationDocumentInput } from '../compliance/document.js';
 import { NotFound, Refused } from '../domain-errors.js';
+import { readAll } from '../db/database.js';
 import { projectSetup } from '../projects/projects.repository.js';
 import { liveClaimsForDocument } from './allowance-claims.repository.js';
 import { listExteriorApplications, listLuminaireTypes, listSpaces } from './design.repository.js';
@@ -18,11 +19,11 @@ export async function projectDocument(db: Knex, projectId: string): Promise<Eval
       ...(project.method ? [] : [{ path: 'method', message: 'Required.' }]),
     ]);
   }
-  const [types, spaces, exterior, claims] = await Promise.all([
-    listLuminaireTypes(db, projectId),
-    listSpaces(db, projectId),
-    listExteriorApplications(db, projectId),
-    liveClaimsForDocument(db, projectId),
+  const [types, spaces, exterior, claims] = await readAll(db, [
+    () => listLuminaireTypes(db, projectId),
+    () => listSpaces(db, projectId),
+    () => listExteriorApplications(db, projectId),
+    () => liveClaimsForDocument(db, projectId),
   ]);
   const document: EvaluationDocumentInput = {
     edition: project.edition_id,
