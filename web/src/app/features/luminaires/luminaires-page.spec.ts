@@ -114,6 +114,41 @@ describe('LuminairesPage', () => {
     expect(store.luminaireTypes().map((type) => type.id)).toEqual(['t1', 't2', 't3']);
   });
 
+  it('says a deleted type’s cut sheet went with it, and that Undo brings the type back without it', async () => {
+    await answerCutSheets([
+      {
+        luminaireTypeId: 't1',
+        fileName: 'A data.pdf',
+        size: 1000,
+        sha256: 'b'.repeat(64),
+        uploadedAt: '2026-11-01T10:00:00Z',
+        uploadedBy: 'Invented Engineer',
+        url: '/api/projects/p1/luminaire-types/t1/cut-sheet',
+      },
+    ]);
+    element.querySelector<HTMLButtonElement>('button[aria-label="Delete type A"]')!.click();
+    http
+      .expectOne((request) => request.method === 'DELETE' && request.url === '/api/projects/p1/luminaire-types/t1')
+      .flush(null, { status: 204, statusText: 'No Content' });
+    await fixture.whenStable();
+    expect(snackBar()?.textContent).toContain('Luminaire type “A” deleted, with its cut sheet');
+    Array.from(snackBar()!.querySelectorAll<HTMLButtonElement>('button'))
+      .find((button) => button.textContent?.includes('Undo'))!
+      .click();
+    http
+      .expectOne((request) => request.method === 'POST' && request.url === '/api/projects/p1/luminaire-types/t1/restore')
+      .flush(types[0]!, { status: 201, statusText: 'Created' });
+    // The cut sheets are read again (the page waits on that request, so it is answered first).
+    TestBed.tick();
+    http.expectOne('/api/projects/p1/cut-sheets').flush([]);
+    await fixture.whenStable();
+    // The snackbar of the deletion gives way to this one.
+    await expect
+      .poll(async () => (await fixture.whenStable(), document.body.textContent))
+      .toContain('Type “A” is back without its cut sheet: upload the cut sheet again.');
+    expect(element.querySelector('a[aria-label^="Download the cut sheet of type A"]')).toBeNull();
+  });
+
   it('says why a type still counted in spaces is kept, with no offer to reload', async () => {
     await answerCutSheets();
     element.querySelector<HTMLButtonElement>('button[aria-label="Delete type B"]')!.click();

@@ -174,19 +174,30 @@ export class LuminairesPage implements HasUnsavedChanges {
       });
   }
 
-  /** No question first: the snackbar's Undo brings the type back with its id. */
+  /**
+   * No question first: the snackbar's Undo brings the type back with its id. Its cut sheet leaves
+   * the file store with it, so the words say so and Undo says to upload it again.
+   */
   protected deleteType(type: LuminaireTypeRecord): void {
     const projectId = this.store.projectId();
     if (!projectId) return;
+    const hadCutSheet = this.cutSheetOf().has(type.id);
     this.writeFailure.save(this.api.deleteLuminaireType(projectId, type.id, type.version), {
       saved: () => {
         this.store.removeLuminaireType(type.id);
         this.snackBar
-          .open(`Luminaire type “${type.tag}” deleted`, 'Undo', { duration: 8000 })
+          .open(`Luminaire type “${type.tag}” deleted${hadCutSheet ? ', with its cut sheet' : ''}`, 'Undo', { duration: 8000 })
           .onAction()
           .subscribe(() =>
             this.api.restoreLuminaireType(projectId, type.id).subscribe({
-              next: (restored) => this.store.upsertLuminaireType(restored),
+              next: (restored) => {
+                this.store.upsertLuminaireType(restored);
+                if (!hadCutSheet) return;
+                this.cutSheets.reload();
+                this.snackBar.open(`Type “${type.tag}” is back without its cut sheet: upload the cut sheet again.`, 'OK', {
+                  duration: 10000,
+                });
+              },
               error: (error: unknown) => this.writeFailure.report(error, () => this.reloadTypes()),
             }),
           );
