@@ -162,6 +162,33 @@ function exteriorTotal(sheet: ExcelJS.Worksheet): string {
   return summaryCell(sheet, 'Exterior lighting power', 'Allowance').address;
 }
 
+/**
+ * Each part of a .xlsx by name, with every shared-string reference in the sheets replaced by its
+ * text and the shared strings as a sorted list: two files whose strings sit in another order in
+ * the shared strings read back the same.
+ */
+async function partsWithStrings(buffer: Buffer): Promise<Map<string, string>> {
+  const zip = await JSZip.loadAsync(buffer);
+  const sst = await zip.file('xl/sharedStrings.xml')!.async('string');
+  const strings = [...sst.matchAll(/<si>([\s\S]*?)<\/si>/g)].map((match) => match[1]!);
+  const parts = new Map<string, string>();
+  for (const [name, entry] of Object.entries(zip.files)) {
+    if (entry.dir) continue;
+    const xml = await entry.async('string');
+    if (name === 'xl/sharedStrings.xml') {
+      parts.set(name, `${/<sst [^>]*>/.exec(xml)![0]} ${[...strings].sort().join('\n')}`);
+    } else if (name.startsWith('xl/worksheets/sheet')) {
+      parts.set(
+        name,
+        xml.replace(/ t="s"><v>(\d+)<\/v>/g, (_whole, index: string) => ` t="s"><v>${strings[Number(index)]}</v>`),
+      );
+    } else {
+      parts.set(name, xml);
+    }
+  }
+  return parts;
+}
+
 function tableNames(sheet: ExcelJS.Worksheet): string[] {
   return Object.keys((sheet as unknown as { tables: Record<string, unknown> }).tables ?? {});
 }
@@ -498,6 +525,29 @@ describe('the Excel compliance workbook', () => {
       expect(sheet.getCell(2 + index, 2).value).toBe(value.citation.short);
       expect(sheet.getCell(2 + index, 4).value).toEqual(expect.any(String));
     });
+  });
+
+  it('writes the table rows after each first one as the very markup exceljs writes for them, text escaped', async () => {
+    // Names with every character XML escapes, one XML 1.0 cannot hold (exceljs drops it) and spaces
+    // exceljs keeps with xml:space, on every space, so the rows written after packing carry them.
+    const spaces = input.result.interior.spaces.map((space, index) => ({
+      ...space,
+      name: index % 2 === 0 ? `${space.name} & <Stair> "A" 'B'\u0007` : ` ${space.name}\n`,
+    }));
+    const named = { ...input, result: { ...input.result, interior: { ...input.result.interior, spaces } } };
+    const fast = await buildComplianceWorkbook(named);
+    const reference = await buildComplianceWorkbook(named, { rowsViaExceljs: true });
+    const fastParts = await partsWithStrings(fast);
+    const referenceParts = await partsWithStrings(reference);
+    expect([...fastParts.keys()]).toEqual([...referenceParts.keys()]);
+    for (const [name, xml] of referenceParts) expect(fastParts.get(name), name).toBe(xml);
+    // The two files differ in where the later rows' strings sit among the shared strings.
+    const spacesSheet = async (file: Buffer) => (await JSZip.loadAsync(file)).file('xl/worksheets/sheet2.xml')!.async('string');
+    expect(await spacesSheet(fast)).not.toBe(await spacesSheet(reference));
+    const read = await readWorkbook(fast);
+    const names = orderedSpaces(named.result).map((space) => space.name.replace('\u0007', ''));
+    expect(names.length).toBeGreaterThan(2);
+    names.forEach((name, index) => expect(read.getWorksheet('Spaces')!.getCell(2 + index, 3).value).toBe(name));
   });
 
   it('writes SI formats and reproduces SI allowances where the project is in SI', async () => {

@@ -1,5 +1,6 @@
 import ExcelJS from 'exceljs';
 import type { Decimal } from 'decimal.js';
+import JSZip from 'jszip';
 import type { ControlLine, ExteriorApplicationResult, SpaceResult } from '../../../contract/result.js';
 import { squareMetresPerSquareFootText } from '../../../contract/editions.js';
 import { dec, sum, ZERO } from '../compliance/numbers.js';
@@ -32,11 +33,16 @@ import {
  * SUM over each table's column) whose cached results are the engine's values, so the file opens
  * with the engine's figures and a reviewer who changes an input sees the effect.
  *
+ * Each table's data rows after the first are written as sheet XML after packing (`withLaterRows`),
+ * unless `rowsViaExceljs` asks for every row as exceljs cells, the reference the tests compare with.
+ *
  * Pure: reads only its input, no clock, no network.
  */
 export async function buildComplianceWorkbook(input: PackageInput, options: CompliancePackageOptions = {}): Promise<Buffer> {
   const { project, result, revision } = input;
   const workbook = new ExcelJS.Workbook();
+  const later: LaterRows[] = [];
+  if (!options.rowsViaExceljs) laterRows.set(workbook, later);
   workbook.creator = revision.madeBy;
   workbook.title = `${project.name}: lighting compliance workbook, revision ${revision.number}`;
   workbook.created = new Date(revision.madeAt);
@@ -72,7 +78,172 @@ export async function buildComplianceWorkbook(input: PackageInput, options: Comp
   const buffer = await workbook.xlsx.writeBuffer({
     zip: { compression: 'DEFLATE', compressionOptions: { level: 1 } },
   } as ExcelJS.XlsxWriteOptions);
-  return Buffer.from(buffer);
+  return later.length === 0 ? Buffer.from(buffer) : withLaterRows(Buffer.from(buffer), later);
+}
+
+// ---------------------------------------------------------------- rows written after packing
+
+/**
+ * A table's data rows after its first, written into the sheet's XML after exceljs has packed the
+ * workbook. exceljs keeps a model of every cell and renders each through many small strings: for
+ * a 5,000-space project that took most of the build's time and memory.
+ */
+interface LaterRows {
+  sheet: ExcelJS.Worksheet;
+  /** The table's first data row: exceljs writes it, and its cells give each column's style in the file. */
+  first: number;
+  /** The rows that follow it, from row first + 1. */
+  rows: Cell[][];
+}
+
+/** The rows left for after packing, by workbook; a workbook not listed has every row written by exceljs. */
+const laterRows = new WeakMap<ExcelJS.Workbook, LaterRows[]>();
+
+/** Puts the later rows into their sheets' XML, their strings into the shared strings, and packs the workbook again. */
+async function withLaterRows(packed: Buffer, later: LaterRows[]): Promise<Buffer> {
+  const zip = await JSZip.loadAsync(packed);
+  const part = async (name: string) => {
+    const entry = zip.file(name);
+    if (entry === null) throw new Error(`the packed workbook has no ${name}`);
+    return entry.async('string');
+  };
+  const strings = new SharedStrings(await part('xl/sharedStrings.xml'));
+  for (const sheet of new Set(later.map((rows) => rows.sheet))) {
+    // exceljs names each sheet's part by the sheet's id.
+    const name = `xl/worksheets/sheet${sheet.id}.xml`;
+    let xml = await part(name);
+    for (const rows of later) if (rows.sheet === sheet) xml = withRows(xml, rows, strings);
+    zip.file(name, xml);
+  }
+  zip.file('xl/sharedStrings.xml', strings.xml());
+  // Parts left as they were keep exceljs's compressed data; the ones replaced are compressed as exceljs does.
+  return zip.generateAsync({ type: 'nodebuffer', compression: 'DEFLATE', compressionOptions: { level: 1 } });
+}
+
+/** The sheet's XML with the rows after the table's first data row, and its dimension widened to them. */
+function withRows(xml: string, later: LaterRows, strings: SharedStrings): string {
+  const start = xml.indexOf(`<row r="${later.first}" `);
+  const end = start < 0 ? -1 : xml.indexOf('</row>', start);
+  if (end < 0) throw new Error(`row ${later.first} of ${later.sheet.name} is missing from the packed workbook`);
+  const after = end + '</row>'.length;
+  const styles: (string | undefined)[] = [];
+  for (const match of xml.slice(start, after).matchAll(/<c r="([A-Z]+)\d+"(?: s="(\d+)")?/g)) {
+    styles[columnNumber(match[1]!)] = match[2];
+  }
+  const parts: string[] = [];
+  let lastRow = 0;
+  let lastColumn = 0;
+  later.rows.forEach((values, index) => {
+    const row = later.first + 1 + index;
+    const written = rowXml(row, values, styles, strings);
+    if (written === null) return;
+    parts.push(written.xml);
+    lastRow = row;
+    lastColumn = Math.max(lastColumn, written.last);
+  });
+  const body = xml.slice(0, after) + parts.join('') + xml.slice(after);
+  return body.replace(/<dimension ref="([A-Z]+\d+)(?::([A-Z]+)(\d+))?"\/>/, (_whole, from: string, toColumn?: string, toRow?: string) => {
+    const column = Math.max(toColumn === undefined ? columnNumber(from.replace(/\d+/, '')) : columnNumber(toColumn), lastColumn);
+    const row = Math.max(toRow === undefined ? Number(from.replace(/[A-Z]+/, '')) : Number(toRow), lastRow);
+    return `<dimension ref="${from}:${letter(column)}${row}"/>`;
+  });
+}
+
+/**
+ * One row as exceljs writes it: each cell with its address, the column's style, and its value: a
+ * number, a shared string, or a formula with its cached result. Null when the row has no cells
+ * (exceljs leaves such a row out).
+ */
+function rowXml(row: number, values: Cell[], styles: (string | undefined)[], strings: SharedStrings): { xml: string; last: number } | null {
+  let cells = '';
+  let first = 0;
+  let last = 0;
+  values.forEach((value, index) => {
+    const column = index + 1;
+    const style = styles[column];
+    const head = `<c r="${letter(column)}${row}"${style === undefined ? '' : ` s="${style}"`}`;
+    let cell: string;
+    if (value === null || value === undefined) {
+      if (style === undefined) return;
+      cell = `${head}/>`;
+    } else if (typeof value === 'number') {
+      cell = `${head}><v>${value}</v></c>`;
+    } else if (typeof value === 'string') {
+      cell = `${head} t="s"><v>${strings.index(value)}</v></c>`;
+    } else if (typeof value === 'boolean') {
+      cell = `${head} t="b"><v>${value ? 1 : 0}</v></c>`;
+    } else if (typeof value === 'object' && 'formula' in value && value.formula !== undefined) {
+      const cached = value.result;
+      const text = escapeXml(value.formula);
+      if (typeof cached === 'number') cell = `${head}><f>${text}</f><v>${cached}</v></c>`;
+      else if (typeof cached === 'string') cell = `${head} t="str"><f>${text}</f><v>${escapeXml(cached)}</v></c>`;
+      else if (typeof cached === 'boolean') cell = `${head} t="b"><f>${text}</f><v>${cached ? 1 : 0}</v></c>`;
+      else throw new Error(`the formula of ${letter(column)}${row} has a cached result the workbook does not write`);
+    } else {
+      throw new Error(`${letter(column)}${row} holds a value the workbook does not write`);
+    }
+    if (first === 0) first = column;
+    last = column;
+    cells += cell;
+  });
+  if (first === 0) return null;
+  return { xml: `<row r="${row}" spans="${first}:${last}" x14ac:dyDescent="0.25">${cells}</row>`, last };
+}
+
+/** The workbook's shared strings as exceljs wrote them, and the later rows' strings added after them. */
+class SharedStrings {
+  private readonly open: string;
+  private readonly before: string;
+  private readonly written: string;
+  private readonly added: string[] = [];
+  /** Each plain entry's index by its text as written in the file (escaped), so that strings stored alike are one entry. */
+  private readonly indexOf = new Map<string, number>();
+  private count: number;
+  private unique = 0;
+
+  constructor(xml: string) {
+    const open = /<sst [^>]*>/.exec(xml);
+    const close = xml.lastIndexOf('</sst>');
+    if (open === null || close < 0) throw new Error('the packed workbook has shared strings that are not an <sst> element');
+    this.before = xml.slice(0, open.index);
+    this.open = open[0];
+    this.written = xml.slice(open.index + open[0].length, close);
+    this.count = Number(/ count="(\d+)"/.exec(open[0])?.[1] ?? 0);
+    // A plain entry is a <t> alone; any other (rich text) takes its place in the count and is not reused.
+    for (const match of this.written.matchAll(/<si>(?:<t(?: xml:space="preserve")?>([^<]*)<\/t><\/si>|[\s\S]*?<\/si>)/g)) {
+      if (match[1] !== undefined && !this.indexOf.has(match[1])) this.indexOf.set(match[1], this.unique);
+      this.unique += 1;
+    }
+  }
+
+  /** The string's index, added when it is new. */
+  index(text: string): number {
+    this.count += 1;
+    const escaped = escapeXml(text);
+    let index = this.indexOf.get(escaped);
+    if (index === undefined) {
+      index = this.unique;
+      this.unique += 1;
+      this.indexOf.set(escaped, index);
+      // exceljs keeps a string's leading or trailing space and line breaks the same way.
+      const preserve = /^\s|\n|\s$/.test(text) ? ' xml:space="preserve"' : '';
+      this.added.push(`<si><t${preserve}>${escaped}</t></si>`);
+    }
+    return index;
+  }
+
+  xml(): string {
+    const open = this.open.replace(/ count="\d+"/, ` count="${this.count}"`).replace(/ uniqueCount="\d+"/, ` uniqueCount="${this.unique}"`);
+    return `${this.before}${open}${this.written}${this.added.join('')}</sst>`;
+  }
+}
+
+const xmlEscapes: Record<string, string> = { '"': '&quot;', '&': '&amp;', "'": '&apos;', '<': '&lt;', '>': '&gt;' };
+
+/** Text escaped as exceljs escapes it: the five XML entities, and the control characters XML 1.0 has no place for dropped. */
+function escapeXml(text: string): string {
+  // eslint-disable-next-line no-control-regex -- these very characters are what is matched
+  return text.replace(/[<>&'"\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/g, (char) => xmlEscapes[char] ?? '');
 }
 
 /**
@@ -170,6 +341,13 @@ function num(value: string | Decimal): number {
   return Number(typeof value === 'string' ? value : value.toString());
 }
 
+/** The number of a column by its letters: A is 1, AA is 27. */
+function columnNumber(letters: string): number {
+  let number = 0;
+  for (const char of letters) number = number * 26 + (char.charCodeAt(0) - 64);
+  return number;
+}
+
 function letter(column: number): string {
   let text = '';
   let rest = column;
@@ -265,6 +443,11 @@ function writeTable(sheet: ExcelJS.Worksheet, spec: TableSpec): WrittenTable {
     return written;
   }
   const withTotals = spec.columns.some((column) => column.total !== undefined);
+  // With the rows after the first left for after packing, exceljs still gets a row for each (the
+  // table's range follows their number) but cells only in the first.
+  const later = spec.rows.length > 1 ? laterRows.get(sheet.workbook) : undefined;
+  later?.push({ sheet, first, rows: spec.rows.slice(1) });
+  const lastInModel = later === undefined ? last : first;
   sheet.addTable({
     name: spec.name,
     ref: `A${spec.top}`,
@@ -277,7 +460,7 @@ function writeTable(sheet: ExcelJS.Worksheet, spec: TableSpec): WrittenTable {
       ...(withTotals && index === 0 ? { totalsRowLabel: 'Total' } : {}),
       ...(column.total !== undefined ? { totalsRowFunction: 'custom' as const, totalsRowFormula: sumOf(index + 1, first, last) } : {}),
     })),
-    rows: spec.rows,
+    rows: later === undefined ? spec.rows : spec.rows.map((row, index) => (index === 0 ? row : [])),
   });
   spec.columns.forEach((column, index) => {
     if (column.numFmt === undefined && !column.wrap) return;
@@ -288,7 +471,7 @@ function writeTable(sheet: ExcelJS.Worksheet, spec: TableSpec): WrittenTable {
     // One style object for the column's data cells (nothing changes their style afterwards), so
     // exceljs renders it once; the totals row's cells get their own, as the row is made bold below.
     const shared = style();
-    for (let row = first; row <= last; row++) sheet.getCell(row, index + 1).style = shared;
+    for (let row = first; row <= lastInModel; row++) sheet.getCell(row, index + 1).style = shared;
     if (withTotals) sheet.getCell(last + 1, index + 1).style = style();
   });
   if (withTotals) {

@@ -40,6 +40,8 @@ export interface CompliancePackageOptions {
   cutSheets?: ReadonlyMap<string, string>;
   /** Word only: every table row built with docx's objects: slow on a large project; the reference the tests compare the fast path with. */
   tablesViaDocx?: boolean;
+  /** Excel only: every table row written by exceljs: slow on a large project; the reference the tests compare the fast path with. */
+  rowsViaExceljs?: boolean;
 }
 
 export type PackageFormat = 'docx' | 'xlsx' | 'pdf';
