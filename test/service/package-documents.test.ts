@@ -9,7 +9,7 @@ import { loadEditionData } from '../../service/src/code-tables/code-tables.repos
 import { evaluate, validateDocument, type EditionData } from '../../service/src/compliance/index.js';
 import type { EvaluationDocument } from '../../service/src/compliance/document.js';
 import { projectDocument } from '../../service/src/design/project-document.js';
-import { buildCompliancePackage, draftMark } from '../../service/src/package/compliance-package.js';
+import { buildCompliancePackage, draftMark, utf8Pieces } from '../../service/src/package/compliance-package.js';
 import { buildComplianceWorkbook } from '../../service/src/package/compliance-workbook.js';
 import type { PackageInput } from '../../service/src/package/package-input.js';
 import { orderedSpaces, withUnits } from '../../service/src/package/package-words.js';
@@ -339,7 +339,7 @@ describe('the Word compliance package', () => {
 
   it('writes its table rows as the very markup docx writes for them, text escaped', async () => {
     // A name with every character XML escapes, and one XML 1.0 cannot hold (dropped: docx would write it and break the file).
-    const name = `Lobby & <Stair> "A" 'B'\u0007`;
+    const name = `Lobby & <Stair> "A" 'B' 🏛️\u0007`;
     const spaces = input.result.interior.spaces.map((space, index) => (index === 0 ? { ...space, name } : space));
     const named = { ...input, result: { ...input.result, interior: { ...input.result.interior, spaces } } };
     // The plans' pictures get a new random name in each build (docx names them): compared without them.
@@ -350,10 +350,20 @@ describe('the Word compliance package', () => {
       );
     const fast = await documentXml(await buildCompliancePackage(named));
     const reference = await documentXml(await buildCompliancePackage(named, { tablesViaDocx: true }));
-    expect(fast).toContain('Lobby &amp; &lt;Stair&gt; &quot;A&quot; &apos;B&apos;</w:t>');
+    expect(fast).toContain('Lobby &amp; &lt;Stair&gt; &quot;A&quot; &apos;B&apos; 🏛️</w:t>');
     expect(fast).not.toContain('\u0007');
     expect(fast).not.toContain('TableBodyRows');
     expect(fast).toBe(reference.replace('\u0007', ''));
+  });
+
+  it('streams the document into the file in UTF-8 pieces that never cut a character in two', () => {
+    // 🏛 is U+1F3DB, two UTF-16 code units (a surrogate pair), four bytes in UTF-8.
+    const texts = ['ab🏛cd', '', '🏛🏛', 'é'.repeat(5)];
+    for (const size of [1, 2, 3, 4, 1 << 20]) {
+      const pieces = [...utf8Pieces(texts, size)];
+      expect(Buffer.concat(pieces).toString('utf8')).toBe(texts.join(''));
+      for (const piece of pieces) expect(piece.toString('utf8')).not.toContain('\uFFFD');
+    }
   });
 });
 

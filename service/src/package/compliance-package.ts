@@ -20,6 +20,7 @@ import {
   WidthType,
   type FileChild,
 } from 'docx';
+import { Readable } from 'node:stream';
 import JSZip from 'jszip';
 import type { ControlLine, EvaluationResult, SpaceResult } from '../../../contract/result.js';
 import { reviewItemKindLabels, reviewVerdictLabels, type ReviewItem, type ReviewOutcome } from '../../../contract/review.js';
@@ -387,8 +388,26 @@ async function withTableBodies(packed: Buffer, rows: string[]): Promise<Buffer> 
     from = end + '</w:tr>'.length;
   });
   parts.push(xml.slice(from));
-  zip.file('word/document.xml', parts.join(''));
+  // Streamed into the zip a megabyte at a time: the whole document is never one string (on a large
+  // project it is tens of megabytes, held twice over as text and as UTF-8).
+  zip.file('word/document.xml', Readable.from(utf8Pieces(parts)));
   return zip.generateAsync({ type: 'nodebuffer', compression: 'DEFLATE', compressionOptions: { level: 6 } });
+}
+
+/** The texts as UTF-8, in pieces of about a million characters, none cut inside a surrogate pair. */
+export function* utf8Pieces(texts: readonly string[], size = 1 << 20): Generator<Buffer> {
+  for (const text of texts) {
+    let at = 0;
+    while (at < text.length) {
+      let end = Math.min(at + size, text.length);
+      // A high surrogate at the cut stays with its low half: both go to the next piece, or to this
+      // one when it is the piece's only character.
+      const last = text.charCodeAt(end - 1);
+      if (end < text.length && last >= 0xd800 && last <= 0xdbff) end += end - at > 1 ? -1 : 1;
+      yield Buffer.from(text.slice(at, end), 'utf8');
+      at = end;
+    }
+  }
 }
 
 /** A two-column table of labels and values. */
