@@ -7,6 +7,7 @@ import sharp from 'sharp';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { TestPlanView } from '../../contract/field-tests.js';
 import { outputDir, type Browser, type Served } from '../support/browser.js';
+import { wordText } from '../support/xml-text.js';
 import { closeStorageBrowserSuite, openStorageBrowserSuite, signInToDemo, type StorageBrowserSuite } from '../support/browser-suite.js';
 
 let suite: StorageBrowserSuite;
@@ -210,17 +211,10 @@ describe(
       const saved = path.join(outputDir, 'field-test-record.docx');
       await file.saveAs(saved);
       const zip = await JSZip.loadAsync(readFileSync(saved));
-      // The document's text: its runs without the markup, the XML's entities read.
-      const words = (await zip.file('word/document.xml')!.async('string'))
-        .replace(/<[^>]+>/g, '')
-        .replace(/&apos;/g, "'")
-        .replace(/&quot;/g, '"')
-        .replace(/&lt;/g, '<')
-        .replace(/&gt;/g, '>')
-        .replace(/&amp;/g, '&');
+      const words = wordText(await zip.file('word/document.xml')!.async('string'));
       expect(words).toContain('Field test record');
-      for (const title of switchTitles) expect(words).toContain(`${title}Result: Passed`);
-      expect(words).toContain(`${sensorTitle}Result: Failed`);
+      for (const title of switchTitles) expect(words).toContain(`${title}\nResult: Passed`);
+      expect(words).toContain(`${sensorTitle}\nResult: Failed`);
       expect(words).toContain('Measured: time-out 35 minutes');
       expect(words).toContain('Photo of this test');
       expect(Object.keys(zip.files).some((name) => name.startsWith('word/media/'))).toBe(true);

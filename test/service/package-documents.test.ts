@@ -17,6 +17,7 @@ import { getProjectDetail } from '../../service/src/projects/projects.repository
 import { demoProjectName } from '../../schema/seeds/demo-data.js';
 import { freshDatabase, type TestDatabase } from '../support/database.js';
 import { recomputeWorkbook, type RecomputedCell } from '../support/workbook-formulas.js';
+import { wordText } from '../support/xml-text.js';
 
 let database: TestDatabase;
 let input: PackageInput;
@@ -79,18 +80,6 @@ interface WordParts {
   sections: { header: string; footer: string }[];
 }
 
-function words(xml: string): string {
-  return xml
-    .replace(/<w:tab\/>/g, '\t')
-    .replace(/<\/w:p>/g, '\n')
-    .replace(/<[^>]+>/g, '')
-    .replace(/&lt;/g, '<')
-    .replace(/&gt;/g, '>')
-    .replace(/&quot;/g, '"')
-    .replace(/&apos;/g, "'")
-    .replace(/&amp;/g, '&');
-}
-
 async function readWord(buffer: Buffer): Promise<WordParts> {
   const zip = await JSZip.loadAsync(buffer);
   const documentXml = await zip.file('word/document.xml')!.async('string');
@@ -99,14 +88,14 @@ async function readWord(buffer: Buffer): Promise<WordParts> {
     [...relations.matchAll(/<Relationship [^>]*Id="([^"]+)"[^>]*Target="([^"]+)"/g)].map((match) => [match[1]!, match[2]!]),
   );
   const part = async (id: string | undefined) =>
-    id === undefined ? '' : words(await zip.file(`word/${targets.get(id)}`)!.async('string'));
+    id === undefined ? '' : wordText(await zip.file(`word/${targets.get(id)}`)!.async('string'));
   const sections: WordParts['sections'] = [];
   for (const sectPr of documentXml.match(/<w:sectPr[\s\S]*?<\/w:sectPr>/g) ?? []) {
     const header = /<w:headerReference w:type="default" r:id="([^"]+)"/.exec(sectPr)?.[1];
     const footer = /<w:footerReference w:type="default" r:id="([^"]+)"/.exec(sectPr)?.[1];
     sections.push({ header: await part(header), footer: await part(footer) });
   }
-  return { body: words(documentXml), sections };
+  return { body: wordText(documentXml), sections };
 }
 
 // ---------------------------------------------------------------- reading a .xlsx back
@@ -312,7 +301,7 @@ describe('the Word compliance package', () => {
       expect(picture.width).toBeLessThanOrEqual(1.25 * (560 + 44 + 64));
       expect(picture.height).toBeLessThanOrEqual(1.25 * (320 + 28 + 56));
     }
-    expect(words(documentXml)).toContain('Plans of the daylit rooms');
+    expect(wordText(documentXml)).toContain('Plans of the daylit rooms');
   });
 
   it('has the review record when there is one', () => {

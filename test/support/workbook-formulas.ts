@@ -2,6 +2,7 @@ import type ExcelJS from 'exceljs';
 import JSZip from 'jszip';
 import FormulaParser, { type FormulaValue, type FunctionArg } from 'fast-formula-parser';
 import { Infix } from 'fast-formula-parser/formulas/operators.js';
+import { xmlEntitiesRead } from './xml-text.js';
 
 /** One formula cell of a workbook as read back: its formula, the value cached in the file, and the value recomputed. */
 export interface RecomputedCell {
@@ -147,13 +148,6 @@ export async function recomputeWorkbook(workbook: ExcelJS.Workbook, file: Buffer
  */
 async function cachedValues(file: Buffer, sheets: number): Promise<Map<string, number | string | boolean | undefined>[]> {
   const zip = await JSZip.loadAsync(file);
-  const decode = (text: string) =>
-    text
-      .replace(/&lt;/g, '<')
-      .replace(/&gt;/g, '>')
-      .replace(/&quot;/g, '"')
-      .replace(/&apos;/g, "'")
-      .replace(/&amp;/g, '&');
   const parts: Map<string, number | string | boolean | undefined>[] = [];
   for (let index = 1; index <= sheets; index++) {
     const xml = await zip.file(`xl/worksheets/sheet${index}.xml`)!.async('string');
@@ -161,7 +155,10 @@ async function cachedValues(file: Buffer, sheets: number): Promise<Map<string, n
     for (const match of xml.matchAll(/<c r="([A-Z]+[0-9]+)"([^>]*)><f>[^<]*<\/f>(?:<v>([^<]*)<\/v>)?<\/c>/g)) {
       const type = / t="(\w+)"/.exec(match[2]!)?.[1];
       const text = match[3];
-      values.set(match[1]!, text === undefined ? undefined : type === 'str' ? decode(text) : type === 'b' ? text === '1' : Number(text));
+      values.set(
+        match[1]!,
+        text === undefined ? undefined : type === 'str' ? xmlEntitiesRead(text) : type === 'b' ? text === '1' : Number(text),
+      );
     }
     parts.push(values);
   }
