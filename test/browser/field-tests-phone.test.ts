@@ -102,7 +102,7 @@ describe(
     it('records a time switch with a photo and a second one, and finds the chosen sensor by name and fails it: the sample widens', async () => {
       const { page } = browser;
       await kind('Time switches').click();
-      expect(await kind('Time switches').getAttribute('aria-expanded')).toBe('true');
+      await expect.poll(() => kind('Time switches').getAttribute('aria-expanded')).toBe('true');
       await recordIn(switchTitles[0]!, 'pass');
       await expect.poll(() => text('field-progress')).toContain('All tests: 1 of 57 passed');
       // The state bar follows: the project says where testing stands.
@@ -155,7 +155,7 @@ describe(
       await page.getByTestId('filter-to-do').click();
       await expect.poll(async () => (await page.getByTestId('filter-to-do').textContent())?.replace(/\s+/g, ' ').trim()).toBe('To do 57');
       // Filtered, the kinds open that the contractor did not fold.
-      expect(await kind('Occupant sensors').getAttribute('aria-expanded')).toBe('true');
+      await expect.poll(() => kind('Occupant sensors').getAttribute('aria-expanded')).toBe('true');
       const offices = plan.groups.find((group) => group.combination.includes('Office — Enclosed'))!;
       for (const item of plan.items.filter((entry) => offices.itemIds.includes(entry.id) && !entry.sample)) {
         await expect.poll(async () => (await card(item.title).locator('.result').textContent())?.trim()).toBe('Not tested yet');
